@@ -1,0 +1,59 @@
+package com.loopwright.solver.spec;
+
+/**
+ * Unit step response of wn^2/(s^2 + 2 zeta wn s + wn^2) in normalized time tau = wn t, for any zeta > 0:
+ * <pre>
+ *   zeta &lt; 1:  y = 1 - exp(-zeta tau)/s sin(s tau + acos zeta),   s = sqrt(1 - zeta^2)
+ *   zeta = 1:  y = 1 - exp(-tau)(1 + tau)
+ *   zeta &gt; 1:  y = 1 - (r2 exp(-r1 tau) - r1 exp(-r2 tau))/(r2 - r1),   r1,2 = zeta -+ sqrt(zeta^2 - 1)
+ * </pre>
+ */
+public final class NormalizedStepResponse {
+
+    /** Below this distance from 1 the critically damped formula is used (its neighbours lose digits there). */
+    private static final double CRITICAL_TOLERANCE = 1e-7;
+
+    private final double dampingRatio;
+
+    public NormalizedStepResponse(double dampingRatio) {
+        if (!(dampingRatio > 0) || !Double.isFinite(dampingRatio)) {
+            throw new IllegalArgumentException("damping ratio must be positive and finite: " + dampingRatio);
+        }
+        this.dampingRatio = dampingRatio;
+    }
+
+    public double dampingRatio() {
+        return dampingRatio;
+    }
+
+    /** True when the response oscillates about its final value (zeta &lt; 1). */
+    public boolean underdamped() {
+        return dampingRatio < 1 - CRITICAL_TOLERANCE;
+    }
+
+    /** Damped frequency over wn, sqrt(1 - zeta^2), for the underdamped case. */
+    public double dampedFrequencyRatio() {
+        return Math.sqrt(1 - dampingRatio * dampingRatio);
+    }
+
+    /** y(tau) for tau &gt;= 0. */
+    public double at(double tau) {
+        double zeta = dampingRatio;
+        if (underdamped()) {
+            double s = dampedFrequencyRatio();
+            return 1 - Math.exp(-zeta * tau) / s * Math.sin(s * tau + Math.acos(zeta));
+        }
+        if (dampingRatio <= 1 + CRITICAL_TOLERANCE) {
+            return 1 - Math.exp(-tau) * (1 + tau);
+        }
+        double root = Math.sqrt(zeta * zeta - 1);
+        double r1 = zeta - root;
+        double r2 = zeta + root;
+        return 1 - (r2 * Math.exp(-r1 * tau) - r1 * Math.exp(-r2 * tau)) / (r2 - r1);
+    }
+
+    /** Normalized time of the k-th extremum (k &gt;= 1) of the underdamped response: tau_k = k pi / s. */
+    public double extremumTime(int k) {
+        return k * Math.PI / dampedFrequencyRatio();
+    }
+}
