@@ -59,7 +59,7 @@ class HamiltonianRiccatiSolverTest {
         double worstDifference = 0.0;
         double[] ourResiduals = new double[200];
         double[] referenceResiduals = new double[200];
-        while (compared < 200) {
+        for (int trial = 0; trial < 1000 && compared < 200; trial++) {
             int n = 2 + random.nextInt(7);
             int m = 1 + random.nextInt(3);
             DMatrixRMaj a = gaussian(n, n, random);
@@ -91,6 +91,7 @@ class HamiltonianRiccatiSolverTest {
             referenceResiduals[compared] = RiccatiResidual.relative(a, r, q, reference);
             compared++;
         }
+        assertEquals(200, compared);
         Arrays.sort(ourResiduals);
         Arrays.sort(referenceResiduals);
         double ourWorst = ourResiduals[199];
