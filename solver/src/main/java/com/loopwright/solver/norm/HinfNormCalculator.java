@@ -94,21 +94,21 @@ public final class HinfNormCalculator {
         }
         Peak peak = Peak.best(response, initialFrequencies, new Peak(0.0, 0.0));
         if (peak.gain() == 0.0) {
-            // a nonzero entry of G has at most n - 1 zeros, so n more distinct frequencies settle G = 0
+            // a nonzero entry of G has at most n - 1 zeros, so n + 1 more distinct frequencies settle G = 0
             peak = Peak.best(response, logSpaced(poles, n), peak);
             if (peak.gain() == 0.0) {
                 return new HinfNorm(0.0, 0.0, 0);
             }
         }
 
-        DMatrixRMaj inputGramian = new DMatrixRMaj(n, n);
-        CommonOps_DDRM.multTransB(bScaled, bScaled, inputGramian);
-        DMatrixRMaj outputGramian = new DMatrixRMaj(n, n);
-        CommonOps_DDRM.multTransA(cScaled, cScaled, outputGramian);
+        DMatrixRMaj bTimesBTranspose = new DMatrixRMaj(n, n);
+        CommonOps_DDRM.multTransB(bScaled, bScaled, bTimesBTranspose);
+        DMatrixRMaj cTransposeTimesC = new DMatrixRMaj(n, n);
+        CommonOps_DDRM.multTransA(cScaled, cScaled, cTransposeTimesC);
 
         for (int iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {
             double gamma = (1.0 + 2.0 * RELATIVE_TOLERANCE) * peak.gain();
-            double[] crossings = imaginaryAxisFrequencies(hamiltonian(a, inputGramian, outputGramian, gamma));
+            double[] crossings = imaginaryAxisFrequencies(hamiltonian(a, bTimesBTranspose, cTransposeTimesC, gamma));
             if (crossings.length == 0) {
                 return new HinfNorm(peak.gain(), peak.frequency(), iteration);
             }
@@ -142,15 +142,15 @@ public final class HinfNormCalculator {
     }
 
     /** M(gamma) = [[A, B B'/gamma^2], [-C'C, -A']]. */
-    private static DMatrixRMaj hamiltonian(DMatrixRMaj a, DMatrixRMaj inputGramian, DMatrixRMaj outputGramian, double gamma) {
+    private static DMatrixRMaj hamiltonian(DMatrixRMaj a, DMatrixRMaj bTimesBTranspose, DMatrixRMaj cTransposeTimesC, double gamma) {
         int n = a.numRows;
         double inverseGammaSquared = 1.0 / (gamma * gamma);
         DMatrixRMaj m = new DMatrixRMaj(2 * n, 2 * n);
         for (int i = 0; i < n; i++) {
             for (int j = 0; j < n; j++) {
                 m.set(i, j, a.get(i, j));
-                m.set(i, n + j, inputGramian.get(i, j) * inverseGammaSquared);
-                m.set(n + i, j, -outputGramian.get(i, j));
+                m.set(i, n + j, bTimesBTranspose.get(i, j) * inverseGammaSquared);
+                m.set(n + i, j, -cTransposeTimesC.get(i, j));
                 m.set(n + i, n + j, -a.get(j, i));
             }
         }
