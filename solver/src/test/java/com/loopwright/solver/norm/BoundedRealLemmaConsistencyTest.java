@@ -19,7 +19,7 @@ import org.junit.jupiter.api.Test;
  */
 class BoundedRealLemmaConsistencyTest {
 
-    private final HinfNormCalculator calculator = new HinfNormCalculator();
+    private final HInfinityNormCalculator calculator = new HInfinityNormCalculator();
     private final HamiltonianRiccatiSolver riccatiSolver = new HamiltonianRiccatiSolver();
 
     @Test
@@ -27,9 +27,9 @@ class BoundedRealLemmaConsistencyTest {
         Random random = new Random(5L);
         for (int trial = 0; trial < 20; trial++) {
             int n = 2 + random.nextInt(5);
-            DMatrixRMaj a = HinfNormCalculatorTest.randomHurwitz(n, random);
-            DMatrixRMaj b = HinfNormCalculatorTest.gaussian(n, 1 + random.nextInt(2), random);
-            DMatrixRMaj c = HinfNormCalculatorTest.gaussian(1 + random.nextInt(2), n, random);
+            DMatrixRMaj a = HInfinityNormCalculatorTest.randomHurwitz(n, random);
+            DMatrixRMaj b = HInfinityNormCalculatorTest.gaussian(n, 1 + random.nextInt(2), random);
+            DMatrixRMaj c = HInfinityNormCalculatorTest.gaussian(1 + random.nextInt(2), n, random);
             double norm = calculator.compute(a, b, c).value();
 
             DMatrixRMaj q = new DMatrixRMaj(n, n);

@@ -105,7 +105,7 @@ class HamiltonianRiccatiSolverTest {
     }
 
     @Test
-    void matchesHipparchusOnTwoStateHinfPlantWithPositiveK() {
+    void matchesHipparchusOnTwoStateHInfinityPlantWithPositiveK() {
         // plant x'' + a1 x' + a0 x = b u + d w: A = [[0,1],[-a0,-a1]], B1 = [0,d]', B2 = [0,b]',
         // R = B1 B1'/g^2 - B2 B2' = diag(0, d^2/g^2 - b^2) = -B Rc^-1 B' with B = [0,1]', Rc = 1/k,
         // k = b^2 - d^2/g^2 > 0, so Hipparchus RiccatiEquationSolverImpl is a reference.
@@ -137,7 +137,7 @@ class HamiltonianRiccatiSolverTest {
     }
 
     @Test
-    void matchesHipparchusOnRandomIndefiniteHinfCases() {
+    void matchesHipparchusOnRandomIndefiniteHInfinityCases() {
         // R = B1 B1'/g^2 - B2 B2' (indefinite) equals -B Rc^-1 B' with B = [B1 B2] and the indefinite
         // Rc = diag(-g^2 I, I). The reference algorithm (stable eigenvectors of the Hamiltonian, then
         // Newton steps) only needs Rc invertible; its answer is used where it is stabilizing.
@@ -251,7 +251,7 @@ class HamiltonianRiccatiSolverTest {
     }
 
     @Test
-    void gammaTooSmallInTwoStateHinfPlantThrows() {
+    void gammaTooSmallInTwoStateHInfinityPlantThrows() {
         // a0 = a1 = 1, b = d = 1, gamma = 0.1: k = b^2 - d^2/gamma^2 = -99, Q = I.
         DMatrixRMaj a = new DMatrixRMaj(new double[][] {{0, 1}, {-1, -1}});
         DMatrixRMaj r = new DMatrixRMaj(new double[][] {{0, 0}, {0, 99}});

@@ -10,9 +10,9 @@ import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.junit.jupiter.api.Test;
 
-class HinfNormCalculatorTest {
+class HInfinityNormCalculatorTest {
 
-    private final HinfNormCalculator calculator = new HinfNormCalculator();
+    private final HInfinityNormCalculator calculator = new HInfinityNormCalculator();
 
     @Test
     void resonantPeakOfSecondOrderSystem() {
@@ -23,7 +23,7 @@ class HinfNormCalculatorTest {
         for (double[] c : cases) {
             double zeta = c[0];
             double wn = c[1];
-            HinfNorm norm = calculator.compute(secondOrderA(zeta, wn), column(0, 1), row(wn * wn, 0));
+            HInfinityNorm norm = calculator.compute(secondOrderA(zeta, wn), column(0, 1), row(wn * wn, 0));
             double expectedPeak = 1 / (2 * zeta * Math.sqrt(1 - zeta * zeta));
             double expectedFrequency = wn * Math.sqrt(1 - 2 * zeta * zeta);
             assertEquals(expectedPeak, norm.value(), 1e-8 * expectedPeak, "zeta = " + zeta + ", wn = " + wn);
@@ -31,7 +31,7 @@ class HinfNormCalculatorTest {
             assertTrue(norm.iterations() >= 1 && norm.iterations() <= 100);
         }
         // wn = 1, zeta = 0.15: Mr = 3.3715..., wr = 0.97724...
-        HinfNorm example = calculator.compute(secondOrderA(0.15, 1), column(0, 1), row(1, 0));
+        HInfinityNorm example = calculator.compute(secondOrderA(0.15, 1), column(0, 1), row(1, 0));
         assertEquals(3.3715, example.value(), 1e-4);
         assertEquals(0.9772, example.peakFrequencyRadPerSec(), 1e-4);
     }
@@ -44,7 +44,7 @@ class HinfNormCalculatorTest {
         for (double[] c : cases) {
             double zeta = c[0];
             double wn = c[1];
-            HinfNorm norm = calculator.compute(secondOrderA(zeta, wn), column(0, 1), row(wn * wn, 0));
+            HInfinityNorm norm = calculator.compute(secondOrderA(zeta, wn), column(0, 1), row(wn * wn, 0));
             assertEquals(1.0, norm.value(), 1e-10, "zeta = " + zeta);
             assertTrue(norm.peakFrequencyRadPerSec() < 1e-3 * wn, "peak at " + norm.peakFrequencyRadPerSec());
         }
@@ -57,7 +57,7 @@ class HinfNormCalculatorTest {
         for (double[] c : cases) {
             double a = c[0];
             double gain = Math.abs(c[1] * c[2]);
-            HinfNorm norm = calculator.compute(scalar(-a), scalar(c[1]), scalar(c[2]));
+            HInfinityNorm norm = calculator.compute(scalar(-a), scalar(c[1]), scalar(c[2]));
             assertEquals(gain / a, norm.value(), 1e-12 * gain / a, "a = " + a);
             assertEquals(0.0, norm.peakFrequencyRadPerSec(), 1e-6 * a);
         }
@@ -81,7 +81,7 @@ class HinfNormCalculatorTest {
         c.set(2, 3, 1);
         double resonant = 1 / (2 * 0.1 * Math.sqrt(1 - 0.01));
         double resonantFrequency = 5 * Math.sqrt(1 - 2 * 0.01);
-        HinfNorm norm = calculator.compute(a, b, c);
+        HInfinityNorm norm = calculator.compute(a, b, c);
         assertEquals(resonant, norm.value(), 1e-8 * resonant);
         assertEquals(resonantFrequency, norm.peakFrequencyRadPerSec(), 1e-5 * resonantFrequency);
 
@@ -93,13 +93,13 @@ class HinfNormCalculatorTest {
         CommonOps_DDRM.mult(u, c, rotatedC);
         DMatrixRMaj rotatedB = new DMatrixRMaj(4, 3);
         CommonOps_DDRM.multTransB(b, v, rotatedB);
-        HinfNorm rotated = calculator.compute(a, rotatedB, rotatedC);
+        HInfinityNorm rotated = calculator.compute(a, rotatedB, rotatedC);
         assertEquals(resonant, rotated.value(), 1e-8 * resonant);
         assertEquals(resonantFrequency, rotated.peakFrequencyRadPerSec(), 1e-5 * resonantFrequency);
 
         // dropping the resonant channel leaves the first-order channel 3/(s + 2) on top: 1.5 at w = 0
         c.set(1, 1, 0);
-        HinfNorm withoutResonance = calculator.compute(a, b, c);
+        HInfinityNorm withoutResonance = calculator.compute(a, b, c);
         assertEquals(1.5, withoutResonance.value(), 1e-12);
         assertEquals(0.0, withoutResonance.peakFrequencyRadPerSec(), 1e-6);
     }
@@ -119,7 +119,7 @@ class HinfNormCalculatorTest {
             DMatrixRMaj a = randomHurwitz(n, random);
             DMatrixRMaj b = gaussian(n, m, random);
             DMatrixRMaj c = gaussian(p, n, random);
-            HinfNorm norm = calculator.compute(a, b, c);
+            HInfinityNorm norm = calculator.compute(a, b, c);
             IndependentFrequencyResponse sweep = new IndependentFrequencyResponse(a, b, c);
 
             double gridMax = sweep.maxSingularValue(0.0);
@@ -159,10 +159,10 @@ class HinfNormCalculatorTest {
     @Test
     void zeroTransferMatrixHasZeroNorm() {
         DMatrixRMaj a = new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}});
-        HinfNorm noOutput = calculator.compute(a, column(1, 1), row(0, 0));
+        HInfinityNorm noOutput = calculator.compute(a, column(1, 1), row(0, 0));
         assertEquals(0.0, noOutput.value());
         // source: C (sI - A)^-1 B = 0 when the input only reaches a state the output does not see
-        HinfNorm decoupled = calculator.compute(a, column(1, 0), row(0, 1));
+        HInfinityNorm decoupled = calculator.compute(a, column(1, 0), row(0, 1));
         assertEquals(0.0, decoupled.value());
         assertEquals(0.0, decoupled.peakFrequencyRadPerSec());
     }
@@ -173,7 +173,7 @@ class HinfNormCalculatorTest {
         DMatrixRMaj a = randomHurwitz(32, random);
         DMatrixRMaj b = gaussian(32, 2, random);
         DMatrixRMaj c = gaussian(2, 32, random);
-        HinfNorm norm = calculator.compute(a, b, c);
+        HInfinityNorm norm = calculator.compute(a, b, c);
         IndependentFrequencyResponse sweep = new IndependentFrequencyResponse(a, b, c);
         double refined = refineAround(sweep, norm.peakFrequencyRadPerSec());
         assertTrue(refined <= norm.value() * (1 + 1e-9) && refined >= norm.value() * (1 - 1e-6));

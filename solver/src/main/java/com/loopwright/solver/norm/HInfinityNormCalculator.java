@@ -35,7 +35,7 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
  *
  * <p>Stateless and thread-safe.
  */
-public final class HinfNormCalculator {
+public final class HInfinityNormCalculator {
 
     /** Largest accepted state dimension n. */
     public static final int MAX_STATE_DIMENSION = 32;
@@ -68,7 +68,7 @@ public final class HinfNormCalculator {
      * @throws UnstableSystemException if A is not Hurwitz
      * @throws NormComputationException if the iteration fails to converge within its cap
      */
-    public HinfNorm compute(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
+    public HInfinityNorm compute(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
         int n = validate(a, b, c);
         Complex_F64[] poles = eigenvalues(a, "A");
         requireHurwitz(poles, NormOps_DDRM.normF(a));
@@ -76,7 +76,7 @@ public final class HinfNormCalculator {
         double bNorm = NormOps_DDRM.normF(b);
         double cNorm = NormOps_DDRM.normF(c);
         if (bNorm == 0.0 || cNorm == 0.0) {
-            return new HinfNorm(0.0, 0.0, 0);
+            return new HInfinityNorm(0.0, 0.0, 0);
         }
         // G = (C / s) (sI - A)^-1 (s B) for any s > 0
         double scale = Math.sqrt(cNorm / bNorm);
@@ -97,7 +97,7 @@ public final class HinfNormCalculator {
             // a nonzero entry of G has at most n - 1 zeros, so n + 1 more distinct frequencies settle G = 0
             peak = Peak.best(response, logSpaced(poles, n), peak);
             if (peak.gain() == 0.0) {
-                return new HinfNorm(0.0, 0.0, 0);
+                return new HInfinityNorm(0.0, 0.0, 0);
             }
         }
 
@@ -110,13 +110,13 @@ public final class HinfNormCalculator {
             double gamma = (1.0 + 2.0 * RELATIVE_TOLERANCE) * peak.gain();
             double[] crossings = imaginaryAxisFrequencies(hamiltonian(a, bTimesBTranspose, cTransposeTimesC, gamma));
             if (crossings.length == 0) {
-                return new HinfNorm(peak.gain(), peak.frequency(), iteration);
+                return new HInfinityNorm(peak.gain(), peak.frequency(), iteration);
             }
             Peak improved = Peak.best(response, midpoints(crossings), peak);
             if (!(improved.gain() > gamma)) {
                 // a genuine crossing interval would contain a midpoint with sigma_max > gamma; none
                 // does, so the detections are not genuine crossings and gamma bounds the norm
-                return new HinfNorm(improved.gain(), improved.frequency(), iteration);
+                return new HInfinityNorm(improved.gain(), improved.frequency(), iteration);
             }
             peak = improved;
         }
