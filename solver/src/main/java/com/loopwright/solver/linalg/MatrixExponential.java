@@ -8,17 +8,16 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
 /**
  * The matrix exponential e^A of a small dense square matrix.
  *
- * <p>Method: scaling and squaring with diagonal Pade approximants, as in Higham, "The scaling and
- * squaring method for the matrix exponential revisited" (SIAM J. Matrix Anal. Appl., 2005),
- * Algorithm 2.3. With the 1-norm ||A||_1, the smallest degree m in {3, 5, 7, 9} with
+ * <p>Method: Higham's 2005 scaling and squaring with diagonal [m/m] Pade approximants r_m.
+ * With the 1-norm ||A||_1, the smallest degree m in {3, 5, 7, 9} with
  * ||A||_1 <= theta_m is used unscaled; otherwise A is scaled by 2^-s so that
  * ||2^-s A||_1 <= theta_13, the [13/13] approximant r_13 is evaluated and squared s times:
  * e^A ~ r_13(2^-s A)^(2^s).
  *
  * <p>Error bound: for ||2^-s A||_1 <= theta_m, r_m(2^-s A)^(2^s) = e^(A + dA) exactly with
  * ||dA||_1 <= u ||A||_1, u = 2^-53 the unit roundoff (backward error of the approximant in exact
- * arithmetic, Higham 2005, Table 2.3 and eq. 2.6). Rounding in the evaluation and the squarings
- * adds a forward error that grows with s and with the conditioning of e^A.
+ * arithmetic; the theta_m are the largest norms for which that holds). Rounding in the evaluation
+ * and the squarings adds a forward error that grows with s and with the conditioning of e^A.
  */
 public final class MatrixExponential {
 
@@ -28,7 +27,7 @@ public final class MatrixExponential {
     /** Largest number s of squarings; ||A||_1 above theta_13 * 2^64 (about 1e20) is rejected. */
     public static final int MAX_SQUARINGS = 64;
 
-    // theta_m for m = 3, 5, 7, 9 (Higham 2005, Table 2.3, double precision).
+    // theta_m for m = 3, 5, 7, 9: largest ||A||_1 with backward error <= 2^-53 (double precision).
     private static final double[] THETA_LOW_DEGREE = {
         1.495585217958292e-2, 2.539398330063230e-1, 9.504178996162932e-1, 2.097847961257068e0
     };
@@ -187,7 +186,7 @@ public final class MatrixExponential {
     }
 
     /**
-     * r_13(A) evaluated with 6 matrix products as in Higham 2005, eq. (2.11)-(2.12):
+     * r_13(A) evaluated with 6 matrix products and one linear solve:
      * U = A [A6 (b13 A6 + b11 A4 + b9 A2) + b7 A6 + b5 A4 + b3 A2 + b1 I],
      * V = A6 (b12 A6 + b10 A4 + b8 A2) + b6 A6 + b4 A4 + b2 A2 + b0 I.
      */
@@ -244,8 +243,8 @@ public final class MatrixExponential {
         CommonOps_DDRM.subtract(v, u, denominator);
         LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.lu(n);
         if (!solver.setA(denominator)) {
-            // q_m(A) is well conditioned for ||A||_1 <= theta_m (Higham 2005, Sec. 2), so this
-            // signals corrupted input rather than a hard but valid case.
+            // q_m(A) is well conditioned for ||A||_1 <= theta_m, so this signals corrupted
+            // input rather than a hard but valid case.
             throw new IllegalArgumentException("Pade denominator q_m(A) is singular");
         }
         DMatrixRMaj result = new DMatrixRMaj(n, n);

@@ -3,7 +3,7 @@ package com.loopwright.solver.simulation;
 import java.util.function.DoubleUnaryOperator;
 
 /**
- * Brent's method (Brent, "Algorithms for Minimization without Derivatives", 1973, ch. 4):
+ * Brent's root-finding method (the classic zeroin):
  * inverse quadratic interpolation and secant steps, safeguarded by bisection, on a bracket
  * [lo, hi] where f changes sign.
  */

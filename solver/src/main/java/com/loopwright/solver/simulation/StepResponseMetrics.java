@@ -2,6 +2,7 @@ package com.loopwright.solver.simulation;
 
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.NormOps_DDRM;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
@@ -20,6 +21,10 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
  * oscillatory modes: the sample period h must satisfy h max|Im lambda(A)| <= pi / 2 (at least 4
  * samples per period of the fastest oscillation). Sums of real modes have at most n - 1
  * extrema in total, so they are not checked.
+ *
+ * <p>All metrics are those of the response on [0, horizon]: a peak or a band excursion after the
+ * horizon is not seen, so the horizon must cover the slow modes (several times
+ * 1 / min |Re lambda(A)|).
  */
 public final class StepResponseMetrics {
 
@@ -120,10 +125,13 @@ public final class StepResponseMetrics {
         if (!eigen.decompose(a.copy())) {
             throw new IllegalArgumentException("eigenvalues of A could not be computed");
         }
+        // Eigenvalues come with errors ~ eps ||A||, so real parts within that of zero are taken
+        // as on the imaginary axis.
+        double realPartTolerance = 8.0 * Math.ulp(1.0) * NormOps_DDRM.normF(a);
         double maxImaginary = 0.0;
         for (int i = 0; i < eigen.getNumberOfEigenvalues(); i++) {
             Complex_F64 eigenvalue = eigen.getEigenvalue(i);
-            if (!(eigenvalue.real < 0.0)) {
+            if (!(eigenvalue.real < -realPartTolerance)) {
                 throw new IllegalArgumentException("A is not Hurwitz: eigenvalue " + eigenvalue.real
                     + (eigenvalue.imaginary >= 0 ? " + " : " - ") + Math.abs(eigenvalue.imaginary)
                     + "i has a non-negative real part, so the step response has no final value");

@@ -8,7 +8,7 @@ import org.ejml.dense.row.CommonOps_DDRM;
  * Exact sampling of x' = A x + B u with u held constant between samples (zero-order hold).
  *
  * <p>Over one period T: x(t + T) = Ad x(t) + Bd u with Ad = e^(A T) and
- * Bd = (integral_0^T e^(A s) ds) B. Both come from one block exponential (Van Loan, 1978):
+ * Bd = (integral_0^T e^(A s) ds) B. Both come from Van Loan's block exponential:
  * exp([[A, B], [0, 0]] T) = [[Ad, Bd], [0, I]], which needs no inverse of A and so also holds
  * for singular A (integrators).
  */

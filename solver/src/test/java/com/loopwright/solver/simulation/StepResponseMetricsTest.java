@@ -76,7 +76,8 @@ class StepResponseMetricsTest {
 
         // The coarsest grid the density check accepts (4 samples per damped period, plus margin)
         // must give the same exact values: events between samples are refined, not sampled.
-        int coarsest = (int) Math.ceil(horizonSeconds * wd / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
+        int coarsest =
+            (int) Math.ceil(horizonSeconds * wd / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
         StepMetrics coarsestMetrics = metrics.measure(loop, r, horizonSeconds, coarsest, BAND);
 
         for (StepMetrics m : new StepMetrics[] {coarsestMetrics, coarse, fine}) {
@@ -147,7 +148,8 @@ class StepResponseMetricsTest {
         double s = 0.02;
         double w = 10.0;
         double beta = 0.08;
-        DoubleUnaryOperator y = t -> 1 - Math.exp(-a * t) + beta * Math.exp(-s * t) * Math.sin(w * t);
+        DoubleUnaryOperator y =
+            t -> 1 - Math.exp(-a * t) + beta * Math.exp(-s * t) * Math.sin(w * t);
         DoubleUnaryOperator yRate = t -> a * Math.exp(-a * t)
             + beta * Math.exp(-s * t) * (w * Math.cos(w * t) - s * Math.sin(w * t));
         double scanStep = 1e-3;
@@ -433,6 +435,12 @@ class StepResponseMetricsTest {
             new DMatrixRMaj(new double[][] {{0, 1}}), loop.cControl(), loop.dControl());
         assertThrows(IllegalArgumentException.class,
             () -> metrics.measure(velocityOutput, 1, 10, 500, BAND));
+        // The result record itself refuses non-finite or negative values.
+        assertThrows(IllegalArgumentException.class,
+            () -> new StepMetrics(Double.NaN, 1, 0, 1, 0, 1, 1));
+        assertThrows(IllegalArgumentException.class,
+            () -> new StepMetrics(1, Double.POSITIVE_INFINITY, 0, 1, 0, 1, 1));
+        assertThrows(IllegalArgumentException.class, () -> new StepMetrics(1, 1, -1, 1, 0, 1, 1));
         // Grid too coarse: wd = 200 rad/s over 10 s needs more than 10 samples.
         assertThrows(IllegalArgumentException.class, () -> metrics.measure(
             SecondOrderLoops.stateFeedbackLoop(0.3, 200.0), 1, 10, 10, BAND));
