@@ -1,0 +1,218 @@
+package com.loopwright.solver.simulation;
+
+/**
+ * A scalar signal s = w . x + offset along an {@link ExactTrajectory}, with its exact sample
+ * values and time derivatives s' = w . (A x + bRef r), and the refinements that the step metrics
+ * need between samples.
+ *
+ * <p>Assumption (enforced by the caller through the sample-density check): each sample interval
+ * holds at most one critical point of s, so a sign change of s' between two samples marks the
+ * single extremum inside, and s is monotone on each side of it.
+ */
+final class LinearSignal {
+
+    /** A time and the signal value there. */
+    record Point(double timeSeconds, double value) {
+    }
+
+    private final ExactTrajectory trajectory;
+    private final double[] weights;
+    private final double offset;
+    private final double[] sampleValue;
+    private final double[] sampleRate;
+
+    LinearSignal(ExactTrajectory trajectory, double[] weights, double offset) {
+        this.trajectory = trajectory;
+        this.weights = weights.clone();
+        this.offset = offset;
+        int count = trajectory.sampleCount();
+        this.sampleValue = new double[count];
+        this.sampleRate = new double[count];
+        for (int k = 0; k < count; k++) {
+            double[] x = trajectory.sampleState(k);
+            sampleValue[k] = valueOf(x);
+            sampleRate[k] = rateOf(x);
+        }
+    }
+
+    int sampleCount() {
+        return sampleValue.length;
+    }
+
+    double sampleValue(int k) {
+        return sampleValue[k];
+    }
+
+    double time(int k) {
+        return trajectory.time(k);
+    }
+
+    private double valueOf(double[] x) {
+        double sum = offset;
+        for (int i = 0; i < x.length; i++) {
+            sum += weights[i] * x[i];
+        }
+        return sum;
+    }
+
+    private double rateOf(double[] x) {
+        double[] xDot = trajectory.rate(x);
+        double sum = 0.0;
+        for (int i = 0; i < xDot.length; i++) {
+            sum += weights[i] * xDot[i];
+        }
+        return sum;
+    }
+
+    /** s(t) for t in [t_k, t_(k+1)]. */
+    double valueBetween(int k, double tSeconds) {
+        return valueOf(trajectory.stateBetween(k, tSeconds));
+    }
+
+    /** Interval k has an interior maximum: s' goes from positive to negative. */
+    boolean hasInteriorMaximum(int k) {
+        return sampleRate[k] > 0.0 && sampleRate[k + 1] < 0.0;
+    }
+
+    /** Interval k has an interior minimum: s' goes from negative to positive. */
+    boolean hasInteriorMinimum(int k) {
+        return sampleRate[k] < 0.0 && sampleRate[k + 1] > 0.0;
+    }
+
+    /**
+     * Upper estimate of an interior maximum on interval k of width h: if s' decreases across the
+     * interval, s(t*) <= s_k + s'_k h and s(t*) <= s_(k+1) - s'_(k+1) h; a factor 2 on the
+     * increments adds a margin for a non-monotone s'.
+     */
+    double interiorMaximumBound(int k) {
+        double width = time(k + 1) - time(k);
+        return Math.min(sampleValue[k] + 2.0 * sampleRate[k] * width,
+            sampleValue[k + 1] - 2.0 * sampleRate[k + 1] * width);
+    }
+
+    /** Lower estimate of an interior minimum on interval k, mirror of the maximum bound. */
+    double interiorMinimumBound(int k) {
+        double width = time(k + 1) - time(k);
+        return Math.max(sampleValue[k] + 2.0 * sampleRate[k] * width,
+            sampleValue[k + 1] - 2.0 * sampleRate[k + 1] * width);
+    }
+
+    /** The critical point s'(t*) = 0 inside interval k, by Brent's method on the exact s'. */
+    Point criticalPoint(int k) {
+        double tStar = BracketedRoot.find(t -> rateOf(trajectory.stateBetween(k, t)),
+            time(k), time(k + 1), sampleRate[k], sampleRate[k + 1]);
+        return new Point(tStar, valueBetween(k, tStar));
+    }
+
+    /**
+     * The time in [loSeconds, hiSeconds] within interval k where s = level, given the signal
+     * values at the bracket ends (they must straddle the level).
+     */
+    double crossing(int k, double level, double loSeconds, double valueAtLo, double hiSeconds,
+                    double valueAtHi) {
+        if (loSeconds == hiSeconds) {
+            return loSeconds;
+        }
+        return BracketedRoot.find(t -> valueBetween(k, t) - level, loSeconds, hiSeconds,
+            valueAtLo - level, valueAtHi - level);
+    }
+
+    /**
+     * The global maximum of s over [0, horizon]: the largest sample, then every interior maximum
+     * whose upper estimate could beat the best value so far, largest estimate first.
+     */
+    Point maximum() {
+        int count = sampleCount();
+        int bestSample = 0;
+        for (int k = 1; k < count; k++) {
+            if (sampleValue[k] > sampleValue[bestSample]) {
+                bestSample = k;
+            }
+        }
+        Point best = new Point(time(bestSample), sampleValue[bestSample]);
+        int candidateCount = 0;
+        int[] candidates = new int[count - 1];
+        for (int k = 0; k < count - 1; k++) {
+            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > best.value()) {
+                candidates[candidateCount++] = k;
+            }
+        }
+        Integer[] order = new Integer[candidateCount];
+        for (int i = 0; i < candidateCount; i++) {
+            order[i] = candidates[i];
+        }
+        java.util.Arrays.sort(order,
+            (p, q) -> Double.compare(interiorMaximumBound(q), interiorMaximumBound(p)));
+        for (int k : order) {
+            if (interiorMaximumBound(k) <= best.value()) {
+                break;
+            }
+            Point refined = criticalPoint(k);
+            if (refined.value() > best.value()) {
+                best = refined;
+            }
+        }
+        return best;
+    }
+
+    /**
+     * The first time s reaches the level (s(0) below it), or -1 if it does not within the
+     * horizon.
+     */
+    double firstTimeReaching(double level) {
+        if (sampleValue[0] >= level) {
+            return time(0);
+        }
+        for (int k = 0; k < sampleCount() - 1; k++) {
+            if (hasInteriorMaximum(k) && interiorMaximumBound(k) >= level) {
+                Point peak = criticalPoint(k);
+                if (peak.value() >= level) {
+                    // s rises monotonically from t_k to the peak
+                    return crossing(k, level, time(k), sampleValue[k], peak.timeSeconds(),
+                        peak.value());
+                }
+            }
+            if (sampleValue[k + 1] >= level) {
+                return crossing(k, level, time(k), sampleValue[k], time(k + 1),
+                    sampleValue[k + 1]);
+            }
+        }
+        return -1.0;
+    }
+
+    /**
+     * The last time |s - centre| exceeds halfWidth, scanning back from the horizon, or -1 if s is
+     * outside the band at the last sample.
+     */
+    double lastTimeOutsideBand(double centre, double halfWidth) {
+        double upper = centre + halfWidth;
+        double lower = centre - halfWidth;
+        int last = sampleCount() - 1;
+        if (Math.abs(sampleValue[last] - centre) > halfWidth) {
+            return -1.0;
+        }
+        for (int k = last - 1; k >= 0; k--) {
+            // Exit after an interior extremum outside the band: s is monotone from t* to t_(k+1).
+            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > upper) {
+                Point peak = criticalPoint(k);
+                if (peak.value() > upper) {
+                    return crossing(k, upper, peak.timeSeconds(), peak.value(), time(k + 1),
+                        sampleValue[k + 1]);
+                }
+            }
+            if (hasInteriorMinimum(k) && interiorMinimumBound(k) < lower) {
+                Point trough = criticalPoint(k);
+                if (trough.value() < lower) {
+                    return crossing(k, lower, trough.timeSeconds(), trough.value(), time(k + 1),
+                        sampleValue[k + 1]);
+                }
+            }
+            if (Math.abs(sampleValue[k] - centre) > halfWidth) {
+                double level = sampleValue[k] > centre ? upper : lower;
+                return crossing(k, level, time(k), sampleValue[k], time(k + 1),
+                    sampleValue[k + 1]);
+            }
+        }
+        return time(0);
+    }
+}

@@ -1,0 +1,171 @@
+package com.loopwright.solver.simulation;
+
+import org.ejml.data.Complex_F64;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.NormOps_DDRM;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.ejml.interfaces.linsol.LinearSolverDense;
+
+/**
+ * Rise time, settling time, overshoot, peak time, steady-state error and peak control of a
+ * {@link LinearLoop}'s step response, exact up to rounding and independent of the sample count.
+ *
+ * <p>The samples of {@link StepSimulator} only locate events; each event is then refined on the
+ * exact continuous solution x(t_k + tau) = Ad(tau) x_k + Bd(tau) r by Brent's method: level
+ * crossings as roots of y(t) - level, extrema as roots of y'(t) = cOut (A x + bRef r). The output
+ * is normalised as z = y / y_inf, so the metrics hold for either sign of y_inf.
+ *
+ * <p>The refinement assumes at most one extremum per sample interval. It is enforced for the
+ * oscillatory modes: the sample period h must satisfy h max|Im lambda(A)| <= pi / 2 (at least 4
+ * samples per period of the fastest oscillation). Sums of real modes have at most n - 1
+ * extrema in total, so they are not checked.
+ *
+ * <p>All metrics are those of the response on [0, horizon]: a peak or a band excursion after the
+ * horizon is not seen, so the horizon must cover the slow modes (several times
+ * 1 / min |Re lambda(A)|).
+ */
+public final class StepResponseMetrics {
+
+    /** Largest accepted h max|Im lambda(A)| (rad): at least 4 samples per oscillation period. */
+    public static final double MAX_RADIANS_PER_SAMPLE = Math.PI / 2.0;
+
+    private static final double RISE_START_FRACTION = 0.1;
+    private static final double RISE_END_FRACTION = 0.9;
+
+    private final StepSimulator simulator = new StepSimulator();
+
+    /**
+     * Measures the step response metrics.
+     *
+     * @param loop the loop; its A must be Hurwitz (every eigenvalue with negative real part)
+     * @param stepSize amplitude r of the reference step, in output units; finite, non-zero
+     * @param horizonSeconds simulated window in seconds, finite and positive
+     * @param samples sample count in [2, 100000]; only locates events, the metrics do not depend
+     *     on it once the sample-density condition holds
+     * @param settlingBandFraction settling band as a fraction of |y_inf|, in (0, 1), e.g. 0.02
+     * @throws IllegalArgumentException on bad arguments, a non-Hurwitz A, a zero final value, or
+     *     a sample grid too coarse for the loop's oscillations
+     * @throws HorizonTooShortException if the output does not reach 90% of y_inf or is outside the
+     *     settling band at the horizon
+     */
+    public StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
+                               double settlingBandFraction) {
+        StepSimulator.validate(loop, stepSize, horizonSeconds, samples);
+        if (stepSize == 0.0) {
+            throw new IllegalArgumentException("stepSize must be non-zero");
+        }
+        if (!(settlingBandFraction > 0.0 && settlingBandFraction < 1.0)) {
+            throw new IllegalArgumentException(
+                "settlingBandFraction must be in (0, 1), got " + settlingBandFraction);
+        }
+        double maxOscillationRadPerSecond = requireHurwitz(loop.a());
+        double samplePeriodSeconds = horizonSeconds / (samples - 1);
+        if (samplePeriodSeconds * maxOscillationRadPerSecond > MAX_RADIANS_PER_SAMPLE) {
+            double needed = Math.ceil(horizonSeconds * maxOscillationRadPerSecond
+                / MAX_RADIANS_PER_SAMPLE) + 1;
+            throw new IllegalArgumentException("sample grid too coarse: the fastest oscillation ("
+                + maxOscillationRadPerSecond + " rad/s) needs at least " + (long) needed
+                + " samples over " + horizonSeconds + " s, got " + samples);
+        }
+        double finalValue = finalValue(loop, stepSize);
+
+        StepResponse response = simulator.simulate(loop, stepSize, horizonSeconds, samples);
+        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, response);
+        int n = loop.stateDimension();
+        DMatrixRMaj cOut = loop.cOut();
+        DMatrixRMaj cControl = loop.cControl();
+        double[] normalisedOutputWeights = new double[n];
+        double[] controlWeights = new double[n];
+        double[] negatedControlWeights = new double[n];
+        for (int j = 0; j < n; j++) {
+            normalisedOutputWeights[j] = cOut.get(0, j) / finalValue;
+            controlWeights[j] = cControl.get(0, j);
+            negatedControlWeights[j] = -cControl.get(0, j);
+            if (!Double.isFinite(normalisedOutputWeights[j])) {
+                throw new IllegalArgumentException("cOut / y_inf overflows: final value "
+                    + finalValue + " is too close to zero");
+            }
+        }
+        double controlOffset = loop.dControl() * stepSize;
+        // z = y / y_inf: z(0) = 0, z -> 1.
+        LinearSignal normalisedOutput = new LinearSignal(trajectory, normalisedOutputWeights, 0.0);
+
+        double riseStart = normalisedOutput.firstTimeReaching(RISE_START_FRACTION);
+        double riseEnd = normalisedOutput.firstTimeReaching(RISE_END_FRACTION);
+        if (riseStart < 0.0 || riseEnd < 0.0) {
+            throw new HorizonTooShortException(
+                "the output does not reach 90% of its final value " + finalValue, horizonSeconds);
+        }
+        double settlingTimeSeconds =
+            normalisedOutput.lastTimeOutsideBand(1.0, settlingBandFraction);
+        if (settlingTimeSeconds < 0.0) {
+            throw new HorizonTooShortException("the output is outside the "
+                + settlingBandFraction + " settling band at the horizon", horizonSeconds);
+        }
+        LinearSignal.Point peak = normalisedOutput.maximum();
+        double overshootPercent = Math.max(0.0, 100.0 * (peak.value() - 1.0));
+
+        // max |u| = max(max u, max -u), both including u(0+) = dControl r at sample 0.
+        LinearSignal.Point controlMax =
+            new LinearSignal(trajectory, controlWeights, controlOffset).maximum();
+        LinearSignal.Point controlMin =
+            new LinearSignal(trajectory, negatedControlWeights, -controlOffset).maximum();
+        double peakControl = Math.max(Math.abs(controlMax.value()), Math.abs(controlMin.value()));
+
+        return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,
+            peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue);
+    }
+
+    /** Checks Re lambda < 0 for every eigenvalue; returns max |Im lambda| in rad/s. */
+    private static double requireHurwitz(DMatrixRMaj a) {
+        EigenDecomposition_F64<DMatrixRMaj> eigen =
+            DecompositionFactory_DDRM.eig(a.numRows, false, false);
+        if (!eigen.decompose(a.copy())) {
+            throw new IllegalArgumentException("eigenvalues of A could not be computed");
+        }
+        // Eigenvalues come with errors ~ eps ||A||, so real parts within that of zero are taken
+        // as on the imaginary axis.
+        double realPartTolerance = 8.0 * Math.ulp(1.0) * NormOps_DDRM.normF(a);
+        double maxImaginary = 0.0;
+        for (int i = 0; i < eigen.getNumberOfEigenvalues(); i++) {
+            Complex_F64 eigenvalue = eigen.getEigenvalue(i);
+            if (!(eigenvalue.real < -realPartTolerance)) {
+                throw new IllegalArgumentException("A is not Hurwitz: eigenvalue " + eigenvalue.real
+                    + (eigenvalue.imaginary >= 0 ? " + " : " - ") + Math.abs(eigenvalue.imaginary)
+                    + "i has a non-negative real part, so the step response has no final value");
+            }
+            maxImaginary = Math.max(maxImaginary, Math.abs(eigenvalue.imaginary));
+        }
+        return maxImaginary;
+    }
+
+    /** y_inf = cOut x_inf with A x_inf = -bRef r (the equilibrium of x' = A x + bRef r). */
+    private static double finalValue(LinearLoop loop, double stepSize) {
+        int n = loop.stateDimension();
+        LinearSolverDense<DMatrixRMaj> solver = LinearSolverFactory_DDRM.lu(n);
+        if (!solver.setA(loop.a())) {
+            throw new IllegalArgumentException("A is singular");
+        }
+        DMatrixRMaj rhs = loop.bRef();
+        for (int i = 0; i < n; i++) {
+            rhs.set(i, 0, -rhs.get(i, 0) * stepSize);
+        }
+        DMatrixRMaj equilibrium = new DMatrixRMaj(n, 1);
+        solver.solve(rhs, equilibrium);
+        DMatrixRMaj cOut = loop.cOut();
+        double finalValue = 0.0;
+        for (int j = 0; j < n; j++) {
+            finalValue += cOut.get(0, j) * equilibrium.get(j, 0);
+        }
+        if (!Double.isFinite(finalValue)) {
+            throw new IllegalArgumentException("final value is not finite: A is numerically singular");
+        }
+        if (finalValue == 0.0) {
+            throw new IllegalArgumentException(
+                "final value is zero: rise, overshoot and settling relative to it are undefined");
+        }
+        return finalValue;
+    }
+}

@@ -1,0 +1,222 @@
+package com.loopwright.solver.simulation;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.ejml.data.DMatrixRMaj;
+import org.hipparchus.ode.ODEState;
+import org.hipparchus.ode.ODEStateAndDerivative;
+import org.hipparchus.ode.OrdinaryDifferentialEquation;
+import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
+import org.junit.jupiter.api.Test;
+
+class StepSimulatorTest {
+
+    private final StepSimulator simulator = new StepSimulator();
+
+    @Test
+    void underdampedSamplesMatchAnalyticResponse() {
+        // source: step response of wn^2 / (s^2 + 2 zeta wn s + wn^2), any control textbook:
+        // y(t) = 1 - e^(-zeta wn t) / sqrt(1 - zeta^2) sin(wd t + acos zeta), wd = wn sqrt(1-zeta^2),
+        // and its derivative y'(t) = wn / sqrt(1 - zeta^2) e^(-zeta wn t) sin(wd t).
+        double zeta = 0.4;
+        double wn = 3.0;
+        double r = 2.0;
+        double horizonSeconds = 10.0;
+        int samples = 1001;
+        StepResponse response = simulator.simulate(
+            SecondOrderLoops.stateFeedbackLoop(zeta, wn), r, horizonSeconds, samples);
+        double root = Math.sqrt(1 - zeta * zeta);
+        double wd = wn * root;
+        double[] time = response.timeSeconds();
+        double[][] state = response.state();
+        double[] output = response.output();
+        double[] control = response.control();
+        assertEquals(samples, response.sampleCount());
+        assertEquals(0.0, time[0]);
+        assertEquals(horizonSeconds, time[samples - 1]);
+        for (int k = 0; k < samples; k++) {
+            double t = time[k];
+            assertEquals(horizonSeconds * k / (samples - 1), t, 1e-15 * horizonSeconds);
+            double envelope = Math.exp(-zeta * wn * t);
+            double y = r * (1 - envelope / root * Math.sin(wd * t + Math.acos(zeta)));
+            double yDot = r * wn / root * envelope * Math.sin(wd * t);
+            // u = y'' for the double-integrator plant: u = wn^2 (r - y) - 2 zeta wn y'.
+            double u = wn * wn * (r - y) - 2 * zeta * wn * yDot;
+            assertEquals(y, state[k][0], 1e-13 * r, "y at t = " + t);
+            assertEquals(y, output[k], 1e-13 * r, "output at t = " + t);
+            assertEquals(yDot, state[k][1], 1e-13 * r * wn, "y' at t = " + t);
+            assertEquals(u, control[k], 1e-12 * r * wn * wn, "u at t = " + t);
+        }
+        // The step reaches u at t = 0+: u(0+) = dControl r = wn^2 r.
+        assertEquals(wn * wn * r, control[0]);
+    }
+
+    @Test
+    void secondOrderLoopAgreesWithDormandPrince() {
+        assertAgreesWithDormandPrince(SecondOrderLoops.stateFeedbackLoop(0.35, 12.0), 1.7, 2.0, 500);
+    }
+
+    @Test
+    void randomFourthOrderLoopAgreesWithDormandPrince() {
+        assertAgreesWithDormandPrince(SecondOrderLoops.randomStableLoop(4L, 4, 0.5), -0.8, 12.0, 500);
+    }
+
+    /**
+     * source: Hipparchus DormandPrince853Integrator (an adaptive 8th-order Runge-Kutta) with
+     * absolute and relative tolerances 1e-12, integrating x' = A x + bRef r from sample to sample;
+     * agreement to 1e-9 times max(|r|, largest |value| of that signal).
+     */
+    private void assertAgreesWithDormandPrince(LinearLoop loop, double r, double horizonSeconds,
+                                               int samples) {
+        StepResponse response = simulator.simulate(loop, r, horizonSeconds, samples);
+        int n = loop.stateDimension();
+        DMatrixRMaj a = loop.a();
+        DMatrixRMaj bRef = loop.bRef();
+        OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
+            @Override
+            public int getDimension() {
+                return n;
+            }
+
+            @Override
+            public double[] computeDerivatives(double t, double[] x) {
+                double[] xDot = new double[n];
+                for (int i = 0; i < n; i++) {
+                    xDot[i] = bRef.get(i, 0) * r;
+                    for (int j = 0; j < n; j++) {
+                        xDot[i] += a.get(i, j) * x[j];
+                    }
+                }
+                return xDot;
+            }
+        };
+        DormandPrince853Integrator integrator =
+            new DormandPrince853Integrator(1e-12, horizonSeconds, 1e-12, 1e-12);
+        double[] time = response.timeSeconds();
+        double[][] state = response.state();
+        double[] output = response.output();
+        double[] control = response.control();
+        double[][] reference = new double[samples][];
+        reference[0] = new double[n];
+        ODEState current = new ODEState(0.0, reference[0]);
+        for (int k = 1; k < samples; k++) {
+            ODEStateAndDerivative next = integrator.integrate(ode, current, time[k]);
+            reference[k] = next.getPrimaryState();
+            current = new ODEState(next.getTime(), next.getPrimaryState());
+        }
+        double[] stateScale = new double[n];
+        double outputScale = Math.abs(r);
+        double controlScale = Math.abs(r);
+        double[] referenceOutput = new double[samples];
+        double[] referenceControl = new double[samples];
+        for (int k = 0; k < samples; k++) {
+            referenceOutput[k] = 0.0;
+            referenceControl[k] = loop.dControl() * r;
+            for (int j = 0; j < n; j++) {
+                referenceOutput[k] += loop.cOut().get(0, j) * reference[k][j];
+                referenceControl[k] += loop.cControl().get(0, j) * reference[k][j];
+                stateScale[j] = Math.max(Math.max(stateScale[j], Math.abs(r)),
+                    Math.abs(reference[k][j]));
+            }
+            outputScale = Math.max(outputScale, Math.abs(referenceOutput[k]));
+            controlScale = Math.max(controlScale, Math.abs(referenceControl[k]));
+        }
+        for (int k = 0; k < samples; k++) {
+            for (int j = 0; j < n; j++) {
+                assertEquals(reference[k][j], state[k][j], 1e-9 * stateScale[j],
+                    "state " + j + " at t = " + time[k]);
+            }
+            assertEquals(referenceOutput[k], output[k], 1e-9 * outputScale, "y at t = " + time[k]);
+            assertEquals(referenceControl[k], control[k], 1e-9 * controlScale,
+                "u at t = " + time[k]);
+        }
+    }
+
+    @Test
+    void zeroStepGivesZeroResponse() {
+        // source: linearity with x(0) = 0: r = 0 gives x(t) = 0.
+        StepResponse response =
+            simulator.simulate(SecondOrderLoops.stateFeedbackLoop(0.5, 2.0), 0.0, 3.0, 10);
+        for (double y : response.output()) {
+            assertEquals(0.0, y);
+        }
+    }
+
+    @Test
+    void recordsCopyTheirArrays() {
+        StepResponse response =
+            simulator.simulate(SecondOrderLoops.stateFeedbackLoop(0.5, 2.0), 1.0, 3.0, 10);
+        double before = response.output()[5];
+        response.output()[5] = 99;
+        response.state()[5][0] = 99;
+        response.timeSeconds()[5] = 99;
+        response.control()[5] = 99;
+        assertEquals(before, response.output()[5]);
+        assertEquals(before, response.state()[5][0]);
+        assertEquals(before, response.stateAt(5)[0]);
+        assertTrue(response.timeSeconds()[5] < 3.0);
+
+        double[] time = {0, 1};
+        double[][] state = {{0}, {1}};
+        double[] values = {0, 1};
+        StepResponse built = new StepResponse(time, state, values, values);
+        state[1][0] = 7;
+        time[1] = 7;
+        assertEquals(1.0, built.stateAt(1)[0]);
+        assertEquals(1.0, built.timeSeconds()[1]);
+
+        DMatrixRMaj a = new DMatrixRMaj(new double[][] {{-1}});
+        LinearLoop loop = new LinearLoop(a, new DMatrixRMaj(new double[][] {{1}}),
+            new DMatrixRMaj(new double[][] {{1}}), new DMatrixRMaj(new double[][] {{1}}), 0.0);
+        a.set(0, 0, 5);
+        loop.a().set(0, 0, 5);
+        assertEquals(-1.0, loop.a().get(0, 0));
+    }
+
+    @Test
+    void rejectsBadArguments() {
+        LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
+        assertThrows(IllegalArgumentException.class, () -> simulator.simulate(null, 1, 1, 10));
+        assertThrows(IllegalArgumentException.class, () -> simulator.simulate(loop, 1, 1, 1));
+        assertThrows(IllegalArgumentException.class, () -> simulator.simulate(loop, 1, 1, 100_001));
+        assertThrows(IllegalArgumentException.class, () -> simulator.simulate(loop, 1, 0, 10));
+        assertThrows(IllegalArgumentException.class, () -> simulator.simulate(loop, 1, -1, 10));
+        assertThrows(IllegalArgumentException.class,
+            () -> simulator.simulate(loop, 1, Double.NaN, 10));
+        assertThrows(IllegalArgumentException.class,
+            () -> simulator.simulate(loop, 1, Double.POSITIVE_INFINITY, 10));
+        assertThrows(IllegalArgumentException.class,
+            () -> simulator.simulate(loop, Double.NaN, 1, 10));
+        // A diverging loop overflows: reported, never returned as Infinity.
+        LinearLoop unstable = new LinearLoop(new DMatrixRMaj(new double[][] {{50}}),
+            new DMatrixRMaj(new double[][] {{1}}), new DMatrixRMaj(new double[][] {{1}}),
+            new DMatrixRMaj(new double[][] {{1}}), 0.0);
+        assertThrows(IllegalArgumentException.class,
+            () -> simulator.simulate(unstable, 1, 100, 100_000));
+        assertThrows(IllegalArgumentException.class, () -> simulator.simulate(unstable, 1, 100, 2));
+
+        DMatrixRMaj a = loop.a();
+        DMatrixRMaj b = loop.bRef();
+        DMatrixRMaj c = loop.cOut();
+        assertThrows(IllegalArgumentException.class, () -> new LinearLoop(null, b, c, c, 0));
+        assertThrows(IllegalArgumentException.class, () -> new LinearLoop(a, c, c, c, 0));
+        assertThrows(IllegalArgumentException.class, () -> new LinearLoop(a, b, b, c, 0));
+        assertThrows(IllegalArgumentException.class, () -> new LinearLoop(a, b, c, b, 0));
+        assertThrows(IllegalArgumentException.class,
+            () -> new LinearLoop(a, b, c, c, Double.NaN));
+        assertThrows(IllegalArgumentException.class,
+            () -> new LinearLoop(new DMatrixRMaj(new double[][] {{0, Double.NaN}, {0, 0}}), b, c,
+                c, 0));
+        assertThrows(IllegalArgumentException.class,
+            () -> new LinearLoop(new DMatrixRMaj(32, 32), new DMatrixRMaj(32, 1),
+                new DMatrixRMaj(1, 32), new DMatrixRMaj(1, 32), 0));
+        assertThrows(IllegalArgumentException.class,
+            () -> new StepResponse(new double[] {0, 1}, new double[][] {{0}, {Double.NaN}},
+                new double[] {0, 1}, new double[] {0, 1}));
+        assertThrows(IllegalArgumentException.class,
+            () -> new StepResponse(new double[] {0, 0}, new double[][] {{0}, {0}},
+                new double[] {0, 1}, new double[] {0, 1}));
+    }
+}
