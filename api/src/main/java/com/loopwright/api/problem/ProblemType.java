@@ -1,0 +1,44 @@
+package com.loopwright.api.problem;
+
+import java.util.List;
+
+/** The problem types this service emits; {@code type} URIs are stable identifiers documented in openapi.yaml. */
+public enum ProblemType {
+    MALFORMED_REQUEST(400, "Malformed request", "The body is not the JSON this endpoint takes."),
+    INVALID_FIELD(400, "Invalid field", "A field is missing, of the wrong type or out of its documented range."),
+    NOT_FOUND(404, "Not found", "No such resource."),
+    METHOD_NOT_ALLOWED(405, "Method not allowed", "This resource does not take that method."),
+    PAYLOAD_TOO_LARGE(413, "Payload too large", "The body exceeds the documented size cap."),
+    UNSUPPORTED_MEDIA_TYPE(415, "Unsupported media type", "Send the body as application/json."),
+    INFEASIBLE_SPEC(422, "Infeasible spec", "The plant cannot meet the spec with this method."),
+    UNVERIFIABLE_DESIGN(422, "Design could not be verified",
+            "The design is outside the range where it can be computed and verified in double precision."),
+    INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs.");
+
+    private final int status;
+    private final String title;
+    private final String defaultDetail;
+
+    ProblemType(int status, String title, String defaultDetail) {
+        this.status = status;
+        this.title = title;
+        this.defaultDetail = defaultDetail;
+    }
+
+    public int status() {
+        return status;
+    }
+
+    /** Stable identifier, e.g. "urn:loopwright:problem:infeasible-spec". */
+    public String uri() {
+        return "urn:loopwright:problem:" + name().toLowerCase().replace('_', '-');
+    }
+
+    public Problem problem(String detail) {
+        return new Problem(uri(), title, status, detail == null ? defaultDetail : detail, null, List.of(), List.of());
+    }
+
+    public Problem problem(String detail, List<FieldError> errors, List<Proposal> proposals) {
+        return new Problem(uri(), title, status, detail, null, errors, proposals);
+    }
+}

@@ -1,0 +1,112 @@
+package com.loopwright.api.request;
+
+import static com.loopwright.api.request.FieldLimits.*;
+
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.TimeSpec;
+import java.util.ArrayList;
+import java.util.List;
+
+/** Checks presence, finiteness, ranges and exclusive choices of a design request; reports every offending field. */
+public final class DesignRequestValidator {
+
+    public ValidatedDesign validate(DesignRequest request) {
+        List<FieldError> errors = new ArrayList<>();
+        if (request == null) {
+            throw new InvalidRequestException(List.of(new FieldError("", "a JSON object with plant and spec")));
+        }
+        PlantInput plant = request.plant();
+        SpecInput spec = request.spec();
+        if (plant == null) {
+            errors.add(new FieldError("/plant", "required"));
+        } else {
+            magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
+            magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
+            magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);
+            magnitude(errors, "/plant/d", plant.d(), 0, MAX_ABS_D, true);
+        }
+        if (spec == null) {
+            errors.add(new FieldError("/spec", "required"));
+            throw new InvalidRequestException(errors);
+        }
+        range(errors, "/spec/overshootPercent", spec.overshootPercent(), MIN_OVERSHOOT_PERCENT,
+                MAX_OVERSHOOT_PERCENT, true);
+        boolean settling = spec.settlingTime() != null;
+        boolean rise = spec.riseTime() != null;
+        if (settling && rise) {
+            errors.add(new FieldError("/spec/riseTime", "give either settlingTime or riseTime, not both"));
+        } else if (!settling && !rise) {
+            errors.add(new FieldError("/spec/settlingTime", "required (or give riseTime instead)"));
+        }
+        range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
+        range(errors, "/spec/riseTime", spec.riseTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
+        range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT,
+                false);
+        if (spec.gamma() != null && spec.gammaMargin() != null) {
+            errors.add(new FieldError("/spec/gammaMargin", "give either gamma or gammaMargin, not both"));
+        }
+        positive(errors, "/spec/gamma", spec.gamma(), MAX_GAMMA);
+        if (spec.gammaMargin() != null && !(spec.gammaMargin() > 1 && spec.gammaMargin() <= MAX_GAMMA_MARGIN)) {
+            errors.add(new FieldError("/spec/gammaMargin", "must be above 1 and at most " + fmt(MAX_GAMMA_MARGIN)));
+        }
+        magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
+        if (!errors.isEmpty()) {
+            throw new InvalidRequestException(errors);
+        }
+        double band = (spec.settlingBandPercent() == null ? DEFAULT_BAND_PERCENT : spec.settlingBandPercent()) / 100;
+        TimeSpec timeSpec = settling ? new TimeSpec.SettlingTime(spec.settlingTime(), band)
+                : new TimeSpec.RiseTime(spec.riseTime());
+        GammaChoice gamma = spec.gamma() != null ? new GammaChoice.Fixed(spec.gamma())
+                : new GammaChoice.MarginOverMinimum(spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN
+                        : spec.gammaMargin());
+        return new ValidatedDesign(new CanonicalPlant(plant.a0(), plant.a1(), plant.b(), plant.d()),
+                new DesignSpec(spec.overshootPercent() / 100, timeSpec), gamma,
+                spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(), band,
+                settling ? "/spec/settlingTime" : "/spec/riseTime");
+    }
+
+    /** Present (if required), finite, and min &lt;= value &lt;= max. */
+    private static void range(List<FieldError> errors, String pointer, Double value, double min, double max,
+                              boolean required) {
+        if (value == null) {
+            if (required) {
+                errors.add(new FieldError(pointer, "required"));
+            }
+            return;
+        }
+        if (!Double.isFinite(value) || value < min || value > max) {
+            errors.add(new FieldError(pointer, "must be a finite number from " + fmt(min) + " to " + fmt(max)));
+        }
+    }
+
+    /** Present (if required), finite, and minAbs &lt;= |value| &lt;= maxAbs. */
+    private static void magnitude(List<FieldError> errors, String pointer, Double value, double minAbs,
+                                  double maxAbs, boolean required) {
+        if (value == null) {
+            if (required) {
+                errors.add(new FieldError(pointer, "required"));
+            }
+            return;
+        }
+        double abs = Math.abs(value);
+        if (!Double.isFinite(value) || abs < minAbs || abs > maxAbs) {
+            errors.add(new FieldError(pointer, minAbs > 0
+                    ? "magnitude must be from " + fmt(minAbs) + " to " + fmt(maxAbs) + " (non-zero)"
+                    : "magnitude must be at most " + fmt(maxAbs)));
+        }
+    }
+
+    private static void positive(List<FieldError> errors, String pointer, Double value, double max) {
+        if (value != null && !(value > 0 && value <= max)) {
+            errors.add(new FieldError(pointer, "must be positive and at most " + fmt(max)));
+        }
+    }
+
+    private static String fmt(double value) {
+        return value == Math.rint(value) && Math.abs(value) < 1e6 ? String.valueOf((long) value)
+                : String.valueOf(value);
+    }
+}

@@ -1,0 +1,19 @@
+package com.loopwright.api.request;
+
+import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.spec.DesignSpec;
+
+/**
+ * A design request after validation, in solver terms.
+ *
+ * @param plant            canonical plant
+ * @param spec             overshoot and time spec
+ * @param gammaChoice      fixed gamma or margin over gamma_min
+ * @param stepSize         reference step for the simulated check, in x1 units
+ * @param bandFraction     settling band used for the simulated settling time
+ * @param timeSpecPointer  JSON pointer of the time spec the caller gave (settlingTime or riseTime)
+ */
+public record ValidatedDesign(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
+                              double bandFraction, String timeSpecPointer) {
+}

@@ -1,0 +1,16 @@
+package com.loopwright.service.routes;
+
+import io.javalin.http.Context;
+import io.javalin.http.Handler;
+
+/** GET /health: the service answers. */
+public final class HealthRoute implements Handler {
+
+    public static final String PATH = "/health";
+    private static final byte[] UP = "{\"status\":\"up\"}".getBytes(java.nio.charset.StandardCharsets.UTF_8);
+
+    @Override
+    public void handle(Context ctx) {
+        ctx.contentType("application/json").result(UP);
+    }
+}

@@ -1,0 +1,59 @@
+package com.loopwright.solver.pipeline;
+
+import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.ClosedFormDesigner;
+import com.loopwright.solver.design.DesignObstacle;
+import com.loopwright.solver.design.FeasibilityAdvisor;
+import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.Infeasibility;
+import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.NormalizedSettlingTime;
+import com.loopwright.solver.spec.SpecInversion;
+import com.loopwright.solver.spec.SpecInverter;
+import com.loopwright.solver.spec.TargetDynamics;
+import com.loopwright.solver.verify.DesignVerifier;
+import com.loopwright.solver.verify.Verification;
+import java.util.Optional;
+
+/**
+ * The whole design: specs to exact (zeta, wn), feasibility (with proposals when infeasible), the closed-form
+ * design, and its independent verification. Stateless and thread-safe.
+ */
+public final class LoopDesigner {
+
+    /** Simulation grid size; refinement between samples makes the metrics exact, the grid only brackets. */
+    public static final int SIMULATION_SAMPLES = 2000;
+    /** Simulated time in multiples of the expected settling time (long enough to see the settled tail). */
+    static final double HORIZON_PER_SETTLING_TIME = 3;
+
+    private final SpecInverter inverter = new SpecInverter();
+    private final ClosedFormDesigner designer = new ClosedFormDesigner();
+    private final FeasibilityAdvisor advisor = new FeasibilityAdvisor(designer);
+    private final DesignVerifier verifier = new DesignVerifier();
+
+    /**
+     * @throws InfeasibleDesignException when the plant cannot meet the spec (with computed proposals)
+     * @throws com.loopwright.solver.verify.VerificationFailedException when a check cannot be computed
+     */
+    public DesignReport design(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
+                               double bandFraction) {
+        SpecInversion inversion = inverter.invert(spec);
+        TargetDynamics target = inversion.target();
+        Optional<DesignObstacle> obstacle = designer.obstacle(plant, target);
+        if (obstacle.isPresent()) {
+            SpecQuantity blamed = obstacle.get().dampingBound() ? SpecQuantity.OVERSHOOT_PERCENT : SpecQuantity.TIME_SPEC;
+            throw new InfeasibleDesignException(
+                    new Infeasibility(blamed, obstacle.get().reason(), advisor.propose(plant, spec)));
+        }
+        ClosedFormDesign design = designer.design(plant, target, gammaChoice);
+        double expectedSettling = NormalizedSettlingTime.of(target.dampingRatio(), bandFraction)
+                / target.naturalFrequencyRadPerSec();
+        double horizon = HORIZON_PER_SETTLING_TIME * expectedSettling;
+        Verification verification = verifier.verify(design, spec, stepSize, bandFraction, horizon, SIMULATION_SAMPLES);
+        return new DesignReport(spec, inversion, design, verification, stepSize, bandFraction, horizon,
+                SIMULATION_SAMPLES);
+    }
+}
