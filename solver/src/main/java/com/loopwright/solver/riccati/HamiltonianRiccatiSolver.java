@@ -79,8 +79,17 @@ public final class HamiltonianRiccatiSolver {
         DMatrixRMaj rSym = symmetricPart(r, "R");
         DMatrixRMaj qSym = symmetricPart(q, "Q");
 
-        HamiltonianSignIteration.Result sign = HamiltonianSignIteration.compute(hamiltonian(a, rSym, qSym));
+        // Balance the quadratic and constant terms: with P = s Ps the equation reads
+        // A'Ps + Ps A + Ps (s R) Ps + Q/s = 0, and s = sqrt(||Q|| / ||R||) gives both terms the same size,
+        // which keeps the Hamiltonian far from numerically singular when ||Q|| and ||R|| differ by decades.
+        double scale = balancingScale(rSym, qSym);
+        DMatrixRMaj rScaled = rSym.copy();
+        DMatrixRMaj qScaled = qSym.copy();
+        CommonOps_DDRM.scale(scale, rScaled);
+        CommonOps_DDRM.scale(1.0 / scale, qScaled);
+        HamiltonianSignIteration.Result sign = HamiltonianSignIteration.compute(hamiltonian(a, rScaled, qScaled));
         DMatrixRMaj p = solutionFromSign(sign.sign(), n);
+        CommonOps_DDRM.scale(scale, p);
         requireStabilizing(a, rSym, p, "from the matrix sign function");
 
         double residual = RiccatiResidual.relative(a, rSym, qSym, p);
@@ -106,6 +115,17 @@ public final class HamiltonianRiccatiSolver {
                             + "; the problem is too ill-conditioned (typically too close to the boundary where the stabilizing solution ceases to exist)");
         }
         return new RiccatiSolution(p, reportedResidual, sign.iterations());
+    }
+
+    /** sqrt(||Q||_F / ||R||_F), or 1 when either term vanishes (nothing to balance). */
+    static double balancingScale(DMatrixRMaj r, DMatrixRMaj q) {
+        double rNorm = NormOps_DDRM.normF(r);
+        double qNorm = NormOps_DDRM.normF(q);
+        if (!(rNorm > 0) || !(qNorm > 0)) {
+            return 1.0;
+        }
+        double scale = Math.sqrt(qNorm / rNorm);
+        return Double.isFinite(scale) && scale > 0 ? scale : 1.0;
     }
 
     /** H = [[A, R], [-Q, -A']]. */

@@ -1,0 +1,98 @@
+package com.loopwright.solver.pipeline;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.SpecProposal;
+import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.TimeSpec;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+
+/**
+ * End to end on random plants and specs: every feasible design is certified and its independently simulated
+ * metrics meet the specs; every proposal of an infeasible one is itself feasible.
+ */
+class LoopDesignerTest {
+
+    private final LoopDesigner designer = new LoopDesigner();
+
+    private static TimeSpec timeSpec(Random random, double band) {
+        double seconds = Math.pow(10, -2 + 3 * random.nextDouble());
+        return random.nextBoolean() ? new TimeSpec.SettlingTime(seconds, band) : new TimeSpec.RiseTime(seconds);
+    }
+
+    @Test
+    void feasibleRandomDesignsAreCertifiedAndMeetTheirSpecs() {
+        Random random = new Random(7031L);
+        int designed = 0;
+        int infeasible = 0;
+        for (int trial = 0; trial < 1500 && designed < 250; trial++) {
+            double sign = random.nextBoolean() ? 1 : -1;
+            CanonicalPlant plant = new CanonicalPlant(-20 + 70 * random.nextDouble(), -1 + 6 * random.nextDouble(),
+                    sign * Math.pow(10, -1 + 4 * random.nextDouble()), 500 * random.nextDouble());
+            double band = new double[] {0.02, 0.05, 0.01}[random.nextInt(3)];
+            DesignSpec spec = new DesignSpec(0.0001 + 0.06 * random.nextDouble(), timeSpec(random, band));
+            DesignReport report;
+            try {
+                report = designer.design(plant, spec, new GammaChoice.MarginOverMinimum(1.2), 1, band);
+            } catch (InfeasibleDesignException e) {
+                infeasible++;
+                continue;
+            } catch (RuntimeException e) {
+                throw new AssertionError(plant + " " + spec, e);
+            }
+            designed++;
+            var verification = report.verification();
+            assertTrue(verification.certified(), plant + " " + spec);
+            assertTrue(verification.hinfNorm().value() <= report.design().gamma() * (1 + 1e-8));
+            assertTrue(verification.closedFormResidual() < 1e-10, "residual " + verification.closedFormResidual());
+            var metrics = verification.metrics();
+            // Quality bar: simulated overshoot within 0.02 points of the spec, times within 0.5%, away from the
+            // band-touching jump of the settling time.
+            assertEquals(100 * spec.overshootFraction(), metrics.overshootPercent(), 0.02, plant + " " + spec);
+            double simulatedTime = spec.timeSpec() instanceof TimeSpec.SettlingTime
+                    ? metrics.settlingTimeSeconds() : metrics.riseTimeSeconds();
+            if (!report.inversion().nearBandTouch()) {
+                assertEquals(spec.timeSpec().seconds(), simulatedTime, 0.005 * spec.timeSpec().seconds(),
+                        plant + " " + spec);
+                assertTrue(verification.specsMet(), plant + " " + spec);
+            }
+            assertEquals(0, metrics.steadyStateError(), 1e-9);
+        }
+        assertTrue(designed >= 200, "designed " + designed + ", infeasible " + infeasible);
+        assertTrue(infeasible > 0, "the sample should also contain infeasible specs");
+    }
+
+    @Test
+    void proposalsOfInfeasibleSpecsAreFeasible() {
+        Random random = new Random(99L);
+        int checked = 0;
+        for (int trial = 0; trial < 400 && checked < 40; trial++) {
+            CanonicalPlant plant = new CanonicalPlant(-5 + 30 * random.nextDouble(), 6 * random.nextDouble(),
+                    0.5 + 50 * random.nextDouble(), 10 * random.nextDouble());
+            DesignSpec spec = new DesignSpec(0.001 + 0.3 * random.nextDouble(), timeSpec(random, 0.02));
+            try {
+                designer.design(plant, spec, new GammaChoice.MarginOverMinimum(1.2), 1, 0.02);
+            } catch (InfeasibleDesignException e) {
+                for (SpecProposal proposal : e.infeasibility().proposals()) {
+                    DesignSpec fixed = proposal.quantity() == SpecQuantity.OVERSHOOT_PERCENT
+                            ? spec.withOvershoot(proposal.value() / 100)
+                            : new DesignSpec(spec.overshootFraction(), spec.timeSpec() instanceof TimeSpec.SettlingTime
+                                    ? new TimeSpec.SettlingTime(proposal.value(), 0.02)
+                                    : new TimeSpec.RiseTime(proposal.value()));
+                    DesignReport report = designer.design(plant, fixed, new GammaChoice.MarginOverMinimum(1.2), 1, 0.02);
+                    assertTrue(report.verification().certified());
+                    checked++;
+                }
+                assertFalse(e.infeasibility().reason().isBlank());
+            }
+        }
+        assertTrue(checked >= 20, "proposals checked: " + checked);
+    }
+}
