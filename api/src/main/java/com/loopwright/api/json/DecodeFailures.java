@@ -44,6 +44,12 @@ public final class DecodeFailures {
         return ProblemType.MALFORMED_REQUEST.problem(detail, List.of(new FieldError("", detail)), List.of());
     }
 
+    /** The body could not be read at all (for example invalid UTF-8 that the decoder rejects). */
+    public static Problem unreadable() {
+        String detail = "the body could not be read as UTF-8 JSON";
+        return ProblemType.MALFORMED_REQUEST.problem(detail, List.of(new FieldError("", detail)), List.of());
+    }
+
     /** RFC 6901 pointer of the failing location, e.g. /spec/gamma. */
     static String pointerOf(JsonMappingException mapping) {
         StringBuilder pointer = new StringBuilder();

@@ -1,24 +1,11 @@
 package com.loopwright.service.routes;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.json.DecodeFailures;
-import com.loopwright.api.mapping.DesignResponseMapper;
-import com.loopwright.api.mapping.ProblemMapper;
-import com.loopwright.api.problem.Problem;
+import com.loopwright.api.exchange.DesignExchange;
+import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.problem.ProblemType;
-import com.loopwright.api.request.DesignRequest;
-import com.loopwright.api.request.DesignRequestValidator;
-import com.loopwright.api.request.InvalidRequestException;
-import com.loopwright.api.request.ValidatedDesign;
-import com.loopwright.service.http.FiniteNumbers;
 import com.loopwright.service.http.JsonBodies;
 import com.loopwright.service.http.ProblemResponses;
-import com.loopwright.solver.design.InfeasibleDesignException;
-import com.loopwright.solver.pipeline.DesignReport;
-import com.loopwright.solver.pipeline.LoopDesigner;
-import com.loopwright.solver.verify.VerificationFailedException;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import java.io.IOException;
@@ -30,14 +17,12 @@ public final class DesignRoute implements Handler {
 
     private final ObjectMapper mapper;
     private final ProblemResponses problems;
-    private final DesignRequestValidator validator = new DesignRequestValidator();
-    private final LoopDesigner designer = new LoopDesigner();
-    private final DesignResponseMapper responses = new DesignResponseMapper();
-    private final ProblemMapper problemMapper = new ProblemMapper();
+    private final DesignExchange exchange;
 
     public DesignRoute(ObjectMapper mapper, ProblemResponses problems) {
         this.mapper = mapper;
         this.problems = problems;
+        this.exchange = new DesignExchange(mapper);
     }
 
     @Override
@@ -47,39 +32,11 @@ public final class DesignRoute implements Handler {
                     "send the design request with Content-Type: application/json"));
             return;
         }
-        DesignRequest request;
-        try {
-            request = mapper.readValue(ctx.bodyAsBytes(), DesignRequest.class);
-        } catch (JsonProcessingException e) {
-            problems.write(ctx, DecodeFailures.toProblem(e));
+        Outcome outcome = exchange.exchange(ctx.bodyAsBytes());
+        if (!outcome.ok()) {
+            problems.write(ctx, outcome.problem());
             return;
         }
-        ValidatedDesign design;
-        try {
-            design = validator.validate(request);
-        } catch (InvalidRequestException e) {
-            problems.write(ctx, problemMapper.invalid(e));
-            return;
-        }
-        DesignReport report;
-        try {
-            report = designer.design(design.plant(), design.spec(), design.gammaChoice(), design.stepSize(),
-                    design.bandFraction());
-        } catch (InfeasibleDesignException e) {
-            problems.write(ctx, problemMapper.infeasible(e.infeasibility(), design.timeSpecPointer()));
-            return;
-        } catch (VerificationFailedException e) {
-            problems.write(ctx, problemMapper.unverifiable(e.getMessage()));
-            return;
-        }
-        JsonNode body = mapper.valueToTree(responses.toResponse(design, report));
-        String nonFinite = FiniteNumbers.firstNonFinite(body);
-        if (nonFinite != null) {
-            Problem problem = problemMapper.unverifiable(
-                    "the design's " + (nonFinite.isEmpty() ? "result" : nonFinite) + " is outside double precision");
-            problems.write(ctx, problem);
-            return;
-        }
-        ctx.status(200).contentType(JsonBodies.JSON).result(mapper.writeValueAsBytes(body));
+        ctx.status(200).contentType(JsonBodies.JSON).result(mapper.writeValueAsBytes(outcome.body()));
     }
 }

@@ -1,4 +1,4 @@
-package com.loopwright.service.http;
+package com.loopwright.api.exchange;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.ArrayDeque;
