@@ -90,8 +90,9 @@ class PlantFormExchangeTest {
         double[][] a = multiply(multiply(s, ac), sInv);
         JsonNode viaForm = ok("{\"form\":\"stateSpace\",\"a\":[[%s,%s],[%s,%s]],\"b2\":[400,1200],\"b1\":[400,1200]}"
                 .formatted(a[0][0], a[0][1], a[1][0], a[1][1]));
-        // |det C_x| = 400^2 det S: the canonical b is 400 sqrt(7), d = 400 sqrt(7) too (B1 = B2).
-        double b = 400 * Math.sqrt(7);
+        // The tracked output is z1 of the original canonical form, the first row of S^-1 = [3/7, -1/7], scaled so
+        // its largest entry is 1: z1 = (7/3) z1_original, so b = d = 400 * 7/3 (B1 = B2).
+        double b = 400 * 7 / 3.0;
         JsonNode viaCanonical = ok("{\"a0\":0,\"a1\":0.48,\"b\":%s,\"d\":%s}".formatted(b, b));
         assertEquals(0, viaForm.at("/plant/a0").asDouble(), 1e-12);
         assertSameDesign(viaCanonical, viaForm);

@@ -10,8 +10,10 @@ import org.ejml.dense.row.NormOps_DDRM;
  * <p>If (A, B2) is controllable, x = T z takes it to the canonical form z1' = z2,
  * z2' = -a0 z1 - a1 z2 + b u + d w with s^2 + a1 s + a0 = det(sI - A) (a1 = -trace A, a0 = det A) and
  * T = C_x C_z^-1, where C_x = [B2, A B2] and C_z = [[0, b], [b, -a1 b]] are the controllability matrices
- * (Cayley-Hamilton: T A_c = A T and T B_c = B2). The scale b is free; we take |b| = sqrt(|det C_x|) so that
- * |det T| = 1, and its sign so that trace T &gt;= 0 (T = I for a model already in canonical form with b &gt; 0).
+ * (Cayley-Hamilton: T A_c = A T and T B_c = B2). Then z1 = c x with c = b times the second row of C_x^-1:
+ * its direction is fixed by (A, B2), and we choose b so that the entry of c largest in magnitude is exactly 1.
+ * When the tracked output is one of the caller's states (a position), z1 is that state in its own units, and
+ * a model already in canonical form gets T = I for either sign of b.
  *
  * <p>The canonical design assumes the disturbance enters like the actuator, T^-1 B1 = [0, d]', which holds
  * exactly when B1 = (d/b) B2 (the second column of T is B2/b). Any other B1 also drives the position-like
@@ -54,12 +56,13 @@ public final class TwoStateModel implements PlantForm {
         }
         double a1 = -(a[0][0] + a[1][1]);
         double a0 = CommonOps_DDRM.det(this.a);
-        double b = Math.sqrt(Math.abs(detCx));
+        // z1 = c x with c = b (second row of C_x^-1): the direction is fixed, b sets its scale.
+        DMatrixRMaj cxInv = new DMatrixRMaj(2, 2);
+        CommonOps_DDRM.invert(cx, cxInv);
+        double r0 = cxInv.get(1, 0);
+        double r1 = cxInv.get(1, 1);
+        double b = 1 / (Math.abs(r0) >= Math.abs(r1) ? r0 : r1);
         DMatrixRMaj t = transformFor(cx, a1, b);
-        if (t.get(0, 0) + t.get(1, 1) < 0) {
-            b = -b;
-            t = transformFor(cx, a1, b);
-        }
         DMatrixRMaj tInv = new DMatrixRMaj(2, 2);
         CommonOps_DDRM.invert(t, tInv);
         DMatrixRMaj b1z = new DMatrixRMaj(2, 1);

@@ -112,6 +112,24 @@ class StateSpaceDesignTest {
         assertEquals(5, model.canonical().d(), 1e-13);
     }
 
+    // source: J q'' + c q' = kt i + w written in angle and angular momentum h = J q' (common practice):
+    // q' = h/J, h' = -(c/J) h + kt i + w. The tracked output is the angle itself, so z1 = q and b = kt/J.
+    @Test
+    void angleAndMomentumStatesTrackTheAngleInItsOwnUnits() {
+        double j = 0.02;
+        double c = 0.04;
+        double kt = 3;
+        TwoStateModel model = new TwoStateModel(new double[][] {{0, 1 / j}, {0, -c / j}}, new double[] {0, kt},
+                new double[] {0, 1});
+        assertEquals(0, model.canonical().a0(), 1e-15);
+        assertEquals(c / j, model.canonical().a1(), 1e-13);
+        assertEquals(kt / j, model.canonical().b(), 1e-12);
+        assertEquals(1 / j, model.canonical().d(), 1e-12);
+        DMatrixRMaj tInv = model.inverseTransform();
+        assertEquals(1, tInv.get(0, 0), 1e-15);
+        assertEquals(0, tInv.get(0, 1), 1e-15);
+    }
+
     @Test
     void uncontrollableModelsAndMisalignedDisturbancesAreRejected() {
         // Two decoupled first-order modes with the actuator on only one of them.
