@@ -24,27 +24,28 @@ final class ModelMapper {
         PlantFormName form = resolved.form();
         return switch (form) {
             case CANONICAL -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("x1 units", "x1 units/s", "u units", "w units"), resolved.assumptions(), null, null);
+                    units("x1 units", "x1 units/s", "u units", "w units", "x1 units"), resolved.assumptions(), null,
+                    null);
             case ROTARY_AXIS -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("rad", "rad/s", "A", "N m"), resolved.assumptions(),
+                    units("rad", "rad/s", "A", "N m", "rad"), resolved.assumptions(),
                     physicalLaw(design, "i", "A", "q", "rad", "no holding current is needed at standstill: the"
                             + " axis has no stiffness (a0 = 0)"), null);
             case MASS_SPRING_DAMPER -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("m", "m/s", "N", "N"), resolved.assumptions(),
+                    units("m", "m/s", "N", "N", "m"), resolved.assumptions(),
                     physicalLaw(design, "F", "N", "y", "m", "the spring force k r that holds the mass at the"
                             + " setpoint"), null);
             case SECOND_ORDER_TRANSFER_FUNCTION -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("y (output units)", "y units/s", "input units", "disturbance units"),
+                    units("y (output units)", "y units/s", "input units", "disturbance units", "y units"),
                     resolved.assumptions(), null, null);
             case STATE_SPACE -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("z1 = c x (canonical coordinates)", "z2 = z1'", "u units", "w units"),
+                    units("z1 = y = c x (the tracked output)", "z2 = y'", "u units", "w units", "y units"),
                     resolved.assumptions(), null, stateSpace((TwoStateModel) resolved.source(), design));
         };
     }
 
-    private static DesignResponse.Units units(String x1, String x2, String u, String w) {
-        return new DesignResponse.Units(x1, x2, u, w, "1/s^2", "1/s", x1 + "/(s^2 " + u + ")",
-                x1 + "/(s^2 " + w + ")");
+    private static DesignResponse.Units units(String x1, String x2, String u, String w, String x1Short) {
+        return new DesignResponse.Units(x1, x2, u, w, "1/s^2", "1/s", x1Short + "/(s^2 " + u + ")",
+                x1Short + "/(s^2 " + w + ")");
     }
 
     private static DesignResponse.PhysicalLaw physicalLaw(ClosedFormDesign design, String command,
@@ -65,7 +66,7 @@ final class ModelMapper {
         StateSpaceDesign view = CallerCoordinates.of(model, design);
         DMatrixRMaj gain = view.gain();
         DMatrixRMaj output = view.trackedOutput();
-        String law = String.format("u = %.6g*r - (%.6g*x1 + %.6g*x2), tracking y = %.6g*x1 + %.6g*x2",
+        String law = String.format("u = %.6g*r - (%.6g*x1 + %.6g*x2), tracking y = %.6g*x1 + (%.6g)*x2",
                 view.referenceGain(), gain.get(0), gain.get(1), output.get(0), output.get(1));
         return new DesignResponse.StateSpaceView("transform maps canonical to caller coordinates (x = T z);"
                 + " p, gain, stateWeight and trackedOutput are in the caller's coordinates x; the riccati and gain"

@@ -29,7 +29,7 @@ public final class CallerCoordinates {
         DMatrixRMaj qx = congruence(tInv, qz);
         DMatrixRMaj kx = new DMatrixRMaj(1, 2);
         CommonOps_DDRM.mult(kz, tInv, kx);
-        DMatrixRMaj trackedOutput = new DMatrixRMaj(1, 2, true, tInv.get(0, 0), tInv.get(0, 1));
+        DMatrixRMaj trackedOutput = new DMatrixRMaj(1, 2, true, tInv.get(0, 0) + 0.0, tInv.get(0, 1) + 0.0);
 
         // R = B1 B1'/gamma^2 - B2 B2' from the caller's own B1 and B2.
         DMatrixRMaj b1 = model.b1();

@@ -54,8 +54,9 @@ public final class TwoStateModel implements PlantForm {
                     + " A B2 are parallel (or B2 is zero), so the actuator cannot move both states independently"
                     + " and no state feedback can place both closed-loop poles");
         }
-        double a1 = -(a[0][0] + a[1][1]);
-        double a0 = CommonOps_DDRM.det(this.a);
+        // + 0.0 turns a negative zero into zero.
+        double a1 = -(a[0][0] + a[1][1]) + 0.0;
+        double a0 = CommonOps_DDRM.det(this.a) + 0.0;
         // z1 = c x with c = b (second row of C_x^-1): the direction is fixed, b sets its scale.
         DMatrixRMaj cxInv = new DMatrixRMaj(2, 2);
         CommonOps_DDRM.invert(cx, cxInv);
