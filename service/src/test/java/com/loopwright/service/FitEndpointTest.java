@@ -153,6 +153,10 @@ class FitEndpointTest {
         var tooMany = server.post("/v1/models/fit", many.toString());
         assertEquals(400, tooMany.status());
         assertEquals("/samples/time", tooMany.json().at("/errors/0/pointer").asText());
+        var lateStep = server.post("/v1/models/fit", """
+                {"samples":{"time":[0,1,2,3,4,5,6,7],"output":[0,1,2,3,4,5,6,7]},"stepTime":9}""");
+        assertEquals(400, lateStep.status());
+        assertEquals("/stepTime", lateStep.json().at("/errors/0/pointer").asText());
         var wrongType = server.post("/v1/models/fit", "{\"samples\":{\"time\":\"soon\",\"output\":[]}}");
         assertEquals(400, wrongType.status());
         assertEquals(415, server.post("/v1/models/fit", "{}", "text/plain").status());

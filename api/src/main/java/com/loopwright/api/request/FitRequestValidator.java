@@ -84,6 +84,12 @@ public final class FitRequestValidator {
             }
             source = "input";
         }
+        // The step must come before the last sample, or there is no response to fit.
+        if (!(stepTime < time[time.length - 1])) {
+            throw new InvalidRequestException(List.of(new FieldError(request.stepTime() != null ? "/stepTime"
+                    : "/samples/time", "the step at t = " + stepTime + " s is not before the last sample (t = "
+                    + time[time.length - 1] + " s): the record holds no response")));
+        }
         FitOptions options = new FitOptions(Boolean.TRUE.equals(request.estimateDeadTime()),
                 request.estimateInitialOffset() == null || request.estimateInitialOffset());
         return new ValidatedFit(new StepTestData(time, output, stepTime, amplitude), options, source, notes);

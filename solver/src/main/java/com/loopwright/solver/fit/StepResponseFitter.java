@@ -48,6 +48,10 @@ public final class StepResponseFitter {
     static final int MIN_TRANSIENT_SAMPLES = 10;
 
     private static final double RANK_THRESHOLD = 1e-14;
+    /** Doublings allowed when bracketing the 90% point (wn t beyond 2^60 is never reached for zeta &lt;= 50). */
+    private static final int MAX_BRACKET_DOUBLINGS = 60;
+    /** Bisection steps on the 90% point (enough to reach double precision from any bracket). */
+    private static final int BISECTION_STEPS = 100;
 
     public StepFit fit(StepTestData data, FitOptions options) {
         int n = data.size();
@@ -218,12 +222,12 @@ public final class StepResponseFitter {
     /** Normalized time wn t at which the unit step first reaches 90% (bisection on the monotone rise). */
     private static double riseTo90(double zeta) {
         double hi = 1;
-        int guard = 0;
-        while (UnitStepShape.step(hi, zeta) < 0.9 && guard++ < 200) {
+        int doublings = 0;
+        while (UnitStepShape.step(hi, zeta) < 0.9 && doublings++ < MAX_BRACKET_DOUBLINGS) {
             hi *= 2;
         }
         double lo = 0;
-        for (int i = 0; i < 100; i++) {
+        for (int i = 0; i < BISECTION_STEPS; i++) {
             double mid = 0.5 * (lo + hi);
             if (UnitStepShape.step(mid, zeta) < 0.9) {
                 lo = mid;
