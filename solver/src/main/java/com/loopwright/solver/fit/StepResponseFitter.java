@@ -53,6 +53,20 @@ public final class StepResponseFitter {
     /** Bisection steps on the 90% point (enough to reach double precision from any bracket). */
     private static final int BISECTION_STEPS = 100;
 
+    private final int maxIterations;
+
+    public StepResponseFitter() {
+        this(MAX_ITERATIONS);
+    }
+
+    /** A fitter with a lower iteration cap per start (tests of the non-convergence path). */
+    StepResponseFitter(int maxIterations) {
+        if (maxIterations < 1 || maxIterations > MAX_ITERATIONS) {
+            throw new IllegalArgumentException("iteration cap must be from 1 to " + MAX_ITERATIONS);
+        }
+        this.maxIterations = maxIterations;
+    }
+
     public StepFit fit(StepTestData data, FitOptions options) {
         int n = data.size();
         int p = 3 + (options.estimateDeadTime() ? 1 : 0) + (options.estimateInitialOffset() ? 1 : 0);
@@ -87,7 +101,7 @@ public final class StepResponseFitter {
                     .model(model)
                     .target(y)
                     .parameterValidator(point -> model.clamp(point))
-                    .maxIterations(MAX_ITERATIONS)
+                    .maxIterations(maxIterations)
                     .maxEvaluations(MAX_EVALUATIONS)
                     .lazyEvaluation(false)
                     .build();
@@ -97,7 +111,7 @@ public final class StepResponseFitter {
                     best = optimum;
                 }
             } catch (MathIllegalStateException | MathIllegalArgumentException e) {
-                lastFailure = "the least-squares fit did not converge within " + MAX_ITERATIONS
+                lastFailure = "the least-squares fit did not converge within " + maxIterations
                         + " iterations and " + MAX_EVALUATIONS + " evaluations";
             }
         }

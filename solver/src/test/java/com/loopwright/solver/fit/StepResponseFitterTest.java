@@ -135,6 +135,16 @@ class StepResponseFitterTest {
     }
 
     @Test
+    void aFitThatRunsOutOfIterationsIsAFailureNotAResult() {
+        // Heavy noise and a start far from the optimum: two iterations cannot converge.
+        StepTestData data = generate(1, 3, 0.2, 0.4, 0, 1, 0.2, 6, 800, 0.05, new Random(9));
+        FitFailedException failure = assertThrows(FitFailedException.class,
+                () -> new StepResponseFitter(2).fit(data, new FitOptions(true, true)));
+        assertTrue(failure.getMessage().contains("did not converge within 2 iterations"), failure.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> new StepResponseFitter(0));
+    }
+
+    @Test
     void nonUniformSamplingIsFitLikeUniform() {
         Random random = new Random(21);
         int n = 300;
