@@ -43,7 +43,7 @@ public final class HighOrderDesigner {
         boolean[] atInfinity = holds(plant, desired, 0);
         for (int c = 0; c < conditions; c++) {
             if (!atInfinity[c]) {
-                String reason = "no gamma makes the " + condition(c, plant).meaning(index(c))
+                String reason = "no gamma makes the " + condition(c, plant).meaning(index(c, plant))
                         + " for these closed-loop poles, even with gamma = infinity; the "
                         + (poles.dominant().dampingRatio() < 1 / Math.sqrt(2)
                         ? "dominant damping ratio " + String.format("%.4g", poles.dominant().dampingRatio())
@@ -103,7 +103,7 @@ public final class HighOrderDesigner {
         }
         List<HighOrderGammaBound> list = new ArrayList<>(conditions);
         for (int c = 0; c < conditions; c++) {
-            list.add(new HighOrderGammaBound(condition(c, plant), index(c), bounds[c],
+            list.add(new HighOrderGammaBound(condition(c, plant), index(c, plant), bounds[c],
                     bounds[c] >= gammaMin * (1 - BINDING_TOLERANCE)));
         }
         double gamma;
@@ -123,7 +123,7 @@ public final class HighOrderDesigner {
         boolean[] atGamma = holds(plant, desired, u);
         for (int c = 0; c < conditions; c++) {
             if (!atGamma[c]) {
-                throw new PoleMatchedRiccati.SystemFailure("the " + condition(c, plant).meaning(index(c))
+                throw new PoleMatchedRiccati.SystemFailure("the " + condition(c, plant).meaning(index(c, plant))
                         + " fails at the chosen gamma " + gamma + " although its bisected bound is "
                         + bounds[c] + ": the requirement is not monotone in gamma here");
             }
@@ -161,8 +161,8 @@ public final class HighOrderDesigner {
                 : c == plant.order() ? HighOrderCondition.P_POSITIVE_DEFINITE : HighOrderCondition.STABILIZING;
     }
 
-    private static int index(int c) {
-        return c + 1;
+    private static int index(int c, CompanionPlant plant) {
+        return c < plant.order() ? c + 1 : 0;
     }
 
     static double smallestSymmetricEigenvalue(DMatrixRMaj symmetric) {

@@ -1,0 +1,98 @@
+package com.loopwright.api.exchange;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.json.DecodeFailures;
+import com.loopwright.api.mapping.HighOrderResponseMapper;
+import com.loopwright.api.mapping.ProblemMapper;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.api.request.HighOrderDesignRequest;
+import com.loopwright.api.request.HighOrderRequestValidator;
+import com.loopwright.api.request.InvalidRequestException;
+import com.loopwright.api.request.ValidatedHighOrderDesign;
+import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.highorder.DesiredPoles;
+import com.loopwright.solver.highorder.HighOrderDesign;
+import com.loopwright.solver.highorder.HighOrderDesigner;
+import com.loopwright.solver.highorder.HighOrderVerification;
+import com.loopwright.solver.highorder.HighOrderVerifier;
+import com.loopwright.solver.highorder.PoleMatchedRiccati;
+import com.loopwright.solver.highorder.SpecMatch;
+import com.loopwright.solver.highorder.SpecMatcher;
+import com.loopwright.solver.spec.SpecInverter;
+import com.loopwright.solver.spec.TargetDynamics;
+import com.loopwright.solver.spec.TimeSpec;
+import com.loopwright.solver.verify.VerificationFailedException;
+import java.io.IOException;
+
+/** One high-order design request from JSON to JSON, without HTTP; every failure becomes a problem. */
+public final class HighOrderExchange {
+
+    private static final String TIME_SPEC_POINTER = "/spec/settlingTime";
+
+    private final ObjectMapper mapper;
+    private final HighOrderRequestValidator validator = new HighOrderRequestValidator();
+    private final SpecMatcher matcher = new SpecMatcher();
+    private final HighOrderDesigner designer = new HighOrderDesigner();
+    private final HighOrderVerifier verifier = new HighOrderVerifier();
+    private final HighOrderResponseMapper responses = new HighOrderResponseMapper();
+    private final ProblemMapper problems = new ProblemMapper();
+
+    public HighOrderExchange(ObjectMapper mapper) {
+        this.mapper = mapper;
+    }
+
+    public Outcome exchange(byte[] body) {
+        HighOrderDesignRequest request;
+        try {
+            request = mapper.readValue(body, HighOrderDesignRequest.class);
+        } catch (JsonProcessingException e) {
+            return failure(DecodeFailures.toProblem(e));
+        } catch (IOException e) {
+            return failure(DecodeFailures.unreadable());
+        }
+        return exchange(request);
+    }
+
+    public Outcome exchange(HighOrderDesignRequest request) {
+        ValidatedHighOrderDesign input;
+        try {
+            input = validator.validate(request);
+        } catch (InvalidRequestException e) {
+            return failure(problems.invalid(e));
+        }
+        SpecMatch match = null;
+        HighOrderDesign design;
+        HighOrderVerification verification;
+        try {
+            TargetDynamics target;
+            if (input.matchSpecs()) {
+                match = matcher.match(input.plant(), input.spec(), input.auxiliary(), input.stepSize(),
+                        input.maxUndershootPercent());
+                target = match.target();
+            } else {
+                target = new SpecInverter().invert(input.spec()).target();
+            }
+            DesiredPoles poles = input.auxiliary().place(target, input.plant().order());
+            design = designer.design(input.plant(), poles, input.gammaChoice());
+            verification = verifier.verify(design, input.stepSize(), input.bandFraction(),
+                    ((TimeSpec.SettlingTime) input.spec().timeSpec()).seconds());
+        } catch (InfeasibleDesignException e) {
+            return failure(problems.infeasible(e.infeasibility(), TIME_SPEC_POINTER));
+        } catch (VerificationFailedException | PoleMatchedRiccati.SystemFailure e) {
+            return failure(problems.unverifiable(e.getMessage()));
+        }
+        JsonNode tree = mapper.valueToTree(responses.toResponse(input, match, design, verification));
+        String nonFinite = FiniteNumbers.firstNonFinite(tree);
+        if (nonFinite != null) {
+            return failure(problems.unverifiable(
+                    "the design's " + (nonFinite.isEmpty() ? "result" : nonFinite) + " is outside double precision"));
+        }
+        return new Outcome(200, tree, null);
+    }
+
+    private Outcome failure(Problem problem) {
+        return new Outcome(problem.status(), mapper.valueToTree(problem), problem);
+    }
+}
