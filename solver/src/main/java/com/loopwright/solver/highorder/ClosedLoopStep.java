@@ -69,6 +69,6 @@ public final class ClosedLoopStep {
         for (double y : response.output()) {
             lowest = Math.min(lowest, y / m.finalValue());
         }
-        return new Result(m, -100 * lowest, horizon, samples);
+        return new Result(m, Math.max(0, -100 * lowest), horizon, samples);
     }
 }
