@@ -110,4 +110,49 @@ class HighOrderEndpointTest {
                 + "\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}").status());
         assertEquals(415, server.post(PATH, "{}", "text/plain").status());
     }
+
+    /**
+     * The same pick-and-place axis as a physical state space x = [position, velocity, torque-producing current]:
+     * q' = v, v' = -0.48 v + 400 i (+ 400 w), i' = -200 i + 200 u. Its companion form has the same denominator
+     * (the characteristic polynomial is similarity-invariant) and the returned plantGain places the same poles
+     * on the physical state (EJML eigenvalues of A - b2 plantGain, checked here against the requested polynomial
+     * through the companion closed loop, which has the same characteristic polynomial).
+     */
+    @Test
+    void stateSpaceInputIsTransformedAndTheGainActsOnThePhysicalState() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"stateSpace\":{\"a\":[[0,1,0],[0,-0.48,400],"
+                + "[0,0,-200]],\"b2\":[0,0,200],\"b1\":[0,400,0]}},\"spec\":{\"settlingTime\":0.3,"
+                + "\"overshootPercent\":1.5},\"auxiliaryPoles\":{\"poles\":[{\"re\":-250,\"im\":0}]}}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode design = reply.json();
+        assertEquals("stateSpace", design.at("/coordinates/frame").asText());
+        assertEquals(0, design.at("/coordinates/denominator/0").asDouble(), 1e-9);
+        assertEquals(96, design.at("/coordinates/denominator/1").asDouble(), 1e-9);
+        assertEquals(200.48, design.at("/coordinates/denominator/2").asDouble(), 1e-9);
+        // closed loop A - b2 plantGain on x: its characteristic polynomial is the requested one
+        double[][] a = {{0, 1, 0}, {0, -0.48, 400}, {0, 0, -200}};
+        for (int j = 0; j < 3; j++) {
+            a[2][j] -= 200 * design.at("/coordinates/plantGain/" + j).asDouble();
+        }
+        // det(sI - A) = s^3 - tr(A) s^2 + (sum of principal 2x2 minors) s - det(A)
+        double trace = a[0][0] + a[1][1] + a[2][2];
+        double minors = a[0][0] * a[1][1] - a[0][1] * a[1][0] + a[0][0] * a[2][2] - a[0][2] * a[2][0]
+                + a[1][1] * a[2][2] - a[1][2] * a[2][1];
+        double det = a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1]) - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0])
+                + a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0]);
+        JsonNode polynomial = design.at("/target/polynomial");
+        assertEquals(polynomial.get(2).asDouble(), -trace, 1e-9 * polynomial.get(2).asDouble());
+        assertEquals(polynomial.get(1).asDouble(), minors, 1e-9 * polynomial.get(1).asDouble());
+        assertEquals(polynomial.get(0).asDouble(), -det, 1e-9 * polynomial.get(0).asDouble());
+        assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
+    }
+
+    @Test
+    void uncontrollableStateSpaceIsA422NamingB2() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"stateSpace\":{\"a\":[[-1,0,0],[0,-2,0],"
+                + "[0,0,-3]],\"b2\":[1,1,0],\"b1\":[0,0,1]}},\"spec\":{\"settlingTime\":1,"
+                + "\"overshootPercent\":2}}");
+        assertEquals(422, reply.status(), reply.text());
+        assertEquals("/plant/stateSpace/b2", reply.json().at("/errors/0/pointer").asText());
+    }
 }

@@ -4,6 +4,7 @@ import com.loopwright.api.request.ValidatedHighOrderDesign;
 import com.loopwright.api.response.DesignResponse;
 import com.loopwright.api.response.HighOrderDesignResponse;
 import com.loopwright.solver.highorder.ClosedLoopStep;
+import com.loopwright.solver.highorder.CompanionTransform;
 import com.loopwright.solver.highorder.HighOrderDesign;
 import com.loopwright.solver.highorder.HighOrderGammaBound;
 import com.loopwright.solver.highorder.HighOrderVerification;
@@ -15,23 +16,30 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
 
 /** Solver results of a high-order design to the response records. */
 public final class HighOrderResponseMapper {
 
-    public HighOrderDesignResponse toResponse(ValidatedHighOrderDesign input, SpecMatch match, HighOrderDesign design,
+    public HighOrderDesignResponse toResponse(ValidatedHighOrderDesign input, CompanionTransform.Result transform,
+                                              SpecMatch match, HighOrderDesign design,
                                               HighOrderVerification verification) {
         TargetDynamics dominant = design.poles().dominant();
         int n = design.plant().order();
         DMatrixRMaj p = design.solution().p();
-        List<List<Double>> rows = new ArrayList<>(n);
-        for (int i = 0; i < n; i++) {
-            List<Double> row = new ArrayList<>(n);
-            for (int j = 0; j < n; j++) {
-                row.add(p.get(i, j));
-            }
-            rows.add(row);
+        List<List<Double>> rows = rows(p);
+        double[] k = design.gain();
+        DMatrixRMaj toPlant = transform == null ? CommonOps_DDRM.identity(n) : transform.toPlant();
+        double[] plantGain = k;
+        if (transform != null) {
+            DMatrixRMaj kx = new DMatrixRMaj(1, n);
+            CommonOps_DDRM.mult(new DMatrixRMaj(1, n, true, k), transform.toCompanion(), kx);
+            plantGain = kx.data.clone();
         }
+        HighOrderDesignResponse.Coordinates coordinates = new HighOrderDesignResponse.Coordinates(
+                transform == null ? "companion" : "stateSpace", boxed(design.plant().denominator()),
+                boxed(design.plant().numerator()), design.plant().b(), boxed(design.plant().disturbance()),
+                rows(toPlant), boxed(plantGain));
         List<HighOrderDesignResponse.Bound> bounds = design.gammaBounds().stream()
                 .map(HighOrderResponseMapper::bound).toList();
         ClosedLoopStep.Result step = verification.step();
@@ -54,7 +62,11 @@ public final class HighOrderResponseMapper {
             notes.add("the zeros and auxiliary poles move the simulated step away from the second-order formulas;"
                     + " send matchSpecs: true to adjust the dominant pair until the simulated loop meets the specs.");
         }
-        return new HighOrderDesignResponse(n,
+        if (transform != null) {
+            notes.add("the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
+                    + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain on x.");
+        }
+        return new HighOrderDesignResponse(n, coordinates,
                 new HighOrderDesignResponse.Target(dominant.dampingRatio(), dominant.naturalFrequencyRadPerSec(),
                         poles(dominant.poles()), poles(design.poles().auxiliary()),
                         boxed(design.poles().coefficients())),
@@ -71,6 +83,18 @@ public final class HighOrderResponseMapper {
                 new HighOrderDesignResponse.Verification(verification.norm().value(),
                         verification.norm().peakFrequencyRadPerSec(), verification.certified(), specsMet),
                 notes, Cautions.ALL);
+    }
+
+    private static List<List<Double>> rows(DMatrixRMaj m) {
+        List<List<Double>> rows = new ArrayList<>(m.numRows);
+        for (int i = 0; i < m.numRows; i++) {
+            List<Double> row = new ArrayList<>(m.numCols);
+            for (int j = 0; j < m.numCols; j++) {
+                row.add(m.get(i, j));
+            }
+            rows.add(row);
+        }
+        return rows;
     }
 
     private static HighOrderDesignResponse.Bound bound(HighOrderGammaBound b) {

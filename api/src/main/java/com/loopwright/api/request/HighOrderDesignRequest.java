@@ -20,9 +20,21 @@ public record HighOrderDesignRequest(HighOrderPlantInput plant, HighOrderSpecInp
      * @param numerator   c_0 .. c_{n-1} of the output y = c_0 z_1 + ... + c_{n-1} z_n (default [1, 0, ...])
      * @param b           input gain
      * @param disturbance disturbance input vector, one entry per state
+     * @param stateSpace  instead of the four fields above: a controllable state space, transformed to companion form
      */
     public record HighOrderPlantInput(List<Double> denominator, List<Double> numerator, Double b,
-                                      List<Double> disturbance) {
+                                      List<Double> disturbance, StateSpaceInput stateSpace) {
+    }
+
+    /**
+     * x' = a x + b2 u + b1 w, y = output x.
+     *
+     * @param a      n x n state matrix, row by row
+     * @param b2     control input vector
+     * @param b1     disturbance input vector
+     * @param output output row (default [1, 0, ...])
+     */
+    public record StateSpaceInput(List<List<Double>> a, List<Double> b2, List<Double> b1, List<Double> output) {
     }
 
     /** Specs and options; times in seconds, overshoot, band and undershoot in percent. */

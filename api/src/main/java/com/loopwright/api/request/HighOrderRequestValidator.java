@@ -31,8 +31,18 @@ public final class HighOrderRequestValidator {
         double[] denominator = null;
         double[] numerator = null;
         double[] disturbance = null;
+        ValidatedHighOrderDesign.StateSpace stateSpace = null;
         if (plant == null) {
             errors.add(new FieldError("/plant", "required"));
+        } else if (plant.stateSpace() != null) {
+            if (plant.denominator() != null || plant.numerator() != null || plant.b() != null
+                    || plant.disturbance() != null) {
+                errors.add(new FieldError("/plant/stateSpace", "give either stateSpace or the companion fields"
+                        + " (denominator, numerator, b, disturbance), not both"));
+            } else {
+                stateSpace = stateSpace(errors, plant.stateSpace());
+                n = stateSpace == null ? -1 : stateSpace.a().numRows;
+            }
         } else {
             denominator = coefficients(errors, "/plant/denominator", plant.denominator(), -1, MAX_ABS_COEFFICIENT);
             n = denominator == null ? -1 : denominator.length;
@@ -97,11 +107,13 @@ public final class HighOrderRequestValidator {
         GammaChoice gamma = spec.gamma() != null ? new GammaChoice.Fixed(spec.gamma())
                 : new GammaChoice.MarginOverMinimum(spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN
                         : spec.gammaMargin());
-        return new ValidatedHighOrderDesign(new CompanionPlant(denominator, numerator, plant.b(), disturbance),
+        return new ValidatedHighOrderDesign(stateSpace != null ? null
+                : new CompanionPlant(denominator, numerator, plant.b(), disturbance),
                 new DesignSpec(spec.overshootPercent() / 100, new TimeSpec.SettlingTime(spec.settlingTime(), band)),
                 auxiliary, Boolean.TRUE.equals(request.matchSpecs()), gamma,
                 spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(), band,
-                spec.maxUndershootPercent() == null ? DEFAULT_MAX_UNDERSHOOT_PERCENT : spec.maxUndershootPercent());
+                spec.maxUndershootPercent() == null ? DEFAULT_MAX_UNDERSHOOT_PERCENT : spec.maxUndershootPercent(),
+                stateSpace);
     }
 
     private static AuxiliaryPlacement auxiliary(List<FieldError> errors, AuxiliaryPolesInput input, int n) {
@@ -154,6 +166,49 @@ public final class HighOrderRequestValidator {
             return null;
         }
         return new AuxiliaryPlacement.Explicit(list);
+    }
+
+    private static ValidatedHighOrderDesign.StateSpace stateSpace(List<FieldError> errors,
+                                                                  HighOrderDesignRequest.StateSpaceInput input) {
+        List<List<Double>> rows = input.a();
+        if (rows == null) {
+            errors.add(new FieldError("/plant/stateSpace/a", "required"));
+            return null;
+        }
+        int n = rows.size();
+        if (n < MIN_ORDER || n > MAX_ORDER) {
+            errors.add(new FieldError("/plant/stateSpace/a", "needs " + MIN_ORDER + " to " + MAX_ORDER
+                    + " rows (the plant order), got " + n));
+            return null;
+        }
+        int before = errors.size();
+        org.ejml.data.DMatrixRMaj a = new org.ejml.data.DMatrixRMaj(n, n);
+        for (int i = 0; i < n; i++) {
+            double[] row = coefficients(errors, "/plant/stateSpace/a/" + i, rows.get(i), n, MAX_ABS_COEFFICIENT);
+            if (row != null) {
+                for (int j = 0; j < n; j++) {
+                    a.set(i, j, row[j]);
+                }
+            }
+        }
+        double[] b2 = coefficients(errors, "/plant/stateSpace/b2", input.b2(), n, MAX_ABS_COEFFICIENT);
+        double[] b1 = coefficients(errors, "/plant/stateSpace/b1", input.b1(), n, MAX_ABS_DISTURBANCE);
+        double[] output;
+        if (input.output() == null) {
+            output = new double[n];
+            output[0] = 1;
+        } else {
+            output = coefficients(errors, "/plant/stateSpace/output", input.output(), n, MAX_ABS_COEFFICIENT);
+        }
+        if (b1 != null && java.util.Arrays.stream(b1).allMatch(v -> v == 0)) {
+            errors.add(new FieldError("/plant/stateSpace/b1", "must not be all zero: gamma bounds the gain from"
+                    + " this disturbance"));
+        }
+        if (errors.size() > before) {
+            return null;
+        }
+        return new ValidatedHighOrderDesign.StateSpace(a, new org.ejml.data.DMatrixRMaj(n, 1, true, b2),
+                new org.ejml.data.DMatrixRMaj(n, 1, true, b1), new org.ejml.data.DMatrixRMaj(1, n, true, output));
     }
 
     /** A list of finite numbers within +-maxAbs, of the expected length (when known). */

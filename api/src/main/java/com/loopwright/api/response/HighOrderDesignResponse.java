@@ -7,7 +7,7 @@ import java.util.List;
  * the request (z_1 the output-side state, z_n the state u drives); gamma bounds the L2 gain from w to
  * z_perf = [rho_1 z_1, ..., rho_n z_n, u].
  */
-public record HighOrderDesignResponse(int order, Target target, SpecMatching specMatching, Riccati riccati,
+public record HighOrderDesignResponse(int order, Coordinates coordinates, Target target, SpecMatching specMatching, Riccati riccati,
                                       List<Bound> gammaBounds, double gammaMin, double gamma, List<Double> weights,
                                       Gain gain, Simulated simulated, Verification verification,
                                       List<String> notes, List<String> cautions) {
@@ -17,6 +17,17 @@ public record HighOrderDesignResponse(int order, Target target, SpecMatching spe
         weights = List.copyOf(weights);
         notes = List.copyOf(notes);
         cautions = List.copyOf(cautions);
+    }
+
+    /**
+     * The companion plant the design used and how it relates to the request's coordinates.
+     *
+     * @param frame     "companion" when the request gave the companion form, "stateSpace" when it was transformed
+     * @param toPlant   T with x = T z (the identity for a companion request)
+     * @param plantGain the gain in the request's coordinates, K T^-1: u = referenceGain r - plantGain . x
+     */
+    public record Coordinates(String frame, List<Double> denominator, List<Double> numerator, double b,
+                              List<Double> disturbance, List<List<Double>> toPlant, List<Double> plantGain) {
     }
 
     /** The requested closed loop: dominant pair, auxiliary poles and the polynomial alpha_0 .. alpha_{n-1}. */
