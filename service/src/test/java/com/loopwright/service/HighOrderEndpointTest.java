@@ -43,7 +43,6 @@ class HighOrderEndpointTest {
         assertTrue(design.at("/verification/hinfNorm").asDouble() <= design.get("gamma").asDouble() * (1 + 1e-8));
         assertTrue(design.at("/riccati/residualNorm").asDouble() < 1e-9);
         assertTrue(design.at("/riccati/numericRelativeDifference").asDouble() < 1e-6);
-        System.out.println(design.toPrettyString());
     }
 
     /** n = 2 through both endpoints: the same gamma_min and gains as the closed form of POST /v1/designs. */

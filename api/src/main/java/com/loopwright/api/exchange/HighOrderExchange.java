@@ -104,6 +104,10 @@ public final class HighOrderExchange {
             return failure(problems.infeasible(e.infeasibility(), TIME_SPEC_POINTER));
         } catch (VerificationFailedException | PoleMatchedRiccati.SystemFailure e) {
             return failure(problems.unverifiable(e.getMessage()));
+        } catch (IllegalArgumentException e) {
+            // a simulation or eigenvalue step outside its range (for example a step response that never settles
+            // inside the horizon): the design cannot be verified
+            return failure(problems.unverifiable("the closed loop could not be simulated or checked: " + e.getMessage()));
         }
         JsonNode tree = mapper.valueToTree(responses.toResponse(input, transform, match, design, verification));
         String nonFinite = FiniteNumbers.firstNonFinite(tree);

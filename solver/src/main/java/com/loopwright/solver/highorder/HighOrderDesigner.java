@@ -43,8 +43,8 @@ public final class HighOrderDesigner {
         boolean[] atInfinity = holds(plant, desired, 0);
         for (int c = 0; c < conditions; c++) {
             if (!atInfinity[c]) {
-                String reason = "no gamma makes the " + condition(c, plant).meaning(index(c, plant))
-                        + " for these closed-loop poles, even with gamma = infinity; the "
+                String reason = "no gamma meets the requirement '" + condition(c, plant).meaning(index(c, plant))
+                        + "' for these closed-loop poles, not even gamma = infinity; the "
                         + (poles.dominant().dampingRatio() < 1 / Math.sqrt(2)
                         ? "dominant damping ratio " + String.format("%.4g", poles.dominant().dampingRatio())
                         + " is below 1/sqrt(2): lower the overshoot"
@@ -123,8 +123,8 @@ public final class HighOrderDesigner {
         boolean[] atGamma = holds(plant, desired, u);
         for (int c = 0; c < conditions; c++) {
             if (!atGamma[c]) {
-                throw new PoleMatchedRiccati.SystemFailure("the " + condition(c, plant).meaning(index(c, plant))
-                        + " fails at the chosen gamma " + gamma + " although its bisected bound is "
+                throw new PoleMatchedRiccati.SystemFailure("the requirement '" + condition(c, plant).meaning(index(c, plant))
+                        + "' fails at the chosen gamma " + gamma + " although its bisected bound is "
                         + bounds[c] + ": the requirement is not monotone in gamma here");
             }
         }

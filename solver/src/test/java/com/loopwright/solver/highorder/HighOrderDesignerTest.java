@@ -89,7 +89,6 @@ class HighOrderDesignerTest {
             try {
                 design = designer.design(plant, poles, new GammaChoice.MarginOverMinimum(1.2));
             } catch (RuntimeException e) {
-                System.out.println("n=" + n + " trial " + trial + ": " + e.getMessage());
                 continue;
             }
             designs++;
@@ -105,8 +104,6 @@ class HighOrderDesignerTest {
             assertTrue(rel < 1e-7, "numeric P differs by " + rel + " n=" + n);
             assertPolesPlaced(plant, design);
             assertTight(plant, design);
-            System.out.println("n=" + n + " gammaMin " + design.gammaMin() + " residual " + residual + " rel " + rel
-                    + " rcond " + design.solution().reciprocalCondition() + " steps " + design.bisectionSteps());
         }
         assertTrue(designs >= 12, "designs " + designs);
     }

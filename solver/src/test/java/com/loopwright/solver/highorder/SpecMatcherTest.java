@@ -85,6 +85,5 @@ class SpecMatcherTest {
         InfeasibleDesignException e = assertThrows(InfeasibleDesignException.class,
                 () -> matcher.match(plant, spec, new AuxiliaryPlacement.RealPartMultiple(4), 1, 10));
         assertTrue(e.getMessage().contains("did not converge"), e.getMessage());
-        System.out.println(e.getMessage());
     }
 }
