@@ -8,6 +8,11 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.request.DesignRequest;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.api.request.HighOrderDesignRequest;
+import com.loopwright.api.request.HighOrderLimits;
+import com.loopwright.api.response.HighOrderDesignResponse;
+import com.loopwright.solver.highorder.PoleMatchedRiccati;
+import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.api.request.FieldLimits;
 import com.loopwright.api.request.FitLimits;
 import com.loopwright.api.request.FitRequest;
@@ -84,6 +89,53 @@ class ContractDriftTest {
         contract.component("FitResponse").at("/properties/warnings/items/properties/code/enum")
                 .forEach(n -> warnings.add(n.asText()));
         assertEquals(FitWarning.Code.values().length, warnings.size(), "FitResponse warning codes");
+    }
+
+    @Test
+    void highOrderSchemasMatchTheHighOrderRecords() {
+        assertRecordMatchesSchema(HighOrderDesignRequest.class, contract.component("HighOrderDesignRequest"),
+                "HighOrderDesignRequest");
+        assertRecordMatchesSchema(HighOrderDesignResponse.class, contract.component("HighOrderDesignResponse"),
+                "HighOrderDesignResponse");
+    }
+
+    @Test
+    void highOrderRangesMatchTheValidator() {
+        String request = "HighOrderDesignRequest/properties/";
+        Map<String, Double> expected = Map.ofEntries(
+                Map.entry(request + "plant/properties/denominator/maxItems", (double) HighOrderLimits.MAX_ORDER),
+                Map.entry(request + "plant/properties/denominator/minItems", (double) HighOrderLimits.MIN_ORDER),
+                Map.entry(request + "plant/properties/denominator/items/maximum", HighOrderLimits.MAX_ABS_COEFFICIENT),
+                Map.entry(request + "plant/properties/numerator/items/maximum", HighOrderLimits.MAX_ABS_COEFFICIENT),
+                Map.entry(request + "plant/properties/disturbance/items/maximum", HighOrderLimits.MAX_ABS_DISTURBANCE),
+                Map.entry(request + "plant/properties/b/maximum", FieldLimits.MAX_ABS_B),
+                Map.entry(request + "spec/properties/maxUndershootPercent/minimum",
+                        HighOrderLimits.MIN_UNDERSHOOT_PERCENT),
+                Map.entry(request + "spec/properties/maxUndershootPercent/maximum",
+                        HighOrderLimits.MAX_UNDERSHOOT_PERCENT),
+                Map.entry(request + "spec/properties/maxUndershootPercent/default",
+                        HighOrderLimits.DEFAULT_MAX_UNDERSHOOT_PERCENT),
+                Map.entry(request + "spec/properties/settlingTime/minimum", FieldLimits.MIN_TIME_SECONDS),
+                Map.entry(request + "spec/properties/settlingTime/maximum", FieldLimits.MAX_TIME_SECONDS),
+                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/minimum",
+                        HighOrderLimits.MIN_REAL_PART_MULTIPLE),
+                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/maximum",
+                        HighOrderLimits.MAX_REAL_PART_MULTIPLE),
+                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/default",
+                        HighOrderLimits.DEFAULT_REAL_PART_MULTIPLE),
+                Map.entry(request + "auxiliaryPoles/properties/poles/maxItems",
+                        (double) (HighOrderLimits.MAX_ORDER - 2)),
+                Map.entry(request + "auxiliaryPoles/properties/poles/items/properties/re/minimum",
+                        -HighOrderLimits.MAX_POLE_MAGNITUDE),
+                Map.entry("HighOrderDesignResponse/properties/specMatching/properties/iterations/maximum",
+                        (double) SpecMatcher.MAX_ITERATIONS),
+                Map.entry("HighOrderDesignResponse/properties/riccati/properties/newtonSteps/maximum",
+                        (double) PoleMatchedRiccati.MAX_NEWTON_STEPS));
+        expected.forEach((pointer, value) -> {
+            JsonNode node = contract.document().at("/components/schemas/" + pointer);
+            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
+            assertEquals(value, node.asDouble(), 0, pointer);
+        });
     }
 
     @Test
