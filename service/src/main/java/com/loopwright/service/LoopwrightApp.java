@@ -7,6 +7,7 @@ import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.routes.ContractRoute;
 import com.loopwright.service.routes.DesignRoute;
 import com.loopwright.service.routes.HealthRoute;
+import com.loopwright.service.routes.VerificationRoute;
 import io.javalin.Javalin;
 import io.javalin.http.HttpResponseException;
 import org.slf4j.Logger;
@@ -24,6 +25,7 @@ public final class LoopwrightApp {
         ObjectMapper mapper = StrictJson.newMapper();
         ProblemResponses problems = new ProblemResponses(mapper);
         DesignRoute designs = new DesignRoute(mapper, problems);
+        VerificationRoute verifications = new VerificationRoute(mapper, problems);
         ContractRoute contract = new ContractRoute();
         HealthRoute health = new HealthRoute();
         return Javalin.create(javalin -> {
@@ -31,6 +33,7 @@ public final class LoopwrightApp {
             javalin.http.prefer405over404 = true;
             javalin.startup.showJavalinBanner = false;
             javalin.routes.post(DesignRoute.PATH, designs);
+            javalin.routes.post(VerificationRoute.PATH, verifications);
             javalin.routes.get(ContractRoute.PATH, contract);
             javalin.routes.get(HealthRoute.PATH, health);
             javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,

@@ -13,6 +13,9 @@ public enum ProblemType {
     INFEASIBLE_SPEC(422, "Infeasible spec", "The plant cannot meet the spec with this method."),
     UNVERIFIABLE_DESIGN(422, "Design could not be verified",
             "The design is outside the range where it can be computed and verified in double precision."),
+    CAP_EXCEEDED(422, "Computation cap exceeded",
+            "A requested check would exceed a documented computation cap."),
+    UNSTABLE_LOOP(422, "Unstable loop", "The loop with these gains is not stable, so it cannot be verified."),
     INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs.");
 
     private final int status;
