@@ -124,6 +124,16 @@ class VerificationEndpointTest {
     }
 
     @Test
+    void manyBadProfilesGiveAtMostTheDocumentedNumberOfFieldErrors() {
+        String bad = "{\"shape\":\"pulse\",\"amplitude\":1e99,\"start\":-1,\"frequency\":1,\"holdTime\":1,\"seed\":2}";
+        String body = "{" + GAINS + ",\"verify\":{\"disturbances\":[" + String.join(",", java.util.Collections.nCopies(8, bad))
+                + "]}}";
+        LiveServer.Reply reply = server.post("/v1/verifications", body);
+        assertEquals(400, reply.status(), reply.text());
+        assertEquals(32, reply.json().get("errors").size());
+    }
+
+    @Test
     void verifyOptionsOfADesignAreValidatedToo() {
         LiveServer.Reply reply = server.post("/v1/designs", "{" + AXIS
                 + ",\"verify\":{\"uncertainty\":{\"monteCarloSamples\":5000}}}");

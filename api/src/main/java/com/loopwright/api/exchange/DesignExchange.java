@@ -14,6 +14,7 @@ import com.loopwright.api.request.InvalidRequestException;
 import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.api.request.ValidatedVerify;
 import com.loopwright.api.request.VerifyInputValidator;
+import com.loopwright.api.request.VerifyLimits;
 import com.loopwright.api.response.RobustnessResponse;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.InfeasibleDesignException;
@@ -91,7 +92,7 @@ public final class DesignExchange {
             List<FieldError> errors = new ArrayList<>();
             ValidatedVerify verify = verifyValidator.validate(request.verify(), design.plant(), "/verify", errors);
             if (verify == null) {
-                return failure(problems.invalid(new InvalidRequestException(errors)));
+                return failure(problems.invalid(new InvalidRequestException(VerifyLimits.capped(errors))));
             }
             ClosedFormDesign closedForm = report.design();
             TimeSpec timeSpec = design.spec().timeSpec();

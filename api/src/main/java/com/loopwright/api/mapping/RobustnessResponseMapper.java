@@ -68,7 +68,8 @@ public final class RobustnessResponseMapper {
         if (report.saturation() != null) {
             var s = report.saturation();
             saturation = new RobustnessResponse.Saturation(s.limit(), s.unsaturatedPeakControl(), s.saturates(),
-                    s.largestUnsaturatedStep(), metrics(s.metrics()), s.meetsSpec());
+                    s.largestUnsaturatedStep(), s.diverged(), s.metrics() == null ? null : metrics(s.metrics()),
+                    s.meetsSpec());
             verdict(checks, "saturation", s.meetsSpec(), s.saturates()
                     ? "the step saturates the actuator; saturated step against the limits"
                     : "the step stays within the actuator limit");
@@ -76,9 +77,10 @@ public final class RobustnessResponseMapper {
         RobustnessResponse.Sampled sampled = null;
         if (report.sampled() != null) {
             var s = report.sampled();
-            sampled = new RobustnessResponse.Sampled(s.samplePeriodSeconds(), metrics(s.emulated()),
-                    s.emulatedMeetsSpec(), new RobustnessResponse.GainView(s.directGains().positionGain(),
-                    s.directGains().velocityGain(), s.directGains().referenceGain()),
+            sampled = new RobustnessResponse.Sampled(s.samplePeriodSeconds(), s.spectralRadius(),
+                    s.emulated() == null ? null : metrics(s.emulated()), s.emulatedMeetsSpec(),
+                    s.directGains() == null ? null : new RobustnessResponse.GainView(s.directGains().positionGain(),
+                            s.directGains().velocityGain(), s.directGains().referenceGain()),
                     s.direct() == null ? null : metrics(s.direct()), s.directMeetsSpec(), s.longestPeriodSeconds(),
                     s.longestPeriodIsLowerBound(), s.searchEvaluations());
             verdict(checks, "sampledEmulated", s.emulatedMeetsSpec(), "continuous gains run at the sample period");

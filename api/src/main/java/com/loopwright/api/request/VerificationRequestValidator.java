@@ -93,14 +93,14 @@ public final class VerificationRequestValidator {
             }
         }
         if (!errors.isEmpty()) {
-            throw new InvalidRequestException(errors);
+            throw new InvalidRequestException(VerifyLimits.capped(errors));
         }
         CanonicalPlant canonical = new CanonicalPlant(plant.a0(), plant.a1(), plant.b(), plant.d());
         ValidatedVerify verify = verifyValidator.validate(request.verify() == null
                 ? new VerifyInput(null, null, null, null, null, null, null, null) : request.verify(), canonical,
                 "/verify", errors);
         if (!errors.isEmpty()) {
-            throw new InvalidRequestException(errors);
+            throw new InvalidRequestException(VerifyLimits.capped(errors));
         }
         return new ValidatedVerification(canonical, new FeedbackGains(gain.k1(), gain.k2(), gain.referenceGain()), step,
                 new AcceptanceLimits(settling, rise, overshoot, band),

@@ -19,6 +19,14 @@ public final class VerifyLimits {
     public static final double MAX_ABS_GAIN = 1e12;
     public static final double MAX_WEIGHT = 1e12;
     public static final long DEFAULT_SEED = 1;
+    /** Problem.errors holds at most this many entries (openapi.yaml maxItems); the rest are dropped. */
+    public static final int MAX_FIELD_ERRORS = 32;
+
+    /** The first {@value #MAX_FIELD_ERRORS} errors. */
+    public static java.util.List<com.loopwright.api.problem.FieldError> capped(
+            java.util.List<com.loopwright.api.problem.FieldError> errors) {
+        return errors.size() <= MAX_FIELD_ERRORS ? errors : errors.subList(0, MAX_FIELD_ERRORS);
+    }
 
     private VerifyLimits() {
     }

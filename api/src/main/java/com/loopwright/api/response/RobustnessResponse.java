@@ -86,14 +86,14 @@ public record RobustnessResponse(Acceptance acceptance, Metrics nominal, Boolean
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
     public record Saturation(double limit, double unsaturatedPeakControl, boolean saturates,
-                             Double largestUnsaturatedStep, Metrics metrics, Boolean meetsSpec) {
+                             Double largestUnsaturatedStep, boolean diverged, Metrics metrics, Boolean meetsSpec) {
     }
 
     public record GainView(double k1, double k2, double referenceGain) {
     }
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Sampled(double samplePeriod, Metrics emulated, Boolean emulatedMeetsSpec, GainView directGain,
+    public record Sampled(double samplePeriod, double spectralRadius, Metrics emulated, Boolean emulatedMeetsSpec, GainView directGain,
                           Metrics direct, Boolean directMeetsSpec, Double longestSamplePeriod,
                           boolean longestIsLowerBound, int searchEvaluations) {
     }

@@ -96,25 +96,40 @@ public final class RobustnessVerifier {
         SaturationReport saturation = null;
         if (options.actuatorLimit() != null) {
             double limit = options.actuatorLimit();
-            DenseTrajectory trajectory = saturated.simulate(plant, gains, stepSize, limit, slowHorizon);
-            GridMetrics metrics = GridMetrics.of(trajectory,
-                    LoopMatrices.unitStepFinalValue(plant, gains) * stepSize, limits.bandFraction());
+            DenseTrajectory trajectory = null;
+            GridMetrics metrics = null;
+            try {
+                trajectory = saturated.simulate(plant, gains, stepSize, limit, slowHorizon);
+                metrics = GridMetrics.of(trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize,
+                        limits.bandFraction());
+            } catch (IllegalArgumentException e) {
+                trajectory = null; // the state overflowed: the limited actuator cannot hold this loop
+            }
             double peak = nominal.peakControl();
             saturation = new SaturationReport(limit, peak, peak > limit,
-                    peak == 0 ? null : limit * Math.abs(stepSize) / peak, metrics,
-                    judged(limits, metrics.settlingTimeSeconds(), metrics.riseTimeSeconds(),
-                            metrics.overshootPercent()), trajectory);
+                    peak == 0 ? null : limit * Math.abs(stepSize) / peak, metrics == null, metrics,
+                    metrics == null ? (limits.judges() ? false : null)
+                            : judged(limits, metrics.settlingTimeSeconds(), metrics.riseTimeSeconds(),
+                                    metrics.overshootPercent()), trajectory);
         }
 
         SampledReport sampledReport = null;
         if (options.samplePeriodSeconds() != null) {
             double ts = options.samplePeriodSeconds();
             requireIntervals(ts, slowHorizon, CapExceededException.Option.SAMPLE_PERIOD);
-            DenseTrajectory emulated = sampled.simulate(plant, gains, stepSize, ts, 0, slowHorizon);
-            GridMetrics emulatedMetrics = metricsOf(emulated, plant, gains, stepSize, limits);
-            FeedbackGains directGains = discrete.design(plant, gains, ts);
+            double radius = spectralRadius(plant, gains, ts);
+            DenseTrajectory emulated = null;
+            GridMetrics emulatedMetrics = null;
+            try {
+                emulated = sampled.simulate(plant, gains, stepSize, ts, 0, slowHorizon);
+                emulatedMetrics = metricsOf(emulated, plant, gains, stepSize, limits);
+            } catch (IllegalArgumentException e) {
+                emulated = null; // overflow: the sampled loop diverges (see the spectral radius)
+            }
+            FeedbackGains directGains = null;
             GridMetrics directMetrics = null;
             try {
+                directGains = discrete.design(plant, gains, ts);
                 directMetrics = metricsOf(sampled.simulate(plant, directGains, stepSize, ts, 0, slowHorizon),
                         plant, directGains, stepSize, limits);
             } catch (IllegalArgumentException e) {
@@ -122,9 +137,10 @@ public final class RobustnessVerifier {
             }
             double[] search = options.searchLongestPeriod() && limits.judges()
                     ? longestPeriod(plant, gains, stepSize, limits, slowHorizon) : new double[] {Double.NaN, 0, 0};
-            sampledReport = new SampledReport(ts, emulatedMetrics,
-                    judged(limits, emulatedMetrics.settlingTimeSeconds(), emulatedMetrics.riseTimeSeconds(),
-                            emulatedMetrics.overshootPercent()),
+            sampledReport = new SampledReport(ts, radius, emulatedMetrics,
+                    emulatedMetrics == null ? (limits.judges() ? false : null)
+                            : judged(limits, emulatedMetrics.settlingTimeSeconds(), emulatedMetrics.riseTimeSeconds(),
+                                    emulatedMetrics.overshootPercent()),
                     directGains, directMetrics, directMetrics == null ? (limits.judges() ? false : null)
                             : judged(limits, directMetrics.settlingTimeSeconds(), directMetrics.riseTimeSeconds(),
                                     directMetrics.overshootPercent()),
@@ -162,6 +178,27 @@ public final class RobustnessVerifier {
                 ? saturated.simulate(plant, gains, stepSize, Double.POSITIVE_INFINITY, horizon) : null;
         return new RobustnessReport(nominal, nominalMeets, horizon, hinf, margins, uncertain, checks, saturation,
                 sampledReport, delayReport, nominalTrajectory);
+    }
+
+    /** max |z| over the eigenvalues of Ad - Bd K, the emulated sampled loop without delay. */
+    private static double spectralRadius(CanonicalPlant plant, FeedbackGains gains, double ts) {
+        try {
+            com.loopwright.solver.simulation.DiscreteStateSpace hold = com.loopwright.solver.simulation.ZeroOrderHold
+                    .discretize(LoopMatrices.openLoop(plant), LoopMatrices.actuatorInput(plant), ts);
+            DMatrixRMaj closed = hold.ad();
+            DMatrixRMaj bd = hold.bd();
+            for (int i = 0; i < 2; i++) {
+                closed.add(i, 0, -bd.get(i, 0) * gains.positionGain());
+                closed.add(i, 1, -bd.get(i, 0) * gains.velocityGain());
+            }
+            double radius = 0;
+            for (org.ejml.data.Complex_F64 z : LoopMatrices.poles(closed)) {
+                radius = Math.max(radius, z.getMagnitude());
+            }
+            return radius;
+        } catch (IllegalArgumentException e) {
+            return Double.MAX_VALUE; // e^(A Ts) overflows: the open loop grows beyond double precision in one period
+        }
     }
 
     private static void requireIntervals(double ts, double horizon, CapExceededException.Option option) {

@@ -4,7 +4,9 @@ package com.loopwright.solver.robustness;
  * The loop implemented with a sampler and hold.
  *
  * @param samplePeriodSeconds       Ts
- * @param emulated                  metrics with the continuous gains run at Ts (between samples)
+ * @param spectralRadius            max |z| of the emulated sampled loop Ad - Bd K (stable iff below 1)
+ * @param emulated                  metrics with the continuous gains run at Ts (between samples); null when the
+ *                                  simulation diverges
  * @param emulatedMeetsSpec         emulated metrics meet the acceptance limits (null if nothing is judged)
  * @param directGains               gains of the direct discrete design (pole matching z = e^(lambda Ts))
  * @param direct                    metrics with the direct discrete gains
@@ -15,7 +17,7 @@ package com.loopwright.solver.robustness;
  * @param searchEvaluations         simulations spent in the search
  * @param trajectory                the emulated step
  */
-public record SampledReport(double samplePeriodSeconds, GridMetrics emulated, Boolean emulatedMeetsSpec,
+public record SampledReport(double samplePeriodSeconds, double spectralRadius, GridMetrics emulated, Boolean emulatedMeetsSpec,
                             FeedbackGains directGains, GridMetrics direct, Boolean directMeetsSpec,
                             Double longestPeriodSeconds, boolean longestPeriodIsLowerBound, int searchEvaluations,
                             DenseTrajectory trajectory) {

@@ -8,11 +8,12 @@ package com.loopwright.solver.robustness;
  * @param saturates              unsaturatedPeakControl &gt; limit
  * @param largestUnsaturatedStep largest |step| that stays within the limit: limit |step| / peak (peak |u| is
  *                               linear in the step size); null when the loop never uses u
- * @param metrics                step metrics with saturation
+ * @param diverged               the saturated simulation overflowed (the limit cannot hold the loop)
+ * @param metrics                step metrics with saturation; null when it diverged
  * @param meetsSpec              the saturated step meets the acceptance limits (null if nothing is judged)
  * @param trajectory             the saturated step
  */
 public record SaturationReport(double limit, double unsaturatedPeakControl, boolean saturates,
-                               Double largestUnsaturatedStep, GridMetrics metrics, Boolean meetsSpec,
+                               Double largestUnsaturatedStep, boolean diverged, GridMetrics metrics, Boolean meetsSpec,
                                DenseTrajectory trajectory) {
 }

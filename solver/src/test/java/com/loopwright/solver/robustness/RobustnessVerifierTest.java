@@ -55,6 +55,18 @@ class RobustnessVerifierTest {
     }
 
     @Test
+    void aTooSlowSampledLoopIsReportedAsDivergingNotRejected() {
+        // pi / max|pole| is about 0.1 s; at Ts = 0.5 s the emulated loop is unstable: spectral radius above 1
+        RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
+                IndexingAxis.performanceOutput(), null, options(0.5, false, null));
+        assertTrue(report.sampled().spectralRadius() > 1, "radius " + report.sampled().spectralRadius());
+        assertFalse(report.sampled().emulatedMeetsSpec());
+        RobustnessReport fine = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
+                IndexingAxis.performanceOutput(), null, options(1e-3, false, null));
+        assertTrue(fine.sampled().spectralRadius() < 1);
+    }
+
+    @Test
     void capsAndUnstableLoopsAreRejected() {
         CapExceededException cap = assertThrows(CapExceededException.class, () -> verifier.verify(IndexingAxis.PLANT,
                 IndexingAxis.GAINS, 1, LIMITS, IndexingAxis.performanceOutput(), null, options(1e-7, false, null)));
