@@ -9,6 +9,7 @@ import com.loopwright.service.routes.DesignRoute;
 import com.loopwright.service.routes.FitRoute;
 import com.loopwright.service.routes.HighOrderDesignRoute;
 import com.loopwright.service.routes.HealthRoute;
+import com.loopwright.service.routes.VerificationRoute;
 import io.javalin.Javalin;
 import io.javalin.http.HttpResponseException;
 import org.slf4j.Logger;
@@ -28,6 +29,7 @@ public final class LoopwrightApp {
         DesignRoute designs = new DesignRoute(mapper, problems);
         FitRoute fits = new FitRoute(mapper, problems);
         HighOrderDesignRoute highOrderDesigns = new HighOrderDesignRoute(mapper, problems);
+        VerificationRoute verifications = new VerificationRoute(mapper, problems);
         ContractRoute contract = new ContractRoute();
         HealthRoute health = new HealthRoute();
         return Javalin.create(javalin -> {
@@ -36,6 +38,7 @@ public final class LoopwrightApp {
             javalin.startup.showJavalinBanner = false;
             javalin.routes.post(DesignRoute.PATH, designs);
             javalin.routes.post(HighOrderDesignRoute.PATH, highOrderDesigns);
+            javalin.routes.post(VerificationRoute.PATH, verifications);
             javalin.routes.get(ContractRoute.PATH, contract);
             javalin.routes.get(HealthRoute.PATH, health);
             javalin.routes.post(FitRoute.PATH, fits);

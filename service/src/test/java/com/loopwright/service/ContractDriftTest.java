@@ -19,7 +19,13 @@ import com.loopwright.api.request.FitRequest;
 import com.loopwright.api.request.PlantFormName;
 import com.loopwright.api.response.FitResponse;
 import com.loopwright.solver.fit.FitWarning;
+import com.loopwright.api.request.VerificationRequest;
+import com.loopwright.api.request.VerifyLimits;
 import com.loopwright.api.response.DesignResponse;
+import com.loopwright.api.response.VerificationResponse;
+import com.loopwright.solver.robustness.FrequencyAnalyzer;
+import com.loopwright.solver.robustness.RobustnessVerifier;
+import com.loopwright.solver.robustness.UncertaintyAnalyzer;
 import io.swagger.v3.parser.OpenAPIV3Parser;
 import io.swagger.v3.parser.core.models.SwaggerParseResult;
 import java.lang.reflect.ParameterizedType;
@@ -51,6 +57,8 @@ class ContractDriftTest {
     void requestSchemasMatchTheRequestRecords() {
         assertRecordMatchesSchema(DesignRequest.class, contract.component("DesignRequest"), "DesignRequest");
         assertRecordMatchesSchema(FitRequest.class, contract.component("FitRequest"), "FitRequest");
+        assertRecordMatchesSchema(VerificationRequest.class, contract.component("VerificationRequest"),
+                "VerificationRequest");
     }
 
     @Test
@@ -141,6 +149,57 @@ class ContractDriftTest {
     @Test
     void responseSchemaMatchesTheResponseRecords() {
         assertRecordMatchesSchema(DesignResponse.class, contract.component("DesignResponse"), "DesignResponse");
+        assertRecordMatchesSchema(VerificationResponse.class, contract.component("VerificationResponse"),
+                "VerificationResponse");
+    }
+
+    @Test
+    void documentedVerifyCapsMatchTheCode() {
+        Map<String, Double> expected = Map.ofEntries(
+                Map.entry("UncertaintyInput/properties/monteCarloSamples/maximum",
+                        (double) VerifyLimits.MAX_MONTE_CARLO_SAMPLES),
+                Map.entry("UncertaintyInput/properties/monteCarloSamples/maximum#solver",
+                        (double) UncertaintyAnalyzer.MAX_SAMPLES),
+                Map.entry("VerifyInput/properties/disturbances/maxItems", (double) VerifyLimits.MAX_DISTURBANCES),
+                Map.entry("VerifyInput/properties/frequencyPoints/maximum", (double) VerifyLimits.MAX_FREQUENCY_POINTS),
+                Map.entry("VerifyInput/properties/frequencyPoints/maximum#solver",
+                        (double) FrequencyAnalyzer.MAX_RESPONSE_POINTS),
+                Map.entry("VerifyInput/properties/timeSeriesPoints/maximum",
+                        (double) VerifyLimits.MAX_TIME_SERIES_POINTS),
+                Map.entry("VerifyInput/properties/timeSeriesPoints/minimum",
+                        (double) VerifyLimits.MIN_TIME_SERIES_POINTS),
+                Map.entry("VerifyInput/properties/tolerancePercent/maximum", VerifyLimits.MAX_TOLERANCE_PERCENT),
+                Map.entry("VerifyInput/properties/tolerancePercent/default", VerifyLimits.DEFAULT_TOLERANCE_PERCENT),
+                Map.entry("VerifyInput/properties/actuatorLimit/maximum", VerifyLimits.MAX_ACTUATOR_LIMIT),
+                Map.entry("VerifyInput/properties/inputDelay/maximum", VerifyLimits.MAX_TIME_SECONDS),
+                Map.entry("ParameterRangeInput/properties/plusMinusPercent/maximum",
+                        VerifyLimits.MAX_PLUS_MINUS_PERCENT),
+                Map.entry("SamplingInput/properties/samplePeriod/minimum", VerifyLimits.MIN_SAMPLE_PERIOD),
+                Map.entry("DisturbanceInput/properties/frequency/maximum", VerifyLimits.MAX_FREQUENCY),
+                Map.entry("DisturbanceInput/properties/amplitude/maximum", VerifyLimits.MAX_ABS_AMPLITUDE),
+                Map.entry("GainInput/properties/k1/maximum", VerifyLimits.MAX_ABS_GAIN),
+                Map.entry("RobustnessResponse/properties/margins/properties/response/maxItems",
+                        (double) VerifyLimits.MAX_FREQUENCY_POINTS),
+                Map.entry("RobustnessResponse/properties/timeSeries/items/properties/points/maxItems",
+                        (double) VerifyLimits.MAX_TIME_SERIES_POINTS),
+                Map.entry("RobustnessResponse/properties/disturbances/maxItems",
+                        (double) VerifyLimits.MAX_DISTURBANCES));
+        expected.forEach((key, value) -> {
+            String pointer = key.replace("#solver", "");
+            JsonNode node = contract.document().at("/components/schemas/" + pointer);
+            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
+            assertEquals(value, node.asDouble(), 0, key);
+        });
+        // the caps that only the computation knows are stated in the operation description
+        String description = contract.document().at("/paths/~1v1~1verifications/post/description").asText();
+        assertTrue(description.contains(String.valueOf(UncertaintyAnalyzer.MAX_SAMPLES)));
+        assertTrue(description.contains("200000"), "sample interval cap");
+        assertTrue(description.contains(fmt(RobustnessVerifier.MAX_DISTURBANCE_TIMING_HORIZONS) + " nominal horizons"));
+        assertTrue(description.contains(fmt(RobustnessVerifier.MAX_DELAY_HORIZONS) + " nominal horizon"));
+    }
+
+    private static String fmt(double value) {
+        return String.valueOf((long) value);
     }
 
     @Test
@@ -297,7 +356,7 @@ class ContractDriftTest {
         if (type == double.class || type == Double.class) {
             return "number";
         }
-        if (type == int.class || type == Integer.class || type == long.class) {
+        if (type == int.class || type == Integer.class || type == long.class || type == Long.class) {
             return "integer";
         }
         if (type == boolean.class || type == Boolean.class) {

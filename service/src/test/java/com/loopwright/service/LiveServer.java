@@ -38,6 +38,10 @@ final class LiveServer implements AutoCloseable {
         return new LiveServer(LoopwrightApp.create(config).start("127.0.0.1", 0));
     }
 
+    Contract contract() {
+        return contract;
+    }
+
     URI base() {
         return URI.create("http://127.0.0.1:" + app.port());
     }

@@ -6,17 +6,28 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.mapping.DesignResponseMapper;
 import com.loopwright.api.mapping.ProblemMapper;
+import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.request.DesignRequest;
 import com.loopwright.api.request.DesignRequestValidator;
 import com.loopwright.api.request.InvalidRequestException;
 import com.loopwright.api.request.ValidatedDesign;
+import com.loopwright.api.request.ValidatedVerify;
+import com.loopwright.api.request.VerifyInputValidator;
+import com.loopwright.api.request.VerifyLimits;
+import com.loopwright.api.response.RobustnessResponse;
+import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.LoopDesigner;
 import com.loopwright.solver.plant.PlantParameterException;
+import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.spec.TimeSpec;
 import com.loopwright.solver.verify.VerificationFailedException;
 import java.io.IOException;
+import java.util.ArrayList;
+import java.util.List;
 
 /**
  * One design request from JSON to JSON, without HTTP: decode strictly, validate, design, map, and guard
@@ -29,6 +40,8 @@ public final class DesignExchange {
     private final LoopDesigner designer = new LoopDesigner();
     private final DesignResponseMapper responses = new DesignResponseMapper();
     private final ProblemMapper problems = new ProblemMapper();
+    private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
+    private final RobustnessRunner robustnessRunner = new RobustnessRunner();
 
     public DesignExchange(ObjectMapper mapper) {
         this.mapper = mapper;
@@ -77,7 +90,29 @@ public final class DesignExchange {
         } catch (VerificationFailedException e) {
             return failure(problems.unverifiable(e.getMessage()));
         }
-        JsonNode tree = mapper.valueToTree(responses.toResponse(design, report));
+        RobustnessResponse robustness = null;
+        if (request.verify() != null) {
+            List<FieldError> errors = new ArrayList<>();
+            ValidatedVerify verify = verifyValidator.validate(request.verify(), design.plant(), "/verify", errors);
+            if (verify == null) {
+                return failure(problems.invalid(new InvalidRequestException(VerifyLimits.capped(errors))));
+            }
+            ClosedFormDesign closedForm = report.design();
+            TimeSpec timeSpec = design.spec().timeSpec();
+            AcceptanceLimits limits = new AcceptanceLimits(
+                    timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
+                    timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
+                    100 * design.spec().overshootFraction(), design.bandFraction());
+            RobustnessRunner.Result result = robustnessRunner.run(design.plant(),
+                    new FeedbackGains(closedForm.positionGain(), closedForm.velocityGain(), closedForm.referenceGain()),
+                    design.stepSize(), limits, closedForm.rho1(), closedForm.rho2(),
+                    design.plant().d() == 0 ? null : closedForm.gamma(), verify, "/verify");
+            if (result.problem() != null) {
+                return failure(result.problem());
+            }
+            robustness = result.response();
+        }
+        JsonNode tree = mapper.valueToTree(responses.toResponse(design, report, robustness));
         String nonFinite = FiniteNumbers.firstNonFinite(tree);
         if (nonFinite != null) {
             return failure(problems.unverifiable(

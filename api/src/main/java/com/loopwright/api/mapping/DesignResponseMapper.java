@@ -18,6 +18,12 @@ import java.util.List;
 public final class DesignResponseMapper {
 
     public DesignResponse toResponse(ValidatedDesign request, DesignReport report) {
+        return toResponse(request, report, null);
+    }
+
+    /** With the robustness section (null when the request did not ask for it). */
+    public DesignResponse toResponse(ValidatedDesign request, DesignReport report,
+                                     com.loopwright.api.response.RobustnessResponse robustness) {
         ClosedFormDesign design = report.design();
         Verification verification = report.verification();
         TargetDynamics target = design.target();
@@ -55,7 +61,8 @@ public final class DesignResponseMapper {
                                 c.requested(), c.simulated(), c.met())).toList()),
                 notes(report),
                 Cautions.ALL,
-                ModelMapper.toModel(request.resolvedPlant(), design));
+                ModelMapper.toModel(request.resolvedPlant(), design),
+                robustness);
     }
 
     /** Wire name of a gamma condition. */

@@ -1,5 +1,14 @@
 package com.loopwright.api.request;
 
-/** Body of POST /v1/designs. */
-public record DesignRequest(PlantInput plant, SpecInput spec) {
+/**
+ * Body of POST /v1/designs.
+ *
+ * @param verify optional robustness checks of the designed loop; absent means the design response as before
+ */
+public record DesignRequest(PlantInput plant, SpecInput spec, VerifyInput verify) {
+
+    /** A request without robustness checks. */
+    public DesignRequest(PlantInput plant, SpecInput spec) {
+        this(plant, spec, null);
+    }
 }

@@ -5,12 +5,14 @@ import java.util.List;
 
 /**
  * Body of a successful POST /v1/designs. Units: seconds, rad/s, the caller's x1 and u units; gamma is the
- * L2 gain bound from w to z = [rho1 x1, rho2 x2, u].
+ * L2 gain bound from w to z = [rho1 x1, rho2 x2, u]. {@code robustness} is present only when the request asked
+ * for it (verify).
  */
+@JsonInclude(JsonInclude.Include.NON_NULL)
 public record DesignResponse(Plant plant, Target target, Riccati riccati, List<GammaBoundView> gammaBounds,
                              double gammaMin, double gamma, Weights weights, Gain gain, Simulated simulated,
                              Verification verification, List<String> notes, List<String> cautions,
-                             Model model) {
+                             Model model, RobustnessResponse robustness) {
 
     public DesignResponse {
         gammaBounds = List.copyOf(gammaBounds);

@@ -1,0 +1,13 @@
+package com.loopwright.solver.robustness;
+
+/**
+ * One disturbance profile and its response.
+ *
+ * @param profile        the profile
+ * @param response       the response
+ * @param withinNorm     observedGain &lt;= hinfNorm (1 + 1e-8)
+ * @param withinGamma    observedGain &lt;= gamma (null when no gamma is known)
+ */
+public record DisturbanceCheck(DisturbanceProfile profile, DisturbanceResponse response, boolean withinNorm,
+                               Boolean withinGamma) {
+}

@@ -1,0 +1,155 @@
+package com.loopwright.solver.robustness;
+
+import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.simulation.LinearLoop;
+import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.simulation.StepResponseMetrics;
+import com.loopwright.solver.simulation.StepSimulator;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.SplittableRandom;
+import java.util.function.Function;
+import org.ejml.data.DMatrixRMaj;
+
+/**
+ * Evaluates the nominal gains on every corner of a parameter box and on seeded uniform Monte Carlo samples inside
+ * it. Each case gets the exact step metrics of {@link StepResponseMetrics} (horizon
+ * {@value LoopMatrices#HORIZON_PER_TIME_CONSTANT} slowest time constants) and the H-infinity norm from w to the
+ * performance output. The generator is {@link SplittableRandom} with the given seed, drawn in a fixed order
+ * (a0, a1, b, d per sample), so the same request gives the same samples bit for bit.
+ */
+public final class UncertaintyAnalyzer {
+
+    /** Cap on Monte Carlo samples. */
+    public static final int MAX_SAMPLES = 2000;
+    /** Grid used to bracket the exact step events (the metrics do not depend on it). */
+    static final int BASE_GRID = 2000;
+
+    private final StepResponseMetrics metrics = new StepResponseMetrics();
+    private final HInfinityNormCalculator norms = new HInfinityNormCalculator();
+
+    /**
+     * @param performanceOutput C_z with z = C_z x (p x 2)
+     */
+    public UncertaintyReport analyze(ParameterBox box, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
+                                     DMatrixRMaj performanceOutput, int samples, long seed) {
+        if (samples < 0 || samples > MAX_SAMPLES) {
+            throw new IllegalArgumentException("samples must be 0 to " + MAX_SAMPLES);
+        }
+        double[] lo = box.lows();
+        double[] hi = box.highs();
+        List<Integer> varying = new ArrayList<>();
+        for (int i = 0; i < 4; i++) {
+            if (lo[i] < hi[i]) {
+                varying.add(i);
+            }
+        }
+        List<UncertainCase> corners = new ArrayList<>();
+        for (int mask = 0; mask < (1 << varying.size()); mask++) {
+            double[] p = lo.clone();
+            for (int bit = 0; bit < varying.size(); bit++) {
+                int index = varying.get(bit);
+                p[index] = (mask >> bit & 1) == 1 ? hi[index] : lo[index];
+            }
+            corners.add(evaluate(ParameterBox.plant(p), true, gains, stepSize, limits, performanceOutput));
+        }
+        List<UncertainCase> all = new ArrayList<>(corners);
+        SplittableRandom random = new SplittableRandom(seed);
+        for (int s = 0; s < samples; s++) {
+            double[] p = new double[4];
+            for (int i = 0; i < 4; i++) {
+                p[i] = lo[i] + (hi[i] - lo[i]) * random.nextDouble();
+            }
+            all.add(evaluate(ParameterBox.plant(p), false, gains, stepSize, limits, performanceOutput));
+        }
+        int unstable = (int) all.stream().filter(c -> !c.stable()).count();
+        Double fraction = limits.judges()
+                ? (double) all.stream().filter(UncertainCase::meetsSpec).count() / all.size() : null;
+        UncertainCase worst = null;
+        if (limits.judges()) {
+            double worstScore = Double.NEGATIVE_INFINITY;
+            for (UncertainCase c : all) {
+                double score = score(c, limits);
+                if (score > worstScore) {
+                    worstScore = score;
+                    worst = c;
+                }
+            }
+        }
+        return new UncertaintyReport(corners.size(), samples, seed, unstable, fraction,
+                summary(all, UncertainCase::settlingTimeSeconds), summary(all, UncertainCase::riseTimeSeconds),
+                summary(all, UncertainCase::overshootPercent), summary(all, UncertainCase::peakControl),
+                summary(all, UncertainCase::disturbanceGain), worst, corners);
+    }
+
+    UncertainCase evaluate(CanonicalPlant plant, boolean corner, FeedbackGains gains, double stepSize,
+                           AcceptanceLimits limits, DMatrixRMaj performanceOutput) {
+        if (!LoopMatrices.stable(plant, gains)) {
+            return new UncertainCase(plant, corner, false, null, null, null, null, null, false);
+        }
+        StepMetrics step = null;
+        try {
+            double horizon = LoopMatrices.horizonSeconds(plant, gains);
+            double needed = Math.ceil(horizon * LoopMatrices.fastestOscillation(plant, gains)
+                    / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
+            if (needed <= StepSimulator.MAX_SAMPLES) {
+                LinearLoop loop = LoopMatrices.stepLoop(plant, gains);
+                step = metrics.measure(loop, stepSize, horizon, (int) Math.max(BASE_GRID, needed),
+                        limits.bandFraction());
+            }
+        } catch (IllegalArgumentException e) {
+            step = null; // not measurable in double precision (reported as a missing metric)
+        }
+        Double gain = null;
+        try {
+            gain = plant.d() == 0 ? 0.0 : norms.compute(LoopMatrices.closedLoop(plant, gains),
+                    LoopMatrices.disturbanceInput(plant), performanceOutput).value();
+        } catch (RuntimeException e) {
+            gain = null;
+        }
+        if (step == null) {
+            return new UncertainCase(plant, corner, true, null, null, null, null, gain, false);
+        }
+        boolean meets = limits.met(step.settlingTimeSeconds(), step.riseTimeSeconds(), step.overshootPercent());
+        return new UncertainCase(plant, corner, true, step.settlingTimeSeconds(), step.riseTimeSeconds(),
+                step.overshootPercent(), step.peakControl(), gain, meets);
+    }
+
+    /** Largest ratio metric / limit; unstable or unmeasured cases score infinity. */
+    private static double score(UncertainCase c, AcceptanceLimits limits) {
+        if (!c.stable() || c.overshootPercent() == null) {
+            return Double.POSITIVE_INFINITY;
+        }
+        double score = Double.NEGATIVE_INFINITY;
+        if (limits.settlingTimeSeconds() != null) {
+            score = Math.max(score, c.settlingTimeSeconds() / limits.settlingTimeSeconds());
+        }
+        if (limits.riseTimeSeconds() != null) {
+            score = Math.max(score, c.riseTimeSeconds() / limits.riseTimeSeconds());
+        }
+        if (limits.overshootPercent() != null) {
+            score = Math.max(score, c.overshootPercent() / Math.max(limits.overshootPercent(), 1e-12));
+        }
+        return score;
+    }
+
+    private static MetricSummary summary(List<UncertainCase> cases, Function<UncertainCase, Double> metric) {
+        List<UncertainCase> measured = cases.stream().filter(c -> metric.apply(c) != null).toList();
+        if (measured.isEmpty()) {
+            return null;
+        }
+        double[] values = measured.stream().mapToDouble(c -> metric.apply(c)).toArray();
+        UncertainCase worst = measured.get(0);
+        for (UncertainCase c : measured) {
+            if (metric.apply(c) > metric.apply(worst)) {
+                worst = c;
+            }
+        }
+        Arrays.sort(values);
+        int n = values.length;
+        double median = n % 2 == 1 ? values[n / 2] : 0.5 * (values[n / 2 - 1] + values[n / 2]);
+        return new MetricSummary(values[0], median, values[n - 1], worst.plant(), n);
+    }
+}
