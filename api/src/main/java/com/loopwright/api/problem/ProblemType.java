@@ -13,7 +13,12 @@ public enum ProblemType {
     INFEASIBLE_SPEC(422, "Infeasible spec", "The plant cannot meet the spec with this method."),
     UNVERIFIABLE_DESIGN(422, "Design could not be verified",
             "The design is outside the range where it can be computed and verified in double precision."),
-    INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs.");
+    INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs."),
+    UNAUTHORIZED(401, "Unauthorized", "Send an API key as Authorization: Bearer <key> or X-Api-Key."),
+    FORBIDDEN(403, "Forbidden", "The credentials do not grant this request."),
+    SERVICE_OVERLOADED(503, "Service overloaded", "Every design worker is busy; retry after the Retry-After delay."),
+    DEADLINE_EXCEEDED(504, "Compute deadline exceeded", "The design did not finish within the compute deadline."),
+    NOT_READY(503, "Not ready", "The service is shutting down or not yet able to take designs.");
 
     private final int status;
     private final String title;
