@@ -6,6 +6,7 @@ import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.compute.Designs;
 import com.loopwright.service.compute.ExchangeDesigns;
+import com.loopwright.service.http.ProblemErrorHandler;
 import com.loopwright.service.http.ProblemException;
 import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.observe.Metrics;
@@ -69,6 +70,7 @@ public final class LoopwrightApp {
             // Graceful stop: Jetty refuses new requests and waits for in-flight ones up to the grace period.
             javalin.jetty.modifyServer(server -> {
                 server.setHandler(new GracefulHandler());
+                server.setErrorHandler(new ProblemErrorHandler(mapper));
                 server.setStopTimeout(config.shutdownGraceMillis());
             });
             javalin.events.serverStopping(() -> draining.set(true));
