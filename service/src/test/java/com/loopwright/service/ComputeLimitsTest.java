@@ -168,4 +168,46 @@ class ComputeLimitsTest {
         stopping.get(30, TimeUnit.SECONDS);
         assertEquals(200, held.get(30, TimeUnit.SECONDS).status(), "the in-flight design still completed");
     }
+
+    @Test
+    void batchLinesAreStreamedAsEachItemFinishes() throws Exception {
+        // The first item is computed at once; the second waits at the gate until the first line has arrived.
+        CountDownLatch gate = new CountDownLatch(1);
+        Designs real = new ExchangeDesigns(StrictJson.newMapper());
+        AtomicInteger calls = new AtomicInteger();
+        Designs secondWaits = new Designs() {
+            @Override
+            public Outcome design(byte[] body) {
+                return real.design(body);
+            }
+
+            @Override
+            public Outcome design(JsonNode item) {
+                if (calls.incrementAndGet() == 2) {
+                    try {
+                        gate.await(30, TimeUnit.SECONDS);
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                    }
+                }
+                return real.design(item);
+            }
+        };
+        try (LiveServer server = LiveServer.start(config("2", "4", "30000"), secondWaits)) {
+            var request = java.net.http.HttpRequest.newBuilder(server.base().resolve("/v1/designs/batch"))
+                    .header("Content-Type", "application/json").POST(java.net.http.HttpRequest.BodyPublishers
+                            .ofString("{\"items\":[" + DesignClient.INDEXING_AXIS + "," + DesignClient.INDEXING_AXIS + "]}"))
+                    .build();
+            var response = server.http().send(request, java.net.http.HttpResponse.BodyHandlers.ofLines());
+            assertEquals(200, response.statusCode());
+            assertEquals("application/x-ndjson", response.headers().firstValue("Content-Type").orElse(""));
+            var lines = response.body().iterator();
+            String first = lines.next();
+            assertTrue(first.startsWith("{\"index\":0,\"status\":200"), first);
+            assertEquals(1, gate.getCount(), "the first line arrived while the second item was still waiting");
+            gate.countDown();
+            assertTrue(lines.next().startsWith("{\"index\":1,\"status\":200"));
+            assertTrue(!lines.hasNext());
+        }
+    }
 }

@@ -168,7 +168,14 @@ class OperationsTest {
             assertEquals(1, metrics.sum("loopwright_designs_total", Map.of("outcome", "infeasible")));
             assertTrue(metrics.sum("jvm_memory_used_bytes", Map.of("area", "heap")) > 0);
             assertTrue(metrics.sum("jvm_threads_live", Map.of()) > 0);
-            assertEquals(1, metrics.sum("loopwright_http_requests_in_flight", Map.of()), "only the scrape itself");
+            // In flight during a scrape: the scrape itself (the previous request's count lands just after its
+            // response, so look again briefly).
+            double inFlight = metrics.sum("loopwright_http_requests_in_flight", Map.of());
+            for (int i = 0; i < 50 && inFlight != 1; i++) {
+                inFlight = PrometheusText.parse(server.get("/metrics").text())
+                        .sum("loopwright_http_requests_in_flight", Map.of());
+            }
+            assertEquals(1, inFlight, "only the scrape itself");
         }
     }
 

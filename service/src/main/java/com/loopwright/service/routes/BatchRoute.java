@@ -77,7 +77,8 @@ public final class BatchRoute implements Handler {
             return;
         }
         ctx.status(200).contentType(MEDIA_TYPE);
-        OutputStream out = ctx.outputStream();
+        // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
+        OutputStream out = ctx.res().getOutputStream();
         for (int index = 0; index < items.size(); index++) {
             JsonNode item = items.get(index);
             Outcome outcome = pool.run(() -> designs.design(item));
