@@ -1,47 +1,130 @@
 package com.loopwright.service;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.exchange.FitExchange;
+import com.loopwright.api.exchange.HighOrderExchange;
+import com.loopwright.api.exchange.VerificationExchange;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.compute.ComputePool;
+import com.loopwright.service.compute.Designs;
+import com.loopwright.service.compute.ExchangeDesigns;
+import com.loopwright.service.http.ProblemErrorHandler;
+import com.loopwright.service.http.ProblemException;
 import com.loopwright.service.http.ProblemResponses;
+import com.loopwright.service.observe.Metrics;
+import com.loopwright.service.observe.RequestIds;
+import com.loopwright.service.routes.BatchRoute;
 import com.loopwright.service.routes.ContractRoute;
 import com.loopwright.service.routes.DesignRoute;
-import com.loopwright.service.routes.FitRoute;
-import com.loopwright.service.routes.HighOrderDesignRoute;
+import com.loopwright.service.routes.JsonExchangeRoute;
 import com.loopwright.service.routes.HealthRoute;
-import com.loopwright.service.routes.VerificationRoute;
+import com.loopwright.service.routes.MetricsRoute;
+import com.loopwright.service.routes.ReadinessRoute;
+import com.loopwright.service.security.ApiKeys;
+import com.loopwright.service.security.Cors;
+import com.loopwright.service.security.SecurityHeaders;
 import io.javalin.Javalin;
+import io.javalin.http.Context;
+import io.javalin.http.HandlerType;
 import io.javalin.http.HttpResponseException;
+import java.util.Set;
+import java.util.concurrent.atomic.AtomicBoolean;
+import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
+import org.slf4j.MDC;
 
-/** Builds the Javalin application: routes, limits and the problem+json error model. */
+/** Builds the Javalin application: routes, limits, security, observability and the problem+json error model. */
 public final class LoopwrightApp {
 
+    public static final String FIT_PATH = "/v1/models/fit";
+    public static final String HIGH_ORDER_PATH = "/v1/designs/high-order";
+    public static final String VERIFICATION_PATH = "/v1/verifications";
+
     private static final Logger LOG = LoggerFactory.getLogger(LoopwrightApp.class);
+    private static final Logger ACCESS = LoggerFactory.getLogger("com.loopwright.access");
+    private static final String STARTED_NANOS = "loopwright.startedNanos";
+    /** Route labels of the metrics; any other path is counted as "other" so that label values stay bounded. */
+    static final Set<String> ROUTES = Set.of(DesignRoute.PATH, BatchRoute.PATH, ContractRoute.PATH, HealthRoute.PATH,
+            HealthRoute.LIVE_PATH, ReadinessRoute.PATH, MetricsRoute.PATH);
 
     private LoopwrightApp() {
     }
 
     public static Javalin create(ServiceConfig config) {
+        return create(config, null);
+    }
+
+    /** With a replaceable computation (tests use a slow one to exercise the deadline and back-pressure). */
+    public static Javalin create(ServiceConfig config, Designs computation) {
         ObjectMapper mapper = StrictJson.newMapper();
+        Designs designs = computation == null ? new ExchangeDesigns(mapper) : computation;
         ProblemResponses problems = new ProblemResponses(mapper);
-        DesignRoute designs = new DesignRoute(mapper, problems);
-        FitRoute fits = new FitRoute(mapper, problems);
-        HighOrderDesignRoute highOrderDesigns = new HighOrderDesignRoute(mapper, problems);
-        VerificationRoute verifications = new VerificationRoute(mapper, problems);
-        ContractRoute contract = new ContractRoute();
+        ComputePool pool = new ComputePool(config.workerThreads(), config.queueCapacity(),
+                config.computeDeadlineMillis(), mapper);
+        Metrics metrics = new Metrics(pool::activeWorkers, pool::queuedDesigns);
+        AtomicBoolean draining = new AtomicBoolean();
+        ApiKeys keys = new ApiKeys(config.apiKeys());
+        Cors cors = new Cors(config.corsOrigins());
+        DesignRoute design = new DesignRoute(mapper, problems, designs, pool, metrics);
+        BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems());
+        JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool, new FitExchange(mapper)::exchange);
+        JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(mapper, problems, pool,
+                new HighOrderExchange(mapper)::exchange);
+        JsonExchangeRoute verifications = new JsonExchangeRoute(mapper, problems, pool,
+                new VerificationExchange(mapper)::exchange);
         HealthRoute health = new HealthRoute();
         return Javalin.create(javalin -> {
             javalin.http.maxRequestSize = config.maxRequestBytes();
             javalin.http.prefer405over404 = true;
             javalin.startup.showJavalinBanner = false;
-            javalin.routes.post(DesignRoute.PATH, designs);
-            javalin.routes.post(HighOrderDesignRoute.PATH, highOrderDesigns);
-            javalin.routes.post(VerificationRoute.PATH, verifications);
-            javalin.routes.get(ContractRoute.PATH, contract);
+            javalin.startup.showOldJavalinVersionWarning = false;
+            // Graceful stop: Jetty refuses new requests and waits for in-flight ones up to the grace period.
+            javalin.jetty.modifyServer(server -> {
+                server.setHandler(new GracefulHandler());
+                server.setErrorHandler(new ProblemErrorHandler(mapper));
+                server.setStopTimeout(config.shutdownGraceMillis());
+            });
+            javalin.events.serverStopping(() -> draining.set(true));
+            javalin.events.serverStopped(() -> pool.shutdown(config.shutdownGraceMillis()));
+
+            javalin.routes.before(ctx -> {
+                ctx.attribute(STARTED_NANOS, System.nanoTime());
+                metrics.requestStarted();
+                String requestId = RequestIds.accept(ctx.header(RequestIds.HEADER));
+                MDC.put(RequestIds.MDC_KEY, requestId);
+                ctx.header(RequestIds.HEADER, requestId);
+                SecurityHeaders.apply(ctx);
+                cors.decorate(ctx);
+            });
+            javalin.routes.before("/v1/*", ctx -> {
+                if (ctx.method() != HandlerType.OPTIONS) {
+                    keys.check(ctx.header("Authorization"), ctx.header(ApiKeys.HEADER));
+                }
+            });
+            javalin.routes.post(DesignRoute.PATH, design);
+            javalin.routes.post(BatchRoute.PATH, batch);
+            javalin.routes.post(FIT_PATH, fits);
+            javalin.routes.post(HIGH_ORDER_PATH, highOrderDesigns);
+            javalin.routes.post(VERIFICATION_PATH, verifications);
+            if (cors.enabled()) {
+                javalin.routes.options(DesignRoute.PATH, cors::preflight);
+                javalin.routes.options(BatchRoute.PATH, cors::preflight);
+                for (String path : new String[] {FIT_PATH, HIGH_ORDER_PATH, VERIFICATION_PATH}) {
+                    javalin.routes.options(path, cors::preflight);
+                }
+            }
+            javalin.routes.get(ContractRoute.PATH, new ContractRoute());
             javalin.routes.get(HealthRoute.PATH, health);
-            javalin.routes.post(FitRoute.PATH, fits);
+            javalin.routes.get(HealthRoute.LIVE_PATH, health);
+            javalin.routes.get(ReadinessRoute.PATH, new ReadinessRoute(draining::get, problems));
+            javalin.routes.get(MetricsRoute.PATH, new MetricsRoute(metrics));
+
+            javalin.routes.exception(ProblemException.class, (e, ctx) -> {
+                e.headers().forEach(ctx::header);
+                problems.write(ctx, e.problem());
+            });
             javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,
                     statusProblem(e.getStatus())));
             javalin.routes.exception(Exception.class, (e, ctx) -> {
@@ -49,10 +132,26 @@ public final class LoopwrightApp {
                 problems.write(ctx, ProblemType.INTERNAL_ERROR.problem(null));
             });
             javalin.routes.error(404, ctx -> problems.write(ctx, ProblemType.NOT_FOUND.problem(
-                    "no resource at " + ctx.path() + "; see GET /openapi.yaml")));
+                    "no resource at this path; see GET /openapi.yaml")));
             javalin.routes.error(405, ctx -> problems.write(ctx, ProblemType.METHOD_NOT_ALLOWED.problem(
-                    ctx.method() + " is not supported on " + ctx.path())));
+                    "this method is not supported on this path")));
+            javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics));
         });
+    }
+
+    /** Counts the request, writes the access line and clears the request id from the thread. */
+    private static void finish(Context ctx, Metrics metrics) {
+        Long started = ctx.attribute(STARTED_NANOS);
+        double seconds = started == null ? 0 : (System.nanoTime() - started) / 1e9;
+        String route = ROUTES.contains(ctx.path()) ? ctx.path() : "other";
+        int status = ctx.statusCode();
+        if (started != null) {
+            metrics.requestFinished(route, ctx.method().name(), status, seconds);
+        }
+        if (ACCESS.isInfoEnabled()) {
+            ACCESS.info("{} {} {} {} ms", ctx.method().name(), route, status, Math.round(seconds * 1e4) / 10.0);
+        }
+        MDC.remove(RequestIds.MDC_KEY);
     }
 
     private static com.loopwright.api.problem.Problem statusProblem(int status) {

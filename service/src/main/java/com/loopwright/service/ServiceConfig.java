@@ -1,17 +1,55 @@
 package com.loopwright.service;
 
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 
 /**
- * Settings read once at start-up from the environment.
+ * Settings read once at start-up from the environment (README "Configuration" lists every variable).
  *
- * @param port            TCP port (LOOPWRIGHT_PORT, default 8080; 0 picks a free port)
- * @param maxRequestBytes request body cap in bytes (LOOPWRIGHT_MAX_REQUEST_BYTES, default 1 MiB)
+ * @param port                TCP port (LOOPWRIGHT_PORT, default 8080; 0 picks a free port)
+ * @param maxRequestBytes     request body cap in bytes (LOOPWRIGHT_MAX_REQUEST_BYTES, default 1 MiB)
+ * @param workerThreads       design computations run on this many pool threads (LOOPWRIGHT_WORKER_THREADS,
+ *                            default the number of processors)
+ * @param queueCapacity       designs waiting for a worker before new ones get 503 (LOOPWRIGHT_QUEUE_CAPACITY,
+ *                            default 64)
+ * @param computeDeadlineMillis one design's compute deadline; past it the request gets 504
+ *                            (LOOPWRIGHT_COMPUTE_DEADLINE_MS, default 10000)
+ * @param maxBatchItems       items per POST /v1/designs/batch (LOOPWRIGHT_MAX_BATCH_ITEMS, default 1000, at most
+ *                            {@link #BATCH_ITEMS_CEILING})
+ * @param apiKeys             accepted API keys; empty turns authentication off (LOOPWRIGHT_API_KEYS, comma
+ *                            separated, and/or LOOPWRIGHT_API_KEYS_FILE, one key per line)
+ * @param corsOrigins         browser origins allowed by CORS; empty turns CORS off (LOOPWRIGHT_CORS_ORIGINS)
+ * @param logFormat           "json" or "text" (LOOPWRIGHT_LOG_FORMAT, read by logback.xml; default json)
+ * @param shutdownGraceMillis how long a stop waits for in-flight requests (LOOPWRIGHT_SHUTDOWN_GRACE_MS,
+ *                            default 20000)
  */
-public record ServiceConfig(int port, long maxRequestBytes) {
+public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, int queueCapacity,
+                            long computeDeadlineMillis, int maxBatchItems, List<String> apiKeys,
+                            List<String> corsOrigins, String logFormat, long shutdownGraceMillis) {
 
     public static final int DEFAULT_PORT = 8080;
     public static final long DEFAULT_MAX_REQUEST_BYTES = 1L << 20;
+    public static final int DEFAULT_QUEUE_CAPACITY = 64;
+    public static final long DEFAULT_COMPUTE_DEADLINE_MILLIS = 10_000;
+    public static final int DEFAULT_MAX_BATCH_ITEMS = 1000;
+    /** The documented batch cap (openapi.yaml maxItems); the environment may only lower it. */
+    public static final int BATCH_ITEMS_CEILING = 1000;
+    public static final String DEFAULT_LOG_FORMAT = "json";
+    public static final long DEFAULT_SHUTDOWN_GRACE_MILLIS = 20_000;
+    /** Caps on the configuration itself, so that a typo cannot exhaust the machine. */
+    public static final int MAX_WORKER_THREADS = 256;
+    public static final int MAX_QUEUE_CAPACITY = 100_000;
+    public static final int MAX_API_KEYS = 64;
+    public static final int MAX_CORS_ORIGINS = 64;
+    public static final int MIN_API_KEY_LENGTH = 16;
 
     public ServiceConfig {
         if (port < 0 || port > 65_535) {
@@ -20,16 +58,131 @@ public record ServiceConfig(int port, long maxRequestBytes) {
         if (maxRequestBytes < 1024 || maxRequestBytes > (64L << 20)) {
             throw new IllegalArgumentException("request cap must be from 1 KiB to 64 MiB: " + maxRequestBytes);
         }
+        if (workerThreads < 1 || workerThreads > MAX_WORKER_THREADS) {
+            throw new IllegalArgumentException("worker threads must be from 1 to " + MAX_WORKER_THREADS + ": "
+                    + workerThreads);
+        }
+        if (queueCapacity < 0 || queueCapacity > MAX_QUEUE_CAPACITY) {
+            throw new IllegalArgumentException("queue capacity must be from 0 to " + MAX_QUEUE_CAPACITY + ": "
+                    + queueCapacity);
+        }
+        if (computeDeadlineMillis < 1 || computeDeadlineMillis > 600_000) {
+            throw new IllegalArgumentException("compute deadline must be from 1 to 600000 ms: "
+                    + computeDeadlineMillis);
+        }
+        if (maxBatchItems < 1 || maxBatchItems > BATCH_ITEMS_CEILING) {
+            throw new IllegalArgumentException("batch cap must be from 1 to " + BATCH_ITEMS_CEILING + ": "
+                    + maxBatchItems);
+        }
+        apiKeys = List.copyOf(apiKeys);
+        if (apiKeys.size() > MAX_API_KEYS) {
+            throw new IllegalArgumentException("at most " + MAX_API_KEYS + " API keys");
+        }
+        for (String key : apiKeys) {
+            // The key itself is never echoed, only its position.
+            if (key.length() < MIN_API_KEY_LENGTH || !key.chars().allMatch(c -> c > 0x20 && c < 0x7f)) {
+                throw new IllegalArgumentException("API key #" + (apiKeys.indexOf(key) + 1) + " must be at least "
+                        + MIN_API_KEY_LENGTH + " printable ASCII characters without spaces");
+            }
+        }
+        corsOrigins = List.copyOf(corsOrigins);
+        if (corsOrigins.size() > MAX_CORS_ORIGINS) {
+            throw new IllegalArgumentException("at most " + MAX_CORS_ORIGINS + " CORS origins");
+        }
+        for (String origin : corsOrigins) {
+            if (!origin.matches("https?://[A-Za-z0-9.-]+(:[0-9]{1,5})?")) {
+                throw new IllegalArgumentException("CORS origin must be scheme://host[:port]: " + origin);
+            }
+        }
+        if (!logFormat.equals("json") && !logFormat.equals("text")) {
+            throw new IllegalArgumentException("log format must be json or text: " + logFormat);
+        }
+        if (shutdownGraceMillis < 0 || shutdownGraceMillis > 600_000) {
+            throw new IllegalArgumentException("shutdown grace must be from 0 to 600000 ms: " + shutdownGraceMillis);
+        }
+    }
+
+    /** Defaults for everything, on the given port. */
+    public static ServiceConfig defaults(int port) {
+        return fromEnvironment(Map.of("LOOPWRIGHT_PORT", String.valueOf(port)));
     }
 
     public static ServiceConfig fromEnvironment(Map<String, String> environment) {
+        List<String> keys = new ArrayList<>(list(environment.get("LOOPWRIGHT_API_KEYS")));
+        String keyFile = environment.get("LOOPWRIGHT_API_KEYS_FILE");
+        if (keyFile != null && !keyFile.isBlank()) {
+            keys.addAll(readKeyFile(Path.of(keyFile.trim())));
+        }
         return new ServiceConfig(
-                parse(environment, "LOOPWRIGHT_PORT", DEFAULT_PORT),
-                parse(environment, "LOOPWRIGHT_MAX_REQUEST_BYTES", DEFAULT_MAX_REQUEST_BYTES));
+                (int) parse(environment, "LOOPWRIGHT_PORT", DEFAULT_PORT),
+                parse(environment, "LOOPWRIGHT_MAX_REQUEST_BYTES", DEFAULT_MAX_REQUEST_BYTES),
+                (int) parse(environment, "LOOPWRIGHT_WORKER_THREADS", Runtime.getRuntime().availableProcessors()),
+                (int) parse(environment, "LOOPWRIGHT_QUEUE_CAPACITY", DEFAULT_QUEUE_CAPACITY),
+                parse(environment, "LOOPWRIGHT_COMPUTE_DEADLINE_MS", DEFAULT_COMPUTE_DEADLINE_MILLIS),
+                (int) parse(environment, "LOOPWRIGHT_MAX_BATCH_ITEMS", DEFAULT_MAX_BATCH_ITEMS),
+                keys,
+                list(environment.get("LOOPWRIGHT_CORS_ORIGINS")),
+                environment.getOrDefault("LOOPWRIGHT_LOG_FORMAT", DEFAULT_LOG_FORMAT).trim().toLowerCase(Locale.ROOT),
+                parse(environment, "LOOPWRIGHT_SHUTDOWN_GRACE_MS", DEFAULT_SHUTDOWN_GRACE_MILLIS));
     }
 
-    private static int parse(Map<String, String> environment, String name, int fallback) {
-        return (int) parse(environment, name, (long) fallback);
+    public ServiceConfig withApiKeys(List<String> keys) {
+        return new ServiceConfig(port, maxRequestBytes, workerThreads, queueCapacity, computeDeadlineMillis,
+                maxBatchItems, keys, corsOrigins, logFormat, shutdownGraceMillis);
+    }
+
+    /** Every setting by its variable name, with API keys masked (only their count is shown). */
+    public Map<String, String> describe() {
+        Map<String, String> shown = new LinkedHashMap<>();
+        shown.put("LOOPWRIGHT_PORT", String.valueOf(port));
+        shown.put("LOOPWRIGHT_MAX_REQUEST_BYTES", String.valueOf(maxRequestBytes));
+        shown.put("LOOPWRIGHT_WORKER_THREADS", String.valueOf(workerThreads));
+        shown.put("LOOPWRIGHT_QUEUE_CAPACITY", String.valueOf(queueCapacity));
+        shown.put("LOOPWRIGHT_COMPUTE_DEADLINE_MS", String.valueOf(computeDeadlineMillis));
+        shown.put("LOOPWRIGHT_MAX_BATCH_ITEMS", String.valueOf(maxBatchItems));
+        shown.put("LOOPWRIGHT_API_KEYS", apiKeys.isEmpty() ? "(none: authentication off)"
+                : "****** (" + apiKeys.size() + " key" + (apiKeys.size() == 1 ? "" : "s") + ")");
+        shown.put("LOOPWRIGHT_CORS_ORIGINS", corsOrigins.isEmpty() ? "(none: CORS off)" : String.join(",", corsOrigins));
+        shown.put("LOOPWRIGHT_LOG_FORMAT", logFormat);
+        shown.put("LOOPWRIGHT_SHUTDOWN_GRACE_MS", String.valueOf(shutdownGraceMillis));
+        return shown;
+    }
+
+    /** Records print every component; keys must never reach a log through toString. */
+    @Override
+    public String toString() {
+        return "ServiceConfig" + describe();
+    }
+
+    private static List<String> readKeyFile(Path file) {
+        try {
+            List<String> keys = new ArrayList<>();
+            for (String line : Files.readAllLines(file, StandardCharsets.UTF_8)) {
+                String key = line.trim();
+                if (!key.isEmpty() && !key.startsWith("#")) {
+                    keys.add(key);
+                }
+                if (keys.size() > MAX_API_KEYS) {
+                    throw new IllegalArgumentException("at most " + MAX_API_KEYS + " API keys");
+                }
+            }
+            return keys;
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot read LOOPWRIGHT_API_KEYS_FILE " + file, e);
+        }
+    }
+
+    private static List<String> list(String value) {
+        if (value == null || value.isBlank()) {
+            return List.of();
+        }
+        List<String> items = new ArrayList<>();
+        for (String item : value.split(",")) {
+            if (!item.isBlank()) {
+                items.add(item.trim());
+            }
+        }
+        return items;
     }
 
     private static long parse(Map<String, String> environment, String name, long fallback) {

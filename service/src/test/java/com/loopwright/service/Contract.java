@@ -21,6 +21,7 @@ final class Contract {
     static final Path FILE = Path.of("..", "openapi.yaml");
 
     private final JsonNode document;
+    private final java.util.Map<String, JsonSchema> compiled = new java.util.concurrent.ConcurrentHashMap<>();
     private final JsonSchemaFactory schemas = JsonSchemaFactory.getInstance(SpecVersion.VersionFlag.V202012);
 
     private Contract(JsonNode document) {
@@ -53,15 +54,23 @@ final class Contract {
      * compiled with the whole document as its root so that internal $refs resolve.
      */
     JsonSchema responseSchema(String path, String method, int status, String mediaType) {
-        String pointer = "/paths/" + path.replace("~", "~0").replace("/", "~1") + "/" + method.toLowerCase()
-                + "/responses/" + status + "/content/" + mediaType.replace("/", "~1") + "/schema";
+        String response = "/paths/" + path.replace("~", "~0").replace("/", "~1") + "/" + method.toLowerCase()
+                + "/responses/" + status;
+        JsonNode reference = document.at(response + "/$ref");
+        if (reference.isTextual()) {
+            // A shared response under components/responses.
+            response = reference.asText().substring(1);
+        }
+        String pointer = response + "/content/" + mediaType.replace("/", "~1") + "/schema";
         if (document.at(pointer).isMissingNode()) {
             throw new AssertionError("openapi.yaml declares no " + mediaType + " body for " + method + " " + path
                     + " " + status);
         }
-        ObjectNode root = document.deepCopy();
-        root.put("$ref", "#" + pointer);
-        return schemas.getSchema(root);
+        return compiled.computeIfAbsent(pointer, p -> {
+            ObjectNode root = document.deepCopy();
+            root.put("$ref", "#" + p);
+            return schemas.getSchema(root);
+        });
     }
 
     /** Validation messages of a body against the declared response schema; empty when it conforms. */

@@ -282,6 +282,50 @@ class ContractDriftTest {
                 ".ci/run calls the README's test command: " + command.group(1));
     }
 
+    @Test
+    void batchLineSchemaMatchesTheBatchLineRecordAndTheCap() {
+        JsonNode line = contract.component("BatchLine");
+        Set<String> components = new TreeSet<>();
+        for (RecordComponent component : com.loopwright.service.routes.BatchLine.class.getRecordComponents()) {
+            components.add(component.getName());
+        }
+        Set<String> properties = new TreeSet<>();
+        line.get("properties").fieldNames().forEachRemaining(properties::add);
+        assertEquals(components, properties, "fields of BatchLine");
+        assertEquals(false, line.path("additionalProperties").asBoolean(true), "BatchLine is closed");
+        assertEquals("integer", line.at("/properties/index/type").asText());
+        assertEquals("integer", line.at("/properties/status/type").asText());
+        assertEquals("#/components/schemas/DesignResponse", line.at("/properties/design/$ref").asText());
+        assertEquals("#/components/schemas/Problem", line.at("/properties/problem/$ref").asText());
+        assertEquals("#/components/schemas/BatchLine", contract.document().at("/paths/~1v1~1designs~1batch/post"
+                + "/responses/200/content/application~1x-ndjson/schema/$ref").asText());
+        JsonNode items = contract.component("BatchRequest").at("/properties/items");
+        assertEquals(ServiceConfig.BATCH_ITEMS_CEILING, items.get("maxItems").asInt(), "batch cap");
+        assertEquals(ServiceConfig.BATCH_ITEMS_CEILING - 1, line.at("/properties/index/maximum").asInt());
+        assertEquals("#/components/schemas/DesignRequest", items.at("/items/$ref").asText());
+    }
+
+    @Test
+    void everyProblemTypeIsDocumented() {
+        Set<String> documented = new TreeSet<>();
+        contract.component("Problem").at("/properties/type/enum").forEach(type -> documented.add(type.asText()));
+        Set<String> emitted = new TreeSet<>();
+        for (com.loopwright.api.problem.ProblemType type : com.loopwright.api.problem.ProblemType.values()) {
+            emitted.add(type.uri());
+        }
+        assertEquals(emitted, documented);
+    }
+
+    @Test
+    void readmeDocumentsEveryConfigurationVariable() throws Exception {
+        String readme = Files.readString(Path.of("..", "README.md"));
+        for (String variable : ServiceConfig.defaults(0).describe().keySet()) {
+            assertTrue(readme.contains("| `" + variable + "` |"), "README's configuration table lacks " + variable);
+        }
+        assertTrue(readme.contains("| `LOOPWRIGHT_API_KEYS_FILE` |"));
+        assertTrue(readme.contains("| `LOOPWRIGHT_LOG_LEVEL` |"));
+    }
+
     /** Record components and schema properties must be the same names, recursively. */
     private void assertRecordMatchesSchema(Class<?> type, JsonNode schema, String where) {
         schema = resolve(schema);

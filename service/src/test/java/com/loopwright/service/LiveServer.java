@@ -35,7 +35,19 @@ final class LiveServer implements AutoCloseable {
     }
 
     static LiveServer start(ServiceConfig config) {
-        return new LiveServer(LoopwrightApp.create(config).start("127.0.0.1", 0));
+        return start(config, null);
+    }
+
+    static LiveServer start(ServiceConfig config, com.loopwright.service.compute.Designs designs) {
+        return new LiveServer(LoopwrightApp.create(config, designs).start("127.0.0.1", 0));
+    }
+
+    Javalin app() {
+        return app;
+    }
+
+    HttpClient http() {
+        return http;
     }
 
     Contract contract() {
@@ -47,7 +59,24 @@ final class LiveServer implements AutoCloseable {
     }
 
     /** A response and its body parsed as JSON (null when the body is not JSON). */
-    record Reply(int status, String contentType, String text, JsonNode json) {
+    record Reply(int status, String contentType, String text, JsonNode json, java.net.http.HttpHeaders headers) {
+
+        String header(String name) {
+            return headers.firstValue(name).orElse(null);
+        }
+
+        /** The lines of an NDJSON body, each parsed. */
+        java.util.List<JsonNode> lines() {
+            java.util.List<JsonNode> lines = new java.util.ArrayList<>();
+            for (String line : text.split("\n")) {
+                try {
+                    lines.add(JSON.readTree(line));
+                } catch (IOException e) {
+                    throw new AssertionError("line is not JSON: " + line, e);
+                }
+            }
+            return lines;
+        }
     }
 
     Reply post(String path, String body) {
@@ -87,7 +116,9 @@ final class LiveServer implements AutoCloseable {
         String contentType = response.headers().firstValue("Content-Type").orElse("");
         String mediaType = contentType.split(";")[0].trim();
         JsonNode json = null;
-        if (mediaType.endsWith("json")) {
+        if (mediaType.equals("application/x-ndjson")) {
+            checkLines(path, method, response.statusCode(), mediaType, response.body());
+        } else if (mediaType.endsWith("json")) {
             try {
                 json = JSON.readTree(response.body());
             } catch (IOException e) {
@@ -95,7 +126,26 @@ final class LiveServer implements AutoCloseable {
             }
             checkAgainstContract(path, method, response.statusCode(), mediaType, json);
         }
-        return new Reply(response.statusCode(), mediaType, response.body(), json);
+        return new Reply(response.statusCode(), mediaType, response.body(), json, response.headers());
+    }
+
+    /** NDJSON: every line is one JSON object, and each validates against the schema declared for the body. */
+    private void checkLines(String path, String method, int status, String mediaType, String body) {
+        assertTrue(body.isEmpty() || body.endsWith("\n"), "NDJSON ends with a line feed");
+        for (String line : body.split("\n")) {
+            if (line.isEmpty()) {
+                continue;
+            }
+            JsonNode json;
+            try {
+                json = JSON.readTree(line);
+            } catch (IOException e) {
+                throw new AssertionError("NDJSON line is not JSON: " + line, e);
+            }
+            String violations = contract.violations(path, method, status, mediaType, json);
+            assertTrue(violations.isEmpty(), "line of " + method + " " + path + " does not conform: " + violations
+                    + " in " + line);
+        }
     }
 
     private void checkAgainstContract(String path, String method, int status, String mediaType, JsonNode json) {

@@ -19,7 +19,12 @@ public enum ProblemType {
     INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs."),
     PLANT_MODEL_UNUSABLE(422, "Plant model not usable",
             "The plant description is not physical, not controllable, or outside the canonical form."),
-    FIT_FAILED(422, "Model fit failed", "The samples do not determine a second-order model.");
+    FIT_FAILED(422, "Model fit failed", "The samples do not determine a second-order model."),
+    UNAUTHORIZED(401, "Unauthorized", "Send an API key as Authorization: Bearer <key> or X-Api-Key."),
+    FORBIDDEN(403, "Forbidden", "The credentials do not grant this request."),
+    SERVICE_OVERLOADED(503, "Service overloaded", "Every design worker is busy; retry after the Retry-After delay."),
+    DEADLINE_EXCEEDED(504, "Compute deadline exceeded", "The design did not finish within the compute deadline."),
+    NOT_READY(503, "Not ready", "The service is shutting down or not yet able to take designs.");
 
     private final int status;
     private final String title;

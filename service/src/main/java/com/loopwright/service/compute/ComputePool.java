@@ -1,0 +1,141 @@
+package com.loopwright.service.compute;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.api.problem.ProblemType;
+import java.util.Map;
+import java.util.concurrent.ArrayBlockingQueue;
+import java.util.concurrent.BlockingQueue;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.Future;
+import java.util.concurrent.RejectedExecutionException;
+import java.util.concurrent.SynchronousQueue;
+import java.util.concurrent.ThreadFactory;
+import java.util.concurrent.ThreadPoolExecutor;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.TimeoutException;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.Supplier;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import org.slf4j.MDC;
+
+/**
+ * The bounded pool every design computation runs on: a fixed number of worker threads and a bounded queue.
+ * A computation that cannot be queued is refused at once (503, back-pressure); one that does not finish within
+ * the compute deadline is answered with 504 while the worker completes it in the background (the solver's
+ * loops are all capped, so a worker is never lost).
+ */
+public final class ComputePool implements AutoCloseable {
+
+    /** Retry-After seconds suggested to a refused client. */
+    public static final int RETRY_AFTER_SECONDS = 1;
+    private static final Logger LOG = LoggerFactory.getLogger(ComputePool.class);
+
+    private final ThreadPoolExecutor executor;
+    private final long deadlineMillis;
+    private final ObjectMapper mapper;
+
+    public ComputePool(int workerThreads, int queueCapacity, long deadlineMillis, ObjectMapper mapper) {
+        BlockingQueue<Runnable> queue = queueCapacity == 0 ? new SynchronousQueue<>()
+                : new ArrayBlockingQueue<>(queueCapacity);
+        AtomicInteger count = new AtomicInteger();
+        ThreadFactory threads = task -> {
+            Thread thread = new Thread(task, "loopwright-design-" + count.incrementAndGet());
+            thread.setDaemon(true);
+            return thread;
+        };
+        this.executor = new ThreadPoolExecutor(workerThreads, workerThreads, 0, TimeUnit.MILLISECONDS, queue,
+                threads, new ThreadPoolExecutor.AbortPolicy());
+        this.deadlineMillis = deadlineMillis;
+        this.mapper = mapper;
+    }
+
+    /**
+     * Runs one computation on the pool and waits for it up to the deadline. Never throws: refusal, deadline
+     * and unexpected failures are outcomes with a problem.
+     */
+    public Outcome run(Supplier<Outcome> computation) {
+        Future<Outcome> future;
+        try {
+            Map<String, String> context = MDC.getCopyOfContextMap();
+            future = executor.submit(() -> {
+                // The request id follows the computation onto the worker thread.
+                if (context != null) {
+                    MDC.setContextMap(context);
+                }
+                try {
+                    return computation.get();
+                } finally {
+                    MDC.clear();
+                }
+            });
+        } catch (RejectedExecutionException e) {
+            return failure(ProblemType.SERVICE_OVERLOADED.problem("all " + executor.getMaximumPoolSize()
+                    + " design workers are busy and " + queueCapacity() + " designs are queued; retry after "
+                    + RETRY_AFTER_SECONDS + " s"));
+        }
+        try {
+            return future.get(deadlineMillis, TimeUnit.MILLISECONDS);
+        } catch (TimeoutException e) {
+            future.cancel(true);
+            return failure(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the compute "
+                    + "deadline of " + deadlineMillis + " ms"));
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            future.cancel(true);
+            return failure(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
+        } catch (ExecutionException e) {
+            LOG.error("design computation failed", e.getCause());
+            return failure(ProblemType.INTERNAL_ERROR.problem(null));
+        }
+    }
+
+    /** True when a new computation would be refused right now (every worker busy and the queue full). */
+    public boolean saturated() {
+        return executor.getActiveCount() >= executor.getMaximumPoolSize() && executor.getQueue().remainingCapacity() == 0;
+    }
+
+    public int activeWorkers() {
+        return executor.getActiveCount();
+    }
+
+    public int queuedDesigns() {
+        return executor.getQueue().size();
+    }
+
+    public int workerThreads() {
+        return executor.getMaximumPoolSize();
+    }
+
+    public long deadlineMillis() {
+        return deadlineMillis;
+    }
+
+    private int queueCapacity() {
+        return executor.getQueue().size() + executor.getQueue().remainingCapacity();
+    }
+
+    private Outcome failure(Problem problem) {
+        return new Outcome(problem.status(), mapper.valueToTree(problem), problem);
+    }
+
+    /** Stops taking work and lets queued computations finish, waiting at most the given time. */
+    public void shutdown(long graceMillis) {
+        executor.shutdown();
+        try {
+            if (!executor.awaitTermination(graceMillis, TimeUnit.MILLISECONDS)) {
+                executor.shutdownNow();
+            }
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            executor.shutdownNow();
+        }
+    }
+
+    @Override
+    public void close() {
+        shutdown(0);
+    }
+}

@@ -1,0 +1,173 @@
+package com.loopwright.service.observe;
+
+import java.lang.management.ManagementFactory;
+import java.lang.management.MemoryMXBean;
+import java.lang.management.MemoryUsage;
+import java.lang.management.ThreadMXBean;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.atomic.AtomicLong;
+import java.util.concurrent.atomic.AtomicLongArray;
+import java.util.concurrent.atomic.DoubleAdder;
+import java.util.function.IntSupplier;
+
+/**
+ * Request and design metrics in the Prometheus text exposition format (version 0.0.4), written by hand: the
+ * format is a small open standard, and a few counters and histograms do not justify a dependency.
+ * Label values come from fixed sets (known routes, status codes, design outcomes), so cardinality is bounded.
+ */
+public final class Metrics {
+
+    public static final String CONTENT_TYPE = "text/plain; version=0.0.4; charset=utf-8";
+    /** Latency bucket upper bounds [s]: from a health check to a slow batch. */
+    static final double[] LATENCY_BUCKETS_SECONDS = {0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1, 0.25,
+        0.5, 1, 2.5, 5, 10, 30};
+    /** Outcomes of one design computation (a request or a batch item). */
+    public static final Set<String> DESIGN_OUTCOMES = Set.of("designed", "invalid", "infeasible", "unverifiable",
+            "overloaded", "deadline", "failed");
+    /** Guards the label space: at most this many (route, method, status) series. */
+    static final int MAX_SERIES = 512;
+
+    private final Map<String, Histogram> requests = new ConcurrentHashMap<>();
+    private final Map<String, AtomicLong> designs = new ConcurrentHashMap<>();
+    private final MemoryMXBean memory = ManagementFactory.getMemoryMXBean();
+    private final ThreadMXBean threads = ManagementFactory.getThreadMXBean();
+    private final IntSupplier activeWorkers;
+    private final IntSupplier queuedDesigns;
+    private final AtomicLong inFlight = new AtomicLong();
+
+    public Metrics(IntSupplier activeWorkers, IntSupplier queuedDesigns) {
+        this.activeWorkers = activeWorkers;
+        this.queuedDesigns = queuedDesigns;
+        DESIGN_OUTCOMES.forEach(outcome -> designs.put(outcome, new AtomicLong()));
+    }
+
+    public void requestStarted() {
+        inFlight.incrementAndGet();
+    }
+
+    public void requestFinished(String route, String method, int status, double seconds) {
+        inFlight.decrementAndGet();
+        String key = "route=\"" + route + "\",method=\"" + method.toUpperCase(Locale.ROOT) + "\",status=\"" + status + "\"";
+        Histogram histogram = requests.get(key);
+        if (histogram == null) {
+            if (requests.size() >= MAX_SERIES) {
+                key = "route=\"other\",method=\"other\",status=\"" + (status / 100) + "xx\"";
+            }
+            histogram = requests.computeIfAbsent(key, k -> new Histogram());
+        }
+        histogram.observe(seconds);
+    }
+
+    public long inFlight() {
+        return inFlight.get();
+    }
+
+    /** Counts one design by outcome (see {@link #DESIGN_OUTCOMES}). */
+    public void design(String outcome) {
+        AtomicLong counter = designs.get(outcome);
+        (counter == null ? designs.get("failed") : counter).incrementAndGet();
+    }
+
+    /** The outcome label of one design computation. */
+    public static String outcomeOf(com.loopwright.api.exchange.Outcome outcome) {
+        if (outcome.ok()) {
+            return "designed";
+        }
+        String type = outcome.problem().type();
+        if (type.equals(com.loopwright.api.problem.ProblemType.INFEASIBLE_SPEC.uri())) {
+            return "infeasible";
+        }
+        if (type.equals(com.loopwright.api.problem.ProblemType.UNVERIFIABLE_DESIGN.uri())) {
+            return "unverifiable";
+        }
+        if (type.equals(com.loopwright.api.problem.ProblemType.SERVICE_OVERLOADED.uri())) {
+            return "overloaded";
+        }
+        if (type.equals(com.loopwright.api.problem.ProblemType.DEADLINE_EXCEEDED.uri())) {
+            return "deadline";
+        }
+        return outcome.status() < 500 ? "invalid" : "failed";
+    }
+
+    /** The whole exposition. */
+    public String scrape() {
+        StringBuilder out = new StringBuilder(4096);
+        out.append("# HELP loopwright_http_requests_total HTTP requests by route, method and status.\n");
+        out.append("# TYPE loopwright_http_requests_total counter\n");
+        requests.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> out
+                .append("loopwright_http_requests_total{").append(e.getKey()).append("} ")
+                .append(e.getValue().count()).append('\n'));
+        out.append("# HELP loopwright_http_request_duration_seconds HTTP request latency by route, method and status.\n");
+        out.append("# TYPE loopwright_http_request_duration_seconds histogram\n");
+        requests.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> e.getValue()
+                .write(out, "loopwright_http_request_duration_seconds", e.getKey()));
+        out.append("# HELP loopwright_http_requests_in_flight Requests being served now.\n");
+        out.append("# TYPE loopwright_http_requests_in_flight gauge\n");
+        out.append("loopwright_http_requests_in_flight ").append(inFlight.get()).append('\n');
+        out.append("# HELP loopwright_designs_total Design computations (requests and batch items) by outcome.\n");
+        out.append("# TYPE loopwright_designs_total counter\n");
+        designs.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> out
+                .append("loopwright_designs_total{outcome=\"").append(e.getKey()).append("\"} ")
+                .append(e.getValue().get()).append('\n'));
+        gauge(out, "loopwright_design_workers_active", "Design workers computing now.", activeWorkers.getAsInt());
+        gauge(out, "loopwright_design_queue_length", "Designs waiting for a worker.", queuedDesigns.getAsInt());
+        MemoryUsage heap = memory.getHeapMemoryUsage();
+        MemoryUsage nonHeap = memory.getNonHeapMemoryUsage();
+        out.append("# HELP jvm_memory_used_bytes Used JVM memory by area.\n");
+        out.append("# TYPE jvm_memory_used_bytes gauge\n");
+        out.append("jvm_memory_used_bytes{area=\"heap\"} ").append(heap.getUsed()).append('\n');
+        out.append("jvm_memory_used_bytes{area=\"nonheap\"} ").append(nonHeap.getUsed()).append('\n');
+        out.append("# HELP jvm_memory_committed_bytes Committed JVM memory by area.\n");
+        out.append("# TYPE jvm_memory_committed_bytes gauge\n");
+        out.append("jvm_memory_committed_bytes{area=\"heap\"} ").append(heap.getCommitted()).append('\n');
+        out.append("jvm_memory_committed_bytes{area=\"nonheap\"} ").append(nonHeap.getCommitted()).append('\n');
+        gauge(out, "jvm_memory_max_bytes", "Largest heap the JVM may use (-1 when undefined).", heap.getMax());
+        gauge(out, "jvm_threads_live", "Live JVM threads.", threads.getThreadCount());
+        gauge(out, "jvm_threads_peak", "Peak live JVM threads.", threads.getPeakThreadCount());
+        return out.toString();
+    }
+
+    private static void gauge(StringBuilder out, String name, String help, long value) {
+        out.append("# HELP ").append(name).append(' ').append(help).append('\n');
+        out.append("# TYPE ").append(name).append(" gauge\n");
+        out.append(name).append(' ').append(value).append('\n');
+    }
+
+    /** Cumulative histogram: one counter per bucket, a total count and a sum. */
+    private static final class Histogram {
+        private final AtomicLongArray buckets = new AtomicLongArray(LATENCY_BUCKETS_SECONDS.length);
+        private final AtomicLong count = new AtomicLong();
+        private final DoubleAdder sum = new DoubleAdder();
+
+        void observe(double seconds) {
+            for (int i = 0; i < LATENCY_BUCKETS_SECONDS.length; i++) {
+                if (seconds <= LATENCY_BUCKETS_SECONDS[i]) {
+                    buckets.incrementAndGet(i);
+                    break;
+                }
+            }
+            sum.add(seconds);
+            count.incrementAndGet();
+        }
+
+        long count() {
+            return count.get();
+        }
+
+        void write(StringBuilder out, String name, String labels) {
+            long cumulative = 0;
+            for (int i = 0; i < LATENCY_BUCKETS_SECONDS.length; i++) {
+                cumulative += buckets.get(i);
+                out.append(name).append("_bucket{").append(labels).append(",le=\"")
+                        .append(LATENCY_BUCKETS_SECONDS[i]).append("\"} ").append(cumulative).append('\n');
+            }
+            long total = count.get();
+            out.append(name).append("_bucket{").append(labels).append(",le=\"+Inf\"} ").append(Math.max(total, cumulative)).append('\n');
+            out.append(name).append("_sum{").append(labels).append("} ").append(sum.sum()).append('\n');
+            out.append(name).append("_count{").append(labels).append("} ").append(Math.max(total, cumulative)).append('\n');
+        }
+    }
+}

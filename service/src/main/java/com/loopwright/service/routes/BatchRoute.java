@@ -1,0 +1,129 @@
+package com.loopwright.service.routes;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.json.DecodeFailures;
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.compute.ComputePool;
+import com.loopwright.service.compute.Designs;
+import com.loopwright.service.http.JsonBodies;
+import com.loopwright.service.http.ProblemResponses;
+import com.loopwright.service.observe.Metrics;
+import io.javalin.http.Context;
+import io.javalin.http.Handler;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.util.Iterator;
+import java.util.List;
+
+/**
+ * POST /v1/designs/batch: {"items": [DesignRequest, ...]} in, NDJSON out, one line per item in request order:
+ * {"index":i,"status":200,"design":{...}} or {"index":i,"status":4xx/5xx,"problem":{...}}. One bad item never
+ * fails the batch; only a malformed envelope is a 400 problem. Items are computed one after another on the
+ * bounded pool (each under the compute deadline) and every line is flushed as soon as it is ready.
+ */
+public final class BatchRoute implements Handler {
+
+    public static final String PATH = "/v1/designs/batch";
+    public static final String MEDIA_TYPE = "application/x-ndjson";
+    private static final byte NEWLINE = '\n';
+
+    private final ObjectMapper mapper;
+    private final ProblemResponses problems;
+    private final Designs designs;
+    private final ComputePool pool;
+    private final Metrics metrics;
+    private final int maxItems;
+
+    public BatchRoute(ObjectMapper mapper, ProblemResponses problems, Designs designs, ComputePool pool,
+                      Metrics metrics, int maxItems) {
+        this.mapper = mapper;
+        this.problems = problems;
+        this.designs = designs;
+        this.pool = pool;
+        this.metrics = metrics;
+        this.maxItems = maxItems;
+    }
+
+    @Override
+    public void handle(Context ctx) throws IOException {
+        if (!JsonBodies.isJson(ctx.contentType())) {
+            problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
+                    "send the batch with Content-Type: application/json"));
+            return;
+        }
+        JsonNode items;
+        try {
+            items = items(mapper.readTree(ctx.bodyAsBytes()));
+        } catch (JsonProcessingException e) {
+            problems.write(ctx, DecodeFailures.toProblem(e));
+            return;
+        } catch (EnvelopeException e) {
+            problems.write(ctx, e.problem);
+            return;
+        } catch (IOException e) {
+            problems.write(ctx, DecodeFailures.unreadable());
+            return;
+        }
+        if (pool.saturated()) {
+            // Refuse before the 200 is committed rather than streaming a batch of 503 lines.
+            ctx.header("Retry-After", String.valueOf(ComputePool.RETRY_AFTER_SECONDS));
+            problems.write(ctx, ProblemType.SERVICE_OVERLOADED.problem("every design worker is busy; retry after "
+                    + ComputePool.RETRY_AFTER_SECONDS + " s"));
+            return;
+        }
+        ctx.status(200).contentType(MEDIA_TYPE);
+        // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
+        OutputStream out = ctx.res().getOutputStream();
+        for (int index = 0; index < items.size(); index++) {
+            JsonNode item = items.get(index);
+            Outcome outcome = pool.run(() -> designs.design(item));
+            metrics.design(Metrics.outcomeOf(outcome));
+            BatchLine line = outcome.ok() ? new BatchLine(index, 200, outcome.body(), null)
+                    : new BatchLine(index, outcome.status(), null, outcome.problem().withInstance(PATH + "#/items/" + index));
+            out.write(mapper.writeValueAsBytes(line));
+            out.write(NEWLINE);
+            out.flush();
+        }
+    }
+
+    /** The items array of a well-formed envelope. */
+    private JsonNode items(JsonNode envelope) throws EnvelopeException {
+        if (envelope == null || !envelope.isObject()) {
+            throw new EnvelopeException("", "the body must be one JSON object {\"items\": [...]}");
+        }
+        for (Iterator<String> names = envelope.fieldNames(); names.hasNext(); ) {
+            String name = names.next();
+            if (!name.equals("items")) {
+                throw new EnvelopeException("/" + name.replace("~", "~0").replace("/", "~1"),
+                        "unknown field '" + (name.length() > 64 ? name.substring(0, 64) + "..." : name) + "'");
+            }
+        }
+        JsonNode items = envelope.get("items");
+        if (items == null) {
+            throw new EnvelopeException("/items", "required: an array of design requests");
+        }
+        if (!items.isArray()) {
+            throw new EnvelopeException("/items", "wrong type: expected a JSON array");
+        }
+        if (items.isEmpty() || items.size() > maxItems) {
+            throw new EnvelopeException("/items", "must hold from 1 to " + maxItems + " design requests, not "
+                    + items.size());
+        }
+        return items;
+    }
+
+    private static final class EnvelopeException extends Exception {
+        private final transient Problem problem;
+
+        EnvelopeException(String pointer, String detail) {
+            super(detail, null, false, false);
+            this.problem = ProblemType.INVALID_FIELD.problem(pointer.isEmpty() ? detail : "field " + pointer + ": "
+                    + detail, List.of(new FieldError(pointer, detail)), List.of());
+        }
+    }
+}

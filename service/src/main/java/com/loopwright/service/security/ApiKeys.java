@@ -1,0 +1,73 @@
+package com.loopwright.service.security;
+
+import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.http.ProblemException;
+import java.nio.charset.StandardCharsets;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Optional API-key authentication. Keys are held only as SHA-256 digests and compared in constant time
+ * (MessageDigest.isEqual over equal-length digests, every configured key checked), so neither timing nor a heap
+ * dump of this object gives a key away. No key is ever logged or echoed.
+ */
+public final class ApiKeys {
+
+    public static final String HEADER = "X-Api-Key";
+    private static final String BEARER = "Bearer ";
+    /** A presented credential longer than this is refused without hashing. */
+    static final int MAX_PRESENTED_LENGTH = 512;
+
+    private final List<byte[]> digests;
+
+    public ApiKeys(List<String> keys) {
+        List<byte[]> hashed = new ArrayList<>();
+        for (String key : keys) {
+            hashed.add(sha256(key));
+        }
+        this.digests = List.copyOf(hashed);
+    }
+
+    public boolean enabled() {
+        return !digests.isEmpty();
+    }
+
+    /** Throws a 401 problem without a credential, 403 with a wrong one; returns quietly when authorised. */
+    public void check(String authorization, String apiKeyHeader) {
+        if (!enabled()) {
+            return;
+        }
+        String presented = apiKeyHeader;
+        if (presented == null && authorization != null && authorization.regionMatches(true, 0, BEARER, 0, BEARER.length())) {
+            presented = authorization.substring(BEARER.length()).trim();
+        }
+        if (presented == null || presented.isEmpty()) {
+            throw new ProblemException(ProblemType.UNAUTHORIZED.problem(
+                    "this service requires an API key: send Authorization: Bearer <key> or " + HEADER + ": <key>"),
+                    Map.of("WWW-Authenticate", "Bearer realm=\"loopwright\""));
+        }
+        if (presented.length() > MAX_PRESENTED_LENGTH || !matches(presented)) {
+            throw new ProblemException(ProblemType.FORBIDDEN.problem("the API key is not accepted"));
+        }
+    }
+
+    private boolean matches(String presented) {
+        byte[] digest = sha256(presented);
+        boolean match = false;
+        for (byte[] known : digests) {
+            match |= MessageDigest.isEqual(known, digest);
+        }
+        return match;
+    }
+
+    private static byte[] sha256(String value) {
+        try {
+            return MessageDigest.getInstance("SHA-256").digest(value.getBytes(StandardCharsets.UTF_8));
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("every Java platform provides SHA-256", e);
+        }
+    }
+}

@@ -1,0 +1,213 @@
+package com.loopwright.service;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.json.StrictJson;
+import com.loopwright.examples.DesignClient;
+import com.loopwright.service.compute.Designs;
+import com.loopwright.service.compute.ExchangeDesigns;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicInteger;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The compute deadline, back-pressure of the bounded pool and the graceful stop, exercised with a computation
+ * that holds each design at a gate (the real one, released by the test) so that the timing is deterministic.
+ */
+class ComputeLimitsTest {
+
+    /** The real computation, but each call first waits at a gate the test opens. */
+    private static final class GatedDesigns implements Designs {
+        private final Designs real = new ExchangeDesigns(StrictJson.newMapper());
+        final CountDownLatch gate = new CountDownLatch(1);
+        final AtomicInteger entered = new AtomicInteger();
+
+        private void hold() {
+            entered.incrementAndGet();
+            try {
+                gate.await(30, TimeUnit.SECONDS);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+        }
+
+        @Override
+        public Outcome design(byte[] body) {
+            hold();
+            return real.design(body);
+        }
+
+        @Override
+        public Outcome design(JsonNode item) {
+            hold();
+            return real.design(item);
+        }
+    }
+
+    private static ServiceConfig config(String workers, String queue, String deadlineMillis) {
+        return ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0", "LOOPWRIGHT_WORKER_THREADS", workers,
+                "LOOPWRIGHT_QUEUE_CAPACITY", queue, "LOOPWRIGHT_COMPUTE_DEADLINE_MS", deadlineMillis,
+                "LOOPWRIGHT_SHUTDOWN_GRACE_MS", "20000"));
+    }
+
+    private static void awaitEntered(GatedDesigns designs, int count) throws InterruptedException {
+        for (int i = 0; i < 500 && designs.entered.get() < count; i++) {
+            Thread.sleep(10);
+        }
+        assertEquals(count, designs.entered.get(), "designs waiting at the gate");
+    }
+
+    @Test
+    void aDesignPastTheDeadlineIsA504Problem() {
+        GatedDesigns designs = new GatedDesigns();
+        try (LiveServer server = LiveServer.start(config("2", "4", "200"), designs)) {
+            long started = System.nanoTime();
+            var reply = server.post("/v1/designs", DesignClient.INDEXING_AXIS);
+            long millis = (System.nanoTime() - started) / 1_000_000;
+            assertEquals(504, reply.status(), reply.text());
+            assertEquals("urn:loopwright:problem:deadline-exceeded", reply.json().get("type").asText());
+            assertTrue(reply.json().get("detail").asText().contains("200 ms"), reply.text());
+            assertTrue(millis >= 200 && millis < 5000, "answered at the deadline, not at the gate: " + millis);
+            // In a batch the deadline is per item: the item's line carries the problem, the batch still succeeds.
+            var batch = server.post("/v1/designs/batch", "{\"items\":[" + DesignClient.INDEXING_AXIS + "]}");
+            assertEquals(200, batch.status());
+            assertEquals(504, batch.lines().get(0).get("status").asInt());
+            designs.gate.countDown();
+            assertEquals(200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status(), "recovered");
+            var metrics = PrometheusText.parse(server.get("/metrics").text());
+            assertEquals(2, metrics.sum("loopwright_designs_total", Map.of("outcome", "deadline")));
+        }
+    }
+
+    @Test
+    void aFullPoolRefusesWith503AndRetryAfterThenRecovers() throws Exception {
+        GatedDesigns designs = new GatedDesigns();
+        // One worker and one queue slot: the third concurrent design has nowhere to go.
+        try (LiveServer server = LiveServer.start(config("1", "1", "30000"), designs)) {
+            List<CompletableFuture<LiveServer.Reply>> held = new ArrayList<>();
+            held.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS)));
+            awaitEntered(designs, 1);
+            held.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS)));
+            for (int i = 0; i < 500 && server.get("/metrics").text().contains("loopwright_design_queue_length 0"); i++) {
+                Thread.sleep(10);
+            }
+            var refused = server.post("/v1/designs", DesignClient.INDEXING_AXIS);
+            assertEquals(503, refused.status(), refused.text());
+            assertEquals("urn:loopwright:problem:service-overloaded", refused.json().get("type").asText());
+            assertEquals("1", refused.header("Retry-After"));
+            var refusedBatch = server.post("/v1/designs/batch", "{\"items\":[" + DesignClient.INDEXING_AXIS + "]}");
+            assertEquals(503, refusedBatch.status(), "a batch is refused before its 200 is committed");
+            assertEquals("1", refusedBatch.header("Retry-After"));
+            assertEquals(200, server.get("/health/live").status(), "probes never wait for the pool");
+            designs.gate.countDown();
+            for (CompletableFuture<LiveServer.Reply> reply : held) {
+                assertEquals(200, reply.get(30, TimeUnit.SECONDS).status(), "held designs complete");
+            }
+            assertEquals(200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status(), "recovered");
+            var metrics = PrometheusText.parse(server.get("/metrics").text());
+            assertEquals(1, metrics.sum("loopwright_designs_total", Map.of("outcome", "overloaded")));
+        }
+    }
+
+    @Test
+    void aStopFinishesInFlightRequests() throws Exception {
+        GatedDesigns designs = new GatedDesigns();
+        LiveServer server = LiveServer.start(config("4", "8", "30000"), designs);
+        List<CompletableFuture<LiveServer.Reply>> inFlight = new ArrayList<>();
+        for (int i = 0; i < 3; i++) {
+            inFlight.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS)));
+        }
+        inFlight.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs/batch",
+                "{\"items\":[" + DesignClient.INDEXING_AXIS + "," + DesignClient.INDEXING_AXIS + "]}")));
+        awaitEntered(designs, 4);
+        CompletableFuture<Void> stopping = CompletableFuture.runAsync(server::close);
+        Thread.sleep(300);
+        assertTrue(!stopping.isDone(), "the stop waits for in-flight requests");
+        designs.gate.countDown();
+        stopping.get(30, TimeUnit.SECONDS);
+        for (int i = 0; i < 3; i++) {
+            var reply = inFlight.get(i).get(30, TimeUnit.SECONDS);
+            assertEquals(200, reply.status(), "in-flight design " + i + " completed: " + reply.text());
+        }
+        var batch = inFlight.get(3).get(30, TimeUnit.SECONDS);
+        assertEquals(200, batch.status());
+        assertEquals(2, batch.lines().size(), "the streaming batch finished every line");
+        assertEquals(200, batch.lines().get(1).get("status").asInt());
+    }
+
+    @Test
+    void readinessFailsOnceAStopHasBegun() throws Exception {
+        GatedDesigns designs = new GatedDesigns();
+        LiveServer server = LiveServer.start(config("2", "2", "30000"), designs);
+        java.net.URI ready = server.base().resolve("/health/ready");
+        assertEquals(200, server.get("/health/ready").status());
+        CompletableFuture<LiveServer.Reply> held = CompletableFuture.supplyAsync(
+                () -> server.post("/v1/designs", DesignClient.INDEXING_AXIS));
+        awaitEntered(designs, 1);
+        CompletableFuture<Void> stopping = CompletableFuture.runAsync(server::close);
+        Thread.sleep(300);
+        // A probe during the stop is refused (503 on a kept-alive connection, or no connection at all).
+        int status;
+        try {
+            status = server.http().send(java.net.http.HttpRequest.newBuilder(ready)
+                    .timeout(java.time.Duration.ofSeconds(5)).build(),
+                    java.net.http.HttpResponse.BodyHandlers.discarding()).statusCode();
+        } catch (java.io.IOException refused) {
+            status = -1;
+        }
+        assertTrue(status == 503 || status == -1, "readiness during a stop: " + status);
+        designs.gate.countDown();
+        stopping.get(30, TimeUnit.SECONDS);
+        assertEquals(200, held.get(30, TimeUnit.SECONDS).status(), "the in-flight design still completed");
+    }
+
+    @Test
+    void batchLinesAreStreamedAsEachItemFinishes() throws Exception {
+        // The first item is computed at once; the second waits at the gate until the first line has arrived.
+        CountDownLatch gate = new CountDownLatch(1);
+        Designs real = new ExchangeDesigns(StrictJson.newMapper());
+        AtomicInteger calls = new AtomicInteger();
+        Designs secondWaits = new Designs() {
+            @Override
+            public Outcome design(byte[] body) {
+                return real.design(body);
+            }
+
+            @Override
+            public Outcome design(JsonNode item) {
+                if (calls.incrementAndGet() == 2) {
+                    try {
+                        gate.await(30, TimeUnit.SECONDS);
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                    }
+                }
+                return real.design(item);
+            }
+        };
+        try (LiveServer server = LiveServer.start(config("2", "4", "30000"), secondWaits)) {
+            var request = java.net.http.HttpRequest.newBuilder(server.base().resolve("/v1/designs/batch"))
+                    .header("Content-Type", "application/json").POST(java.net.http.HttpRequest.BodyPublishers
+                            .ofString("{\"items\":[" + DesignClient.INDEXING_AXIS + "," + DesignClient.INDEXING_AXIS + "]}"))
+                    .build();
+            var response = server.http().send(request, java.net.http.HttpResponse.BodyHandlers.ofLines());
+            assertEquals(200, response.statusCode());
+            assertEquals("application/x-ndjson", response.headers().firstValue("Content-Type").orElse(""));
+            var lines = response.body().iterator();
+            String first = lines.next();
+            assertTrue(first.startsWith("{\"index\":0,\"status\":200"), first);
+            assertEquals(1, gate.getCount(), "the first line arrived while the second item was still waiting");
+            gate.countDown();
+            assertTrue(lines.next().startsWith("{\"index\":1,\"status\":200"));
+            assertTrue(!lines.hasNext());
+        }
+    }
+}

@@ -1,0 +1,86 @@
+package com.loopwright.service;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.HashMap;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+
+/**
+ * No cluster or container engine runs here, so the deployment files are checked as documents: the manifests
+ * parse as YAML with the kinds, probes, limits and ports the service needs, the Dockerfile runs as non-root
+ * with a health check, and the load script stays bounded and on loopback.
+ */
+class DeploymentFilesTest {
+
+    private static final Path ROOT = Path.of("..");
+
+    private static Map<String, JsonNode> manifests() throws Exception {
+        Map<String, JsonNode> byKind = new HashMap<>();
+        ObjectMapper yaml = new ObjectMapper(new YAMLFactory());
+        try (var files = Files.list(ROOT.resolve("deploy"))) {
+            for (Path file : files.filter(f -> f.toString().endsWith(".yaml")).toList()) {
+                JsonNode document = yaml.readTree(Files.readString(file));
+                assertTrue(document.hasNonNull("apiVersion") && document.hasNonNull("kind"), file.toString());
+                byKind.put(document.get("kind").asText(), document);
+            }
+        }
+        return byKind;
+    }
+
+    @Test
+    void kubernetesManifestsDescribeAProbedLimitedScalableService() throws Exception {
+        Map<String, JsonNode> kinds = manifests();
+        assertTrue(kinds.keySet().containsAll(java.util.Set.of("Deployment", "Service", "HorizontalPodAutoscaler")),
+                kinds.keySet().toString());
+        JsonNode container = kinds.get("Deployment").at("/spec/template/spec/containers/0");
+        assertEquals("/health/live", container.at("/livenessProbe/httpGet/path").asText());
+        assertEquals("/health/ready", container.at("/readinessProbe/httpGet/path").asText());
+        assertTrue(container.at("/resources/limits/cpu").isTextual() && container.at("/resources/limits/memory").isTextual());
+        assertTrue(container.at("/resources/requests/cpu").isTextual());
+        assertEquals(8080, container.at("/ports/0/containerPort").asInt());
+        assertTrue(container.at("/securityContext/readOnlyRootFilesystem").asBoolean());
+        assertTrue(kinds.get("Deployment").at("/spec/template/spec/securityContext/runAsNonRoot").asBoolean());
+        // The pod's grace period covers the pre-stop pause plus the service's own drain.
+        long graceMillis = 0;
+        for (JsonNode env : container.get("env")) {
+            if (env.get("name").asText().equals("LOOPWRIGHT_SHUTDOWN_GRACE_MS")) {
+                graceMillis = Long.parseLong(env.get("value").asText());
+            }
+            assertTrue(env.get("name").asText().startsWith("LOOPWRIGHT_"), env.toString());
+        }
+        long podGraceSeconds = kinds.get("Deployment").at("/spec/template/spec/terminationGracePeriodSeconds").asLong();
+        long preStopSeconds = container.at("/lifecycle/preStop/sleep/seconds").asLong();
+        assertTrue(graceMillis > 0 && podGraceSeconds * 1000 > graceMillis + preStopSeconds * 1000,
+                "pod grace " + podGraceSeconds + " s covers the drain");
+        assertEquals("Deployment", kinds.get("HorizontalPodAutoscaler").at("/spec/scaleTargetRef/kind").asText());
+        assertTrue(kinds.get("HorizontalPodAutoscaler").at("/spec/maxReplicas").asInt()
+                > kinds.get("HorizontalPodAutoscaler").at("/spec/minReplicas").asInt());
+        assertEquals(kinds.get("Deployment").at("/spec/selector/matchLabels"), kinds.get("Service").at("/spec/selector"));
+    }
+
+    @Test
+    void dockerfileRunsTheJarAsNonRootWithAHealthCheck() throws Exception {
+        String dockerfile = Files.readString(ROOT.resolve("Dockerfile"));
+        assertTrue(dockerfile.contains("USER 10001"), "non-root user");
+        assertTrue(dockerfile.contains("HEALTHCHECK") && dockerfile.contains(HealthProbe.class.getName()));
+        assertTrue(dockerfile.contains("loopwright.jar"));
+    }
+
+    @Test
+    void loadScriptIsBoundedAndLoopbackOnly() throws Exception {
+        Path script = ROOT.resolve("bench").resolve("load.sh");
+        assertTrue(Files.isExecutable(script), "bench/load.sh is executable");
+        String text = Files.readString(script);
+        assertTrue(text.contains("127.0.0.1") && !text.matches("(?s).*https?://(?!127\\.0\\.0\\.1)[a-z0-9].*"),
+                "targets loopback only");
+        assertTrue(text.contains("--duration") || text.contains(" -d "), "wrk runs for a bounded time");
+        assertTrue(text.contains("--latency"), "prints latency percentiles");
+    }
+}

@@ -1,0 +1,56 @@
+package com.loopwright.service;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+
+/** Configuration from the environment: documented defaults, validation with the variable named, masking. */
+class ServiceConfigTest {
+
+    @Test
+    void defaultsAreTheDocumentedOnes() {
+        ServiceConfig config = ServiceConfig.fromEnvironment(Map.of());
+        assertEquals(8080, config.port());
+        assertEquals(1 << 20, config.maxRequestBytes());
+        assertEquals(Runtime.getRuntime().availableProcessors(), config.workerThreads());
+        assertEquals(64, config.queueCapacity());
+        assertEquals(10_000, config.computeDeadlineMillis());
+        assertEquals(1000, config.maxBatchItems());
+        assertEquals(List.of(), config.apiKeys());
+        assertEquals(List.of(), config.corsOrigins());
+        assertEquals("json", config.logFormat());
+        assertEquals(20_000, config.shutdownGraceMillis());
+    }
+
+    @Test
+    void badValuesAreRefusedAtStartUp() {
+        for (Map<String, String> bad : List.of(Map.of("LOOPWRIGHT_PORT", "70000"),
+                Map.of("LOOPWRIGHT_WORKER_THREADS", "0"), Map.of("LOOPWRIGHT_QUEUE_CAPACITY", "-1"),
+                Map.of("LOOPWRIGHT_COMPUTE_DEADLINE_MS", "0"), Map.of("LOOPWRIGHT_MAX_BATCH_ITEMS", "1001"),
+                Map.of("LOOPWRIGHT_API_KEYS", "short"), Map.of("LOOPWRIGHT_CORS_ORIGINS", "*"),
+                Map.of("LOOPWRIGHT_LOG_FORMAT", "xml"), Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES", "ten"),
+                Map.of("LOOPWRIGHT_API_KEYS_FILE", "/nonexistent/keys"))) {
+            assertThrows(RuntimeException.class, () -> ServiceConfig.fromEnvironment(bad), bad.toString());
+        }
+    }
+
+    @Test
+    void keysAreNeverShownAndTheErrorNamesOnlyThePosition() {
+        String secret = "pick-and-place-secret-7";
+        ServiceConfig config = ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_API_KEYS", secret + ", tank-level-secret-88",
+                "LOOPWRIGHT_CORS_ORIGINS", "https://scada.plant.example:8443"));
+        assertEquals(2, config.apiKeys().size());
+        assertFalse(config.toString().contains(secret));
+        assertTrue(config.describe().get("LOOPWRIGHT_API_KEYS").contains("2 keys"));
+        assertEquals("https://scada.plant.example:8443", config.describe().get("LOOPWRIGHT_CORS_ORIGINS"));
+        var failure = assertThrows(IllegalArgumentException.class,
+                () -> ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_API_KEYS", secret + ",weak key")));
+        assertFalse(failure.getMessage().contains("weak"), failure.getMessage());
+        assertTrue(failure.getMessage().contains("#2"), failure.getMessage());
+    }
+}
