@@ -4,9 +4,13 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.http.ProblemResponses;
+import com.loopwright.api.exchange.TakeawayExchange;
 import com.loopwright.service.routes.ContractRoute;
+import com.loopwright.service.routes.ControllerRoute;
+import com.loopwright.service.routes.DashboardRoute;
 import com.loopwright.service.routes.DesignRoute;
 import com.loopwright.service.routes.HealthRoute;
+import com.loopwright.service.routes.PlotRoute;
 import io.javalin.Javalin;
 import io.javalin.http.HttpResponseException;
 import org.slf4j.Logger;
@@ -26,6 +30,10 @@ public final class LoopwrightApp {
         DesignRoute designs = new DesignRoute(mapper, problems);
         ContractRoute contract = new ContractRoute();
         HealthRoute health = new HealthRoute();
+        TakeawayExchange takeaways = new TakeawayExchange(mapper);
+        PlotRoute plots = new PlotRoute(takeaways, problems);
+        ControllerRoute controllers = new ControllerRoute(takeaways, problems);
+        DashboardRoute dashboard = new DashboardRoute();
         return Javalin.create(javalin -> {
             javalin.http.maxRequestSize = config.maxRequestBytes();
             javalin.http.prefer405over404 = true;
@@ -33,6 +41,9 @@ public final class LoopwrightApp {
             javalin.routes.post(DesignRoute.PATH, designs);
             javalin.routes.get(ContractRoute.PATH, contract);
             javalin.routes.get(HealthRoute.PATH, health);
+            javalin.routes.post(PlotRoute.PATH, plots);
+            javalin.routes.post(ControllerRoute.PATH, controllers);
+            javalin.routes.get(DashboardRoute.PATH, dashboard);
             javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,
                     statusProblem(e.getStatus())));
             javalin.routes.exception(Exception.class, (e, ctx) -> {

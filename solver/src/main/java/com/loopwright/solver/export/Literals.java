@@ -45,8 +45,9 @@ final class Literals {
         List<String> lines = new ArrayList<>();
         lines.addAll(commentLines(header.title()));
         lines.add("");
-        lines.add("u = clamp(kr*r - (k1*x1 + k2*x2), -limit, +limit), run once every " + real(law.samplePeriodSeconds())
-                + " s with the command held between samples (emulation of the continuous law: gains unchanged).");
+        lines.addAll(commentLines("u = clamp(kr*r - (k1*x1 + k2*x2), -limit, +limit), run once every "
+                + real(law.samplePeriodSeconds())
+                + " s with the command held between samples (emulation of the continuous law: gains unchanged)."));
         lines.add("Sampled loop: spectral radius " + real(law.sampledSpectralRadius()) + ", wn*T = "
                 + real(law.periodPerTimeConstant()));
         for (String spec : header.specLines()) {

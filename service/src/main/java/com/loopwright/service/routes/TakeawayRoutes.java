@@ -1,0 +1,30 @@
+package com.loopwright.service.routes;
+
+import com.loopwright.api.exchange.Takeaway;
+import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.http.JsonBodies;
+import com.loopwright.service.http.ProblemResponses;
+import io.javalin.http.Context;
+import java.nio.charset.StandardCharsets;
+import java.util.function.Supplier;
+
+/** The shared answer of the plot and controller routes: JSON body required, text or problem out. */
+final class TakeawayRoutes {
+
+    private TakeawayRoutes() {
+    }
+
+    static void answer(Context ctx, ProblemResponses problems, Supplier<Takeaway> work) {
+        if (!JsonBodies.isJson(ctx.contentType())) {
+            problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
+                    "send the request with Content-Type: application/json"));
+            return;
+        }
+        Takeaway takeaway = work.get();
+        if (!takeaway.ok()) {
+            problems.write(ctx, takeaway.problem());
+            return;
+        }
+        ctx.status(200).contentType(takeaway.mediaType()).result(takeaway.body().getBytes(StandardCharsets.UTF_8));
+    }
+}
