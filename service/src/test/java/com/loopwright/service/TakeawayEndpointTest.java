@@ -61,6 +61,27 @@ class TakeawayEndpointTest {
         assertEquals(600, points.trim().split(" ").length);
     }
 
+    /** A negative step on an unstable plant with a rise-time spec: the band is still drawn with a height. */
+    @Test
+    void negativeStepKeepsTheBandAndTheRiseSpec() throws Exception {
+        LiveServer.Reply reply = server.post("/v1/designs/plots/step-response", "{\"design\":{\"plant\":{\"a0\":-4,"
+                + "\"a1\":0,\"b\":2,\"d\":0},\"spec\":{\"riseTime\":0.5,\"overshootPercent\":1,\"stepSize\":-2}}}");
+        assertEquals(200, reply.status());
+        Document svg = parseSafely(reply.text());
+        NodeList rects = svg.getElementsByTagName("rect");
+        double bandHeight = 0;
+        for (int i = 0; i < rects.getLength(); i++) {
+            Element rect = (Element) rects.item(i);
+            if ("band".equals(rect.getAttribute("class")) && !"24".equals(rect.getAttribute("width"))) {
+                bandHeight = Double.parseDouble(rect.getAttribute("height"));
+            }
+        }
+        // 2% of |r| = 0.04 on an axis of about 2.5 units over 300 px: about 5 px.
+        assertTrue(bandHeight > 2, "band height " + bandHeight);
+        assertTrue(reply.text().contains("rise spec 0.5 s"));
+        assertCleanAndFinite(svg, reply.text());
+    }
+
     @Test
     void controlEffortShowsTheActuatorLimitAndBodeShowsTheMargins() throws Exception {
         LiveServer.Reply effort = server.post("/v1/designs/plots/control-effort",

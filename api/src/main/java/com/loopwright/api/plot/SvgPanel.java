@@ -101,9 +101,10 @@ final class SvgPanel {
         }
     }
 
-    void band(String cssClass, double yLow, double yHigh) {
-        double y1 = clampY(py(yHigh));
-        double y2 = clampY(py(yLow));
+    /** A horizontal band between two levels, in either order. */
+    void band(String cssClass, double levelA, double levelB) {
+        double y1 = clampY(py(Math.max(levelA, levelB)));
+        double y2 = clampY(py(Math.min(levelA, levelB)));
         svg.append(String.format(Locale.ROOT,
                 "<rect class=\"%s\" x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\"/>\n",
                 cssClass, left, y1, width, Math.max(0, y2 - y1)));
