@@ -15,7 +15,10 @@ import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.observe.Metrics;
 import com.loopwright.service.observe.RequestIds;
 import com.loopwright.service.routes.BatchRoute;
+import com.loopwright.api.exchange.TakeawayExchange;
 import com.loopwright.service.routes.ContractRoute;
+import com.loopwright.service.routes.ControllerRoute;
+import com.loopwright.service.routes.DashboardRoute;
 import com.loopwright.service.routes.DesignRoute;
 import com.loopwright.service.routes.JsonExchangeRoute;
 import com.loopwright.service.routes.HealthRoute;
@@ -24,6 +27,7 @@ import com.loopwright.service.routes.ReadinessRoute;
 import com.loopwright.service.security.ApiKeys;
 import com.loopwright.service.security.Cors;
 import com.loopwright.service.security.SecurityHeaders;
+import com.loopwright.service.routes.PlotRoute;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HandlerType;
@@ -75,6 +79,10 @@ public final class LoopwrightApp {
         JsonExchangeRoute verifications = new JsonExchangeRoute(mapper, problems, pool,
                 new VerificationExchange(mapper)::exchange);
         HealthRoute health = new HealthRoute();
+        TakeawayExchange takeaways = new TakeawayExchange(mapper);
+        PlotRoute plots = new PlotRoute(takeaways, problems, pool);
+        ControllerRoute controllers = new ControllerRoute(takeaways, problems, pool);
+        DashboardRoute dashboard = new DashboardRoute();
         return Javalin.create(javalin -> {
             javalin.http.maxRequestSize = config.maxRequestBytes();
             javalin.http.prefer405over404 = true;
@@ -111,7 +119,8 @@ public final class LoopwrightApp {
             if (cors.enabled()) {
                 javalin.routes.options(DesignRoute.PATH, cors::preflight);
                 javalin.routes.options(BatchRoute.PATH, cors::preflight);
-                for (String path : new String[] {FIT_PATH, HIGH_ORDER_PATH, VERIFICATION_PATH}) {
+                for (String path : new String[] {FIT_PATH, HIGH_ORDER_PATH, VERIFICATION_PATH, PlotRoute.PATH,
+                        ControllerRoute.PATH}) {
                     javalin.routes.options(path, cors::preflight);
                 }
             }
@@ -125,6 +134,9 @@ public final class LoopwrightApp {
                 e.headers().forEach(ctx::header);
                 problems.write(ctx, e.problem());
             });
+            javalin.routes.post(PlotRoute.PATH, plots);
+            javalin.routes.post(ControllerRoute.PATH, controllers);
+            javalin.routes.get(DashboardRoute.PATH, dashboard);
             javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,
                     statusProblem(e.getStatus())));
             javalin.routes.exception(Exception.class, (e, ctx) -> {

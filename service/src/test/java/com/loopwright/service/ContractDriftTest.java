@@ -1,6 +1,7 @@
 package com.loopwright.service;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -26,6 +27,12 @@ import com.loopwright.api.response.VerificationResponse;
 import com.loopwright.solver.robustness.FrequencyAnalyzer;
 import com.loopwright.solver.robustness.RobustnessVerifier;
 import com.loopwright.solver.robustness.UncertaintyAnalyzer;
+import com.loopwright.api.exchange.TakeawayExchange;
+import com.loopwright.api.plot.Figure;
+import com.loopwright.api.request.ControllerRequest;
+import com.loopwright.api.request.PlotRequest;
+import com.loopwright.api.request.TakeawayLimits;
+import com.loopwright.api.response.ControllerParameters;
 import io.swagger.v3.parser.OpenAPIV3Parser;
 import io.swagger.v3.parser.core.models.SwaggerParseResult;
 import java.lang.reflect.ParameterizedType;
@@ -253,7 +260,8 @@ class ContractDriftTest {
                 Map.Entry<String, JsonNode> path = paths.next();
                 for (Iterator<String> methods = path.getValue().fieldNames(); methods.hasNext(); ) {
                     String method = methods.next();
-                    var reply = method.equals("get") ? server.get(path.getKey()) : server.post(path.getKey(), "{}");
+                    String concrete = concretePath(path.getKey(), path.getValue().get(method));
+                    var reply = method.equals("get") ? server.get(concrete) : server.post(concrete, "{}");
                     assertNotEquals(404, reply.status(), method + " " + path.getKey());
                     assertNotEquals(405, reply.status(), method + " " + path.getKey());
                 }
@@ -324,6 +332,49 @@ class ContractDriftTest {
         }
         assertTrue(readme.contains("| `LOOPWRIGHT_API_KEYS_FILE` |"));
         assertTrue(readme.contains("| `LOOPWRIGHT_LOG_LEVEL` |"));
+    }
+
+    /** A templated path with each {parameter} replaced by the first value of its documented enum. */
+    private static String concretePath(String template, JsonNode operation) {
+        String concrete = template;
+        JsonNode parameters = operation.path("parameters");
+        for (JsonNode parameter : parameters) {
+            if ("path".equals(parameter.path("in").asText())) {
+                concrete = concrete.replace("{" + parameter.get("name").asText() + "}",
+                        parameter.at("/schema/enum/0").asText());
+            }
+        }
+        assertFalse(concrete.contains("{"), "every path parameter of " + template + " has an enum");
+        return concrete;
+    }
+
+    @Test
+    void takeawaySchemasMatchTheirRecordsAndLimits() {
+        assertRecordMatchesSchema(PlotRequest.class, contract.component("PlotRequest"), "PlotRequest");
+        assertRecordMatchesSchema(ControllerRequest.class, contract.component("ControllerRequest"), "ControllerRequest");
+        assertRecordMatchesSchema(ControllerParameters.class, contract.component("ControllerParameters"),
+                "ControllerParameters");
+        Map<String, Double> expected = Map.of(
+                "ControllerRequest/properties/samplePeriodSeconds/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS,
+                "ControllerRequest/properties/samplePeriodSeconds/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS,
+                "ControllerRequest/properties/commandLimit/maximum", TakeawayLimits.MAX_COMMAND_LIMIT,
+                "PlotRequest/properties/commandLimit/maximum", TakeawayLimits.MAX_COMMAND_LIMIT);
+        expected.forEach((pointer, value) -> {
+            JsonNode node = contract.document().at("/components/schemas/" + pointer);
+            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
+            assertEquals(value, node.asDouble(), 0, pointer);
+        });
+        assertEquals(TakeawayExchange.FORMATS.size(), contract.document()
+                .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum").size());
+        for (int i = 0; i < TakeawayExchange.FORMATS.size(); i++) {
+            assertEquals(TakeawayExchange.FORMATS.get(i), contract.document()
+                    .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum/" + i).asText());
+        }
+        JsonNode figures = contract.document().at("/paths/~1v1~1designs~1plots~1{figure}/post/parameters/0/schema/enum");
+        assertEquals(Figure.values().length, figures.size());
+        for (Figure figure : Figure.values()) {
+            assertEquals(figure.slug(), figures.get(figure.ordinal()).asText());
+        }
     }
 
     /** Record components and schema properties must be the same names, recursively. */

@@ -69,7 +69,14 @@ class FuzzTest {
                 int thread = t;
                 clients.submit(() -> {
                     for (int i = thread; i < REQUESTS; i += CLIENT_THREADS) {
-                        Shot shot = shot(new Random(SEED + i), getPaths, postPaths);
+                        Shot shot;
+                        try {
+                            shot = shot(new Random(SEED + i), getPaths, postPaths);
+                        } catch (RuntimeException e) {
+                            failures.add(i + " could not build a request: " + e);
+                            sent.incrementAndGet();
+                            continue;
+                        }
                         try {
                             int status = check(http, server.base(), shot, failures, designs, statuses5xx);
                             statuses.computeIfAbsent(status, k -> new AtomicInteger()).incrementAndGet();
@@ -101,6 +108,8 @@ class FuzzTest {
     }
 
     private Shot shot(Random random, List<String> getPaths, List<String> postPaths) {
+        List<String> otherPosts = postPaths.stream()
+                .filter(p -> !p.equals("/v1/designs") && !p.equals("/v1/designs/batch")).toList();
         int pick = random.nextInt(100);
         Map<String, String> headers = new java.util.HashMap<>();
         if (random.nextInt(4) == 0) {
@@ -109,9 +118,27 @@ class FuzzTest {
         if (random.nextInt(10) == 0) {
             headers.put("Origin", "https://" + randomText(random, SAFE, 12) + ".example");
         }
-        if (pick < 45) {
+        if (pick < 35) {
             JsonNode base = random.nextBoolean() ? example : fuzzer.valid("DesignRequest", random);
             return new Shot("POST", "/v1/designs", "application/json", fuzzer.mutate(base, random), headers);
+        }
+        if (pick < 55) {
+            // Every other POST endpoint: its contract example (or a schema-valid body), mutated. Examples keep
+            // the expensive options (Monte Carlo counts, horizons) at the sizes the contract shows.
+            String path = otherPosts.get(random.nextInt(otherPosts.size()));
+            JsonNode operation = contract.document().get("paths").get(path).get("post");
+            JsonNode examples = operation.at("/requestBody/content/application~1json/examples");
+            JsonNode base;
+            List<JsonNode> named = new ArrayList<>();
+            examples.elements().forEachRemaining(named::add);
+            if (!named.isEmpty() && random.nextInt(4) > 0) {
+                base = named.get(random.nextInt(named.size())).get("value");
+            } else {
+                String schema = operation.at("/requestBody/content/application~1json/schema/$ref").asText();
+                base = fuzzer.valid(schema.substring(schema.lastIndexOf('/') + 1), random);
+            }
+            return new Shot("POST", concrete(path, operation, random), "application/json",
+                    fuzzer.mutate(base, random), headers);
         }
         if (pick < 70) {
             JsonNode base = fuzzer.valid("BatchRequest", random);
@@ -119,6 +146,7 @@ class FuzzTest {
         }
         if (pick < 90) {
             String path = getPaths.get(random.nextInt(getPaths.size()));
+            path = concrete(path, contract.document().get("paths").get(path).path("get"), random);
             if (random.nextBoolean()) {
                 path += "?" + randomText(random, SAFE, random.nextInt(40)) + "=%" + "0123456789ABCDEF".charAt(random.nextInt(16))
                         + "0123456789ABCDEF".charAt(random.nextInt(16));
@@ -130,11 +158,26 @@ class FuzzTest {
         all.addAll(postPaths);
         all.add("/v1/" + randomText(random, SAFE, 8));
         String path = all.get(random.nextInt(all.size()));
+        JsonNode pathItem = contract.document().get("paths").path(path);
+        path = concrete(path, pathItem.has("post") ? pathItem.get("post") : pathItem.path("get"), random);
         String method = new String[] {"POST", "PUT", "DELETE", "PATCH", "GET"}[random.nextInt(5)];
         String type = new String[] {"text/plain", "application/xml", "application/json; charset=latin1",
             "application/jsonx", null}[random.nextInt(5)];
         byte[] body = method.equals("GET") ? null : SchemaFuzzer.bytes(example);
         return new Shot(method, path, type, body, headers);
+    }
+
+    /** A templated path with each {parameter} set to one of its documented values, or now and then to junk. */
+    private static String concrete(String template, JsonNode operation, Random random) {
+        String concrete = template;
+        for (JsonNode parameter : operation.path("parameters")) {
+            JsonNode values = parameter.at("/schema/enum");
+            String value = values.size() > 0 && random.nextInt(8) > 0
+                    ? values.get(random.nextInt(values.size())).asText()
+                    : randomText(random, SAFE, 1 + random.nextInt(12));
+            concrete = concrete.replace("{" + parameter.get("name").asText() + "}", value);
+        }
+        return concrete;
     }
 
     private static String randomText(Random random, String alphabet, int length) {

@@ -16,6 +16,7 @@ import java.util.concurrent.ThreadPoolExecutor;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.Function;
 import java.util.function.Supplier;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -57,7 +58,15 @@ public final class ComputePool implements AutoCloseable {
      * and unexpected failures are outcomes with a problem.
      */
     public Outcome run(Supplier<Outcome> computation) {
-        Future<Outcome> future;
+        return run(computation, this::failure);
+    }
+
+    /**
+     * The same for any result type: {@code onProblem} turns a refusal, a missed deadline or a failure into a
+     * result of that type.
+     */
+    public <T> T run(Supplier<T> computation, Function<Problem, T> onProblem) {
+        Future<T> future;
         try {
             Map<String, String> context = MDC.getCopyOfContextMap();
             future = executor.submit(() -> {
@@ -72,7 +81,7 @@ public final class ComputePool implements AutoCloseable {
                 }
             });
         } catch (RejectedExecutionException e) {
-            return failure(ProblemType.SERVICE_OVERLOADED.problem("all " + executor.getMaximumPoolSize()
+            return onProblem.apply(ProblemType.SERVICE_OVERLOADED.problem("all " + executor.getMaximumPoolSize()
                     + " design workers are busy and " + queueCapacity() + " designs are queued; retry after "
                     + RETRY_AFTER_SECONDS + " s"));
         }
@@ -80,15 +89,15 @@ public final class ComputePool implements AutoCloseable {
             return future.get(deadlineMillis, TimeUnit.MILLISECONDS);
         } catch (TimeoutException e) {
             future.cancel(true);
-            return failure(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the compute "
+            return onProblem.apply(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the compute "
                     + "deadline of " + deadlineMillis + " ms"));
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             future.cancel(true);
-            return failure(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
+            return onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
         } catch (ExecutionException e) {
             LOG.error("design computation failed", e.getCause());
-            return failure(ProblemType.INTERNAL_ERROR.problem(null));
+            return onProblem.apply(ProblemType.INTERNAL_ERROR.problem(null));
         }
     }
 

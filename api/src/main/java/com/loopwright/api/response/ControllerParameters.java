@@ -1,0 +1,28 @@
+package com.loopwright.api.response;
+
+import java.util.List;
+
+/**
+ * The sampled controller as a parameter set (POST /v1/designs/controllers/parameters).
+ *
+ * @param law                   the law in words, u = clamp(kr r - (k1 x1 + k2 x2), -limit, limit)
+ * @param discretization        how the continuous gains were carried to the sampled law ("emulation")
+ * @param samplePeriodSeconds   task period [s]
+ * @param positionGain          k1
+ * @param velocityGain          k2
+ * @param referenceGain         kr (setpoint feedforward)
+ * @param commandLimit          actuator limit
+ * @param sampledSpectralRadius largest |eigenvalue| of the unclamped sampled loop (stable below 1)
+ * @param periodPerTimeConstant wn T
+ * @param gamma                 H-infinity level of the continuous design
+ * @param cautions              safety cautions
+ */
+public record ControllerParameters(String law, String discretization, double samplePeriodSeconds,
+                                   double positionGain, double velocityGain, double referenceGain,
+                                   double commandLimit, double sampledSpectralRadius, double periodPerTimeConstant,
+                                   double gamma, List<String> cautions) {
+
+    public ControllerParameters {
+        cautions = List.copyOf(cautions);
+    }
+}

@@ -1,0 +1,228 @@
+package com.loopwright.service;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.io.ByteArrayInputStream;
+import java.nio.charset.StandardCharsets;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import javax.xml.XMLConstants;
+import javax.xml.parsers.DocumentBuilder;
+import javax.xml.parsers.DocumentBuilderFactory;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.w3c.dom.Document;
+import org.w3c.dom.Element;
+import org.w3c.dom.NamedNodeMap;
+import org.w3c.dom.NodeList;
+
+/** Plots, controller export and the dashboard on the live server. */
+class TakeawayEndpointTest {
+
+    private static final String DESIGN = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+            + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+    private static final Pattern NUMBER = Pattern.compile("-?[0-9]+(\\.[0-9]+)?([eE][-+]?[0-9]+)?");
+
+    private static LiveServer server;
+    private final Contract contract = Contract.load();
+
+    @BeforeAll
+    static void start() {
+        server = LiveServer.start();
+    }
+
+    @AfterAll
+    static void stop() {
+        server.close();
+    }
+
+    @Test
+    void stepFigureIsCleanSvgWithTheSpecEnvelope() throws Exception {
+        LiveServer.Reply reply = server.post("/v1/designs/plots/step-response", "{\"design\":" + DESIGN + "}");
+        assertEquals(200, reply.status());
+        assertEquals("image/svg+xml", reply.contentType());
+        Document svg = parseSafely(reply.text());
+        assertEquals("svg", svg.getDocumentElement().getTagName());
+        assertEquals("http://www.w3.org/2000/svg", svg.getDocumentElement().getAttribute("xmlns"));
+        assertEquals(1, svg.getElementsByTagName("polyline").getLength());
+        assertTrue(countClass(svg, "rect", "band") >= 1, "settling band drawn");
+        assertTrue(countClass(svg, "line", "spec") >= 2, "overshoot limit and settling spec lines");
+        assertTrue(reply.text().contains("overshoot limit 1.5%"));
+        assertTrue(reply.text().contains("settling spec 0.15 s"));
+        assertTrue(reply.text().contains("rise (10-90%)"));
+        assertTrue(reply.text().contains("time t [s]"));
+        assertCleanAndFinite(svg, reply.text());
+        // The polyline has the documented 600 samples.
+        String points = ((Element) svg.getElementsByTagName("polyline").item(0)).getAttribute("points");
+        assertEquals(600, points.trim().split(" ").length);
+    }
+
+    /** A negative step on an unstable plant with a rise-time spec: the band is still drawn with a height. */
+    @Test
+    void negativeStepKeepsTheBandAndTheRiseSpec() throws Exception {
+        LiveServer.Reply reply = server.post("/v1/designs/plots/step-response", "{\"design\":{\"plant\":{\"a0\":-4,"
+                + "\"a1\":0,\"b\":2,\"d\":0},\"spec\":{\"riseTime\":0.5,\"overshootPercent\":1,\"stepSize\":-2}}}");
+        assertEquals(200, reply.status());
+        Document svg = parseSafely(reply.text());
+        NodeList rects = svg.getElementsByTagName("rect");
+        double bandHeight = 0;
+        for (int i = 0; i < rects.getLength(); i++) {
+            Element rect = (Element) rects.item(i);
+            if ("band".equals(rect.getAttribute("class")) && !"24".equals(rect.getAttribute("width"))) {
+                bandHeight = Double.parseDouble(rect.getAttribute("height"));
+            }
+        }
+        // 2% of |r| = 0.04 on an axis of about 2.5 units over 300 px: about 5 px.
+        assertTrue(bandHeight > 2, "band height " + bandHeight);
+        assertTrue(reply.text().contains("rise spec 0.5 s"));
+        assertCleanAndFinite(svg, reply.text());
+    }
+
+    @Test
+    void controlEffortShowsTheActuatorLimitAndBodeShowsTheMargins() throws Exception {
+        LiveServer.Reply effort = server.post("/v1/designs/plots/control-effort",
+                "{\"design\":" + DESIGN + ",\"commandLimit\":3}");
+        assertEquals(200, effort.status());
+        Document effortSvg = parseSafely(effort.text());
+        assertEquals(3, countClass(effortSvg, "line", "limit")); // +limit, -limit and the legend swatch
+        assertTrue(effort.text().contains("actuator limit +3"));
+        assertTrue(effort.text().contains("command u [u units]"));
+        assertCleanAndFinite(effortSvg, effort.text());
+
+        LiveServer.Reply bode = server.post("/v1/designs/plots/bode", "{\"design\":" + DESIGN + "}");
+        assertEquals(200, bode.status());
+        Document bodeSvg = parseSafely(bode.text());
+        assertEquals(2, bodeSvg.getElementsByTagName("polyline").getLength());
+        assertTrue(bode.text().contains("phase margin"));
+        assertTrue(bode.text().contains("no finite gain margin"));
+        assertTrue(bode.text().contains("magnitude |L(jw)| [dB]"));
+        assertCleanAndFinite(bodeSvg, bode.text());
+    }
+
+    @Test
+    void parametersMatchTheDesignAndTheContract() {
+        JsonNode design = server.post("/v1/designs", DESIGN).json();
+        LiveServer.Reply reply = server.post("/v1/designs/controllers/parameters",
+                "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
+        assertEquals(200, reply.status());
+        String violations = contract.violations("/v1/designs/controllers/{format}", "post", 200,
+                "application/json", reply.json());
+        assertTrue(violations.isEmpty(), violations);
+        assertEquals(design.at("/gain/k1").asDouble(), reply.json().get("positionGain").asDouble(), 0);
+        assertEquals(design.at("/gain/k2").asDouble(), reply.json().get("velocityGain").asDouble(), 0);
+        assertEquals(design.at("/gain/referenceGain").asDouble(), reply.json().get("referenceGain").asDouble(), 0);
+        assertEquals(design.get("gamma").asDouble(), reply.json().get("gamma").asDouble(), 0);
+        assertTrue(reply.json().get("sampledSpectralRadius").asDouble() < 1);
+        assertEquals(4, reply.json().get("cautions").size());
+    }
+
+    @Test
+    void structuredTextAndCCarryGainsAndCautions() {
+        String body = "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}";
+        LiveServer.Reply st = server.post("/v1/designs/controllers/structured-text", body);
+        assertEquals(200, st.status());
+        assertEquals("text/plain", st.contentType());
+        assertTrue(st.text().contains("FUNCTION_BLOCK LW_StateFeedback"));
+        assertTrue(st.text().contains("END_FUNCTION_BLOCK"));
+        assertTrue(st.text().contains("CAUTIONS:"));
+        LiveServer.Reply c = server.post("/v1/designs/controllers/c", body);
+        assertEquals(200, c.status());
+        assertEquals("text/x-c", c.contentType());
+        assertTrue(c.text().contains("double lw_state_feedback_command("));
+        assertTrue(c.text().contains("#define LW_COMMAND_LIMIT (3.0)"));
+    }
+
+    @Test
+    void badRequestsAreProblemsWithPointersIntoTheWrapper() {
+        LiveServer.Reply unknown = server.post("/v1/designs/plots/nyquist", "{\"design\":" + DESIGN + "}");
+        assertEquals(404, unknown.status());
+        LiveServer.Reply missing = server.post("/v1/designs/controllers/c", "{\"design\":" + DESIGN + "}");
+        assertEquals(400, missing.status());
+        assertEquals("/samplePeriodSeconds", missing.json().at("/errors/0/pointer").asText());
+        assertEquals("/commandLimit", missing.json().at("/errors/1/pointer").asText());
+        LiveServer.Reply badSpec = server.post("/v1/designs/plots/bode",
+                "{\"design\":{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":120}}}");
+        assertEquals(400, badSpec.status());
+        assertEquals("/design/spec/overshootPercent", badSpec.json().at("/errors/0/pointer").asText());
+        LiveServer.Reply tooSlow = server.post("/v1/designs/controllers/structured-text",
+                "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.05,\"commandLimit\":3}");
+        assertEquals(422, tooSlow.status());
+        assertEquals("/samplePeriodSeconds", tooSlow.json().at("/errors/0/pointer").asText());
+        assertTrue(tooSlow.json().get("detail").asText().contains("too long"));
+        LiveServer.Reply infeasible = server.post("/v1/designs/plots/step-response",
+                "{\"design\":{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":30}}}");
+        assertEquals(422, infeasible.status());
+        assertTrue(infeasible.json().at("/errors/0/pointer").asText().startsWith("/design/spec/"));
+        LiveServer.Reply unknownField = server.post("/v1/designs/plots/bode",
+                "{\"design\":" + DESIGN + ",\"colour\":\"red\"}");
+        assertEquals(400, unknownField.status());
+        LiveServer.Reply negativeLimit = server.post("/v1/designs/plots/control-effort",
+                "{\"design\":" + DESIGN + ",\"commandLimit\":-1}");
+        assertEquals(400, negativeLimit.status());
+        LiveServer.Reply text = server.post("/v1/designs/plots/bode", "{\"design\":" + DESIGN + "}", "text/plain");
+        assertEquals(415, text.status());
+    }
+
+    @Test
+    void dashboardIsSelfContained() {
+        LiveServer.Reply page = server.get("/");
+        assertEquals(200, page.status());
+        assertEquals("text/html", page.contentType());
+        assertTrue(page.text().contains("<form id=\"design-form\""));
+        assertFalse(Pattern.compile("(src|href)=\"(https?:)?//").matcher(page.text()).find(), "no external resources");
+    }
+
+    private static Document parseSafely(String text) throws Exception {
+        DocumentBuilderFactory factory = DocumentBuilderFactory.newInstance();
+        factory.setFeature("http://apache.org/xml/features/disallow-doctype-decl", true);
+        factory.setFeature(XMLConstants.FEATURE_SECURE_PROCESSING, true);
+        factory.setNamespaceAware(false);
+        DocumentBuilder builder = factory.newDocumentBuilder();
+        return builder.parse(new ByteArrayInputStream(text.getBytes(StandardCharsets.UTF_8)));
+    }
+
+    private static int countClass(Document svg, String tag, String cssClass) {
+        NodeList nodes = svg.getElementsByTagName(tag);
+        int count = 0;
+        for (int i = 0; i < nodes.getLength(); i++) {
+            if (cssClass.equals(((Element) nodes.item(i)).getAttribute("class"))) {
+                count++;
+            }
+        }
+        return count;
+    }
+
+    /** No script, no external reference, every coordinate attribute a finite number. */
+    private static void assertCleanAndFinite(Document svg, String text) {
+        assertEquals(0, svg.getElementsByTagName("script").getLength());
+        assertFalse(text.contains("href"), "no links or external references");
+        assertFalse(text.contains("@import") || text.contains("url("), "no external style");
+        assertFalse(text.contains("NaN") || text.contains("Infinity"));
+        NodeList all = svg.getElementsByTagName("*");
+        int coordinates = 0;
+        for (int i = 0; i < all.getLength(); i++) {
+            NamedNodeMap attributes = all.item(i).getAttributes();
+            for (int a = 0; a < attributes.getLength(); a++) {
+                String name = attributes.item(a).getNodeName();
+                String value = attributes.item(a).getNodeValue();
+                if (name.matches("x|y|x1|x2|y1|y2|cx|cy|width|height")) {
+                    assertTrue(Double.isFinite(Double.parseDouble(value)), name + "=" + value);
+                    coordinates++;
+                } else if (name.equals("points")) {
+                    Matcher m = NUMBER.matcher(value);
+                    while (m.find()) {
+                        assertTrue(Double.isFinite(Double.parseDouble(m.group())));
+                        coordinates++;
+                    }
+                }
+            }
+        }
+        assertTrue(coordinates > 100, "coordinates checked: " + coordinates);
+    }
+}
