@@ -11,7 +11,8 @@ import java.util.function.Supplier;
  * in one thread, and each side is charged the thread's CPU time (not wall time), so time slices lost to other
  * processes are not counted and both sides see the same machine state. Prints the median over the rounds of
  * the per-operation CPU time of each side and their ratio. Complements the JMH runs; run with
- * {@code java -cp bench/target/loopwright-bench.jar com.loopwright.bench.PairedRatios}.
+ * {@code java -cp bench/target/loopwright-bench.jar com.loopwright.bench.PairedRatios}. Also prints the CPU time
+ * of one whole design (solver pipeline, and JSON exchange).
  */
 public final class PairedRatios {
 
@@ -64,7 +65,36 @@ public final class PairedRatios {
             System.out.printf("%-55s ours %10.1f us  reference %10.1f us  speedup %6.1fx%n", ratio.name(),
                     ratio.oursNanos() / 1e3, ratio.referenceNanos() / 1e3, ratio.speedup());
         }
+        // No reference for a whole design: its CPU time bounds the designs per second a core can serve.
+        DesignBenchmark design = new DesignBenchmark();
+        for (Pair single : List.of(new Pair("design: solver pipeline", design::solverPipeline, null),
+                new Pair("design: JSON bytes in, JSON bytes out", PairedRatios.unchecked(design), null))) {
+            double nanos = single(single.ours());
+            System.out.printf("%-55s %10.1f us CPU per design = %8.0f designs/s per core%n", single.name(),
+                    nanos / 1e3, 1e9 / nanos);
+        }
         System.out.printf("load after: %s%n", loadAverage());
+    }
+
+    private static Supplier<Object> unchecked(DesignBenchmark design) {
+        return () -> {
+            try {
+                return design.jsonExchange();
+            } catch (java.io.IOException e) {
+                throw new IllegalStateException(e);
+            }
+        };
+    }
+
+    static double single(Supplier<Object> operation) {
+        for (int round = 0; round < WARMUP_ROUNDS; round++) {
+            cpuNanosPerOperation(operation);
+        }
+        double[] nanos = new double[ROUNDS];
+        for (int round = 0; round < ROUNDS; round++) {
+            nanos[round] = cpuNanosPerOperation(operation);
+        }
+        return median(nanos);
     }
 
     static Ratio measure(Pair pair) {
