@@ -6,24 +6,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.loopwright.examples.DesignClient;
 import java.net.URI;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
 /** POST /v1/designs on the real server: designs that meet their specs, verified and schema-valid. */
-class DesignEndpointTest {
+class DesignEndpointTest extends LiveServerTest {
 
-    private static LiveServer server;
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     private static void assertSpecsMet(JsonNode design, double settlingTime, double overshootPercent) {
         JsonNode simulated = design.get("simulated");

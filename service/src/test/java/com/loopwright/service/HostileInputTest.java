@@ -4,28 +4,15 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.charset.StandardCharsets;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 /** Malformed and hostile bodies each get the right 4xx problem, never a 500, and name the field. */
-class HostileInputTest {
+class HostileInputTest extends LiveServerTest {
 
     private static final String SPEC = "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}";
     private static final String PLANT = "\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
-    private static LiveServer server;
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     private static void assertProblem(LiveServer.Reply reply, int status, String pointer) {
         assertEquals(status, reply.status(), reply.text());

@@ -4,24 +4,11 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
 /** Specs the plant cannot meet get a 422 naming the field, the reason and a computed spec that works. */
-class InfeasibleSpecTest {
+class InfeasibleSpecTest extends LiveServerTest {
 
-    private static LiveServer server;
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     private static JsonNode proposal(JsonNode problem, String pointer) {
         for (JsonNode p : problem.get("proposals")) {

@@ -57,6 +57,31 @@ final class SecondOrderLoops {
             gaussian(random, 1, n), random.nextGaussian());
     }
 
+    /** x' = A x + bRef r as a Hipparchus ODE, for the independent Dormand-Prince reference. */
+    static org.hipparchus.ode.OrdinaryDifferentialEquation referenceOde(LinearLoop loop, double r) {
+        int n = loop.stateDimension();
+        DMatrixRMaj a = loop.a();
+        DMatrixRMaj bRef = loop.bRef();
+        return new org.hipparchus.ode.OrdinaryDifferentialEquation() {
+            @Override
+            public int getDimension() {
+                return n;
+            }
+
+            @Override
+            public double[] computeDerivatives(double t, double[] x) {
+                double[] xDot = new double[n];
+                for (int i = 0; i < n; i++) {
+                    xDot[i] = bRef.get(i, 0) * r;
+                    for (int j = 0; j < n; j++) {
+                        xDot[i] += a.get(i, j) * x[j];
+                    }
+                }
+                return xDot;
+            }
+        };
+    }
+
     private static DMatrixRMaj gaussian(Random random, int rows, int cols) {
         DMatrixRMaj matrix = new DMatrixRMaj(rows, cols);
         for (int i = 0; i < matrix.getNumElements(); i++) {

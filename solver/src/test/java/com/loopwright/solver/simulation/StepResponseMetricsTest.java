@@ -313,24 +313,7 @@ class StepResponseMetricsTest {
         DMatrixRMaj bRef = loop.bRef();
         DMatrixRMaj cOut = loop.cOut();
         DMatrixRMaj cControl = loop.cControl();
-        OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
-            @Override
-            public int getDimension() {
-                return n;
-            }
-
-            @Override
-            public double[] computeDerivatives(double t, double[] x) {
-                double[] xDot = new double[n];
-                for (int i = 0; i < n; i++) {
-                    xDot[i] = bRef.get(i, 0) * r;
-                    for (int j = 0; j < n; j++) {
-                        xDot[i] += a.get(i, j) * x[j];
-                    }
-                }
-                return xDot;
-            }
-        };
+        OrdinaryDifferentialEquation ode = SecondOrderLoops.referenceOde(loop, r);
         DormandPrince853Integrator integrator =
             new DormandPrince853Integrator(1e-12, horizonSeconds, 1e-13, 1e-13);
         DenseOutputModel dense = new DenseOutputModel();

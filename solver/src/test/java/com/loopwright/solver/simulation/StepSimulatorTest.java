@@ -72,26 +72,7 @@ class StepSimulatorTest {
                                                int samples) {
         StepResponse response = simulator.simulate(loop, r, horizonSeconds, samples);
         int n = loop.stateDimension();
-        DMatrixRMaj a = loop.a();
-        DMatrixRMaj bRef = loop.bRef();
-        OrdinaryDifferentialEquation ode = new OrdinaryDifferentialEquation() {
-            @Override
-            public int getDimension() {
-                return n;
-            }
-
-            @Override
-            public double[] computeDerivatives(double t, double[] x) {
-                double[] xDot = new double[n];
-                for (int i = 0; i < n; i++) {
-                    xDot[i] = bRef.get(i, 0) * r;
-                    for (int j = 0; j < n; j++) {
-                        xDot[i] += a.get(i, j) * x[j];
-                    }
-                }
-                return xDot;
-            }
-        };
+        OrdinaryDifferentialEquation ode = SecondOrderLoops.referenceOde(loop, r);
         DormandPrince853Integrator integrator =
             new DormandPrince853Integrator(1e-12, horizonSeconds, 1e-12, 1e-12);
         double[] time = response.timeSeconds();
