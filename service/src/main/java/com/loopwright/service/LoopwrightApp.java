@@ -6,6 +6,8 @@ import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.routes.ContractRoute;
 import com.loopwright.service.routes.DesignRoute;
+import com.loopwright.service.routes.FitRoute;
+import com.loopwright.service.routes.HighOrderDesignRoute;
 import com.loopwright.service.routes.HealthRoute;
 import io.javalin.Javalin;
 import io.javalin.http.HttpResponseException;
@@ -24,6 +26,8 @@ public final class LoopwrightApp {
         ObjectMapper mapper = StrictJson.newMapper();
         ProblemResponses problems = new ProblemResponses(mapper);
         DesignRoute designs = new DesignRoute(mapper, problems);
+        FitRoute fits = new FitRoute(mapper, problems);
+        HighOrderDesignRoute highOrderDesigns = new HighOrderDesignRoute(mapper, problems);
         ContractRoute contract = new ContractRoute();
         HealthRoute health = new HealthRoute();
         return Javalin.create(javalin -> {
@@ -31,8 +35,10 @@ public final class LoopwrightApp {
             javalin.http.prefer405over404 = true;
             javalin.startup.showJavalinBanner = false;
             javalin.routes.post(DesignRoute.PATH, designs);
+            javalin.routes.post(HighOrderDesignRoute.PATH, highOrderDesigns);
             javalin.routes.get(ContractRoute.PATH, contract);
             javalin.routes.get(HealthRoute.PATH, health);
+            javalin.routes.post(FitRoute.PATH, fits);
             javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,
                     statusProblem(e.getStatus())));
             javalin.routes.exception(Exception.class, (e, ctx) -> {

@@ -7,7 +7,18 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.request.DesignRequest;
+import com.loopwright.api.problem.ProblemType;
+import com.loopwright.api.request.HighOrderDesignRequest;
+import com.loopwright.api.request.HighOrderLimits;
+import com.loopwright.api.response.HighOrderDesignResponse;
+import com.loopwright.solver.highorder.PoleMatchedRiccati;
+import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.api.request.FieldLimits;
+import com.loopwright.api.request.FitLimits;
+import com.loopwright.api.request.FitRequest;
+import com.loopwright.api.request.PlantFormName;
+import com.loopwright.api.response.FitResponse;
+import com.loopwright.solver.fit.FitWarning;
 import com.loopwright.api.response.DesignResponse;
 import io.swagger.v3.parser.OpenAPIV3Parser;
 import io.swagger.v3.parser.core.models.SwaggerParseResult;
@@ -39,6 +50,92 @@ class ContractDriftTest {
     @Test
     void requestSchemasMatchTheRequestRecords() {
         assertRecordMatchesSchema(DesignRequest.class, contract.component("DesignRequest"), "DesignRequest");
+        assertRecordMatchesSchema(FitRequest.class, contract.component("FitRequest"), "FitRequest");
+    }
+
+    @Test
+    void fitResponseSchemaMatchesTheFitResponseRecords() {
+        assertRecordMatchesSchema(FitResponse.class, contract.component("FitResponse"), "FitResponse");
+    }
+
+    @Test
+    void plantFormsAndProblemTypesMatchTheContract() {
+        Set<String> documented = new TreeSet<>();
+        contract.component("PlantModel").at("/properties/form/enum").forEach(n -> documented.add(n.asText()));
+        assertEquals(new TreeSet<>(PlantFormName.wireNames()), documented, "PlantModel.form enum");
+        Set<String> branches = new TreeSet<>();
+        contract.component("PlantDescription").get("oneOf").forEach(branch -> resolve(branch)
+                .at("/properties/form/enum").forEach(n -> branches.add(n.asText())));
+        assertEquals(documented, branches, "one PlantDescription branch per form");
+        for (PlantFormName form : PlantFormName.values()) {
+            for (JsonNode branch : contract.component("PlantDescription").get("oneOf")) {
+                JsonNode resolved = resolve(branch);
+                if (resolved.at("/properties/form/enum/0").asText().equals(form.wireName())) {
+                    Set<String> fields = new TreeSet<>();
+                    resolved.get("properties").fieldNames().forEachRemaining(fields::add);
+                    fields.remove("form");
+                    assertEquals(new TreeSet<>(form.fields()), fields, "fields of " + form.wireName());
+                }
+            }
+        }
+        Set<String> types = new TreeSet<>();
+        contract.component("Problem").at("/properties/type/enum").forEach(n -> types.add(n.asText()));
+        Set<String> emitted = new TreeSet<>();
+        for (ProblemType type : ProblemType.values()) {
+            emitted.add(type.uri());
+        }
+        assertEquals(emitted, types, "Problem.type enum");
+        Set<String> warnings = new TreeSet<>();
+        contract.component("FitResponse").at("/properties/warnings/items/properties/code/enum")
+                .forEach(n -> warnings.add(n.asText()));
+        assertEquals(FitWarning.Code.values().length, warnings.size(), "FitResponse warning codes");
+    }
+
+    @Test
+    void highOrderSchemasMatchTheHighOrderRecords() {
+        assertRecordMatchesSchema(HighOrderDesignRequest.class, contract.component("HighOrderDesignRequest"),
+                "HighOrderDesignRequest");
+        assertRecordMatchesSchema(HighOrderDesignResponse.class, contract.component("HighOrderDesignResponse"),
+                "HighOrderDesignResponse");
+    }
+
+    @Test
+    void highOrderRangesMatchTheValidator() {
+        String request = "HighOrderDesignRequest/properties/";
+        Map<String, Double> expected = Map.ofEntries(
+                Map.entry(request + "plant/properties/denominator/maxItems", (double) HighOrderLimits.MAX_ORDER),
+                Map.entry(request + "plant/properties/denominator/minItems", (double) HighOrderLimits.MIN_ORDER),
+                Map.entry(request + "plant/properties/denominator/items/maximum", HighOrderLimits.MAX_ABS_COEFFICIENT),
+                Map.entry(request + "plant/properties/numerator/items/maximum", HighOrderLimits.MAX_ABS_COEFFICIENT),
+                Map.entry(request + "plant/properties/disturbance/items/maximum", HighOrderLimits.MAX_ABS_DISTURBANCE),
+                Map.entry(request + "plant/properties/b/maximum", FieldLimits.MAX_ABS_B),
+                Map.entry(request + "spec/properties/maxUndershootPercent/minimum",
+                        HighOrderLimits.MIN_UNDERSHOOT_PERCENT),
+                Map.entry(request + "spec/properties/maxUndershootPercent/maximum",
+                        HighOrderLimits.MAX_UNDERSHOOT_PERCENT),
+                Map.entry(request + "spec/properties/maxUndershootPercent/default",
+                        HighOrderLimits.DEFAULT_MAX_UNDERSHOOT_PERCENT),
+                Map.entry(request + "spec/properties/settlingTime/minimum", FieldLimits.MIN_TIME_SECONDS),
+                Map.entry(request + "spec/properties/settlingTime/maximum", FieldLimits.MAX_TIME_SECONDS),
+                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/minimum",
+                        HighOrderLimits.MIN_REAL_PART_MULTIPLE),
+                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/maximum",
+                        HighOrderLimits.MAX_REAL_PART_MULTIPLE),
+                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/default",
+                        HighOrderLimits.DEFAULT_REAL_PART_MULTIPLE),
+                Map.entry(request + "auxiliaryPoles/properties/poles/maxItems",
+                        (double) (HighOrderLimits.MAX_ORDER - 2)),
+                Map.entry(request + "auxiliaryPoles/properties/poles/items/properties/re/minimum",
+                        -HighOrderLimits.MAX_POLE_MAGNITUDE),
+                Map.entry("HighOrderDesignResponse/properties/specMatching/properties/iterations/maximum",
+                        (double) SpecMatcher.MAX_ITERATIONS),
+                Map.entry("HighOrderDesignResponse/properties/riccati/properties/newtonSteps/maximum",
+                        (double) PoleMatchedRiccati.MAX_NEWTON_STEPS));
+        expected.forEach((pointer, value) -> {
+            JsonNode node = contract.document().at("/components/schemas/" + pointer);
+            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
+            assertEquals(value, node.asDouble(), 0, pointer);
+        });
     }
 
     @Test
@@ -68,7 +165,20 @@ class ContractDriftTest {
                 Map.entry("SpecInput/properties/gammaMargin/maximum", FieldLimits.MAX_GAMMA_MARGIN),
                 Map.entry("SpecInput/properties/gammaMargin/default", FieldLimits.DEFAULT_GAMMA_MARGIN),
                 Map.entry("SpecInput/properties/stepSize/maximum", FieldLimits.MAX_ABS_STEP),
-                Map.entry("SpecInput/properties/stepSize/default", FieldLimits.DEFAULT_STEP));
+                Map.entry("SpecInput/properties/stepSize/default", FieldLimits.DEFAULT_STEP),
+                Map.entry("RotaryAxisPlant/properties/inertia/maximum", FieldLimits.MAX_ABS_PHYSICAL),
+                Map.entry("MassSpringDamperPlant/properties/mass/maximum", FieldLimits.MAX_ABS_PHYSICAL),
+                Map.entry("TransferFunctionPlant/properties/gain/maximum", FieldLimits.MAX_ABS_PHYSICAL),
+                Map.entry("TransferFunctionPlant/properties/numerator/maxItems",
+                        (double) FieldLimits.MAX_NUMERATOR_COEFFICIENTS),
+                Map.entry("StateSpacePlant/properties/b2/items/maximum", FieldLimits.MAX_ABS_PHYSICAL),
+                Map.entry("FitRequest/properties/samples/properties/time/maxItems", (double) FitLimits.MAX_SAMPLES),
+                Map.entry("FitRequest/properties/samples/properties/time/minItems", (double) FitLimits.MIN_SAMPLES),
+                Map.entry("FitRequest/properties/samples/properties/output/maxItems", (double) FitLimits.MAX_SAMPLES),
+                Map.entry("FitRequest/properties/samples/properties/input/maxItems", (double) FitLimits.MAX_SAMPLES),
+                Map.entry("FitRequest/properties/samples/properties/time/items/maximum",
+                        FitLimits.MAX_ABS_TIME_SECONDS),
+                Map.entry("FitRequest/properties/samples/properties/output/items/maximum", FitLimits.MAX_ABS_SIGNAL));
         expected.forEach((pointer, value) -> {
             JsonNode node = contract.document().at("/components/schemas/" + pointer);
             assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
@@ -116,6 +226,10 @@ class ContractDriftTest {
     /** Record components and schema properties must be the same names, recursively. */
     private void assertRecordMatchesSchema(Class<?> type, JsonNode schema, String where) {
         schema = resolve(schema);
+        if (schema.has("oneOf")) {
+            assertUnionMatchesRecord(type, schema, where);
+            return;
+        }
         Set<String> components = new TreeSet<>();
         for (RecordComponent component : type.getRecordComponents()) {
             components.add(component.getName());
@@ -141,6 +255,37 @@ class ContractDriftTest {
                 assertEquals(jsonType(componentType), property.get("type").asText(), path);
             }
         }
+    }
+
+    /**
+     * A tagged union decoded into one flat record: the union of the closed branches' properties must be the
+     * record's components, and each component has the JSON type of every branch that declares it.
+     */
+    private void assertUnionMatchesRecord(Class<?> type, JsonNode schema, String where) {
+        Set<String> properties = new TreeSet<>();
+        for (JsonNode branch : schema.get("oneOf")) {
+            JsonNode resolved = resolve(branch);
+            assertEquals(false, resolved.path("additionalProperties").asBoolean(true), where + " branch is closed");
+            resolved.get("properties").fieldNames().forEachRemaining(properties::add);
+        }
+        Set<String> components = new TreeSet<>();
+        for (RecordComponent component : type.getRecordComponents()) {
+            components.add(component.getName());
+            for (JsonNode branch : schema.get("oneOf")) {
+                JsonNode property = resolve(branch).at("/properties/" + component.getName());
+                if (property.isMissingNode()) {
+                    continue;
+                }
+                String path = where + "." + component.getName();
+                if (java.util.List.class.isAssignableFrom(component.getType())) {
+                    assertEquals("array", property.get("type").asText(), path);
+                    assertTrue(property.has("maxItems"), path + " has a documented cap");
+                } else {
+                    assertEquals(jsonType(component.getType()), property.get("type").asText(), path);
+                }
+            }
+        }
+        assertEquals(components, properties, "fields of " + where);
     }
 
     private JsonNode resolve(JsonNode schema) {

@@ -14,6 +14,7 @@ import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.LoopDesigner;
+import com.loopwright.solver.plant.PlantParameterException;
 import com.loopwright.solver.verify.VerificationFailedException;
 import java.io.IOException;
 
@@ -64,6 +65,8 @@ public final class DesignExchange {
             design = validator.validate(request);
         } catch (InvalidRequestException e) {
             return failure(problems.invalid(e));
+        } catch (PlantParameterException e) {
+            return failure(problems.plantModel(e));
         }
         DesignReport report;
         try {

@@ -54,7 +54,8 @@ public final class DesignResponseMapper {
                         verification.specChecks().stream().map(c -> new DesignResponse.SpecCheck(c.spec(),
                                 c.requested(), c.simulated(), c.met())).toList()),
                 notes(report),
-                Cautions.ALL);
+                Cautions.ALL,
+                ModelMapper.toModel(request.resolvedPlant(), design));
     }
 
     /** Wire name of a gamma condition. */

@@ -7,6 +7,7 @@ import com.loopwright.api.problem.Proposal;
 import com.loopwright.api.request.InvalidRequestException;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.plant.PlantParameterException;
 import java.util.List;
 
 /** Solver and validation failures to RFC 9457 problems that name the offending field. */
@@ -30,6 +31,13 @@ public final class ProblemMapper {
                 .toList();
         return ProblemType.INFEASIBLE_SPEC.problem(infeasibility.reason(),
                 List.of(new FieldError(pointer, infeasibility.reason())), proposals);
+    }
+
+    /** A plant description that is well-formed but not physical or not usable (422). */
+    public Problem plantModel(PlantParameterException e) {
+        String pointer = e.parameter().isEmpty() ? "/plant" : "/plant/" + e.parameter();
+        return ProblemType.PLANT_MODEL_UNUSABLE.problem(pointer + ": " + e.getMessage(),
+                List.of(new FieldError(pointer, e.getMessage())), List.of());
     }
 
     public Problem unverifiable(String detail) {

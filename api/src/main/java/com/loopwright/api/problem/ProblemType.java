@@ -13,7 +13,10 @@ public enum ProblemType {
     INFEASIBLE_SPEC(422, "Infeasible spec", "The plant cannot meet the spec with this method."),
     UNVERIFIABLE_DESIGN(422, "Design could not be verified",
             "The design is outside the range where it can be computed and verified in double precision."),
-    INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs.");
+    INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs."),
+    PLANT_MODEL_UNUSABLE(422, "Plant model not usable",
+            "The plant description is not physical, not controllable, or outside the canonical form."),
+    FIT_FAILED(422, "Model fit failed", "The samples do not determine a second-order model.");
 
     private final int status;
     private final String title;

@@ -4,7 +4,6 @@ import static com.loopwright.api.request.FieldLimits.*;
 
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.solver.design.GammaChoice;
-import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
@@ -13,6 +12,12 @@ import java.util.List;
 /** Checks presence, finiteness, ranges and exclusive choices of a design request; reports every offending field. */
 public final class DesignRequestValidator {
 
+    private final PlantInputValidator plants = new PlantInputValidator();
+
+    /**
+     * @throws InvalidRequestException            for missing, malformed or out-of-range fields (400)
+     * @throws com.loopwright.solver.plant.PlantParameterException for a non-physical plant description (422)
+     */
     public ValidatedDesign validate(DesignRequest request) {
         List<FieldError> errors = new ArrayList<>();
         if (request == null) {
@@ -20,13 +25,11 @@ public final class DesignRequestValidator {
         }
         PlantInput plant = request.plant();
         SpecInput spec = request.spec();
+        ResolvedPlant resolved = null;
         if (plant == null) {
             errors.add(new FieldError("/plant", "required"));
         } else {
-            magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
-            magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
-            magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);
-            magnitude(errors, "/plant/d", plant.d(), 0, MAX_ABS_D, true);
+            resolved = plants.resolve(plant, errors);
         }
         if (spec == null) {
             errors.add(new FieldError("/spec", "required"));
@@ -62,10 +65,10 @@ public final class DesignRequestValidator {
         GammaChoice gamma = spec.gamma() != null ? new GammaChoice.Fixed(spec.gamma())
                 : new GammaChoice.MarginOverMinimum(spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN
                         : spec.gammaMargin());
-        return new ValidatedDesign(new CanonicalPlant(plant.a0(), plant.a1(), plant.b(), plant.d()),
+        return new ValidatedDesign(resolved.canonical(),
                 new DesignSpec(spec.overshootPercent() / 100, timeSpec), gamma,
                 spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(), band,
-                settling ? "/spec/settlingTime" : "/spec/riseTime");
+                settling ? "/spec/settlingTime" : "/spec/riseTime", resolved);
     }
 
     /** Present (if required), finite, and min &lt;= value &lt;= max. */

@@ -23,6 +23,10 @@ public final class FieldLimits {
     public static final double DEFAULT_GAMMA_MARGIN = 1.2;
     public static final double MAX_ABS_STEP = 1e9;
     public static final double DEFAULT_STEP = 1;
+    /** Magnitude cap of physical parameters and state-space entries (the derived coefficients are checked too). */
+    public static final double MAX_ABS_PHYSICAL = 1e12;
+    /** A transfer-function numerator is given highest power first, with at most this many coefficients. */
+    public static final int MAX_NUMERATOR_COEFFICIENTS = 3;
 
     private FieldLimits() {
     }

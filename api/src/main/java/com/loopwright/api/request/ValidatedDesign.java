@@ -13,7 +13,20 @@ import com.loopwright.solver.spec.DesignSpec;
  * @param stepSize         reference step for the simulated check, in x1 units
  * @param bandFraction     settling band used for the simulated settling time
  * @param timeSpecPointer  JSON pointer of the time spec the caller gave (settlingTime or riseTime)
+ * @param resolvedPlant    the caller's plant description and its conversion (canonical when not given)
  */
 public record ValidatedDesign(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
-                              double bandFraction, String timeSpecPointer) {
+                              double bandFraction, String timeSpecPointer, ResolvedPlant resolvedPlant) {
+
+    public ValidatedDesign {
+        if (resolvedPlant == null) {
+            resolvedPlant = ResolvedPlant.canonical(plant);
+        }
+    }
+
+    /** A design of the canonical coefficients, without another plant description. */
+    public ValidatedDesign(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
+                           double bandFraction, String timeSpecPointer) {
+        this(plant, spec, gammaChoice, stepSize, bandFraction, timeSpecPointer, null);
+    }
 }

@@ -9,7 +9,8 @@ import java.util.List;
  */
 public record DesignResponse(Plant plant, Target target, Riccati riccati, List<GammaBoundView> gammaBounds,
                              double gammaMin, double gamma, Weights weights, Gain gain, Simulated simulated,
-                             Verification verification, List<String> notes, List<String> cautions) {
+                             Verification verification, List<String> notes, List<String> cautions,
+                             Model model) {
 
     public DesignResponse {
         gammaBounds = List.copyOf(gammaBounds);
@@ -102,5 +103,67 @@ public record DesignResponse(Plant plant, Target target, Riccati riccati, List<G
      * @param simulated simulated value
      */
     public record SpecCheck(String spec, double requested, double simulated, boolean met) {
+    }
+
+    /**
+     * The plant description the caller sent and what the design made of it.
+     *
+     * @param form        wire name of the description (canonical, rotaryAxis, massSpringDamper,
+     *                    secondOrderTransferFunction, stateSpace)
+     * @param canonical   the derived canonical coefficients (the same as {@code plant})
+     * @param units       units of the states, inputs and coefficients for this description
+     * @param assumptions what the conversion assumed
+     * @param physicalLaw the law in physical units (rotaryAxis and massSpringDamper only)
+     * @param stateSpace  the design in the caller's coordinates (stateSpace only)
+     */
+    @JsonInclude(JsonInclude.Include.NON_NULL)
+    public record Model(String form, Plant canonical, Units units, List<String> assumptions,
+                        PhysicalLaw physicalLaw, StateSpaceView stateSpace) {
+        public Model {
+            assumptions = List.copyOf(assumptions);
+        }
+    }
+
+    /** Units of x1, x2, u, w and the canonical coefficients. */
+    public record Units(String x1, String x2, String u, String w, String a0, String a1, String b, String d) {
+    }
+
+    /**
+     * The law in physical units: command = positionGain (r - x1) - velocityGain x2 + setpointFeedforward r,
+     * which is u = kr r - (k1 x1 + k2 x2) with setpointFeedforward = kr - k1 = a0/b.
+     *
+     * @param setpointFeedforward command per unit setpoint needed to hold a non-zero setpoint (0 when a0 = 0)
+     * @param meaning             what the feedforward is physically
+     */
+    public record PhysicalLaw(String law, double positionGain, String positionGainUnit, double velocityGain,
+                              String velocityGainUnit, double referenceGain, double setpointFeedforward,
+                              String setpointFeedforwardUnit, String meaning) {
+    }
+
+    /**
+     * The design in the caller's coordinates x = T z (z the canonical coordinates the design was made in).
+     *
+     * @param coordinates     which coordinates each matrix is in
+     * @param transform       T, rows of x = T z
+     * @param p               Riccati solution P_x = T^-T P_z T^-1 (caller's coordinates)
+     * @param gain            K_x = K_z T^-1 (caller's coordinates): u = kr r - K_x x
+     * @param stateWeight     C1'C1 = T^-T diag(rho1^2, rho2^2) T^-1 (caller's coordinates)
+     * @param trackedOutput   c, first row of T^-1: the output y = c x that tracks r with the specs
+     * @param referenceGain   kr (unit DC gain from r to y)
+     * @param riccatiResidual relative residual of P_x in the Riccati equation of the caller's A, B1, B2
+     * @param closedLoopPoles eigenvalues of A - B2 K_x
+     */
+    public record StateSpaceView(String coordinates, List<List<Double>> transform, List<List<Double>> p,
+                                 List<Double> gain, List<List<Double>> stateWeight, List<Double> trackedOutput,
+                                 double referenceGain, double riccatiResidual, List<PoleView> closedLoopPoles,
+                                 String law) {
+        public StateSpaceView {
+            transform = List.copyOf(transform);
+            p = List.copyOf(p);
+            gain = List.copyOf(gain);
+            stateWeight = List.copyOf(stateWeight);
+            trackedOutput = List.copyOf(trackedOutput);
+            closedLoopPoles = List.copyOf(closedLoopPoles);
+        }
     }
 }

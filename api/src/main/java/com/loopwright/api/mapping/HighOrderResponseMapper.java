@@ -1,0 +1,112 @@
+package com.loopwright.api.mapping;
+
+import com.loopwright.api.request.ValidatedHighOrderDesign;
+import com.loopwright.api.response.DesignResponse;
+import com.loopwright.api.response.HighOrderDesignResponse;
+import com.loopwright.solver.highorder.ClosedLoopStep;
+import com.loopwright.solver.highorder.CompanionTransform;
+import com.loopwright.solver.highorder.HighOrderDesign;
+import com.loopwright.solver.highorder.HighOrderGammaBound;
+import com.loopwright.solver.highorder.HighOrderVerification;
+import com.loopwright.solver.highorder.SpecMatch;
+import com.loopwright.solver.highorder.SpecMatcher;
+import com.loopwright.solver.spec.TargetDynamics;
+import com.loopwright.solver.spec.TimeSpec;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
+
+/** Solver results of a high-order design to the response records. */
+public final class HighOrderResponseMapper {
+
+    public HighOrderDesignResponse toResponse(ValidatedHighOrderDesign input, CompanionTransform.Result transform,
+                                              SpecMatch match, HighOrderDesign design,
+                                              HighOrderVerification verification) {
+        TargetDynamics dominant = design.poles().dominant();
+        int n = design.plant().order();
+        DMatrixRMaj p = design.solution().p();
+        List<List<Double>> rows = rows(p);
+        double[] k = design.gain();
+        DMatrixRMaj toPlant = transform == null ? CommonOps_DDRM.identity(n) : transform.toPlant();
+        double[] plantGain = k;
+        if (transform != null) {
+            DMatrixRMaj kx = new DMatrixRMaj(1, n);
+            CommonOps_DDRM.mult(new DMatrixRMaj(1, n, true, k), transform.toCompanion(), kx);
+            plantGain = kx.data.clone();
+        }
+        HighOrderDesignResponse.Coordinates coordinates = new HighOrderDesignResponse.Coordinates(
+                transform == null ? "companion" : "stateSpace", boxed(design.plant().denominator()),
+                boxed(design.plant().numerator()), design.plant().b(), boxed(design.plant().disturbance()),
+                rows(toPlant), boxed(plantGain));
+        List<HighOrderDesignResponse.Bound> bounds = design.gammaBounds().stream()
+                .map(HighOrderResponseMapper::bound).toList();
+        ClosedLoopStep.Result step = verification.step();
+        double ts = ((TimeSpec.SettlingTime) input.spec().timeSpec()).seconds();
+        double overshoot = 100 * input.spec().overshootFraction();
+        boolean specsMet = step.metrics().settlingTimeSeconds() <= ts * (1 + SpecMatcher.SETTLING_TOLERANCE)
+                && step.metrics().overshootPercent() <= overshoot + SpecMatcher.OVERSHOOT_TOLERANCE_POINTS
+                && step.undershootPercent() <= input.maxUndershootPercent();
+        HighOrderDesignResponse.SpecMatching matching = match == null
+                ? new HighOrderDesignResponse.SpecMatching(false, 0, step.metrics().settlingTimeSeconds() / ts - 1,
+                step.metrics().overshootPercent() - overshoot, dominant.dampingRatio(),
+                dominant.naturalFrequencyRadPerSec())
+                : new HighOrderDesignResponse.SpecMatching(true, match.iterations(), match.settlingResidual(),
+                match.overshootResidualPoints(), match.startingTarget().dampingRatio(),
+                match.startingTarget().naturalFrequencyRadPerSec());
+        List<String> notes = new ArrayList<>();
+        notes.add("P, the gains and the weights are in the companion coordinates of the request: z_1 is the state"
+                + " the output row weights first, z_n the state u drives.");
+        if (!specsMet && match == null) {
+            notes.add("the zeros and auxiliary poles move the simulated step away from the second-order formulas;"
+                    + " send matchSpecs: true to adjust the dominant pair until the simulated loop meets the specs.");
+        }
+        if (transform != null) {
+            notes.add("the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
+                    + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain on x.");
+        }
+        return new HighOrderDesignResponse(n, coordinates,
+                new HighOrderDesignResponse.Target(dominant.dampingRatio(), dominant.naturalFrequencyRadPerSec(),
+                        poles(dominant.poles()), poles(design.poles().auxiliary()),
+                        boxed(design.poles().coefficients())),
+                matching,
+                new HighOrderDesignResponse.Riccati(rows, design.solution().relativeResidual(),
+                        design.solution().reciprocalCondition(), design.solution().newtonSteps(),
+                        design.bisectionSteps(), verification.relativeDifference(),
+                        verification.numeric().relativeResidual(), verification.numeric().iterations()),
+                bounds, design.gammaMin(), design.gamma(), boxed(design.weights()),
+                new HighOrderDesignResponse.Gain(boxed(design.gain()), design.referenceGain()),
+                new HighOrderDesignResponse.Simulated(step.metrics().riseTimeSeconds(),
+                        step.metrics().settlingTimeSeconds(), step.metrics().overshootPercent(),
+                        step.undershootPercent(), step.metrics().peakControl(), step.horizonSeconds(), step.samples()),
+                new HighOrderDesignResponse.Verification(verification.norm().value(),
+                        verification.norm().peakFrequencyRadPerSec(), verification.certified(), specsMet),
+                notes, Cautions.ALL);
+    }
+
+    private static List<List<Double>> rows(DMatrixRMaj m) {
+        List<List<Double>> rows = new ArrayList<>(m.numRows);
+        for (int i = 0; i < m.numRows; i++) {
+            List<Double> row = new ArrayList<>(m.numCols);
+            for (int j = 0; j < m.numCols; j++) {
+                row.add(m.get(i, j));
+            }
+            rows.add(row);
+        }
+        return rows;
+    }
+
+    private static HighOrderDesignResponse.Bound bound(HighOrderGammaBound b) {
+        return new HighOrderDesignResponse.Bound(b.condition().name().toLowerCase(), b.stateIndex(), b.meaning(),
+                b.gammaLowerBound(), b.binding());
+    }
+
+    private static List<DesignResponse.PoleView> poles(List<TargetDynamics.Pole> poles) {
+        return poles.stream().map(p -> new DesignResponse.PoleView(p.re(), p.im())).toList();
+    }
+
+    private static List<Double> boxed(double[] values) {
+        return Arrays.stream(values).boxed().toList();
+    }
+}

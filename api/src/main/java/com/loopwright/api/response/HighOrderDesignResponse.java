@@ -1,0 +1,66 @@
+package com.loopwright.api.response;
+
+import java.util.List;
+
+/**
+ * Body of a successful POST /v1/designs/high-order. Every matrix and gain is in the companion coordinates z of
+ * the request (z_1 the output-side state, z_n the state u drives); gamma bounds the L2 gain from w to
+ * z_perf = [rho_1 z_1, ..., rho_n z_n, u].
+ */
+public record HighOrderDesignResponse(int order, Coordinates coordinates, Target target, SpecMatching specMatching, Riccati riccati,
+                                      List<Bound> gammaBounds, double gammaMin, double gamma, List<Double> weights,
+                                      Gain gain, Simulated simulated, Verification verification,
+                                      List<String> notes, List<String> cautions) {
+
+    public HighOrderDesignResponse {
+        gammaBounds = List.copyOf(gammaBounds);
+        weights = List.copyOf(weights);
+        notes = List.copyOf(notes);
+        cautions = List.copyOf(cautions);
+    }
+
+    /**
+     * The companion plant the design used and how it relates to the request's coordinates.
+     *
+     * @param frame     "companion" when the request gave the companion form, "stateSpace" when it was transformed
+     * @param toPlant   T with x = T z (the identity for a companion request)
+     * @param plantGain the gain in the request's coordinates, K T^-1: u = referenceGain r - plantGain . x
+     */
+    public record Coordinates(String frame, List<Double> denominator, List<Double> numerator, double b,
+                              List<Double> disturbance, List<List<Double>> toPlant, List<Double> plantGain) {
+    }
+
+    /** The requested closed loop: dominant pair, auxiliary poles and the polynomial alpha_0 .. alpha_{n-1}. */
+    public record Target(double dampingRatio, double naturalFrequency, List<DesignResponse.PoleView> dominantPoles,
+                         List<DesignResponse.PoleView> auxiliaryPoles, List<Double> polynomial) {
+    }
+
+    /** Spec matching: iterations and residuals (0 iterations and the formula residuals when not asked for). */
+    public record SpecMatching(boolean enabled, int iterations, double settlingTimeResidual,
+                               double overshootResidualPoints, double startingDampingRatio,
+                               double startingNaturalFrequency) {
+    }
+
+    /** P in companion coordinates, from the pole-matched linear system, and the numeric re-solve. */
+    public record Riccati(List<List<Double>> p, double residualNorm, double reciprocalCondition, int newtonSteps,
+                          int bisectionSteps, double numericRelativeDifference, double numericResidualNorm,
+                          int numericIterations) {
+    }
+
+    /** One lower bound on gamma; state is the 1-based index for a weight condition, else 0. */
+    public record Bound(String condition, int state, String meaning, double gammaLowerBound, boolean binding) {
+    }
+
+    /** u = referenceGain r - sum k_j z_j. */
+    public record Gain(List<Double> k, double referenceGain) {
+    }
+
+    /** Simulated step of the actual closed loop, zeros included. */
+    public record Simulated(double riseTime, double settlingTime, double overshootPercent, double undershootPercent,
+                            double peakControl, double horizon, int samples) {
+    }
+
+    /** Closed-loop H-infinity norm from w to z_perf, and whether the design is certified. */
+    public record Verification(double hinfNorm, double peakFrequency, boolean certified, boolean specsMet) {
+    }
+}

@@ -1,0 +1,157 @@
+package com.loopwright.service;
+
+import static org.junit.jupiter.api.Assertions.*;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+
+/** POST /v1/designs/high-order on the real server; LiveServer validates every reply against openapi.yaml. */
+class HighOrderEndpointTest {
+
+    private static final String PATH = "/v1/designs/high-order";
+    private static LiveServer server;
+
+    @BeforeAll
+    static void start() {
+        server = LiveServer.start();
+    }
+
+    @AfterAll
+    static void stop() {
+        server.close();
+    }
+
+    /** The contract's own example (README scenario): spec matching meets the simulated specs, design verified. */
+    @Test
+    void contractExampleMatchesTheSpecsAndIsCertified() throws Exception {
+        JsonNode example = Contract.load().document().at("/paths/~1v1~1designs~1high-order/post/requestBody/content"
+                + "/application~1json/examples/pickAndPlaceAxis/value");
+        LiveServer.Reply reply = server.post(PATH, new ObjectMapper().writeValueAsString(example));
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode design = reply.json();
+        assertEquals(3, design.get("order").asInt());
+        assertTrue(design.at("/specMatching/enabled").asBoolean());
+        assertEquals(0.3, design.at("/simulated/settlingTime").asDouble(), 0.3e-3);
+        assertEquals(1.5, design.at("/simulated/overshootPercent").asDouble(), 0.01);
+        assertTrue(design.at("/verification/specsMet").asBoolean(), design.toString());
+        assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
+        assertTrue(design.at("/verification/hinfNorm").asDouble() <= design.get("gamma").asDouble() * (1 + 1e-8));
+        assertTrue(design.at("/riccati/residualNorm").asDouble() < 1e-9);
+        assertTrue(design.at("/riccati/numericRelativeDifference").asDouble() < 1e-6);
+    }
+
+    /** n = 2 through both endpoints: the same gamma_min and gains as the closed form of POST /v1/designs. */
+    @Test
+    void secondOrderAgreesWithTheClosedFormEndpoint() {
+        JsonNode closed = server.post("/v1/designs", "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}").json();
+        JsonNode high = server.post(PATH, "{\"plant\":{\"denominator\":[0,0.48],\"b\":400,\"disturbance\":[0,400]},"
+                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}").json();
+        assertEquals(closed.get("gammaMin").asDouble(), high.get("gammaMin").asDouble(),
+                1e-12 * closed.get("gammaMin").asDouble());
+        assertEquals(closed.at("/gain/k1").asDouble(), high.at("/gain/k/0").asDouble(), 1e-12 * closed.at("/gain/k1").asDouble());
+        assertEquals(closed.at("/gain/k2").asDouble(), high.at("/gain/k/1").asDouble(), 1e-12 * closed.at("/gain/k2").asDouble());
+        assertEquals(closed.at("/riccati/p11").asDouble(), high.at("/riccati/p/0/0").asDouble(),
+                1e-12 * closed.at("/riccati/p11").asDouble());
+        assertEquals(closed.at("/weights/rho2").asDouble(), high.at("/weights/1").asDouble(),
+                1e-12 * closed.at("/weights/rho2").asDouble());
+    }
+
+    /** A zero at +2 1/s with 0.5 s settling forces 57% undershoot (bound (1 - delta)/(e^{z ts} - 1), from memory). */
+    @Test
+    void rightHalfPlaneZeroIsA422NamingTheSettlingTime() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,-0.5,0],"
+                + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.5,\"overshootPercent\":2},"
+                + "\"matchSpecs\":true}");
+        assertEquals(422, reply.status(), reply.text());
+        assertEquals("/spec/settlingTime", reply.json().at("/errors/0/pointer").asText());
+        assertTrue(reply.json().get("detail").asText().contains("right-half-plane zero"), reply.text());
+        assertEquals("/spec/settlingTime", reply.json().at("/proposals/0/pointer").asText());
+    }
+
+    @Test
+    void unreachableSpecReportsNonConvergenceAsA422() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,5,0],"
+                + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},"
+                + "\"matchSpecs\":true}");
+        assertEquals(422, reply.status(), reply.text());
+        assertTrue(reply.json().get("detail").asText().contains("did not converge"), reply.text());
+    }
+
+    @ParameterizedTest
+    @CsvSource(delimiter = '|', value = {
+            "{\"plant\":{\"denominator\":[1,2,3,4,5,6,7,8,9],\"b\":1,\"disturbance\":[1,1,1,1,1,1,1,1,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/denominator",
+            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
+            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,0]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
+            "{\"plant\":{\"denominator\":[1,2,3],\"numerator\":[0,1,0],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/numerator/0",
+            "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":1},{\"re\":-5,\"im\":2}]}}|/auxiliaryPoles/poles/0/im",
+            "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles",
+            "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":5,\"im\":0},{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles/0/re",
+            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"realPartMultiple\":0.5}}|/auxiliaryPoles/realPartMultiple",
+            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"overshootPercent\":2}}|/spec/settlingTime",
+    })
+    void badInputIsA400NamingTheField(String body, String pointer) {
+        LiveServer.Reply reply = server.post(PATH, body);
+        assertEquals(400, reply.status(), reply.text());
+        assertEquals(pointer, reply.json().at("/errors/0/pointer").asText(), reply.text());
+    }
+
+    @Test
+    void unknownFieldsAndNaNAreRejected() {
+        assertEquals(400, server.post(PATH, "{\"plant\":{\"denominator\":[1,2],\"b\":1,\"disturbance\":[0,1],"
+                + "\"a0\":1},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}").status());
+        assertEquals(400, server.post(PATH, "{\"plant\":{\"denominator\":[NaN,2],\"b\":1,\"disturbance\":[0,1]},"
+                + "\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}").status());
+        assertEquals(415, server.post(PATH, "{}", "text/plain").status());
+    }
+
+    /**
+     * The same pick-and-place axis as a physical state space x = [position, velocity, torque-producing current]:
+     * q' = v, v' = -0.48 v + 400 i (+ 400 w), i' = -200 i + 200 u. Its companion form has the same denominator
+     * (the characteristic polynomial is similarity-invariant) and the returned plantGain places the same poles
+     * on the physical state (EJML eigenvalues of A - b2 plantGain, checked here against the requested polynomial
+     * through the companion closed loop, which has the same characteristic polynomial).
+     */
+    @Test
+    void stateSpaceInputIsTransformedAndTheGainActsOnThePhysicalState() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"stateSpace\":{\"a\":[[0,1,0],[0,-0.48,400],"
+                + "[0,0,-200]],\"b2\":[0,0,200],\"b1\":[0,400,0]}},\"spec\":{\"settlingTime\":0.3,"
+                + "\"overshootPercent\":1.5},\"auxiliaryPoles\":{\"poles\":[{\"re\":-250,\"im\":0}]}}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode design = reply.json();
+        assertEquals("stateSpace", design.at("/coordinates/frame").asText());
+        assertEquals(0, design.at("/coordinates/denominator/0").asDouble(), 1e-9);
+        assertEquals(96, design.at("/coordinates/denominator/1").asDouble(), 1e-9);
+        assertEquals(200.48, design.at("/coordinates/denominator/2").asDouble(), 1e-9);
+        // closed loop A - b2 plantGain on x: its characteristic polynomial is the requested one
+        double[][] a = {{0, 1, 0}, {0, -0.48, 400}, {0, 0, -200}};
+        for (int j = 0; j < 3; j++) {
+            a[2][j] -= 200 * design.at("/coordinates/plantGain/" + j).asDouble();
+        }
+        // det(sI - A) = s^3 - tr(A) s^2 + (sum of principal 2x2 minors) s - det(A)
+        double trace = a[0][0] + a[1][1] + a[2][2];
+        double minors = a[0][0] * a[1][1] - a[0][1] * a[1][0] + a[0][0] * a[2][2] - a[0][2] * a[2][0]
+                + a[1][1] * a[2][2] - a[1][2] * a[2][1];
+        double det = a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1]) - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0])
+                + a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0]);
+        JsonNode polynomial = design.at("/target/polynomial");
+        assertEquals(polynomial.get(2).asDouble(), -trace, 1e-9 * polynomial.get(2).asDouble());
+        assertEquals(polynomial.get(1).asDouble(), minors, 1e-9 * polynomial.get(1).asDouble());
+        assertEquals(polynomial.get(0).asDouble(), -det, 1e-9 * polynomial.get(0).asDouble());
+        assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
+    }
+
+    @Test
+    void uncontrollableStateSpaceIsA422NamingB2() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"stateSpace\":{\"a\":[[-1,0,0],[0,-2,0],"
+                + "[0,0,-3]],\"b2\":[1,1,0],\"b1\":[0,0,1]}},\"spec\":{\"settlingTime\":1,"
+                + "\"overshootPercent\":2}}");
+        assertEquals(422, reply.status(), reply.text());
+        assertEquals("/plant/stateSpace/b2", reply.json().at("/errors/0/pointer").asText());
+    }
+}

@@ -1,0 +1,74 @@
+package com.loopwright.solver.highorder;
+
+import com.loopwright.solver.simulation.LinearLoop;
+import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.simulation.StepResponse;
+import com.loopwright.solver.simulation.StepResponseMetrics;
+import com.loopwright.solver.simulation.StepSimulator;
+import java.util.List;
+import org.ejml.data.DMatrixRMaj;
+
+/**
+ * The step response of the actual closed loop of a companion plant under pole placement, zeros included:
+ * u = kr r - K z with K_j = (alpha_j - a_j)/b, so A - B2 K has last row -alpha, and kr = alpha_0/(b c_0)
+ * for unit DC gain from r to y = c z.
+ */
+public final class ClosedLoopStep {
+
+    /** The horizon covers this many slowest time constants 1/min|Re p| (2% of e^-t is passed at 3.9). */
+    static final double HORIZON_TIME_CONSTANTS = 14;
+    /** Samples per radian of the fastest oscillation (the metrics need at most pi/2). */
+    static final double SAMPLES_PER_RADIAN = 1.5;
+    static final int MIN_SAMPLES = 2000;
+
+    private final StepResponseMetrics metrics = new StepResponseMetrics();
+    private final StepSimulator simulator = new StepSimulator();
+
+    /**
+     * Metrics and sampled undershoot (largest excursion opposite to the final value, percent of it).
+     *
+     * @param metrics          rise, settling, overshoot, peak control
+     * @param undershootPercent 100 max(0, -min y/y_inf), from the samples
+     * @param horizonSeconds   simulated window
+     * @param samples          samples on it
+     */
+    public record Result(StepMetrics metrics, double undershootPercent, double horizonSeconds, int samples) {
+    }
+
+    public static LinearLoop loop(CompanionPlant plant, double[] desired) {
+        int n = plant.order();
+        double[] a = plant.denominator();
+        DMatrixRMaj closed = plant.stateMatrix();
+        DMatrixRMaj control = new DMatrixRMaj(1, n);
+        for (int j = 0; j < n; j++) {
+            closed.set(n - 1, j, -desired[j]);
+            control.set(0, j, -(desired[j] - a[j]) / plant.b());
+        }
+        double kr = desired[0] / (plant.b() * plant.numerator()[0]);
+        DMatrixRMaj bRef = new DMatrixRMaj(n, 1);
+        bRef.set(n - 1, 0, plant.b() * kr);
+        return new LinearLoop(closed, bRef, plant.outputRow(), control, kr);
+    }
+
+    public Result simulate(CompanionPlant plant, DesiredPoles poles, double stepSize, double bandFraction,
+                           double minimumHorizonSeconds) {
+        List<com.loopwright.solver.spec.TargetDynamics.Pole> all = poles.all();
+        double slowest = Double.POSITIVE_INFINITY;
+        double fastestOscillation = 0;
+        for (var p : all) {
+            slowest = Math.min(slowest, -p.re());
+            fastestOscillation = Math.max(fastestOscillation, Math.abs(p.im()));
+        }
+        double horizon = Math.max(minimumHorizonSeconds, HORIZON_TIME_CONSTANTS / slowest);
+        long wanted = (long) Math.ceil(horizon * fastestOscillation * SAMPLES_PER_RADIAN) + 1;
+        int samples = (int) Math.min(StepSimulator.MAX_SAMPLES, Math.max(MIN_SAMPLES, wanted));
+        LinearLoop loop = loop(plant, poles.coefficients());
+        StepMetrics m = metrics.measure(loop, stepSize, horizon, samples, bandFraction);
+        StepResponse response = simulator.simulate(loop, stepSize, horizon, samples);
+        double lowest = 0;
+        for (double y : response.output()) {
+            lowest = Math.min(lowest, y / m.finalValue());
+        }
+        return new Result(m, Math.max(0, -100 * lowest), horizon, samples);
+    }
+}

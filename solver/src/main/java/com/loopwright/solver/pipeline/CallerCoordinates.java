@@ -1,0 +1,73 @@
+package com.loopwright.solver.pipeline;
+
+import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.plant.TwoStateModel;
+import com.loopwright.solver.riccati.RiccatiResidual;
+import com.loopwright.solver.spec.TargetDynamics;
+import java.util.ArrayList;
+import java.util.List;
+import org.ejml.data.Complex_F64;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+
+/** Takes a design made in canonical coordinates z back to the caller's coordinates x = T z. */
+public final class CallerCoordinates {
+
+    private CallerCoordinates() {
+    }
+
+    public static StateSpaceDesign of(TwoStateModel model, ClosedFormDesign design) {
+        DMatrixRMaj t = model.transform();
+        DMatrixRMaj tInv = model.inverseTransform();
+        DMatrixRMaj pz = new DMatrixRMaj(new double[][] {{design.p11(), design.p12()}, {design.p12(), design.p22()}});
+        DMatrixRMaj qz = new DMatrixRMaj(new double[][] {{design.rho1() * design.rho1(), 0},
+                {0, design.rho2() * design.rho2()}});
+        DMatrixRMaj kz = new DMatrixRMaj(1, 2, true, design.positionGain(), design.velocityGain());
+        DMatrixRMaj px = congruence(tInv, pz);
+        DMatrixRMaj qx = congruence(tInv, qz);
+        DMatrixRMaj kx = new DMatrixRMaj(1, 2);
+        CommonOps_DDRM.mult(kz, tInv, kx);
+        DMatrixRMaj trackedOutput = new DMatrixRMaj(1, 2, true, tInv.get(0, 0) + 0.0, tInv.get(0, 1) + 0.0);
+
+        // R = B1 B1'/gamma^2 - B2 B2' from the caller's own B1 and B2.
+        DMatrixRMaj b1 = model.b1();
+        DMatrixRMaj b2 = model.b2();
+        DMatrixRMaj r = new DMatrixRMaj(2, 2);
+        CommonOps_DDRM.multTransB(b2, b2, r);
+        CommonOps_DDRM.scale(-1, r);
+        if (design.plant().d() != 0) {
+            DMatrixRMaj b1b1 = new DMatrixRMaj(2, 2);
+            CommonOps_DDRM.multTransB(b1, b1, b1b1);
+            CommonOps_DDRM.addEquals(r, 1 / (design.gamma() * design.gamma()), b1b1);
+        }
+        double residual = RiccatiResidual.relative(model.a(), r, qx, px);
+
+        DMatrixRMaj closedLoop = model.a();
+        DMatrixRMaj b2k = new DMatrixRMaj(2, 2);
+        CommonOps_DDRM.mult(b2, kx, b2k);
+        CommonOps_DDRM.subtractEquals(closedLoop, b2k);
+        EigenDecomposition_F64<DMatrixRMaj> eigen = DecompositionFactory_DDRM.eig(2, false);
+        List<TargetDynamics.Pole> poles = new ArrayList<>();
+        if (eigen.decompose(closedLoop)) {
+            for (int i = 0; i < eigen.getNumberOfEigenvalues(); i++) {
+                Complex_F64 value = eigen.getEigenvalue(i);
+                poles.add(new TargetDynamics.Pole(value.real, value.imaginary));
+            }
+        }
+        return new StateSpaceDesign(t, px, kx, qx, trackedOutput, design.referenceGain(), residual, poles);
+    }
+
+    /** S' M S, symmetrized. */
+    private static DMatrixRMaj congruence(DMatrixRMaj s, DMatrixRMaj m) {
+        DMatrixRMaj ms = new DMatrixRMaj(2, 2);
+        CommonOps_DDRM.mult(m, s, ms);
+        DMatrixRMaj out = new DMatrixRMaj(2, 2);
+        CommonOps_DDRM.multTransA(s, ms, out);
+        double offDiagonal = 0.5 * (out.get(0, 1) + out.get(1, 0));
+        out.set(0, 1, offDiagonal);
+        out.set(1, 0, offDiagonal);
+        return out;
+    }
+}
