@@ -16,11 +16,16 @@ final class ExactTrajectory {
     private final double[][] state;
 
     ExactTrajectory(LinearLoop loop, double reference, StepResponse response) {
+        this(loop, reference, response.timeSeconds(), response.state());
+    }
+
+    /** Takes the arrays over without copying: the caller must not modify them afterwards. */
+    ExactTrajectory(LinearLoop loop, double reference, double[] timeSeconds, double[][] state) {
         this.a = loop.a();
         this.bRef = loop.bRef();
         this.reference = reference;
-        this.timeSeconds = response.timeSeconds();
-        this.state = response.state();
+        this.timeSeconds = timeSeconds;
+        this.state = state;
     }
 
     int sampleCount() {

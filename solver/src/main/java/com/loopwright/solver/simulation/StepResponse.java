@@ -33,7 +33,7 @@ public record StepResponse(double[] timeSeconds, double[][] state, double[] outp
                 throw new IllegalArgumentException("state[" + k + "] must have length " + n);
             }
             stateCopy[k] = state[k].clone();
-            requireFinite(stateCopy[k], "state[" + k + "]");
+            requireFiniteRow(stateCopy[k], k);
             if (k > 0 && !(timeSeconds[k] > timeSeconds[k - 1])) {
                 throw new IllegalArgumentException("timeSeconds must be strictly increasing at " + k);
             }
@@ -45,6 +45,15 @@ public record StepResponse(double[] timeSeconds, double[][] state, double[] outp
         requireFinite(output, "output");
         requireFinite(control, "control");
         state = stateCopy;
+    }
+
+    /** Same check and message as requireFinite(values, "state[k]"), without building the name per row. */
+    private static void requireFiniteRow(double[] values, int row) {
+        for (double value : values) {
+            if (!Double.isFinite(value)) {
+                requireFinite(values, "state[" + row + "]");
+            }
+        }
     }
 
     private static void requireFinite(double[] values, String name) {

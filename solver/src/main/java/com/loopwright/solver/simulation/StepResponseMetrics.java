@@ -34,8 +34,6 @@ public final class StepResponseMetrics {
     private static final double RISE_START_FRACTION = 0.1;
     private static final double RISE_END_FRACTION = 0.9;
 
-    private final StepSimulator simulator = new StepSimulator();
-
     /**
      * Measures the step response metrics.
      *
@@ -71,8 +69,9 @@ public final class StepResponseMetrics {
         }
         double finalValue = finalValue(loop, stepSize);
 
-        StepResponse response = simulator.simulate(loop, stepSize, horizonSeconds, samples);
-        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, response);
+        // The samples only feed the trajectory, so they are not copied into a StepResponse first.
+        StepSimulator.Samples response = StepSimulator.sample(loop, stepSize, horizonSeconds, samples);
+        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, response.timeSeconds(), response.state());
         int n = loop.stateDimension();
         DMatrixRMaj cOut = loop.cOut();
         DMatrixRMaj cControl = loop.cControl();

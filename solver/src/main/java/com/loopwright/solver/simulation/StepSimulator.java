@@ -31,6 +31,15 @@ public final class StepSimulator {
      */
     public StepResponse simulate(LinearLoop loop, double stepSize, double horizonSeconds,
                                  int samples) {
+        Samples raw = sample(loop, stepSize, horizonSeconds, samples);
+        return new StepResponse(raw.timeSeconds(), raw.state(), raw.output(), raw.control());
+    }
+
+    /**
+     * The arrays of {@link #simulate}, with the same checks and exceptions, but handed over without the
+     * defensive copies of a {@link StepResponse}: for callers in this package that only read them.
+     */
+    static Samples sample(LinearLoop loop, double stepSize, double horizonSeconds, int samples) {
         validate(loop, stepSize, horizonSeconds, samples);
         int n = loop.stateDimension();
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
@@ -76,7 +85,17 @@ public final class StepSimulator {
             output[k] = y;
             control[k] = u;
         }
-        return new StepResponse(timeSeconds, state, output, control);
+        for (int k = 1; k < samples; k++) {
+            if (!(timeSeconds[k] > timeSeconds[k - 1])) {
+                // The check and message StepResponse applies.
+                throw new IllegalArgumentException("timeSeconds must be strictly increasing at " + k);
+            }
+        }
+        return new Samples(timeSeconds, state, output, control);
+    }
+
+    /** Sample arrays owned by the receiver (not copied). */
+    record Samples(double[] timeSeconds, double[][] state, double[] output, double[] control) {
     }
 
     static void validate(LinearLoop loop, double stepSize, double horizonSeconds, int samples) {

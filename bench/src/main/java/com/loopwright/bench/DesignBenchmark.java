@@ -1,0 +1,48 @@
+package com.loopwright.bench;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.exchange.DesignExchange;
+import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.json.StrictJson;
+import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.pipeline.DesignReport;
+import com.loopwright.solver.pipeline.LoopDesigner;
+import java.util.concurrent.TimeUnit;
+import org.openjdk.jmh.annotations.Benchmark;
+import org.openjdk.jmh.annotations.BenchmarkMode;
+import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Scope;
+import org.openjdk.jmh.annotations.State;
+
+/**
+ * One whole design: the solver pipeline alone (inversion, closed form, numeric Riccati, norm, 2,000-point
+ * simulation with refined metrics), and the same request as bytes in, response bytes out through the strict
+ * Jackson mapper, without HTTP.
+ */
+@State(Scope.Benchmark)
+@BenchmarkMode(Mode.AverageTime)
+@OutputTimeUnit(TimeUnit.MICROSECONDS)
+public class DesignBenchmark {
+
+    private final LoopDesigner designer = new LoopDesigner();
+    private final ObjectMapper mapper = StrictJson.newMapper();
+    private final DesignExchange exchange = new DesignExchange(mapper);
+    private final byte[] request = Scenarios.indexingAxisRequestBytes();
+    private final GammaChoice margin = new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR);
+
+    @Benchmark
+    public DesignReport solverPipeline() {
+        return designer.design(Scenarios.indexingAxisPlant(), Scenarios.indexingAxisSpec(), margin, 1.0, 0.02);
+    }
+
+    @Benchmark
+    public byte[] jsonExchange() throws JsonProcessingException {
+        Outcome outcome = exchange.exchange(request);
+        if (!outcome.ok()) {
+            throw new IllegalStateException("the benchmark request must design: " + outcome.body());
+        }
+        return mapper.writeValueAsBytes(outcome.body());
+    }
+}

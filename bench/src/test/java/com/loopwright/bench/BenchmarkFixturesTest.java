@@ -1,0 +1,61 @@
+package com.loopwright.bench;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.exchange.DesignExchange;
+import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.json.StrictJson;
+import com.loopwright.solver.spec.TargetDynamics;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The benchmarks time real work only if their inputs are the intended ones and both sides of each comparison
+ * reach the stated accuracy. These checks run in mvn verify; the benchmarks themselves do not.
+ */
+class BenchmarkFixturesTest {
+
+    @Test
+    void scenarioIsTheReadmeIndexingAxis() {
+        // source: the README worked example (dampingRatio 0.80075, naturalFrequency 25.078 rad/s).
+        TargetDynamics target = Scenarios.indexingAxisTarget();
+        assertEquals(0.80075, target.dampingRatio(), 5e-6);
+        assertEquals(25.078, target.naturalFrequencyRadPerSec(), 5e-4);
+    }
+
+    @Test
+    void bothSimulatorsMatchTheAnalyticStepAndZeroOrderHoldIsNotTheLessAccurate() {
+        // source: analytic underdamped second-order step response (see StepAccuracy).
+        TargetDynamics target = Scenarios.indexingAxisTarget();
+        StepSimulationBenchmark benchmark = new StepSimulationBenchmark();
+        benchmark.setUp();
+        double zohError = StepAccuracy.maxOutputError(target, benchmark.zeroOrderHold().output());
+        double dormandPrinceError = StepAccuracy.maxOutputError(target, benchmark.dormandPrince());
+        assertEquals(StepAccuracy.SAMPLES, benchmark.dormandPrince().length);
+        assertTrue(zohError < 1e-12, "ZOH error " + zohError);
+        assertTrue(dormandPrinceError < 1e-10, "Dormand-Prince error " + dormandPrinceError);
+        // The speed comparison is conservative: the reference is given the easier job.
+        assertTrue(zohError <= dormandPrinceError, zohError + " vs " + dormandPrinceError);
+    }
+
+    @Test
+    void bothRiccatiSolversReachRoundoffOnTheBenchmarkProblems() {
+        // reference: Hipparchus RiccatiEquationSolverImpl on the same (A, B, Q, Rc).
+        for (int n : new int[] {2, 4, 8}) {
+            RiccatiBenchmark.RiccatiComparison comparison = RiccatiBenchmark.RiccatiComparison.of(RiccatiCase.ofOrder(n));
+            assertTrue(comparison.relativeDifference() < 1e-10, "n = " + n + ": " + comparison);
+            assertTrue(comparison.ourResidual() < 1e-14, "n = " + n + ": " + comparison);
+            assertTrue(comparison.referenceResidual() < 1e-14, "n = " + n + ": " + comparison);
+        }
+    }
+
+    @Test
+    void exchangeBenchmarkRequestProducesACertifiedDesign() throws Exception {
+        ObjectMapper mapper = StrictJson.newMapper();
+        Outcome outcome = new DesignExchange(mapper).exchange(Scenarios.indexingAxisRequestBytes());
+        assertEquals(200, outcome.status());
+        assertTrue(outcome.body().at("/verification/certified").asBoolean(), outcome.body().toString());
+        assertTrue(new DesignBenchmark().jsonExchange().length > 1000);
+    }
+}
