@@ -6,6 +6,7 @@ COPY solver solver
 COPY api api
 COPY service service
 COPY client-examples client-examples
+COPY bench bench
 RUN mvn -B -q package -DskipTests
 
 # Run stage: JRE only, unprivileged user, health probe on the bundled client-free checker.
