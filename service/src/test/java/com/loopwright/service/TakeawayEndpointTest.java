@@ -61,6 +61,30 @@ class TakeawayEndpointTest {
         assertEquals(600, points.trim().split(" ").length);
     }
 
+    @Test
+    void uncertaintyBandDrawsTheSpreadOverTheParameterBox() throws Exception {
+        String box = "\"verify\":{\"uncertainty\":{\"b\":{\"plusMinusPercent\":20},\"monteCarloSamples\":10,"
+                + "\"seed\":5}}";
+        String design = DESIGN.substring(0, DESIGN.length() - 1) + "," + box + "}";
+        LiveServer.Reply reply = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + design + "}");
+        assertEquals(200, reply.status(), reply.text());
+        Document svg = parseSafely(reply.text());
+        assertEquals(1, countClass(svg, "polygon", "spread"), "the band");
+        String points = ((Element) svg.getElementsByTagName("polygon").item(0)).getAttribute("points");
+        assertEquals(2 * 600, points.trim().split(" ").length, "upper and lower edge of 600 samples each");
+        assertTrue(reply.text().contains("12 parameter sets"), "2 corners and 10 samples");
+        assertCleanAndFinite(svg, reply.text());
+
+        LiveServer.Reply missing = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + DESIGN + "}");
+        assertEquals(400, missing.status());
+        assertEquals("/design/verify/uncertainty", missing.json().at("/errors/0/pointer").asText());
+
+        String unstable = DESIGN.substring(0, DESIGN.length() - 1)
+                + ",\"verify\":{\"uncertainty\":{\"a0\":{\"min\":-2000,\"max\":-1000}}}}";
+        LiveServer.Reply none = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + unstable + "}");
+        assertEquals(422, none.status(), none.text());
+    }
+
     /** A negative step on an unstable plant with a rise-time spec: the band is still drawn with a height. */
     @Test
     void negativeStepKeepsTheBandAndTheRiseSpec() throws Exception {

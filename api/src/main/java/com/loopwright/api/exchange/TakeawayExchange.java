@@ -29,6 +29,16 @@ import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.LoopDesigner;
 import com.loopwright.solver.spec.TimeSpec;
 import com.loopwright.solver.verify.VerificationFailedException;
+import com.loopwright.api.request.ValidatedVerify;
+import com.loopwright.api.request.VerifyInputValidator;
+import com.loopwright.api.request.VerifyLimits;
+import com.loopwright.solver.plant.PlantParameterException;
+import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.robustness.ParameterBox;
+import com.loopwright.solver.robustness.RobustnessOptions;
+import com.loopwright.solver.robustness.StepEnvelope;
+import com.loopwright.solver.robustness.UnstableLoopException;
+import com.loopwright.solver.design.ClosedFormDesign;
 import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
@@ -55,6 +65,8 @@ public final class TakeawayExchange {
     private final ProblemMapper problems = new ProblemMapper();
     private final DesignFigures figures = new DesignFigures();
     private final SampledLawDesigner lawDesigner = new SampledLawDesigner();
+    private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
+    private final StepEnvelope envelope = new StepEnvelope();
 
     public TakeawayExchange(ObjectMapper mapper) {
         this.mapper = mapper;
@@ -64,7 +76,7 @@ public final class TakeawayExchange {
         Figure figure = Figure.ofSlug(figureSlug).orElse(null);
         if (figure == null) {
             return failure(ProblemType.NOT_FOUND.problem("no figure '" + figureSlug + "'; figures are"
-                    + " step-response, control-effort and bode"));
+                    + " step-response, control-effort, bode and uncertainty-band"));
         }
         PlotRequest request;
         try {
@@ -86,10 +98,52 @@ public final class TakeawayExchange {
         OptionalDouble limit = request.commandLimit() == null ? OptionalDouble.empty()
                 : OptionalDouble.of(request.commandLimit());
         try {
+            if (figure == Figure.UNCERTAINTY_BAND) {
+                return uncertaintyBand(request, designed);
+            }
             return new Takeaway(200, SVG, figures.draw(figure, designed.report(), limit), null);
         } catch (IllegalArgumentException e) {
             return failure(problems.unverifiable("the figure could not be drawn: " + e.getMessage()));
         }
+    }
+
+    /**
+     * The uncertainty band takes its parameter box from design.verify.uncertainty (the same ranges a
+     * robustness check uses); up to {@link StepEnvelope#MAX_INTERIOR_SAMPLES} of its Monte Carlo samples are drawn.
+     */
+    private Takeaway uncertaintyBand(PlotRequest request, Designed designed) {
+        String pointer = "/design/verify/uncertainty";
+        if (request.design().verify() == null || request.design().verify().uncertainty() == null) {
+            return failure(invalid(List.of(new FieldError(pointer,
+                    "required for the uncertainty-band figure: the parameter ranges to sweep"))));
+        }
+        List<FieldError> errors = new ArrayList<>();
+        ValidatedVerify verify = verifyValidator.validate(request.design().verify(), designed.validated().plant(),
+                "/design/verify", errors);
+        if (verify == null) {
+            return failure(invalid(VerifyLimits.capped(errors)));
+        }
+        RobustnessOptions options = verify.options();
+        ClosedFormDesign d = designed.report().design();
+        ParameterBox box = options.parameterBox();
+        int interior = Math.min(options.monteCarloSamples(), StepEnvelope.MAX_INTERIOR_SAMPLES);
+        try {
+            StepEnvelope.Band band = envelope.sweep(box, d.plant(),
+                    new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()),
+                    designed.report().stepSize(), designed.report().horizonSeconds(), DesignFigures.PLOT_SAMPLES,
+                    interior, options.seed());
+            String ranges = String.format(Locale.ROOT, "a0 %s, a1 %s, b %s, d %s", range(box.a0Min(), box.a0Max()),
+                    range(box.a1Min(), box.a1Max()), range(box.bMin(), box.bMax()), range(box.dMin(), box.dMax()));
+            return new Takeaway(200, SVG, figures.uncertaintyBand(designed.report(), band, ranges), null);
+        } catch (UnstableLoopException e) {
+            return failure(ProblemType.UNSTABLE_LOOP.problem(e.getMessage(),
+                    List.of(new FieldError(pointer, e.getMessage())), List.of()));
+        }
+    }
+
+    private static String range(double low, double high) {
+        return low == high ? String.format(Locale.ROOT, "%.4g", low)
+                : String.format(Locale.ROOT, "%.4g..%.4g", low, high);
     }
 
     public Takeaway controller(String format, byte[] body) {
@@ -203,6 +257,8 @@ public final class TakeawayExchange {
                 validated = validator.validate(request);
             } catch (InvalidRequestException e) {
                 e.errors().forEach(f -> errors.add(new FieldError("/design" + f.pointer(), f.detail())));
+            } catch (PlantParameterException e) {
+                return new Designed(null, null, plantProblem(e));
             }
         }
         if (!errors.isEmpty()) {
@@ -218,6 +274,10 @@ public final class TakeawayExchange {
         } catch (VerificationFailedException e) {
             return new Designed(null, null, problems.unverifiable(e.getMessage()));
         }
+    }
+
+    private Problem plantProblem(PlantParameterException e) {
+        return prefixed(problems.plantModel(e));
     }
 
     private Problem invalid(List<FieldError> errors) {

@@ -7,6 +7,7 @@ import com.loopwright.solver.frequency.RationalLoop;
 import com.loopwright.solver.frequency.StabilityMargins;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.simulation.LinearLoop;
+import com.loopwright.solver.robustness.StepEnvelope;
 import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponse;
 import com.loopwright.solver.simulation.StepSimulator;
@@ -44,7 +45,7 @@ public final class DesignFigures {
             + ".limit{stroke:#d1495b;stroke-width:1.5;stroke-dasharray:6 4}"
             + ".spec{stroke:#c67c00;stroke-width:1.5;stroke-dasharray:2 3}"
             + ".measured{stroke:#0f7c80;stroke-width:1;stroke-dasharray:4 3}"
-            + ".point{fill:#2b2d42}"
+            + ".point{fill:#2b2d42}.spread{fill:#0f7c80;fill-opacity:0.2;stroke:#0f7c80;stroke-width:0.5}"
             + "</style>\n";
 
     private final StepSimulator simulator = new StepSimulator();
@@ -58,8 +59,43 @@ public final class DesignFigures {
             case STEP_RESPONSE -> stepResponse(report);
             case CONTROL_EFFORT -> controlEffort(report, commandLimit);
             case BODE -> bode(report);
+            case UNCERTAINTY_BAND -> throw new IllegalArgumentException("the uncertainty band needs a parameter box");
         };
     }
+
+    /**
+     * The step-response band over a parameter box (corners plus seeded interior samples) with the nominal
+     * response and the spec envelope on top.
+     */
+    public String uncertaintyBand(DesignReport report, StepEnvelope.Band band, String rangesText) {
+        double r = report.stepSize();
+        double settlingBand = report.bandFraction();
+        double overshootLimit = r * (1 + report.spec().overshootFraction());
+        double low = Math.min(Math.min(0, min(band.lowerX1())), r * (1 - settlingBand));
+        double high = Math.max(Math.max(max(band.upperX1()), overshootLimit), r * (1 + settlingBand));
+        if (r < 0) {
+            low = Math.min(Math.min(min(band.lowerX1()), overshootLimit), r * (1 + settlingBand));
+            high = Math.max(0, max(band.upperX1()));
+        }
+        StringBuilder svg = open(1, "Step response under parameter uncertainty (" + band.drawnCases()
+                + " parameter sets" + (band.unstableCases() > 0 ? ", " + band.unstableCases() + " unstable, not drawn"
+                : "") + ")");
+        SvgPanel panel = new SvgPanel(svg, LEFT, TOP, WIDTH - LEFT - RIGHT, PANEL_HEIGHT,
+                NiceTicks.covering(0, report.horizonSeconds(), 8), NiceTicks.covering(low, high, 7), false);
+        panel.frame("time t [s]", "position x1 [x1 units]");
+        panel.band("band", r * (1 - settlingBand), r * (1 + settlingBand));
+        panel.horizontal("spec", overshootLimit, "overshoot limit " + format(100 * report.spec().overshootFraction()) + "%");
+        if (report.spec().timeSpec() instanceof TimeSpec.SettlingTime settling) {
+            panel.vertical("spec", settling.seconds(), "settling spec " + format(settling.seconds()) + " s");
+        }
+        panel.envelope("spread", band.timeSeconds(), band.lowerX1(), band.upperX1());
+        panel.polyline("series", band.timeSeconds(), band.nominalX1());
+        panel.text(LEFT + 8, TOP + PANEL_HEIGHT - 10, "start", rangesText);
+        legend(svg, "nominal x1(t)", "spread", "range over the parameter box");
+        return close(svg);
+    }
+
+
 
     String stepResponse(DesignReport report) {
         StepResponse step = simulate(report);
@@ -229,9 +265,10 @@ public final class DesignFigures {
         svg.append(String.format(Locale.ROOT, "<text x=\"%.0f\" y=\"%.0f\">%s</text>", LEFT + 30, y + 4,
                 SvgPanel.escape(first)));
         if (secondClass != null) {
-            if (secondClass.equals("band")) {
+            if (secondClass.equals("band") || secondClass.equals("spread")) {
                 svg.append(String.format(Locale.ROOT,
-                        "<rect class=\"band\" x=\"%.0f\" y=\"%.0f\" width=\"24\" height=\"10\"/>", LEFT + 300, y - 5));
+                        "<rect class=\"%s\" x=\"%.0f\" y=\"%.0f\" width=\"24\" height=\"10\"/>", secondClass,
+                        LEFT + 300, y - 5));
             } else {
                 svg.append(String.format(Locale.ROOT, "<line class=\"%s\" x1=\"%.0f\" y1=\"%.0f\" x2=\"%.0f\""
                         + " y2=\"%.0f\"/>", secondClass, LEFT + 300, y, LEFT + 324, y));

@@ -7,7 +7,8 @@ import java.util.Optional;
 public enum Figure {
     STEP_RESPONSE("step-response"),
     CONTROL_EFFORT("control-effort"),
-    BODE("bode");
+    BODE("bode"),
+    UNCERTAINTY_BAND("uncertainty-band");
 
     private final String slug;
 

@@ -83,6 +83,19 @@ final class SvgPanel {
         svg.append("<polyline class=\"").append(cssClass).append("\" points=\"").append(points).append("\"/>\n");
     }
 
+    /** A filled region between two curves over the same x samples (a polygon: upper forward, lower back). */
+    void envelope(String cssClass, double[] x, double[] lower, double[] upper) {
+        StringBuilder points = new StringBuilder();
+        for (int i = 0; i < x.length; i++) {
+            points.append(String.format(Locale.ROOT, i == 0 ? "%.2f,%.2f" : " %.2f,%.2f", clampX(px(x[i])),
+                    clampY(py(upper[i]))));
+        }
+        for (int i = x.length - 1; i >= 0; i--) {
+            points.append(String.format(Locale.ROOT, " %.2f,%.2f", clampX(px(x[i])), clampY(py(lower[i]))));
+        }
+        svg.append("<polygon class=\"").append(cssClass).append("\" points=\"").append(points).append("\"/>\n");
+    }
+
     void horizontal(String cssClass, double y, String label) {
         double sy = clampY(py(y));
         svg.append(String.format(Locale.ROOT, "<line class=\"%s\" x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
