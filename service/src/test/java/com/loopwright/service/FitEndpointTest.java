@@ -8,28 +8,15 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.Random;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
 /**
  * POST /v1/models/fit on the live server with step tests generated from known models (textbook step response,
  * seeded Gaussian noise); the fitted plant goes straight into POST /v1/designs.
  */
-class FitEndpointTest {
+class FitEndpointTest extends LiveServerTest {
 
     private static final ObjectMapper JSON = new ObjectMapper();
-    private static LiveServer server;
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     /** source: underdamped unit step response 1 - e^{-zeta wn t} sin(wd t + acos zeta)/sqrt(1 - zeta^2). */
     private static double step(double t, double wn, double zeta) {

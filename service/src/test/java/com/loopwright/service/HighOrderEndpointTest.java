@@ -4,27 +4,14 @@ import static org.junit.jupiter.api.Assertions.*;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 /** POST /v1/designs/high-order on the real server; LiveServer validates every reply against openapi.yaml. */
-class HighOrderEndpointTest {
+class HighOrderEndpointTest extends LiveServerTest {
 
     private static final String PATH = "/v1/designs/high-order";
-    private static LiveServer server;
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     /** The contract's own example (README scenario): spec matching meets the simulated specs, design verified. */
     @Test

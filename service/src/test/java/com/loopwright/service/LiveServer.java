@@ -93,8 +93,10 @@ final class LiveServer implements AutoCloseable {
     }
 
     Reply postBytes(String path, byte[] body) {
+        // Expect: 100-continue lets the server answer an oversized body (413) before the client has sent it,
+        // instead of racing a connection close against the upload (common practice for large uploads).
         return send(HttpRequest.newBuilder(base().resolve(path)).timeout(Duration.ofSeconds(30))
-                .header("Content-Type", "application/json")
+                .header("Content-Type", "application/json").expectContinue(body.length > 64 * 1024)
                 .POST(HttpRequest.BodyPublishers.ofByteArray(body)).build(), path, "post");
     }
 

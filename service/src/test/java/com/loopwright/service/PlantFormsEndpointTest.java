@@ -7,25 +7,12 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.util.Iterator;
 import java.util.Map;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
 /** POST /v1/designs with each plant description on the live server; every reply checked against the contract. */
-class PlantFormsEndpointTest {
+class PlantFormsEndpointTest extends LiveServerTest {
 
-    private static LiveServer server;
     private static final ObjectMapper JSON = new ObjectMapper();
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     // Every request example of the contract is served, certified, and reports its own form.
     @Test

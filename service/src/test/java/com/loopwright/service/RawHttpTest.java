@@ -10,8 +10,6 @@ import java.io.InputStream;
 import java.io.OutputStream;
 import java.net.Socket;
 import java.nio.charset.StandardCharsets;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
@@ -19,20 +17,9 @@ import org.junit.jupiter.params.provider.ValueSource;
  * Requests a well-behaved client cannot send (bad request lines, bad percent-encoding, oversized headers,
  * garbage) written straight to the socket: Jetty's own answers are problem+json too, with no HTML or stack.
  */
-class RawHttpTest {
+class RawHttpTest extends LiveServerTest {
 
-    private static LiveServer server;
     private final Contract contract = Contract.load();
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     private static String exchange(String request) throws Exception {
         try (Socket socket = new Socket("127.0.0.1", server.base().getPort())) {

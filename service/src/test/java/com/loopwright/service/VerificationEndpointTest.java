@@ -6,8 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -16,24 +14,13 @@ import org.junit.jupiter.params.provider.CsvSource;
  * The verify section of POST /v1/designs and POST /v1/verifications on the live server; LiveServer checks every
  * response against openapi.yaml.
  */
-class VerificationEndpointTest {
+class VerificationEndpointTest extends LiveServerTest {
 
     private static final String AXIS = "\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}";
     private static final String GAINS = "\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"gain\":{\"k1\":1.5723,\"k2\":0.0992069,\"referenceGain\":1.5723}";
 
-    private static LiveServer server;
-
-    @BeforeAll
-    static void start() {
-        server = LiveServer.start();
-    }
-
-    @AfterAll
-    static void stop() {
-        server.close();
-    }
 
     @Test
     void designWithoutVerifyHasNoRobustnessMember() {

@@ -26,6 +26,27 @@ final class Checks {
         }
     }
 
+    /** Present (if required), finite, and min &lt;= value &lt;= max. */
+    static void range(List<FieldError> errors, String pointer, Double value, double min, double max,
+                      boolean required) {
+        if (value == null) {
+            if (required) {
+                errors.add(new FieldError(pointer, "required"));
+            }
+            return;
+        }
+        if (!Double.isFinite(value) || value < min || value > max) {
+            errors.add(new FieldError(pointer, "must be a finite number from " + fmt(min) + " to " + fmt(max)));
+        }
+    }
+
+    /** Absent, or positive, finite and at most max. */
+    static void positive(List<FieldError> errors, String pointer, Double value, double max) {
+        if (value != null && !(value > 0 && value <= max)) {
+            errors.add(new FieldError(pointer, "must be positive and at most " + fmt(max)));
+        }
+    }
+
     static String fmt(double value) {
         return value == Math.rint(value) && Math.abs(value) < 1e6 ? String.valueOf((long) value)
                 : String.valueOf(value);

@@ -35,7 +35,7 @@ public final class DesignRequestValidator {
             errors.add(new FieldError("/spec", "required"));
             throw new InvalidRequestException(errors);
         }
-        range(errors, "/spec/overshootPercent", spec.overshootPercent(), MIN_OVERSHOOT_PERCENT,
+        Checks.range(errors, "/spec/overshootPercent", spec.overshootPercent(), MIN_OVERSHOOT_PERCENT,
                 MAX_OVERSHOOT_PERCENT, true);
         boolean settling = spec.settlingTime() != null;
         boolean rise = spec.riseTime() != null;
@@ -44,18 +44,18 @@ public final class DesignRequestValidator {
         } else if (!settling && !rise) {
             errors.add(new FieldError("/spec/settlingTime", "required (or give riseTime instead)"));
         }
-        range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
-        range(errors, "/spec/riseTime", spec.riseTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
-        range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT,
+        Checks.range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
+        Checks.range(errors, "/spec/riseTime", spec.riseTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
+        Checks.range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT,
                 false);
         if (spec.gamma() != null && spec.gammaMargin() != null) {
             errors.add(new FieldError("/spec/gammaMargin", "give either gamma or gammaMargin, not both"));
         }
-        positive(errors, "/spec/gamma", spec.gamma(), MAX_GAMMA);
+        Checks.positive(errors, "/spec/gamma", spec.gamma(), MAX_GAMMA);
         if (spec.gammaMargin() != null && !(spec.gammaMargin() > 1 && spec.gammaMargin() <= MAX_GAMMA_MARGIN)) {
-            errors.add(new FieldError("/spec/gammaMargin", "must be above 1 and at most " + fmt(MAX_GAMMA_MARGIN)));
+            errors.add(new FieldError("/spec/gammaMargin", "must be above 1 and at most " + Checks.fmt(MAX_GAMMA_MARGIN)));
         }
-        magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
+        Checks.magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
@@ -71,45 +71,7 @@ public final class DesignRequestValidator {
                 settling ? "/spec/settlingTime" : "/spec/riseTime", resolved);
     }
 
-    /** Present (if required), finite, and min &lt;= value &lt;= max. */
-    private static void range(List<FieldError> errors, String pointer, Double value, double min, double max,
-                              boolean required) {
-        if (value == null) {
-            if (required) {
-                errors.add(new FieldError(pointer, "required"));
-            }
-            return;
-        }
-        if (!Double.isFinite(value) || value < min || value > max) {
-            errors.add(new FieldError(pointer, "must be a finite number from " + fmt(min) + " to " + fmt(max)));
-        }
-    }
 
-    /** Present (if required), finite, and minAbs &lt;= |value| &lt;= maxAbs. */
-    private static void magnitude(List<FieldError> errors, String pointer, Double value, double minAbs,
-                                  double maxAbs, boolean required) {
-        if (value == null) {
-            if (required) {
-                errors.add(new FieldError(pointer, "required"));
-            }
-            return;
-        }
-        double abs = Math.abs(value);
-        if (!Double.isFinite(value) || abs < minAbs || abs > maxAbs) {
-            errors.add(new FieldError(pointer, minAbs > 0
-                    ? "magnitude must be from " + fmt(minAbs) + " to " + fmt(maxAbs) + " (non-zero)"
-                    : "magnitude must be at most " + fmt(maxAbs)));
-        }
-    }
 
-    private static void positive(List<FieldError> errors, String pointer, Double value, double max) {
-        if (value != null && !(value > 0 && value <= max)) {
-            errors.add(new FieldError(pointer, "must be positive and at most " + fmt(max)));
-        }
-    }
 
-    private static String fmt(double value) {
-        return value == Math.rint(value) && Math.abs(value) < 1e6 ? String.valueOf((long) value)
-                : String.valueOf(value);
-    }
 }

@@ -79,10 +79,10 @@ public final class HighOrderRequestValidator {
             errors.add(new FieldError("/spec", "required"));
             throw new InvalidRequestException(errors);
         }
-        range(errors, "/spec/overshootPercent", spec.overshootPercent(), MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT,
+        Checks.range(errors, "/spec/overshootPercent", spec.overshootPercent(), MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT,
                 true);
-        range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, true);
-        range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT,
+        Checks.range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, true);
+        Checks.range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT,
                 false);
         if (spec.gamma() != null && spec.gammaMargin() != null) {
             errors.add(new FieldError("/spec/gammaMargin", "give either gamma or gammaMargin, not both"));
@@ -97,7 +97,7 @@ public final class HighOrderRequestValidator {
                 && Math.abs(spec.stepSize()) <= MAX_ABS_STEP)) {
             errors.add(new FieldError("/spec/stepSize", "magnitude must be non-zero and at most " + MAX_ABS_STEP));
         }
-        range(errors, "/spec/maxUndershootPercent", spec.maxUndershootPercent(), MIN_UNDERSHOOT_PERCENT,
+        Checks.range(errors, "/spec/maxUndershootPercent", spec.maxUndershootPercent(), MIN_UNDERSHOOT_PERCENT,
                 MAX_UNDERSHOOT_PERCENT, false);
         AuxiliaryPlacement auxiliary = auxiliary(errors, request.auxiliaryPoles(), n);
         if (!errors.isEmpty()) {
@@ -125,7 +125,7 @@ public final class HighOrderRequestValidator {
             return null;
         }
         if (input.realPartMultiple() != null) {
-            range(errors, "/auxiliaryPoles/realPartMultiple", input.realPartMultiple(), MIN_REAL_PART_MULTIPLE,
+            Checks.range(errors, "/auxiliaryPoles/realPartMultiple", input.realPartMultiple(), MIN_REAL_PART_MULTIPLE,
                     MAX_REAL_PART_MULTIPLE, true);
             return errors.isEmpty() ? new AuxiliaryPlacement.RealPartMultiple(input.realPartMultiple()) : null;
         }
@@ -240,16 +240,4 @@ public final class HighOrderRequestValidator {
         return ok ? out : null;
     }
 
-    private static void range(List<FieldError> errors, String pointer, Double value, double min, double max,
-                              boolean required) {
-        if (value == null) {
-            if (required) {
-                errors.add(new FieldError(pointer, "required"));
-            }
-            return;
-        }
-        if (!Double.isFinite(value) || value < min || value > max) {
-            errors.add(new FieldError(pointer, "must be a finite number from " + min + " to " + max));
-        }
-    }
 }

@@ -39,18 +39,18 @@ public final class VerificationRequestValidator {
         if (plant == null) {
             errors.add(new FieldError("/plant", "required"));
         } else {
-            magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
-            magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
-            magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);
-            magnitude(errors, "/plant/d", plant.d(), 0, MAX_ABS_D, true);
+            Checks.magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
+            Checks.magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
+            Checks.magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);
+            Checks.magnitude(errors, "/plant/d", plant.d(), 0, MAX_ABS_D, true);
         }
         GainInput gain = request.gain();
         if (gain == null) {
             errors.add(new FieldError("/gain", "required"));
         } else {
-            magnitude(errors, "/gain/k1", gain.k1(), 0, MAX_ABS_GAIN, true);
-            magnitude(errors, "/gain/k2", gain.k2(), 0, MAX_ABS_GAIN, true);
-            magnitude(errors, "/gain/referenceGain", gain.referenceGain(), 0, MAX_ABS_GAIN, true);
+            Checks.magnitude(errors, "/gain/k1", gain.k1(), 0, MAX_ABS_GAIN, true);
+            Checks.magnitude(errors, "/gain/k2", gain.k2(), 0, MAX_ABS_GAIN, true);
+            Checks.magnitude(errors, "/gain/referenceGain", gain.referenceGain(), 0, MAX_ABS_GAIN, true);
         }
         SpecInput spec = request.spec();
         Double settling = null;
@@ -66,7 +66,7 @@ public final class VerificationRequestValidator {
             range(errors, "/spec/settlingTime", settling, MIN_TIME_SECONDS, MAX_TIME_SECONDS);
             range(errors, "/spec/riseTime", rise, MIN_TIME_SECONDS, MAX_TIME_SECONDS);
             range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT);
-            magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
+            Checks.magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
             if (spec.gamma() != null) {
                 errors.add(new FieldError("/spec/gamma", "not used by verifications; give performance.gamma"));
             }
@@ -114,19 +114,4 @@ public final class VerificationRequestValidator {
         }
     }
 
-    private static void magnitude(List<FieldError> errors, String pointer, Double value, double minAbs,
-                                  double maxAbs, boolean required) {
-        if (value == null) {
-            if (required) {
-                errors.add(new FieldError(pointer, "required"));
-            }
-            return;
-        }
-        double abs = Math.abs(value);
-        if (!Double.isFinite(value) || abs < minAbs || abs > maxAbs) {
-            errors.add(new FieldError(pointer, minAbs > 0
-                    ? "magnitude must be from " + minAbs + " to " + maxAbs + " (non-zero)"
-                    : "magnitude must be at most " + maxAbs));
-        }
-    }
 }
