@@ -51,7 +51,8 @@ public final class LoopwrightApp {
     private static final String STARTED_NANOS = "loopwright.startedNanos";
     /** Route labels of the metrics; any other path is counted as "other" so that label values stay bounded. */
     static final Set<String> ROUTES = Set.of(DesignRoute.PATH, BatchRoute.PATH, ContractRoute.PATH, HealthRoute.PATH,
-            HealthRoute.LIVE_PATH, ReadinessRoute.PATH, MetricsRoute.PATH);
+            HealthRoute.LIVE_PATH, ReadinessRoute.PATH, MetricsRoute.PATH, FIT_PATH, HIGH_ORDER_PATH,
+            VERIFICATION_PATH, PlotRoute.PATH, ControllerRoute.PATH, DashboardRoute.PATH);
 
     private LoopwrightApp() {
     }
@@ -151,11 +152,18 @@ public final class LoopwrightApp {
         });
     }
 
+    /** The matched route template (e.g. /v1/designs/plots/{figure}), or "other": a bounded label set. */
+    private static String routeLabel(Context ctx) {
+        var matched = ctx.endpoints().lastHttpEndpoint();
+        String template = matched == null ? ctx.path() : matched.path;
+        return ROUTES.contains(template) ? template : "other";
+    }
+
     /** Counts the request, writes the access line and clears the request id from the thread. */
     private static void finish(Context ctx, Metrics metrics) {
         Long started = ctx.attribute(STARTED_NANOS);
         double seconds = started == null ? 0 : (System.nanoTime() - started) / 1e9;
-        String route = ROUTES.contains(ctx.path()) ? ctx.path() : "other";
+        String route = routeLabel(ctx);
         int status = ctx.statusCode();
         if (started != null) {
             metrics.requestFinished(route, ctx.method().name(), status, seconds);

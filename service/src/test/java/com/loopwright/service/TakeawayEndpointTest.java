@@ -72,6 +72,17 @@ class TakeawayEndpointTest extends LiveServerTest {
         assertEquals(422, none.status(), none.text());
     }
 
+    // Metrics label a templated route by its template, so label values stay bounded (Prometheus practice).
+    @Test
+    void metricsLabelTemplatedRoutesByTheirTemplate() {
+        server.post("/v1/designs/plots/bode", "{\"design\":" + DESIGN + "}");
+        server.get("/no/such/path/" + System.nanoTime());
+        String metrics = server.get("/metrics").text();
+        assertTrue(metrics.contains("route=\"/v1/designs/plots/{figure}\""), "template label");
+        assertFalse(metrics.contains("route=\"/v1/designs/plots/bode\""), "no per-value label");
+        assertTrue(metrics.contains("route=\"other\""), "unmatched paths share one label");
+    }
+
     /** A negative step on an unstable plant with a rise-time spec: the band is still drawn with a height. */
     @Test
     void negativeStepKeepsTheBandAndTheRiseSpec() throws Exception {
