@@ -19,7 +19,6 @@ import com.loopwright.api.exchange.TakeawayExchange;
 import com.loopwright.service.routes.ContractRoute;
 import com.loopwright.service.routes.ControllerRoute;
 import com.loopwright.service.routes.DashboardRoute;
-import com.loopwright.service.routes.DesignRoute;
 import com.loopwright.service.routes.JsonExchangeRoute;
 import com.loopwright.service.routes.HealthRoute;
 import com.loopwright.service.routes.MetricsRoute;
@@ -42,6 +41,7 @@ import org.slf4j.MDC;
 /** Builds the Javalin application: routes, limits, security, observability and the problem+json error model. */
 public final class LoopwrightApp {
 
+    public static final String DESIGN_PATH = "/v1/designs";
     public static final String FIT_PATH = "/v1/models/fit";
     public static final String HIGH_ORDER_PATH = "/v1/designs/high-order";
     public static final String VERIFICATION_PATH = "/v1/verifications";
@@ -50,7 +50,7 @@ public final class LoopwrightApp {
     private static final Logger ACCESS = LoggerFactory.getLogger("com.loopwright.access");
     private static final String STARTED_NANOS = "loopwright.startedNanos";
     /** Route labels of the metrics; any other path is counted as "other" so that label values stay bounded. */
-    static final Set<String> ROUTES = Set.of(DesignRoute.PATH, BatchRoute.PATH, ContractRoute.PATH, HealthRoute.PATH,
+    static final Set<String> ROUTES = Set.of(DESIGN_PATH, BatchRoute.PATH, ContractRoute.PATH, HealthRoute.PATH,
             HealthRoute.LIVE_PATH, ReadinessRoute.PATH, MetricsRoute.PATH, FIT_PATH, HIGH_ORDER_PATH,
             VERIFICATION_PATH, PlotRoute.PATH, ControllerRoute.PATH, DashboardRoute.PATH);
 
@@ -72,7 +72,8 @@ public final class LoopwrightApp {
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
         Cors cors = new Cors(config.corsOrigins());
-        DesignRoute design = new DesignRoute(mapper, problems, designs, pool, metrics);
+        JsonExchangeRoute design = new JsonExchangeRoute(mapper, problems, pool, designs::design,
+                outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems());
         JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool, new FitExchange(mapper)::exchange);
         JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(mapper, problems, pool,
@@ -112,13 +113,13 @@ public final class LoopwrightApp {
                     keys.check(ctx.header("Authorization"), ctx.header(ApiKeys.HEADER));
                 }
             });
-            javalin.routes.post(DesignRoute.PATH, design);
+            javalin.routes.post(DESIGN_PATH, design);
             javalin.routes.post(BatchRoute.PATH, batch);
             javalin.routes.post(FIT_PATH, fits);
             javalin.routes.post(HIGH_ORDER_PATH, highOrderDesigns);
             javalin.routes.post(VERIFICATION_PATH, verifications);
             if (cors.enabled()) {
-                javalin.routes.options(DesignRoute.PATH, cors::preflight);
+                javalin.routes.options(DESIGN_PATH, cors::preflight);
                 javalin.routes.options(BatchRoute.PATH, cors::preflight);
                 for (String path : new String[] {FIT_PATH, HIGH_ORDER_PATH, VERIFICATION_PATH, PlotRoute.PATH,
                         ControllerRoute.PATH}) {
