@@ -17,7 +17,6 @@ import com.loopwright.service.observe.RequestIds;
 import com.loopwright.service.routes.BatchRoute;
 import com.loopwright.api.exchange.TakeawayExchange;
 import com.loopwright.service.routes.ContractRoute;
-import com.loopwright.service.routes.ControllerRoute;
 import com.loopwright.service.routes.DashboardRoute;
 import com.loopwright.service.routes.JsonExchangeRoute;
 import com.loopwright.service.routes.HealthRoute;
@@ -26,7 +25,7 @@ import com.loopwright.service.routes.ReadinessRoute;
 import com.loopwright.service.security.ApiKeys;
 import com.loopwright.service.security.Cors;
 import com.loopwright.service.security.SecurityHeaders;
-import com.loopwright.service.routes.PlotRoute;
+import com.loopwright.service.routes.TakeawayRoute;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HandlerType;
@@ -52,7 +51,7 @@ public final class LoopwrightApp {
     /** Route labels of the metrics; any other path is counted as "other" so that label values stay bounded. */
     static final Set<String> ROUTES = Set.of(DESIGN_PATH, BatchRoute.PATH, ContractRoute.PATH, HealthRoute.PATH,
             HealthRoute.LIVE_PATH, ReadinessRoute.PATH, MetricsRoute.PATH, FIT_PATH, HIGH_ORDER_PATH,
-            VERIFICATION_PATH, PlotRoute.PATH, ControllerRoute.PATH, DashboardRoute.PATH);
+            VERIFICATION_PATH, TakeawayRoute.PLOTS_PATH, TakeawayRoute.CONTROLLERS_PATH, DashboardRoute.PATH);
 
     private LoopwrightApp() {
     }
@@ -82,8 +81,8 @@ public final class LoopwrightApp {
                 new VerificationExchange(mapper)::exchange);
         HealthRoute health = new HealthRoute();
         TakeawayExchange takeaways = new TakeawayExchange(mapper);
-        PlotRoute plots = new PlotRoute(takeaways, problems, pool);
-        ControllerRoute controllers = new ControllerRoute(takeaways, problems, pool);
+        TakeawayRoute plots = new TakeawayRoute("figure", takeaways::plot, problems, pool);
+        TakeawayRoute controllers = new TakeawayRoute("format", takeaways::controller, problems, pool);
         DashboardRoute dashboard = new DashboardRoute();
         return Javalin.create(javalin -> {
             javalin.http.maxRequestSize = config.maxRequestBytes();
@@ -121,8 +120,8 @@ public final class LoopwrightApp {
             if (cors.enabled()) {
                 javalin.routes.options(DESIGN_PATH, cors::preflight);
                 javalin.routes.options(BatchRoute.PATH, cors::preflight);
-                for (String path : new String[] {FIT_PATH, HIGH_ORDER_PATH, VERIFICATION_PATH, PlotRoute.PATH,
-                        ControllerRoute.PATH}) {
+                for (String path : new String[] {FIT_PATH, HIGH_ORDER_PATH, VERIFICATION_PATH, TakeawayRoute.PLOTS_PATH,
+                        TakeawayRoute.CONTROLLERS_PATH}) {
                     javalin.routes.options(path, cors::preflight);
                 }
             }
@@ -136,8 +135,8 @@ public final class LoopwrightApp {
                 e.headers().forEach(ctx::header);
                 problems.write(ctx, e.problem());
             });
-            javalin.routes.post(PlotRoute.PATH, plots);
-            javalin.routes.post(ControllerRoute.PATH, controllers);
+            javalin.routes.post(TakeawayRoute.PLOTS_PATH, plots);
+            javalin.routes.post(TakeawayRoute.CONTROLLERS_PATH, controllers);
             javalin.routes.get(DashboardRoute.PATH, dashboard);
             javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,
                     statusProblem(e.getStatus())));

@@ -1,0 +1,59 @@
+package com.loopwright.service.routes;
+
+import com.loopwright.api.exchange.Takeaway;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.compute.ComputePool;
+import com.loopwright.service.http.JsonBodies;
+import com.loopwright.service.http.ProblemResponses;
+import io.javalin.http.Context;
+import io.javalin.http.Handler;
+import java.nio.charset.StandardCharsets;
+import java.util.function.BiFunction;
+
+/**
+ * POST /v1/designs/plots/{figure} and /v1/designs/controllers/{format}: a JSON body and one path parameter in,
+ * a text artifact (SVG, Structured Text, C, JSON) or a problem out, computed on the bounded pool.
+ */
+public final class TakeawayRoute implements Handler {
+
+    public static final String PLOTS_PATH = "/v1/designs/plots/{figure}";
+    public static final String CONTROLLERS_PATH = "/v1/designs/controllers/{format}";
+
+    private final String parameter;
+    private final BiFunction<String, byte[], Takeaway> work;
+    private final ProblemResponses problems;
+    private final ComputePool pool;
+
+    /**
+     * @param parameter the path parameter handed to {@code work} with the body (figure or format)
+     */
+    public TakeawayRoute(String parameter, BiFunction<String, byte[], Takeaway> work, ProblemResponses problems,
+                         ComputePool pool) {
+        this.parameter = parameter;
+        this.work = work;
+        this.problems = problems;
+        this.pool = pool;
+    }
+
+    @Override
+    public void handle(Context ctx) {
+        if (!JsonBodies.isJson(ctx.contentType())) {
+            problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
+                    "send the request with Content-Type: application/json"));
+            return;
+        }
+        String value = ctx.pathParam(parameter);
+        byte[] body = ctx.bodyAsBytes();
+        Takeaway takeaway = pool.run(() -> work.apply(value, body),
+                problem -> new Takeaway(problem.status(), Problem.MEDIA_TYPE, null, problem));
+        if (!takeaway.ok()) {
+            if (takeaway.status() == 503) {
+                ctx.header("Retry-After", String.valueOf(ComputePool.RETRY_AFTER_SECONDS));
+            }
+            problems.write(ctx, takeaway.problem());
+            return;
+        }
+        ctx.status(200).contentType(takeaway.mediaType()).result(takeaway.body().getBytes(StandardCharsets.UTF_8));
+    }
+}
