@@ -68,26 +68,10 @@ public final class DesignFigures {
      * response and the spec envelope on top.
      */
     public String uncertaintyBand(DesignReport report, StepEnvelope.Band band, String rangesText) {
-        double r = report.stepSize();
-        double settlingBand = report.bandFraction();
-        double overshootLimit = r * (1 + report.spec().overshootFraction());
-        double low = Math.min(Math.min(0, min(band.lowerX1())), r * (1 - settlingBand));
-        double high = Math.max(Math.max(max(band.upperX1()), overshootLimit), r * (1 + settlingBand));
-        if (r < 0) {
-            low = Math.min(Math.min(min(band.lowerX1()), overshootLimit), r * (1 + settlingBand));
-            high = Math.max(0, max(band.upperX1()));
-        }
         StringBuilder svg = open(1, "Step response under parameter uncertainty (" + band.drawnCases()
                 + " parameter sets" + (band.unstableCases() > 0 ? ", " + band.unstableCases() + " unstable, not drawn"
                 : "") + ")");
-        SvgPanel panel = new SvgPanel(svg, LEFT, TOP, WIDTH - LEFT - RIGHT, PANEL_HEIGHT,
-                NiceTicks.covering(0, report.horizonSeconds(), 8), NiceTicks.covering(low, high, 7), false);
-        panel.frame("time t [s]", "position x1 [x1 units]");
-        panel.band("band", r * (1 - settlingBand), r * (1 + settlingBand));
-        panel.horizontal("spec", overshootLimit, "overshoot limit " + format(100 * report.spec().overshootFraction()) + "%");
-        if (report.spec().timeSpec() instanceof TimeSpec.SettlingTime settling) {
-            panel.vertical("spec", settling.seconds(), "settling spec " + format(settling.seconds()) + " s");
-        }
+        SvgPanel panel = specPanel(svg, report, min(band.lowerX1()), max(band.upperX1()));
         panel.envelope("spread", band.timeSeconds(), band.lowerX1(), band.upperX1());
         panel.polyline("series", band.timeSeconds(), band.nominalX1());
         panel.text(LEFT + 8, TOP + PANEL_HEIGHT - 10, "start", rangesText);
@@ -95,22 +79,20 @@ public final class DesignFigures {
         return close(svg);
     }
 
-
-
-    String stepResponse(DesignReport report) {
-        StepResponse step = simulate(report);
-        StepMetrics metrics = report.verification().metrics();
+    /**
+     * A position-versus-time panel with the spec envelope: the settling band, the overshoot limit and the time
+     * spec, its y range covering [lowest, highest] of the drawn series, zero and the envelope.
+     */
+    private static SvgPanel specPanel(StringBuilder svg, DesignReport report, double lowest, double highest) {
         double r = report.stepSize();
         double band = report.bandFraction();
         double overshootLimit = r * (1 + report.spec().overshootFraction());
-        double[] y = step.output();
-        double low = Math.min(0, min(y));
-        double high = Math.max(Math.max(max(y), overshootLimit), r * (1 + band));
+        double low = Math.min(0, lowest);
+        double high = Math.max(Math.max(highest, overshootLimit), r * (1 + band));
         if (r < 0) {
-            high = Math.max(0, max(y));
-            low = Math.min(Math.min(min(y), overshootLimit), r * (1 + band));
+            high = Math.max(0, highest);
+            low = Math.min(Math.min(lowest, overshootLimit), r * (1 + band));
         }
-        StringBuilder svg = open(1, "Step response: position x1 after a setpoint step of " + format(r));
         SvgPanel panel = new SvgPanel(svg, LEFT, TOP, WIDTH - LEFT - RIGHT, PANEL_HEIGHT,
                 NiceTicks.covering(0, report.horizonSeconds(), 8), NiceTicks.covering(low, high, 7), false);
         panel.frame("time t [s]", "position x1 [x1 units]");
@@ -121,6 +103,16 @@ public final class DesignFigures {
         } else if (report.spec().timeSpec() instanceof TimeSpec.RiseTime rise) {
             panel.vertical("spec", rise.seconds(), "rise spec " + format(rise.seconds()) + " s");
         }
+        return panel;
+    }
+
+    String stepResponse(DesignReport report) {
+        StepResponse step = simulate(report);
+        StepMetrics metrics = report.verification().metrics();
+        double r = report.stepSize();
+        double[] y = step.output();
+        StringBuilder svg = open(1, "Step response: position x1 after a setpoint step of " + format(r));
+        SvgPanel panel = specPanel(svg, report, min(y), max(y));
         panel.polyline("series", step.timeSeconds(), y);
         panel.vertical("measured", metrics.settlingTimeSeconds(), null);
         panel.marker("point", metrics.settlingTimeSeconds(), valueAt(step, metrics.settlingTimeSeconds()),
@@ -129,7 +121,7 @@ public final class DesignFigures {
         panel.marker("point", riseEnd, 0.9 * r, "rise (10-90%) " + format(metrics.riseTimeSeconds()) + " s");
         panel.marker("point", metrics.peakTimeSeconds(), r * (1 + metrics.overshootPercent() / 100),
                 "peak overshoot " + format(metrics.overshootPercent()) + "%");
-        legend(svg, "x1(t)", "band", "settling band +-" + format(100 * band) + "%");
+        legend(svg, "x1(t)", "band", "settling band +-" + format(100 * report.bandFraction()) + "%");
         return close(svg);
     }
 
