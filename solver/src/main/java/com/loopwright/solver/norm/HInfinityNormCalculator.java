@@ -250,7 +250,7 @@ public final class HInfinityNormCalculator {
         return n;
     }
 
-    private static void requireFinite(DMatrixRMaj m, String name) {
+    static void requireFinite(DMatrixRMaj m, String name) {
         for (int i = 0; i < m.getNumElements(); i++) {
             if (!Double.isFinite(m.data[i])) {
                 throw new IllegalArgumentException(name + " has a non-finite entry at (" + i / m.numCols + ", " + i % m.numCols + ")");

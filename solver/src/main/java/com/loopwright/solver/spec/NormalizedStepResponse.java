@@ -14,12 +14,17 @@ public final class NormalizedStepResponse {
     private static final double CRITICAL_TOLERANCE = 1e-7;
 
     private final double dampingRatio;
+    /** s = sqrt(1 - zeta^2) and acos zeta (underdamped), computed once: root finders evaluate y many times. */
+    private final double dampedRatio;
+    private final double phase;
 
     public NormalizedStepResponse(double dampingRatio) {
         if (!(dampingRatio > 0) || !Double.isFinite(dampingRatio)) {
             throw new IllegalArgumentException("damping ratio must be positive and finite: " + dampingRatio);
         }
         this.dampingRatio = dampingRatio;
+        this.dampedRatio = dampingRatio < 1 ? Math.sqrt(1 - dampingRatio * dampingRatio) : 0;
+        this.phase = dampingRatio < 1 ? Math.acos(dampingRatio) : 0;
     }
 
     public double dampingRatio() {
@@ -33,15 +38,14 @@ public final class NormalizedStepResponse {
 
     /** Damped frequency over wn, sqrt(1 - zeta^2), for the underdamped case. */
     public double dampedFrequencyRatio() {
-        return Math.sqrt(1 - dampingRatio * dampingRatio);
+        return dampedRatio;
     }
 
     /** y(tau) for tau &gt;= 0. */
     public double at(double tau) {
         double zeta = dampingRatio;
         if (underdamped()) {
-            double s = dampedFrequencyRatio();
-            return 1 - Math.exp(-zeta * tau) / s * Math.sin(s * tau + Math.acos(zeta));
+            return 1 - Math.exp(-zeta * tau) / dampedRatio * Math.sin(dampedRatio * tau + phase);
         }
         if (dampingRatio <= 1 + CRITICAL_TOLERANCE) {
             return 1 - Math.exp(-tau) * (1 + tau);

@@ -2,7 +2,7 @@ package com.loopwright.solver.verify;
 
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.norm.HInfinityNorm;
-import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.norm.TwoStatePeakGain;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
 import com.loopwright.solver.riccati.RiccatiResidual;
 import com.loopwright.solver.riccati.RiccatiSolution;
@@ -16,17 +16,18 @@ import org.ejml.dense.row.NormOps_DDRM;
 
 /**
  * Checks a closed-form design by independent routes: the Riccati residual of the closed-form P, a numeric
- * Hamiltonian solve of the same equation, the closed-loop H-infinity norm from w to z, and a simulated step.
+ * Hamiltonian solve of the same equation, the closed-loop H-infinity norm from w to z (exact peak of the
+ * two-state loop's gain, from the loop matrices alone), and a simulated step.
  */
 public final class DesignVerifier {
 
     /** Numeric and closed-form P must agree to this relative Frobenius difference to certify. */
     public static final double AGREEMENT_TOLERANCE = 1e-6;
-    /** Relative slack on hinfNorm &lt;= gamma for the rounding of the norm's bisection. */
+    /** Relative slack on hinfNorm &lt;= gamma for rounding (the norm of a design at its bound equals gamma). */
     public static final double NORM_TOLERANCE = 1e-8;
 
     private final HamiltonianRiccatiSolver riccatiSolver = new HamiltonianRiccatiSolver();
-    private final HInfinityNormCalculator normCalculator = new HInfinityNormCalculator();
+    private final TwoStatePeakGain normCalculator = new TwoStatePeakGain();
     private final StepResponseMetrics stepMetrics = new StepResponseMetrics();
     private final SpecCompliance compliance = new SpecCompliance();
 
