@@ -1,5 +1,6 @@
 package com.loopwright.solver.norm;
 
+import com.loopwright.solver.linalg.TwoByTwoSpectrum;
 import java.util.Objects;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.NormOps_DDRM;
@@ -45,7 +46,7 @@ public final class TwoStatePeakGain {
         double a22 = a.get(1, 1);
         double tau = -(a11 + a22);
         double delta = a11 * a22 - a12 * a21;
-        requireHurwitz(tau, delta, NormOps_DDRM.normF(a));
+        requireHurwitz(a);
 
         double b1 = b.get(0, 0);
         double b2 = b.get(1, 0);
@@ -80,22 +81,9 @@ public final class TwoStatePeakGain {
         return (alpha + beta * t) / (offResonance * offResonance + tau * tau * t);
     }
 
-    /**
-     * Spectral abscissa of A from tau = -tr A, delta = det A: Re lambda = -tau/2 for complex roots, else the
-     * larger real root -tau/2 + sqrt(tau^2/4 - delta), written as delta / (-tau/2 - sqrt(...)) to avoid cancellation.
-     */
-    private static void requireHurwitz(double tau, double delta, double aNorm) {
-        double half = -0.5 * tau;
-        double discriminant = half * half - delta;
-        double abscissa;
-        if (discriminant < 0.0) {
-            abscissa = half;
-        } else if (half < 0.0) {
-            abscissa = delta / (half - Math.sqrt(discriminant));
-        } else {
-            abscissa = half + Math.sqrt(discriminant);
-        }
-        double margin = HURWITZ_MARGIN * aNorm;
+    private static void requireHurwitz(DMatrixRMaj a) {
+        double abscissa = TwoByTwoSpectrum.of(a).abscissa();
+        double margin = HURWITZ_MARGIN * NormOps_DDRM.normF(a);
         if (!(abscissa < -margin)) {
             throw new UnstableSystemException("A is not Hurwitz: its largest eigenvalue real part is " + abscissa
                     + " (required < " + (-margin) + "), so the H-infinity norm is infinite or undefined;"
