@@ -3,6 +3,7 @@ package com.loopwright.bench;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.norm.HInfinityNorm;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.norm.TwoStatePeakGain;
 import java.util.concurrent.TimeUnit;
 import org.ejml.data.DMatrixRMaj;
 import org.openjdk.jmh.annotations.Benchmark;
@@ -14,7 +15,8 @@ import org.openjdk.jmh.annotations.State;
 
 /**
  * The closed-loop H-infinity norm from w to z = [rho1 x1, rho2 x2, u] of the indexing-axis design:
- * A_cl = [[0, 1], [-a0 - b k1, -a1 - b k2]], B1 = [0, d]', C_z = [[rho1, 0], [0, rho2], [-k1, -k2]].
+ * A_cl = [[0, 1], [-a0 - b k1, -a1 - b k2]], B1 = [0, d]', C_z = [[rho1, 0], [0, rho2], [-k1, -k2]];
+ * by the general Hamiltonian iteration (any n) and by the exact two-state peak gain that designs use.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -22,6 +24,7 @@ import org.openjdk.jmh.annotations.State;
 public class HInfinityNormBenchmark {
 
     private final HInfinityNormCalculator calculator = new HInfinityNormCalculator();
+    private final TwoStatePeakGain peakGain = new TwoStatePeakGain();
     private final DMatrixRMaj closedLoop;
     private final DMatrixRMaj disturbanceInput;
     private final DMatrixRMaj performanceOutput;
@@ -41,5 +44,10 @@ public class HInfinityNormBenchmark {
     @Benchmark
     public HInfinityNorm closedLoopNorm() {
         return calculator.compute(closedLoop, disturbanceInput, performanceOutput);
+    }
+
+    @Benchmark
+    public HInfinityNorm twoStatePeakGain() {
+        return peakGain.compute(closedLoop, disturbanceInput, performanceOutput);
     }
 }

@@ -51,6 +51,16 @@ class BenchmarkFixturesTest {
     }
 
     @Test
+    void bothNormRoutesAgreeOnTheBenchmarkLoop() {
+        // independent routes: Hamiltonian eigenvalue iteration (within 2e-10 below the norm) and the exact
+        // two-state peak gain
+        HInfinityNormBenchmark benchmark = new HInfinityNormBenchmark();
+        double iterated = benchmark.closedLoopNorm().value();
+        double exact = benchmark.twoStatePeakGain().value();
+        assertTrue(exact >= iterated && exact <= iterated * (1 + 2.5e-10), exact + " vs " + iterated);
+    }
+
+    @Test
     void exchangeBenchmarkRequestProducesACertifiedDesign() throws Exception {
         ObjectMapper mapper = StrictJson.newMapper();
         Outcome outcome = new DesignExchange(mapper).exchange(Scenarios.indexingAxisRequestBytes());
