@@ -20,19 +20,54 @@ final class LinearSignal {
     private final double offset;
     private final double[] sampleValue;
     private final double[] sampleRate;
+    /** x(t) between samples, reused by every evaluation. */
+    private final double[] scratch;
 
     LinearSignal(ExactTrajectory trajectory, double[] weights, double offset) {
         this.trajectory = trajectory;
         this.weights = weights.clone();
         this.offset = offset;
         int count = trajectory.sampleCount();
+        int n = trajectory.stateDimension();
+        this.sampleValue = new double[count];
+        this.sampleRate = new double[count];
+        this.scratch = new double[n];
+        if (n == 2) {
+            trajectory.sampleTwoStateSignal(this.weights, offset, sampleValue, sampleRate);
+        } else {
+            double[] states = trajectory.sampleStates();
+            for (int k = 0; k < count; k++) {
+                sampleValue[k] = valueOf(states, k * n);
+                sampleRate[k] = trajectory.rateAlong(this.weights, states, k * n);
+            }
+        }
+    }
+
+    /** -s: the same trajectory with negated weights and offset; its samples are negated exactly. */
+    private LinearSignal(LinearSignal signal) {
+        this.trajectory = signal.trajectory;
+        this.weights = new double[signal.weights.length];
+        for (int i = 0; i < weights.length; i++) {
+            weights[i] = -signal.weights[i];
+        }
+        this.offset = -signal.offset;
+        int count = signal.sampleValue.length;
         this.sampleValue = new double[count];
         this.sampleRate = new double[count];
         for (int k = 0; k < count; k++) {
-            double[] x = trajectory.sampleState(k);
-            sampleValue[k] = valueOf(x);
-            sampleRate[k] = rateOf(x);
+            sampleValue[k] = -signal.sampleValue[k];
+            sampleRate[k] = -signal.sampleRate[k];
         }
+        this.scratch = new double[signal.scratch.length];
+    }
+
+    /**
+     * The signal -s. Its sample values and rates are those a new signal with weights -w and
+     * offset -offset would compute, bit for bit: rounding to nearest is symmetric under negation,
+     * so every partial sum just changes sign.
+     */
+    LinearSignal negated() {
+        return new LinearSignal(this);
     }
 
     int sampleCount() {
@@ -47,26 +82,25 @@ final class LinearSignal {
         return trajectory.time(k);
     }
 
-    private double valueOf(double[] x) {
+    /** offset + w . x, x at values[from .. from + n). */
+    private double valueOf(double[] values, int from) {
         double sum = offset;
-        for (int i = 0; i < x.length; i++) {
-            sum += weights[i] * x[i];
-        }
-        return sum;
-    }
-
-    private double rateOf(double[] x) {
-        double[] xDot = trajectory.rate(x);
-        double sum = 0.0;
-        for (int i = 0; i < xDot.length; i++) {
-            sum += weights[i] * xDot[i];
+        for (int i = 0; i < weights.length; i++) {
+            sum += weights[i] * values[from + i];
         }
         return sum;
     }
 
     /** s(t) for t in [t_k, t_(k+1)]. */
     double valueBetween(int k, double tSeconds) {
-        return valueOf(trajectory.stateBetween(k, tSeconds));
+        trajectory.stateBetween(k, tSeconds, scratch);
+        return valueOf(scratch, 0);
+    }
+
+    /** s'(t) for t in [t_k, t_(k+1)]. */
+    double rateBetween(int k, double tSeconds) {
+        trajectory.stateBetween(k, tSeconds, scratch);
+        return trajectory.rateAlong(weights, scratch, 0);
     }
 
     /** Interval k has an interior maximum: s' goes from positive to negative. */
@@ -99,7 +133,7 @@ final class LinearSignal {
 
     /** The critical point s'(t*) = 0 inside interval k, by Brent's method on the exact s'. */
     Point criticalPoint(int k) {
-        double tStar = BracketedRoot.find(t -> rateOf(trajectory.stateBetween(k, t)),
+        double tStar = BracketedRoot.find(t -> rateBetween(k, t),
             time(k), time(k + 1), sampleRate[k], sampleRate[k + 1]);
         return new Point(tStar, valueBetween(k, tStar));
     }
@@ -123,18 +157,29 @@ final class LinearSignal {
      */
     Point maximum() {
         int count = sampleCount();
+        // The best value is kept in a local: comparing against sampleValue[bestSample] would make
+        // each step wait for a load that depends on the previous step.
         int bestSample = 0;
+        double bestValue = sampleValue[0];
         for (int k = 1; k < count; k++) {
-            if (sampleValue[k] > sampleValue[bestSample]) {
+            double value = sampleValue[k];
+            if (value > bestValue) {
+                bestValue = value;
                 bestSample = k;
             }
         }
-        Point best = new Point(time(bestSample), sampleValue[bestSample]);
+        Point best = new Point(time(bestSample), bestValue);
+        // Count first, then collect: usually there are a handful of candidates, not count - 1.
         int candidateCount = 0;
-        int[] candidates = new int[count - 1];
         for (int k = 0; k < count - 1; k++) {
-            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > best.value()) {
-                candidates[candidateCount++] = k;
+            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > bestValue) {
+                candidateCount++;
+            }
+        }
+        int[] candidates = new int[candidateCount];
+        for (int k = 0, found = 0; found < candidateCount; k++) {
+            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > bestValue) {
+                candidates[found++] = k;
             }
         }
         Integer[] order = new Integer[candidateCount];

@@ -1,5 +1,6 @@
 package com.loopwright.solver.simulation;
 
+import java.util.function.BiFunction;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.NormOps_DDRM;
@@ -50,6 +51,17 @@ public final class StepResponseMetrics {
      */
     public StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
                                double settlingBandFraction) {
+        return measure(loop, stepSize, horizonSeconds, samples, settlingBandFraction,
+            SubIntervalPropagator::of);
+    }
+
+    /**
+     * {@link #measure(LinearLoop, double, double, int, double)} with a chosen propagation between
+     * samples (tests compare the closed form for n = 2 with the general zero-order hold).
+     */
+    StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
+                        double settlingBandFraction,
+                        BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
         StepSimulator.validate(loop, stepSize, horizonSeconds, samples);
         if (stepSize == 0.0) {
             throw new IllegalArgumentException("stepSize must be non-zero");
@@ -69,19 +81,19 @@ public final class StepResponseMetrics {
         }
         double finalValue = finalValue(loop, stepSize);
 
-        // The samples only feed the trajectory, so they are not copied into a StepResponse first.
-        StepSimulator.Samples response = StepSimulator.sample(loop, stepSize, horizonSeconds, samples);
-        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, response.timeSeconds(), response.state());
+        // The samples only feed the trajectory, so their arrays are shared, not copied.
+        StepResponse response = StepSimulator.sample(loop, stepSize, horizonSeconds, samples);
+        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize,
+            response.sharedTimeSeconds(), response.sharedStateRowMajor(),
+            propagators.apply(loop, stepSize));
         int n = loop.stateDimension();
         DMatrixRMaj cOut = loop.cOut();
         DMatrixRMaj cControl = loop.cControl();
         double[] normalisedOutputWeights = new double[n];
         double[] controlWeights = new double[n];
-        double[] negatedControlWeights = new double[n];
         for (int j = 0; j < n; j++) {
             normalisedOutputWeights[j] = cOut.get(0, j) / finalValue;
             controlWeights[j] = cControl.get(0, j);
-            negatedControlWeights[j] = -cControl.get(0, j);
             if (!Double.isFinite(normalisedOutputWeights[j])) {
                 throw new IllegalArgumentException("cOut / y_inf overflows: final value "
                     + finalValue + " is too close to zero");
@@ -107,10 +119,9 @@ public final class StepResponseMetrics {
         double overshootPercent = Math.max(0.0, 100.0 * (peak.value() - 1.0));
 
         // max |u| = max(max u, max -u), both including u(0+) = dControl r at sample 0.
-        LinearSignal.Point controlMax =
-            new LinearSignal(trajectory, controlWeights, controlOffset).maximum();
-        LinearSignal.Point controlMin =
-            new LinearSignal(trajectory, negatedControlWeights, -controlOffset).maximum();
+        LinearSignal control = new LinearSignal(trajectory, controlWeights, controlOffset);
+        LinearSignal.Point controlMax = control.maximum();
+        LinearSignal.Point controlMin = control.negated().maximum();
         double peakControl = Math.max(Math.abs(controlMax.value()), Math.abs(controlMin.value()));
 
         return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,
