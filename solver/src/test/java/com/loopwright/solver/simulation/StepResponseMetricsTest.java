@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.Random;
 import java.util.function.DoubleUnaryOperator;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
@@ -384,6 +385,66 @@ class StepResponseMetricsTest {
             "peak control " + m.peakControl() + " vs " + peakControl);
         assertEquals(finalValue, m.finalValue(), 1e-12 * Math.abs(finalValue));
         assertEquals(r - finalValue, m.steadyStateError(), 1e-12 * Math.abs(finalValue));
+    }
+
+    @Test
+    void closedFormPropagationGivesTheMetricsOfTheGeneralRouteOnRandomTwoStateLoops() {
+        // source: the general n-state route (x(t_k + tau) by the zero-order hold of (A, bRef) over
+        // tau, HoldPropagator) on the same samples, for 150 random stable 2-state loops (Gaussian
+        // A shifted to be Hurwitz, Gaussian bRef, cOut, cControl, dControl, r) and 30 companion
+        // loops at and near critical damping; every metric agrees to 1e-12 relative (overshoot
+        // to 1e-12 percent points, peak time to 1e-10: a flat maximum puts it where z' = 0, known
+        // only to about eps / z'' in time).
+        Random random = new Random(2026L);
+        int measured = 0;
+        for (int c = 0; c < 180; c++) {
+            LinearLoop loop;
+            if (c < 150) {
+                double scale = Math.pow(10, 3 * random.nextDouble() - 1);
+                LinearLoop unit = SecondOrderLoops.randomStableLoop(5000L + c, 2, 0.05 + random.nextDouble());
+                DMatrixRMaj a = unit.a();
+                CommonOps_DDRM.scale(scale, a);
+                loop = new LinearLoop(a, unit.bRef(), unit.cOut(), unit.cControl(), unit.dControl());
+            } else {
+                double zeta = 1.0 + (c % 3 - 1) * Math.pow(10, -4 - random.nextInt(8)) * (c % 2 == 0 ? 0 : 1);
+                loop = SecondOrderLoops.stateFeedbackLoop(zeta, Math.pow(10, 2 * random.nextDouble()));
+            }
+            double r = c < 150 ? random.nextGaussian() : 1.0;
+            double[] window = window(loop.a());
+            int samples = (int) window[1];
+            StepMetrics closed;
+            try {
+                closed = metrics.measure(loop, r, window[0], samples, BAND);
+            } catch (IllegalArgumentException e) {
+                // Both routes refuse the same loops (e.g. a final value of zero).
+                IllegalArgumentException general = assertThrows(IllegalArgumentException.class,
+                    () -> metrics.measure(loop, r, window[0], samples, BAND, HoldPropagator::new));
+                assertEquals(e.getMessage(), general.getMessage());
+                continue;
+            }
+            StepMetrics general = metrics.measure(loop, r, window[0], samples, BAND, HoldPropagator::new);
+            String label = "loop " + c + ": " + closed + " vs " + general;
+            assertTrue(relative(closed.riseTimeSeconds(), general.riseTimeSeconds()) <= 1e-12, label);
+            assertTrue(relative(closed.settlingTimeSeconds(), general.settlingTimeSeconds()) <= 1e-12, label);
+            assertEquals(general.overshootPercent(), closed.overshootPercent(), 1e-12, label);
+            assertTrue(relative(closed.peakTimeSeconds(), general.peakTimeSeconds()) <= 1e-10, label);
+            assertTrue(relative(closed.peakControl(), general.peakControl()) <= 1e-12, label);
+            assertEquals(general.finalValue(), closed.finalValue(), label);
+            assertEquals(general.steadyStateError(), closed.steadyStateError(), label);
+            measured++;
+        }
+        assertTrue(measured >= 150, measured + " loops measured");
+    }
+
+    /** Horizon 12 / min |Re lambda| and samples for h max |Im lambda| <= 1.2 (at least 500). */
+    private static double[] window(DMatrixRMaj a) {
+        double trace = a.get(0, 0) + a.get(1, 1);
+        double determinant = a.get(0, 0) * a.get(1, 1) - a.get(0, 1) * a.get(1, 0);
+        double discriminant = trace * trace / 4 - determinant;
+        double slowest = discriminant >= 0 ? -(trace / 2 + Math.sqrt(discriminant)) : -trace / 2;
+        double oscillation = discriminant >= 0 ? 0 : Math.sqrt(-discriminant);
+        double horizon = 12 / slowest;
+        return new double[] {horizon, Math.min(100_000, Math.max(500, Math.ceil(horizon * oscillation / 1.2) + 1))};
     }
 
     @Test
