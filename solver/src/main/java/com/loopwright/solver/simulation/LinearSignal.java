@@ -23,6 +23,19 @@ final class LinearSignal {
     /** x(t) between samples, reused by every evaluation. */
     private final double[] scratch;
 
+    /** Takes over the recorded samples of a signal along the trajectory's samples. */
+    LinearSignal(ExactTrajectory trajectory, SampledSignal samples) {
+        if (samples.valueArray() == null || samples.valueArray().length != trajectory.sampleCount()) {
+            throw new IllegalArgumentException("the signal was not recorded on this trajectory");
+        }
+        this.trajectory = trajectory;
+        this.weights = samples.weights();
+        this.offset = samples.offset();
+        this.sampleValue = samples.valueArray();
+        this.sampleRate = samples.rateArray();
+        this.scratch = new double[trajectory.stateDimension()];
+    }
+
     LinearSignal(ExactTrajectory trajectory, double[] weights, double offset) {
         this.trajectory = trajectory;
         this.weights = weights.clone();
@@ -32,42 +45,11 @@ final class LinearSignal {
         this.sampleValue = new double[count];
         this.sampleRate = new double[count];
         this.scratch = new double[n];
-        if (n == 2) {
-            trajectory.sampleTwoStateSignal(this.weights, offset, sampleValue, sampleRate);
-        } else {
-            double[] states = trajectory.sampleStates();
-            for (int k = 0; k < count; k++) {
-                sampleValue[k] = valueOf(states, k * n);
-                sampleRate[k] = trajectory.rateAlong(this.weights, states, k * n);
-            }
-        }
-    }
-
-    /** -s: the same trajectory with negated weights and offset; its samples are negated exactly. */
-    private LinearSignal(LinearSignal signal) {
-        this.trajectory = signal.trajectory;
-        this.weights = new double[signal.weights.length];
-        for (int i = 0; i < weights.length; i++) {
-            weights[i] = -signal.weights[i];
-        }
-        this.offset = -signal.offset;
-        int count = signal.sampleValue.length;
-        this.sampleValue = new double[count];
-        this.sampleRate = new double[count];
+        double[] states = trajectory.sampleStates();
         for (int k = 0; k < count; k++) {
-            sampleValue[k] = -signal.sampleValue[k];
-            sampleRate[k] = -signal.sampleRate[k];
+            sampleValue[k] = valueOf(states, k * n);
+            sampleRate[k] = trajectory.rateAlong(this.weights, states, k * n);
         }
-        this.scratch = new double[signal.scratch.length];
-    }
-
-    /**
-     * The signal -s. Its sample values and rates are those a new signal with weights -w and
-     * offset -offset would compute, bit for bit: rounding to nearest is symmetric under negation,
-     * so every partial sum just changes sign.
-     */
-    LinearSignal negated() {
-        return new LinearSignal(this);
     }
 
     int sampleCount() {
@@ -156,48 +138,79 @@ final class LinearSignal {
      * whose upper estimate could beat the best value so far, largest estimate first.
      */
     Point maximum() {
+        return maximumOf(1.0);
+    }
+
+    /**
+     * The global maximum of -s, as the time and the value of -s there: the maximum of the signal
+     * with weights -w and offset -offset, bit for bit (rounding to nearest is symmetric under
+     * negation, so its sample values, rates, bounds and Brent iterates are exactly those of s
+     * with the sign changed), without building that signal's arrays.
+     */
+    Point maximumOfNegation() {
+        return maximumOf(-1.0);
+    }
+
+    /** The maximum of sign s for sign = +1 or -1 (multiplying by either is exact). */
+    private Point maximumOf(double sign) {
         int count = sampleCount();
         // The best value is kept in a local: comparing against sampleValue[bestSample] would make
         // each step wait for a load that depends on the previous step.
         int bestSample = 0;
-        double bestValue = sampleValue[0];
+        double bestValue = sign * sampleValue[0];
         for (int k = 1; k < count; k++) {
-            double value = sampleValue[k];
+            double value = sign * sampleValue[k];
             if (value > bestValue) {
                 bestValue = value;
                 bestSample = k;
             }
         }
         Point best = new Point(time(bestSample), bestValue);
-        // Count first, then collect: usually there are a handful of candidates, not count - 1.
+        // Count first, then collect from the first one: usually there are a handful of
+        // candidates, not count - 1.
         int candidateCount = 0;
+        int firstCandidate = count;
         for (int k = 0; k < count - 1; k++) {
-            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > bestValue) {
+            if (hasInteriorMaximum(k, sign) && signedMaximumBound(k, sign) > bestValue) {
                 candidateCount++;
+                firstCandidate = Math.min(firstCandidate, k);
             }
         }
-        int[] candidates = new int[candidateCount];
-        for (int k = 0, found = 0; found < candidateCount; k++) {
-            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > bestValue) {
-                candidates[found++] = k;
-            }
+        if (candidateCount == 0) {
+            return best;
         }
         Integer[] order = new Integer[candidateCount];
-        for (int i = 0; i < candidateCount; i++) {
-            order[i] = candidates[i];
+        for (int k = firstCandidate, found = 0; found < candidateCount; k++) {
+            if (hasInteriorMaximum(k, sign) && signedMaximumBound(k, sign) > bestValue) {
+                order[found++] = k;
+            }
         }
         java.util.Arrays.sort(order,
-            (p, q) -> Double.compare(interiorMaximumBound(q), interiorMaximumBound(p)));
+            (p, q) -> Double.compare(signedMaximumBound(q, sign), signedMaximumBound(p, sign)));
         for (int k : order) {
-            if (interiorMaximumBound(k) <= best.value()) {
+            if (signedMaximumBound(k, sign) <= best.value()) {
                 break;
             }
-            Point refined = criticalPoint(k);
+            double tStar = BracketedRoot.find(t -> sign * rateBetween(k, t),
+                time(k), time(k + 1), sign * sampleRate[k], sign * sampleRate[k + 1]);
+            Point refined = new Point(tStar, sign * valueBetween(k, tStar));
             if (refined.value() > best.value()) {
                 best = refined;
             }
         }
         return best;
+    }
+
+    /** Interval k has an interior maximum of sign s. */
+    private boolean hasInteriorMaximum(int k, double sign) {
+        return sign * sampleRate[k] > 0.0 && sign * sampleRate[k + 1] < 0.0;
+    }
+
+    /** {@link #interiorMaximumBound} of sign s. */
+    private double signedMaximumBound(int k, double sign) {
+        double width = time(k + 1) - time(k);
+        return Math.min(sign * sampleValue[k] + 2.0 * (sign * sampleRate[k]) * width,
+            sign * sampleValue[k + 1] - 2.0 * (sign * sampleRate[k + 1]) * width);
     }
 
     /**

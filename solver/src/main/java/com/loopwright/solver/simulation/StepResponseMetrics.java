@@ -81,27 +81,23 @@ public final class StepResponseMetrics {
         }
         double finalValue = finalValue(loop, stepSize);
 
-        // The samples only feed the trajectory, so their arrays are shared, not copied.
-        StepResponse response = StepSimulator.sample(loop, stepSize, horizonSeconds, samples);
-        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize,
-            response.sharedTimeSeconds(), response.sharedStateRowMajor(),
-            propagators.apply(loop, stepSize));
         int n = loop.stateDimension();
         DMatrixRMaj cOut = loop.cOut();
-        DMatrixRMaj cControl = loop.cControl();
         double[] normalisedOutputWeights = new double[n];
-        double[] controlWeights = new double[n];
         for (int j = 0; j < n; j++) {
             normalisedOutputWeights[j] = cOut.get(0, j) / finalValue;
-            controlWeights[j] = cControl.get(0, j);
             if (!Double.isFinite(normalisedOutputWeights[j])) {
                 throw new IllegalArgumentException("cOut / y_inf overflows: final value "
                     + finalValue + " is too close to zero");
             }
         }
-        double controlOffset = loop.dControl() * stepSize;
-        // z = y / y_inf: z(0) = 0, z -> 1.
-        LinearSignal normalisedOutput = new LinearSignal(trajectory, normalisedOutputWeights, 0.0);
+        // z = y / y_inf: z(0) = 0, z -> 1; and u. The simulator records their sample values and
+        // rates; the states only feed the trajectory, so they are shared, not copied.
+        StepSimulator.MetricSamples sampled = StepSimulator.sampleForMetrics(loop, stepSize,
+            horizonSeconds, samples, normalisedOutputWeights);
+        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, horizonSeconds,
+            sampled.stateRowMajor(), propagators.apply(loop, stepSize));
+        LinearSignal normalisedOutput = new LinearSignal(trajectory, sampled.output());
 
         double riseStart = normalisedOutput.firstTimeReaching(RISE_START_FRACTION);
         double riseEnd = normalisedOutput.firstTimeReaching(RISE_END_FRACTION);
@@ -119,9 +115,9 @@ public final class StepResponseMetrics {
         double overshootPercent = Math.max(0.0, 100.0 * (peak.value() - 1.0));
 
         // max |u| = max(max u, max -u), both including u(0+) = dControl r at sample 0.
-        LinearSignal control = new LinearSignal(trajectory, controlWeights, controlOffset);
+        LinearSignal control = new LinearSignal(trajectory, sampled.control());
         LinearSignal.Point controlMax = control.maximum();
-        LinearSignal.Point controlMin = control.negated().maximum();
+        LinearSignal.Point controlMin = control.maximumOfNegation();
         double peakControl = Math.max(Math.abs(controlMax.value()), Math.abs(controlMin.value()));
 
         return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,

@@ -81,6 +81,115 @@ public final class StepSimulator {
         return StepResponse.owning(timeSeconds, state, n, output, control);
     }
 
+    /**
+     * The samples the step metrics read, with the checks and exceptions of {@link #sample}: the
+     * row-major states and the sample values and rates of the signal with the given output
+     * weights and of the control u (whose sample values are u_k exactly as in
+     * {@link StepResponse#control()}). For n = 2 they come from one pass of the recursion that
+     * keeps no time, output or control array (times are t_k = horizon (k / (samples - 1)), the
+     * same expression); otherwise from {@link #sample} and a pass over its states.
+     */
+    static MetricSamples sampleForMetrics(LinearLoop loop, double stepSize, double horizonSeconds,
+                                          int samples, double[] outputWeights) {
+        int n = loop.stateDimension();
+        SampledSignal outputSignal = new SampledSignal(outputWeights, 0.0);
+        SampledSignal controlSignal =
+            new SampledSignal(loop.cControl().data, loop.dControl() * stepSize);
+        double[] a = loop.a().data;
+        double[] bRef = loop.bRef().data;
+        if (n != 2) {
+            StepResponse response = sample(loop, stepSize, horizonSeconds, samples);
+            double[] state = response.sharedStateRowMajor();
+            outputSignal.fill(state, n, a, bRef, stepSize);
+            controlSignal.fill(state, n, a, bRef, stepSize);
+            return new MetricSamples(state, outputSignal, controlSignal);
+        }
+        validate(loop, stepSize, horizonSeconds, samples);
+        double samplePeriodSeconds = horizonSeconds / (samples - 1);
+        DiscreteStateSpace discrete =
+            ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        double[] ad = discrete.ad().data;
+        double[] bd = discrete.bd().data;
+        double[] cOut = loop.cOut().data;
+        double[] cControl = loop.cControl().data;
+        double feedthrough = loop.dControl() * stepSize;
+        double drive0 = bd[0] * stepSize;
+        double drive1 = bd[1] * stepSize;
+        double ad00 = ad[0];
+        double ad01 = ad[1];
+        double ad10 = ad[2];
+        double ad11 = ad[3];
+        double c0 = cOut[0];
+        double c1 = cOut[1];
+        double k0 = cControl[0];
+        double k1 = cControl[1];
+        double a00 = a[0];
+        double a01 = a[1];
+        double a10 = a[2];
+        double a11 = a[3];
+        double rateDrive0 = bRef[0] * stepSize;
+        double rateDrive1 = bRef[1] * stepSize;
+        double w0 = outputWeights[0];
+        double w1 = outputWeights[1];
+
+        double[] state = new double[2 * samples];
+        double[] outputValues = outputSignal.allocateValues(samples);
+        double[] outputRates = outputSignal.rateArray();
+        double[] control = controlSignal.allocateValues(samples);
+        double[] controlRates = controlSignal.rateArray();
+        double x0 = 0.0;
+        double x1 = 0.0;
+        double guard = 0.0;
+        double intervals = samples - 1;
+        for (int k = 0; k < samples; k++) {
+            if (k > 0) {
+                double next0 = drive0 + ad00 * x0 + ad01 * x1;
+                double next1 = drive1 + ad10 * x0 + ad11 * x1;
+                x0 = next0;
+                x1 = next1;
+            }
+            state[2 * k] = x0;
+            state[2 * k + 1] = x1;
+            double y = 0.0 + c0 * x0 + c1 * x1;
+            double u = feedthrough + k0 * x0 + k1 * x1;
+            control[k] = u;
+            guard += y + u;
+            double rate0 = rateDrive0 + a00 * x0 + a01 * x1;
+            double rate1 = rateDrive1 + a10 * x0 + a11 * x1;
+            outputValues[k] = 0.0 + w0 * x0 + w1 * x1;
+            outputRates[k] = 0.0 + w0 * rate0 + w1 * rate1;
+            controlRates[k] = 0.0 + k0 * rate0 + k1 * rate1;
+        }
+        if (!Double.isFinite(guard)) {
+            double[] timeSeconds = new double[samples];
+            double[] output = new double[samples];
+            for (int k = 0; k < samples; k++) {
+                timeSeconds[k] = horizonSeconds * (k / intervals);
+                output[k] = 0.0 + c0 * state[2 * k] + c1 * state[2 * k + 1];
+            }
+            reportFirstOverflow(2, timeSeconds, state, output, control);
+        }
+        // t_k = fl(horizon fl(k / (samples - 1))): the quotients grow by about 1 / (samples - 1)
+        // >= 1e-5, far above their rounding, so the times can only repeat where the spacing h is
+        // subnormal and products round to a few multiples of the smallest double. Only then are
+        // they checked one by one, with the message of sample().
+        if (!(samplePeriodSeconds >= Double.MIN_NORMAL)) {
+            double previous = 0.0;
+            for (int k = 1; k < samples; k++) {
+                double t = horizonSeconds * (k / intervals);
+                if (!(t > previous)) {
+                    throw new IllegalArgumentException("timeSeconds must be strictly increasing at " + k);
+                }
+                previous = t;
+            }
+        }
+        return new MetricSamples(state, outputSignal, controlSignal);
+    }
+
+    /** What {@link #sampleForMetrics} returns; arrays owned by the receiver. */
+    record MetricSamples(double[] stateRowMajor, SampledSignal output, SampledSignal control) {
+    }
+
     /** The recursion for n = 2 with the state in locals; returns the running sum of y + u. */
     private static double recurseTwoStates(double horizonSeconds, double[] ad, double[] drive,
                                            double[] cOut, double[] cControl, double feedthrough,
