@@ -1,5 +1,6 @@
 package com.loopwright.solver.simulation;
 
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -250,6 +251,58 @@ class StepSimulatorTest {
             new DMatrixRMaj(new double[][] {{1e307}}), 0.0);
         StepResponse finite = simulator.simulate(large, 10, 20, 1000);
         assertTrue(Double.isFinite(finite.outputAt(999)) && finite.outputAt(999) > 9e307);
+    }
+
+    @Test
+    void metricSamplesAreTheSimulatorsSamplesBitForBit() {
+        // source: simulate() and the general pass over its states (SampledSignal.fill, the
+        // summation order LinearSignal always used): the recursion that records the signals for
+        // n = 2 must give exactly the same numbers, and the same errors.
+        LinearLoop[] loops = {SecondOrderLoops.stateFeedbackLoop(0.3, 12.0),
+            SecondOrderLoops.randomStableLoop(7L, 2, 0.3), SecondOrderLoops.randomStableLoop(4L, 4, 0.5)};
+        for (LinearLoop loop : loops) {
+            int n = loop.stateDimension();
+            double r = 1.3;
+            double[] weights = new double[n];
+            for (int j = 0; j < n; j++) {
+                weights[j] = 0.7 * (j + 1) - 0.4;
+            }
+            StepResponse response = simulator.simulate(loop, r, 5.0, 700);
+            StepSimulator.MetricSamples samples = StepSimulator.sampleForMetrics(loop, r, 5.0, 700, weights);
+            assertArrayEquals(response.stateRowMajor(), samples.stateRowMajor());
+            assertArrayEquals(response.control(), samples.control().valueArray());
+            SampledSignal output = new SampledSignal(weights, 0.0);
+            output.fill(response.stateRowMajor(), n, loop.a().data, loop.bRef().data, r);
+            SampledSignal control = new SampledSignal(loop.cControl().data, loop.dControl() * r);
+            control.fill(response.stateRowMajor(), n, loop.a().data, loop.bRef().data, r);
+            assertArrayEquals(output.valueArray(), samples.output().valueArray());
+            assertArrayEquals(output.rateArray(), samples.output().rateArray());
+            assertArrayEquals(control.valueArray(), samples.control().valueArray());
+            assertArrayEquals(control.rateArray(), samples.control().rateArray());
+        }
+        LinearLoop unstable = new LinearLoop(new DMatrixRMaj(new double[][] {{50, 0}, {0, -1}}),
+            new DMatrixRMaj(new double[][] {{1}, {1}}), new DMatrixRMaj(new double[][] {{1, 0}}),
+            new DMatrixRMaj(new double[][] {{1, 1}}), 0.0);
+        IllegalArgumentException expected = assertThrows(IllegalArgumentException.class,
+            () -> simulator.simulate(unstable, 1, 100, 100_000));
+        IllegalArgumentException actual = assertThrows(IllegalArgumentException.class,
+            () -> StepSimulator.sampleForMetrics(unstable, 1, 100, 100_000, new double[] {1, 0}));
+        assertEquals(expected.getMessage(), actual.getMessage());
+        LinearLoop hugeOutput = new LinearLoop(new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}}),
+            new DMatrixRMaj(new double[][] {{1}, {1}}), new DMatrixRMaj(new double[][] {{1e308, 0}}),
+            new DMatrixRMaj(new double[][] {{1, 1}}), 0.0);
+        expected = assertThrows(IllegalArgumentException.class, () -> simulator.simulate(hugeOutput, 10, 1, 11));
+        actual = assertThrows(IllegalArgumentException.class,
+            () -> StepSimulator.sampleForMetrics(hugeOutput, 10, 1, 11, new double[] {1, 0}));
+        assertEquals(expected.getMessage(), actual.getMessage());
+        assertTrue(expected.getMessage().startsWith("output or control overflows"));
+        // A subnormal horizon (about 700 units of the smallest double over 999 intervals) repeats
+        // sample times: the same refusal.
+        LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
+        expected = assertThrows(IllegalArgumentException.class, () -> simulator.simulate(loop, 1, 3.5e-321, 1000));
+        actual = assertThrows(IllegalArgumentException.class,
+            () -> StepSimulator.sampleForMetrics(loop, 1, 3.5e-321, 1000, new double[] {1, 0}));
+        assertEquals(expected.getMessage(), actual.getMessage());
     }
 
     @Test
