@@ -154,11 +154,24 @@ final class LinearSignal {
     /** The maximum of sign s for sign = +1 or -1 (multiplying by either is exact). */
     private Point maximumOf(double sign) {
         int count = sampleCount();
-        // The best value is kept in a local: comparing against sampleValue[bestSample] would make
-        // each step wait for a load that depends on the previous step.
+        // One pass: the largest sample, and every interval with an interior maximum whose bound
+        // beats the best sample so far (a superset of those beating the final best, which are
+        // kept below). The best value is kept in a local: comparing against
+        // sampleValue[bestSample] would make each step wait for a dependent load.
         int bestSample = 0;
         double bestValue = sign * sampleValue[0];
+        double previousRate = sign * sampleRate[0];
+        int[] candidates = new int[8];
+        int candidateCount = 0;
         for (int k = 1; k < count; k++) {
+            double rate = sign * sampleRate[k];
+            if (previousRate > 0.0 && rate < 0.0 && signedMaximumBound(k - 1, sign) > bestValue) {
+                if (candidateCount == candidates.length) {
+                    candidates = java.util.Arrays.copyOf(candidates, 2 * candidateCount);
+                }
+                candidates[candidateCount++] = k - 1;
+            }
+            previousRate = rate;
             double value = sign * sampleValue[k];
             if (value > bestValue) {
                 bestValue = value;
@@ -166,23 +179,19 @@ final class LinearSignal {
             }
         }
         Point best = new Point(time(bestSample), bestValue);
-        // Count first, then collect from the first one: usually there are a handful of
-        // candidates, not count - 1.
-        int candidateCount = 0;
-        int firstCandidate = count;
-        for (int k = 0; k < count - 1; k++) {
-            if (hasInteriorMaximum(k, sign) && signedMaximumBound(k, sign) > bestValue) {
-                candidateCount++;
-                firstCandidate = Math.min(firstCandidate, k);
+        int kept = 0;
+        for (int i = 0; i < candidateCount; i++) {
+            if (signedMaximumBound(candidates[i], sign) > bestValue) {
+                kept++;
             }
         }
-        if (candidateCount == 0) {
+        if (kept == 0) {
             return best;
         }
-        Integer[] order = new Integer[candidateCount];
-        for (int k = firstCandidate, found = 0; found < candidateCount; k++) {
-            if (hasInteriorMaximum(k, sign) && signedMaximumBound(k, sign) > bestValue) {
-                order[found++] = k;
+        Integer[] order = new Integer[kept];
+        for (int i = 0, found = 0; i < candidateCount; i++) {
+            if (signedMaximumBound(candidates[i], sign) > bestValue) {
+                order[found++] = candidates[i];
             }
         }
         java.util.Arrays.sort(order,
