@@ -436,6 +436,53 @@ class StepResponseMetricsTest {
         assertTrue(measured >= 150, measured + " loops measured");
     }
 
+    @Test
+    void risingRippleHasItsPeakAtTheLastRefinedMaximum() {
+        // A real mode x1' = -4 x1 + 4 r under a more slowly decaying oscillation
+        // (x2, x3)' = M (x2, x3) + (1, 1) r, M = [[-0.4, 100], [-100, -0.4]], output y = x1 + x2: for
+        // the first ~1.8 s every ripple peak is higher than the one before (about 25 peak candidates on the 2000-sample grid), then
+        // the ripple overshoots y_inf and decays.
+        // source: the exact solution x1 = 1 - e^(-4 t), (x2, x3) = x_inf - e^(M t) x_inf with
+        // e^(M t) = e^(-0.4 t) [[cos 100t, sin 100t], [-sin 100t, cos 100t]] (linear ODE and rotation form,
+        // from memory), x_inf = -M^-1 (1, 1); its maximum over [0, 30 s] by a 10^6-point scan,
+        // then Hipparchus' Brent solver on z' around the best scan point; a 6 s window.
+        LinearLoop loop = new LinearLoop(
+            new DMatrixRMaj(new double[][] {{-4, 0, 0}, {0, -0.4, 100}, {0, -100, -0.4}}),
+            new DMatrixRMaj(new double[][] {{4}, {1}, {1}}), new DMatrixRMaj(new double[][] {{1, 1, 0}}),
+            new DMatrixRMaj(new double[][] {{0, 0, 1}}), 0.0);
+        double determinant = 0.4 * 0.4 + 10_000;
+        double xi2 = (0.4 + 100) / determinant;
+        double xi3 = (0.4 - 100) / determinant;
+        double finalValue = 1 + xi2;
+        DoubleUnaryOperator z = t -> (1 - Math.exp(-4 * t) + xi2
+            - Math.exp(-0.4 * t) * (Math.cos(100 * t) * xi2 + Math.sin(100 * t) * xi3)) / finalValue;
+        DoubleUnaryOperator zRate = t -> {
+            double x2 = xi2 - Math.exp(-0.4 * t) * (Math.cos(100 * t) * xi2 + Math.sin(100 * t) * xi3);
+            double x3 = xi3 - Math.exp(-0.4 * t) * (-Math.sin(100 * t) * xi2 + Math.cos(100 * t) * xi3);
+            return (4 * Math.exp(-4 * t) + (-0.4 * x2 + 100 * x3 + 1)) / finalValue;
+        };
+        double horizonSeconds = 6.0;
+        int scan = 1_000_000;
+        int best = 0;
+        double bestValue = z.applyAsDouble(0);
+        for (int i = 1; i <= scan; i++) {
+            double value = z.applyAsDouble(horizonSeconds * i / scan);
+            if (value > bestValue) {
+                bestValue = value;
+                best = i;
+            }
+        }
+        double step = horizonSeconds / scan;
+        double peakTime = best == scan ? horizonSeconds
+            : referenceRoot(zRate, (best - 1) * step, (best + 1) * step);
+        StepMetrics m = metrics.measure(loop, 1.0, horizonSeconds, 2000, BAND);
+        assertTrue(relative(m.peakTimeSeconds(), peakTime) <= 1e-9,
+            "peak time " + m.peakTimeSeconds() + " vs " + peakTime);
+        assertTrue(m.overshootPercent() > 0.1, "overshoot " + m.overshootPercent());
+        assertEquals(100 * (z.applyAsDouble(peakTime) - 1), m.overshootPercent(), 1e-10);
+        assertEquals(finalValue, m.finalValue(), 1e-14);
+    }
+
     /** Horizon 12 / min |Re lambda| and samples for h max |Im lambda| <= 1.2 (at least 500). */
     private static double[] window(DMatrixRMaj a) {
         double trace = a.get(0, 0) + a.get(1, 1);
