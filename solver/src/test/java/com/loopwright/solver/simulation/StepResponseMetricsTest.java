@@ -440,8 +440,8 @@ class StepResponseMetricsTest {
     void risingRippleHasItsPeakAtTheLastRefinedMaximum() {
         // A real mode x1' = -4 x1 + 4 r under a more slowly decaying oscillation
         // (x2, x3)' = M (x2, x3) + (1, 1) r, M = [[-0.4, 100], [-100, -0.4]], output y = x1 + x2: for
-        // the first ~1.8 s every ripple peak is higher than the one before (about 25 peak candidates on the 2000-sample grid), then
-        // the ripple overshoots y_inf and decays.
+        // the first ~1.8 s every ripple peak is higher than the one before (about 25 peak candidates
+        // on the 2000-sample grid), then the ripple overshoots y_inf and decays.
         // source: the exact solution x1 = 1 - e^(-4 t), (x2, x3) = x_inf - e^(M t) x_inf with
         // e^(M t) = e^(-0.4 t) [[cos 100t, sin 100t], [-sin 100t, cos 100t]] (linear ODE and rotation form,
         // from memory), x_inf = -M^-1 (1, 1); its maximum over [0, 30 s] by a 10^6-point scan,
