@@ -52,11 +52,6 @@ final class ExactTrajectory {
         return horizonSeconds * (sampleIndex / intervals);
     }
 
-    /** Row-major samples (not copied: callers must not modify them). */
-    double[] sampleStates() {
-        return state;
-    }
-
     /** Writes x(t) for t in [t_k, t_(k+1)] into target, propagated exactly from sample k. */
     void stateBetween(int sampleIndex, double tSeconds, double[] target) {
         double tau = tSeconds - time(sampleIndex);

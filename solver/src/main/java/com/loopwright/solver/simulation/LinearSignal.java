@@ -8,6 +8,9 @@ package com.loopwright.solver.simulation;
  * <p>Assumption (enforced by the caller through the sample-density check): each sample interval
  * holds at most one critical point of s, so a sign change of s' between two samples marks the
  * single extremum inside, and s is monotone on each side of it.
+ *
+ * <p>Evaluations between samples reuse one scratch state and allocate nothing for n = 2, so an
+ * instance serves one measurement in one thread.
  */
 final class LinearSignal {
 
@@ -34,22 +37,6 @@ final class LinearSignal {
         this.sampleValue = samples.valueArray();
         this.sampleRate = samples.rateArray();
         this.scratch = new double[trajectory.stateDimension()];
-    }
-
-    LinearSignal(ExactTrajectory trajectory, double[] weights, double offset) {
-        this.trajectory = trajectory;
-        this.weights = weights.clone();
-        this.offset = offset;
-        int count = trajectory.sampleCount();
-        int n = trajectory.stateDimension();
-        this.sampleValue = new double[count];
-        this.sampleRate = new double[count];
-        this.scratch = new double[n];
-        double[] states = trajectory.sampleStates();
-        for (int k = 0; k < count; k++) {
-            sampleValue[k] = valueOf(states, k * n);
-            sampleRate[k] = trajectory.rateAlong(this.weights, states, k * n);
-        }
     }
 
     int sampleCount() {

@@ -173,11 +173,6 @@ public final class StepResponse {
         }
     }
 
-    /** Samples without copies, for readers in this package that never modify them. */
-    double[] sharedTimeSeconds() {
-        return timeSeconds;
-    }
-
     /** Row-major states without a copy, for readers in this package that never modify them. */
     double[] sharedStateRowMajor() {
         return stateRowMajor;

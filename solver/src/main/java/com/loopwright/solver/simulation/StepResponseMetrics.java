@@ -14,7 +14,9 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
  * {@link LinearLoop}'s step response, exact up to rounding and independent of the sample count.
  *
  * <p>The samples of {@link StepSimulator} only locate events; each event is then refined on the
- * exact continuous solution x(t_k + tau) = Ad(tau) x_k + Bd(tau) r by Brent's method: level
+ * exact continuous solution between samples by Brent's method, with
+ * x(t_k + tau) = x_inf + e^(A tau) (x_k - x_inf) and a closed-form 2 x 2 exponential for n = 2,
+ * x(t_k + tau) = Ad(tau) x_k + Bd(tau) r (the zero-order hold over tau) otherwise: level
  * crossings as roots of y(t) - level, extrema as roots of y'(t) = cOut (A x + bRef r). The output
  * is normalised as z = y / y_inf, so the metrics hold for either sign of y_inf.
  *
