@@ -86,8 +86,9 @@ public final class StepSimulator {
      * row-major states and the sample values and rates of the signal with the given output
      * weights and of the control u (whose sample values are u_k exactly as in
      * {@link StepResponse#control()}). For n = 2 they come from one pass of the recursion that
-     * keeps no time, output or control array (times are t_k = horizon (k / (samples - 1)), the
-     * same expression); otherwise from {@link #sample} and a pass over its states.
+     * keeps no time or output array (times are t_k = horizon (k / (samples - 1)), the same
+     * expression, and y is formed only for the finiteness check) and stores u once, as the
+     * control signal's values; otherwise from {@link #sample} and a pass over its states.
      */
     static MetricSamples sampleForMetrics(LinearLoop loop, double stepSize, double horizonSeconds,
                                           int samples, double[] outputWeights) {
