@@ -67,6 +67,11 @@ public final class PairedRatios {
         }
         // No reference for a whole design: its CPU time bounds the designs per second a core can serve.
         DesignBenchmark design = new DesignBenchmark();
+        // The step metrics are the largest part of a design's verification.
+        StepMetricsBenchmark stepMetrics = new StepMetricsBenchmark();
+        stepMetrics.setUp();
+        System.out.printf("%-55s %10.1f us CPU per call%n", "step metrics, 2000 samples (one design's share)",
+                single(stepMetrics::measure) / 1e3);
         for (Pair single : List.of(new Pair("design: solver pipeline", design::solverPipeline, null),
                 new Pair("design: JSON bytes in, JSON bytes out", PairedRatios.unchecked(design), null))) {
             double nanos = single(single.ours());

@@ -40,6 +40,18 @@ class BenchmarkFixturesTest {
     }
 
     @Test
+    void stepMetricsBenchmarkMeasuresTheSpecBack() {
+        // source: the README indexing-axis spec (2% settling in 0.15 s, 1.5% overshoot); the spec inversion is
+        // exact, so the measured response of the target loop must return both to rounding.
+        StepMetricsBenchmark benchmark = new StepMetricsBenchmark();
+        benchmark.setUp();
+        var metrics = benchmark.measure();
+        assertEquals(Scenarios.SETTLING_TIME_SECONDS, metrics.settlingTimeSeconds(), 1e-12);
+        assertEquals(1.5, metrics.overshootPercent(), 1e-9);
+        assertEquals(StepAccuracy.STEP_SIZE, metrics.finalValue(), 1e-14);
+    }
+
+    @Test
     void bothRiccatiSolversReachRoundoffOnTheBenchmarkProblems() {
         // reference: Hipparchus RiccatiEquationSolverImpl on the same (A, B, Q, Rc).
         for (int n : new int[] {2, 4, 8}) {

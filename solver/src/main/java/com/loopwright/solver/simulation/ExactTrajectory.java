@@ -3,77 +3,77 @@ package com.loopwright.solver.simulation;
 import org.ejml.data.DMatrixRMaj;
 
 /**
- * The exact continuous solution of x' = A x + bRef r between the samples of a
- * {@link StepResponse}: x(t_k + tau) = Ad(tau) x_k + Bd(tau) r with Ad(tau), Bd(tau) the
- * zero-order hold of (A, bRef) over tau (exact because r is constant).
+ * The exact continuous solution of x' = A x + bRef r between the samples of a step response:
+ * x(t_k + tau) by a {@link SubIntervalPropagator} (closed form for n = 2, the zero-order hold of
+ * (A, bRef) over tau otherwise; both exact because r is constant).
  */
 final class ExactTrajectory {
 
-    private final DMatrixRMaj a;
-    private final DMatrixRMaj bRef;
+    private final int n;
+    private final double[] a;
+    private final double[] bRef;
     private final double reference;
-    private final double[] timeSeconds;
-    private final double[][] state;
+    private final double horizonSeconds;
+    private final int sampleCount;
+    private final double intervals;
+    private final double[] state;
+    private final SubIntervalPropagator propagator;
 
-    ExactTrajectory(LinearLoop loop, double reference, StepResponse response) {
-        this(loop, reference, response.timeSeconds(), response.state());
-    }
-
-    /** Takes the arrays over without copying: the caller must not modify them afterwards. */
-    ExactTrajectory(LinearLoop loop, double reference, double[] timeSeconds, double[][] state) {
-        this.a = loop.a();
-        this.bRef = loop.bRef();
+    /**
+     * Takes the state array over without copying: the caller must not modify it afterwards.
+     *
+     * @param horizonSeconds last sample time; t_k = horizon (k / (sampleCount - 1)), the
+     *     expression of {@link StepSimulator}
+     * @param state row-major samples, x_i(t_k) at k n + i
+     */
+    ExactTrajectory(LinearLoop loop, double reference, double horizonSeconds, double[] state,
+                    SubIntervalPropagator propagator) {
+        DMatrixRMaj aMatrix = loop.a();
+        this.n = aMatrix.numRows;
+        this.a = aMatrix.data;
+        this.bRef = loop.bRef().data;
         this.reference = reference;
-        this.timeSeconds = timeSeconds;
+        this.horizonSeconds = horizonSeconds;
+        this.sampleCount = state.length / n;
+        this.intervals = sampleCount - 1;
         this.state = state;
+        this.propagator = propagator;
     }
 
     int sampleCount() {
-        return timeSeconds.length;
+        return sampleCount;
+    }
+
+    int stateDimension() {
+        return n;
     }
 
     double time(int sampleIndex) {
-        return timeSeconds[sampleIndex];
+        return horizonSeconds * (sampleIndex / intervals);
     }
 
-    /** Sample state x_k (not copied: callers must not modify it). */
-    double[] sampleState(int sampleIndex) {
-        return state[sampleIndex];
-    }
-
-    /** x(t) for t in [t_k, t_(k+1)], propagated exactly from sample k. */
-    double[] stateBetween(int sampleIndex, double tSeconds) {
-        double tau = tSeconds - timeSeconds[sampleIndex];
-        double[] start = state[sampleIndex];
+    /** Writes x(t) for t in [t_k, t_(k+1)] into target, propagated exactly from sample k. */
+    void stateBetween(int sampleIndex, double tSeconds, double[] target) {
+        double tau = tSeconds - time(sampleIndex);
+        int offset = sampleIndex * n;
         if (tau <= 0.0) {
-            return start.clone();
+            System.arraycopy(state, offset, target, 0, n);
+            return;
         }
-        DiscreteStateSpace hold = ZeroOrderHold.discretize(a, bRef, tau);
-        DMatrixRMaj ad = hold.ad();
-        DMatrixRMaj bd = hold.bd();
-        int n = start.length;
-        double[] x = new double[n];
-        for (int i = 0; i < n; i++) {
-            double sum = bd.unsafe_get(i, 0) * reference;
-            for (int j = 0; j < n; j++) {
-                sum += ad.unsafe_get(i, j) * start[j];
-            }
-            x[i] = sum;
-        }
-        return x;
+        propagator.propagate(state, offset, tau, target);
     }
 
-    /** x' = A x + bRef r. */
-    double[] rate(double[] x) {
-        int n = x.length;
-        double[] rate = new double[n];
+    /** w . x' = sum_i w_i (bRef_i r + sum_j a_ij x_j), x at values[offset .. offset + n). */
+    double rateAlong(double[] weights, double[] values, int offset) {
+        double sum = 0.0;
         for (int i = 0; i < n; i++) {
-            double sum = bRef.unsafe_get(i, 0) * reference;
+            double rate = bRef[i] * reference;
+            int row = i * n;
             for (int j = 0; j < n; j++) {
-                sum += a.unsafe_get(i, j) * x[j];
+                rate += a[row + j] * values[offset + j];
             }
-            rate[i] = sum;
+            sum += weights[i] * rate;
         }
-        return rate;
+        return sum;
     }
 }

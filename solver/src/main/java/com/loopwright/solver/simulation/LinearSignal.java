@@ -8,6 +8,9 @@ package com.loopwright.solver.simulation;
  * <p>Assumption (enforced by the caller through the sample-density check): each sample interval
  * holds at most one critical point of s, so a sign change of s' between two samples marks the
  * single extremum inside, and s is monotone on each side of it.
+ *
+ * <p>Evaluations between samples reuse one scratch state and allocate nothing for n = 2, so an
+ * instance serves one measurement in one thread.
  */
 final class LinearSignal {
 
@@ -20,19 +23,20 @@ final class LinearSignal {
     private final double offset;
     private final double[] sampleValue;
     private final double[] sampleRate;
+    /** x(t) between samples, reused by every evaluation. */
+    private final double[] scratch;
 
-    LinearSignal(ExactTrajectory trajectory, double[] weights, double offset) {
-        this.trajectory = trajectory;
-        this.weights = weights.clone();
-        this.offset = offset;
-        int count = trajectory.sampleCount();
-        this.sampleValue = new double[count];
-        this.sampleRate = new double[count];
-        for (int k = 0; k < count; k++) {
-            double[] x = trajectory.sampleState(k);
-            sampleValue[k] = valueOf(x);
-            sampleRate[k] = rateOf(x);
+    /** Takes over the recorded samples of a signal along the trajectory's samples. */
+    LinearSignal(ExactTrajectory trajectory, SampledSignal samples) {
+        if (samples.valueArray() == null || samples.valueArray().length != trajectory.sampleCount()) {
+            throw new IllegalArgumentException("the signal was not recorded on this trajectory");
         }
+        this.trajectory = trajectory;
+        this.weights = samples.weights();
+        this.offset = samples.offset();
+        this.sampleValue = samples.valueArray();
+        this.sampleRate = samples.rateArray();
+        this.scratch = new double[trajectory.stateDimension()];
     }
 
     int sampleCount() {
@@ -47,26 +51,25 @@ final class LinearSignal {
         return trajectory.time(k);
     }
 
-    private double valueOf(double[] x) {
+    /** offset + w . x, x at values[from .. from + n). */
+    private double valueOf(double[] values, int from) {
         double sum = offset;
-        for (int i = 0; i < x.length; i++) {
-            sum += weights[i] * x[i];
-        }
-        return sum;
-    }
-
-    private double rateOf(double[] x) {
-        double[] xDot = trajectory.rate(x);
-        double sum = 0.0;
-        for (int i = 0; i < xDot.length; i++) {
-            sum += weights[i] * xDot[i];
+        for (int i = 0; i < weights.length; i++) {
+            sum += weights[i] * values[from + i];
         }
         return sum;
     }
 
     /** s(t) for t in [t_k, t_(k+1)]. */
     double valueBetween(int k, double tSeconds) {
-        return valueOf(trajectory.stateBetween(k, tSeconds));
+        trajectory.stateBetween(k, tSeconds, scratch);
+        return valueOf(scratch, 0);
+    }
+
+    /** s'(t) for t in [t_k, t_(k+1)]. */
+    double rateBetween(int k, double tSeconds) {
+        trajectory.stateBetween(k, tSeconds, scratch);
+        return trajectory.rateAlong(weights, scratch, 0);
     }
 
     /** Interval k has an interior maximum: s' goes from positive to negative. */
@@ -99,7 +102,7 @@ final class LinearSignal {
 
     /** The critical point s'(t*) = 0 inside interval k, by Brent's method on the exact s'. */
     Point criticalPoint(int k) {
-        double tStar = BracketedRoot.find(t -> rateOf(trajectory.stateBetween(k, t)),
+        double tStar = BracketedRoot.find(t -> rateBetween(k, t),
             time(k), time(k + 1), sampleRate[k], sampleRate[k + 1]);
         return new Point(tStar, valueBetween(k, tStar));
     }
@@ -122,37 +125,88 @@ final class LinearSignal {
      * whose upper estimate could beat the best value so far, largest estimate first.
      */
     Point maximum() {
+        return maximumOf(1.0);
+    }
+
+    /**
+     * The global maximum of -s, as the time and the value of -s there: the maximum of the signal
+     * with weights -w and offset -offset, bit for bit (rounding to nearest is symmetric under
+     * negation, so its sample values, rates, bounds and Brent iterates are exactly those of s
+     * with the sign changed), without building that signal's arrays.
+     */
+    Point maximumOfNegation() {
+        return maximumOf(-1.0);
+    }
+
+    /** The maximum of sign s for sign = +1 or -1 (multiplying by either is exact). */
+    private Point maximumOf(double sign) {
         int count = sampleCount();
+        // One pass: the largest sample, and every interval with an interior maximum whose bound
+        // beats the best sample so far (a superset of those beating the final best, which are
+        // kept below). The best value is kept in a local: comparing against
+        // sampleValue[bestSample] would make each step wait for a dependent load.
         int bestSample = 0;
+        double bestValue = sign * sampleValue[0];
+        double previousRate = sign * sampleRate[0];
+        int[] candidates = new int[8];
+        int candidateCount = 0;
         for (int k = 1; k < count; k++) {
-            if (sampleValue[k] > sampleValue[bestSample]) {
+            double rate = sign * sampleRate[k];
+            if (previousRate > 0.0 && rate < 0.0 && signedMaximumBound(k - 1, sign) > bestValue) {
+                if (candidateCount == candidates.length) {
+                    candidates = java.util.Arrays.copyOf(candidates, 2 * candidateCount);
+                }
+                candidates[candidateCount++] = k - 1;
+            }
+            previousRate = rate;
+            double value = sign * sampleValue[k];
+            if (value > bestValue) {
+                bestValue = value;
                 bestSample = k;
             }
         }
-        Point best = new Point(time(bestSample), sampleValue[bestSample]);
-        int candidateCount = 0;
-        int[] candidates = new int[count - 1];
-        for (int k = 0; k < count - 1; k++) {
-            if (hasInteriorMaximum(k) && interiorMaximumBound(k) > best.value()) {
-                candidates[candidateCount++] = k;
+        Point best = new Point(time(bestSample), bestValue);
+        int kept = 0;
+        for (int i = 0; i < candidateCount; i++) {
+            if (signedMaximumBound(candidates[i], sign) > bestValue) {
+                kept++;
             }
         }
-        Integer[] order = new Integer[candidateCount];
-        for (int i = 0; i < candidateCount; i++) {
-            order[i] = candidates[i];
+        if (kept == 0) {
+            return best;
+        }
+        Integer[] order = new Integer[kept];
+        for (int i = 0, found = 0; i < candidateCount; i++) {
+            if (signedMaximumBound(candidates[i], sign) > bestValue) {
+                order[found++] = candidates[i];
+            }
         }
         java.util.Arrays.sort(order,
-            (p, q) -> Double.compare(interiorMaximumBound(q), interiorMaximumBound(p)));
+            (p, q) -> Double.compare(signedMaximumBound(q, sign), signedMaximumBound(p, sign)));
         for (int k : order) {
-            if (interiorMaximumBound(k) <= best.value()) {
+            if (signedMaximumBound(k, sign) <= best.value()) {
                 break;
             }
-            Point refined = criticalPoint(k);
+            double tStar = BracketedRoot.find(t -> sign * rateBetween(k, t),
+                time(k), time(k + 1), sign * sampleRate[k], sign * sampleRate[k + 1]);
+            Point refined = new Point(tStar, sign * valueBetween(k, tStar));
             if (refined.value() > best.value()) {
                 best = refined;
             }
         }
         return best;
+    }
+
+    /** Interval k has an interior maximum of sign s. */
+    private boolean hasInteriorMaximum(int k, double sign) {
+        return sign * sampleRate[k] > 0.0 && sign * sampleRate[k + 1] < 0.0;
+    }
+
+    /** {@link #interiorMaximumBound} of sign s. */
+    private double signedMaximumBound(int k, double sign) {
+        double width = time(k + 1) - time(k);
+        return Math.min(sign * sampleValue[k] + 2.0 * (sign * sampleRate[k]) * width,
+            sign * sampleValue[k + 1] - 2.0 * (sign * sampleRate[k + 1]) * width);
     }
 
     /**

@@ -1,5 +1,6 @@
 package com.loopwright.solver.simulation;
 
+import java.util.function.BiFunction;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.NormOps_DDRM;
@@ -13,7 +14,9 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
  * {@link LinearLoop}'s step response, exact up to rounding and independent of the sample count.
  *
  * <p>The samples of {@link StepSimulator} only locate events; each event is then refined on the
- * exact continuous solution x(t_k + tau) = Ad(tau) x_k + Bd(tau) r by Brent's method: level
+ * exact continuous solution between samples by Brent's method, with
+ * x(t_k + tau) = x_inf + e^(A tau) (x_k - x_inf) and a closed-form 2 x 2 exponential for n = 2,
+ * x(t_k + tau) = Ad(tau) x_k + Bd(tau) r (the zero-order hold over tau) otherwise: level
  * crossings as roots of y(t) - level, extrema as roots of y'(t) = cOut (A x + bRef r). The output
  * is normalised as z = y / y_inf, so the metrics hold for either sign of y_inf.
  *
@@ -50,6 +53,17 @@ public final class StepResponseMetrics {
      */
     public StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
                                double settlingBandFraction) {
+        return measure(loop, stepSize, horizonSeconds, samples, settlingBandFraction,
+            SubIntervalPropagator::of);
+    }
+
+    /**
+     * {@link #measure(LinearLoop, double, double, int, double)} with a chosen propagation between
+     * samples (tests compare the closed form for n = 2 with the general zero-order hold).
+     */
+    StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
+                        double settlingBandFraction,
+                        BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
         StepSimulator.validate(loop, stepSize, horizonSeconds, samples);
         if (stepSize == 0.0) {
             throw new IllegalArgumentException("stepSize must be non-zero");
@@ -69,27 +83,23 @@ public final class StepResponseMetrics {
         }
         double finalValue = finalValue(loop, stepSize);
 
-        // The samples only feed the trajectory, so they are not copied into a StepResponse first.
-        StepSimulator.Samples response = StepSimulator.sample(loop, stepSize, horizonSeconds, samples);
-        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, response.timeSeconds(), response.state());
         int n = loop.stateDimension();
         DMatrixRMaj cOut = loop.cOut();
-        DMatrixRMaj cControl = loop.cControl();
         double[] normalisedOutputWeights = new double[n];
-        double[] controlWeights = new double[n];
-        double[] negatedControlWeights = new double[n];
         for (int j = 0; j < n; j++) {
             normalisedOutputWeights[j] = cOut.get(0, j) / finalValue;
-            controlWeights[j] = cControl.get(0, j);
-            negatedControlWeights[j] = -cControl.get(0, j);
             if (!Double.isFinite(normalisedOutputWeights[j])) {
                 throw new IllegalArgumentException("cOut / y_inf overflows: final value "
                     + finalValue + " is too close to zero");
             }
         }
-        double controlOffset = loop.dControl() * stepSize;
-        // z = y / y_inf: z(0) = 0, z -> 1.
-        LinearSignal normalisedOutput = new LinearSignal(trajectory, normalisedOutputWeights, 0.0);
+        // z = y / y_inf: z(0) = 0, z -> 1; and u. The simulator records their sample values and
+        // rates; the states only feed the trajectory, so they are shared, not copied.
+        StepSimulator.MetricSamples sampled = StepSimulator.sampleForMetrics(loop, stepSize,
+            horizonSeconds, samples, normalisedOutputWeights);
+        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, horizonSeconds,
+            sampled.stateRowMajor(), propagators.apply(loop, stepSize));
+        LinearSignal normalisedOutput = new LinearSignal(trajectory, sampled.output());
 
         double riseStart = normalisedOutput.firstTimeReaching(RISE_START_FRACTION);
         double riseEnd = normalisedOutput.firstTimeReaching(RISE_END_FRACTION);
@@ -107,10 +117,9 @@ public final class StepResponseMetrics {
         double overshootPercent = Math.max(0.0, 100.0 * (peak.value() - 1.0));
 
         // max |u| = max(max u, max -u), both including u(0+) = dControl r at sample 0.
-        LinearSignal.Point controlMax =
-            new LinearSignal(trajectory, controlWeights, controlOffset).maximum();
-        LinearSignal.Point controlMin =
-            new LinearSignal(trajectory, negatedControlWeights, -controlOffset).maximum();
+        LinearSignal control = new LinearSignal(trajectory, sampled.control());
+        LinearSignal.Point controlMax = control.maximum();
+        LinearSignal.Point controlMin = control.maximumOfNegation();
         double peakControl = Math.max(Math.abs(controlMax.value()), Math.abs(controlMin.value()));
 
         return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,

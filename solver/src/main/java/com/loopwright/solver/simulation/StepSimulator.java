@@ -1,7 +1,5 @@
 package com.loopwright.solver.simulation;
 
-import org.ejml.data.DMatrixRMaj;
-
 /**
  * Samples the response of a {@link LinearLoop} to a reference step r applied at t = 0 from
  * x(0) = 0.
@@ -31,59 +29,48 @@ public final class StepSimulator {
      */
     public StepResponse simulate(LinearLoop loop, double stepSize, double horizonSeconds,
                                  int samples) {
-        Samples raw = sample(loop, stepSize, horizonSeconds, samples);
-        return new StepResponse(raw.timeSeconds(), raw.state(), raw.output(), raw.control());
+        return sample(loop, stepSize, horizonSeconds, samples);
     }
 
     /**
-     * The arrays of {@link #simulate}, with the same checks and exceptions, but handed over without the
-     * defensive copies of a {@link StepResponse}: for callers in this package that only read them.
+     * The recursion behind {@link #simulate}: fills fresh arrays and hands them to the
+     * {@link StepResponse} without a copy. Per step, x[k+1]_i = (Bd_i r + sum_j Ad_ij x[k]_j), in
+     * that order of summation, on one row-major state array; nothing is allocated per sample.
+     *
+     * <p>Finiteness is checked once at the end: a non-finite state makes every later output
+     * non-finite (c x_j is Inf or NaN for any c, and Inf or NaN never returns to a finite value
+     * through Ad), so a running sum of y + u is non-finite exactly when some y or u is, up to a
+     * harmless false alarm when the finite sum itself overflows. Only then are the samples scanned
+     * for the first bad one, which is reported as before.
      */
-    static Samples sample(LinearLoop loop, double stepSize, double horizonSeconds, int samples) {
+    static StepResponse sample(LinearLoop loop, double stepSize, double horizonSeconds, int samples) {
         validate(loop, stepSize, horizonSeconds, samples);
         int n = loop.stateDimension();
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
         DiscreteStateSpace discrete =
             ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
-        DMatrixRMaj ad = discrete.ad();
-        DMatrixRMaj bd = discrete.bd();
-        DMatrixRMaj cOut = loop.cOut();
-        DMatrixRMaj cControl = loop.cControl();
+        // Row-major data of fresh copies (DiscreteStateSpace and LinearLoop return copies).
+        double[] ad = discrete.ad().data;
+        double[] bd = discrete.bd().data;
+        double[] cOut = loop.cOut().data;
+        double[] cControl = loop.cControl().data;
         double feedthrough = loop.dControl() * stepSize;
+        double[] drive = new double[n];
+        for (int i = 0; i < n; i++) {
+            drive[i] = bd[i] * stepSize;
+        }
 
         double[] timeSeconds = new double[samples];
-        double[][] state = new double[samples][n];
+        double[] state = new double[samples * n];
         double[] output = new double[samples];
         double[] control = new double[samples];
-        for (int k = 0; k < samples; k++) {
-            // t_k = horizon k / (samples - 1); the last sample is exactly the horizon.
-            timeSeconds[k] = horizonSeconds * ((double) k / (samples - 1));
-            if (k > 0) {
-                double[] previous = state[k - 1];
-                for (int i = 0; i < n; i++) {
-                    double sum = bd.unsafe_get(i, 0) * stepSize;
-                    for (int j = 0; j < n; j++) {
-                        sum += ad.unsafe_get(i, j) * previous[j];
-                    }
-                    if (!Double.isFinite(sum)) {
-                        throw new IllegalArgumentException("response overflows double precision at t = "
-                            + timeSeconds[k] + " s: the loop diverges over this horizon");
-                    }
-                    state[k][i] = sum;
-                }
-            }
-            double y = 0.0;
-            double u = feedthrough;
-            for (int j = 0; j < n; j++) {
-                y += cOut.unsafe_get(0, j) * state[k][j];
-                u += cControl.unsafe_get(0, j) * state[k][j];
-            }
-            if (!Double.isFinite(y) || !Double.isFinite(u)) {
-                throw new IllegalArgumentException("output or control overflows double precision at t = "
-                    + timeSeconds[k] + " s");
-            }
-            output[k] = y;
-            control[k] = u;
+        double guard = n == 2
+            ? recurseTwoStates(horizonSeconds, ad, drive, cOut, cControl, feedthrough, timeSeconds,
+                state, output, control)
+            : recurse(n, horizonSeconds, ad, drive, cOut, cControl, feedthrough, timeSeconds, state,
+                output, control);
+        if (!Double.isFinite(guard)) {
+            reportFirstOverflow(n, timeSeconds, state, output, control);
         }
         for (int k = 1; k < samples; k++) {
             if (!(timeSeconds[k] > timeSeconds[k - 1])) {
@@ -91,11 +78,212 @@ public final class StepSimulator {
                 throw new IllegalArgumentException("timeSeconds must be strictly increasing at " + k);
             }
         }
-        return new Samples(timeSeconds, state, output, control);
+        return StepResponse.owning(timeSeconds, state, n, output, control);
     }
 
-    /** Sample arrays owned by the receiver (not copied). */
-    record Samples(double[] timeSeconds, double[][] state, double[] output, double[] control) {
+    /**
+     * The samples the step metrics read, with the checks and exceptions of {@link #sample}: the
+     * row-major states and the sample values and rates of the signal with the given output
+     * weights and of the control u (whose sample values are u_k exactly as in
+     * {@link StepResponse#control()}). For n = 2 they come from one pass of the recursion that
+     * keeps no time or output array (times are t_k = horizon (k / (samples - 1)), the same
+     * expression, and y is formed only for the finiteness check) and stores u once, as the
+     * control signal's values; otherwise from {@link #sample} and a pass over its states.
+     */
+    static MetricSamples sampleForMetrics(LinearLoop loop, double stepSize, double horizonSeconds,
+                                          int samples, double[] outputWeights) {
+        int n = loop.stateDimension();
+        SampledSignal outputSignal = new SampledSignal(outputWeights, 0.0);
+        SampledSignal controlSignal =
+            new SampledSignal(loop.cControl().data, loop.dControl() * stepSize);
+        double[] a = loop.a().data;
+        double[] bRef = loop.bRef().data;
+        if (n != 2) {
+            StepResponse response = sample(loop, stepSize, horizonSeconds, samples);
+            double[] state = response.sharedStateRowMajor();
+            outputSignal.fill(state, n, a, bRef, stepSize);
+            controlSignal.fill(state, n, a, bRef, stepSize);
+            return new MetricSamples(state, outputSignal, controlSignal);
+        }
+        validate(loop, stepSize, horizonSeconds, samples);
+        double samplePeriodSeconds = horizonSeconds / (samples - 1);
+        DiscreteStateSpace discrete =
+            ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        double[] ad = discrete.ad().data;
+        double[] bd = discrete.bd().data;
+        double[] cOut = loop.cOut().data;
+        double[] cControl = loop.cControl().data;
+        double feedthrough = loop.dControl() * stepSize;
+        double drive0 = bd[0] * stepSize;
+        double drive1 = bd[1] * stepSize;
+        double ad00 = ad[0];
+        double ad01 = ad[1];
+        double ad10 = ad[2];
+        double ad11 = ad[3];
+        double c0 = cOut[0];
+        double c1 = cOut[1];
+        double k0 = cControl[0];
+        double k1 = cControl[1];
+        double a00 = a[0];
+        double a01 = a[1];
+        double a10 = a[2];
+        double a11 = a[3];
+        double rateDrive0 = bRef[0] * stepSize;
+        double rateDrive1 = bRef[1] * stepSize;
+        double w0 = outputWeights[0];
+        double w1 = outputWeights[1];
+
+        double[] state = new double[2 * samples];
+        double[] outputValues = outputSignal.allocateValues(samples);
+        double[] outputRates = outputSignal.rateArray();
+        double[] control = controlSignal.allocateValues(samples);
+        double[] controlRates = controlSignal.rateArray();
+        double x0 = 0.0;
+        double x1 = 0.0;
+        double guard = 0.0;
+        double intervals = samples - 1;
+        for (int k = 0; k < samples; k++) {
+            if (k > 0) {
+                double next0 = drive0 + ad00 * x0 + ad01 * x1;
+                double next1 = drive1 + ad10 * x0 + ad11 * x1;
+                x0 = next0;
+                x1 = next1;
+            }
+            state[2 * k] = x0;
+            state[2 * k + 1] = x1;
+            double y = 0.0 + c0 * x0 + c1 * x1;
+            double u = feedthrough + k0 * x0 + k1 * x1;
+            control[k] = u;
+            guard += y + u;
+            double rate0 = rateDrive0 + a00 * x0 + a01 * x1;
+            double rate1 = rateDrive1 + a10 * x0 + a11 * x1;
+            outputValues[k] = 0.0 + w0 * x0 + w1 * x1;
+            outputRates[k] = 0.0 + w0 * rate0 + w1 * rate1;
+            controlRates[k] = 0.0 + k0 * rate0 + k1 * rate1;
+        }
+        if (!Double.isFinite(guard)) {
+            double[] timeSeconds = new double[samples];
+            double[] output = new double[samples];
+            for (int k = 0; k < samples; k++) {
+                timeSeconds[k] = horizonSeconds * (k / intervals);
+                output[k] = 0.0 + c0 * state[2 * k] + c1 * state[2 * k + 1];
+            }
+            reportFirstOverflow(2, timeSeconds, state, output, control);
+        }
+        // t_k = fl(horizon fl(k / (samples - 1))): the quotients grow by about 1 / (samples - 1)
+        // >= 1e-5, far above their rounding, so the times can only repeat where the spacing h is
+        // subnormal and products round to a few multiples of the smallest double. Only then are
+        // they checked one by one, with the message of sample().
+        if (!(samplePeriodSeconds >= Double.MIN_NORMAL)) {
+            double previous = 0.0;
+            for (int k = 1; k < samples; k++) {
+                double t = horizonSeconds * (k / intervals);
+                if (!(t > previous)) {
+                    throw new IllegalArgumentException("timeSeconds must be strictly increasing at " + k);
+                }
+                previous = t;
+            }
+        }
+        return new MetricSamples(state, outputSignal, controlSignal);
+    }
+
+    /** What {@link #sampleForMetrics} returns; arrays owned by the receiver. */
+    record MetricSamples(double[] stateRowMajor, SampledSignal output, SampledSignal control) {
+    }
+
+    /** The recursion for n = 2 with the state in locals; returns the running sum of y + u. */
+    private static double recurseTwoStates(double horizonSeconds, double[] ad, double[] drive,
+                                           double[] cOut, double[] cControl, double feedthrough,
+                                           double[] timeSeconds, double[] state, double[] output,
+                                           double[] control) {
+        double ad00 = ad[0];
+        double ad01 = ad[1];
+        double ad10 = ad[2];
+        double ad11 = ad[3];
+        double drive0 = drive[0];
+        double drive1 = drive[1];
+        double c0 = cOut[0];
+        double c1 = cOut[1];
+        double k0 = cControl[0];
+        double k1 = cControl[1];
+        double x0 = 0.0;
+        double x1 = 0.0;
+        double guard = 0.0;
+        int samples = output.length;
+        double intervals = samples - 1;
+        for (int k = 0; k < samples; k++) {
+            // t_k = horizon k / (samples - 1); the last sample is exactly the horizon. Computed
+            // here so that the divisions overlap the recursion's dependent multiply-adds.
+            timeSeconds[k] = horizonSeconds * (k / intervals);
+            if (k > 0) {
+                double next0 = drive0 + ad00 * x0 + ad01 * x1;
+                double next1 = drive1 + ad10 * x0 + ad11 * x1;
+                x0 = next0;
+                x1 = next1;
+            }
+            state[2 * k] = x0;
+            state[2 * k + 1] = x1;
+            double y = 0.0 + c0 * x0 + c1 * x1;
+            double u = feedthrough + k0 * x0 + k1 * x1;
+            output[k] = y;
+            control[k] = u;
+            guard += y + u;
+        }
+        return guard;
+    }
+
+    /** The recursion for any n on the row-major state; returns the running sum of y + u. */
+    private static double recurse(int n, double horizonSeconds, double[] ad, double[] drive,
+                                  double[] cOut, double[] cControl, double feedthrough,
+                                  double[] timeSeconds, double[] state, double[] output,
+                                  double[] control) {
+        double guard = 0.0;
+        int samples = output.length;
+        double intervals = samples - 1;
+        for (int k = 0; k < samples; k++) {
+            // t_k = horizon k / (samples - 1); the last sample is exactly the horizon. Computed
+            // here so that the divisions overlap the recursion's dependent multiply-adds.
+            timeSeconds[k] = horizonSeconds * (k / intervals);
+            int row = k * n;
+            if (k > 0) {
+                int previous = row - n;
+                for (int i = 0; i < n; i++) {
+                    double sum = drive[i];
+                    int adRow = i * n;
+                    for (int j = 0; j < n; j++) {
+                        sum += ad[adRow + j] * state[previous + j];
+                    }
+                    state[row + i] = sum;
+                }
+            }
+            double y = 0.0;
+            double u = feedthrough;
+            for (int j = 0; j < n; j++) {
+                y += cOut[j] * state[row + j];
+                u += cControl[j] * state[row + j];
+            }
+            output[k] = y;
+            control[k] = u;
+            guard += y + u;
+        }
+        return guard;
+    }
+
+    /** Throws for the first non-finite sample, states before outputs; returns on a false alarm. */
+    private static void reportFirstOverflow(int n, double[] timeSeconds, double[] state,
+                                            double[] output, double[] control) {
+        for (int k = 0; k < timeSeconds.length; k++) {
+            for (int i = 0; i < n; i++) {
+                if (!Double.isFinite(state[k * n + i])) {
+                    throw new IllegalArgumentException("response overflows double precision at t = "
+                        + timeSeconds[k] + " s: the loop diverges over this horizon");
+                }
+            }
+            if (!Double.isFinite(output[k]) || !Double.isFinite(control[k])) {
+                throw new IllegalArgumentException("output or control overflows double precision at t = "
+                    + timeSeconds[k] + " s");
+            }
+        }
     }
 
     static void validate(LinearLoop loop, double stepSize, double horizonSeconds, int samples) {

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.Random;
 import java.util.function.DoubleUnaryOperator;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
@@ -384,6 +385,113 @@ class StepResponseMetricsTest {
             "peak control " + m.peakControl() + " vs " + peakControl);
         assertEquals(finalValue, m.finalValue(), 1e-12 * Math.abs(finalValue));
         assertEquals(r - finalValue, m.steadyStateError(), 1e-12 * Math.abs(finalValue));
+    }
+
+    @Test
+    void closedFormPropagationGivesTheMetricsOfTheGeneralRouteOnRandomTwoStateLoops() {
+        // source: the general n-state route (x(t_k + tau) by the zero-order hold of (A, bRef) over
+        // tau, HoldPropagator) on the same samples, for 150 random stable 2-state loops (Gaussian
+        // A shifted to be Hurwitz, Gaussian bRef, cOut, cControl, dControl, r) and 30 companion
+        // loops at and near critical damping; every metric agrees to 1e-12 relative (overshoot
+        // to 1e-12 percent points, peak time to 1e-10: a flat maximum puts it where z' = 0, known
+        // only to about eps / z'' in time).
+        Random random = new Random(2026L);
+        int measured = 0;
+        for (int c = 0; c < 180; c++) {
+            LinearLoop loop;
+            if (c < 150) {
+                double scale = Math.pow(10, 3 * random.nextDouble() - 1);
+                LinearLoop unit = SecondOrderLoops.randomStableLoop(5000L + c, 2, 0.05 + random.nextDouble());
+                DMatrixRMaj a = unit.a();
+                CommonOps_DDRM.scale(scale, a);
+                loop = new LinearLoop(a, unit.bRef(), unit.cOut(), unit.cControl(), unit.dControl());
+            } else {
+                double zeta = 1.0 + (c % 3 - 1) * Math.pow(10, -4 - random.nextInt(8)) * (c % 2 == 0 ? 0 : 1);
+                loop = SecondOrderLoops.stateFeedbackLoop(zeta, Math.pow(10, 2 * random.nextDouble()));
+            }
+            double r = c < 150 ? random.nextGaussian() : 1.0;
+            double[] window = window(loop.a());
+            int samples = (int) window[1];
+            StepMetrics closed;
+            try {
+                closed = metrics.measure(loop, r, window[0], samples, BAND);
+            } catch (IllegalArgumentException e) {
+                // Both routes refuse the same loops (e.g. a final value of zero).
+                IllegalArgumentException general = assertThrows(IllegalArgumentException.class,
+                    () -> metrics.measure(loop, r, window[0], samples, BAND, HoldPropagator::new));
+                assertEquals(e.getMessage(), general.getMessage());
+                continue;
+            }
+            StepMetrics general = metrics.measure(loop, r, window[0], samples, BAND, HoldPropagator::new);
+            String label = "loop " + c + ": " + closed + " vs " + general;
+            assertTrue(relative(closed.riseTimeSeconds(), general.riseTimeSeconds()) <= 1e-12, label);
+            assertTrue(relative(closed.settlingTimeSeconds(), general.settlingTimeSeconds()) <= 1e-12, label);
+            assertEquals(general.overshootPercent(), closed.overshootPercent(), 1e-12, label);
+            assertTrue(relative(closed.peakTimeSeconds(), general.peakTimeSeconds()) <= 1e-10, label);
+            assertTrue(relative(closed.peakControl(), general.peakControl()) <= 1e-12, label);
+            assertEquals(general.finalValue(), closed.finalValue(), label);
+            assertEquals(general.steadyStateError(), closed.steadyStateError(), label);
+            measured++;
+        }
+        assertTrue(measured >= 150, measured + " loops measured");
+    }
+
+    @Test
+    void risingRippleHasItsPeakAtTheLastRefinedMaximum() {
+        // A real mode x1' = -4 x1 + 4 r under a more slowly decaying oscillation
+        // (x2, x3)' = M (x2, x3) + (1, 1) r, M = [[-0.4, 100], [-100, -0.4]], output y = x1 + x2: for
+        // the first ~1.8 s every ripple peak is higher than the one before (about 25 peak candidates
+        // on the 2000-sample grid), then the ripple overshoots y_inf and decays.
+        // source: the exact solution x1 = 1 - e^(-4 t), (x2, x3) = x_inf - e^(M t) x_inf with
+        // e^(M t) = e^(-0.4 t) [[cos 100t, sin 100t], [-sin 100t, cos 100t]] (linear ODE and rotation form,
+        // from memory), x_inf = -M^-1 (1, 1); its maximum over [0, 30 s] by a 10^6-point scan,
+        // then Hipparchus' Brent solver on z' around the best scan point; a 6 s window.
+        LinearLoop loop = new LinearLoop(
+            new DMatrixRMaj(new double[][] {{-4, 0, 0}, {0, -0.4, 100}, {0, -100, -0.4}}),
+            new DMatrixRMaj(new double[][] {{4}, {1}, {1}}), new DMatrixRMaj(new double[][] {{1, 1, 0}}),
+            new DMatrixRMaj(new double[][] {{0, 0, 1}}), 0.0);
+        double determinant = 0.4 * 0.4 + 10_000;
+        double xi2 = (0.4 + 100) / determinant;
+        double xi3 = (0.4 - 100) / determinant;
+        double finalValue = 1 + xi2;
+        DoubleUnaryOperator z = t -> (1 - Math.exp(-4 * t) + xi2
+            - Math.exp(-0.4 * t) * (Math.cos(100 * t) * xi2 + Math.sin(100 * t) * xi3)) / finalValue;
+        DoubleUnaryOperator zRate = t -> {
+            double x2 = xi2 - Math.exp(-0.4 * t) * (Math.cos(100 * t) * xi2 + Math.sin(100 * t) * xi3);
+            double x3 = xi3 - Math.exp(-0.4 * t) * (-Math.sin(100 * t) * xi2 + Math.cos(100 * t) * xi3);
+            return (4 * Math.exp(-4 * t) + (-0.4 * x2 + 100 * x3 + 1)) / finalValue;
+        };
+        double horizonSeconds = 6.0;
+        int scan = 1_000_000;
+        int best = 0;
+        double bestValue = z.applyAsDouble(0);
+        for (int i = 1; i <= scan; i++) {
+            double value = z.applyAsDouble(horizonSeconds * i / scan);
+            if (value > bestValue) {
+                bestValue = value;
+                best = i;
+            }
+        }
+        double step = horizonSeconds / scan;
+        double peakTime = best == scan ? horizonSeconds
+            : referenceRoot(zRate, (best - 1) * step, (best + 1) * step);
+        StepMetrics m = metrics.measure(loop, 1.0, horizonSeconds, 2000, BAND);
+        assertTrue(relative(m.peakTimeSeconds(), peakTime) <= 1e-9,
+            "peak time " + m.peakTimeSeconds() + " vs " + peakTime);
+        assertTrue(m.overshootPercent() > 0.1, "overshoot " + m.overshootPercent());
+        assertEquals(100 * (z.applyAsDouble(peakTime) - 1), m.overshootPercent(), 1e-10);
+        assertEquals(finalValue, m.finalValue(), 1e-14);
+    }
+
+    /** Horizon 12 / min |Re lambda| and samples for h max |Im lambda| <= 1.2 (at least 500). */
+    private static double[] window(DMatrixRMaj a) {
+        double trace = a.get(0, 0) + a.get(1, 1);
+        double determinant = a.get(0, 0) * a.get(1, 1) - a.get(0, 1) * a.get(1, 0);
+        double discriminant = trace * trace / 4 - determinant;
+        double slowest = discriminant >= 0 ? -(trace / 2 + Math.sqrt(discriminant)) : -trace / 2;
+        double oscillation = discriminant >= 0 ? 0 : Math.sqrt(-discriminant);
+        double horizon = 12 / slowest;
+        return new double[] {horizon, Math.min(100_000, Math.max(500, Math.ceil(horizon * oscillation / 1.2) + 1))};
     }
 
     @Test
