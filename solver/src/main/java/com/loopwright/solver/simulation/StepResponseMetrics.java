@@ -1,5 +1,6 @@
 package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.linalg.TwoByTwoSpectrum;
 import java.util.function.BiFunction;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
@@ -126,27 +127,38 @@ public final class StepResponseMetrics {
             peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue);
     }
 
-    /** Checks Re lambda < 0 for every eigenvalue; returns max |Im lambda| in rad/s. */
+    /** Checks Re lambda < 0 for every eigenvalue; returns max |Im lambda| in rad/s (closed form for n = 2). */
     private static double requireHurwitz(DMatrixRMaj a) {
+        // Eigenvalues come with errors ~ eps ||A||, so real parts within that of zero are taken
+        // as on the imaginary axis.
+        double realPartTolerance = 8.0 * Math.ulp(1.0) * NormOps_DDRM.normF(a);
+        if (a.numRows == 2) {
+            TwoByTwoSpectrum spectrum = TwoByTwoSpectrum.of(a);
+            if (!(spectrum.abscissa() < -realPartTolerance)) {
+                throw notHurwitz(spectrum.abscissa(), spectrum.maxImaginary());
+            }
+            return spectrum.maxImaginary();
+        }
         EigenDecomposition_F64<DMatrixRMaj> eigen =
             DecompositionFactory_DDRM.eig(a.numRows, false, false);
         if (!eigen.decompose(a.copy())) {
             throw new IllegalArgumentException("eigenvalues of A could not be computed");
         }
-        // Eigenvalues come with errors ~ eps ||A||, so real parts within that of zero are taken
-        // as on the imaginary axis.
-        double realPartTolerance = 8.0 * Math.ulp(1.0) * NormOps_DDRM.normF(a);
         double maxImaginary = 0.0;
         for (int i = 0; i < eigen.getNumberOfEigenvalues(); i++) {
             Complex_F64 eigenvalue = eigen.getEigenvalue(i);
             if (!(eigenvalue.real < -realPartTolerance)) {
-                throw new IllegalArgumentException("A is not Hurwitz: eigenvalue " + eigenvalue.real
-                    + (eigenvalue.imaginary >= 0 ? " + " : " - ") + Math.abs(eigenvalue.imaginary)
-                    + "i has a non-negative real part, so the step response has no final value");
+                throw notHurwitz(eigenvalue.real, eigenvalue.imaginary);
             }
             maxImaginary = Math.max(maxImaginary, Math.abs(eigenvalue.imaginary));
         }
         return maxImaginary;
+    }
+
+    private static IllegalArgumentException notHurwitz(double real, double imaginary) {
+        return new IllegalArgumentException("A is not Hurwitz: eigenvalue " + real
+            + (imaginary >= 0 ? " + " : " - ") + Math.abs(imaginary)
+            + "i has a non-negative real part, so the step response has no final value");
     }
 
     /** y_inf = cOut x_inf with A x_inf = -bRef r (the equilibrium of x' = A x + bRef r). */
