@@ -71,7 +71,7 @@ public final class LoopwrightApp {
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
         Cors cors = new Cors(config.corsOrigins());
-        JsonExchangeRoute design = new JsonExchangeRoute(mapper, problems, pool, designs::design,
+        JsonExchangeRoute design = JsonExchangeRoute.encoded(problems, pool, designs::design,
                 outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems());
         JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool, new FitExchange(mapper)::exchange);

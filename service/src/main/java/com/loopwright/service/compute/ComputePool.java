@@ -66,10 +66,19 @@ public final class ComputePool implements AutoCloseable {
      * result of that type.
      */
     public <T> T run(Supplier<T> computation, Function<Problem, T> onProblem) {
-        Future<T> future;
+        return submit(computation, onProblem).await();
+    }
+
+    /**
+     * Queues one computation and returns at once; {@link Pending#await} waits for it up to the deadline counted
+     * from this call. A refusal (every worker busy and the queue full) is a pending result that is already
+     * resolved to the overloaded problem. Lets a caller keep several computations in flight (a batch).
+     */
+    public <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem) {
+        long submittedNanos = System.nanoTime();
+        Map<String, String> context = MDC.getCopyOfContextMap();
         try {
-            Map<String, String> context = MDC.getCopyOfContextMap();
-            future = executor.submit(() -> {
+            Future<T> future = executor.submit(() -> {
                 // The request id follows the computation onto the worker thread.
                 if (context != null) {
                     MDC.setContextMap(context);
@@ -80,24 +89,67 @@ public final class ComputePool implements AutoCloseable {
                     MDC.clear();
                 }
             });
+            return new Pending<>(future, submittedNanos, onProblem, null);
         } catch (RejectedExecutionException e) {
-            return onProblem.apply(ProblemType.SERVICE_OVERLOADED.problem("all " + executor.getMaximumPoolSize()
-                    + " design workers are busy and " + queueCapacity() + " designs are queued; retry after "
-                    + RETRY_AFTER_SECONDS + " s"));
+            return new Pending<>(null, submittedNanos, onProblem, onProblem.apply(ProblemType.SERVICE_OVERLOADED
+                    .problem("all " + executor.getMaximumPoolSize() + " design workers are busy and "
+                            + queueCapacity() + " designs are queued; retry after " + RETRY_AFTER_SECONDS + " s")));
         }
-        try {
-            return future.get(deadlineMillis, TimeUnit.MILLISECONDS);
-        } catch (TimeoutException e) {
-            future.cancel(true);
-            return onProblem.apply(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the compute "
-                    + "deadline of " + deadlineMillis + " ms"));
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            future.cancel(true);
-            return onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
-        } catch (ExecutionException e) {
-            LOG.error("design computation failed", e.getCause());
-            return onProblem.apply(ProblemType.INTERNAL_ERROR.problem(null));
+    }
+
+    /** One submitted computation: its result, or the problem of a refusal, a missed deadline or a failure. */
+    public final class Pending<T> {
+        private final Future<T> future;
+        private final long submittedNanos;
+        private final Function<Problem, T> onProblem;
+        private final T refused;
+
+        private Pending(Future<T> future, long submittedNanos, Function<Problem, T> onProblem, T refused) {
+            this.future = future;
+            this.submittedNanos = submittedNanos;
+            this.onProblem = onProblem;
+            this.refused = refused;
+        }
+
+        /** True when the pool refused the computation (the result is the overloaded problem). */
+        public boolean refused() {
+            return future == null;
+        }
+
+        /** True when {@link #await} would return without waiting. */
+        public boolean isDone() {
+            return future == null || future.isDone();
+        }
+
+        /** The result, waiting at most until the compute deadline after submission. Never throws. */
+        public T await() {
+            if (future == null) {
+                return refused;
+            }
+            long remainingNanos = TimeUnit.MILLISECONDS.toNanos(deadlineMillis) - (System.nanoTime() - submittedNanos);
+            try {
+                return future.get(Math.max(0, remainingNanos), TimeUnit.NANOSECONDS);
+            } catch (TimeoutException e) {
+                future.cancel(true);
+                return onProblem.apply(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the "
+                        + "compute deadline of " + deadlineMillis + " ms"));
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                future.cancel(true);
+                return onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
+            } catch (ExecutionException e) {
+                LOG.error("design computation failed", e.getCause());
+                return onProblem.apply(ProblemType.INTERNAL_ERROR.problem(null));
+            } catch (java.util.concurrent.CancellationException e) {
+                return onProblem.apply(ProblemType.NOT_READY.problem("the computation was cancelled by a shutdown"));
+            }
+        }
+
+        /** Gives up on the computation (the worker may still finish it; every solver loop is capped). */
+        public void cancel() {
+            if (future != null) {
+                future.cancel(true);
+            }
         }
     }
 
