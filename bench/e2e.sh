@@ -15,7 +15,7 @@
 #   E2E_THREADS      wrk threads (default 2), E2E_CONNECTIONS open connections (default 16, at most 256)
 #   E2E_BATCH_ITEMS  designs per batch request, 1-1000 (default 100)
 #   E2E_HEAP         -Xmx of the service (default 256m: the heap target)
-#   E2E_BUILD=1      rebuild the jar first
+#   E2E_BUILD=1      rebuild the jar first; E2E_JAR another jar to measure (default service/target/loopwright.jar)
 # Needs JDK 17, curl and wrk (the Debian package wrk; installed with apt-get if missing and possible).
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -41,7 +41,7 @@ if ! command -v wrk >/dev/null 2>&1; then
 fi
 command -v curl >/dev/null 2>&1 || { echo "curl is required" >&2; exit 2; }
 
-jar=service/target/loopwright.jar
+jar=${E2E_JAR:-service/target/loopwright.jar}
 if [[ ! -f $jar || ${E2E_BUILD:-0} == 1 ]]; then
   mvn -B -q package -DskipTests -pl service -am
 fi

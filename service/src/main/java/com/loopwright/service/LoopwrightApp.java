@@ -169,7 +169,9 @@ public final class LoopwrightApp {
             metrics.requestFinished(route, ctx.method().name(), status, seconds);
         }
         if (ACCESS.isInfoEnabled()) {
-            ACCESS.info("{} {} {} {} ms", ctx.method().name(), route, status, Math.round(seconds * 1e4) / 10.0);
+            // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
+            ACCESS.info(ctx.method().name() + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
+                    + " ms");
         }
         MDC.remove(RequestIds.MDC_KEY);
     }

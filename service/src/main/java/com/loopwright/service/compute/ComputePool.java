@@ -4,7 +4,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
-import java.util.Map;
+import com.loopwright.service.observe.RequestIds;
 import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.ExecutionException;
@@ -76,17 +76,18 @@ public final class ComputePool implements AutoCloseable {
      */
     public <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem) {
         long submittedNanos = System.nanoTime();
-        Map<String, String> context = MDC.getCopyOfContextMap();
+        // The request id follows the computation onto the worker thread (the only diagnostic context the service
+        // sets; carrying one string avoids copying the whole context map per computation).
+        String requestId = MDC.get(RequestIds.MDC_KEY);
         try {
             Future<T> future = executor.submit(() -> {
-                // The request id follows the computation onto the worker thread.
-                if (context != null) {
-                    MDC.setContextMap(context);
+                if (requestId != null) {
+                    MDC.put(RequestIds.MDC_KEY, requestId);
                 }
                 try {
                     return computation.get();
                 } finally {
-                    MDC.clear();
+                    MDC.remove(RequestIds.MDC_KEY);
                 }
             });
             return new Pending<>(future, submittedNanos, onProblem, null);
