@@ -26,7 +26,7 @@ public final class StrictJson {
     public static ObjectMapper newMapper() {
         JsonFactory factory = JsonFactory.builder()
                 .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
-                // Correctly rounded like Double.parseDouble, only faster (round trip tested in FiniteNumbersModuleTest).
+                // Correctly rounded like Double.parseDouble, only faster (round trip: FiniteNumbersModuleTest).
                 .enable(StreamReadFeature.USE_FAST_DOUBLE_PARSER)
                 .streamReadConstraints(StreamReadConstraints.builder()
                         .maxNestingDepth(MAX_NESTING_DEPTH)
