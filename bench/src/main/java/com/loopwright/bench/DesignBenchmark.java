@@ -49,11 +49,11 @@ public class DesignBenchmark {
 
     /** The HTTP path: the same request, the response record written straight to bytes (no tree). */
     @Benchmark
-    public byte[] jsonEncode() {
+    public EncodedOutcome jsonEncode() {
         EncodedOutcome outcome = exchange.encode(request);
         if (!outcome.ok()) {
             throw new IllegalStateException("the benchmark request must design: " + outcome.problem());
         }
-        return outcome.json();
+        return outcome;
     }
 }

@@ -169,7 +169,7 @@ public final class DesignExchange {
             return EncodedOutcome.failure(computed.problem());
         }
         try {
-            return EncodedOutcome.success(writer.writeValueAsBytes(computed.response()));
+            return EncodedOutcome.owning(writer.writeValueAsBytes(computed.response()));
         } catch (NonFiniteNumberException e) {
             return EncodedOutcome.failure(outsideDoublePrecision(e));
         } catch (JsonProcessingException e) {

@@ -79,6 +79,6 @@ public final class JsonExchangeRoute implements Handler {
             problems.write(ctx, outcome.problem());
             return;
         }
-        ctx.status(200).contentType(JsonBodies.JSON).result(outcome.json());
+        ctx.status(200).contentType(JsonBodies.JSON).result(outcome.jsonStream());
     }
 }
