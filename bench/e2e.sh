@@ -3,7 +3,11 @@
 #
 # Starts service/target/loopwright.jar (built if missing) with a fixed heap, drives GET /health (the HTTP floor),
 # POST /v1/designs and POST /v1/designs/batch with wrk, and prints ratios measured in this one run:
-#   design throughput / health throughput, batch designs per second, p99 latency, resident memory after the run.
+#   design throughput / health throughput, batch designs per second, p99 latency, resident memory after the run,
+#   and the CPU time the service process spent per request (and per design), from /proc/PID/stat, so that runs on
+#   a shared machine can be compared by cost rather than by wall-clock rate.
+# The design requests cycle through a small fixed set of our own scenarios (SCENARIOS below), and the batch repeats
+# that set, so that no answer could be served from a cache of one body.
 #
 # Settings (environment):
 #   LOOPWRIGHT_PORT  port for the service (default 18180)
@@ -11,7 +15,7 @@
 #   E2E_THREADS      wrk threads (default 2), E2E_CONNECTIONS open connections (default 16, at most 256)
 #   E2E_BATCH_ITEMS  designs per batch request, 1-1000 (default 100)
 #   E2E_HEAP         -Xmx of the service (default 256m: the heap target)
-#   E2E_BUILD=1      rebuild the jar first
+#   E2E_BUILD=1      rebuild the jar first; E2E_JAR another jar to measure (default service/target/loopwright.jar)
 # Needs JDK 17, curl and wrk (the Debian package wrk; installed with apt-get if missing and possible).
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -37,7 +41,7 @@ if ! command -v wrk >/dev/null 2>&1; then
 fi
 command -v curl >/dev/null 2>&1 || { echo "curl is required" >&2; exit 2; }
 
-jar=service/target/loopwright.jar
+jar=${E2E_JAR:-service/target/loopwright.jar}
 if [[ ! -f $jar || ${E2E_BUILD:-0} == 1 ]]; then
   mvn -B -q package -DskipTests -pl service -am
 fi
@@ -50,10 +54,20 @@ cleanup() {
 }
 trap cleanup EXIT
 
-# The README's packaging-line indexing axis; the batch repeats it batch_items times.
-design='{"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}'
+# Our own scenarios: the README's packaging-line indexing axis (and a slower and a rise-time variant of it), the
+# README batch's conveyor, a tank-level loop and a camera gimbal axis. Single designs cycle through them; the batch
+# repeats them in turn up to batch_items items. Every one must design and certify (checked below).
+SCENARIOS=(
+  '{"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}'
+  '{"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.2,"overshootPercent":1}}'
+  '{"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"riseTime":0.1,"overshootPercent":2}}'
+  '{"plant":{"a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}'
+  '{"plant":{"a0":0.05,"a1":0.4,"b":0.8,"d":0.5},"spec":{"settlingTime":4,"overshootPercent":2}}'
+  '{"plant":{"a0":0,"a1":8,"b":2500,"d":900},"spec":{"settlingTime":0.05,"overshootPercent":4}}'
+)
+design=${SCENARIOS[0]}
 batch=$(printf '{"items":['; for ((i = 0; i < batch_items; i++)); do
-  (( i > 0 )) && printf ','; printf '%s' "$design"; done; printf ']}')
+  (( i > 0 )) && printf ','; printf '%s' "${SCENARIOS[i % ${#SCENARIOS[@]}]}"; done; printf ']}')
 printf '%s' "$design" > "$work/design.json"
 printf '%s' "$batch" > "$work/batch.json"
 
@@ -68,14 +82,32 @@ done = function(summary, latency, requests)
 end'
 lua_string() { python3 -c 'import json,sys; print(json.dumps(open(sys.argv[1]).read()))' "$1"; }
 printf '%s\n' "$summary" > "$work/get.lua"
-for name in design batch; do
-  cat > "$work/$name.lua" <<LUA
+cat > "$work/batch.lua" <<LUA
 wrk.method = "POST"
 wrk.headers["Content-Type"] = "application/json"
-wrk.body = $(lua_string "$work/$name.json")
+wrk.body = $(lua_string "$work/batch.json")
 $summary
 LUA
-done
+# Single designs: every scenario's request is formatted once per wrk thread, then sent in turn.
+{
+  echo 'local bodies = {'
+  for body in "${SCENARIOS[@]}"; do printf '%s' "$body" > "$work/one.json"; echo "  $(lua_string "$work/one.json"),"; done
+  echo '}'
+  cat <<'LUA'
+local requests = {}
+local next_request = 0
+init = function(args)
+  for i, body in ipairs(bodies) do
+    requests[i] = wrk.format("POST", nil, {["Content-Type"] = "application/json"}, body)
+  end
+end
+request = function()
+  next_request = next_request % #requests + 1
+  return requests[next_request]
+end
+LUA
+  printf '%s\n' "$summary"
+} > "$work/design.lua"
 
 LOOPWRIGHT_PORT=$port java -Xmx"$heap" -jar "$jar" > "$work/service.log" 2>&1 &
 pid=$!
@@ -86,9 +118,11 @@ for _ in $(seq 1 120); do
 done
 curl -fsS "$base/health" >/dev/null || { echo "service did not come up on $base" >&2; exit 1; }
 
-# Correctness before speed: the design answers 200 with a certified design.
-curl -fsS -H 'Content-Type: application/json' --data-binary @"$work/design.json" "$base/v1/designs" \
-  | grep -q '"certified":true' || { echo "POST /v1/designs did not return a certified design" >&2; exit 1; }
+# Correctness before speed: every scenario answers 200 with a certified design.
+for body in "${SCENARIOS[@]}"; do
+  curl -fsS -H 'Content-Type: application/json' --data-binary "$body" "$base/v1/designs" \
+    | grep -q '"certified":true' || { echo "POST /v1/designs did not return a certified design for $body" >&2; exit 1; }
+done
 
 batch_status=$(curl -sS -o "$work/batch.out" -w '%{http_code}' -H 'Content-Type: application/json' \
   --data-binary @"$work/batch.json" "$base/v1/designs/batch")
@@ -105,9 +139,19 @@ else
   echo "POST /v1/designs/batch answered HTTP $batch_status:" >&2; head -c 500 "$work/batch.out" >&2; exit 1
 fi
 
-run() { # name, path, script -> prints the RESULT line
-  wrk -t"$threads" -c"$connections" -d"${seconds}s" --timeout 10s -s "$work/$3" "$base$2" | grep '^RESULT' \
-    | sed "s/^RESULT/$1/"
+ticks_per_second=$(getconf CLK_TCK)
+cpu_ticks() { # user + system CPU of the service process so far, in clock ticks (fields 14 and 15 of stat)
+  awk '{ sub(/^.*\) /, ""); print $12 + $13 }' "/proc/$pid/stat"
+}
+run() { # name, path, script -> prints the RESULT line with the service's CPU microseconds per request
+  local before after result requests
+  before=$(cpu_ticks)
+  result=$(wrk -t"$threads" -c"$connections" -d"${seconds}s" --timeout 10s -s "$work/$3" "$base$2" | grep '^RESULT' \
+    | sed "s/^RESULT/$1/")
+  after=$(cpu_ticks)
+  requests=$(sed -n 's/.*requests=\([0-9]*\).*/\1/p' <<< "$result")
+  awk -v r="$result" -v t=$((after - before)) -v hz="$ticks_per_second" -v n="$requests" \
+    'BEGIN { printf "%s service_cpu_s=%.2f cpu_us_per_request=%.1f\n", r, t / hz, (n > 0 ? 1e6 * t / hz / n : 0) }'
 }
 field() { sed -n "s/.*$2=\([0-9.]*\).*/\1/p" <<< "$1"; }
 
@@ -135,12 +179,16 @@ done
 
 awk -v h="$(field "$health" rps)" -v d="$(field "$single" rps)" -v p99="$(field "$single" p99_ms)" \
     -v b="${batched:+$(field "$batched" rps)}" -v bp99="${batched:+$(field "$batched" p99_ms)}" \
+    -v hc="$(field "$health" cpu_us_per_request)" -v dc="$(field "$single" cpu_us_per_request)" \
+    -v bc="${batched:+$(field "$batched" cpu_us_per_request)}" \
     -v items="$batch_items" -v rss="$rss_kib" -v used="${heap_used:-}" 'BEGIN {
   printf "design throughput / HTTP floor: %.0f / %.0f req/s = %.1f%% (target >= 70%%)\n", d, h, 100 * d / h
   printf "design p99 latency: %.2f ms\n", p99
+  printf "service CPU per request: health %.1f us, design %.1f us\n", hc, dc
   if (b != "") {
     printf "batch: %.0f designs/s (%d per request, p99 %.2f ms per request; target >= 20000 on 2 cores)\n",
       b * items, items, bp99
+    printf "batch service CPU per design: %.1f us\n", bc / items
   } else {
     print "batch: not measured (endpoint absent)"
   }

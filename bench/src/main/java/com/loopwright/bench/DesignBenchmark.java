@@ -3,6 +3,7 @@ package com.loopwright.bench;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.exchange.DesignExchange;
+import com.loopwright.api.exchange.EncodedOutcome;
 import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.solver.design.GammaChoice;
@@ -19,7 +20,7 @@ import org.openjdk.jmh.annotations.State;
 /**
  * One whole design: the solver pipeline alone (inversion, closed form, numeric Riccati, norm, 2,000-point
  * simulation with refined metrics), and the same request as bytes in, response bytes out through the strict
- * Jackson mapper, without HTTP.
+ * Jackson mapper, without HTTP: as a tree then bytes (jsonExchange) and straight to bytes (jsonEncode).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -44,5 +45,15 @@ public class DesignBenchmark {
             throw new IllegalStateException("the benchmark request must design: " + outcome.body());
         }
         return mapper.writeValueAsBytes(outcome.body());
+    }
+
+    /** The HTTP path: the same request, the response record written straight to bytes (no tree). */
+    @Benchmark
+    public EncodedOutcome jsonEncode() {
+        EncodedOutcome outcome = exchange.encode(request);
+        if (!outcome.ok()) {
+            throw new IllegalStateException("the benchmark request must design: " + outcome.problem());
+        }
+        return outcome;
     }
 }

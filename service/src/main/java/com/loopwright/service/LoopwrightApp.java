@@ -71,7 +71,7 @@ public final class LoopwrightApp {
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
         Cors cors = new Cors(config.corsOrigins());
-        JsonExchangeRoute design = new JsonExchangeRoute(mapper, problems, pool, designs::design,
+        JsonExchangeRoute design = JsonExchangeRoute.encoded(problems, pool, designs::design,
                 outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems());
         JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool, new FitExchange(mapper)::exchange);
@@ -169,7 +169,9 @@ public final class LoopwrightApp {
             metrics.requestFinished(route, ctx.method().name(), status, seconds);
         }
         if (ACCESS.isInfoEnabled()) {
-            ACCESS.info("{} {} {} {} ms", ctx.method().name(), route, status, Math.round(seconds * 1e4) / 10.0);
+            // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
+            ACCESS.info(ctx.method().name() + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
+                    + " ms");
         }
         MDC.remove(RequestIds.MDC_KEY);
     }

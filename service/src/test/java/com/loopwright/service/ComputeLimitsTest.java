@@ -4,7 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.exchange.EncodedOutcome;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.examples.DesignClient;
 import com.loopwright.service.compute.Designs;
@@ -40,13 +40,13 @@ class ComputeLimitsTest {
         }
 
         @Override
-        public Outcome design(byte[] body) {
+        public EncodedOutcome design(byte[] body) {
             hold();
             return real.design(body);
         }
 
         @Override
-        public Outcome design(JsonNode item) {
+        public EncodedOutcome design(JsonNode item) {
             hold();
             return real.design(item);
         }
@@ -170,6 +170,59 @@ class ComputeLimitsTest {
     }
 
     @Test
+    void oneBatchKeepsEveryWorkerBusyAndStillAnswersInOrder() throws Exception {
+        GatedDesigns designs = new GatedDesigns();
+        try (LiveServer server = LiveServer.start(config("2", "4", "30000"), designs)) {
+            String items = String.join(",", java.util.Collections.nCopies(5, DesignClient.INDEXING_AXIS));
+            CompletableFuture<LiveServer.Reply> batch = CompletableFuture.supplyAsync(
+                    () -> server.post("/v1/designs/batch", "{\"items\":[" + items + "]}"));
+            awaitEntered(designs, 2);
+            Thread.sleep(200);
+            assertEquals(2, designs.entered.get(), "one item per worker at a time, not more");
+            designs.gate.countDown();
+            assertInOrderAndDesigned(batch.get(30, TimeUnit.SECONDS), 5);
+        }
+    }
+
+    @Test
+    void aBatchItemThePoolRefusesWaitsForTheBatchsOwnOldestItem() throws Exception {
+        GatedDesigns designs = new GatedDesigns();
+        // Two workers held by single designs and one queue slot: the batch's first item takes the slot, its
+        // second is refused by the full pool and must wait for the first instead of becoming a 503 line.
+        try (LiveServer server = LiveServer.start(config("2", "1", "30000"), designs)) {
+            List<CompletableFuture<LiveServer.Reply>> held = new ArrayList<>();
+            for (int i = 0; i < 2; i++) {
+                held.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS)));
+            }
+            awaitEntered(designs, 2);
+            String items = String.join(",", java.util.Collections.nCopies(4, DesignClient.INDEXING_AXIS));
+            CompletableFuture<LiveServer.Reply> batch = CompletableFuture.supplyAsync(
+                    () -> server.post("/v1/designs/batch", "{\"items\":[" + items + "]}"));
+            for (int i = 0; i < 500 && server.get("/metrics").text().contains("loopwright_design_queue_length 0"); i++) {
+                Thread.sleep(10);
+            }
+            Thread.sleep(100);
+            designs.gate.countDown();
+            for (CompletableFuture<LiveServer.Reply> reply : held) {
+                assertEquals(200, reply.get(30, TimeUnit.SECONDS).status());
+            }
+            assertInOrderAndDesigned(batch.get(30, TimeUnit.SECONDS), 4);
+            var metrics = PrometheusText.parse(server.get("/metrics").text());
+            assertEquals(0, metrics.sum("loopwright_designs_total", Map.of("outcome", "overloaded")));
+            assertEquals(6, metrics.sum("loopwright_designs_total", Map.of("outcome", "designed")));
+        }
+    }
+
+    private static void assertInOrderAndDesigned(LiveServer.Reply reply, int items) {
+        assertEquals(200, reply.status());
+        assertEquals(items, reply.lines().size(), reply.text());
+        for (int i = 0; i < items; i++) {
+            assertEquals(i, reply.lines().get(i).get("index").asInt(), "request order");
+            assertEquals(200, reply.lines().get(i).get("status").asInt(), reply.text());
+        }
+    }
+
+    @Test
     void batchLinesAreStreamedAsEachItemFinishes() throws Exception {
         // The first item is computed at once; the second waits at the gate until the first line has arrived.
         CountDownLatch gate = new CountDownLatch(1);
@@ -177,12 +230,12 @@ class ComputeLimitsTest {
         AtomicInteger calls = new AtomicInteger();
         Designs secondWaits = new Designs() {
             @Override
-            public Outcome design(byte[] body) {
+            public EncodedOutcome design(byte[] body) {
                 return real.design(body);
             }
 
             @Override
-            public Outcome design(JsonNode item) {
+            public EncodedOutcome design(JsonNode item) {
                 if (calls.incrementAndGet() == 2) {
                     try {
                         gate.await(30, TimeUnit.SECONDS);

@@ -26,6 +26,8 @@ public final class StrictJson {
     public static ObjectMapper newMapper() {
         JsonFactory factory = JsonFactory.builder()
                 .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+                // Correctly rounded like Double.parseDouble, only faster (round trip: FiniteNumbersModuleTest).
+                .enable(StreamReadFeature.USE_FAST_DOUBLE_PARSER)
                 .streamReadConstraints(StreamReadConstraints.builder()
                         .maxNestingDepth(MAX_NESTING_DEPTH)
                         .maxStringLength(MAX_STRING_LENGTH)

@@ -13,6 +13,7 @@ import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.verify.Verification;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 /** Solver results to the wire records of POST /v1/designs. */
 public final class DesignResponseMapper {
@@ -90,7 +91,8 @@ public final class DesignResponseMapper {
         List<String> notes = new ArrayList<>();
         double exactWn = design.target().naturalFrequencyRadPerSec();
         double handbookWn = inversion.handbookNaturalFrequencyRadPerSec();
-        notes.add(String.format("Exact inversion gives wn = %.6g rad/s; the handbook rule would give %.6g rad/s"
+        notes.add(String.format(Locale.US,
+                "Exact inversion gives wn = %.6g rad/s; the handbook rule would give %.6g rad/s"
                 + " (%+.1f%%).", exactWn, handbookWn, 100 * (handbookWn - exactWn) / exactWn));
         if (inversion.nearBandTouch()) {
             notes.add("A peak of the step response lies within 5% of the settling band edge: the settling time"
@@ -99,7 +101,7 @@ public final class DesignResponseMapper {
         if (design.plant().d() == 0) {
             notes.add("The plant has no disturbance input (d = 0): gamma is free and the bound is trivial.");
         } else {
-            design.positionCertificateBestGamma().ifPresent(best -> notes.add(String.format(
+            design.positionCertificateBestGamma().ifPresent(best -> notes.add(String.format(Locale.US,
                     "gamma = %.6g minimizes the disturbance-to-position bound gamma/rho1 for this spec.", best)));
         }
         return notes;

@@ -10,6 +10,7 @@ import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.TwoStateModel;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import org.ejml.data.DMatrixRMaj;
 
 /** The {@code model} section of a design response: derived coefficients, units, physical law, coordinates. */
@@ -55,7 +56,7 @@ final class ModelMapper {
         double k2 = design.velocityGain();
         double kr = design.referenceGain();
         double feedforward = design.plant().a0() / design.plant().b();
-        String law = String.format("%s [%s] = %.6g*(r - %s) - %.6g*%s' + %.6g*r, with %s and r in %s",
+        String law = String.format(Locale.US, "%s [%s] = %.6g*(r - %s) - %.6g*%s' + %.6g*r, with %s and r in %s",
                 command, commandUnit, k1, position, k2, position, feedforward, position, positionUnit);
         return new DesignResponse.PhysicalLaw(law, k1, commandUnit + "/" + positionUnit, k2,
                 commandUnit + " s/" + positionUnit, kr, feedforward, commandUnit + "/" + positionUnit,
@@ -66,7 +67,7 @@ final class ModelMapper {
         StateSpaceDesign view = CallerCoordinates.of(model, design);
         DMatrixRMaj gain = view.gain();
         DMatrixRMaj output = view.trackedOutput();
-        String law = String.format("u = %.6g*r - (%.6g*x1 + %.6g*x2), tracking y = %.6g*x1 + (%.6g)*x2",
+        String law = String.format(Locale.US, "u = %.6g*r - (%.6g*x1 + %.6g*x2), tracking y = %.6g*x1 + (%.6g)*x2",
                 view.referenceGain(), gain.get(0), gain.get(1), output.get(0), output.get(1));
         return new DesignResponse.StateSpaceView("transform maps canonical to caller coordinates (x = T z);"
                 + " p, gain, stateWeight and trackedOutput are in the caller's coordinates x; the riccati and gain"

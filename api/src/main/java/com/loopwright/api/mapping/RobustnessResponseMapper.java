@@ -14,6 +14,7 @@ import com.loopwright.solver.robustness.UncertainCase;
 import com.loopwright.solver.robustness.UncertaintyReport;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 /** Solver robustness results to the wire records, with one pass/fail check per judged section. */
 public final class RobustnessResponseMapper {
@@ -45,7 +46,7 @@ public final class RobustnessResponseMapper {
                     u.worstCase() == null ? null : caseView(u.worstCase()),
                     u.cases().stream().map(RobustnessResponseMapper::caseView).toList());
             if (u.meetingFraction() != null) {
-                verdict(checks, "uncertainty", u.meetingFraction() == 1.0, String.format(
+                verdict(checks, "uncertainty", u.meetingFraction() == 1.0, String.format(Locale.US,
                         "%.4g of %d parameter sets meet the limits, %d unstable", u.meetingFraction(),
                         u.cornerCount() + u.sampleCount(), u.unstableCount()));
             }

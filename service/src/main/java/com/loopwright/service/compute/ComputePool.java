@@ -4,7 +4,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
-import java.util.Map;
+import com.loopwright.service.observe.RequestIds;
 import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.ExecutionException;
@@ -66,38 +66,91 @@ public final class ComputePool implements AutoCloseable {
      * result of that type.
      */
     public <T> T run(Supplier<T> computation, Function<Problem, T> onProblem) {
-        Future<T> future;
+        return submit(computation, onProblem).await();
+    }
+
+    /**
+     * Queues one computation and returns at once; {@link Pending#await} waits for it up to the deadline counted
+     * from this call. A refusal (every worker busy and the queue full) is a pending result that is already
+     * resolved to the overloaded problem. Lets a caller keep several computations in flight (a batch).
+     */
+    public <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem) {
+        long submittedNanos = System.nanoTime();
+        // The request id follows the computation onto the worker thread (the only diagnostic context the service
+        // sets; carrying one string avoids copying the whole context map per computation).
+        String requestId = MDC.get(RequestIds.MDC_KEY);
         try {
-            Map<String, String> context = MDC.getCopyOfContextMap();
-            future = executor.submit(() -> {
-                // The request id follows the computation onto the worker thread.
-                if (context != null) {
-                    MDC.setContextMap(context);
+            Future<T> future = executor.submit(() -> {
+                if (requestId != null) {
+                    MDC.put(RequestIds.MDC_KEY, requestId);
                 }
                 try {
                     return computation.get();
                 } finally {
-                    MDC.clear();
+                    MDC.remove(RequestIds.MDC_KEY);
                 }
             });
+            return new Pending<>(future, submittedNanos, onProblem, null);
         } catch (RejectedExecutionException e) {
-            return onProblem.apply(ProblemType.SERVICE_OVERLOADED.problem("all " + executor.getMaximumPoolSize()
-                    + " design workers are busy and " + queueCapacity() + " designs are queued; retry after "
-                    + RETRY_AFTER_SECONDS + " s"));
+            return new Pending<>(null, submittedNanos, onProblem, onProblem.apply(ProblemType.SERVICE_OVERLOADED
+                    .problem("all " + executor.getMaximumPoolSize() + " design workers are busy and "
+                            + queueCapacity() + " designs are queued; retry after " + RETRY_AFTER_SECONDS + " s")));
         }
-        try {
-            return future.get(deadlineMillis, TimeUnit.MILLISECONDS);
-        } catch (TimeoutException e) {
-            future.cancel(true);
-            return onProblem.apply(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the compute "
-                    + "deadline of " + deadlineMillis + " ms"));
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            future.cancel(true);
-            return onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
-        } catch (ExecutionException e) {
-            LOG.error("design computation failed", e.getCause());
-            return onProblem.apply(ProblemType.INTERNAL_ERROR.problem(null));
+    }
+
+    /** One submitted computation: its result, or the problem of a refusal, a missed deadline or a failure. */
+    public final class Pending<T> {
+        private final Future<T> future;
+        private final long submittedNanos;
+        private final Function<Problem, T> onProblem;
+        private final T refused;
+
+        private Pending(Future<T> future, long submittedNanos, Function<Problem, T> onProblem, T refused) {
+            this.future = future;
+            this.submittedNanos = submittedNanos;
+            this.onProblem = onProblem;
+            this.refused = refused;
+        }
+
+        /** True when the pool refused the computation (the result is the overloaded problem). */
+        public boolean refused() {
+            return future == null;
+        }
+
+        /** True when {@link #await} would return without waiting. */
+        public boolean isDone() {
+            return future == null || future.isDone();
+        }
+
+        /** The result, waiting at most until the compute deadline after submission. Never throws. */
+        public T await() {
+            if (future == null) {
+                return refused;
+            }
+            long remainingNanos = TimeUnit.MILLISECONDS.toNanos(deadlineMillis) - (System.nanoTime() - submittedNanos);
+            try {
+                return future.get(Math.max(0, remainingNanos), TimeUnit.NANOSECONDS);
+            } catch (TimeoutException e) {
+                future.cancel(true);
+                return onProblem.apply(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the "
+                        + "compute deadline of " + deadlineMillis + " ms"));
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                future.cancel(true);
+                return onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
+            } catch (ExecutionException e) {
+                LOG.error("design computation failed", e.getCause());
+                return onProblem.apply(ProblemType.INTERNAL_ERROR.problem(null));
+            } catch (java.util.concurrent.CancellationException e) {
+                return onProblem.apply(ProblemType.NOT_READY.problem("the computation was cancelled by a shutdown"));
+            }
+        }
+
+        /** Gives up on the computation (the worker may still finish it; every solver loop is capped). */
+        public void cancel() {
+            if (future != null) {
+                future.cancel(true);
+            }
         }
     }
 

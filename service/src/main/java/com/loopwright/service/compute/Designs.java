@@ -1,14 +1,14 @@
 package com.loopwright.service.compute;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.exchange.EncodedOutcome;
 
-/** The design computation behind the routes: a request body or one batch item in, an outcome out. */
+/** The design computation behind the routes: a request body or one batch item in, an outcome as JSON bytes out. */
 public interface Designs {
 
     /** One raw request body. */
-    Outcome design(byte[] body);
+    EncodedOutcome design(byte[] body);
 
     /** One already parsed batch item. */
-    Outcome design(JsonNode item);
+    EncodedOutcome design(JsonNode item);
 }

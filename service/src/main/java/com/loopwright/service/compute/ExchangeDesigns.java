@@ -3,9 +3,9 @@ package com.loopwright.service.compute;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.exchange.DesignExchange;
-import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.exchange.EncodedOutcome;
 
-/** The production computation: {@link DesignExchange}, stateless and thread-safe. */
+/** The production computation: {@link DesignExchange} writing straight to bytes, stateless and thread-safe. */
 public final class ExchangeDesigns implements Designs {
 
     private final DesignExchange exchange;
@@ -15,12 +15,12 @@ public final class ExchangeDesigns implements Designs {
     }
 
     @Override
-    public Outcome design(byte[] body) {
-        return exchange.exchange(body);
+    public EncodedOutcome design(byte[] body) {
+        return exchange.encode(body);
     }
 
     @Override
-    public Outcome design(JsonNode item) {
-        return exchange.exchange(item);
+    public EncodedOutcome design(JsonNode item) {
+        return exchange.encode(item);
     }
 }

@@ -7,10 +7,11 @@ import java.lang.management.ThreadMXBean;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
+import java.util.TreeMap;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicLong;
-import java.util.concurrent.atomic.AtomicLongArray;
 import java.util.concurrent.atomic.DoubleAdder;
+import java.util.concurrent.atomic.LongAdder;
 import java.util.function.IntSupplier;
 
 /**
@@ -30,7 +31,7 @@ public final class Metrics {
     /** Guards the label space: at most this many (route, method, status) series. */
     static final int MAX_SERIES = 512;
 
-    private final Map<String, Histogram> requests = new ConcurrentHashMap<>();
+    private final Map<Series, Histogram> requests = new ConcurrentHashMap<>();
     private final Map<String, AtomicLong> designs = new ConcurrentHashMap<>();
     private final MemoryMXBean memory = ManagementFactory.getMemoryMXBean();
     private final ThreadMXBean threads = ManagementFactory.getThreadMXBean();
@@ -50,15 +51,30 @@ public final class Metrics {
 
     public void requestFinished(String route, String method, int status, double seconds) {
         inFlight.decrementAndGet();
-        String key = "route=\"" + route + "\",method=\"" + method.toUpperCase(Locale.ROOT) + "\",status=\"" + status + "\"";
+        // A small record as the key: no label string is built per request (that happens only in scrape()).
+        Series key = new Series(route, method, status);
         Histogram histogram = requests.get(key);
         if (histogram == null) {
             if (requests.size() >= MAX_SERIES) {
-                key = "route=\"other\",method=\"other\",status=\"" + (status / 100) + "xx\"";
+                key = new Series("other", "other", status / 100 * -1 - 1);
             }
             histogram = requests.computeIfAbsent(key, k -> new Histogram());
         }
         histogram.observe(seconds);
+    }
+
+    /**
+     * One (route, method, status) series. A negative status -(c + 1) stands for the class "cxx" of the overflow
+     * series.
+     */
+    private record Series(String route, String method, int status) {
+        String labels() {
+            if (status < 0) {
+                return "route=\"" + route + "\",method=\"" + method + "\",status=\"" + (-status - 1) + "xx\"";
+            }
+            return "route=\"" + route + "\",method=\"" + method.toUpperCase(Locale.ROOT) + "\",status=\"" + status
+                    + "\"";
+        }
     }
 
     public long inFlight() {
@@ -73,10 +89,19 @@ public final class Metrics {
 
     /** The outcome label of one design computation. */
     public static String outcomeOf(com.loopwright.api.exchange.Outcome outcome) {
-        if (outcome.ok()) {
+        return outcomeOf(outcome.status(), outcome.problem());
+    }
+
+    /** The outcome label of one design computation written as bytes. */
+    public static String outcomeOf(com.loopwright.api.exchange.EncodedOutcome outcome) {
+        return outcomeOf(outcome.status(), outcome.problem());
+    }
+
+    private static String outcomeOf(int status, com.loopwright.api.problem.Problem problem) {
+        if (problem == null) {
             return "designed";
         }
-        String type = outcome.problem().type();
+        String type = problem.type();
         if (type.equals(com.loopwright.api.problem.ProblemType.INFEASIBLE_SPEC.uri())) {
             return "infeasible";
         }
@@ -89,7 +114,7 @@ public final class Metrics {
         if (type.equals(com.loopwright.api.problem.ProblemType.DEADLINE_EXCEEDED.uri())) {
             return "deadline";
         }
-        return outcome.status() < 500 ? "invalid" : "failed";
+        return status < 500 ? "invalid" : "failed";
     }
 
     /** The whole exposition. */
@@ -97,13 +122,14 @@ public final class Metrics {
         StringBuilder out = new StringBuilder(4096);
         out.append("# HELP loopwright_http_requests_total HTTP requests by route, method and status.\n");
         out.append("# TYPE loopwright_http_requests_total counter\n");
-        requests.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> out
-                .append("loopwright_http_requests_total{").append(e.getKey()).append("} ")
-                .append(e.getValue().count()).append('\n'));
+        Map<String, Histogram> series = new TreeMap<>();
+        requests.forEach((key, histogram) -> series.merge(key.labels(), histogram, Histogram::sum));
+        series.forEach((labels, histogram) -> out
+                .append("loopwright_http_requests_total{").append(labels).append("} ")
+                .append(histogram.count()).append('\n'));
         out.append("# HELP loopwright_http_request_duration_seconds HTTP request latency by route, method and status.\n");
         out.append("# TYPE loopwright_http_request_duration_seconds histogram\n");
-        requests.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> e.getValue()
-                .write(out, "loopwright_http_request_duration_seconds", e.getKey()));
+        series.forEach((labels, histogram) -> histogram.write(out, "loopwright_http_request_duration_seconds", labels));
         out.append("# HELP loopwright_http_requests_in_flight Requests being served now.\n");
         out.append("# TYPE loopwright_http_requests_in_flight gauge\n");
         out.append("loopwright_http_requests_in_flight ").append(inFlight.get()).append('\n');
@@ -136,35 +162,57 @@ public final class Metrics {
         out.append(name).append(' ').append(value).append('\n');
     }
 
-    /** Cumulative histogram: one counter per bucket, a total count and a sum. */
+    /**
+     * Cumulative histogram: one counter per bucket, a total count and a sum, as LongAdder/DoubleAdder cells so
+     * that request threads on different cores do not contend on one counter.
+     */
     private static final class Histogram {
-        private final AtomicLongArray buckets = new AtomicLongArray(LATENCY_BUCKETS_SECONDS.length);
-        private final AtomicLong count = new AtomicLong();
+        private final LongAdder[] buckets = new LongAdder[LATENCY_BUCKETS_SECONDS.length];
+        private final LongAdder count = new LongAdder();
         private final DoubleAdder sum = new DoubleAdder();
+
+        Histogram() {
+            for (int i = 0; i < buckets.length; i++) {
+                buckets[i] = new LongAdder();
+            }
+        }
 
         void observe(double seconds) {
             for (int i = 0; i < LATENCY_BUCKETS_SECONDS.length; i++) {
                 if (seconds <= LATENCY_BUCKETS_SECONDS[i]) {
-                    buckets.incrementAndGet(i);
+                    buckets[i].increment();
                     break;
                 }
             }
             sum.add(seconds);
-            count.incrementAndGet();
+            count.increment();
         }
 
         long count() {
-            return count.get();
+            return count.sum();
+        }
+
+        /** Two series that print with the same labels (method names differing only in case) as one. */
+        static Histogram sum(Histogram a, Histogram b) {
+            Histogram total = new Histogram();
+            for (Histogram h : new Histogram[] {a, b}) {
+                for (int i = 0; i < h.buckets.length; i++) {
+                    total.buckets[i].add(h.buckets[i].sum());
+                }
+                total.count.add(h.count.sum());
+                total.sum.add(h.sum.sum());
+            }
+            return total;
         }
 
         void write(StringBuilder out, String name, String labels) {
             long cumulative = 0;
             for (int i = 0; i < LATENCY_BUCKETS_SECONDS.length; i++) {
-                cumulative += buckets.get(i);
+                cumulative += buckets[i].sum();
                 out.append(name).append("_bucket{").append(labels).append(",le=\"")
                         .append(LATENCY_BUCKETS_SECONDS[i]).append("\"} ").append(cumulative).append('\n');
             }
-            long total = count.get();
+            long total = count.sum();
             out.append(name).append("_bucket{").append(labels).append(",le=\"+Inf\"} ").append(Math.max(total, cumulative)).append('\n');
             out.append(name).append("_sum{").append(labels).append("} ").append(sum.sum()).append('\n');
             out.append(name).append("_count{").append(labels).append("} ").append(Math.max(total, cumulative)).append('\n');

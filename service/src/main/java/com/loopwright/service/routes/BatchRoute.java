@@ -3,7 +3,7 @@ package com.loopwright.service.routes;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.exchange.EncodedOutcome;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
@@ -17,20 +17,30 @@ import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import java.io.IOException;
 import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayDeque;
+import java.util.Deque;
 import java.util.Iterator;
 import java.util.List;
 
 /**
  * POST /v1/designs/batch: {"items": [DesignRequest, ...]} in, NDJSON out, one line per item in request order:
  * {"index":i,"status":200,"design":{...}} or {"index":i,"status":4xx/5xx,"problem":{...}}. One bad item never
- * fails the batch; only a malformed envelope is a 400 problem. Items are computed one after another on the
- * bounded pool (each under the compute deadline) and every line is flushed as soon as it is ready.
+ * fails the batch; only a malformed envelope is a 400 problem. Items are computed on the bounded pool, up to one per
+ * design worker at a time (each under the compute deadline counted from its submission), and written in order;
+ * the stream is flushed whenever the next line is not ready yet, so no finished line waits for a later design.
  */
 public final class BatchRoute implements Handler {
 
     public static final String PATH = "/v1/designs/batch";
     public static final String MEDIA_TYPE = "application/x-ndjson";
+    /**
+     * Items of one batch computing at the same time: one per design worker, at most this many. Bounds the memory
+     * of a batch to this many responses in flight besides the parsed request.
+     */
+    public static final int MAX_ITEMS_IN_FLIGHT = 16;
     private static final byte NEWLINE = '\n';
+    private static final byte[] CLOSE_LINE = {'}', '\n'};
 
     private final ObjectMapper mapper;
     private final ProblemResponses problems;
@@ -79,15 +89,48 @@ public final class BatchRoute implements Handler {
         ctx.status(200).contentType(MEDIA_TYPE);
         // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
         OutputStream out = ctx.res().getOutputStream();
-        for (int index = 0; index < items.size(); index++) {
-            JsonNode item = items.get(index);
-            Outcome outcome = pool.run(() -> designs.design(item));
-            metrics.design(Metrics.outcomeOf(outcome));
-            BatchLine line = outcome.ok() ? new BatchLine(index, 200, outcome.body(), null)
-                    : new BatchLine(index, outcome.status(), null, outcome.problem().withInstance(PATH + "#/items/" + index));
-            out.write(mapper.writeValueAsBytes(line));
-            out.write(NEWLINE);
+        int count = items.size();
+        int window = Math.min(pool.workerThreads(), MAX_ITEMS_IN_FLIGHT);
+        Deque<ComputePool.Pending<EncodedOutcome>> inFlight = new ArrayDeque<>(window);
+        int next = 0;
+        try {
+            for (int index = 0; index < count; index++) {
+                // Keep up to `window` items of this batch on the pool so that every worker can take one.
+                while (next < count && inFlight.size() < window) {
+                    JsonNode item = items.get(next);
+                    ComputePool.Pending<EncodedOutcome> pending = pool.submit(() -> designs.design(item),
+                            EncodedOutcome::failure);
+                    if (pending.refused() && !inFlight.isEmpty()) {
+                        break; // the pool is full: submit this item again once our oldest one is written
+                    }
+                    inFlight.addLast(pending);
+                    next++;
+                }
+                ComputePool.Pending<EncodedOutcome> oldest = inFlight.removeFirst();
+                if (!oldest.isDone()) {
+                    out.flush(); // never wait for a design with finished lines still unsent
+                }
+                EncodedOutcome outcome = oldest.await();
+                metrics.design(Metrics.outcomeOf(outcome));
+                writeLine(out, index, outcome);
+            }
             out.flush();
+        } finally {
+            // A client that went away mid-batch: give up the items still queued for it.
+            inFlight.forEach(ComputePool.Pending::cancel);
+        }
+    }
+
+    /** One BatchLine: {"index":i,"status":200,"design":{...}} or {"index":i,"status":s,"problem":{...}}. */
+    private void writeLine(OutputStream out, int index, EncodedOutcome outcome) throws IOException {
+        if (outcome.ok()) {
+            out.write(("{\"index\":" + index + ",\"status\":200,\"design\":").getBytes(StandardCharsets.US_ASCII));
+            outcome.writeTo(out);
+            out.write(CLOSE_LINE);
+        } else {
+            out.write(mapper.writeValueAsBytes(new BatchLine(index, outcome.status(), null,
+                    outcome.problem().withInstance(PATH + "#/items/" + index))));
+            out.write(NEWLINE);
         }
     }
 

@@ -1,6 +1,8 @@
 package com.loopwright.service.routes;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.exchange.EncodedOutcome;
 import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
@@ -8,7 +10,6 @@ import com.loopwright.service.http.JsonBodies;
 import com.loopwright.service.http.ProblemResponses;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
-import java.io.IOException;
 import java.util.function.Consumer;
 import java.util.function.Function;
 
@@ -16,42 +17,60 @@ import java.util.function.Function;
  * A POST route whose work is one JSON-to-JSON exchange (a design, a model fit, a high-order design, a
  * verification):
  * checks the media type, runs the exchange on the bounded compute pool under its deadline, and writes the
- * result or the problem (503 with Retry-After when the pool is saturated).
+ * result or the problem (503 with Retry-After when the pool is saturated). The response bytes are produced on
+ * the worker, inside the deadline, so the request thread only copies them out.
  */
 public final class JsonExchangeRoute implements Handler {
 
-    private final ObjectMapper mapper;
     private final ProblemResponses problems;
     private final ComputePool pool;
-    private final Function<byte[], Outcome> exchange;
-    private final Consumer<Outcome> afterwards;
+    private final Function<byte[], EncodedOutcome> exchange;
+    private final Consumer<EncodedOutcome> afterwards;
 
     public JsonExchangeRoute(ObjectMapper mapper, ProblemResponses problems, ComputePool pool,
                              Function<byte[], Outcome> exchange) {
-        this(mapper, problems, pool, exchange, outcome -> { });
+        this(problems, pool, written(mapper, exchange), outcome -> { });
     }
 
-    /**
-     * @param afterwards sees every outcome before it is written (for example to count designs by outcome)
-     */
-    public JsonExchangeRoute(ObjectMapper mapper, ProblemResponses problems, ComputePool pool,
-                             Function<byte[], Outcome> exchange, Consumer<Outcome> afterwards) {
-        this.mapper = mapper;
+    private JsonExchangeRoute(ProblemResponses problems, ComputePool pool, Function<byte[], EncodedOutcome> exchange,
+                              Consumer<EncodedOutcome> afterwards) {
         this.problems = problems;
         this.pool = pool;
         this.exchange = exchange;
         this.afterwards = afterwards;
     }
 
+    /**
+     * A route over an exchange that writes its own bytes (the design exchange).
+     *
+     * @param afterwards sees every outcome before it is written (for example to count designs by outcome)
+     */
+    public static JsonExchangeRoute encoded(ProblemResponses problems, ComputePool pool,
+                                            Function<byte[], EncodedOutcome> exchange,
+                                            Consumer<EncodedOutcome> afterwards) {
+        return new JsonExchangeRoute(problems, pool, exchange, afterwards);
+    }
+
+    /** A tree-building exchange, its tree written to bytes on the worker. */
+    private static Function<byte[], EncodedOutcome> written(ObjectMapper mapper, Function<byte[], Outcome> exchange) {
+        return body -> {
+            try {
+                return EncodedOutcome.of(exchange.apply(body), mapper);
+            } catch (JsonProcessingException e) {
+                throw new IllegalStateException("a response tree could not be written", e);
+            }
+        };
+    }
+
     @Override
-    public void handle(Context ctx) throws IOException {
+    public void handle(Context ctx) {
         if (!JsonBodies.isJson(ctx.contentType())) {
             problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
                     "send the request body with Content-Type: application/json"));
             return;
         }
         byte[] body = ctx.bodyAsBytes();
-        Outcome outcome = pool.run(() -> exchange.apply(body));
+        EncodedOutcome outcome = pool.run(() -> exchange.apply(body), EncodedOutcome::failure);
         afterwards.accept(outcome);
         if (!outcome.ok()) {
             if (outcome.status() == 503) {
@@ -60,6 +79,6 @@ public final class JsonExchangeRoute implements Handler {
             problems.write(ctx, outcome.problem());
             return;
         }
-        ctx.status(200).contentType(JsonBodies.JSON).result(mapper.writeValueAsBytes(outcome.body()));
+        ctx.status(200).contentType(JsonBodies.JSON).result(outcome.jsonStream());
     }
 }
