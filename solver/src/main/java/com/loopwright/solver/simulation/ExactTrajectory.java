@@ -4,8 +4,9 @@ import org.ejml.data.DMatrixRMaj;
 
 /**
  * The exact continuous solution of x' = A x + bRef r between the samples of a step response:
- * x(t_k + tau) by a {@link SubIntervalPropagator} (closed form for n = 2, the zero-order hold of
- * (A, bRef) over tau otherwise; both exact because r is constant).
+ * x(t_k + tau) from a sample state x_k by a {@link SubIntervalPropagator} (closed form for n = 2,
+ * the zero-order hold of (A, bRef) over tau otherwise; both exact because r is constant). It keeps
+ * no samples: the caller passes the x_k it stored for the interval.
  */
 final class ExactTrajectory {
 
@@ -14,19 +15,15 @@ final class ExactTrajectory {
     private final double[] bRef;
     private final double reference;
     private final double horizonSeconds;
-    private final int sampleCount;
     private final double intervals;
-    private final double[] state;
     private final SubIntervalPropagator propagator;
 
     /**
-     * Takes the state array over without copying: the caller must not modify it afterwards.
-     *
      * @param horizonSeconds last sample time; t_k = horizon (k / (sampleCount - 1)), the
      *     expression of {@link StepSimulator}
-     * @param state row-major samples, x_i(t_k) at k n + i
+     * @param sampleCount number of samples on [0, horizon], at least 2
      */
-    ExactTrajectory(LinearLoop loop, double reference, double horizonSeconds, double[] state,
+    ExactTrajectory(LinearLoop loop, double reference, double horizonSeconds, int sampleCount,
                     SubIntervalPropagator propagator) {
         DMatrixRMaj aMatrix = loop.a();
         this.n = aMatrix.numRows;
@@ -34,14 +31,8 @@ final class ExactTrajectory {
         this.bRef = loop.bRef().data;
         this.reference = reference;
         this.horizonSeconds = horizonSeconds;
-        this.sampleCount = state.length / n;
         this.intervals = sampleCount - 1;
-        this.state = state;
         this.propagator = propagator;
-    }
-
-    int sampleCount() {
-        return sampleCount;
     }
 
     int stateDimension() {
@@ -52,10 +43,13 @@ final class ExactTrajectory {
         return horizonSeconds * (sampleIndex / intervals);
     }
 
-    /** Writes x(t) for t in [t_k, t_(k+1)] into target, propagated exactly from sample k. */
-    void stateBetween(int sampleIndex, double tSeconds, double[] target) {
+    /**
+     * Writes x(t) for t in [t_k, t_(k+1)] into target, propagated exactly from
+     * x_k = state[offset .. offset + n).
+     */
+    void stateBetween(int sampleIndex, double[] state, int offset, double tSeconds,
+                      double[] target) {
         double tau = tSeconds - time(sampleIndex);
-        int offset = sampleIndex * n;
         if (tau <= 0.0) {
             System.arraycopy(state, offset, target, 0, n);
             return;

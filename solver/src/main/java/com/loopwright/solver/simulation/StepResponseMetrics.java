@@ -94,33 +94,32 @@ public final class StepResponseMetrics {
                     + finalValue + " is too close to zero");
             }
         }
-        // z = y / y_inf: z(0) = 0, z -> 1; and u. The simulator records their sample values and
-        // rates; the states only feed the trajectory, so they are shared, not copied.
-        StepSimulator.MetricSamples sampled = StepSimulator.sampleForMetrics(loop, stepSize,
-            horizonSeconds, samples, normalisedOutputWeights);
-        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, horizonSeconds,
-            sampled.stateRowMajor(), propagators.apply(loop, stepSize));
-        LinearSignal normalisedOutput = new LinearSignal(trajectory, sampled.output());
+        // z = y / y_inf: z(0) = 0, z -> 1; and u. The simulator streams their sample values and
+        // rates into the scans, which keep only the intervals that may hold events.
+        StepMetricsScan scan = new StepMetricsScan(loop, stepSize, horizonSeconds, samples,
+            normalisedOutputWeights, RISE_START_FRACTION, RISE_END_FRACTION,
+            settlingBandFraction, propagators);
+        StepSimulator.stream(loop, stepSize, horizonSeconds, samples, normalisedOutputWeights,
+            scan);
+        scan.throwDeferred();
 
-        double riseStart = normalisedOutput.firstTimeReaching(RISE_START_FRACTION);
-        double riseEnd = normalisedOutput.firstTimeReaching(RISE_END_FRACTION);
+        double riseStart = scan.riseStartSeconds();
+        double riseEnd = scan.riseEndSeconds();
         if (riseStart < 0.0 || riseEnd < 0.0) {
             throw new HorizonTooShortException(
                 "the output does not reach 90% of its final value " + finalValue, horizonSeconds);
         }
-        double settlingTimeSeconds =
-            normalisedOutput.lastTimeOutsideBand(1.0, settlingBandFraction);
+        double settlingTimeSeconds = scan.settlingSeconds();
         if (settlingTimeSeconds < 0.0) {
             throw new HorizonTooShortException("the output is outside the "
                 + settlingBandFraction + " settling band at the horizon", horizonSeconds);
         }
-        LinearSignal.Point peak = normalisedOutput.maximum();
+        MaximumScan.Point peak = scan.outputMaximum();
         double overshootPercent = Math.max(0.0, 100.0 * (peak.value() - 1.0));
 
         // max |u| = max(max u, max -u), both including u(0+) = dControl r at sample 0.
-        LinearSignal control = new LinearSignal(trajectory, sampled.control());
-        LinearSignal.Point controlMax = control.maximum();
-        LinearSignal.Point controlMin = control.maximumOfNegation();
+        MaximumScan.Point controlMax = scan.controlMaximum();
+        MaximumScan.Point controlMin = scan.controlMinimumNegated();
         double peakControl = Math.max(Math.abs(controlMax.value()), Math.abs(controlMin.value()));
 
         return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,

@@ -82,99 +82,48 @@ public final class StepSimulator {
     }
 
     /**
-     * The samples the step metrics read, with the checks and exceptions of {@link #sample}: the
-     * row-major states and the sample values and rates of the signal with the given output
-     * weights and of the control u (whose sample values are u_k exactly as in
-     * {@link StepResponse#control()}). For n = 2 they come from one pass of the recursion that
-     * keeps no time or output array (times are t_k = horizon (k / (samples - 1)), the same
-     * expression, and y is formed only for the finiteness check) and stores u once, as the
-     * control signal's values; otherwise from {@link #sample} and a pass over its states.
+     * The samples the step metrics read, handed to the sink one at a time and kept nowhere, with
+     * the checks and exceptions of {@link #sample}: x_k exactly as in
+     * {@link StepResponse#stateRowMajor()}, u_k exactly as in {@link StepResponse#control()}, and
+     * the value and rate of z = w . x (sums in the order {@link StepSampleSink} states). For n = 2
+     * the recursion keeps x_k in locals. Finiteness and the sample times are checked after the
+     * pass, as {@link #sample} does, so the sink may see non-finite samples before the exception;
+     * it must defer its own failures until this method returns.
      */
-    static MetricSamples sampleForMetrics(LinearLoop loop, double stepSize, double horizonSeconds,
-                                          int samples, double[] outputWeights) {
-        int n = loop.stateDimension();
-        SampledSignal outputSignal = new SampledSignal(outputWeights, 0.0);
-        SampledSignal controlSignal =
-            new SampledSignal(loop.cControl().data, loop.dControl() * stepSize);
-        double[] a = loop.a().data;
-        double[] bRef = loop.bRef().data;
-        if (n != 2) {
-            StepResponse response = sample(loop, stepSize, horizonSeconds, samples);
-            double[] state = response.sharedStateRowMajor();
-            outputSignal.fill(state, n, a, bRef, stepSize);
-            controlSignal.fill(state, n, a, bRef, stepSize);
-            return new MetricSamples(state, outputSignal, controlSignal);
-        }
+    static void stream(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
+                       double[] outputWeights, StepSampleSink sink) {
         validate(loop, stepSize, horizonSeconds, samples);
+        int n = loop.stateDimension();
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
         DiscreteStateSpace discrete =
             ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
         double[] ad = discrete.ad().data;
         double[] bd = discrete.bd().data;
+        double[] a = loop.a().data;
+        double[] bRef = loop.bRef().data;
         double[] cOut = loop.cOut().data;
         double[] cControl = loop.cControl().data;
         double feedthrough = loop.dControl() * stepSize;
-        double drive0 = bd[0] * stepSize;
-        double drive1 = bd[1] * stepSize;
-        double ad00 = ad[0];
-        double ad01 = ad[1];
-        double ad10 = ad[2];
-        double ad11 = ad[3];
-        double c0 = cOut[0];
-        double c1 = cOut[1];
-        double k0 = cControl[0];
-        double k1 = cControl[1];
-        double a00 = a[0];
-        double a01 = a[1];
-        double a10 = a[2];
-        double a11 = a[3];
-        double rateDrive0 = bRef[0] * stepSize;
-        double rateDrive1 = bRef[1] * stepSize;
-        double w0 = outputWeights[0];
-        double w1 = outputWeights[1];
-
-        double[] state = new double[2 * samples];
-        double[] outputValues = outputSignal.allocateValues(samples);
-        double[] outputRates = outputSignal.rateArray();
-        double[] control = controlSignal.allocateValues(samples);
-        double[] controlRates = controlSignal.rateArray();
-        double x0 = 0.0;
-        double x1 = 0.0;
-        double guard = 0.0;
-        double intervals = samples - 1;
-        for (int k = 0; k < samples; k++) {
-            if (k > 0) {
-                double next0 = drive0 + ad00 * x0 + ad01 * x1;
-                double next1 = drive1 + ad10 * x0 + ad11 * x1;
-                x0 = next0;
-                x1 = next1;
-            }
-            state[2 * k] = x0;
-            state[2 * k + 1] = x1;
-            double y = 0.0 + c0 * x0 + c1 * x1;
-            double u = feedthrough + k0 * x0 + k1 * x1;
-            control[k] = u;
-            guard += y + u;
-            double rate0 = rateDrive0 + a00 * x0 + a01 * x1;
-            double rate1 = rateDrive1 + a10 * x0 + a11 * x1;
-            outputValues[k] = 0.0 + w0 * x0 + w1 * x1;
-            outputRates[k] = 0.0 + w0 * rate0 + w1 * rate1;
-            controlRates[k] = 0.0 + k0 * rate0 + k1 * rate1;
+        double[] drive = new double[n];
+        double[] rateDrive = new double[n];
+        for (int i = 0; i < n; i++) {
+            drive[i] = bd[i] * stepSize;
+            rateDrive[i] = bRef[i] * stepSize;
         }
+        double guard = n == 2
+            ? streamTwoStates(samples, ad, drive, a, rateDrive, cOut, cControl, feedthrough,
+                outputWeights, sink)
+            : streamAnyStates(n, samples, ad, drive, a, rateDrive, cOut, cControl, feedthrough,
+                outputWeights, sink);
         if (!Double.isFinite(guard)) {
-            double[] timeSeconds = new double[samples];
-            double[] output = new double[samples];
-            for (int k = 0; k < samples; k++) {
-                timeSeconds[k] = horizonSeconds * (k / intervals);
-                output[k] = 0.0 + c0 * state[2 * k] + c1 * state[2 * k + 1];
-            }
-            reportFirstOverflow(2, timeSeconds, state, output, control);
+            replayFirstOverflow(n, horizonSeconds, samples, ad, drive, cOut, cControl, feedthrough);
         }
         // t_k = fl(horizon fl(k / (samples - 1))): the quotients grow by about 1 / (samples - 1)
         // >= 1e-5, far above their rounding, so the times can only repeat where the spacing h is
         // subnormal and products round to a few multiples of the smallest double. Only then are
         // they checked one by one, with the message of sample().
         if (!(samplePeriodSeconds >= Double.MIN_NORMAL)) {
+            double intervals = samples - 1;
             double previous = 0.0;
             for (int k = 1; k < samples; k++) {
                 double t = horizonSeconds * (k / intervals);
@@ -184,11 +133,145 @@ public final class StepSimulator {
                 previous = t;
             }
         }
-        return new MetricSamples(state, outputSignal, controlSignal);
     }
 
-    /** What {@link #sampleForMetrics} returns; arrays owned by the receiver. */
-    record MetricSamples(double[] stateRowMajor, SampledSignal output, SampledSignal control) {
+    /** The streaming recursion for n = 2 with x_k in locals; returns the running sum of y + u. */
+    private static double streamTwoStates(int samples, double[] ad, double[] drive, double[] a,
+                                          double[] rateDrive, double[] cOut, double[] cControl,
+                                          double feedthrough, double[] outputWeights,
+                                          StepSampleSink sink) {
+        double ad00 = ad[0];
+        double ad01 = ad[1];
+        double ad10 = ad[2];
+        double ad11 = ad[3];
+        double drive0 = drive[0];
+        double drive1 = drive[1];
+        double a00 = a[0];
+        double a01 = a[1];
+        double a10 = a[2];
+        double a11 = a[3];
+        double rateDrive0 = rateDrive[0];
+        double rateDrive1 = rateDrive[1];
+        double c0 = cOut[0];
+        double c1 = cOut[1];
+        double k0 = cControl[0];
+        double k1 = cControl[1];
+        double w0 = outputWeights[0];
+        double w1 = outputWeights[1];
+        double[] state = new double[2];
+        double x0 = 0.0;
+        double x1 = 0.0;
+        double guard = 0.0;
+        for (int k = 0; k < samples; k++) {
+            if (k > 0) {
+                double next0 = drive0 + ad00 * x0 + ad01 * x1;
+                double next1 = drive1 + ad10 * x0 + ad11 * x1;
+                x0 = next0;
+                x1 = next1;
+            }
+            double y = 0.0 + c0 * x0 + c1 * x1;
+            double u = feedthrough + k0 * x0 + k1 * x1;
+            guard += y + u;
+            double rate0 = rateDrive0 + a00 * x0 + a01 * x1;
+            double rate1 = rateDrive1 + a10 * x0 + a11 * x1;
+            state[0] = x0;
+            state[1] = x1;
+            sink.accept(k, state, 0.0 + w0 * x0 + w1 * x1, 0.0 + w0 * rate0 + w1 * rate1, u,
+                0.0 + k0 * rate0 + k1 * rate1);
+        }
+        return guard;
+    }
+
+    /** The streaming recursion for any n; returns the running sum of y + u. */
+    private static double streamAnyStates(int n, int samples, double[] ad, double[] drive,
+                                          double[] a, double[] rateDrive, double[] cOut,
+                                          double[] cControl, double feedthrough,
+                                          double[] outputWeights, StepSampleSink sink) {
+        double[] state = new double[n];
+        double[] next = new double[n];
+        double guard = 0.0;
+        for (int k = 0; k < samples; k++) {
+            if (k > 0) {
+                for (int i = 0; i < n; i++) {
+                    double sum = drive[i];
+                    int adRow = i * n;
+                    for (int j = 0; j < n; j++) {
+                        sum += ad[adRow + j] * state[j];
+                    }
+                    next[i] = sum;
+                }
+                double[] swap = state;
+                state = next;
+                next = swap;
+            }
+            double y = 0.0;
+            double u = feedthrough;
+            for (int j = 0; j < n; j++) {
+                y += cOut[j] * state[j];
+                u += cControl[j] * state[j];
+            }
+            guard += y + u;
+            double value = 0.0;
+            double rate = 0.0;
+            double controlRate = 0.0;
+            for (int i = 0; i < n; i++) {
+                value += outputWeights[i] * state[i];
+                double component = rateDrive[i];
+                int aRow = i * n;
+                for (int j = 0; j < n; j++) {
+                    component += a[aRow + j] * state[j];
+                }
+                rate += outputWeights[i] * component;
+                controlRate += cControl[i] * component;
+            }
+            sink.accept(k, state, value, rate, u, controlRate);
+        }
+        return guard;
+    }
+
+    /**
+     * Runs the recursion of {@link #stream} again (the same operations, so the same numbers) to
+     * throw for its first non-finite sample as {@link #reportFirstOverflow} does; returns on a
+     * false alarm.
+     */
+    private static void replayFirstOverflow(int n, double horizonSeconds, int samples,
+                                            double[] ad, double[] drive, double[] cOut,
+                                            double[] cControl, double feedthrough) {
+        double[] state = new double[n];
+        double[] next = new double[n];
+        double intervals = samples - 1;
+        for (int k = 0; k < samples; k++) {
+            if (k > 0) {
+                for (int i = 0; i < n; i++) {
+                    double sum = drive[i];
+                    int adRow = i * n;
+                    for (int j = 0; j < n; j++) {
+                        sum += ad[adRow + j] * state[j];
+                    }
+                    next[i] = sum;
+                }
+                double[] swap = state;
+                state = next;
+                next = swap;
+            }
+            double y = 0.0;
+            double u = feedthrough;
+            for (int j = 0; j < n; j++) {
+                y += cOut[j] * state[j];
+                u += cControl[j] * state[j];
+            }
+            double timeSeconds = horizonSeconds * (k / intervals);
+            for (int i = 0; i < n; i++) {
+                if (!Double.isFinite(state[i])) {
+                    throw new IllegalArgumentException("response overflows double precision at t = "
+                        + timeSeconds + " s: the loop diverges over this horizon");
+                }
+            }
+            if (!Double.isFinite(y) || !Double.isFinite(u)) {
+                throw new IllegalArgumentException("output or control overflows double precision at t = "
+                    + timeSeconds + " s");
+            }
+        }
     }
 
     /** The recursion for n = 2 with the state in locals; returns the running sum of y + u. */

@@ -254,10 +254,11 @@ class StepSimulatorTest {
     }
 
     @Test
-    void metricSamplesAreTheSimulatorsSamplesBitForBit() {
-        // source: simulate() and the general pass over its states (SampledSignal.fill, the
-        // summation order LinearSignal always used): the recursion that records the signals for
-        // n = 2 must give exactly the same numbers, and the same errors.
+    void streamedMetricSamplesAreTheSimulatorsSamplesBitForBit() {
+        // source: simulate() and the general pass over its states (the previous implementation's
+        // SampledSignal.fill, kept in ArrayStepMetricsOracle; the summation order the metrics always
+        // used): the streaming recursion, for n = 2 with the state in locals, must hand the sink
+        // exactly the same numbers, and throw the same errors.
         LinearLoop[] loops = {SecondOrderLoops.stateFeedbackLoop(0.3, 12.0),
             SecondOrderLoops.randomStableLoop(7L, 2, 0.3), SecondOrderLoops.randomStableLoop(4L, 4, 0.5)};
         for (LinearLoop loop : loops) {
@@ -267,33 +268,47 @@ class StepSimulatorTest {
             for (int j = 0; j < n; j++) {
                 weights[j] = 0.7 * (j + 1) - 0.4;
             }
-            StepResponse response = simulator.simulate(loop, r, 5.0, 700);
-            StepSimulator.MetricSamples samples = StepSimulator.sampleForMetrics(loop, r, 5.0, 700, weights);
-            assertArrayEquals(response.stateRowMajor(), samples.stateRowMajor());
-            assertArrayEquals(response.control(), samples.control().valueArray());
-            SampledSignal output = new SampledSignal(weights, 0.0);
+            int samples = 700;
+            StepResponse response = simulator.simulate(loop, r, 5.0, samples);
+            double[] state = new double[samples * n];
+            double[][] streamed = new double[4][samples];
+            int[] next = {0};
+            StepSimulator.stream(loop, r, 5.0, samples, weights, (k, x, z, zRate, u, uRate) -> {
+                assertEquals(next[0]++, k);
+                System.arraycopy(x, 0, state, k * n, n);
+                streamed[0][k] = z;
+                streamed[1][k] = zRate;
+                streamed[2][k] = u;
+                streamed[3][k] = uRate;
+            });
+            assertEquals(samples, next[0]);
+            assertArrayEquals(response.stateRowMajor(), state);
+            assertArrayEquals(response.control(), streamed[2]);
+            ArrayStepMetricsOracle.SampledSignal output = new ArrayStepMetricsOracle.SampledSignal(weights, 0.0);
             output.fill(response.stateRowMajor(), n, loop.a().data, loop.bRef().data, r);
-            SampledSignal control = new SampledSignal(loop.cControl().data, loop.dControl() * r);
+            ArrayStepMetricsOracle.SampledSignal control =
+                new ArrayStepMetricsOracle.SampledSignal(loop.cControl().data, loop.dControl() * r);
             control.fill(response.stateRowMajor(), n, loop.a().data, loop.bRef().data, r);
-            assertArrayEquals(output.valueArray(), samples.output().valueArray());
-            assertArrayEquals(output.rateArray(), samples.output().rateArray());
-            assertArrayEquals(control.valueArray(), samples.control().valueArray());
-            assertArrayEquals(control.rateArray(), samples.control().rateArray());
+            assertArrayEquals(output.valueArray(), streamed[0]);
+            assertArrayEquals(output.rateArray(), streamed[1]);
+            assertArrayEquals(control.valueArray(), streamed[2]);
+            assertArrayEquals(control.rateArray(), streamed[3]);
         }
+        StepSampleSink ignore = (k, x, z, zRate, u, uRate) -> { };
         LinearLoop unstable = new LinearLoop(new DMatrixRMaj(new double[][] {{50, 0}, {0, -1}}),
             new DMatrixRMaj(new double[][] {{1}, {1}}), new DMatrixRMaj(new double[][] {{1, 0}}),
             new DMatrixRMaj(new double[][] {{1, 1}}), 0.0);
         IllegalArgumentException expected = assertThrows(IllegalArgumentException.class,
             () -> simulator.simulate(unstable, 1, 100, 100_000));
         IllegalArgumentException actual = assertThrows(IllegalArgumentException.class,
-            () -> StepSimulator.sampleForMetrics(unstable, 1, 100, 100_000, new double[] {1, 0}));
+            () -> StepSimulator.stream(unstable, 1, 100, 100_000, new double[] {1, 0}, ignore));
         assertEquals(expected.getMessage(), actual.getMessage());
         LinearLoop hugeOutput = new LinearLoop(new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}}),
             new DMatrixRMaj(new double[][] {{1}, {1}}), new DMatrixRMaj(new double[][] {{1e308, 0}}),
             new DMatrixRMaj(new double[][] {{1, 1}}), 0.0);
         expected = assertThrows(IllegalArgumentException.class, () -> simulator.simulate(hugeOutput, 10, 1, 11));
         actual = assertThrows(IllegalArgumentException.class,
-            () -> StepSimulator.sampleForMetrics(hugeOutput, 10, 1, 11, new double[] {1, 0}));
+            () -> StepSimulator.stream(hugeOutput, 10, 1, 11, new double[] {1, 0}, ignore));
         assertEquals(expected.getMessage(), actual.getMessage());
         assertTrue(expected.getMessage().startsWith("output or control overflows"));
         // A subnormal horizon (about 700 units of the smallest double over 999 intervals) repeats
@@ -301,7 +316,7 @@ class StepSimulatorTest {
         LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
         expected = assertThrows(IllegalArgumentException.class, () -> simulator.simulate(loop, 1, 3.5e-321, 1000));
         actual = assertThrows(IllegalArgumentException.class,
-            () -> StepSimulator.sampleForMetrics(loop, 1, 3.5e-321, 1000, new double[] {1, 0}));
+            () -> StepSimulator.stream(loop, 1, 3.5e-321, 1000, new double[] {1, 0}, ignore));
         assertEquals(expected.getMessage(), actual.getMessage());
     }
 

@@ -1,0 +1,148 @@
+package com.loopwright.solver.simulation;
+
+import java.util.function.BiFunction;
+
+/**
+ * The scans behind {@link StepResponseMetrics}, fed sample by sample by
+ * {@link StepSimulator#stream}: first times of the normalised output z at 10% and 90%, its exit
+ * from the settling band, its maximum, and the maxima of u and -u. Only the previous sample and
+ * the intervals that may hold events are kept, so memory grows with the events, not the samples.
+ *
+ * <p>The rise scans refine during the pass. A failure there, or in building the propagation
+ * between samples, is deferred until {@link #throwDeferred}, after the simulator's own checks, so
+ * the exceptions come in the order of a scan over recorded samples: the simulator's first.
+ */
+final class StepMetricsScan implements StepSampleSink {
+
+    private final RiseScan riseStart;
+    private final RiseScan riseEnd;
+    private final SettlingScan settling;
+    private final MaximumScan outputMaximum;
+    private final MaximumScan controlMaximum;
+    private final MaximumScan controlMinimum;
+    private RuntimeException deferred;
+
+    private final double[] previousState;
+    private double previousOutput;
+    private double previousOutputRate;
+    private double previousControl;
+    private double previousControlRate;
+
+    /**
+     * @param outputWeights w of z = w . x
+     * @param riseStartLevel, riseEndLevel the levels of z whose first times bound the rise
+     * @param bandHalfWidth settling band around z = 1
+     */
+    StepMetricsScan(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
+                    double[] outputWeights, double riseStartLevel, double riseEndLevel,
+                    double bandHalfWidth,
+                    BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
+        int n = loop.stateDimension();
+        SubIntervalPropagator propagator = null;
+        try {
+            propagator = propagators.apply(loop, stepSize);
+        } catch (RuntimeException e) {
+            deferred = e;
+        }
+        ExactTrajectory trajectory =
+            new ExactTrajectory(loop, stepSize, horizonSeconds, samples, propagator);
+        SignalBetweenSamples output =
+            new SignalBetweenSamples(trajectory, outputWeights, 0.0, 1.0);
+        double[] cControl = loop.cControl().data;
+        double feedthrough = loop.dControl() * stepSize;
+        SignalBetweenSamples control =
+            new SignalBetweenSamples(trajectory, cControl, feedthrough, 1.0);
+        SignalBetweenSamples negatedControl =
+            new SignalBetweenSamples(trajectory, cControl, feedthrough, -1.0);
+        this.riseStart = new RiseScan(output, riseStartLevel);
+        this.riseEnd = new RiseScan(output, riseEndLevel);
+        this.settling = new SettlingScan(output, n, 1.0, bandHalfWidth);
+        this.outputMaximum = new MaximumScan(output, n);
+        this.controlMaximum = new MaximumScan(control, n);
+        this.controlMinimum = new MaximumScan(negatedControl, n);
+        this.previousState = new double[n];
+        if (deferred != null) {
+            riseStart.abandon();
+            riseEnd.abandon();
+        }
+    }
+
+    @Override
+    public void accept(int k, double[] state, double outputValue, double outputRate,
+                       double controlValue, double controlRate) {
+        if (k == 0) {
+            riseStart.firstSample(outputValue);
+            riseEnd.firstSample(outputValue);
+            outputMaximum.firstSample(outputValue);
+            controlMaximum.firstSample(controlValue);
+            controlMinimum.firstSample(-controlValue);
+        } else {
+            int interval = k - 1;
+            double[] from = previousState;
+            rise(interval, outputValue, outputRate);
+            settling.interval(interval, from, previousOutput, previousOutputRate, outputValue,
+                outputRate);
+            outputMaximum.interval(interval, from, previousOutput, previousOutputRate, outputValue,
+                outputRate);
+            controlMaximum.interval(interval, from, previousControl, previousControlRate,
+                controlValue, controlRate);
+            controlMinimum.interval(interval, from, -previousControl, -previousControlRate,
+                -controlValue, -controlRate);
+        }
+        settling.sample(k, state, outputValue);
+        System.arraycopy(state, 0, previousState, 0, previousState.length);
+        previousOutput = outputValue;
+        previousOutputRate = outputRate;
+        previousControl = controlValue;
+        previousControlRate = controlRate;
+    }
+
+    /** Both rise scans on interval k; the 10% scan first, as the metrics read them. */
+    private void rise(int interval, double outputValue, double outputRate) {
+        try {
+            riseStart.interval(interval, previousState, previousOutput, previousOutputRate,
+                outputValue, outputRate);
+            riseEnd.interval(interval, previousState, previousOutput, previousOutputRate,
+                outputValue, outputRate);
+        } catch (RuntimeException e) {
+            deferred = e;
+            riseStart.abandon();
+            riseEnd.abandon();
+        }
+    }
+
+    /** Rethrows a failure deferred during the pass. */
+    void throwDeferred() {
+        if (deferred != null) {
+            throw deferred;
+        }
+    }
+
+    /** First time z reaches the rise-start level, -1 if not within the horizon. */
+    double riseStartSeconds() {
+        return riseStart.timeSeconds();
+    }
+
+    /** First time z reaches the rise-end level, -1 if not within the horizon. */
+    double riseEndSeconds() {
+        return riseEnd.timeSeconds();
+    }
+
+    /** Exit time from the settling band, -1 if z is outside it at the horizon. */
+    double settlingSeconds() {
+        return settling.timeSeconds();
+    }
+
+    MaximumScan.Point outputMaximum() {
+        return outputMaximum.maximum();
+    }
+
+    MaximumScan.Point controlMaximum() {
+        return controlMaximum.maximum();
+    }
+
+    /** The maximum of -u: its time and the value of -u there. */
+    MaximumScan.Point controlMinimumNegated() {
+        return controlMinimum.maximum();
+    }
+}
