@@ -36,17 +36,23 @@ final class MaximumScan {
      */
     void interval(int k, double[] state, double valueAtStart, double rateAtStart,
                   double valueAtEnd, double rateAtEnd) {
+        // The per-sample tests stay small; the rare candidate is handled in a separate method.
         if (rateAtStart > 0.0 && rateAtEnd < 0.0) {
-            double bound = SignalBetweenSamples.interiorMaximumBound(
-                signal.time(k + 1) - signal.time(k), valueAtStart, rateAtStart, valueAtEnd,
-                rateAtEnd);
-            if (bound > bestValue) {
-                candidates.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, bound);
-            }
+            consider(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
         }
         if (valueAtEnd > bestValue) {
             bestValue = valueAtEnd;
             bestSample = k + 1;
+        }
+    }
+
+    /** Interval k has an interior maximum: keeps it if its bound beats the best sample so far. */
+    private void consider(int k, double[] state, double valueAtStart, double rateAtStart,
+                          double valueAtEnd, double rateAtEnd) {
+        double bound = SignalBetweenSamples.interiorMaximumBound(
+            signal.time(k + 1) - signal.time(k), valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
+        if (bound > bestValue) {
+            candidates.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, bound);
         }
     }
 

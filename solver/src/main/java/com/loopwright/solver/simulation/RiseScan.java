@@ -30,24 +30,39 @@ final class RiseScan {
     /** Interval k from x_k = state[0 .. n) with the end values and rates of s. */
     void interval(int k, double[] state, double valueAtStart, double rateAtStart,
                   double valueAtEnd, double rateAtEnd) {
+        // The per-sample test stays small; the rare refinements are separate methods.
         if (done) {
             return;
         }
-        if (rateAtStart > 0.0 && rateAtEnd < 0.0 && SignalBetweenSamples.interiorMaximumBound(
-            signal.time(k + 1) - signal.time(k), valueAtStart, rateAtStart, valueAtEnd,
-            rateAtEnd) >= level) {
+        if (rateAtStart > 0.0 && rateAtEnd < 0.0
+            && reachedAtPeak(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd)) {
+            return;
+        }
+        if (valueAtEnd >= level) {
+            reachedAtEnd(k, state, valueAtStart, valueAtEnd);
+        }
+    }
+
+    /** Interval k has an interior maximum: finishes and returns true if its peak reaches the level. */
+    private boolean reachedAtPeak(int k, double[] state, double valueAtStart, double rateAtStart,
+                                  double valueAtEnd, double rateAtEnd) {
+        if (SignalBetweenSamples.interiorMaximumBound(signal.time(k + 1) - signal.time(k),
+            valueAtStart, rateAtStart, valueAtEnd, rateAtEnd) >= level) {
             double peakTime = signal.criticalTime(k, state, 0, rateAtStart, rateAtEnd);
             double peakValue = signal.valueBetween(k, state, 0, peakTime);
             if (peakValue >= level) {
                 finish(signal.crossing(k, state, 0, level, signal.time(k), valueAtStart, peakTime,
                     peakValue));
-                return;
+                return true;
             }
         }
-        if (valueAtEnd >= level) {
-            finish(signal.crossing(k, state, 0, level, signal.time(k), valueAtStart,
-                signal.time(k + 1), valueAtEnd));
-        }
+        return false;
+    }
+
+    /** s_(k+1) reaches the level: the crossing on [t_k, t_(k+1)]. */
+    private void reachedAtEnd(int k, double[] state, double valueAtStart, double valueAtEnd) {
+        finish(signal.crossing(k, state, 0, level, signal.time(k), valueAtStart,
+            signal.time(k + 1), valueAtEnd));
     }
 
     /** Stops scanning (the pass has failed and will report why). */

@@ -8,7 +8,7 @@ package com.loopwright.solver.simulation;
  * backward scan tests interval k's interior before sample k, so once sample k* is outside, no
  * earlier interval is reached. At the end the listed intervals are refined latest first; the
  * first confirmed excursion gives the exit (s is monotone from the extremum to t_(k+1)), else
- * the crossing after sample k*.
+ * the crossing after sample k*. x_k* is copied only when sample k* + 1 is inside the band.
  */
 final class SettlingScan {
 
@@ -37,30 +37,51 @@ final class SettlingScan {
     /** Interval k (k = 0, 1, ... in order, each after sample k) from x_k = state[0 .. n). */
     void interval(int k, double[] state, double valueAtStart, double rateAtStart,
                   double valueAtEnd, double rateAtEnd) {
-        if (k == lastOutside) {
-            valueAfterOutside = valueAtEnd;
+        // The per-sample tests stay small; the rare bookkeeping is in separate methods.
+        if (k == lastOutside && !(Math.abs(valueAtEnd - centre) > halfWidth)) {
+            keepLastOutside(state, valueAtEnd);
         }
         if (rateAtStart > 0.0 && rateAtEnd < 0.0) {
-            if (SignalBetweenSamples.interiorMaximumBound(width(k), valueAtStart, rateAtStart,
-                valueAtEnd, rateAtEnd) > upper) {
-                excursions.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, 0.0);
-            }
+            considerMaximum(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
         } else if (rateAtStart < 0.0 && rateAtEnd > 0.0) {
-            if (SignalBetweenSamples.interiorMinimumBound(width(k), valueAtStart, rateAtStart,
-                valueAtEnd, rateAtEnd) < lower) {
-                excursions.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, 0.0);
-            }
+            considerMinimum(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
         }
     }
 
-    /** Sample k (k = 0, 1, ... in order, each after interval k - 1), x_k = state[0 .. n). */
-    void sample(int k, double[] state, double value) {
+    /**
+     * Sample k + 1 is inside the band, so k may stay the last sample outside: keeps x_k and
+     * s_(k+1). (While s stays outside, as on the rise, nothing is copied.)
+     */
+    private void keepLastOutside(double[] state, double valueAtEnd) {
+        valueAfterOutside = valueAtEnd;
+        System.arraycopy(state, 0, stateOutside, 0, stateOutside.length);
+    }
+
+    private void considerMaximum(int k, double[] state, double valueAtStart, double rateAtStart,
+                                 double valueAtEnd, double rateAtEnd) {
+        if (SignalBetweenSamples.interiorMaximumBound(width(k), valueAtStart, rateAtStart,
+            valueAtEnd, rateAtEnd) > upper) {
+            excursions.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, 0.0);
+        }
+    }
+
+    private void considerMinimum(int k, double[] state, double valueAtStart, double rateAtStart,
+                                 double valueAtEnd, double rateAtEnd) {
+        if (SignalBetweenSamples.interiorMinimumBound(width(k), valueAtStart, rateAtStart,
+            valueAtEnd, rateAtEnd) < lower) {
+            excursions.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, 0.0);
+        }
+    }
+
+    /** Sample k (k = 0, 1, ... in order, each after interval k - 1). */
+    void sample(int k, double value) {
         lastSample = k;
         if (Math.abs(value - centre) > halfWidth) {
             lastOutside = k;
             valueOutside = value;
-            System.arraycopy(state, 0, stateOutside, 0, stateOutside.length);
-            excursions.clear();
+            if (excursions.size() != 0) {
+                excursions.clear();
+            }
         }
     }
 

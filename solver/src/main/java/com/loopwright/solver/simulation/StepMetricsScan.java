@@ -22,7 +22,8 @@ final class StepMetricsScan implements StepSampleSink {
     private final MaximumScan controlMinimum;
     private RuntimeException deferred;
 
-    private final double[] previousState;
+    /** x_(k-1) while sample k is handled: the simulator's array, unchanged until then. */
+    private double[] previousState;
     private double previousOutput;
     private double previousOutputRate;
     private double previousControl;
@@ -60,7 +61,6 @@ final class StepMetricsScan implements StepSampleSink {
         this.outputMaximum = new MaximumScan(output, n);
         this.controlMaximum = new MaximumScan(control, n);
         this.controlMinimum = new MaximumScan(negatedControl, n);
-        this.previousState = new double[n];
         if (deferred != null) {
             riseStart.abandon();
             riseEnd.abandon();
@@ -89,8 +89,8 @@ final class StepMetricsScan implements StepSampleSink {
             controlMinimum.interval(interval, from, -previousControl, -previousControlRate,
                 -controlValue, -controlRate);
         }
-        settling.sample(k, state, outputValue);
-        System.arraycopy(state, 0, previousState, 0, previousState.length);
+        settling.sample(k, outputValue);
+        previousState = state;
         previousOutput = outputValue;
         previousOutputRate = outputRate;
         previousControl = controlValue;

@@ -10,8 +10,8 @@ interface StepSampleSink {
     /**
      * Sample k.
      *
-     * @param state x_k in state[0 .. n); the array is reused for the next sample, so copy what
-     *     must outlive the call
+     * @param state x_k in state[0 .. n); it stays unchanged until the call for sample k + 1
+     *     returns (so a sink may read x_k while it handles sample k + 1), then it is reused
      * @param outputValue z_k = 0 + sum_i w_i x_i
      * @param outputRate z'_k = 0 + sum_i w_i (bRef_i r + sum_j a_ij x_j)
      * @param controlValue u_k, exactly as in {@link StepResponse#control()}

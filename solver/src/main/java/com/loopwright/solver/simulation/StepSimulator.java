@@ -158,7 +158,9 @@ public final class StepSimulator {
         double k1 = cControl[1];
         double w0 = outputWeights[0];
         double w1 = outputWeights[1];
-        double[] state = new double[2];
+        // x_k goes to one of two arrays by the parity of k, so it survives the next call.
+        double[] even = new double[2];
+        double[] odd = new double[2];
         double x0 = 0.0;
         double x1 = 0.0;
         double guard = 0.0;
@@ -174,6 +176,7 @@ public final class StepSimulator {
             guard += y + u;
             double rate0 = rateDrive0 + a00 * x0 + a01 * x1;
             double rate1 = rateDrive1 + a10 * x0 + a11 * x1;
+            double[] state = (k & 1) == 0 ? even : odd;
             state[0] = x0;
             state[1] = x1;
             sink.accept(k, state, 0.0 + w0 * x0 + w1 * x1, 0.0 + w0 * rate0 + w1 * rate1, u,
@@ -187,6 +190,7 @@ public final class StepSimulator {
                                           double[] a, double[] rateDrive, double[] cOut,
                                           double[] cControl, double feedthrough,
                                           double[] outputWeights, StepSampleSink sink) {
+        // x_k and x_(k-1) alternate between two arrays, so x_k survives the next call.
         double[] state = new double[n];
         double[] next = new double[n];
         double guard = 0.0;
