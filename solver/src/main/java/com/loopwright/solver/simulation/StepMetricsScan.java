@@ -8,14 +8,14 @@ import java.util.function.BiFunction;
  * from the settling band, its maximum, and the maxima of u and -u. Only the previous sample and
  * the intervals that may hold events are kept, so memory grows with the events, not the samples.
  *
- * <p>The rise scans refine during the pass. A failure there, or in building the propagation
+ * <p>The rise scan refines during the pass. A failure there, or in building the propagation
  * between samples, is deferred until {@link #throwDeferred}, after the simulator's own checks, so
  * the exceptions come in the order of a scan over recorded samples: the simulator's first.
  */
 final class StepMetricsScan implements StepSampleSink {
 
-    private final RiseScan riseStart;
-    private final RiseScan riseEnd;
+    /** The rise-start and rise-end levels, in that order. */
+    private final RiseScan rise;
     private final SettlingScan settling;
     private final MaximumScan outputMaximum;
     private final MaximumScan controlMaximum;
@@ -55,40 +55,35 @@ final class StepMetricsScan implements StepSampleSink {
             new SignalBetweenSamples(trajectory, cControl, feedthrough, 1.0);
         SignalBetweenSamples negatedControl =
             new SignalBetweenSamples(trajectory, cControl, feedthrough, -1.0);
-        this.riseStart = new RiseScan(output, riseStartLevel);
-        this.riseEnd = new RiseScan(output, riseEndLevel);
+        this.rise = new RiseScan(output, riseStartLevel, riseEndLevel);
         this.settling = new SettlingScan(output, n, 1.0, bandHalfWidth);
         this.outputMaximum = new MaximumScan(output, n);
         this.controlMaximum = new MaximumScan(control, n);
         this.controlMinimum = new MaximumScan(negatedControl, n);
         if (deferred != null) {
-            riseStart.abandon();
-            riseEnd.abandon();
+            rise.abandon();
         }
     }
 
     @Override
     public void accept(int k, double[] state, double outputValue, double outputRate,
                        double controlValue, double controlRate) {
+        // Kept small, so that the simulator's loop can inline it with the scans' per-sample tests.
         if (k == 0) {
-            riseStart.firstSample(outputValue);
-            riseEnd.firstSample(outputValue);
-            outputMaximum.firstSample(outputValue);
-            controlMaximum.firstSample(controlValue);
-            controlMinimum.firstSample(-controlValue);
-        } else {
-            int interval = k - 1;
-            double[] from = previousState;
-            rise(interval, outputValue, outputRate);
-            settling.interval(interval, from, previousOutput, previousOutputRate, outputValue,
-                outputRate);
-            outputMaximum.interval(interval, from, previousOutput, previousOutputRate, outputValue,
-                outputRate);
-            controlMaximum.interval(interval, from, previousControl, previousControlRate,
-                controlValue, controlRate);
-            controlMinimum.interval(interval, from, -previousControl, -previousControlRate,
-                -controlValue, -controlRate);
+            first(state, outputValue, outputRate, controlValue, controlRate);
+            return;
         }
+        int interval = k - 1;
+        double[] from = previousState;
+        rise.interval(interval, from, previousOutput, previousOutputRate, outputValue, outputRate);
+        settling.interval(interval, from, previousOutput, previousOutputRate, outputValue,
+            outputRate);
+        outputMaximum.interval(interval, from, previousOutput, previousOutputRate, outputValue,
+            outputRate);
+        controlMaximum.interval(interval, from, previousControl, previousControlRate,
+            controlValue, controlRate);
+        controlMinimum.interval(interval, from, -previousControl, -previousControlRate,
+            -controlValue, -controlRate);
         settling.sample(k, outputValue);
         previousState = state;
         previousOutput = outputValue;
@@ -97,18 +92,19 @@ final class StepMetricsScan implements StepSampleSink {
         previousControlRate = controlRate;
     }
 
-    /** Both rise scans on interval k; the 10% scan first, as the metrics read them. */
-    private void rise(int interval, double outputValue, double outputRate) {
-        try {
-            riseStart.interval(interval, previousState, previousOutput, previousOutputRate,
-                outputValue, outputRate);
-            riseEnd.interval(interval, previousState, previousOutput, previousOutputRate,
-                outputValue, outputRate);
-        } catch (RuntimeException e) {
-            deferred = e;
-            riseStart.abandon();
-            riseEnd.abandon();
-        }
+    /** Sample 0. */
+    private void first(double[] state, double outputValue, double outputRate,
+                       double controlValue, double controlRate) {
+        rise.firstSample(outputValue);
+        outputMaximum.firstSample(outputValue);
+        controlMaximum.firstSample(controlValue);
+        controlMinimum.firstSample(-controlValue);
+        settling.sample(0, outputValue);
+        previousState = state;
+        previousOutput = outputValue;
+        previousOutputRate = outputRate;
+        previousControl = controlValue;
+        previousControlRate = controlRate;
     }
 
     /** Rethrows a failure deferred during the pass. */
@@ -116,16 +112,19 @@ final class StepMetricsScan implements StepSampleSink {
         if (deferred != null) {
             throw deferred;
         }
+        if (rise.failure() != null) {
+            throw rise.failure();
+        }
     }
 
     /** First time z reaches the rise-start level, -1 if not within the horizon. */
     double riseStartSeconds() {
-        return riseStart.timeSeconds();
+        return rise.timeSeconds(0);
     }
 
     /** First time z reaches the rise-end level, -1 if not within the horizon. */
     double riseEndSeconds() {
-        return riseEnd.timeSeconds();
+        return rise.timeSeconds(1);
     }
 
     /** Exit time from the settling band, -1 if z is outside it at the horizon. */
