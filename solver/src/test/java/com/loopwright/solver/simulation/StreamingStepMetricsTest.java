@@ -148,6 +148,33 @@ class StreamingStepMetricsTest {
     }
 
     @Test
+    void failuresBetweenSamplesComeAfterTheSimulatorsChecks() {
+        // source: the previous implementation (ArrayStepMetricsOracle), which sampled first and only
+        // then built the propagation and refined: a propagation that cannot be built, or that
+        // fails on its first use (during the streaming rise scan), must give that failure for a
+        // loop that simulates cleanly, and the simulator's overflow message for one that does not.
+        BiFunction<LinearLoop, Double, SubIntervalPropagator> unbuildable = (loop, r) -> {
+            throw new IllegalStateException("propagation unavailable");
+        };
+        BiFunction<LinearLoop, Double, SubIntervalPropagator> failing = (loop, r) -> (state, offset, tau, target) -> {
+            throw new IllegalStateException("propagation failed at tau = " + tau);
+        };
+        LinearLoop clean = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
+        LinearLoop hugeControl = new LinearLoop(new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}}),
+            new DMatrixRMaj(new double[][] {{1}, {1}}), new DMatrixRMaj(new double[][] {{1, 0}}),
+            new DMatrixRMaj(new double[][] {{1e308, 1e308}}), 0.0);
+        for (BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators
+            : java.util.List.of(unbuildable, failing)) {
+            for (LinearLoop loop : new LinearLoop[] {clean, hugeControl}) {
+                assertSameOutcome("propagation failure",
+                    () -> metrics.measure(loop, 10, 10, 1000, BAND, propagators),
+                    () -> oracle.measure(loop, 10, 10, 1000, BAND, propagators));
+            }
+        }
+        assertEquals(4, refused);
+    }
+
+    @Test
     void measuringTheIndexingAxisAllocatesOnlyPerEventMemory() {
         // source: common practice; HotSpot's per-thread allocation counter
         // (com.sun.management.ThreadMXBean.getThreadAllocatedBytes) around 2000 calls on the
