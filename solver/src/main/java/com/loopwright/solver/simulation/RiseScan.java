@@ -1,5 +1,7 @@
 package com.loopwright.solver.simulation;
 
+import java.util.Arrays;
+
 /**
  * The first times a signal reaches ascending levels (its first sample below them), in one
  * forward pass: for each level, the first interval k where an interior maximum's bound reaches
@@ -33,7 +35,7 @@ final class RiseScan {
         this.signal = signal;
         this.levels = ascendingLevels.clone();
         this.timeSeconds = new double[levels.length];
-        java.util.Arrays.fill(timeSeconds, -1.0);
+        Arrays.fill(timeSeconds, -1.0);
         this.level = levels.length > 0 ? levels[0] : Double.NaN;
     }
 

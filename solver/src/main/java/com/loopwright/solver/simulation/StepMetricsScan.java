@@ -20,7 +20,8 @@ final class StepMetricsScan implements StepSampleSink {
     private final MaximumScan outputMaximum;
     private final MaximumScan controlMaximum;
     private final MaximumScan controlMinimum;
-    private RuntimeException deferred;
+    /** A failure to build the propagation between samples, reported after the pass. */
+    private RuntimeException propagationFailure;
 
     /** x_(k-1) while sample k is handled: the simulator's array, unchanged until then. */
     private double[] previousState;
@@ -31,7 +32,8 @@ final class StepMetricsScan implements StepSampleSink {
 
     /**
      * @param outputWeights w of z = w . x
-     * @param riseStartLevel, riseEndLevel the levels of z whose first times bound the rise
+     * @param riseStartLevel the level of z whose first time starts the rise
+     * @param riseEndLevel the higher level of z whose first time ends the rise
      * @param bandHalfWidth settling band around z = 1
      */
     StepMetricsScan(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
@@ -43,7 +45,7 @@ final class StepMetricsScan implements StepSampleSink {
         try {
             propagator = propagators.apply(loop, stepSize);
         } catch (RuntimeException e) {
-            deferred = e;
+            propagationFailure = e;
         }
         ExactTrajectory trajectory =
             new ExactTrajectory(loop, stepSize, horizonSeconds, samples, propagator);
@@ -60,7 +62,7 @@ final class StepMetricsScan implements StepSampleSink {
         this.outputMaximum = new MaximumScan(output, n);
         this.controlMaximum = new MaximumScan(control, n);
         this.controlMinimum = new MaximumScan(negatedControl, n);
-        if (deferred != null) {
+        if (propagationFailure != null) {
             rise.abandon();
         }
     }
@@ -109,8 +111,8 @@ final class StepMetricsScan implements StepSampleSink {
 
     /** Rethrows a failure deferred during the pass. */
     void throwDeferred() {
-        if (deferred != null) {
-            throw deferred;
+        if (propagationFailure != null) {
+            throw propagationFailure;
         }
         if (rise.failure() != null) {
             throw rise.failure();
