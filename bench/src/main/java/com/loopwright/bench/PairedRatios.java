@@ -73,22 +73,12 @@ public final class PairedRatios {
         System.out.printf("%-55s %10.1f us CPU per call%n", "step metrics, 2000 samples (one design's share)",
                 single(stepMetrics::measure) / 1e3);
         for (Pair single : List.of(new Pair("design: solver pipeline", design::solverPipeline, null),
-                new Pair("design: JSON bytes in, JSON bytes out", PairedRatios.unchecked(design), null))) {
+                new Pair("design: JSON bytes in, JSON bytes out (service path)", design::jsonEncode, null))) {
             double nanos = single(single.ours());
             System.out.printf("%-55s %10.1f us CPU per design = %8.0f designs/s per core%n", single.name(),
                     nanos / 1e3, 1e9 / nanos);
         }
         System.out.printf("load after: %s%n", loadAverage());
-    }
-
-    private static Supplier<Object> unchecked(DesignBenchmark design) {
-        return () -> {
-            try {
-                return design.jsonExchange();
-            } catch (java.io.IOException e) {
-                throw new IllegalStateException(e);
-            }
-        };
     }
 
     static double single(Supplier<Object> operation) {
