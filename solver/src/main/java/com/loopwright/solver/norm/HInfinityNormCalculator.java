@@ -219,6 +219,11 @@ public final class HInfinityNormCalculator {
         for (Complex_F64 pole : poles) {
             abscissa = Math.max(abscissa, pole.real);
         }
+        requireHurwitz(abscissa, aNorm);
+    }
+
+    /** Spectral abscissa below -HURWITZ_MARGIN ||A||_F, else {@link UnstableSystemException}. */
+    static void requireHurwitz(double abscissa, double aNorm) {
         double margin = HURWITZ_MARGIN * aNorm;
         if (!(abscissa < -margin)) {
             throw new UnstableSystemException("A is not Hurwitz: its largest eigenvalue real part is " + abscissa

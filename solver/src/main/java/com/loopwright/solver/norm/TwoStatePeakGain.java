@@ -26,16 +26,13 @@ import org.ejml.dense.row.NormOps_DDRM;
  */
 public final class TwoStatePeakGain {
 
-    /** Same Hurwitz margin as the general calculator: spectral abscissa &lt; -margin ||A||_F. */
-    public static final double HURWITZ_MARGIN = HInfinityNormCalculator.HURWITZ_MARGIN;
-
     /**
      * @param a 2 x 2 Hurwitz state matrix
      * @param b 2 x 1 input vector
      * @param c p x 2 output matrix, p &gt;= 1
      * @return the norm and its peak frequency, with {@code iterations} 0 (no eigenvalue test is needed)
      * @throws IllegalArgumentException for wrong shapes or non-finite entries
-     * @throws UnstableSystemException if A is not Hurwitz
+     * @throws UnstableSystemException if A is not Hurwitz (the general calculator's margin)
      * @throws NormComputationException if the peak overflows double precision
      */
     public HInfinityNorm compute(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
@@ -82,13 +79,7 @@ public final class TwoStatePeakGain {
     }
 
     private static void requireHurwitz(DMatrixRMaj a) {
-        double abscissa = TwoByTwoSpectrum.of(a).abscissa();
-        double margin = HURWITZ_MARGIN * NormOps_DDRM.normF(a);
-        if (!(abscissa < -margin)) {
-            throw new UnstableSystemException("A is not Hurwitz: its largest eigenvalue real part is " + abscissa
-                    + " (required < " + (-margin) + "), so the H-infinity norm is infinite or undefined;"
-                    + " stabilize the loop before evaluating its peak gain");
-        }
+        HInfinityNormCalculator.requireHurwitz(TwoByTwoSpectrum.of(a).abscissa(), NormOps_DDRM.normF(a));
     }
 
     private static void validate(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
