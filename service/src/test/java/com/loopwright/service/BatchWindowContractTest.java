@@ -7,7 +7,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 
-/** The cap on a batch's items computing at once is the one openapi.yaml documents. */
+/** The cap on a batch's items computing at once and its flush delay are the ones openapi.yaml documents. */
 class BatchWindowContractTest {
 
     @Test
@@ -15,5 +15,15 @@ class BatchWindowContractTest {
         String contract = Files.readString(Path.of("..", "openapi.yaml")).replaceAll("\\s+", " ");
         assertTrue(contract.contains("(at most " + BatchRoute.MAX_ITEMS_IN_FLIGHT + " per batch)"),
                 "openapi.yaml must state the items-in-flight cap " + BatchRoute.MAX_ITEMS_IN_FLIGHT);
+    }
+
+    @Test
+    void theDocumentedFlushDelayIsTheCodes() throws Exception {
+        String contract = Files.readString(Path.of("..", "openapi.yaml")).replaceAll("\\s+", " ");
+        assertTrue(contract.contains("finished lines are sent within " + BatchRoute.FLUSH_DELAY_MILLIS + " ms"),
+                "openapi.yaml must state the flush delay " + BatchRoute.FLUSH_DELAY_MILLIS + " ms");
+        String readme = Files.readString(Path.of("..", "README.md")).replaceAll("\\s+", " ");
+        assertTrue(readme.contains("each sent at most " + BatchRoute.FLUSH_DELAY_MILLIS + " ms after it is ready"),
+                "README.md must state the flush delay " + BatchRoute.FLUSH_DELAY_MILLIS + " ms");
     }
 }

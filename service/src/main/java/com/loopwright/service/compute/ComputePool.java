@@ -122,6 +122,28 @@ public final class ComputePool implements AutoCloseable {
             return future == null || future.isDone();
         }
 
+        /**
+         * Waits up to {@code nanos} (and never past the deadline) for the computation to finish; returns whether it
+         * has. Never throws; {@link #await} then gives the result or the problem.
+         */
+        public boolean awaitDone(long nanos) {
+            if (future == null || future.isDone()) {
+                return true;
+            }
+            long remainingNanos = TimeUnit.MILLISECONDS.toNanos(deadlineMillis) - (System.nanoTime() - submittedNanos);
+            try {
+                future.get(Math.max(0, Math.min(nanos, remainingNanos)), TimeUnit.NANOSECONDS);
+                return true;
+            } catch (TimeoutException e) {
+                return false;
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                return future.isDone();
+            } catch (ExecutionException | java.util.concurrent.CancellationException e) {
+                return true;
+            }
+        }
+
         /** The result, waiting at most until the compute deadline after submission. Never throws. */
         public T await() {
             if (future == null) {

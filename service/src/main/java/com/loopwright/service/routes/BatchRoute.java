@@ -28,7 +28,9 @@ import java.util.List;
  * {"index":i,"status":200,"design":{...}} or {"index":i,"status":4xx/5xx,"problem":{...}}. One bad item never
  * fails the batch; only a malformed envelope is a 400 problem. Items are computed on the bounded pool, up to one per
  * design worker at a time (each under the compute deadline counted from its submission), and written in order;
- * the stream is flushed whenever the next line is not ready yet, so no finished line waits for a later design.
+ * when the next line is not ready within {@value #FLUSH_DELAY_MILLIS} ms the stream is flushed, so no finished line
+ * waits longer than that for a later design (and a batch of fast designs goes out in full buffers, not one write per
+ * line).
  */
 public final class BatchRoute implements Handler {
 
@@ -39,6 +41,9 @@ public final class BatchRoute implements Handler {
      * of a batch to this many responses in flight besides the parsed request.
      */
     public static final int MAX_ITEMS_IN_FLIGHT = 16;
+    /** Longest a finished line waits in the buffer for the next design before the stream is flushed [ms]. */
+    public static final int FLUSH_DELAY_MILLIS = 2;
+    private static final long FLUSH_DELAY_NANOS = FLUSH_DELAY_MILLIS * 1_000_000L;
     private static final byte NEWLINE = '\n';
     private static final byte[] CLOSE_LINE = {'}', '\n'};
 
@@ -107,8 +112,8 @@ public final class BatchRoute implements Handler {
                     next++;
                 }
                 ComputePool.Pending<EncodedOutcome> oldest = inFlight.removeFirst();
-                if (!oldest.isDone()) {
-                    out.flush(); // never wait for a design with finished lines still unsent
+                if (!oldest.awaitDone(FLUSH_DELAY_NANOS)) {
+                    out.flush(); // never wait longer than the flush delay with finished lines unsent
                 }
                 EncodedOutcome outcome = oldest.await();
                 metrics.design(Metrics.outcomeOf(outcome));
