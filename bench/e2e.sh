@@ -12,6 +12,10 @@
 # Settings (environment):
 #   LOOPWRIGHT_PORT  port for the service (default 18180)
 #   E2E_SECONDS      seconds per wrk run, 1-60 (default 10)
+#   E2E_WARMUP_SECONDS  seconds of unmeasured load on each of /v1/designs, the batch and /health first, 1-60
+#                    (default 10):
+#                    the JIT compiles the service for about 15 s of load, and a measurement taken during that
+#                    time says more about the compiler than about the service
 #   E2E_THREADS      wrk threads (default 2), E2E_CONNECTIONS open connections (default 16, at most 256)
 #   E2E_BATCH_ITEMS  designs per batch request, 1-1000 (default 100)
 #   E2E_HEAP         -Xmx of the service (default 256m: the heap target)
@@ -22,6 +26,7 @@ cd "$(dirname "$0")/.."
 
 port=${LOOPWRIGHT_PORT:-18180}
 seconds=${E2E_SECONDS:-10}
+warmup_seconds=${E2E_WARMUP_SECONDS:-10}
 threads=${E2E_THREADS:-2}
 connections=${E2E_CONNECTIONS:-16}
 batch_items=${E2E_BATCH_ITEMS:-100}
@@ -30,6 +35,7 @@ base="http://127.0.0.1:$port"
 
 # Bounds: every run is time-boxed, and the whole script cannot run away.
 (( seconds >= 1 && seconds <= 60 )) || { echo "E2E_SECONDS must be 1-60" >&2; exit 2; }
+(( warmup_seconds >= 1 && warmup_seconds <= 60 )) || { echo "E2E_WARMUP_SECONDS must be 1-60" >&2; exit 2; }
 (( connections >= 1 && connections <= 256 )) || { echo "E2E_CONNECTIONS must be 1-256" >&2; exit 2; }
 (( threads >= 1 && threads <= connections )) || { echo "E2E_THREADS must be 1-E2E_CONNECTIONS" >&2; exit 2; }
 (( batch_items >= 1 && batch_items <= 1000 )) || { echo "E2E_BATCH_ITEMS must be 1-1000" >&2; exit 2; }
@@ -143,10 +149,10 @@ ticks_per_second=$(getconf CLK_TCK)
 cpu_ticks() { # user + system CPU of the service process so far, in clock ticks (fields 14 and 15 of stat)
   awk '{ sub(/^.*\) /, ""); print $12 + $13 }' "/proc/$pid/stat"
 }
-run() { # name, path, script -> prints the RESULT line with the service's CPU microseconds per request
+run() { # name, path, script [, seconds] -> prints the RESULT line with the service's CPU microseconds per request
   local before after result requests
   before=$(cpu_ticks)
-  result=$(wrk -t"$threads" -c"$connections" -d"${seconds}s" --timeout 10s -s "$work/$3" "$base$2" | grep '^RESULT' \
+  result=$(wrk -t"$threads" -c"$connections" -d"${4:-$seconds}s" --timeout 10s -s "$work/$3" "$base$2" | grep '^RESULT' \
     | sed "s/^RESULT/$1/")
   after=$(cpu_ticks)
   requests=$(sed -n 's/.*requests=\([0-9]*\).*/\1/p' <<< "$result")
@@ -156,8 +162,12 @@ run() { # name, path, script -> prints the RESULT line with the service's CPU mi
 field() { sed -n "s/.*$2=\([0-9.]*\).*/\1/p" <<< "$1"; }
 
 echo "load before: $(uptime)"
-echo "wrk: $threads threads, $connections connections, ${seconds}s per run; service heap -Xmx$heap; $(nproc) cores"
-run warmup /v1/designs design.lua > /dev/null
+echo "wrk: $threads threads, $connections connections, ${seconds}s per run after ${warmup_seconds}s of warm-up on each path; service heap -Xmx$heap; $(nproc) cores"
+run warmup /v1/designs design.lua "$warmup_seconds" > /dev/null
+if (( batch_available )); then
+  run warmup /v1/designs/batch batch.lua "$warmup_seconds" > /dev/null
+fi
+run warmup /health get.lua "$warmup_seconds" > /dev/null
 health=$(run health /health get.lua); echo "$health"
 single=$(run design /v1/designs design.lua); echo "$single"
 if (( batch_available )); then
