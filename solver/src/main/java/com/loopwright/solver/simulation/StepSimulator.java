@@ -196,14 +196,7 @@ public final class StepSimulator {
         double guard = 0.0;
         for (int k = 0; k < samples; k++) {
             if (k > 0) {
-                for (int i = 0; i < n; i++) {
-                    double sum = drive[i];
-                    int adRow = i * n;
-                    for (int j = 0; j < n; j++) {
-                        sum += ad[adRow + j] * state[j];
-                    }
-                    next[i] = sum;
-                }
+                advance(n, ad, drive, state, 0, next, 0);
                 double[] swap = state;
                 state = next;
                 next = swap;
@@ -246,14 +239,7 @@ public final class StepSimulator {
         double intervals = samples - 1;
         for (int k = 0; k < samples; k++) {
             if (k > 0) {
-                for (int i = 0; i < n; i++) {
-                    double sum = drive[i];
-                    int adRow = i * n;
-                    for (int j = 0; j < n; j++) {
-                        sum += ad[adRow + j] * state[j];
-                    }
-                    next[i] = sum;
-                }
+                advance(n, ad, drive, state, 0, next, 0);
                 double[] swap = state;
                 state = next;
                 next = swap;
@@ -333,15 +319,7 @@ public final class StepSimulator {
             timeSeconds[k] = horizonSeconds * (k / intervals);
             int row = k * n;
             if (k > 0) {
-                int previous = row - n;
-                for (int i = 0; i < n; i++) {
-                    double sum = drive[i];
-                    int adRow = i * n;
-                    for (int j = 0; j < n; j++) {
-                        sum += ad[adRow + j] * state[previous + j];
-                    }
-                    state[row + i] = sum;
-                }
+                advance(n, ad, drive, state, row - n, state, row);
             }
             double y = 0.0;
             double u = feedthrough;
@@ -354,6 +332,23 @@ public final class StepSimulator {
             guard += y + u;
         }
         return guard;
+    }
+
+    /**
+     * One ZOH step for any n, x_(k+1) = Ad x_k + Bd r: row i is drive_i plus sum_j ad_ij x_j in that order
+     * (the recursions for any n share it, so they give the same numbers). x_k is read at
+     * {@code from[fromOffset ..]}, x_(k+1) written at {@code to[toOffset ..]}.
+     */
+    private static void advance(int n, double[] ad, double[] drive, double[] from, int fromOffset, double[] to,
+                                int toOffset) {
+        for (int i = 0; i < n; i++) {
+            double sum = drive[i];
+            int adRow = i * n;
+            for (int j = 0; j < n; j++) {
+                sum += ad[adRow + j] * from[fromOffset + j];
+            }
+            to[toOffset + i] = sum;
+        }
     }
 
     /** Throws for the first non-finite sample, states before outputs; returns on a false alarm. */
