@@ -219,6 +219,11 @@ public final class StepResponseFitter {
         List<FitWarning> warnings = new ArrayList<>();
         for (int i = 0; i < p; i++) {
             double se = standardErrors[i];
+            if (atBound[i]) {
+                warnings.add(new FitWarning(FitWarning.Code.AT_BOUND, String.format("%s = %.4g sits on the bound"
+                        + " of the values the fit may take: the optimum is constrained there, its interval is"
+                        + " one-sided (clipped at the bound) and only approximate", names[i], point[i])));
+            }
             if (!Double.isFinite(se)) {
                 parameters.add(new FittedParameter(names[i], point[i], Double.NaN, Double.NaN, Double.NaN));
                 warnings.add(new FitWarning(FitWarning.Code.POORLY_DETERMINED, String.format("%s = %.4g is not"
@@ -233,11 +238,6 @@ public final class StepResponseFitter {
                 warnings.add(new FitWarning(FitWarning.Code.POORLY_DETERMINED, String.format("%s = %.4g has a"
                         + " standard error of %.0f%% of its value: the data hardly determine it", names[i],
                         point[i], 100 * se / Math.abs(point[i]))));
-            }
-            if (atBound[i]) {
-                warnings.add(new FitWarning(FitWarning.Code.AT_BOUND, String.format("%s = %.4g sits on the bound"
-                        + " of the values the fit may take: the optimum is constrained there, its interval is"
-                        + " one-sided (clipped at the bound) and only approximate", names[i], point[i])));
             }
         }
         warnings.addAll(dataWarnings(data, afterStep, wn, zeta, theta, stepChange, sigma));
