@@ -114,14 +114,29 @@ public final class StepResponseFitter {
         ResponseModel model = new ResponseModel(data, options);
         StartingGuess guess = new StartingGuess(t, y, afterStep, data.stepTimeSeconds(), y0Guess, change,
                 data.stepAmplitude());
+        List<Run> finalists = search(model, guess, y, options);
+        Run best = finalists.stream().filter(r -> Double.isFinite(r.cost()))
+                .min(Comparator.comparingDouble(Run::cost)).orElseThrow(() -> new FitFailedException(
+                        "the least-squares fit did not converge within " + maxIterations + " iterations and "
+                        + MAX_EVALUATIONS + " evaluations; the record may not be a second-order step response"));
+        return summarize(data, model, best, n, p, afterStep);
+    }
+
+    /**
+     * Every Levenberg-Marquardt run of one fit, in order: the dead-time profile (when the dead time is
+     * estimated), then the fits of all parameters from the best profile points or from the guess. Returns the
+     * converged runs that may be the answer: the full fits and the profile point on the bound theta = 0.
+     */
+    private List<Run> search(ResponseModel model, StartingGuess guess, double[] y, FitOptions options) {
         List<Run> finalists = new ArrayList<>();
         List<double[]> starts = new ArrayList<>();
         if (options.estimateDeadTime()) {
             // The profile: the other parameters fitted at each held dead time; failed points rank by their start.
             List<Run> profile = new ArrayList<>();
             double span = PROFILE_SPAN_OF_HALF_RISE * Math.max(guess.halfRiseSeconds(), 0);
-            for (int k = 0; k < PROFILE_DEAD_TIMES; k++) {
-                double heldDeadTime = span * k / (PROFILE_DEAD_TIMES - 1);
+            int points = span > 0 ? PROFILE_DEAD_TIMES : 1;
+            for (int k = 0; k < points; k++) {
+                double heldDeadTime = points == 1 ? 0 : span * k / (points - 1);
                 ResponseModel held = model.holdingDeadTime(heldDeadTime);
                 double[] start = guess.point(heldDeadTime, false, options.estimateInitialOffset());
                 Optional<Run> run = minimize(held, y, start, Math.min(maxIterations, PROFILE_ITERATIONS),
@@ -139,11 +154,7 @@ public final class StepResponseFitter {
         for (double[] start : starts) {
             minimize(model, y, start, maxIterations, MAX_EVALUATIONS).ifPresent(finalists::add);
         }
-        Run best = finalists.stream().filter(r -> Double.isFinite(r.cost()))
-                .min(Comparator.comparingDouble(Run::cost)).orElseThrow(() -> new FitFailedException(
-                        "the least-squares fit did not converge within " + maxIterations + " iterations and "
-                        + MAX_EVALUATIONS + " evaluations; the record may not be a second-order step response"));
-        return summarize(data, model, best, n, p, afterStep);
+        return finalists;
     }
 
     /**
