@@ -148,4 +148,55 @@ class FitEndpointTest extends LiveServerTest {
         assertEquals(400, wrongType.status());
         assertEquals(415, server.post("/v1/models/fit", "{}", "text/plain").status());
     }
+
+    /** source: overdamped unit step 1 + (s1 e^{-s2 t} - s2 e^{-s1 t})/(s2 - s1), s1,2 = wn (zeta -+ sqrt(zeta^2 - 1)). */
+    private static double overdampedStep(double t, double wn, double zeta) {
+        if (t <= 0) {
+            return 0;
+        }
+        double root = Math.sqrt(zeta * zeta - 1);
+        double s1 = wn * (zeta - root);
+        double s2 = wn * (zeta + root);
+        return 1 + (s1 * Math.exp(-s2 * t) - s2 * Math.exp(-s1 * t)) / (s2 - s1);
+    }
+
+    /** 41 samples spacing apart from t = 0 of 0.5 + S(t - stepTime - 0.1) + 0.01 noise, with a dead time fitted. */
+    private static ObjectNode overdampedTest(double wn, double zeta, double spacing, double stepTime, long seed) {
+        Random random = new Random(seed);
+        ObjectNode body = JSON.createObjectNode();
+        ObjectNode samples = body.putObject("samples");
+        ArrayNode time = samples.putArray("time");
+        ArrayNode output = samples.putArray("output");
+        for (int i = 0; i < 41; i++) {
+            double t = spacing * i;
+            time.add(t);
+            output.add(0.5 + overdampedStep(t - stepTime - 0.1, wn, zeta) + 0.01 * random.nextGaussian());
+        }
+        body.put("stepTime", stepTime);
+        body.put("estimateDeadTime", true);
+        return body;
+    }
+
+    // Issue 12, items 11 and 12, on the live server (its responses are checked against the contract).
+    @Test
+    void overdampedRecordsGetTheOptimumAndNoUnsupportedIntervals() throws Exception {
+        // Item 11: truth K 1, wn 2, zeta 1.3, dead time 0.1 s, offset 0.5; a fit stuck at dead time 0 had
+        // zeta 0.80 and an interval of negative dead times.
+        var stuck = server.post("/v1/models/fit", JSON.writeValueAsString(overdampedTest(2, 1.3, 0.25, 0, 10)));
+        assertEquals(200, stuck.status(), stuck.text());
+        assertTrue(stuck.json().at("/plant/dampingRatio").asDouble() > 1, stuck.text());
+        assertTrue(parameter(stuck.json(), "deadTime", "lower95") >= 0, stuck.text());
+        assertTrue(stuck.json().at("/quality/rmsError").asDouble() < 0.012, stuck.text());
+        // Item 12: wn 33.9, zeta 9.46 sampled at 10 Hz; J'J is singular at the optimum.
+        var singular = server.post("/v1/models/fit", JSON.writeValueAsString(
+                overdampedTest(33.9, 9.46, 0.1, 0.5, 5)));
+        assertEquals(200, singular.status(), singular.text());
+        assertTrue(singular.text().contains("poorlyDetermined"), singular.text());
+        int withoutInterval = 0;
+        for (JsonNode p : singular.json().get("parameters")) {
+            withoutInterval += p.has("lower95") ? 0 : 1;
+            assertTrue(!p.has("standardError") || p.get("standardError").asDouble() > 0, p.toString());
+        }
+        assertTrue(withoutInterval >= 2, singular.text());
+    }
 }

@@ -38,8 +38,11 @@ public final class FitResponseMapper {
             case "deadTime" -> "s";
             default -> "output units";
         };
-        return new FitResponse.ParameterView(p.name(), p.estimate(), p.standardError(), p.lower95(), p.upper95(),
-                unit);
+        // A parameter the data do not determine has no standard error and no interval to report.
+        return p.determined()
+                ? new FitResponse.ParameterView(p.name(), p.estimate(), p.standardError(), p.lower95(), p.upper95(),
+                        unit)
+                : new FitResponse.ParameterView(p.name(), p.estimate(), null, null, null, unit);
     }
 
     private static FitResponse.WarningView view(FitWarning warning) {

@@ -1,5 +1,6 @@
 package com.loopwright.api.response;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import java.util.List;
 
 /**
@@ -30,11 +31,15 @@ public record FitResponse(FittedPlant plant, List<ParameterView> parameters, dou
     }
 
     /**
-     * @param lower95 estimate - t_{0.975, n-p} standardError
-     * @param upper95 estimate + t_{0.975, n-p} standardError
+     * standardError, lower95 and upper95 are absent when the data do not determine the parameter (J'J singular
+     * in its direction; a poorlyDetermined warning names it).
+     *
+     * @param lower95 estimate - t_{0.975, n-p} standardError, at least the lowest value the parameter can take
+     * @param upper95 estimate + t_{0.975, n-p} standardError, at most the highest value the fit may give it
      */
-    public record ParameterView(String name, double estimate, double standardError, double lower95,
-                                double upper95, String unit) {
+    @JsonInclude(JsonInclude.Include.NON_NULL)
+    public record ParameterView(String name, double estimate, Double standardError, Double lower95,
+                                Double upper95, String unit) {
     }
 
     /**

@@ -15,8 +15,8 @@ import java.util.List;
  * @param rmsError          sqrt(mean squared residual)
  * @param rSquared          1 - SSR/SST
  * @param degreesOfFreedom  n - p
- * @param iterations        LM iterations of the chosen start
- * @param evaluations       model evaluations of the chosen start
+ * @param iterations        LM iterations of the run that gave the result
+ * @param evaluations       model evaluations of that run
  * @param warnings          findings about the data
  */
 public record StepFit(double gain, double naturalFrequency, double dampingRatio, double deadTimeSeconds,

@@ -1,14 +1,13 @@
 package com.loopwright.solver.fit;
 
 import com.loopwright.solver.spec.NormalizedSettlingTime;
-import com.loopwright.solver.spec.OvershootDamping;
 import java.util.ArrayList;
-import java.util.Arrays;
+import java.util.Comparator;
 import java.util.List;
+import java.util.Optional;
 import org.hipparchus.distribution.continuous.TDistribution;
 import org.hipparchus.exception.MathIllegalArgumentException;
 import org.hipparchus.exception.MathIllegalStateException;
-import org.hipparchus.linear.Array2DRowRealMatrix;
 import org.hipparchus.linear.ArrayRealVector;
 import org.hipparchus.linear.RealMatrix;
 import org.hipparchus.linear.RealVector;
@@ -21,19 +20,36 @@ import org.hipparchus.util.Pair;
 /**
  * Fits K, wn, zeta and optionally the dead time theta and initial offset y0 of
  * y(t) = y0 + K A S(wn (t - t_step - theta); zeta) to a logged step test by Levenberg-Marquardt (Hipparchus),
- * from a few starts read off the data (final value, peak or 50% crossing, 10% crossing). Standard errors come
- * from s^2 (J'J)^-1 at the optimum with s^2 = SSR/(n - p). Stateless and thread-safe.
+ * with every parameter kept in its box (theta &gt;= 0, see {@link ResponseModel}).
+ *
+ * <p>Without a dead time, one start read off the data (final value, peak or 50% crossing) is refined. With a
+ * dead time, the cost is first profiled over it: at {@link #PROFILE_DEAD_TIMES} held dead times from 0 to
+ * 7/8 of the 50% crossing the other parameters are fitted, the {@link #FULL_FIT_STARTS} best profile points
+ * start fits of all parameters, and the lowest cost among those and the profile point at theta = 0 (the
+ * optimum on the bound, where the data want a negative dead time) wins. A single start at theta = 0 can stall
+ * there in a local minimum far from the optimum; the profile sees the whole range of plausible dead times.
+ *
+ * <p>Standard errors come from s^2 (J'J)^-1 at the optimum with s^2 = SSR/(n - p) ({@link ParameterCovariance});
+ * 95% intervals use Student's t with n - p degrees of freedom and are clipped to the values a parameter can take.
+ * A parameter on a bound of its box is reported with an {@code AT_BOUND} warning, a parameter the data do not
+ * determine without an interval and with a {@code POORLY_DETERMINED} warning. Stateless and thread-safe.
  */
 public final class StepResponseFitter {
 
     /** Fewest samples accepted (each parameter needs several). */
     public static final int MIN_SAMPLES = 8;
-    /** Levenberg-Marquardt iterations per start. */
+    /** Levenberg-Marquardt iterations of a fit of all parameters. */
     public static final int MAX_ITERATIONS = 200;
-    /** Model evaluations per start. */
+    /** Model evaluations of a fit of all parameters. */
     public static final int MAX_EVALUATIONS = 1000;
-    /** Starting points tried (dead-time guesses); the lowest residual wins. */
-    public static final int MAX_STARTS = 4;
+    /** Held dead times of the profile (each one fit of the other parameters). */
+    public static final int PROFILE_DEAD_TIMES = 8;
+    /** Levenberg-Marquardt iterations of one profile point. */
+    public static final int PROFILE_ITERATIONS = 50;
+    /** Model evaluations of one profile point. */
+    public static final int PROFILE_EVALUATIONS = 200;
+    /** Best profile points that start a fit of all parameters. */
+    public static final int FULL_FIT_STARTS = 2;
     /** Largest damping ratio the fit explores (beyond it a second-order model is a first-order one). */
     public static final double MAX_DAMPING_RATIO = 50;
     /** Relative standard error above which a parameter is reported as poorly determined. */
@@ -46,8 +62,9 @@ public final class StepResponseFitter {
     static final double PLATEAU_FRACTION = 0.05;
     /** Samples wanted between the step and the 90% point of the rise. */
     static final int MIN_TRANSIENT_SAMPLES = 10;
+    /** Largest held dead time of the profile, as a fraction of the time to the 50% crossing. */
+    static final double PROFILE_SPAN_OF_HALF_RISE = (PROFILE_DEAD_TIMES - 1.0) / PROFILE_DEAD_TIMES;
 
-    private static final double RANK_THRESHOLD = 1e-14;
     /** Doublings allowed when bracketing the 90% point (wn t beyond 2^60 is never reached for zeta &lt;= 50). */
     private static final int MAX_BRACKET_DOUBLINGS = 60;
     /** Bisection steps on the 90% point (enough to reach double precision from any bracket). */
@@ -59,12 +76,16 @@ public final class StepResponseFitter {
         this(MAX_ITERATIONS);
     }
 
-    /** A fitter with a lower iteration cap per start (tests of the non-convergence path). */
+    /** A fitter with a lower iteration cap per run (tests of the non-convergence path). */
     StepResponseFitter(int maxIterations) {
         if (maxIterations < 1 || maxIterations > MAX_ITERATIONS) {
             throw new IllegalArgumentException("iteration cap must be from 1 to " + MAX_ITERATIONS);
         }
         this.maxIterations = maxIterations;
+    }
+
+    /** One Levenberg-Marquardt run: the point in the layout of the full fit, its cost sqrt(SSR), its work. */
+    private record Run(double[] point, double cost, int iterations, int evaluations) {
     }
 
     public StepFit fit(StepTestData data, FitOptions options) {
@@ -91,44 +112,94 @@ public final class StepResponseFitter {
                     + " identify a model from");
         }
         ResponseModel model = new ResponseModel(data, options);
-        List<double[]> starts = starts(t, y, afterStep, data.stepTimeSeconds(), y0Guess, change,
-                data.stepAmplitude(), options);
-        LeastSquaresOptimizer.Optimum best = null;
-        String lastFailure = "no start converged";
-        for (double[] start : starts) {
-            LeastSquaresProblem problem = new LeastSquaresBuilder()
-                    .start(start)
-                    .model(model)
-                    .target(y)
-                    .parameterValidator(point -> model.clamp(point))
-                    .maxIterations(maxIterations)
-                    .maxEvaluations(MAX_EVALUATIONS)
-                    .lazyEvaluation(false)
-                    .build();
-            try {
-                LeastSquaresOptimizer.Optimum optimum = new LevenbergMarquardtOptimizer().optimize(problem);
-                if (best == null || optimum.getCost() < best.getCost()) {
-                    best = optimum;
-                }
-            } catch (MathIllegalStateException | MathIllegalArgumentException e) {
-                lastFailure = "the least-squares fit did not converge within " + maxIterations
-                        + " iterations and " + MAX_EVALUATIONS + " evaluations";
-            }
-        }
-        if (best == null || !Double.isFinite(best.getCost())) {
-            throw new FitFailedException(lastFailure + "; the record may not be a second-order step response");
-        }
-        return summarize(data, options, model, best, n, p, afterStep);
+        StartingGuess guess = new StartingGuess(t, y, afterStep, data.stepTimeSeconds(), y0Guess, change,
+                data.stepAmplitude());
+        List<Run> finalists = search(model, guess, y, options);
+        Run best = finalists.stream().filter(r -> Double.isFinite(r.cost()))
+                .min(Comparator.comparingDouble(Run::cost)).orElseThrow(() -> new FitFailedException(
+                        "the least-squares fit did not converge within " + maxIterations + " iterations and "
+                        + MAX_EVALUATIONS + " evaluations; the record may not be a second-order step response"));
+        return summarize(data, model, best, n, p, afterStep);
     }
 
-    private StepFit summarize(StepTestData data, FitOptions options, ResponseModel model,
-                              LeastSquaresOptimizer.Optimum optimum, int n, int p, int afterStep) {
-        double[] point = optimum.getPoint().toArray();
-        double[] y = data.output();
+    /**
+     * Every Levenberg-Marquardt run of one fit, in order: the dead-time profile (when the dead time is
+     * estimated), then the fits of all parameters from the best profile points or from the guess. Returns the
+     * converged runs that may be the answer: the full fits and the profile point on the bound theta = 0.
+     */
+    private List<Run> search(ResponseModel model, StartingGuess guess, double[] y, FitOptions options) {
+        List<Run> finalists = new ArrayList<>();
+        List<double[]> starts = new ArrayList<>();
+        if (options.estimateDeadTime()) {
+            // The profile: the other parameters fitted at each held dead time; failed points rank by their start.
+            List<Run> profile = new ArrayList<>();
+            double span = PROFILE_SPAN_OF_HALF_RISE * Math.max(guess.halfRiseSeconds(), 0);
+            int points = span > 0 ? PROFILE_DEAD_TIMES : 1;
+            for (int k = 0; k < points; k++) {
+                double heldDeadTime = points == 1 ? 0 : span * k / (points - 1);
+                ResponseModel held = model.holdingDeadTime(heldDeadTime);
+                double[] start = guess.point(heldDeadTime, false, options.estimateInitialOffset());
+                Optional<Run> run = minimize(held, y, start, Math.min(maxIterations, PROFILE_ITERATIONS),
+                        PROFILE_EVALUATIONS);
+                run.filter(r -> heldDeadTime == 0).ifPresent(finalists::add);
+                profile.add(run.orElse(new Run(held.fullLayout(start), cost(held, y, start), 0, 1)));
+            }
+            profile.sort(Comparator.comparingDouble(Run::cost));
+            for (int k = 0; k < Math.min(FULL_FIT_STARTS, profile.size()); k++) {
+                starts.add(profile.get(k).point());
+            }
+        } else {
+            starts.add(guess.point(0, false, options.estimateInitialOffset()));
+        }
+        for (double[] start : starts) {
+            minimize(model, y, start, maxIterations, MAX_EVALUATIONS).ifPresent(finalists::add);
+        }
+        return finalists;
+    }
+
+    /**
+     * One Levenberg-Marquardt run of the model from the start, kept in the model's box; empty when it does not
+     * converge within the caps. Every run of a fit goes through here.
+     */
+    private static Optional<Run> minimize(ResponseModel model, double[] y, double[] start, int iterations,
+                                          int evaluations) {
+        LeastSquaresProblem problem = new LeastSquaresBuilder()
+                .start(start)
+                .model(model)
+                .target(y)
+                .parameterValidator(model::clamp)
+                .maxIterations(iterations)
+                .maxEvaluations(evaluations)
+                .lazyEvaluation(false)
+                .build();
+        try {
+            LeastSquaresOptimizer.Optimum optimum = new LevenbergMarquardtOptimizer().optimize(problem);
+            double[] point = optimum.getPoint().toArray();
+            return Optional.of(new Run(model.fullLayout(point), optimum.getCost(), optimum.getIterations(),
+                    optimum.getEvaluations()));
+        } catch (MathIllegalStateException | MathIllegalArgumentException e) {
+            return Optional.empty();
+        }
+    }
+
+    /** sqrt(SSR) of the model at the point, the cost Levenberg-Marquardt reports. */
+    private static double cost(ResponseModel model, double[] y, double[] point) {
+        double[] fitted = model.value(new ArrayRealVector(point, false)).getFirst().toArray();
         double ssr = 0;
-        double[] residuals = optimum.getResiduals().toArray();
-        for (double r : residuals) {
-            ssr += r * r;
+        for (int i = 0; i < y.length; i++) {
+            ssr += (y[i] - fitted[i]) * (y[i] - fitted[i]);
+        }
+        return Math.sqrt(ssr);
+    }
+
+    private StepFit summarize(StepTestData data, ResponseModel model, Run best, int n, int p, int afterStep) {
+        double[] point = best.point();
+        double[] y = data.output();
+        Pair<RealVector, RealMatrix> atOptimum = model.value(new ArrayRealVector(point, false));
+        double[] fitted = atOptimum.getFirst().toArray();
+        double ssr = 0;
+        for (int i = 0; i < n; i++) {
+            ssr += (y[i] - fitted[i]) * (y[i] - fitted[i]);
         }
         double meanY = mean(y, 0, n);
         double sst = 0;
@@ -140,8 +211,8 @@ public final class StepResponseFitter {
         double gain = point[0];
         double wn = point[1];
         double zeta = point[2];
-        double theta = options.estimateDeadTime() ? point[3] : 0;
-        double y0 = options.estimateInitialOffset() ? point[p - 1] : 0;
+        double theta = model.deadTime(point);
+        double y0 = model.initialOffset(point);
         double stepChange = Math.abs(gain * data.stepAmplitude());
         double sigma = Math.sqrt(s2);
         if (!(stepChange > MIN_SIGNAL_TO_NOISE * sigma)) {
@@ -149,21 +220,31 @@ public final class StepResponseFitter {
                     + " standard deviations (%.3g): the noise hides the response, so no model is identified",
                     stepChange, MIN_SIGNAL_TO_NOISE, sigma));
         }
-        RealMatrix covariance;
-        try {
-            covariance = optimum.getCovariances(RANK_THRESHOLD).scalarMultiply(s2);
-        } catch (MathIllegalArgumentException e) {
-            throw new FitFailedException("the parameters are not identifiable from these samples (the Jacobian at"
-                    + " the optimum is singular): record more of the transient or excite the plant harder");
-        }
+        double[] standardErrors = ParameterCovariance.standardErrors(atOptimum.getSecond(), s2);
         double quantile = new TDistribution(dof).inverseCumulativeProbability(0.975);
-        List<FittedParameter> parameters = new ArrayList<>();
         String[] names = model.names();
+        double[] lowest = model.physicalLowerBounds();
+        double[] highest = model.upperBounds();
+        boolean[] atBound = model.atBound(point);
+        List<FittedParameter> parameters = new ArrayList<>();
         List<FitWarning> warnings = new ArrayList<>();
         for (int i = 0; i < p; i++) {
-            double se = Math.sqrt(Math.max(0, covariance.getEntry(i, i)));
-            parameters.add(new FittedParameter(names[i], point[i], se, point[i] - quantile * se,
-                    point[i] + quantile * se));
+            double se = standardErrors[i];
+            if (atBound[i]) {
+                warnings.add(new FitWarning(FitWarning.Code.AT_BOUND, String.format("%s = %.4g sits on the bound"
+                        + " of the values the fit may take: the optimum is constrained there, its interval is"
+                        + " one-sided (clipped at the bound) and only approximate", names[i], point[i])));
+            }
+            if (!Double.isFinite(se)) {
+                parameters.add(new FittedParameter(names[i], point[i], Double.NaN, Double.NaN, Double.NaN));
+                warnings.add(new FitWarning(FitWarning.Code.POORLY_DETERMINED, String.format("%s = %.4g is not"
+                        + " determined by the data (J'J is singular in its direction), so it has no standard"
+                        + " error or interval: record more of the transient or excite the plant harder",
+                        names[i], point[i])));
+                continue;
+            }
+            parameters.add(new FittedParameter(names[i], point[i], se,
+                    Math.max(point[i] - quantile * se, lowest[i]), Math.min(point[i] + quantile * se, highest[i])));
             if (i < 3 && se > POORLY_DETERMINED_RELATIVE_ERROR * Math.abs(point[i])) {
                 warnings.add(new FitWarning(FitWarning.Code.POORLY_DETERMINED, String.format("%s = %.4g has a"
                         + " standard error of %.0f%% of its value: the data hardly determine it", names[i],
@@ -172,7 +253,7 @@ public final class StepResponseFitter {
         }
         warnings.addAll(dataWarnings(data, afterStep, wn, zeta, theta, stepChange, sigma));
         return new StepFit(gain, wn, zeta, theta, y0, parameters, Math.sqrt(ssr / n),
-                sst == 0 ? 0 : 1 - ssr / sst, dof, optimum.getIterations(), optimum.getEvaluations(), warnings);
+                sst == 0 ? 0 : 1 - ssr / sst, dof, best.iterations(), best.evaluations(), warnings);
     }
 
     private static List<FitWarning> dataWarnings(StepTestData data, int afterStep, double wn, double zeta,
@@ -252,66 +333,6 @@ public final class StepResponseFitter {
         return hi;
     }
 
-    /** Starting points: K, zeta, wn read off the record, and a few dead-time guesses. */
-    private static List<double[]> starts(double[] t, double[] y, int afterStep, double stepTime, double y0,
-                                         double change, double amplitude, FitOptions options) {
-        int n = t.length;
-        double peak = 0;
-        int peakIndex = afterStep;
-        for (int i = afterStep; i < n; i++) {
-            double normalized = (y[i] - y0) / change;
-            if (normalized > peak) {
-                peak = normalized;
-                peakIndex = i;
-            }
-        }
-        double t10 = crossing(t, y, afterStep, y0, change, 0.1) - stepTime;
-        double t50 = crossing(t, y, afterStep, y0, change, 0.5) - stepTime;
-        double overshoot = peak - 1;
-        double[] thetaFractions = options.estimateDeadTime() ? new double[] {0, 0.3, 0.6, 0.9} : new double[] {0};
-        List<double[]> starts = new ArrayList<>();
-        for (double fraction : Arrays.copyOf(thetaFractions, Math.min(thetaFractions.length, MAX_STARTS))) {
-            double theta = fraction * Math.max(t10, 0);
-            double zeta;
-            double wn;
-            if (overshoot > 0.02 && overshoot < 1) {
-                zeta = OvershootDamping.dampingRatio(overshoot);
-                double tp = Math.max(t[peakIndex] - stepTime - theta, 1e-12);
-                wn = Math.PI / (tp * Math.sqrt(1 - zeta * zeta));
-            } else {
-                zeta = 1;
-                // The critically damped unit step reaches 50% at wn t = 1.678 (solve 1 - (1 + x) e^-x = 1/2).
-                wn = 1.678 / Math.max(t50 - theta, 1e-12);
-            }
-            double[] start = new double[3 + (options.estimateDeadTime() ? 1 : 0)
-                    + (options.estimateInitialOffset() ? 1 : 0)];
-            start[0] = change / amplitude;
-            start[1] = wn;
-            start[2] = zeta;
-            if (options.estimateDeadTime()) {
-                start[3] = theta;
-            }
-            if (options.estimateInitialOffset()) {
-                start[start.length - 1] = y0;
-            }
-            starts.add(start);
-        }
-        return starts;
-    }
-
-    /** First time the normalized response reaches the level (linear interpolation); the last time if never. */
-    private static double crossing(double[] t, double[] y, int from, double y0, double change, double level) {
-        for (int i = Math.max(from, 1); i < t.length; i++) {
-            double previous = (y[i - 1] - y0) / change;
-            double current = (y[i] - y0) / change;
-            if (current >= level && i > from) {
-                return previous >= level ? t[i] : t[i - 1] + (t[i] - t[i - 1]) * (level - previous)
-                        / (current - previous);
-            }
-        }
-        return t[t.length - 1];
-    }
-
     private static int firstIndexAtOrAfter(double[] t, double time) {
         for (int i = 0; i < t.length; i++) {
             if (t[i] >= time) {
@@ -343,85 +364,5 @@ public final class StepResponseFitter {
             m = Math.min(m, v[i]);
         }
         return m;
-    }
-
-    /**
-     * The model and its Jacobian: dy/dK = A S, dy/dwn = K A (t - t0) S'(tau), dy/dtheta = -K A wn S'(tau),
-     * dy/dy0 = 1 (tau = wn (t - t0), t0 = t_step + theta); dy/dzeta by central differences.
-     */
-    private static final class ResponseModel
-            implements org.hipparchus.optim.nonlinear.vector.leastsquares.MultivariateJacobianFunction {
-
-        private static final double ZETA_STEP = 1e-6;
-
-        private final double[] t;
-        private final double stepTime;
-        private final double amplitude;
-        private final FitOptions options;
-        private final double durationSeconds;
-        private final double minNaturalFrequency;
-
-        ResponseModel(StepTestData data, FitOptions options) {
-            this.t = data.timeSeconds();
-            this.stepTime = data.stepTimeSeconds();
-            this.amplitude = data.stepAmplitude();
-            this.options = options;
-            this.durationSeconds = t[t.length - 1] - stepTime;
-            // Slower than one radian over a thousand records is not identifiable from this record.
-            this.minNaturalFrequency = 1e-3 / Math.max(durationSeconds, 1e-12);
-        }
-
-        String[] names() {
-            List<String> names = new ArrayList<>(List.of("gain", "naturalFrequency", "dampingRatio"));
-            if (options.estimateDeadTime()) {
-                names.add("deadTime");
-            }
-            if (options.estimateInitialOffset()) {
-                names.add("initialOffset");
-            }
-            return names.toArray(String[]::new);
-        }
-
-        RealVector clamp(RealVector point) {
-            double[] x = point.toArray();
-            x[1] = Math.max(x[1], minNaturalFrequency);
-            x[2] = Math.min(Math.max(x[2], 1e-4), MAX_DAMPING_RATIO);
-            if (options.estimateDeadTime()) {
-                x[3] = Math.min(Math.max(x[3], 0), durationSeconds);
-            }
-            return new ArrayRealVector(x, false);
-        }
-
-        @Override
-        public Pair<RealVector, RealMatrix> value(RealVector point) {
-            double[] x = point.toArray();
-            int p = x.length;
-            double gain = x[0];
-            double wn = x[1];
-            double zeta = x[2];
-            double theta = options.estimateDeadTime() ? x[3] : 0;
-            double y0 = options.estimateInitialOffset() ? x[p - 1] : 0;
-            double h = ZETA_STEP * Math.max(zeta, 1e-2);
-            double[] values = new double[t.length];
-            double[][] jacobian = new double[t.length][p];
-            for (int i = 0; i < t.length; i++) {
-                double elapsed = t[i] - stepTime - theta;
-                double tau = wn * elapsed;
-                double s = UnitStepShape.step(tau, zeta);
-                double ds = UnitStepShape.impulse(tau, zeta);
-                values[i] = y0 + gain * amplitude * s;
-                jacobian[i][0] = amplitude * s;
-                jacobian[i][1] = gain * amplitude * Math.max(elapsed, 0) * ds;
-                jacobian[i][2] = gain * amplitude * (UnitStepShape.step(tau, zeta + h)
-                        - UnitStepShape.step(tau, zeta - h)) / (2 * h);
-                if (options.estimateDeadTime()) {
-                    jacobian[i][3] = -gain * amplitude * wn * ds;
-                }
-                if (options.estimateInitialOffset()) {
-                    jacobian[i][p - 1] = 1;
-                }
-            }
-            return new Pair<>(new ArrayRealVector(values, false), new Array2DRowRealMatrix(jacobian, false));
-        }
     }
 }

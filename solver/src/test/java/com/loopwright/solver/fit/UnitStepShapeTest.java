@@ -28,6 +28,20 @@ class UnitStepShapeTest {
         }
     }
 
+    // The fit differentiates S in zeta by central differences, so dS/dzeta must not jump at zeta = 1.
+    @Test
+    void dampingRatioDerivativeIsSmoothThroughCriticalDamping() {
+        double h = 1e-6;
+        for (double tau : new double[] {0.1, 1, 3, 5, 30}) {
+            // source: Laplace pairs; dY/dzeta = -2 wn^3/(s + wn)^4 at zeta = 1, i.e. -tau^3 e^-tau / 3 (wn = 1).
+            double expected = -tau * tau * tau * Math.exp(-tau) / 3;
+            for (double zeta : new double[] {1 - 1e-7, 1, 1 + 1e-7}) {
+                double slope = (UnitStepShape.step(tau, zeta + h) - UnitStepShape.step(tau, zeta - h)) / (2 * h);
+                assertEquals(expected, slope, 1e-6, "zeta " + zeta + " tau " + tau);
+            }
+        }
+    }
+
     @Test
     void impulseIsTheDerivativeOfTheStep() {
         for (double zeta : new double[] {0.2, 1, 2.5}) {
