@@ -394,6 +394,7 @@ public final class StepResponseFitter {
 
         @Override
         public Pair<RealVector, RealMatrix> value(RealVector point) {
+            com.loopwright.solver.cancel.Cancellation.checkpoint(); // one model evaluation of the least-squares fit
             double[] x = point.toArray();
             int p = x.length;
             double gain = x[0];
