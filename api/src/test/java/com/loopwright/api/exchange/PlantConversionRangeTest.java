@@ -33,6 +33,10 @@ class PlantConversionRangeTest {
                 + " | /plant/numerator/0",
         "{\"form\":\"secondOrderTransferFunction\",\"numerator\":[1e12],\"denominator\":[1e-300,1,1]}"
                 + " | /plant/denominator/0",
+        // Further cases of the same kind: K wn^2 overflows in the gain form; a subnormal B2 entry in state space.
+        "{\"form\":\"secondOrderTransferFunction\",\"gain\":1e12,\"naturalFrequency\":1e12,\"dampingRatio\":0.5}"
+                + " | /plant/gain",
+        "{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-2]],\"b2\":[0,1e-160]} | /plant/b2/1",
     })
     void conversionOutsideDoublePrecisionIsA422AtTheField(String plant, String pointer) {
         Outcome outcome = exchange.exchange(("{\"plant\":" + plant + "," + SPEC + "}")
