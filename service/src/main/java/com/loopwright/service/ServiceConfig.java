@@ -20,7 +20,8 @@ import java.util.Map;
  *                            default the number of processors)
  * @param queueCapacity       designs waiting for a worker before new ones get 503 (LOOPWRIGHT_QUEUE_CAPACITY,
  *                            default 64)
- * @param computeDeadlineMillis one design's compute deadline; past it the request gets 504
+ * @param computeDeadlineMillis one request's compute deadline (a batch: all its items); past it 504 and the
+ *                            computation is cancelled
  *                            (LOOPWRIGHT_COMPUTE_DEADLINE_MS, default 10000)
  * @param maxBatchItems       items per POST /v1/designs/batch (LOOPWRIGHT_MAX_BATCH_ITEMS, default 1000, at most
  *                            {@link #BATCH_ITEMS_CEILING})

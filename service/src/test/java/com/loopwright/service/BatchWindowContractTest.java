@@ -2,6 +2,7 @@ package com.loopwright.service;
 
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.api.exchange.ComputeBudget;
 import com.loopwright.service.routes.BatchRoute;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -15,6 +16,22 @@ class BatchWindowContractTest {
         String contract = Files.readString(Path.of("..", "openapi.yaml")).replaceAll("\\s+", " ");
         assertTrue(contract.contains("(at most " + BatchRoute.MAX_ITEMS_IN_FLIGHT + " per batch)"),
                 "openapi.yaml must state the items-in-flight cap " + BatchRoute.MAX_ITEMS_IN_FLIGHT);
+    }
+
+    @Test
+    void theDocumentedWorkCapAndCostModelAreTheCodes() throws Exception {
+        String contract = Files.readString(Path.of("..", "openapi.yaml")).replaceAll("\\s+", " ");
+        String limits = Files.readString(Path.of("..", "docs", "limits-and-budgets.md")).replaceAll("\\s+", " ");
+        for (String text : new String[] {contract, limits}) {
+            assertTrue(text.contains(ComputeBudget.MAX_REQUEST_WORK_UNITS + " work units"), "the work cap");
+            assertTrue(text.contains("a design " + ComputeBudget.DESIGN_UNITS + ", a verify object "
+                    + ComputeBudget.VERIFY_UNITS + ", each uncertain case " + ComputeBudget.UNCERTAIN_CASE_UNITS
+                    + " with " + ComputeBudget.CORNER_CASES + " corners, each disturbance "
+                    + ComputeBudget.DISTURBANCE_UNITS + ", actuatorLimit " + ComputeBudget.SATURATION_UNITS
+                    + ", sampling " + ComputeBudget.SAMPLING_UNITS + ", findLongest " + ComputeBudget.LONGEST_PERIOD_UNITS
+                    + ", inputDelay " + ComputeBudget.DELAY_UNITS + ", one per " + ComputeBudget.POINTS_PER_UNIT
+                    + " frequency or time-series points"), "the cost model");
+        }
     }
 
     @Test

@@ -170,17 +170,27 @@ class ComputeLimitsTest {
     }
 
     @Test
-    void oneBatchKeepsEveryWorkerBusyAndStillAnswersInOrder() throws Exception {
+    void batchesHoldAtMostHalfTheWorkersSoSingleDesignsStillRun() throws Exception {
         GatedDesigns designs = new GatedDesigns();
-        try (LiveServer server = LiveServer.start(config("2", "4", "30000"), designs)) {
+        // Four workers: all batches together hold at most ceil(4/2) = 2; a single design takes a third.
+        try (LiveServer server = LiveServer.start(config("4", "8", "30000"), designs)) {
             String items = String.join(",", java.util.Collections.nCopies(5, DesignClient.INDEXING_AXIS));
-            CompletableFuture<LiveServer.Reply> batch = CompletableFuture.supplyAsync(
-                    () -> server.post("/v1/designs/batch", "{\"items\":[" + items + "]}"));
+            List<CompletableFuture<LiveServer.Reply>> batches = new ArrayList<>();
+            for (int i = 0; i < 2; i++) {
+                batches.add(CompletableFuture.supplyAsync(
+                        () -> server.post("/v1/designs/batch", "{\"items\":[" + items + "]}")));
+            }
             awaitEntered(designs, 2);
-            Thread.sleep(200);
-            assertEquals(2, designs.entered.get(), "one item per worker at a time, not more");
+            Thread.sleep(300);
+            assertEquals(2, designs.entered.get(), "two batches of five items hold two of the four workers");
+            CompletableFuture<LiveServer.Reply> single = CompletableFuture.supplyAsync(
+                    () -> server.post("/v1/designs", DesignClient.INDEXING_AXIS));
+            awaitEntered(designs, 3);
             designs.gate.countDown();
-            assertInOrderAndDesigned(batch.get(30, TimeUnit.SECONDS), 5);
+            assertEquals(200, single.get(30, TimeUnit.SECONDS).status());
+            for (CompletableFuture<LiveServer.Reply> batch : batches) {
+                assertInOrderAndDesigned(batch.get(30, TimeUnit.SECONDS), 5);
+            }
         }
     }
 

@@ -6,6 +6,7 @@ import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.api.request.ValidatedVerify;
 import com.loopwright.api.response.RobustnessResponse;
+import com.loopwright.solver.cancel.ComputationCancelledException;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 import com.loopwright.solver.robustness.CapExceededException;
@@ -52,6 +53,8 @@ final class RobustnessRunner {
         } catch (UnstableLoopException e) {
             return new Result(null, ProblemType.UNSTABLE_LOOP.problem(e.getMessage(),
                     List.of(new FieldError("/gain", e.getMessage())), List.of()));
+        } catch (ComputationCancelledException e) {
+            throw e; // the deadline passed: stop, there is nobody to answer
         } catch (RuntimeException e) {
             // overflow, a norm iteration at its cap, an unmeasurable step: numbers outside double precision
             return new Result(null, ProblemType.UNVERIFIABLE_DESIGN.problem("a robustness check could not be computed"

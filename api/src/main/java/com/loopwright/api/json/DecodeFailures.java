@@ -69,6 +69,9 @@ public final class DecodeFailures {
         if (target == null) {
             return "another JSON type";
         }
+        if (target == Integer.class || target == Long.class || target == int.class || target == long.class) {
+            return "a whole number (an integer, written without a fraction or exponent)";
+        }
         if (Number.class.isAssignableFrom(target) || target.isPrimitive()) {
             return "a JSON number";
         }

@@ -11,7 +11,8 @@ import com.fasterxml.jackson.databind.json.JsonMapper;
 
 /**
  * The one JSON configuration of the wire format: unknown fields, duplicate keys, trailing content, strings for
- * numbers, NaN/Infinity tokens and deep nesting are all rejected.
+ * numbers, NaN/Infinity tokens, fractions for integer fields (2.9 is not truncated to 2) and deep nesting are all
+ * rejected.
  */
 public final class StrictJson {
 
@@ -40,6 +41,8 @@ public final class StrictJson {
                 .enable(DeserializationFeature.FAIL_ON_NULL_FOR_PRIMITIVES)
                 .enable(DeserializationFeature.FAIL_ON_READING_DUP_TREE_KEY)
                 .disable(MapperFeature.ALLOW_COERCION_OF_SCALARS)
+                // An integer field (monteCarloSamples, seed, timeSeriesPoints...) takes only an integer token.
+                .disable(DeserializationFeature.ACCEPT_FLOAT_AS_INT)
                 .disable(SerializationFeature.FAIL_ON_EMPTY_BEANS)
                 .build();
     }

@@ -14,6 +14,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.function.Supplier;
 
 /**
  * Checks the plant object of a design request and converts its description to the canonical coefficients.
@@ -82,8 +83,10 @@ public final class PlantInputValidator {
         if (plant.gearRatio() == null) {
             assumptions.add("No gearRatio given: direct drive (N = 1).");
         }
-        return converted(PlantFormName.ROTARY_AXIS, new RotaryAxis(plant.inertia(), plant.viscousFriction(),
-                plant.torqueConstant(), gearRatio), assumptions);
+        return converted(PlantFormName.ROTARY_AXIS, () -> new RotaryAxis(plant.inertia(), plant.viscousFriction(),
+                plant.torqueConstant(), gearRatio), fields("inertia", plant.inertia(), "viscousFriction",
+                plant.viscousFriction(), "torqueConstant", plant.torqueConstant(), "gearRatio", plant.gearRatio()),
+                assumptions);
     }
 
     private static ResolvedPlant massSpringDamper(PlantInput plant, List<FieldError> errors, int before) {
@@ -93,7 +96,8 @@ public final class PlantInputValidator {
         if (errors.size() > before) {
             return null;
         }
-        return converted(PlantFormName.MASS_SPRING_DAMPER, new MassSpringDamper(plant.mass(), plant.damping(),
+        return converted(PlantFormName.MASS_SPRING_DAMPER, () -> new MassSpringDamper(plant.mass(), plant.damping(),
+                plant.stiffness()), fields("mass", plant.mass(), "damping", plant.damping(), "stiffness",
                 plant.stiffness()), List.of("m y'' + c y' + k y = F + w: y [m] is the position, F [N] the force"
                 + " command, w [N] a disturbance force acting where the actuator acts."));
     }
@@ -123,9 +127,11 @@ public final class PlantInputValidator {
             }
             double numerator = plant.gain() * plant.naturalFrequency() * plant.naturalFrequency();
             return converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION,
-                    SecondOrderTransferFunction.ofGainFrequencyDamping(plant.gain(), plant.naturalFrequency(),
+                    () -> SecondOrderTransferFunction.ofGainFrequencyDamping(plant.gain(), plant.naturalFrequency(),
                             plant.dampingRatio(), plant.disturbanceNumerator() == null ? numerator
-                                    : plant.disturbanceNumerator()), assumptions);
+                                    : plant.disturbanceNumerator()), fields("gain", plant.gain(), "naturalFrequency",
+                            plant.naturalFrequency(), "dampingRatio", plant.dampingRatio(), "disturbanceNumerator",
+                            plant.disturbanceNumerator()), assumptions);
         }
         List<Double> numerator = vector(errors, "numerator", plant.numerator(), 1, MAX_NUMERATOR_COEFFICIENTS);
         List<Double> denominator = vector(errors, "denominator", plant.denominator(), 3, 3);
@@ -141,9 +147,15 @@ public final class PlantInputValidator {
                     + " the canonical second-order form has no zeros, so this transfer function cannot be used");
         }
         double n = numerator.get(first);
-        return converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION, new SecondOrderTransferFunction(n,
+        Map<String, Double> fields = new LinkedHashMap<>();
+        fields.put("numerator/" + first, n);
+        putAll(fields, "denominator", denominator);
+        if (plant.disturbanceNumerator() != null) {
+            fields.put("disturbanceNumerator", plant.disturbanceNumerator());
+        }
+        return converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION, () -> new SecondOrderTransferFunction(n,
                 plant.disturbanceNumerator() == null ? n : plant.disturbanceNumerator(), denominator.get(0),
-                denominator.get(1), denominator.get(2)), assumptions);
+                denominator.get(1), denominator.get(2)), fields, assumptions);
     }
 
     private static ResolvedPlant stateSpace(PlantInput plant, List<FieldError> errors, int before) {
@@ -169,13 +181,39 @@ public final class PlantInputValidator {
         if (plant.b1() == null) {
             assumptions.add("No b1 given: the model has no disturbance channel (gamma is free).");
         }
-        return converted(PlantFormName.STATE_SPACE, new TwoStateModel(a, new double[] {b2.get(0), b2.get(1)},
-                new double[] {b1.get(0), b1.get(1)}), assumptions);
+        Map<String, Double> fields = new LinkedHashMap<>();
+        putAll(fields, "a/0", List.of(a[0][0], a[0][1]));
+        putAll(fields, "a/1", List.of(a[1][0], a[1][1]));
+        putAll(fields, "b2", b2);
+        putAll(fields, "b1", b1);
+        return converted(PlantFormName.STATE_SPACE, () -> new TwoStateModel(a, new double[] {b2.get(0), b2.get(1)},
+                new double[] {b1.get(0), b1.get(1)}), fields, assumptions);
     }
 
-    /** The converted canonical coefficients must lie in the documented canonical ranges. */
-    private static ResolvedPlant converted(PlantFormName form, PlantForm source, List<String> assumptions) {
-        CanonicalPlant plant = source.canonical();
+    /**
+     * The converted canonical coefficients must be finite, keep b (and a given d) non-zero, and lie in the documented
+     * canonical ranges. Each field is in its own range, but a ratio of two in-range fields need not be (1/J with
+     * J = 4.9e-324 overflows); such a failure is reported at the field of the description farthest from 1 in
+     * orders of magnitude, the one that drives the conversion out of range.
+     *
+     * @param fields the description's numeric fields by JSON pointer below /plant (e.g. "denominator/0")
+     */
+    private static ResolvedPlant converted(PlantFormName form, Supplier<PlantForm> description,
+                                           Map<String, Double> fields, List<String> assumptions) {
+        PlantForm source;
+        CanonicalPlant plant;
+        try {
+            source = description.get();
+            plant = source.canonical();
+        } catch (PlantParameterException e) {
+            String named = e.parameter();
+            if (!named.isEmpty() && fields.keySet().stream().anyMatch(f -> f.equals(named)
+                    || f.startsWith(named + "/"))) {
+                throw e; // a field of this description, already named (a negative mass, an uncontrollable B2)
+            }
+            throw new PlantParameterException(drivingField(fields), e.getMessage() + "; rescale the units (for"
+                    + " example mm instead of m, or g cm^2 instead of kg m^2)");
+        }
         List<String> outside = new ArrayList<>();
         if (Math.abs(plant.a0()) > MAX_ABS_A0) {
             outside.add("a0");
@@ -190,12 +228,48 @@ public final class PlantInputValidator {
             outside.add("d");
         }
         if (!outside.isEmpty()) {
-            throw new PlantParameterException("", String.format("the derived canonical coefficients (a0 = %.6g,"
-                    + " a1 = %.6g, b = %.6g, d = %.6g) put %s outside the ranges the design supports; rescale the"
-                    + " units (for example mm instead of m, or g cm^2 instead of kg m^2)", plant.a0(), plant.a1(),
-                    plant.b(), plant.d(), String.join(", ", outside)));
+            throw new PlantParameterException(drivingField(fields), String.format("the derived canonical"
+                    + " coefficients (a0 = %.6g, a1 = %.6g, b = %.6g, d = %.6g) put %s outside the ranges the design"
+                    + " supports; rescale the units (for example mm instead of m, or g cm^2 instead of kg m^2)",
+                    plant.a0(), plant.a1(), plant.b(), plant.d(), String.join(", ", outside)));
         }
         return new ResolvedPlant(form, plant, source, assumptions);
+    }
+
+    /** The non-zero field farthest from 1 in orders of magnitude (|log10 |v||), or "" when there is none. */
+    private static String drivingField(Map<String, Double> fields) {
+        String driving = "";
+        double farthest = -1;
+        for (Map.Entry<String, Double> field : fields.entrySet()) {
+            Double value = field.getValue();
+            if (value == null || value == 0) {
+                continue;
+            }
+            double decades = Math.abs(Math.log10(Math.abs(value)));
+            if (decades > farthest) {
+                farthest = decades;
+                driving = field.getKey();
+            }
+        }
+        return driving;
+    }
+
+    /** Named numeric fields in the order given (nulls kept out). */
+    private static Map<String, Double> fields(Object... nameValuePairs) {
+        Map<String, Double> fields = new LinkedHashMap<>();
+        for (int i = 0; i + 1 < nameValuePairs.length; i += 2) {
+            if (nameValuePairs[i + 1] != null) {
+                fields.put((String) nameValuePairs[i], (Double) nameValuePairs[i + 1]);
+            }
+        }
+        return fields;
+    }
+
+    /** "name/0", "name/1", ... for each entry of a list. */
+    private static void putAll(Map<String, Double> fields, String name, List<Double> values) {
+        for (int i = 0; i < values.size(); i++) {
+            fields.put(name + "/" + i, values.get(i));
+        }
     }
 
     private static void physical(List<FieldError> errors, String name, Double value, boolean required) {

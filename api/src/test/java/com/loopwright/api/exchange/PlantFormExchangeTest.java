@@ -113,7 +113,7 @@ class PlantFormExchangeTest {
         assertProblem(post("{\"form\":\"secondOrderTransferFunction\",\"numerator\":[1,2],"
                 + "\"denominator\":[1,1,1]}"), 422, "/plant/numerator");
         assertProblem(post("{\"form\":\"rotaryAxis\",\"inertia\":1e-12,\"viscousFriction\":0,"
-                + "\"torqueConstant\":1}"), 422, "/plant");
+                + "\"torqueConstant\":1}"), 422, "/plant/inertia"); // b = d = 1/J = 1e12: J drives it
     }
 
     @Test

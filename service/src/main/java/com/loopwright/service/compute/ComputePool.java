@@ -5,16 +5,20 @@ import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.observe.RequestIds;
+import com.loopwright.solver.cancel.ComputationCancelledException;
 import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.Future;
+import java.util.concurrent.FutureTask;
 import java.util.concurrent.RejectedExecutionException;
+import java.util.concurrent.Semaphore;
 import java.util.concurrent.SynchronousQueue;
 import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.ThreadPoolExecutor;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
+import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.Function;
 import java.util.function.Supplier;
@@ -24,9 +28,10 @@ import org.slf4j.MDC;
 
 /**
  * The bounded pool every design computation runs on: a fixed number of worker threads and a bounded queue.
- * A computation that cannot be queued is refused at once (503, back-pressure); one that does not finish within
- * the compute deadline is answered with 504 while the worker completes it in the background (the solver's
- * loops are all capped, so a worker is never lost).
+ * A computation that cannot be queued is refused at once (503, back-pressure); one that does not finish by its
+ * deadline is answered with 504 and cancelled: its worker is interrupted, and the solver's long loops stop at their
+ * next cancellation checkpoint. Batch items share at most {@link #batchShare()} workers (ceil(workers/2)) across
+ * all batches at any time, so that single requests always find the other workers.
  */
 public final class ComputePool implements AutoCloseable {
 
@@ -37,6 +42,9 @@ public final class ComputePool implements AutoCloseable {
     private final ThreadPoolExecutor executor;
     private final long deadlineMillis;
     private final ObjectMapper mapper;
+    /** Workers batch items may hold at once, over all batches: ceil(workers/2). */
+    private final int batchShare;
+    private final Semaphore batchSlots;
 
     public ComputePool(int workerThreads, int queueCapacity, long deadlineMillis, ObjectMapper mapper) {
         BlockingQueue<Runnable> queue = queueCapacity == 0 ? new SynchronousQueue<>()
@@ -51,6 +59,13 @@ public final class ComputePool implements AutoCloseable {
                 threads, new ThreadPoolExecutor.AbortPolicy());
         this.deadlineMillis = deadlineMillis;
         this.mapper = mapper;
+        this.batchShare = (workerThreads + 1) / 2;
+        this.batchSlots = new Semaphore(batchShare, true);
+    }
+
+    /** The deadline of a request that starts now, as a {@link System#nanoTime()} instant. */
+    public long deadlineFromNow() {
+        return System.nanoTime() + TimeUnit.MILLISECONDS.toNanos(deadlineMillis);
     }
 
     /**
@@ -72,47 +87,109 @@ public final class ComputePool implements AutoCloseable {
     /**
      * Queues one computation and returns at once; {@link Pending#await} waits for it up to the deadline counted
      * from this call. A refusal (every worker busy and the queue full) is a pending result that is already
-     * resolved to the overloaded problem. Lets a caller keep several computations in flight (a batch).
+     * resolved to the overloaded problem.
      */
     public <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem) {
-        long submittedNanos = System.nanoTime();
+        return submit(computation, onProblem, deadlineFromNow(), () -> { });
+    }
+
+    /**
+     * Queues one item of a batch under the batch's deadline (one deadline covers all its items) on one of the
+     * {@link #batchShare()} workers batches may hold. Without a free batch slot it returns null at once, or, with
+     * {@code waitForSlot}, waits for one up to the deadline. Past the deadline the item is not computed: the result
+     * is the deadline problem at once.
+     *
+     * @param deadlineNanos the batch's deadline as a {@link System#nanoTime()} instant
+     */
+    public <T> Pending<T> submitBatchItem(Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos,
+                                          boolean waitForSlot) {
+        long remainingNanos = deadlineNanos - System.nanoTime();
+        boolean slot;
+        try {
+            slot = waitForSlot ? remainingNanos > 0 && batchSlots.tryAcquire(remainingNanos, TimeUnit.NANOSECONDS)
+                    : batchSlots.tryAcquire();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(ProblemType.NOT_READY
+                    .problem("the request was interrupted by a shutdown")));
+        }
+        if (!slot) {
+            if (waitForSlot || deadlineNanos - System.nanoTime() <= 0) {
+                return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(deadlineProblem()));
+            }
+            return null;
+        }
+        AtomicBoolean held = new AtomicBoolean(true);
+        return submit(computation, onProblem, deadlineNanos, () -> {
+            if (held.compareAndSet(true, false)) {
+                batchSlots.release();
+            }
+        });
+    }
+
+    /**
+     * @param release runs once the computation has ended, was refused, or was cancelled before it started
+     */
+    private <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos,
+                                  Runnable release) {
+        if (deadlineNanos - System.nanoTime() <= 0) {
+            release.run();
+            return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(deadlineProblem()));
+        }
         // The request id follows the computation onto the worker thread (the only diagnostic context the service
         // sets; carrying one string avoids copying the whole context map per computation).
         String requestId = MDC.get(RequestIds.MDC_KEY);
+        AtomicBoolean started = new AtomicBoolean();
+        FutureTask<T> task = new FutureTask<>(() -> {
+            started.set(true);
+            if (requestId != null) {
+                MDC.put(RequestIds.MDC_KEY, requestId);
+            }
+            try {
+                return computation.get();
+            } finally {
+                MDC.remove(RequestIds.MDC_KEY);
+                release.run();
+            }
+        }) {
+            @Override
+            protected void done() {
+                if (!started.get()) {
+                    release.run(); // cancelled while queued: the computation never runs
+                }
+            }
+        };
         try {
-            Future<T> future = executor.submit(() -> {
-                if (requestId != null) {
-                    MDC.put(RequestIds.MDC_KEY, requestId);
-                }
-                try {
-                    return computation.get();
-                } finally {
-                    MDC.remove(RequestIds.MDC_KEY);
-                }
-            });
-            return new Pending<>(future, submittedNanos, onProblem, null);
+            executor.execute(task);
+            return new Pending<>(task, deadlineNanos, onProblem, null);
         } catch (RejectedExecutionException e) {
-            return new Pending<>(null, submittedNanos, onProblem, onProblem.apply(ProblemType.SERVICE_OVERLOADED
+            release.run();
+            return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(ProblemType.SERVICE_OVERLOADED
                     .problem("all " + executor.getMaximumPoolSize() + " design workers are busy and "
                             + queueCapacity() + " designs are queued; retry after " + RETRY_AFTER_SECONDS + " s")));
         }
     }
 
+    private Problem deadlineProblem() {
+        return ProblemType.DEADLINE_EXCEEDED.problem("the computation did not finish within the compute deadline of "
+                + deadlineMillis + " ms (one deadline covers every item of a batch)");
+    }
+
     /** One submitted computation: its result, or the problem of a refusal, a missed deadline or a failure. */
     public final class Pending<T> {
         private final Future<T> future;
-        private final long submittedNanos;
+        private final long deadlineNanos;
         private final Function<Problem, T> onProblem;
         private final T refused;
 
-        private Pending(Future<T> future, long submittedNanos, Function<Problem, T> onProblem, T refused) {
+        private Pending(Future<T> future, long deadlineNanos, Function<Problem, T> onProblem, T refused) {
             this.future = future;
-            this.submittedNanos = submittedNanos;
+            this.deadlineNanos = deadlineNanos;
             this.onProblem = onProblem;
             this.refused = refused;
         }
 
-        /** True when the pool refused the computation (the result is the overloaded problem). */
+        /** True when the computation was not queued (refused by a full pool, or past its deadline). */
         public boolean refused() {
             return future == null;
         }
@@ -130,7 +207,7 @@ public final class ComputePool implements AutoCloseable {
             if (future == null || future.isDone()) {
                 return true;
             }
-            long remainingNanos = TimeUnit.MILLISECONDS.toNanos(deadlineMillis) - (System.nanoTime() - submittedNanos);
+            long remainingNanos = deadlineNanos - System.nanoTime();
             try {
                 future.get(Math.max(0, Math.min(nanos, remainingNanos)), TimeUnit.NANOSECONDS);
                 return true;
@@ -144,23 +221,25 @@ public final class ComputePool implements AutoCloseable {
             }
         }
 
-        /** The result, waiting at most until the compute deadline after submission. Never throws. */
+        /** The result, waiting at most until the deadline. Never throws. */
         public T await() {
             if (future == null) {
                 return refused;
             }
-            long remainingNanos = TimeUnit.MILLISECONDS.toNanos(deadlineMillis) - (System.nanoTime() - submittedNanos);
+            long remainingNanos = deadlineNanos - System.nanoTime();
             try {
                 return future.get(Math.max(0, remainingNanos), TimeUnit.NANOSECONDS);
             } catch (TimeoutException e) {
-                future.cancel(true);
-                return onProblem.apply(ProblemType.DEADLINE_EXCEEDED.problem("the design did not finish within the "
-                        + "compute deadline of " + deadlineMillis + " ms"));
+                future.cancel(true); // interrupts the worker: the solver stops at its next checkpoint
+                return onProblem.apply(deadlineProblem());
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
                 future.cancel(true);
                 return onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
             } catch (ExecutionException e) {
+                if (e.getCause() instanceof ComputationCancelledException) {
+                    return onProblem.apply(ProblemType.NOT_READY.problem("the computation was cancelled by a shutdown"));
+                }
                 LOG.error("design computation failed", e.getCause());
                 return onProblem.apply(ProblemType.INTERNAL_ERROR.problem(null));
             } catch (java.util.concurrent.CancellationException e) {
@@ -168,7 +247,7 @@ public final class ComputePool implements AutoCloseable {
             }
         }
 
-        /** Gives up on the computation (the worker may still finish it; every solver loop is capped). */
+        /** Gives up on the computation: a queued one never runs, a running one is interrupted. */
         public void cancel() {
             if (future != null) {
                 future.cancel(true);
@@ -195,6 +274,11 @@ public final class ComputePool implements AutoCloseable {
 
     public long deadlineMillis() {
         return deadlineMillis;
+    }
+
+    /** Workers all batches together may hold at once: ceil(workers/2); single requests keep the rest. */
+    public int batchShare() {
+        return batchShare;
     }
 
     private int queueCapacity() {

@@ -3,6 +3,7 @@ package com.loopwright.service.routes;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.exchange.ComputeBudget;
 import com.loopwright.api.exchange.EncodedOutcome;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.FieldError;
@@ -26,8 +27,11 @@ import java.util.List;
 /**
  * POST /v1/designs/batch: {"items": [DesignRequest, ...]} in, NDJSON out, one line per item in request order:
  * {"index":i,"status":200,"design":{...}} or {"index":i,"status":4xx/5xx,"problem":{...}}. One bad item never
- * fails the batch; only a malformed envelope is a 400 problem. Items are computed on the bounded pool, up to one per
- * design worker at a time (each under the compute deadline counted from its submission), and written in order;
+ * fails the batch; only a malformed envelope is a 400 problem, and a batch whose estimated work exceeds the cap of
+ * {@link ComputeBudget} is a 422 problem naming the fields that drive the cost. One compute deadline covers the whole
+ * batch: items not finished by then are 504 lines and their computations are cancelled. Items are computed on the
+ * bounded pool on at most {@link ComputePool#batchShare()} workers (shared by all batches, so that single requests
+ * keep the other workers), and written in order;
  * when the next line is not ready within {@value #FLUSH_DELAY_MILLIS} ms the stream is flushed, so no finished line
  * waits longer than that for a later design (and a batch of fast designs goes out in full buffers, not one write per
  * line).
@@ -53,6 +57,7 @@ public final class BatchRoute implements Handler {
     private final ComputePool pool;
     private final Metrics metrics;
     private final int maxItems;
+    private final ComputeBudget budget = new ComputeBudget();
 
     public BatchRoute(ObjectMapper mapper, ProblemResponses problems, Designs designs, ComputePool pool,
                       Metrics metrics, int maxItems) {
@@ -66,6 +71,7 @@ public final class BatchRoute implements Handler {
 
     @Override
     public void handle(Context ctx) throws IOException {
+        long deadlineNanos = pool.deadlineFromNow();
         if (!JsonBodies.isJson(ctx.contentType())) {
             problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
                     "send the batch with Content-Type: application/json"));
@@ -84,6 +90,11 @@ public final class BatchRoute implements Handler {
             problems.write(ctx, DecodeFailures.unreadable());
             return;
         }
+        Problem overBudget = budget.refuseBatch(items);
+        if (overBudget != null) {
+            problems.write(ctx, overBudget);
+            return;
+        }
         if (pool.saturated()) {
             // Refuse before the 200 is committed rather than streaming a batch of 503 lines.
             ctx.header("Retry-After", String.valueOf(ComputePool.RETRY_AFTER_SECONDS));
@@ -95,18 +106,19 @@ public final class BatchRoute implements Handler {
         // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
         OutputStream out = ctx.res().getOutputStream();
         int count = items.size();
-        int window = Math.min(pool.workerThreads(), MAX_ITEMS_IN_FLIGHT);
+        int window = Math.min(pool.batchShare(), MAX_ITEMS_IN_FLIGHT);
         Deque<ComputePool.Pending<EncodedOutcome>> inFlight = new ArrayDeque<>(window);
         int next = 0;
         try {
             for (int index = 0; index < count; index++) {
-                // Keep up to `window` items of this batch on the pool so that every worker can take one.
+                // Keep up to `window` items of this batch on the pool, each on a free batch slot.
                 while (next < count && inFlight.size() < window) {
                     JsonNode item = items.get(next);
-                    ComputePool.Pending<EncodedOutcome> pending = pool.submit(() -> designs.design(item),
-                            EncodedOutcome::failure);
-                    if (pending.refused() && !inFlight.isEmpty()) {
-                        break; // the pool is full: submit this item again once our oldest one is written
+                    ComputePool.Pending<EncodedOutcome> pending = pool.submitBatchItem(() -> designs.design(item),
+                            EncodedOutcome::failure, deadlineNanos, inFlight.isEmpty());
+                    if (pending == null || (pending.refused() && !inFlight.isEmpty()
+                            && deadlineNanos - System.nanoTime() > 0)) {
+                        break; // no slot or a full pool: submit this item again once our oldest one is written
                     }
                     inFlight.addLast(pending);
                     next++;

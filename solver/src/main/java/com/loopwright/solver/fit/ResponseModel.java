@@ -1,5 +1,6 @@
 package com.loopwright.solver.fit;
 
+import com.loopwright.solver.cancel.Cancellation;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -160,6 +161,7 @@ final class ResponseModel implements MultivariateJacobianFunction {
 
     @Override
     public Pair<RealVector, RealMatrix> value(RealVector point) {
+        Cancellation.checkpoint(); // one model evaluation is the fit's unit of cancellation
         double[] x = point.toArray();
         int p = x.length;
         double gain = x[0];

@@ -77,6 +77,7 @@ public final class SpecMatcher {
         }
         int iteration = 0;
         while (!converged(f)) {
+            com.loopwright.solver.cancel.Cancellation.checkpoint(); // one spec-matching iteration (three simulations)
             if (++iteration > MAX_ITERATIONS) {
                 throw notConverged(MAX_ITERATIONS, f, "the iteration cap was reached");
             }

@@ -22,6 +22,7 @@ public record MassSpringDamper(double massKg, double dampingNsPerM, double stiff
 
     @Override
     public CanonicalPlant canonical() {
-        return new CanonicalPlant(stiffnessNPerM / massKg, dampingNsPerM / massKg, 1 / massKg, 1 / massKg);
+        return PhysicalCheck.canonical(stiffnessNPerM / massKg, dampingNsPerM / massKg, 1 / massKg, 1 / massKg,
+                true);
     }
 }

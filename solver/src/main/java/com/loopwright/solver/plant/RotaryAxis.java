@@ -27,7 +27,7 @@ public record RotaryAxis(double inertiaKgM2, double viscousFrictionNmsPerRad, do
 
     @Override
     public CanonicalPlant canonical() {
-        return new CanonicalPlant(0, viscousFrictionNmsPerRad / inertiaKgM2,
-                gearRatio * torqueConstantNmPerAmp / inertiaKgM2, 1 / inertiaKgM2);
+        return PhysicalCheck.canonical(0, viscousFrictionNmsPerRad / inertiaKgM2,
+                gearRatio * torqueConstantNmPerAmp / inertiaKgM2, 1 / inertiaKgM2, true);
     }
 }

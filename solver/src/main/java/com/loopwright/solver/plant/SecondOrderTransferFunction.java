@@ -48,6 +48,7 @@ public record SecondOrderTransferFunction(double numerator, double disturbanceNu
 
     @Override
     public CanonicalPlant canonical() {
-        return new CanonicalPlant(s0 / s2, s1 / s2, numerator / s2, disturbanceNumerator / s2);
+        return PhysicalCheck.canonical(s0 / s2, s1 / s2, numerator / s2, disturbanceNumerator / s2,
+                disturbanceNumerator != 0);
     }
 }

@@ -77,7 +77,7 @@ public final class TwoStateModel implements PlantForm {
         }
         this.transform = t;
         this.inverseTransform = tInv;
-        this.canonical = new CanonicalPlant(a0, a1, b, b1z.get(1));
+        this.canonical = PhysicalCheck.canonical(a0, a1, b, b1z.get(1), b1zNorm > 0);
     }
 
     /** T = C_x C_z^-1 with C_z = [[0, b], [b, -a1 b]], C_z^-1 = [[a1/b, 1/b], [1/b, 0]]. */

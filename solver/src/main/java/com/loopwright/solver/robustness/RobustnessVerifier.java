@@ -77,6 +77,7 @@ public final class RobustnessVerifier {
 
         List<DisturbanceCheck> checks = new ArrayList<>();
         for (int i = 0; i < options.disturbances().size(); i++) {
+            com.loopwright.solver.cancel.Cancellation.checkpoint();
             DisturbanceProfile profile = options.disturbances().get(i);
             double from = profile.settledFromSeconds();
             if (from > MAX_DISTURBANCE_TIMING_HORIZONS * horizon) {
@@ -276,6 +277,7 @@ public final class RobustnessVerifier {
 
     private boolean meets(CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
                           double horizon, double ts, int[] evaluations) {
+        com.loopwright.solver.cancel.Cancellation.checkpoint(); // one simulation of the longest-period search
         evaluations[0]++;
         if (Math.ceil(horizon / ts) > SampledLoopSimulator.MAX_SAMPLE_INTERVALS) {
             return false;

@@ -58,6 +58,7 @@ public final class UncertaintyAnalyzer {
         List<UncertainCase> all = new ArrayList<>(corners);
         SplittableRandom random = new SplittableRandom(seed);
         for (int s = 0; s < samples; s++) {
+            com.loopwright.solver.cancel.Cancellation.checkpoint(); // a Monte Carlo sample is the unit of cancellation
             double[] p = new double[4];
             for (int i = 0; i < 4; i++) {
                 p[i] = lo[i] + (hi[i] - lo[i]) * random.nextDouble();
