@@ -106,16 +106,18 @@ public final class HInfinityNormCalculator {
      */
     public HInfinityNorm compute(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
         int n = validate(a, b, c);
-        Complex_F64[] poles = eigenvalues(a, "A");
-        requireHurwitz(poles, NormOps_DDRM.normF(a));
+        // the poles and the Hurwitz margin are taken on the balanced A: a companion matrix whose last row spans
+        // many decades has ||A||_F far above its poles, which would make any margin relative to it meaningless
+        StateScaling.Balanced balanced = StateScaling.balance(a, b, c);
+        DMatrixRMaj aBalanced = balanced.a();
+        Complex_F64[] poles = eigenvalues(aBalanced, "A");
+        requireHurwitz(poles, NormOps_DDRM.normF(aBalanced));
 
         double bNorm = NormOps_DDRM.normF(b);
         double cNorm = NormOps_DDRM.normF(c);
         if (bNorm == 0.0 || cNorm == 0.0) {
             return new HInfinityNorm(0.0, 0.0, 0);
         }
-        StateScaling.Balanced balanced = StateScaling.balance(a, b, c);
-        DMatrixRMaj aBalanced = balanced.a();
         // G = (C / s) (sI - A)^-1 (s B) for any s > 0
         double scale = Math.sqrt(NormOps_DDRM.normF(balanced.c()) / NormOps_DDRM.normF(balanced.b()));
         DMatrixRMaj bScaled = balanced.b().copy();
