@@ -60,7 +60,15 @@ public record HighOrderDesignResponse(int order, Coordinates coordinates, Target
                             double peakControl, double horizon, int samples) {
     }
 
-    /** Closed-loop H-infinity norm from w to z_perf, and whether the design is certified. */
-    public record Verification(double hinfNorm, double peakFrequency, boolean certified, boolean specsMet) {
+    /**
+     * Closed-loop H-infinity norm from w to z_perf, and whether the design is certified.
+     *
+     * @param hinfNorm                  certified upper bound: never below the true norm, at most a factor
+     *                                  (1 + hinfNormRelativeTolerance) above it
+     * @param peakFrequency             frequency [rad/s] of the largest evaluated gain, refined to a local maximum
+     * @param hinfNormRelativeTolerance the relative tolerance of hinfNorm
+     */
+    public record Verification(double hinfNorm, double peakFrequency, double hinfNormRelativeTolerance,
+                               boolean certified, boolean specsMet) {
     }
 }
