@@ -1,5 +1,6 @@
 package com.loopwright.api.response;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import java.util.List;
 
 /**
@@ -25,9 +26,12 @@ public record HighOrderDesignResponse(int order, Coordinates coordinates, Target
      * @param frame     "companion" when the request gave the companion form, "stateSpace" when it was transformed
      * @param toPlant   T with x = T z (the identity for a companion request)
      * @param plantGain the gain in the request's coordinates, K T^-1: u = referenceGain r - plantGain . x
+     * @param controllabilityCondition stateSpace frame only (else absent): 2-norm condition number of the
+     *                  controllability matrix [B2, A B2, ...]; the plantGain may lose up to log10 of it in digits
      */
     public record Coordinates(String frame, List<Double> denominator, List<Double> numerator, double b,
-                              List<Double> disturbance, List<List<Double>> toPlant, List<Double> plantGain) {
+                              List<Double> disturbance, List<List<Double>> toPlant, List<Double> plantGain,
+                              @JsonInclude(JsonInclude.Include.NON_NULL) Double controllabilityCondition) {
     }
 
     /** The requested closed loop: dominant pair, auxiliary poles and the polynomial alpha_0 .. alpha_{n-1}. */
