@@ -60,7 +60,7 @@ public final class DesignResponseMapper {
                         verification.specsMet(),
                         verification.specChecks().stream().map(c -> new DesignResponse.SpecCheck(c.spec(),
                                 c.requested(), c.simulated(), c.met())).toList()),
-                notes(report),
+                notes(report, ModelMapper.conditionNote(request.resolvedPlant())),
                 Cautions.ALL,
                 ModelMapper.toModel(request.resolvedPlant(), design),
                 robustness);
@@ -85,7 +85,7 @@ public final class DesignResponseMapper {
                 b.gammaLowerBound(), b.condition().meaning(), design.plant().d() != 0 && b == binding)).toList();
     }
 
-    private static List<String> notes(DesignReport report) {
+    private static List<String> notes(DesignReport report, String conditionNote) {
         ClosedFormDesign design = report.design();
         SpecInversion inversion = report.inversion();
         List<String> notes = new ArrayList<>();
@@ -103,6 +103,9 @@ public final class DesignResponseMapper {
         } else {
             design.positionCertificateBestGamma().ifPresent(best -> notes.add(String.format(Locale.US,
                     "gamma = %.6g minimizes the disturbance-to-position bound gamma/rho1 for this spec.", best)));
+        }
+        if (conditionNote != null) {
+            notes.add(conditionNote);
         }
         return notes;
     }

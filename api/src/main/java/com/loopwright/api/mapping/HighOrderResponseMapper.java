@@ -10,13 +10,18 @@ import com.loopwright.solver.highorder.HighOrderGammaBound;
 import com.loopwright.solver.highorder.HighOrderVerification;
 import com.loopwright.solver.highorder.SpecMatch;
 import com.loopwright.solver.highorder.SpecMatcher;
+import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
+import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
+import org.ejml.interfaces.linsol.LinearSolverDense;
 
 /** Solver results of a high-order design to the response records. */
 public final class HighOrderResponseMapper {
@@ -31,15 +36,15 @@ public final class HighOrderResponseMapper {
         double[] k = design.gain();
         DMatrixRMaj toPlant = transform == null ? CommonOps_DDRM.identity(n) : transform.toPlant();
         double[] plantGain = k;
+        Double controllabilityCondition = null;
         if (transform != null) {
-            DMatrixRMaj kx = new DMatrixRMaj(1, n);
-            CommonOps_DDRM.mult(new DMatrixRMaj(1, n, true, k), transform.toCompanion(), kx);
-            plantGain = kx.data.clone();
+            plantGain = gainOnPlantState(transform.toPlant(), k);
+            controllabilityCondition = 1 / transform.reciprocalCondition();
         }
         HighOrderDesignResponse.Coordinates coordinates = new HighOrderDesignResponse.Coordinates(
                 transform == null ? "companion" : "stateSpace", boxed(design.plant().denominator()),
                 boxed(design.plant().numerator()), design.plant().b(), boxed(design.plant().disturbance()),
-                rows(toPlant), boxed(plantGain));
+                rows(toPlant), boxed(plantGain), controllabilityCondition);
         List<HighOrderDesignResponse.Bound> bounds = design.gammaBounds().stream()
                 .map(HighOrderResponseMapper::bound).toList();
         ClosedLoopStep.Result step = verification.step();
@@ -65,6 +70,13 @@ public final class HighOrderResponseMapper {
         if (transform != null) {
             notes.add("the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
                     + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain on x.");
+            if (controllabilityCondition > TwoStateModel.CONDITION_NOTE_THRESHOLD) {
+                notes.add(String.format(Locale.US, "The controllability matrix [B2, A B2, ...] has condition number"
+                        + " %.3g (above %.0e): coordinates.plantGain and toPlant may have lost up to %.0f of their"
+                        + " about 16 significant digits. Rescale the states or check the model.",
+                        controllabilityCondition, TwoStateModel.CONDITION_NOTE_THRESHOLD,
+                        Math.ceil(Math.log10(controllabilityCondition))));
+            }
         }
         return new HighOrderDesignResponse(n, coordinates,
                 new HighOrderDesignResponse.Target(dominant.dampingRatio(), dominant.naturalFrequencyRadPerSec(),
@@ -81,8 +93,23 @@ public final class HighOrderResponseMapper {
                         step.metrics().settlingTimeSeconds(), step.metrics().overshootPercent(),
                         step.undershootPercent(), step.metrics().peakControl(), step.horizonSeconds(), step.samples()),
                 new HighOrderDesignResponse.Verification(verification.norm().value(),
-                        verification.norm().peakFrequencyRadPerSec(), verification.certified(), specsMet),
+                        verification.norm().peakFrequencyRadPerSec(), HInfinityNormCalculator.RELATIVE_TOLERANCE,
+                        verification.certified(), specsMet),
                 notes, Cautions.ALL);
+    }
+
+    /** K T^-1 from the LU solve T' x = K' (partial pivoting), not from an explicit inverse of T. */
+    static double[] gainOnPlantState(DMatrixRMaj toPlant, double[] k) {
+        int n = k.length;
+        DMatrixRMaj transposed = new DMatrixRMaj(n, n);
+        CommonOps_DDRM.transpose(toPlant, transposed);
+        LinearSolverDense<DMatrixRMaj> lu = LinearSolverFactory_DDRM.lu(n);
+        if (!lu.setA(transposed)) {
+            throw new IllegalArgumentException("the transform to companion form is singular");
+        }
+        DMatrixRMaj x = new DMatrixRMaj(n, 1);
+        lu.solve(new DMatrixRMaj(n, 1, true, k), x);
+        return x.data.clone();
     }
 
     private static List<List<Double>> rows(DMatrixRMaj m) {

@@ -44,6 +44,21 @@ final class ModelMapper {
         };
     }
 
+    /**
+     * The note for a state-space model whose controllability matrix is ill-conditioned (above
+     * {@link TwoStateModel#CONDITION_NOTE_THRESHOLD}), or null.
+     */
+    static String conditionNote(ResolvedPlant resolved) {
+        if (!(resolved.source() instanceof TwoStateModel model) || !model.illConditioned()) {
+            return null;
+        }
+        double condition = model.controllabilityCondition();
+        return String.format(Locale.US, "The controllability matrix [B2, A B2] has condition number %.3g (above %.0e):"
+                + " the results in your coordinates (model.stateSpace) may have lost up to %.0f of their about 16"
+                + " significant digits; B2 is nearly an eigenvector of A. Rescale the states or check the model.",
+                condition, TwoStateModel.CONDITION_NOTE_THRESHOLD, Math.ceil(Math.log10(condition)));
+    }
+
     private static DesignResponse.Units units(String x1, String x2, String u, String w, String x1Short) {
         return new DesignResponse.Units(x1, x2, u, w, "1/s^2", "1/s", x1Short + "/(s^2 " + u + ")",
                 x1Short + "/(s^2 " + w + ")");
@@ -74,7 +89,8 @@ final class ModelMapper {
                 + " sections of the response are in the canonical coordinates z", rows(view.transform()),
                 rows(view.p()), row(gain), rows(view.stateWeight()), row(output), view.referenceGain(),
                 view.relativeResidual(), view.closedLoopPoles().stream()
-                        .map(p -> new DesignResponse.PoleView(p.re(), p.im())).toList(), law);
+                        .map(p -> new DesignResponse.PoleView(p.re(), p.im())).toList(), law,
+                view.controllabilityCondition());
     }
 
     private static List<List<Double>> rows(DMatrixRMaj m) {

@@ -158,7 +158,7 @@ public record DesignResponse(Plant plant, Target target, Riccati riccati, List<G
     public record StateSpaceView(String coordinates, List<List<Double>> transform, List<List<Double>> p,
                                  List<Double> gain, List<List<Double>> stateWeight, List<Double> trackedOutput,
                                  double referenceGain, double riccatiResidual, List<PoleView> closedLoopPoles,
-                                 String law) {
+                                 String law, double controllabilityCondition) {
         public StateSpaceView {
             transform = List.copyOf(transform);
             p = List.copyOf(p);

@@ -1,5 +1,6 @@
 package com.loopwright.api.response;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import java.util.List;
 
 /**
@@ -25,9 +26,12 @@ public record HighOrderDesignResponse(int order, Coordinates coordinates, Target
      * @param frame     "companion" when the request gave the companion form, "stateSpace" when it was transformed
      * @param toPlant   T with x = T z (the identity for a companion request)
      * @param plantGain the gain in the request's coordinates, K T^-1: u = referenceGain r - plantGain . x
+     * @param controllabilityCondition stateSpace frame only (else absent): 2-norm condition number of the
+     *                  controllability matrix [B2, A B2, ...]; the plantGain may lose up to log10 of it in digits
      */
     public record Coordinates(String frame, List<Double> denominator, List<Double> numerator, double b,
-                              List<Double> disturbance, List<List<Double>> toPlant, List<Double> plantGain) {
+                              List<Double> disturbance, List<List<Double>> toPlant, List<Double> plantGain,
+                              @JsonInclude(JsonInclude.Include.NON_NULL) Double controllabilityCondition) {
     }
 
     /** The requested closed loop: dominant pair, auxiliary poles and the polynomial alpha_0 .. alpha_{n-1}. */
@@ -60,7 +64,15 @@ public record HighOrderDesignResponse(int order, Coordinates coordinates, Target
                             double peakControl, double horizon, int samples) {
     }
 
-    /** Closed-loop H-infinity norm from w to z_perf, and whether the design is certified. */
-    public record Verification(double hinfNorm, double peakFrequency, boolean certified, boolean specsMet) {
+    /**
+     * Closed-loop H-infinity norm from w to z_perf, and whether the design is certified.
+     *
+     * @param hinfNorm                  certified upper bound: never below the true norm, at most a factor
+     *                                  (1 + hinfNormRelativeTolerance) above it
+     * @param peakFrequency             frequency [rad/s] of the largest evaluated gain, refined to a local maximum
+     * @param hinfNormRelativeTolerance the relative tolerance of hinfNorm
+     */
+    public record Verification(double hinfNorm, double peakFrequency, double hinfNormRelativeTolerance,
+                               boolean certified, boolean specsMet) {
     }
 }

@@ -2,7 +2,6 @@ package com.loopwright.solver.highorder;
 
 import com.loopwright.solver.simulation.LinearLoop;
 import com.loopwright.solver.simulation.StepMetrics;
-import com.loopwright.solver.simulation.StepResponse;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import com.loopwright.solver.simulation.StepSimulator;
 import java.util.List;
@@ -22,13 +21,12 @@ public final class ClosedLoopStep {
     static final int MIN_SAMPLES = 2000;
 
     private final StepResponseMetrics metrics = new StepResponseMetrics();
-    private final StepSimulator simulator = new StepSimulator();
 
     /**
      * Metrics and sampled undershoot (largest excursion opposite to the final value, percent of it).
      *
      * @param metrics          rise, settling, overshoot, peak control
-     * @param undershootPercent 100 max(0, -min y/y_inf), from the samples
+     * @param undershootPercent 100 max(0, -min y/y_inf), refined between samples (StepMetrics)
      * @param horizonSeconds   simulated window
      * @param samples          samples on it
      */
@@ -64,11 +62,6 @@ public final class ClosedLoopStep {
         int samples = (int) Math.min(StepSimulator.MAX_SAMPLES, Math.max(MIN_SAMPLES, wanted));
         LinearLoop loop = loop(plant, poles.coefficients());
         StepMetrics m = metrics.measure(loop, stepSize, horizon, samples, bandFraction);
-        StepResponse response = simulator.simulate(loop, stepSize, horizon, samples);
-        double lowest = 0;
-        for (double y : response.output()) {
-            lowest = Math.min(lowest, y / m.finalValue());
-        }
-        return new Result(m, Math.max(0, -100 * lowest), horizon, samples);
+        return new Result(m, m.undershootPercent(), horizon, samples);
     }
 }

@@ -8,30 +8,47 @@ import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.NormOps_DDRM;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.hipparchus.exception.MathIllegalStateException;
+import org.hipparchus.optim.MaxEval;
+import org.hipparchus.optim.nonlinear.scalar.GoalType;
+import org.hipparchus.optim.univariate.BrentOptimizer;
+import org.hipparchus.optim.univariate.SearchInterval;
+import org.hipparchus.optim.univariate.UnivariateObjectiveFunction;
+import org.hipparchus.optim.univariate.UnivariatePointValuePair;
 
 /**
  * H-infinity norm {@code ||G||_inf = sup_w sigma_max(G(jw))} of G(s) = C (sI - A)^-1 B, A Hurwitz
- * (strictly proper, D = 0).
+ * (strictly proper, D = 0), as a certified upper bound.
  *
  * <p>Method: for A without imaginary-axis eigenvalues and gamma > 0 (= sigma_max(D), D = 0), gamma
  * is a singular value of G(jw) iff jw is an eigenvalue of the Hamiltonian
- * {@code M(gamma) = [[A, B B'/gamma^2], [-C'C, -A']]}; hence {@code gamma > ||G||_inf} iff M(gamma) has no imaginary-axis eigenvalue. The two-step iteration
- * keeps a lower bound gamma_lb = sigma_max(G(j w_peak)) attained at a known frequency: take the
- * imaginary-axis eigenvalues j w_i of M((1 + 2 tol) gamma_lb), evaluate sigma_max at the midpoints
- * of consecutive w_i (and of 0 and w_1) and raise gamma_lb to the largest value found; stop when
- * there are no imaginary-axis eigenvalues, which certifies
- * {@code gamma_lb <= ||G||_inf < (1 + 2 tol) gamma_lb}. Convergence is quadratic.
+ * {@code M(gamma) = [[A, B B'/gamma^2], [-C'C, -A']]}; hence {@code gamma > ||G||_inf} iff M(gamma) has no
+ * imaginary-axis eigenvalue. The level-set iteration keeps a lower bound gamma_lb = sigma_max(G(j w_peak))
+ * attained at a known frequency: take the imaginary-axis eigenvalues j w_i of M(gamma_up) with
+ * {@code gamma_up = (1 + RELATIVE_TOLERANCE) gamma_lb}, evaluate sigma_max at every w_i and at the midpoints of
+ * consecutive w_i (and of 0 and w_1) and raise gamma_lb to the largest value found. It stops when M(gamma_up)
+ * has no imaginary-axis eigenvalue (the final check), which certifies
+ * {@code gamma_lb <= ||G||_inf <= gamma_up}. The peak frequency is then refined to a local maximum of
+ * sigma_max(G(jw)) by Brent's method between its evaluated neighbours; if that raises gamma_lb above gamma_up,
+ * the iteration resumes from the new level.
  *
- * <p>Numerical choices: B and C are rescaled to B s, C / s with s = sqrt(||C||_F / ||B||_F), which
- * leaves G unchanged and balances the blocks of M. An eigenvalue of M counts as imaginary when
- * {@code |Re lambda| <= IMAGINARY_AXIS_TOLERANCE * ||M||_F}. The only harmful error is to miss a
- * genuine crossing: a backward-stable eigenvalue solver moves simple eigenvalues by O(eps ||M||)
- * and the nearly double ones close to the peak by up to about sqrt(eps) ||M||, so the band is set
- * well above both. A detection that is not a genuine crossing only adds evaluation points: the set
- * where sigma_max(G(jw)) > gamma is a union of intervals whose ends are genuine crossings (or
- * w = 0, which is always included), and every midpoint of consecutive detected points inside such
- * an interval lies in it. Hence, if no midpoint exceeds gamma, there is no such interval, gamma
- * bounds the norm, and the best value found is returned.
+ * <p>Result: {@link HInfinityNorm#value()} is gamma_up, never below the norm and at most a factor
+ * {@code 1 + RELATIVE_TOLERANCE} above it; {@link HInfinityNorm#attainedGain()} is gamma_lb =
+ * sigma_max(G(j peakFrequency)), never above the norm.
+ *
+ * <p>Numerical choices: the state coordinates are balanced first ({@link StateScaling}, a diagonal similarity by
+ * powers of two): without it a companion-form closed loop whose coefficients span ten decades gives a
+ * Hamiltonian whose computed eigenvalues are wrong by far more than the imaginary-axis band, so crossings were
+ * missed and the norm came out below the true peak. B and C are rescaled to B s, C / s with
+ * s = sqrt(||C||_F / ||B||_F), and M(gamma) is formed in the similar form {@code [[A, B B'/gamma], [-C'C/gamma,
+ * -A']]} (similarity diag(I, gamma I)), whose off-diagonal blocks have equal size. An eigenvalue of M counts as
+ * imaginary when {@code |Re lambda| <= IMAGINARY_AXIS_TOLERANCE * ||M||_F}. The only harmful error is to miss a
+ * genuine crossing: a backward-stable eigenvalue solver moves simple eigenvalues by O(eps ||M||) and the nearly
+ * double ones close to the peak by up to about sqrt(eps) ||M||, so the band is set well above both. A detection
+ * that is not a genuine crossing only adds evaluation points: the set where sigma_max(G(jw)) > gamma_up is a
+ * union of intervals whose ends are genuine crossings (or w = 0, which is always included), and every midpoint
+ * of consecutive detected points inside such an interval lies in it. Hence, if no evaluation exceeds gamma_up,
+ * there is no such interval and gamma_up bounds the norm.
  *
  * <p>Stateless and thread-safe.
  */
@@ -40,7 +57,10 @@ public final class HInfinityNormCalculator {
     /** Largest accepted state dimension n. */
     public static final int MAX_STATE_DIMENSION = 32;
 
-    /** Relative tolerance tol: the returned value is within a factor (1 + 2 tol) below the norm. */
+    /**
+     * Relative tolerance of the certificate: the returned value gamma_up satisfies
+     * {@code ||G||_inf <= gamma_up <= (1 + RELATIVE_TOLERANCE) ||G||_inf}.
+     */
     public static final double RELATIVE_TOLERANCE = 1e-10;
 
     /**
@@ -58,20 +78,40 @@ public final class HInfinityNormCalculator {
     /** Hard cap on Hamiltonian eigenvalue tests; quadratic convergence typically needs 2-6. */
     static final int MAX_ITERATIONS = 100;
 
+    /** Cap on Brent refinements of the peak frequency (each may restart the level-set iteration once). */
+    static final int MAX_REFINEMENTS = 4;
+
+    /** Cap on sigma_max evaluations of one Brent refinement. */
+    static final int MAX_BRENT_EVALUATIONS = 200;
+
+    /** Brent's relative tolerance on the peak frequency; the gain is flat there, so it is accurate to its square. */
+    static final double FREQUENCY_RELATIVE_TOLERANCE = 1e-10;
+
+    /** Brent's absolute tolerance on the peak frequency, relative to the largest pole magnitude. */
+    static final double FREQUENCY_ABSOLUTE_TOLERANCE = 1e-14;
+
+    /** Above the largest evaluated frequency, the refinement bracket reaches this factor beyond the peak. */
+    static final double OPEN_BRACKET_FACTOR = 2.0;
+
     /**
      * Computes the H-infinity norm and the frequency where it is attained.
      *
      * @param a n x n Hurwitz state matrix, 1 &lt;= n &lt;= {@value #MAX_STATE_DIMENSION}
      * @param b n x m input matrix, m &gt;= 1
      * @param c p x n output matrix, p &gt;= 1
+     * @return the certified upper bound (value), the refined peak frequency and the gain attained there
      * @throws IllegalArgumentException for wrong shapes, n out of range or non-finite entries
      * @throws UnstableSystemException if A is not Hurwitz
      * @throws NormComputationException if the iteration fails to converge within its cap
      */
     public HInfinityNorm compute(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
         int n = validate(a, b, c);
-        Complex_F64[] poles = eigenvalues(a, "A");
-        requireHurwitz(poles, NormOps_DDRM.normF(a));
+        // the poles and the Hurwitz margin are taken on the balanced A: a companion matrix whose last row spans
+        // many decades has ||A||_F far above its poles, which would make any margin relative to it meaningless
+        StateScaling.Balanced balanced = StateScaling.balance(a, b, c);
+        DMatrixRMaj aBalanced = balanced.a();
+        Complex_F64[] poles = eigenvalues(aBalanced, "A");
+        requireHurwitz(poles, NormOps_DDRM.normF(aBalanced));
 
         double bNorm = NormOps_DDRM.normF(b);
         double cNorm = NormOps_DDRM.normF(c);
@@ -79,20 +119,22 @@ public final class HInfinityNormCalculator {
             return new HInfinityNorm(0.0, 0.0, 0);
         }
         // G = (C / s) (sI - A)^-1 (s B) for any s > 0
-        double scale = Math.sqrt(cNorm / bNorm);
-        DMatrixRMaj bScaled = b.copy();
+        double scale = Math.sqrt(NormOps_DDRM.normF(balanced.c()) / NormOps_DDRM.normF(balanced.b()));
+        DMatrixRMaj bScaled = balanced.b().copy();
         CommonOps_DDRM.scale(scale, bScaled);
-        DMatrixRMaj cScaled = c.copy();
+        DMatrixRMaj cScaled = balanced.c().copy();
         CommonOps_DDRM.scale(1.0 / scale, cScaled);
-        FrequencyResponse response = new FrequencyResponse(a, bScaled, cScaled);
+        FrequencyResponse response = new FrequencyResponse(aBalanced, bScaled, cScaled);
 
         // initial lower bound: DC and the pole magnitudes / damped frequencies (near resonances)
         double[] initialFrequencies = new double[1 + 2 * n];
+        double largestPole = 0.0;
         for (int i = 0; i < n; i++) {
             initialFrequencies[1 + 2 * i] = poles[i].getMagnitude();
             initialFrequencies[2 + 2 * i] = Math.abs(poles[i].imaginary);
+            largestPole = Math.max(largestPole, poles[i].getMagnitude());
         }
-        Peak peak = Peak.best(response, initialFrequencies, new Peak(0.0, 0.0));
+        Peak peak = Peak.best(response, initialFrequencies, Peak.start());
         if (peak.gain() == 0.0) {
             // a nonzero entry of G has at most n - 1 zeros, so n + 1 more distinct frequencies settle G = 0
             peak = Peak.best(response, logSpaced(poles, n), peak);
@@ -106,51 +148,117 @@ public final class HInfinityNormCalculator {
         DMatrixRMaj cTransposeTimesC = new DMatrixRMaj(n, n);
         CommonOps_DDRM.multTransA(cScaled, cScaled, cTransposeTimesC);
 
-        for (int iteration = 1; iteration <= MAX_ITERATIONS; iteration++) {
-            double gamma = (1.0 + 2.0 * RELATIVE_TOLERANCE) * peak.gain();
-            double[] crossings = imaginaryAxisFrequencies(hamiltonian(a, bTimesBTranspose, cTransposeTimesC, gamma));
-            if (crossings.length == 0) {
-                return new HInfinityNorm(peak.gain(), peak.frequency(), iteration);
+        int tests = 0;
+        for (int refinement = 0; refinement <= MAX_REFINEMENTS; refinement++) {
+            double upper = Double.NaN;
+            while (Double.isNaN(upper)) {
+                if (++tests > MAX_ITERATIONS) {
+                    throw new NormComputationException("H-infinity norm iteration did not converge in " + MAX_ITERATIONS
+                            + " Hamiltonian eigenvalue tests (last lower bound " + peak.gain() + " at "
+                            + peak.frequency() + " rad/s); the system is probably too badly scaled");
+                }
+                double gamma = (1.0 + RELATIVE_TOLERANCE) * peak.gain();
+                double[] crossings = imaginaryAxisFrequencies(
+                        hamiltonian(aBalanced, bTimesBTranspose, cTransposeTimesC, gamma));
+                Peak improved = Peak.best(response, midpoints(crossings), Peak.best(response, crossings, peak));
+                if (!(improved.gain() > gamma)) {
+                    // no detection (or only detections that are not genuine crossings: a genuine crossing
+                    // interval would contain a midpoint with sigma_max > gamma): gamma bounds the norm
+                    upper = gamma;
+                }
+                peak = improved;
             }
-            Peak improved = Peak.best(response, midpoints(crossings), peak);
-            if (!(improved.gain() > gamma)) {
-                // a genuine crossing interval would contain a midpoint with sigma_max > gamma; none
-                // does, so the detections are not genuine crossings and gamma bounds the norm
-                return new HInfinityNorm(improved.gain(), improved.frequency(), iteration);
+            Peak refined = refine(response, peak, FREQUENCY_ABSOLUTE_TOLERANCE * largestPole);
+            if (!(refined.gain() > upper)) {
+                return new HInfinityNorm(upper, refined.frequency(), refined.gain(), tests);
             }
-            peak = improved;
+            peak = refined;
         }
-        throw new NormComputationException("H-infinity norm iteration did not converge in " + MAX_ITERATIONS
-                + " Hamiltonian eigenvalue tests (last lower bound " + peak.gain() + " at " + peak.frequency()
+        throw new NormComputationException("the refined peak of sigma_max(G(jw)) kept rising above the certified level"
+                + " after " + MAX_REFINEMENTS + " refinements (last " + peak.gain() + " at " + peak.frequency()
                 + " rad/s); the system is probably too badly scaled");
     }
 
-    /** A frequency and sigma_max(G(j frequency)). */
-    private record Peak(double frequency, double gain) {
+    /**
+     * Brent's method (Hipparchus) on sigma_max(G(jw)) between the evaluated neighbours of the peak: the peak is
+     * at least as large as both, so the bracket holds a local maximum. The better of the start and Brent's
+     * answer is kept, so the gain never decreases. A peak at w = 0 stays there (sigma_max(G(jw)) is even in w).
+     */
+    private static Peak refine(FrequencyResponse response, Peak peak, double absoluteTolerance) {
+        if (peak.frequency() == 0.0) {
+            return peak;
+        }
+        double low = peak.below();
+        double high = Double.isFinite(peak.above()) ? peak.above() : OPEN_BRACKET_FACTOR * peak.frequency();
+        BrentOptimizer brent = new BrentOptimizer(FREQUENCY_RELATIVE_TOLERANCE,
+                Math.max(absoluteTolerance, Double.MIN_NORMAL));
+        UnivariatePointValuePair best;
+        try {
+            best = brent.optimize(new MaxEval(MAX_BRENT_EVALUATIONS),
+                    new UnivariateObjectiveFunction(response::maxSingularValue), GoalType.MAXIMIZE,
+                    new SearchInterval(low, high, peak.frequency()));
+        } catch (MathIllegalStateException e) {
+            // evaluation cap reached: keep the best evaluated point
+            return peak;
+        }
+        double gain = response.maxSingularValue(best.getPoint());
+        return gain > peak.gain() ? new Peak(best.getPoint(), gain, low, high) : peak;
+    }
 
-        /** The best of {@code incumbent} and the evaluations at {@code frequencies}. */
+    /**
+     * A frequency, sigma_max(G(j frequency)), and the nearest evaluated frequencies below and above it (0 and
+     * +infinity when there are none), which bracket a local maximum when the peak is the best evaluation.
+     */
+    private record Peak(double frequency, double gain, double below, double above) {
+
+        static Peak start() {
+            return new Peak(0.0, 0.0, 0.0, Double.POSITIVE_INFINITY);
+        }
+
+        /** The best of {@code incumbent} and the evaluations at {@code frequencies}, with updated neighbours. */
         static Peak best(FrequencyResponse response, double[] frequencies, Peak incumbent) {
-            Peak best = incumbent;
-            for (double w : frequencies) {
-                double gain = response.maxSingularValue(w);
-                if (gain > best.gain()) {
-                    best = new Peak(w, gain);
+            double bestFrequency = incumbent.frequency();
+            double bestGain = incumbent.gain();
+            double[] evaluated = new double[frequencies.length];
+            for (int i = 0; i < frequencies.length; i++) {
+                double gain = response.maxSingularValue(frequencies[i]);
+                evaluated[i] = gain;
+                if (gain > bestGain) {
+                    bestGain = gain;
+                    bestFrequency = frequencies[i];
                 }
             }
-            return best;
+            double below = bestFrequency == incumbent.frequency() ? incumbent.below() : 0.0;
+            double above = bestFrequency == incumbent.frequency() ? incumbent.above() : Double.POSITIVE_INFINITY;
+            if (bestFrequency != incumbent.frequency()) {
+                // the old peak is an evaluated point too
+                below = incumbent.frequency() < bestFrequency ? incumbent.frequency() : below;
+                above = incumbent.frequency() > bestFrequency ? incumbent.frequency() : above;
+            }
+            for (double w : frequencies) {
+                if (w < bestFrequency) {
+                    below = Math.max(below, w);
+                } else if (w > bestFrequency) {
+                    above = Math.min(above, w);
+                }
+            }
+            return new Peak(bestFrequency, bestGain, below, above);
         }
     }
 
-    /** M(gamma) = [[A, B B'/gamma^2], [-C'C, -A']]. */
+    /**
+     * [[A, B B'/gamma], [-C'C/gamma, -A']], similar to M(gamma) = [[A, B B'/gamma^2], [-C'C, -A']] by
+     * diag(I, gamma I), so it has the same eigenvalues with off-diagonal blocks of equal size.
+     */
     private static DMatrixRMaj hamiltonian(DMatrixRMaj a, DMatrixRMaj bTimesBTranspose, DMatrixRMaj cTransposeTimesC, double gamma) {
         int n = a.numRows;
-        double inverseGammaSquared = 1.0 / (gamma * gamma);
+        double inverseGamma = 1.0 / gamma;
         DMatrixRMaj m = new DMatrixRMaj(2 * n, 2 * n);
         for (int i = 0; i < n; i++) {
             for (int j = 0; j < n; j++) {
                 m.set(i, j, a.get(i, j));
-                m.set(i, n + j, bTimesBTranspose.get(i, j) * inverseGammaSquared);
-                m.set(n + i, j, -cTransposeTimesC.get(i, j));
+                m.set(i, n + j, bTimesBTranspose.get(i, j) * inverseGamma);
+                m.set(n + i, j, -cTransposeTimesC.get(i, j) * inverseGamma);
                 m.set(n + i, n + j, -a.get(j, i));
             }
         }

@@ -10,7 +10,9 @@ import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.ejml.interfaces.linsol.LinearSolverDense;
 
 /** Takes a design made in canonical coordinates z back to the caller's coordinates x = T z. */
 public final class CallerCoordinates {
@@ -27,8 +29,12 @@ public final class CallerCoordinates {
         DMatrixRMaj kz = new DMatrixRMaj(1, 2, true, design.positionGain(), design.velocityGain());
         DMatrixRMaj px = congruence(tInv, pz);
         DMatrixRMaj qx = congruence(tInv, qz);
-        DMatrixRMaj kx = new DMatrixRMaj(1, 2);
-        CommonOps_DDRM.mult(kz, tInv, kx);
+        // K_x = K_z T^-1 = (K_z C_z) C_x^-1: an LU solve with C_x, no explicit inverse
+        double b = design.plant().b();
+        double a1 = design.plant().a1();
+        DMatrixRMaj kzCz = new DMatrixRMaj(1, 2, true, design.velocityGain() * b,
+                design.positionGain() * b - a1 * b * design.velocityGain());
+        DMatrixRMaj kx = TwoStateModel.solveTransposed(model.controllabilityMatrix(), kzCz);
         DMatrixRMaj trackedOutput = new DMatrixRMaj(1, 2, true, tInv.get(0, 0) + 0.0, tInv.get(0, 1) + 0.0);
 
         // R = B1 B1'/gamma^2 - B2 B2' from the caller's own B1 and B2.
@@ -48,15 +54,39 @@ public final class CallerCoordinates {
         DMatrixRMaj b2k = new DMatrixRMaj(2, 2);
         CommonOps_DDRM.mult(b2, kx, b2k);
         CommonOps_DDRM.subtractEquals(closedLoop, b2k);
+        double referenceGain = callerReferenceGain(closedLoop, b2, trackedOutput, design.referenceGain());
         EigenDecomposition_F64<DMatrixRMaj> eigen = DecompositionFactory_DDRM.eig(2, false);
         List<TargetDynamics.Pole> poles = new ArrayList<>();
-        if (eigen.decompose(closedLoop)) {
+        if (eigen.decompose(closedLoop.copy())) {
             for (int i = 0; i < eigen.getNumberOfEigenvalues(); i++) {
                 Complex_F64 value = eigen.getEigenvalue(i);
                 poles.add(new TargetDynamics.Pole(value.real, value.imaginary));
             }
         }
-        return new StateSpaceDesign(t, px, kx, qx, trackedOutput, design.referenceGain(), residual, poles);
+        return new StateSpaceDesign(t, px, kx, qx, trackedOutput, referenceGain, residual, poles,
+                model.controllabilityCondition());
+    }
+
+    /**
+     * kr for unit DC gain of the law as stated in the caller's coordinates: y_inf = c x_inf with
+     * (A - B2 K_x) x_inf = -B2 kr, so kr = 1 / (c x) for the LU solution of (A - B2 K_x) x = -B2. This takes the
+     * DC gain from the caller's own closed loop instead of through the canonical form, so the reported
+     * (kr, K_x, c) give y_inf = r to rounding even when T is ill-conditioned. Falls back to the canonical kr if
+     * the solve fails (a singular closed loop is caught by the verification).
+     */
+    private static double callerReferenceGain(DMatrixRMaj closedLoop, DMatrixRMaj b2, DMatrixRMaj c,
+                                              double canonicalReferenceGain) {
+        LinearSolverDense<DMatrixRMaj> lu = LinearSolverFactory_DDRM.lu(2);
+        if (!lu.setA(closedLoop.copy())) {
+            return canonicalReferenceGain;
+        }
+        DMatrixRMaj minusB2 = b2.copy();
+        CommonOps_DDRM.scale(-1, minusB2);
+        DMatrixRMaj x = new DMatrixRMaj(2, 1);
+        lu.solve(minusB2, x);
+        double dcPerKr = c.get(0) * x.get(0) + c.get(1) * x.get(1);
+        double kr = 1 / dcPerKr;
+        return Double.isFinite(kr) && kr != 0 ? kr : canonicalReferenceGain;
     }
 
     /** S' M S, symmetrized. */

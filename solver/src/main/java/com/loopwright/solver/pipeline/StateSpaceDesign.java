@@ -16,13 +16,16 @@ import org.ejml.data.DMatrixRMaj;
  * @param gain                 K as a 1 x 2 row in the caller's coordinates
  * @param stateWeight          Q = C1'C1 in the caller's coordinates
  * @param trackedOutput        c as a 1 x 2 row: the output whose step response meets the specs
- * @param referenceGain        kr (unit DC gain from r to y)
+ * @param referenceGain        kr for unit DC gain from r to y of this law, from a linear solve of the caller's closed
+ *                             loop (A - B2 K_x) x = -B2 (equals the canonical kr up to the conditioning of T)
  * @param relativeResidual     relative residual of P_x in the Riccati equation built from the caller's A, B1, B2
  * @param closedLoopPoles      eigenvalues of A - B2 K_x
+ * @param controllabilityCondition cond_2 of C_x = [B2, A B2]; the caller-coordinate results may lose up to
+ *                             log10 of it in digits ({@link com.loopwright.solver.plant.TwoStateModel#CONDITION_NOTE_THRESHOLD})
  */
 public record StateSpaceDesign(DMatrixRMaj transform, DMatrixRMaj p, DMatrixRMaj gain, DMatrixRMaj stateWeight,
                                DMatrixRMaj trackedOutput, double referenceGain, double relativeResidual,
-                               List<TargetDynamics.Pole> closedLoopPoles) {
+                               List<TargetDynamics.Pole> closedLoopPoles, double controllabilityCondition) {
 
     public StateSpaceDesign {
         transform = transform.copy();

@@ -13,10 +13,12 @@ package com.loopwright.solver.simulation;
  * @param steadyStateError r - y_inf, in output units
  * @param peakControl max |u(t)| over (0, horizon], including the jump u(0+) = dControl r
  * @param finalValue y_inf = -cOut A^-1 bRef r, in output units
+ * @param undershootPercent 100 max(0, -min y / y_inf) over [0, horizon]: the largest excursion
+ *     opposite to the final value, refined between samples as the overshoot is
  */
 public record StepMetrics(double riseTimeSeconds, double settlingTimeSeconds,
                           double overshootPercent, double peakTimeSeconds, double steadyStateError,
-                          double peakControl, double finalValue) {
+                          double peakControl, double finalValue, double undershootPercent) {
 
     public StepMetrics {
         requireFinite(riseTimeSeconds, "riseTimeSeconds");
@@ -26,9 +28,10 @@ public record StepMetrics(double riseTimeSeconds, double settlingTimeSeconds,
         requireFinite(steadyStateError, "steadyStateError");
         requireFinite(peakControl, "peakControl");
         requireFinite(finalValue, "finalValue");
+        requireFinite(undershootPercent, "undershootPercent");
         if (riseTimeSeconds < 0.0 || settlingTimeSeconds < 0.0 || overshootPercent < 0.0
-            || peakTimeSeconds < 0.0 || peakControl < 0.0) {
-            throw new IllegalArgumentException("times, overshoot and peak control must be >= 0");
+            || peakTimeSeconds < 0.0 || peakControl < 0.0 || undershootPercent < 0.0) {
+            throw new IllegalArgumentException("times, overshoot, undershoot and peak control must be >= 0");
         }
     }
 

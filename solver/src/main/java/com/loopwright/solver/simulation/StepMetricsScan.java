@@ -5,7 +5,8 @@ import java.util.function.BiFunction;
 /**
  * The scans behind {@link StepResponseMetrics}, fed sample by sample by
  * {@link StepSimulator#stream}: first times of the normalised output z at 10% and 90%, its exit
- * from the settling band, its maximum, and the maxima of u and -u. Only the previous sample and
+ * from the settling band, the maxima of z and -z (overshoot and undershoot, both refined between
+ * samples), and the maxima of u and -u. Only the previous sample and
  * the intervals that may hold events are kept, so memory grows with the events, not the samples.
  *
  * <p>The rise scan refines during the pass. A failure there, or in building the propagation
@@ -18,6 +19,8 @@ final class StepMetricsScan implements StepSampleSink {
     private final RiseScan rise;
     private final SettlingScan settling;
     private final MaximumScan outputMaximum;
+    /** The maximum of -z: the undershoot. */
+    private final MaximumScan outputMinimum;
     private final MaximumScan controlMaximum;
     private final MaximumScan controlMinimum;
     /** A failure to build the propagation between samples, reported after the pass. */
@@ -51,6 +54,8 @@ final class StepMetricsScan implements StepSampleSink {
             new ExactTrajectory(loop, stepSize, horizonSeconds, samples, propagator);
         SignalBetweenSamples output =
             new SignalBetweenSamples(trajectory, outputWeights, 0.0, 1.0);
+        SignalBetweenSamples negatedOutput =
+            new SignalBetweenSamples(trajectory, outputWeights, 0.0, -1.0);
         double[] cControl = loop.cControl().data;
         double feedthrough = loop.dControl() * stepSize;
         SignalBetweenSamples control =
@@ -60,6 +65,7 @@ final class StepMetricsScan implements StepSampleSink {
         this.rise = new RiseScan(output, riseStartLevel, riseEndLevel);
         this.settling = new SettlingScan(output, n, 1.0, bandHalfWidth);
         this.outputMaximum = new MaximumScan(output, n);
+        this.outputMinimum = new MaximumScan(negatedOutput, n);
         this.controlMaximum = new MaximumScan(control, n);
         this.controlMinimum = new MaximumScan(negatedControl, n);
         if (propagationFailure != null) {
@@ -82,6 +88,8 @@ final class StepMetricsScan implements StepSampleSink {
             outputRate);
         outputMaximum.interval(interval, from, previousOutput, previousOutputRate, outputValue,
             outputRate);
+        outputMinimum.interval(interval, from, -previousOutput, -previousOutputRate,
+            -outputValue, -outputRate);
         controlMaximum.interval(interval, from, previousControl, previousControlRate,
             controlValue, controlRate);
         controlMinimum.interval(interval, from, -previousControl, -previousControlRate,
@@ -99,6 +107,7 @@ final class StepMetricsScan implements StepSampleSink {
                        double controlValue, double controlRate) {
         rise.firstSample(outputValue);
         outputMaximum.firstSample(outputValue);
+        outputMinimum.firstSample(-outputValue);
         controlMaximum.firstSample(controlValue);
         controlMinimum.firstSample(-controlValue);
         settling.sample(0, outputValue);
@@ -136,6 +145,11 @@ final class StepMetricsScan implements StepSampleSink {
 
     MaximumScan.Point outputMaximum() {
         return outputMaximum.maximum();
+    }
+
+    /** The maximum of -z: its time and the value of -z there. */
+    MaximumScan.Point outputMinimumNegated() {
+        return outputMinimum.maximum();
     }
 
     MaximumScan.Point controlMaximum() {

@@ -122,8 +122,12 @@ public final class StepResponseMetrics {
         MaximumScan.Point controlMin = scan.controlMinimumNegated();
         double peakControl = Math.max(Math.abs(controlMax.value()), Math.abs(controlMin.value()));
 
+        // undershoot: the largest excursion of z opposite to the final value, refined between
+        // samples like the overshoot (z(0) = 0 is a sample, so it is never negative)
+        double undershootPercent = Math.max(0.0, 100.0 * scan.outputMinimumNegated().value());
+
         return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,
-            peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue);
+            peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue, undershootPercent);
     }
 
     /** Checks Re lambda < 0 for every eigenvalue; returns max |Im lambda| in rad/s (closed form for n = 2). */

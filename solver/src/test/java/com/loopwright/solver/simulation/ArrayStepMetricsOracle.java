@@ -110,8 +110,12 @@ final class ArrayStepMetricsOracle {
         LinearSignal.Point controlMin = control.maximumOfNegation();
         double peakControl = Math.max(Math.abs(controlMax.value()), Math.abs(controlMin.value()));
 
+        // undershoot: the old code's maximum of the negation, applied to z (added with the streaming
+        // undershoot, so the oracle covers it too)
+        double undershootPercent = Math.max(0.0, 100.0 * normalisedOutput.maximumOfNegation().value());
+
         return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,
-            peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue);
+            peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue, undershootPercent);
     }
 
     /** Checks Re lambda < 0 for every eigenvalue; returns max |Im lambda| in rad/s (closed form for n = 2). */

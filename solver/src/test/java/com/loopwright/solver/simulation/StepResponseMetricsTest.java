@@ -528,10 +528,10 @@ class StepResponseMetricsTest {
             () -> metrics.measure(velocityOutput, 1, 10, 500, BAND));
         // The result record itself refuses non-finite or negative values.
         assertThrows(IllegalArgumentException.class,
-            () -> new StepMetrics(Double.NaN, 1, 0, 1, 0, 1, 1));
+            () -> new StepMetrics(Double.NaN, 1, 0, 1, 0, 1, 1, 0));
         assertThrows(IllegalArgumentException.class,
-            () -> new StepMetrics(1, Double.POSITIVE_INFINITY, 0, 1, 0, 1, 1));
-        assertThrows(IllegalArgumentException.class, () -> new StepMetrics(1, 1, -1, 1, 0, 1, 1));
+            () -> new StepMetrics(1, Double.POSITIVE_INFINITY, 0, 1, 0, 1, 1, 0));
+        assertThrows(IllegalArgumentException.class, () -> new StepMetrics(1, 1, -1, 1, 0, 1, 1, 0));
         // Grid too coarse: wd = 200 rad/s over 10 s needs more than 10 samples.
         assertThrows(IllegalArgumentException.class, () -> metrics.measure(
             SecondOrderLoops.stateFeedbackLoop(0.3, 200.0), 1, 10, 10, BAND));

@@ -259,7 +259,8 @@ class StreamingStepMetricsTest {
 
     private static double[] values(StepMetrics m) {
         return new double[] {m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(),
-            m.peakTimeSeconds(), m.steadyStateError(), m.peakControl(), m.finalValue()};
+            m.peakTimeSeconds(), m.steadyStateError(), m.peakControl(), m.finalValue(),
+            m.undershootPercent()};
     }
 
     /** min |Re lambda(A)| and max |Im lambda(A)| by EJML's eigenvalues. */
