@@ -15,7 +15,7 @@ import org.ejml.data.DMatrixRMaj;
  * limit, sampling, input delay and frequency-domain margins. Stateless and thread-safe.
  *
  * <p>Horizons: the nominal loop is simulated over H = {@value LoopMatrices#HORIZON_PER_TIME_CONSTANT} slowest
- * closed-loop time constants; saturated, sampled and delayed loops, which are slower, over
+ * closed-loop time constants, or past the overshoot peak when that comes later (see LoopMatrices.horizonSeconds); saturated, sampled and delayed loops, which are slower, over
  * {@value #SLOW_HORIZON_FACTOR} H.
  */
 public final class RobustnessVerifier {
