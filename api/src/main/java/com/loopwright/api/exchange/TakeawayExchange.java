@@ -61,7 +61,7 @@ public final class TakeawayExchange {
 
     private final ObjectMapper mapper;
     private final DesignRequestValidator validator = new DesignRequestValidator();
-    private final LoopDesigner designer = new LoopDesigner();
+    private final LoopDesigner designer = new LoopDesigner(com.loopwright.api.request.FieldLimits.SPEC_RANGES);
     private final ProblemMapper problems = new ProblemMapper();
     private final DesignFigures figures = new DesignFigures();
     private final SampledLawDesigner lawDesigner = new SampledLawDesigner();
