@@ -1,5 +1,6 @@
 package com.loopwright.api.response;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import java.util.List;
 
 /**
@@ -20,6 +21,7 @@ import java.util.List;
  *                              unclamped, observed at and between the samples); null when not simulated
  * @param cautions              safety cautions
  */
+@JsonInclude(JsonInclude.Include.NON_NULL)
 public record ControllerParameters(String law, String discretization, double samplePeriodSeconds,
                                    double positionGain, double velocityGain, double referenceGain,
                                    double commandLimit, double sampledSpectralRadius, double periodPerTimeConstant,

@@ -59,4 +59,23 @@ class ExportedStepMetricsTest {
             assertTrue(code.contains("Simulated (continuous, unclamped)"), format);
         }
     }
+
+    // A period so short against the loop's horizon (18 s at 1e-5 s: 1.8 million intervals, over the simulator's
+    // cap) is not simulated: the parameter set leaves sampledStep out and the header says why.
+    @Test
+    void aPeriodTooShortToSimulateIsSaidSo() throws Exception {
+        String slow = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                + "\"spec\":{\"settlingTime\":1.5,\"overshootPercent\":1.5}}";
+        for (String format : new String[] {"parameters", "c"}) {
+            Takeaway exported = takeaway.controller(format, ("{\"design\":" + slow
+                    + ",\"samplePeriodSeconds\":1e-5,\"commandLimit\":10}").getBytes(StandardCharsets.UTF_8));
+            assertEquals(200, exported.status(), () -> String.valueOf(exported.problem()));
+            if (format.equals("parameters")) {
+                JsonNode json = mapper.readTree(exported.body());
+                assertTrue(json.has("continuousStep") && !json.has("sampledStep"), exported.body());
+            } else {
+                assertTrue(exported.body().contains("Simulated (sampled): not simulated"), exported.body());
+            }
+        }
+    }
 }
