@@ -46,7 +46,7 @@ public final class DesignExchange {
     private final ObjectMapper mapper;
     private final ObjectMapper writer;
     private final DesignRequestValidator validator = new DesignRequestValidator();
-    private final LoopDesigner designer = new LoopDesigner();
+    private final LoopDesigner designer = new LoopDesigner(com.loopwright.api.request.FieldLimits.SPEC_RANGES);
     private final DesignResponseMapper responses = new DesignResponseMapper();
     private final ProblemMapper problems = new ProblemMapper();
     private final VerifyInputValidator verifyValidator = new VerifyInputValidator();

@@ -18,6 +18,7 @@ import com.loopwright.api.request.PlotRequest;
 import com.loopwright.api.request.TakeawayLimits;
 import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.api.response.ControllerParameters;
+import com.loopwright.api.response.RobustnessResponse;
 import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.export.CSourceWriter;
 import com.loopwright.solver.export.ExportHeader;
@@ -34,6 +35,8 @@ import com.loopwright.api.request.VerifyInputValidator;
 import com.loopwright.api.request.VerifyLimits;
 import com.loopwright.solver.plant.PlantParameterException;
 import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.robustness.GridMetrics;
+import com.loopwright.solver.robustness.SampledStepMetrics;
 import com.loopwright.solver.robustness.ParameterBox;
 import com.loopwright.solver.robustness.RobustnessOptions;
 import com.loopwright.solver.robustness.StepEnvelope;
@@ -43,6 +46,7 @@ import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.OptionalDouble;
 
 /**
@@ -61,12 +65,13 @@ public final class TakeawayExchange {
 
     private final ObjectMapper mapper;
     private final DesignRequestValidator validator = new DesignRequestValidator();
-    private final LoopDesigner designer = new LoopDesigner();
+    private final LoopDesigner designer = new LoopDesigner(com.loopwright.api.request.FieldLimits.SPEC_RANGES);
     private final ProblemMapper problems = new ProblemMapper();
     private final DesignFigures figures = new DesignFigures();
     private final SampledLawDesigner lawDesigner = new SampledLawDesigner();
     private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
     private final StepEnvelope envelope = new StepEnvelope();
+    private final SampledStepMetrics sampledMetrics = new SampledStepMetrics();
 
     public TakeawayExchange(ObjectMapper mapper) {
         this.mapper = mapper;
@@ -190,25 +195,35 @@ public final class TakeawayExchange {
             return failure(ProblemType.INFEASIBLE_SPEC.problem(e.getMessage(),
                     List.of(new FieldError(pointer, e.getMessage())), List.of()));
         }
-        ExportHeader header = header(designed.validated(), report);
+        ClosedFormDesign d = report.design();
+        // the sampled loop's own step (not the continuous one): the header and the parameter set quote both
+        Optional<GridMetrics> sampledStep = sampledMetrics.measure(d.plant(),
+                new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), report.stepSize(),
+                law.samplePeriodSeconds(), report.bandFraction());
+        ExportHeader header = header(designed.validated(), report, law, sampledStep);
         try {
             return switch (format) {
                 case "structured-text" -> new Takeaway(200, STRUCTURED_TEXT,
                         new StructuredTextWriter().write(header, law), null);
                 case "c" -> new Takeaway(200, C_SOURCE, new CSourceWriter().write(header, law), null);
-                default -> parameters(report, law);
+                default -> parameters(report, law, sampledStep);
             };
         } catch (IllegalArgumentException e) {
             return failure(problems.unverifiable("the controller could not be written: " + e.getMessage()));
         }
     }
 
-    private Takeaway parameters(DesignReport report, SampledLaw law) {
+    private Takeaway parameters(DesignReport report, SampledLaw law, Optional<GridMetrics> sampledStep) {
+        var continuous = report.verification().metrics();
         ControllerParameters parameters = new ControllerParameters(
                 "u = clamp(kr*r - (k1*x1 + k2*x2), -commandLimit, commandLimit), evaluated once per sample period"
                         + " and held until the next", "emulation", law.samplePeriodSeconds(), law.positionGain(),
                 law.velocityGain(), law.referenceGain(), law.commandLimit(), law.sampledSpectralRadius(),
-                law.periodPerTimeConstant(), report.design().gamma(), Cautions.ALL);
+                law.periodPerTimeConstant(), report.design().gamma(),
+                new RobustnessResponse.Metrics(continuous.riseTimeSeconds(), continuous.settlingTimeSeconds(),
+                        continuous.overshootPercent(), continuous.peakControl()),
+                sampledStep.map(m -> new RobustnessResponse.Metrics(m.riseTimeSeconds(), m.settlingTimeSeconds(),
+                        m.overshootPercent(), m.peakControl())).orElse(null), Cautions.ALL);
         var tree = mapper.valueToTree(parameters);
         String nonFinite = FiniteNumbers.firstNonFinite((com.fasterxml.jackson.databind.JsonNode) tree);
         if (nonFinite != null) {
@@ -221,7 +236,8 @@ public final class TakeawayExchange {
         }
     }
 
-    private static ExportHeader header(ValidatedDesign validated, DesignReport report) {
+    private static ExportHeader header(ValidatedDesign validated, DesignReport report, SampledLaw law,
+                                       Optional<GridMetrics> sampledStep) {
         var p = validated.plant();
         var target = report.design().target();
         var metrics = report.verification().metrics();
@@ -238,9 +254,19 @@ public final class TakeawayExchange {
                 String.format(Locale.ROOT, "Simulated (continuous, unclamped): rise %.5g s, settling %.5g s,"
                         + " overshoot %.5g%%, peak |u| %.5g", metrics.riseTimeSeconds(), metrics.settlingTimeSeconds(),
                         metrics.overshootPercent(), metrics.peakControl()),
+                sampledStep.map(m -> String.format(Locale.ROOT, "Simulated (sampled at T = %s s, zero-order hold,"
+                        + " unclamped, between samples): rise %s, settling %s, overshoot %.5g%%, peak |u| %.5g",
+                        law.samplePeriodSeconds(), seconds(m.riseTimeSeconds()), seconds(m.settlingTimeSeconds()),
+                        m.overshootPercent(), m.peakControl()))
+                        .orElse("Simulated (sampled): not simulated (the sampled loop diverges or the period is too"
+                                + " short to simulate over the horizon)"),
                 "Certified: " + report.verification().certified());
         return new ExportHeader("Loopwright state-feedback controller (generated; review before use)", lines,
                 report.design().gamma(), Cautions.ALL);
+    }
+
+    private static String seconds(Double value) {
+        return value == null ? "not reached" : String.format(Locale.ROOT, "%.5g s", value);
     }
 
     private record Designed(ValidatedDesign validated, DesignReport report, Problem problem) {

@@ -4,9 +4,11 @@ import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.frequency.BodeSeries;
 import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.frequency.RationalLoop;
-import com.loopwright.solver.frequency.StabilityMargins;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.simulation.LinearLoop;
+import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.robustness.FrequencyAnalyzer;
+import com.loopwright.solver.robustness.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;
 import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponse;
@@ -28,6 +30,8 @@ public final class DesignFigures {
     public static final int BODE_POINTS = 400;
     /** Bode window: this many decades either side of the natural frequency. */
     static final double BODE_DECADES = 2;
+    /** The window reaches at least this factor beyond a marked crossover. */
+    static final double BODE_MARKER_ROOM = 3;
 
     static final double WIDTH = 720;
     static final double PANEL_HEIGHT = 300;
@@ -50,6 +54,7 @@ public final class DesignFigures {
 
     private final StepSimulator simulator = new StepSimulator();
     private final LoopFrequencyAnalyzer frequency = new LoopFrequencyAnalyzer();
+    private final FrequencyAnalyzer marginAnalyzer = new FrequencyAnalyzer();
 
     /**
      * @param commandLimit actuator limit drawn on the control-effort figure, if given
@@ -154,11 +159,19 @@ public final class DesignFigures {
     String bode(DesignReport report) {
         ClosedFormDesign d = report.design();
         RationalLoop loop = RationalLoop.atPlantInput(d.plant(), d.positionGain(), d.velocityGain());
+        // the margins of POST /v1/verifications (closed form, every crossover), so the figure and the report agree
+        LoopMargins margins = marginAnalyzer.analyze(d.plant(),
+                new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), 0);
         double wn = d.target().naturalFrequencyRadPerSec();
         double low = wn * Math.pow(10, -BODE_DECADES);
         double high = wn * Math.pow(10, BODE_DECADES);
+        for (Double marked : new Double[] {margins.crossoverRadPerSec(), margins.gainMarginRadPerSec()}) {
+            if (marked != null && marked > 0) {
+                low = Math.min(low, marked / BODE_MARKER_ROOM);
+                high = Math.max(high, marked * BODE_MARKER_ROOM);
+            }
+        }
         BodeSeries bode = frequency.sample(loop, low, high, BODE_POINTS);
-        StabilityMargins margins = frequency.margins(loop, low, high, BODE_POINTS);
         double[] logW = new double[bode.size()];
         double[] w = bode.angularFrequencyRadPerSec();
         for (int i = 0; i < logW.length; i++) {
@@ -181,24 +194,38 @@ public final class DesignFigures {
         bottom.frame("angular frequency w [rad/s]", "phase arg L(jw) [deg]");
         bottom.horizontal("limit", -180, "-180 deg");
         bottom.polyline("series2", logW, phase);
-        if (margins.gainCrossoverRadPerSec().isPresent()) {
-            double wc = Math.log10(margins.gainCrossoverRadPerSec().getAsDouble());
-            double pm = margins.phaseMarginDegrees().getAsDouble();
+        if (margins.crossoverRadPerSec() != null) {
+            double wc = Math.log10(margins.crossoverRadPerSec());
+            double pm = margins.phaseMarginDegrees();
             top.vertical("measured", wc, null);
             top.marker("point", wc, 0, "gain crossover " + format(Math.pow(10, wc)) + " rad/s");
             bottom.vertical("measured", wc, null);
-            bottom.marker("point", wc, pm - 180, String.format(Locale.ROOT, "phase margin %.1f deg", pm));
+            // arg L = pm - 180 on the branch the phase is drawn on near the crossover
+            bottom.marker("point", wc, phaseNear(logW, phase, wc, pm - 180), String.format(Locale.ROOT,
+                    "phase margin %.1f deg, delay margin %s s", pm, format(margins.delayMarginSeconds())));
         }
-        if (margins.phaseCrossoverRadPerSec().isPresent()) {
-            double wp = Math.log10(margins.phaseCrossoverRadPerSec().getAsDouble());
-            double gm = margins.gainMarginDecibels().getAsDouble();
-            bottom.marker("point", wp, -180, "phase crossover " + format(Math.pow(10, wp)) + " rad/s");
+        if (margins.gainMarginRadPerSec() != null && margins.gainMarginRadPerSec() > 0) {
+            double wp = Math.log10(margins.gainMarginRadPerSec());
+            double gm = 20 * Math.log10(margins.gainMargin());
+            bottom.marker("point", wp, phaseNear(logW, phase, wp, -180),
+                    "phase crossover " + format(Math.pow(10, wp)) + " rad/s");
             top.marker("point", wp, -gm, String.format(Locale.ROOT, "gain margin %.1f dB", gm));
         } else {
             bottom.text(LEFT + 8, phaseTop + PANEL_HEIGHT - 10, "start",
-                    "phase never reaches -180 deg in this window: no finite gain margin");
+                    "phase never reaches -180 deg with |L| < 1: no finite gain margin");
         }
         return close(svg);
+    }
+
+    /** The angle congruent to {@code degrees} (mod 360) nearest the drawn phase at log10 w. */
+    private static double phaseNear(double[] logW, double[] phase, double logWAt, double degrees) {
+        int nearest = 0;
+        for (int i = 1; i < logW.length; i++) {
+            if (Math.abs(logW[i] - logWAt) < Math.abs(logW[nearest] - logWAt)) {
+                nearest = i;
+            }
+        }
+        return degrees + 360 * Math.rint((phase[nearest] - degrees) / 360);
     }
 
     private StepResponse simulate(DesignReport report) {

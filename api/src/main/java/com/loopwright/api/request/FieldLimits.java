@@ -1,5 +1,7 @@
 package com.loopwright.api.request;
 
+import com.loopwright.solver.design.SpecRanges;
+
 /**
  * Documented ranges of every request field (openapi.yaml states the same numbers; a test holds them together).
  * The ranges keep every intermediate quantity of the design well inside double precision.
@@ -27,6 +29,10 @@ public final class FieldLimits {
     public static final double MAX_ABS_PHYSICAL = 1e12;
     /** A transfer-function numerator is given highest power first, with at most this many coefficients. */
     public static final int MAX_NUMERATOR_COEFFICIENTS = 3;
+
+    /** The spec ranges above, for the solver's proposals (a proposal is always a request these limits accept). */
+    public static final SpecRanges SPEC_RANGES = new SpecRanges(MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT,
+            MIN_TIME_SECONDS, MAX_TIME_SECONDS, MAX_GAMMA);
 
     private FieldLimits() {
     }

@@ -1,5 +1,6 @@
 package com.loopwright.api.response;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import java.util.List;
 
 /**
@@ -15,12 +16,17 @@ import java.util.List;
  * @param sampledSpectralRadius largest |eigenvalue| of the unclamped sampled loop (stable below 1)
  * @param periodPerTimeConstant wn T
  * @param gamma                 H-infinity level of the continuous design
+ * @param continuousStep        step metrics of the continuous loop (the design's verification, unclamped)
+ * @param sampledStep           step metrics of this sampled loop (zero-order hold at samplePeriodSeconds,
+ *                              unclamped, observed at and between the samples); null when not simulated
  * @param cautions              safety cautions
  */
+@JsonInclude(JsonInclude.Include.NON_NULL)
 public record ControllerParameters(String law, String discretization, double samplePeriodSeconds,
                                    double positionGain, double velocityGain, double referenceGain,
                                    double commandLimit, double sampledSpectralRadius, double periodPerTimeConstant,
-                                   double gamma, List<String> cautions) {
+                                   double gamma, RobustnessResponse.Metrics continuousStep,
+                                   RobustnessResponse.Metrics sampledStep, List<String> cautions) {
 
     public ControllerParameters {
         cautions = List.copyOf(cautions);

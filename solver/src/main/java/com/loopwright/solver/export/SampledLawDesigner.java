@@ -1,6 +1,7 @@
 package com.loopwright.solver.export;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.numeric.SafeRounding;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
 import com.loopwright.solver.simulation.ZeroOrderHold;
@@ -22,6 +23,8 @@ public final class SampledLawDesigner {
      * the sampled loop is rejected even if stable (common practice: sample 20 to 30 times per rise time).
      */
     public static final double MAX_PERIOD_PER_TIME_CONSTANT = 0.5;
+    /** Significant digits of the advised longest period (rounded down, so the advice is always accepted). */
+    static final int ADVICE_DIGITS = 4;
 
     /**
      * @throws SampledLawException when the period or limit is out of range, or the sampled loop is not stable
@@ -37,11 +40,14 @@ public final class SampledLawDesigner {
         }
         double wn = design.target().naturalFrequencyRadPerSec();
         double periodPerTimeConstant = wn * samplePeriodSeconds;
-        if (periodPerTimeConstant > MAX_PERIOD_PER_TIME_CONSTANT) {
+        // compared as T > 0.5 / wn, the same double the advice below is rounded down from
+        double longestPeriod = MAX_PERIOD_PER_TIME_CONSTANT / wn;
+        if (samplePeriodSeconds > longestPeriod) {
             throw new SampledLawException(String.format(java.util.Locale.ROOT,
-                    "the sample period %.4g s is too long for a loop with natural frequency %.4g rad/s: wn T = %.3g"
-                            + " exceeds %.2g; use a period of at most %.4g s", samplePeriodSeconds, wn,
-                    periodPerTimeConstant, MAX_PERIOD_PER_TIME_CONSTANT, MAX_PERIOD_PER_TIME_CONSTANT / wn), true);
+                    "the sample period %.6g s is too long for a loop with natural frequency %.6g rad/s: wn T = %.6g"
+                            + " exceeds %.2g; use a period of at most %." + ADVICE_DIGITS + "g s", samplePeriodSeconds,
+                    wn, periodPerTimeConstant, MAX_PERIOD_PER_TIME_CONSTANT,
+                    SafeRounding.atMost(longestPeriod, ADVICE_DIGITS)), true);
         }
         double k1 = design.positionGain();
         double k2 = design.velocityGain();

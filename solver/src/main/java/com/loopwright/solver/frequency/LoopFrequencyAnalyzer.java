@@ -1,13 +1,17 @@
 package com.loopwright.solver.frequency;
 
-import com.loopwright.solver.numeric.Bisection;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
 import java.util.OptionalDouble;
-import java.util.function.DoubleUnaryOperator;
+import org.hipparchus.analysis.UnivariateFunction;
+import org.hipparchus.analysis.solvers.AllowedSolution;
+import org.hipparchus.analysis.solvers.BracketingNthOrderBrentSolver;
 
 /**
- * Bode data and gain/phase margins of an open loop on a logarithmic grid, crossings refined by bisection (at most Bisection.MAX_ITERATIONS halvings each):
- * the gain crossover solves |L(j w)| - 1 = 0, the phase crossover solves Im L(j w) = 0 with Re L(j w) &lt; 0
- * (the negative real axis, so no phase unwrapping is involved in the margins).
+ * Bode data and gain/phase/delay margins of an open loop on a logarithmic grid, every crossing refined by
+ * Brent's method: the gain crossovers solve ln |L(j w)| = 0, the phase crossovers solve Im L(j w) = 0 with
+ * Re L(j w) &lt; 0 (the negative real axis, so no phase unwrapping is involved in the margins).
  */
 public final class LoopFrequencyAnalyzer {
 
@@ -15,6 +19,15 @@ public final class LoopFrequencyAnalyzer {
     public static final int MAX_POINTS = 4000;
     /** Smallest number of grid points. */
     public static final int MIN_POINTS = 2;
+    /** Least grid points when bracketing crossings (a crossing pair closer than one cell can be missed). */
+    public static final int MIN_SEARCH_POINTS = 4000;
+    /** Most crossings of each kind kept. */
+    static final int MAX_ROOTS = CrossoverMargins.MAX_CROSSOVERS;
+    /** Brent refinement in ln w: relative and absolute accuracy, order, and evaluations per crossing. */
+    static final double RELATIVE_ACCURACY = 1e-15;
+    static final double ABSOLUTE_ACCURACY_LOG = 1e-15;
+    static final int BRENT_ORDER = 5;
+    static final int MAX_EVALUATIONS = 200;
 
     /** Samples L(j w) on {@code points} log-spaced frequencies from {@code lowRadPerSec} to {@code highRadPerSec}. */
     public BodeSeries sample(RationalLoop loop, double lowRadPerSec, double highRadPerSec, int points) {
@@ -40,47 +53,75 @@ public final class LoopFrequencyAnalyzer {
         return new BodeSeries(w, magnitude, phase);
     }
 
-    /** Margins from the lowest crossings in the window, bracketed on the grid and refined by bisection. */
+    /**
+     * Margins over every crossing in the window: the gain crossovers (log |L| = 0) and phase crossovers
+     * (Im L = 0 with Re L &lt; 0) are bracketed on a log grid of at least {@value #MIN_SEARCH_POINTS} points and
+     * refined by the bracketing Brent solver of Hipparchus in ln w. Phase and delay margins follow
+     * {@link CrossoverMargins} with the closed-loop stability of 1 + L; the gain margin is the least
+     * -20 log10 |L| above 0 dB over the phase crossovers, or when all of them have |L| &gt; 1, the one nearest 0 dB.
+     */
     public StabilityMargins margins(RationalLoop loop, double lowRadPerSec, double highRadPerSec, int points) {
-        double[] w = grid(lowRadPerSec, highRadPerSec, points);
-        DoubleUnaryOperator logGain = x -> {
-            double[] l = loop.at(x);
+        double[] w = grid(lowRadPerSec, highRadPerSec, Math.max(points, MIN_SEARCH_POINTS));
+        UnivariateFunction logGain = x -> {
+            double[] l = loop.at(Math.exp(x));
             return Math.log(Math.hypot(l[0], l[1]));
         };
-        DoubleUnaryOperator imaginary = x -> loop.at(x)[1];
-        OptionalDouble gainCrossover = firstRoot(w, logGain, x -> true);
-        OptionalDouble phaseCrossover = firstRoot(w, imaginary, x -> loop.at(x)[0] < 0);
-        OptionalDouble phaseMargin = OptionalDouble.empty();
-        if (gainCrossover.isPresent()) {
-            double[] l = loop.at(gainCrossover.getAsDouble());
-            double arg = Math.toDegrees(Math.atan2(l[1], l[0]));
-            phaseMargin = OptionalDouble.of(180 + (arg > 0 ? arg - 360 : arg));
+        UnivariateFunction imaginary = x -> {
+            double[] l = loop.at(Math.exp(x));
+            return l[1] / Math.hypot(l[0], l[1]);
+        };
+        List<Double> gainCrossovers = roots(w, logGain);
+        double[] crossovers = new double[Math.min(gainCrossovers.size(), CrossoverMargins.MAX_CROSSOVERS)];
+        double[] phases = new double[crossovers.length];
+        for (int i = 0; i < crossovers.length; i++) {
+            crossovers[i] = gainCrossovers.get(i);
+            double[] l = loop.at(crossovers[i]);
+            phases[i] = Math.atan2(l[1], l[0]);
         }
+        Optional<CrossoverMargins> phaseMargins = CrossoverMargins.of(crossovers, phases, loop.closedLoopStable());
+        OptionalDouble phaseCrossover = OptionalDouble.empty();
         OptionalDouble gainMargin = OptionalDouble.empty();
-        if (phaseCrossover.isPresent()) {
-            double[] l = loop.at(phaseCrossover.getAsDouble());
-            gainMargin = OptionalDouble.of(-20 * Math.log10(Math.abs(l[0])));
+        for (double root : roots(w, imaginary)) {
+            double[] l = loop.at(root);
+            if (!(l[0] < 0)) {
+                continue; // the positive real axis: not a -180 degree crossing
+            }
+            double margin = -20 * Math.log10(-l[0]);
+            boolean better = gainMargin.isEmpty()
+                    || (margin > 0 ? gainMargin.getAsDouble() <= 0 || margin < gainMargin.getAsDouble()
+                            : gainMargin.getAsDouble() <= 0 && margin > gainMargin.getAsDouble());
+            if (better) {
+                gainMargin = OptionalDouble.of(margin);
+                phaseCrossover = OptionalDouble.of(root);
+            }
         }
-        return new StabilityMargins(gainCrossover, phaseMargin, phaseCrossover, gainMargin);
+        return new StabilityMargins(
+                phaseMargins.map(m -> OptionalDouble.of(m.crossoverRadPerSec())).orElse(OptionalDouble.empty()),
+                phaseMargins.map(m -> OptionalDouble.of(m.phaseMarginDegrees())).orElse(OptionalDouble.empty()),
+                phaseMargins.map(m -> OptionalDouble.of(m.delayMarginSeconds())).orElse(OptionalDouble.empty()),
+                phaseCrossover, gainMargin);
     }
 
-    private static OptionalDouble firstRoot(double[] w, DoubleUnaryOperator f,
-                                            java.util.function.DoublePredicate accept) {
-        double previous = f.applyAsDouble(w[0]);
-        for (int i = 1; i < w.length; i++) {
-            double current = f.applyAsDouble(w[i]);
-            if (previous == 0 && accept.test(w[i - 1])) {
-                return OptionalDouble.of(w[i - 1]);
-            }
-            if (previous * current < 0) {
-                double root = Bisection.root(f, w[i - 1], w[i]);
-                if (accept.test(root)) {
-                    return OptionalDouble.of(root);
-                }
+    /** Every sign change of f(ln w) between grid neighbours, refined by Brent's method; at most MAX_ROOTS. */
+    private static List<Double> roots(double[] w, UnivariateFunction f) {
+        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(RELATIVE_ACCURACY,
+                ABSOLUTE_ACCURACY_LOG, 0, BRENT_ORDER);
+        List<Double> roots = new ArrayList<>();
+        double previous = f.value(Math.log(w[0]));
+        if (previous == 0) {
+            roots.add(w[0]);
+        }
+        for (int i = 1; i < w.length && roots.size() < MAX_ROOTS; i++) {
+            double current = f.value(Math.log(w[i]));
+            if (current == 0) {
+                roots.add(w[i]);
+            } else if (previous * current < 0) {
+                roots.add(Math.exp(solver.solve(MAX_EVALUATIONS, f, Math.log(w[i - 1]), Math.log(w[i]),
+                        AllowedSolution.ANY_SIDE)));
             }
             previous = current;
         }
-        return OptionalDouble.empty();
+        return roots;
     }
 
     static double[] grid(double low, double high, int points) {

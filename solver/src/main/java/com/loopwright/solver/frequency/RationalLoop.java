@@ -2,6 +2,9 @@ package com.loopwright.solver.frequency;
 
 import com.loopwright.solver.plant.CanonicalPlant;
 import java.util.Arrays;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 
 /**
  * An open-loop transfer function L(s) = N(s) / D(s) with real coefficients in ascending powers of s.
@@ -41,6 +44,42 @@ public record RationalLoop(double[] numerator, double[] denominator) {
         double[] d = horner(denominator, angularFrequencyRadPerSec);
         double scale = d[0] * d[0] + d[1] * d[1];
         return new double[] {(n[0] * d[0] + n[1] * d[1]) / scale, (n[1] * d[0] - n[0] * d[1]) / scale};
+    }
+
+    /**
+     * Whether the loop closed by unit negative feedback is stable: every zero of the characteristic polynomial
+     * D(s) + N(s) has a negative real part. The zeros are the eigenvalues of its companion matrix (EJML).
+     */
+    public boolean closedLoopStable() {
+        int length = Math.max(numerator.length, denominator.length);
+        double[] p = new double[length];
+        for (int i = 0; i < length; i++) {
+            p[i] = (i < numerator.length ? numerator[i] : 0) + (i < denominator.length ? denominator[i] : 0);
+        }
+        int degree = length - 1;
+        while (degree > 0 && p[degree] == 0) {
+            degree--;
+        }
+        if (degree == 0) {
+            return p[0] != 0; // a non-zero constant has no zeros
+        }
+        DMatrixRMaj companion = new DMatrixRMaj(degree, degree);
+        for (int i = 0; i < degree; i++) {
+            companion.set(0, i, -p[degree - 1 - i] / p[degree]);
+            if (i > 0) {
+                companion.set(i, i - 1, 1);
+            }
+        }
+        EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(degree, false);
+        if (!eig.decompose(companion)) {
+            throw new IllegalArgumentException("the closed-loop poles could not be computed");
+        }
+        for (int i = 0; i < degree; i++) {
+            if (!(eig.getEigenvalue(i).getReal() < 0)) {
+                return false;
+            }
+        }
+        return true;
     }
 
     @Override

@@ -7,7 +7,9 @@ import com.loopwright.solver.design.FeasibilityAdvisor;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.design.SpecRanges;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.NormalizedSettlingTime;
@@ -16,6 +18,7 @@ import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.verify.DesignVerifier;
 import com.loopwright.solver.verify.Verification;
+import java.util.List;
 import java.util.Optional;
 
 /**
@@ -33,6 +36,31 @@ public final class LoopDesigner {
     private final ClosedFormDesigner designer = new ClosedFormDesigner();
     private final FeasibilityAdvisor advisor = new FeasibilityAdvisor(designer);
     private final DesignVerifier verifier = new DesignVerifier();
+    private final SpecRanges ranges;
+
+    /** A designer whose proposals are bounded only by the quantities themselves. */
+    public LoopDesigner() {
+        this(SpecRanges.UNBOUNDED);
+    }
+
+    /** A designer whose proposals lie in the ranges a request accepts. */
+    public LoopDesigner(SpecRanges ranges) {
+        this.ranges = ranges;
+    }
+
+    /** What the reason adds when a quantity has no proposal: none within the accepted ranges works. */
+    private static String missing(List<SpecProposal> proposals) {
+        StringBuilder text = new StringBuilder();
+        if (proposals.stream().noneMatch(p -> p.quantity() == SpecQuantity.TIME_SPEC)) {
+            text.append("; no time spec within the accepted range makes this plant feasible with the overshoot"
+                    + " kept");
+        }
+        if (proposals.stream().noneMatch(p -> p.quantity() == SpecQuantity.OVERSHOOT_PERCENT)) {
+            text.append("; no overshoot within the accepted range makes this plant feasible with the time spec"
+                    + " kept");
+        }
+        return text.toString();
+    }
 
     /**
      * @throws InfeasibleDesignException when the plant cannot meet the spec (with computed proposals)
@@ -45,10 +73,22 @@ public final class LoopDesigner {
         Optional<DesignObstacle> obstacle = designer.obstacle(plant, target);
         if (obstacle.isPresent()) {
             SpecQuantity blamed = obstacle.get().dampingBound() ? SpecQuantity.OVERSHOOT_PERCENT : SpecQuantity.TIME_SPEC;
-            throw new InfeasibleDesignException(
-                    new Infeasibility(blamed, obstacle.get().reason(), advisor.propose(plant, spec)));
+            List<SpecProposal> proposals = advisor.propose(plant, spec, gammaChoice, ranges);
+            String reason = obstacle.get().reason() + missing(proposals);
+            throw new InfeasibleDesignException(new Infeasibility(blamed, reason, proposals));
         }
-        ClosedFormDesign design = designer.design(plant, target, gammaChoice);
+        ClosedFormDesign design;
+        try {
+            design = designer.design(plant, target, gammaChoice);
+        } catch (InfeasibleDesignException e) {
+            // a fixed gamma below gamma_min: keep only the gamma proposals a request accepts
+            List<SpecProposal> inRange = e.infeasibility().proposals().stream()
+                    .filter(p -> p.quantity() != SpecQuantity.GAMMA || ranges.gammaInRange(p.value())).toList();
+            if (inRange.size() == e.infeasibility().proposals().size()) {
+                throw e;
+            }
+            throw new InfeasibleDesignException(e.infeasibility().withProposals(inRange));
+        }
         double expectedSettling = NormalizedSettlingTime.of(target.dampingRatio(), bandFraction)
                 / target.naturalFrequencyRadPerSec();
         double horizon = HORIZON_PER_SETTLING_TIME * expectedSettling;

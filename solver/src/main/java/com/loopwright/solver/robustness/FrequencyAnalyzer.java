@@ -1,11 +1,14 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.frequency.CrossoverMargins;
 import com.loopwright.solver.plant.CanonicalPlant;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 
 /**
- * Margins of L(s) = b (k1 + k2 s)/(s^2 + a1 s + a0) in closed form.
+ * Margins of L(s) = b (k1 + k2 s)/(s^2 + a1 s + a0) in closed form. Every gain crossover counts; phase and delay
+ * margins follow the rule of {@link CrossoverMargins}, which the Bode figure shares.
  *
  * <p>Gain crossovers: |L(j w)|^2 = 1 is b^2 (k1^2 + k2^2 w^2) = (a0 - w^2)^2 + a1^2 w^2, a quadratic in s = w^2:
  * s^2 + (a1^2 - 2 a0 - b^2 k2^2) s + (a0^2 - b^2 k1^2) = 0. Phase crossovers: Im L(j w) = 0 is
@@ -36,26 +39,21 @@ public final class FrequencyAnalyzer {
         double k1 = gains.positionGain();
         double k2 = gains.velocityGain();
 
-        Double crossover = null;
-        Double phaseMargin = null;
-        Double delayMargin = null;
-        for (double s : positiveRoots(1, a1 * a1 - 2 * a0 - b * b * k2 * k2, a0 * a0 - b * b * k1 * k1)) {
-            double w = Math.sqrt(s);
-            double margin = wrapDegrees(180 + Math.toDegrees(loopPhase(plant, gains, w)));
-            if (phaseMargin == null || margin < phaseMargin) {
-                phaseMargin = margin;
-                crossover = w;
-            }
-            if (margin > 0) {
-                double delay = Math.toRadians(margin) / w;
-                delayMargin = delayMargin == null ? delay : Math.min(delayMargin, delay);
-            }
+        List<Double> roots = positiveRoots(1, a1 * a1 - 2 * a0 - b * b * k2 * k2, a0 * a0 - b * b * k1 * k1);
+        double[] crossovers = new double[roots.size()];
+        double[] phases = new double[roots.size()];
+        for (int i = 0; i < crossovers.length; i++) {
+            crossovers[i] = Math.sqrt(roots.get(i));
+            phases[i] = loopPhase(plant, gains, crossovers[i]);
         }
-        if (phaseMargin != null && phaseMargin <= 0) {
-            delayMargin = 0.0;
-        }
+        Optional<CrossoverMargins> phaseMargins = CrossoverMargins.of(crossovers, phases,
+                LoopMatrices.stable(plant, gains));
+        Double crossover = phaseMargins.map(CrossoverMargins::crossoverRadPerSec).orElse(null);
+        Double phaseMargin = phaseMargins.map(CrossoverMargins::phaseMarginDegrees).orElse(null);
+        Double delayMargin = phaseMargins.map(CrossoverMargins::delayMarginSeconds).orElse(null);
 
         Double gainMargin = null;
+        Double gainMarginFrequency = null;
         Double gainReduction = null;
         List<Double> phaseCrossovers = new ArrayList<>();
         phaseCrossovers.add(0.0);
@@ -72,7 +70,10 @@ public final class FrequencyAnalyzer {
             }
             double magnitude = Math.hypot(l[0], l[1]);
             if (magnitude < 1) {
-                gainMargin = gainMargin == null ? 1 / magnitude : Math.min(gainMargin, 1 / magnitude);
+                if (gainMargin == null || 1 / magnitude < gainMargin) {
+                    gainMargin = 1 / magnitude;
+                    gainMarginFrequency = w;
+                }
             } else if (magnitude > 1) {
                 gainReduction = gainReduction == null ? 1 / magnitude : Math.max(gainReduction, 1 / magnitude);
             }
@@ -115,7 +116,7 @@ public final class FrequencyAnalyzer {
         }
         // L is strictly proper, so |S(j w)| -> 1 as w -> infinity: the supremum is at least 1
         boolean finitePeak = peak[1] > 1;
-        return new LoopMargins(crossover, phaseMargin, delayMargin, gainMargin, gainReduction,
+        return new LoopMargins(crossover, phaseMargin, delayMargin, gainMargin, gainMarginFrequency, gainReduction,
                 finitePeak ? peak[1] : 1.0, finitePeak ? peak[0] : null, bandwidth, response);
     }
 
@@ -149,16 +150,6 @@ public final class FrequencyAnalyzer {
         double di = LoopMatrices.closedLoopDamping(plant, gains) * w;
         double den = dr * dr + di * di;
         return new double[] {n * dr / den, -n * di / den};
-    }
-
-    private static double wrapDegrees(double degrees) {
-        double wrapped = degrees % 360;
-        if (wrapped > 180) {
-            wrapped -= 360;
-        } else if (wrapped <= -180) {
-            wrapped += 360;
-        }
-        return wrapped;
     }
 
     /** Positive real roots of a s^2 + b s + c (stable form of the quadratic formula). */

@@ -1,6 +1,7 @@
 package com.loopwright.solver.robustness;
 
 import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.numeric.SafeRounding;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponseMetrics;
@@ -14,7 +15,7 @@ import org.ejml.data.DMatrixRMaj;
  * limit, sampling, input delay and frequency-domain margins. Stateless and thread-safe.
  *
  * <p>Horizons: the nominal loop is simulated over H = {@value LoopMatrices#HORIZON_PER_TIME_CONSTANT} slowest
- * closed-loop time constants; saturated, sampled and delayed loops, which are slower, over
+ * closed-loop time constants, or past the overshoot peak when that comes later (see LoopMatrices.horizonSeconds); saturated, sampled and delayed loops, which are slower, over
  * {@value #SLOW_HORIZON_FACTOR} H.
  */
 public final class RobustnessVerifier {
@@ -33,6 +34,10 @@ public final class RobustnessVerifier {
     static final double SEARCH_RELATIVE_WIDTH = 1e-3;
     /** Relative slack on observedGain &lt;= hinfNorm for the norm's stated accuracy. */
     static final double NORM_SLACK = 1e-8;
+    /** Significant digits of advised limits in messages (rounded toward the accepted side). */
+    static final int ADVICE_DIGITS = 6;
+    /** Cap on last-digit raises of an advised shortest sample period. */
+    static final int MAX_ADVICE_STEPS = 10;
 
     private final StepResponseMetrics stepMetrics = new StepResponseMetrics();
     private final HInfinityNormCalculator norms = new HInfinityNormCalculator();
@@ -83,8 +88,8 @@ public final class RobustnessVerifier {
             if (from > MAX_DISTURBANCE_TIMING_HORIZONS * horizon) {
                 throw new CapExceededException(CapExceededException.Option.DISTURBANCE_TIMING, i, String.format(
                         "the disturbance must be over by %.6g s (%s nominal horizons of %.6g s), it ends at %.6g s",
-                        MAX_DISTURBANCE_TIMING_HORIZONS * horizon, fmt(MAX_DISTURBANCE_TIMING_HORIZONS), horizon,
-                        from));
+                        SafeRounding.atMost(MAX_DISTURBANCE_TIMING_HORIZONS * horizon, ADVICE_DIGITS),
+                        fmt(MAX_DISTURBANCE_TIMING_HORIZONS), horizon, from));
             }
             DisturbanceResponse response = disturbance.simulate(plant, gains, profile, performanceOutput,
                     from >= 0 ? from + horizon : horizon);
@@ -94,6 +99,15 @@ public final class RobustnessVerifier {
         }
 
         double slowHorizon = SLOW_HORIZON_FACTOR * horizon;
+        if (options.inputDelaySeconds() != null) {
+            double delay = options.inputDelaySeconds();
+            if (delay > MAX_DELAY_HORIZONS * horizon) {
+                throw new CapExceededException(CapExceededException.Option.INPUT_DELAY, -1, String.format(
+                        "the input delay must be at most %.6g s (%s nominal horizon), got %.6g s",
+                        SafeRounding.atMost(MAX_DELAY_HORIZONS * horizon, ADVICE_DIGITS), fmt(MAX_DELAY_HORIZONS),
+                        delay));
+            }
+        }
         SaturationReport saturation = null;
         if (options.actuatorLimit() != null) {
             double limit = options.actuatorLimit();
@@ -117,7 +131,9 @@ public final class RobustnessVerifier {
         SampledReport sampledReport = null;
         if (options.samplePeriodSeconds() != null) {
             double ts = options.samplePeriodSeconds();
-            requireIntervals(ts, slowHorizon, CapExceededException.Option.SAMPLE_PERIOD);
+            // the delayed step runs at the same Ts over a horizon longer by the delay: advise for the longer one
+            double delayed = options.inputDelaySeconds() == null ? 0 : options.inputDelaySeconds();
+            requireIntervals(ts, slowHorizon + delayed, CapExceededException.Option.SAMPLE_PERIOD);
             double radius = spectralRadius(plant, gains, ts);
             DenseTrajectory emulated = null;
             GridMetrics emulatedMetrics = null;
@@ -151,11 +167,6 @@ public final class RobustnessVerifier {
         DelayReport delayReport = null;
         if (options.inputDelaySeconds() != null) {
             double delay = options.inputDelaySeconds();
-            if (delay > MAX_DELAY_HORIZONS * horizon) {
-                throw new CapExceededException(CapExceededException.Option.INPUT_DELAY, -1, String.format(
-                        "the input delay must be at most %.6g s (%s nominal horizon), got %.6g s",
-                        MAX_DELAY_HORIZONS * horizon, fmt(MAX_DELAY_HORIZONS), delay));
-            }
             double ts = options.samplePeriodSeconds() != null ? options.samplePeriodSeconds()
                     : slowHorizon / DELAY_SIMULATION_INTERVALS;
             double delayHorizon = slowHorizon + delay;
@@ -203,13 +214,29 @@ public final class RobustnessVerifier {
     }
 
     private static void requireIntervals(double ts, double horizon, CapExceededException.Option option) {
-        double intervals = Math.ceil(horizon / ts);
-        if (intervals > SampledLoopSimulator.MAX_SAMPLE_INTERVALS) {
+        if (!fitsIntervals(ts, horizon)) {
             throw new CapExceededException(option, -1, String.format("the sampled simulation over %.6g s at"
                     + " Ts = %.6g s needs %.0f sample intervals, more than the cap %d: use Ts >= %.6g s", horizon, ts,
-                    intervals, SampledLoopSimulator.MAX_SAMPLE_INTERVALS,
-                    horizon / SampledLoopSimulator.MAX_SAMPLE_INTERVALS));
+                    Math.ceil(horizon / ts), SampledLoopSimulator.MAX_SAMPLE_INTERVALS,
+                    shortestPeriod(horizon)));
         }
+    }
+
+    private static boolean fitsIntervals(double ts, double horizon) {
+        return Math.ceil(horizon / ts) <= SampledLoopSimulator.MAX_SAMPLE_INTERVALS;
+    }
+
+    /**
+     * The advised shortest Ts for a horizon: horizon / cap rounded up at the printed precision, then raised by
+     * one unit of the last printed digit while the interval count (a rounded division) still exceeds the cap.
+     */
+    static double shortestPeriod(double horizon) {
+        double advice = SafeRounding.atLeast(horizon / SampledLoopSimulator.MAX_SAMPLE_INTERVALS, ADVICE_DIGITS);
+        for (int i = 0; i < MAX_ADVICE_STEPS && !fitsIntervals(advice, horizon); i++) {
+            double unit = Math.pow(10, Math.floor(Math.log10(advice)) - (ADVICE_DIGITS - 1));
+            advice = SafeRounding.atLeast(advice + unit, ADVICE_DIGITS);
+        }
+        return advice;
     }
 
     private static GridMetrics metricsOf(DenseTrajectory trajectory, CanonicalPlant plant, FeedbackGains gains,

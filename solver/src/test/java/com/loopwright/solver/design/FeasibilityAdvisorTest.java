@@ -50,4 +50,45 @@ class FeasibilityAdvisorTest {
         assertTrue(!feasible(plant, new DesignSpec(0.01, new TimeSpec.SettlingTime(time.value() * 1.02, 0.02))));
         assertEquals(SpecQuantity.TIME_SPEC, time.quantity());
     }
+
+    /**
+     * Regression (issue 12, item 14): a feasibility boundary just above the accepted minimum overshoot 0.001%.
+     * Construction (hand algebra from the velocity-weight condition wn^2 (4 zeta^2 - 2) &gt; a1^2 - 2 a0 with
+     * wn = T(zeta) / ts, both factors rising with zeta): a0 = 0, b = 1, d = 0 and a1 = wn* sqrt(4 zeta*^2 - 2)
+     * puts the boundary at zeta* = zeta(0.00138%), the issue's boundary; more damping is feasible. The unbounded step inside the boundary (zeta + 0.002) lands below 0.001%, as
+     * the refused proposals did; with the documented ranges the proposal is clamped to [0.001%, 0.00138%] and is
+     * feasible as posted (reference: the spec inversion and the obstacle test, applied to the proposed value).
+     */
+    @Test
+    void overshootProposalStaysInsideTheAcceptedRange() {
+        double boundaryPercent = 0.00138;
+        double zetaStar = OvershootDamping.dampingRatio(boundaryPercent / 100);
+        double settling = 1;
+        double wnStar = new TimeSpec.SettlingTime(settling, 0.02).normalizedTime(zetaStar) / settling;
+        double a1 = wnStar * Math.sqrt(4 * zetaStar * zetaStar - 2);
+        CanonicalPlant plant = new CanonicalPlant(0, a1, 1, 0);
+        DesignSpec spec = new DesignSpec(0.01, new TimeSpec.SettlingTime(settling, 0.02));
+        assertTrue(!feasible(plant, spec));
+
+        double unbounded = overshootProposal(advisor.propose(plant, spec));
+        assertTrue(unbounded < 0.001, "without ranges the step inside leaves the range: " + unbounded);
+
+        SpecRanges ranges = new SpecRanges(0.001, 95, 1e-4, 1e4, 1e12);
+        List<SpecProposal> proposals = advisor.propose(plant, spec,
+                new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR), ranges);
+        double bounded = overshootProposal(proposals);
+        assertTrue(bounded >= 0.001 && bounded < boundaryPercent, "proposal " + bounded);
+        assertTrue(feasible(plant, spec.withOvershoot(bounded / 100)));
+        for (SpecProposal p : proposals) {
+            if (p.quantity() == SpecQuantity.TIME_SPEC) {
+                assertTrue(ranges.timeInRange(p.value()));
+                assertTrue(feasible(plant, new DesignSpec(0.01, new TimeSpec.SettlingTime(p.value(), 0.02))));
+            }
+        }
+    }
+
+    private static double overshootProposal(List<SpecProposal> proposals) {
+        return proposals.stream().filter(p -> p.quantity() == SpecQuantity.OVERSHOOT_PERCENT).findFirst()
+                .orElseThrow().value();
+    }
 }

@@ -6,6 +6,9 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.robustness.FrequencyAnalyzer;
+import com.loopwright.solver.robustness.LoopMargins;
 import org.hipparchus.complex.Complex;
 import org.hipparchus.linear.Array2DRowFieldMatrix;
 import org.hipparchus.linear.ArrayFieldVector;
@@ -78,6 +81,36 @@ class LoopFrequencyAnalyzerTest {
         double phase = Math.toDegrees(Math.atan(k2 * wc / k1) - Math.PI / 2 - Math.atan(wc / 0.48));
         assertEquals(180 + phase, margins.phaseMarginDegrees().getAsDouble(), 1e-9);
         assertTrue(margins.phaseMarginDegrees().getAsDouble() > 60);
+    }
+
+    /**
+     * Regression (issue 12, item 7): loops crossing 0 dB twice (the issue's two designs). The grid search with
+     * Brent refinement finds both crossovers and agrees with the closed-form analyzer of /v1/verifications (the
+     * crossovers from the quadratic in w^2); expected values from numpy on a 2e6-point log grid: delay margins
+     * 0.36808 s and 47.840 ms, set by the crossovers at 5.4385 and 29.470 rad/s.
+     */
+    @Test
+    void twoCrossoverLoopsAgreeWithTheClosedFormAnalyzer() {
+        CanonicalPlant[] plants = {new CanonicalPlant(10, 2, 75, 6), new CanonicalPlant(150, -1, 65, 6)};
+        FeedbackGains[] gains = {new FeedbackGains(0.02270865497444023, 0.05474815300409212, 0.15604198830777358),
+            new FeedbackGains(1.3238037013361184, 0.3727054578964097, 3.631496009028426)};
+        double[] delays = {0.368081, 0.0478400};
+        for (int i = 0; i < plants.length; i++) {
+            RationalLoop loop = RationalLoop.atPlantInput(plants[i], gains[i].positionGain(),
+                    gains[i].velocityGain());
+            assertTrue(loop.closedLoopStable());
+            StabilityMargins grid = analyzer.margins(loop, 1e-2, 1e3, 400);
+            LoopMargins closedForm = new FrequencyAnalyzer().analyze(plants[i], gains[i], 0);
+            assertEquals(closedForm.crossoverRadPerSec(), grid.gainCrossoverRadPerSec().getAsDouble(),
+                    1e-12 * closedForm.crossoverRadPerSec());
+            assertEquals(closedForm.phaseMarginDegrees(), grid.phaseMarginDegrees().getAsDouble(), 1e-9);
+            assertEquals(closedForm.delayMarginSeconds(), grid.delayMarginSeconds().getAsDouble(), 1e-12);
+            assertEquals(delays[i], grid.delayMarginSeconds().getAsDouble(), 2e-5 * delays[i]);
+        }
+        // an unstable closed loop (gain 10 around 1/(s(s+1)(s+2)), Routh: unstable above 6) has no delay margin
+        RationalLoop unstable = new RationalLoop(new double[] {10}, new double[] {0, 2, 3, 1});
+        assertFalse(unstable.closedLoopStable());
+        assertEquals(0, analyzer.margins(unstable, 1e-2, 1e2, 400).delayMarginSeconds().getAsDouble());
     }
 
     /** Unwrapped phase of 1/(s+1)^4 runs continuously from 0 to near -360 (common practice). */

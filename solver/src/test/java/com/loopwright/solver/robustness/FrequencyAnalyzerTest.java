@@ -56,6 +56,42 @@ class FrequencyAnalyzerTest {
         assertEquals(0, LoopMatrices.closedLoopDamping(plant, new FeedbackGains(0.5, 1, 1)), 0);
     }
 
+    /**
+     * Regression (issue 12, item 7): loops that cross 0 dB twice. POST /v1/designs with a0 10, a1 2, b 75, d 6,
+     * overshoot 0.2%, settling 1.35 s gave these gains and reported phase margin -131.24 deg and delay margin 0.
+     * The crossovers are 1.8119 rad/s (|L| rising, 180 + arg L = -131.24 deg, first reached by a delay of
+     * 228.76 deg / w = 2.20 s) and 5.4385 rad/s (114.69 deg, 0.3681 s). Likewise the open-loop unstable plant
+     * a0 150, a1 -1, b 65 (overshoot 2.66%, settling 0.37 s): 4.169 rad/s (231.37 deg, 0.969 s) and 29.47 rad/s
+     * (80.78 deg, 47.84 ms). Expected crossovers from numpy on a 2e6-point log grid; reference for the delay
+     * margin: the argument principle on the exact delayed characteristic function (DelayedLoopRoots), stable just
+     * below the margin and with a right-half-plane pair just above it.
+     */
+    @Test
+    void everyCrossoverCountsForPhaseAndDelayMargins() {
+        record Case(CanonicalPlant plant, FeedbackGains gains, double crossover, double phaseMargin,
+                    double delayMargin) {
+        }
+        for (Case c : new Case[] {
+            new Case(new CanonicalPlant(10, 2, 75, 6), new FeedbackGains(0.02270865497444023, 0.05474815300409212,
+                    0.15604198830777358), 5.43846, 114.695, 0.368081),
+            new Case(new CanonicalPlant(150, -1, 65, 6), new FeedbackGains(1.3238037013361184, 0.3727054578964097,
+                    3.631496009028426), 29.4703, 80.7789, 0.0478400)}) {
+            LoopMargins margins = analyzer.analyze(c.plant(), c.gains(), 0);
+            assertEquals(c.crossover(), margins.crossoverRadPerSec(), 1e-4 * c.crossover());
+            assertEquals(c.phaseMargin(), margins.phaseMarginDegrees(), 2e-3);
+            assertEquals(c.delayMargin(), margins.delayMarginSeconds(), 2e-5 * c.delayMargin());
+            double tau = margins.delayMarginSeconds();
+            assertEquals(0, DelayedLoopRoots.rightHalfPlaneZeros(c.plant(), c.gains(), 0));
+            assertEquals(0, DelayedLoopRoots.rightHalfPlaneZeros(c.plant(), c.gains(), 0.98 * tau));
+            assertEquals(2, DelayedLoopRoots.rightHalfPlaneZeros(c.plant(), c.gains(), 1.02 * tau));
+        }
+        // the issue's simulations: the first loop is stable with 0.30 s of delay and diverges with 0.38 s
+        CanonicalPlant plant = new CanonicalPlant(10, 2, 75, 6);
+        FeedbackGains gains = new FeedbackGains(0.02270865497444023, 0.05474815300409212, 0.15604198830777358);
+        assertEquals(0, DelayedLoopRoots.rightHalfPlaneZeros(plant, gains, 0.30));
+        assertEquals(2, DelayedLoopRoots.rightHalfPlaneZeros(plant, gains, 0.38));
+    }
+
     @Test
     void bandwidthMatchesTheSecondOrderFormula() {
         // wb = wn sqrt(1 - 2 zeta^2 + sqrt(4 zeta^4 - 4 zeta^2 + 2)) for wn^2/(s^2 + 2 zeta wn s + wn^2)

@@ -76,4 +76,32 @@ class RobustnessVerifierTest {
                 new FeedbackGains(-1, 0.1, 1), 1, LIMITS, IndexingAxis.performanceOutput(), null,
                 options(null, false, null)));
     }
+
+    // Regression (issue 12, item 8): the advised shortest sample period "use Ts >= X" is accepted when posted
+    // back, for the sampling check and for the delay check (whose horizon includes the delay).
+    // Reference: the cap rule itself, ceil(horizon / Ts) <= MAX_SAMPLE_INTERVALS, evaluated on the parsed advice.
+    @Test
+    void advisedShortestPeriodIsAcceptedWhenPostedBack() {
+        java.util.regex.Pattern advice = java.util.regex.Pattern.compile("use Ts >= ([0-9.eE+-]+) s");
+        for (Double delay : new Double[] {null, 0.01}) {
+            CapExceededException cap = assertThrows(CapExceededException.class, () -> verifier.verify(
+                    IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS, IndexingAxis.performanceOutput(), null,
+                    options(1e-7, false, delay)));
+            java.util.regex.Matcher m = advice.matcher(cap.getMessage());
+            assertTrue(m.find(), cap.getMessage());
+            double advised = Double.parseDouble(m.group(1));
+            RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
+                    IndexingAxis.performanceOutput(), null, options(advised, false, delay));
+            assertNotNull(report.sampled());
+        }
+        // brute force over horizons: the advice fits and is at most one printed unit above horizon / cap
+        java.util.Random random = new java.util.Random(8);
+        for (int i = 0; i < 1000; i++) {
+            double horizon = Math.pow(10, -2 + 5 * random.nextDouble());
+            double advised = RobustnessVerifier.shortestPeriod(horizon);
+            assertTrue(Math.ceil(horizon / advised) <= SampledLoopSimulator.MAX_SAMPLE_INTERVALS, "" + horizon);
+            double exact = horizon / SampledLoopSimulator.MAX_SAMPLE_INTERVALS;
+            assertTrue(advised - exact <= 2 * Math.pow(10, Math.floor(Math.log10(exact)) - 5), "" + horizon);
+        }
+    }
 }

@@ -1,0 +1,45 @@
+package com.loopwright.api.plot;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.loopwright.api.exchange.DesignExchange;
+import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.exchange.Takeaway;
+import com.loopwright.api.exchange.TakeawayExchange;
+import com.loopwright.api.json.StrictJson;
+import java.nio.charset.StandardCharsets;
+import java.util.Locale;
+import org.junit.jupiter.api.Test;
+
+/** The Bode figure states the phase and delay margins that the design's verification reports. */
+class BodeMarginsAgreeTest {
+
+    // Regression (issue 12, item 7): this loop crosses 0 dB at 1.812 and 5.4385 rad/s; the verification reported
+    // phase margin -131.24 deg and delay margin 0, the figure its own (lowest) crossover. Reference values (numpy,
+    // dense grid, and the argument-principle check in FrequencyAnalyzerTest): 114.69 deg at 5.4385 rad/s,
+    // delay margin 0.3681 s.
+    @Test
+    void figureAndVerificationReportTheSameMargins() {
+        String design = "{\"plant\":{\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},"
+                + "\"spec\":{\"overshootPercent\":0.2,\"settlingTime\":1.35},"
+                + "\"verify\":{\"sampling\":{\"samplePeriod\":0.001},\"inputDelay\":0.2}}";
+        Outcome outcome = new DesignExchange(StrictJson.newMapper()).exchange(design.getBytes(StandardCharsets.UTF_8));
+        assertEquals(200, outcome.status(), () -> outcome.body().toString());
+        JsonNode margins = outcome.body().at("/robustness/margins");
+        assertEquals(114.695, margins.at("/phaseMargin").asDouble(), 2e-3);
+        assertEquals(5.43846, margins.at("/crossoverFrequency").asDouble(), 1e-4);
+        assertEquals(0.368081, margins.at("/delayMargin").asDouble(), 1e-5);
+        assertTrue(outcome.body().at("/robustness/delay/withinMargin").asBoolean());
+
+        Takeaway bode = new TakeawayExchange(StrictJson.newMapper()).plot("bode",
+                ("{\"design\":" + design + "}").getBytes(StandardCharsets.UTF_8));
+        assertEquals(200, bode.status());
+        String stated = String.format(Locale.ROOT, "phase margin %.1f deg, delay margin %s s",
+                margins.at("/phaseMargin").asDouble(), DesignFigures.format(margins.at("/delayMargin").asDouble()));
+        assertTrue(bode.body().contains(stated), stated);
+        assertTrue(bode.body().contains("gain crossover " + DesignFigures.format(
+                margins.at("/crossoverFrequency").asDouble()) + " rad/s"));
+    }
+}

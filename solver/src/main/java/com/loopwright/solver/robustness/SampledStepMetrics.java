@@ -1,0 +1,39 @@
+package com.loopwright.solver.robustness;
+
+import com.loopwright.solver.plant.CanonicalPlant;
+import java.util.Optional;
+
+/**
+ * Step metrics of the loop run by a sampled controller with the continuous gains (emulation, zero-order hold, no
+ * clamp): the continuous plant is propagated exactly between samples and observed at and between the sample
+ * instants, over the slow horizon of {@link RobustnessVerifier} ({@value RobustnessVerifier#SLOW_HORIZON_FACTOR}
+ * nominal horizons). The same numbers as the emulated section of a verification at that sample period.
+ * Stateless and thread-safe.
+ */
+public final class SampledStepMetrics {
+
+    private final SampledLoopSimulator simulator = new SampledLoopSimulator();
+
+    /**
+     * @param bandFraction settling band as a fraction of the final value
+     * @return the metrics, or empty when the nominal loop is unstable, the sampled loop diverges, or the horizon
+     *     needs more than the simulator's cap of sample intervals (a period that short behaves as the continuous loop)
+     */
+    public Optional<GridMetrics> measure(CanonicalPlant plant, FeedbackGains gains, double stepSize,
+                                         double samplePeriodSeconds, double bandFraction) {
+        if (!LoopMatrices.stable(plant, gains)) {
+            return Optional.empty();
+        }
+        double horizon = RobustnessVerifier.SLOW_HORIZON_FACTOR * LoopMatrices.horizonSeconds(plant, gains);
+        if (!(Math.ceil(horizon / samplePeriodSeconds) <= SampledLoopSimulator.MAX_SAMPLE_INTERVALS)) {
+            return Optional.empty();
+        }
+        try {
+            DenseTrajectory trajectory = simulator.simulate(plant, gains, stepSize, samplePeriodSeconds, 0, horizon);
+            return Optional.of(GridMetrics.of(trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize,
+                    bandFraction));
+        } catch (IllegalArgumentException e) {
+            return Optional.empty(); // the state overflowed: the sampled loop diverges
+        }
+    }
+}
