@@ -109,17 +109,40 @@ public final class PoleMatchedRiccati {
     /** As {@link #solve(CompanionPlant, double[], double)}; the singular-value condition check is optional. */
     Solution solve(CompanionPlant plant, double[] desired, double inverseGammaSquared, boolean checkCondition) {
         int n = plant.order();
+        return newton(plant, desired, inverseGammaSquared, new DMatrixRMaj(n, n), new double[n], checkCondition,
+                checkCondition);
+    }
+
+    /**
+     * Newton from a given start (a neighbouring solution when a branch is followed in 1/gamma^2); the last
+     * column of the start's P is replaced by the pole-matched one.
+     *
+     * @throws SystemFailure when the Jacobian is singular or Newton does not reach the residual
+     */
+    public Solution solveFrom(CompanionPlant plant, double[] desired, double inverseGammaSquared, Solution start) {
+        return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), false, false);
+    }
+
+    /** As {@link #solveFrom} and reports the reciprocal condition of the first Jacobian (one SVD more). */
+    public Solution solveFromWithCondition(CompanionPlant plant, double[] desired, double inverseGammaSquared,
+                                           Solution start) {
+        return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), true, false);
+    }
+
+    private Solution newton(CompanionPlant plant, double[] desired, double inverseGammaSquared, DMatrixRMaj start,
+                            double[] startWeights, boolean computeCondition, boolean checkCondition) {
+        int n = plant.order();
         int free = n * (n - 1) / 2;
         int unknowns = free + n;
         DMatrixRMaj a = plant.stateMatrix();
         DMatrixRMaj r = quadraticTerm(plant, inverseGammaSquared);
         double[] column = matchedColumn(plant, desired);
-        DMatrixRMaj p = new DMatrixRMaj(n, n);
+        DMatrixRMaj p = start.copy();
         for (int j = 0; j < n; j++) {
             p.set(j, n - 1, column[j]);
             p.set(n - 1, j, column[j]);
         }
-        double[] weights = new double[n];
+        double[] weights = startWeights.clone();
         double reciprocalCondition = Double.NaN;
         int steps = 0;
         double residual = Double.POSITIVE_INFINITY;
@@ -154,9 +177,9 @@ public final class PoleMatchedRiccati {
                     jacobian.set(k, c, jacobian.get(k, c) / scale[c]);
                 }
             }
-            if (iteration == 0 && checkCondition) {
+            if (iteration == 0 && computeCondition) {
                 reciprocalCondition = reciprocalCondition(jacobian);
-                if (!(reciprocalCondition >= MIN_RECIPROCAL_CONDITION)) {
+                if (checkCondition && !(reciprocalCondition >= MIN_RECIPROCAL_CONDITION)) {
                     throw new SystemFailure("the pole-matched Riccati system is singular (reciprocal condition "
                             + reciprocalCondition + ")");
                 }
