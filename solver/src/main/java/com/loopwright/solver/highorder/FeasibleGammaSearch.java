@@ -41,6 +41,8 @@ public final class FeasibleGammaSearch {
     public static final int MAX_CONTINUATION_ATTEMPTS = 1500;
     /** Cap on margin evaluations of one refined interval end. */
     public static final int MAX_REFINEMENT_EVALUATIONS = 80;
+    /** Interval ends are refined to this relative accuracy in mu (half of it in gamma). */
+    static final double REFINEMENT_RELATIVE_ACCURACY = 1e-13;
     /** Cap on branches followed (the one from gamma = infinity plus those found by {@link #seek}). */
     public static final int MAX_BRANCHES = 4;
     /** The scan starts at mu_cap / 10^this (gamma 10^6 above ||T_wu||); below it the next point is mu = 0. */
@@ -561,7 +563,7 @@ public final class FeasibleGammaSearch {
     private double refine(CompanionPlant plant, double[] desired, Point a, Point b, int c, boolean holdsAtA,
                           Counter counter) {
         double fallback = holdsAtA ? a.mu() : b.mu();
-        BracketingNthOrderBrentSolver brent = new BracketingNthOrderBrentSolver(1e-14, 1e-300, 0, 5);
+        BracketingNthOrderBrentSolver brent = new BracketingNthOrderBrentSolver(REFINEMENT_RELATIVE_ACCURACY, Double.MIN_NORMAL, 0, 5);
         try {
             return brent.solve(MAX_REFINEMENT_EVALUATIONS, mu -> {
                 counter.value++;
