@@ -43,6 +43,8 @@ public final class FeasibleGammaSearch {
     public static final int MAX_REFINEMENT_EVALUATIONS = 80;
     /** Interval ends are refined to this relative accuracy in mu (half of it in gamma). */
     static final double REFINEMENT_RELATIVE_ACCURACY = 1e-13;
+    /** Cap on the intervals reported (the lowest ones and the last, highest one are kept). */
+    public static final int MAX_INTERVALS = 64;
     /** Cap on branches followed (the one from gamma = infinity plus those found by {@link #seek}). */
     public static final int MAX_BRANCHES = 4;
     /** The scan starts at mu_cap / 10^this (gamma 10^6 above ||T_wu||); below it the next point is mu = 0. */
@@ -675,6 +677,16 @@ public final class FeasibleGammaSearch {
             } else {
                 union.add(next);
             }
+        }
+        if (union.size() > MAX_INTERVALS) {
+            List<GammaInterval> kept = new ArrayList<>(union.subList(0, MAX_INTERVALS - 1));
+            kept.add(union.get(union.size() - 1));
+            List<String> more = new ArrayList<>(notes);
+            more.add((union.size() - MAX_INTERVALS) + " feasible gamma intervals between "
+                    + String.format("%.6g", kept.get(MAX_INTERVALS - 2).upperGamma()) + " and "
+                    + String.format("%.6g", kept.get(MAX_INTERVALS - 1).lowerGamma()) + " are left out (cap "
+                    + MAX_INTERVALS + ")");
+            return new FeasibleGammaSet(kept, claims, inputGain, evaluations, more, lowestHolding);
         }
         return new FeasibleGammaSet(union, claims, inputGain, evaluations, notes, lowestHolding);
     }
