@@ -39,6 +39,13 @@ public final class FeasibleGammaSearch {
 
     /** Cap on continuation attempts (accepted steps and halvings) along one direction of one branch. */
     public static final int MAX_CONTINUATION_ATTEMPTS = 1500;
+    /**
+     * Cap on Newton solves for continuation and refinement in one search; past it the branch ends and interval
+     * ends stay at the continuation points where the requirement holds (the set only shrinks).
+     */
+    public static final int MAX_SOLVES = 20_000;
+    /** Without a w-to-u gain (K = 0), mu is searched up to (b/|B1|)^2 times this. */
+    static final double FALLBACK_CAP_FACTOR = 1e12;
     /** Cap on margin evaluations of one refined interval end. */
     public static final int MAX_REFINEMENT_EVALUATIONS = 80;
     /** Interval ends are refined to this relative accuracy in mu (half of it in gamma). */
@@ -105,14 +112,15 @@ public final class FeasibleGammaSearch {
      *
      * @param intervals   the checked intervals, disjoint, increasing (their union over all branches)
      * @param claims      each interval with its branch (before the union)
-     * @param inputGain   ||T_wu||, a strict lower bound on every feasible gamma
+     * @param inputGain   ||T_wu||, a strict lower bound on every feasible gamma (0 when K = 0 or not computed)
+     * @param muCap       the largest 1/gamma^2 searched
      * @param evaluations Newton solves spent (continuation, refinement, checks)
      * @param notes       what was dropped or found on another branch, in words
      * @param lowestHolding per requirement (order as in {@link #margins}): the smallest gamma at which it holds
      *                      on a followed branch; infinity when it holds at no finite gamma there
      */
     public record FeasibleGammaSet(List<GammaInterval> intervals, List<Claim> claims, double inputGain,
-                                   int evaluations, List<String> notes, double[] lowestHolding) {
+                                   double muCap, int evaluations, List<String> notes, double[] lowestHolding) {
         public FeasibleGammaSet {
             intervals = List.copyOf(intervals);
             claims = List.copyOf(claims);
@@ -147,8 +155,17 @@ public final class FeasibleGammaSearch {
     /** The feasible set along the branch continued from gamma = infinity. */
     public FeasibleGammaSet search(CompanionPlant plant, double[] desired) {
         Counter counter = new Counter();
-        double inputGain = inputGain(plant, desired);
         List<String> notes = new ArrayList<>();
+        double inputGain;
+        try {
+            inputGain = inputGain(plant, desired);
+        } catch (RuntimeException e) {
+            inputGain = 0;
+            notes.add("the closed-loop gain from w to u could not be computed (" + e.getMessage() + "); gamma was"
+                    + " searched down to |B1|/b x 10^-6");
+        }
+        double muCap = inputGain > 0 ? muCap(inputGain)
+                : FALLBACK_CAP_FACTOR * Math.pow(plant.b() / HighOrderDesigner.norm(plant.disturbance()), 2);
         List<Claim> claims = new ArrayList<>();
         PoleMatchedRiccati.Solution atInfinity;
         try {
@@ -156,14 +173,14 @@ public final class FeasibleGammaSearch {
             counter.value++;
         } catch (PoleMatchedRiccati.SystemFailure e) {
             notes.add("the pole-matched Riccati system at gamma = infinity is singular: " + e.getMessage());
-            return new FeasibleGammaSet(List.of(), List.of(), inputGain, counter.value, notes,
+            return new FeasibleGammaSet(List.of(), List.of(), inputGain, muCap, counter.value, notes,
                     infinities(plant.order() + 2));
         }
         Point origin = point(plant, 0, atInfinity);
-        Branch principal = follow(plant, desired, origin, inputGain, counter);
+        Branch principal = follow(plant, desired, origin, muCap, counter);
         double[] lowestHolding = infinities(plant.order() + 2);
         claims.addAll(checkedClaims(plant, desired, principal, counter, notes, lowestHolding));
-        return assemble(claims, inputGain, counter.value, notes, lowestHolding);
+        return assemble(claims, inputGain, muCap, counter.value, notes, lowestHolding);
     }
 
     /**
@@ -202,7 +219,7 @@ public final class FeasibleGammaSearch {
             if (!allHold(seed.margins()) || onKnownBranch(plant, desired, set, seed, counter)) {
                 continue;
             }
-            Branch branch = followBothWays(plant, desired, seed, set.inputGain(), counter);
+            Branch branch = followBothWays(plant, desired, seed, set.muCap(), counter);
             List<String> notes = new ArrayList<>(set.notes());
             double[] lowestHolding = set.lowestHolding();
             List<Claim> found = checkedClaims(plant, desired, branch, counter, notes, lowestHolding);
@@ -212,7 +229,7 @@ public final class FeasibleGammaSearch {
                         + " its intervals are part of the feasible set", gamma));
                 List<Claim> claims = new ArrayList<>(set.claims());
                 claims.addAll(found);
-                return assemble(claims, set.inputGain(), counter.value, notes, lowestHolding);
+                return assemble(claims, set.inputGain(), set.muCap(), counter.value, notes, lowestHolding);
             }
         }
         return set;
@@ -284,8 +301,7 @@ public final class FeasibleGammaSearch {
     }
 
     /** From the solution at mu = 0 up to mu_cap. */
-    private Branch follow(CompanionPlant plant, double[] desired, Point origin, double inputGain, Counter counter) {
-        double cap = muCap(inputGain);
+    private Branch follow(CompanionPlant plant, double[] desired, Point origin, double cap, Counter counter) {
         List<Point> points = new ArrayList<>();
         points.add(origin);
         if (!Double.isFinite(cap)) {
@@ -302,9 +318,8 @@ public final class FeasibleGammaSearch {
     }
 
     /** From a seed at mu &gt; 0 down to mu = 0 and up to mu_cap. */
-    private Branch followBothWays(CompanionPlant plant, double[] desired, Point seed, double inputGain,
+    private Branch followBothWays(CompanionPlant plant, double[] desired, Point seed, double cap,
                                   Counter counter) {
-        double cap = muCap(inputGain);
         List<Point> down = new ArrayList<>();
         double floor = cap * Math.pow(10, -SCAN_DECADES);
         boolean reachedFloor = seed.mu() <= floor
@@ -371,6 +386,9 @@ public final class FeasibleGammaSearch {
                        Counter counter) {
         PoleMatchedRiccati.Solution prediction = before == null ? last.solution()
                 : blend(before.solution(), last.solution(), (mu - before.mu()) / (last.mu() - before.mu()));
+        if (counter.value >= MAX_SOLVES) {
+            return null;
+        }
         PoleMatchedRiccati.Solution next;
         try {
             counter.value++;
@@ -565,6 +583,9 @@ public final class FeasibleGammaSearch {
     private double refine(CompanionPlant plant, double[] desired, Point a, Point b, int c, boolean holdsAtA,
                           Counter counter) {
         double fallback = holdsAtA ? a.mu() : b.mu();
+        if (counter.value >= MAX_SOLVES) {
+            return fallback;
+        }
         BracketingNthOrderBrentSolver brent = new BracketingNthOrderBrentSolver(REFINEMENT_RELATIVE_ACCURACY, Double.MIN_NORMAL, 0, 5);
         try {
             return brent.solve(MAX_REFINEMENT_EVALUATIONS, mu -> {
@@ -662,7 +683,7 @@ public final class FeasibleGammaSearch {
         return values;
     }
 
-    private static FeasibleGammaSet assemble(List<Claim> claims, double inputGain, int evaluations,
+    private static FeasibleGammaSet assemble(List<Claim> claims, double inputGain, double muCap, int evaluations,
                                              List<String> notes, double[] lowestHolding) {
         List<GammaInterval> sorted = claims.stream().map(Claim::interval)
                 .sorted(Comparator.comparingDouble(GammaInterval::lowerGamma)).toList();
@@ -686,8 +707,8 @@ public final class FeasibleGammaSearch {
                     + String.format("%.6g", kept.get(MAX_INTERVALS - 2).upperGamma()) + " and "
                     + String.format("%.6g", kept.get(MAX_INTERVALS - 1).lowerGamma()) + " are left out (cap "
                     + MAX_INTERVALS + ")");
-            return new FeasibleGammaSet(kept, claims, inputGain, evaluations, more, lowestHolding);
+            return new FeasibleGammaSet(kept, claims, inputGain, muCap, evaluations, more, lowestHolding);
         }
-        return new FeasibleGammaSet(union, claims, inputGain, evaluations, notes, lowestHolding);
+        return new FeasibleGammaSet(union, claims, inputGain, muCap, evaluations, notes, lowestHolding);
     }
 }

@@ -126,9 +126,10 @@ public final class HighOrderDesigner {
             }
         }
         boolean lowDamping = poles.dominant().dampingRatio() < 1 / Math.sqrt(2);
-        String reason = String.format("no gamma meets every Riccati requirement for these closed-loop poles"
-                + " (searched from gamma = infinity down to the disturbance-to-u gain %.6g)%s; the ", set.inputGain(),
-                failing)
+        String searched = set.inputGain() > 0 ? String.format(" (searched from gamma = infinity down to the"
+                + " closed-loop gain from w to u, %.6g)", set.inputGain()) : "";
+        String reason = "no gamma meets every Riccati requirement for these closed-loop poles" + searched + failing
+                + "; the "
                 + (lowDamping ? "dominant damping ratio " + String.format("%.4g", poles.dominant().dampingRatio())
                 + " is below 1/sqrt(2): lower the overshoot"
                 : "requested poles are not reachable by this weighting: ask for faster settling or move"
