@@ -74,6 +74,31 @@ class HighOrderEndpointTest extends LiveServerTest {
         assertEquals(design.get("gammaMin").asDouble(), design.at("/gammaIntervals/0/lower").asDouble());
     }
 
+    /**
+     * Issue 12 item 4: a requirement fails at gamma = infinity, which the old code took for "no gamma at all";
+     * the issue's check found rho = [2.8685, 0.47929, 1.0706, 0.10449, 0.0061446] and norm 284.3 at gamma 300.
+     */
+    @Test
+    void boundedFeasibleSetAcceptsGammaThreeHundred() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[-4664.394958744662,10563.774241076499,"
+                + "4285.479299120085,580.1103571483848,35.17298130085375],\"b\":4981.713964800213,"
+                + "\"numerator\":[1.0,0.42082210235868306,0,0,0],\"disturbance\":[-87.57057439775919,222.93044269608208,"
+                + "-920.389020662208,8698.501577157102,-28721.24165932483]},\"spec\":{\"settlingTime\":2.055015615852868,"
+                + "\"overshootPercent\":0.3424922914388982,\"settlingBandPercent\":5,\"gamma\":300},"
+                + "\"auxiliaryPoles\":{\"poles\":[{\"re\":-15.945617686966436,\"im\":0},{\"re\":-21.564618342946243,"
+                + "\"im\":0},{\"re\":-17.05786188395355,\"im\":0}]}}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode design = reply.json();
+        assertEquals(2.8685, design.at("/weights/0").asDouble(), 1e-4);
+        assertEquals(0.0061446, design.at("/weights/4").asDouble(), 1e-7);
+        assertEquals(284.3, design.at("/verification/hinfNorm").asDouble(), 0.1);
+        assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
+        JsonNode only = design.at("/gammaIntervals/0");
+        assertFalse(only.get("unbounded").asBoolean());
+        assertTrue(only.get("lower").asDouble() < 300 && only.get("upper").asDouble() > 300, only.toString());
+        assertEquals("weight_real", only.at("/upperBinding/condition").asText());
+    }
+
     /** Issue 12 item 3: 1.001 x the old gamma_min 892911.6 is outside the feasible set: 422 at /spec/gamma. */
     @Test
     void gammaOutsideTheFeasibleSetIsA422NamingTheIntervals() {
