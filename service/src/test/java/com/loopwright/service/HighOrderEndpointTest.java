@@ -49,6 +49,71 @@ class HighOrderEndpointTest extends LiveServerTest {
                 1e-12 * closed.at("/weights/rho2").asDouble());
     }
 
+    /**
+     * Issue 12 item 2 end to end: gamma 9 was refused as "not above gamma_min 11.1542", yet the issue's independent
+     * check found rho = [373.38, 711.45, 69.344, 21.700, 2.1429] and a closed-loop norm 8.994 at gamma 9.
+     */
+    @Test
+    void unmatchedDisturbanceAcceptsGammaNine() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[116.18020871989592,143.70716638812533,"
+                + "88.57936923160051,30.503422892081126,7.383026668401097],\"b\":9.239987350768951,"
+                + "\"numerator\":[1.0,-0.07477891545821842,0,0,0],\"disturbance\":[-0.011479745058412868,"
+                + "0.005237289926014479,-0.09520698703810945,-0.01578820225853452,-0.03225289088209848]},"
+                + "\"spec\":{\"settlingTime\":1.1425650820161488,\"overshootPercent\":1.8545524264102118,"
+                + "\"settlingBandPercent\":5,\"gamma\":9},\"matchSpecs\":true}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode design = reply.json();
+        assertEquals(9, design.get("gamma").asDouble());
+        assertEquals(373.38, design.at("/weights/0").asDouble(), 0.01);
+        assertEquals(2.1429, design.at("/weights/4").asDouble(), 1e-4);
+        assertEquals(8.994, design.at("/verification/hinfNorm").asDouble(), 1e-3);
+        assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
+        JsonNode last = design.get("gammaIntervals").get(design.get("gammaIntervals").size() - 1);
+        assertTrue(last.get("unbounded").asBoolean());
+        assertFalse(last.has("upper"), "no number stands for infinity: " + last);
+        assertEquals(design.get("gammaMin").asDouble(), design.at("/gammaIntervals/0/lower").asDouble());
+    }
+
+    /**
+     * Issue 12 item 4: a requirement fails at gamma = infinity, which the old code took for "no gamma at all";
+     * the issue's check found rho = [2.8685, 0.47929, 1.0706, 0.10449, 0.0061446] and norm 284.3 at gamma 300.
+     */
+    @Test
+    void boundedFeasibleSetAcceptsGammaThreeHundred() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[-4664.394958744662,10563.774241076499,"
+                + "4285.479299120085,580.1103571483848,35.17298130085375],\"b\":4981.713964800213,"
+                + "\"numerator\":[1.0,0.42082210235868306,0,0,0],\"disturbance\":[-87.57057439775919,222.93044269608208,"
+                + "-920.389020662208,8698.501577157102,-28721.24165932483]},\"spec\":{\"settlingTime\":2.055015615852868,"
+                + "\"overshootPercent\":0.3424922914388982,\"settlingBandPercent\":5,\"gamma\":300},"
+                + "\"auxiliaryPoles\":{\"poles\":[{\"re\":-15.945617686966436,\"im\":0},{\"re\":-21.564618342946243,"
+                + "\"im\":0},{\"re\":-17.05786188395355,\"im\":0}]}}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode design = reply.json();
+        assertEquals(2.8685, design.at("/weights/0").asDouble(), 1e-4);
+        assertEquals(0.0061446, design.at("/weights/4").asDouble(), 1e-7);
+        assertEquals(284.3, design.at("/verification/hinfNorm").asDouble(), 0.1);
+        assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
+        JsonNode only = design.at("/gammaIntervals/0");
+        assertFalse(only.get("unbounded").asBoolean());
+        assertTrue(only.get("lower").asDouble() < 300 && only.get("upper").asDouble() > 300, only.toString());
+        assertEquals("weight_real", only.at("/upperBinding/condition").asText());
+    }
+
+    /** Issue 12 item 3: 1.001 x the old gamma_min 892911.6 is outside the feasible set: 422 at /spec/gamma. */
+    @Test
+    void gammaOutsideTheFeasibleSetIsA422NamingTheIntervals() {
+        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[0.0,24.97941139170825,"
+                + "134.5277526057287,169.3013746965912,123.65431526377886,38.52871463226239,8.882909324515014],"
+                + "\"b\":0.04324120581504016,\"disturbance\":[7.7270514615083,-4.699242623990899,6.92906458125667,"
+                + "1.7780545876755274,-1.5050091596285124,-4.120016176140748,5.0987200947974]},"
+                + "\"spec\":{\"settlingTime\":4.27809291643725,\"overshootPercent\":5.483595520321292,"
+                + "\"gamma\":893804.5},\"matchSpecs\":true}");
+        assertEquals(422, reply.status(), reply.text());
+        assertEquals("/spec/gamma", reply.json().at("/errors/0/pointer").asText());
+        assertTrue(reply.json().get("detail").asText().contains("outside the feasible gamma set ("), reply.text());
+        assertTrue(reply.json().get("detail").asText().contains("infinity)"), reply.text());
+    }
+
     /** A zero at +2 1/s with 0.5 s settling forces 57% undershoot (bound (1 - delta)/(e^{z ts} - 1), from memory). */
     @Test
     void rightHalfPlaneZeroIsA422NamingTheSettlingTime() {

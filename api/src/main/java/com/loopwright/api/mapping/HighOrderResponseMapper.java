@@ -5,6 +5,7 @@ import com.loopwright.api.response.DesignResponse;
 import com.loopwright.api.response.HighOrderDesignResponse;
 import com.loopwright.solver.highorder.ClosedLoopStep;
 import com.loopwright.solver.highorder.CompanionTransform;
+import com.loopwright.solver.highorder.GammaInterval;
 import com.loopwright.solver.highorder.HighOrderDesign;
 import com.loopwright.solver.highorder.HighOrderGammaBound;
 import com.loopwright.solver.highorder.HighOrderVerification;
@@ -25,6 +26,9 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
 
 /** Solver results of a high-order design to the response records. */
 public final class HighOrderResponseMapper {
+
+    /** Notes from the gamma search passed on (the response carries at most 16 notes in all). */
+    static final int MAX_DESIGN_NOTES = 12;
 
     public HighOrderDesignResponse toResponse(ValidatedHighOrderDesign input, CompanionTransform.Result transform,
                                               SpecMatch match, HighOrderDesign design,
@@ -67,6 +71,7 @@ public final class HighOrderResponseMapper {
             notes.add("the zeros and auxiliary poles move the simulated step away from the second-order formulas;"
                     + " send matchSpecs: true to adjust the dominant pair until the simulated loop meets the specs.");
         }
+        design.notes().stream().limit(MAX_DESIGN_NOTES).forEach(notes::add);
         if (transform != null) {
             notes.add("the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
                     + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain on x.");
@@ -87,7 +92,8 @@ public final class HighOrderResponseMapper {
                         design.solution().reciprocalCondition(), design.solution().newtonSteps(),
                         design.bisectionSteps(), verification.relativeDifference(),
                         verification.numeric().relativeResidual(), verification.numeric().iterations()),
-                bounds, design.gammaMin(), design.gamma(), boxed(design.weights()),
+                bounds, design.feasibleSet().stream().map(HighOrderResponseMapper::interval).toList(),
+                design.gammaMin(), design.gamma(), boxed(design.weights()),
                 new HighOrderDesignResponse.Gain(boxed(design.gain()), design.referenceGain()),
                 new HighOrderDesignResponse.Simulated(step.metrics().riseTimeSeconds(),
                         step.metrics().settlingTimeSeconds(), step.metrics().overshootPercent(),
@@ -127,6 +133,16 @@ public final class HighOrderResponseMapper {
     private static HighOrderDesignResponse.Bound bound(HighOrderGammaBound b) {
         return new HighOrderDesignResponse.Bound(b.condition().name().toLowerCase(), b.stateIndex(), b.meaning(),
                 b.gammaLowerBound(), b.binding());
+    }
+
+    private static HighOrderDesignResponse.GammaInterval interval(GammaInterval i) {
+        return new HighOrderDesignResponse.GammaInterval(i.lowerGamma(), i.unbounded() ? null : i.upperGamma(),
+                i.unbounded(), end(i.lowerBinding()), i.unbounded() ? null : end(i.upperBinding()));
+    }
+
+    private static HighOrderDesignResponse.IntervalEnd end(GammaInterval.GammaEnd end) {
+        return new HighOrderDesignResponse.IntervalEnd(end.condition().name().toLowerCase(), end.stateIndex(),
+                end.meaning());
     }
 
     private static List<DesignResponse.PoleView> poles(List<TargetDynamics.Pole> poles) {

@@ -9,12 +9,14 @@ import java.util.List;
  * z_perf = [rho_1 z_1, ..., rho_n z_n, u].
  */
 public record HighOrderDesignResponse(int order, Coordinates coordinates, Target target, SpecMatching specMatching, Riccati riccati,
-                                      List<Bound> gammaBounds, double gammaMin, double gamma, List<Double> weights,
+                                      List<Bound> gammaBounds, List<GammaInterval> gammaIntervals, double gammaMin,
+                                      double gamma, List<Double> weights,
                                       Gain gain, Simulated simulated, Verification verification,
                                       List<String> notes, List<String> cautions) {
 
     public HighOrderDesignResponse {
         gammaBounds = List.copyOf(gammaBounds);
+        gammaIntervals = List.copyOf(gammaIntervals);
         weights = List.copyOf(weights);
         notes = List.copyOf(notes);
         cautions = List.copyOf(cautions);
@@ -53,6 +55,19 @@ public record HighOrderDesignResponse(int order, Coordinates coordinates, Target
 
     /** One lower bound on gamma; state is the 1-based index for a weight condition, else 0. */
     public record Bound(String condition, int state, String meaning, double gammaLowerBound, boolean binding) {
+    }
+
+    /**
+     * One interval of the feasible gamma set: every gamma strictly between lower and upper completes the design.
+     * upper and upperBinding are absent when the interval is unbounded (JSON has no infinity).
+     */
+    @JsonInclude(JsonInclude.Include.NON_NULL)
+    public record GammaInterval(double lower, Double upper, boolean unbounded, IntervalEnd lowerBinding,
+                                IntervalEnd upperBinding) {
+    }
+
+    /** What ends an interval: a requirement (state is the 1-based index for a weight, else 0) or a search limit. */
+    public record IntervalEnd(String condition, int state, String meaning) {
     }
 
     /** u = referenceGain r - sum k_j z_j. */

@@ -35,6 +35,7 @@ final class GoldenCases {
         g.controllers();
         g.plainResources();
         g.keyed();
+        g.extremes();
         return List.copyOf(g.cases);
     }
 
@@ -496,6 +497,20 @@ final class GoldenCases {
         cases.add(new GoldenCase("put-design-method", GoldenCase.OPEN, "PUT", "/v1/designs", "application/json", AXIS,
                 Map.of()));
         cases.add(new GoldenCase("delete-health", GoldenCase.OPEN, "DELETE", "/health", null, null, Map.of()));
+    }
+
+    /** Coefficients at the ends of their ranges, where double precision runs out. */
+    private void extremes() {
+        design("extreme-00", "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
+        design("extreme-01", "{\"plant\":{\"a0\":-1e8,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":1}}");
+        design("extreme-02", "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
+        design("extreme-03", "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e-8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":0.001}}");
+        post("verification-extreme-00", "/v1/verifications", "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e8},"
+                + "\"gain\":{\"k1\":1e12,\"k2\":1e12,\"referenceGain\":1e12}}");
+        post("verification-extreme-01", "/v1/verifications", "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},"
+                + "\"gain\":{\"k1\":1e-12,\"k2\":1e-12,\"referenceGain\":1e12}}");
+        post("high-order-extreme-00", "/v1/designs/high-order", "{\"plant\":{\"denominator\":[1e8,1e8,1e8,1e8,1e8,1e8,1e8,1e8],"
+                + "\"b\":1e-6,\"disturbance\":[1e8,0,0,0,0,0,0,1e8]},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
     }
 
     private void get(String id, String path) {

@@ -12,16 +12,20 @@ import org.ejml.data.DMatrixRMaj;
  * @param poles       the requested closed-loop poles
  * @param solution    P and rho_i^2 at gamma, from the pole-matched Riccati system
  * @param gammaBounds one bound per requirement
- * @param gammaMin    the largest bound
- * @param gamma       the chosen gamma
- * @param bisectionSteps total bisection steps spent on the bounds
+ * @param feasibleSet the feasible gamma set, disjoint intervals in increasing order
+ * @param gammaMin    its infimum
+ * @param gamma       the chosen gamma, inside the set
+ * @param bisectionSteps Newton solves spent on the feasible set (continuation, refinement of the ends, checks)
+ * @param notes       how gamma was chosen when not by the plain rule, intervals left out, other branches
  */
 public record HighOrderDesign(CompanionPlant plant, DesiredPoles poles, PoleMatchedRiccati.Solution solution,
-                              List<HighOrderGammaBound> gammaBounds, double gammaMin, double gamma,
-                              int bisectionSteps) {
+                              List<HighOrderGammaBound> gammaBounds, List<GammaInterval> feasibleSet,
+                              double gammaMin, double gamma, int bisectionSteps, List<String> notes) {
 
     public HighOrderDesign {
         gammaBounds = List.copyOf(gammaBounds);
+        feasibleSet = List.copyOf(feasibleSet);
+        notes = List.copyOf(notes);
     }
 
     /** K = b (last row of P), in companion coordinates. */

@@ -14,25 +14,14 @@ import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 
 /**
- * Pole-matched H-infinity design of order n: for each requirement (rho_i^2 &gt;= 0, P &gt; 0, stabilizing) the
- * smallest gamma above which it holds is found by bisection on u = 1/gamma^2 from u = 0 (gamma = infinity),
- * where every requirement must hold for a design to exist. The bisection takes each requirement, once lost as
- * gamma decreases, to stay lost (true in closed form for n = 2); the chosen gamma is checked again directly.
+ * Pole-matched H-infinity design of order n. The feasible gamma set, a union of intervals, comes from
+ * {@link FeasibleGammaSearch} (continuation in 1/gamma^2 from gamma = infinity, ends refined by a bracketing
+ * solver, every interval checked by the Hamiltonian Riccati solver); no requirement is assumed monotone in gamma.
+ * A requested gamma outside the set gets a search for another solution branch through it before it is refused.
  */
 public final class HighOrderDesigner {
 
-    /** Cap on the doublings or halvings of u that bracket one bound. */
-    public static final int MAX_BRACKET_STEPS = 200;
-    /** Cap on the bisection steps of one bound (the bracket shrinks to rounding well before). */
-    public static final int MAX_BISECTION_STEPS = 200;
-    /** Bounds within this relative distance of gamma_min are reported as binding. */
-    static final double BINDING_TOLERANCE = 1e-9;
-    /** The scan starts at u = (|B1|/b)^2 / 2^this, i.e. gamma 2^20 above the disturbance-to-input ratio. */
-    static final int SCAN_OCTAVES_BELOW = 40;
-    /** Bisection stops when the bracket on u is this narrow, relative. */
-    static final double BISECTION_RELATIVE_WIDTH = 1e-15;
-
-    private final PoleMatchedRiccati riccati = new PoleMatchedRiccati();
+    private final FeasibleGammaSearch search = new FeasibleGammaSearch();
 
     public HighOrderDesign design(CompanionPlant plant, DesiredPoles poles, GammaChoice choice) {
         if (poles.order() != plant.order()) {
@@ -40,107 +29,129 @@ public final class HighOrderDesigner {
         }
         double[] desired = poles.coefficients();
         int conditions = plant.order() + 2;
-        boolean[] atInfinity = holds(plant, desired, 0);
-        for (int c = 0; c < conditions; c++) {
-            if (!atInfinity[c]) {
-                String reason = "no gamma meets the requirement '" + condition(c, plant).meaning(index(c, plant))
-                        + "' for these closed-loop poles, not even gamma = infinity; the "
-                        + (poles.dominant().dampingRatio() < 1 / Math.sqrt(2)
-                        ? "dominant damping ratio " + String.format("%.4g", poles.dominant().dampingRatio())
-                        + " is below 1/sqrt(2): lower the overshoot"
-                        : "requested poles are not reachable by this weighting: ask for faster settling or move"
-                        + " the auxiliary poles");
-                throw new InfeasibleDesignException(new Infeasibility(
-                        poles.dominant().dampingRatio() < 1 / Math.sqrt(2) ? SpecQuantity.OVERSHOOT_PERCENT
-                                : SpecQuantity.TIME_SPEC, reason, List.of()));
-            }
-        }
-        double[] bounds = new double[conditions];
-        int steps = 0;
-        // Scan u = 1/gamma^2 upward on a geometric grid from far above gamma's scale down to the first failure of
-        // each requirement, then bisect that bracket.
-        double scale = Math.pow(norm(plant.disturbance()) / plant.b(), 2);
-        double[] lastHold = new double[conditions];
-        double[] firstFail = new double[conditions];
-        java.util.Arrays.fill(firstFail, Double.POSITIVE_INFINITY);
-        double probe = scale * Math.pow(2, -SCAN_OCTAVES_BELOW);
-        int open = conditions;
-        for (int i = 0; i < MAX_BRACKET_STEPS && open > 0 && Double.isFinite(probe); i++, probe *= 2) {
-            boolean[] h = holds(plant, desired, probe);
-            steps++;
-            for (int c = 0; c < conditions; c++) {
-                if (firstFail[c] == Double.POSITIVE_INFINITY) {
-                    if (h[c]) {
-                        lastHold[c] = probe;
-                    } else {
-                        firstFail[c] = probe;
-                        open--;
-                    }
-                }
-            }
-        }
-        for (int c = 0; c < conditions; c++) {
-            if (firstFail[c] == Double.POSITIVE_INFINITY) {
-                bounds[c] = 0;
-                continue;
-            }
-            double lo = lastHold[c];
-            double hi = firstFail[c];
-            for (int i = 0; i < MAX_BISECTION_STEPS && hi - lo > BISECTION_RELATIVE_WIDTH * hi; i++) {
-                double mid = 0.5 * (lo + hi);
-                if (holds(plant, desired, mid)[c]) {
-                    lo = mid;
-                } else {
-                    hi = mid;
-                }
-                steps++;
-            }
-            bounds[c] = 1 / Math.sqrt(0.5 * (lo + hi));
-        }
-        double gammaMin = 0;
-        for (double bound : bounds) {
-            gammaMin = Math.max(gammaMin, bound);
-        }
-        List<HighOrderGammaBound> list = new ArrayList<>(conditions);
-        for (int c = 0; c < conditions; c++) {
-            list.add(new HighOrderGammaBound(condition(c, plant), index(c, plant), bounds[c],
-                    bounds[c] >= gammaMin * (1 - BINDING_TOLERANCE)));
-        }
+        FeasibleGammaSearch.FeasibleGammaSet set = search.search(plant, desired);
+        List<String> notes = new ArrayList<>();
         double gamma;
         if (choice instanceof GammaChoice.Fixed fixed) {
             gamma = fixed.gamma();
-            if (!(gamma > gammaMin)) {
+            if (!set.contains(gamma)) {
+                set = search.seek(plant, desired, set, gamma);
+            }
+            if (set.isEmpty()) {
+                throw noGamma(plant, desired, poles, set);
+            }
+            if (!set.contains(gamma)) {
                 throw new InfeasibleDesignException(new Infeasibility(SpecQuantity.GAMMA, String.format(
-                        "gamma %.6g is not above gamma_min %.6g: some Riccati requirement fails at this gamma",
-                        gamma, gammaMin), List.of(new SpecProposal(SpecQuantity.GAMMA,
-                        gammaMin * GammaChoice.MarginOverMinimum.DEFAULT_FACTOR,
-                        "the default margin of 1.2 over gamma_min"))));
+                        "gamma %.6g is outside the feasible gamma set %s: some Riccati requirement fails at this"
+                                + " gamma", gamma, describe(set.intervals())),
+                        List.of(new SpecProposal(SpecQuantity.GAMMA, defaultGamma(set, 
+                                GammaChoice.MarginOverMinimum.DEFAULT_FACTOR, new ArrayList<>()),
+                                "the default choice: 1.2 x gamma_min, or the middle of the lowest interval when"
+                                        + " that falls in a gap"))));
             }
         } else {
-            gamma = gammaMin * ((GammaChoice.MarginOverMinimum) choice).factor();
+            if (set.isEmpty()) {
+                throw noGamma(plant, desired, poles, set);
+            }
+            gamma = defaultGamma(set, ((GammaChoice.MarginOverMinimum) choice).factor(), notes);
         }
-        double u = gamma > 0 ? 1 / (gamma * gamma) : 0;
-        boolean[] atGamma = holds(plant, desired, u);
+        notes.addAll(set.notes());
+        double u = 1 / (gamma * gamma);
+        PoleMatchedRiccati.Solution solution = search.solutionAt(plant, desired, set, gamma);
+        double[] margins = FeasibleGammaSearch.margins(plant, u, solution);
         for (int c = 0; c < conditions; c++) {
-            if (!atGamma[c]) {
-                throw new PoleMatchedRiccati.SystemFailure("the requirement '" + condition(c, plant).meaning(index(c, plant))
-                        + "' fails at the chosen gamma " + gamma + " although its bisected bound is "
-                        + bounds[c] + ": the requirement is not monotone in gamma here");
+            if (!FeasibleGammaSearch.holds(c, margins[c], plant.order())) {
+                throw new PoleMatchedRiccati.SystemFailure("the requirement '"
+                        + condition(c, plant).meaning(index(c, plant)) + "' fails at the chosen gamma " + gamma
+                        + " inside the checked feasible interval");
             }
         }
-        return new HighOrderDesign(plant, poles, riccati.solve(plant, desired, u), list, gammaMin, gamma, steps);
+        double gammaMin = set.gammaMin();
+        GammaInterval.GammaEnd binding = set.intervals().get(0).lowerBinding();
+        double[] lowest = set.lowestHolding();
+        List<HighOrderGammaBound> list = new ArrayList<>(conditions);
+        for (int c = 0; c < conditions; c++) {
+            HighOrderCondition condition = condition(c, plant);
+            int index = index(c, plant);
+            list.add(new HighOrderGammaBound(condition, index, Math.min(lowest[c], gammaMin),
+                    binding.condition() == condition && binding.stateIndex() == index));
+        }
+        return new HighOrderDesign(plant, poles, solution, list, set.intervals(), gammaMin, gamma,
+                set.evaluations(), notes);
     }
 
     /**
-     * Which requirements hold at u = 1/gamma^2: entries 0..n-1 are rho_i^2 &gt;= 0, n is P &gt; 0, n + 1 is
-     * stabilizing. A system that cannot be solved fails every requirement.
+     * margin x gamma_min when it lies in the set; else (it falls in a gap above a bounded lowest interval) the
+     * geometric middle of the lowest interval, with a note saying so.
+     */
+    static double defaultGamma(FeasibleGammaSearch.FeasibleGammaSet set, double margin, List<String> notes) {
+        double gamma = margin * set.gammaMin();
+        if (set.contains(gamma)) {
+            return gamma;
+        }
+        GammaInterval lowest = set.intervals().get(0);
+        double middle = Math.sqrt(lowest.lowerGamma() * lowest.upperGamma());
+        notes.add(String.format("%.6g x gamma_min = %.6g falls in a gap of the feasible gamma set %s; gamma is"
+                        + " the geometric middle of the lowest interval instead", margin, gamma,
+                describe(set.intervals())));
+        return middle;
+    }
+
+    /** The intervals in words, e.g. (1.5, 2.25) and (3, infinity). */
+    static String describe(List<GammaInterval> intervals) {
+        if (intervals.isEmpty()) {
+            return "(empty)";
+        }
+        StringBuilder text = new StringBuilder();
+        for (int i = 0; i < intervals.size(); i++) {
+            GammaInterval interval = intervals.get(i);
+            if (i > 0) {
+                text.append(i + 1 == intervals.size() ? " and " : ", ");
+            }
+            text.append(String.format("(%.6g, %s)", interval.lowerGamma(),
+                    interval.unbounded() ? "infinity" : String.format("%.6g", interval.upperGamma())));
+        }
+        return text.toString();
+    }
+
+    private InfeasibleDesignException noGamma(CompanionPlant plant, double[] desired, DesiredPoles poles,
+                                              FeasibleGammaSearch.FeasibleGammaSet set) {
+        boolean[] atInfinity = holds(plant, desired, 0);
+        String failing = "";
+        for (int c = 0; c < atInfinity.length; c++) {
+            if (!atInfinity[c]) {
+                failing = "; at gamma = infinity the requirement '" + condition(c, plant).meaning(index(c, plant))
+                        + "' fails";
+                break;
+            }
+        }
+        boolean lowDamping = poles.dominant().dampingRatio() < 1 / Math.sqrt(2);
+        String searched = set.inputGain() > 0 ? String.format(" (searched from gamma = infinity down to the"
+                + " closed-loop gain from w to u, %.6g)", set.inputGain()) : "";
+        String reason = "no gamma meets every Riccati requirement for these closed-loop poles" + searched + failing
+                + "; the "
+                + (lowDamping ? "dominant damping ratio " + String.format("%.4g", poles.dominant().dampingRatio())
+                + " is below 1/sqrt(2): lower the overshoot"
+                : "requested poles are not reachable by this weighting: ask for faster settling or move"
+                + " the auxiliary poles");
+        if (!set.notes().isEmpty()) {
+            reason += " (" + String.join("; ", set.notes()) + ")";
+        }
+        return new InfeasibleDesignException(new Infeasibility(
+                lowDamping ? SpecQuantity.OVERSHOOT_PERCENT : SpecQuantity.TIME_SPEC, reason, List.of()));
+    }
+
+    /**
+     * Which requirements hold at u = 1/gamma^2 for the solution Newton reaches from a zero leading block (at
+     * u = 0 the unique one): entries 0..n-1 are rho_i^2 &gt;= 0, n is P &gt; 0, n + 1 is stabilizing. A system
+     * that cannot be solved fails every requirement.
      */
     public boolean[] holds(CompanionPlant plant, double[] desired, double inverseGammaSquared) {
         int n = plant.order();
         boolean[] result = new boolean[n + 2];
         PoleMatchedRiccati.Solution solution;
         try {
-            solution = riccati.solve(plant, desired, inverseGammaSquared, false);
+            solution = new PoleMatchedRiccati().solve(plant, desired, inverseGammaSquared, false);
         } catch (PoleMatchedRiccati.SystemFailure | IllegalArgumentException e) {
             return result;
         }

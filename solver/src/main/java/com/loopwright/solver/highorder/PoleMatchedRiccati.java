@@ -109,29 +109,51 @@ public final class PoleMatchedRiccati {
     /** As {@link #solve(CompanionPlant, double[], double)}; the singular-value condition check is optional. */
     Solution solve(CompanionPlant plant, double[] desired, double inverseGammaSquared, boolean checkCondition) {
         int n = plant.order();
+        return newton(plant, desired, inverseGammaSquared, new DMatrixRMaj(n, n), new double[n], checkCondition,
+                checkCondition);
+    }
+
+    /**
+     * Newton from a given start (a neighbouring solution when a branch is followed in 1/gamma^2); the last
+     * column of the start's P is replaced by the pole-matched one.
+     *
+     * @throws SystemFailure when the Jacobian is singular or Newton does not reach the residual
+     */
+    public Solution solveFrom(CompanionPlant plant, double[] desired, double inverseGammaSquared, Solution start) {
+        return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), false, false);
+    }
+
+    /** As {@link #solveFrom} and reports the reciprocal condition of the first Jacobian (one SVD more). */
+    public Solution solveFromWithCondition(CompanionPlant plant, double[] desired, double inverseGammaSquared,
+                                           Solution start) {
+        return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), true, false);
+    }
+
+    private Solution newton(CompanionPlant plant, double[] desired, double inverseGammaSquared, DMatrixRMaj start,
+                            double[] startWeights, boolean computeCondition, boolean checkCondition) {
+        int n = plant.order();
         int free = n * (n - 1) / 2;
         int unknowns = free + n;
         DMatrixRMaj a = plant.stateMatrix();
         DMatrixRMaj r = quadraticTerm(plant, inverseGammaSquared);
         double[] column = matchedColumn(plant, desired);
-        DMatrixRMaj p = new DMatrixRMaj(n, n);
+        DMatrixRMaj p = start.copy();
         for (int j = 0; j < n; j++) {
             p.set(j, n - 1, column[j]);
             p.set(n - 1, j, column[j]);
         }
-        double[] weights = new double[n];
+        double[] weights = startWeights.clone();
         double reciprocalCondition = Double.NaN;
         int steps = 0;
         double residual = Double.POSITIVE_INFINITY;
         for (int iteration = 0; iteration <= MAX_NEWTON_STEPS; iteration++) {
             DMatrixRMaj jacobian = new DMatrixRMaj(unknowns, unknowns);
+            DMatrixRMaj worstCase = a.copy();
+            CommonOps_DDRM.multAdd(r, p, worstCase);
             int col = 0;
             for (int i = 0; i < n - 1; i++) {
                 for (int j = i; j < n - 1; j++) {
-                    DMatrixRMaj e = new DMatrixRMaj(n, n);
-                    e.set(i, j, 1);
-                    e.set(j, i, 1);
-                    putUpper(jacobian, col++, derivative(a, r, p, e));
+                    putUpper(jacobian, col++, derivative(worstCase, i, j));
                 }
             }
             for (int i = 0; i < n; i++) {
@@ -145,18 +167,24 @@ public final class PoleMatchedRiccati {
             // Column scaling: unknowns of very different size (entries of P vs weights) get unit columns.
             double[] scale = new double[unknowns];
             for (int c = 0; c < unknowns; c++) {
-                double norm = 0;
+                double largest = 0;
                 for (int k = 0; k < unknowns; k++) {
-                    norm = Math.hypot(norm, jacobian.get(k, c));
+                    largest = Math.max(largest, Math.abs(jacobian.get(k, c)));
                 }
+                double sum = 0;
+                for (int k = 0; k < unknowns && largest > 0; k++) {
+                    double v = jacobian.get(k, c) / largest;
+                    sum += v * v;
+                }
+                double norm = largest * Math.sqrt(sum);
                 scale[c] = norm > 0 ? norm : 1;
                 for (int k = 0; k < unknowns; k++) {
                     jacobian.set(k, c, jacobian.get(k, c) / scale[c]);
                 }
             }
-            if (iteration == 0 && checkCondition) {
+            if (iteration == 0 && computeCondition) {
                 reciprocalCondition = reciprocalCondition(jacobian);
-                if (!(reciprocalCondition >= MIN_RECIPROCAL_CONDITION)) {
+                if (checkCondition && !(reciprocalCondition >= MIN_RECIPROCAL_CONDITION)) {
                     throw new SystemFailure("the pole-matched Riccati system is singular (reciprocal condition "
                             + reciprocalCondition + ")");
                 }
@@ -204,16 +232,22 @@ public final class PoleMatchedRiccati {
     /** Solutions with a larger relative residual are rejected. */
     public static final double MAX_ACCEPTED_RESIDUAL = 1e-10;
 
-    /** Derivative of A'P + PA + PRP in direction E: A'E + EA + ERP + PRE. */
-    private static DMatrixRMaj derivative(DMatrixRMaj a, DMatrixRMaj r, DMatrixRMaj p, DMatrixRMaj e) {
-        int n = a.numRows;
+    /**
+     * Derivative of A'P + PA + PRP in the direction E = e_i e_j' + e_j e_i' (E = e_i e_i' when i = j): with
+     * F = A + RP it is F'E + EF = G + G', G = F'E, whose column j is row i of F and column i is row j of F.
+     */
+    private static DMatrixRMaj derivative(DMatrixRMaj worstCase, int i, int j) {
+        int n = worstCase.numRows;
+        DMatrixRMaj g = new DMatrixRMaj(n, n);
+        for (int k = 0; k < n; k++) {
+            g.add(k, j, worstCase.get(i, k));
+            if (i != j) {
+                g.add(k, i, worstCase.get(j, k));
+            }
+        }
         DMatrixRMaj out = new DMatrixRMaj(n, n);
-        CommonOps_DDRM.multTransA(a, e, out);
-        CommonOps_DDRM.multAdd(e, a, out);
-        DMatrixRMaj rp = new DMatrixRMaj(n, n);
-        CommonOps_DDRM.mult(r, p, rp);
-        CommonOps_DDRM.multAdd(e, rp, out);
-        CommonOps_DDRM.multAddTransA(rp, e, out);
+        CommonOps_DDRM.transpose(g, out);
+        CommonOps_DDRM.addEquals(out, g);
         return out;
     }
 

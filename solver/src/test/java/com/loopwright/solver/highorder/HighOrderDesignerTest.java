@@ -137,20 +137,29 @@ class HighOrderDesignerTest {
         }
     }
 
-    /** Slightly above gamma_min every requirement holds; slightly below the binding one fails. */
+    /**
+     * Slightly above gamma_min every requirement holds on the branch; slightly below (Newton from the solution
+     * above, the same branch) the binding one fails.
+     */
     private void assertTight(CompanionPlant plant, HighOrderDesign design) {
         double[] desired = design.poles().coefficients();
         double above = design.gammaMin() * (1 + 1e-6);
         double below = design.gammaMin() * (1 - 1e-6);
-        boolean[] atAbove = designer.holds(plant, desired, 1 / (above * above));
-        boolean[] atBelow = designer.holds(plant, desired, 1 / (below * below));
-        for (boolean h : atAbove) {
-            assertTrue(h, "all requirements hold just above gamma_min");
+        FeasibleGammaSearch search = new FeasibleGammaSearch();
+        FeasibleGammaSearch.FeasibleGammaSet set = search.search(plant, desired);
+        PoleMatchedRiccati.Solution atAbove = search.solutionAt(plant, desired, set, above);
+        double[] marginsAbove = FeasibleGammaSearch.margins(plant, 1 / (above * above), atAbove);
+        for (int c = 0; c < marginsAbove.length; c++) {
+            assertTrue(FeasibleGammaSearch.holds(c, marginsAbove[c], plant.order()),
+                    "all requirements hold just above gamma_min, not " + c);
         }
+        PoleMatchedRiccati.Solution atBelow = new PoleMatchedRiccati().solveFrom(plant, desired, 1 / (below * below),
+                atAbove);
+        double[] marginsBelow = FeasibleGammaSearch.margins(plant, 1 / (below * below), atBelow);
         List<HighOrderGammaBound> bounds = design.gammaBounds();
         boolean bindingFails = false;
         for (int c = 0; c < bounds.size(); c++) {
-            if (bounds.get(c).binding() && !atBelow[c]) {
+            if (bounds.get(c).binding() && !FeasibleGammaSearch.holds(c, marginsBelow[c], plant.order())) {
                 bindingFails = true;
             }
         }
