@@ -1,0 +1,159 @@
+package com.loopwright.service.routes;
+
+import com.fasterxml.jackson.core.JsonParser;
+import com.fasterxml.jackson.core.JsonToken;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.exc.MismatchedInputException;
+import com.fasterxml.jackson.databind.node.JsonNodeFactory;
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.api.problem.ProblemType;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.util.List;
+
+/**
+ * The envelope {"items": [...]} of a batch, read as a stream of tokens so that its memory stays a small multiple of
+ * the body: the items are located (byte ranges of the body) and counted while reading, the cap is checked on the
+ * count, and no tree of the whole body is built. An item becomes a tree only when it is computed
+ * ({@link #item}), one per design worker at a time. The whole body is still checked for JSON syntax, duplicate keys
+ * and trailing content by the same strict parser, so a malformed body is refused before any item is designed.
+ */
+final class BatchEnvelope {
+
+    private final ObjectMapper mapper;
+    private final byte[] body;
+    /** Per item: its first byte and the byte after its last, or -1 for an item that is not an object. */
+    private final int[] starts;
+    private final int[] ends;
+    private final JsonNode[] others;
+    private final int size;
+
+    private BatchEnvelope(ObjectMapper mapper, byte[] body, int[] starts, int[] ends, JsonNode[] others, int size) {
+        this.mapper = mapper;
+        this.body = body;
+        this.starts = starts;
+        this.ends = ends;
+        this.others = others;
+        this.size = size;
+    }
+
+    int size() {
+        return size;
+    }
+
+    /**
+     * Item {@code index} as a tree. An item that is not an object is not a DesignRequest whatever it holds; it is
+     * given as an empty value of its kind (an array, or the scalar itself), which the design exchange refuses with
+     * the same problem, so that a large non-object item never becomes a large tree.
+     */
+    JsonNode item(int index) {
+        if (starts[index] < 0) {
+            return others[index];
+        }
+        try {
+            return mapper.readTree(body, starts[index], ends[index] - starts[index]);
+        } catch (IOException e) {
+            // The range was read once already by the same parser; it cannot fail now.
+            throw new UncheckedIOException("a batch item could not be read again", e);
+        }
+    }
+
+    /**
+     * Reads the envelope.
+     *
+     * @throws Invalid                  for a well-formed body that is not a valid envelope
+     * @throws IOException              for malformed JSON (a JsonProcessingException) or unreadable bytes
+     */
+    static BatchEnvelope read(ObjectMapper mapper, byte[] body, int maxItems) throws IOException, Invalid {
+        int[] starts = new int[maxItems];
+        int[] ends = new int[maxItems];
+        JsonNode[] others = new JsonNode[maxItems];
+        Invalid first = null;
+        int count = -1;
+        try (JsonParser parser = mapper.createParser(body)) {
+            JsonToken token = parser.nextToken();
+            if (token == null) {
+                throw new Invalid("", "the body must be one JSON object {\"items\": [...]}");
+            }
+            if (token != JsonToken.START_OBJECT) {
+                first = new Invalid("", "the body must be one JSON object {\"items\": [...]}");
+                parser.skipChildren();
+            } else {
+                while (parser.nextToken() == JsonToken.FIELD_NAME) {
+                    String name = parser.currentName();
+                    token = parser.nextToken();
+                    if (!name.equals("items")) {
+                        if (first == null) {
+                            first = new Invalid("/" + name.replace("~", "~0").replace("/", "~1"), "unknown field '"
+                                    + (name.length() > 64 ? name.substring(0, 64) + "..." : name) + "'");
+                        }
+                        parser.skipChildren();
+                    } else if (token != JsonToken.START_ARRAY) {
+                        if (first == null) {
+                            first = new Invalid("/items", "wrong type: expected a JSON array");
+                        }
+                        parser.skipChildren();
+                    } else {
+                        // Bounded by the body: every item is at least one byte.
+                        count = 0;
+                        while ((token = parser.nextToken()) != JsonToken.END_ARRAY) {
+                            if (count < maxItems) {
+                                locate(parser, token, count, starts, ends, others);
+                            } else {
+                                parser.skipChildren();
+                            }
+                            count++;
+                        }
+                    }
+                }
+            }
+            if (parser.nextToken() != null) {
+                // The same failure the strict mapper gives for trailing content (FAIL_ON_TRAILING_TOKENS).
+                throw MismatchedInputException.from(parser, JsonNode.class, "Trailing token after the batch envelope");
+            }
+        }
+        if (first != null) {
+            throw first;
+        }
+        if (count < 0) {
+            throw new Invalid("/items", "required: an array of design requests");
+        }
+        if (count == 0 || count > maxItems) {
+            throw new Invalid("/items", "must hold from 1 to " + maxItems + " design requests, not " + count);
+        }
+        return new BatchEnvelope(mapper, body, starts, ends, others, count);
+    }
+
+    private static void locate(JsonParser parser, JsonToken token, int index, int[] starts, int[] ends,
+                               JsonNode[] others) throws IOException {
+        if (token == JsonToken.START_OBJECT) {
+            starts[index] = Math.toIntExact(parser.currentTokenLocation().getByteOffset());
+            parser.skipChildren();
+            ends[index] = Math.toIntExact(parser.currentLocation().getByteOffset());
+        } else if (token == JsonToken.START_ARRAY) {
+            starts[index] = -1;
+            others[index] = JsonNodeFactory.instance.arrayNode();
+            parser.skipChildren();
+        } else {
+            starts[index] = -1;
+            others[index] = parser.readValueAsTree(); // a scalar: at most the parser's string length cap
+        }
+    }
+
+    /** A well-formed body that is not a valid envelope: a 400 invalid-field problem naming the member. */
+    static final class Invalid extends Exception {
+        private final transient Problem problem;
+
+        Invalid(String pointer, String detail) {
+            super(detail, null, false, false);
+            this.problem = ProblemType.INVALID_FIELD.problem(pointer.isEmpty() ? detail : "field " + pointer + ": "
+                    + detail, List.of(new FieldError(pointer, detail)), List.of());
+        }
+
+        Problem problem() {
+            return problem;
+        }
+    }
+}
