@@ -138,8 +138,25 @@ final class BatchEnvelope {
             parser.skipChildren();
         } else {
             starts[index] = -1;
-            others[index] = parser.readValueAsTree(); // a scalar: at most the parser's string length cap
+            others[index] = scalar(parser, token);
         }
+    }
+
+    /** The scalar at the parser as a node (a string is at most the parser's string length cap). */
+    private static JsonNode scalar(JsonParser parser, JsonToken token) throws IOException {
+        JsonNodeFactory nodes = JsonNodeFactory.instance;
+        return switch (token) {
+            case VALUE_STRING -> nodes.textNode(parser.getText());
+            case VALUE_NUMBER_INT -> switch (parser.getNumberType()) {
+                case INT -> nodes.numberNode(parser.getIntValue());
+                case LONG -> nodes.numberNode(parser.getLongValue());
+                default -> nodes.numberNode(parser.getBigIntegerValue());
+            };
+            case VALUE_NUMBER_FLOAT -> nodes.numberNode(parser.getDoubleValue());
+            case VALUE_TRUE -> nodes.booleanNode(true);
+            case VALUE_FALSE -> nodes.booleanNode(false);
+            default -> nodes.nullNode();
+        };
     }
 
     /** A well-formed body that is not a valid envelope: a 400 invalid-field problem naming the member. */
