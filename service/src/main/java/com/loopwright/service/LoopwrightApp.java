@@ -109,7 +109,9 @@ public final class LoopwrightApp {
             javalin.startup.showOldJavalinVersionWarning = false;
             HttpLimits limits = config.http();
             AtomicReference<Server> jetty = new AtomicReference<>();
-            javalin.jetty.threadPool = new QueuedThreadPool(limits.httpThreads(), HttpLimits.MIN_HTTP_THREADS);
+            QueuedThreadPool threads = new QueuedThreadPool(limits.httpThreads(), HttpLimits.MIN_HTTP_THREADS);
+            threads.setName("loopwright-http");
+            javalin.jetty.threadPool = threads;
             javalin.jetty.modifyHttpConfiguration(http -> http.setRequestHeaderSize(HttpLimits.MAX_HEADER_BYTES));
             // Graceful stop: Jetty refuses new requests and waits for in-flight ones up to the grace period. Bodies
             // are admitted and read by the gate (Javalin attaches its servlet inside it) before a thread serves them.

@@ -122,6 +122,15 @@ class HttpLayerLimitsTest {
     }
 
     @Test
+    void aBodyThatStallsPastTheIdleTimeoutGets408ProblemNotPlainText() throws Exception {
+        try (LiveServer server = start(Map.of("LOOPWRIGHT_IDLE_TIMEOUT_MS", "500", "LOOPWRIGHT_BODY_GRACE_MS", "60000"));
+             RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
+            RawExchange.Reply reply = socket.send(postHead("/v1/designs", "Content-Length: 100\r\n") + "{").read();
+            assertProblem(reply, 408, ProblemType.REQUEST_TIMEOUT);
+        }
+    }
+
+    @Test
     void largeBodiesBeyondTheBudgetGet503WithRetryAfterAndHealthAnswers() throws Exception {
         // Issue 13: 200 connections posting a 1 MiB batch exhausted the heap. Here a 2 MiB budget and 12 connections:
         // two bodies are admitted, the other ten are refused before their body is read.
