@@ -90,8 +90,9 @@ public final class RequestBodyGate extends Handler.Wrapper {
         }
         if (declared > maxBodyBytes) {
             refusals.accept("too_large");
+            // The body is never read, so the connection cannot carry another request.
             problems.write(response, callback, ProblemType.PAYLOAD_TOO_LARGE.problem("the body of " + declared
-                    + " bytes exceeds the request size cap of " + maxBodyBytes + " bytes"), Map.of());
+                    + " bytes exceeds the request size cap of " + maxBodyBytes + " bytes"), Map.of("Connection", "close"));
             return true;
         }
         int reserved = (int) (chunked ? maxBodyBytes : declared);
@@ -99,7 +100,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
             refusals.accept("budget");
             problems.write(response, callback, ProblemType.SERVICE_OVERLOADED.problem("the service is reading as many "
                     + "request bodies as its memory budget of " + budgetBytes + " bytes allows; retry after "
-                    + RETRY_AFTER_SECONDS + " s"), Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS)));
+                    + RETRY_AFTER_SECONDS + " s"), Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS),
+                    "Connection", "close"));
             return true;
         }
         new BodyRead(next, request, response, callback, chunked, reserved).start();

@@ -16,9 +16,10 @@ import java.util.List;
 /**
  * The envelope {"items": [...]} of a batch, read as a stream of tokens so that its memory stays a small multiple of
  * the body: the items are located (byte ranges of the body) and counted while reading, the cap is checked on the
- * count, and no tree of the whole body is built. An item becomes a tree only when it is computed
- * ({@link #item}), one per design worker at a time. The whole body is still checked for JSON syntax, duplicate keys
- * and trailing content by the same strict parser, so a malformed body is refused before any item is designed.
+ * count, and no tree of the whole body is built. An item becomes a tree only when it is submitted for design
+ * ({@link #item}), so a batch holds at most its window of items in flight as trees. The whole body is still checked
+ * for JSON syntax, duplicate keys, trailing content and every StreamReadConstraints cap (strings too: they are
+ * decoded while skipped) by the same strict parser, so a malformed body is refused before any item is designed.
  */
 final class BatchEnvelope {
 
@@ -79,7 +80,7 @@ final class BatchEnvelope {
             }
             if (token != JsonToken.START_OBJECT) {
                 first = new Invalid("", "the body must be one JSON object {\"items\": [...]}");
-                parser.skipChildren();
+                skip(parser);
             } else {
                 while (parser.nextToken() == JsonToken.FIELD_NAME) {
                     String name = parser.currentName();
@@ -89,12 +90,12 @@ final class BatchEnvelope {
                             first = new Invalid("/" + name.replace("~", "~0").replace("/", "~1"), "unknown field '"
                                     + (name.length() > 64 ? name.substring(0, 64) + "..." : name) + "'");
                         }
-                        parser.skipChildren();
+                        skip(parser);
                     } else if (token != JsonToken.START_ARRAY) {
                         if (first == null) {
                             first = new Invalid("/items", "wrong type: expected a JSON array");
                         }
-                        parser.skipChildren();
+                        skip(parser);
                     } else {
                         // Bounded by the body: every item is at least one byte.
                         count = 0;
@@ -102,7 +103,7 @@ final class BatchEnvelope {
                             if (count < maxItems) {
                                 locate(parser, token, count, starts, ends, others);
                             } else {
-                                parser.skipChildren();
+                                skip(parser);
                             }
                             count++;
                         }
@@ -130,16 +131,51 @@ final class BatchEnvelope {
                                JsonNode[] others) throws IOException {
         if (token == JsonToken.START_OBJECT) {
             starts[index] = Math.toIntExact(parser.currentTokenLocation().getByteOffset());
-            parser.skipChildren();
+            skip(parser);
             ends[index] = Math.toIntExact(parser.currentLocation().getByteOffset());
         } else if (token == JsonToken.START_ARRAY) {
             starts[index] = -1;
             others[index] = JsonNodeFactory.instance.arrayNode();
-            parser.skipChildren();
+            skip(parser);
         } else {
             starts[index] = -1;
             others[index] = scalar(parser, token);
         }
+    }
+
+    /**
+     * Skips the value at the parser like {@link JsonParser#skipChildren}, but decodes every string (into the
+     * parser's reused buffer) so that the string length cap applies as in a full parse; nesting depth and number
+     * length are checked by the parser on every token anyway. Bounded by the body: each token consumes a byte.
+     */
+    private static void skip(JsonParser parser) throws IOException {
+        JsonToken token = parser.currentToken();
+        if (token == JsonToken.VALUE_STRING) {
+            checkString(parser);
+            return;
+        }
+        if (token != JsonToken.START_OBJECT && token != JsonToken.START_ARRAY) {
+            return;
+        }
+        int depth = 1;
+        while (depth > 0) {
+            token = parser.nextToken();
+            if (token == null) {
+                return; // the parser reports an unclosed value itself
+            }
+            if (token.isStructStart()) {
+                depth++;
+            } else if (token.isStructEnd()) {
+                depth--;
+            } else if (token == JsonToken.VALUE_STRING) {
+                checkString(parser);
+            }
+        }
+    }
+
+    /** The string length cap of a full parse (which checks it when it builds the text), without building it. */
+    private static void checkString(JsonParser parser) throws IOException {
+        parser.streamReadConstraints().validateStringLength(parser.getTextLength());
     }
 
     /** The scalar at the parser as a node (a string is at most the parser's string length cap). */

@@ -1,6 +1,7 @@
 package com.loopwright.service.routes;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.exchange.EncodedOutcome;
 import com.loopwright.api.json.DecodeFailures;
@@ -26,7 +27,7 @@ import java.util.Deque;
  * design worker at a time (each under the compute deadline counted from its submission), and written in order;
  * when the next line is not ready within {@value #FLUSH_DELAY_MILLIS} ms the stream is flushed, so no finished line
  * waits longer than that for a later design (and a batch of fast designs goes out in full buffers, not one write per
- * line). The envelope is read as a stream ({@link BatchEnvelope}); each item becomes a tree on its worker. When a
+ * line). The envelope is read as a stream ({@link BatchEnvelope}); an item becomes a tree only while it is in flight. When a
  * shutdown's grace period is about to end, the stream ends with a {@link BatchCut} line naming the first item
  * without a line.
  */
@@ -103,10 +104,9 @@ public final class BatchRoute implements Handler {
             for (int index = 0; index < count; index++) {
                 // Keep up to `window` items of this batch on the pool so that every worker can take one.
                 while (next < count && inFlight.size() < window) {
-                    int position = next;
-                    // The item becomes a tree on the worker: one per worker at a time, not one per queued item.
-                    ComputePool.Pending<EncodedOutcome> pending = pool.submit(() -> designs.design(
-                            items.item(position)), EncodedOutcome::failure);
+                    JsonNode item = items.item(next); // a tree only while in flight: at most `window` per batch
+                    ComputePool.Pending<EncodedOutcome> pending = pool.submit(() -> designs.design(item),
+                            EncodedOutcome::failure);
                     if (pending.refused() && !inFlight.isEmpty()) {
                         break; // the pool is full: submit this item again once our oldest one is written
                     }

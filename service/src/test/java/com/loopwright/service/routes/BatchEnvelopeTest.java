@@ -70,6 +70,11 @@ class BatchEnvelopeTest {
         assertTrue(envelope.item(2).isArray());
         assertEquals(7, envelope.item(3).asInt());
         assertEquals(mapper.readTree(one), envelope.item(4));
+        // Strings are decoded while skipped, so the parser's caps hold as in a full parse (not only when an item is
+        // read again): one string of 12,000 characters in an item is a malformed body.
+        byte[] longString = ("{\"items\":[{\"plant\":\"" + "x".repeat(12_000) + "\"}]}").getBytes(StandardCharsets.UTF_8);
+        assertThrows(com.fasterxml.jackson.core.exc.StreamConstraintsException.class,
+                () -> BatchEnvelope.read(mapper, longString, 5));
         BatchEnvelope.Invalid overCap = assertThrows(BatchEnvelope.Invalid.class, () -> BatchEnvelope.read(mapper,
                 body, 4));
         assertEquals("/items", overCap.problem().errors().get(0).pointer());
