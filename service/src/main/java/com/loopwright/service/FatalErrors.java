@@ -1,6 +1,8 @@
 package com.loopwright.service;
 
 import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.function.BiFunction;
+import java.util.function.Function;
 import java.util.function.IntConsumer;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -57,6 +59,30 @@ public final class FatalErrors implements Thread.UncaughtExceptionHandler {
             halt.accept(OUT_OF_MEMORY_EXIT_STATUS);
         }
         return true;
+    }
+
+    /** The function, handing an OutOfMemoryError it throws (on a worker thread) to {@link #check} first. */
+    public <T, R> Function<T, R> guard(Function<T, R> work) {
+        return input -> {
+            try {
+                return work.apply(input);
+            } catch (OutOfMemoryError e) {
+                check(e);
+                throw e;
+            }
+        };
+    }
+
+    /** The same for a two-argument function. */
+    public <T, U, R> BiFunction<T, U, R> guard(BiFunction<T, U, R> work) {
+        return (first, second) -> {
+            try {
+                return work.apply(first, second);
+            } catch (OutOfMemoryError e) {
+                check(e);
+                throw e;
+            }
+        };
     }
 
     @Override

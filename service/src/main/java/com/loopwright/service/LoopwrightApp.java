@@ -92,15 +92,17 @@ public final class LoopwrightApp {
         JsonExchangeRoute design = JsonExchangeRoute.encoded(problems, pool, designs::design,
                 outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
-        JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool, new FitExchange(mapper)::exchange);
+        JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool,
+                fatal.guard(new FitExchange(mapper)::exchange));
         JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(mapper, problems, pool,
-                new HighOrderExchange(mapper)::exchange);
+                fatal.guard(new HighOrderExchange(mapper)::exchange));
         JsonExchangeRoute verifications = new JsonExchangeRoute(mapper, problems, pool,
-                new VerificationExchange(mapper)::exchange);
+                fatal.guard(new VerificationExchange(mapper)::exchange));
         HealthRoute health = new HealthRoute();
         TakeawayExchange takeaways = new TakeawayExchange(mapper);
-        TakeawayRoute plots = new TakeawayRoute("figure", takeaways::plot, problems, pool);
-        TakeawayRoute controllers = new TakeawayRoute("format", takeaways::controller, problems, pool);
+        TakeawayRoute plots = new TakeawayRoute("figure", fatal.guard(takeaways::plot), problems, pool);
+        TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems,
+                pool);
         DashboardRoute dashboard = new DashboardRoute();
         return Javalin.create(javalin -> {
             javalin.http.maxRequestSize = config.maxRequestBytes();
