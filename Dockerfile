@@ -18,4 +18,5 @@ ENV LOOPWRIGHT_PORT=8080
 EXPOSE 8080
 HEALTHCHECK --interval=15s --timeout=3s --start-period=10s --retries=3 \
   CMD ["java", "-cp", "/opt/loopwright/loopwright.jar", "com.loopwright.service.HealthProbe"]
-ENTRYPOINT ["java", "-XX:MaxRAMPercentage=75", "-jar", "/opt/loopwright/loopwright.jar"]
+# A JVM that ran out of memory exits (and is restarted) instead of serving on with half-dead threads.
+ENTRYPOINT ["java", "-XX:MaxRAMPercentage=75", "-XX:+ExitOnOutOfMemoryError", "-jar", "/opt/loopwright/loopwright.jar"]

@@ -9,7 +9,11 @@ import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.compute.Designs;
 import com.loopwright.service.compute.ExchangeDesigns;
+import com.loopwright.service.http.CoreProblems;
+import com.loopwright.service.http.HttpLimits;
 import com.loopwright.service.http.ProblemErrorHandler;
+import com.loopwright.service.http.RequestBodyGate;
+import com.loopwright.service.http.StreamCuts;
 import com.loopwright.service.http.ProblemException;
 import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.observe.Metrics;
@@ -32,7 +36,12 @@ import io.javalin.http.HandlerType;
 import io.javalin.http.HttpResponseException;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.concurrent.atomic.AtomicReference;
+import org.eclipse.jetty.server.AbstractConnector;
+import org.eclipse.jetty.server.Connector;
+import org.eclipse.jetty.server.Server;
 import org.eclipse.jetty.server.handler.GracefulHandler;
+import org.eclipse.jetty.util.thread.QueuedThreadPool;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.slf4j.MDC;
@@ -62,40 +71,78 @@ public final class LoopwrightApp {
 
     /** With a replaceable computation (tests use a slow one to exercise the deadline and back-pressure). */
     public static Javalin create(ServiceConfig config, Designs computation) {
+        return create(config, computation, FatalErrors.haltingTheJvm());
+    }
+
+    /** With a replaceable reaction to an OutOfMemoryError (tests record it instead of halting the JVM). */
+    public static Javalin create(ServiceConfig config, Designs computation, FatalErrors fatal) {
         ObjectMapper mapper = StrictJson.newMapper();
-        Designs designs = computation == null ? new ExchangeDesigns(mapper) : computation;
+        Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(mapper) : computation, fatal);
         ProblemResponses problems = new ProblemResponses(mapper);
         ComputePool pool = new ComputePool(config.workerThreads(), config.queueCapacity(),
                 config.computeDeadlineMillis(), mapper);
         Metrics metrics = new Metrics(pool::activeWorkers, pool::queuedDesigns);
+        RequestBodyGate bodies = new RequestBodyGate(config.maxRequestBytes(), config.http(), new CoreProblems(mapper),
+                metrics::bodyRefused);
+        metrics.observeBodyBudget(bodies::availableBodyBytes);
+        StreamCuts cuts = new StreamCuts();
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
         Cors cors = new Cors(config.corsOrigins());
         JsonExchangeRoute design = JsonExchangeRoute.encoded(problems, pool, designs::design,
                 outcome -> metrics.design(Metrics.outcomeOf(outcome)));
-        BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems());
-        JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool, new FitExchange(mapper)::exchange);
+        BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
+        JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool,
+                fatal.guard(new FitExchange(mapper)::exchange));
         JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(mapper, problems, pool,
-                new HighOrderExchange(mapper)::exchange);
+                fatal.guard(new HighOrderExchange(mapper)::exchange));
         JsonExchangeRoute verifications = new JsonExchangeRoute(mapper, problems, pool,
-                new VerificationExchange(mapper)::exchange);
+                fatal.guard(new VerificationExchange(mapper)::exchange));
         HealthRoute health = new HealthRoute();
         TakeawayExchange takeaways = new TakeawayExchange(mapper);
-        TakeawayRoute plots = new TakeawayRoute("figure", takeaways::plot, problems, pool);
-        TakeawayRoute controllers = new TakeawayRoute("format", takeaways::controller, problems, pool);
+        TakeawayRoute plots = new TakeawayRoute("figure", fatal.guard(takeaways::plot), problems, pool);
+        TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems,
+                pool);
         DashboardRoute dashboard = new DashboardRoute();
         return Javalin.create(javalin -> {
             javalin.http.maxRequestSize = config.maxRequestBytes();
             javalin.http.prefer405over404 = true;
             javalin.startup.showJavalinBanner = false;
             javalin.startup.showOldJavalinVersionWarning = false;
-            // Graceful stop: Jetty refuses new requests and waits for in-flight ones up to the grace period.
+            HttpLimits limits = config.http();
+            AtomicReference<Server> jetty = new AtomicReference<>();
+            QueuedThreadPool threads = new QueuedThreadPool(limits.httpThreads(), HttpLimits.MIN_HTTP_THREADS);
+            threads.setName("loopwright-http");
+            javalin.jetty.threadPool = threads;
+            javalin.jetty.modifyHttpConfiguration(http -> http.setRequestHeaderSize(HttpLimits.MAX_HEADER_BYTES));
+            // Graceful stop: Jetty refuses new requests and waits for in-flight ones up to the grace period. Bodies
+            // are admitted and read by the gate (Javalin attaches its servlet inside it) before a thread serves them.
             javalin.jetty.modifyServer(server -> {
-                server.setHandler(new GracefulHandler());
-                server.setErrorHandler(new ProblemErrorHandler(mapper));
+                GracefulHandler graceful = new GracefulHandler();
+                graceful.setHandler(bodies);
+                server.setHandler(graceful);
+                server.setErrorHandler(new ProblemErrorHandler(mapper, fatal));
                 server.setStopTimeout(config.shutdownGraceMillis());
+                jetty.set(server);
             });
-            javalin.events.serverStopping(() -> draining.set(true));
+            // Javalin adds its connector after modifyServer; the idle timeout is set on it just before the start.
+            javalin.events.serverStarting(() -> {
+                for (Connector connector : jetty.get().getConnectors()) {
+                    if (connector instanceof AbstractConnector network) {
+                        network.setIdleTimeout(limits.idleTimeoutMillis());
+                    }
+                }
+            });
+            javalin.router.javaLangErrorHandler((response, error) -> {
+                if (!fatal.check(error)) {
+                    LOG.error("unhandled error on a request", error);
+                }
+                response.setStatus(500);
+            });
+            javalin.events.serverStopping(() -> {
+                draining.set(true);
+                cuts.cutBefore(config.shutdownGraceMillis());
+            });
             javalin.events.serverStopped(() -> pool.shutdown(config.shutdownGraceMillis()));
 
             javalin.routes.before(ctx -> {
@@ -170,7 +217,7 @@ public final class LoopwrightApp {
         }
         if (ACCESS.isInfoEnabled()) {
             // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
-            ACCESS.info(ctx.method().name() + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
+            ACCESS.info(Metrics.methodLabel(ctx.method().name()) + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
                     + " ms");
         }
         MDC.remove(RequestIds.MDC_KEY);
@@ -185,5 +232,28 @@ public final class LoopwrightApp {
             default -> status >= 500 ? ProblemType.INTERNAL_ERROR.problem(null)
                     : ProblemType.MALFORMED_REQUEST.problem("the request could not be read (HTTP " + status + ")");
         };
+    }
+
+    /** Hands an OutOfMemoryError of a design computation (on a worker thread) to {@link FatalErrors}. */
+    private record OutOfMemoryGuard(Designs designs, FatalErrors fatal) implements Designs {
+        @Override
+        public com.loopwright.api.exchange.EncodedOutcome design(byte[] body) {
+            try {
+                return designs.design(body);
+            } catch (OutOfMemoryError e) {
+                fatal.check(e);
+                throw e;
+            }
+        }
+
+        @Override
+        public com.loopwright.api.exchange.EncodedOutcome design(com.fasterxml.jackson.databind.JsonNode item) {
+            try {
+                return designs.design(item);
+            } catch (OutOfMemoryError e) {
+                fatal.check(e);
+                throw e;
+            }
+        }
     }
 }

@@ -21,15 +21,30 @@ public final class LoopwrightMain {
             System.exit(2);
             return;
         }
+        FatalErrors fatal = FatalErrors.haltingTheJvm();
+        // Any failure no code catches is one log line (one JSON object), and an OutOfMemoryError ends the process.
+        Thread.setDefaultUncaughtExceptionHandler(fatal);
         config.describe().forEach((name, value) -> LOG.info("config {}={}", name, value));
-        Javalin app = LoopwrightApp.create(config).start(config.port());
+        Javalin app = LoopwrightApp.create(config, null, fatal).start(config.port());
         // SIGTERM runs the hook: readiness turns 503, Jetty refuses new requests and finishes in-flight ones
-        // within LOOPWRIGHT_SHUTDOWN_GRACE_MS, then the design pool drains.
-        Runtime.getRuntime().addShutdownHook(new Thread(() -> {
-            LOG.info("shutdown requested: finishing in-flight requests");
-            app.stop();
-            LOG.info("stopped");
-        }, "loopwright-shutdown"));
+        // within LOOPWRIGHT_SHUTDOWN_GRACE_MS (batch streams end with a cut line just before), then the pool drains.
+        Runtime.getRuntime().addShutdownHook(new Thread(shutdownHook(app::stop), "loopwright-shutdown"));
         LOG.info("Loopwright listening on port {}", app.port());
+    }
+
+    /**
+     * The shutdown hook's work: stop, and log a failure of the stop as one line. A hook thread's uncaught exception
+     * would otherwise be printed as a plain-text stack trace in the middle of the JSON log.
+     */
+    static Runnable shutdownHook(Runnable stop) {
+        return () -> {
+            LOG.info("shutdown requested: finishing in-flight requests");
+            try {
+                stop.run();
+                LOG.info("stopped");
+            } catch (RuntimeException | Error e) {
+                LOG.error("the stop did not finish cleanly", e);
+            }
+        };
     }
 }

@@ -1,5 +1,6 @@
 package com.loopwright.service;
 
+import com.loopwright.service.http.HttpLimits;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
@@ -31,10 +32,13 @@ import java.util.Map;
  * @param logFormat           "json" or "text" (LOOPWRIGHT_LOG_FORMAT, read by logback.xml; default json)
  * @param shutdownGraceMillis how long a stop waits for in-flight requests (LOOPWRIGHT_SHUTDOWN_GRACE_MS,
  *                            default 20000)
+ * @param http                limits of the HTTP layer: request threads, in-flight body bytes, minimum body rate,
+ *                            idle timeout ({@link HttpLimits})
  */
 public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, int queueCapacity,
                             long computeDeadlineMillis, int maxBatchItems, List<String> apiKeys,
-                            List<String> corsOrigins, String logFormat, long shutdownGraceMillis) {
+                            List<String> corsOrigins, String logFormat, long shutdownGraceMillis,
+                            HttpLimits http) {
 
     public static final int DEFAULT_PORT = 8080;
     public static final long DEFAULT_MAX_REQUEST_BYTES = 1L << 20;
@@ -101,6 +105,10 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
         if (shutdownGraceMillis < 0 || shutdownGraceMillis > 600_000) {
             throw new IllegalArgumentException("shutdown grace must be from 0 to 600000 ms: " + shutdownGraceMillis);
         }
+        if (http.inFlightBodyBytes() < maxRequestBytes) {
+            throw new IllegalArgumentException("in-flight body bytes (" + http.inFlightBodyBytes()
+                    + ") must hold at least one body of the request cap (" + maxRequestBytes + ")");
+        }
     }
 
     /** Defaults for everything, on the given port. */
@@ -114,9 +122,10 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
         if (keyFile != null && !keyFile.isBlank()) {
             keys.addAll(readKeyFile(Path.of(keyFile.trim())));
         }
+        long maxRequestBytes = parse(environment, "LOOPWRIGHT_MAX_REQUEST_BYTES", DEFAULT_MAX_REQUEST_BYTES);
         return new ServiceConfig(
                 (int) parse(environment, "LOOPWRIGHT_PORT", DEFAULT_PORT),
-                parse(environment, "LOOPWRIGHT_MAX_REQUEST_BYTES", DEFAULT_MAX_REQUEST_BYTES),
+                maxRequestBytes,
                 (int) parse(environment, "LOOPWRIGHT_WORKER_THREADS", Runtime.getRuntime().availableProcessors()),
                 (int) parse(environment, "LOOPWRIGHT_QUEUE_CAPACITY", DEFAULT_QUEUE_CAPACITY),
                 parse(environment, "LOOPWRIGHT_COMPUTE_DEADLINE_MS", DEFAULT_COMPUTE_DEADLINE_MILLIS),
@@ -124,12 +133,20 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
                 keys,
                 list(environment.get("LOOPWRIGHT_CORS_ORIGINS")),
                 environment.getOrDefault("LOOPWRIGHT_LOG_FORMAT", DEFAULT_LOG_FORMAT).trim().toLowerCase(Locale.ROOT),
-                parse(environment, "LOOPWRIGHT_SHUTDOWN_GRACE_MS", DEFAULT_SHUTDOWN_GRACE_MILLIS));
+                parse(environment, "LOOPWRIGHT_SHUTDOWN_GRACE_MS", DEFAULT_SHUTDOWN_GRACE_MILLIS),
+                new HttpLimits(
+                        (int) parse(environment, "LOOPWRIGHT_HTTP_THREADS", HttpLimits.DEFAULT_HTTP_THREADS),
+                        parse(environment, "LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES",
+                                Math.max(HttpLimits.DEFAULT_INFLIGHT_BODY_BYTES, maxRequestBytes)),
+                        parse(environment, "LOOPWRIGHT_MIN_BODY_BYTES_PER_S",
+                                HttpLimits.DEFAULT_MIN_BODY_BYTES_PER_SECOND),
+                        parse(environment, "LOOPWRIGHT_BODY_GRACE_MS", HttpLimits.DEFAULT_BODY_GRACE_MILLIS),
+                        parse(environment, "LOOPWRIGHT_IDLE_TIMEOUT_MS", HttpLimits.DEFAULT_IDLE_TIMEOUT_MILLIS)));
     }
 
     public ServiceConfig withApiKeys(List<String> keys) {
         return new ServiceConfig(port, maxRequestBytes, workerThreads, queueCapacity, computeDeadlineMillis,
-                maxBatchItems, keys, corsOrigins, logFormat, shutdownGraceMillis);
+                maxBatchItems, keys, corsOrigins, logFormat, shutdownGraceMillis, http);
     }
 
     /** Every setting by its variable name, with API keys masked (only their count is shown). */
@@ -146,6 +163,11 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
         shown.put("LOOPWRIGHT_CORS_ORIGINS", corsOrigins.isEmpty() ? "(none: CORS off)" : String.join(",", corsOrigins));
         shown.put("LOOPWRIGHT_LOG_FORMAT", logFormat);
         shown.put("LOOPWRIGHT_SHUTDOWN_GRACE_MS", String.valueOf(shutdownGraceMillis));
+        shown.put("LOOPWRIGHT_HTTP_THREADS", String.valueOf(http.httpThreads()));
+        shown.put("LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", String.valueOf(http.inFlightBodyBytes()));
+        shown.put("LOOPWRIGHT_MIN_BODY_BYTES_PER_S", String.valueOf(http.minBodyBytesPerSecond()));
+        shown.put("LOOPWRIGHT_BODY_GRACE_MS", String.valueOf(http.bodyGraceMillis()));
+        shown.put("LOOPWRIGHT_IDLE_TIMEOUT_MS", String.valueOf(http.idleTimeoutMillis()));
         return shown;
     }
 

@@ -234,10 +234,10 @@ class ComputeLimitsTest {
 
     @Test
     void batchLinesAreStreamedAsEachItemFinishes() throws Exception {
-        // The first item is computed at once; the second waits at the gate until the first line has arrived.
+        // The first item is computed at once; the second waits at the gate until the first line has arrived. The
+        // second is told apart by its settling time, not by call order (two workers may start in either order).
         CountDownLatch gate = new CountDownLatch(1);
         Designs real = new ExchangeDesigns(StrictJson.newMapper());
-        AtomicInteger calls = new AtomicInteger();
         Designs secondWaits = new Designs() {
             @Override
             public EncodedOutcome design(byte[] body) {
@@ -246,7 +246,7 @@ class ComputeLimitsTest {
 
             @Override
             public EncodedOutcome design(JsonNode item) {
-                if (calls.incrementAndGet() == 2) {
+                if (item.at("/spec/settlingTime").asDouble() == 0.16) {
                     try {
                         gate.await(30, TimeUnit.SECONDS);
                     } catch (InterruptedException e) {
@@ -259,7 +259,8 @@ class ComputeLimitsTest {
         try (LiveServer server = LiveServer.start(config("2", "4", "30000"), secondWaits)) {
             var request = java.net.http.HttpRequest.newBuilder(server.base().resolve("/v1/designs/batch"))
                     .header("Content-Type", "application/json").POST(java.net.http.HttpRequest.BodyPublishers
-                            .ofString("{\"items\":[" + DesignClient.INDEXING_AXIS + "," + DesignClient.INDEXING_AXIS + "]}"))
+                            .ofString("{\"items\":[" + DesignClient.INDEXING_AXIS + ","
+                                    + DesignClient.INDEXING_AXIS.replace("0.15", "0.16") + "]}"))
                     .build();
             var response = server.http().send(request, java.net.http.HttpResponse.BodyHandlers.ofLines());
             assertEquals(200, response.statusCode());

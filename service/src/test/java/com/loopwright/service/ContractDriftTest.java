@@ -305,8 +305,26 @@ class ContractDriftTest {
         assertEquals("integer", line.at("/properties/status/type").asText());
         assertEquals("#/components/schemas/DesignResponse", line.at("/properties/design/$ref").asText());
         assertEquals("#/components/schemas/Problem", line.at("/properties/problem/$ref").asText());
-        assertEquals("#/components/schemas/BatchLine", contract.document().at("/paths/~1v1~1designs~1batch/post"
+        assertEquals("#/components/schemas/BatchStreamLine", contract.document().at("/paths/~1v1~1designs~1batch/post"
                 + "/responses/200/content/application~1x-ndjson/schema/$ref").asText());
+        JsonNode streamLine = contract.component("BatchStreamLine").get("oneOf");
+        assertEquals("#/components/schemas/BatchLine", streamLine.at("/0/$ref").asText());
+        assertEquals("#/components/schemas/BatchCut", streamLine.at("/1/$ref").asText());
+        JsonNode cut = contract.component("BatchCut");
+        Set<String> cutComponents = new TreeSet<>();
+        for (RecordComponent component : com.loopwright.service.routes.BatchCut.class.getRecordComponents()) {
+            cutComponents.add(component.getName());
+            if (component.getType() == int.class) {
+                assertEquals("integer", cut.at("/properties/" + component.getName() + "/type").asText(),
+                        "BatchCut." + component.getName());
+            }
+        }
+        Set<String> cutProperties = new TreeSet<>();
+        cut.get("properties").fieldNames().forEachRemaining(cutProperties::add);
+        assertEquals(cutComponents, cutProperties, "fields of BatchCut");
+        assertEquals(false, cut.path("additionalProperties").asBoolean(true), "BatchCut is closed");
+        assertEquals("#/components/schemas/Problem", cut.at("/properties/problem/$ref").asText());
+        assertEquals(ServiceConfig.BATCH_ITEMS_CEILING - 1, cut.at("/properties/resumeFromIndex/maximum").asInt());
         JsonNode items = contract.component("BatchRequest").at("/properties/items");
         assertEquals(ServiceConfig.BATCH_ITEMS_CEILING, items.get("maxItems").asInt(), "batch cap");
         assertEquals(ServiceConfig.BATCH_ITEMS_CEILING - 1, line.at("/properties/index/maximum").asInt());

@@ -71,6 +71,12 @@ class DeploymentFilesTest {
         assertTrue(dockerfile.contains("USER 10001"), "non-root user");
         assertTrue(dockerfile.contains("HEALTHCHECK") && dockerfile.contains(HealthProbe.class.getName()));
         assertTrue(dockerfile.contains("loopwright.jar"));
+        // Out of memory must end the process so that the orchestrator restarts it (not serve on, sick).
+        assertTrue(dockerfile.lines().anyMatch(line -> line.startsWith("ENTRYPOINT")
+                && line.contains("\"-XX:+ExitOnOutOfMemoryError\"")), "the java command exits on OutOfMemoryError");
+        String readme = Files.readString(ROOT.resolve("README.md"));
+        assertTrue(readme.contains("java -XX:+ExitOnOutOfMemoryError -jar service/target/loopwright.jar"),
+                "the README's start command has the flag too");
     }
 
     @Test

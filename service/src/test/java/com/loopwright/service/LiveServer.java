@@ -42,6 +42,10 @@ final class LiveServer implements AutoCloseable {
         return new LiveServer(LoopwrightApp.create(config, designs).start("127.0.0.1", 0));
     }
 
+    static LiveServer start(ServiceConfig config, com.loopwright.service.compute.Designs designs, FatalErrors fatal) {
+        return new LiveServer(LoopwrightApp.create(config, designs, fatal).start("127.0.0.1", 0));
+    }
+
     Javalin app() {
         return app;
     }

@@ -25,6 +25,14 @@ class ServiceConfigTest {
         assertEquals(List.of(), config.corsOrigins());
         assertEquals("json", config.logFormat());
         assertEquals(20_000, config.shutdownGraceMillis());
+        assertEquals(250, config.http().httpThreads());
+        assertEquals(32L << 20, config.http().inFlightBodyBytes());
+        assertEquals(16_384, config.http().minBodyBytesPerSecond());
+        assertEquals(5_000, config.http().bodyGraceMillis());
+        assertEquals(30_000, config.http().idleTimeoutMillis());
+        // A request cap above the default budget raises the default budget with it (one body always fits).
+        assertEquals(48L << 20, ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES",
+                String.valueOf(48L << 20))).http().inFlightBodyBytes());
     }
 
     @Test
@@ -34,7 +42,9 @@ class ServiceConfigTest {
                 Map.of("LOOPWRIGHT_COMPUTE_DEADLINE_MS", "0"), Map.of("LOOPWRIGHT_MAX_BATCH_ITEMS", "1001"),
                 Map.of("LOOPWRIGHT_API_KEYS", "short"), Map.of("LOOPWRIGHT_CORS_ORIGINS", "*"),
                 Map.of("LOOPWRIGHT_LOG_FORMAT", "xml"), Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES", "ten"),
-                Map.of("LOOPWRIGHT_API_KEYS_FILE", "/nonexistent/keys"))) {
+                Map.of("LOOPWRIGHT_API_KEYS_FILE", "/nonexistent/keys"), Map.of("LOOPWRIGHT_HTTP_THREADS", "4"),
+                Map.of("LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", "1024"), Map.of("LOOPWRIGHT_MIN_BODY_BYTES_PER_S", "0"),
+                Map.of("LOOPWRIGHT_BODY_GRACE_MS", "-1"), Map.of("LOOPWRIGHT_IDLE_TIMEOUT_MS", "10"))) {
             assertThrows(RuntimeException.class, () -> ServiceConfig.fromEnvironment(bad), bad.toString());
         }
     }

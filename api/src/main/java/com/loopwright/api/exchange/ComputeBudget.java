@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.function.IntFunction;
 
 /**
  * The cost model of design requests, in abstract work units, estimated from the request before anything is
@@ -104,12 +105,20 @@ public final class ComputeBudget {
      * the total over all items.
      */
     public Problem refuseBatch(JsonNode items) {
+        return refuseBatch(items.size(), items::get);
+    }
+
+    /**
+     * As {@link #refuseBatch(JsonNode)} for items read one at a time (a streamed envelope builds each item's tree
+     * only while it is estimated).
+     */
+    public Problem refuseBatch(int count, IntFunction<JsonNode> item) {
         Map<String, Long> byField = new LinkedHashMap<>();
         Map<String, Integer> firstItem = new LinkedHashMap<>();
         Map<String, Integer> itemsAsking = new LinkedHashMap<>();
         long total = 0;
-        for (int i = 0; i < items.size(); i++) {
-            for (Map.Entry<String, Long> part : designParts(items.get(i)).entrySet()) {
+        for (int i = 0; i < count; i++) {
+            for (Map.Entry<String, Long> part : designParts(item.apply(i)).entrySet()) {
                 byField.merge(part.getKey(), part.getValue(), Long::sum);
                 firstItem.putIfAbsent(part.getKey(), i);
                 itemsAsking.merge(part.getKey(), 1, Integer::sum);
@@ -119,12 +128,12 @@ public final class ComputeBudget {
         if (total <= MAX_REQUEST_WORK_UNITS) {
             return null;
         }
-        String summary = "the batch's " + items.size() + " items are estimated at " + total + " work units, more"
+        String summary = "the batch's " + count + " items are estimated at " + total + " work units, more"
                 + " than the cap of " + MAX_REQUEST_WORK_UNITS + " per request (one unit is about 0.1 ms of CPU);"
                 + " send fewer items or fewer checks per item (see the cost model in docs/limits-and-budgets.md)";
         long estimated = total;
         List<FieldError> errors = new ArrayList<>();
-        errors.add(new FieldError("/items", items.size() + " items, " + estimated + " work units estimated; the cap is "
+        errors.add(new FieldError("/items", count + " items, " + estimated + " work units estimated; the cap is "
                 + MAX_REQUEST_WORK_UNITS));
         byField.entrySet().stream()
                 .sorted(Map.Entry.<String, Long>comparingByValue().reversed())

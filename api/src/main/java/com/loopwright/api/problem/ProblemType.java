@@ -24,7 +24,12 @@ public enum ProblemType {
     FORBIDDEN(403, "Forbidden", "The credentials do not grant this request."),
     SERVICE_OVERLOADED(503, "Service overloaded", "Every design worker is busy; retry after the Retry-After delay."),
     DEADLINE_EXCEEDED(504, "Compute deadline exceeded", "The design did not finish within the compute deadline."),
-    NOT_READY(503, "Not ready", "The service is shutting down or not yet able to take designs.");
+    NOT_READY(503, "Not ready", "The service is shutting down or not yet able to take designs."),
+    MALFORMED_HTTP(400, "Malformed HTTP request",
+            "The request line, a header or the body framing is not valid HTTP/1.1."),
+    REQUEST_TIMEOUT(408, "Request timeout",
+            "The request did not arrive in time; send the body at least at the documented minimum rate."),
+    UNSUPPORTED_PROTOCOL(505, "Unsupported protocol", "This service speaks HTTP/1.1 (and HTTP/1.0) only.");
 
     private final int status;
     private final String title;

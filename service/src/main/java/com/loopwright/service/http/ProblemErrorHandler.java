@@ -1,12 +1,12 @@
 package com.loopwright.service.http;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.FatalErrors;
 import java.nio.ByteBuffer;
-import java.nio.charset.StandardCharsets;
 import java.util.List;
+import java.util.Map;
 import org.eclipse.jetty.http.HttpField;
 import org.eclipse.jetty.http.HttpFields;
 import org.eclipse.jetty.http.HttpHeader;
@@ -17,55 +17,60 @@ import org.eclipse.jetty.util.Callback;
 
 /**
  * Errors that Jetty answers before the application sees the request (unparseable request lines, bad URIs,
- * oversized headers, requests refused during a graceful stop) as problem+json too, never an HTML page and
- * never a stack trace.
+ * oversized headers, an HTTP/2 preface, requests refused during a graceful stop) as problem+json too, with words
+ * that name the HTTP-level fault, for every method, never an HTML page, an empty body or a stack trace.
  */
 public final class ProblemErrorHandler extends ErrorHandler {
 
-    private final ObjectMapper mapper;
+    private final CoreProblems problems;
+    private final FatalErrors fatal;
 
-    public ProblemErrorHandler(ObjectMapper mapper) {
-        this.mapper = mapper;
+    public ProblemErrorHandler(ObjectMapper mapper, FatalErrors fatal) {
+        this.problems = new CoreProblems(mapper);
+        this.fatal = fatal;
         setShowStacks(false);
     }
 
     /** The problem for a status Jetty produced on its own. */
     static Problem problemFor(int status) {
-        ProblemType type = switch (status) {
-            case 404 -> ProblemType.NOT_FOUND;
-            case 405 -> ProblemType.METHOD_NOT_ALLOWED;
-            case 413 -> ProblemType.PAYLOAD_TOO_LARGE;
-            case 415 -> ProblemType.UNSUPPORTED_MEDIA_TYPE;
-            case 503 -> ProblemType.NOT_READY;
-            default -> status >= 500 ? ProblemType.INTERNAL_ERROR : ProblemType.MALFORMED_REQUEST;
+        Problem problem = switch (status) {
+            case 400 -> ProblemType.MALFORMED_HTTP.problem(null);
+            case 404 -> ProblemType.NOT_FOUND.problem(null);
+            case 405 -> ProblemType.METHOD_NOT_ALLOWED.problem(null);
+            case 408 -> ProblemType.REQUEST_TIMEOUT.problem(null);
+            case 413 -> ProblemType.PAYLOAD_TOO_LARGE.problem(null);
+            case 414 -> ProblemType.MALFORMED_HTTP.problem("the request target is longer than the request line cap");
+            case 415 -> ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(null);
+            case 426 -> ProblemType.UNSUPPORTED_PROTOCOL.problem(
+                    "HTTP/2 is not offered; send the request as HTTP/1.1");
+            case 431 -> ProblemType.MALFORMED_HTTP.problem("the request line and headers exceed "
+                    + HttpLimits.MAX_HEADER_BYTES + " bytes");
+            case 503 -> ProblemType.NOT_READY.problem(null);
+            case 505 -> ProblemType.UNSUPPORTED_PROTOCOL.problem(null);
+            default -> status >= 500 ? ProblemType.INTERNAL_ERROR.problem(null)
+                    : ProblemType.MALFORMED_HTTP.problem(null);
         };
-        Problem base = type.problem(status == type.status() ? null : "the HTTP request could not be read");
         // Keep the type, but report the status that is actually sent (e.g. 431 for oversized headers).
-        return new Problem(base.type(), base.title(), status >= 400 && status <= 599 ? status : type.status(),
-                base.detail(), null, List.of(), List.of());
+        return new Problem(problem.type(), problem.title(), status >= 400 && status <= 599 ? status : problem.status(),
+                problem.detail(), null, List.of(), List.of());
     }
 
-    private byte[] body(int status) {
-        try {
-            return mapper.writeValueAsBytes(problemFor(status));
-        } catch (JsonProcessingException e) {
-            return ("{\"type\":\"" + ProblemType.INTERNAL_ERROR.uri() + "\",\"title\":\"Error\",\"status\":" + status
-                    + ",\"detail\":\"unavailable\"}").getBytes(StandardCharsets.UTF_8);
-        }
+    /** A body for every method (Jetty's default gives none for methods other than GET, POST and HEAD). */
+    @Override
+    public boolean errorPageForMethod(String method) {
+        return true;
     }
 
     @Override
     protected void generateResponse(Request request, Response response, int code, String message, Throwable cause,
                                     Callback callback) {
-        response.getHeaders().put(HttpHeader.CONTENT_TYPE, Problem.MEDIA_TYPE);
-        response.getHeaders().put(HttpHeader.CACHE_CONTROL, "no-store");
-        response.getHeaders().put("X-Content-Type-Options", "nosniff");
-        response.write(true, ByteBuffer.wrap(body(code)), callback);
+        fatal.check(cause);
+        problems.write(response, callback, problemFor(code), Map.of());
     }
 
     @Override
     public ByteBuffer badMessageError(int status, String reason, HttpFields.Mutable fields) {
         fields.put(new HttpField(HttpHeader.CONTENT_TYPE, Problem.MEDIA_TYPE));
-        return ByteBuffer.wrap(body(status));
+        return ByteBuffer.wrap(problems.bytes(problemFor(status)));
     }
 }

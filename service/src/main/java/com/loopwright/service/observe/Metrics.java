@@ -4,7 +4,6 @@ import java.lang.management.ManagementFactory;
 import java.lang.management.MemoryMXBean;
 import java.lang.management.MemoryUsage;
 import java.lang.management.ThreadMXBean;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeMap;
@@ -13,6 +12,7 @@ import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.atomic.DoubleAdder;
 import java.util.concurrent.atomic.LongAdder;
 import java.util.function.IntSupplier;
+import java.util.function.LongSupplier;
 
 /**
  * Request and design metrics in the Prometheus text exposition format (version 0.0.4), written by hand: the
@@ -28,8 +28,17 @@ public final class Metrics {
     /** Outcomes of one design computation (a request or a batch item). */
     public static final Set<String> DESIGN_OUTCOMES = Set.of("designed", "invalid", "infeasible", "unverifiable",
             "overloaded", "deadline", "failed");
-    /** Guards the label space: at most this many (route, method, status) series. */
-    static final int MAX_SERIES = 512;
+    /** Guards the label space: at most this many (route, method, status) series, then one overflow series per
+     * status class. */
+    public static final int MAX_SERIES = 512;
+    /**
+     * Method label values: the methods of HTTP semantics (RFC 9110) and PATCH (RFC 5789), exactly as sent (methods
+     * are case-sensitive); any other method name is counted as "other", so that a client cannot mint label values.
+     */
+    public static final Set<String> METHODS = Set.of("GET", "HEAD", "POST", "PUT", "DELETE", "CONNECT", "OPTIONS",
+            "TRACE", "PATCH");
+    /** Why the HTTP layer refused a request body (see RequestBodyGate). */
+    public static final Set<String> BODY_REFUSALS = Set.of("too_large", "budget", "slow", "unreadable");
 
     private final Map<Series, Histogram> requests = new ConcurrentHashMap<>();
     private final Map<String, AtomicLong> designs = new ConcurrentHashMap<>();
@@ -38,21 +47,46 @@ public final class Metrics {
     private final IntSupplier activeWorkers;
     private final IntSupplier queuedDesigns;
     private final AtomicLong inFlight = new AtomicLong();
+    private final Map<String, LongAdder> bodyRefusals = new ConcurrentHashMap<>();
+    private volatile LongSupplier availableBodyBytes = () -> -1;
 
     public Metrics(IntSupplier activeWorkers, IntSupplier queuedDesigns) {
         this.activeWorkers = activeWorkers;
         this.queuedDesigns = queuedDesigns;
         DESIGN_OUTCOMES.forEach(outcome -> designs.put(outcome, new AtomicLong()));
+        BODY_REFUSALS.forEach(reason -> bodyRefusals.put(reason, new LongAdder()));
+    }
+
+    /** The gauge of the in-flight body budget not reserved (set once when the HTTP layer is built). */
+    public void observeBodyBudget(LongSupplier available) {
+        this.availableBodyBytes = available;
+    }
+
+    /** Counts one body refused by the HTTP layer; an unknown reason is not counted. */
+    public void bodyRefused(String reason) {
+        LongAdder counter = bodyRefusals.get(reason);
+        if (counter != null) {
+            counter.increment();
+        }
+    }
+
+    /** The method as a label value: one of {@link #METHODS}, else "other". */
+    public static String methodLabel(String method) {
+        return method != null && METHODS.contains(method) ? method : "other";
     }
 
     public void requestStarted() {
         inFlight.incrementAndGet();
     }
 
+    /**
+     * Counts one finished request. {@code route} must already be a bounded label (a route template or "other");
+     * the method is reduced to {@link #METHODS} or "other" here.
+     */
     public void requestFinished(String route, String method, int status, double seconds) {
         inFlight.decrementAndGet();
         // A small record as the key: no label string is built per request (that happens only in scrape()).
-        Series key = new Series(route, method, status);
+        Series key = new Series(route, methodLabel(method), status >= 100 && status <= 599 ? status : 599);
         Histogram histogram = requests.get(key);
         if (histogram == null) {
             if (requests.size() >= MAX_SERIES) {
@@ -72,8 +106,7 @@ public final class Metrics {
             if (status < 0) {
                 return "route=\"" + route + "\",method=\"" + method + "\",status=\"" + (-status - 1) + "xx\"";
             }
-            return "route=\"" + route + "\",method=\"" + method.toUpperCase(Locale.ROOT) + "\",status=\"" + status
-                    + "\"";
+            return "route=\"" + route + "\",method=\"" + method + "\",status=\"" + status + "\"";
         }
     }
 
@@ -138,6 +171,13 @@ public final class Metrics {
         designs.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> out
                 .append("loopwright_designs_total{outcome=\"").append(e.getKey()).append("\"} ")
                 .append(e.getValue().get()).append('\n'));
+        out.append("# HELP loopwright_http_bodies_refused_total Request bodies the HTTP layer refused, by reason.\n");
+        out.append("# TYPE loopwright_http_bodies_refused_total counter\n");
+        bodyRefusals.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> out
+                .append("loopwright_http_bodies_refused_total{reason=\"").append(e.getKey()).append("\"} ")
+                .append(e.getValue().sum()).append('\n'));
+        gauge(out, "loopwright_http_body_budget_available_bytes",
+                "Bytes of the in-flight request body budget not reserved now.", availableBodyBytes.getAsLong());
         gauge(out, "loopwright_design_workers_active", "Design workers computing now.", activeWorkers.getAsInt());
         gauge(out, "loopwright_design_queue_length", "Designs waiting for a worker.", queuedDesigns.getAsInt());
         MemoryUsage heap = memory.getHeapMemoryUsage();

@@ -6,13 +6,13 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.exchange.ComputeBudget;
 import com.loopwright.api.exchange.EncodedOutcome;
 import com.loopwright.api.json.DecodeFailures;
-import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.compute.Designs;
 import com.loopwright.service.http.JsonBodies;
 import com.loopwright.service.http.ProblemResponses;
+import com.loopwright.service.http.StreamCuts;
 import com.loopwright.service.observe.Metrics;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
@@ -21,8 +21,6 @@ import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayDeque;
 import java.util.Deque;
-import java.util.Iterator;
-import java.util.List;
 
 /**
  * POST /v1/designs/batch: {"items": [DesignRequest, ...]} in, NDJSON out, one line per item in request order:
@@ -34,7 +32,9 @@ import java.util.List;
  * keep the other workers), and written in order;
  * when the next line is not ready within {@value #FLUSH_DELAY_MILLIS} ms the stream is flushed, so no finished line
  * waits longer than that for a later design (and a batch of fast designs goes out in full buffers, not one write per
- * line).
+ * line). The envelope is read as a stream ({@link BatchEnvelope}); an item becomes a tree only while it is in flight. When a
+ * shutdown's grace period is about to end, the stream ends with a {@link BatchCut} line naming the first item
+ * without a line.
  */
 public final class BatchRoute implements Handler {
 
@@ -58,15 +58,17 @@ public final class BatchRoute implements Handler {
     private final Metrics metrics;
     private final int maxItems;
     private final ComputeBudget budget = new ComputeBudget();
+    private final StreamCuts cuts;
 
     public BatchRoute(ObjectMapper mapper, ProblemResponses problems, Designs designs, ComputePool pool,
-                      Metrics metrics, int maxItems) {
+                      Metrics metrics, int maxItems, StreamCuts cuts) {
         this.mapper = mapper;
         this.problems = problems;
         this.designs = designs;
         this.pool = pool;
         this.metrics = metrics;
         this.maxItems = maxItems;
+        this.cuts = cuts;
     }
 
     @Override
@@ -77,20 +79,20 @@ public final class BatchRoute implements Handler {
                     "send the batch with Content-Type: application/json"));
             return;
         }
-        JsonNode items;
+        BatchEnvelope items;
         try {
-            items = items(mapper.readTree(ctx.bodyAsBytes()));
+            items = BatchEnvelope.read(mapper, ctx.bodyAsBytes(), maxItems);
         } catch (JsonProcessingException e) {
             problems.write(ctx, DecodeFailures.toProblem(e));
             return;
-        } catch (EnvelopeException e) {
-            problems.write(ctx, e.problem);
+        } catch (BatchEnvelope.Invalid e) {
+            problems.write(ctx, e.problem());
             return;
         } catch (IOException e) {
             problems.write(ctx, DecodeFailures.unreadable());
             return;
         }
-        Problem overBudget = budget.refuseBatch(items);
+        Problem overBudget = budget.refuseBatch(items.size(), items::item);
         if (overBudget != null) {
             problems.write(ctx, overBudget);
             return;
@@ -109,11 +111,12 @@ public final class BatchRoute implements Handler {
         int window = Math.min(pool.batchShare(), MAX_ITEMS_IN_FLIGHT);
         Deque<ComputePool.Pending<EncodedOutcome>> inFlight = new ArrayDeque<>(window);
         int next = 0;
+        StreamCuts.Stream stream = cuts.open();
         try {
             for (int index = 0; index < count; index++) {
                 // Keep up to `window` items of this batch on the pool, each on a free batch slot.
                 while (next < count && inFlight.size() < window) {
-                    JsonNode item = items.get(next);
+                    JsonNode item = items.item(next); // a tree only while in flight: at most `window` per batch
                     ComputePool.Pending<EncodedOutcome> pending = pool.submitBatchItem(() -> designs.design(item),
                             EncodedOutcome::failure, deadlineNanos, inFlight.isEmpty());
                     if (pending == null || (pending.refused() && !inFlight.isEmpty()
@@ -124,18 +127,33 @@ public final class BatchRoute implements Handler {
                     next++;
                 }
                 ComputePool.Pending<EncodedOutcome> oldest = inFlight.removeFirst();
+                stream.waitingFor(oldest::cancel); // a shutdown cut cancels it, so the wait ends in time
                 if (!oldest.awaitDone(FLUSH_DELAY_NANOS)) {
                     out.flush(); // never wait longer than the flush delay with finished lines unsent
                 }
                 EncodedOutcome outcome = oldest.await();
+                if (stream.isCut()) {
+                    writeCut(out, index);
+                    break;
+                }
                 metrics.design(Metrics.outcomeOf(outcome));
                 writeLine(out, index, outcome);
             }
             out.flush();
         } finally {
-            // A client that went away mid-batch: give up the items still queued for it.
+            // A client that went away mid-batch (or a cut stream): give up the items still queued for it.
             inFlight.forEach(ComputePool.Pending::cancel);
+            stream.close();
         }
+    }
+
+    /** The final line of a stream cut by a shutdown: items from {@code index} on have no line (BatchCut). */
+    private void writeCut(OutputStream out, int index) throws IOException {
+        out.write(mapper.writeValueAsBytes(new BatchCut(index, 503, ProblemType.NOT_READY.problem("the service is "
+                + "shutting down and its grace period is ending: the stream was cut before item " + index
+                + "; send items " + index + " and later again").withInstance(PATH + "#/items/" + index))));
+        out.write(NEWLINE);
+        out.flush();
     }
 
     /** One BatchLine: {"index":i,"status":200,"design":{...}} or {"index":i,"status":s,"problem":{...}}. */
@@ -148,42 +166,6 @@ public final class BatchRoute implements Handler {
             out.write(mapper.writeValueAsBytes(new BatchLine(index, outcome.status(), null,
                     outcome.problem().withInstance(PATH + "#/items/" + index))));
             out.write(NEWLINE);
-        }
-    }
-
-    /** The items array of a well-formed envelope. */
-    private JsonNode items(JsonNode envelope) throws EnvelopeException {
-        if (envelope == null || !envelope.isObject()) {
-            throw new EnvelopeException("", "the body must be one JSON object {\"items\": [...]}");
-        }
-        for (Iterator<String> names = envelope.fieldNames(); names.hasNext(); ) {
-            String name = names.next();
-            if (!name.equals("items")) {
-                throw new EnvelopeException("/" + name.replace("~", "~0").replace("/", "~1"),
-                        "unknown field '" + (name.length() > 64 ? name.substring(0, 64) + "..." : name) + "'");
-            }
-        }
-        JsonNode items = envelope.get("items");
-        if (items == null) {
-            throw new EnvelopeException("/items", "required: an array of design requests");
-        }
-        if (!items.isArray()) {
-            throw new EnvelopeException("/items", "wrong type: expected a JSON array");
-        }
-        if (items.isEmpty() || items.size() > maxItems) {
-            throw new EnvelopeException("/items", "must hold from 1 to " + maxItems + " design requests, not "
-                    + items.size());
-        }
-        return items;
-    }
-
-    private static final class EnvelopeException extends Exception {
-        private final transient Problem problem;
-
-        EnvelopeException(String pointer, String detail) {
-            super(detail, null, false, false);
-            this.problem = ProblemType.INVALID_FIELD.problem(pointer.isEmpty() ? detail : "field " + pointer + ": "
-                    + detail, List.of(new FieldError(pointer, detail)), List.of());
         }
     }
 }
