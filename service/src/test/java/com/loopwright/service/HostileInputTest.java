@@ -66,9 +66,17 @@ class HostileInputTest extends LiveServerTest {
     }
 
     @Test
-    void oversizedBodyIsRejected() {
-        byte[] body = ("{\"plant\":\"" + "x".repeat(2 << 20) + "\"}").getBytes(StandardCharsets.UTF_8);
-        assertProblem(server.postBytes("/v1/designs", body), 413, null);
+    void oversizedBodyIsRejected() throws Exception {
+        // A raw socket: the 413 now comes before the body is sent, and the JDK 17 HttpClient waits forever when
+        // Expect: 100-continue is answered by a final status instead of 100 (a client bug, JDK-8286171, from memory).
+        int length = (2 << 20) + 12;
+        try (RawExchange socket = new RawExchange(server.base().getPort(), 10_000)) {
+            RawExchange.Reply reply = socket.send("POST /v1/designs HTTP/1.1\r\nHost: 127.0.0.1\r\nContent-Type: "
+                    + "application/json\r\nContent-Length: " + length + "\r\nExpect: 100-continue\r\n\r\n").read();
+            assertEquals(413, reply.status(), reply.toString());
+            assertEquals("application/problem+json", reply.header("Content-Type"));
+            assertEquals(413, reply.json().get("status").asInt());
+        }
     }
 
     @Test

@@ -47,6 +47,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
     static final int FIRST_CHUNKED_BUFFER_BYTES = 8 * 1024;
     /** Longest method or path echoed in a log line. */
     static final int MAX_LOGGED_CHARS = 120;
+    /** Refused bodies up to this many request caps are read and dropped before the answer; larger ones are cut. */
+    static final long DRAIN_FACTOR = 4;
     private static final Logger LOG = LoggerFactory.getLogger(RequestBodyGate.class);
 
     private final long maxBodyBytes;
@@ -89,23 +91,44 @@ public final class RequestBodyGate extends Handler.Wrapper {
             return next.handle(request, response, callback);
         }
         if (declared > maxBodyBytes) {
-            refusals.accept("too_large");
-            // The body is never read, so the connection cannot carry another request.
-            problems.write(response, callback, ProblemType.PAYLOAD_TOO_LARGE.problem("the body of " + declared
-                    + " bytes exceeds the request size cap of " + maxBodyBytes + " bytes"), Map.of("Connection", "close"));
+            refuse(request, response, callback, declared, "too_large", ProblemType.PAYLOAD_TOO_LARGE.problem(
+                    "the body of " + declared + " bytes exceeds the request size cap of " + maxBodyBytes + " bytes"),
+                    Map.of());
             return true;
         }
         int reserved = (int) (chunked ? maxBodyBytes : declared);
         if (!budget.tryAcquire(reserved)) {
-            refusals.accept("budget");
-            problems.write(response, callback, ProblemType.SERVICE_OVERLOADED.problem("the service is reading as many "
-                    + "request bodies as its memory budget of " + budgetBytes + " bytes allows; retry after "
-                    + RETRY_AFTER_SECONDS + " s"), Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS),
-                    "Connection", "close"));
+            refuse(request, response, callback, reserved, "budget", ProblemType.SERVICE_OVERLOADED.problem(
+                    "the service is reading as many request bodies as its memory budget of " + budgetBytes
+                    + " bytes allows; retry after " + RETRY_AFTER_SECONDS + " s"),
+                    Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS)));
             return true;
         }
-        new BodyRead(next, request, response, callback, chunked, reserved).start();
+        new BodyRead(next, request, response, callback, chunked, reserved, null).start();
         return true;
+    }
+
+    /**
+     * Refuses a body without keeping it. A client that asked {@code Expect: 100-continue} (or whose body is over
+     * {@link #DRAIN_FACTOR} request caps) is answered at once and the connection closed; any other client is sending
+     * the body already, so it is read and dropped first (at the minimum rate, nothing kept): closing a connection
+     * with unread bytes resets it, and the client may lose the answer.
+     */
+    private void refuse(Request request, Response response, Callback callback, long length, String reason,
+                        Problem problem, Map<String, String> headers) {
+        refusals.accept(reason);
+        boolean expectsContinue = request.getHeaders().contains(HttpHeader.EXPECT, "100-continue");
+        if (expectsContinue || length > DRAIN_FACTOR * maxBodyBytes) {
+            Map<String, String> closing = new java.util.HashMap<>(headers);
+            closing.put("Connection", "close");
+            problems.write(response, callback, problem, closing);
+            return;
+        }
+        new BodyRead(null, request, response, callback, false, 0, new Refusal(problem, headers)).start();
+    }
+
+    /** The answer a drained body gets once it has arrived. */
+    private record Refusal(Problem problem, Map<String, String> headers) {
     }
 
     private static String shortened(String text) {
@@ -120,6 +143,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
         private final Response response;
         private final Callback callback;
         private final boolean chunked;
+        /** Non-null when the body is only drained: dropped as it arrives, then this answer. */
+        private final Refusal refusal;
         private final long startNanos = System.nanoTime();
         /** Set once: the body was handed on, or the request was answered here. */
         private final AtomicBoolean finished = new AtomicBoolean();
@@ -129,14 +154,16 @@ public final class RequestBodyGate extends Handler.Wrapper {
         private volatile int length;
         private volatile Scheduler.Task rateCheck;
 
-        BodyRead(Handler next, Request request, Response response, Callback callback, boolean chunked, int reserved) {
+        BodyRead(Handler next, Request request, Response response, Callback callback, boolean chunked, int reserved,
+                 Refusal refusal) {
+            this.refusal = refusal;
             this.next = next;
             this.request = request;
             this.response = response;
             this.callback = callback;
             this.chunked = chunked;
             this.reserved = reserved;
-            this.body = new byte[chunked ? Math.min(reserved, FIRST_CHUNKED_BUFFER_BYTES) : reserved];
+            this.body = new byte[refusal != null ? 0 : chunked ? Math.min(reserved, FIRST_CHUNKED_BUFFER_BYTES) : reserved];
         }
 
         void start() {
@@ -160,6 +187,11 @@ public final class RequestBodyGate extends Handler.Wrapper {
                 try {
                     ByteBuffer bytes = chunk.getByteBuffer();
                     int count = bytes.remaining();
+                    if (refusal != null) {
+                        length += count; // dropped
+                        bytes.position(bytes.limit());
+                        continue;
+                    }
                     if ((long) length + count > reserved) {
                         tooLong();
                         return;
@@ -171,6 +203,9 @@ public final class RequestBodyGate extends Handler.Wrapper {
                     length += count;
                 } finally {
                     chunk.release();
+                    if (refusal != null && last) {
+                        answerRefusal();
+                    }
                 }
                 if (last) {
                     handOn();
@@ -228,6 +263,14 @@ public final class RequestBodyGate extends Handler.Wrapper {
             LOG.warn("request body not accepted: {} {} answered {} after {} bytes: {}", shortened(request.getMethod()),
                     shortened(request.getHttpURI().getPath()), problem.status(), length, problem.detail());
             problems.write(response, callback, problem, headers);
+        }
+
+        /** A refused body has been dropped: the refusal, on a connection that can carry the next request. */
+        private void answerRefusal() {
+            if (finished.compareAndSet(false, true)) {
+                cancelRateCheck();
+                problems.write(response, callback, refusal.problem(), refusal.headers());
+            }
         }
 
         /** The whole body is here: keep only its own bytes reserved and hand the request on to a request thread. */
