@@ -1,5 +1,6 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.design.SpecProposal;
@@ -77,7 +78,7 @@ public final class SpecMatcher {
         }
         int iteration = 0;
         while (!converged(f)) {
-            com.loopwright.solver.cancel.Cancellation.checkpoint(); // one spec-matching iteration (three simulations)
+            Cancellation.checkpoint(); // one spec-matching iteration (three simulations)
             if (++iteration > MAX_ITERATIONS) {
                 throw notConverged(MAX_ITERATIONS, f, "the iteration cap was reached");
             }

@@ -1,5 +1,6 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.numeric.SafeRounding;
 import com.loopwright.solver.plant.CanonicalPlant;
@@ -82,7 +83,7 @@ public final class RobustnessVerifier {
 
         List<DisturbanceCheck> checks = new ArrayList<>();
         for (int i = 0; i < options.disturbances().size(); i++) {
-            com.loopwright.solver.cancel.Cancellation.checkpoint();
+            Cancellation.checkpoint();
             DisturbanceProfile profile = options.disturbances().get(i);
             double from = profile.settledFromSeconds();
             if (from > MAX_DISTURBANCE_TIMING_HORIZONS * horizon) {
@@ -304,7 +305,7 @@ public final class RobustnessVerifier {
 
     private boolean meets(CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
                           double horizon, double ts, int[] evaluations) {
-        com.loopwright.solver.cancel.Cancellation.checkpoint(); // one simulation of the longest-period search
+        Cancellation.checkpoint(); // one simulation of the longest-period search
         evaluations[0]++;
         if (Math.ceil(horizon / ts) > SampledLoopSimulator.MAX_SAMPLE_INTERVALS) {
             return false;

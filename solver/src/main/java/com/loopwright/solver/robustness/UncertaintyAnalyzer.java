@@ -1,5 +1,6 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.LinearLoop;
@@ -58,7 +59,7 @@ public final class UncertaintyAnalyzer {
         List<UncertainCase> all = new ArrayList<>(corners);
         SplittableRandom random = new SplittableRandom(seed);
         for (int s = 0; s < samples; s++) {
-            com.loopwright.solver.cancel.Cancellation.checkpoint(); // a Monte Carlo sample is the unit of cancellation
+            Cancellation.checkpoint(); // a Monte Carlo sample is the unit of cancellation
             double[] p = new double[4];
             for (int i = 0; i < 4; i++) {
                 p[i] = lo[i] + (hi[i] - lo[i]) * random.nextDouble();
