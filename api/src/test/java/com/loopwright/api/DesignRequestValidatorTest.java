@@ -8,7 +8,7 @@ import com.loopwright.api.request.DesignRequest;
 import com.loopwright.api.request.DesignRequestValidator;
 import com.loopwright.api.request.FieldLimits;
 import com.loopwright.api.request.InvalidRequestException;
-import com.loopwright.api.request.PlantInput;
+import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.request.SpecInput;
 import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.solver.design.GammaChoice;

@@ -17,7 +17,7 @@ import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.api.request.FieldLimits;
 import com.loopwright.api.request.FitLimits;
 import com.loopwright.api.request.FitRequest;
-import com.loopwright.api.request.PlantFormName;
+import com.loopwright.api.plant.PlantFormName;
 import com.loopwright.api.response.FitResponse;
 import com.loopwright.solver.fit.FitWarning;
 import com.loopwright.api.request.VerificationRequest;

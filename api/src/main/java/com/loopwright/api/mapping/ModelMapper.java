@@ -1,7 +1,7 @@
 package com.loopwright.api.mapping;
 
-import com.loopwright.api.request.PlantFormName;
-import com.loopwright.api.request.ResolvedPlant;
+import com.loopwright.api.plant.PlantFormName;
+import com.loopwright.api.plant.ResolvedPlant;
 import com.loopwright.api.response.DesignResponse;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.pipeline.CallerCoordinates;

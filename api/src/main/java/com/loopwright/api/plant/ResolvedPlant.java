@@ -1,4 +1,4 @@
-package com.loopwright.api.request;
+package com.loopwright.api.plant;
 
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.PlantForm;

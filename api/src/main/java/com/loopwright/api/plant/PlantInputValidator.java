@@ -1,4 +1,4 @@
-package com.loopwright.api.request;
+package com.loopwright.api.plant;
 
 import static com.loopwright.api.request.FieldLimits.*;
 
@@ -58,10 +58,10 @@ public final class PlantInputValidator {
     }
 
     private static ResolvedPlant canonical(PlantInput plant, List<FieldError> errors, int before) {
-        Checks.magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
-        Checks.magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
-        Checks.magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);
-        Checks.magnitude(errors, "/plant/d", plant.d(), 0, MAX_ABS_D, true);
+        PlantFieldChecks.magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
+        PlantFieldChecks.magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
+        PlantFieldChecks.magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);
+        PlantFieldChecks.magnitude(errors, "/plant/d", plant.d(), 0, MAX_ABS_D, true);
         if (errors.size() > before) {
             return null;
         }
@@ -273,7 +273,7 @@ public final class PlantInputValidator {
     }
 
     private static void physical(List<FieldError> errors, String name, Double value, boolean required) {
-        Checks.magnitude(errors, "/plant/" + name, value, 0, MAX_ABS_PHYSICAL, required);
+        PlantFieldChecks.magnitude(errors, "/plant/" + name, value, 0, MAX_ABS_PHYSICAL, required);
     }
 
     /** A list of exactly min..max finite numbers of magnitude at most MAX_ABS_STATE_SPACE; null when invalid. */
@@ -291,7 +291,7 @@ public final class PlantInputValidator {
         }
         int before = errors.size();
         for (int i = 0; i < values.size(); i++) {
-            Checks.magnitude(errors, pointer + "/" + i, values.get(i), 0, MAX_ABS_PHYSICAL, true);
+            PlantFieldChecks.magnitude(errors, pointer + "/" + i, values.get(i), 0, MAX_ABS_PHYSICAL, true);
         }
         return errors.size() > before ? null : values;
     }

@@ -1,4 +1,4 @@
-package com.loopwright.api.request;
+package com.loopwright.api.plant;
 
 import java.util.Arrays;
 import java.util.List;

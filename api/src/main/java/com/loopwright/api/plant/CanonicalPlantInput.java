@@ -1,4 +1,4 @@
-package com.loopwright.api.request;
+package com.loopwright.api.plant;
 
 /**
  * Canonical plant coefficients of x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w, for endpoints that take gains
