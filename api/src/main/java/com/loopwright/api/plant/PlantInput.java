@@ -1,29 +1,29 @@
 package com.loopwright.api.plant;
 
+import com.fasterxml.jackson.databind.annotation.JsonDeserialize;
+import com.fasterxml.jackson.databind.annotation.JsonSerialize;
+import com.loopwright.api.problem.FieldError;
 import java.util.List;
 
 /**
- * The plant as sent by the caller (nullable until validated). Without {@code form} (or with
- * {@code "form": "canonical"}) it is the canonical coefficients of x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w.
- * Otherwise {@code form} selects one description and only that description's fields may be present:
- * <ul>
- *   <li>{@code rotaryAxis}: inertia, viscousFriction, torqueConstant, optional gearRatio;</li>
- *   <li>{@code massSpringDamper}: mass, damping, stiffness;</li>
- *   <li>{@code secondOrderTransferFunction}: gain, naturalFrequency, dampingRatio, or numerator and
- *       denominator; optional disturbanceNumerator;</li>
- *   <li>{@code stateSpace}: a (2 x 2), b2, b1.</li>
- * </ul>
+ * The plant as sent by the caller, one record per description chosen by {@code form} (fields nullable until
+ * validated). Without {@code form} (or with {@code "form": "canonical"}) it is {@link CanonicalPlantInput}, the
+ * coefficients of x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w; the other forms are {@link RotaryAxisInput},
+ * {@link MassSpringDamperInput}, {@link SecondOrderTransferFunctionInput} and {@link StateSpaceInput}. Each form
+ * declares its fields once, as its record components ({@link PlantFormName} derives the field lists from them).
+ * A plant object that makes no one form (an unknown form name, fields of another form beside the chosen one's)
+ * decodes to {@link UnmatchedPlant}, which validation reports with the request's other field errors.
  */
-public record PlantInput(String form, Double a0, Double a1, Double b, Double d,
-                         Double inertia, Double viscousFriction, Double torqueConstant, Double gearRatio,
-                         Double mass, Double damping, Double stiffness,
-                         Double gain, Double naturalFrequency, Double dampingRatio, List<Double> numerator,
-                         List<Double> denominator, Double disturbanceNumerator,
-                         List<List<Double>> a, List<Double> b2, List<Double> b1) {
+@JsonDeserialize(using = PlantInputDeserializer.class)
+@JsonSerialize(using = PlantInputSerializer.class)
+public sealed interface PlantInput permits CanonicalPlantInput, RotaryAxisInput, MassSpringDamperInput,
+        SecondOrderTransferFunctionInput, StateSpaceInput, UnmatchedPlant {
 
-    /** The canonical coefficients, without a form. */
-    public PlantInput(Double a0, Double a1, Double b, Double d) {
-        this(null, a0, a1, b, d, null, null, null, null, null, null, null, null, null, null, null, null, null,
-                null, null, null);
-    }
+    /**
+     * Validates this description and converts it to the canonical coefficients. Adds 400-class errors (pointers
+     * below /plant) to {@code errors} and returns null when it added any.
+     *
+     * @throws com.loopwright.solver.plant.PlantParameterException for a non-physical or unusable description (422)
+     */
+    ResolvedPlant resolve(List<FieldError> errors);
 }
