@@ -21,6 +21,10 @@ import java.util.List;
 @JsonDeserialize(using = JsonDeserializer.None.class)
 public record CanonicalPlantInput(Double a0, Double a1, Double b, Double d) implements PlantInput {
 
+    /** The canonical states in the caller's own units. */
+    static final PlantNotation NOTATION = new PlantNotation("x1 units", "x1 units/s", "u units", "w units",
+            "x1 units", null);
+
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {
         int before = errors.size();

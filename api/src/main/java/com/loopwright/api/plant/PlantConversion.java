@@ -31,8 +31,8 @@ final class PlantConversion {
      *
      * @param fields the description's numeric fields by JSON pointer below /plant (e.g. "denominator/0")
      */
-    static ResolvedPlant converted(PlantFormName form, Supplier<PlantForm> description, Map<String, Double> fields,
-                                   List<String> assumptions) {
+    static ResolvedPlant converted(PlantFormName form, PlantNotation notation, Supplier<PlantForm> description,
+                                   Map<String, Double> fields, List<String> assumptions) {
         PlantForm source;
         CanonicalPlant plant;
         try {
@@ -66,7 +66,7 @@ final class PlantConversion {
                     + " supports; rescale the units (for example mm instead of m, or g cm^2 instead of kg m^2)",
                     plant.a0(), plant.a1(), plant.b(), plant.d(), String.join(", ", outside)));
         }
-        return new ResolvedPlant(form, plant, source, assumptions);
+        return new ResolvedPlant(form, plant, source, assumptions, notation);
     }
 
     /** The non-zero field farthest from 1 in orders of magnitude (|log10 |v||), or "" when there is none. */

@@ -30,6 +30,10 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
                                                List<Double> numerator, List<Double> denominator,
                                                Double disturbanceNumerator) implements PlantInput {
 
+    /** Phase variables: the output y and its rate. */
+    static final PlantNotation NOTATION = new PlantNotation("y (output units)", "y units/s", "input units",
+            "disturbance units", "y units", null);
+
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {
         int before = errors.size();
@@ -56,7 +60,7 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
                 return null;
             }
             double commandNumerator = gain * naturalFrequency * naturalFrequency;
-            return PlantConversion.converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION,
+            return PlantConversion.converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION, NOTATION,
                     () -> SecondOrderTransferFunction.ofGainFrequencyDamping(gain, naturalFrequency, dampingRatio,
                             disturbanceNumerator == null ? commandNumerator : disturbanceNumerator),
                     PlantConversion.fields("gain", gain, "naturalFrequency", naturalFrequency, "dampingRatio",
@@ -82,7 +86,7 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
         if (disturbanceNumerator != null) {
             fields.put("disturbanceNumerator", disturbanceNumerator);
         }
-        return PlantConversion.converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION,
+        return PlantConversion.converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION, NOTATION,
                 () -> new SecondOrderTransferFunction(n, disturbanceNumerator == null ? n : disturbanceNumerator,
                         checkedDenominator.get(0), checkedDenominator.get(1), checkedDenominator.get(2)), fields,
                 assumptions);
