@@ -32,8 +32,9 @@ public record MassSpringDamperInput(Double mass, Double damping, Double stiffnes
         if (errors.size() > before) {
             return null;
         }
-        return PlantConversion.converted(PlantFormName.MASS_SPRING_DAMPER, NOTATION, () -> new MassSpringDamper(mass, damping,
-                stiffness), PlantConversion.fields("mass", mass, "damping", damping, "stiffness", stiffness),
+        return PlantConversion.converted(PlantFormName.MASS_SPRING_DAMPER, NOTATION,
+                () -> new MassSpringDamper(mass, damping, stiffness),
+                PlantConversion.fields("mass", mass, "damping", damping, "stiffness", stiffness),
                 List.of("m y'' + c y' + k y = F + w: y [m] is the position, F [N] the force command, w [N] a"
                         + " disturbance force acting where the actuator acts."));
     }

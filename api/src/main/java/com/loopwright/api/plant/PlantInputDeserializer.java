@@ -65,7 +65,9 @@ final class PlantInputDeserializer extends StdDeserializer<PlantInput> implement
         Map<String, Object> values = new HashMap<>();
         String firstUnknown = null;
         TokenBuffer unknownValues = null;
-        // Once every wire field has a value the object is complete; a later unknown field is refused at once.
+        // Once every wire field has a value the object is complete and a later unknown field is refused at once
+        // (before, unknown fields wait for the end of the object): the order in which the flat record of all forms'
+        // fields reported failures, which the recorded answers keep.
         boolean complete = false;
         while (token == JsonToken.FIELD_NAME) {
             String name = p.currentName();

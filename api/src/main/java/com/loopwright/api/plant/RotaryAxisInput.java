@@ -43,8 +43,9 @@ public record RotaryAxisInput(Double inertia, Double viscousFriction, Double tor
         if (gearRatio == null) {
             assumptions.add("No gearRatio given: direct drive (N = 1).");
         }
-        return PlantConversion.converted(PlantFormName.ROTARY_AXIS, NOTATION, () -> new RotaryAxis(inertia, viscousFriction,
-                torqueConstant, ratio), PlantConversion.fields("inertia", inertia, "viscousFriction",
-                viscousFriction, "torqueConstant", torqueConstant, "gearRatio", gearRatio), assumptions);
+        return PlantConversion.converted(PlantFormName.ROTARY_AXIS, NOTATION,
+                () -> new RotaryAxis(inertia, viscousFriction, torqueConstant, ratio),
+                PlantConversion.fields("inertia", inertia, "viscousFriction", viscousFriction, "torqueConstant",
+                        torqueConstant, "gearRatio", gearRatio), assumptions);
     }
 }

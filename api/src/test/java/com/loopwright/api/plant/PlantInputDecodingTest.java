@@ -106,7 +106,8 @@ class PlantInputDecodingTest {
         assertProblem("{\"plant\":{\"form\":\"rotaryAxis\",\"length\":1}}", "/plant/length", "unknown field 'length'");
         assertProblem("{\"plant\":{\"form\":\"stateSpace\",\"a\":[[0,1],[0,\"x\"]]}}", "/plant/a/1/1",
                 "wrong type: expected a JSON number");
-        assertProblem("{\"plant\":{\"form\":\"stateSpace\",\"b2\":3}}", "/plant/b2", "wrong type: expected a JSON object");
+        assertProblem("{\"plant\":{\"form\":\"stateSpace\",\"b2\":3}}", "/plant/b2",
+                "wrong type: expected a JSON object");
         assertProblem("{\"plant\":{\"form\":{}}}", "/plant/form", "wrong type: expected a JSON object");
         assertProblem("{\"plant\":[1,2]}", "/plant", "wrong type: expected a JSON object");
         assertProblem("{\"plant\":{\"a0\":0,\"a0\":1}}", "/plant", "cannot be read");
