@@ -8,7 +8,7 @@ import com.loopwright.api.request.DesignRequest;
 import com.loopwright.api.request.DesignRequestValidator;
 import com.loopwright.api.request.FieldLimits;
 import com.loopwright.api.request.InvalidRequestException;
-import com.loopwright.api.request.PlantInput;
+import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.request.SpecInput;
 import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.solver.design.GammaChoice;
@@ -19,7 +19,7 @@ import org.junit.jupiter.api.Test;
 class DesignRequestValidatorTest {
 
     private final DesignRequestValidator validator = new DesignRequestValidator();
-    private static final PlantInput AXIS = new PlantInput(0.0, 0.48, 400.0, 400.0);
+    private static final CanonicalPlantInput AXIS = new CanonicalPlantInput(0.0, 0.48, 400.0, 400.0);
 
     private static SpecInput spec(Double settling, Double overshoot) {
         return new SpecInput(settling, overshoot, null, null, null, null, null);
@@ -44,14 +44,14 @@ class DesignRequestValidatorTest {
         assertPointer("/spec/settlingTime", new DesignRequest(AXIS, spec(Math.nextDown(FieldLimits.MIN_TIME_SECONDS), 1.0)));
         assertPointer("/spec/overshootPercent",
                 new DesignRequest(AXIS, spec(1.0, Math.nextUp(FieldLimits.MAX_OVERSHOOT_PERCENT))));
-        assertPointer("/plant/b", new DesignRequest(new PlantInput(0.0, 0.0, FieldLimits.MIN_ABS_B / 2, 1.0), spec(1.0, 1.0)));
-        assertPointer("/plant/a0", new DesignRequest(new PlantInput(-2 * FieldLimits.MAX_ABS_A0, 0.0, 1.0, 1.0), spec(1.0, 1.0)));
-        validator.validate(new DesignRequest(new PlantInput(0.0, 0.0, -FieldLimits.MIN_ABS_B, 0.0), spec(1.0, 1.0)));
+        assertPointer("/plant/b", new DesignRequest(new CanonicalPlantInput(0.0, 0.0, FieldLimits.MIN_ABS_B / 2, 1.0), spec(1.0, 1.0)));
+        assertPointer("/plant/a0", new DesignRequest(new CanonicalPlantInput(-2 * FieldLimits.MAX_ABS_A0, 0.0, 1.0, 1.0), spec(1.0, 1.0)));
+        validator.validate(new DesignRequest(new CanonicalPlantInput(0.0, 0.0, -FieldLimits.MIN_ABS_B, 0.0), spec(1.0, 1.0)));
     }
 
     @Test
     void rejectsNonFiniteValues() {
-        assertPointer("/plant/d", new DesignRequest(new PlantInput(0.0, 0.0, 1.0, Double.POSITIVE_INFINITY), spec(1.0, 1.0)));
+        assertPointer("/plant/d", new DesignRequest(new CanonicalPlantInput(0.0, 0.0, 1.0, Double.POSITIVE_INFINITY), spec(1.0, 1.0)));
         assertPointer("/spec/settlingTime", new DesignRequest(AXIS, spec(Double.NaN, 1.0)));
     }
 

@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import com.loopwright.api.request.DesignRequest;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.api.request.HighOrderDesignRequest;
@@ -17,7 +18,8 @@ import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.api.request.FieldLimits;
 import com.loopwright.api.request.FitLimits;
 import com.loopwright.api.request.FitRequest;
-import com.loopwright.api.request.PlantFormName;
+import com.loopwright.api.plant.PlantFormName;
+import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.response.FitResponse;
 import com.loopwright.solver.fit.FitWarning;
 import com.loopwright.api.request.VerificationRequest;
@@ -398,10 +400,6 @@ class ContractDriftTest {
     /** Record components and schema properties must be the same names, recursively. */
     private void assertRecordMatchesSchema(Class<?> type, JsonNode schema, String where) {
         schema = resolve(schema);
-        if (schema.has("oneOf")) {
-            assertUnionMatchesRecord(type, schema, where);
-            return;
-        }
         Set<String> components = new TreeSet<>();
         for (RecordComponent component : type.getRecordComponents()) {
             components.add(component.getName());
@@ -416,6 +414,8 @@ class ContractDriftTest {
             String path = where + "." + component.getName();
             if (componentType.isRecord()) {
                 assertRecordMatchesSchema(componentType, property, path);
+            } else if (componentType == PlantInput.class) {
+                assertPlantFormsMatchUnion(property, path);
             } else if (java.util.List.class.isAssignableFrom(componentType)) {
                 assertEquals("array", property.get("type").asText(), path);
                 assertTrue(property.has("maxItems"), path + " has a documented cap");
@@ -430,34 +430,24 @@ class ContractDriftTest {
     }
 
     /**
-     * A tagged union decoded into one flat record: the union of the closed branches' properties must be the
-     * record's components, and each component has the JSON type of every branch that declares it.
+     * The plant, a tagged union decoded into a sealed type: one closed branch per form, whose properties are
+     * "form" and the components of the form's record (checked like any record).
      */
-    private void assertUnionMatchesRecord(Class<?> type, JsonNode schema, String where) {
-        Set<String> properties = new TreeSet<>();
-        for (JsonNode branch : schema.get("oneOf")) {
-            JsonNode resolved = resolve(branch);
-            assertEquals(false, resolved.path("additionalProperties").asBoolean(true), where + " branch is closed");
-            resolved.get("properties").fieldNames().forEachRemaining(properties::add);
-        }
-        Set<String> components = new TreeSet<>();
-        for (RecordComponent component : type.getRecordComponents()) {
-            components.add(component.getName());
-            for (JsonNode branch : schema.get("oneOf")) {
-                JsonNode property = resolve(branch).at("/properties/" + component.getName());
-                if (property.isMissingNode()) {
-                    continue;
-                }
-                String path = where + "." + component.getName();
-                if (java.util.List.class.isAssignableFrom(component.getType())) {
-                    assertEquals("array", property.get("type").asText(), path);
-                    assertTrue(property.has("maxItems"), path + " has a documented cap");
-                } else {
-                    assertEquals(jsonType(component.getType()), property.get("type").asText(), path);
+    private void assertPlantFormsMatchUnion(JsonNode schema, String where) {
+        JsonNode branches = schema.get("oneOf");
+        assertEquals(PlantFormName.values().length, branches.size(), where + ": one branch per form");
+        for (PlantFormName form : PlantFormName.values()) {
+            JsonNode branch = null;
+            for (JsonNode candidate : branches) {
+                if (resolve(candidate).at("/properties/form/enum/0").asText().equals(form.wireName())) {
+                    branch = resolve(candidate);
                 }
             }
+            assertTrue(branch != null, where + " has a branch for " + form.wireName());
+            ObjectNode fields = branch.deepCopy();
+            assertTrue(((ObjectNode) fields.get("properties")).remove("form") != null, form.wireName() + ".form");
+            assertRecordMatchesSchema(form.record(), fields, where + "(" + form.wireName() + ")");
         }
-        assertEquals(components, properties, "fields of " + where);
     }
 
     private JsonNode resolve(JsonNode schema) {

@@ -1,6 +1,6 @@
 package com.loopwright.api.mapping;
 
-import com.loopwright.api.request.PlantFormName;
+import com.loopwright.api.plant.PlantFormName;
 import com.loopwright.api.request.ValidatedFit;
 import com.loopwright.api.response.FitResponse;
 import com.loopwright.solver.fit.FitWarning;

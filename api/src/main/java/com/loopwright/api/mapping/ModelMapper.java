@@ -1,7 +1,7 @@
 package com.loopwright.api.mapping;
 
-import com.loopwright.api.request.PlantFormName;
-import com.loopwright.api.request.ResolvedPlant;
+import com.loopwright.api.plant.PlantNotation;
+import com.loopwright.api.plant.ResolvedPlant;
 import com.loopwright.api.response.DesignResponse;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.pipeline.CallerCoordinates;
@@ -22,26 +22,13 @@ final class ModelMapper {
     static DesignResponse.Model toModel(ResolvedPlant resolved, ClosedFormDesign design) {
         CanonicalPlant plant = resolved.canonical();
         DesignResponse.Plant canonical = new DesignResponse.Plant(plant.a0(), plant.a1(), plant.b(), plant.d());
-        PlantFormName form = resolved.form();
-        return switch (form) {
-            case CANONICAL -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("x1 units", "x1 units/s", "u units", "w units", "x1 units"), resolved.assumptions(), null,
-                    null);
-            case ROTARY_AXIS -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("rad", "rad/s", "A", "N m", "rad"), resolved.assumptions(),
-                    physicalLaw(design, "i", "A", "q", "rad", "no holding current is needed at standstill: the"
-                            + " axis has no stiffness (a0 = 0)"), null);
-            case MASS_SPRING_DAMPER -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("m", "m/s", "N", "N", "m"), resolved.assumptions(),
-                    physicalLaw(design, "F", "N", "y", "m", "the spring force k r that holds the mass at the"
-                            + " setpoint"), null);
-            case SECOND_ORDER_TRANSFER_FUNCTION -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("y (output units)", "y units/s", "input units", "disturbance units", "y units"),
-                    resolved.assumptions(), null, null);
-            case STATE_SPACE -> new DesignResponse.Model(form.wireName(), canonical,
-                    units("z1 = y = c x (the tracked output)", "z2 = y'", "u units", "w units", "y units"),
-                    resolved.assumptions(), null, stateSpace((TwoStateModel) resolved.source(), design));
-        };
+        PlantNotation notation = resolved.notation();
+        PlantNotation.LawTerms law = notation.law();
+        return new DesignResponse.Model(resolved.form().wireName(), canonical, units(notation.x1(), notation.x2(),
+                notation.command(), notation.disturbance(), notation.x1Short()), resolved.assumptions(),
+                law == null ? null : physicalLaw(design, law.command(), law.commandUnit(), law.position(),
+                        law.positionUnit(), law.feedforwardMeaning()),
+                resolved.source() instanceof TwoStateModel model ? stateSpace(model, design) : null);
     }
 
     /**

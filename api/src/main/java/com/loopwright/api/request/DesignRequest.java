@@ -1,5 +1,7 @@
 package com.loopwright.api.request;
 
+import com.loopwright.api.plant.PlantInput;
+
 /**
  * Body of POST /v1/designs.
  *

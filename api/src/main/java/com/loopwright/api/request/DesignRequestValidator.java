@@ -2,6 +2,9 @@ package com.loopwright.api.request;
 
 import static com.loopwright.api.request.FieldLimits.*;
 
+import com.loopwright.api.plant.PlantInput;
+import com.loopwright.api.plant.PlantInputValidator;
+import com.loopwright.api.plant.ResolvedPlant;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.spec.DesignSpec;

@@ -1,5 +1,6 @@
 package com.loopwright.api.request;
 
+import com.loopwright.api.plant.ResolvedPlant;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.DesignSpec;

@@ -1,5 +1,7 @@
 package com.loopwright.api.request;
 
+import com.loopwright.api.plant.CanonicalPlantInput;
+
 /**
  * Body of POST /v1/verifications: a plant, gains the caller already has, optional specs to judge pass/fail
  * (overshootPercent, settlingTime or riseTime, settlingBandPercent, stepSize), optional performance weights, and the

@@ -18,6 +18,7 @@ import static com.loopwright.api.request.FieldLimits.MIN_TIME_SECONDS;
 import static com.loopwright.api.request.VerifyLimits.MAX_ABS_GAIN;
 import static com.loopwright.api.request.VerifyLimits.MAX_WEIGHT;
 
+import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
