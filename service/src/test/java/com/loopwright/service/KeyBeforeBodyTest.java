@@ -117,6 +117,24 @@ class KeyBeforeBodyTest {
     }
 
     @Test
+    void aChunkedBodyWithoutAKeyIsDroppedOnlyUpToTheDrainBoundThenCut() throws Exception {
+        // One chunk announced at 8 request caps; 4 caps (the drain bound) and 64 KiB of it sent, then nothing more.
+        int sent = 4 * BUDGET_BYTES + (64 << 10);
+        byte[] part = new byte[sent];
+        java.util.Arrays.fill(part, (byte) ' ');
+        try (LiveServer server = keyedServer();
+             RawExchange socket = new RawExchange(server.app().port(), 10_000)) {
+            socket.send(head("/v1/designs", "Transfer-Encoding: chunked\r\n")
+                    + Integer.toHexString(8 * BUDGET_BYTES) + "\r\n");
+            RawExchange.Reply reply = socket.send(part).read();
+            assertEquals(401, reply.status(), reply.body());
+            assertEquals("close", reply.header("Connection"));
+            assertEquals(-1, socket.in().read(), "the connection is closed after the answer");
+            assertEquals(BUDGET_BYTES, availableBudget(server));
+        }
+    }
+
+    @Test
     void aRequestWithTheKeyStillReservesItsBodyAsBefore() throws Exception {
         try (LiveServer server = keyedServer();
              RawExchange socket = new RawExchange(server.app().port(), 10_000)) {

@@ -62,9 +62,6 @@ public final class RequestBodyGate extends Handler.Wrapper {
     /** The header-only test a request with a body must pass before any of the body is admitted. */
     @FunctionalInterface
     public interface Admission {
-        /** Allows every body. */
-        Admission ALL = request -> true;
-
         /** True when the body may reserve budget and be read; false withholds it (see the class comment). */
         boolean admits(Request request);
     }
@@ -282,7 +279,7 @@ public final class RequestBodyGate extends Handler.Wrapper {
                     }
                 }
                 if (last) {
-                    handOn();
+                    handOn(false);
                     return;
                 }
             }
@@ -347,11 +344,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
          */
         private void endDrain(boolean cut) {
             if (refusal.problem() == null) {
-                if (cut) {
-                    response.getHeaders().put(HttpHeader.CONNECTION, "close");
-                }
                 length = 0;
-                handOn();
+                handOn(cut);
                 return;
             }
             if (finished.compareAndSet(false, true)) {
@@ -363,12 +357,18 @@ public final class RequestBodyGate extends Handler.Wrapper {
             }
         }
 
-        /** The whole body is here: keep only its own bytes reserved and hand the request on to a request thread. */
-        private void handOn() {
+        /**
+         * The whole body is here (or, withheld, dropped): keep only its own bytes reserved and hand the request on to
+         * a request thread; {@code closing} when unread bytes remain, so the connection closes after the answer.
+         */
+        private void handOn(boolean closing) {
             if (!finished.compareAndSet(false, true)) {
                 return;
             }
             cancelRateCheck();
+            if (closing) {
+                response.getHeaders().put(HttpHeader.CONNECTION, "close");
+            }
             if (chunked && length < reserved) {
                 budget.release(reserved - length);
                 reserved = length;
