@@ -189,7 +189,7 @@ public final class LoopwrightApp {
         });
     }
 
-    /** Counts the requests the body gate answers itself, labelled by the route their path fits. */
+    /** Counts and logs the requests the body gate answers itself, labelled by the route their path fits. */
     private static RequestBodyGate.Observer gateObserver(Metrics metrics, RouteTable.Matcher paths) {
         return new RequestBodyGate.Observer() {
             @Override
@@ -199,7 +199,9 @@ public final class LoopwrightApp {
 
             @Override
             public void answered(String method, String path, int status, long elapsedNanos) {
-                metrics.requestAnsweredByHttpLayer(paths.label(path), method, status, elapsedNanos / 1e9);
+                String route = paths.label(path);
+                metrics.requestAnsweredByHttpLayer(route, method, status, elapsedNanos / 1e9);
+                logAccess(method, route, status, elapsedNanos / 1e9);
             }
         };
     }
@@ -225,12 +227,17 @@ public final class LoopwrightApp {
         if (started != null) {
             metrics.requestFinished(route, ctx.method().name(), status, seconds);
         }
+        logAccess(ctx.method().name(), route, status, seconds);
+        MDC.remove(RequestIds.MDC_KEY);
+    }
+
+    /** One access line: method (a bounded label), route label, status, milliseconds to one decimal. */
+    private static void logAccess(String method, String route, int status, double seconds) {
         if (ACCESS.isInfoEnabled()) {
             // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
-            ACCESS.info(Metrics.methodLabel(ctx.method().name()) + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
+            ACCESS.info(Metrics.methodLabel(method) + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
                     + " ms");
         }
-        MDC.remove(RequestIds.MDC_KEY);
     }
 
     private static com.loopwright.api.problem.Problem statusProblem(int status) {

@@ -1,10 +1,17 @@
 package com.loopwright.service;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import ch.qos.logback.classic.Level;
+import ch.qos.logback.classic.Logger;
+import ch.qos.logback.classic.spi.ILoggingEvent;
+import ch.qos.logback.core.read.ListAppender;
 
 import java.util.HashMap;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
+import org.slf4j.LoggerFactory;
 
 /**
  * Requests the HTTP layer refuses before the application sees them (413, 408, 503, 400) are counted in
@@ -96,5 +103,26 @@ class GateRefusalMetricsTest {
             assertEquals(1, count(server, "/v1/models/fit", "POST", "400", 1));
             assertEquals(1, count(server, "/v1/designs/high-order", "POST", "503", 1));
         }
+    }
+
+    @Test
+    void aRefusalWritesOneAccessLineLikeAnyRequest() throws Exception {
+        Logger access = (Logger) LoggerFactory.getLogger("com.loopwright.access");
+        ListAppender<ILoggingEvent> captured = new ListAppender<>();
+        captured.start();
+        Level before = access.getLevel();
+        access.setLevel(Level.INFO);
+        access.addAppender(captured);
+        try (LiveServer server = start(Map.of());
+             RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
+            assertEquals(413, socket.send(head("POST", "/v1/designs/plots/bode", "Content-Length: " + (CAP_BYTES + 1)
+                    + "\r\nExpect: 100-continue\r\n")).read().status());
+        } finally {
+            access.detachAppender(captured);
+            access.setLevel(before);
+        }
+        assertEquals(1, captured.list.size(), captured.list.toString());
+        String line = captured.list.get(0).getFormattedMessage();
+        assertTrue(line.matches("POST /v1/designs/plots/\\{figure} 413 [0-9.]+ ms"), line);
     }
 }
