@@ -1,5 +1,8 @@
 package com.loopwright.service;
 
+import static io.javalin.http.HandlerType.GET;
+import static io.javalin.http.HandlerType.POST;
+
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.exchange.FitExchange;
 import com.loopwright.api.exchange.HighOrderExchange;
@@ -26,15 +29,17 @@ import com.loopwright.service.routes.JsonExchangeRoute;
 import com.loopwright.service.routes.HealthRoute;
 import com.loopwright.service.routes.MetricsRoute;
 import com.loopwright.service.routes.ReadinessRoute;
+import com.loopwright.service.routes.RouteTable;
+import com.loopwright.service.routes.RouteTable.Route;
 import com.loopwright.service.security.ApiKeys;
 import com.loopwright.service.security.Cors;
+import com.loopwright.service.security.KeyedAccess;
 import com.loopwright.service.security.SecurityHeaders;
 import com.loopwright.service.routes.TakeawayRoute;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
-import io.javalin.http.HandlerType;
 import io.javalin.http.HttpResponseException;
-import java.util.Set;
+import java.util.List;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
 import org.eclipse.jetty.server.AbstractConnector;
@@ -49,18 +54,9 @@ import org.slf4j.MDC;
 /** Builds the Javalin application: routes, limits, security, observability and the problem+json error model. */
 public final class LoopwrightApp {
 
-    public static final String DESIGN_PATH = "/v1/designs";
-    public static final String FIT_PATH = "/v1/models/fit";
-    public static final String HIGH_ORDER_PATH = "/v1/designs/high-order";
-    public static final String VERIFICATION_PATH = "/v1/verifications";
-
     private static final Logger LOG = LoggerFactory.getLogger(LoopwrightApp.class);
     private static final Logger ACCESS = LoggerFactory.getLogger("com.loopwright.access");
     private static final String STARTED_NANOS = "loopwright.startedNanos";
-    /** Route labels of the metrics; any other path is counted as "other" so that label values stay bounded. */
-    static final Set<String> ROUTES = Set.of(DESIGN_PATH, BatchRoute.PATH, ContractRoute.PATH, HealthRoute.PATH,
-            HealthRoute.LIVE_PATH, ReadinessRoute.PATH, MetricsRoute.PATH, FIT_PATH, HIGH_ORDER_PATH,
-            VERIFICATION_PATH, TakeawayRoute.PLOTS_PATH, TakeawayRoute.CONTROLLERS_PATH, DashboardRoute.PATH);
 
     private LoopwrightApp() {
     }
@@ -82,9 +78,6 @@ public final class LoopwrightApp {
         ComputePool pool = new ComputePool(config.workerThreads(), config.queueCapacity(),
                 config.computeDeadlineMillis(), mapper);
         Metrics metrics = new Metrics(pool::activeWorkers, pool::queuedDesigns);
-        RequestBodyGate bodies = new RequestBodyGate(config.maxRequestBytes(), config.http(), new CoreProblems(mapper),
-                metrics::bodyRefused);
-        metrics.observeBodyBudget(bodies::availableBodyBytes);
         StreamCuts cuts = new StreamCuts();
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
@@ -104,7 +97,28 @@ public final class LoopwrightApp {
         TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems,
                 pool);
         DashboardRoute dashboard = new DashboardRoute();
+        // Every endpoint, one line each: the table registers it, preflights it, keys it and labels its metrics.
+        RouteTable table = new RouteTable(List.of(
+                Route.keyed(POST, "/v1/designs", design),
+                Route.keyed(POST, BatchRoute.PATH, batch),
+                Route.keyed(POST, "/v1/models/fit", fits),
+                Route.keyed(POST, "/v1/designs/high-order", highOrderDesigns),
+                Route.keyed(POST, "/v1/verifications", verifications),
+                Route.keyed(POST, TakeawayRoute.PLOTS_PATH, plots),
+                Route.keyed(POST, TakeawayRoute.CONTROLLERS_PATH, controllers),
+                Route.open(GET, ContractRoute.PATH, new ContractRoute()),
+                Route.open(GET, HealthRoute.PATH, health),
+                Route.open(GET, HealthRoute.LIVE_PATH, health),
+                Route.open(GET, ReadinessRoute.PATH, new ReadinessRoute(draining::get, problems)),
+                Route.open(GET, MetricsRoute.PATH, new MetricsRoute(metrics)),
+                Route.open(GET, DashboardRoute.PATH, dashboard)));
         return Javalin.create(javalin -> {
+            RouteTable.Matcher paths = table.matcher(javalin.router);
+            KeyedAccess access = new KeyedAccess(keys, paths);
+            // The key is checked from the headers before a body is admitted: without one, no body budget is reserved.
+            RequestBodyGate bodies = new RequestBodyGate(config.maxRequestBytes(), config.http(),
+                    new CoreProblems(mapper), access::admitsBody, gateObserver(metrics, paths));
+            metrics.observeBodyBudget(bodies::availableBodyBytes);
             javalin.http.maxRequestSize = config.maxRequestBytes();
             javalin.http.prefer405over404 = true;
             javalin.startup.showJavalinBanner = false;
@@ -153,38 +167,14 @@ public final class LoopwrightApp {
                 ctx.header(RequestIds.HEADER, requestId);
                 SecurityHeaders.apply(ctx);
                 cors.decorate(ctx);
+                access.refuseWithheld(ctx);
             });
-            javalin.routes.before("/v1/*", ctx -> {
-                if (ctx.method() != HandlerType.OPTIONS) {
-                    keys.check(ctx.header("Authorization"), ctx.header(ApiKeys.HEADER));
-                }
-            });
-            javalin.routes.post(DESIGN_PATH, design);
-            javalin.routes.post(BatchRoute.PATH, batch);
-            javalin.routes.post(FIT_PATH, fits);
-            javalin.routes.post(HIGH_ORDER_PATH, highOrderDesigns);
-            javalin.routes.post(VERIFICATION_PATH, verifications);
-            if (cors.enabled()) {
-                javalin.routes.options(DESIGN_PATH, cors::preflight);
-                javalin.routes.options(BatchRoute.PATH, cors::preflight);
-                for (String path : new String[] {FIT_PATH, HIGH_ORDER_PATH, VERIFICATION_PATH, TakeawayRoute.PLOTS_PATH,
-                        TakeawayRoute.CONTROLLERS_PATH}) {
-                    javalin.routes.options(path, cors::preflight);
-                }
-            }
-            javalin.routes.get(ContractRoute.PATH, new ContractRoute());
-            javalin.routes.get(HealthRoute.PATH, health);
-            javalin.routes.get(HealthRoute.LIVE_PATH, health);
-            javalin.routes.get(ReadinessRoute.PATH, new ReadinessRoute(draining::get, problems));
-            javalin.routes.get(MetricsRoute.PATH, new MetricsRoute(metrics));
+            table.register(javalin.routes, access::check, cors.enabled() ? cors::preflight : null);
 
             javalin.routes.exception(ProblemException.class, (e, ctx) -> {
                 e.headers().forEach(ctx::header);
                 problems.write(ctx, e.problem());
             });
-            javalin.routes.post(TakeawayRoute.PLOTS_PATH, plots);
-            javalin.routes.post(TakeawayRoute.CONTROLLERS_PATH, controllers);
-            javalin.routes.get(DashboardRoute.PATH, dashboard);
             javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,
                     statusProblem(e.getStatus())));
             javalin.routes.exception(Exception.class, (e, ctx) -> {
@@ -195,32 +185,59 @@ public final class LoopwrightApp {
                     "no resource at this path; see GET /openapi.yaml")));
             javalin.routes.error(405, ctx -> problems.write(ctx, ProblemType.METHOD_NOT_ALLOWED.problem(
                     "this method is not supported on this path")));
-            javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics));
+            javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths));
         });
     }
 
-    /** The matched route template (e.g. /v1/designs/plots/{figure}), or "other": a bounded label set. */
-    private static String routeLabel(Context ctx) {
+    /** Counts and logs the requests the body gate answers itself, labelled by the route their path fits. */
+    private static RequestBodyGate.Observer gateObserver(Metrics metrics, RouteTable.Matcher paths) {
+        return new RequestBodyGate.Observer() {
+            @Override
+            public void bodyRefused(String reason) {
+                metrics.bodyRefused(reason);
+            }
+
+            @Override
+            public void answered(String method, String path, int status, long elapsedNanos) {
+                String route = paths.label(path);
+                metrics.requestAnsweredByHttpLayer(route, method, status, elapsedNanos / 1e9);
+                logAccess(method, route, status, elapsedNanos / 1e9);
+            }
+        };
+    }
+
+    /**
+     * The matched route template (e.g. /v1/designs/plots/{figure}); without a matched endpoint (401, 404, 405), the
+     * template the path fits; else "other": a bounded label set.
+     */
+    private static String routeLabel(Context ctx, RouteTable table, RouteTable.Matcher paths) {
         var matched = ctx.endpoints().lastHttpEndpoint();
-        String template = matched == null ? ctx.path() : matched.path;
-        return ROUTES.contains(template) ? template : "other";
+        if (matched == null) {
+            return paths.label(ctx.path());
+        }
+        return table.paths().contains(matched.path) ? matched.path : "other";
     }
 
     /** Counts the request, writes the access line and clears the request id from the thread. */
-    private static void finish(Context ctx, Metrics metrics) {
+    private static void finish(Context ctx, Metrics metrics, RouteTable table, RouteTable.Matcher paths) {
         Long started = ctx.attribute(STARTED_NANOS);
         double seconds = started == null ? 0 : (System.nanoTime() - started) / 1e9;
-        String route = routeLabel(ctx);
+        String route = routeLabel(ctx, table, paths);
         int status = ctx.statusCode();
         if (started != null) {
             metrics.requestFinished(route, ctx.method().name(), status, seconds);
         }
+        logAccess(ctx.method().name(), route, status, seconds);
+        MDC.remove(RequestIds.MDC_KEY);
+    }
+
+    /** One access line: method (a bounded label), route label, status, milliseconds to one decimal. */
+    private static void logAccess(String method, String route, int status, double seconds) {
         if (ACCESS.isInfoEnabled()) {
             // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
-            ACCESS.info(Metrics.methodLabel(ctx.method().name()) + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
+            ACCESS.info(Metrics.methodLabel(method) + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
                     + " ms");
         }
-        MDC.remove(RequestIds.MDC_KEY);
     }
 
     private static com.loopwright.api.problem.Problem statusProblem(int status) {

@@ -40,6 +40,11 @@ final class RawExchange implements AutoCloseable {
         return this;
     }
 
+    /** The raw input, e.g. to see the server close the connection (read() == -1). */
+    InputStream in() {
+        return in;
+    }
+
     boolean hasReply() throws IOException {
         return in.available() > 0;
     }

@@ -9,7 +9,6 @@ import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
 import java.util.concurrent.atomic.AtomicBoolean;
-import java.util.function.Consumer;
 import org.eclipse.jetty.http.HttpException;
 import org.eclipse.jetty.http.HttpFields;
 import org.eclipse.jetty.http.HttpHeader;
@@ -26,6 +25,11 @@ import org.slf4j.LoggerFactory;
  * Admits and reads request bodies before the application sees them, so that no request thread waits on a slow
  * client and the heap never holds more bodies than a fixed budget.
  * <ol>
+ *   <li>A request that fails the header-only admission test (on a keyed route: no accepted API key) reserves
+ *       nothing: its body is read and dropped, and the request goes on without it (marked {@link #WITHHELD}), so
+ *       that the application answers it (401/403) as it would any other. With {@code Expect: 100-continue}, or a
+ *       body over {@link #DRAIN_FACTOR} request caps, nothing is read and the connection closes after the
+ *       answer.</li>
  *   <li>A body longer than the request cap is refused with 413 at once (with {@code Expect: 100-continue}, before
  *       the client sends it).</li>
  *   <li>Each body reserves its Content-Length (a chunked body: the request cap) from the in-flight byte budget
@@ -37,7 +41,8 @@ import org.slf4j.LoggerFactory;
  *   <li>A body that cannot be read (bad chunk framing, connection closed mid-body) is a 400 problem and one
  *       WARN line without a stack trace.</li>
  * </ol>
- * Only then is the request handed on, with the whole body in memory, to a request thread.
+ * Only then is the request handed on, with the whole body in memory, to a request thread. Every request this gate
+ * answers itself is reported to the {@link Observer} (the application never sees it).
  */
 public final class RequestBodyGate extends Handler.Wrapper {
 
@@ -49,7 +54,26 @@ public final class RequestBodyGate extends Handler.Wrapper {
     static final int MAX_LOGGED_CHARS = 120;
     /** Refused bodies up to this many request caps are read and dropped before the answer; larger ones are cut. */
     static final long DRAIN_FACTOR = 4;
+    /** Request attribute (Boolean.TRUE) of a request handed on without its body: it failed the admission test. */
+    public static final String WITHHELD = "loopwright.bodyWithheld";
     private static final Logger LOG = LoggerFactory.getLogger(RequestBodyGate.class);
+    private static final ByteBuffer NO_BYTES = ByteBuffer.allocate(0);
+
+    /** The header-only test a request with a body must pass before any of the body is admitted. */
+    @FunctionalInterface
+    public interface Admission {
+        /** True when the body may reserve budget and be read; false withholds it (see the class comment). */
+        boolean admits(Request request);
+    }
+
+    /** Told what the gate refuses and answers. */
+    public interface Observer {
+        /** A body refused, by reason: "too_large", "budget", "slow" or "unreadable". */
+        void bodyRefused(String reason);
+
+        /** The gate answered a request itself (status, time since the gate saw it); the path is the raw path. */
+        void answered(String method, String path, int status, long elapsedNanos);
+    }
 
     private final long maxBodyBytes;
     private final long budgetBytes;
@@ -57,19 +81,23 @@ public final class RequestBodyGate extends Handler.Wrapper {
     private final long minBytesPerSecond;
     private final long graceNanos;
     private final CoreProblems problems;
-    private final Consumer<String> refusals;
+    private final Admission admission;
+    private final Observer observer;
 
     /**
-     * @param refusals told the reason of every refused body ("too_large", "budget", "slow", "unreadable")
+     * @param admission the header-only test run before a body is admitted (e.g. the API key of a keyed route)
+     * @param observer  told of every refused body and every request answered here
      */
-    public RequestBodyGate(long maxBodyBytes, HttpLimits limits, CoreProblems problems, Consumer<String> refusals) {
+    public RequestBodyGate(long maxBodyBytes, HttpLimits limits, CoreProblems problems, Admission admission,
+                           Observer observer) {
         this.maxBodyBytes = maxBodyBytes;
         this.budgetBytes = limits.inFlightBodyBytes();
         this.budget = new Semaphore(Math.toIntExact(budgetBytes));
         this.minBytesPerSecond = limits.minBodyBytesPerSecond();
         this.graceNanos = TimeUnit.MILLISECONDS.toNanos(limits.bodyGraceMillis());
         this.problems = problems;
-        this.refusals = refusals;
+        this.admission = admission;
+        this.observer = observer;
     }
 
     /** Bytes of the in-flight body budget not reserved right now. */
@@ -90,22 +118,51 @@ public final class RequestBodyGate extends Handler.Wrapper {
         if (declared <= 0 && !chunked) {
             return next.handle(request, response, callback);
         }
+        long startNanos = System.nanoTime();
+        if (!admission.admits(request)) {
+            withhold(next, request, response, callback, declared, startNanos);
+            return true;
+        }
         if (declared > maxBodyBytes) {
-            refuse(request, response, callback, declared, "too_large", ProblemType.PAYLOAD_TOO_LARGE.problem(
+            refuse(request, response, callback, startNanos, declared, "too_large", ProblemType.PAYLOAD_TOO_LARGE.problem(
                     "the body of " + declared + " bytes exceeds the request size cap of " + maxBodyBytes + " bytes"),
                     Map.of());
             return true;
         }
         int reserved = (int) (chunked ? maxBodyBytes : declared);
         if (!budget.tryAcquire(reserved)) {
-            refuse(request, response, callback, reserved, "budget", ProblemType.SERVICE_OVERLOADED.problem(
+            refuse(request, response, callback, startNanos, reserved, "budget", ProblemType.SERVICE_OVERLOADED.problem(
                     "the service is reading as many request bodies as its memory budget of " + budgetBytes
                     + " bytes allows; retry after " + RETRY_AFTER_SECONDS + " s"),
                     Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS)));
             return true;
         }
-        new BodyRead(next, request, response, callback, chunked, reserved, null).start();
+        new BodyRead(next, request, response, callback, chunked, reserved, null, startNanos).start();
         return true;
+    }
+
+    /**
+     * Hands on a request that failed the admission test, without its body and without reserving budget: the body is
+     * read and dropped first (see {@link #refuse} for why), unless the client waits for 100 Continue or the body is
+     * over {@link #DRAIN_FACTOR} request caps; then nothing is read and the connection closes after the answer.
+     */
+    private void withhold(Handler next, Request request, Response response, Callback callback, long declared,
+                          long startNanos) {
+        request.setAttribute(WITHHELD, Boolean.TRUE);
+        boolean expectsContinue = request.getHeaders().contains(HttpHeader.EXPECT, "100-continue");
+        if (expectsContinue || declared > DRAIN_FACTOR * maxBodyBytes) {
+            response.getHeaders().put(HttpHeader.CONNECTION, "close");
+            Request empty = new BufferedRequest(request, NO_BYTES.duplicate());
+            try {
+                if (!next.handle(empty, response, callback)) {
+                    Response.writeError(empty, response, callback, 404);
+                }
+            } catch (Throwable failure) {
+                Response.writeError(empty, response, callback, failure);
+            }
+            return;
+        }
+        new BodyRead(next, request, response, callback, false, 0, Refusal.WITHHELD, startNanos).start();
     }
 
     /**
@@ -114,21 +171,31 @@ public final class RequestBodyGate extends Handler.Wrapper {
      * the body already, so it is read and dropped first (at the minimum rate, nothing kept): closing a connection
      * with unread bytes resets it, and the client may lose the answer.
      */
-    private void refuse(Request request, Response response, Callback callback, long length, String reason,
-                        Problem problem, Map<String, String> headers) {
-        refusals.accept(reason);
+    private void refuse(Request request, Response response, Callback callback, long startNanos, long length,
+                        String reason, Problem problem, Map<String, String> headers) {
+        observer.bodyRefused(reason);
         boolean expectsContinue = request.getHeaders().contains(HttpHeader.EXPECT, "100-continue");
         if (expectsContinue || length > DRAIN_FACTOR * maxBodyBytes) {
-            Map<String, String> closing = new java.util.HashMap<>(headers);
-            closing.put("Connection", "close");
-            problems.write(response, callback, problem, closing);
+            observer.answered(request.getMethod(), request.getHttpURI().getPath(), problem.status(),
+                    System.nanoTime() - startNanos);
+            problems.write(response, callback, problem, closing(headers));
             return;
         }
-        new BodyRead(null, request, response, callback, false, 0, new Refusal(problem, headers)).start();
+        new BodyRead(null, request, response, callback, false, 0, new Refusal(problem, headers), startNanos).start();
     }
 
-    /** The answer a drained body gets once it has arrived. */
+    private static Map<String, String> closing(Map<String, String> headers) {
+        Map<String, String> closing = new java.util.HashMap<>(headers);
+        closing.put("Connection", "close");
+        return closing;
+    }
+
+    /**
+     * What a drained body gets once it has arrived: this answer, or, for {@link #WITHHELD} (no problem), the request
+     * handed on without its body.
+     */
     private record Refusal(Problem problem, Map<String, String> headers) {
+        static final Refusal WITHHELD = new Refusal(null, Map.of());
     }
 
     private static String shortened(String text) {
@@ -145,7 +212,7 @@ public final class RequestBodyGate extends Handler.Wrapper {
         private final boolean chunked;
         /** Non-null when the body is only drained: dropped as it arrives, then this answer. */
         private final Refusal refusal;
-        private final long startNanos = System.nanoTime();
+        private final long startNanos;
         /** Set once: the body was handed on, or the request was answered here. */
         private final AtomicBoolean finished = new AtomicBoolean();
         private final AtomicBoolean released = new AtomicBoolean();
@@ -155,8 +222,9 @@ public final class RequestBodyGate extends Handler.Wrapper {
         private volatile Scheduler.Task rateCheck;
 
         BodyRead(Handler next, Request request, Response response, Callback callback, boolean chunked, int reserved,
-                 Refusal refusal) {
+                 Refusal refusal, long startNanos) {
             this.refusal = refusal;
+            this.startNanos = startNanos;
             this.next = next;
             this.request = request;
             this.response = response;
@@ -184,12 +252,15 @@ public final class RequestBodyGate extends Handler.Wrapper {
                     return;
                 }
                 boolean last = chunk.isLast();
+                boolean cut = false;
                 try {
                     ByteBuffer bytes = chunk.getByteBuffer();
                     int count = bytes.remaining();
                     if (refusal != null) {
                         length += count; // dropped
                         bytes.position(bytes.limit());
+                        // A drain is bounded too: past DRAIN_FACTOR request caps the rest is not read.
+                        cut = !last && length > DRAIN_FACTOR * maxBodyBytes;
                         continue;
                     }
                     if ((long) length + count > reserved) {
@@ -203,12 +274,12 @@ public final class RequestBodyGate extends Handler.Wrapper {
                     length += count;
                 } finally {
                     chunk.release();
-                    if (refusal != null && last) {
-                        answerRefusal();
+                    if (refusal != null && (last || cut)) {
+                        endDrain(cut);
                     }
                 }
                 if (last) {
-                    handOn();
+                    handOn(false);
                     return;
                 }
             }
@@ -259,26 +330,45 @@ public final class RequestBodyGate extends Handler.Wrapper {
             }
             cancelRateCheck();
             release();
-            refusals.accept(refusal);
+            observer.bodyRefused(refusal);
+            observer.answered(request.getMethod(), request.getHttpURI().getPath(), problem.status(),
+                    System.nanoTime() - startNanos);
             LOG.warn("request body not accepted: {} {} answered {} after {} bytes: {}", shortened(request.getMethod()),
                     shortened(request.getHttpURI().getPath()), problem.status(), length, problem.detail());
             problems.write(response, callback, problem, headers);
         }
 
-        /** A refused body has been dropped: the refusal, on a connection that can carry the next request. */
-        private void answerRefusal() {
+        /**
+         * A drained body has been dropped (or cut, then the connection closes after the answer): the refusal, or the
+         * withheld request handed on without its body.
+         */
+        private void endDrain(boolean cut) {
+            if (refusal.problem() == null) {
+                length = 0;
+                handOn(cut);
+                return;
+            }
             if (finished.compareAndSet(false, true)) {
                 cancelRateCheck();
-                problems.write(response, callback, refusal.problem(), refusal.headers());
+                observer.answered(request.getMethod(), request.getHttpURI().getPath(), refusal.problem().status(),
+                        System.nanoTime() - startNanos);
+                problems.write(response, callback, refusal.problem(),
+                        cut ? closing(refusal.headers()) : refusal.headers());
             }
         }
 
-        /** The whole body is here: keep only its own bytes reserved and hand the request on to a request thread. */
-        private void handOn() {
+        /**
+         * The whole body is here (or, withheld, dropped): keep only its own bytes reserved and hand the request on to
+         * a request thread; {@code closing} when unread bytes remain, so the connection closes after the answer.
+         */
+        private void handOn(boolean closing) {
             if (!finished.compareAndSet(false, true)) {
                 return;
             }
             cancelRateCheck();
+            if (closing) {
+                response.getHeaders().put(HttpHeader.CONNECTION, "close");
+            }
             if (chunked && length < reserved) {
                 budget.release(reserved - length);
                 reserved = length;

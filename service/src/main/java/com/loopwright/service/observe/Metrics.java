@@ -85,6 +85,18 @@ public final class Metrics {
      */
     public void requestFinished(String route, String method, int status, double seconds) {
         inFlight.decrementAndGet();
+        count(route, method, status, seconds);
+    }
+
+    /**
+     * Counts one request the HTTP layer answered before the application saw it (a refused body: 413, 408, 400,
+     * 503); it was never in flight. The same bounded labels as {@link #requestFinished}.
+     */
+    public void requestAnsweredByHttpLayer(String route, String method, int status, double seconds) {
+        count(route, method, status, seconds);
+    }
+
+    private void count(String route, String method, int status, double seconds) {
         // A small record as the key: no label string is built per request (that happens only in scrape()).
         Series key = new Series(route, methodLabel(method), status >= 100 && status <= 599 ? status : 599);
         Histogram histogram = requests.get(key);

@@ -35,15 +35,25 @@ public final class ApiKeys {
         return !digests.isEmpty();
     }
 
+    /**
+     * Whether {@link #check} would pass, without building a problem: the header-only test the HTTP layer makes
+     * before it admits a body.
+     */
+    public boolean accepts(String authorization, String apiKeyHeader) {
+        if (!enabled()) {
+            return true;
+        }
+        String presented = presented(authorization, apiKeyHeader);
+        return presented != null && !presented.isEmpty() && presented.length() <= MAX_PRESENTED_LENGTH
+                && matches(presented);
+    }
+
     /** Throws a 401 problem without a credential, 403 with a wrong one; returns quietly when authorised. */
     public void check(String authorization, String apiKeyHeader) {
         if (!enabled()) {
             return;
         }
-        String presented = apiKeyHeader;
-        if (presented == null && authorization != null && authorization.regionMatches(true, 0, BEARER, 0, BEARER.length())) {
-            presented = authorization.substring(BEARER.length()).trim();
-        }
+        String presented = presented(authorization, apiKeyHeader);
         if (presented == null || presented.isEmpty()) {
             throw new ProblemException(ProblemType.UNAUTHORIZED.problem(
                     "this service requires an API key: send Authorization: Bearer <key> or " + HEADER + ": <key>"),
@@ -52,6 +62,15 @@ public final class ApiKeys {
         if (presented.length() > MAX_PRESENTED_LENGTH || !matches(presented)) {
             throw new ProblemException(ProblemType.FORBIDDEN.problem("the API key is not accepted"));
         }
+    }
+
+    /** The X-Api-Key header, else the token of an "Authorization: Bearer" header, else null. */
+    private static String presented(String authorization, String apiKeyHeader) {
+        if (apiKeyHeader == null && authorization != null
+                && authorization.regionMatches(true, 0, BEARER, 0, BEARER.length())) {
+            return authorization.substring(BEARER.length()).trim();
+        }
+        return apiKeyHeader;
     }
 
     private boolean matches(String presented) {

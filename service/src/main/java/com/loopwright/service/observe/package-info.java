@@ -1,0 +1,7 @@
+/**
+ * Observability: request ids (echoed, and in every log line of a request) and the Prometheus metrics.
+ *
+ * <p>Invariant: every label value comes from a fixed set (route templates, known methods, status codes, outcomes,
+ * refusal reasons), so no client can grow the number of series past {@code Metrics.MAX_SERIES}.
+ */
+package com.loopwright.service.observe;
