@@ -6,7 +6,7 @@ import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.frequency.RationalLoop;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.robustness.FrequencyAnalyzer;
 import com.loopwright.solver.robustness.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;

@@ -21,7 +21,7 @@ import static com.loopwright.api.request.VerifyLimits.MAX_WEIGHT;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.loop.FeedbackGains;
 import java.util.ArrayList;
 import java.util.List;
 

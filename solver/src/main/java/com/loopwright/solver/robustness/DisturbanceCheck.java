@@ -1,5 +1,8 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.simulation.DisturbanceProfile;
+import com.loopwright.solver.simulation.DisturbanceResponse;
+
 /**
  * One disturbance profile and its response.
  *

@@ -1,5 +1,14 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.DisturbanceProfile;
+import com.loopwright.solver.simulation.DisturbanceResponse;
+import com.loopwright.solver.simulation.DisturbanceSimulator;
+import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.numeric.SafeRounding;
@@ -45,7 +54,7 @@ public final class RobustnessVerifier {
     private final UncertaintyAnalyzer uncertainty = new UncertaintyAnalyzer();
     private final FrequencyAnalyzer frequency = new FrequencyAnalyzer();
     private final SaturatedStepSimulator saturated = new SaturatedStepSimulator();
-    private final SampledLoopSimulator sampled = new SampledLoopSimulator();
+    private final DelayedSampledStepSimulator sampled = new DelayedSampledStepSimulator();
     private final DisturbanceSimulator disturbance = new DisturbanceSimulator();
     private final DiscretePoleMatching discrete = new DiscretePoleMatching();
 
@@ -218,13 +227,13 @@ public final class RobustnessVerifier {
         if (!fitsIntervals(ts, horizon)) {
             throw new CapExceededException(option, -1, String.format("the sampled simulation over %.6g s at"
                     + " Ts = %.6g s needs %.0f sample intervals, more than the cap %d: use Ts >= %.6g s", horizon, ts,
-                    Math.ceil(horizon / ts), SampledLoopSimulator.MAX_SAMPLE_INTERVALS,
+                    Math.ceil(horizon / ts), DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS,
                     shortestPeriod(horizon)));
         }
     }
 
     private static boolean fitsIntervals(double ts, double horizon) {
-        return Math.ceil(horizon / ts) <= SampledLoopSimulator.MAX_SAMPLE_INTERVALS;
+        return Math.ceil(horizon / ts) <= DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS;
     }
 
     /**
@@ -232,7 +241,7 @@ public final class RobustnessVerifier {
      * one unit of the last printed digit while the interval count (a rounded division) still exceeds the cap.
      */
     static double shortestPeriod(double horizon) {
-        double advice = SafeRounding.atLeast(horizon / SampledLoopSimulator.MAX_SAMPLE_INTERVALS, ADVICE_DIGITS);
+        double advice = SafeRounding.atLeast(horizon / DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS, ADVICE_DIGITS);
         for (int i = 0; i < MAX_ADVICE_STEPS && !fitsIntervals(advice, horizon); i++) {
             double unit = Math.pow(10, Math.floor(Math.log10(advice)) - (ADVICE_DIGITS - 1));
             advice = SafeRounding.atLeast(advice + unit, ADVICE_DIGITS);
@@ -307,7 +316,7 @@ public final class RobustnessVerifier {
                           double horizon, double ts, int[] evaluations) {
         Cancellation.checkpoint(); // one simulation of the longest-period search
         evaluations[0]++;
-        if (Math.ceil(horizon / ts) > SampledLoopSimulator.MAX_SAMPLE_INTERVALS) {
+        if (Math.ceil(horizon / ts) > DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS) {
             return false;
         }
         try {

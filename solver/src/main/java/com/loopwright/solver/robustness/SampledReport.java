@@ -1,5 +1,9 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
+
 /**
  * The loop implemented with a sampler and hold.
  *

@@ -1,5 +1,8 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
+
 /**
  * The reference step with an actuator limit.
  *

@@ -6,7 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.robustness.FrequencyAnalyzer;
 import com.loopwright.solver.robustness.LoopMargins;
 import org.hipparchus.complex.Complex;

@@ -1,5 +1,9 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.simulation.DisturbanceProfile;
+import com.loopwright.solver.simulation.DisturbanceResponse;
+import com.loopwright.solver.simulation.DisturbanceSimulator;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;

@@ -1,5 +1,8 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
+import com.loopwright.solver.simulation.DisturbanceProfile;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
@@ -71,7 +74,7 @@ class RobustnessVerifierTest {
         CapExceededException cap = assertThrows(CapExceededException.class, () -> verifier.verify(IndexingAxis.PLANT,
                 IndexingAxis.GAINS, 1, LIMITS, IndexingAxis.performanceOutput(), null, options(1e-7, false, null)));
         assertEquals(CapExceededException.Option.SAMPLE_PERIOD, cap.option());
-        assertTrue(cap.getMessage().contains(String.valueOf(SampledLoopSimulator.MAX_SAMPLE_INTERVALS)));
+        assertTrue(cap.getMessage().contains(String.valueOf(DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS)));
         assertThrows(UnstableLoopException.class, () -> verifier.verify(new CanonicalPlant(0, 0.48, 400, 400),
                 new FeedbackGains(-1, 0.1, 1), 1, LIMITS, IndexingAxis.performanceOutput(), null,
                 options(null, false, null)));
@@ -99,8 +102,8 @@ class RobustnessVerifierTest {
         for (int i = 0; i < 1000; i++) {
             double horizon = Math.pow(10, -2 + 5 * random.nextDouble());
             double advised = RobustnessVerifier.shortestPeriod(horizon);
-            assertTrue(Math.ceil(horizon / advised) <= SampledLoopSimulator.MAX_SAMPLE_INTERVALS, "" + horizon);
-            double exact = horizon / SampledLoopSimulator.MAX_SAMPLE_INTERVALS;
+            assertTrue(Math.ceil(horizon / advised) <= DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS, "" + horizon);
+            double exact = horizon / DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS;
             assertTrue(advised - exact <= 2 * Math.pow(10, Math.floor(Math.log10(exact)) - 5), "" + horizon);
         }
     }

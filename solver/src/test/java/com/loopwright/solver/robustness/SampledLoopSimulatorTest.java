@@ -1,5 +1,10 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertNull;
@@ -12,7 +17,7 @@ import org.junit.jupiter.api.Test;
 
 class SampledLoopSimulatorTest {
 
-    private final SampledLoopSimulator simulator = new SampledLoopSimulator();
+    private final DelayedSampledStepSimulator simulator = new DelayedSampledStepSimulator();
 
     @Test
     void sampledMetricsConvergeToTheContinuousOnesAsTsShrinks() {

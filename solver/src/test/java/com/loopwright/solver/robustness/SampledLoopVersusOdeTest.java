@@ -1,5 +1,8 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
+import com.loopwright.solver.simulation.DenseTrajectory;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import org.hipparchus.ode.ODEState;
@@ -19,7 +22,7 @@ class SampledLoopVersusOdeTest {
         double ts = 4e-3;
         double delay = 2.4 * ts; // two whole samples plus a fraction: exercises the split hold
         double horizon = 0.3;
-        DenseTrajectory simulated = new SampledLoopSimulator().simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, ts,
+        DenseTrajectory simulated = new DelayedSampledStepSimulator().simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, ts,
                 delay, horizon);
         double a0 = IndexingAxis.PLANT.a0();
         double a1 = IndexingAxis.PLANT.a1();

@@ -1,5 +1,9 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 

@@ -1,5 +1,8 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import org.hipparchus.analysis.UnivariateFunction;

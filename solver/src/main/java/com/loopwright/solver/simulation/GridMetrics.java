@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
 /**
  * Step metrics of a dense trajectory (saturated, sampled or delayed loops, where the exact event refinement of the
@@ -17,7 +17,7 @@ public record GridMetrics(Double riseTimeSeconds, Double settlingTimeSeconds, do
      * @param finalValue   y_inf, non-zero
      * @param bandFraction settling band as a fraction of |y_inf|
      */
-    static GridMetrics of(DenseTrajectory trajectory, double finalValue, double bandFraction) {
+    public static GridMetrics of(DenseTrajectory trajectory, double finalValue, double bandFraction) {
         double[] t = trajectory.timeSeconds();
         double[] y = trajectory.x1();
         double[] u = trajectory.control();

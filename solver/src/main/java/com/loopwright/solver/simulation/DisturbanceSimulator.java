@@ -1,5 +1,7 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.linalg.MatrixExponential;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
@@ -17,16 +19,16 @@ import org.ejml.dense.row.CommonOps_DDRM;
  * ||z||_2 / ||w||_2 is the exact finite-horizon gain of the held signal from zero state, which never exceeds the
  * H-infinity norm of w to z.
  */
-final class DisturbanceSimulator {
+public final class DisturbanceSimulator {
 
-    static final int GRID_POINTS = SaturatedStepSimulator.GRID_POINTS;
+    public static final int GRID_POINTS = SaturatedStepSimulator.GRID_POINTS;
     /** Recovery band: 2% of the peak deviation (common practice for a settling band). */
-    static final double RECOVERY_BAND_FRACTION = 0.02;
+    public static final double RECOVERY_BAND_FRACTION = 0.02;
 
     /**
      * @param performanceOutput C_z, p x 2 (z = C_z x); for example [[rho1, 0], [0, rho2], [-k1, -k2]]
      */
-    DisturbanceResponse simulate(CanonicalPlant plant, FeedbackGains gains, DisturbanceProfile profile,
+    public DisturbanceResponse simulate(CanonicalPlant plant, FeedbackGains gains, DisturbanceProfile profile,
                                  DMatrixRMaj performanceOutput, double horizonSeconds) {
         DMatrixRMaj closed = LoopMatrices.closedLoop(plant, gains);
         DMatrixRMaj b1 = LoopMatrices.disturbanceInput(plant);
@@ -66,7 +68,7 @@ final class DisturbanceSimulator {
             outputEnergySquared += quadratic(outputWeight, xi);
             positionEnergySquared += quadratic(positionWeight, xi);
             disturbanceEnergySquared += w[k] * w[k] * h;
-            double[] next = Propagation.apply(ad, bd, x, w[k]);
+            double[] next = CheckedHoldStep.apply(ad, bd, x, w[k]);
             absoluteIntegral += 0.5 * h * (Math.abs(x[0]) + Math.abs(next[0]));
             x = next;
         }
@@ -111,7 +113,7 @@ final class DisturbanceSimulator {
     }
 
     /** W = integral_0^h e^(F' t) C'C e^(F t) dt by Van Loan's block exponential, C = [output, 0]. */
-    static DMatrixRMaj energyWeight(DMatrixRMaj closed, DMatrixRMaj b1, DMatrixRMaj output, double h) {
+    public static DMatrixRMaj energyWeight(DMatrixRMaj closed, DMatrixRMaj b1, DMatrixRMaj output, double h) {
         DMatrixRMaj f = new DMatrixRMaj(3, 3);
         CommonOps_DDRM.insert(closed, f, 0, 0);
         CommonOps_DDRM.insert(b1, f, 0, 2);

@@ -1,5 +1,7 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.numeric.Bisection;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
@@ -15,16 +17,16 @@ import org.ejml.data.DMatrixRMaj;
  * current mode inside the grid step. A switch back and forth within one grid step is not seen; the grid is
  * {@link #GRID_POINTS} points over the horizon, far finer than the loop's time constants.
  */
-final class SaturatedStepSimulator {
+public final class SaturatedStepSimulator {
 
     /** Grid points over the horizon; also the cap on the loop below. */
-    static final int GRID_POINTS = 20_001;
+    public static final int GRID_POINTS = 20_001;
     /** Mode switches handled inside one grid step. */
-    static final int MAX_SWITCHES_PER_STEP = 4;
+    public static final int MAX_SWITCHES_PER_STEP = 4;
 
     private enum Mode { LINEAR, HIGH, LOW }
 
-    DenseTrajectory simulate(CanonicalPlant plant, FeedbackGains gains, double stepSize, double limit,
+    public DenseTrajectory simulate(CanonicalPlant plant, FeedbackGains gains, double stepSize, double limit,
                              double horizonSeconds) {
         DMatrixRMaj open = LoopMatrices.openLoop(plant);
         DMatrixRMaj closed = LoopMatrices.closedLoop(plant, gains);
@@ -97,7 +99,7 @@ final class SaturatedStepSimulator {
         return command < -limit ? Mode.LOW : Mode.LINEAR;
     }
 
-    static double saturate(double command, double limit) {
+    public static double saturate(double command, double limit) {
         return Math.max(-limit, Math.min(limit, command));
     }
 
@@ -114,6 +116,6 @@ final class SaturatedStepSimulator {
             case HIGH -> limit;
             case LOW -> -limit;
         };
-        return Propagation.apply(hold, x, input);
+        return CheckedHoldStep.apply(hold, x, input);
     }
 }

@@ -1,5 +1,7 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
 import com.loopwright.solver.simulation.ZeroOrderHold;
@@ -16,20 +18,20 @@ import org.ejml.data.DMatrixRMaj;
  * zero-order hold: the delay is exact, not a Pade approximation. The state between samples is x(t_k + o) from
  * the exact hold over the offset o, on {@code substeps} equal offsets per interval.
  */
-final class SampledLoopSimulator {
+public final class DelayedSampledStepSimulator {
 
     /** Cap on simulated sample intervals. */
-    static final int MAX_SAMPLE_INTERVALS = 200_000;
+    public static final int MAX_SAMPLE_INTERVALS = 200_000;
     /** Cap on observation offsets inside one sample interval. */
-    static final int MAX_SUBSTEPS = 2_000;
+    public static final int MAX_SUBSTEPS = 2_000;
     /** Target total number of observation points; each interval has at least {@link #MIN_SUBSTEPS}. */
-    static final int TARGET_POINTS = 20_000;
-    static final int MIN_SUBSTEPS = 4;
+    public static final int TARGET_POINTS = 20_000;
+    public static final int MIN_SUBSTEPS = 4;
 
     /**
      * @throws IllegalArgumentException when the horizon needs more than {@value #MAX_SAMPLE_INTERVALS} intervals
      */
-    DenseTrajectory simulate(CanonicalPlant plant, FeedbackGains gains, double stepSize, double samplePeriodSeconds,
+    public DenseTrajectory simulate(CanonicalPlant plant, FeedbackGains gains, double stepSize, double samplePeriodSeconds,
                              double delaySeconds, double horizonSeconds) {
         double intervalsExact = Math.ceil(horizonSeconds / samplePeriodSeconds);
         if (!(intervalsExact <= MAX_SAMPLE_INTERVALS)) {
@@ -90,20 +92,20 @@ final class SampledLoopSimulator {
                 x2[0] = 0;
                 u[0] = fraction > 0 ? before : after;
             }
-            double[] atSplit = fraction > 0 ? Propagation.apply(adSplit, bdSplit, x, before) : x;
+            double[] atSplit = fraction > 0 ? CheckedHoldStep.apply(adSplit, bdSplit, x, before) : x;
             double[] end = x;
             for (int j = 1; j <= substeps; j++) {
                 double offset = samplePeriodSeconds * j / substeps;
                 double[] state;
                 double input;
                 if (fraction > 0 && offset <= fraction) {
-                    state = Propagation.apply(adOffset[j], bdOffset[j], x, before);
+                    state = CheckedHoldStep.apply(adOffset[j], bdOffset[j], x, before);
                     input = offset == fraction ? after : before;
                 } else if (fraction > 0) {
-                    state = Propagation.apply(adAfter[j], bdAfter[j], atSplit, after);
+                    state = CheckedHoldStep.apply(adAfter[j], bdAfter[j], atSplit, after);
                     input = after;
                 } else {
-                    state = Propagation.apply(adOffset[j], bdOffset[j], x, after);
+                    state = CheckedHoldStep.apply(adOffset[j], bdOffset[j], x, after);
                     input = after;
                 }
                 index++;

@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
 import java.util.SplittableRandom;
 

@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.loop;
 
 /**
  * A state-feedback law u = kr r - (k1 x1 + k2 x2).

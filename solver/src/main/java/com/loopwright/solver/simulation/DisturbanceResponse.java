@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
 /**
  * The loop's response (r = 0) to one disturbance profile.

@@ -8,7 +8,7 @@ import org.ejml.data.DMatrixRMaj;
  * The plant under the sampled, clamped law from x(0) = 0 with a constant setpoint: exact at the samples
  * (zero-order hold), x[k+1] = Ad x[k] + Bd u[k], u[k] = law(r, x1[k], x2[k]).
  */
-public final class SampledLoopSimulator {
+public final class SampledLawSimulator {
 
     /** Largest number of simulated samples. */
     public static final int MAX_STEPS = 100_000;

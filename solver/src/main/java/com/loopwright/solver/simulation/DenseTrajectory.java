@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
 /**
  * A simulated trajectory on a dense, strictly increasing time grid: states, the control applied to the plant,

@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.loop;
 
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.LinearLoop;
@@ -11,38 +11,38 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
  * The matrices of plant and loop: A = [[0, 1], [-a0, -a1]], B1 = [0, d]', B2 = [0, b]', K = [k1, k2],
  * A_cl = A - B2 K, and the step loop x' = A_cl x + B2 kr r.
  */
-final class LoopMatrices {
+public final class LoopMatrices {
 
     /** Simulated window in slowest closed-loop time constants: e^-12 ~ 6e-6 of the initial mode is left. */
-    static final double HORIZON_PER_TIME_CONSTANT = 12;
+    public static final double HORIZON_PER_TIME_CONSTANT = 12;
     /** An overshoot peak below this fraction of the final value is not worth a longer window. */
-    static final double NEGLIGIBLE_EXTREMUM = 1e-15;
+    public static final double NEGLIGIBLE_EXTREMUM = 1e-15;
     /** The window reaches this factor past a late overshoot peak (the peak is an interior sample). */
-    static final double PEAK_ROOM = 1.25;
+    public static final double PEAK_ROOM = 1.25;
     /** Cap on the window extension, in base windows (a counted peak needs at most 2.9 x 1.25 of them). */
-    static final double MAX_HORIZON_EXTENSION = 4;
+    public static final double MAX_HORIZON_EXTENSION = 4;
 
     private LoopMatrices() {
     }
 
-    static DMatrixRMaj openLoop(CanonicalPlant plant) {
+    public static DMatrixRMaj openLoop(CanonicalPlant plant) {
         return new DMatrixRMaj(new double[][] {{0, 1}, {-plant.a0(), -plant.a1()}});
     }
 
-    static DMatrixRMaj actuatorInput(CanonicalPlant plant) {
+    public static DMatrixRMaj actuatorInput(CanonicalPlant plant) {
         return new DMatrixRMaj(new double[][] {{0}, {plant.b()}});
     }
 
-    static DMatrixRMaj disturbanceInput(CanonicalPlant plant) {
+    public static DMatrixRMaj disturbanceInput(CanonicalPlant plant) {
         return new DMatrixRMaj(new double[][] {{0}, {plant.d()}});
     }
 
-    static DMatrixRMaj closedLoop(CanonicalPlant plant, FeedbackGains gains) {
+    public static DMatrixRMaj closedLoop(CanonicalPlant plant, FeedbackGains gains) {
         return new DMatrixRMaj(new double[][] {{0, 1},
             {-plant.a0() - plant.b() * gains.positionGain(), -plant.a1() - plant.b() * gains.velocityGain()}});
     }
 
-    static LinearLoop stepLoop(CanonicalPlant plant, FeedbackGains gains) {
+    public static LinearLoop stepLoop(CanonicalPlant plant, FeedbackGains gains) {
         return new LinearLoop(closedLoop(plant, gains),
                 new DMatrixRMaj(new double[][] {{0}, {plant.b() * gains.referenceGain()}}),
                 new DMatrixRMaj(new double[][] {{1, 0}}),
@@ -51,25 +51,25 @@ final class LoopMatrices {
     }
 
     /** Closed-loop stiffness c0 = a0 + b k1 and damping c1 = a1 + b k2 of s^2 + c1 s + c0. */
-    static double closedLoopStiffness(CanonicalPlant plant, FeedbackGains gains) {
+    public static double closedLoopStiffness(CanonicalPlant plant, FeedbackGains gains) {
         return plant.a0() + plant.b() * gains.positionGain();
     }
 
-    static double closedLoopDamping(CanonicalPlant plant, FeedbackGains gains) {
+    public static double closedLoopDamping(CanonicalPlant plant, FeedbackGains gains) {
         return plant.a1() + plant.b() * gains.velocityGain();
     }
 
     /** s^2 + c1 s + c0 is Hurwitz iff c0 > 0 and c1 > 0 (Routh-Hurwitz for degree 2). */
-    static boolean stable(CanonicalPlant plant, FeedbackGains gains) {
+    public static boolean stable(CanonicalPlant plant, FeedbackGains gains) {
         return closedLoopStiffness(plant, gains) > 0 && closedLoopDamping(plant, gains) > 0;
     }
 
     /** Final value of x1 for a unit reference: b kr / c0. */
-    static double unitStepFinalValue(CanonicalPlant plant, FeedbackGains gains) {
+    public static double unitStepFinalValue(CanonicalPlant plant, FeedbackGains gains) {
         return plant.b() * gains.referenceGain() / closedLoopStiffness(plant, gains);
     }
 
-    static Complex_F64[] poles(DMatrixRMaj a) {
+    public static Complex_F64[] poles(DMatrixRMaj a) {
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(a.numRows, false);
         if (!eig.decompose(a.copy())) {
             throw new IllegalArgumentException("eigenvalues could not be computed");
@@ -92,7 +92,7 @@ final class LoopMatrices {
      * Extrema after the window deviate by less than e^-12 = 6e-6 of the final value, below the narrowest settling
      * band (0.1%), and are smaller than the first peak: they change no step metric.
      */
-    static double horizonSeconds(CanonicalPlant plant, FeedbackGains gains) {
+    public static double horizonSeconds(CanonicalPlant plant, FeedbackGains gains) {
         double slowest = Double.POSITIVE_INFINITY;
         for (Complex_F64 pole : poles(closedLoop(plant, gains))) {
             slowest = Math.min(slowest, Math.abs(pole.real));
@@ -110,7 +110,7 @@ final class LoopMatrices {
     }
 
     /** max |lambda| of the closed loop [rad/s]. */
-    static double fastestPoleMagnitude(CanonicalPlant plant, FeedbackGains gains) {
+    public static double fastestPoleMagnitude(CanonicalPlant plant, FeedbackGains gains) {
         double fastest = 0;
         for (Complex_F64 pole : poles(closedLoop(plant, gains))) {
             fastest = Math.max(fastest, pole.getMagnitude());
@@ -119,7 +119,7 @@ final class LoopMatrices {
     }
 
     /** max |Im lambda| of the closed loop [rad/s]. */
-    static double fastestOscillation(CanonicalPlant plant, FeedbackGains gains) {
+    public static double fastestOscillation(CanonicalPlant plant, FeedbackGains gains) {
         double fastest = 0;
         for (Complex_F64 pole : poles(closedLoop(plant, gains))) {
             fastest = Math.max(fastest, Math.abs(pole.imaginary));
