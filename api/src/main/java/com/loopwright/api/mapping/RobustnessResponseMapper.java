@@ -7,7 +7,7 @@ import com.loopwright.solver.simulation.DenseTrajectory;
 import com.loopwright.solver.robustness.DisturbanceCheck;
 import com.loopwright.solver.simulation.DisturbanceProfile;
 import com.loopwright.solver.simulation.GridMetrics;
-import com.loopwright.solver.robustness.LoopMargins;
+import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.MetricSummary;
 import com.loopwright.solver.robustness.RobustnessReport;
 import com.loopwright.solver.robustness.UncertainCase;

@@ -1,5 +1,6 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.simulation.DenseTrajectory;
 import com.loopwright.solver.simulation.StepMetrics;
 import java.util.List;

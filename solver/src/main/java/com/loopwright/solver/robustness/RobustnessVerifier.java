@@ -1,5 +1,7 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.frequency.LoopMargins;
+import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
@@ -52,7 +54,7 @@ public final class RobustnessVerifier {
     private final StepResponseMetrics stepMetrics = new StepResponseMetrics();
     private final HInfinityNormCalculator norms = new HInfinityNormCalculator();
     private final UncertaintyAnalyzer uncertainty = new UncertaintyAnalyzer();
-    private final FrequencyAnalyzer frequency = new FrequencyAnalyzer();
+    private final LoopFrequencyAnalyzer frequency = new LoopFrequencyAnalyzer();
     private final SaturatedStepSimulator saturated = new SaturatedStepSimulator();
     private final DelayedSampledStepSimulator sampled = new DelayedSampledStepSimulator();
     private final DisturbanceSimulator disturbance = new DisturbanceSimulator();
@@ -84,7 +86,7 @@ public final class RobustnessVerifier {
                 nominal.overshootPercent());
         double hinf = plant.d() == 0 ? 0 : norms.compute(LoopMatrices.closedLoop(plant, gains),
                 LoopMatrices.disturbanceInput(plant), performanceOutput).value();
-        LoopMargins margins = frequency.analyze(plant, gains, options.frequencyPoints());
+        LoopMargins margins = frequency.margins(plant, gains, options.frequencyPoints());
 
         UncertaintyReport uncertain = options.parameterBox() == null ? null
                 : uncertainty.analyze(options.parameterBox(), gains, stepSize, limits, performanceOutput,

@@ -1,5 +1,6 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
@@ -63,7 +64,7 @@ class SampledLoopSimulatorTest {
         // 1/(s(s + 1)) with unit feedback: delay margin 1.1506 s (hand computed: PM 51.83 deg at 0.7862 rad/s).
         CanonicalPlant plant = new CanonicalPlant(0, 1, 1, 0);
         FeedbackGains gains = new FeedbackGains(1, 0, 1);
-        double margin = new FrequencyAnalyzer().analyze(plant, gains, 0).delayMarginSeconds();
+        double margin = new LoopFrequencyAnalyzer().margins(plant, gains, 0).delayMarginSeconds();
         assertEquals(Math.toRadians(90 - Math.toDegrees(Math.atan(0.7861513777574233))) / 0.7861513777574233, margin,
                 1e-9);
         double ts = 1e-3;

@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.frequency;
 
 /**
  * One frequency of the loop broken at the plant input.

@@ -1,5 +1,9 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.frequency.FrequencyPoint;
+import com.loopwright.solver.frequency.LoopMargins;
+import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
+import com.loopwright.solver.frequency.SecondOrderLoopResponse;
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
 import static org.junit.jupiter.api.Assertions.assertEquals;
@@ -9,9 +13,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.loopwright.solver.plant.CanonicalPlant;
 import org.junit.jupiter.api.Test;
 
-class FrequencyAnalyzerTest {
+class ClosedFormLoopMarginsTest {
 
-    private final FrequencyAnalyzer analyzer = new FrequencyAnalyzer();
+    private final LoopFrequencyAnalyzer analyzer = new LoopFrequencyAnalyzer();
 
     /** L(s) = 1/(s (s + 1)): a0 = 0, a1 = 1, b = 1, k1 = 1, k2 = 0. */
     private static final CanonicalPlant UNIT_LAG = new CanonicalPlant(0, 1, 1, 0);
@@ -23,7 +27,7 @@ class FrequencyAnalyzerTest {
         // Engineering, frequency-response chapter). By hand: |L| = 1 gives w^4 + w^2 - 1 = 0, so
         // wc = sqrt((sqrt 5 - 1)/2) = 0.78615 rad/s; PM = 180 - 90 - atan(wc) = 51.827 deg; the phase never
         // reaches -180, so the gain margin is unbounded.
-        LoopMargins margins = analyzer.analyze(UNIT_LAG, UNIT_GAIN, 0);
+        LoopMargins margins = analyzer.margins(UNIT_LAG, UNIT_GAIN, 0);
         double wc = Math.sqrt((Math.sqrt(5) - 1) / 2);
         assertEquals(0.786151, wc, 1e-6);
         assertEquals(wc, margins.crossoverRadPerSec(), 1e-12);
@@ -37,11 +41,11 @@ class FrequencyAnalyzerTest {
     void delayMarginIsPhaseMarginOverCrossover() {
         for (FeedbackGains gains : new FeedbackGains[] {UNIT_GAIN, IndexingAxis.GAINS}) {
             CanonicalPlant plant = gains == UNIT_GAIN ? UNIT_LAG : IndexingAxis.PLANT;
-            LoopMargins margins = analyzer.analyze(plant, gains, 0);
+            LoopMargins margins = analyzer.margins(plant, gains, 0);
             assertEquals(Math.toRadians(margins.phaseMarginDegrees()) / margins.crossoverRadPerSec(),
                     margins.delayMarginSeconds(), 1e-15 * margins.delayMarginSeconds());
             // independent route: |L(j wc)| = 1 by direct evaluation
-            double[] l = FrequencyAnalyzer.loop(plant, gains, margins.crossoverRadPerSec());
+            double[] l = SecondOrderLoopResponse.loop(plant, gains, margins.crossoverRadPerSec());
             assertEquals(1, Math.hypot(l[0], l[1]), 1e-12);
         }
     }
@@ -53,7 +57,7 @@ class FrequencyAnalyzerTest {
         // halving the gains gives c1 = a1 + b k2 / 2 = 0, the stability boundary.
         CanonicalPlant plant = new CanonicalPlant(4, -1, 1, 0);
         FeedbackGains gains = new FeedbackGains(1, 2, 1);
-        LoopMargins margins = analyzer.analyze(plant, gains, 0);
+        LoopMargins margins = analyzer.margins(plant, gains, 0);
         assertEquals(0.5, margins.gainReductionMargin(), 1e-12);
         assertEquals(0, LoopMatrices.closedLoopDamping(plant, new FeedbackGains(0.5, 1, 1)), 0);
     }
@@ -78,7 +82,7 @@ class FrequencyAnalyzerTest {
                     0.15604198830777358), 5.43846, 114.695, 0.368081),
             new Case(new CanonicalPlant(150, -1, 65, 6), new FeedbackGains(1.3238037013361184, 0.3727054578964097,
                     3.631496009028426), 29.4703, 80.7789, 0.0478400)}) {
-            LoopMargins margins = analyzer.analyze(c.plant(), c.gains(), 0);
+            LoopMargins margins = analyzer.margins(c.plant(), c.gains(), 0);
             assertEquals(c.crossover(), margins.crossoverRadPerSec(), 1e-4 * c.crossover());
             assertEquals(c.phaseMargin(), margins.phaseMarginDegrees(), 2e-3);
             assertEquals(c.delayMargin(), margins.delayMarginSeconds(), 2e-5 * c.delayMargin());
@@ -103,22 +107,22 @@ class FrequencyAnalyzerTest {
         double wn = Math.sqrt(c0);
         double zeta = c1 / (2 * wn);
         double expected = wn * Math.sqrt(1 - 2 * zeta * zeta + Math.sqrt(4 * Math.pow(zeta, 4) - 4 * zeta * zeta + 2));
-        LoopMargins margins = analyzer.analyze(IndexingAxis.PLANT, IndexingAxis.GAINS, 0);
+        LoopMargins margins = analyzer.margins(IndexingAxis.PLANT, IndexingAxis.GAINS, 0);
         assertEquals(expected, margins.bandwidthRadPerSec(), 1e-10 * expected);
-        double[] t = FrequencyAnalyzer.closedLoop(IndexingAxis.PLANT, IndexingAxis.GAINS, expected);
+        double[] t = SecondOrderLoopResponse.closedLoop(IndexingAxis.PLANT, IndexingAxis.GAINS, expected);
         assertEquals(1 / Math.sqrt(2), Math.hypot(t[0], t[1]), 1e-10);
     }
 
     @Test
     void marginsAgreeWithADenseBruteForceScan() {
-        LoopMargins margins = analyzer.analyze(IndexingAxis.PLANT, IndexingAxis.GAINS, 0);
+        LoopMargins margins = analyzer.margins(IndexingAxis.PLANT, IndexingAxis.GAINS, 0);
         double bestS = 0;
         double crossing = Double.NaN;
         double previous = Double.NaN;
         for (int i = 0; i <= 400_000; i++) {
             double w = Math.pow(10, -2 + 6.0 * i / 400_000);
-            bestS = Math.max(bestS, FrequencyAnalyzer.sensitivity(IndexingAxis.PLANT, IndexingAxis.GAINS, w));
-            double[] l = FrequencyAnalyzer.loop(IndexingAxis.PLANT, IndexingAxis.GAINS, w);
+            bestS = Math.max(bestS, SecondOrderLoopResponse.sensitivity(IndexingAxis.PLANT, IndexingAxis.GAINS, w));
+            double[] l = SecondOrderLoopResponse.loop(IndexingAxis.PLANT, IndexingAxis.GAINS, w);
             double gain = Math.hypot(l[0], l[1]);
             if (!Double.isNaN(previous) && previous >= 1 && gain < 1) {
                 crossing = w;
@@ -129,10 +133,10 @@ class FrequencyAnalyzerTest {
         assertEquals(Math.max(1, bestS), margins.peakSensitivity(), 1e-8);
         assertTrue(margins.peakSensitivity() >= bestS);
         // a loop that peaks: 1/(s(s + 1)) with unit feedback, against the same brute-force scan
-        LoopMargins lag = analyzer.analyze(UNIT_LAG, UNIT_GAIN, 0);
+        LoopMargins lag = analyzer.margins(UNIT_LAG, UNIT_GAIN, 0);
         double lagBest = 0;
         for (int i = 0; i <= 400_000; i++) {
-            lagBest = Math.max(lagBest, FrequencyAnalyzer.sensitivity(UNIT_LAG, UNIT_GAIN,
+            lagBest = Math.max(lagBest, SecondOrderLoopResponse.sensitivity(UNIT_LAG, UNIT_GAIN,
                     Math.pow(10, -2 + 4.0 * i / 400_000)));
         }
         assertTrue(lagBest > 1);
@@ -143,7 +147,7 @@ class FrequencyAnalyzerTest {
 
     @Test
     void responseIsLogSpacedCappedAndPhaseContinuous() {
-        LoopMargins margins = analyzer.analyze(IndexingAxis.PLANT, IndexingAxis.GAINS, 50);
+        LoopMargins margins = analyzer.margins(IndexingAxis.PLANT, IndexingAxis.GAINS, 50);
         assertEquals(50, margins.response().size());
         double ratio = margins.response().get(1).frequencyRadPerSec() / margins.response().get(0).frequencyRadPerSec();
         for (int i = 1; i < 50; i++) {
@@ -153,6 +157,6 @@ class FrequencyAnalyzerTest {
             assertTrue(Math.abs(b.loopPhaseDegrees() - a.loopPhaseDegrees()) < 180);
         }
         org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
-                () -> analyzer.analyze(IndexingAxis.PLANT, IndexingAxis.GAINS, FrequencyAnalyzer.MAX_RESPONSE_POINTS + 1));
+                () -> analyzer.margins(IndexingAxis.PLANT, IndexingAxis.GAINS, LoopFrequencyAnalyzer.MAX_RESPONSE_POINTS + 1));
     }
 }

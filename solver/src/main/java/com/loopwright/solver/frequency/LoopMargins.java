@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.frequency;
 
 import com.loopwright.solver.frequency.CrossoverMargins;
 import java.util.List;
