@@ -1,6 +1,5 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.simulation.DiscreteStateSpace;
 import org.ejml.data.DMatrixRMaj;
 
 /** x+ = Ad x + Bd v for a two-state, one-input hold; checks that the state stays finite. */

@@ -3,8 +3,6 @@ package com.loopwright.solver.simulation;
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.DiscreteStateSpace;
-import com.loopwright.solver.simulation.ZeroOrderHold;
 import org.ejml.data.DMatrixRMaj;
 
 /**

@@ -4,8 +4,6 @@ import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.linalg.MatrixExponential;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.DiscreteStateSpace;
-import com.loopwright.solver.simulation.ZeroOrderHold;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 

@@ -2,10 +2,8 @@ package com.loopwright.solver.simulation;
 
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
-import com.loopwright.solver.numeric.Bisection;
+import com.loopwright.solver.numeric.BracketedRoot;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.DiscreteStateSpace;
-import com.loopwright.solver.simulation.ZeroOrderHold;
 import org.ejml.data.DMatrixRMaj;
 
 /**
@@ -66,7 +64,7 @@ public final class SaturatedStepSimulator {
             }
             double[] start = x;
             // g(tau) = excess over the limit along the current mode's trajectory; changes sign at the switch
-            double tau = Bisection.root(dt -> excess(dt <= 0 ? start
+            double tau = BracketedRoot.bisection(dt -> excess(dt <= 0 ? start
                     : propagate(start, dt, mode, open, closed, b2, reference, limit), gains, reference, limit, mode),
                     0, remaining);
             tau = Math.max(tau, Math.ulp(remaining));
