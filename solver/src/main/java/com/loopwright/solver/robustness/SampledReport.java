@@ -11,7 +11,7 @@ import com.loopwright.solver.simulation.GridMetrics;
  * @param spectralRadius            max |z| of the emulated sampled loop Ad - Bd K (stable iff below 1)
  * @param emulated                  metrics with the continuous gains run at Ts (between samples); null when the
  *                                  simulation diverges
- * @param emulatedMeetsSpec         emulated metrics meet the acceptance limits (null if nothing is judged)
+ * @param emulatedMeetsSpec         emulated metrics against the acceptance limits (NOT_JUDGED without limits)
  * @param directGains               gains of the direct discrete design (pole matching z = e^(lambda Ts))
  * @param direct                    metrics with the direct discrete gains
  * @param directMeetsSpec           direct metrics meet the acceptance limits
@@ -21,8 +21,8 @@ import com.loopwright.solver.simulation.GridMetrics;
  * @param searchEvaluations         simulations spent in the search
  * @param trajectory                the emulated step
  */
-public record SampledReport(double samplePeriodSeconds, double spectralRadius, GridMetrics emulated, Boolean emulatedMeetsSpec,
-                            FeedbackGains directGains, GridMetrics direct, Boolean directMeetsSpec,
+public record SampledReport(double samplePeriodSeconds, double spectralRadius, GridMetrics emulated, Verdict emulatedMeetsSpec,
+                            FeedbackGains directGains, GridMetrics direct, Verdict directMeetsSpec,
                             Double longestPeriodSeconds, boolean longestPeriodIsLowerBound, int searchEvaluations,
                             DenseTrajectory trajectory) {
 }

@@ -13,10 +13,10 @@ import com.loopwright.solver.simulation.GridMetrics;
  *                               linear in the step size); null when the loop never uses u
  * @param diverged               the saturated simulation overflowed (the limit cannot hold the loop)
  * @param metrics                step metrics with saturation; null when it diverged
- * @param meetsSpec              the saturated step meets the acceptance limits (null if nothing is judged)
+ * @param meetsSpec              the saturated step against the acceptance limits (NOT_JUDGED without limits)
  * @param trajectory             the saturated step
  */
 public record SaturationReport(double limit, double unsaturatedPeakControl, boolean saturates,
-                               Double largestUnsaturatedStep, boolean diverged, GridMetrics metrics, Boolean meetsSpec,
+                               Double largestUnsaturatedStep, boolean diverged, GridMetrics metrics, Verdict meetsSpec,
                                DenseTrajectory trajectory) {
 }

@@ -27,10 +27,11 @@ class RobustnessVerifierTest {
     void everySectionOfTheIndexingAxisIsConsistent() {
         RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
                 IndexingAxis.performanceOutput(), IndexingAxis.DESIGN.gamma(), options(1e-3, true, 2e-3));
-        assertTrue(report.nominalMeetsSpec());
+        assertEquals(Verdict.MET, report.nominalMeetsSpec());
         assertTrue(report.hinfNorm() <= IndexingAxis.DESIGN.gamma());
         DisturbanceCheck check = report.disturbances().get(0);
-        assertTrue(check.withinNorm() && check.withinGamma());
+        assertTrue(check.withinNorm());
+        assertEquals(Verdict.MET, check.withinGamma());
         // peak |u| of the unit step is kr (the jump at t = 0+), below the 2.0 limit: no saturation
         assertFalse(report.saturation().saturates());
         assertEquals(2.0 / IndexingAxis.GAINS.referenceGain(), report.saturation().largestUnsaturatedStep(), 1e-9);
@@ -38,7 +39,7 @@ class RobustnessVerifierTest {
         assertNotNull(sampled.longestPeriodSeconds());
         // the longest period meets the limits, 0.2% longer does not (bisection bracket width 1e-3)
         assertTrue(sampled.longestPeriodSeconds() > 0 && sampled.searchEvaluations() <= 6 + 12 + 20 + 1);
-        assertTrue(report.delay().withinMargin());
+        assertEquals(Verdict.MET, report.delay().withinMargin());
         assertEquals(report.margins().delayMarginSeconds(), report.delay().delayMarginSeconds());
     }
 
@@ -54,7 +55,7 @@ class RobustnessVerifierTest {
                 > Math.abs(fine.sampled().emulated().overshootPercent() - nominal));
         assertTrue(Math.abs(coarse.sampled().emulated().settlingTimeSeconds() - fine.nominal().settlingTimeSeconds())
                 > Math.abs(fine.sampled().emulated().settlingTimeSeconds() - fine.nominal().settlingTimeSeconds()));
-        assertTrue(fine.sampled().emulatedMeetsSpec());
+        assertEquals(Verdict.MET, fine.sampled().emulatedMeetsSpec());
     }
 
     @Test
@@ -63,7 +64,7 @@ class RobustnessVerifierTest {
         RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
                 IndexingAxis.performanceOutput(), null, options(0.5, false, null));
         assertTrue(report.sampled().spectralRadius() > 1, "radius " + report.sampled().spectralRadius());
-        assertFalse(report.sampled().emulatedMeetsSpec());
+        assertEquals(Verdict.NOT_MET, report.sampled().emulatedMeetsSpec());
         RobustnessReport fine = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
                 IndexingAxis.performanceOutput(), null, options(1e-3, false, null));
         assertTrue(fine.sampled().spectralRadius() < 1);
