@@ -1,5 +1,6 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.robustness.IndexingAxis;
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.simulation.DenseTrajectory;
 import com.loopwright.solver.simulation.SaturatedStepSimulator;

@@ -1,4 +1,4 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
 import com.loopwright.solver.loop.LoopMatrices;
 import static org.junit.jupiter.api.Assertions.assertEquals;

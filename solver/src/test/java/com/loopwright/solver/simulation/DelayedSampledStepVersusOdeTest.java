@@ -1,5 +1,6 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.robustness.IndexingAxis;
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
 import com.loopwright.solver.simulation.DenseTrajectory;
@@ -15,7 +16,7 @@ import org.junit.jupiter.api.Test;
  * The sampled, delayed loop against an independent route: Hipparchus' adaptive Dormand-Prince 8(5,3) integrator
  * over each constant-input piece, with the controller and the delay line written out separately here.
  */
-class SampledLoopVersusOdeTest {
+class DelayedSampledStepVersusOdeTest {
 
     @Test
     void sampledDelayedLoopMatchesAnAdaptiveOdeIntegration() {

@@ -1,5 +1,6 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.robustness.IndexingAxis;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.simulation.DisturbanceProfile;
 import com.loopwright.solver.simulation.DisturbanceResponse;

@@ -1,5 +1,6 @@
-package com.loopwright.solver.robustness;
+package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.robustness.IndexingAxis;
 import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
@@ -16,7 +17,7 @@ import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import org.junit.jupiter.api.Test;
 
-class SampledLoopSimulatorTest {
+class DelayedSampledStepSimulatorTest {
 
     private final DelayedSampledStepSimulator simulator = new DelayedSampledStepSimulator();
 
