@@ -26,7 +26,7 @@ import com.loopwright.api.request.VerificationRequest;
 import com.loopwright.api.request.VerifyLimits;
 import com.loopwright.api.response.DesignResponse;
 import com.loopwright.api.response.VerificationResponse;
-import com.loopwright.solver.robustness.FrequencyAnalyzer;
+import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.robustness.RobustnessVerifier;
 import com.loopwright.solver.robustness.UncertaintyAnalyzer;
 import com.loopwright.api.exchange.TakeawayExchange;
@@ -172,7 +172,7 @@ class ContractDriftTest {
                 Map.entry("VerifyInput/properties/disturbances/maxItems", (double) VerifyLimits.MAX_DISTURBANCES),
                 Map.entry("VerifyInput/properties/frequencyPoints/maximum", (double) VerifyLimits.MAX_FREQUENCY_POINTS),
                 Map.entry("VerifyInput/properties/frequencyPoints/maximum#solver",
-                        (double) FrequencyAnalyzer.MAX_RESPONSE_POINTS),
+                        (double) LoopFrequencyAnalyzer.MAX_RESPONSE_POINTS),
                 Map.entry("VerifyInput/properties/timeSeriesPoints/maximum",
                         (double) VerifyLimits.MAX_TIME_SERIES_POINTS),
                 Map.entry("VerifyInput/properties/timeSeriesPoints/minimum",

@@ -25,7 +25,7 @@ import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.LoopDesigner;
 import com.loopwright.solver.plant.PlantParameterException;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.spec.TimeSpec;
 import com.loopwright.solver.verify.VerificationFailedException;
 import java.io.IOException;

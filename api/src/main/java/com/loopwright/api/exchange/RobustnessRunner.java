@@ -10,7 +10,7 @@ import com.loopwright.solver.cancel.ComputationCancelledException;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 import com.loopwright.solver.robustness.CapExceededException;
-import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.robustness.RobustnessReport;
 import com.loopwright.solver.robustness.RobustnessVerifier;
 import com.loopwright.solver.robustness.UnstableLoopException;

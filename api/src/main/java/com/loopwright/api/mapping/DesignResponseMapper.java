@@ -3,7 +3,6 @@ package com.loopwright.api.mapping;
 import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.api.response.DesignResponse;
 import com.loopwright.solver.design.ClosedFormDesign;
-import com.loopwright.solver.design.GammaBound;
 import com.loopwright.solver.design.GammaCondition;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.riccati.RiccatiSolution;
@@ -75,14 +74,14 @@ public final class DesignResponseMapper {
             case P_POSITIVE_DEFINITE -> "positiveDefinite";
             case STABILIZING_DAMPING -> "stabilizingDamping";
             case STABILIZING_STIFFNESS -> "stabilizingStiffness";
+            case WEIGHT_REAL, STABILIZING, INPUT_GAIN, SOLUTION_BRANCH_END ->
+                    throw new IllegalArgumentException(condition + " is not a closed-form condition");
         };
     }
 
     private static List<DesignResponse.GammaBoundView> gammaBounds(ClosedFormDesign design) {
-        GammaBound binding = design.gammaBounds().stream()
-                .max((x, y) -> Double.compare(x.gammaLowerBound(), y.gammaLowerBound())).orElseThrow();
         return design.gammaBounds().stream().map(b -> new DesignResponse.GammaBoundView(wireName(b.condition()),
-                b.gammaLowerBound(), b.condition().meaning(), design.plant().d() != 0 && b == binding)).toList();
+                b.gammaLowerBound(), b.condition().meaning(), b.binding())).toList();
     }
 
     private static List<String> notes(DesignReport report, String conditionNote) {

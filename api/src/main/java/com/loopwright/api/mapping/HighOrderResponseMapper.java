@@ -7,7 +7,7 @@ import com.loopwright.solver.highorder.ClosedLoopStep;
 import com.loopwright.solver.highorder.CompanionTransform;
 import com.loopwright.solver.highorder.GammaInterval;
 import com.loopwright.solver.highorder.HighOrderDesign;
-import com.loopwright.solver.highorder.HighOrderGammaBound;
+import com.loopwright.solver.design.GammaBound;
 import com.loopwright.solver.highorder.HighOrderVerification;
 import com.loopwright.solver.highorder.SpecMatch;
 import com.loopwright.solver.highorder.SpecMatcher;
@@ -130,7 +130,7 @@ public final class HighOrderResponseMapper {
         return rows;
     }
 
-    private static HighOrderDesignResponse.Bound bound(HighOrderGammaBound b) {
+    private static HighOrderDesignResponse.Bound bound(GammaBound b) {
         return new HighOrderDesignResponse.Bound(b.condition().name().toLowerCase(), b.stateIndex(), b.meaning(),
                 b.gammaLowerBound(), b.binding());
     }

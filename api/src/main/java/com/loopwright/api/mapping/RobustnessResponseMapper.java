@@ -3,15 +3,16 @@ package com.loopwright.api.mapping;
 import com.loopwright.api.response.RobustnessResponse;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.robustness.DenseTrajectory;
+import com.loopwright.solver.simulation.DenseTrajectory;
 import com.loopwright.solver.robustness.DisturbanceCheck;
-import com.loopwright.solver.robustness.DisturbanceProfile;
-import com.loopwright.solver.robustness.GridMetrics;
-import com.loopwright.solver.robustness.LoopMargins;
+import com.loopwright.solver.simulation.DisturbanceProfile;
+import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.MetricSummary;
 import com.loopwright.solver.robustness.RobustnessReport;
 import com.loopwright.solver.robustness.UncertainCase;
 import com.loopwright.solver.robustness.UncertaintyReport;
+import com.loopwright.solver.robustness.Verdict;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -36,7 +37,7 @@ public final class RobustnessResponseMapper {
     public RobustnessResponse toResponse(RobustnessReport report, AcceptanceLimits limits, double tolerancePercent,
                                          double stepSize, String performanceOutput, Double gamma, int seriesPoints) {
         List<RobustnessResponse.Check> checks = new ArrayList<>();
-        verdict(checks, "nominal", report.nominalMeetsSpec(), "nominal continuous loop against the acceptance limits");
+        verdict(checks, "nominal", wire(report.nominalMeetsSpec()), "nominal continuous loop against the acceptance limits");
         UncertaintyReport u = report.uncertainty();
         RobustnessResponse.Uncertainty uncertainty = null;
         if (u != null) {
@@ -57,11 +58,11 @@ public final class RobustnessResponseMapper {
             disturbances.add(new RobustnessResponse.DisturbanceResult(shape(c.profile()), amplitude(c.profile()),
                     r.peakDeviation(), r.integralAbsoluteError(), r.integralSquaredError(), r.recoverySeconds(),
                     r.peakControl(), r.disturbanceEnergy(), r.outputEnergy(), r.observedGain(), c.withinNorm(),
-                    c.withinGamma()));
+                    wire(c.withinGamma())));
         }
         if (!report.disturbances().isEmpty()) {
             boolean within = report.disturbances().stream()
-                    .allMatch(c -> c.withinNorm() && !Boolean.FALSE.equals(c.withinGamma()));
+                    .allMatch(c -> c.withinNorm() && !c.withinGamma().failed());
             verdict(checks, "disturbanceGain", within, "observed L2 gain w to z of every profile at most the"
                     + " H-infinity norm" + (gamma == null ? "" : " and gamma"));
         }
@@ -70,8 +71,8 @@ public final class RobustnessResponseMapper {
             var s = report.saturation();
             saturation = new RobustnessResponse.Saturation(s.limit(), s.unsaturatedPeakControl(), s.saturates(),
                     s.largestUnsaturatedStep(), s.diverged(), s.metrics() == null ? null : metrics(s.metrics()),
-                    s.meetsSpec());
-            verdict(checks, "saturation", s.meetsSpec(), s.saturates()
+                    wire(s.meetsSpec()));
+            verdict(checks, "saturation", wire(s.meetsSpec()), s.saturates()
                     ? "the step saturates the actuator; saturated step against the limits"
                     : "the step stays within the actuator limit");
         }
@@ -79,21 +80,22 @@ public final class RobustnessResponseMapper {
         if (report.sampled() != null) {
             var s = report.sampled();
             sampled = new RobustnessResponse.Sampled(s.samplePeriodSeconds(), s.spectralRadius(),
-                    s.emulated() == null ? null : metrics(s.emulated()), s.emulatedMeetsSpec(),
+                    s.emulated() == null ? null : metrics(s.emulated()), wire(s.emulatedMeetsSpec()),
                     s.directGains() == null ? null : new RobustnessResponse.GainView(s.directGains().positionGain(),
                             s.directGains().velocityGain(), s.directGains().referenceGain()),
-                    s.direct() == null ? null : metrics(s.direct()), s.directMeetsSpec(), s.longestPeriodSeconds(),
+                    s.direct() == null ? null : metrics(s.direct()), wire(s.directMeetsSpec()), s.longestPeriodSeconds(),
                     s.longestPeriodIsLowerBound(), s.searchEvaluations());
-            verdict(checks, "sampledEmulated", s.emulatedMeetsSpec(), "continuous gains run at the sample period");
-            verdict(checks, "sampledDirect", s.directMeetsSpec(), "direct discrete design at the sample period");
+            verdict(checks, "sampledEmulated", wire(s.emulatedMeetsSpec()), "continuous gains run at the sample period");
+            verdict(checks, "sampledDirect", wire(s.directMeetsSpec()), "direct discrete design at the sample period");
         }
         RobustnessResponse.Delay delay = null;
         if (report.delay() != null) {
             var d = report.delay();
             delay = new RobustnessResponse.Delay(d.delaySeconds(), d.samplePeriodSeconds(), d.delayMarginSeconds(),
-                    d.withinMargin(), d.diverges(), d.metrics() == null ? null : metrics(d.metrics()), d.meetsSpec());
-            verdict(checks, "inputDelay", d.meetsSpec() == null ? null
-                    : d.meetsSpec() && !Boolean.FALSE.equals(d.withinMargin()), "delayed step against the limits"
+                    wire(d.withinMargin()), d.diverges(), d.metrics() == null ? null : metrics(d.metrics()),
+                    wire(d.meetsSpec()));
+            verdict(checks, "inputDelay", d.meetsSpec() == Verdict.NOT_JUDGED ? null
+                    : d.meetsSpec() == Verdict.MET && !d.withinMargin().failed(), "delayed step against the limits"
                     + " and the delay below the delay margin");
         }
         LoopMargins m = report.margins();
@@ -126,10 +128,15 @@ public final class RobustnessResponseMapper {
                 new RobustnessResponse.Metrics(report.nominal().riseTimeSeconds(),
                         report.nominal().settlingTimeSeconds(), report.nominal().overshootPercent(),
                         report.nominal().peakControl()),
-                report.nominalMeetsSpec(), report.horizonSeconds(),
+                wire(report.nominalMeetsSpec()), report.horizonSeconds(),
                 new RobustnessResponse.Disturbance(performanceOutput, report.hinfNorm(), gamma),
                 margins, uncertainty, disturbances, saturation, sampled, delay, checks, series, METHODS,
                 RobustnessCautions.ALL);
+    }
+
+    /** A verdict on the wire: true, false, or absent (null) when not judged. */
+    private static Boolean wire(Verdict verdict) {
+        return verdict == Verdict.NOT_JUDGED ? null : verdict == Verdict.MET;
     }
 
     /** The limits actually judged: each given limit widened by the tolerance. */

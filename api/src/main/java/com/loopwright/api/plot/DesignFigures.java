@@ -6,9 +6,8 @@ import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.frequency.RationalLoop;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.robustness.FeedbackGains;
-import com.loopwright.solver.robustness.FrequencyAnalyzer;
-import com.loopwright.solver.robustness.LoopMargins;
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;
 import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponse;
@@ -54,7 +53,6 @@ public final class DesignFigures {
 
     private final StepSimulator simulator = new StepSimulator();
     private final LoopFrequencyAnalyzer frequency = new LoopFrequencyAnalyzer();
-    private final FrequencyAnalyzer marginAnalyzer = new FrequencyAnalyzer();
 
     /**
      * @param commandLimit actuator limit drawn on the control-effort figure, if given
@@ -160,7 +158,7 @@ public final class DesignFigures {
         ClosedFormDesign d = report.design();
         RationalLoop loop = RationalLoop.atPlantInput(d.plant(), d.positionGain(), d.velocityGain());
         // the margins of POST /v1/verifications (closed form, every crossover), so the figure and the report agree
-        LoopMargins margins = marginAnalyzer.analyze(d.plant(),
+        LoopMargins margins = frequency.margins(d.plant(),
                 new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), 0);
         double wn = d.target().naturalFrequencyRadPerSec();
         double low = wn * Math.pow(10, -BODE_DECADES);

@@ -2,7 +2,7 @@ package com.loopwright.api.request;
 
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.loop.FeedbackGains;
 
 /**
  * A verification request after validation.

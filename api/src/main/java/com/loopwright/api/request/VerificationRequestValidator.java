@@ -22,7 +22,7 @@ import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.robustness.FeedbackGains;
+import com.loopwright.solver.loop.FeedbackGains;
 import java.util.ArrayList;
 import java.util.List;
 

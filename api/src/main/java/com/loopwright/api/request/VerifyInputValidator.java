@@ -17,7 +17,7 @@ import static com.loopwright.api.request.VerifyLimits.MIN_TIME_SERIES_POINTS;
 
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.robustness.DisturbanceProfile;
+import com.loopwright.solver.simulation.DisturbanceProfile;
 import com.loopwright.solver.robustness.ParameterBox;
 import com.loopwright.solver.robustness.RobustnessOptions;
 import java.util.ArrayList;

@@ -18,7 +18,7 @@ class BodeMarginsAgreeTest {
 
     // Regression (issue 12, item 7): this loop crosses 0 dB at 1.812 and 5.4385 rad/s; the verification reported
     // phase margin -131.24 deg and delay margin 0, the figure its own (lowest) crossover. Reference values (numpy,
-    // dense grid, and the argument-principle check in FrequencyAnalyzerTest): 114.69 deg at 5.4385 rad/s,
+    // dense grid, and the argument-principle check in ClosedFormLoopMarginsTest): 114.69 deg at 5.4385 rad/s,
     // delay margin 0.3681 s.
     @Test
     void figureAndVerificationReportTheSameMargins() {

@@ -43,15 +43,22 @@ public final class ClosedFormDesigner {
         return Optional.empty();
     }
 
-    /** The six lower bounds on gamma for a pole match; gammaLowerBound is d/sqrt(D) where D &gt; 0. */
+    /**
+     * The six lower bounds on gamma for a pole match; gammaLowerBound is d/sqrt(D) where D &gt; 0. The binding one is
+     * the first largest, when d is not 0.
+     */
     public List<GammaBound> bounds(CanonicalPlant plant, PoleMatch match) {
         double a0 = plant.a0();
         double a1 = plant.a1();
         double b2 = plant.b() * plant.b();
         double p12 = match.p12();
         double p22 = match.p22();
-        List<GammaBound> bounds = new ArrayList<>(GammaCondition.values().length);
-        for (GammaCondition condition : GammaCondition.values()) {
+        int count = GammaCondition.CLOSED_FORM.size();
+        double[] headrooms = new double[count];
+        double[] lowerBounds = new double[count];
+        int binding = 0;
+        for (int i = 0; i < count; i++) {
+            GammaCondition condition = GammaCondition.CLOSED_FORM.get(i);
             double headroom = switch (condition) {
                 case POSITION_WEIGHT_REAL -> b2 + 2 * a0 / p12;
                 case VELOCITY_WEIGHT_REAL -> b2 - (2 * p12 - 2 * a1 * p22) / (p22 * p22);
@@ -59,9 +66,18 @@ public final class ClosedFormDesigner {
                 case P_POSITIVE_DEFINITE -> b2 - (p12 * p12 - a1 * p12 * p22 - a0 * p22 * p22) / (p12 * p22 * p22);
                 case STABILIZING_DAMPING -> b2 + a1 / p22;
                 case STABILIZING_STIFFNESS -> b2 + a0 / p12;
+                default -> throw new IllegalStateException(condition + " is not a closed-form condition");
             };
-            double lowerBound = plant.d() == 0 ? 0 : headroom > 0 ? Math.abs(plant.d()) / Math.sqrt(headroom) : 0;
-            bounds.add(new GammaBound(condition, headroom, lowerBound));
+            headrooms[i] = headroom;
+            lowerBounds[i] = plant.d() == 0 ? 0 : headroom > 0 ? Math.abs(plant.d()) / Math.sqrt(headroom) : 0;
+            if (Double.compare(lowerBounds[i], lowerBounds[binding]) > 0) {
+                binding = i; // the first largest bound sets gamma_min
+            }
+        }
+        List<GammaBound> bounds = new ArrayList<>(count);
+        for (int i = 0; i < count; i++) {
+            bounds.add(GammaBound.closedForm(GammaCondition.CLOSED_FORM.get(i), headrooms[i], lowerBounds[i],
+                    plant.d() != 0 && i == binding));
         }
         return bounds;
     }
@@ -127,6 +143,6 @@ public final class ClosedFormDesigner {
                     dampingBound);
         }
         return new DesignObstacle(String.format("no gamma makes the %s (its headroom D = %.6g is not positive)",
-                bound.condition().meaning(), bound.headroom()), false);
+                bound.condition().meaning(), bound.headroom().getAsDouble()), false);
     }
 }

@@ -1,17 +1,16 @@
 package com.loopwright.solver.frequency;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.plant.CanonicalPlant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
-import java.util.OptionalDouble;
-import org.hipparchus.analysis.UnivariateFunction;
-import org.hipparchus.analysis.solvers.AllowedSolution;
-import org.hipparchus.analysis.solvers.BracketingNthOrderBrentSolver;
 
 /**
- * Bode data and gain/phase/delay margins of an open loop on a logarithmic grid, every crossing refined by
- * Brent's method: the gain crossovers solve ln |L(j w)| = 0, the phase crossovers solve Im L(j w) = 0 with
- * Re L(j w) &lt; 0 (the negative real axis, so no phase unwrapping is involved in the margins).
+ * The one frequency analyzer of the loop broken at the plant input: Bode data of any rational loop on a logarithmic
+ * grid, and the gain, phase and delay margins, peak sensitivity, bandwidth and frequency response of the canonical
+ * second-order loop in closed form (the numbers of verifications and of the Bode figure's markers).
  */
 public final class LoopFrequencyAnalyzer {
 
@@ -19,15 +18,8 @@ public final class LoopFrequencyAnalyzer {
     public static final int MAX_POINTS = 4000;
     /** Smallest number of grid points. */
     public static final int MIN_POINTS = 2;
-    /** Least grid points when bracketing crossings (a crossing pair closer than one cell can be missed). */
-    public static final int MIN_SEARCH_POINTS = 4000;
-    /** Most crossings of each kind kept. */
-    static final int MAX_ROOTS = CrossoverMargins.MAX_CROSSOVERS;
-    /** Brent refinement in ln w: relative and absolute accuracy, order, and evaluations per crossing. */
-    static final double RELATIVE_ACCURACY = 1e-15;
-    static final double ABSOLUTE_ACCURACY_LOG = 1e-15;
-    static final int BRENT_ORDER = 5;
-    static final int MAX_EVALUATIONS = 200;
+    /** Cap on frequency response points returned with the margins. */
+    public static final int MAX_RESPONSE_POINTS = 500;
 
     /** Samples L(j w) on {@code points} log-spaced frequencies from {@code lowRadPerSec} to {@code highRadPerSec}. */
     public BodeSeries sample(RationalLoop loop, double lowRadPerSec, double highRadPerSec, int points) {
@@ -54,74 +46,103 @@ public final class LoopFrequencyAnalyzer {
     }
 
     /**
-     * Margins over every crossing in the window: the gain crossovers (log |L| = 0) and phase crossovers
-     * (Im L = 0 with Re L &lt; 0) are bracketed on a log grid of at least {@value #MIN_SEARCH_POINTS} points and
-     * refined by the bracketing Brent solver of Hipparchus in ln w. Phase and delay margins follow
-     * {@link CrossoverMargins} with the closed-loop stability of 1 + L; the gain margin is the least
-     * -20 log10 |L| above 0 dB over the phase crossovers, or when all of them have |L| &gt; 1, the one nearest 0 dB.
+     * Margins of the canonical loop L(s) = b (k1 + k2 s)/(s^2 + a1 s + a0) in closed form (the formulas are in
+     * {@link SecondOrderLoopResponse}): every gain crossover counts, phase and delay margins follow
+     * {@link CrossoverMargins} like the Bode figure; the gain margin and the gain reduction margin are 1/|L| at the
+     * phase crossovers w = 0 and w^2 = a0 - k1 a1 / k2 below and above 0 dB; the peak sensitivity is searched on a
+     * log grid of {@value SecondOrderLoopResponse#SENSITIVITY_GRID} points three decades either side of the poles.
+     *
+     * @param responsePoints number of log-spaced points in the returned response, 0 to {@value #MAX_RESPONSE_POINTS}
      */
-    public StabilityMargins margins(RationalLoop loop, double lowRadPerSec, double highRadPerSec, int points) {
-        double[] w = grid(lowRadPerSec, highRadPerSec, Math.max(points, MIN_SEARCH_POINTS));
-        UnivariateFunction logGain = x -> {
-            double[] l = loop.at(Math.exp(x));
-            return Math.log(Math.hypot(l[0], l[1]));
-        };
-        UnivariateFunction imaginary = x -> {
-            double[] l = loop.at(Math.exp(x));
-            return l[1] / Math.hypot(l[0], l[1]);
-        };
-        List<Double> gainCrossovers = roots(w, logGain);
-        double[] crossovers = new double[Math.min(gainCrossovers.size(), CrossoverMargins.MAX_CROSSOVERS)];
-        double[] phases = new double[crossovers.length];
-        for (int i = 0; i < crossovers.length; i++) {
-            crossovers[i] = gainCrossovers.get(i);
-            double[] l = loop.at(crossovers[i]);
-            phases[i] = Math.atan2(l[1], l[0]);
+    public LoopMargins margins(CanonicalPlant plant, FeedbackGains gains, int responsePoints) {
+        if (responsePoints < 0 || responsePoints > MAX_RESPONSE_POINTS) {
+            throw new IllegalArgumentException("responsePoints must be 0 to " + MAX_RESPONSE_POINTS);
         }
-        Optional<CrossoverMargins> phaseMargins = CrossoverMargins.of(crossovers, phases, loop.closedLoopStable());
-        OptionalDouble phaseCrossover = OptionalDouble.empty();
-        OptionalDouble gainMargin = OptionalDouble.empty();
-        for (double root : roots(w, imaginary)) {
-            double[] l = loop.at(root);
-            if (!(l[0] < 0)) {
-                continue; // the positive real axis: not a -180 degree crossing
-            }
-            double margin = -20 * Math.log10(-l[0]);
-            boolean better = gainMargin.isEmpty()
-                    || (margin > 0 ? gainMargin.getAsDouble() <= 0 || margin < gainMargin.getAsDouble()
-                            : gainMargin.getAsDouble() <= 0 && margin > gainMargin.getAsDouble());
-            if (better) {
-                gainMargin = OptionalDouble.of(margin);
-                phaseCrossover = OptionalDouble.of(root);
-            }
-        }
-        return new StabilityMargins(
-                phaseMargins.map(m -> OptionalDouble.of(m.crossoverRadPerSec())).orElse(OptionalDouble.empty()),
-                phaseMargins.map(m -> OptionalDouble.of(m.phaseMarginDegrees())).orElse(OptionalDouble.empty()),
-                phaseMargins.map(m -> OptionalDouble.of(m.delayMarginSeconds())).orElse(OptionalDouble.empty()),
-                phaseCrossover, gainMargin);
-    }
+        double a0 = plant.a0();
+        double a1 = plant.a1();
+        double b = plant.b();
+        double k1 = gains.positionGain();
+        double k2 = gains.velocityGain();
 
-    /** Every sign change of f(ln w) between grid neighbours, refined by Brent's method; at most MAX_ROOTS. */
-    private static List<Double> roots(double[] w, UnivariateFunction f) {
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(RELATIVE_ACCURACY,
-                ABSOLUTE_ACCURACY_LOG, 0, BRENT_ORDER);
-        List<Double> roots = new ArrayList<>();
-        double previous = f.value(Math.log(w[0]));
-        if (previous == 0) {
-            roots.add(w[0]);
+        List<Double> roots = SecondOrderLoopResponse.positiveRoots(1, a1 * a1 - 2 * a0 - b * b * k2 * k2, a0 * a0 - b * b * k1 * k1);
+        double[] crossovers = new double[roots.size()];
+        double[] phases = new double[roots.size()];
+        for (int i = 0; i < crossovers.length; i++) {
+            crossovers[i] = Math.sqrt(roots.get(i));
+            phases[i] = SecondOrderLoopResponse.loopPhase(plant, gains, crossovers[i]);
         }
-        for (int i = 1; i < w.length && roots.size() < MAX_ROOTS; i++) {
-            double current = f.value(Math.log(w[i]));
-            if (current == 0) {
-                roots.add(w[i]);
-            } else if (previous * current < 0) {
-                roots.add(Math.exp(solver.solve(MAX_EVALUATIONS, f, Math.log(w[i - 1]), Math.log(w[i]),
-                        AllowedSolution.ANY_SIDE)));
+        Optional<CrossoverMargins> phaseMargins = CrossoverMargins.of(crossovers, phases,
+                LoopMatrices.stable(plant, gains));
+        Double crossover = phaseMargins.map(CrossoverMargins::crossoverRadPerSec).orElse(null);
+        Double phaseMargin = phaseMargins.map(CrossoverMargins::phaseMarginDegrees).orElse(null);
+        Double delayMargin = phaseMargins.map(CrossoverMargins::delayMarginSeconds).orElse(null);
+
+        Double gainMargin = null;
+        Double gainMarginFrequency = null;
+        Double gainReduction = null;
+        List<Double> phaseCrossovers = new ArrayList<>();
+        phaseCrossovers.add(0.0);
+        if (k2 != 0) {
+            double s = a0 - k1 * a1 / k2;
+            if (s > 0) {
+                phaseCrossovers.add(Math.sqrt(s));
             }
-            previous = current;
         }
-        return roots;
+        for (double w : phaseCrossovers) {
+            double[] l = SecondOrderLoopResponse.loop(plant, gains, w);
+            if (!(l[0] < 0) || !Double.isFinite(l[0])) {
+                continue; // real and positive (or at a pole): not a -180 degree crossing
+            }
+            double magnitude = Math.hypot(l[0], l[1]);
+            if (magnitude < 1) {
+                if (gainMargin == null || 1 / magnitude < gainMargin) {
+                    gainMargin = 1 / magnitude;
+                    gainMarginFrequency = w;
+                }
+            } else if (magnitude > 1) {
+                gainReduction = gainReduction == null ? 1 / magnitude : Math.max(gainReduction, 1 / magnitude);
+            }
+        }
+
+        double c0 = LoopMatrices.closedLoopStiffness(plant, gains);
+        double c1 = LoopMatrices.closedLoopDamping(plant, gains);
+        double p = c1 * c1 - 2 * c0;
+        double bandwidthSquared = 0.5 * (-p + Math.hypot(p, 2 * c0));
+        double bandwidth = Math.sqrt(bandwidthSquared);
+
+        double center = Math.sqrt(Math.abs(c0));
+        double low = center * Math.pow(10, -SecondOrderLoopResponse.DECADES_EACH_SIDE);
+        double high = center * Math.pow(10, SecondOrderLoopResponse.DECADES_EACH_SIDE);
+        if (crossover != null) {
+            low = Math.min(low, crossover / 100);
+            high = Math.max(high, crossover * 100);
+        }
+        double[] peak = SecondOrderLoopResponse.peakSensitivity(plant, gains, low, high);
+
+        List<FrequencyPoint> response = new ArrayList<>(responsePoints);
+        double previousPhase = Double.NaN;
+        for (int i = 0; i < responsePoints; i++) {
+            double w = responsePoints == 1 ? center
+                    : low * Math.pow(high / low, (double) i / (responsePoints - 1));
+            double[] l = SecondOrderLoopResponse.loop(plant, gains, w);
+            double phase = Math.toDegrees(Math.atan2(l[1], l[0]));
+            if (!Double.isNaN(previousPhase)) {
+                while (phase - previousPhase > 180) {
+                    phase -= 360;
+                }
+                while (phase - previousPhase < -180) {
+                    phase += 360;
+                }
+            }
+            previousPhase = phase;
+            double[] t = SecondOrderLoopResponse.closedLoop(plant, gains, w);
+            response.add(new FrequencyPoint(w, 20 * Math.log10(Math.hypot(l[0], l[1])), phase,
+                    20 * Math.log10(SecondOrderLoopResponse.sensitivity(plant, gains, w)), 20 * Math.log10(Math.hypot(t[0], t[1]))));
+        }
+        // L is strictly proper, so |S(j w)| -> 1 as w -> infinity: the supremum is at least 1
+        boolean finitePeak = peak[1] > 1;
+        return new LoopMargins(crossover, phaseMargin, delayMargin, gainMargin, gainMarginFrequency, gainReduction,
+                finitePeak ? peak[1] : 1.0, finitePeak ? peak[0] : null, bandwidth, response);
     }
 
     static double[] grid(double low, double high, int points) {

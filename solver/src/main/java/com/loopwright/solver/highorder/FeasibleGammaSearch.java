@@ -1,5 +1,6 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.GammaCondition;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
 import com.loopwright.solver.riccati.RiccatiSolution;
@@ -97,7 +98,7 @@ public final class FeasibleGammaSearch {
      * @param lowEnd  what ends it at the smallest mu: null when it reaches mu = 0
      * @param highEnd what ends it at the largest mu
      */
-    record Branch(List<Point> points, HighOrderCondition lowEnd, HighOrderCondition highEnd) {
+    record Branch(List<Point> points, GammaCondition lowEnd, GammaCondition highEnd) {
         Branch {
             points = List.copyOf(points);
         }
@@ -305,16 +306,16 @@ public final class FeasibleGammaSearch {
         List<Point> points = new ArrayList<>();
         points.add(origin);
         if (!Double.isFinite(cap)) {
-            return new Branch(points, null, HighOrderCondition.SOLUTION_BRANCH_END);
+            return new Branch(points, null, GammaCondition.SOLUTION_BRANCH_END);
         }
         Point first = step(plant, desired, origin, null, cap * Math.pow(10, -SCAN_DECADES), counter);
         if (first == null) {
-            return new Branch(points, null, HighOrderCondition.SOLUTION_BRANCH_END);
+            return new Branch(points, null, GammaCondition.SOLUTION_BRANCH_END);
         }
         points.add(first);
         boolean reached = trace(plant, desired, first, origin, cap, points, counter);
-        return new Branch(points, null, reached ? HighOrderCondition.INPUT_GAIN
-                : HighOrderCondition.SOLUTION_BRANCH_END);
+        return new Branch(points, null, reached ? GammaCondition.INPUT_GAIN
+                : GammaCondition.SOLUTION_BRANCH_END);
     }
 
     /** From a seed at mu &gt; 0 down to mu = 0 and up to mu_cap. */
@@ -341,8 +342,8 @@ public final class FeasibleGammaSearch {
         }
         points.add(seed);
         points.addAll(up);
-        return new Branch(points, reachedZero ? null : HighOrderCondition.SOLUTION_BRANCH_END,
-                reachedCap ? HighOrderCondition.INPUT_GAIN : HighOrderCondition.SOLUTION_BRANCH_END);
+        return new Branch(points, reachedZero ? null : GammaCondition.SOLUTION_BRANCH_END,
+                reachedCap ? GammaCondition.INPUT_GAIN : GammaCondition.SOLUTION_BRANCH_END);
     }
 
     /**
@@ -540,7 +541,7 @@ public final class FeasibleGammaSearch {
             double upper = muLow == 0 ? Double.POSITIVE_INFINITY : 1 / Math.sqrt(muLow);
             GammaInterval.GammaEnd upperEnd = muLow == 0 ? null : ends.get(i)[0];
             if (upperEnd == null && muLow > 0) {
-                upperEnd = new GammaInterval.GammaEnd(HighOrderCondition.SOLUTION_BRANCH_END, 0);
+                upperEnd = new GammaInterval.GammaEnd(GammaCondition.SOLUTION_BRANCH_END, 0);
             }
             if (!(upper > lower)) {
                 continue;
@@ -569,10 +570,10 @@ public final class FeasibleGammaSearch {
 
     private static GammaInterval.GammaEnd end(int condition, int order) {
         if (condition < order) {
-            return new GammaInterval.GammaEnd(HighOrderCondition.WEIGHT_REAL, condition + 1);
+            return new GammaInterval.GammaEnd(GammaCondition.WEIGHT_REAL, condition + 1);
         }
-        return new GammaInterval.GammaEnd(condition == order ? HighOrderCondition.P_POSITIVE_DEFINITE
-                : HighOrderCondition.STABILIZING, 0);
+        return new GammaInterval.GammaEnd(condition == order ? GammaCondition.P_POSITIVE_DEFINITE
+                : GammaCondition.STABILIZING, 0);
     }
 
     /**

@@ -1,5 +1,7 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.GammaCondition;
+
 /**
  * One interval of the feasible gamma set: every gamma strictly between the ends completes the design.
  *
@@ -36,9 +38,9 @@ public record GammaInterval(double lowerGamma, double upperGamma, GammaEnd lower
      * What ends the interval.
      *
      * @param condition  the requirement
-     * @param stateIndex 1-based state for {@link HighOrderCondition#WEIGHT_REAL}, 0 otherwise
+     * @param stateIndex 1-based state for {@link GammaCondition#WEIGHT_REAL}, 0 otherwise
      */
-    public record GammaEnd(HighOrderCondition condition, int stateIndex) {
+    public record GammaEnd(GammaCondition condition, int stateIndex) {
         public String meaning() {
             return condition.meaning(stateIndex);
         }

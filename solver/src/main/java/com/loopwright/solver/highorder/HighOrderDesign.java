@@ -1,5 +1,6 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.GammaBound;
 import com.loopwright.solver.design.GammaChoice;
 import java.util.List;
 import org.ejml.data.DMatrixRMaj;
@@ -19,7 +20,7 @@ import org.ejml.data.DMatrixRMaj;
  * @param notes       how gamma was chosen when not by the plain rule, intervals left out, other branches
  */
 public record HighOrderDesign(CompanionPlant plant, DesiredPoles poles, PoleMatchedRiccati.Solution solution,
-                              List<HighOrderGammaBound> gammaBounds, List<GammaInterval> feasibleSet,
+                              List<GammaBound> gammaBounds, List<GammaInterval> feasibleSet,
                               double gammaMin, double gamma, int bisectionSteps, List<String> notes) {
 
     public HighOrderDesign {

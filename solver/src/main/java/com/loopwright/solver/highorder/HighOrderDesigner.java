@@ -1,5 +1,8 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.GammaBound;
+import com.loopwright.solver.design.GammaCondition;
+import java.util.OptionalDouble;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.InfeasibleDesignException;
@@ -69,12 +72,12 @@ public final class HighOrderDesigner {
         double gammaMin = set.gammaMin();
         GammaInterval.GammaEnd binding = set.intervals().get(0).lowerBinding();
         double[] lowest = set.lowestHolding();
-        List<HighOrderGammaBound> list = new ArrayList<>(conditions);
+        List<GammaBound> list = new ArrayList<>(conditions);
         for (int c = 0; c < conditions; c++) {
-            HighOrderCondition condition = condition(c, plant);
+            GammaCondition condition = condition(c, plant);
             int index = index(c, plant);
-            list.add(new HighOrderGammaBound(condition, index, Math.min(lowest[c], gammaMin),
-                    binding.condition() == condition && binding.stateIndex() == index));
+            list.add(new GammaBound(condition, index, Math.min(lowest[c], gammaMin),
+                    binding.condition() == condition && binding.stateIndex() == index, OptionalDouble.empty()));
         }
         return new HighOrderDesign(plant, poles, solution, list, set.intervals(), gammaMin, gamma,
                 set.evaluations(), notes);
@@ -167,9 +170,9 @@ public final class HighOrderDesigner {
         return result;
     }
 
-    private static HighOrderCondition condition(int c, CompanionPlant plant) {
-        return c < plant.order() ? HighOrderCondition.WEIGHT_REAL
-                : c == plant.order() ? HighOrderCondition.P_POSITIVE_DEFINITE : HighOrderCondition.STABILIZING;
+    private static GammaCondition condition(int c, CompanionPlant plant) {
+        return c < plant.order() ? GammaCondition.WEIGHT_REAL
+                : c == plant.order() ? GammaCondition.P_POSITIVE_DEFINITE : GammaCondition.STABILIZING;
     }
 
     private static int index(int c, CompanionPlant plant) {

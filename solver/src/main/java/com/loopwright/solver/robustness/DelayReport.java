@@ -1,18 +1,21 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
+
 /**
  * The reference step with an input delay, simulated exactly in the sampled loop.
  *
  * @param delaySeconds         the delay
  * @param samplePeriodSeconds  sampling period of the simulation (the requested Ts, or a fine period)
  * @param delayMarginSeconds   continuous-loop delay margin (phase margin / crossover), null without a crossover
- * @param withinMargin         delay &lt; delay margin (null without a crossover)
+ * @param withinMargin         delay &lt; delay margin (NOT_JUDGED without a crossover)
  * @param diverges             the simulated state overflowed (the delayed loop is unstable)
  * @param metrics              step metrics with the delay (null when the loop diverges)
- * @param meetsSpec            the delayed step meets the acceptance limits (null if nothing is judged)
+ * @param meetsSpec            the delayed step against the acceptance limits (NOT_JUDGED without limits)
  * @param trajectory           the delayed step (null when it diverges)
  */
 public record DelayReport(double delaySeconds, double samplePeriodSeconds, Double delayMarginSeconds,
-                          Boolean withinMargin, boolean diverges, GridMetrics metrics, Boolean meetsSpec,
+                          Verdict withinMargin, boolean diverges, GridMetrics metrics, Verdict meetsSpec,
                           DenseTrajectory trajectory) {
 }

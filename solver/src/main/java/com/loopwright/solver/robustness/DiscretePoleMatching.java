@@ -1,5 +1,7 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
 import com.loopwright.solver.simulation.ZeroOrderHold;

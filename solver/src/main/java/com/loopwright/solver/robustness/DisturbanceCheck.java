@@ -1,13 +1,16 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.simulation.DisturbanceProfile;
+import com.loopwright.solver.simulation.DisturbanceResponse;
+
 /**
  * One disturbance profile and its response.
  *
  * @param profile        the profile
  * @param response       the response
  * @param withinNorm     observedGain &lt;= hinfNorm (1 + 1e-8)
- * @param withinGamma    observedGain &lt;= gamma (null when no gamma is known)
+ * @param withinGamma    observedGain &lt;= gamma (NOT_JUDGED when no gamma is known)
  */
 public record DisturbanceCheck(DisturbanceProfile profile, DisturbanceResponse response, boolean withinNorm,
-                               Boolean withinGamma) {
+                               Verdict withinGamma) {
 }

@@ -1,5 +1,6 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.simulation.DisturbanceProfile;
 import java.util.List;
 
 /**

@@ -1,5 +1,7 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.frequency.LoopMargins;
+import com.loopwright.solver.simulation.DenseTrajectory;
 import com.loopwright.solver.simulation.StepMetrics;
 import java.util.List;
 
@@ -7,7 +9,7 @@ import java.util.List;
  * Everything checked about one loop. Sections not requested are null (or empty).
  *
  * @param nominal           exact step metrics of the nominal continuous loop
- * @param nominalMeetsSpec  nominal metrics meet the acceptance limits (null if nothing is judged)
+ * @param nominalMeetsSpec  nominal metrics against the acceptance limits (NOT_JUDGED without limits)
  * @param horizonSeconds    simulated window of the nominal loop
  * @param hinfNorm          H-infinity norm from w to the performance output for the nominal plant
  * @param margins           frequency-domain margins and response
@@ -18,7 +20,7 @@ import java.util.List;
  * @param delay             input delay
  * @param nominalTrajectory the nominal step on the dense grid (for plots)
  */
-public record RobustnessReport(StepMetrics nominal, Boolean nominalMeetsSpec, double horizonSeconds, double hinfNorm,
+public record RobustnessReport(StepMetrics nominal, Verdict nominalMeetsSpec, double horizonSeconds, double hinfNorm,
                                LoopMargins margins, UncertaintyReport uncertainty,
                                List<DisturbanceCheck> disturbances, SaturationReport saturation,
                                SampledReport sampled, DelayReport delay, DenseTrajectory nominalTrajectory) {

@@ -1,5 +1,9 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
+
 /**
  * The loop implemented with a sampler and hold.
  *
@@ -7,7 +11,7 @@ package com.loopwright.solver.robustness;
  * @param spectralRadius            max |z| of the emulated sampled loop Ad - Bd K (stable iff below 1)
  * @param emulated                  metrics with the continuous gains run at Ts (between samples); null when the
  *                                  simulation diverges
- * @param emulatedMeetsSpec         emulated metrics meet the acceptance limits (null if nothing is judged)
+ * @param emulatedMeetsSpec         emulated metrics against the acceptance limits (NOT_JUDGED without limits)
  * @param directGains               gains of the direct discrete design (pole matching z = e^(lambda Ts))
  * @param direct                    metrics with the direct discrete gains
  * @param directMeetsSpec           direct metrics meet the acceptance limits
@@ -17,8 +21,8 @@ package com.loopwright.solver.robustness;
  * @param searchEvaluations         simulations spent in the search
  * @param trajectory                the emulated step
  */
-public record SampledReport(double samplePeriodSeconds, double spectralRadius, GridMetrics emulated, Boolean emulatedMeetsSpec,
-                            FeedbackGains directGains, GridMetrics direct, Boolean directMeetsSpec,
+public record SampledReport(double samplePeriodSeconds, double spectralRadius, GridMetrics emulated, Verdict emulatedMeetsSpec,
+                            FeedbackGains directGains, GridMetrics direct, Verdict directMeetsSpec,
                             Double longestPeriodSeconds, boolean longestPeriodIsLowerBound, int searchEvaluations,
                             DenseTrajectory trajectory) {
 }

@@ -1,5 +1,10 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
 import com.loopwright.solver.plant.CanonicalPlant;
 import java.util.Optional;
 
@@ -12,7 +17,7 @@ import java.util.Optional;
  */
 public final class SampledStepMetrics {
 
-    private final SampledLoopSimulator simulator = new SampledLoopSimulator();
+    private final DelayedSampledStepSimulator simulator = new DelayedSampledStepSimulator();
 
     /**
      * @param bandFraction settling band as a fraction of the final value
@@ -25,7 +30,7 @@ public final class SampledStepMetrics {
             return Optional.empty();
         }
         double horizon = RobustnessVerifier.SLOW_HORIZON_FACTOR * LoopMatrices.horizonSeconds(plant, gains);
-        if (!(Math.ceil(horizon / samplePeriodSeconds) <= SampledLoopSimulator.MAX_SAMPLE_INTERVALS)) {
+        if (!(Math.ceil(horizon / samplePeriodSeconds) <= DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS)) {
             return Optional.empty();
         }
         try {

@@ -1,5 +1,8 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.simulation.GridMetrics;
+
 /**
  * The reference step with an actuator limit.
  *
@@ -10,10 +13,10 @@ package com.loopwright.solver.robustness;
  *                               linear in the step size); null when the loop never uses u
  * @param diverged               the saturated simulation overflowed (the limit cannot hold the loop)
  * @param metrics                step metrics with saturation; null when it diverged
- * @param meetsSpec              the saturated step meets the acceptance limits (null if nothing is judged)
+ * @param meetsSpec              the saturated step against the acceptance limits (NOT_JUDGED without limits)
  * @param trajectory             the saturated step
  */
 public record SaturationReport(double limit, double unsaturatedPeakControl, boolean saturates,
-                               Double largestUnsaturatedStep, boolean diverged, GridMetrics metrics, Boolean meetsSpec,
+                               Double largestUnsaturatedStep, boolean diverged, GridMetrics metrics, Verdict meetsSpec,
                                DenseTrajectory trajectory) {
 }

@@ -1,5 +1,7 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.CanonicalPlant;

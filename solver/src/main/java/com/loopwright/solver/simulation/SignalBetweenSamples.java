@@ -1,5 +1,7 @@
 package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.numeric.BracketedRoot;
+
 /**
  * A scalar signal s = sign (w . x + offset) along an {@link ExactTrajectory}, evaluated between
  * samples from a stored sample state x_k, with the two refinements the step metrics need: the
@@ -52,7 +54,7 @@ final class SignalBetweenSamples {
      * (which must differ in sign).
      */
     double criticalTime(int k, double[] state, int from, double rateAtStart, double rateAtEnd) {
-        return BracketedRoot.find(t -> rateBetween(k, state, from, t), time(k), time(k + 1),
+        return BracketedRoot.brent(t -> rateBetween(k, state, from, t), time(k), time(k + 1),
             rateAtStart, rateAtEnd);
     }
 
@@ -65,7 +67,7 @@ final class SignalBetweenSamples {
         if (loSeconds == hiSeconds) {
             return loSeconds;
         }
-        return BracketedRoot.find(t -> valueBetween(k, state, from, t) - level, loSeconds,
+        return BracketedRoot.brent(t -> valueBetween(k, state, from, t) - level, loSeconds,
             hiSeconds, valueAtLo - level, valueAtHi - level);
     }
 

@@ -35,7 +35,8 @@ public final class StepSimulator {
     /**
      * The recursion behind {@link #simulate}: fills fresh arrays and hands them to the
      * {@link StepResponse} without a copy. Per step, x[k+1]_i = (Bd_i r + sum_j Ad_ij x[k]_j), in
-     * that order of summation, on one row-major state array; nothing is allocated per sample.
+     * that order of summation ({@link TwoStateRecursion} for n = 2, {@link StateRecursion} otherwise);
+     * nothing is allocated per sample.
      *
      * <p>Finiteness is checked once at the end: a non-finite state makes every later output
      * non-finite (c x_j is Inf or NaN for any c, and Inf or NaN never returns to a finite value
@@ -64,11 +65,24 @@ public final class StepSimulator {
         double[] state = new double[samples * n];
         double[] output = new double[samples];
         double[] control = new double[samples];
+        // t_k = horizon k / (samples - 1); the last sample is exactly the horizon
+        double intervals = samples - 1;
         double guard = n == 2
-            ? recurseTwoStates(horizonSeconds, ad, drive, cOut, cControl, feedthrough, timeSeconds,
-                state, output, control)
-            : recurse(n, horizonSeconds, ad, drive, cOut, cControl, feedthrough, timeSeconds, state,
-                output, control);
+            ? new TwoStateRecursion(ad, drive, cOut, cControl, feedthrough).run(samples,
+                (k, x0, x1, y, u) -> {
+                    timeSeconds[k] = horizonSeconds * (k / intervals);
+                    state[2 * k] = x0;
+                    state[2 * k + 1] = x1;
+                    output[k] = y;
+                    control[k] = u;
+                })
+            : new StateRecursion(n, ad, drive, cOut, cControl, feedthrough).run(samples,
+                (k, x, y, u) -> {
+                    timeSeconds[k] = horizonSeconds * (k / intervals);
+                    System.arraycopy(x, 0, state, k * n, n);
+                    output[k] = y;
+                    control[k] = u;
+                });
         if (!Double.isFinite(guard)) {
             reportFirstOverflow(n, timeSeconds, state, output, control);
         }
@@ -86,7 +100,7 @@ public final class StepSimulator {
      * the checks and exceptions of {@link #sample}: x_k exactly as in
      * {@link StepResponse#stateRowMajor()}, u_k exactly as in {@link StepResponse#control()}, and
      * the value and rate of z = w . x (sums in the order {@link StepSampleSink} states). For n = 2
-     * the recursion keeps x_k in locals. Finiteness and the sample times are checked after the
+     * the recursion ({@link TwoStateRecursion}) keeps x_k in locals. Finiteness and the sample times are checked after the
      * pass, as {@link #sample} does, so the sink may see non-finite samples before the exception;
      * it must defer its own failures until this method returns.
      */
@@ -111,12 +125,13 @@ public final class StepSimulator {
             rateDrive[i] = bRef[i] * stepSize;
         }
         double guard = n == 2
-            ? streamTwoStates(samples, ad, drive, a, rateDrive, cOut, cControl, feedthrough,
-                outputWeights, sink)
-            : streamAnyStates(n, samples, ad, drive, a, rateDrive, cOut, cControl, feedthrough,
-                outputWeights, sink);
+            ? streamTwoStates(new TwoStateRecursion(ad, drive, cOut, cControl, feedthrough), samples, a,
+                rateDrive, cControl, outputWeights, sink)
+            : streamAnyStates(new StateRecursion(n, ad, drive, cOut, cControl, feedthrough), n, samples, a,
+                rateDrive, cControl, outputWeights, sink);
         if (!Double.isFinite(guard)) {
-            replayFirstOverflow(n, horizonSeconds, samples, ad, drive, cOut, cControl, feedthrough);
+            replayFirstOverflow(new StateRecursion(n, ad, drive, cOut, cControl, feedthrough), n, horizonSeconds,
+                samples);
         }
         // t_k = fl(horizon fl(k / (samples - 1))): the quotients grow by about 1 / (samples - 1)
         // >= 1e-5, far above their rounding, so the times can only repeat where the spacing h is
@@ -135,45 +150,26 @@ public final class StepSimulator {
         }
     }
 
-    /** The streaming recursion for n = 2 with x_k in locals; returns the running sum of y + u. */
-    private static double streamTwoStates(int samples, double[] ad, double[] drive, double[] a,
-                                          double[] rateDrive, double[] cOut, double[] cControl,
-                                          double feedthrough, double[] outputWeights,
+    /**
+     * The streaming pass for n = 2 on the unrolled recursion: rates x' = A x + bRef r in locals; x_k goes to one of
+     * two arrays by the parity of k, so it survives the next call. Returns the running sum of y + u.
+     */
+    private static double streamTwoStates(TwoStateRecursion recursion, int samples, double[] a,
+                                          double[] rateDrive, double[] cControl, double[] outputWeights,
                                           StepSampleSink sink) {
-        double ad00 = ad[0];
-        double ad01 = ad[1];
-        double ad10 = ad[2];
-        double ad11 = ad[3];
-        double drive0 = drive[0];
-        double drive1 = drive[1];
         double a00 = a[0];
         double a01 = a[1];
         double a10 = a[2];
         double a11 = a[3];
         double rateDrive0 = rateDrive[0];
         double rateDrive1 = rateDrive[1];
-        double c0 = cOut[0];
-        double c1 = cOut[1];
         double k0 = cControl[0];
         double k1 = cControl[1];
         double w0 = outputWeights[0];
         double w1 = outputWeights[1];
-        // x_k goes to one of two arrays by the parity of k, so it survives the next call.
         double[] even = new double[2];
         double[] odd = new double[2];
-        double x0 = 0.0;
-        double x1 = 0.0;
-        double guard = 0.0;
-        for (int k = 0; k < samples; k++) {
-            if (k > 0) {
-                double next0 = drive0 + ad00 * x0 + ad01 * x1;
-                double next1 = drive1 + ad10 * x0 + ad11 * x1;
-                x0 = next0;
-                x1 = next1;
-            }
-            double y = 0.0 + c0 * x0 + c1 * x1;
-            double u = feedthrough + k0 * x0 + k1 * x1;
-            guard += y + u;
+        return recursion.run(samples, (k, x0, x1, y, u) -> {
             double rate0 = rateDrive0 + a00 * x0 + a01 * x1;
             double rate1 = rateDrive1 + a10 * x0 + a11 * x1;
             double[] state = (k & 1) == 0 ? even : odd;
@@ -181,33 +177,14 @@ public final class StepSimulator {
             state[1] = x1;
             sink.accept(k, state, 0.0 + w0 * x0 + w1 * x1, 0.0 + w0 * rate0 + w1 * rate1, u,
                 0.0 + k0 * rate0 + k1 * rate1);
-        }
-        return guard;
+        });
     }
 
-    /** The streaming recursion for any n; returns the running sum of y + u. */
-    private static double streamAnyStates(int n, int samples, double[] ad, double[] drive,
-                                          double[] a, double[] rateDrive, double[] cOut,
-                                          double[] cControl, double feedthrough,
-                                          double[] outputWeights, StepSampleSink sink) {
-        // x_k and x_(k-1) alternate between two arrays, so x_k survives the next call.
-        double[] state = new double[n];
-        double[] next = new double[n];
-        double guard = 0.0;
-        for (int k = 0; k < samples; k++) {
-            if (k > 0) {
-                advance(n, ad, drive, state, 0, next, 0);
-                double[] swap = state;
-                state = next;
-                next = swap;
-            }
-            double y = 0.0;
-            double u = feedthrough;
-            for (int j = 0; j < n; j++) {
-                y += cOut[j] * state[j];
-                u += cControl[j] * state[j];
-            }
-            guard += y + u;
+    /** The streaming pass for any n: the same sums as for n = 2, in loops. Returns the running sum of y + u. */
+    private static double streamAnyStates(StateRecursion recursion, int n, int samples, double[] a,
+                                          double[] rateDrive, double[] cControl, double[] outputWeights,
+                                          StepSampleSink sink) {
+        return recursion.run(samples, (k, state, y, u) -> {
             double value = 0.0;
             double rate = 0.0;
             double controlRate = 0.0;
@@ -222,8 +199,7 @@ public final class StepSimulator {
                 controlRate += cControl[i] * component;
             }
             sink.accept(k, state, value, rate, u, controlRate);
-        }
-        return guard;
+        });
     }
 
     /**
@@ -231,25 +207,9 @@ public final class StepSimulator {
      * throw for its first non-finite sample as {@link #reportFirstOverflow} does; returns on a
      * false alarm.
      */
-    private static void replayFirstOverflow(int n, double horizonSeconds, int samples,
-                                            double[] ad, double[] drive, double[] cOut,
-                                            double[] cControl, double feedthrough) {
-        double[] state = new double[n];
-        double[] next = new double[n];
+    private static void replayFirstOverflow(StateRecursion recursion, int n, double horizonSeconds, int samples) {
         double intervals = samples - 1;
-        for (int k = 0; k < samples; k++) {
-            if (k > 0) {
-                advance(n, ad, drive, state, 0, next, 0);
-                double[] swap = state;
-                state = next;
-                next = swap;
-            }
-            double y = 0.0;
-            double u = feedthrough;
-            for (int j = 0; j < n; j++) {
-                y += cOut[j] * state[j];
-                u += cControl[j] * state[j];
-            }
+        recursion.run(samples, (k, state, y, u) -> {
             double timeSeconds = horizonSeconds * (k / intervals);
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(state[i])) {
@@ -261,94 +221,7 @@ public final class StepSimulator {
                 throw new IllegalArgumentException("output or control overflows double precision at t = "
                     + timeSeconds + " s");
             }
-        }
-    }
-
-    /** The recursion for n = 2 with the state in locals; returns the running sum of y + u. */
-    private static double recurseTwoStates(double horizonSeconds, double[] ad, double[] drive,
-                                           double[] cOut, double[] cControl, double feedthrough,
-                                           double[] timeSeconds, double[] state, double[] output,
-                                           double[] control) {
-        double ad00 = ad[0];
-        double ad01 = ad[1];
-        double ad10 = ad[2];
-        double ad11 = ad[3];
-        double drive0 = drive[0];
-        double drive1 = drive[1];
-        double c0 = cOut[0];
-        double c1 = cOut[1];
-        double k0 = cControl[0];
-        double k1 = cControl[1];
-        double x0 = 0.0;
-        double x1 = 0.0;
-        double guard = 0.0;
-        int samples = output.length;
-        double intervals = samples - 1;
-        for (int k = 0; k < samples; k++) {
-            // t_k = horizon k / (samples - 1); the last sample is exactly the horizon. Computed
-            // here so that the divisions overlap the recursion's dependent multiply-adds.
-            timeSeconds[k] = horizonSeconds * (k / intervals);
-            if (k > 0) {
-                double next0 = drive0 + ad00 * x0 + ad01 * x1;
-                double next1 = drive1 + ad10 * x0 + ad11 * x1;
-                x0 = next0;
-                x1 = next1;
-            }
-            state[2 * k] = x0;
-            state[2 * k + 1] = x1;
-            double y = 0.0 + c0 * x0 + c1 * x1;
-            double u = feedthrough + k0 * x0 + k1 * x1;
-            output[k] = y;
-            control[k] = u;
-            guard += y + u;
-        }
-        return guard;
-    }
-
-    /** The recursion for any n on the row-major state; returns the running sum of y + u. */
-    private static double recurse(int n, double horizonSeconds, double[] ad, double[] drive,
-                                  double[] cOut, double[] cControl, double feedthrough,
-                                  double[] timeSeconds, double[] state, double[] output,
-                                  double[] control) {
-        double guard = 0.0;
-        int samples = output.length;
-        double intervals = samples - 1;
-        for (int k = 0; k < samples; k++) {
-            // t_k = horizon k / (samples - 1); the last sample is exactly the horizon. Computed
-            // here so that the divisions overlap the recursion's dependent multiply-adds.
-            timeSeconds[k] = horizonSeconds * (k / intervals);
-            int row = k * n;
-            if (k > 0) {
-                advance(n, ad, drive, state, row - n, state, row);
-            }
-            double y = 0.0;
-            double u = feedthrough;
-            for (int j = 0; j < n; j++) {
-                y += cOut[j] * state[row + j];
-                u += cControl[j] * state[row + j];
-            }
-            output[k] = y;
-            control[k] = u;
-            guard += y + u;
-        }
-        return guard;
-    }
-
-    /**
-     * One ZOH step for any n, x_(k+1) = Ad x_k + Bd r: row i is drive_i plus sum_j ad_ij x_j in that order
-     * (the recursions for any n share it, so they give the same numbers). x_k is read at
-     * {@code from[fromOffset ..]}, x_(k+1) written at {@code to[toOffset ..]}.
-     */
-    private static void advance(int n, double[] ad, double[] drive, double[] from, int fromOffset, double[] to,
-                                int toOffset) {
-        for (int i = 0; i < n; i++) {
-            double sum = drive[i];
-            int adRow = i * n;
-            for (int j = 0; j < n; j++) {
-                sum += ad[adRow + j] * from[fromOffset + j];
-            }
-            to[toOffset + i] = sum;
-        }
+        });
     }
 
     /** Throws for the first non-finite sample, states before outputs; returns on a false alarm. */

@@ -1,6 +1,6 @@
 package com.loopwright.solver.spec;
 
-import com.loopwright.solver.numeric.Bisection;
+import com.loopwright.solver.numeric.BracketedRoot;
 
 /** First crossing of a level in (0, 1) by the normalized step response, where the response is still rising. */
 final class MonotoneRise {
@@ -20,7 +20,7 @@ final class MonotoneRise {
             throw new IllegalArgumentException("level must lie in (0, 1): " + level);
         }
         if (response.underdamped()) {
-            return Bisection.root(t -> response.at(t) - level, 0, response.extremumTime(1));
+            return BracketedRoot.bisection(t -> response.at(t) - level, 0, response.extremumTime(1));
         }
         double hi = 1;
         for (int i = 0; response.at(hi) < level; i++) {
@@ -29,6 +29,6 @@ final class MonotoneRise {
             }
             hi *= 2;
         }
-        return Bisection.root(t -> response.at(t) - level, 0, hi);
+        return BracketedRoot.bisection(t -> response.at(t) - level, 0, hi);
     }
 }

@@ -1,6 +1,6 @@
 package com.loopwright.solver.spec;
 
-import com.loopwright.solver.numeric.Bisection;
+import com.loopwright.solver.numeric.BracketedRoot;
 
 /**
  * Exact normalized settling time T(zeta) = wn ts: the last time the unit-wn step response leaves the band
@@ -47,13 +47,13 @@ public final class NormalizedSettlingTime {
         double lastOutside = peaksOutside == 0 ? Double.POSITIVE_INFINITY : Math.log(peak / bandFraction);
         double proximity = Math.min(lastOutside, Math.log(bandFraction / nextPeak));
         if (peaksOutside == 0) {
-            double tau = Bisection.root(t -> response.at(t) - (1 - bandFraction), 0, response.extremumTime(1));
+            double tau = BracketedRoot.bisection(t -> response.at(t) - (1 - bandFraction), 0, response.extremumTime(1));
             return new SettlingAnalysis(tau, 0, proximity);
         }
         double s = response.dampedFrequencyRatio();
         double lo = response.extremumTime(peaksOutside);
         double zeroOfError = ((peaksOutside + 1) * Math.PI - Math.acos(dampingRatio)) / s;
-        double tau = Bisection.root(t -> Math.abs(response.at(t) - 1) - bandFraction, lo, zeroOfError);
+        double tau = BracketedRoot.bisection(t -> Math.abs(response.at(t) - 1) - bandFraction, lo, zeroOfError);
         return new SettlingAnalysis(tau, peaksOutside, proximity);
     }
 

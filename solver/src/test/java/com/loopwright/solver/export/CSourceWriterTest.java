@@ -19,7 +19,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /**
  * Compiles the generated C with gcc and runs a generated harness that closes the loop around the sampled plant
- * (Ad, Bd from Java's exact ZOH, printed with 17 digits), then compares every sample with SampledLoopSimulator.
+ * (Ad, Bd from Java's exact ZOH, printed with 17 digits), then compares every sample with SampledLawSimulator.
  * Skipped only where gcc is absent; .ci/run installs gcc and sets LOOPWRIGHT_REQUIRE_GCC=1, which turns a
  * missing gcc into a failure.
  */
@@ -67,7 +67,7 @@ class CSourceWriterTest {
         List<String> lines = List.of(run(List.of(binary.toString())).split("\n"));
         assertEquals(STEPS, lines.size());
 
-        double[][] java = new SampledLoopSimulator().run(IndexingAxis.PLANT, law, 1, STEPS);
+        double[][] java = new SampledLawSimulator().run(IndexingAxis.PLANT, law, 1, STEPS);
         int saturatedSamples = 0;
         for (int k = 0; k < STEPS; k++) {
             String[] f = lines.get(k).trim().split(" ");

@@ -61,7 +61,7 @@ class SampledLawDesignerTest {
         double period = 1e-4;
         SampledLaw law = designer.emulate(d, period, 1e6);
         int steps = 3000;
-        double[][] sampled = new SampledLoopSimulator().run(IndexingAxis.PLANT, law, 1, steps);
+        double[][] sampled = new SampledLawSimulator().run(IndexingAxis.PLANT, law, 1, steps);
         double b = IndexingAxis.PLANT.b();
         LinearLoop loop = new LinearLoop(
                 new DMatrixRMaj(new double[][] {{0, 1}, {-b * d.positionGain(), -0.48 - b * d.velocityGain()}}),
@@ -80,7 +80,7 @@ class SampledLawDesignerTest {
     @Test
     void clampHoldsTheActuatorLimit() {
         SampledLaw law = designer.emulate(IndexingAxis.report().design(), 1e-3, 0.5);
-        double[][] rows = new SampledLoopSimulator().run(IndexingAxis.PLANT, law, 1, 500);
+        double[][] rows = new SampledLawSimulator().run(IndexingAxis.PLANT, law, 1, 500);
         for (double[] row : rows) {
             assertTrue(Math.abs(row[2]) <= 0.5);
         }

@@ -6,9 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.robustness.FeedbackGains;
-import com.loopwright.solver.robustness.FrequencyAnalyzer;
-import com.loopwright.solver.robustness.LoopMargins;
+import com.loopwright.solver.loop.FeedbackGains;
 import org.hipparchus.complex.Complex;
 import org.hipparchus.linear.Array2DRowFieldMatrix;
 import org.hipparchus.linear.ArrayFieldVector;
@@ -30,7 +28,7 @@ class LoopFrequencyAnalyzerTest {
     @Test
     void textbookThirdOrderLoopGainMargin() {
         RationalLoop loop = new RationalLoop(new double[] {2}, new double[] {0, 2, 3, 1});
-        StabilityMargins margins = analyzer.margins(loop, 1e-2, 1e2, 400);
+        GridStabilityMargins.Margins margins = GridStabilityMargins.of(loop, 1e-2, 1e2, 400);
         assertEquals(Math.sqrt(2), margins.phaseCrossoverRadPerSec().getAsDouble(), 1e-12);
         assertEquals(20 * Math.log10(3), margins.gainMarginDecibels().getAsDouble(), 1e-10);
     }
@@ -49,7 +47,7 @@ class LoopFrequencyAnalyzerTest {
         double crossover = Math.sqrt(x);
         double expectedMargin = 90 - Math.toDegrees(Math.atan(crossover) + Math.atan(crossover / 2));
         RationalLoop loop = new RationalLoop(new double[] {2}, new double[] {0, 2, 3, 1});
-        StabilityMargins margins = analyzer.margins(loop, 1e-2, 1e2, 400);
+        GridStabilityMargins.Margins margins = GridStabilityMargins.of(loop, 1e-2, 1e2, 400);
         assertEquals(crossover, margins.gainCrossoverRadPerSec().getAsDouble(), 1e-12);
         assertEquals(expectedMargin, margins.phaseMarginDegrees().getAsDouble(), 1e-9);
         assertEquals(32.6, margins.phaseMarginDegrees().getAsDouble(), 0.05); // hand value above
@@ -72,7 +70,7 @@ class LoopFrequencyAnalyzerTest {
             assertEquals(matrix[0], polynomial[0], 1e-12 * Math.hypot(matrix[0], matrix[1]));
             assertEquals(matrix[1], polynomial[1], 1e-12 * Math.hypot(matrix[0], matrix[1]));
         }
-        StabilityMargins margins = analyzer.margins(loop, 0.1, 1e4, 500);
+        GridStabilityMargins.Margins margins = GridStabilityMargins.of(loop, 0.1, 1e4, 500);
         assertFalse(margins.phaseCrossoverRadPerSec().isPresent());
         assertFalse(margins.gainMarginDecibels().isPresent());
         double wc = margins.gainCrossoverRadPerSec().getAsDouble();
@@ -99,8 +97,8 @@ class LoopFrequencyAnalyzerTest {
             RationalLoop loop = RationalLoop.atPlantInput(plants[i], gains[i].positionGain(),
                     gains[i].velocityGain());
             assertTrue(loop.closedLoopStable());
-            StabilityMargins grid = analyzer.margins(loop, 1e-2, 1e3, 400);
-            LoopMargins closedForm = new FrequencyAnalyzer().analyze(plants[i], gains[i], 0);
+            GridStabilityMargins.Margins grid = GridStabilityMargins.of(loop, 1e-2, 1e3, 400);
+            LoopMargins closedForm = analyzer.margins(plants[i], gains[i], 0);
             assertEquals(closedForm.crossoverRadPerSec(), grid.gainCrossoverRadPerSec().getAsDouble(),
                     1e-12 * closedForm.crossoverRadPerSec());
             assertEquals(closedForm.phaseMarginDegrees(), grid.phaseMarginDegrees().getAsDouble(), 1e-9);
@@ -110,7 +108,7 @@ class LoopFrequencyAnalyzerTest {
         // an unstable closed loop (gain 10 around 1/(s(s+1)(s+2)), Routh: unstable above 6) has no delay margin
         RationalLoop unstable = new RationalLoop(new double[] {10}, new double[] {0, 2, 3, 1});
         assertFalse(unstable.closedLoopStable());
-        assertEquals(0, analyzer.margins(unstable, 1e-2, 1e2, 400).delayMarginSeconds().getAsDouble());
+        assertEquals(0, GridStabilityMargins.of(unstable, 1e-2, 1e2, 400).delayMarginSeconds().getAsDouble());
     }
 
     /** Unwrapped phase of 1/(s+1)^4 runs continuously from 0 to near -360 (common practice). */

@@ -1,5 +1,6 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.GammaBound;
 import static org.junit.jupiter.api.Assertions.*;
 
 import com.loopwright.solver.design.ClosedFormDesign;
@@ -156,7 +157,7 @@ class HighOrderDesignerTest {
         PoleMatchedRiccati.Solution atBelow = new PoleMatchedRiccati().solveFrom(plant, desired, 1 / (below * below),
                 atAbove);
         double[] marginsBelow = FeasibleGammaSearch.margins(plant, 1 / (below * below), atBelow);
-        List<HighOrderGammaBound> bounds = design.gammaBounds();
+        List<GammaBound> bounds = design.gammaBounds();
         boolean bindingFails = false;
         for (int c = 0; c < bounds.size(); c++) {
             if (bounds.get(c).binding() && !FeasibleGammaSearch.holds(c, marginsBelow[c], plant.order())) {

@@ -1,5 +1,8 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
+import com.loopwright.solver.simulation.DisturbanceProfile;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
@@ -24,10 +27,11 @@ class RobustnessVerifierTest {
     void everySectionOfTheIndexingAxisIsConsistent() {
         RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
                 IndexingAxis.performanceOutput(), IndexingAxis.DESIGN.gamma(), options(1e-3, true, 2e-3));
-        assertTrue(report.nominalMeetsSpec());
+        assertEquals(Verdict.MET, report.nominalMeetsSpec());
         assertTrue(report.hinfNorm() <= IndexingAxis.DESIGN.gamma());
         DisturbanceCheck check = report.disturbances().get(0);
-        assertTrue(check.withinNorm() && check.withinGamma());
+        assertTrue(check.withinNorm());
+        assertEquals(Verdict.MET, check.withinGamma());
         // peak |u| of the unit step is kr (the jump at t = 0+), below the 2.0 limit: no saturation
         assertFalse(report.saturation().saturates());
         assertEquals(2.0 / IndexingAxis.GAINS.referenceGain(), report.saturation().largestUnsaturatedStep(), 1e-9);
@@ -35,7 +39,7 @@ class RobustnessVerifierTest {
         assertNotNull(sampled.longestPeriodSeconds());
         // the longest period meets the limits, 0.2% longer does not (bisection bracket width 1e-3)
         assertTrue(sampled.longestPeriodSeconds() > 0 && sampled.searchEvaluations() <= 6 + 12 + 20 + 1);
-        assertTrue(report.delay().withinMargin());
+        assertEquals(Verdict.MET, report.delay().withinMargin());
         assertEquals(report.margins().delayMarginSeconds(), report.delay().delayMarginSeconds());
     }
 
@@ -51,7 +55,7 @@ class RobustnessVerifierTest {
                 > Math.abs(fine.sampled().emulated().overshootPercent() - nominal));
         assertTrue(Math.abs(coarse.sampled().emulated().settlingTimeSeconds() - fine.nominal().settlingTimeSeconds())
                 > Math.abs(fine.sampled().emulated().settlingTimeSeconds() - fine.nominal().settlingTimeSeconds()));
-        assertTrue(fine.sampled().emulatedMeetsSpec());
+        assertEquals(Verdict.MET, fine.sampled().emulatedMeetsSpec());
     }
 
     @Test
@@ -60,7 +64,7 @@ class RobustnessVerifierTest {
         RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
                 IndexingAxis.performanceOutput(), null, options(0.5, false, null));
         assertTrue(report.sampled().spectralRadius() > 1, "radius " + report.sampled().spectralRadius());
-        assertFalse(report.sampled().emulatedMeetsSpec());
+        assertEquals(Verdict.NOT_MET, report.sampled().emulatedMeetsSpec());
         RobustnessReport fine = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
                 IndexingAxis.performanceOutput(), null, options(1e-3, false, null));
         assertTrue(fine.sampled().spectralRadius() < 1);
@@ -71,7 +75,7 @@ class RobustnessVerifierTest {
         CapExceededException cap = assertThrows(CapExceededException.class, () -> verifier.verify(IndexingAxis.PLANT,
                 IndexingAxis.GAINS, 1, LIMITS, IndexingAxis.performanceOutput(), null, options(1e-7, false, null)));
         assertEquals(CapExceededException.Option.SAMPLE_PERIOD, cap.option());
-        assertTrue(cap.getMessage().contains(String.valueOf(SampledLoopSimulator.MAX_SAMPLE_INTERVALS)));
+        assertTrue(cap.getMessage().contains(String.valueOf(DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS)));
         assertThrows(UnstableLoopException.class, () -> verifier.verify(new CanonicalPlant(0, 0.48, 400, 400),
                 new FeedbackGains(-1, 0.1, 1), 1, LIMITS, IndexingAxis.performanceOutput(), null,
                 options(null, false, null)));
@@ -99,8 +103,8 @@ class RobustnessVerifierTest {
         for (int i = 0; i < 1000; i++) {
             double horizon = Math.pow(10, -2 + 5 * random.nextDouble());
             double advised = RobustnessVerifier.shortestPeriod(horizon);
-            assertTrue(Math.ceil(horizon / advised) <= SampledLoopSimulator.MAX_SAMPLE_INTERVALS, "" + horizon);
-            double exact = horizon / SampledLoopSimulator.MAX_SAMPLE_INTERVALS;
+            assertTrue(Math.ceil(horizon / advised) <= DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS, "" + horizon);
+            double exact = horizon / DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS;
             assertTrue(advised - exact <= 2 * Math.pow(10, Math.floor(Math.log10(exact)) - 5), "" + horizon);
         }
     }

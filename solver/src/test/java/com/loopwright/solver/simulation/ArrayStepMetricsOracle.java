@@ -1,5 +1,6 @@
 package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.numeric.BracketedRoot;
 import com.loopwright.solver.linalg.TwoByTwoSpectrum;
 import java.util.function.BiFunction;
 import org.ejml.data.Complex_F64;
@@ -398,7 +399,7 @@ final class ArrayStepMetricsOracle {
 
         /** The critical point s'(t*) = 0 inside interval k, by Brent's method on the exact s'. */
         Point criticalPoint(int k) {
-            double tStar = BracketedRoot.find(t -> rateBetween(k, t),
+            double tStar = BracketedRoot.brent(t -> rateBetween(k, t),
                 time(k), time(k + 1), sampleRate[k], sampleRate[k + 1]);
             return new Point(tStar, valueBetween(k, tStar));
         }
@@ -412,7 +413,7 @@ final class ArrayStepMetricsOracle {
             if (loSeconds == hiSeconds) {
                 return loSeconds;
             }
-            return BracketedRoot.find(t -> valueBetween(k, t) - level, loSeconds, hiSeconds,
+            return BracketedRoot.brent(t -> valueBetween(k, t) - level, loSeconds, hiSeconds,
                 valueAtLo - level, valueAtHi - level);
         }
 
@@ -483,7 +484,7 @@ final class ArrayStepMetricsOracle {
                 if (signedMaximumBound(k, sign) <= best.value()) {
                     break;
                 }
-                double tStar = BracketedRoot.find(t -> sign * rateBetween(k, t),
+                double tStar = BracketedRoot.brent(t -> sign * rateBetween(k, t),
                     time(k), time(k + 1), sign * sampleRate[k], sign * sampleRate[k + 1]);
                 Point refined = new Point(tStar, sign * valueBetween(k, tStar));
                 if (refined.value() > best.value()) {
