@@ -27,7 +27,7 @@ import com.loopwright.api.response.VerificationResponse;
 import com.loopwright.solver.robustness.FrequencyAnalyzer;
 import com.loopwright.solver.robustness.RobustnessVerifier;
 import com.loopwright.solver.robustness.UncertaintyAnalyzer;
-import com.loopwright.api.exchange.TakeawayExchange;
+import com.loopwright.api.takeaway.Takeaways;
 import com.loopwright.api.plot.Figure;
 import com.loopwright.api.request.ControllerRequest;
 import com.loopwright.api.request.PlotRequest;
@@ -382,10 +382,10 @@ class ContractDriftTest {
             assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
             assertEquals(value, node.asDouble(), 0, pointer);
         });
-        assertEquals(TakeawayExchange.FORMATS.size(), contract.document()
+        assertEquals(Takeaways.FORMATS.size(), contract.document()
                 .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum").size());
-        for (int i = 0; i < TakeawayExchange.FORMATS.size(); i++) {
-            assertEquals(TakeawayExchange.FORMATS.get(i), contract.document()
+        for (int i = 0; i < Takeaways.FORMATS.size(); i++) {
+            assertEquals(Takeaways.FORMATS.get(i), contract.document()
                     .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum/" + i).asText());
         }
         JsonNode figures = contract.document().at("/paths/~1v1~1designs~1plots~1{figure}/post/parameters/0/schema/enum");

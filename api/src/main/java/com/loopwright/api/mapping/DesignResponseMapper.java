@@ -6,6 +6,7 @@ import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.GammaBound;
 import com.loopwright.solver.design.GammaCondition;
 import com.loopwright.solver.pipeline.DesignReport;
+import com.loopwright.solver.pipeline.StateSpaceDesign;
 import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.spec.SpecInversion;
@@ -18,12 +19,12 @@ import java.util.Locale;
 /** Solver results to the wire records of POST /v1/designs. */
 public final class DesignResponseMapper {
 
-    public DesignResponse toResponse(ValidatedDesign request, DesignReport report) {
-        return toResponse(request, report, null);
-    }
-
-    /** With the robustness section (null when the request did not ask for it). */
-    public DesignResponse toResponse(ValidatedDesign request, DesignReport report,
+    /**
+     * @param callerCoordinates the design in the caller's state-space coordinates (null unless the plant was given
+     *                          as a state space)
+     * @param robustness        the robustness section (null when the request did not ask for it)
+     */
+    public DesignResponse toResponse(ValidatedDesign request, DesignReport report, StateSpaceDesign callerCoordinates,
                                      com.loopwright.api.response.RobustnessResponse robustness) {
         ClosedFormDesign design = report.design();
         Verification verification = report.verification();
@@ -62,7 +63,7 @@ public final class DesignResponseMapper {
                                 c.requested(), c.simulated(), c.met())).toList()),
                 notes(report, ModelMapper.conditionNote(request.resolvedPlant())),
                 Cautions.ALL,
-                ModelMapper.toModel(request.resolvedPlant(), design),
+                ModelMapper.toModel(request.resolvedPlant(), design, callerCoordinates),
                 robustness);
     }
 

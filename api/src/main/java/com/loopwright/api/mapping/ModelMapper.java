@@ -4,7 +4,6 @@ import com.loopwright.api.request.PlantFormName;
 import com.loopwright.api.request.ResolvedPlant;
 import com.loopwright.api.response.DesignResponse;
 import com.loopwright.solver.design.ClosedFormDesign;
-import com.loopwright.solver.pipeline.CallerCoordinates;
 import com.loopwright.solver.pipeline.StateSpaceDesign;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.TwoStateModel;
@@ -13,13 +12,17 @@ import java.util.List;
 import java.util.Locale;
 import org.ejml.data.DMatrixRMaj;
 
-/** The {@code model} section of a design response: derived coefficients, units, physical law, coordinates. */
+/**
+ * The {@code model} section of a design response: derived coefficients, units, physical law, and the caller's
+ * coordinates as the solver computed them (this class only formats).
+ */
 final class ModelMapper {
 
     private ModelMapper() {
     }
 
-    static DesignResponse.Model toModel(ResolvedPlant resolved, ClosedFormDesign design) {
+    static DesignResponse.Model toModel(ResolvedPlant resolved, ClosedFormDesign design,
+                                       StateSpaceDesign callerCoordinates) {
         CanonicalPlant plant = resolved.canonical();
         DesignResponse.Plant canonical = new DesignResponse.Plant(plant.a0(), plant.a1(), plant.b(), plant.d());
         PlantFormName form = resolved.form();
@@ -40,7 +43,7 @@ final class ModelMapper {
                     resolved.assumptions(), null, null);
             case STATE_SPACE -> new DesignResponse.Model(form.wireName(), canonical,
                     units("z1 = y = c x (the tracked output)", "z2 = y'", "u units", "w units", "y units"),
-                    resolved.assumptions(), null, stateSpace((TwoStateModel) resolved.source(), design));
+                    resolved.assumptions(), null, stateSpace(callerCoordinates));
         };
     }
 
@@ -78,8 +81,8 @@ final class ModelMapper {
                 "setpointFeedforward = a0/b = referenceGain - positionGain: " + meaning);
     }
 
-    private static DesignResponse.StateSpaceView stateSpace(TwoStateModel model, ClosedFormDesign design) {
-        StateSpaceDesign view = CallerCoordinates.of(model, design);
+    /** The caller-coordinate results the solver computed (pipeline.DesignPipeline#callerCoordinates). */
+    private static DesignResponse.StateSpaceView stateSpace(StateSpaceDesign view) {
         DMatrixRMaj gain = view.gain();
         DMatrixRMaj output = view.trackedOutput();
         String law = String.format(Locale.US, "u = %.6g*r - (%.6g*x1 + %.6g*x2), tracking y = %.6g*x1 + (%.6g)*x2",

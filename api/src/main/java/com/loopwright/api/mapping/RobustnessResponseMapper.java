@@ -132,13 +132,6 @@ public final class RobustnessResponseMapper {
                 RobustnessCautions.ALL);
     }
 
-    /** The limits actually judged: each given limit widened by the tolerance. */
-    public static AcceptanceLimits widened(AcceptanceLimits limits, double toleranceFraction) {
-        return new AcceptanceLimits(scale(limits.settlingTimeSeconds(), 1 + toleranceFraction),
-                scale(limits.riseTimeSeconds(), 1 + toleranceFraction),
-                scale(limits.overshootPercent(), 1 + toleranceFraction), limits.bandFraction());
-    }
-
     private static Double scale(Double value, double factor) {
         return value == null ? null : value * factor;
     }

@@ -1,37 +1,22 @@
 package com.loopwright.api.plot;
 
-import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.frequency.BodeSeries;
-import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
-import com.loopwright.solver.frequency.RationalLoop;
+import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignReport;
-import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.robustness.FeedbackGains;
-import com.loopwright.solver.robustness.FrequencyAnalyzer;
 import com.loopwright.solver.robustness.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;
 import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponse;
-import com.loopwright.solver.simulation.StepSimulator;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.Locale;
 import java.util.OptionalDouble;
-import org.ejml.data.DMatrixRMaj;
 
 /**
- * Draws a verified design as a self-contained SVG figure (inline style, generic font family, no scripts, no
+ * Draws a verified design and the figure data the solver computed for it (solver.pipeline.FigurePipeline) as a
+ * self-contained SVG figure (inline style, generic font family, no scripts, no
  * external references). Stateless and thread-safe.
  */
 public final class DesignFigures {
-
-    /** Samples of the drawn step and control series. */
-    public static final int PLOT_SAMPLES = 600;
-    /** Frequency points of the Bode figure. */
-    public static final int BODE_POINTS = 400;
-    /** Bode window: this many decades either side of the natural frequency. */
-    static final double BODE_DECADES = 2;
-    /** The window reaches at least this factor beyond a marked crossover. */
-    static final double BODE_MARKER_ROOM = 3;
 
     static final double WIDTH = 720;
     static final double PANEL_HEIGHT = 300;
@@ -51,22 +36,6 @@ public final class DesignFigures {
             + ".measured{stroke:#0f7c80;stroke-width:1;stroke-dasharray:4 3}"
             + ".point{fill:#2b2d42}.spread{fill:#0f7c80;fill-opacity:0.2;stroke:#0f7c80;stroke-width:0.5}"
             + "</style>\n";
-
-    private final StepSimulator simulator = new StepSimulator();
-    private final LoopFrequencyAnalyzer frequency = new LoopFrequencyAnalyzer();
-    private final FrequencyAnalyzer marginAnalyzer = new FrequencyAnalyzer();
-
-    /**
-     * @param commandLimit actuator limit drawn on the control-effort figure, if given
-     */
-    public String draw(Figure figure, DesignReport report, OptionalDouble commandLimit) {
-        return switch (figure) {
-            case STEP_RESPONSE -> stepResponse(report);
-            case CONTROL_EFFORT -> controlEffort(report, commandLimit);
-            case BODE -> bode(report);
-            case UNCERTAINTY_BAND -> throw new IllegalArgumentException("the uncertainty band needs a parameter box");
-        };
-    }
 
     /**
      * The step-response band over a parameter box (corners plus seeded interior samples) with the nominal
@@ -111,8 +80,8 @@ public final class DesignFigures {
         return panel;
     }
 
-    String stepResponse(DesignReport report) {
-        StepResponse step = simulate(report);
+    /** The step the solver simulated (FigurePipeline#step), with the spec envelope and the measured metrics. */
+    public String stepResponse(DesignReport report, StepResponse step) {
         StepMetrics metrics = report.verification().metrics();
         double r = report.stepSize();
         double[] y = step.output();
@@ -130,8 +99,12 @@ public final class DesignFigures {
         return close(svg);
     }
 
-    String controlEffort(DesignReport report, OptionalDouble commandLimit) {
-        StepResponse step = simulate(report);
+    /**
+     * The command of the same step.
+     *
+     * @param commandLimit actuator limit drawn on the figure, if given
+     */
+    public String controlEffort(DesignReport report, StepResponse step, OptionalDouble commandLimit) {
         double[] u = step.control();
         double low = Math.min(0, min(u));
         double high = Math.max(0, max(u));
@@ -156,22 +129,12 @@ public final class DesignFigures {
         return close(svg);
     }
 
-    String bode(DesignReport report) {
-        ClosedFormDesign d = report.design();
-        RationalLoop loop = RationalLoop.atPlantInput(d.plant(), d.positionGain(), d.velocityGain());
-        // the margins of POST /v1/verifications (closed form, every crossover), so the figure and the report agree
-        LoopMargins margins = marginAnalyzer.analyze(d.plant(),
-                new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), 0);
-        double wn = d.target().naturalFrequencyRadPerSec();
-        double low = wn * Math.pow(10, -BODE_DECADES);
-        double high = wn * Math.pow(10, BODE_DECADES);
-        for (Double marked : new Double[] {margins.crossoverRadPerSec(), margins.gainMarginRadPerSec()}) {
-            if (marked != null && marked > 0) {
-                low = Math.min(low, marked / BODE_MARKER_ROOM);
-                high = Math.max(high, marked * BODE_MARKER_ROOM);
-            }
-        }
-        BodeSeries bode = frequency.sample(loop, low, high, BODE_POINTS);
+    /** The Bode diagram of the frequency response and margins the solver computed (FigurePipeline#bode). */
+    public String bode(DesignReport report, BodeData data) {
+        BodeSeries bode = data.series();
+        LoopMargins margins = data.margins();
+        double low = data.lowRadPerSec();
+        double high = data.highRadPerSec();
         double[] logW = new double[bode.size()];
         double[] w = bode.angularFrequencyRadPerSec();
         for (int i = 0; i < logW.length; i++) {
@@ -226,18 +189,6 @@ public final class DesignFigures {
             }
         }
         return degrees + 360 * Math.rint((phase[nearest] - degrees) / 360);
-    }
-
-    private StepResponse simulate(DesignReport report) {
-        ClosedFormDesign d = report.design();
-        double b = d.plant().b();
-        LinearLoop loop = new LinearLoop(
-                new DMatrixRMaj(new double[][] {{0, 1},
-                    {-d.plant().a0() - b * d.positionGain(), -d.plant().a1() - b * d.velocityGain()}}),
-                new DMatrixRMaj(new double[][] {{0}, {b * d.referenceGain()}}),
-                new DMatrixRMaj(new double[][] {{1, 0}}),
-                new DMatrixRMaj(new double[][] {{-d.positionGain(), -d.velocityGain()}}), d.referenceGain());
-        return simulator.simulate(loop, report.stepSize(), report.horizonSeconds(), PLOT_SAMPLES);
     }
 
     private static double valueAt(StepResponse step, double time) {

@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -24,22 +25,21 @@ class ExportedStepMetricsTest {
     private static final double PERIOD = 0.006;
 
     private final ObjectMapper mapper = StrictJson.newMapper();
-    private final TakeawayExchange takeaway = new TakeawayExchange(mapper);
 
-    private Takeaway export(String format) {
+    private Answer export(String format) {
         String body = "{\"design\":" + DESIGN + "},\"samplePeriodSeconds\":" + PERIOD + ",\"commandLimit\":10}";
-        return takeaway.controller(format, body.getBytes(StandardCharsets.UTF_8));
+        return Answer.controller(format, body.getBytes(StandardCharsets.UTF_8));
     }
 
     @Test
     void parameterSetAndHeadersQuoteTheSampledLoop() throws Exception {
-        Takeaway parameters = export("parameters");
+        Answer parameters = export("parameters");
         assertEquals(200, parameters.status(), () -> String.valueOf(parameters.problem()));
-        JsonNode json = mapper.readTree(parameters.body());
+        JsonNode json = mapper.readTree(parameters.text());
         JsonNode continuous = json.get("continuousStep");
         JsonNode sampled = json.get("sampledStep");
 
-        Outcome verified = new DesignExchange(mapper).exchange((DESIGN + ",\"verify\":{\"sampling\":{\"samplePeriod\":"
+        Answer verified = Answer.design((DESIGN + ",\"verify\":{\"sampling\":{\"samplePeriod\":"
                 + PERIOD + "}}}").getBytes(StandardCharsets.UTF_8));
         assertEquals(200, verified.status(), () -> verified.body().toString());
         JsonNode emulated = verified.body().at("/robustness/sampled/emulated");
@@ -53,7 +53,7 @@ class ExportedStepMetricsTest {
 
         String line = String.format(Locale.ROOT, "overshoot %.5g%%", sampled.get("overshootPercent").asDouble());
         for (String format : new String[] {"structured-text", "c"}) {
-            String code = export(format).body();
+            String code = export(format).text();
             assertTrue(code.contains("Simulated (sampled at T = " + PERIOD + " s"), format);
             assertTrue(code.contains(line), format + " quotes " + line);
             assertTrue(code.contains("Simulated (continuous, unclamped)"), format);
@@ -67,14 +67,14 @@ class ExportedStepMetricsTest {
         String slow = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                 + "\"spec\":{\"settlingTime\":1.5,\"overshootPercent\":1.5}}";
         for (String format : new String[] {"parameters", "c"}) {
-            Takeaway exported = takeaway.controller(format, ("{\"design\":" + slow
+            Answer exported = Answer.controller(format, ("{\"design\":" + slow
                     + ",\"samplePeriodSeconds\":1e-5,\"commandLimit\":10}").getBytes(StandardCharsets.UTF_8));
             assertEquals(200, exported.status(), () -> String.valueOf(exported.problem()));
             if (format.equals("parameters")) {
-                JsonNode json = mapper.readTree(exported.body());
-                assertTrue(json.has("continuousStep") && !json.has("sampledStep"), exported.body());
+                JsonNode json = mapper.readTree(exported.text());
+                assertTrue(json.has("continuousStep") && !json.has("sampledStep"), exported.text());
             } else {
-                assertTrue(exported.body().contains("Simulated (sampled): not simulated"), exported.body());
+                assertTrue(exported.text().contains("Simulated (sampled): not simulated"), exported.text());
             }
         }
     }

@@ -1,5 +1,7 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
+import com.loopwright.api.json.FiniteNumbers;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNull;
@@ -21,7 +23,6 @@ import org.junit.jupiter.api.Test;
 class FitExchangeTest {
 
     private final ObjectMapper mapper = StrictJson.newMapper();
-    private final FitExchange exchange = new FitExchange(mapper);
 
     private static JsonNode parameter(JsonNode fit, String name) {
         for (JsonNode p : fit.get("parameters")) {
@@ -49,7 +50,7 @@ class FitExchangeTest {
         int start = readme.indexOf("/v1/models/fit <<'JSON'\n");
         String body = readme.substring(start + "/v1/models/fit <<'JSON'\n".length(),
                 readme.indexOf("\nJSON\n", start));
-        Outcome outcome = exchange.exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.fit(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         JsonNode fit = outcome.body();
         // The numbers printed in the README under the example.
@@ -85,7 +86,7 @@ class FitExchangeTest {
         }
         body.put("stepTime", 0.5);
         body.put("estimateDeadTime", true);
-        Outcome outcome = exchange.exchange(body.toString().getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.fit(body.toString().getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         JsonNode fit = outcome.body();
         assertNull(FiniteNumbers.firstNonFinite(fit));

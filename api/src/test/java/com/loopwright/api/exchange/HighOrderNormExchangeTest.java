@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -22,7 +23,7 @@ class HighOrderNormExchangeTest {
                 + "\"numerator\":[1.0,-0.010096282201076452,0,0,0],\"disturbance\":[0,0,0,0,988.6561066119183]},"
                 + "\"spec\":{\"settlingTime\":0.41617516156597156,\"overshootPercent\":2.3321485160205992},"
                 + "\"matchSpecs\":true}";
-        Outcome outcome = new HighOrderExchange(StrictJson.newMapper()).exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.highOrder(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         JsonNode verification = outcome.body().at("/verification");
         double tolerance = verification.at("/hinfNormRelativeTolerance").asDouble();

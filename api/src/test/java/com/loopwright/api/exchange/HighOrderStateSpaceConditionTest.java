@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -32,7 +33,7 @@ class HighOrderStateSpaceConditionTest {
     void conditionNoteAndPlantGainPlacesThePoles() {
         String body = "{\"plant\":{\"stateSpace\":{\"a\":[[-10,0,0],[0,-20,0],[0,0,-30]],\"b2\":[1,1e-4,1e-4],"
                 + "\"b1\":[1,1e-4,1e-4],\"output\":[1,1,1]}},\"spec\":{\"settlingTime\":0.1,\"overshootPercent\":1}}";
-        Outcome outcome = new HighOrderExchange(StrictJson.newMapper()).exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.highOrder(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         JsonNode coordinates = outcome.body().at("/coordinates");
 
@@ -81,7 +82,7 @@ class HighOrderStateSpaceConditionTest {
         String body = "{\"plant\":{\"denominator\":[0,96,200.48],\"numerator\":[1,0.0666667,0],\"b\":80000,"
                 + "\"disturbance\":[0,400,0]},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":1.5},"
                 + "\"auxiliaryPoles\":{\"poles\":[{\"re\":-250,\"im\":0}]}}";
-        Outcome outcome = new HighOrderExchange(StrictJson.newMapper()).exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.highOrder(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         assertTrue(outcome.body().at("/coordinates/controllabilityCondition").isMissingNode());
     }

@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -20,7 +21,7 @@ class HighOrderUndershootExchangeTest {
                 + "1.192578756140489],\"b\":0.04340825295325368,\"numerator\":[1.0,-0.5782773668692388,0,0],"
                 + "\"disturbance\":[0,0,0,0.022057260905507935]},\"spec\":{\"settlingTime\":12.039949496201748,"
                 + "\"overshootPercent\":0.24565128665507857,\"settlingBandPercent\":5}}";
-        Outcome outcome = new HighOrderExchange(StrictJson.newMapper()).exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.highOrder(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         JsonNode simulated = outcome.body().at("/simulated");
         assertEquals(0.389930, simulated.at("/undershootPercent").asDouble(), 5e-7);

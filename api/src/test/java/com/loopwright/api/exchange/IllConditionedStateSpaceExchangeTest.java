@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -24,7 +25,7 @@ class IllConditionedStateSpaceExchangeTest {
                 + "[42.07354924039482,-177.015115293407]],\"b2\":[898.6445419029465,490.9317542266375],"
                 + "\"b1\":[449.32227095147323,245.46587711331875]},"
                 + "\"spec\":{\"settlingTime\":0.01,\"overshootPercent\":1}}";
-        Outcome outcome = new DesignExchange(StrictJson.newMapper()).exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.design(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         double condition = outcome.body().at("/model/stateSpace/controllabilityCondition").asDouble();
         assertEquals(3.334e10, condition, 0.001e10);
@@ -37,7 +38,7 @@ class IllConditionedStateSpaceExchangeTest {
     void wellConditionedStateSpaceHasNoNote() {
         String body = "{\"plant\":{\"form\":\"stateSpace\",\"a\":[[0,50],[0,-2]],\"b2\":[0,3],\"b1\":[0,1]},"
                 + "\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":1}}";
-        Outcome outcome = new DesignExchange(StrictJson.newMapper()).exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.design(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         assertTrue(outcome.body().at("/model/stateSpace/controllabilityCondition").asDouble() < 100);
         assertTrue(StreamSupport.stream(outcome.body().at("/notes").spliterator(), false).map(JsonNode::asText)

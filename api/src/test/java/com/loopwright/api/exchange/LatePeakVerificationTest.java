@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import com.loopwright.api.json.StrictJson;
@@ -17,8 +18,7 @@ class LatePeakVerificationTest {
         String body = "{\"plant\":{\"a0\":158.26763769334335,\"a1\":10.807564793416091,\"b\":-8.24527590299888,"
                 + "\"d\":0.4354674102081221},\"gain\":{\"k1\":-26.698820246411938,\"k2\":-3.286906667311671,"
                 + "\"referenceGain\":-45.8937676993868}}";
-        Outcome outcome = new VerificationExchange(StrictJson.newMapper())
-                .exchange(body.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.verification(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         double a0 = 158.26763769334335;
         double a1 = 10.807564793416091;

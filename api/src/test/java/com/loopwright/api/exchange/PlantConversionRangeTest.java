@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -16,8 +17,6 @@ import org.junit.jupiter.params.provider.CsvSource;
 class PlantConversionRangeTest {
 
     private static final String SPEC = "\"spec\":{\"settlingTime\":0.4,\"overshootPercent\":1}";
-
-    private final DesignExchange exchange = new DesignExchange(StrictJson.newMapper());
 
     // The reproductions of the issue: 4.9e-324 is the smallest subnormal double, 1/4.9e-324 overflows to Infinity
     // and 1 * 4.9e-324 / 1 stays below the canonical b range; 0.5/1e-320 and 1e12/1e-300 overflow.
@@ -39,7 +38,7 @@ class PlantConversionRangeTest {
         "{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-2]],\"b2\":[0,1e-160]} | /plant/b2/1",
     })
     void conversionOutsideDoublePrecisionIsA422AtTheField(String plant, String pointer) {
-        Outcome outcome = exchange.exchange(("{\"plant\":" + plant + "," + SPEC + "}")
+        Answer outcome = Answer.design(("{\"plant\":" + plant + "," + SPEC + "}")
                 .getBytes(StandardCharsets.UTF_8));
         assertEquals(422, outcome.status(), () -> outcome.body().toString());
         assertEquals("urn:loopwright:problem:plant-model-unusable", outcome.body().get("type").asText());

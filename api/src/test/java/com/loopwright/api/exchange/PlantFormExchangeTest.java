@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -16,14 +17,12 @@ class PlantFormExchangeTest {
 
     private static final String SPEC = "\"spec\":{\"settlingTime\":0.4,\"overshootPercent\":1}";
 
-    private final DesignExchange exchange = new DesignExchange(StrictJson.newMapper());
-
-    private Outcome post(String plant) {
-        return exchange.exchange(("{\"plant\":" + plant + "," + SPEC + "}").getBytes(StandardCharsets.UTF_8));
+    private Answer post(String plant) {
+        return Answer.design(("{\"plant\":" + plant + "," + SPEC + "}").getBytes(StandardCharsets.UTF_8));
     }
 
     private JsonNode ok(String plant) {
-        Outcome outcome = post(plant);
+        Answer outcome = post(plant);
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         return outcome.body();
     }
@@ -129,7 +128,7 @@ class PlantFormExchangeTest {
                 + "\"spin\":3}"), 400, "/plant/spin");
     }
 
-    private static void assertProblem(Outcome outcome, int status, String pointer) {
+    private static void assertProblem(Answer outcome, int status, String pointer) {
         assertEquals(status, outcome.status(), () -> outcome.body().toString());
         assertEquals(pointer, outcome.body().at("/errors/0/pointer").asText(), () -> outcome.body().toString());
     }

@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -24,7 +25,6 @@ class ProposalRoundTripTest {
     private static final int REQUESTS = 100;
 
     private final ObjectMapper mapper = StrictJson.newMapper();
-    private final DesignExchange exchange = new DesignExchange(mapper);
 
     private static double logUniform(Random random, double low, double high) {
         return Math.exp(Math.log(low) + (Math.log(high) - Math.log(low)) * random.nextDouble());
@@ -67,13 +67,13 @@ class ProposalRoundTripTest {
         int proposals = 0;
         for (int i = 0; i < REQUESTS; i++) {
             ObjectNode request = request(random);
-            Outcome outcome = exchange.exchange(request);
+            Answer outcome = Answer.design(request);
             if (outcome.status() != 422 || !outcome.body().has("proposals")) {
                 continue;
             }
             for (JsonNode proposal : outcome.body().get("proposals")) {
                 proposals++;
-                Outcome retry = exchange.exchange(withProposal(request, proposal));
+                Answer retry = Answer.design(withProposal(request, proposal));
                 if (retry.status() != 200) {
                     refused.add(String.format(Locale.ROOT, "%s with %s -> %d %s", request, proposal, retry.status(),
                             retry.body().path("detail").asText()));
@@ -92,7 +92,7 @@ class ProposalRoundTripTest {
         ObjectNode request = (ObjectNode) mapper.readTree("{\"plant\":{\"a0\":-0.3215830787603754,"
                 + "\"a1\":681.1098617399875,\"b\":-0.07548091132732491,\"d\":77.13998041142767},"
                 + "\"spec\":{\"overshootPercent\":0.1640388282719001,\"riseTime\":0.006285737570700606}}");
-        Outcome outcome = exchange.exchange(request);
+        Answer outcome = Answer.design(request);
         assertEquals(422, outcome.status());
         boolean overshootProposed = false;
         for (JsonNode proposal : outcome.body().get("proposals")) {
@@ -100,7 +100,7 @@ class ProposalRoundTripTest {
                 overshootProposed = true;
                 assertTrue(proposal.get("value").asDouble() >= 0.001, proposal.toString());
             }
-            Outcome retry = exchange.exchange(withProposal(request, proposal));
+            Answer retry = Answer.design(withProposal(request, proposal));
             assertEquals(200, retry.status(), () -> proposal + " -> " + retry.body());
         }
         // here no overshoot from 0.001% up works with this rise time, and the problem says so

@@ -1,5 +1,6 @@
 package com.loopwright.api.exchange;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -18,11 +19,9 @@ class SamplePeriodAdviceTest {
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
     private static final Pattern ADVICE = Pattern.compile("at most ([0-9.eE+-]+) s");
 
-    private final TakeawayExchange exchange = new TakeawayExchange(StrictJson.newMapper());
-
-    private Takeaway export(double period) {
+    private Answer export(double period) {
         String body = "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":" + period + ",\"commandLimit\":10}";
-        return exchange.controller("parameters", body.getBytes(StandardCharsets.UTF_8));
+        return Answer.controller("parameters", body.getBytes(StandardCharsets.UTF_8));
     }
 
     // Reproduction (issue 12, item 8): 0.02074 s was refused with "use at most 0.01994 s", and 0.01994 s was
@@ -30,16 +29,16 @@ class SamplePeriodAdviceTest {
     // Reference: wn T <= 0.5 with wn from the design's own target (the rule the refusal states), evaluated here.
     @Test
     void advisedPeriodIsAcceptedWhenPostedBack() {
-        Takeaway refused = export(0.02074);
+        Answer refused = export(0.02074);
         assertEquals(422, refused.status());
         assertNotNull(refused.problem());
         Matcher advice = ADVICE.matcher(refused.problem().detail());
         assertTrue(advice.find(), refused.problem().detail());
         double advised = Double.parseDouble(advice.group(1));
         assertTrue(advised < 0.01994, "rounded down from 0.019937...: " + advised);
-        Takeaway accepted = export(advised);
+        Answer accepted = export(advised);
         assertEquals(200, accepted.status(), () -> String.valueOf(accepted.problem()));
-        assertTrue(accepted.body().contains("\"periodPerTimeConstant\""));
+        assertTrue(accepted.text().contains("\"periodPerTimeConstant\""));
     }
 
     // The same round trip over a sweep of refused periods: the advice is always accepted and at most one unit of
@@ -48,14 +47,14 @@ class SamplePeriodAdviceTest {
     void everyAdviceInASweepIsAccepted() {
         for (int i = 0; i < 12; i++) {
             double period = 0.0200 + 0.0007 * i;
-            Takeaway refused = export(period);
+            Answer refused = export(period);
             if (refused.status() == 200) {
                 continue;
             }
             Matcher advice = ADVICE.matcher(refused.problem().detail());
             assertTrue(advice.find(), refused.problem().detail());
             double advised = Double.parseDouble(advice.group(1));
-            Takeaway accepted = export(advised);
+            Answer accepted = export(advised);
             assertEquals(200, accepted.status(), () -> advised + ": " + accepted.problem());
             assertTrue(export(advised + 2e-5).status() == 422, "the advice is within one printed unit of the limit");
         }

@@ -1,10 +1,13 @@
-package com.loopwright.api.exchange;
+package com.loopwright.api.json;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.ArrayDeque;
 import java.util.Deque;
 
-/** Finds the first non-finite number in a JSON tree, so that NaN or Infinity never reaches a client. */
+/**
+ * Test oracle: the first non-finite number in a JSON tree, found by walking the tree (an independent route to
+ * the pointer FiniteNumbersModule reports while writing; the production tree walk it replaced).
+ */
 public final class FiniteNumbers {
 
     /** Response trees are a few hundred nodes; the cap only guards against a runaway structure. */

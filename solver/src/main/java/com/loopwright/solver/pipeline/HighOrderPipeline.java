@@ -1,0 +1,121 @@
+package com.loopwright.solver.pipeline;
+
+import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.highorder.AuxiliaryPlacement;
+import com.loopwright.solver.highorder.CompanionPlant;
+import com.loopwright.solver.highorder.CompanionTransform;
+import com.loopwright.solver.highorder.DesiredPoles;
+import com.loopwright.solver.highorder.HighOrderDesign;
+import com.loopwright.solver.highorder.HighOrderDesigner;
+import com.loopwright.solver.highorder.HighOrderVerification;
+import com.loopwright.solver.highorder.HighOrderVerifier;
+import com.loopwright.solver.highorder.PoleMatchedRiccati;
+import com.loopwright.solver.highorder.SpecMatch;
+import com.loopwright.solver.highorder.SpecMatcher;
+import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.SpecInverter;
+import com.loopwright.solver.spec.TargetDynamics;
+import com.loopwright.solver.spec.TimeSpec;
+import com.loopwright.solver.verify.VerificationFailedException;
+import org.ejml.data.DMatrixRMaj;
+
+/**
+ * The front door of the order-n design: a state space is brought to companion form (and refused without DC gain),
+ * the dominant target comes from matching the specs by simulation or from the closed-form inversion, the
+ * auxiliary poles are placed, the pole-matched Riccati design is computed and verified. Every failure is a
+ * {@link SolverFailure}. Stateless and thread-safe.
+ */
+public final class HighOrderPipeline {
+
+    /**
+     * The output has DC gain when |n0| > DC_GAIN_TOLERANCE * ||n|| for the companion numerator n (n0 its constant
+     * coefficient): below that the zero at s = 0 is numerically exact and the reference cannot be scaled.
+     */
+    public static final double DC_GAIN_TOLERANCE = 1e-12;
+
+    private final SpecMatcher matcher = new SpecMatcher();
+    private final HighOrderDesigner designer = new HighOrderDesigner();
+    private final HighOrderVerifier verifier = new HighOrderVerifier();
+
+    /** The state space as sent: dx/dt = A x + B2 u + B1 w, tracked output y = c x. */
+    public record StateSpace(DMatrixRMaj a, DMatrixRMaj b2, DMatrixRMaj b1, DMatrixRMaj output) {
+    }
+
+    /**
+     * One order-n design request in solver terms.
+     *
+     * @param plant                the companion plant (ignored when stateSpace is given)
+     * @param stateSpace           the state space to transform, or null
+     * @param matchSpecs           true: match the specs by simulating the order-n loop; false: invert them in
+     *                             closed form for the dominant pair
+     * @param maxUndershootPercent the undershoot allowed while matching
+     */
+    public record Request(CompanionPlant plant, StateSpace stateSpace, DesignSpec spec, AuxiliaryPlacement auxiliary,
+                          boolean matchSpecs, GammaChoice gammaChoice, double stepSize, double bandFraction,
+                          double maxUndershootPercent) {
+    }
+
+    /**
+     * @param transform    the companion transform of the state space, or null
+     * @param match        the spec match, or null when the specs were inverted in closed form
+     */
+    public record Result(CompanionTransform.Result transform, SpecMatch match, HighOrderDesign design,
+                         HighOrderVerification verification) {
+    }
+
+    /**
+     * @throws SolverFailure UNCONTROLLABLE or NO_DC_GAIN for the state space, INFEASIBLE_SPEC, UNVERIFIABLE,
+     *                       or LOOP_NOT_SIMULABLE
+     */
+    public Result design(Request request) {
+        CompanionTransform.Result transform = null;
+        CompanionPlant plant = request.plant();
+        if (request.stateSpace() != null) {
+            StateSpace ss = request.stateSpace();
+            try {
+                transform = new CompanionTransform().transform(ss.a(), ss.b2(), ss.b1(), ss.output());
+            } catch (CompanionTransform.UncontrollableException e) {
+                throw SolverFailure.of(SolverFailure.Kind.UNCONTROLLABLE, e.getMessage(), e);
+            }
+            plant = transform.plant();
+            if (!(Math.abs(plant.numerator()[0]) > DC_GAIN_TOLERANCE * norm(plant.numerator()))) {
+                throw SolverFailure.of(SolverFailure.Kind.NO_DC_GAIN, "the output has a zero at s = 0 (no DC gain),"
+                        + " so the reference cannot be scaled to it", null);
+            }
+        }
+        try {
+            SpecMatch match = null;
+            TargetDynamics target;
+            if (request.matchSpecs()) {
+                match = matcher.match(plant, request.spec(), request.auxiliary(), request.stepSize(),
+                        request.maxUndershootPercent());
+                target = match.target();
+            } else {
+                target = new SpecInverter().invert(request.spec()).target();
+            }
+            DesiredPoles poles = request.auxiliary().place(target, plant.order());
+            HighOrderDesign design = designer.design(plant, poles, request.gammaChoice());
+            HighOrderVerification verification = verifier.verify(design, request.stepSize(),
+                    request.bandFraction(), ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds());
+            return new Result(transform, match, design, verification);
+        } catch (InfeasibleDesignException e) {
+            throw SolverFailure.infeasible(e.infeasibility(), e);
+        } catch (VerificationFailedException | PoleMatchedRiccati.SystemFailure e) {
+            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
+        } catch (IllegalArgumentException e) {
+            // a simulation or eigenvalue step outside its range (for example a step response that never settles
+            // inside the horizon): the design cannot be verified
+            throw SolverFailure.of(SolverFailure.Kind.LOOP_NOT_SIMULABLE, e.getMessage(), e);
+        }
+    }
+
+    /** Euclidean norm, accumulated with hypot so that large coefficients do not overflow. */
+    private static double norm(double[] v) {
+        double s = 0;
+        for (double x : v) {
+            s = Math.hypot(s, x);
+        }
+        return s;
+    }
+}
