@@ -1,10 +1,10 @@
 package com.loopwright.api;
 
+import com.loopwright.api.request.FieldLimits;
 import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.api.json.StrictJson;
-import com.loopwright.api.request.FieldLimits;
 import java.nio.charset.StandardCharsets;
 import java.util.Map;
 import java.util.TreeMap;

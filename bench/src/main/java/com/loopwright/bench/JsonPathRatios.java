@@ -1,14 +1,14 @@
 package com.loopwright.bench;
 
+import com.loopwright.api.design.DesignRequest;
+import com.loopwright.api.design.DesignRequestValidator;
+import com.loopwright.api.design.DesignResponseMapper;
+import com.loopwright.api.design.ValidatedDesign;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.json.FiniteNumbersModule;
 import com.loopwright.api.json.StrictJson;
-import com.loopwright.api.mapping.DesignResponseMapper;
-import com.loopwright.api.request.DesignRequest;
-import com.loopwright.api.request.DesignRequestValidator;
-import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.LoopDesigner;
 import java.io.IOException;

@@ -168,7 +168,7 @@ class ComputeBudgetTest {
 
     @Test
     void theEstimateNamesEveryCheckAndStaysBoundedForOutOfRangeCounts() throws Exception {
-        var budget = new com.loopwright.api.exchange.ComputeBudget();
+        var budget = new com.loopwright.api.design.ComputeBudget();
         var mapper = StrictJson.newMapper();
         // source: the cost model of docs/limits-and-budgets.md, summed by hand:
         // 10 design + 10 verify + 16 corners + 2000 samples + 8 x 25 + 40 + 700 + 500 + 700 + ceil(1500/30)

@@ -4,7 +4,7 @@ import com.loopwright.api.problem.Problem;
 
 /**
  * One endpoint's steps between the decoded request and the response body; {@link EndpointRunner} runs them.
- * Each step may fail with an {@link com.loopwright.api.request.InvalidRequestException} (every field error at
+ * Each step may fail with an {@link com.loopwright.api.validation.InvalidRequestException} (every field error at
  * once), a {@link com.loopwright.solver.plant.PlantParameterException} or a
  * {@link com.loopwright.solver.pipeline.SolverFailure}; the runner maps them in {@link FailureTable}, in the
  * pointer context the endpoint gives ({@link #failureContext}).

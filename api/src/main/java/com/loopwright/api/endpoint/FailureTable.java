@@ -1,10 +1,10 @@
 package com.loopwright.api.endpoint;
 
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.api.problem.Proposal;
-import com.loopwright.api.request.InvalidRequestException;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.SpecQuantity;
 import com.loopwright.solver.pipeline.SolverFailure;

@@ -1,13 +1,9 @@
 package com.loopwright.api.fit;
 
 import com.loopwright.api.endpoint.Endpoint;
-import com.loopwright.api.mapping.FitResponseMapper;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
-import com.loopwright.api.request.FitRequest;
-import com.loopwright.api.request.FitRequestValidator;
-import com.loopwright.api.request.ValidatedFit;
 import com.loopwright.solver.fit.StepFit;
 import com.loopwright.solver.pipeline.FitPipeline;
 import java.util.List;

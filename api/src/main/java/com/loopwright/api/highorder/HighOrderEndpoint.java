@@ -2,11 +2,7 @@ package com.loopwright.api.highorder;
 
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureTable;
-import com.loopwright.api.mapping.HighOrderResponseMapper;
 import com.loopwright.api.problem.Problem;
-import com.loopwright.api.request.HighOrderDesignRequest;
-import com.loopwright.api.request.HighOrderRequestValidator;
-import com.loopwright.api.request.ValidatedHighOrderDesign;
 import com.loopwright.solver.pipeline.HighOrderPipeline;
 
 /** POST /v1/designs/high-order: the order-n design of a companion plant or a state space. Stateless. */

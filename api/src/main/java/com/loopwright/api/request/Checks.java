@@ -3,14 +3,17 @@ package com.loopwright.api.request;
 import com.loopwright.api.problem.FieldError;
 import java.util.List;
 
-/** Shared field checks of the request validators. */
-final class Checks {
+/**
+ * Shared field checks of the request validators of every endpoint (kept beside the plant validator that uses them
+ * without an import; a candidate for api.validation once the plant wire model has its own package).
+ */
+public final class Checks {
 
     private Checks() {
     }
 
     /** Present (if required), finite, and minAbs &lt;= |value| &lt;= maxAbs. */
-    static void magnitude(List<FieldError> errors, String pointer, Double value, double minAbs, double maxAbs,
+    public static void magnitude(List<FieldError> errors, String pointer, Double value, double minAbs, double maxAbs,
                           boolean required) {
         if (value == null) {
             if (required) {
@@ -27,7 +30,7 @@ final class Checks {
     }
 
     /** Present (if required), finite, and min &lt;= value &lt;= max. */
-    static void range(List<FieldError> errors, String pointer, Double value, double min, double max,
+    public static void range(List<FieldError> errors, String pointer, Double value, double min, double max,
                       boolean required) {
         if (value == null) {
             if (required) {
@@ -41,13 +44,13 @@ final class Checks {
     }
 
     /** Absent, or positive, finite and at most max. */
-    static void positive(List<FieldError> errors, String pointer, Double value, double max) {
+    public static void positive(List<FieldError> errors, String pointer, Double value, double max) {
         if (value != null && !(value > 0 && value <= max)) {
             errors.add(new FieldError(pointer, "must be positive and at most " + fmt(max)));
         }
     }
 
-    static String fmt(double value) {
+    public static String fmt(double value) {
         return value == Math.rint(value) && Math.abs(value) < 1e6 ? String.valueOf((long) value)
                 : String.valueOf(value);
     }

@@ -1,19 +1,16 @@
 package com.loopwright.api.takeaway;
 
+import com.loopwright.api.design.Cautions;
+import com.loopwright.api.design.ValidatedDesign;
+import com.loopwright.api.request.FieldLimits;
+import com.loopwright.api.robustness.RobustnessResponse;
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.endpoint.FailureTable;
 import com.loopwright.api.endpoint.Text;
-import com.loopwright.api.mapping.Cautions;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
-import com.loopwright.api.request.ControllerRequest;
-import com.loopwright.api.request.FieldLimits;
-import com.loopwright.api.request.InvalidRequestException;
-import com.loopwright.api.request.TakeawayLimits;
-import com.loopwright.api.request.ValidatedDesign;
-import com.loopwright.api.response.ControllerParameters;
-import com.loopwright.api.response.RobustnessResponse;
 import com.loopwright.solver.export.CSourceWriter;
 import com.loopwright.solver.export.ExportHeader;
 import com.loopwright.solver.export.SampledLaw;

@@ -1,5 +1,11 @@
 package com.loopwright.api.takeaway;
 
+import com.loopwright.api.design.ValidatedDesign;
+import com.loopwright.api.request.FieldLimits;
+import com.loopwright.api.robustness.ValidatedVerify;
+import com.loopwright.api.robustness.VerifyInputValidator;
+import com.loopwright.api.robustness.VerifyLimits;
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.endpoint.FailureTable;
@@ -8,14 +14,6 @@ import com.loopwright.api.plot.DesignFigures;
 import com.loopwright.api.plot.Figure;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
-import com.loopwright.api.request.FieldLimits;
-import com.loopwright.api.request.InvalidRequestException;
-import com.loopwright.api.request.PlotRequest;
-import com.loopwright.api.request.TakeawayLimits;
-import com.loopwright.api.request.ValidatedDesign;
-import com.loopwright.api.request.ValidatedVerify;
-import com.loopwright.api.request.VerifyInputValidator;
-import com.loopwright.api.request.VerifyLimits;
 import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;

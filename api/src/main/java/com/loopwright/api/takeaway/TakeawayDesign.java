@@ -1,11 +1,11 @@
 package com.loopwright.api.takeaway;
 
+import com.loopwright.api.design.DesignRequest;
+import com.loopwright.api.design.DesignRequestValidator;
+import com.loopwright.api.design.ValidatedDesign;
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.problem.FieldError;
-import com.loopwright.api.request.DesignRequest;
-import com.loopwright.api.request.DesignRequestValidator;
-import com.loopwright.api.request.InvalidRequestException;
-import com.loopwright.api.request.ValidatedDesign;
 import java.util.ArrayList;
 import java.util.List;
 

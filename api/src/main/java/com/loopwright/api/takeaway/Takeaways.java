@@ -5,9 +5,10 @@ import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.plot.Figure;
 import com.loopwright.api.problem.ProblemType;
 import java.util.Arrays;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.function.Function;
+import java.util.stream.Collectors;
 
 /**
  * What people take away from a design: SVG figures and controller code, one endpoint per figure and per format,
@@ -25,13 +26,15 @@ public final class Takeaways {
     public static final List<String> FORMATS = List.of("structured-text", "c", "parameters");
 
     private final EndpointRunner runner;
-    private final Map<String, PlotEndpoint> plots = new LinkedHashMap<>();
-    private final Map<String, ControllerEndpoint> controllers = new LinkedHashMap<>();
+    private final Map<String, PlotEndpoint> plots;
+    private final Map<String, ControllerEndpoint> controllers;
 
     public Takeaways(EndpointRunner runner) {
         this.runner = runner;
-        Arrays.stream(Figure.values()).forEach(f -> plots.put(f.slug(), new PlotEndpoint(f)));
-        FORMATS.forEach(f -> controllers.put(f, new ControllerEndpoint(f)));
+        this.plots = Arrays.stream(Figure.values())
+                .collect(Collectors.toUnmodifiableMap(Figure::slug, PlotEndpoint::new));
+        this.controllers = FORMATS.stream()
+                .collect(Collectors.toUnmodifiableMap(Function.identity(), ControllerEndpoint::new));
     }
 
     /** POST /v1/designs/plots/{figure}. */

@@ -1,14 +1,10 @@
 package com.loopwright.api.verification;
 
+import com.loopwright.api.robustness.RobustnessResponse;
+import com.loopwright.api.robustness.RobustnessResponseMapper;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureTable;
-import com.loopwright.api.mapping.RobustnessResponseMapper;
 import com.loopwright.api.problem.Problem;
-import com.loopwright.api.request.ValidatedVerification;
-import com.loopwright.api.request.VerificationRequest;
-import com.loopwright.api.request.VerificationRequestValidator;
-import com.loopwright.api.response.RobustnessResponse;
-import com.loopwright.api.response.VerificationResponse;
 import com.loopwright.solver.pipeline.RobustnessPipeline;
 import com.loopwright.solver.robustness.RobustnessReport;
 

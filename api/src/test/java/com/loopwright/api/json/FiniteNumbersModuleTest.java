@@ -1,5 +1,6 @@
 package com.loopwright.api.json;
 
+import com.loopwright.api.design.DesignRequest;
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNull;
@@ -11,7 +12,6 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.design.DesignEndpoint;
 import com.loopwright.api.endpoint.EndpointRunner;
 import com.loopwright.api.endpoint.Reply;
-import com.loopwright.api.request.DesignRequest;
 import java.nio.charset.StandardCharsets;
 import java.util.Arrays;
 import java.util.List;

@@ -1,9 +1,9 @@
 package com.loopwright.service.routes;
 
+import com.loopwright.api.design.ComputeBudget;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.ComputeBudget;
 import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.Problem;
