@@ -5,11 +5,8 @@ import com.loopwright.solver.design.GammaBound;
 import com.loopwright.solver.design.GammaCondition;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.StateSpaceDesign;
-import com.loopwright.solver.riccati.RiccatiSolution;
-import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.spec.SpecInversion;
 import com.loopwright.solver.spec.TargetDynamics;
-import com.loopwright.solver.verify.Verification;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -25,10 +22,10 @@ public final class DesignResponseMapper {
     public DesignResponse toResponse(ValidatedDesign request, DesignReport report, StateSpaceDesign callerCoordinates,
                                      com.loopwright.api.robustness.RobustnessResponse robustness) {
         ClosedFormDesign design = report.design();
-        Verification verification = report.verification();
+        var verification = report.verification();
         TargetDynamics target = design.target();
-        RiccatiSolution numeric = verification.numeric();
-        StepMetrics metrics = verification.metrics();
+        var numeric = verification.numeric();
+        var metrics = verification.metrics();
         String timeSpecName = request.timeSpecPointer().substring("/spec/".length());
         return new DesignResponse(
                 new DesignResponse.Plant(design.plant().a0(), design.plant().a1(), design.plant().b(),

@@ -10,8 +10,8 @@ import com.loopwright.solver.highorder.HighOrderGammaBound;
 import com.loopwright.solver.highorder.HighOrderVerification;
 import com.loopwright.solver.highorder.SpecMatch;
 import com.loopwright.solver.highorder.SpecMatcher;
-import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.TwoStateModel;
+import com.loopwright.solver.pipeline.HighOrderPipeline;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
@@ -98,7 +98,7 @@ public final class HighOrderResponseMapper {
                         step.metrics().settlingTimeSeconds(), step.metrics().overshootPercent(),
                         step.undershootPercent(), step.metrics().peakControl(), step.horizonSeconds(), step.samples()),
                 new HighOrderDesignResponse.Verification(verification.norm().value(),
-                        verification.norm().peakFrequencyRadPerSec(), HInfinityNormCalculator.RELATIVE_TOLERANCE,
+                        verification.norm().peakFrequencyRadPerSec(), HighOrderPipeline.NORM_RELATIVE_TOLERANCE,
                         verification.certified(), specsMet),
                 notes, Cautions.ALL);
     }

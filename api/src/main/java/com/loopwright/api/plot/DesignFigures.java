@@ -1,12 +1,10 @@
 package com.loopwright.api.plot;
 
-import com.loopwright.solver.frequency.BodeSeries;
 import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignReport;
+import com.loopwright.solver.pipeline.StepSeries;
 import com.loopwright.solver.robustness.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;
-import com.loopwright.solver.simulation.StepMetrics;
-import com.loopwright.solver.simulation.StepResponse;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.Locale;
 import java.util.OptionalDouble;
@@ -81,8 +79,8 @@ public final class DesignFigures {
     }
 
     /** The step the solver simulated (FigurePipeline#step), with the spec envelope and the measured metrics. */
-    public String stepResponse(DesignReport report, StepResponse step) {
-        StepMetrics metrics = report.verification().metrics();
+    public String stepResponse(DesignReport report, StepSeries step) {
+        var metrics = report.verification().metrics();
         double r = report.stepSize();
         double[] y = step.output();
         StringBuilder svg = open(1, "Step response: position x1 after a setpoint step of " + format(r));
@@ -104,7 +102,7 @@ public final class DesignFigures {
      *
      * @param commandLimit actuator limit drawn on the figure, if given
      */
-    public String controlEffort(DesignReport report, StepResponse step, OptionalDouble commandLimit) {
+    public String controlEffort(DesignReport report, StepSeries step, OptionalDouble commandLimit) {
         double[] u = step.control();
         double low = Math.min(0, min(u));
         double high = Math.max(0, max(u));
@@ -130,11 +128,10 @@ public final class DesignFigures {
     }
 
     /** The Bode diagram of the frequency response and margins the solver computed (FigurePipeline#bode). */
-    public String bode(DesignReport report, BodeData data) {
-        BodeSeries bode = data.series();
-        LoopMargins margins = data.margins();
-        double low = data.lowRadPerSec();
-        double high = data.highRadPerSec();
+    public String bode(DesignReport report, BodeData bode) {
+        LoopMargins margins = bode.margins();
+        double low = bode.lowRadPerSec();
+        double high = bode.highRadPerSec();
         double[] logW = new double[bode.size()];
         double[] w = bode.angularFrequencyRadPerSec();
         for (int i = 0; i < logW.length; i++) {
@@ -191,7 +188,7 @@ public final class DesignFigures {
         return degrees + 360 * Math.rint((phase[nearest] - degrees) / 360);
     }
 
-    private static double valueAt(StepResponse step, double time) {
+    private static double valueAt(StepSeries step, double time) {
         double[] t = step.timeSeconds();
         double[] y = step.output();
         for (int k = 1; k < t.length; k++) {
@@ -203,7 +200,7 @@ public final class DesignFigures {
         return y[y.length - 1];
     }
 
-    private static double firstCrossing(StepResponse step, double level) {
+    private static double firstCrossing(StepSeries step, double level) {
         double[] t = step.timeSeconds();
         double[] y = step.output();
         for (int k = 1; k < y.length; k++) {

@@ -11,10 +11,6 @@ import com.loopwright.api.endpoint.FailureTable;
 import com.loopwright.api.endpoint.Text;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
-import com.loopwright.solver.export.CSourceWriter;
-import com.loopwright.solver.export.ExportHeader;
-import com.loopwright.solver.export.SampledLaw;
-import com.loopwright.solver.export.StructuredTextWriter;
 import com.loopwright.solver.pipeline.ControllerExport;
 import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
@@ -35,6 +31,7 @@ final class ControllerEndpoint
 
     static final String STRUCTURED_TEXT = "text/plain; charset=utf-8";
     static final String C_SOURCE = "text/x-c; charset=utf-8";
+    private static final String TITLE = "Loopwright state-feedback controller (generated; review before use)";
 
     private final String format;
     private final TakeawayDesign designRequests = new TakeawayDesign();
@@ -90,9 +87,10 @@ final class ControllerEndpoint
     @Override
     public Object respond(Validated validated, ControllerExport export) {
         return switch (format) {
-            case "structured-text" -> new Text(STRUCTURED_TEXT, new StructuredTextWriter().write(header(validated,
-                    export), export.law()));
-            case "c" -> new Text(C_SOURCE, new CSourceWriter().write(header(validated, export), export.law()));
+            case "structured-text" -> new Text(STRUCTURED_TEXT, exports.structuredText(export, TITLE,
+                    headerLines(validated, export), Cautions.ALL));
+            case "c" -> new Text(C_SOURCE, exports.cSource(export, TITLE, headerLines(validated, export),
+                    Cautions.ALL));
             default -> parameters(export);
         };
     }
@@ -114,7 +112,7 @@ final class ControllerEndpoint
 
     private static ControllerParameters parameters(ControllerExport export) {
         DesignReport report = export.design();
-        SampledLaw law = export.law();
+        var law = export.law();
         var continuous = report.verification().metrics();
         return new ControllerParameters(
                 "u = clamp(kr*r - (k1*x1 + k2*x2), -commandLimit, commandLimit), evaluated once per sample period"
@@ -127,9 +125,10 @@ final class ControllerEndpoint
                         m.settlingTimeSeconds(), m.overshootPercent(), m.peakControl())).orElse(null), Cautions.ALL);
     }
 
-    private static ExportHeader header(Validated validated, ControllerExport export) {
+    /** The header's lines: the plant, the specs, the target, the continuous and the sampled step. */
+    private static List<String> headerLines(Validated validated, ControllerExport export) {
         DesignReport report = export.design();
-        SampledLaw law = export.law();
+        var law = export.law();
         Optional<GridMetrics> sampledStep = export.sampledStep();
         var p = validated.design().plant();
         var target = report.design().target();
@@ -154,8 +153,7 @@ final class ControllerEndpoint
                         .orElse("Simulated (sampled): not simulated (the sampled loop diverges or the period is too"
                                 + " short to simulate over the horizon)"),
                 "Certified: " + report.verification().certified());
-        return new ExportHeader("Loopwright state-feedback controller (generated; review before use)", lines,
-                report.design().gamma(), Cautions.ALL);
+        return lines;
     }
 
     private static String seconds(Double value) {

@@ -18,10 +18,10 @@ import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.FigurePipeline;
+import com.loopwright.solver.pipeline.StepSeries;
 import com.loopwright.solver.robustness.ParameterBox;
 import com.loopwright.solver.robustness.RobustnessOptions;
 import com.loopwright.solver.robustness.StepEnvelope;
-import com.loopwright.solver.simulation.StepResponse;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -57,7 +57,7 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
     }
 
     /** The design and the data of one figure (the fields the figure does not draw are null). */
-    record Result(DesignReport report, StepResponse step, BodeData bode, StepEnvelope.Band band) {
+    record Result(DesignReport report, StepSeries step, BodeData bode, StepEnvelope.Band band) {
     }
 
     PlotEndpoint(Figure figure) {

@@ -1,12 +1,16 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.export.CSourceWriter;
+import com.loopwright.solver.export.ExportHeader;
 import com.loopwright.solver.export.SampledLaw;
 import com.loopwright.solver.export.SampledLawDesigner;
 import com.loopwright.solver.export.SampledLawException;
+import com.loopwright.solver.export.StructuredTextWriter;
 import com.loopwright.solver.robustness.FeedbackGains;
 import com.loopwright.solver.robustness.GridMetrics;
 import com.loopwright.solver.robustness.SampledStepMetrics;
+import java.util.List;
 import java.util.Optional;
 
 /**
@@ -14,6 +18,11 @@ import java.util.Optional;
  * sampled loop it makes. Every failure is a {@link SolverFailure}. Stateless and thread-safe.
  */
 public final class ExportPipeline {
+
+    /** The shortest sample period a law is built for. */
+    public static final double MIN_SAMPLE_PERIOD_SECONDS = SampledLawDesigner.MIN_SAMPLE_PERIOD_SECONDS;
+    /** The longest sample period a law is built for. */
+    public static final double MAX_SAMPLE_PERIOD_SECONDS = SampledLawDesigner.MAX_SAMPLE_PERIOD_SECONDS;
 
     private final SampledLawDesigner lawDesigner = new SampledLawDesigner();
     private final SampledStepMetrics sampledMetrics = new SampledStepMetrics();
@@ -36,5 +45,30 @@ public final class ExportPipeline {
                 new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), report.stepSize(),
                 law.samplePeriodSeconds(), report.bandFraction());
         return new ControllerExport(report, law, sampledStep);
+    }
+
+    /**
+     * The law as an IEC 61131-3 Structured Text function block, under a comment header.
+     *
+     * @param specLines the header's lines (plant, specs, simulated steps), written as given
+     * @throws IllegalArgumentException when a number cannot be written as source
+     */
+    public String structuredText(ControllerExport export, String title, List<String> specLines,
+                                 List<String> cautions) {
+        return new StructuredTextWriter().write(header(export, title, specLines, cautions), export.law());
+    }
+
+    /**
+     * The law as a C function, under a comment header.
+     *
+     * @throws IllegalArgumentException when a number cannot be written as source
+     */
+    public String cSource(ControllerExport export, String title, List<String> specLines, List<String> cautions) {
+        return new CSourceWriter().write(header(export, title, specLines, cautions), export.law());
+    }
+
+    private static ExportHeader header(ControllerExport export, String title, List<String> specLines,
+                                       List<String> cautions) {
+        return new ExportHeader(title, specLines, export.design().design().gamma(), cautions);
     }
 }

@@ -38,7 +38,7 @@ public final class FigurePipeline {
     private final StepEnvelope envelope = new StepEnvelope();
 
     /** The step of the designed loop on {@link #PLOT_SAMPLES} points over the design's horizon. */
-    public StepResponse step(DesignReport report) {
+    public StepSeries step(DesignReport report) {
         try {
             ClosedFormDesign d = report.design();
             double b = d.plant().b();
@@ -48,7 +48,8 @@ public final class FigurePipeline {
                     new DMatrixRMaj(new double[][] {{0}, {b * d.referenceGain()}}),
                     new DMatrixRMaj(new double[][] {{1, 0}}),
                     new DMatrixRMaj(new double[][] {{-d.positionGain(), -d.velocityGain()}}), d.referenceGain());
-            return simulator.simulate(loop, report.stepSize(), report.horizonSeconds(), PLOT_SAMPLES);
+            StepResponse step = simulator.simulate(loop, report.stepSize(), report.horizonSeconds(), PLOT_SAMPLES);
+            return new StepSeries(step.timeSeconds(), step.output(), step.control());
         } catch (IllegalArgumentException e) {
             throw notComputable(e);
         }
@@ -76,7 +77,8 @@ public final class FigurePipeline {
                 }
             }
             BodeSeries series = frequency.sample(loop, low, high, BODE_POINTS);
-            return new BodeData(series, margins, low, high);
+            return new BodeData(series.angularFrequencyRadPerSec(), series.magnitudeDecibels(), series.phaseDegrees(),
+                    margins, low, high);
         } catch (IllegalArgumentException e) {
             throw notComputable(e);
         }

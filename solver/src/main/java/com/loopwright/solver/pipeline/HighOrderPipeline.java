@@ -13,6 +13,7 @@ import com.loopwright.solver.highorder.HighOrderVerifier;
 import com.loopwright.solver.highorder.PoleMatchedRiccati;
 import com.loopwright.solver.highorder.SpecMatch;
 import com.loopwright.solver.highorder.SpecMatcher;
+import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -33,6 +34,8 @@ public final class HighOrderPipeline {
      * coefficient): below that the zero at s = 0 is numerically exact and the reference cannot be scaled.
      */
     public static final double DC_GAIN_TOLERANCE = 1e-12;
+    /** Relative tolerance of the verified H-infinity norm (the norm iteration's stopping rule). */
+    public static final double NORM_RELATIVE_TOLERANCE = HInfinityNormCalculator.RELATIVE_TOLERANCE;
 
     private final SpecMatcher matcher = new SpecMatcher();
     private final HighOrderDesigner designer = new HighOrderDesigner();
