@@ -97,7 +97,8 @@ public final class LoopwrightApp {
         FitEndpoint fit = new FitEndpoint();
         HighOrderEndpoint highOrder = new HighOrderEndpoint();
         VerificationEndpoint verification = new VerificationEndpoint();
-        JsonExchangeRoute fits = new JsonExchangeRoute(problems, pool, fatal.guard((byte[] body) -> runner.run(fit, body)));
+        JsonExchangeRoute fits = new JsonExchangeRoute(problems, pool,
+                fatal.guard((byte[] body) -> runner.run(fit, body)));
         JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(problems, pool,
                 fatal.guard((byte[] body) -> runner.run(highOrder, body)));
         JsonExchangeRoute verifications = new JsonExchangeRoute(problems, pool,

@@ -30,8 +30,7 @@ import java.util.List;
  */
 public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpoint.Validated, DesignEndpoint.Result> {
 
-    /** The robustness section's output label: z = x1 without a disturbance input, else the weighted output. */
-    private static final String POSITION_OUTPUT = "x1";
+    /** The robustness section's performance output: a design always weights z = [rho1 x1, rho2 x2, u]. */
     private static final String WEIGHTED_OUTPUT = "z = [rho1 x1, rho2 x2, u]";
     private static final String VERIFY_POINTER = "/verify";
 

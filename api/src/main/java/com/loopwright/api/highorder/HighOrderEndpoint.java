@@ -34,8 +34,7 @@ public final class HighOrderEndpoint
 
     @Override
     public Object respond(ValidatedHighOrderDesign input, HighOrderPipeline.Result result) {
-        return responses.toResponse(input, result.transform(), result.match(), result.design(),
-                result.verification());
+        return responses.toResponse(result);
     }
 
     @Override

@@ -9,19 +9,14 @@ import com.loopwright.solver.highorder.HighOrderDesign;
 import com.loopwright.solver.highorder.HighOrderGammaBound;
 import com.loopwright.solver.highorder.HighOrderVerification;
 import com.loopwright.solver.highorder.SpecMatch;
-import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.pipeline.HighOrderPipeline;
 import com.loopwright.solver.spec.TargetDynamics;
-import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import org.ejml.data.DMatrixRMaj;
-import org.ejml.dense.row.CommonOps_DDRM;
-import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
-import org.ejml.interfaces.linsol.LinearSolverDense;
 
 /** Solver results of a high-order design to the response records. */
 public final class HighOrderResponseMapper {
@@ -29,36 +24,27 @@ public final class HighOrderResponseMapper {
     /** Notes from the gamma search passed on (the response carries at most 16 notes in all). */
     static final int MAX_DESIGN_NOTES = 12;
 
-    public HighOrderDesignResponse toResponse(ValidatedHighOrderDesign input, CompanionTransform.Result transform,
-                                              SpecMatch match, HighOrderDesign design,
-                                              HighOrderVerification verification) {
+    /** Formats the design, its verification and the spec check the solver computed (HighOrderPipeline). */
+    public HighOrderDesignResponse toResponse(HighOrderPipeline.Result result) {
+        CompanionTransform.Result transform = result.transform();
+        SpecMatch match = result.match();
+        HighOrderDesign design = result.design();
+        HighOrderVerification verification = result.verification();
         TargetDynamics dominant = design.poles().dominant();
         int n = design.plant().order();
-        DMatrixRMaj p = design.solution().p();
-        List<List<Double>> rows = rows(p);
-        double[] k = design.gain();
-        DMatrixRMaj toPlant = transform == null ? CommonOps_DDRM.identity(n) : transform.toPlant();
-        double[] plantGain = k;
-        Double controllabilityCondition = null;
-        if (transform != null) {
-            plantGain = gainOnPlantState(transform.toPlant(), k);
-            controllabilityCondition = 1 / transform.reciprocalCondition();
-        }
+        List<List<Double>> rows = rows(design.solution().p());
+        Double controllabilityCondition = result.controllabilityCondition();
         HighOrderDesignResponse.Coordinates coordinates = new HighOrderDesignResponse.Coordinates(
                 transform == null ? "companion" : "stateSpace", boxed(design.plant().denominator()),
                 boxed(design.plant().numerator()), design.plant().b(), boxed(design.plant().disturbance()),
-                rows(toPlant), boxed(plantGain), controllabilityCondition);
+                rows(result.toPlant()), boxed(result.plantGain()), controllabilityCondition);
         List<HighOrderDesignResponse.Bound> bounds = design.gammaBounds().stream()
                 .map(HighOrderResponseMapper::bound).toList();
         ClosedLoopStep.Result step = verification.step();
-        double ts = ((TimeSpec.SettlingTime) input.spec().timeSpec()).seconds();
-        double overshoot = 100 * input.spec().overshootFraction();
-        boolean specsMet = step.metrics().settlingTimeSeconds() <= ts * (1 + SpecMatcher.SETTLING_TOLERANCE)
-                && step.metrics().overshootPercent() <= overshoot + SpecMatcher.OVERSHOOT_TOLERANCE_POINTS
-                && step.undershootPercent() <= input.maxUndershootPercent();
+        boolean specsMet = result.specCheck().met();
         HighOrderDesignResponse.SpecMatching matching = match == null
-                ? new HighOrderDesignResponse.SpecMatching(false, 0, step.metrics().settlingTimeSeconds() / ts - 1,
-                step.metrics().overshootPercent() - overshoot, dominant.dampingRatio(),
+                ? new HighOrderDesignResponse.SpecMatching(false, 0, result.specCheck().settlingResidual(),
+                result.specCheck().overshootResidualPoints(), dominant.dampingRatio(),
                 dominant.naturalFrequencyRadPerSec())
                 : new HighOrderDesignResponse.SpecMatching(true, match.iterations(), match.settlingResidual(),
                 match.overshootResidualPoints(), match.startingTarget().dampingRatio(),
@@ -101,20 +87,6 @@ public final class HighOrderResponseMapper {
                         verification.norm().peakFrequencyRadPerSec(), HighOrderPipeline.NORM_RELATIVE_TOLERANCE,
                         verification.certified(), specsMet),
                 notes, Cautions.ALL);
-    }
-
-    /** K T^-1 from the LU solve T' x = K' (partial pivoting), not from an explicit inverse of T. */
-    static double[] gainOnPlantState(DMatrixRMaj toPlant, double[] k) {
-        int n = k.length;
-        DMatrixRMaj transposed = new DMatrixRMaj(n, n);
-        CommonOps_DDRM.transpose(toPlant, transposed);
-        LinearSolverDense<DMatrixRMaj> lu = LinearSolverFactory_DDRM.lu(n);
-        if (!lu.setA(transposed)) {
-            throw new IllegalArgumentException("the transform to companion form is singular");
-        }
-        DMatrixRMaj x = new DMatrixRMaj(n, 1);
-        lu.solve(new DMatrixRMaj(n, 1, true, k), x);
-        return x.data.clone();
     }
 
     private static List<List<Double>> rows(DMatrixRMaj m) {

@@ -3,6 +3,7 @@ package com.loopwright.solver.pipeline;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.highorder.AuxiliaryPlacement;
+import com.loopwright.solver.highorder.ClosedLoopStep;
 import com.loopwright.solver.highorder.CompanionPlant;
 import com.loopwright.solver.highorder.CompanionTransform;
 import com.loopwright.solver.highorder.DesiredPoles;
@@ -20,6 +21,9 @@ import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import com.loopwright.solver.verify.VerificationFailedException;
 import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.CommonOps_DDRM;
+import org.ejml.dense.row.factory.LinearSolverFactory_DDRM;
+import org.ejml.interfaces.linsol.LinearSolverDense;
 
 /**
  * The front door of the order-n design: a state space is brought to companion form (and refused without DC gain),
@@ -60,11 +64,43 @@ public final class HighOrderPipeline {
     }
 
     /**
-     * @param transform    the companion transform of the state space, or null
-     * @param match        the spec match, or null when the specs were inverted in closed form
+     * @param transform                the companion transform of the state space, or null
+     * @param match                    the spec match, or null when the specs were inverted in closed form
+     * @param toPlant                  T of x = T z (the identity for a companion-form request)
+     * @param plantGain                the gain on the caller's state x: K T^-1 (the companion gain without a
+     *                                 transform)
+     * @param controllabilityCondition the condition number of the controllability matrix, or null without a
+     *                                 transform
+     * @param specCheck                the simulated step against the specs
      */
     public record Result(CompanionTransform.Result transform, SpecMatch match, HighOrderDesign design,
-                         HighOrderVerification verification) {
+                         HighOrderVerification verification, DMatrixRMaj toPlant, double[] plantGain,
+                         Double controllabilityCondition, SpecCheck specCheck) {
+        public Result {
+            toPlant = toPlant.copy();
+            plantGain = plantGain.clone();
+        }
+
+        @Override
+        public DMatrixRMaj toPlant() {
+            return toPlant.copy();
+        }
+
+        @Override
+        public double[] plantGain() {
+            return plantGain.clone();
+        }
+    }
+
+    /**
+     * The simulated step of the order-n loop against the specs.
+     *
+     * @param met                     settling within ts (1 + SpecMatcher.SETTLING_TOLERANCE), overshoot within the
+     *                                spec plus SpecMatcher.OVERSHOOT_TOLERANCE_POINTS, undershoot within its cap
+     * @param settlingResidual        simulated settling time / ts - 1
+     * @param overshootResidualPoints simulated overshoot - the spec, in percentage points
+     */
+    public record SpecCheck(boolean met, double settlingResidual, double overshootResidualPoints) {
     }
 
     /**
@@ -87,6 +123,7 @@ public final class HighOrderPipeline {
                         + " so the reference cannot be scaled to it", null);
             }
         }
+        Partial result;
         try {
             SpecMatch match = null;
             TargetDynamics target;
@@ -101,7 +138,7 @@ public final class HighOrderPipeline {
             HighOrderDesign design = designer.design(plant, poles, request.gammaChoice());
             HighOrderVerification verification = verifier.verify(design, request.stepSize(),
                     request.bandFraction(), ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds());
-            return new Result(transform, match, design, verification);
+            result = new Partial(match, design, verification);
         } catch (InfeasibleDesignException e) {
             throw SolverFailure.infeasible(e.infeasibility(), e);
         } catch (VerificationFailedException | PoleMatchedRiccati.SystemFailure e) {
@@ -111,6 +148,45 @@ public final class HighOrderPipeline {
             // inside the horizon): the design cannot be verified
             throw SolverFailure.of(SolverFailure.Kind.LOOP_NOT_SIMULABLE, e.getMessage(), e);
         }
+        HighOrderDesign design = result.design();
+        int n = design.plant().order();
+        double[] k = design.gain();
+        DMatrixRMaj toPlant = transform == null ? CommonOps_DDRM.identity(n) : transform.toPlant();
+        double[] plantGain = k;
+        Double controllabilityCondition = null;
+        if (transform != null) {
+            plantGain = gainOnPlantState(transform.toPlant(), k);
+            controllabilityCondition = 1 / transform.reciprocalCondition();
+        }
+        return new Result(transform, result.match(), design, result.verification(), toPlant, plantGain,
+                controllabilityCondition, specCheck(request, result.verification().step()));
+    }
+
+    private record Partial(SpecMatch match, HighOrderDesign design, HighOrderVerification verification) {
+    }
+
+    private static SpecCheck specCheck(Request request, ClosedLoopStep.Result step) {
+        double ts = ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds();
+        double overshoot = 100 * request.spec().overshootFraction();
+        boolean met = step.metrics().settlingTimeSeconds() <= ts * (1 + SpecMatcher.SETTLING_TOLERANCE)
+                && step.metrics().overshootPercent() <= overshoot + SpecMatcher.OVERSHOOT_TOLERANCE_POINTS
+                && step.undershootPercent() <= request.maxUndershootPercent();
+        return new SpecCheck(met, step.metrics().settlingTimeSeconds() / ts - 1,
+                step.metrics().overshootPercent() - overshoot);
+    }
+
+    /** K T^-1 from the LU solve T' x = K' (partial pivoting), not from an explicit inverse of T. */
+    static double[] gainOnPlantState(DMatrixRMaj toPlant, double[] k) {
+        int n = k.length;
+        DMatrixRMaj transposed = new DMatrixRMaj(n, n);
+        CommonOps_DDRM.transpose(toPlant, transposed);
+        LinearSolverDense<DMatrixRMaj> lu = LinearSolverFactory_DDRM.lu(n);
+        if (!lu.setA(transposed)) {
+            throw new IllegalArgumentException("the transform to companion form is singular");
+        }
+        DMatrixRMaj x = new DMatrixRMaj(n, 1);
+        lu.solve(new DMatrixRMaj(n, 1, true, k), x);
+        return x.data.clone();
     }
 
     /** Euclidean norm, accumulated with hypot so that large coefficients do not overflow. */
