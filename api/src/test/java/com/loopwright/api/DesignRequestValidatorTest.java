@@ -1,16 +1,16 @@
 package com.loopwright.api;
 
+import com.loopwright.api.design.DesignRequest;
+import com.loopwright.api.design.DesignRequestValidator;
+import com.loopwright.api.design.ValidatedDesign;
+import com.loopwright.api.validation.FieldLimits;
+import com.loopwright.api.plant.CanonicalPlantInput;
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.validation.SpecInput;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 
-import com.loopwright.api.request.DesignRequest;
-import com.loopwright.api.request.DesignRequestValidator;
-import com.loopwright.api.request.FieldLimits;
-import com.loopwright.api.request.InvalidRequestException;
-import com.loopwright.api.plant.CanonicalPlantInput;
-import com.loopwright.api.request.SpecInput;
-import com.loopwright.api.request.ValidatedDesign;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.spec.TimeSpec;
 import org.junit.jupiter.api.Test;

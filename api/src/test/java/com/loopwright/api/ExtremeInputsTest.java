@@ -1,11 +1,10 @@
 package com.loopwright.api;
 
+import com.loopwright.api.validation.FieldLimits;
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.api.exchange.DesignExchange;
-import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.json.StrictJson;
-import com.loopwright.api.request.FieldLimits;
 import java.nio.charset.StandardCharsets;
 import java.util.Map;
 import java.util.TreeMap;
@@ -20,8 +19,7 @@ class ExtremeInputsTest {
 
     @Test
     void rangeCornersGiveADesignOrAProblem() {
-        DesignExchange exchange = new DesignExchange(StrictJson.newMapper());
-        double[] a0 = {-FieldLimits.MAX_ABS_A0, -1, 0, 1, FieldLimits.MAX_ABS_A0};
+                double[] a0 = {-FieldLimits.MAX_ABS_A0, -1, 0, 1, FieldLimits.MAX_ABS_A0};
         double[] a1 = {-FieldLimits.MAX_ABS_A1, 0, 0.5, FieldLimits.MAX_ABS_A1};
         double[] b = {-FieldLimits.MAX_ABS_B, FieldLimits.MIN_ABS_B, 1, FieldLimits.MAX_ABS_B};
         double[] d = {0, 1, FieldLimits.MAX_ABS_D};
@@ -38,7 +36,7 @@ class ExtremeInputsTest {
                                         "{\"plant\":{\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s},"
                                                 + "\"spec\":{\"settlingTime\":%s,\"overshootPercent\":%s}}",
                                         x0, x1, xb, xd, t, os);
-                                Outcome outcome = exchange.exchange(body.getBytes(StandardCharsets.UTF_8));
+                                Answer outcome = Answer.design(body.getBytes(StandardCharsets.UTF_8));
                                 statuses.merge(outcome.status(), 1, Integer::sum);
                                 assertTrue(outcome.status() == 200 || outcome.status() == 422, body + " -> "
                                         + outcome.status() + " " + outcome.body());

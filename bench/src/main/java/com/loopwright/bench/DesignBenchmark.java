@@ -1,10 +1,8 @@
 package com.loopwright.bench;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.DesignExchange;
-import com.loopwright.api.exchange.EncodedOutcome;
-import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.design.DesignEndpoint;
+import com.loopwright.api.endpoint.EndpointRunner;
+import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.pipeline.DesignReport;
@@ -20,7 +18,7 @@ import org.openjdk.jmh.annotations.State;
 /**
  * One whole design: the solver pipeline alone (inversion, closed form, numeric Riccati, norm, 2,000-point
  * simulation with refined metrics), and the same request as bytes in, response bytes out through the strict
- * Jackson mapper, without HTTP: as a tree then bytes (jsonExchange) and straight to bytes (jsonEncode).
+ * Jackson mapper, without HTTP, straight to bytes through the endpoint runner (jsonEncode).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -28,8 +26,8 @@ import org.openjdk.jmh.annotations.State;
 public class DesignBenchmark {
 
     private final LoopDesigner designer = new LoopDesigner();
-    private final ObjectMapper mapper = StrictJson.newMapper();
-    private final DesignExchange exchange = new DesignExchange(mapper);
+    private final EndpointRunner runner = new EndpointRunner(StrictJson.newMapper());
+    private final DesignEndpoint endpoint = new DesignEndpoint();
     private final byte[] request = Scenarios.indexingAxisRequestBytes();
     private final GammaChoice margin = new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR);
 
@@ -38,19 +36,10 @@ public class DesignBenchmark {
         return designer.design(Scenarios.indexingAxisPlant(), Scenarios.indexingAxisSpec(), margin, 1.0, 0.02);
     }
 
-    @Benchmark
-    public byte[] jsonExchange() throws JsonProcessingException {
-        Outcome outcome = exchange.exchange(request);
-        if (!outcome.ok()) {
-            throw new IllegalStateException("the benchmark request must design: " + outcome.body());
-        }
-        return mapper.writeValueAsBytes(outcome.body());
-    }
-
     /** The HTTP path: the same request, the response record written straight to bytes (no tree). */
     @Benchmark
-    public EncodedOutcome jsonEncode() {
-        EncodedOutcome outcome = exchange.encode(request);
+    public Reply jsonEncode() {
+        Reply outcome = runner.run(endpoint, request);
         if (!outcome.ok()) {
             throw new IllegalStateException("the benchmark request must design: " + outcome.problem());
         }

@@ -4,9 +4,10 @@ import static io.javalin.http.HandlerType.GET;
 import static io.javalin.http.HandlerType.POST;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.FitExchange;
-import com.loopwright.api.exchange.HighOrderExchange;
-import com.loopwright.api.exchange.VerificationExchange;
+import com.loopwright.api.endpoint.EndpointRunner;
+import com.loopwright.api.fit.FitEndpoint;
+import com.loopwright.api.highorder.HighOrderEndpoint;
+import com.loopwright.api.verification.VerificationEndpoint;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
@@ -22,7 +23,7 @@ import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.observe.Metrics;
 import com.loopwright.service.observe.RequestIds;
 import com.loopwright.service.routes.BatchRoute;
-import com.loopwright.api.exchange.TakeawayExchange;
+import com.loopwright.api.takeaway.Takeaways;
 import com.loopwright.service.routes.ContractRoute;
 import com.loopwright.service.routes.DashboardRoute;
 import com.loopwright.service.routes.JsonExchangeRoute;
@@ -76,7 +77,7 @@ public final class LoopwrightApp {
         Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(mapper) : computation, fatal);
         ProblemResponses problems = new ProblemResponses(mapper);
         ComputePool pool = new ComputePool(config.workerThreads(), config.queueCapacity(),
-                config.computeDeadlineMillis(), mapper);
+                config.computeDeadlineMillis());
         Metrics metrics = new Metrics(pool::activeWorkers, pool::queuedDesigns);
         StreamCuts cuts = new StreamCuts();
         AtomicBoolean draining = new AtomicBoolean();
@@ -85,14 +86,18 @@ public final class LoopwrightApp {
         JsonExchangeRoute design = JsonExchangeRoute.encoded(problems, pool, designs::design,
                 outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
-        JsonExchangeRoute fits = new JsonExchangeRoute(mapper, problems, pool,
-                fatal.guard(new FitExchange(mapper)::exchange));
-        JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(mapper, problems, pool,
-                fatal.guard(new HighOrderExchange(mapper)::exchange));
-        JsonExchangeRoute verifications = new JsonExchangeRoute(mapper, problems, pool,
-                fatal.guard(new VerificationExchange(mapper)::exchange));
+        EndpointRunner runner = new EndpointRunner(mapper);
+        FitEndpoint fit = new FitEndpoint();
+        HighOrderEndpoint highOrder = new HighOrderEndpoint();
+        VerificationEndpoint verification = new VerificationEndpoint();
+        JsonExchangeRoute fits = new JsonExchangeRoute(problems, pool,
+                fatal.guard((byte[] body) -> runner.run(fit, body)));
+        JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(problems, pool,
+                fatal.guard((byte[] body) -> runner.run(highOrder, body)));
+        JsonExchangeRoute verifications = new JsonExchangeRoute(problems, pool,
+                fatal.guard((byte[] body) -> runner.run(verification, body)));
         HealthRoute health = new HealthRoute();
-        TakeawayExchange takeaways = new TakeawayExchange(mapper);
+        Takeaways takeaways = new Takeaways(runner);
         TakeawayRoute plots = new TakeawayRoute("figure", fatal.guard(takeaways::plot), problems, pool);
         TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems,
                 pool);
@@ -254,7 +259,7 @@ public final class LoopwrightApp {
     /** Hands an OutOfMemoryError of a design computation (on a worker thread) to {@link FatalErrors}. */
     private record OutOfMemoryGuard(Designs designs, FatalErrors fatal) implements Designs {
         @Override
-        public com.loopwright.api.exchange.EncodedOutcome design(byte[] body) {
+        public com.loopwright.api.endpoint.Reply design(byte[] body) {
             try {
                 return designs.design(body);
             } catch (OutOfMemoryError e) {
@@ -264,7 +269,7 @@ public final class LoopwrightApp {
         }
 
         @Override
-        public com.loopwright.api.exchange.EncodedOutcome design(com.fasterxml.jackson.databind.JsonNode item) {
+        public com.loopwright.api.endpoint.Reply design(com.fasterxml.jackson.databind.JsonNode item) {
             try {
                 return designs.design(item);
             } catch (OutOfMemoryError e) {

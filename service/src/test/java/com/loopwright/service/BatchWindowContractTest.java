@@ -1,8 +1,8 @@
 package com.loopwright.service;
 
+import com.loopwright.api.design.ComputeBudget;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.api.exchange.ComputeBudget;
 import com.loopwright.service.routes.BatchRoute;
 import java.nio.file.Files;
 import java.nio.file.Path;

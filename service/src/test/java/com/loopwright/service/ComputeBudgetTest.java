@@ -4,7 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.exchange.EncodedOutcome;
+import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.examples.DesignClient;
@@ -50,13 +50,13 @@ class ComputeBudgetTest {
         final AtomicInteger calls = new AtomicInteger();
 
         @Override
-        public EncodedOutcome design(byte[] body) {
+        public Reply design(byte[] body) {
             calls.incrementAndGet();
-            return EncodedOutcome.failure(ProblemType.INFEASIBLE_SPEC.problem("stub"));
+            return Reply.failure(ProblemType.INFEASIBLE_SPEC.problem("stub"));
         }
 
         @Override
-        public EncodedOutcome design(JsonNode item) {
+        public Reply design(JsonNode item) {
             return design(new byte[0]);
         }
     }
@@ -90,7 +90,7 @@ class ComputeBudgetTest {
         final AtomicInteger interrupted = new AtomicInteger();
 
         @Override
-        public EncodedOutcome design(byte[] body) {
+        public Reply design(byte[] body) {
             calls.incrementAndGet();
             try {
                 Thread.sleep(150);
@@ -98,11 +98,11 @@ class ComputeBudgetTest {
                 interrupted.incrementAndGet();
                 Thread.currentThread().interrupt();
             }
-            return EncodedOutcome.failure(ProblemType.INFEASIBLE_SPEC.problem("stub"));
+            return Reply.failure(ProblemType.INFEASIBLE_SPEC.problem("stub"));
         }
 
         @Override
-        public EncodedOutcome design(JsonNode item) {
+        public Reply design(JsonNode item) {
             return design(new byte[0]);
         }
     }
@@ -135,9 +135,9 @@ class ComputeBudgetTest {
         final CountDownLatch ended = new CountDownLatch(1);
 
         @Override
-        public EncodedOutcome design(byte[] body) {
+        public Reply design(byte[] body) {
             try {
-                EncodedOutcome outcome = real.design(body);
+                Reply outcome = real.design(body);
                 ending.set("returned " + outcome.status());
                 return outcome;
             } catch (ComputationCancelledException e) {
@@ -149,7 +149,7 @@ class ComputeBudgetTest {
         }
 
         @Override
-        public EncodedOutcome design(JsonNode item) {
+        public Reply design(JsonNode item) {
             throw new UnsupportedOperationException();
         }
     }
@@ -168,7 +168,7 @@ class ComputeBudgetTest {
 
     @Test
     void theEstimateNamesEveryCheckAndStaysBoundedForOutOfRangeCounts() throws Exception {
-        var budget = new com.loopwright.api.exchange.ComputeBudget();
+        var budget = new com.loopwright.api.design.ComputeBudget();
         var mapper = StrictJson.newMapper();
         // source: the cost model of docs/limits-and-budgets.md, summed by hand:
         // 10 design + 10 verify + 16 corners + 2000 samples + 8 x 25 + 40 + 700 + 500 + 700 + ceil(1500/30)

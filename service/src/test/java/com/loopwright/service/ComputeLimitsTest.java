@@ -4,7 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.exchange.EncodedOutcome;
+import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.examples.DesignClient;
 import com.loopwright.service.compute.Designs;
@@ -40,13 +40,13 @@ class ComputeLimitsTest {
         }
 
         @Override
-        public EncodedOutcome design(byte[] body) {
+        public Reply design(byte[] body) {
             hold();
             return real.design(body);
         }
 
         @Override
-        public EncodedOutcome design(JsonNode item) {
+        public Reply design(JsonNode item) {
             hold();
             return real.design(item);
         }
@@ -240,12 +240,12 @@ class ComputeLimitsTest {
         Designs real = new ExchangeDesigns(StrictJson.newMapper());
         Designs secondWaits = new Designs() {
             @Override
-            public EncodedOutcome design(byte[] body) {
+            public Reply design(byte[] body) {
                 return real.design(body);
             }
 
             @Override
-            public EncodedOutcome design(JsonNode item) {
+            public Reply design(JsonNode item) {
                 if (item.at("/spec/settlingTime").asDouble() == 0.16) {
                     try {
                         gate.await(30, TimeUnit.SECONDS);

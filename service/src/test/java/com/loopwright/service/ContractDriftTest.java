@@ -1,5 +1,22 @@
 package com.loopwright.service;
 
+import com.loopwright.api.design.DesignRequest;
+import com.loopwright.api.design.DesignResponse;
+import com.loopwright.api.fit.FitLimits;
+import com.loopwright.api.fit.FitRequest;
+import com.loopwright.api.fit.FitResponse;
+import com.loopwright.api.highorder.HighOrderDesignRequest;
+import com.loopwright.api.highorder.HighOrderDesignResponse;
+import com.loopwright.api.highorder.HighOrderLimits;
+import com.loopwright.api.validation.FieldLimits;
+import com.loopwright.api.plant.PlantFormName;
+import com.loopwright.api.robustness.VerifyLimits;
+import com.loopwright.api.takeaway.ControllerParameters;
+import com.loopwright.api.takeaway.ControllerRequest;
+import com.loopwright.api.takeaway.PlotRequest;
+import com.loopwright.api.takeaway.TakeawayLimits;
+import com.loopwright.api.verification.VerificationRequest;
+import com.loopwright.api.verification.VerificationResponse;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
@@ -7,34 +24,18 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.node.ObjectNode;
-import com.loopwright.api.request.DesignRequest;
 import com.loopwright.api.problem.ProblemType;
-import com.loopwright.api.request.HighOrderDesignRequest;
-import com.loopwright.api.request.HighOrderLimits;
-import com.loopwright.api.response.HighOrderDesignResponse;
 import com.loopwright.solver.highorder.PoleMatchedRiccati;
 import com.loopwright.solver.highorder.SpecMatcher;
-import com.loopwright.api.request.FieldLimits;
-import com.loopwright.api.request.FitLimits;
-import com.loopwright.api.request.FitRequest;
+import com.loopwright.solver.fit.FitWarning;
+import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import com.loopwright.api.plant.PlantFormName;
 import com.loopwright.api.plant.PlantInput;
-import com.loopwright.api.response.FitResponse;
-import com.loopwright.solver.fit.FitWarning;
-import com.loopwright.api.request.VerificationRequest;
-import com.loopwright.api.request.VerifyLimits;
-import com.loopwright.api.response.DesignResponse;
-import com.loopwright.api.response.VerificationResponse;
-import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.robustness.RobustnessVerifier;
 import com.loopwright.solver.robustness.UncertaintyAnalyzer;
-import com.loopwright.api.exchange.TakeawayExchange;
+import com.loopwright.api.takeaway.Takeaways;
 import com.loopwright.api.plot.Figure;
-import com.loopwright.api.request.ControllerRequest;
-import com.loopwright.api.request.PlotRequest;
-import com.loopwright.api.request.TakeawayLimits;
-import com.loopwright.api.response.ControllerParameters;
 import io.swagger.v3.parser.OpenAPIV3Parser;
 import io.swagger.v3.parser.core.models.SwaggerParseResult;
 import java.lang.reflect.ParameterizedType;
@@ -384,10 +385,10 @@ class ContractDriftTest {
             assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
             assertEquals(value, node.asDouble(), 0, pointer);
         });
-        assertEquals(TakeawayExchange.FORMATS.size(), contract.document()
+        assertEquals(Takeaways.FORMATS.size(), contract.document()
                 .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum").size());
-        for (int i = 0; i < TakeawayExchange.FORMATS.size(); i++) {
-            assertEquals(TakeawayExchange.FORMATS.get(i), contract.document()
+        for (int i = 0; i < Takeaways.FORMATS.size(); i++) {
+            assertEquals(Takeaways.FORMATS.get(i), contract.document()
                     .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum/" + i).asText());
         }
         JsonNode figures = contract.document().at("/paths/~1v1~1designs~1plots~1{figure}/post/parameters/0/schema/enum");

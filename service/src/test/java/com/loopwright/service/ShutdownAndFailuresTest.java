@@ -14,7 +14,7 @@ import ch.qos.logback.core.OutputStreamAppender;
 import ch.qos.logback.core.read.ListAppender;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.EncodedOutcome;
+import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.examples.DesignClient;
@@ -53,12 +53,12 @@ class ShutdownAndFailuresTest {
         AtomicInteger calls = new AtomicInteger();
         Designs secondHangs = new Designs() {
             @Override
-            public EncodedOutcome design(byte[] body) {
+            public Reply design(byte[] body) {
                 return real.design(body);
             }
 
             @Override
-            public EncodedOutcome design(JsonNode item) {
+            public Reply design(JsonNode item) {
                 if (calls.incrementAndGet() >= 2) {
                     secondEntered.countDown();
                     try {
@@ -154,12 +154,12 @@ class ShutdownAndFailuresTest {
         List<Integer> halts = new CopyOnWriteArrayList<>();
         Designs exhausted = new Designs() {
             @Override
-            public EncodedOutcome design(byte[] body) {
+            public Reply design(byte[] body) {
                 throw new OutOfMemoryError("Java heap space");
             }
 
             @Override
-            public EncodedOutcome design(JsonNode item) {
+            public Reply design(JsonNode item) {
                 throw new OutOfMemoryError("Java heap space");
             }
         };

@@ -1,10 +1,11 @@
 package com.loopwright.api.plant;
 
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_A0;
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_A1;
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_B;
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_D;
-import static com.loopwright.api.request.FieldLimits.MIN_ABS_B;
+import com.loopwright.api.validation.Checks;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A0;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A1;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_B;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_D;
+import static com.loopwright.api.validation.FieldLimits.MIN_ABS_B;
 
 import com.fasterxml.jackson.databind.JsonDeserializer;
 import com.fasterxml.jackson.databind.annotation.JsonDeserialize;
@@ -28,10 +29,10 @@ public record CanonicalPlantInput(Double a0, Double a1, Double b, Double d) impl
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {
         int before = errors.size();
-        PlantFieldChecks.magnitude(errors, "/plant/a0", a0, 0, MAX_ABS_A0, true);
-        PlantFieldChecks.magnitude(errors, "/plant/a1", a1, 0, MAX_ABS_A1, true);
-        PlantFieldChecks.magnitude(errors, "/plant/b", b, MIN_ABS_B, MAX_ABS_B, true);
-        PlantFieldChecks.magnitude(errors, "/plant/d", d, 0, MAX_ABS_D, true);
+        Checks.magnitude(errors, "/plant/a0", a0, 0, MAX_ABS_A0, true);
+        Checks.magnitude(errors, "/plant/a1", a1, 0, MAX_ABS_A1, true);
+        Checks.magnitude(errors, "/plant/b", b, MIN_ABS_B, MAX_ABS_B, true);
+        Checks.magnitude(errors, "/plant/d", d, 0, MAX_ABS_D, true);
         if (errors.size() > before) {
             return null;
         }

@@ -1,11 +1,12 @@
 package com.loopwright.api.plant;
 
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_A0;
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_A1;
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_B;
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_D;
-import static com.loopwright.api.request.FieldLimits.MAX_ABS_PHYSICAL;
-import static com.loopwright.api.request.FieldLimits.MIN_ABS_B;
+import com.loopwright.api.validation.Checks;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A0;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A1;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_B;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_D;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_PHYSICAL;
+import static com.loopwright.api.validation.FieldLimits.MIN_ABS_B;
 
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.solver.plant.CanonicalPlant;
@@ -107,7 +108,7 @@ final class PlantConversion {
 
     /** A physical quantity of a description: present (if required), finite and of magnitude at most the cap. */
     static void physical(List<FieldError> errors, String name, Double value, boolean required) {
-        PlantFieldChecks.magnitude(errors, "/plant/" + name, value, 0, MAX_ABS_PHYSICAL, required);
+        Checks.magnitude(errors, "/plant/" + name, value, 0, MAX_ABS_PHYSICAL, required);
     }
 
     /** A list of exactly min..max finite numbers of magnitude at most MAX_ABS_PHYSICAL; null when invalid. */
@@ -124,7 +125,7 @@ final class PlantConversion {
         }
         int before = errors.size();
         for (int i = 0; i < values.size(); i++) {
-            PlantFieldChecks.magnitude(errors, pointer + "/" + i, values.get(i), 0, MAX_ABS_PHYSICAL, true);
+            Checks.magnitude(errors, pointer + "/" + i, values.get(i), 0, MAX_ABS_PHYSICAL, true);
         }
         return errors.size() > before ? null : values;
     }

@@ -2,7 +2,7 @@ package com.loopwright.api.plant;
 
 import static com.loopwright.api.plant.PlantConversion.physical;
 import static com.loopwright.api.plant.PlantConversion.vector;
-import static com.loopwright.api.request.FieldLimits.MAX_NUMERATOR_COEFFICIENTS;
+import static com.loopwright.api.validation.FieldLimits.MAX_NUMERATOR_COEFFICIENTS;
 
 import com.fasterxml.jackson.databind.JsonDeserializer;
 import com.fasterxml.jackson.databind.annotation.JsonDeserialize;

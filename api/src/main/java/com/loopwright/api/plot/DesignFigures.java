@@ -1,36 +1,20 @@
 package com.loopwright.api.plot;
 
-import com.loopwright.solver.design.ClosedFormDesign;
-import com.loopwright.solver.frequency.BodeSeries;
-import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
-import com.loopwright.solver.frequency.RationalLoop;
+import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignReport;
-import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.pipeline.StepSeries;
 import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;
-import com.loopwright.solver.simulation.StepMetrics;
-import com.loopwright.solver.simulation.StepResponse;
-import com.loopwright.solver.simulation.StepSimulator;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.Locale;
 import java.util.OptionalDouble;
-import org.ejml.data.DMatrixRMaj;
 
 /**
- * Draws a verified design as a self-contained SVG figure (inline style, generic font family, no scripts, no
+ * Draws a verified design and the figure data the solver computed for it (solver.pipeline.FigurePipeline) as a
+ * self-contained SVG figure (inline style, generic font family, no scripts, no
  * external references). Stateless and thread-safe.
  */
 public final class DesignFigures {
-
-    /** Samples of the drawn step and control series. */
-    public static final int PLOT_SAMPLES = 600;
-    /** Frequency points of the Bode figure. */
-    public static final int BODE_POINTS = 400;
-    /** Bode window: this many decades either side of the natural frequency. */
-    static final double BODE_DECADES = 2;
-    /** The window reaches at least this factor beyond a marked crossover. */
-    static final double BODE_MARKER_ROOM = 3;
 
     static final double WIDTH = 720;
     static final double PANEL_HEIGHT = 300;
@@ -50,21 +34,6 @@ public final class DesignFigures {
             + ".measured{stroke:#0f7c80;stroke-width:1;stroke-dasharray:4 3}"
             + ".point{fill:#2b2d42}.spread{fill:#0f7c80;fill-opacity:0.2;stroke:#0f7c80;stroke-width:0.5}"
             + "</style>\n";
-
-    private final StepSimulator simulator = new StepSimulator();
-    private final LoopFrequencyAnalyzer frequency = new LoopFrequencyAnalyzer();
-
-    /**
-     * @param commandLimit actuator limit drawn on the control-effort figure, if given
-     */
-    public String draw(Figure figure, DesignReport report, OptionalDouble commandLimit) {
-        return switch (figure) {
-            case STEP_RESPONSE -> stepResponse(report);
-            case CONTROL_EFFORT -> controlEffort(report, commandLimit);
-            case BODE -> bode(report);
-            case UNCERTAINTY_BAND -> throw new IllegalArgumentException("the uncertainty band needs a parameter box");
-        };
-    }
 
     /**
      * The step-response band over a parameter box (corners plus seeded interior samples) with the nominal
@@ -109,9 +78,9 @@ public final class DesignFigures {
         return panel;
     }
 
-    String stepResponse(DesignReport report) {
-        StepResponse step = simulate(report);
-        StepMetrics metrics = report.verification().metrics();
+    /** The step the solver simulated (FigurePipeline#step), with the spec envelope and the measured metrics. */
+    public String stepResponse(DesignReport report, StepSeries step) {
+        var metrics = report.verification().metrics();
         double r = report.stepSize();
         double[] y = step.output();
         StringBuilder svg = open(1, "Step response: position x1 after a setpoint step of " + format(r));
@@ -128,8 +97,12 @@ public final class DesignFigures {
         return close(svg);
     }
 
-    String controlEffort(DesignReport report, OptionalDouble commandLimit) {
-        StepResponse step = simulate(report);
+    /**
+     * The command of the same step.
+     *
+     * @param commandLimit actuator limit drawn on the figure, if given
+     */
+    public String controlEffort(DesignReport report, StepSeries step, OptionalDouble commandLimit) {
         double[] u = step.control();
         double low = Math.min(0, min(u));
         double high = Math.max(0, max(u));
@@ -154,22 +127,11 @@ public final class DesignFigures {
         return close(svg);
     }
 
-    String bode(DesignReport report) {
-        ClosedFormDesign d = report.design();
-        RationalLoop loop = RationalLoop.atPlantInput(d.plant(), d.positionGain(), d.velocityGain());
-        // the margins of POST /v1/verifications (closed form, every crossover), so the figure and the report agree
-        LoopMargins margins = frequency.margins(d.plant(),
-                new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), 0);
-        double wn = d.target().naturalFrequencyRadPerSec();
-        double low = wn * Math.pow(10, -BODE_DECADES);
-        double high = wn * Math.pow(10, BODE_DECADES);
-        for (Double marked : new Double[] {margins.crossoverRadPerSec(), margins.gainMarginRadPerSec()}) {
-            if (marked != null && marked > 0) {
-                low = Math.min(low, marked / BODE_MARKER_ROOM);
-                high = Math.max(high, marked * BODE_MARKER_ROOM);
-            }
-        }
-        BodeSeries bode = frequency.sample(loop, low, high, BODE_POINTS);
+    /** The Bode diagram of the frequency response and margins the solver computed (FigurePipeline#bode). */
+    public String bode(DesignReport report, BodeData bode) {
+        LoopMargins margins = bode.margins();
+        double low = bode.lowRadPerSec();
+        double high = bode.highRadPerSec();
         double[] logW = new double[bode.size()];
         double[] w = bode.angularFrequencyRadPerSec();
         for (int i = 0; i < logW.length; i++) {
@@ -226,19 +188,7 @@ public final class DesignFigures {
         return degrees + 360 * Math.rint((phase[nearest] - degrees) / 360);
     }
 
-    private StepResponse simulate(DesignReport report) {
-        ClosedFormDesign d = report.design();
-        double b = d.plant().b();
-        LinearLoop loop = new LinearLoop(
-                new DMatrixRMaj(new double[][] {{0, 1},
-                    {-d.plant().a0() - b * d.positionGain(), -d.plant().a1() - b * d.velocityGain()}}),
-                new DMatrixRMaj(new double[][] {{0}, {b * d.referenceGain()}}),
-                new DMatrixRMaj(new double[][] {{1, 0}}),
-                new DMatrixRMaj(new double[][] {{-d.positionGain(), -d.velocityGain()}}), d.referenceGain());
-        return simulator.simulate(loop, report.stepSize(), report.horizonSeconds(), PLOT_SAMPLES);
-    }
-
-    private static double valueAt(StepResponse step, double time) {
+    private static double valueAt(StepSeries step, double time) {
         double[] t = step.timeSeconds();
         double[] y = step.output();
         for (int k = 1; k < t.length; k++) {
@@ -250,7 +200,7 @@ public final class DesignFigures {
         return y[y.length - 1];
     }
 
-    private static double firstCrossing(StepResponse step, double level) {
+    private static double firstCrossing(StepSeries step, double level) {
         double[] t = step.timeSeconds();
         double[] y = step.output();
         for (int k = 1; k < y.length; k++) {

@@ -1,13 +1,10 @@
 package com.loopwright.api.plot;
 
+import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.exchange.DesignExchange;
-import com.loopwright.api.exchange.Outcome;
-import com.loopwright.api.exchange.Takeaway;
-import com.loopwright.api.exchange.TakeawayExchange;
 import com.loopwright.api.json.StrictJson;
 import java.nio.charset.StandardCharsets;
 import java.util.Locale;
@@ -25,7 +22,7 @@ class BodeMarginsAgreeTest {
         String design = "{\"plant\":{\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},"
                 + "\"spec\":{\"overshootPercent\":0.2,\"settlingTime\":1.35},"
                 + "\"verify\":{\"sampling\":{\"samplePeriod\":0.001},\"inputDelay\":0.2}}";
-        Outcome outcome = new DesignExchange(StrictJson.newMapper()).exchange(design.getBytes(StandardCharsets.UTF_8));
+        Answer outcome = Answer.design(design.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         JsonNode margins = outcome.body().at("/robustness/margins");
         assertEquals(114.695, margins.at("/phaseMargin").asDouble(), 2e-3);
@@ -33,13 +30,13 @@ class BodeMarginsAgreeTest {
         assertEquals(0.368081, margins.at("/delayMargin").asDouble(), 1e-5);
         assertTrue(outcome.body().at("/robustness/delay/withinMargin").asBoolean());
 
-        Takeaway bode = new TakeawayExchange(StrictJson.newMapper()).plot("bode",
+        Answer bode = Answer.plot("bode",
                 ("{\"design\":" + design + "}").getBytes(StandardCharsets.UTF_8));
         assertEquals(200, bode.status());
         String stated = String.format(Locale.ROOT, "phase margin %.1f deg, delay margin %s s",
                 margins.at("/phaseMargin").asDouble(), DesignFigures.format(margins.at("/delayMargin").asDouble()));
-        assertTrue(bode.body().contains(stated), stated);
-        assertTrue(bode.body().contains("gain crossover " + DesignFigures.format(
+        assertTrue(bode.text().contains(stated), stated);
+        assertTrue(bode.text().contains("gain crossover " + DesignFigures.format(
                 margins.at("/crossoverFrequency").asDouble()) + " rad/s"));
     }
 }

@@ -1,7 +1,5 @@
 package com.loopwright.service.compute;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.Outcome;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.observe.RequestIds;
@@ -41,12 +39,11 @@ public final class ComputePool implements AutoCloseable {
 
     private final ThreadPoolExecutor executor;
     private final long deadlineMillis;
-    private final ObjectMapper mapper;
     /** Workers batch items may hold at once, over all batches: ceil(workers/2). */
     private final int batchShare;
     private final Semaphore batchSlots;
 
-    public ComputePool(int workerThreads, int queueCapacity, long deadlineMillis, ObjectMapper mapper) {
+    public ComputePool(int workerThreads, int queueCapacity, long deadlineMillis) {
         BlockingQueue<Runnable> queue = queueCapacity == 0 ? new SynchronousQueue<>()
                 : new ArrayBlockingQueue<>(queueCapacity);
         AtomicInteger count = new AtomicInteger();
@@ -58,7 +55,6 @@ public final class ComputePool implements AutoCloseable {
         this.executor = new ThreadPoolExecutor(workerThreads, workerThreads, 0, TimeUnit.MILLISECONDS, queue,
                 threads, new ThreadPoolExecutor.AbortPolicy());
         this.deadlineMillis = deadlineMillis;
-        this.mapper = mapper;
         this.batchShare = (workerThreads + 1) / 2;
         this.batchSlots = new Semaphore(batchShare, true);
     }
@@ -69,16 +65,8 @@ public final class ComputePool implements AutoCloseable {
     }
 
     /**
-     * Runs one computation on the pool and waits for it up to the deadline. Never throws: refusal, deadline
-     * and unexpected failures are outcomes with a problem.
-     */
-    public Outcome run(Supplier<Outcome> computation) {
-        return run(computation, this::failure);
-    }
-
-    /**
-     * The same for any result type: {@code onProblem} turns a refusal, a missed deadline or a failure into a
-     * result of that type.
+     * Runs one computation on the pool and waits for it up to the deadline. Never throws: {@code onProblem} turns
+     * a refusal, a missed deadline or an unexpected failure into a result of the computation's type.
      */
     public <T> T run(Supplier<T> computation, Function<Problem, T> onProblem) {
         return submit(computation, onProblem).await();
@@ -283,10 +271,6 @@ public final class ComputePool implements AutoCloseable {
 
     private int queueCapacity() {
         return executor.getQueue().size() + executor.getQueue().remainingCapacity();
-    }
-
-    private Outcome failure(Problem problem) {
-        return new Outcome(problem.status(), mapper.valueToTree(problem), problem);
     }
 
     /** Stops taking work and lets queued computations finish, waiting at most the given time. */

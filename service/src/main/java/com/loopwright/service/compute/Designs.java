@@ -1,14 +1,14 @@
 package com.loopwright.service.compute;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.exchange.EncodedOutcome;
+import com.loopwright.api.endpoint.Reply;
 
-/** The design computation behind the routes: a request body or one batch item in, an outcome as JSON bytes out. */
+/** The design computation behind the routes: a request body or one batch item in, a reply out. */
 public interface Designs {
 
     /** One raw request body. */
-    EncodedOutcome design(byte[] body);
+    Reply design(byte[] body);
 
     /** One already parsed batch item. */
-    EncodedOutcome design(JsonNode item);
+    Reply design(JsonNode item);
 }

@@ -2,25 +2,27 @@ package com.loopwright.service.compute;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.DesignExchange;
-import com.loopwright.api.exchange.EncodedOutcome;
+import com.loopwright.api.design.DesignEndpoint;
+import com.loopwright.api.endpoint.EndpointRunner;
+import com.loopwright.api.endpoint.Reply;
 
-/** The production computation: {@link DesignExchange} writing straight to bytes, stateless and thread-safe. */
+/** The production computation: {@link DesignEndpoint} run by the {@link EndpointRunner}, stateless and thread-safe. */
 public final class ExchangeDesigns implements Designs {
 
-    private final DesignExchange exchange;
+    private final EndpointRunner runner;
+    private final DesignEndpoint endpoint = new DesignEndpoint();
 
     public ExchangeDesigns(ObjectMapper mapper) {
-        this.exchange = new DesignExchange(mapper);
+        this.runner = new EndpointRunner(mapper);
     }
 
     @Override
-    public EncodedOutcome design(byte[] body) {
-        return exchange.encode(body);
+    public Reply design(byte[] body) {
+        return runner.run(endpoint, body);
     }
 
     @Override
-    public EncodedOutcome design(JsonNode item) {
-        return exchange.encode(item);
+    public Reply design(JsonNode item) {
+        return runner.run(endpoint, item);
     }
 }

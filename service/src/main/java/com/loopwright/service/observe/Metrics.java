@@ -133,12 +133,7 @@ public final class Metrics {
     }
 
     /** The outcome label of one design computation. */
-    public static String outcomeOf(com.loopwright.api.exchange.Outcome outcome) {
-        return outcomeOf(outcome.status(), outcome.problem());
-    }
-
-    /** The outcome label of one design computation written as bytes. */
-    public static String outcomeOf(com.loopwright.api.exchange.EncodedOutcome outcome) {
+    public static String outcomeOf(com.loopwright.api.endpoint.Reply outcome) {
         return outcomeOf(outcome.status(), outcome.problem());
     }
 

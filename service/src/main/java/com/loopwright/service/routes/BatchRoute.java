@@ -1,10 +1,10 @@
 package com.loopwright.service.routes;
 
+import com.loopwright.api.design.ComputeBudget;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.ComputeBudget;
-import com.loopwright.api.exchange.EncodedOutcome;
+import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
@@ -109,7 +109,7 @@ public final class BatchRoute implements Handler {
         OutputStream out = ctx.res().getOutputStream();
         int count = items.size();
         int window = Math.min(pool.batchShare(), MAX_ITEMS_IN_FLIGHT);
-        Deque<ComputePool.Pending<EncodedOutcome>> inFlight = new ArrayDeque<>(window);
+        Deque<ComputePool.Pending<Reply>> inFlight = new ArrayDeque<>(window);
         int next = 0;
         StreamCuts.Stream stream = cuts.open();
         try {
@@ -117,8 +117,8 @@ public final class BatchRoute implements Handler {
                 // Keep up to `window` items of this batch on the pool, each on a free batch slot.
                 while (next < count && inFlight.size() < window) {
                     JsonNode item = items.item(next); // a tree only while in flight: at most `window` per batch
-                    ComputePool.Pending<EncodedOutcome> pending = pool.submitBatchItem(() -> designs.design(item),
-                            EncodedOutcome::failure, deadlineNanos, inFlight.isEmpty());
+                    ComputePool.Pending<Reply> pending = pool.submitBatchItem(() -> designs.design(item),
+                            Reply::failure, deadlineNanos, inFlight.isEmpty());
                     if (pending == null || (pending.refused() && !inFlight.isEmpty()
                             && deadlineNanos - System.nanoTime() > 0)) {
                         break; // no slot or a full pool: submit this item again once our oldest one is written
@@ -126,12 +126,12 @@ public final class BatchRoute implements Handler {
                     inFlight.addLast(pending);
                     next++;
                 }
-                ComputePool.Pending<EncodedOutcome> oldest = inFlight.removeFirst();
+                ComputePool.Pending<Reply> oldest = inFlight.removeFirst();
                 stream.waitingFor(oldest::cancel); // a shutdown cut cancels it, so the wait ends in time
                 if (!oldest.awaitDone(FLUSH_DELAY_NANOS)) {
                     out.flush(); // never wait longer than the flush delay with finished lines unsent
                 }
-                EncodedOutcome outcome = oldest.await();
+                Reply outcome = oldest.await();
                 if (stream.isCut()) {
                     writeCut(out, index);
                     break;
@@ -157,7 +157,7 @@ public final class BatchRoute implements Handler {
     }
 
     /** One BatchLine: {"index":i,"status":200,"design":{...}} or {"index":i,"status":s,"problem":{...}}. */
-    private void writeLine(OutputStream out, int index, EncodedOutcome outcome) throws IOException {
+    private void writeLine(OutputStream out, int index, Reply outcome) throws IOException {
         if (outcome.ok()) {
             out.write(("{\"index\":" + index + ",\"status\":200,\"design\":").getBytes(StandardCharsets.US_ASCII));
             outcome.writeTo(out);

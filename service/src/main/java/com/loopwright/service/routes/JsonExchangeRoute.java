@@ -1,9 +1,6 @@
 package com.loopwright.service.routes;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.loopwright.api.exchange.EncodedOutcome;
-import com.loopwright.api.exchange.Outcome;
+import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.http.JsonBodies;
@@ -24,16 +21,16 @@ public final class JsonExchangeRoute implements Handler {
 
     private final ProblemResponses problems;
     private final ComputePool pool;
-    private final Function<byte[], EncodedOutcome> exchange;
-    private final Consumer<EncodedOutcome> afterwards;
+    private final Function<byte[], Reply> exchange;
+    private final Consumer<Reply> afterwards;
 
-    public JsonExchangeRoute(ObjectMapper mapper, ProblemResponses problems, ComputePool pool,
-                             Function<byte[], Outcome> exchange) {
-        this(problems, pool, written(mapper, exchange), outcome -> { });
+    /** A route over an endpoint run (api.endpoint.EndpointRunner) that answers a body or a problem. */
+    public JsonExchangeRoute(ProblemResponses problems, ComputePool pool, Function<byte[], Reply> exchange) {
+        this(problems, pool, exchange, outcome -> { });
     }
 
-    private JsonExchangeRoute(ProblemResponses problems, ComputePool pool, Function<byte[], EncodedOutcome> exchange,
-                              Consumer<EncodedOutcome> afterwards) {
+    private JsonExchangeRoute(ProblemResponses problems, ComputePool pool, Function<byte[], Reply> exchange,
+                              Consumer<Reply> afterwards) {
         this.problems = problems;
         this.pool = pool;
         this.exchange = exchange;
@@ -41,25 +38,13 @@ public final class JsonExchangeRoute implements Handler {
     }
 
     /**
-     * A route over an exchange that writes its own bytes (the design exchange).
+     * The same, with a look at every reply before it is written.
      *
-     * @param afterwards sees every outcome before it is written (for example to count designs by outcome)
+     * @param afterwards sees every reply before it is written (for example to count designs by outcome)
      */
     public static JsonExchangeRoute encoded(ProblemResponses problems, ComputePool pool,
-                                            Function<byte[], EncodedOutcome> exchange,
-                                            Consumer<EncodedOutcome> afterwards) {
+                                            Function<byte[], Reply> exchange, Consumer<Reply> afterwards) {
         return new JsonExchangeRoute(problems, pool, exchange, afterwards);
-    }
-
-    /** A tree-building exchange, its tree written to bytes on the worker. */
-    private static Function<byte[], EncodedOutcome> written(ObjectMapper mapper, Function<byte[], Outcome> exchange) {
-        return body -> {
-            try {
-                return EncodedOutcome.of(exchange.apply(body), mapper);
-            } catch (JsonProcessingException e) {
-                throw new IllegalStateException("a response tree could not be written", e);
-            }
-        };
     }
 
     @Override
@@ -70,7 +55,7 @@ public final class JsonExchangeRoute implements Handler {
             return;
         }
         byte[] body = ctx.bodyAsBytes();
-        EncodedOutcome outcome = pool.run(() -> exchange.apply(body), EncodedOutcome::failure);
+        Reply outcome = pool.run(() -> exchange.apply(body), Reply::failure);
         afterwards.accept(outcome);
         if (!outcome.ok()) {
             if (outcome.status() == 503) {
@@ -79,6 +64,6 @@ public final class JsonExchangeRoute implements Handler {
             problems.write(ctx, outcome.problem());
             return;
         }
-        ctx.status(200).contentType(JsonBodies.JSON).result(outcome.jsonStream());
+        ctx.status(200).contentType(outcome.mediaType()).result(outcome.bodyStream());
     }
 }

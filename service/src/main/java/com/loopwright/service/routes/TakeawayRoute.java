@@ -1,14 +1,12 @@
 package com.loopwright.service.routes;
 
-import com.loopwright.api.exchange.Takeaway;
-import com.loopwright.api.problem.Problem;
+import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.http.JsonBodies;
 import com.loopwright.service.http.ProblemResponses;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
-import java.nio.charset.StandardCharsets;
 import java.util.function.BiFunction;
 
 /**
@@ -21,14 +19,14 @@ public final class TakeawayRoute implements Handler {
     public static final String CONTROLLERS_PATH = "/v1/designs/controllers/{format}";
 
     private final String parameter;
-    private final BiFunction<String, byte[], Takeaway> work;
+    private final BiFunction<String, byte[], Reply> work;
     private final ProblemResponses problems;
     private final ComputePool pool;
 
     /**
      * @param parameter the path parameter handed to {@code work} with the body (figure or format)
      */
-    public TakeawayRoute(String parameter, BiFunction<String, byte[], Takeaway> work, ProblemResponses problems,
+    public TakeawayRoute(String parameter, BiFunction<String, byte[], Reply> work, ProblemResponses problems,
                          ComputePool pool) {
         this.parameter = parameter;
         this.work = work;
@@ -45,8 +43,7 @@ public final class TakeawayRoute implements Handler {
         }
         String value = ctx.pathParam(parameter);
         byte[] body = ctx.bodyAsBytes();
-        Takeaway takeaway = pool.run(() -> work.apply(value, body),
-                problem -> new Takeaway(problem.status(), Problem.MEDIA_TYPE, null, problem));
+        Reply takeaway = pool.run(() -> work.apply(value, body), Reply::failure);
         if (!takeaway.ok()) {
             if (takeaway.status() == 503) {
                 ctx.header("Retry-After", String.valueOf(ComputePool.RETRY_AFTER_SECONDS));
@@ -54,6 +51,6 @@ public final class TakeawayRoute implements Handler {
             problems.write(ctx, takeaway.problem());
             return;
         }
-        ctx.status(200).contentType(takeaway.mediaType()).result(takeaway.body().getBytes(StandardCharsets.UTF_8));
+        ctx.status(200).contentType(takeaway.mediaType()).result(takeaway.body());
     }
 }

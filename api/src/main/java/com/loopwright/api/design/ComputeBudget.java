@@ -1,0 +1,160 @@
+package com.loopwright.api.design;
+
+import com.loopwright.api.robustness.VerifyLimits;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.api.problem.ProblemType;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.function.IntFunction;
+
+/**
+ * The cost model of design requests, in abstract work units, estimated from the request before anything is
+ * computed (docs/limits-and-budgets.md, section Compute). One work unit is about 0.1 ms of CPU on the machine the
+ * model was calibrated on: a design without checks is {@value #DESIGN_UNITS} units; the robustness checks add,
+ * per check, the simulations they run (one uncertain case, one disturbance run, ...). Sampled-data and delay
+ * checks are charged as if simulated at their interval cap, because the number of intervals depends on the
+ * designed loop, which is not known before the design. A request (a batch with all its items) may cost at most
+ * {@value #MAX_REQUEST_WORK_UNITS} units; the worst single design with every check is about 4,300 units, so the cap
+ * binds batches.
+ */
+public final class ComputeBudget {
+
+    /** The cap on one request's estimated work (a batch: the sum over its items). */
+    public static final long MAX_REQUEST_WORK_UNITS = 50_000;
+    /** A design with its independent verification (numeric Riccati, norm, step simulation): about 0.8 ms. */
+    public static final long DESIGN_UNITS = 10;
+    /** A verify object: nominal step, norm and loop margins. */
+    public static final long VERIFY_UNITS = 10;
+    /** One uncertain case (a corner or a Monte Carlo sample): a step simulation on the 2000-point grid. */
+    public static final long UNCERTAIN_CASE_UNITS = 1;
+    /** Corners of the parameter box (2^4), evaluated whenever uncertainty is given. */
+    public static final long CORNER_CASES = 16;
+    /** One disturbance profile: a simulation over its horizon. */
+    public static final long DISTURBANCE_UNITS = 25;
+    /** The saturated step (actuatorLimit) over three horizons. */
+    public static final long SATURATION_UNITS = 40;
+    /** The sampled-data check: the emulated and the directly designed law, at the interval cap. */
+    public static final long SAMPLING_UNITS = 700;
+    /** The longest-period search (sampling.findLongest): up to 38 sampled simulations. */
+    public static final long LONGEST_PERIOD_UNITS = 500;
+    /** The input-delay simulation at the interval cap. */
+    public static final long DELAY_UNITS = 700;
+    /** Frequency-response and time-series points returned, per unit. */
+    public static final long POINTS_PER_UNIT = 30;
+    /** At most this many cost drivers are named in a refusal (Problem.errors holds at most 32). */
+    private static final int MAX_DRIVERS = VerifyLimits.MAX_FIELD_ERRORS - 1;
+
+    /**
+     * The estimated work of one design request (a single body or a batch item), each part by the field that asks
+     * for it (pointers relative to the request, e.g. "/verify/uncertainty/monteCarloSamples").
+     */
+    public Map<String, Long> designParts(JsonNode request) {
+        Map<String, Long> parts = new LinkedHashMap<>();
+        parts.put("", DESIGN_UNITS);
+        JsonNode verify = request == null ? null : request.get("verify");
+        if (verify == null || !verify.isObject()) {
+            return parts;
+        }
+        parts.put("/verify", VERIFY_UNITS);
+        JsonNode uncertainty = verify.get("uncertainty");
+        if (uncertainty != null && uncertainty.isObject()) {
+            parts.put("/verify/uncertainty", CORNER_CASES * UNCERTAIN_CASE_UNITS);
+            long samples = count(uncertainty.get("monteCarloSamples"), VerifyLimits.MAX_MONTE_CARLO_SAMPLES);
+            if (samples > 0) {
+                parts.put("/verify/uncertainty/monteCarloSamples", samples * UNCERTAIN_CASE_UNITS);
+            }
+        }
+        JsonNode disturbances = verify.get("disturbances");
+        if (disturbances != null && disturbances.isArray() && !disturbances.isEmpty()) {
+            parts.put("/verify/disturbances", Math.min(disturbances.size(), VerifyLimits.MAX_DISTURBANCES)
+                    * DISTURBANCE_UNITS);
+        }
+        if (present(verify.get("actuatorLimit"))) {
+            parts.put("/verify/actuatorLimit", SATURATION_UNITS);
+        }
+        JsonNode sampling = verify.get("sampling");
+        if (sampling != null && sampling.isObject()) {
+            parts.put("/verify/sampling", SAMPLING_UNITS);
+            if (sampling.path("findLongest").asBoolean(false)) {
+                parts.put("/verify/sampling/findLongest", LONGEST_PERIOD_UNITS);
+            }
+        }
+        if (present(verify.get("inputDelay"))) {
+            parts.put("/verify/inputDelay", DELAY_UNITS);
+        }
+        long points = count(verify.get("frequencyPoints"), VerifyLimits.MAX_FREQUENCY_POINTS)
+                + count(verify.get("timeSeriesPoints"), VerifyLimits.MAX_TIME_SERIES_POINTS);
+        if (points > 0) {
+            parts.put("/verify/frequencyPoints", (points + POINTS_PER_UNIT - 1) / POINTS_PER_UNIT);
+        }
+        return parts;
+    }
+
+    /** The estimated work of one design request. */
+    public long designUnits(JsonNode request) {
+        return designParts(request).values().stream().mapToLong(Long::longValue).sum();
+    }
+
+    /**
+     * The 422 cap-exceeded problem when a batch's estimated work exceeds the cap, else null. The problem names
+     * the fields that drive the cost, largest first: each with the first item that asks for it and its share of
+     * the total over all items.
+     */
+    public Problem refuseBatch(JsonNode items) {
+        return refuseBatch(items.size(), items::get);
+    }
+
+    /**
+     * As {@link #refuseBatch(JsonNode)} for items read one at a time (a streamed envelope builds each item's tree
+     * only while it is estimated).
+     */
+    public Problem refuseBatch(int count, IntFunction<JsonNode> item) {
+        Map<String, Long> byField = new LinkedHashMap<>();
+        Map<String, Integer> firstItem = new LinkedHashMap<>();
+        Map<String, Integer> itemsAsking = new LinkedHashMap<>();
+        long total = 0;
+        for (int i = 0; i < count; i++) {
+            for (Map.Entry<String, Long> part : designParts(item.apply(i)).entrySet()) {
+                byField.merge(part.getKey(), part.getValue(), Long::sum);
+                firstItem.putIfAbsent(part.getKey(), i);
+                itemsAsking.merge(part.getKey(), 1, Integer::sum);
+                total += part.getValue();
+            }
+        }
+        if (total <= MAX_REQUEST_WORK_UNITS) {
+            return null;
+        }
+        String summary = "the batch's " + count + " items are estimated at " + total + " work units, more"
+                + " than the cap of " + MAX_REQUEST_WORK_UNITS + " per request (one unit is about 0.1 ms of CPU);"
+                + " send fewer items or fewer checks per item (see the cost model in docs/limits-and-budgets.md)";
+        long estimated = total;
+        List<FieldError> errors = new ArrayList<>();
+        errors.add(new FieldError("/items", count + " items, " + estimated + " work units estimated; the cap is "
+                + MAX_REQUEST_WORK_UNITS));
+        byField.entrySet().stream()
+                .sorted(Map.Entry.<String, Long>comparingByValue().reversed())
+                .limit(MAX_DRIVERS)
+                .forEach(part -> errors.add(new FieldError("/items/" + firstItem.get(part.getKey()) + part.getKey(),
+                        (part.getKey().isEmpty() ? "the designs themselves" : "this check")
+                                + " in " + itemsAsking.get(part.getKey()) + " items costs " + part.getValue()
+                                + " of the " + estimated + " work units")));
+        return ProblemType.CAP_EXCEEDED.problem(summary, errors, List.of());
+    }
+
+    private static boolean present(JsonNode value) {
+        return value != null && !value.isNull();
+    }
+
+    /** A count field, clamped to [0, cap] (the validator refuses values outside; the estimate stays bounded). */
+    private static long count(JsonNode value, int cap) {
+        if (value == null || !value.isNumber()) {
+            return 0;
+        }
+        double number = value.asDouble();
+        return number > 0 ? (long) Math.min(number, cap) : 0;
+    }
+}

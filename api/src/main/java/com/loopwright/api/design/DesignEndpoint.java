@@ -1,0 +1,142 @@
+package com.loopwright.api.design;
+
+import com.loopwright.api.validation.FieldLimits;
+import com.loopwright.api.robustness.RobustnessResponse;
+import com.loopwright.api.robustness.RobustnessResponseMapper;
+import com.loopwright.api.robustness.ValidatedVerify;
+import com.loopwright.api.robustness.VerifyInputValidator;
+import com.loopwright.api.robustness.VerifyLimits;
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.endpoint.Endpoint;
+import com.loopwright.api.endpoint.FailureContext;
+import com.loopwright.api.endpoint.FailureTable;
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.pipeline.DesignPipeline;
+import com.loopwright.solver.pipeline.DesignReport;
+import com.loopwright.solver.pipeline.RobustnessPipeline;
+import com.loopwright.solver.pipeline.StateSpaceDesign;
+import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.robustness.RobustnessReport;
+import com.loopwright.solver.spec.TimeSpec;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * POST /v1/designs (and each batch item): the two-state design, its coordinates in the caller's state space, and
+ * the robustness checks when the request asks for them. Stateless and thread-safe.
+ */
+public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpoint.Validated, DesignEndpoint.Result> {
+
+    /** The robustness section's performance output: a design always weights z = [rho1 x1, rho2 x2, u]. */
+    private static final String WEIGHTED_OUTPUT = "z = [rho1 x1, rho2 x2, u]";
+    private static final String VERIFY_POINTER = "/verify";
+
+    private final DesignRequestValidator validator = new DesignRequestValidator();
+    private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
+    private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
+    private final RobustnessPipeline robustness = new RobustnessPipeline();
+    private final DesignResponseMapper responses = new DesignResponseMapper();
+    private final RobustnessResponseMapper robustnessResponses = new RobustnessResponseMapper();
+
+    /**
+     * @param design       the design request, validated
+     * @param verify       the robustness checks, or null when not asked for (or invalid)
+     * @param verifyErrors the field errors of the verify object; reported after the design is found feasible, as
+     *                     the contract orders them (an infeasible spec is named first)
+     */
+    public record Validated(ValidatedDesign design, ValidatedVerify verify, List<FieldError> verifyErrors) {
+        public Validated {
+            verifyErrors = List.copyOf(verifyErrors);
+        }
+    }
+
+    /**
+     * @param report            the design and its verification
+     * @param callerCoordinates the design in the caller's state-space coordinates, or null
+     * @param robustness        the robustness checks, or null
+     */
+    public record Result(DesignReport report, StateSpaceDesign callerCoordinates, RobustnessReport robustness) {
+    }
+
+    @Override
+    public Class<DesignRequest> requestType() {
+        return DesignRequest.class;
+    }
+
+    @Override
+    public Validated validate(DesignRequest request) {
+        ValidatedDesign design = validator.validate(request);
+        if (request.verify() == null) {
+            return new Validated(design, null, List.of());
+        }
+        List<FieldError> errors = new ArrayList<>();
+        ValidatedVerify verify = verifyValidator.validate(request.verify(), design.plant(), VERIFY_POINTER, errors);
+        return new Validated(design, verify, verify == null ? VerifyLimits.capped(errors) : List.of());
+    }
+
+    @Override
+    public Result compute(Validated validated) {
+        ValidatedDesign design = validated.design();
+        DesignReport report = designs.design(design.plant(), design.spec(), design.gammaChoice(), design.stepSize(),
+                design.bandFraction());
+        if (!validated.verifyErrors().isEmpty()) {
+            throw new InvalidRequestException(validated.verifyErrors());
+        }
+        RobustnessReport checked = null;
+        if (validated.verify() != null) {
+            ClosedFormDesign closedForm = report.design();
+            checked = robustness.check(design.plant(), gains(closedForm), design.stepSize(), limits(design),
+                    closedForm.rho1(), closedForm.rho2(), gamma(closedForm), validated.verify().options(),
+                    validated.verify().toleranceFraction());
+        }
+        StateSpaceDesign callerCoordinates = designs.callerCoordinates(design.resolvedPlant().source(),
+                report.design());
+        return new Result(report, callerCoordinates, checked);
+    }
+
+    @Override
+    public Object respond(Validated validated, Result result) {
+        RobustnessResponse robustnessResponse = null;
+        if (result.robustness() != null) {
+            ClosedFormDesign closedForm = result.report().design();
+            ValidatedVerify verify = validated.verify();
+            robustnessResponse = robustnessResponses.toResponse(result.robustness(), limits(validated.design()),
+                    100 * verify.toleranceFraction(), validated.design().stepSize(), WEIGHTED_OUTPUT,
+                    gamma(closedForm), verify.options().seriesPoints());
+        }
+        return responses.toResponse(validated.design(), result.report(), result.callerCoordinates(),
+                robustnessResponse);
+    }
+
+    @Override
+    public Problem nonFinite(String pointer) {
+        return FailureTable.unverifiable("the design's " + (pointer.isEmpty() ? "result" : pointer)
+                + " is outside double precision");
+    }
+
+    @Override
+    public FailureContext failureContext(Validated validated) {
+        return validated == null ? FailureContext.ROOT
+                : FailureContext.ROOT.withTimeSpec(validated.design().timeSpecPointer());
+    }
+
+    private static FeedbackGains gains(ClosedFormDesign design) {
+        return new FeedbackGains(design.positionGain(), design.velocityGain(), design.referenceGain());
+    }
+
+    /** The bound the disturbance gain is judged against: none without a disturbance input (d = 0). */
+    private static Double gamma(ClosedFormDesign design) {
+        return design.plant().d() == 0 ? null : design.gamma();
+    }
+
+    /** The spec as given, in the verifier's terms (the tolerance widens it before judging). */
+    private static AcceptanceLimits limits(ValidatedDesign design) {
+        TimeSpec timeSpec = design.spec().timeSpec();
+        return new AcceptanceLimits(timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
+                timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
+                100 * design.spec().overshootFraction(), design.bandFraction());
+    }
+}

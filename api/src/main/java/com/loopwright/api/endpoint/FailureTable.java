@@ -1,0 +1,122 @@
+package com.loopwright.api.endpoint;
+
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.problem.Problem;
+import com.loopwright.api.problem.ProblemType;
+import com.loopwright.api.problem.Proposal;
+import com.loopwright.solver.design.Infeasibility;
+import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.pipeline.SolverFailure;
+import com.loopwright.solver.plant.PlantParameterException;
+import java.util.List;
+
+/**
+ * The one place failures become RFC 9457 problems: field errors of validation, unusable plant parameters, and
+ * each {@link SolverFailure.Kind}; the endpoint supplies only the pointers ({@link FailureContext}).
+ */
+public final class FailureTable {
+
+    private static final String UNCONTROLLABLE_POINTER = "/plant/stateSpace/b2";
+    private static final String NO_DC_GAIN_POINTER = "/plant/stateSpace/output";
+    private static final String FIT_POINTER = "/samples/output";
+    private static final String SAMPLE_PERIOD_POINTER = "/samplePeriodSeconds";
+    private static final String COMMAND_LIMIT_POINTER = "/commandLimit";
+
+    private FailureTable() {
+    }
+
+    /**
+     * The problem of a failure an endpoint step raised: an InvalidRequestException, a PlantParameterException
+     * or a SolverFailure.
+     */
+    public static Problem toProblem(RuntimeException failure, FailureContext context) {
+        if (failure instanceof InvalidRequestException invalid) {
+            return invalid(invalid.errors());
+        }
+        if (failure instanceof PlantParameterException plant) {
+            return plantModel(plant.parameter(), plant.getMessage(), context);
+        }
+        if (failure instanceof SolverFailure solver) {
+            return solverProblem(solver, context);
+        }
+        throw new IllegalArgumentException("not a request or solver failure", failure);
+    }
+
+    /** 422 invalid-field with every field error; the detail names the field when there is one. */
+    public static Problem invalid(List<FieldError> errors) {
+        String detail = errors.size() == 1
+                ? errors.get(0).pointer() + ": " + errors.get(0).detail()
+                : errors.size() + " fields are invalid; see errors";
+        return ProblemType.INVALID_FIELD.problem(detail, errors, List.of());
+    }
+
+    /** A result that cannot be computed or written in double precision, with the advice to rescale. */
+    public static Problem unverifiable(String detail) {
+        return ProblemType.UNVERIFIABLE_DESIGN.problem(detail + ". Rescale the plant units (for example"
+                + " millimetres instead of metres) so that the coefficients are nearer 1.", List.of(), List.of());
+    }
+
+    private static Problem solverProblem(SolverFailure failure, FailureContext context) {
+        String message = failure.getMessage();
+        return switch (failure.kind()) {
+            case PLANT_MODEL -> plantModel(failure.subject(), message, context);
+            case INFEASIBLE_SPEC -> infeasible(failure.infeasibility(), context);
+            case UNCONTROLLABLE -> at(ProblemType.INFEASIBLE_SPEC, context.prefix() + UNCONTROLLABLE_POINTER, message);
+            case NO_DC_GAIN -> at(ProblemType.INFEASIBLE_SPEC, context.prefix() + NO_DC_GAIN_POINTER, message);
+            case UNVERIFIABLE -> unverifiable(message);
+            case LOOP_NOT_SIMULABLE -> unverifiable("the closed loop could not be simulated or checked: " + message);
+            case FIGURE_NOT_COMPUTABLE -> unverifiable("the figure could not be drawn: " + message);
+            case CHECK_NOT_COMPUTABLE -> ProblemType.UNVERIFIABLE_DESIGN.problem("a robustness check could not be"
+                    + " computed in double precision: " + message, List.of(), List.of());
+            case CAP_EXCEEDED -> at(ProblemType.CAP_EXCEEDED, capPointer(failure, context), message);
+            case UNSTABLE_LOOP -> at(ProblemType.UNSTABLE_LOOP, context.unstableLoopPointer(), message);
+            case FIT_FAILED -> at(ProblemType.FIT_FAILED, FIT_POINTER, message);
+            case SAMPLED_LAW_INFEASIBLE -> at(ProblemType.INFEASIBLE_SPEC,
+                    SolverFailure.SAMPLE_PERIOD.equals(failure.subject()) ? SAMPLE_PERIOD_POINTER
+                            : COMMAND_LIMIT_POINTER, message);
+        };
+    }
+
+    /** The problem with the message as detail and as the one field error at {@code pointer}. */
+    private static Problem at(ProblemType type, String pointer, String message) {
+        return type.problem(message, List.of(new FieldError(pointer, message)), List.of());
+    }
+
+    /** The option of a capped check, inside the verify object. */
+    private static String capPointer(SolverFailure failure, FailureContext context) {
+        String verify = context.verifyPointer();
+        return switch (failure.subject()) {
+            case "SAMPLE_PERIOD" -> verify + "/sampling/samplePeriod";
+            case "INPUT_DELAY" -> verify + "/inputDelay";
+            case "DISTURBANCE_TIMING" -> verify + "/disturbances/" + failure.index();
+            default -> verify;
+        };
+    }
+
+    /** A plant description that is well-formed but not physical or not usable (422). */
+    private static Problem plantModel(String parameter, String message, FailureContext context) {
+        String pointer = parameter.isEmpty() ? "/plant" : "/plant/" + parameter;
+        return ProblemType.PLANT_MODEL_UNUSABLE.problem(pointer + ": " + message,
+                List.of(new FieldError(context.prefix() + pointer, message)), List.of());
+    }
+
+    private static Problem infeasible(Infeasibility infeasibility, FailureContext context) {
+        String prefix = context.prefix();
+        String pointer = pointerOf(infeasibility.quantity(), context.timeSpecPointer());
+        List<Proposal> proposals = infeasibility.proposals().stream()
+                .map(p -> new Proposal(prefix + pointerOf(p.quantity(), context.timeSpecPointer()), p.value(),
+                        p.note()))
+                .toList();
+        return ProblemType.INFEASIBLE_SPEC.problem(infeasibility.reason(),
+                List.of(new FieldError(prefix + pointer, infeasibility.reason())), proposals);
+    }
+
+    private static String pointerOf(SpecQuantity quantity, String timeSpecPointer) {
+        return switch (quantity) {
+            case OVERSHOOT_PERCENT -> "/spec/overshootPercent";
+            case TIME_SPEC -> timeSpecPointer;
+            case GAMMA -> "/spec/gamma";
+        };
+    }
+}

@@ -1,0 +1,53 @@
+package com.loopwright.api.highorder;
+
+import java.util.List;
+
+/**
+ * Body of POST /v1/designs/high-order (nullable until validated).
+ *
+ * @param plant          the companion-form plant of order 2..8
+ * @param spec           overshoot, settling time and design options
+ * @param auxiliaryPoles where the n - 2 poles beyond the dominant pair go (default: real, 4 x its real part)
+ * @param matchSpecs     true to adjust the dominant pair until the simulated loop meets the specs
+ */
+public record HighOrderDesignRequest(HighOrderPlantInput plant, HighOrderSpecInput spec,
+                                     AuxiliaryPolesInput auxiliaryPoles, Boolean matchSpecs) {
+
+    /**
+     * The plant in controllable canonical form, lowest power first.
+     *
+     * @param denominator a_0 .. a_{n-1} of s^n + a_{n-1} s^{n-1} + ... + a_0
+     * @param numerator   c_0 .. c_{n-1} of the output y = c_0 z_1 + ... + c_{n-1} z_n (default [1, 0, ...])
+     * @param b           input gain
+     * @param disturbance disturbance input vector, one entry per state
+     * @param stateSpace  instead of the four fields above: a controllable state space, transformed to companion form
+     */
+    public record HighOrderPlantInput(List<Double> denominator, List<Double> numerator, Double b,
+                                      List<Double> disturbance, StateSpaceInput stateSpace) {
+    }
+
+    /**
+     * x' = a x + b2 u + b1 w, y = output x.
+     *
+     * @param a      n x n state matrix, row by row
+     * @param b2     control input vector
+     * @param b1     disturbance input vector
+     * @param output output row (default [1, 0, ...])
+     */
+    public record StateSpaceInput(List<List<Double>> a, List<Double> b2, List<Double> b1, List<Double> output) {
+    }
+
+    /** Specs and options; times in seconds, overshoot, band and undershoot in percent. */
+    public record HighOrderSpecInput(Double settlingTime, Double overshootPercent, Double settlingBandPercent,
+                                     Double gamma, Double gammaMargin, Double stepSize,
+                                     Double maxUndershootPercent) {
+    }
+
+    /** Exactly one of a real-part multiple or an explicit list of n - 2 poles. */
+    public record AuxiliaryPolesInput(Double realPartMultiple, List<PoleInput> poles) {
+    }
+
+    /** A pole re + j im [1/s]. */
+    public record PoleInput(Double re, Double im) {
+    }
+}

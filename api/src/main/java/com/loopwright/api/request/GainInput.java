@@ -1,5 +1,0 @@
-package com.loopwright.api.request;
-
-/** Gains of u = kr r - (k1 x1 + k2 x2) the caller already has. */
-public record GainInput(Double k1, Double k2, Double referenceGain) {
-}

@@ -1,5 +1,0 @@
-package com.loopwright.api.request;
-
-/** Either plusMinusPercent of the nominal value, or an absolute [min, max]. */
-public record ParameterRangeInput(Double plusMinusPercent, Double min, Double max) {
-}

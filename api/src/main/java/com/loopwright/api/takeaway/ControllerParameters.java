@@ -1,0 +1,35 @@
+package com.loopwright.api.takeaway;
+
+import com.loopwright.api.robustness.RobustnessResponse;
+import com.fasterxml.jackson.annotation.JsonInclude;
+import java.util.List;
+
+/**
+ * The sampled controller as a parameter set (POST /v1/designs/controllers/parameters).
+ *
+ * @param law                   the law in words, u = clamp(kr r - (k1 x1 + k2 x2), -limit, limit)
+ * @param discretization        how the continuous gains were carried to the sampled law ("emulation")
+ * @param samplePeriodSeconds   task period [s]
+ * @param positionGain          k1
+ * @param velocityGain          k2
+ * @param referenceGain         kr (setpoint feedforward)
+ * @param commandLimit          actuator limit
+ * @param sampledSpectralRadius largest |eigenvalue| of the unclamped sampled loop (stable below 1)
+ * @param periodPerTimeConstant wn T
+ * @param gamma                 H-infinity level of the continuous design
+ * @param continuousStep        step metrics of the continuous loop (the design's verification, unclamped)
+ * @param sampledStep           step metrics of this sampled loop (zero-order hold at samplePeriodSeconds,
+ *                              unclamped, observed at and between the samples); null when not simulated
+ * @param cautions              safety cautions
+ */
+@JsonInclude(JsonInclude.Include.NON_NULL)
+public record ControllerParameters(String law, String discretization, double samplePeriodSeconds,
+                                   double positionGain, double velocityGain, double referenceGain,
+                                   double commandLimit, double sampledSpectralRadius, double periodPerTimeConstant,
+                                   double gamma, RobustnessResponse.Metrics continuousStep,
+                                   RobustnessResponse.Metrics sampledStep, List<String> cautions) {
+
+    public ControllerParameters {
+        cautions = List.copyOf(cautions);
+    }
+}

@@ -1,0 +1,59 @@
+package com.loopwright.api.takeaway;
+
+import com.loopwright.api.endpoint.EndpointRunner;
+import com.loopwright.api.endpoint.Reply;
+import com.loopwright.api.plot.Figure;
+import com.loopwright.api.problem.ProblemType;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Map;
+import java.util.function.Function;
+import java.util.stream.Collectors;
+
+/**
+ * What people take away from a design: SVG figures and controller code, one endpoint per figure and per format,
+ * chosen by the path segment. Each request carries the design request under "design" (pointers of its problems
+ * are prefixed with /design). Stateless and thread-safe.
+ */
+public final class Takeaways {
+
+    public static final String SVG = PlotEndpoint.SVG;
+    public static final String STRUCTURED_TEXT = ControllerEndpoint.STRUCTURED_TEXT;
+    public static final String C_SOURCE = ControllerEndpoint.C_SOURCE;
+    public static final String JSON = Reply.JSON;
+
+    /** Controller formats: the path segment of POST /v1/designs/controllers/{format}. */
+    public static final List<String> FORMATS = List.of("structured-text", "c", "parameters");
+
+    private final EndpointRunner runner;
+    private final Map<String, PlotEndpoint> plots;
+    private final Map<String, ControllerEndpoint> controllers;
+
+    public Takeaways(EndpointRunner runner) {
+        this.runner = runner;
+        this.plots = Arrays.stream(Figure.values())
+                .collect(Collectors.toUnmodifiableMap(Figure::slug, PlotEndpoint::new));
+        this.controllers = FORMATS.stream()
+                .collect(Collectors.toUnmodifiableMap(Function.identity(), ControllerEndpoint::new));
+    }
+
+    /** POST /v1/designs/plots/{figure}. */
+    public Reply plot(String figureSlug, byte[] body) {
+        PlotEndpoint endpoint = plots.get(figureSlug);
+        if (endpoint == null) {
+            return Reply.failure(ProblemType.NOT_FOUND.problem("no figure '" + figureSlug + "'; figures are"
+                    + " step-response, control-effort, bode and uncertainty-band"));
+        }
+        return runner.run(endpoint, body);
+    }
+
+    /** POST /v1/designs/controllers/{format}. */
+    public Reply controller(String format, byte[] body) {
+        ControllerEndpoint endpoint = controllers.get(format);
+        if (endpoint == null) {
+            return Reply.failure(ProblemType.NOT_FOUND.problem("no controller format '" + format + "'; formats are "
+                    + String.join(", ", FORMATS)));
+        }
+        return runner.run(endpoint, body);
+    }
+}

@@ -1,0 +1,126 @@
+package com.loopwright.api.verification;
+
+import com.loopwright.api.plant.CanonicalPlantInput;
+import com.loopwright.api.validation.Checks;
+import com.loopwright.api.robustness.ValidatedVerify;
+import com.loopwright.api.robustness.VerifyInput;
+import com.loopwright.api.robustness.VerifyInputValidator;
+import com.loopwright.api.robustness.VerifyLimits;
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.validation.SpecInput;
+import static com.loopwright.api.validation.FieldLimits.DEFAULT_BAND_PERCENT;
+import static com.loopwright.api.validation.FieldLimits.DEFAULT_STEP;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A0;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A1;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_B;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_D;
+import static com.loopwright.api.validation.FieldLimits.MAX_ABS_STEP;
+import static com.loopwright.api.validation.FieldLimits.MAX_BAND_PERCENT;
+import static com.loopwright.api.validation.FieldLimits.MAX_GAMMA;
+import static com.loopwright.api.validation.FieldLimits.MAX_OVERSHOOT_PERCENT;
+import static com.loopwright.api.validation.FieldLimits.MAX_TIME_SECONDS;
+import static com.loopwright.api.validation.FieldLimits.MIN_ABS_B;
+import static com.loopwright.api.validation.FieldLimits.MIN_BAND_PERCENT;
+import static com.loopwright.api.validation.FieldLimits.MIN_OVERSHOOT_PERCENT;
+import static com.loopwright.api.validation.FieldLimits.MIN_TIME_SECONDS;
+import static com.loopwright.api.robustness.VerifyLimits.MAX_ABS_GAIN;
+import static com.loopwright.api.robustness.VerifyLimits.MAX_WEIGHT;
+
+import com.loopwright.api.plant.CanonicalPlantInput;
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.loop.FeedbackGains;
+import java.util.ArrayList;
+import java.util.List;
+
+/** Checks a verification request; reports every offending field with its JSON pointer. */
+public final class VerificationRequestValidator {
+
+    private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
+
+    public ValidatedVerification validate(VerificationRequest request) {
+        if (request == null) {
+            throw new InvalidRequestException(List.of(new FieldError("", "a JSON object with plant and gain")));
+        }
+        List<FieldError> errors = new ArrayList<>();
+        CanonicalPlantInput plant = request.plant();
+        if (plant == null) {
+            errors.add(new FieldError("/plant", "required"));
+        } else {
+            Checks.magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
+            Checks.magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
+            Checks.magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);
+            Checks.magnitude(errors, "/plant/d", plant.d(), 0, MAX_ABS_D, true);
+        }
+        GainInput gain = request.gain();
+        if (gain == null) {
+            errors.add(new FieldError("/gain", "required"));
+        } else {
+            Checks.magnitude(errors, "/gain/k1", gain.k1(), 0, MAX_ABS_GAIN, true);
+            Checks.magnitude(errors, "/gain/k2", gain.k2(), 0, MAX_ABS_GAIN, true);
+            Checks.magnitude(errors, "/gain/referenceGain", gain.referenceGain(), 0, MAX_ABS_GAIN, true);
+        }
+        SpecInput spec = request.spec();
+        Double settling = null;
+        Double rise = null;
+        Double overshoot = null;
+        double band = DEFAULT_BAND_PERCENT / 100;
+        double step = DEFAULT_STEP;
+        if (spec != null) {
+            settling = spec.settlingTime();
+            rise = spec.riseTime();
+            overshoot = spec.overshootPercent();
+            range(errors, "/spec/overshootPercent", overshoot, MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT);
+            range(errors, "/spec/settlingTime", settling, MIN_TIME_SECONDS, MAX_TIME_SECONDS);
+            range(errors, "/spec/riseTime", rise, MIN_TIME_SECONDS, MAX_TIME_SECONDS);
+            range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT);
+            Checks.magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
+            if (spec.gamma() != null) {
+                errors.add(new FieldError("/spec/gamma", "not used by verifications; give performance.gamma"));
+            }
+            if (spec.gammaMargin() != null) {
+                errors.add(new FieldError("/spec/gammaMargin", "not used by verifications"));
+            }
+            if (spec.settlingBandPercent() != null) {
+                band = spec.settlingBandPercent() / 100;
+            }
+            if (spec.stepSize() != null) {
+                step = spec.stepSize();
+            }
+        }
+        PerformanceInput performance = request.performance();
+        if (performance != null) {
+            if (performance.rho1() == null || !(performance.rho1() >= 0 && performance.rho1() <= MAX_WEIGHT)) {
+                errors.add(new FieldError("/performance/rho1", "required, from 0 to " + MAX_WEIGHT));
+            }
+            if (performance.rho2() == null || !(performance.rho2() >= 0 && performance.rho2() <= MAX_WEIGHT)) {
+                errors.add(new FieldError("/performance/rho2", "required, from 0 to " + MAX_WEIGHT));
+            }
+            if (performance.gamma() != null && !(performance.gamma() > 0 && performance.gamma() <= MAX_GAMMA)) {
+                errors.add(new FieldError("/performance/gamma", "must be positive and at most " + MAX_GAMMA));
+            }
+        }
+        if (!errors.isEmpty()) {
+            throw new InvalidRequestException(VerifyLimits.capped(errors));
+        }
+        CanonicalPlant canonical = new CanonicalPlant(plant.a0(), plant.a1(), plant.b(), plant.d());
+        ValidatedVerify verify = verifyValidator.validate(request.verify() == null
+                ? new VerifyInput(null, null, null, null, null, null, null, null) : request.verify(), canonical,
+                "/verify", errors);
+        if (!errors.isEmpty()) {
+            throw new InvalidRequestException(VerifyLimits.capped(errors));
+        }
+        return new ValidatedVerification(canonical, new FeedbackGains(gain.k1(), gain.k2(), gain.referenceGain()), step,
+                new AcceptanceLimits(settling, rise, overshoot, band),
+                performance == null ? null : performance.rho1(), performance == null ? null : performance.rho2(),
+                performance == null ? null : performance.gamma(), verify);
+    }
+
+    private static void range(List<FieldError> errors, String pointer, Double value, double min, double max) {
+        if (value != null && !(value >= min && value <= max)) {
+            errors.add(new FieldError(pointer, "must be a finite number from " + min + " to " + max));
+        }
+    }
+
+}

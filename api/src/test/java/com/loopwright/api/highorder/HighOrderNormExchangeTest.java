@@ -1,0 +1,35 @@
+package com.loopwright.api.highorder;
+
+import com.loopwright.api.endpoint.Answer;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.loopwright.api.json.StrictJson;
+import java.nio.charset.StandardCharsets;
+import org.junit.jupiter.api.Test;
+
+/** The high-order endpoint's norm on the issue-12 reproduction, end to end without HTTP. */
+class HighOrderNormExchangeTest {
+
+    /**
+     * Issue 12, item 1: this request answered hinfNorm 3971.748 at 44.94 rad/s. Outside reference: the issue's
+     * independent check (numpy/scipy and 40-digit mpmath), true peak 3973.374 at 46.71 rad/s.
+     */
+    @Test
+    void badlyScaledOrderFiveLoopReportsTheCertifiedPeak() {
+        String body = "{\"plant\":{\"denominator\":[3286.5795497977865,2443.8582808398724,1093.8567775813508,"
+                + "164.76062175845746,24.903359880407102],\"b\":0.36536984243058584,"
+                + "\"numerator\":[1.0,-0.010096282201076452,0,0,0],\"disturbance\":[0,0,0,0,988.6561066119183]},"
+                + "\"spec\":{\"settlingTime\":0.41617516156597156,\"overshootPercent\":2.3321485160205992},"
+                + "\"matchSpecs\":true}";
+        Answer outcome = Answer.highOrder(body.getBytes(StandardCharsets.UTF_8));
+        assertEquals(200, outcome.status(), () -> outcome.body().toString());
+        JsonNode verification = outcome.body().at("/verification");
+        double tolerance = verification.at("/hinfNormRelativeTolerance").asDouble();
+        assertEquals(1e-10, tolerance);
+        double norm = verification.at("/hinfNorm").asDouble();
+        assertTrue(norm >= 3973.3735 && norm <= 3973.3745, "hinfNorm " + norm);
+        assertEquals(46.71, verification.at("/peakFrequency").asDouble(), 0.005);
+    }
+}

@@ -1,0 +1,16 @@
+package com.loopwright.solver.pipeline;
+
+import com.loopwright.solver.export.SampledLaw;
+import com.loopwright.solver.simulation.GridMetrics;
+import java.util.Optional;
+
+/**
+ * A design turned into a sampled control law, with the sampled loop's own step.
+ *
+ * @param design      the continuous design it emulates
+ * @param law         the law evaluated once per sample period
+ * @param sampledStep the step of the sampled loop (zero-order hold, unclamped), or empty when it diverges or the
+ *                    period is too short to simulate over the horizon
+ */
+public record ControllerExport(DesignReport design, SampledLaw law, Optional<GridMetrics> sampledStep) {
+}

@@ -1,0 +1,74 @@
+package com.loopwright.solver.pipeline;
+
+import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.export.CSourceWriter;
+import com.loopwright.solver.export.ExportHeader;
+import com.loopwright.solver.export.SampledLaw;
+import com.loopwright.solver.export.SampledLawDesigner;
+import com.loopwright.solver.export.SampledLawException;
+import com.loopwright.solver.export.StructuredTextWriter;
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.robustness.SampledStepMetrics;
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * The front door of the controller export: the emulated sampled law of a verified design and the step of the
+ * sampled loop it makes. Every failure is a {@link SolverFailure}. Stateless and thread-safe.
+ */
+public final class ExportPipeline {
+
+    /** The shortest sample period a law is built for. */
+    public static final double MIN_SAMPLE_PERIOD_SECONDS = SampledLawDesigner.MIN_SAMPLE_PERIOD_SECONDS;
+    /** The longest sample period a law is built for. */
+    public static final double MAX_SAMPLE_PERIOD_SECONDS = SampledLawDesigner.MAX_SAMPLE_PERIOD_SECONDS;
+
+    private final SampledLawDesigner lawDesigner = new SampledLawDesigner();
+    private final SampledStepMetrics sampledMetrics = new SampledStepMetrics();
+
+    /**
+     * @throws SolverFailure SAMPLED_LAW_INFEASIBLE with subject {@link SolverFailure#SAMPLE_PERIOD} or
+     *                       {@link SolverFailure#COMMAND_LIMIT}
+     */
+    public ControllerExport export(DesignReport report, double samplePeriodSeconds, double commandLimit) {
+        SampledLaw law;
+        try {
+            law = lawDesigner.emulate(report.design(), samplePeriodSeconds, commandLimit);
+        } catch (SampledLawException e) {
+            throw SolverFailure.about(SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE, e.aboutSamplePeriod()
+                    ? SolverFailure.SAMPLE_PERIOD : SolverFailure.COMMAND_LIMIT, -1, e.getMessage(), e);
+        }
+        ClosedFormDesign d = report.design();
+        // the sampled loop's own step (not the continuous one): the header and the parameter set quote both
+        Optional<GridMetrics> sampledStep = sampledMetrics.measure(d.plant(),
+                new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), report.stepSize(),
+                law.samplePeriodSeconds(), report.bandFraction());
+        return new ControllerExport(report, law, sampledStep);
+    }
+
+    /**
+     * The law as an IEC 61131-3 Structured Text function block, under a comment header.
+     *
+     * @param specLines the header's lines (plant, specs, simulated steps), written as given
+     * @throws IllegalArgumentException when a number cannot be written as source
+     */
+    public String structuredText(ControllerExport export, String title, List<String> specLines,
+                                 List<String> cautions) {
+        return new StructuredTextWriter().write(header(export, title, specLines, cautions), export.law());
+    }
+
+    /**
+     * The law as a C function, under a comment header.
+     *
+     * @throws IllegalArgumentException when a number cannot be written as source
+     */
+    public String cSource(ControllerExport export, String title, List<String> specLines, List<String> cautions) {
+        return new CSourceWriter().write(header(export, title, specLines, cautions), export.law());
+    }
+
+    private static ExportHeader header(ControllerExport export, String title, List<String> specLines,
+                                       List<String> cautions) {
+        return new ExportHeader(title, specLines, export.design().design().gamma(), cautions);
+    }
+}
