@@ -1,7 +1,6 @@
 package com.loopwright.solver.loop;
 
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.LinearLoop;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
@@ -40,14 +39,6 @@ public final class LoopMatrices {
     public static DMatrixRMaj closedLoop(CanonicalPlant plant, FeedbackGains gains) {
         return new DMatrixRMaj(new double[][] {{0, 1},
             {-plant.a0() - plant.b() * gains.positionGain(), -plant.a1() - plant.b() * gains.velocityGain()}});
-    }
-
-    public static LinearLoop stepLoop(CanonicalPlant plant, FeedbackGains gains) {
-        return new LinearLoop(closedLoop(plant, gains),
-                new DMatrixRMaj(new double[][] {{0}, {plant.b() * gains.referenceGain()}}),
-                new DMatrixRMaj(new double[][] {{1, 0}}),
-                new DMatrixRMaj(new double[][] {{-gains.positionGain(), -gains.velocityGain()}}),
-                gains.referenceGain());
     }
 
     /** Closed-loop stiffness c0 = a0 + b k1 and damping c1 = a1 + b k2 of s^2 + c1 s + c0. */

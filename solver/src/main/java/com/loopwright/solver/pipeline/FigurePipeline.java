@@ -12,7 +12,6 @@ import com.loopwright.solver.robustness.UnstableLoopException;
 import com.loopwright.solver.simulation.LinearLoop;
 import com.loopwright.solver.simulation.StepResponse;
 import com.loopwright.solver.simulation.StepSimulator;
-import org.ejml.data.DMatrixRMaj;
 
 /**
  * The front door of the data a design's figures draw: the step and control series, the Bode response with its
@@ -39,13 +38,8 @@ public final class FigurePipeline {
     public StepSeries step(DesignReport report) {
         try {
             ClosedFormDesign d = report.design();
-            double b = d.plant().b();
-            LinearLoop loop = new LinearLoop(
-                    new DMatrixRMaj(new double[][] {{0, 1},
-                        {-d.plant().a0() - b * d.positionGain(), -d.plant().a1() - b * d.velocityGain()}}),
-                    new DMatrixRMaj(new double[][] {{0}, {b * d.referenceGain()}}),
-                    new DMatrixRMaj(new double[][] {{1, 0}}),
-                    new DMatrixRMaj(new double[][] {{-d.positionGain(), -d.velocityGain()}}), d.referenceGain());
+            LinearLoop loop = LinearLoop.ofStep(d.plant(),
+                    new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()));
             StepResponse step = simulator.simulate(loop, report.stepSize(), report.horizonSeconds(), PLOT_SAMPLES);
             return new StepSeries(step.timeSeconds(), step.output(), step.control());
         } catch (IllegalArgumentException e) {

@@ -1,5 +1,6 @@
 package com.loopwright.solver.robustness;
 
+import com.loopwright.solver.simulation.LinearLoop;
 import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.loop.FeedbackGains;
@@ -122,7 +123,7 @@ public final class RobustnessVerifier {
             throw new UnstableLoopException("the loop is too lightly damped to simulate: it needs " + (long) needed
                     + " samples, more than " + StepSimulator.MAX_SAMPLES);
         }
-        return stepMetrics.measure(LoopMatrices.stepLoop(plant, gains), stepSize, horizon,
+        return stepMetrics.measure(LinearLoop.ofStep(plant, gains), stepSize, horizon,
                 (int) Math.max(UncertaintyAnalyzer.BASE_GRID, needed), limits.bandFraction());
     }
 

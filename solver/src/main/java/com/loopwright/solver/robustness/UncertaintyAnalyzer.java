@@ -99,7 +99,7 @@ public final class UncertaintyAnalyzer {
             double needed = Math.ceil(horizon * LoopMatrices.fastestOscillation(plant, gains)
                     / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
             if (needed <= StepSimulator.MAX_SAMPLES) {
-                LinearLoop loop = LoopMatrices.stepLoop(plant, gains);
+                LinearLoop loop = LinearLoop.ofStep(plant, gains);
                 step = metrics.measure(loop, stepSize, horizon, (int) Math.max(BASE_GRID, needed),
                         limits.bandFraction());
             }

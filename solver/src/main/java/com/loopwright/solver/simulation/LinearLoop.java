@@ -1,5 +1,8 @@
 package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.plant.CanonicalPlant;
 import org.ejml.data.DMatrixRMaj;
 
 /**
@@ -17,6 +20,17 @@ public record LinearLoop(DMatrixRMaj a, DMatrixRMaj bRef, DMatrixRMaj cOut, DMat
 
     /** Largest state dimension: the block exponential of [[A, bRef], [0, 0]] is (n + 1) square. */
     public static final int MAX_STATE_DIMENSION = ZeroOrderHold.MAX_BLOCK_DIMENSION - 1;
+
+    /**
+     * The canonical plant under u = kr r - k1 x1 - k2 x2, seen from the reference: y = x1, u = -K x + kr r.
+     */
+    public static LinearLoop ofStep(CanonicalPlant plant, FeedbackGains gains) {
+        return new LinearLoop(LoopMatrices.closedLoop(plant, gains),
+                new DMatrixRMaj(new double[][] {{0}, {plant.b() * gains.referenceGain()}}),
+                new DMatrixRMaj(new double[][] {{1, 0}}),
+                new DMatrixRMaj(new double[][] {{-gains.positionGain(), -gains.velocityGain()}}),
+                gains.referenceGain());
+    }
 
     public LinearLoop {
         if (a == null) {

@@ -23,7 +23,7 @@ class DelayedSampledStepSimulatorTest {
 
     @Test
     void sampledMetricsConvergeToTheContinuousOnesAsTsShrinks() {
-        StepMetrics exact = new StepResponseMetrics().measure(LoopMatrices.stepLoop(IndexingAxis.PLANT,
+        StepMetrics exact = new StepResponseMetrics().measure(LinearLoop.ofStep(IndexingAxis.PLANT,
                 IndexingAxis.GAINS), 1, 0.45, 4000, 0.02);
         double previousError = Double.POSITIVE_INFINITY;
         for (double ts : new double[] {2e-3, 5e-4, 1.25e-4, 3e-5}) {

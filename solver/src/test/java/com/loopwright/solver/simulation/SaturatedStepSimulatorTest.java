@@ -16,7 +16,7 @@ class SaturatedStepSimulatorTest {
 
     private final SaturatedStepSimulator simulator = new SaturatedStepSimulator();
     private final StepMetrics exact = new StepResponseMetrics().measure(
-            LoopMatrices.stepLoop(IndexingAxis.PLANT, IndexingAxis.GAINS), 1, 0.45, 4000, 0.02);
+            LinearLoop.ofStep(IndexingAxis.PLANT, IndexingAxis.GAINS), 1, 0.45, 4000, 0.02);
 
     @Test
     void withoutActiveLimitTheGridMetricsMatchTheExactOnes() {
