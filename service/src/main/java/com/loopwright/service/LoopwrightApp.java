@@ -4,6 +4,7 @@ import static io.javalin.http.HandlerType.GET;
 import static io.javalin.http.HandlerType.POST;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.EndpointRunner;
 import com.loopwright.api.fit.FitEndpoint;
 import com.loopwright.api.highorder.HighOrderEndpoint;
@@ -41,6 +42,7 @@ import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HttpResponseException;
 import java.util.List;
+import java.util.function.Function;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
 import org.eclipse.jetty.server.AbstractConnector;
@@ -87,15 +89,9 @@ public final class LoopwrightApp {
                 outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
         EndpointRunner runner = new EndpointRunner(mapper);
-        FitEndpoint fit = new FitEndpoint();
-        HighOrderEndpoint highOrder = new HighOrderEndpoint();
-        VerificationEndpoint verification = new VerificationEndpoint();
-        JsonExchangeRoute fits = new JsonExchangeRoute(problems, pool,
-                fatal.guard((byte[] body) -> runner.run(fit, body)));
-        JsonExchangeRoute highOrderDesigns = new JsonExchangeRoute(problems, pool,
-                fatal.guard((byte[] body) -> runner.run(highOrder, body)));
-        JsonExchangeRoute verifications = new JsonExchangeRoute(problems, pool,
-                fatal.guard((byte[] body) -> runner.run(verification, body)));
+        // A JSON-to-JSON endpoint on the compute pool, its fatal errors guarded: one call per route-table row.
+        Function<Endpoint<?, ?, ?>, JsonExchangeRoute> json = endpoint -> new JsonExchangeRoute(problems, pool,
+                fatal.guard((byte[] body) -> runner.run(endpoint, body)));
         HealthRoute health = new HealthRoute();
         Takeaways takeaways = new Takeaways(runner);
         TakeawayRoute plots = new TakeawayRoute("figure", fatal.guard(takeaways::plot), problems, pool);
@@ -106,9 +102,9 @@ public final class LoopwrightApp {
         RouteTable table = new RouteTable(List.of(
                 Route.keyed(POST, "/v1/designs", design),
                 Route.keyed(POST, BatchRoute.PATH, batch),
-                Route.keyed(POST, "/v1/models/fit", fits),
-                Route.keyed(POST, "/v1/designs/high-order", highOrderDesigns),
-                Route.keyed(POST, "/v1/verifications", verifications),
+                Route.keyed(POST, "/v1/models/fit", json.apply(new FitEndpoint())),
+                Route.keyed(POST, "/v1/designs/high-order", json.apply(new HighOrderEndpoint())),
+                Route.keyed(POST, "/v1/verifications", json.apply(new VerificationEndpoint())),
                 Route.keyed(POST, TakeawayRoute.PLOTS_PATH, plots),
                 Route.keyed(POST, TakeawayRoute.CONTROLLERS_PATH, controllers),
                 Route.open(GET, ContractRoute.PATH, new ContractRoute()),
