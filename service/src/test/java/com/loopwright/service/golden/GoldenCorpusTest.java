@@ -58,6 +58,14 @@ class GoldenCorpusTest {
             ProblemType.UNSUPPORTED_PROTOCOL);
     /** Paths of the contract that the corpus does not replay: metrics change with every request. */
     private static final Set<String> NOT_REPLAYED = Set.of("/metrics");
+    /**
+     * Cases whose body is a file of the repository served byte for byte (the contract and the dashboard page): their
+     * expected body is that file as it stands, so that a change of the file itself (a new contract section, a new
+     * field on the page) needs no new recording; status and Content-Type are still compared with the recording.
+     */
+    private static final Map<String, Path> SERVED_FILES = Map.of(
+            "get-contract", Path.of("..", "openapi.yaml"),
+            "get-dashboard", Path.of("src", "main", "resources", "dashboard", "index.html"));
     private static final ObjectMapper JSON = new ObjectMapper();
 
     private static Javalin open;
@@ -91,6 +99,10 @@ class GoldenCorpusTest {
         List<String> mismatches = new ArrayList<>();
         for (GoldenCase c : cases) {
             Recorded expected = Recorded.parse(Files.readAllBytes(RESPONSES.resolve(c.id() + ".txt")));
+            if (SERVED_FILES.containsKey(c.id())) {
+                expected = new Recorded(expected.status(), expected.contentType(),
+                        Files.readAllBytes(SERVED_FILES.get(c.id())));
+            }
             Recorded actual = send(c);
             String difference = expected.difference(actual);
             if (difference != null) {
