@@ -1,9 +1,9 @@
 package com.loopwright.api.plot;
 
+import com.loopwright.solver.design.LoopMargins;
 import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.StepSeries;
-import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.Locale;

@@ -1,12 +1,12 @@
 package com.loopwright.api.robustness;
 
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.LoopMargins;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.DisturbanceProfile;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.simulation.DenseTrajectory;
 import com.loopwright.solver.robustness.DisturbanceCheck;
-import com.loopwright.solver.simulation.DisturbanceProfile;
-import com.loopwright.solver.simulation.GridMetrics;
-import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.MetricSummary;
 import com.loopwright.solver.robustness.RobustnessReport;
 import com.loopwright.solver.robustness.UncertainCase;

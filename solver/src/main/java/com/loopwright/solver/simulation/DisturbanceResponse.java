@@ -1,5 +1,7 @@
 package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.design.DenseTrajectory;
+
 /**
  * The loop's response (r = 0) to one disturbance profile.
  *

@@ -1,6 +1,6 @@
 package com.loopwright.solver.verify;
 
-import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.List;

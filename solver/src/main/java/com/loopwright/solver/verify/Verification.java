@@ -1,8 +1,8 @@
 package com.loopwright.solver.verify;
 
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.norm.HInfinityNorm;
 import com.loopwright.solver.riccati.RiccatiSolution;
-import com.loopwright.solver.simulation.StepMetrics;
 import java.util.List;
 
 /**
