@@ -1,6 +1,7 @@
 package com.loopwright.solver.simulation;
 
 import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.DisturbanceResponse;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.linalg.MatrixExponential;
 import com.loopwright.solver.loop.LoopMatrices;

@@ -2,6 +2,7 @@ package com.loopwright.solver.verify;
 
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.design.Verification;
 import com.loopwright.solver.norm.HInfinityNorm;
 import com.loopwright.solver.norm.TwoStatePeakGain;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;

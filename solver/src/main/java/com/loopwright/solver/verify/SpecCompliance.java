@@ -1,5 +1,6 @@
 package com.loopwright.solver.verify;
 
+import com.loopwright.solver.design.SpecCheck;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TimeSpec;

@@ -1,6 +1,6 @@
-package com.loopwright.solver.simulation;
+package com.loopwright.solver.design;
 
-import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.simulation.DisturbanceSimulator;
 
 /**
  * The loop's response (r = 0) to one disturbance profile.
