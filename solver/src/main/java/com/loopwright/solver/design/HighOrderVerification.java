@@ -1,7 +1,5 @@
 package com.loopwright.solver.design;
 
-import com.loopwright.solver.norm.HInfinityNorm;
-import com.loopwright.solver.riccati.RiccatiSolution;
 
 /**
  * Independent checks of a high-order design.

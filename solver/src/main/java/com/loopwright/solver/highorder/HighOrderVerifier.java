@@ -1,13 +1,13 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.HInfinityNorm;
 import com.loopwright.solver.design.HighOrderDesign;
 import com.loopwright.solver.design.HighOrderStep;
 import com.loopwright.solver.design.HighOrderVerification;
-import com.loopwright.solver.norm.HInfinityNorm;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.verify.DesignVerifier;
 import com.loopwright.solver.verify.VerificationFailedException;
 import org.ejml.data.DMatrixRMaj;

@@ -1,9 +1,9 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.design.Verification;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.SpecInversion;
 

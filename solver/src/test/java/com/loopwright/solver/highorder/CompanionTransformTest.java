@@ -4,8 +4,8 @@ import static org.junit.jupiter.api.Assertions.*;
 
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.Random;

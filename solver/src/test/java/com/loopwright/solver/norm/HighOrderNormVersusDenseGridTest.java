@@ -3,6 +3,7 @@ package com.loopwright.solver.norm;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.HInfinityNorm;
 import com.loopwright.solver.design.HighOrderDesign;
 import com.loopwright.solver.design.SpecMatch;
 import com.loopwright.solver.highorder.HighOrderDesigner;

@@ -5,8 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.design.DisturbanceResponse;
+import com.loopwright.solver.design.HInfinityNorm;
 import com.loopwright.solver.loop.LoopMatrices;
-import com.loopwright.solver.norm.HInfinityNorm;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.DisturbanceProfile;
 import com.loopwright.solver.robustness.IndexingAxis;
