@@ -7,5 +7,3 @@
  * the simulation and every exported text use.
  */
 package com.loopwright.solver.export;
-
-import com.loopwright.solver.design.SampledLaw;
