@@ -1,7 +1,7 @@
 package com.loopwright.bench;
 
 import com.loopwright.solver.design.ClosedFormDesign;
-import com.loopwright.solver.norm.HInfinityNorm;
+import com.loopwright.solver.design.HInfinityNorm;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.norm.TwoStatePeakGain;
 import java.util.concurrent.TimeUnit;

@@ -1,8 +1,8 @@
 package com.loopwright.bench;
 
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
 import com.loopwright.solver.riccati.RiccatiResidual;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import java.util.concurrent.TimeUnit;
 import org.ejml.data.DMatrixRMaj;
 import org.hipparchus.linear.RealMatrix;

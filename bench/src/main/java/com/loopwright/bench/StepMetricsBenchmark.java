@@ -1,7 +1,7 @@
 package com.loopwright.bench;
 
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;

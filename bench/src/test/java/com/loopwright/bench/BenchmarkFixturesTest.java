@@ -7,7 +7,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.StrictJson;
-import com.loopwright.solver.norm.HInfinityNorm;
+import com.loopwright.solver.design.HInfinityNorm;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.spec.TargetDynamics;
 import org.junit.jupiter.api.Test;

@@ -1,17 +1,14 @@
 package com.loopwright.api.design;
 
-import com.loopwright.api.validation.Checks;
-import com.loopwright.api.plant.PlantInput;
-import com.loopwright.api.plant.PlantInputValidator;
-import com.loopwright.api.plant.ResolvedPlant;
-import com.loopwright.api.validation.InvalidRequestException;
-import com.loopwright.api.validation.SpecInput;
 import static com.loopwright.api.validation.FieldLimits.*;
 
 import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.plant.PlantInputValidator;
 import com.loopwright.api.plant.ResolvedPlant;
 import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.validation.Checks;
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.validation.SpecInput;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TimeSpec;
@@ -25,7 +22,8 @@ public final class DesignRequestValidator {
 
     /**
      * @throws InvalidRequestException            for missing, malformed or out-of-range fields (400)
-     * @throws com.loopwright.solver.plant.PlantParameterException for a non-physical plant description (422)
+     * @throws com.loopwright.solver.plant.PlantParameterException for a non-physical plant description (422); a
+     *                                    description the api refuses itself raises a SolverFailure PLANT_MODEL
      */
     public ValidatedDesign validate(DesignRequest request) {
         List<FieldError> errors = new ArrayList<>();

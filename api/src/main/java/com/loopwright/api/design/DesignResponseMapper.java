@@ -2,7 +2,10 @@ package com.loopwright.api.design;
 
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.GammaCondition;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.design.Verification;
 import com.loopwright.solver.pipeline.DesignReport;
+import com.loopwright.solver.pipeline.NumericRiccati;
 import com.loopwright.solver.pipeline.StateSpaceDesign;
 import com.loopwright.solver.spec.SpecInversion;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -21,10 +24,10 @@ public final class DesignResponseMapper {
     public DesignResponse toResponse(ValidatedDesign request, DesignReport report, StateSpaceDesign callerCoordinates,
                                      com.loopwright.api.robustness.RobustnessResponse robustness) {
         ClosedFormDesign design = report.design();
-        var verification = report.verification();
+        Verification verification = report.verification();
         TargetDynamics target = design.target();
-        var numeric = verification.numeric();
-        var metrics = verification.metrics();
+        NumericRiccati numeric = report.numericRiccati();
+        StepMetrics metrics = report.stepMetrics();
         String timeSpecName = request.timeSpecPointer().substring("/spec/".length());
         return new DesignResponse(
                 new DesignResponse.Plant(design.plant().a0(), design.plant().a1(), design.plant().b(),
@@ -35,9 +38,8 @@ public final class DesignResponseMapper {
                         List.of("overshootPercent", timeSpecName)),
                 new DesignResponse.Riccati(design.p11(), design.p12(), design.p22(),
                         verification.closedFormResidual(),
-                        new DesignResponse.NumericRiccati(numeric.p().get(0, 0), numeric.p().get(0, 1),
-                                numeric.p().get(1, 1), numeric.relativeResidual(),
-                                verification.relativeDifference(), numeric.iterations())),
+                        new DesignResponse.NumericRiccati(numeric.p11(), numeric.p12(), numeric.p22(),
+                                numeric.relativeResidual(), numeric.relativeDifference(), numeric.iterations())),
                 gammaBounds(design),
                 design.gammaMin(),
                 design.gamma(),

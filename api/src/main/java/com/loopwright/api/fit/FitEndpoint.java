@@ -4,8 +4,8 @@ import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
-import com.loopwright.solver.fit.StepFit;
 import com.loopwright.solver.pipeline.FitPipeline;
+import com.loopwright.solver.plant.StepFit;
 import java.util.List;
 
 /** POST /v1/models/fit: a plant model fitted to a recorded step test. Stateless and thread-safe. */

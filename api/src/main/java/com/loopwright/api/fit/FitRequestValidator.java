@@ -1,12 +1,12 @@
 package com.loopwright.api.fit;
 
-import com.loopwright.api.validation.Checks;
-import com.loopwright.api.validation.InvalidRequestException;
 import static com.loopwright.api.fit.FitLimits.*;
 
 import com.loopwright.api.problem.FieldError;
-import com.loopwright.solver.fit.FitOptions;
-import com.loopwright.solver.fit.StepTestData;
+import com.loopwright.api.validation.Checks;
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.solver.plant.FitOptions;
+import com.loopwright.solver.plant.StepTestData;
 import java.util.ArrayList;
 import java.util.List;
 

@@ -2,9 +2,9 @@ package com.loopwright.api.fit;
 
 import com.loopwright.api.design.Cautions;
 import com.loopwright.api.plant.PlantFormName;
-import com.loopwright.solver.fit.FitWarning;
-import com.loopwright.solver.fit.FittedParameter;
-import com.loopwright.solver.fit.StepFit;
+import com.loopwright.solver.plant.FitWarning;
+import com.loopwright.solver.plant.FittedParameter;
+import com.loopwright.solver.plant.StepFit;
 import java.util.ArrayList;
 import java.util.List;
 

@@ -1,7 +1,7 @@
 package com.loopwright.api.fit;
 
-import com.loopwright.solver.fit.FitOptions;
-import com.loopwright.solver.fit.StepTestData;
+import com.loopwright.solver.plant.FitOptions;
+import com.loopwright.solver.plant.StepTestData;
 import java.util.List;
 
 /**

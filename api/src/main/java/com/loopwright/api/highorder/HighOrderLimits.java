@@ -1,7 +1,7 @@
 package com.loopwright.api.highorder;
 
-import com.loopwright.solver.highorder.CompanionPlant;
-import com.loopwright.solver.highorder.DesiredPoles;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.DesiredPoles;
 
 /** Documented ranges of the high-order request (openapi.yaml states the same numbers; a test holds them together). */
 public final class HighOrderLimits {

@@ -1,20 +1,20 @@
 package com.loopwright.api.highorder;
 
-import com.loopwright.api.validation.Checks;
-import com.loopwright.api.validation.InvalidRequestException;
-import static com.loopwright.api.validation.FieldLimits.*;
 import static com.loopwright.api.highorder.HighOrderLimits.*;
+import static com.loopwright.api.validation.FieldLimits.*;
 
-import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.highorder.HighOrderDesignRequest.AuxiliaryPolesInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.HighOrderPlantInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.HighOrderSpecInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.PoleInput;
+import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.validation.Checks;
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.design.GammaChoice;
-import com.loopwright.solver.highorder.AuxiliaryPlacement;
-import com.loopwright.solver.highorder.CompanionPlant;
-import com.loopwright.solver.highorder.DesiredPoles;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;

@@ -2,15 +2,14 @@ package com.loopwright.api.highorder;
 
 import com.loopwright.api.design.Cautions;
 import com.loopwright.api.design.DesignResponse;
-import com.loopwright.solver.highorder.ClosedLoopStep;
-import com.loopwright.solver.highorder.CompanionTransform;
-import com.loopwright.solver.highorder.GammaInterval;
-import com.loopwright.solver.highorder.HighOrderDesign;
 import com.loopwright.solver.design.GammaBound;
-import com.loopwright.solver.highorder.HighOrderVerification;
-import com.loopwright.solver.highorder.SpecMatch;
-import com.loopwright.solver.plant.TwoStateModel;
+import com.loopwright.solver.design.GammaInterval;
+import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.HighOrderStep;
+import com.loopwright.solver.design.HighOrderVerification;
+import com.loopwright.solver.design.SpecMatch;
 import com.loopwright.solver.pipeline.HighOrderPipeline;
+import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -26,7 +25,7 @@ public final class HighOrderResponseMapper {
 
     /** Formats the design, its verification and the spec check the solver computed (HighOrderPipeline). */
     public HighOrderDesignResponse toResponse(HighOrderPipeline.Result result) {
-        CompanionTransform.Result transform = result.transform();
+        boolean fromStateSpace = result.fromStateSpace();
         SpecMatch match = result.match();
         HighOrderDesign design = result.design();
         HighOrderVerification verification = result.verification();
@@ -35,12 +34,12 @@ public final class HighOrderResponseMapper {
         List<List<Double>> rows = rows(design.solution().p());
         Double controllabilityCondition = result.controllabilityCondition();
         HighOrderDesignResponse.Coordinates coordinates = new HighOrderDesignResponse.Coordinates(
-                transform == null ? "companion" : "stateSpace", boxed(design.plant().denominator()),
+                fromStateSpace ? "stateSpace" : "companion", boxed(design.plant().denominator()),
                 boxed(design.plant().numerator()), design.plant().b(), boxed(design.plant().disturbance()),
                 rows(result.toPlant()), boxed(result.plantGain()), controllabilityCondition);
         List<HighOrderDesignResponse.Bound> bounds = design.gammaBounds().stream()
                 .map(HighOrderResponseMapper::bound).toList();
-        ClosedLoopStep.Result step = verification.step();
+        HighOrderStep step = verification.step();
         boolean specsMet = result.specCheck().met();
         HighOrderDesignResponse.SpecMatching matching = match == null
                 ? new HighOrderDesignResponse.SpecMatching(false, 0, result.specCheck().settlingResidual(),
@@ -57,7 +56,7 @@ public final class HighOrderResponseMapper {
                     + " send matchSpecs: true to adjust the dominant pair until the simulated loop meets the specs.");
         }
         design.notes().stream().limit(MAX_DESIGN_NOTES).forEach(notes::add);
-        if (transform != null) {
+        if (fromStateSpace) {
             notes.add("the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
                     + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain on x.");
             if (controllabilityCondition > TwoStateModel.CONDITION_NOTE_THRESHOLD) {

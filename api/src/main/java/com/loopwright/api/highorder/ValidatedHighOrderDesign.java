@@ -1,8 +1,8 @@
 package com.loopwright.api.highorder;
 
 import com.loopwright.solver.design.GammaChoice;
-import com.loopwright.solver.highorder.AuxiliaryPlacement;
-import com.loopwright.solver.highorder.CompanionPlant;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
 
 /** A high-order request that passed validation, in solver types. */

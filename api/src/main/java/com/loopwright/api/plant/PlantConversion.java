@@ -1,6 +1,5 @@
 package com.loopwright.api.plant;
 
-import com.loopwright.api.validation.Checks;
 import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A0;
 import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A1;
 import static com.loopwright.api.validation.FieldLimits.MAX_ABS_B;
@@ -9,6 +8,8 @@ import static com.loopwright.api.validation.FieldLimits.MAX_ABS_PHYSICAL;
 import static com.loopwright.api.validation.FieldLimits.MIN_ABS_B;
 
 import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.validation.Checks;
+import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.PlantForm;
 import com.loopwright.solver.plant.PlantParameterException;
@@ -45,7 +46,7 @@ final class PlantConversion {
                     || f.startsWith(named + "/"))) {
                 throw e; // a field of this description, already named (a negative mass, an uncontrollable B2)
             }
-            throw new PlantParameterException(drivingField(fields), e.getMessage() + "; rescale the units (for"
+            throw plantModel(drivingField(fields), e.getMessage() + "; rescale the units (for"
                     + " example mm instead of m, or g cm^2 instead of kg m^2)");
         }
         List<String> outside = new ArrayList<>();
@@ -62,12 +63,20 @@ final class PlantConversion {
             outside.add("d");
         }
         if (!outside.isEmpty()) {
-            throw new PlantParameterException(drivingField(fields), String.format("the derived canonical"
+            throw plantModel(drivingField(fields), String.format("the derived canonical"
                     + " coefficients (a0 = %.6g, a1 = %.6g, b = %.6g, d = %.6g) put %s outside the ranges the design"
                     + " supports; rescale the units (for example mm instead of m, or g cm^2 instead of kg m^2)",
                     plant.a0(), plant.a1(), plant.b(), plant.d(), String.join(", ", outside)));
         }
         return new ResolvedPlant(form, plant, source, assumptions, notation);
+    }
+
+    /**
+     * The refusal of a well-formed but unusable plant description at one of its fields (422 plant-model-unusable),
+     * raised as the front door's own failure: the api constructs no solver exception.
+     */
+    static SolverFailure plantModel(String field, String reason) {
+        return SolverFailure.about(SolverFailure.Kind.PLANT_MODEL, field, -1, reason, null);
     }
 
     /** The non-zero field farthest from 1 in orders of magnitude (|log10 |v||), or "" when there is none. */

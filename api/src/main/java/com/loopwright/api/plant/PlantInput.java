@@ -23,7 +23,8 @@ public sealed interface PlantInput permits CanonicalPlantInput, RotaryAxisInput,
      * Validates this description and converts it to the canonical coefficients. Adds 400-class errors (pointers
      * below /plant) to {@code errors} and returns null when it added any.
      *
-     * @throws com.loopwright.solver.plant.PlantParameterException for a non-physical or unusable description (422)
+     * @throws com.loopwright.solver.plant.PlantParameterException for a non-physical description (422)
+     * @throws com.loopwright.solver.pipeline.SolverFailure PLANT_MODEL for a description the api refuses (422)
      */
     ResolvedPlant resolve(List<FieldError> errors);
 }

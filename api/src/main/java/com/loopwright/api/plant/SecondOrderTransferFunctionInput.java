@@ -7,7 +7,6 @@ import static com.loopwright.api.validation.FieldLimits.MAX_NUMERATOR_COEFFICIEN
 import com.fasterxml.jackson.databind.JsonDeserializer;
 import com.fasterxml.jackson.databind.annotation.JsonDeserialize;
 import com.loopwright.api.problem.FieldError;
-import com.loopwright.solver.plant.PlantParameterException;
 import com.loopwright.solver.plant.SecondOrderTransferFunction;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -76,7 +75,7 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
             first++;
         }
         if (checkedNumerator.size() - first > 1) {
-            throw new PlantParameterException("numerator", "the numerator has a zero (it is not a constant);"
+            throw PlantConversion.plantModel("numerator", "the numerator has a zero (it is not a constant);"
                     + " the canonical second-order form has no zeros, so this transfer function cannot be used");
         }
         double n = checkedNumerator.get(first);

@@ -5,7 +5,7 @@ import static com.loopwright.api.plant.PlantConversion.vector;
 import com.fasterxml.jackson.databind.JsonDeserializer;
 import com.fasterxml.jackson.databind.annotation.JsonDeserialize;
 import com.loopwright.api.problem.FieldError;
-import com.loopwright.solver.plant.TwoStateModel;
+import com.loopwright.solver.pipeline.DesignPipeline;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -58,7 +58,7 @@ public record StateSpaceInput(List<List<Double>> a, List<Double> b2, List<Double
         PlantConversion.putAll(fields, "a/1", List.of(matrix[1][0], matrix[1][1]));
         PlantConversion.putAll(fields, "b2", actuator);
         PlantConversion.putAll(fields, "b1", disturbance);
-        return PlantConversion.converted(PlantFormName.STATE_SPACE, NOTATION, () -> new TwoStateModel(matrix,
+        return PlantConversion.converted(PlantFormName.STATE_SPACE, NOTATION, () -> DesignPipeline.stateSpacePlant(matrix,
                 new double[] {actuator.get(0), actuator.get(1)}, new double[] {disturbance.get(0),
                         disturbance.get(1)}), fields, assumptions);
     }

@@ -1,9 +1,10 @@
 package com.loopwright.api.plot;
 
+import com.loopwright.solver.design.LoopMargins;
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.StepSeries;
-import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.StepEnvelope;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.Locale;
@@ -80,7 +81,7 @@ public final class DesignFigures {
 
     /** The step the solver simulated (FigurePipeline#step), with the spec envelope and the measured metrics. */
     public String stepResponse(DesignReport report, StepSeries step) {
-        var metrics = report.verification().metrics();
+        StepMetrics metrics = report.stepMetrics();
         double r = report.stepSize();
         double[] y = step.output();
         StringBuilder svg = open(1, "Step response: position x1 after a setpoint step of " + format(r));
@@ -120,7 +121,7 @@ public final class DesignFigures {
             panel.horizontal("limit", -limit, "actuator limit -" + format(limit));
         }
         panel.polyline("series", step.timeSeconds(), u);
-        double peak = report.verification().metrics().peakControl();
+        double peak = report.stepMetrics().peakControl();
         panel.marker("point", 0, u[0], "peak |u| " + format(peak));
         legend(svg, "u(t) = kr r - (k1 x1 + k2 x2)", commandLimit.isPresent() ? "limit" : null,
                 "actuator limit");

@@ -1,14 +1,18 @@
 package com.loopwright.api.robustness;
 
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.DisturbanceResponse;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.LoopMargins;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.DisturbanceProfile;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.simulation.DenseTrajectory;
+import com.loopwright.solver.robustness.DelayReport;
 import com.loopwright.solver.robustness.DisturbanceCheck;
-import com.loopwright.solver.simulation.DisturbanceProfile;
-import com.loopwright.solver.simulation.GridMetrics;
-import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.MetricSummary;
 import com.loopwright.solver.robustness.RobustnessReport;
+import com.loopwright.solver.robustness.SampledReport;
+import com.loopwright.solver.robustness.SaturationReport;
 import com.loopwright.solver.robustness.UncertainCase;
 import com.loopwright.solver.robustness.UncertaintyReport;
 import com.loopwright.solver.robustness.Verdict;
@@ -53,7 +57,7 @@ public final class RobustnessResponseMapper {
         }
         List<RobustnessResponse.DisturbanceResult> disturbances = new ArrayList<>();
         for (DisturbanceCheck c : report.disturbances()) {
-            var r = c.response();
+            DisturbanceResponse r = c.response();
             disturbances.add(new RobustnessResponse.DisturbanceResult(shape(c.profile()), amplitude(c.profile()),
                     r.peakDeviation(), r.integralAbsoluteError(), r.integralSquaredError(), r.recoverySeconds(),
                     r.peakControl(), r.disturbanceEnergy(), r.outputEnergy(), r.observedGain(), c.withinNorm(),
@@ -67,7 +71,7 @@ public final class RobustnessResponseMapper {
         }
         RobustnessResponse.Saturation saturation = null;
         if (report.saturation() != null) {
-            var s = report.saturation();
+            SaturationReport s = report.saturation();
             saturation = new RobustnessResponse.Saturation(s.limit(), s.unsaturatedPeakControl(), s.saturates(),
                     s.largestUnsaturatedStep(), s.diverged(), s.metrics() == null ? null : metrics(s.metrics()),
                     wire(s.meetsSpec()));
@@ -77,7 +81,7 @@ public final class RobustnessResponseMapper {
         }
         RobustnessResponse.Sampled sampled = null;
         if (report.sampled() != null) {
-            var s = report.sampled();
+            SampledReport s = report.sampled();
             sampled = new RobustnessResponse.Sampled(s.samplePeriodSeconds(), s.spectralRadius(),
                     s.emulated() == null ? null : metrics(s.emulated()), wire(s.emulatedMeetsSpec()),
                     s.directGains() == null ? null : new RobustnessResponse.GainView(s.directGains().positionGain(),
@@ -89,7 +93,7 @@ public final class RobustnessResponseMapper {
         }
         RobustnessResponse.Delay delay = null;
         if (report.delay() != null) {
-            var d = report.delay();
+            DelayReport d = report.delay();
             delay = new RobustnessResponse.Delay(d.delaySeconds(), d.samplePeriodSeconds(), d.delayMarginSeconds(),
                     wire(d.withinMargin()), d.diverges(), d.metrics() == null ? null : metrics(d.metrics()),
                     wire(d.meetsSpec()));

@@ -1,6 +1,5 @@
 package com.loopwright.api.robustness;
 
-import com.loopwright.api.validation.Checks;
 import static com.loopwright.api.robustness.VerifyLimits.DEFAULT_SEED;
 import static com.loopwright.api.robustness.VerifyLimits.DEFAULT_TOLERANCE_PERCENT;
 import static com.loopwright.api.robustness.VerifyLimits.MAX_ABS_AMPLITUDE;
@@ -17,8 +16,9 @@ import static com.loopwright.api.robustness.VerifyLimits.MIN_SAMPLE_PERIOD;
 import static com.loopwright.api.robustness.VerifyLimits.MIN_TIME_SERIES_POINTS;
 
 import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.validation.Checks;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.DisturbanceProfile;
+import com.loopwright.solver.plant.DisturbanceProfile;
 import com.loopwright.solver.robustness.ParameterBox;
 import com.loopwright.solver.robustness.RobustnessOptions;
 import java.util.ArrayList;

@@ -2,20 +2,24 @@ package com.loopwright.api.takeaway;
 
 import com.loopwright.api.design.Cautions;
 import com.loopwright.api.design.ValidatedDesign;
-import com.loopwright.api.validation.FieldLimits;
-import com.loopwright.api.robustness.RobustnessResponse;
-import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.endpoint.FailureTable;
 import com.loopwright.api.endpoint.Text;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
+import com.loopwright.api.robustness.RobustnessResponse;
+import com.loopwright.api.validation.FieldLimits;
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.SampledLaw;
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.pipeline.ControllerExport;
 import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.ExportPipeline;
-import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
 import java.util.List;
@@ -112,8 +116,8 @@ final class ControllerEndpoint
 
     private static ControllerParameters parameters(ControllerExport export) {
         DesignReport report = export.design();
-        var law = export.law();
-        var continuous = report.verification().metrics();
+        SampledLaw law = export.law();
+        StepMetrics continuous = report.stepMetrics();
         return new ControllerParameters(
                 "u = clamp(kr*r - (k1*x1 + k2*x2), -commandLimit, commandLimit), evaluated once per sample period"
                         + " and held until the next", "emulation", law.samplePeriodSeconds(), law.positionGain(),
@@ -128,11 +132,11 @@ final class ControllerEndpoint
     /** The header's lines: the plant, the specs, the target, the continuous and the sampled step. */
     private static List<String> headerLines(Validated validated, ControllerExport export) {
         DesignReport report = export.design();
-        var law = export.law();
+        SampledLaw law = export.law();
         Optional<GridMetrics> sampledStep = export.sampledStep();
-        var p = validated.design().plant();
-        var target = report.design().target();
-        var metrics = report.verification().metrics();
+        CanonicalPlant p = validated.design().plant();
+        TargetDynamics target = report.design().target();
+        StepMetrics metrics = report.stepMetrics();
         String time = report.spec().timeSpec() instanceof TimeSpec.SettlingTime s
                 ? String.format(Locale.ROOT, "settling time %.6g s (%.3g%% band)", s.seconds(), 100 * s.bandFraction())
                 : String.format(Locale.ROOT, "rise time (10-90%%) %.6g s",

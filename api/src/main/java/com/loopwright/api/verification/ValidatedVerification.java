@@ -1,9 +1,9 @@
 package com.loopwright.api.verification;
 
 import com.loopwright.api.robustness.ValidatedVerify;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.loop.FeedbackGains;
 
 /**
  * A verification request after validation.

@@ -1,13 +1,7 @@
 package com.loopwright.api.verification;
 
-import com.loopwright.api.plant.CanonicalPlantInput;
-import com.loopwright.api.validation.Checks;
-import com.loopwright.api.robustness.ValidatedVerify;
-import com.loopwright.api.robustness.VerifyInput;
-import com.loopwright.api.robustness.VerifyInputValidator;
-import com.loopwright.api.robustness.VerifyLimits;
-import com.loopwright.api.validation.InvalidRequestException;
-import com.loopwright.api.validation.SpecInput;
+import static com.loopwright.api.robustness.VerifyLimits.MAX_ABS_GAIN;
+import static com.loopwright.api.robustness.VerifyLimits.MAX_WEIGHT;
 import static com.loopwright.api.validation.FieldLimits.DEFAULT_BAND_PERCENT;
 import static com.loopwright.api.validation.FieldLimits.DEFAULT_STEP;
 import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A0;
@@ -23,14 +17,19 @@ import static com.loopwright.api.validation.FieldLimits.MIN_ABS_B;
 import static com.loopwright.api.validation.FieldLimits.MIN_BAND_PERCENT;
 import static com.loopwright.api.validation.FieldLimits.MIN_OVERSHOOT_PERCENT;
 import static com.loopwright.api.validation.FieldLimits.MIN_TIME_SECONDS;
-import static com.loopwright.api.robustness.VerifyLimits.MAX_ABS_GAIN;
-import static com.loopwright.api.robustness.VerifyLimits.MAX_WEIGHT;
 
 import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.robustness.ValidatedVerify;
+import com.loopwright.api.robustness.VerifyInput;
+import com.loopwright.api.robustness.VerifyInputValidator;
+import com.loopwright.api.robustness.VerifyLimits;
+import com.loopwright.api.validation.Checks;
+import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.validation.SpecInput;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
-import com.loopwright.solver.loop.FeedbackGains;
 import java.util.ArrayList;
 import java.util.List;
 

@@ -1,5 +1,7 @@
 package com.loopwright.solver.export;
 
+import com.loopwright.solver.design.SampledLaw;
+
 /**
  * The sampled law as one C99 function with the gains as constants: call it once per sample period.
  * Compiles warning-free with {@code -std=c99 -Wall -Wextra}; needs no library.

@@ -1,5 +1,6 @@
 package com.loopwright.solver.export;
 
+import com.loopwright.solver.design.SampledLaw;
 import java.util.ArrayList;
 import java.util.List;
 

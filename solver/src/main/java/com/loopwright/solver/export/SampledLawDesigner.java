@@ -1,6 +1,7 @@
 package com.loopwright.solver.export;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.SampledLaw;
 import com.loopwright.solver.numeric.SafeRounding;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;

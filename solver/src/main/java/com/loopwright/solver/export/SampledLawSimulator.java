@@ -1,5 +1,6 @@
 package com.loopwright.solver.export;
 
+import com.loopwright.solver.design.SampledLaw;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
 import org.ejml.data.DMatrixRMaj;

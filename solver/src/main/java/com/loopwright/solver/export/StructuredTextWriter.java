@@ -1,5 +1,7 @@
 package com.loopwright.solver.export;
 
+import com.loopwright.solver.design.SampledLaw;
+
 /**
  * The sampled law as an IEC 61131-3 Structured Text function block: setpoint and measured position and
  * velocity in, clamped command and a saturation flag out; gains as constants. Call it once per sample period

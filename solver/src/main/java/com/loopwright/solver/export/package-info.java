@@ -3,7 +3,7 @@
  * sampled plant ({@link com.loopwright.solver.export.SampledLawSimulator}) and its text as IEC 61131-3 Structured
  * Text, C and a parameter set.
  *
- * <p>Invariant: one {@link com.loopwright.solver.export.SampledLaw} record carries the gains, clamp and period that
+ * <p>Invariant: one {@link com.loopwright.solver.design.SampledLaw} record carries the gains, clamp and period that
  * the simulation and every exported text use.
  */
 package com.loopwright.solver.export;

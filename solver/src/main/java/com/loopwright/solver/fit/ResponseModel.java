@@ -1,6 +1,8 @@
 package com.loopwright.solver.fit;
 
 import com.loopwright.solver.cancel.Cancellation;
+import com.loopwright.solver.plant.FitOptions;
+import com.loopwright.solver.plant.StepTestData;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;

@@ -1,5 +1,10 @@
 package com.loopwright.solver.fit;
 
+import com.loopwright.solver.plant.FitOptions;
+import com.loopwright.solver.plant.FitWarning;
+import com.loopwright.solver.plant.FittedParameter;
+import com.loopwright.solver.plant.StepFit;
+import com.loopwright.solver.plant.StepTestData;
 import com.loopwright.solver.spec.NormalizedSettlingTime;
 import java.util.ArrayList;
 import java.util.Comparator;

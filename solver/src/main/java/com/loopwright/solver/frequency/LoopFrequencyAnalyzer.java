@@ -1,6 +1,8 @@
 package com.loopwright.solver.frequency;
 
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.FrequencyPoint;
+import com.loopwright.solver.design.LoopMargins;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import java.util.ArrayList;

@@ -1,9 +1,12 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.HighOrderStep;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import com.loopwright.solver.simulation.StepSimulator;
+import com.loopwright.solver.spec.DesiredPoles;
 import java.util.List;
 import org.ejml.data.DMatrixRMaj;
 
@@ -22,17 +25,6 @@ public final class ClosedLoopStep {
 
     private final StepResponseMetrics metrics = new StepResponseMetrics();
 
-    /**
-     * Metrics and sampled undershoot (largest excursion opposite to the final value, percent of it).
-     *
-     * @param metrics          rise, settling, overshoot, peak control
-     * @param undershootPercent 100 max(0, -min y/y_inf), refined between samples (StepMetrics)
-     * @param horizonSeconds   simulated window
-     * @param samples          samples on it
-     */
-    public record Result(StepMetrics metrics, double undershootPercent, double horizonSeconds, int samples) {
-    }
-
     public static LinearLoop loop(CompanionPlant plant, double[] desired) {
         int n = plant.order();
         double[] a = plant.denominator();
@@ -48,7 +40,7 @@ public final class ClosedLoopStep {
         return new LinearLoop(closed, bRef, plant.outputRow(), control, kr);
     }
 
-    public Result simulate(CompanionPlant plant, DesiredPoles poles, double stepSize, double bandFraction,
+    public HighOrderStep simulate(CompanionPlant plant, DesiredPoles poles, double stepSize, double bandFraction,
                            double minimumHorizonSeconds) {
         List<com.loopwright.solver.spec.TargetDynamics.Pole> all = poles.all();
         double slowest = Double.POSITIVE_INFINITY;
@@ -62,6 +54,6 @@ public final class ClosedLoopStep {
         int samples = (int) Math.min(StepSimulator.MAX_SAMPLES, Math.max(MIN_SAMPLES, wanted));
         LinearLoop loop = loop(plant, poles.coefficients());
         StepMetrics m = metrics.measure(loop, stepSize, horizon, samples, bandFraction);
-        return new Result(m, m.undershootPercent(), horizon, samples);
+        return new HighOrderStep(m, m.undershootPercent(), horizon, samples);
     }
 }

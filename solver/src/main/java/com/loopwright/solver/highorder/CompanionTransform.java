@@ -1,5 +1,6 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.plant.CompanionPlant;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.ejml.dense.row.SingularOps_DDRM;

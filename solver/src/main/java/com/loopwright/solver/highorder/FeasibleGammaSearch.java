@@ -1,9 +1,12 @@
 package com.loopwright.solver.highorder;
 
 import com.loopwright.solver.design.GammaCondition;
+import com.loopwright.solver.design.GammaInterval;
+import com.loopwright.solver.design.PoleMatchedSolution;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.verify.DesignVerifier;
 import java.util.ArrayList;
 import java.util.Comparator;
@@ -81,7 +84,7 @@ public final class FeasibleGammaSearch {
     private final HInfinityNormCalculator normCalculator = new HInfinityNormCalculator();
 
     /** One point of a branch with its requirement margins (entries as in {@link #margins}). */
-    record Point(double mu, PoleMatchedRiccati.Solution solution, double[] margins) {
+    record Point(double mu, PoleMatchedSolution solution, double[] margins) {
         Point {
             margins = margins.clone();
         }
@@ -168,7 +171,7 @@ public final class FeasibleGammaSearch {
         double muCap = inputGain > 0 ? muCap(inputGain)
                 : FALLBACK_CAP_FACTOR * Math.pow(plant.b() / HighOrderDesigner.norm(plant.disturbance()), 2);
         List<Claim> claims = new ArrayList<>();
-        PoleMatchedRiccati.Solution atInfinity;
+        PoleMatchedSolution atInfinity;
         try {
             atInfinity = riccati.solve(plant, desired, 0);
             counter.value++;
@@ -199,17 +202,17 @@ public final class FeasibleGammaSearch {
         double mu = 1 / (gamma * gamma);
         Counter counter = new Counter();
         counter.value = set.evaluations();
-        List<PoleMatchedRiccati.Solution> starts = new ArrayList<>();
+        List<PoleMatchedSolution> starts = new ArrayList<>();
         int n = plant.order();
-        starts.add(new PoleMatchedRiccati.Solution(new DMatrixRMaj(n, n), new double[n], 0, Double.NaN, 0));
+        starts.add(new PoleMatchedSolution(new DMatrixRMaj(n, n), new double[n], 0, Double.NaN, 0));
         for (Claim claim : set.claims()) {
             List<Point> points = claim.branch().points();
             starts.add(points.get(0).solution());
             points.stream().min(Comparator.comparingDouble(p -> Math.abs(Math.log(p.mu() / mu))))
                     .ifPresent(p -> starts.add(p.solution()));
         }
-        for (PoleMatchedRiccati.Solution start : starts) {
-            PoleMatchedRiccati.Solution candidate;
+        for (PoleMatchedSolution start : starts) {
+            PoleMatchedSolution candidate;
             try {
                 counter.value++;
                 candidate = riccati.solveFrom(plant, desired, mu, start);
@@ -237,7 +240,7 @@ public final class FeasibleGammaSearch {
     }
 
     /** P and the weights at gamma, on the branch of an interval that contains it. */
-    public PoleMatchedRiccati.Solution solutionAt(CompanionPlant plant, double[] desired, FeasibleGammaSet set,
+    public PoleMatchedSolution solutionAt(CompanionPlant plant, double[] desired, FeasibleGammaSet set,
                                                   double gamma) {
         double mu = 1 / (gamma * gamma);
         for (Claim claim : set.claims()) {
@@ -253,7 +256,7 @@ public final class FeasibleGammaSearch {
      * eigenvalue of P over ||P||_F, n + 1 is minus the spectral abscissa of A + RP over ||A + RP||_F (both hold
      * when &gt; 0). NaN (an eigenvalue routine that failed) never holds.
      */
-    static double[] margins(CompanionPlant plant, double mu, PoleMatchedRiccati.Solution solution) {
+    static double[] margins(CompanionPlant plant, double mu, PoleMatchedSolution solution) {
         int n = plant.order();
         double[] m = new double[n + 2];
         System.arraycopy(solution.weightsSquared(), 0, m, 0, n);
@@ -297,7 +300,7 @@ public final class FeasibleGammaSearch {
         return g > 0 ? 1 / (g * g) : Double.POSITIVE_INFINITY;
     }
 
-    private Point point(CompanionPlant plant, double mu, PoleMatchedRiccati.Solution solution) {
+    private Point point(CompanionPlant plant, double mu, PoleMatchedSolution solution) {
         return new Point(mu, solution, margins(plant, mu, solution));
     }
 
@@ -385,12 +388,12 @@ public final class FeasibleGammaSearch {
     /** One predictor-corrector step to mu, or null when Newton fails or leaves the neighbourhood. */
     private Point step(CompanionPlant plant, double[] desired, Point last, Point before, double mu,
                        Counter counter) {
-        PoleMatchedRiccati.Solution prediction = before == null ? last.solution()
+        PoleMatchedSolution prediction = before == null ? last.solution()
                 : blend(before.solution(), last.solution(), (mu - before.mu()) / (last.mu() - before.mu()));
         if (counter.value >= MAX_SOLVES) {
             return null;
         }
-        PoleMatchedRiccati.Solution next;
+        PoleMatchedSolution next;
         try {
             counter.value++;
             next = riccati.solveFrom(plant, desired, mu, prediction);
@@ -405,7 +408,7 @@ public final class FeasibleGammaSearch {
     }
 
     /** x0 + s (x1 - x0) for P and the weights. */
-    private static PoleMatchedRiccati.Solution blend(PoleMatchedRiccati.Solution x0, PoleMatchedRiccati.Solution x1,
+    private static PoleMatchedSolution blend(PoleMatchedSolution x0, PoleMatchedSolution x1,
                                                      double s) {
         DMatrixRMaj p = x0.p();
         DMatrixRMaj p1 = x1.p();
@@ -417,11 +420,11 @@ public final class FeasibleGammaSearch {
         for (int i = 0; i < w.length; i++) {
             w[i] += s * (w1[i] - w[i]);
         }
-        return new PoleMatchedRiccati.Solution(p, w, Double.NaN, Double.NaN, 0);
+        return new PoleMatchedSolution(p, w, Double.NaN, Double.NaN, 0);
     }
 
     /** ||P - P0||_F/||P0||_F + |w - w0|/|w0|. */
-    static double distance(PoleMatchedRiccati.Solution x, PoleMatchedRiccati.Solution reference) {
+    static double distance(PoleMatchedSolution x, PoleMatchedSolution reference) {
         DMatrixRMaj dp = x.p();
         CommonOps_DDRM.subtractEquals(dp, reference.p());
         double[] w = x.weightsSquared();
@@ -437,7 +440,7 @@ public final class FeasibleGammaSearch {
     }
 
     /** The solution on the branch at mu, from the blend of its neighbouring points. */
-    private static PoleMatchedRiccati.Solution interpolated(Branch branch, double mu) {
+    private static PoleMatchedSolution interpolated(Branch branch, double mu) {
         List<Point> points = branch.points();
         for (int k = 0; k + 1 < points.size(); k++) {
             Point a = points.get(k);
@@ -459,7 +462,7 @@ public final class FeasibleGammaSearch {
             }
             try {
                 counter.value++;
-                PoleMatchedRiccati.Solution known = riccati.solveFrom(plant, desired, seed.mu(),
+                PoleMatchedSolution known = riccati.solveFrom(plant, desired, seed.mu(),
                         interpolated(claim.branch(), seed.mu()));
                 if (distance(seed.solution(), known) <= SAME_BRANCH_DISTANCE) {
                     return true;
@@ -591,7 +594,7 @@ public final class FeasibleGammaSearch {
         try {
             return brent.solve(MAX_REFINEMENT_EVALUATIONS, mu -> {
                 counter.value++;
-                PoleMatchedRiccati.Solution s = riccati.solveFrom(plant, desired, mu,
+                PoleMatchedSolution s = riccati.solveFrom(plant, desired, mu,
                         blend(a.solution(), b.solution(), (mu - a.mu()) / (b.mu() - a.mu())));
                 double m = margins(plant, mu, s)[c];
                 if (Double.isNaN(m)) {
@@ -630,7 +633,7 @@ public final class FeasibleGammaSearch {
             double mu = 1 / (gamma * gamma);
             try {
                 counter.value++;
-                PoleMatchedRiccati.Solution s = riccati.solveFrom(plant, desired, mu, interpolated(branch, mu));
+                PoleMatchedSolution s = riccati.solveFrom(plant, desired, mu, interpolated(branch, mu));
                 String failure = independentCheck(plant, mu, s);
                 if (failure != null) {
                     return failure + String.format(" at gamma %.6g", gamma);
@@ -648,7 +651,7 @@ public final class FeasibleGammaSearch {
      *
      * @return null when it passes, else what failed
      */
-    public String independentCheck(CompanionPlant plant, double mu, PoleMatchedRiccati.Solution solution) {
+    public String independentCheck(CompanionPlant plant, double mu, PoleMatchedSolution solution) {
         if (!allHold(margins(plant, mu, solution))) {
             return "a requirement fails";
         }

@@ -1,15 +1,20 @@
 package com.loopwright.solver.highorder;
 
 import com.loopwright.solver.design.GammaBound;
-import com.loopwright.solver.design.GammaCondition;
-import java.util.OptionalDouble;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.GammaCondition;
+import com.loopwright.solver.design.GammaInterval;
+import com.loopwright.solver.design.HighOrderDesign;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.PoleMatchedSolution;
 import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.DesiredPoles;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.OptionalDouble;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
@@ -60,7 +65,7 @@ public final class HighOrderDesigner {
         }
         notes.addAll(set.notes());
         double u = 1 / (gamma * gamma);
-        PoleMatchedRiccati.Solution solution = search.solutionAt(plant, desired, set, gamma);
+        PoleMatchedSolution solution = search.solutionAt(plant, desired, set, gamma);
         double[] margins = FeasibleGammaSearch.margins(plant, u, solution);
         for (int c = 0; c < conditions; c++) {
             if (!FeasibleGammaSearch.holds(c, margins[c], plant.order())) {
@@ -152,7 +157,7 @@ public final class HighOrderDesigner {
     public boolean[] holds(CompanionPlant plant, double[] desired, double inverseGammaSquared) {
         int n = plant.order();
         boolean[] result = new boolean[n + 2];
-        PoleMatchedRiccati.Solution solution;
+        PoleMatchedSolution solution;
         try {
             solution = new PoleMatchedRiccati().solve(plant, desired, inverseGammaSquared, false);
         } catch (PoleMatchedRiccati.SystemFailure | IllegalArgumentException e) {

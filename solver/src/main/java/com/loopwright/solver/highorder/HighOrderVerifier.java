@@ -1,9 +1,13 @@
 package com.loopwright.solver.highorder;
 
-import com.loopwright.solver.norm.HInfinityNorm;
+import com.loopwright.solver.design.HInfinityNorm;
+import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.HighOrderStep;
+import com.loopwright.solver.design.HighOrderVerification;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.verify.DesignVerifier;
 import com.loopwright.solver.verify.VerificationFailedException;
 import org.ejml.data.DMatrixRMaj;
@@ -40,7 +44,7 @@ public final class HighOrderVerifier {
                 performance.set(n, j, -k[j]);
             }
             HInfinityNorm norm = normCalculator.compute(closed, plant.disturbanceInput(), performance);
-            ClosedLoopStep.Result result = step.simulate(plant, design.poles(), stepSize, bandFraction,
+            HighOrderStep result = step.simulate(plant, design.poles(), stepSize, bandFraction,
                     minimumHorizonSeconds);
             boolean certified = norm.value() <= design.gamma() * (1 + DesignVerifier.NORM_TOLERANCE)
                     && relativeDifference <= DesignVerifier.AGREEMENT_TOLERANCE;

@@ -1,5 +1,7 @@
 package com.loopwright.solver.highorder;
 
+import com.loopwright.solver.design.PoleMatchedSolution;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.riccati.RiccatiResidual;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
@@ -28,33 +30,6 @@ public final class PoleMatchedRiccati {
     public static final double MIN_RECIPROCAL_CONDITION = 1e-14;
     /** Newton stops once the relative Riccati residual is below this. */
     static final double TARGET_RESIDUAL = 1e-15;
-
-    /**
-     * The solution for one gamma.
-     *
-     * @param p                     P, n x n, symmetric (copied)
-     * @param weightsSquared        rho_i^2, i = 1..n (may be negative below gamma_min)
-     * @param relativeResidual      {@link RiccatiResidual#relative} of P with these weights
-     * @param reciprocalCondition   sigma_min/sigma_max of the column-scaled linear system
-     * @param newtonSteps           Newton steps taken after the first solve
-     */
-    public record Solution(DMatrixRMaj p, double[] weightsSquared, double relativeResidual,
-                           double reciprocalCondition, int newtonSteps) {
-        public Solution {
-            p = p.copy();
-            weightsSquared = weightsSquared.clone();
-        }
-
-        @Override
-        public DMatrixRMaj p() {
-            return p.copy();
-        }
-
-        @Override
-        public double[] weightsSquared() {
-            return weightsSquared.clone();
-        }
-    }
 
     /** Thrown when the linear system is singular or Newton does not converge. */
     public static final class SystemFailure extends RuntimeException {
@@ -102,12 +77,12 @@ public final class PoleMatchedRiccati {
      *
      * @throws SystemFailure when the system is singular or Newton does not reach the residual
      */
-    public Solution solve(CompanionPlant plant, double[] desired, double inverseGammaSquared) {
+    public PoleMatchedSolution solve(CompanionPlant plant, double[] desired, double inverseGammaSquared) {
         return solve(plant, desired, inverseGammaSquared, true);
     }
 
     /** As {@link #solve(CompanionPlant, double[], double)}; the singular-value condition check is optional. */
-    Solution solve(CompanionPlant plant, double[] desired, double inverseGammaSquared, boolean checkCondition) {
+    PoleMatchedSolution solve(CompanionPlant plant, double[] desired, double inverseGammaSquared, boolean checkCondition) {
         int n = plant.order();
         return newton(plant, desired, inverseGammaSquared, new DMatrixRMaj(n, n), new double[n], checkCondition,
                 checkCondition);
@@ -119,17 +94,17 @@ public final class PoleMatchedRiccati {
      *
      * @throws SystemFailure when the Jacobian is singular or Newton does not reach the residual
      */
-    public Solution solveFrom(CompanionPlant plant, double[] desired, double inverseGammaSquared, Solution start) {
+    public PoleMatchedSolution solveFrom(CompanionPlant plant, double[] desired, double inverseGammaSquared, PoleMatchedSolution start) {
         return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), false, false);
     }
 
     /** As {@link #solveFrom} and reports the reciprocal condition of the first Jacobian (one SVD more). */
-    public Solution solveFromWithCondition(CompanionPlant plant, double[] desired, double inverseGammaSquared,
-                                           Solution start) {
+    public PoleMatchedSolution solveFromWithCondition(CompanionPlant plant, double[] desired, double inverseGammaSquared,
+                                           PoleMatchedSolution start) {
         return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), true, false);
     }
 
-    private Solution newton(CompanionPlant plant, double[] desired, double inverseGammaSquared, DMatrixRMaj start,
+    private PoleMatchedSolution newton(CompanionPlant plant, double[] desired, double inverseGammaSquared, DMatrixRMaj start,
                             double[] startWeights, boolean computeCondition, boolean checkCondition) {
         int n = plant.order();
         int free = n * (n - 1) / 2;
@@ -226,7 +201,7 @@ public final class PoleMatchedRiccati {
             throw new SystemFailure("Newton on the pole-matched Riccati system stalled at relative residual "
                     + residual);
         }
-        return new Solution(p, weights, residual, reciprocalCondition, steps);
+        return new PoleMatchedSolution(p, weights, residual, reciprocalCondition, steps);
     }
 
     /** Solutions with a larger relative residual are rejected. */

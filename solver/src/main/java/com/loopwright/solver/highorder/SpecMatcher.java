@@ -1,10 +1,14 @@
 package com.loopwright.solver.highorder;
 
 import com.loopwright.solver.cancel.Cancellation;
+import com.loopwright.solver.design.HighOrderStep;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.SpecMatch;
 import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -127,7 +131,7 @@ public final class SpecMatcher {
             f = nextF;
         }
         TargetDynamics target = new TargetDynamics(v[0], Math.exp(v[1]));
-        ClosedLoopStep.Result result = step.simulate(plant, placement.place(target, plant.order()), stepSize, band,
+        HighOrderStep result = step.simulate(plant, placement.place(target, plant.order()), stepSize, band,
                 ts);
         if (result.undershootPercent() > maxUndershootPercent) {
             throw new InfeasibleDesignException(new Infeasibility(SpecQuantity.TIME_SPEC, String.format(
@@ -170,7 +174,7 @@ public final class SpecMatcher {
                               double band, double ts, double targetOvershoot) {
         try {
             TargetDynamics target = new TargetDynamics(v[0], Math.exp(v[1]));
-            ClosedLoopStep.Result r = step.simulate(plant, placement.place(target, plant.order()), stepSize, band, ts);
+            HighOrderStep r = step.simulate(plant, placement.place(target, plant.order()), stepSize, band, ts);
             return new double[] {r.metrics().settlingTimeSeconds() / ts - 1,
                     r.metrics().overshootPercent() - targetOvershoot};
         } catch (IllegalArgumentException e) {

@@ -1,5 +1,6 @@
 package com.loopwright.solver.loop;
 
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.plant.CanonicalPlant;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;

@@ -1,5 +1,6 @@
 package com.loopwright.solver.norm;
 
+import com.loopwright.solver.design.HInfinityNorm;
 import java.util.Arrays;
 import java.util.Objects;
 import org.ejml.data.Complex_F64;

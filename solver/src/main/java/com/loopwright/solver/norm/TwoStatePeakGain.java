@@ -1,5 +1,6 @@
 package com.loopwright.solver.norm;
 
+import com.loopwright.solver.design.HInfinityNorm;
 import com.loopwright.solver.linalg.TwoByTwoSpectrum;
 import java.util.Objects;
 import org.ejml.data.DMatrixRMaj;

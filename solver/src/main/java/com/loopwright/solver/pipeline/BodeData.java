@@ -1,6 +1,6 @@
 package com.loopwright.solver.pipeline;
 
-import com.loopwright.solver.frequency.LoopMargins;
+import com.loopwright.solver.design.LoopMargins;
 
 /**
  * The frequency response of a design's loop broken at the plant input, for a Bode figure: L(jw) on a log grid

@@ -1,7 +1,7 @@
 package com.loopwright.solver.pipeline;
 
-import com.loopwright.solver.export.SampledLaw;
-import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.SampledLaw;
 import java.util.Optional;
 
 /**

@@ -38,6 +38,17 @@ public final class DesignPipeline {
     }
 
     /**
+     * A two-state state space dx/dt = A x + B2 u + B1 w brought to the canonical second-order form (the
+     * controllability transform is computed here, so a caller builds the model through the front door).
+     *
+     * @throws com.loopwright.solver.plant.PlantParameterException for an uncontrollable pair (A, B2), a B1 not
+     *                                                             aligned with B2 or a non-finite transform
+     */
+    public static TwoStateModel stateSpacePlant(double[][] a, double[] b2, double[] b1) {
+        return new TwoStateModel(a, b2, b1);
+    }
+
+    /**
      * The design in the coordinates of the caller's state-space model (transform, Riccati matrix, gain, closed-loop
      * poles and the residual there), or null when the plant was not given as a state space.
      */

@@ -1,14 +1,14 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.SampledLaw;
 import com.loopwright.solver.export.CSourceWriter;
 import com.loopwright.solver.export.ExportHeader;
-import com.loopwright.solver.export.SampledLaw;
 import com.loopwright.solver.export.SampledLawDesigner;
 import com.loopwright.solver.export.SampledLawException;
 import com.loopwright.solver.export.StructuredTextWriter;
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.simulation.GridMetrics;
 import com.loopwright.solver.robustness.SampledStepMetrics;
 import java.util.List;
 import java.util.Optional;

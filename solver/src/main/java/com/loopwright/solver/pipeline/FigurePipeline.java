@@ -1,11 +1,11 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.LoopMargins;
 import com.loopwright.solver.frequency.BodeSeries;
 import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.frequency.RationalLoop;
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.frequency.LoopMargins;
 import com.loopwright.solver.robustness.ParameterBox;
 import com.loopwright.solver.robustness.StepEnvelope;
 import com.loopwright.solver.robustness.UnstableLoopException;

@@ -1,21 +1,21 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.HighOrderStep;
+import com.loopwright.solver.design.HighOrderVerification;
 import com.loopwright.solver.design.InfeasibleDesignException;
-import com.loopwright.solver.highorder.AuxiliaryPlacement;
-import com.loopwright.solver.highorder.ClosedLoopStep;
-import com.loopwright.solver.highorder.CompanionPlant;
+import com.loopwright.solver.design.SpecMatch;
 import com.loopwright.solver.highorder.CompanionTransform;
-import com.loopwright.solver.highorder.DesiredPoles;
-import com.loopwright.solver.highorder.HighOrderDesign;
 import com.loopwright.solver.highorder.HighOrderDesigner;
-import com.loopwright.solver.highorder.HighOrderVerification;
 import com.loopwright.solver.highorder.HighOrderVerifier;
 import com.loopwright.solver.highorder.PoleMatchedRiccati;
-import com.loopwright.solver.highorder.SpecMatch;
 import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
@@ -79,6 +79,11 @@ public final class HighOrderPipeline {
         public Result {
             toPlant = toPlant.copy();
             plantGain = plantGain.clone();
+        }
+
+        /** True when the request was a state space brought to companion form (transform is then set). */
+        public boolean fromStateSpace() {
+            return transform != null;
         }
 
         @Override
@@ -165,7 +170,7 @@ public final class HighOrderPipeline {
     private record Partial(SpecMatch match, HighOrderDesign design, HighOrderVerification verification) {
     }
 
-    private static SpecCheck specCheck(Request request, ClosedLoopStep.Result step) {
+    private static SpecCheck specCheck(Request request, HighOrderStep step) {
         double ts = ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds();
         double overshoot = 100 * request.spec().overshootFraction();
         boolean met = step.metrics().settlingTimeSeconds() <= ts * (1 + SpecMatcher.SETTLING_TOLERANCE)

@@ -10,6 +10,7 @@ import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
 import com.loopwright.solver.design.SpecRanges;
+import com.loopwright.solver.design.Verification;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.NormalizedSettlingTime;
@@ -17,7 +18,6 @@ import com.loopwright.solver.spec.SpecInversion;
 import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.verify.DesignVerifier;
-import com.loopwright.solver.verify.Verification;
 import java.util.List;
 import java.util.Optional;
 

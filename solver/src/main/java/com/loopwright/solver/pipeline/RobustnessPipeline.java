@@ -1,10 +1,10 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.cancel.ComputationCancelledException;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 import com.loopwright.solver.robustness.CapExceededException;
-import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.robustness.RobustnessOptions;
 import com.loopwright.solver.robustness.RobustnessReport;
 import com.loopwright.solver.robustness.RobustnessVerifier;

@@ -1,7 +1,9 @@
 /**
- * The plant to control: the canonical second-order form x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w, and the
- * physical descriptions that reduce to it (rotary axis, mass-spring-damper, second-order transfer function,
- * two-state model by a similarity transform). Invariant: every description reduces to one canonical plant with
- * finite coefficients and b != 0, or is refused with the reason in engineering words.
+ * The open-loop plant in every form the service accepts (canonical second order, physical forms, transfer function,
+ * two-state model, order-n companion form), the disturbance signals that act on its disturbance input, and the
+ * records of a plant identified from a step test (step-test data, fit options, the fitted model and its warnings).
+ *
+ * <p>Invariant: nothing here knows a controller, a design or a solver algorithm; these are the input records the
+ * callers build and the fitted model they read back.
  */
 package com.loopwright.solver.plant;

@@ -1,5 +1,6 @@
 package com.loopwright.solver.riccati;
 
+import com.loopwright.solver.design.RiccatiSolution;
 import java.util.OptionalDouble;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;

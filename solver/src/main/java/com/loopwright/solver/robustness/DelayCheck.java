@@ -1,10 +1,10 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.GridMetrics;
 
 /** The reference step with an input delay, simulated exactly in the sampled loop, and the delay margin. */
 final class DelayCheck {

@@ -1,7 +1,7 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.GridMetrics;
 
 /**
  * The reference step with an input delay, simulated exactly in the sampled loop.

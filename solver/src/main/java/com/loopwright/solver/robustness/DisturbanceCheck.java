@@ -1,7 +1,7 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.simulation.DisturbanceProfile;
-import com.loopwright.solver.simulation.DisturbanceResponse;
+import com.loopwright.solver.design.DisturbanceResponse;
+import com.loopwright.solver.plant.DisturbanceProfile;
 
 /**
  * One disturbance profile and its response.

@@ -1,11 +1,11 @@
 package com.loopwright.solver.robustness;
 
 import com.loopwright.solver.cancel.Cancellation;
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.DisturbanceResponse;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.numeric.SafeRounding;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.DisturbanceProfile;
-import com.loopwright.solver.simulation.DisturbanceResponse;
+import com.loopwright.solver.plant.DisturbanceProfile;
 import com.loopwright.solver.simulation.DisturbanceSimulator;
 import java.util.ArrayList;
 import java.util.List;

@@ -1,11 +1,11 @@
 package com.loopwright.solver.robustness;
 
 import com.loopwright.solver.cancel.Cancellation;
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.GridMetrics;
 import java.util.OptionalDouble;
 
 /**

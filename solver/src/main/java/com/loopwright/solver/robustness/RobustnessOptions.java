@@ -1,6 +1,6 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.simulation.DisturbanceProfile;
+import com.loopwright.solver.plant.DisturbanceProfile;
 import java.util.List;
 
 /**

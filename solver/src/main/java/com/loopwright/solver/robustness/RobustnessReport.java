@@ -1,8 +1,8 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.frequency.LoopMargins;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.LoopMargins;
+import com.loopwright.solver.design.StepMetrics;
 import java.util.List;
 
 /**

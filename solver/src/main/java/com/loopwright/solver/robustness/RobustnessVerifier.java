@@ -1,18 +1,18 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.frequency.LoopMargins;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.LoopMargins;
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
-import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
-import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.GridMetrics;
-import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.numeric.SafeRounding;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
+import com.loopwright.solver.simulation.LinearLoop;
+import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import com.loopwright.solver.simulation.StepSimulator;
 import java.util.List;

@@ -1,12 +1,12 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.DenseTrajectory;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
-import com.loopwright.solver.simulation.GridMetrics;
 import com.loopwright.solver.simulation.ZeroOrderHold;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;

@@ -1,8 +1,8 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
 
 /**
  * The loop implemented with a sampler and hold.

@@ -1,10 +1,10 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.GridMetrics;
 import com.loopwright.solver.simulation.SaturatedStepSimulator;
 
 /** The reference step with an actuator limit |u| &lt;= limit, against the acceptance limits. */

@@ -1,12 +1,12 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.cancel.Cancellation;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import com.loopwright.solver.simulation.StepSimulator;
 import java.util.ArrayList;

@@ -19,7 +19,7 @@ public enum Verdict {
         return limits.judges() ? of(limits.met(settlingTime, riseTime, overshoot)) : NOT_JUDGED;
     }
 
-    static Verdict ofStep(AcceptanceLimits limits, com.loopwright.solver.simulation.GridMetrics metrics) {
+    static Verdict ofStep(AcceptanceLimits limits, com.loopwright.solver.design.GridMetrics metrics) {
         if (metrics == null) {
             return limits.judges() ? NOT_MET : NOT_JUDGED;
         }

@@ -1,9 +1,12 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.DisturbanceResponse;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.linalg.MatrixExponential;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.DisturbanceProfile;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 

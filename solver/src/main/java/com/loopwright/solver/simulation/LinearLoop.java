@@ -1,6 +1,6 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import org.ejml.data.DMatrixRMaj;

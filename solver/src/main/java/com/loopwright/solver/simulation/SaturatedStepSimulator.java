@@ -1,6 +1,7 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.numeric.BracketedRoot;
 import com.loopwright.solver.plant.CanonicalPlant;

@@ -1,5 +1,6 @@
 package com.loopwright.solver.simulation;
 
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.linalg.TwoByTwoSpectrum;
 import java.util.function.BiFunction;
 import org.ejml.data.Complex_F64;

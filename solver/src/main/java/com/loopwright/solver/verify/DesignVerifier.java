@@ -1,13 +1,14 @@
 package com.loopwright.solver.verify;
 
 import com.loopwright.solver.design.ClosedFormDesign;
-import com.loopwright.solver.norm.HInfinityNorm;
+import com.loopwright.solver.design.HInfinityNorm;
+import com.loopwright.solver.design.RiccatiSolution;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.design.Verification;
 import com.loopwright.solver.norm.TwoStatePeakGain;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
 import com.loopwright.solver.riccati.RiccatiResidual;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.simulation.LinearLoop;
-import com.loopwright.solver.simulation.StepMetrics;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import com.loopwright.solver.spec.DesignSpec;
 import org.ejml.data.DMatrixRMaj;

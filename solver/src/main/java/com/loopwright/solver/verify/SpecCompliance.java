@@ -1,6 +1,7 @@
 package com.loopwright.solver.verify;
 
-import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.design.SpecCheck;
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.List;

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
+import com.loopwright.solver.design.SampledLaw;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
 import java.io.IOException;

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.SampledLaw;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.simulation.LinearLoop;
 import com.loopwright.solver.simulation.StepResponse;

@@ -3,6 +3,11 @@ package com.loopwright.solver.fit;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.plant.FitOptions;
+import com.loopwright.solver.plant.FitWarning;
+import com.loopwright.solver.plant.FittedParameter;
+import com.loopwright.solver.plant.StepFit;
+import com.loopwright.solver.plant.StepTestData;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 

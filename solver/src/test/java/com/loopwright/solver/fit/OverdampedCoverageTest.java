@@ -2,6 +2,9 @@ package com.loopwright.solver.fit;
 
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.plant.FitOptions;
+import com.loopwright.solver.plant.StepFit;
+import com.loopwright.solver.plant.StepTestData;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 

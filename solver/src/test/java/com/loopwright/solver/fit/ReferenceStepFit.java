@@ -1,5 +1,6 @@
 package com.loopwright.solver.fit;
 
+import com.loopwright.solver.plant.StepTestData;
 import org.hipparchus.linear.Array2DRowRealMatrix;
 import org.hipparchus.linear.ArrayRealVector;
 import org.hipparchus.linear.RealMatrix;

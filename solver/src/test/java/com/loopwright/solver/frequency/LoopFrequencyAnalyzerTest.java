@@ -5,8 +5,9 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.LoopMargins;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.loop.FeedbackGains;
 import org.hipparchus.complex.Complex;
 import org.hipparchus.linear.Array2DRowFieldMatrix;
 import org.hipparchus.linear.ArrayFieldVector;

@@ -3,8 +3,10 @@ package com.loopwright.solver.highorder;
 import static org.junit.jupiter.api.Assertions.*;
 
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
-import com.loopwright.solver.riccati.RiccatiSolution;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.Random;
 import org.ejml.data.DMatrixRMaj;

@@ -2,10 +2,12 @@ package com.loopwright.solver.highorder;
 
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.solver.norm.HInfinityNorm;
+import com.loopwright.solver.design.HInfinityNorm;
+import com.loopwright.solver.design.PoleMatchedSolution;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
@@ -27,7 +29,7 @@ final class DirectFeasibility {
                                 double gamma, String where) {
         int n = plant.order();
         double mu = 1 / (gamma * gamma);
-        PoleMatchedRiccati.Solution solution = SEARCH.solutionAt(plant, desired, set, gamma);
+        PoleMatchedSolution solution = SEARCH.solutionAt(plant, desired, set, gamma);
         double[] w = solution.weightsSquared();
         for (double value : w) {
             assertTrue(value >= 0, "rho_i^2 >= 0 at gamma " + gamma + " " + where);

@@ -2,6 +2,9 @@ package com.loopwright.solver.highorder;
 
 import static org.junit.jupiter.api.Assertions.*;
 
+import com.loopwright.solver.design.GammaInterval;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.ArrayList;
 import java.util.List;

@@ -5,10 +5,17 @@ import static org.junit.jupiter.api.Assertions.*;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.ClosedFormDesigner;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.GammaInterval;
+import com.loopwright.solver.design.HighOrderDesign;
 import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.PoleMatchedSolution;
+import com.loopwright.solver.design.SpecMatch;
 import com.loopwright.solver.design.SpecQuantity;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
@@ -194,7 +201,7 @@ class FeasibleGammaSetTest {
         FeasibleGammaSearch.FeasibleGammaSet found = search.search(plant, poles.coefficients());
         DirectFeasibility.assertFeasible(plant, poles.coefficients(), found, design.gamma(), "gap default");
         double inGap = Math.sqrt(set.get(0).upperGamma() * set.get(1).lowerGamma());
-        PoleMatchedRiccati.Solution branch = new PoleMatchedRiccati().solveFrom(plant, poles.coefficients(),
+        PoleMatchedSolution branch = new PoleMatchedRiccati().solveFrom(plant, poles.coefficients(),
                 1 / (inGap * inGap), search.solutionAt(plant, poles.coefficients(), found, set.get(1).lowerGamma() * 1.01));
         double[] margins = FeasibleGammaSearch.margins(plant, 1 / (inGap * inGap), branch);
         boolean broken = false;

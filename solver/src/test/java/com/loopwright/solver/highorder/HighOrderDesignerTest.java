@@ -1,15 +1,19 @@
 package com.loopwright.solver.highorder;
 
-import com.loopwright.solver.design.GammaBound;
 import static org.junit.jupiter.api.Assertions.*;
 
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.ClosedFormDesigner;
+import com.loopwright.solver.design.GammaBound;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.PoleMatchedSolution;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
 import com.loopwright.solver.riccati.RiccatiResidual;
-import com.loopwright.solver.riccati.RiccatiSolution;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.Arrays;
 import java.util.List;
@@ -148,13 +152,13 @@ class HighOrderDesignerTest {
         double below = design.gammaMin() * (1 - 1e-6);
         FeasibleGammaSearch search = new FeasibleGammaSearch();
         FeasibleGammaSearch.FeasibleGammaSet set = search.search(plant, desired);
-        PoleMatchedRiccati.Solution atAbove = search.solutionAt(plant, desired, set, above);
+        PoleMatchedSolution atAbove = search.solutionAt(plant, desired, set, above);
         double[] marginsAbove = FeasibleGammaSearch.margins(plant, 1 / (above * above), atAbove);
         for (int c = 0; c < marginsAbove.length; c++) {
             assertTrue(FeasibleGammaSearch.holds(c, marginsAbove[c], plant.order()),
                     "all requirements hold just above gamma_min, not " + c);
         }
-        PoleMatchedRiccati.Solution atBelow = new PoleMatchedRiccati().solveFrom(plant, desired, 1 / (below * below),
+        PoleMatchedSolution atBelow = new PoleMatchedRiccati().solveFrom(plant, desired, 1 / (below * below),
                 atAbove);
         double[] marginsBelow = FeasibleGammaSearch.margins(plant, 1 / (below * below), atBelow);
         List<GammaBound> bounds = design.gammaBounds();

@@ -3,6 +3,10 @@ package com.loopwright.solver.highorder;
 import static org.junit.jupiter.api.Assertions.*;
 
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.PoleMatchedSolution;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.ArrayList;
 import java.util.List;
@@ -31,7 +35,7 @@ class SecondBranchTest {
      * x0 + t v (v the cross product of their rows); (1,2) is a quadratic in t there, fitted exactly through
      * t = -1, 0, 1; its real roots are all solutions (elementary algebra). Each root is polished by Newton.
      */
-    static List<PoleMatchedRiccati.Solution> all(CompanionPlant plant, double[] desired, double mu) {
+    static List<PoleMatchedSolution> all(CompanionPlant plant, double[] desired, double mu) {
         int n = 3;
         DMatrixRMaj a = plant.stateMatrix();
         DMatrixRMaj r = PoleMatchedRiccati.quadraticTerm(plant, mu);
@@ -67,7 +71,7 @@ class SecondBranchTest {
         java.util.function.DoubleFunction<double[]> xt = t -> new double[] {x0.get(0) + t * v[0] / vn * scale, x0.get(1) + t * v[1] / vn * scale, x0.get(2) + t * v[2] / vn * scale};
         double qm = eqs.apply(xt.apply(-1))[2], q0 = eqs.apply(xt.apply(0))[2], qp = eqs.apply(xt.apply(1))[2];
         double alpha = (qp + qm) / 2 - q0, beta = (qp - qm) / 2, gamma0 = q0;
-        List<PoleMatchedRiccati.Solution> out = new ArrayList<>();
+        List<PoleMatchedSolution> out = new ArrayList<>();
         double disc = beta * beta - 4 * alpha * gamma0;
         if (disc < 0) return out;
         double[] ts = alpha == 0 ? new double[] {-gamma0 / beta} : new double[] {(-beta + Math.sqrt(disc)) / (2 * alpha), (-beta - Math.sqrt(disc)) / (2 * alpha)};
@@ -77,7 +81,7 @@ class SecondBranchTest {
             double[] w = {-f.get(0, 0), -f.get(1, 1), -f.get(2, 2)};
             // polish with Newton
             try {
-                out.add(new PoleMatchedRiccati().solveFrom(plant, desired, mu, new PoleMatchedRiccati.Solution(p, w, 0, 0, 0)));
+                out.add(new PoleMatchedRiccati().solveFrom(plant, desired, mu, new PoleMatchedSolution(p, w, 0, 0, 0)));
             } catch (RuntimeException e) { }
         }
         return out;
@@ -100,7 +104,7 @@ class SecondBranchTest {
             for (int i = 1; i <= GAMMAS; i++) {
                 double gamma = set.inputGain() * Math.pow(1e4, (double) i / GAMMAS);
                 double mu = 1 / (gamma * gamma);
-                for (PoleMatchedRiccati.Solution s : all(plant, desired, mu)) {
+                for (PoleMatchedSolution s : all(plant, desired, mu)) {
                     solutions++;
                     if (search.independentCheck(plant, mu, s) != null || set.contains(gamma)) {
                         continue;

@@ -3,8 +3,14 @@ package com.loopwright.solver.highorder;
 import static org.junit.jupiter.api.Assertions.*;
 
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.HighOrderDesign;
+import com.loopwright.solver.design.HighOrderStep;
+import com.loopwright.solver.design.HighOrderVerification;
 import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.SpecMatch;
 import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
@@ -32,7 +38,7 @@ class SpecMatcherTest {
         assertTrue(Math.abs(match.settlingResidual()) <= SpecMatcher.SETTLING_TOLERANCE);
         assertTrue(Math.abs(match.overshootResidualPoints()) <= SpecMatcher.OVERSHOOT_TOLERANCE_POINTS);
         // independent: the uncorrected second-order pair misses the overshoot by more than the tolerance
-        ClosedLoopStep.Result unmatched = new ClosedLoopStep().simulate(plant,
+        HighOrderStep unmatched = new ClosedLoopStep().simulate(plant,
                 auxiliary.place(match.startingTarget(), 3), 1, 0.02, 0.3);
         assertTrue(Math.abs(unmatched.metrics().overshootPercent() - 1.5) > 10 * SpecMatcher.OVERSHOOT_TOLERANCE_POINTS,
                 "the zero moves the overshoot: " + unmatched.metrics());

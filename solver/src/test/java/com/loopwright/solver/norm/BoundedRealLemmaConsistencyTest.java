@@ -3,9 +3,9 @@ package com.loopwright.solver.norm;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
 import com.loopwright.solver.riccati.NoStabilizingSolutionException;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import java.util.Random;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;

@@ -3,6 +3,7 @@ package com.loopwright.solver.norm;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.HInfinityNorm;
 import org.ejml.data.DMatrixRMaj;
 import org.junit.jupiter.api.Test;
 

@@ -3,6 +3,7 @@ package com.loopwright.solver.norm;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 
+import com.loopwright.solver.design.HInfinityNorm;
 import org.junit.jupiter.api.Test;
 
 class HInfinityNormTest {

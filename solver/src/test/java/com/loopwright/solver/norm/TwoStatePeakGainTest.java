@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.HInfinityNorm;
 import java.util.Random;
 import org.ejml.data.DMatrixRMaj;
 import org.junit.jupiter.api.Test;

@@ -5,11 +5,11 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.PlantParameterException;
 import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.riccati.HamiltonianRiccatiSolver;
-import com.loopwright.solver.riccati.RiccatiSolution;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.ClosedFormDesigner;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.RiccatiSolution;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.TargetDynamics;
 import org.ejml.data.DMatrixRMaj;

@@ -12,6 +12,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.RiccatiSolution;
 import java.util.Arrays;
 import java.util.Random;
 import org.ejml.data.DMatrixRMaj;

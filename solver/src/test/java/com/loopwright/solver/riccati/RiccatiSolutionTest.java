@@ -3,6 +3,7 @@ package com.loopwright.solver.riccati;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 
+import com.loopwright.solver.design.RiccatiSolution;
 import org.ejml.data.DMatrixRMaj;
 import org.junit.jupiter.api.Test;
 

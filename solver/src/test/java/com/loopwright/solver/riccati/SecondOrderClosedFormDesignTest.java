@@ -2,6 +2,7 @@ package com.loopwright.solver.riccati;
 
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.RiccatiSolution;
 import java.util.Arrays;
 import java.util.Comparator;
 import java.util.Random;

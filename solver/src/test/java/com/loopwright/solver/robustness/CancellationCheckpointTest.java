@@ -5,9 +5,9 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.cancel.ComputationCancelledException;
-import com.loopwright.solver.fit.FitOptions;
 import com.loopwright.solver.fit.StepResponseFitter;
-import com.loopwright.solver.fit.StepTestData;
+import com.loopwright.solver.plant.FitOptions;
+import com.loopwright.solver.plant.StepTestData;
 import java.util.List;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;

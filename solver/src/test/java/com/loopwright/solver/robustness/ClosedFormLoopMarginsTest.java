@@ -1,15 +1,15 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.frequency.FrequencyPoint;
-import com.loopwright.solver.frequency.LoopMargins;
-import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
-import com.loopwright.solver.frequency.SecondOrderLoopResponse;
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.loop.LoopMatrices;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.FrequencyPoint;
+import com.loopwright.solver.design.LoopMargins;
+import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
+import com.loopwright.solver.frequency.SecondOrderLoopResponse;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import org.junit.jupiter.api.Test;
 

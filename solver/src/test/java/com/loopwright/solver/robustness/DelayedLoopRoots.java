@@ -1,6 +1,6 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.plant.CanonicalPlant;
 
 /**

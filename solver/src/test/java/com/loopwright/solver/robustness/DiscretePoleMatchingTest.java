@@ -1,9 +1,9 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.loop.LoopMatrices;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
 import com.loopwright.solver.simulation.ZeroOrderHold;
 import java.util.Arrays;

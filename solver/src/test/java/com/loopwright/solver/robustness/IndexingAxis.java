@@ -1,7 +1,7 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.pipeline.LoopDesigner;
 import com.loopwright.solver.plant.CanonicalPlant;

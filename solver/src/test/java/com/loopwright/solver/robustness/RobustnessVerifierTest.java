@@ -1,15 +1,15 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.DisturbanceProfile;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.DisturbanceProfile;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 

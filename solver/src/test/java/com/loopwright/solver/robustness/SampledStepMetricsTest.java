@@ -1,12 +1,12 @@
 package com.loopwright.solver.robustness;
 
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.simulation.GridMetrics;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.LoopDesigner;
 import com.loopwright.solver.plant.CanonicalPlant;

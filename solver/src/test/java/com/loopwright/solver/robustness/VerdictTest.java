@@ -4,7 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.solver.simulation.GridMetrics;
+import com.loopwright.solver.design.GridMetrics;
 import org.junit.jupiter.api.Test;
 
 /** The three outcomes of a judged step, as the verification reported them before they had a type of their own. */

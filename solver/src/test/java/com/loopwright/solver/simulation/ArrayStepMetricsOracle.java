@@ -1,7 +1,8 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.numeric.BracketedRoot;
+import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.linalg.TwoByTwoSpectrum;
+import com.loopwright.solver.numeric.BracketedRoot;
 import java.util.function.BiFunction;
 import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;

@@ -1,19 +1,19 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.loop.LoopMatrices;
-import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.GridMetrics;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.robustness.IndexingAxis;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import org.junit.jupiter.api.Test;
 

@@ -1,11 +1,11 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.DenseTrajectory;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.robustness.IndexingAxis;
+import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
 import org.hipparchus.ode.ODEState;
 import org.hipparchus.ode.ODEStateAndDerivative;
 import org.hipparchus.ode.OrdinaryDifferentialEquation;

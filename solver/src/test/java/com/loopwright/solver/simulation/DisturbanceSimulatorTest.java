@@ -1,16 +1,16 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.loop.LoopMatrices;
-import com.loopwright.solver.simulation.DisturbanceProfile;
-import com.loopwright.solver.simulation.DisturbanceResponse;
-import com.loopwright.solver.simulation.DisturbanceSimulator;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.solver.norm.HInfinityNorm;
+import com.loopwright.solver.design.DisturbanceResponse;
+import com.loopwright.solver.design.HInfinityNorm;
+import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.DisturbanceProfile;
+import com.loopwright.solver.robustness.IndexingAxis;
+import com.loopwright.solver.simulation.DisturbanceSimulator;
 import org.junit.jupiter.api.Test;
 
 class DisturbanceSimulatorTest {

@@ -1,14 +1,14 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.loop.LoopMatrices;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.GridMetrics;
-import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.solver.simulation.StepMetrics;
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.GridMetrics;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.robustness.IndexingAxis;
+import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import org.junit.jupiter.api.Test;
 

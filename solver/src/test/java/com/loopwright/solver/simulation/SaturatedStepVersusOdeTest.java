@@ -1,11 +1,11 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.loop.FeedbackGains;
-import com.loopwright.solver.simulation.DenseTrajectory;
-import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import com.loopwright.solver.design.DenseTrajectory;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.robustness.IndexingAxis;
+import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import org.hipparchus.analysis.UnivariateFunction;
 import org.hipparchus.analysis.solvers.BracketedUnivariateSolver;
 import org.hipparchus.analysis.solvers.BracketingNthOrderBrentSolver;

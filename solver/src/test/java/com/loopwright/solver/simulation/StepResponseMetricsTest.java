@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.StepMetrics;
 import java.util.Random;
 import java.util.function.DoubleUnaryOperator;
 import org.ejml.data.DMatrixRMaj;

@@ -3,10 +3,11 @@ package com.loopwright.solver.simulation;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.HighOrderStep;
 import com.loopwright.solver.highorder.ClosedLoopStep;
-import com.loopwright.solver.highorder.CompanionPlant;
-import com.loopwright.solver.highorder.DesiredPoles;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.DesiredPoles;
 import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
@@ -50,7 +51,7 @@ class UndershootBetweenSamplesTest {
         TargetDynamics target = new SpecInverter().invert(new DesignSpec(0.24565128665507857 / 100,
                 new TimeSpec.SettlingTime(12.039949496201748, 0.05))).target();
         DesiredPoles poles = DesiredPoles.atMultiple(target, 4, DesiredPoles.DEFAULT_REAL_PART_MULTIPLE);
-        ClosedLoopStep.Result result = new ClosedLoopStep().simulate(plant, poles, 1.0, 0.05, 12.039949496201748);
+        HighOrderStep result = new ClosedLoopStep().simulate(plant, poles, 1.0, 0.05, 12.039949496201748);
         assertEquals(2000, result.samples());
 
         LinearLoop loop = ClosedLoopStep.loop(plant, poles.coefficients());

@@ -1,7 +1,7 @@
-package com.loopwright.solver.highorder;
+package com.loopwright.solver.design;
 
-import com.loopwright.solver.design.GammaBound;
-import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.spec.DesiredPoles;
 import java.util.List;
 import org.ejml.data.DMatrixRMaj;
 
@@ -19,7 +19,7 @@ import org.ejml.data.DMatrixRMaj;
  * @param bisectionSteps Newton solves spent on the feasible set (continuation, refinement of the ends, checks)
  * @param notes       how gamma was chosen when not by the plain rule, intervals left out, other branches
  */
-public record HighOrderDesign(CompanionPlant plant, DesiredPoles poles, PoleMatchedRiccati.Solution solution,
+public record HighOrderDesign(CompanionPlant plant, DesiredPoles poles, PoleMatchedSolution solution,
                               List<GammaBound> gammaBounds, List<GammaInterval> feasibleSet,
                               double gammaMin, double gamma, int bisectionSteps, List<String> notes) {
 

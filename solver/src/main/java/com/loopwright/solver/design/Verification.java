@@ -1,8 +1,5 @@
-package com.loopwright.solver.verify;
+package com.loopwright.solver.design;
 
-import com.loopwright.solver.norm.HInfinityNorm;
-import com.loopwright.solver.riccati.RiccatiSolution;
-import com.loopwright.solver.simulation.StepMetrics;
 import java.util.List;
 
 /**

@@ -1,10 +1,11 @@
-package com.loopwright.solver.norm;
+package com.loopwright.solver.design;
+
 
 /**
  * H-infinity norm of a stable, strictly proper transfer matrix G(s) = C (sI - A)^-1 B.
  *
  * @param value                  a certified upper bound of sup over w >= 0 of sigma_max(G(jw)): never below the
- *                               norm and at most a factor {@code 1 + HInfinityNormCalculator.RELATIVE_TOLERANCE}
+ *                               norm and at most a factor {@code 1 + norm.HInfinityNormCalculator.RELATIVE_TOLERANCE}
  *                               above it (exact up to rounding for the closed-form two-state peak)
  * @param peakFrequencyRadPerSec frequency (rad/s, >= 0) of the largest evaluated gain, refined to a local maximum
  * @param attainedGain           sigma_max(G(j peakFrequencyRadPerSec)), a lower bound of the norm, <= value

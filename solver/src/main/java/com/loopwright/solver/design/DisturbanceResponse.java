@@ -1,4 +1,5 @@
-package com.loopwright.solver.simulation;
+package com.loopwright.solver.design;
+
 
 /**
  * The loop's response (r = 0) to one disturbance profile.
@@ -7,7 +8,7 @@ package com.loopwright.solver.simulation;
  * @param integralAbsoluteError  integral of |x1| dt (trapezoid on the grid), x1 units * s
  * @param integralSquaredError   integral of x1^2 dt, exact for the held w (Van Loan), x1 units^2 * s
  * @param recoverySeconds        time from the last change of w until |x1 - x1_final| stays within
- *                               {@value DisturbanceSimulator#RECOVERY_BAND_FRACTION} of the peak deviation (grid
+ *                               simulation.DisturbanceSimulator.RECOVERY_BAND_FRACTION of the peak deviation (grid
  *                               resolution); null for persistent profiles or if not recovered in the horizon
  * @param peakControl            max |u| on the grid
  * @param disturbanceEnergy      ||w||_2, exact for the held signal

@@ -1,4 +1,5 @@
-package com.loopwright.solver.simulation;
+package com.loopwright.solver.design;
+
 
 /**
  * Step metrics of a dense trajectory (saturated, sampled or delayed loops, where the exact event refinement of the

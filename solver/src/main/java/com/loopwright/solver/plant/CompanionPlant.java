@@ -1,4 +1,4 @@
-package com.loopwright.solver.highorder;
+package com.loopwright.solver.plant;
 
 import java.util.Arrays;
 import org.ejml.data.DMatrixRMaj;

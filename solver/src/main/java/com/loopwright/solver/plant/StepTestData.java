@@ -1,4 +1,4 @@
-package com.loopwright.solver.fit;
+package com.loopwright.solver.plant;
 
 /**
  * A logged step test: samples of the output at strictly increasing times, after a step of the input of size
@@ -33,7 +33,8 @@ public record StepTestData(double[] timeSeconds, double[] output, double stepTim
         return output.clone();
     }
 
-    int size() {
+    /** Number of samples. */
+    public int size() {
         return timeSeconds.length;
     }
 }

@@ -1,6 +1,5 @@
-package com.loopwright.solver.highorder;
+package com.loopwright.solver.spec;
 
-import com.loopwright.solver.spec.TargetDynamics;
 import java.util.ArrayList;
 import java.util.List;
 

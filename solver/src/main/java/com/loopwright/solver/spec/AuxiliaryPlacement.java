@@ -1,6 +1,5 @@
-package com.loopwright.solver.highorder;
+package com.loopwright.solver.spec;
 
-import com.loopwright.solver.spec.TargetDynamics;
 import java.util.List;
 
 /** Where the n - 2 auxiliary poles go relative to the dominant pair. */

@@ -1,4 +1,4 @@
-package com.loopwright.solver.fit;
+package com.loopwright.solver.plant;
 
 /**
  * Something about the data that limits what the fitted model can be trusted for.

@@ -1,4 +1,4 @@
-package com.loopwright.solver.frequency;
+package com.loopwright.solver.design;
 
 /**
  * One frequency of the loop broken at the plant input.

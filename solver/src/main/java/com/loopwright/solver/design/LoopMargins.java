@@ -1,12 +1,11 @@
-package com.loopwright.solver.frequency;
+package com.loopwright.solver.design;
 
-import com.loopwright.solver.frequency.CrossoverMargins;
 import java.util.List;
 
 /**
  * Stability margins of the loop broken at the plant input, L(s) = K (sI - A)^-1 B2 = b (k1 + k2 s)/(s^2 + a1 s + a0).
  *
- * <p>Every gain crossover counts (the rule is {@link CrossoverMargins}): with lag_i = (180 + arg L(j w_i)) mod 360
+ * <p>Every gain crossover counts (the rule is frequency.CrossoverMargins): with lag_i = (180 + arg L(j w_i)) mod 360
  * degrees at crossover w_i, a stable closed loop has phase margin min_i lag_i and delay margin min_i lag_i / w_i.
  *
  * @param crossoverRadPerSec      the gain crossover |L| = 1 that sets the phase margin; null if |L| never equals 1

@@ -1,4 +1,4 @@
-package com.loopwright.solver.fit;
+package com.loopwright.solver.plant;
 
 /**
  * Which optional parameters the fit estimates.

@@ -1,7 +1,5 @@
-package com.loopwright.solver.highorder;
+package com.loopwright.solver.design;
 
-import com.loopwright.solver.norm.HInfinityNorm;
-import com.loopwright.solver.riccati.RiccatiSolution;
 
 /**
  * Independent checks of a high-order design.
@@ -13,5 +11,5 @@ import com.loopwright.solver.riccati.RiccatiSolution;
  * @param certified            norm &lt;= gamma (with rounding slack) and the two solutions agree
  */
 public record HighOrderVerification(RiccatiSolution numeric, double relativeDifference, HInfinityNorm norm,
-                                    ClosedLoopStep.Result step, boolean certified) {
+                                    HighOrderStep step, boolean certified) {
 }

@@ -1,4 +1,4 @@
-package com.loopwright.solver.verify;
+package com.loopwright.solver.design;
 
 /**
  * One requested spec against its simulated value. Specs are upper limits.

@@ -1,4 +1,4 @@
-package com.loopwright.solver.loop;
+package com.loopwright.solver.design;
 
 /**
  * A state-feedback law u = kr r - (k1 x1 + k2 x2).

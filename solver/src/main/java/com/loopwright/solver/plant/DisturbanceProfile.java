@@ -1,4 +1,4 @@
-package com.loopwright.solver.simulation;
+package com.loopwright.solver.plant;
 
 import java.util.SplittableRandom;
 

@@ -1,4 +1,4 @@
-package com.loopwright.solver.highorder;
+package com.loopwright.solver.design;
 
 import com.loopwright.solver.spec.TargetDynamics;
 
@@ -13,5 +13,5 @@ import com.loopwright.solver.spec.TargetDynamics;
  * @param step                  the simulated step at the matched pair
  */
 public record SpecMatch(TargetDynamics target, TargetDynamics startingTarget, int iterations,
-                        double settlingResidual, double overshootResidualPoints, ClosedLoopStep.Result step) {
+                        double settlingResidual, double overshootResidualPoints, HighOrderStep step) {
 }

@@ -1,4 +1,4 @@
-package com.loopwright.solver.simulation;
+package com.loopwright.solver.design;
 
 /**
  * A simulated trajectory on a dense, strictly increasing time grid: states, the control applied to the plant,

@@ -1,4 +1,4 @@
-package com.loopwright.solver.fit;
+package com.loopwright.solver.plant;
 
 /**
  * One estimated parameter with its standard error and 95% confidence interval: estimate +- t_{0.975, n-p} se

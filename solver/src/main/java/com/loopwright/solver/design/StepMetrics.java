@@ -1,4 +1,4 @@
-package com.loopwright.solver.simulation;
+package com.loopwright.solver.design;
 
 /**
  * Time-domain metrics of a step response, measured on the exact continuous solution.

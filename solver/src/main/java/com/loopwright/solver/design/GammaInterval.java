@@ -1,6 +1,5 @@
-package com.loopwright.solver.highorder;
+package com.loopwright.solver.design;
 
-import com.loopwright.solver.design.GammaCondition;
 
 /**
  * One interval of the feasible gamma set: every gamma strictly between the ends completes the design.

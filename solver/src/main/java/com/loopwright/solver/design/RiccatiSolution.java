@@ -1,4 +1,4 @@
-package com.loopwright.solver.riccati;
+package com.loopwright.solver.design;
 
 import java.util.Objects;
 import org.ejml.data.DMatrixRMaj;
@@ -7,7 +7,8 @@ import org.ejml.data.DMatrixRMaj;
  * Stabilizing solution of {@code A'P + PA + PRP + Q = 0}.
  *
  * @param p symmetric n x n stabilizing solution ({@code A + RP} Hurwitz); stored and returned as copies
- * @param relativeResidual {@link RiccatiResidual#relative} of P for the equation that was solved
+ * @param relativeResidual the relative Riccati residual (riccati.RiccatiResidual#relative) of P for the
+ *                         equation that was solved
  * @param iterations number of matrix-sign-function Newton iterations performed
  */
 public record RiccatiSolution(DMatrixRMaj p, double relativeResidual, int iterations) {

@@ -1,4 +1,4 @@
-package com.loopwright.solver.export;
+package com.loopwright.solver.design;
 
 /**
  * The state-feedback law run by a controller once per sample period, by emulation: the continuous gains are
