@@ -20,9 +20,16 @@ public final class ClosedFormDesigner {
 
     /** Why no design exists for this target, or empty when some gamma completes it. */
     public Optional<DesignObstacle> obstacle(CanonicalPlant plant, TargetDynamics target) {
+        PoleMatch match = PoleMatch.of(plant, target);
+        Optional<DesignObstacle> unmatched = matchObstacle(plant, target, match);
+        return unmatched.isPresent() ? unmatched : boundObstacle(bounds(plant, match), plant, target);
+    }
+
+    /** p12 and p22 of the pole match must be positive, or the target is out of the plant's reach. */
+    private static Optional<DesignObstacle> matchObstacle(CanonicalPlant plant, TargetDynamics target,
+                                                          PoleMatch match) {
         double zeta = target.dampingRatio();
         double wn = target.naturalFrequencyRadPerSec();
-        PoleMatch match = PoleMatch.of(plant, target);
         if (!(match.p12() > 0)) {
             return Optional.of(new DesignObstacle(String.format(
                     "natural frequency %.6g rad/s is not above the plant's own sqrt(a0) = %.6g rad/s: the spec asks"
@@ -35,7 +42,13 @@ public final class ClosedFormDesigner {
                             + " damping than the plant already has (p22 = (2 zeta wn - a1)/b^2 must be > 0)",
                     2 * zeta * wn, plant.a1()), false));
         }
-        for (GammaBound bound : bounds(plant, match)) {
+        return Optional.empty();
+    }
+
+    /** The first bound no gamma can meet, as an obstacle. */
+    private static Optional<DesignObstacle> boundObstacle(List<GammaBound> bounds, CanonicalPlant plant,
+                                                          TargetDynamics target) {
+        for (GammaBound bound : bounds) {
             if (!bound.satisfiable()) {
                 return Optional.of(obstacleFor(bound, plant, target));
             }
@@ -53,12 +66,9 @@ public final class ClosedFormDesigner {
         double b2 = plant.b() * plant.b();
         double p12 = match.p12();
         double p22 = match.p22();
-        int count = GammaCondition.CLOSED_FORM.size();
-        double[] headrooms = new double[count];
-        double[] lowerBounds = new double[count];
+        List<GammaBound> bounds = new ArrayList<>(GammaCondition.CLOSED_FORM.size());
         int binding = 0;
-        for (int i = 0; i < count; i++) {
-            GammaCondition condition = GammaCondition.CLOSED_FORM.get(i);
+        for (GammaCondition condition : GammaCondition.CLOSED_FORM) {
             double headroom = switch (condition) {
                 case POSITION_WEIGHT_REAL -> b2 + 2 * a0 / p12;
                 case VELOCITY_WEIGHT_REAL -> b2 - (2 * p12 - 2 * a1 * p22) / (p22 * p22);
@@ -68,16 +78,16 @@ public final class ClosedFormDesigner {
                 case STABILIZING_STIFFNESS -> b2 + a0 / p12;
                 default -> throw new IllegalStateException(condition + " is not a closed-form condition");
             };
-            headrooms[i] = headroom;
-            lowerBounds[i] = plant.d() == 0 ? 0 : headroom > 0 ? Math.abs(plant.d()) / Math.sqrt(headroom) : 0;
-            if (Double.compare(lowerBounds[i], lowerBounds[binding]) > 0) {
-                binding = i; // the first largest bound sets gamma_min
+            double lowerBound = plant.d() == 0 ? 0 : headroom > 0 ? Math.abs(plant.d()) / Math.sqrt(headroom) : 0;
+            bounds.add(GammaBound.closedForm(condition, headroom, lowerBound, false));
+            if (Double.compare(lowerBound, bounds.get(binding).gammaLowerBound()) > 0) {
+                binding = bounds.size() - 1; // the first largest bound sets gamma_min
             }
         }
-        List<GammaBound> bounds = new ArrayList<>(count);
-        for (int i = 0; i < count; i++) {
-            bounds.add(GammaBound.closedForm(GammaCondition.CLOSED_FORM.get(i), headrooms[i], lowerBounds[i],
-                    plant.d() != 0 && i == binding));
+        if (plant.d() != 0) {
+            GammaBound first = bounds.get(binding);
+            bounds.set(binding, GammaBound.closedForm(first.condition(), first.headroom().getAsDouble(),
+                    first.gammaLowerBound(), true));
         }
         return bounds;
     }
@@ -88,14 +98,18 @@ public final class ClosedFormDesigner {
      * @throws InfeasibleDesignException when the target has an obstacle or a fixed gamma is not above gamma_min
      */
     public ClosedFormDesign design(CanonicalPlant plant, TargetDynamics target, GammaChoice choice) {
-        Optional<DesignObstacle> obstacle = obstacle(plant, target);
+        // one pole match and one set of bounds serve the feasibility check and the design
+        PoleMatch match = PoleMatch.of(plant, target);
+        Optional<DesignObstacle> obstacle = matchObstacle(plant, target, match);
+        List<GammaBound> bounds = obstacle.isPresent() ? List.of() : bounds(plant, match);
+        if (obstacle.isEmpty()) {
+            obstacle = boundObstacle(bounds, plant, target);
+        }
         if (obstacle.isPresent()) {
             throw new InfeasibleDesignException(new Infeasibility(
                     obstacle.get().dampingBound() ? SpecQuantity.OVERSHOOT_PERCENT : SpecQuantity.TIME_SPEC,
                     obstacle.get().reason(), List.of()));
         }
-        PoleMatch match = PoleMatch.of(plant, target);
-        List<GammaBound> bounds = bounds(plant, match);
         double gammaMin = bounds.stream().mapToDouble(GammaBound::gammaLowerBound).max().orElse(0);
         double gamma = choice instanceof GammaChoice.Fixed fixed
                 ? requireAbove(fixed.gamma(), gammaMin, plant)
