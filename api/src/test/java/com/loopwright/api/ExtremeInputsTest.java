@@ -1,10 +1,9 @@
 package com.loopwright.api;
 
-import com.loopwright.api.validation.FieldLimits;
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
+import com.loopwright.api.validation.FieldLimits;
 import java.nio.charset.StandardCharsets;
 import java.util.Map;
 import java.util.TreeMap;
@@ -19,7 +18,7 @@ class ExtremeInputsTest {
 
     @Test
     void rangeCornersGiveADesignOrAProblem() {
-                double[] a0 = {-FieldLimits.MAX_ABS_A0, -1, 0, 1, FieldLimits.MAX_ABS_A0};
+        double[] a0 = {-FieldLimits.MAX_ABS_A0, -1, 0, 1, FieldLimits.MAX_ABS_A0};
         double[] a1 = {-FieldLimits.MAX_ABS_A1, 0, 0.5, FieldLimits.MAX_ABS_A1};
         double[] b = {-FieldLimits.MAX_ABS_B, FieldLimits.MIN_ABS_B, 1, FieldLimits.MAX_ABS_B};
         double[] d = {0, 1, FieldLimits.MAX_ABS_D};
@@ -32,21 +31,36 @@ class ExtremeInputsTest {
                     for (double xd : d) {
                         for (double t : time) {
                             for (double os : overshoot) {
-                                String body = String.format(java.util.Locale.ROOT,
+                                String body = String.format(
+                                        java.util.Locale.ROOT,
                                         "{\"plant\":{\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s},"
                                                 + "\"spec\":{\"settlingTime\":%s,\"overshootPercent\":%s}}",
-                                        x0, x1, xb, xd, t, os);
+                                        x0,
+                                        x1,
+                                        xb,
+                                        xd,
+                                        t,
+                                        os);
                                 Answer outcome = Answer.design(body.getBytes(StandardCharsets.UTF_8));
                                 statuses.merge(outcome.status(), 1, Integer::sum);
-                                assertTrue(outcome.status() == 200 || outcome.status() == 422, body + " -> "
-                                        + outcome.status() + " " + outcome.body());
+                                assertTrue(
+                                        outcome.status() == 200 || outcome.status() == 422,
+                                        body + " -> " + outcome.status() + " " + outcome.body());
                                 // A design that comes back is certified and meets its specs in simulation.
                                 if (outcome.status() == 200) {
-                                    assertTrue(outcome.body().at("/verification/certified").asBoolean()
-                                            && outcome.body().at("/verification/specsMet").asBoolean(), body);
+                                    assertTrue(
+                                            outcome.body()
+                                                            .at("/verification/certified")
+                                                            .asBoolean()
+                                                    && outcome.body()
+                                                            .at("/verification/specsMet")
+                                                            .asBoolean(),
+                                            body);
                                 }
-                                assertTrue(!outcome.body().toString().contains("NaN")
-                                        && !outcome.body().toString().contains("Infinity"), body);
+                                assertTrue(
+                                        !outcome.body().toString().contains("NaN")
+                                                && !outcome.body().toString().contains("Infinity"),
+                                        body);
                             }
                         }
                     }

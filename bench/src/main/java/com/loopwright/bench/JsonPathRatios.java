@@ -1,12 +1,12 @@
 package com.loopwright.bench;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.design.DesignRequest;
 import com.loopwright.api.design.DesignRequestValidator;
 import com.loopwright.api.design.DesignResponseMapper;
 import com.loopwright.api.design.ValidatedDesign;
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.json.FiniteNumbersModule;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.solver.pipeline.DesignReport;
@@ -24,8 +24,7 @@ import java.util.function.Supplier;
  */
 public final class JsonPathRatios {
 
-    private JsonPathRatios() {
-    }
+    private JsonPathRatios() {}
 
     public static void main(String[] args) {
         ObjectMapper mapper = StrictJson.newMapper();
@@ -34,8 +33,8 @@ public final class JsonPathRatios {
         DesignResponseMapper responses = new DesignResponseMapper();
         byte[] body = Scenarios.indexingAxisRequestBytes();
         ValidatedDesign design = validator.validate(read(mapper, body));
-        DesignReport report = new LoopDesigner().design(design.plant(), design.spec(), design.gammaChoice(),
-                design.stepSize(), design.bandFraction());
+        DesignReport report = new LoopDesigner()
+                .design(design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
 
         Supplier<Object> decode = () -> validator.validate(read(mapper, body));
         Supplier<Object> map = () -> responses.toResponse(design, report, null, null);
@@ -46,17 +45,20 @@ public final class JsonPathRatios {
         Supplier<Object> directRoute = () -> write(writer, responses.toResponse(design, report, null, null));
 
         System.out.printf("load before: %.2f%n", load());
-        for (var single : new Object[][] {{"decode + validate the request", decode},
-                {"map the report to the response record", map}}) {
+        for (var single : new Object[][] {
+            {"decode + validate the request", decode}, {"map the report to the response record", map}
+        }) {
             @SuppressWarnings("unchecked")
             double nanos = PairedRatios.single((Supplier<Object>) single[1]);
             System.out.printf("%-60s %8.2f us CPU%n", single[0], nanos / 1e3);
         }
         PairedRatios.Ratio ratio = PairedRatios.measure(new PairedRatios.Pair(
                 "map + write: direct with finite serializer vs guarded tree", directRoute, treeRoute));
-        System.out.printf("%-60s direct %8.2f us  tree %8.2f us  speedup %5.2fx%n", ratio.name(),
-                ratio.oursNanos() / 1e3, ratio.referenceNanos() / 1e3, ratio.speedup());
-        System.out.printf("response size: %d bytes%n", write(writer, responses.toResponse(design, report, null, null)).length);
+        System.out.printf(
+                "%-60s direct %8.2f us  tree %8.2f us  speedup %5.2fx%n",
+                ratio.name(), ratio.oursNanos() / 1e3, ratio.referenceNanos() / 1e3, ratio.speedup());
+        System.out.printf(
+                "response size: %d bytes%n", write(writer, responses.toResponse(design, report, null, null)).length);
         System.out.printf("load after: %.2f%n", load());
     }
 
@@ -79,5 +81,4 @@ public final class JsonPathRatios {
     private static double load() {
         return java.lang.management.ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage();
     }
-
 }

@@ -30,12 +30,10 @@ public final class PairedRatios {
 
     private static final ThreadMXBean THREADS = ManagementFactory.getThreadMXBean();
 
-    private PairedRatios() {
-    }
+    private PairedRatios() {}
 
     /** A named pair of operations: ours and the reference. */
-    record Pair(String name, Supplier<Object> ours, Supplier<Object> reference) {
-    }
+    record Pair(String name, Supplier<Object> ours, Supplier<Object> reference) {}
 
     /** Median CPU time per operation of each side [ns] and reference / ours. */
     record Ratio(String name, double oursNanos, double referenceNanos) {
@@ -51,32 +49,39 @@ public final class PairedRatios {
         StepSimulationBenchmark step = new StepSimulationBenchmark();
         step.setUp();
         List<Pair> pairs = new java.util.ArrayList<>();
-        pairs.add(new Pair("step 2000 samples: ZOH vs Dormand-Prince tol 1e-12", step::zeroOrderHold, step::dormandPrince));
+        pairs.add(new Pair(
+                "step 2000 samples: ZOH vs Dormand-Prince tol 1e-12", step::zeroOrderHold, step::dormandPrince));
         for (int n : new int[] {2, 4, 8}) {
             RiccatiBenchmark riccati = new RiccatiBenchmark();
             riccati.n = n;
             riccati.setUp();
-            pairs.add(new Pair("Riccati n = " + n + ": Hamiltonian sign vs Hipparchus", riccati::hamiltonianSign,
+            pairs.add(new Pair(
+                    "Riccati n = " + n + ": Hamiltonian sign vs Hipparchus",
+                    riccati::hamiltonianSign,
                     riccati::hipparchus));
         }
         System.out.printf("load before: %s%n", loadAverage());
         for (Pair pair : pairs) {
             Ratio ratio = measure(pair);
-            System.out.printf("%-55s ours %10.1f us  reference %10.1f us  speedup %6.1fx%n", ratio.name(),
-                    ratio.oursNanos() / 1e3, ratio.referenceNanos() / 1e3, ratio.speedup());
+            System.out.printf(
+                    "%-55s ours %10.1f us  reference %10.1f us  speedup %6.1fx%n",
+                    ratio.name(), ratio.oursNanos() / 1e3, ratio.referenceNanos() / 1e3, ratio.speedup());
         }
         // No reference for a whole design: its CPU time bounds the designs per second a core can serve.
         DesignBenchmark design = new DesignBenchmark();
         // The step metrics are the largest part of a design's verification.
         StepMetricsBenchmark stepMetrics = new StepMetricsBenchmark();
         stepMetrics.setUp();
-        System.out.printf("%-55s %10.1f us CPU per call%n", "step metrics, 2000 samples (one design's share)",
-                single(stepMetrics::measure) / 1e3);
-        for (Pair single : List.of(new Pair("design: solver pipeline", design::solverPipeline, null),
+        System.out.printf(
+                "%-55s %10.1f us CPU per call%n",
+                "step metrics, 2000 samples (one design's share)", single(stepMetrics::measure) / 1e3);
+        for (Pair single : List.of(
+                new Pair("design: solver pipeline", design::solverPipeline, null),
                 new Pair("design: JSON bytes in, JSON bytes out (service path)", design::jsonEncode, null))) {
             double nanos = single(single.ours());
-            System.out.printf("%-55s %10.1f us CPU per design = %8.0f designs/s per core%n", single.name(),
-                    nanos / 1e3, 1e9 / nanos);
+            System.out.printf(
+                    "%-55s %10.1f us CPU per design = %8.0f designs/s per core%n",
+                    single.name(), nanos / 1e3, 1e9 / nanos);
         }
         System.out.printf("load after: %s%n", loadAverage());
     }
@@ -130,7 +135,8 @@ public final class PairedRatios {
     }
 
     private static String loadAverage() {
-        return String.format("%.2f (1-minute load average, %d cores)",
+        return String.format(
+                "%.2f (1-minute load average, %d cores)",
                 ManagementFactory.getOperatingSystemMXBean().getSystemLoadAverage(),
                 Runtime.getRuntime().availableProcessors());
     }

@@ -50,7 +50,8 @@ public class RiccatiBenchmark {
         hipparchusQ = RiccatiCase.toHipparchus(problem.q());
         hipparchusControlWeight = RiccatiCase.toHipparchus(problem.controlWeight());
         RiccatiComparison comparison = RiccatiComparison.of(problem);
-        System.out.printf("%nRiccati n = %d: relative residual ours %.3e, Hipparchus %.3e; relative P difference %.3e%n",
+        System.out.printf(
+                "%nRiccati n = %d: relative residual ours %.3e, Hipparchus %.3e; relative P difference %.3e%n",
                 n, comparison.ourResidual(), comparison.referenceResidual(), comparison.relativeDifference());
     }
 
@@ -68,10 +69,13 @@ public class RiccatiBenchmark {
     public record RiccatiComparison(double ourResidual, double referenceResidual, double relativeDifference) {
 
         public static RiccatiComparison of(RiccatiCase problem) {
-            DMatrixRMaj ours = new HamiltonianRiccatiSolver().solve(problem.a(), problem.r(), problem.q()).p();
+            DMatrixRMaj ours = new HamiltonianRiccatiSolver()
+                    .solve(problem.a(), problem.r(), problem.q())
+                    .p();
             DMatrixRMaj reference = RiccatiCase.fromHipparchus(new RiccatiEquationSolverImpl(
-                    RiccatiCase.toHipparchus(problem.a()), RiccatiCase.toHipparchus(problem.b()),
-                    RiccatiCase.toHipparchus(problem.q()), RiccatiCase.toHipparchus(problem.controlWeight())).getP());
+                            RiccatiCase.toHipparchus(problem.a()), RiccatiCase.toHipparchus(problem.b()),
+                            RiccatiCase.toHipparchus(problem.q()), RiccatiCase.toHipparchus(problem.controlWeight()))
+                    .getP());
             double squaredDifference = 0;
             double squaredReference = 0;
             for (int i = 0; i < ours.getNumElements(); i++) {

@@ -17,15 +17,13 @@ import java.nio.charset.StandardCharsets;
 public final class Scenarios {
 
     /** The README request body, byte for byte the one the service receives. */
-    public static final String INDEXING_AXIS_REQUEST =
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
-                    + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+    public static final String INDEXING_AXIS_REQUEST = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+            + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
 
     /** Settling time of the indexing axis spec [s]. */
     public static final double SETTLING_TIME_SECONDS = 0.15;
 
-    private Scenarios() {
-    }
+    private Scenarios() {}
 
     public static CanonicalPlant indexingAxisPlant() {
         return new CanonicalPlant(0, 0.48, 400, 400);
@@ -45,8 +43,11 @@ public final class Scenarios {
     }
 
     public static ClosedFormDesign indexingAxisDesign() {
-        return new ClosedFormDesigner().design(indexingAxisPlant(), indexingAxisTarget(),
-                new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR));
+        return new ClosedFormDesigner()
+                .design(
+                        indexingAxisPlant(),
+                        indexingAxisTarget(),
+                        new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR));
     }
 
     public static byte[] indexingAxisRequestBytes() {

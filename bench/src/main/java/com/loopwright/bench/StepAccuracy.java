@@ -22,8 +22,7 @@ public final class StepAccuracy {
 
     public static final double STEP_SIZE = 1.0;
 
-    private StepAccuracy() {
-    }
+    private StepAccuracy() {}
 
     public static LinearLoop loop(TargetDynamics target) {
         double wn = target.naturalFrequencyRadPerSec();
@@ -41,8 +40,8 @@ public final class StepAccuracy {
         double zeta = target.dampingRatio();
         double wn = target.naturalFrequencyRadPerSec();
         double root = Math.sqrt(1 - zeta * zeta);
-        return stepSize * (1 - Math.exp(-zeta * wn * timeSeconds) / root
-                * Math.sin(wn * root * timeSeconds + Math.acos(zeta)));
+        return stepSize
+                * (1 - Math.exp(-zeta * wn * timeSeconds) / root * Math.sin(wn * root * timeSeconds + Math.acos(zeta)));
     }
 
     /** Largest |y[k] - y(t_k)| over the grid t_k = horizon k / (samples - 1). */

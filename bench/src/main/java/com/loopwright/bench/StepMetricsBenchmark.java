@@ -36,7 +36,7 @@ public class StepMetricsBenchmark {
 
     @Benchmark
     public StepMetrics measure() {
-        return metrics.measure(loop, StepAccuracy.STEP_SIZE, StepAccuracy.HORIZON_SECONDS, StepAccuracy.SAMPLES,
-                BAND_FRACTION);
+        return metrics.measure(
+                loop, StepAccuracy.STEP_SIZE, StepAccuracy.HORIZON_SECONDS, StepAccuracy.SAMPLES, BAND_FRACTION);
     }
 }

@@ -37,7 +37,8 @@ public class StepSimulationBenchmark {
         reference = new DormandPrinceStep(loop, StepAccuracy.STEP_SIZE);
         double zohError = StepAccuracy.maxOutputError(target, zeroOrderHold().output());
         double referenceError = StepAccuracy.maxOutputError(target, dormandPrince());
-        System.out.printf("%nstep, %d samples: max |y - y_analytic| ZOH %.3e, Dormand-Prince (tol %.0e) %.3e%n",
+        System.out.printf(
+                "%nstep, %d samples: max |y - y_analytic| ZOH %.3e, Dormand-Prince (tol %.0e) %.3e%n",
                 StepAccuracy.SAMPLES, zohError, DormandPrinceStep.TOLERANCE, referenceError);
     }
 

@@ -32,7 +32,8 @@ class BenchmarkFixturesTest {
         TargetDynamics target = Scenarios.indexingAxisTarget();
         StepSimulationBenchmark benchmark = new StepSimulationBenchmark();
         benchmark.setUp();
-        double zohError = StepAccuracy.maxOutputError(target, benchmark.zeroOrderHold().output());
+        double zohError =
+                StepAccuracy.maxOutputError(target, benchmark.zeroOrderHold().output());
         double dormandPrinceError = StepAccuracy.maxOutputError(target, benchmark.dormandPrince());
         assertEquals(StepAccuracy.SAMPLES, benchmark.dormandPrince().length);
         assertTrue(zohError < 1e-12, "ZOH error " + zohError);
@@ -57,7 +58,8 @@ class BenchmarkFixturesTest {
     void bothRiccatiSolversReachRoundoffOnTheBenchmarkProblems() {
         // reference: Hipparchus RiccatiEquationSolverImpl on the same (A, B, Q, Rc).
         for (int n : new int[] {2, 4, 8}) {
-            RiccatiBenchmark.RiccatiComparison comparison = RiccatiBenchmark.RiccatiComparison.of(RiccatiCase.ofOrder(n));
+            RiccatiBenchmark.RiccatiComparison comparison =
+                    RiccatiBenchmark.RiccatiComparison.of(RiccatiCase.ofOrder(n));
             assertTrue(comparison.relativeDifference() < 1e-10, "n = " + n + ": " + comparison);
             assertTrue(comparison.ourResidual() < 1e-14, "n = " + n + ": " + comparison);
             assertTrue(comparison.referenceResidual() < 1e-14, "n = " + n + ": " + comparison);
@@ -72,9 +74,10 @@ class BenchmarkFixturesTest {
         HInfinityNormBenchmark benchmark = new HInfinityNormBenchmark();
         HInfinityNorm iterated = benchmark.closedLoopNorm();
         double exact = benchmark.twoStatePeakGain().value();
-        assertTrue(exact <= iterated.value() * (1 + 1e-14)
-                && exact >= iterated.attainedGain() * (1 - 1e-14)
-                && iterated.value() <= exact * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + 1e-14),
+        assertTrue(
+                exact <= iterated.value() * (1 + 1e-14)
+                        && exact >= iterated.attainedGain() * (1 - 1e-14)
+                        && iterated.value() <= exact * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + 1e-14),
                 exact + " vs " + iterated);
     }
 

@@ -34,7 +34,8 @@ public final class DesignClient {
     /** Field errors or proposals printed from one problem at most. */
     static final int MAX_LISTED = 100;
 
-    private final HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
+    private final HttpClient http =
+            HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
     private final URI base;
     private final String apiKey;
 
@@ -57,7 +58,8 @@ public final class DesignClient {
 
         /** A top-level-or-nested numeric field by name, e.g. "k1"; NaN when absent. */
         public double number(String field) {
-            Matcher m = Pattern.compile("\"" + Pattern.quote(field) + "\":(-?[0-9.eE+-]+)").matcher(body);
+            Matcher m = Pattern.compile("\"" + Pattern.quote(field) + "\":(-?[0-9.eE+-]+)")
+                    .matcher(body);
             return m.find() ? Double.parseDouble(m.group(1)) : Double.NaN;
         }
     }
@@ -76,9 +78,10 @@ public final class DesignClient {
             if (response.statusCode() != 503 || attempt >= MAX_ATTEMPTS) {
                 return new Reply(response.statusCode(), response.body());
             }
-            long seconds = retryAfterSeconds(response.headers().firstValue("Retry-After").orElse(null));
-            System.err.printf("HTTP 503 (overloaded): retrying in %d s (attempt %d of %d)%n", seconds, attempt + 1,
-                    MAX_ATTEMPTS);
+            long seconds = retryAfterSeconds(
+                    response.headers().firstValue("Retry-After").orElse(null));
+            System.err.printf(
+                    "HTTP 503 (overloaded): retrying in %d s (attempt %d of %d)%n", seconds, attempt + 1, MAX_ATTEMPTS);
             Thread.sleep(seconds * 1000);
         }
     }
@@ -113,7 +116,8 @@ public final class DesignClient {
     }
 
     public static void main(String[] args) throws IOException, InterruptedException {
-        String url = args.length > 0 ? args[0] : System.getenv().getOrDefault("LOOPWRIGHT_URL", "http://localhost:8080");
+        String url =
+                args.length > 0 ? args[0] : System.getenv().getOrDefault("LOOPWRIGHT_URL", "http://localhost:8080");
         Reply reply = new DesignClient(URI.create(url), System.getenv("LOOPWRIGHT_API_KEY")).design(INDEXING_AXIS);
         if (reply.status() != 200) {
             printProblem(reply, System.err);
@@ -123,18 +127,22 @@ public final class DesignClient {
             System.err.println("the design is not certified");
             System.exit(1);
         }
-        System.out.printf("u = %.6g*r - (%.6g*x1 + %.6g*x2), gamma = %.6g (gamma_min %.6g)%n",
-                reply.number("referenceGain"), reply.number("k1"), reply.number("k2"), reply.number("gamma"),
+        System.out.printf(
+                "u = %.6g*r - (%.6g*x1 + %.6g*x2), gamma = %.6g (gamma_min %.6g)%n",
+                reply.number("referenceGain"),
+                reply.number("k1"),
+                reply.number("k2"),
+                reply.number("gamma"),
                 reply.number("gammaMin"));
-        System.out.printf("simulated: settling %.6g s, overshoot %.4g %%, peak control %.6g%n",
+        System.out.printf(
+                "simulated: settling %.6g s, overshoot %.4g %%, peak control %.6g%n",
                 reply.number("settlingTime"), reply.number("overshootPercent"), reply.number("peakControl"));
     }
 
     /** Just enough JSON reading for a problem's flat members and its arrays of flat objects. */
     static final class FlatJson {
 
-        private FlatJson() {
-        }
+        private FlatJson() {}
 
         /** The unescaped string member {@code name} of a flat object text, or null. */
         static String string(String json, String name) {
@@ -145,7 +153,8 @@ public final class DesignClient {
 
         /** The number member {@code name} as written, or null. */
         static String number(String json, String name) {
-            Matcher m = Pattern.compile("\"" + Pattern.quote(name) + "\"\\s*:\\s*(-?[0-9.eE+-]+)").matcher(json);
+            Matcher m = Pattern.compile("\"" + Pattern.quote(name) + "\"\\s*:\\s*(-?[0-9.eE+-]+)")
+                    .matcher(json);
             return m.find() ? m.group(1) : null;
         }
 
@@ -183,7 +192,8 @@ public final class DesignClient {
         /** Each object of the array member {@code name} as text (its objects hold no nested objects). */
         static List<String> objects(String json, String name) {
             List<String> objects = new ArrayList<>();
-            Matcher start = Pattern.compile("\"" + Pattern.quote(name) + "\"\\s*:\\s*\\[").matcher(json);
+            Matcher start = Pattern.compile("\"" + Pattern.quote(name) + "\"\\s*:\\s*\\[")
+                    .matcher(json);
             if (!start.find()) {
                 return objects;
             }

@@ -20,6 +20,7 @@ public final class FatalErrors implements Thread.UncaughtExceptionHandler {
     public static final int OUT_OF_MEMORY_EXIT_STATUS = 3;
     /** Causes followed when looking for an OutOfMemoryError. */
     static final int MAX_CAUSE_DEPTH = 16;
+
     private static final Logger LOG = LoggerFactory.getLogger(FatalErrors.class);
 
     private final IntConsumer halt;
@@ -54,8 +55,10 @@ public final class FatalErrors implements Thread.UncaughtExceptionHandler {
         }
         if (halting.compareAndSet(false, true)) {
             // No stack trace: building it needs memory, and the message says all that matters.
-            LOG.error("out of memory ({}): exiting with status {} so that the service is restarted",
-                    failure.getMessage(), OUT_OF_MEMORY_EXIT_STATUS);
+            LOG.error(
+                    "out of memory ({}): exiting with status {} so that the service is restarted",
+                    failure.getMessage(),
+                    OUT_OF_MEMORY_EXIT_STATUS);
             halt.accept(OUT_OF_MEMORY_EXIT_STATUS);
         }
         return true;

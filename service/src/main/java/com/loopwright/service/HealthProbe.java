@@ -11,16 +11,17 @@ import java.time.Duration;
  */
 public final class HealthProbe {
 
-    private HealthProbe() {
-    }
+    private HealthProbe() {}
 
     public static void main(String[] args) {
         String port = System.getenv().getOrDefault("LOOPWRIGHT_PORT", String.valueOf(ServiceConfig.DEFAULT_PORT));
         try {
-            HttpResponse<Void> response = HttpClient.newHttpClient().send(
-                    HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + port + "/health"))
-                            .timeout(Duration.ofSeconds(2)).build(),
-                    HttpResponse.BodyHandlers.discarding());
+            HttpResponse<Void> response = HttpClient.newHttpClient()
+                    .send(
+                            HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + port + "/health"))
+                                    .timeout(Duration.ofSeconds(2))
+                                    .build(),
+                            HttpResponse.BodyHandlers.discarding());
             System.exit(response.statusCode() == 200 ? 0 : 1);
         } catch (Exception e) {
             System.exit(1);

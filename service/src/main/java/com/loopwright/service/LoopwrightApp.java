@@ -8,43 +8,43 @@ import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.EndpointRunner;
 import com.loopwright.api.fit.FitEndpoint;
 import com.loopwright.api.highorder.HighOrderEndpoint;
-import com.loopwright.api.verification.VerificationEndpoint;
 import com.loopwright.api.json.StrictJson;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.api.takeaway.Takeaways;
+import com.loopwright.api.verification.VerificationEndpoint;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.compute.Designs;
 import com.loopwright.service.compute.ExchangeDesigns;
 import com.loopwright.service.http.CoreProblems;
 import com.loopwright.service.http.HttpLimits;
 import com.loopwright.service.http.ProblemErrorHandler;
-import com.loopwright.service.http.RequestBodyGate;
-import com.loopwright.service.http.StreamCuts;
 import com.loopwright.service.http.ProblemException;
 import com.loopwright.service.http.ProblemResponses;
+import com.loopwright.service.http.RequestBodyGate;
+import com.loopwright.service.http.StreamCuts;
 import com.loopwright.service.observe.Metrics;
 import com.loopwright.service.observe.RequestIds;
 import com.loopwright.service.routes.BatchRoute;
-import com.loopwright.api.takeaway.Takeaways;
 import com.loopwright.service.routes.ContractRoute;
 import com.loopwright.service.routes.DashboardRoute;
-import com.loopwright.service.routes.JsonExchangeRoute;
 import com.loopwright.service.routes.HealthRoute;
+import com.loopwright.service.routes.JsonExchangeRoute;
 import com.loopwright.service.routes.MetricsRoute;
 import com.loopwright.service.routes.ReadinessRoute;
 import com.loopwright.service.routes.RouteTable;
 import com.loopwright.service.routes.RouteTable.Route;
+import com.loopwright.service.routes.TakeawayRoute;
 import com.loopwright.service.security.ApiKeys;
 import com.loopwright.service.security.Cors;
 import com.loopwright.service.security.KeyedAccess;
 import com.loopwright.service.security.SecurityHeaders;
-import com.loopwright.service.routes.TakeawayRoute;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HttpResponseException;
 import java.util.List;
-import java.util.function.Function;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
+import java.util.function.Function;
 import org.eclipse.jetty.server.AbstractConnector;
 import org.eclipse.jetty.server.Connector;
 import org.eclipse.jetty.server.Server;
@@ -61,8 +61,7 @@ public final class LoopwrightApp {
     private static final Logger ACCESS = LoggerFactory.getLogger("com.loopwright.access");
     private static final String STARTED_NANOS = "loopwright.startedNanos";
 
-    private LoopwrightApp() {
-    }
+    private LoopwrightApp() {}
 
     public static Javalin create(ServiceConfig config) {
         return create(config, null);
@@ -78,25 +77,24 @@ public final class LoopwrightApp {
         ObjectMapper mapper = StrictJson.newMapper();
         Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(mapper) : computation, fatal);
         ProblemResponses problems = new ProblemResponses(mapper);
-        ComputePool pool = new ComputePool(config.workerThreads(), config.queueCapacity(),
-                config.computeDeadlineMillis());
+        ComputePool pool =
+                new ComputePool(config.workerThreads(), config.queueCapacity(), config.computeDeadlineMillis());
         Metrics metrics = new Metrics(pool::activeWorkers, pool::queuedDesigns);
         StreamCuts cuts = new StreamCuts();
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
         Cors cors = new Cors(config.corsOrigins());
-        JsonExchangeRoute design = JsonExchangeRoute.encoded(problems, pool, designs::design,
-                outcome -> metrics.design(Metrics.outcomeOf(outcome)));
+        JsonExchangeRoute design = JsonExchangeRoute.encoded(
+                problems, pool, designs::design, outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
         EndpointRunner runner = new EndpointRunner(mapper);
         // A JSON-to-JSON endpoint on the compute pool, its fatal errors guarded: one call per route-table row.
-        Function<Endpoint<?, ?, ?>, JsonExchangeRoute> json = endpoint -> new JsonExchangeRoute(problems, pool,
-                fatal.guard((byte[] body) -> runner.run(endpoint, body)));
+        Function<Endpoint<?, ?, ?>, JsonExchangeRoute> json = endpoint ->
+                new JsonExchangeRoute(problems, pool, fatal.guard((byte[] body) -> runner.run(endpoint, body)));
         HealthRoute health = new HealthRoute();
         Takeaways takeaways = new Takeaways(runner);
         TakeawayRoute plots = new TakeawayRoute("figure", fatal.guard(takeaways::plot), problems, pool);
-        TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems,
-                pool);
+        TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems, pool);
         DashboardRoute dashboard = new DashboardRoute();
         // Every endpoint, one line each: the table registers it, preflights it, keys it and labels its metrics.
         RouteTable table = new RouteTable(List.of(
@@ -117,8 +115,12 @@ public final class LoopwrightApp {
             RouteTable.Matcher paths = table.matcher(javalin.router);
             KeyedAccess access = new KeyedAccess(keys, paths);
             // The key is checked from the headers before a body is admitted: without one, no body budget is reserved.
-            RequestBodyGate bodies = new RequestBodyGate(config.maxRequestBytes(), config.http(),
-                    new CoreProblems(mapper), access::admitsBody, gateObserver(metrics, paths));
+            RequestBodyGate bodies = new RequestBodyGate(
+                    config.maxRequestBytes(),
+                    config.http(),
+                    new CoreProblems(mapper),
+                    access::admitsBody,
+                    gateObserver(metrics, paths));
             metrics.observeBodyBudget(bodies::availableBodyBytes);
             javalin.http.maxRequestSize = config.maxRequestBytes();
             javalin.http.prefer405over404 = true;
@@ -176,16 +178,20 @@ public final class LoopwrightApp {
                 e.headers().forEach(ctx::header);
                 problems.write(ctx, e.problem());
             });
-            javalin.routes.exception(HttpResponseException.class, (e, ctx) -> problems.write(ctx,
-                    statusProblem(e.getStatus())));
+            javalin.routes.exception(
+                    HttpResponseException.class, (e, ctx) -> problems.write(ctx, statusProblem(e.getStatus())));
             javalin.routes.exception(Exception.class, (e, ctx) -> {
                 LOG.error("unhandled failure on {} {}", ctx.method(), ctx.path(), e);
                 problems.write(ctx, ProblemType.INTERNAL_ERROR.problem(null));
             });
-            javalin.routes.error(404, ctx -> problems.write(ctx, ProblemType.NOT_FOUND.problem(
-                    "no resource at this path; see GET /openapi.yaml")));
-            javalin.routes.error(405, ctx -> problems.write(ctx, ProblemType.METHOD_NOT_ALLOWED.problem(
-                    "this method is not supported on this path")));
+            javalin.routes.error(
+                    404,
+                    ctx -> problems.write(
+                            ctx, ProblemType.NOT_FOUND.problem("no resource at this path; see GET /openapi.yaml")));
+            javalin.routes.error(
+                    405,
+                    ctx -> problems.write(
+                            ctx, ProblemType.METHOD_NOT_ALLOWED.problem("this method is not supported on this path")));
             javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths));
         });
     }
@@ -236,8 +242,8 @@ public final class LoopwrightApp {
     private static void logAccess(String method, String route, int status, double seconds) {
         if (ACCESS.isInfoEnabled()) {
             // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
-            ACCESS.info(Metrics.methodLabel(method) + ' ' + route + ' ' + status + ' ' + Math.round(seconds * 1e4) / 10.0
-                    + " ms");
+            ACCESS.info(Metrics.methodLabel(method) + ' ' + route + ' ' + status + ' '
+                    + Math.round(seconds * 1e4) / 10.0 + " ms");
         }
     }
 
@@ -247,8 +253,10 @@ public final class LoopwrightApp {
             case 405 -> ProblemType.METHOD_NOT_ALLOWED.problem(null);
             case 413 -> ProblemType.PAYLOAD_TOO_LARGE.problem("the body exceeds the request size cap");
             case 415 -> ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(null);
-            default -> status >= 500 ? ProblemType.INTERNAL_ERROR.problem(null)
-                    : ProblemType.MALFORMED_REQUEST.problem("the request could not be read (HTTP " + status + ")");
+            default ->
+                status >= 500
+                        ? ProblemType.INTERNAL_ERROR.problem(null)
+                        : ProblemType.MALFORMED_REQUEST.problem("the request could not be read (HTTP " + status + ")");
         };
     }
 

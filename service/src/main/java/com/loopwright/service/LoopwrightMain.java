@@ -9,8 +9,7 @@ public final class LoopwrightMain {
 
     private static final Logger LOG = LoggerFactory.getLogger(LoopwrightMain.class);
 
-    private LoopwrightMain() {
-    }
+    private LoopwrightMain() {}
 
     public static void main(String[] args) {
         ServiceConfig config;

@@ -35,10 +35,18 @@ import java.util.Map;
  * @param http                limits of the HTTP layer: request threads, in-flight body bytes, minimum body rate,
  *                            idle timeout ({@link HttpLimits})
  */
-public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, int queueCapacity,
-                            long computeDeadlineMillis, int maxBatchItems, List<String> apiKeys,
-                            List<String> corsOrigins, String logFormat, long shutdownGraceMillis,
-                            HttpLimits http) {
+public record ServiceConfig(
+        int port,
+        long maxRequestBytes,
+        int workerThreads,
+        int queueCapacity,
+        long computeDeadlineMillis,
+        int maxBatchItems,
+        List<String> apiKeys,
+        List<String> corsOrigins,
+        String logFormat,
+        long shutdownGraceMillis,
+        HttpLimits http) {
 
     public static final int DEFAULT_PORT = 8080;
     public static final long DEFAULT_MAX_REQUEST_BYTES = 1L << 20;
@@ -47,10 +55,12 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
     public static final int DEFAULT_MAX_BATCH_ITEMS = 1000;
     /** The documented batch cap (openapi.yaml maxItems); the environment may only lower it. */
     public static final int BATCH_ITEMS_CEILING = 1000;
+
     public static final String DEFAULT_LOG_FORMAT = "json";
     public static final long DEFAULT_SHUTDOWN_GRACE_MILLIS = 20_000;
     /** Caps on the configuration itself, so that a typo cannot exhaust the machine. */
     public static final int MAX_WORKER_THREADS = 256;
+
     public static final int MAX_QUEUE_CAPACITY = 100_000;
     public static final int MAX_API_KEYS = 64;
     public static final int MAX_CORS_ORIGINS = 64;
@@ -64,20 +74,20 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
             throw new IllegalArgumentException("request cap must be from 1 KiB to 64 MiB: " + maxRequestBytes);
         }
         if (workerThreads < 1 || workerThreads > MAX_WORKER_THREADS) {
-            throw new IllegalArgumentException("worker threads must be from 1 to " + MAX_WORKER_THREADS + ": "
-                    + workerThreads);
+            throw new IllegalArgumentException(
+                    "worker threads must be from 1 to " + MAX_WORKER_THREADS + ": " + workerThreads);
         }
         if (queueCapacity < 0 || queueCapacity > MAX_QUEUE_CAPACITY) {
-            throw new IllegalArgumentException("queue capacity must be from 0 to " + MAX_QUEUE_CAPACITY + ": "
-                    + queueCapacity);
+            throw new IllegalArgumentException(
+                    "queue capacity must be from 0 to " + MAX_QUEUE_CAPACITY + ": " + queueCapacity);
         }
         if (computeDeadlineMillis < 1 || computeDeadlineMillis > 600_000) {
-            throw new IllegalArgumentException("compute deadline must be from 1 to 600000 ms: "
-                    + computeDeadlineMillis);
+            throw new IllegalArgumentException(
+                    "compute deadline must be from 1 to 600000 ms: " + computeDeadlineMillis);
         }
         if (maxBatchItems < 1 || maxBatchItems > BATCH_ITEMS_CEILING) {
-            throw new IllegalArgumentException("batch cap must be from 1 to " + BATCH_ITEMS_CEILING + ": "
-                    + maxBatchItems);
+            throw new IllegalArgumentException(
+                    "batch cap must be from 1 to " + BATCH_ITEMS_CEILING + ": " + maxBatchItems);
         }
         apiKeys = List.copyOf(apiKeys);
         if (apiKeys.size() > MAX_API_KEYS) {
@@ -126,27 +136,47 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
         return new ServiceConfig(
                 (int) parse(environment, "LOOPWRIGHT_PORT", DEFAULT_PORT),
                 maxRequestBytes,
-                (int) parse(environment, "LOOPWRIGHT_WORKER_THREADS", Runtime.getRuntime().availableProcessors()),
+                (int) parse(
+                        environment,
+                        "LOOPWRIGHT_WORKER_THREADS",
+                        Runtime.getRuntime().availableProcessors()),
                 (int) parse(environment, "LOOPWRIGHT_QUEUE_CAPACITY", DEFAULT_QUEUE_CAPACITY),
                 parse(environment, "LOOPWRIGHT_COMPUTE_DEADLINE_MS", DEFAULT_COMPUTE_DEADLINE_MILLIS),
                 (int) parse(environment, "LOOPWRIGHT_MAX_BATCH_ITEMS", DEFAULT_MAX_BATCH_ITEMS),
                 keys,
                 list(environment.get("LOOPWRIGHT_CORS_ORIGINS")),
-                environment.getOrDefault("LOOPWRIGHT_LOG_FORMAT", DEFAULT_LOG_FORMAT).trim().toLowerCase(Locale.ROOT),
+                environment
+                        .getOrDefault("LOOPWRIGHT_LOG_FORMAT", DEFAULT_LOG_FORMAT)
+                        .trim()
+                        .toLowerCase(Locale.ROOT),
                 parse(environment, "LOOPWRIGHT_SHUTDOWN_GRACE_MS", DEFAULT_SHUTDOWN_GRACE_MILLIS),
                 new HttpLimits(
                         (int) parse(environment, "LOOPWRIGHT_HTTP_THREADS", HttpLimits.DEFAULT_HTTP_THREADS),
-                        parse(environment, "LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES",
+                        parse(
+                                environment,
+                                "LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES",
                                 Math.max(HttpLimits.DEFAULT_INFLIGHT_BODY_BYTES, maxRequestBytes)),
-                        parse(environment, "LOOPWRIGHT_MIN_BODY_BYTES_PER_S",
+                        parse(
+                                environment,
+                                "LOOPWRIGHT_MIN_BODY_BYTES_PER_S",
                                 HttpLimits.DEFAULT_MIN_BODY_BYTES_PER_SECOND),
                         parse(environment, "LOOPWRIGHT_BODY_GRACE_MS", HttpLimits.DEFAULT_BODY_GRACE_MILLIS),
                         parse(environment, "LOOPWRIGHT_IDLE_TIMEOUT_MS", HttpLimits.DEFAULT_IDLE_TIMEOUT_MILLIS)));
     }
 
     public ServiceConfig withApiKeys(List<String> keys) {
-        return new ServiceConfig(port, maxRequestBytes, workerThreads, queueCapacity, computeDeadlineMillis,
-                maxBatchItems, keys, corsOrigins, logFormat, shutdownGraceMillis, http);
+        return new ServiceConfig(
+                port,
+                maxRequestBytes,
+                workerThreads,
+                queueCapacity,
+                computeDeadlineMillis,
+                maxBatchItems,
+                keys,
+                corsOrigins,
+                logFormat,
+                shutdownGraceMillis,
+                http);
     }
 
     /** Every setting by its variable name, with API keys masked (only their count is shown). */
@@ -158,9 +188,13 @@ public record ServiceConfig(int port, long maxRequestBytes, int workerThreads, i
         shown.put("LOOPWRIGHT_QUEUE_CAPACITY", String.valueOf(queueCapacity));
         shown.put("LOOPWRIGHT_COMPUTE_DEADLINE_MS", String.valueOf(computeDeadlineMillis));
         shown.put("LOOPWRIGHT_MAX_BATCH_ITEMS", String.valueOf(maxBatchItems));
-        shown.put("LOOPWRIGHT_API_KEYS", apiKeys.isEmpty() ? "(none: authentication off)"
-                : "****** (" + apiKeys.size() + " key" + (apiKeys.size() == 1 ? "" : "s") + ")");
-        shown.put("LOOPWRIGHT_CORS_ORIGINS", corsOrigins.isEmpty() ? "(none: CORS off)" : String.join(",", corsOrigins));
+        shown.put(
+                "LOOPWRIGHT_API_KEYS",
+                apiKeys.isEmpty()
+                        ? "(none: authentication off)"
+                        : "****** (" + apiKeys.size() + " key" + (apiKeys.size() == 1 ? "" : "s") + ")");
+        shown.put(
+                "LOOPWRIGHT_CORS_ORIGINS", corsOrigins.isEmpty() ? "(none: CORS off)" : String.join(",", corsOrigins));
         shown.put("LOOPWRIGHT_LOG_FORMAT", logFormat);
         shown.put("LOOPWRIGHT_SHUTDOWN_GRACE_MS", String.valueOf(shutdownGraceMillis));
         shown.put("LOOPWRIGHT_HTTP_THREADS", String.valueOf(http.httpThreads()));

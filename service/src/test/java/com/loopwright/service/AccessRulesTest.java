@@ -75,8 +75,10 @@ class AccessRulesTest {
         String body = method.equals("POST") ? "{}" : "";
         try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
             return socket.send(method + " " + path + " HTTP/1.1\r\nHost: 127.0.0.1\r\nOrigin: " + origin
-                    + "\r\nConnection: close\r\nContent-Type: application/json\r\nContent-Length: " + body.length()
-                    + (key == null ? "" : "\r\nX-Api-Key: " + key) + "\r\n\r\n" + body).read();
+                            + "\r\nConnection: close\r\nContent-Type: application/json\r\nContent-Length: "
+                            + body.length()
+                            + (key == null ? "" : "\r\nX-Api-Key: " + key) + "\r\n\r\n" + body)
+                    .read();
         }
     }
 
@@ -92,8 +94,8 @@ class AccessRulesTest {
                         wrong.add(rule[0] + " " + rule[1] + " without key: " + without.status());
                     }
                     if (cors != (without.header("Access-Control-Allow-Origin") != null)) {
-                        wrong.add(rule[0] + " " + rule[1] + " CORS header: " + without.header(
-                                "Access-Control-Allow-Origin"));
+                        wrong.add(rule[0] + " " + rule[1] + " CORS header: "
+                                + without.header("Access-Control-Allow-Origin"));
                     }
                     if (!rule[3].equals("-")) {
                         RawExchange.Reply with = send(server, rule[0], rule[1], ORIGIN, KEY);
@@ -109,13 +111,17 @@ class AccessRulesTest {
 
     @Test
     void keyedRoutesArePreflightedWithoutAKeyOnlyWhenCorsIsOn() throws IOException {
-        try (LiveServer on = keyed(true); LiveServer off = keyed(false)) {
+        try (LiveServer on = keyed(true);
+                LiveServer off = keyed(false)) {
             for (String path : PREFLIGHTS.strip().split("\n")) {
                 RawExchange.Reply allowed = send(on, "OPTIONS", path, ORIGIN, null);
                 assertEquals(204, allowed.status(), path);
                 assertEquals(ORIGIN, allowed.header("Access-Control-Allow-Origin"), path);
                 assertTrue(allowed.header("Access-Control-Allow-Methods").contains("POST"), path);
-                assertEquals(403, send(on, "OPTIONS", path, "https://evil.example", null).status(), path);
+                assertEquals(
+                        403,
+                        send(on, "OPTIONS", path, "https://evil.example", null).status(),
+                        path);
                 assertEquals(405, send(off, "OPTIONS", path, ORIGIN, null).status(), path);
             }
         }

@@ -26,31 +26,44 @@ class ClientExampleTest {
 
     @Test
     void sendsItsKeyAndPrintsEveryPartOfAProblem() throws Exception {
-        try (LiveServer server = LiveServer.start(ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0",
-                "LOOPWRIGHT_API_KEYS", KEY)))) {
-            assertTrue(new DesignClient(server.base(), KEY).design(DesignClient.INDEXING_AXIS).certified());
+        try (LiveServer server = LiveServer.start(
+                ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0", "LOOPWRIGHT_API_KEYS", KEY)))) {
+            assertTrue(new DesignClient(server.base(), KEY)
+                    .design(DesignClient.INDEXING_AXIS)
+                    .certified());
 
             DesignClient.Reply refused = new DesignClient(server.base()).design(DesignClient.INDEXING_AXIS);
             assertEquals(401, refused.status());
-            assertTrue(printed(refused).startsWith("HTTP 401 Unauthorized: this service requires an API key"),
+            assertTrue(
+                    printed(refused).startsWith("HTTP 401 Unauthorized: this service requires an API key"),
                     printed(refused));
-            assertEquals(403, new DesignClient(server.base(), "not-the-configured-key").design(
-                    DesignClient.INDEXING_AXIS).status());
+            assertEquals(
+                    403,
+                    new DesignClient(server.base(), "not-the-configured-key")
+                            .design(DesignClient.INDEXING_AXIS)
+                            .status());
 
             DesignClient.Reply infeasible = new DesignClient(server.base(), KEY).design(INFEASIBLE);
             assertEquals(422, infeasible.status());
             JsonNode problem = new ObjectMapper().readTree(infeasible.body());
             String text = printed(infeasible);
-            assertTrue(text.startsWith("HTTP 422 " + problem.get("title").asText() + ": "
-                    + problem.get("detail").asText() + "\n"), text);
-            assertTrue(problem.get("errors").size() > 0 && problem.get("proposals").size() > 0, infeasible.body());
+            assertTrue(
+                    text.startsWith("HTTP 422 " + problem.get("title").asText() + ": "
+                            + problem.get("detail").asText() + "\n"),
+                    text);
+            assertTrue(
+                    problem.get("errors").size() > 0 && problem.get("proposals").size() > 0, infeasible.body());
             for (JsonNode error : problem.get("errors")) {
-                assertTrue(text.contains("  field " + error.get("pointer").asText() + ": "
-                        + error.get("detail").asText() + "\n"), text);
+                assertTrue(
+                        text.contains("  field " + error.get("pointer").asText() + ": "
+                                + error.get("detail").asText() + "\n"),
+                        text);
             }
             for (JsonNode proposal : problem.get("proposals")) {
-                assertTrue(text.contains("  proposal " + proposal.get("pointer").asText() + " = "
-                        + proposal.get("value").asText()), text);
+                assertTrue(
+                        text.contains("  proposal " + proposal.get("pointer").asText() + " = "
+                                + proposal.get("value").asText()),
+                        text);
             }
         }
     }

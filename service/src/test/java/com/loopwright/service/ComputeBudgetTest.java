@@ -41,8 +41,15 @@ class ComputeBudgetTest {
               "frequencyPoints":500,"timeSeriesPoints":1000}}""";
 
     private static ServiceConfig config(String workers, String deadlineMillis) {
-        return ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0", "LOOPWRIGHT_WORKER_THREADS", workers,
-                "LOOPWRIGHT_QUEUE_CAPACITY", "16", "LOOPWRIGHT_COMPUTE_DEADLINE_MS", deadlineMillis));
+        return ServiceConfig.fromEnvironment(Map.of(
+                "LOOPWRIGHT_PORT",
+                "0",
+                "LOOPWRIGHT_WORKER_THREADS",
+                workers,
+                "LOOPWRIGHT_QUEUE_CAPACITY",
+                "16",
+                "LOOPWRIGHT_COMPUTE_DEADLINE_MS",
+                deadlineMillis));
     }
 
     /** Answers every item at once without computing, counting the calls. */
@@ -69,16 +76,24 @@ class ComputeBudgetTest {
         assertTrue(body.getBytes(StandardCharsets.UTF_8).length < (1 << 20), "inside the body cap");
         try (LiveServer server = LiveServer.start(config("2", "10000"), designs)) {
             var reply = server.postBytes("/v1/designs/batch", body.getBytes(StandardCharsets.UTF_8));
-            assertEquals(422, reply.status(), reply.text().substring(0, Math.min(400, reply.text().length())));
-            assertEquals("urn:loopwright:problem:cap-exceeded", reply.json().get("type").asText());
+            assertEquals(
+                    422,
+                    reply.status(),
+                    reply.text().substring(0, Math.min(400, reply.text().length())));
+            assertEquals(
+                    "urn:loopwright:problem:cap-exceeded",
+                    reply.json().get("type").asText());
             assertEquals("/items", reply.json().at("/errors/0/pointer").asText());
             // Monte Carlo dominates: 2000 samples x 1000 items of about 4.3 million units.
-            assertEquals("/items/0/verify/uncertainty/monteCarloSamples", reply.json().at("/errors/1/pointer").asText());
+            assertEquals(
+                    "/items/0/verify/uncertainty/monteCarloSamples",
+                    reply.json().at("/errors/1/pointer").asText());
             assertEquals(0, designs.calls.get(), "nothing was computed");
 
             // The same items, few enough to fit the cap, are computed.
-            var fits = server.post("/v1/designs/batch", "{\"items\":[" + String.join(",",
-                    Collections.nCopies(11, EVERY_CHECK)) + "]}");
+            var fits = server.post(
+                    "/v1/designs/batch",
+                    "{\"items\":[" + String.join(",", Collections.nCopies(11, EVERY_CHECK)) + "]}");
             assertEquals(200, fits.status(), fits.text());
             assertEquals(11, fits.lines().size());
         }
@@ -172,7 +187,9 @@ class ComputeBudgetTest {
         var mapper = StrictJson.newMapper();
         // source: the cost model of docs/limits-and-budgets.md, summed by hand:
         // 10 design + 10 verify + 16 corners + 2000 samples + 8 x 25 + 40 + 700 + 500 + 700 + ceil(1500/30)
-        assertEquals(10 + 10 + 16 + 2000 + 200 + 40 + 700 + 500 + 700 + 50, budget.designUnits(mapper.readTree(EVERY_CHECK)));
+        assertEquals(
+                10 + 10 + 16 + 2000 + 200 + 40 + 700 + 500 + 700 + 50,
+                budget.designUnits(mapper.readTree(EVERY_CHECK)));
         assertEquals(10, budget.designUnits(mapper.readTree(DesignClient.INDEXING_AXIS)));
         List<String> hostile = new ArrayList<>(List.of(
                 "{\"verify\":{\"uncertainty\":{\"monteCarloSamples\":1e300}}}",

@@ -53,9 +53,17 @@ class ComputeLimitsTest {
     }
 
     private static ServiceConfig config(String workers, String queue, String deadlineMillis) {
-        return ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0", "LOOPWRIGHT_WORKER_THREADS", workers,
-                "LOOPWRIGHT_QUEUE_CAPACITY", queue, "LOOPWRIGHT_COMPUTE_DEADLINE_MS", deadlineMillis,
-                "LOOPWRIGHT_SHUTDOWN_GRACE_MS", "20000"));
+        return ServiceConfig.fromEnvironment(Map.of(
+                "LOOPWRIGHT_PORT",
+                "0",
+                "LOOPWRIGHT_WORKER_THREADS",
+                workers,
+                "LOOPWRIGHT_QUEUE_CAPACITY",
+                queue,
+                "LOOPWRIGHT_COMPUTE_DEADLINE_MS",
+                deadlineMillis,
+                "LOOPWRIGHT_SHUTDOWN_GRACE_MS",
+                "20000"));
     }
 
     private static void awaitEntered(GatedDesigns designs, int count) throws InterruptedException {
@@ -73,7 +81,9 @@ class ComputeLimitsTest {
             var reply = server.post("/v1/designs", DesignClient.INDEXING_AXIS);
             long millis = (System.nanoTime() - started) / 1_000_000;
             assertEquals(504, reply.status(), reply.text());
-            assertEquals("urn:loopwright:problem:deadline-exceeded", reply.json().get("type").asText());
+            assertEquals(
+                    "urn:loopwright:problem:deadline-exceeded",
+                    reply.json().get("type").asText());
             assertTrue(reply.json().get("detail").asText().contains("200 ms"), reply.text());
             assertTrue(millis >= 200 && millis < 5000, "answered at the deadline, not at the gate: " + millis);
             // In a batch the deadline is per item: the item's line carries the problem, the batch still succeeds.
@@ -81,7 +91,8 @@ class ComputeLimitsTest {
             assertEquals(200, batch.status());
             assertEquals(504, batch.lines().get(0).get("status").asInt());
             designs.gate.countDown();
-            assertEquals(200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status(), "recovered");
+            assertEquals(
+                    200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status(), "recovered");
             var metrics = PrometheusText.parse(server.get("/metrics").text());
             assertEquals(2, metrics.sum("loopwright_designs_total", Map.of("outcome", "deadline")));
         }
@@ -96,12 +107,16 @@ class ComputeLimitsTest {
             held.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS)));
             awaitEntered(designs, 1);
             held.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS)));
-            for (int i = 0; i < 500 && server.get("/metrics").text().contains("loopwright_design_queue_length 0"); i++) {
+            for (int i = 0;
+                    i < 500 && server.get("/metrics").text().contains("loopwright_design_queue_length 0");
+                    i++) {
                 Thread.sleep(10);
             }
             var refused = server.post("/v1/designs", DesignClient.INDEXING_AXIS);
             assertEquals(503, refused.status(), refused.text());
-            assertEquals("urn:loopwright:problem:service-overloaded", refused.json().get("type").asText());
+            assertEquals(
+                    "urn:loopwright:problem:service-overloaded",
+                    refused.json().get("type").asText());
             assertEquals("1", refused.header("Retry-After"));
             var refusedBatch = server.post("/v1/designs/batch", "{\"items\":[" + DesignClient.INDEXING_AXIS + "]}");
             assertEquals(503, refusedBatch.status(), "a batch is refused before its 200 is committed");
@@ -111,7 +126,8 @@ class ComputeLimitsTest {
             for (CompletableFuture<LiveServer.Reply> reply : held) {
                 assertEquals(200, reply.get(30, TimeUnit.SECONDS).status(), "held designs complete");
             }
-            assertEquals(200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status(), "recovered");
+            assertEquals(
+                    200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status(), "recovered");
             var metrics = PrometheusText.parse(server.get("/metrics").text());
             assertEquals(1, metrics.sum("loopwright_designs_total", Map.of("outcome", "overloaded")));
         }
@@ -125,7 +141,8 @@ class ComputeLimitsTest {
         for (int i = 0; i < 3; i++) {
             inFlight.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS)));
         }
-        inFlight.add(CompletableFuture.supplyAsync(() -> server.post("/v1/designs/batch",
+        inFlight.add(CompletableFuture.supplyAsync(() -> server.post(
+                "/v1/designs/batch",
                 "{\"items\":[" + DesignClient.INDEXING_AXIS + "," + DesignClient.INDEXING_AXIS + "]}")));
         awaitEntered(designs, 4);
         CompletableFuture<Void> stopping = CompletableFuture.runAsync(server::close);
@@ -149,17 +166,21 @@ class ComputeLimitsTest {
         LiveServer server = LiveServer.start(config("2", "2", "30000"), designs);
         java.net.URI ready = server.base().resolve("/health/ready");
         assertEquals(200, server.get("/health/ready").status());
-        CompletableFuture<LiveServer.Reply> held = CompletableFuture.supplyAsync(
-                () -> server.post("/v1/designs", DesignClient.INDEXING_AXIS));
+        CompletableFuture<LiveServer.Reply> held =
+                CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS));
         awaitEntered(designs, 1);
         CompletableFuture<Void> stopping = CompletableFuture.runAsync(server::close);
         Thread.sleep(300);
         // A probe during the stop is refused (503 on a kept-alive connection, or no connection at all).
         int status;
         try {
-            status = server.http().send(java.net.http.HttpRequest.newBuilder(ready)
-                    .timeout(java.time.Duration.ofSeconds(5)).build(),
-                    java.net.http.HttpResponse.BodyHandlers.discarding()).statusCode();
+            status = server.http()
+                    .send(
+                            java.net.http.HttpRequest.newBuilder(ready)
+                                    .timeout(java.time.Duration.ofSeconds(5))
+                                    .build(),
+                            java.net.http.HttpResponse.BodyHandlers.discarding())
+                    .statusCode();
         } catch (java.io.IOException refused) {
             status = -1;
         }
@@ -183,8 +204,8 @@ class ComputeLimitsTest {
             awaitEntered(designs, 2);
             Thread.sleep(300);
             assertEquals(2, designs.entered.get(), "two batches of five items hold two of the four workers");
-            CompletableFuture<LiveServer.Reply> single = CompletableFuture.supplyAsync(
-                    () -> server.post("/v1/designs", DesignClient.INDEXING_AXIS));
+            CompletableFuture<LiveServer.Reply> single =
+                    CompletableFuture.supplyAsync(() -> server.post("/v1/designs", DesignClient.INDEXING_AXIS));
             awaitEntered(designs, 3);
             designs.gate.countDown();
             assertEquals(200, single.get(30, TimeUnit.SECONDS).status());
@@ -208,7 +229,9 @@ class ComputeLimitsTest {
             String items = String.join(",", java.util.Collections.nCopies(4, DesignClient.INDEXING_AXIS));
             CompletableFuture<LiveServer.Reply> batch = CompletableFuture.supplyAsync(
                     () -> server.post("/v1/designs/batch", "{\"items\":[" + items + "]}"));
-            for (int i = 0; i < 500 && server.get("/metrics").text().contains("loopwright_design_queue_length 0"); i++) {
+            for (int i = 0;
+                    i < 500 && server.get("/metrics").text().contains("loopwright_design_queue_length 0");
+                    i++) {
                 Thread.sleep(10);
             }
             Thread.sleep(100);
@@ -258,13 +281,15 @@ class ComputeLimitsTest {
         };
         try (LiveServer server = LiveServer.start(config("2", "4", "30000"), secondWaits)) {
             var request = java.net.http.HttpRequest.newBuilder(server.base().resolve("/v1/designs/batch"))
-                    .header("Content-Type", "application/json").POST(java.net.http.HttpRequest.BodyPublishers
-                            .ofString("{\"items\":[" + DesignClient.INDEXING_AXIS + ","
-                                    + DesignClient.INDEXING_AXIS.replace("0.15", "0.16") + "]}"))
+                    .header("Content-Type", "application/json")
+                    .POST(java.net.http.HttpRequest.BodyPublishers.ofString("{\"items\":[" + DesignClient.INDEXING_AXIS
+                            + "," + DesignClient.INDEXING_AXIS.replace("0.15", "0.16") + "]}"))
                     .build();
             var response = server.http().send(request, java.net.http.HttpResponse.BodyHandlers.ofLines());
             assertEquals(200, response.statusCode());
-            assertEquals("application/x-ndjson", response.headers().firstValue("Content-Type").orElse(""));
+            assertEquals(
+                    "application/x-ndjson",
+                    response.headers().firstValue("Content-Type").orElse(""));
             var lines = response.body().iterator();
             String first = lines.next();
             assertTrue(first.startsWith("{\"index\":0,\"status\":200"), first);

@@ -29,8 +29,7 @@ class ConcurrencyTest {
     static final int REQUESTS_PER_THREAD = 500;
     static final long SEED = 8_500L;
 
-    private record Call(String method, String path, String body) {
-    }
+    private record Call(String method, String path, String body) {}
 
     private static final List<Call> CALLS = List.of(
             new Call("POST", "/v1/designs", DesignClient.INDEXING_AXIS),
@@ -45,27 +44,31 @@ class ConcurrencyTest {
             new Call("POST", "/v1/designs", DesignClient.INDEXING_AXIS.replace("1.5}", "10}")),
             new Call("POST", "/v1/designs", "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":{}}"),
             new Call("POST", "/v1/designs", "{\"plant\":"),
-            new Call("POST", "/v1/designs/batch", "{\"items\":[" + DesignClient.INDEXING_AXIS + ",{},"
-                    + DesignClient.INDEXING_AXIS.replace("0.15", "0.4") + "]}"),
+            new Call(
+                    "POST",
+                    "/v1/designs/batch",
+                    "{\"items\":[" + DesignClient.INDEXING_AXIS + ",{},"
+                            + DesignClient.INDEXING_AXIS.replace("0.15", "0.4") + "]}"),
             new Call("GET", "/health", null),
             new Call("GET", "/health/ready", null),
             new Call("GET", "/openapi.yaml", null),
             new Call("GET", "/v1/nothing", null));
 
     private static String send(HttpClient http, LiveServer server, Call call) throws Exception {
-        HttpRequest.Builder request = HttpRequest.newBuilder(server.base().resolve(call.path()))
-                .timeout(Duration.ofSeconds(60));
+        HttpRequest.Builder request =
+                HttpRequest.newBuilder(server.base().resolve(call.path())).timeout(Duration.ofSeconds(60));
         if (call.body() != null) {
             request.header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(call.body()));
         }
         HttpResponse<String> response = http.send(request.build(), HttpResponse.BodyHandlers.ofString());
-        return response.statusCode() + " " + response.headers().firstValue("Content-Type").orElse("") + "\n"
-                + response.body();
+        return response.statusCode() + " "
+                + response.headers().firstValue("Content-Type").orElse("") + "\n" + response.body();
     }
 
     @Test
     void concurrentResultsEqualSequentialOnes() throws Exception {
-        HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1).build();
+        HttpClient http =
+                HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1).build();
         try (LiveServer server = LiveServer.start()) {
             List<String> sequential = new ArrayList<>();
             for (Call call : CALLS) {
@@ -93,14 +96,18 @@ class ConcurrencyTest {
             }
             clients.shutdown();
             assertTrue(clients.awaitTermination(170, TimeUnit.SECONDS), "finished in time");
-            assertEquals(0, mismatches.size(), "first mismatches: " + mismatches.stream().limit(3).toList());
+            assertEquals(
+                    0,
+                    mismatches.size(),
+                    "first mismatches: " + mismatches.stream().limit(3).toList());
             // Every request is counted once (the count of a request lands just after its response, so poll).
             double expected = THREADS * REQUESTS_PER_THREAD + CALLS.size();
             double counted = 0;
             for (int attempt = 0; attempt < 50 && counted < expected; attempt++) {
                 Thread.sleep(attempt == 0 ? 0 : 40);
                 counted = PrometheusText.parse(server.get("/metrics").text())
-                        .sum("loopwright_http_requests_total", java.util.Map.of()) - attempt;
+                                .sum("loopwright_http_requests_total", java.util.Map.of())
+                        - attempt;
             }
             assertEquals(expected, counted, "every request was counted once");
         }

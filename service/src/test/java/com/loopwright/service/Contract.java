@@ -63,8 +63,8 @@ final class Contract {
         }
         String pointer = response + "/content/" + mediaType.replace("/", "~1") + "/schema";
         if (document.at(pointer).isMissingNode()) {
-            throw new AssertionError("openapi.yaml declares no " + mediaType + " body for " + method + " " + path
-                    + " " + status);
+            throw new AssertionError(
+                    "openapi.yaml declares no " + mediaType + " body for " + method + " " + path + " " + status);
         }
         return compiled.computeIfAbsent(pointer, p -> {
             ObjectNode root = document.deepCopy();
@@ -75,7 +75,8 @@ final class Contract {
 
     /** Validation messages of a body against the declared response schema; empty when it conforms. */
     String violations(String path, String method, int status, String mediaType, JsonNode body) {
-        Set<ValidationMessage> messages = responseSchema(path, method, status, mediaType).validate(body);
+        Set<ValidationMessage> messages =
+                responseSchema(path, method, status, mediaType).validate(body);
         return messages.stream().map(ValidationMessage::getMessage).collect(Collectors.joining("; "));
     }
 }

@@ -66,8 +66,8 @@ class ContractDriftTest {
     void requestSchemasMatchTheRequestRecords() {
         assertRecordMatchesSchema(DesignRequest.class, contract.component("DesignRequest"), "DesignRequest");
         assertRecordMatchesSchema(FitRequest.class, contract.component("FitRequest"), "FitRequest");
-        assertRecordMatchesSchema(VerificationRequest.class, contract.component("VerificationRequest"),
-                "VerificationRequest");
+        assertRecordMatchesSchema(
+                VerificationRequest.class, contract.component("VerificationRequest"), "VerificationRequest");
     }
 
     @Test
@@ -81,8 +81,9 @@ class ContractDriftTest {
         contract.component("PlantModel").at("/properties/form/enum").forEach(n -> documented.add(n.asText()));
         assertEquals(new TreeSet<>(PlantFormName.wireNames()), documented, "PlantModel.form enum");
         Set<String> branches = new TreeSet<>();
-        contract.component("PlantDescription").get("oneOf").forEach(branch -> resolve(branch)
-                .at("/properties/form/enum").forEach(n -> branches.add(n.asText())));
+        contract.component("PlantDescription")
+                .get("oneOf")
+                .forEach(branch -> resolve(branch).at("/properties/form/enum").forEach(n -> branches.add(n.asText())));
         assertEquals(documented, branches, "one PlantDescription branch per form");
         for (PlantFormName form : PlantFormName.values()) {
             for (JsonNode branch : contract.component("PlantDescription").get("oneOf")) {
@@ -103,16 +104,19 @@ class ContractDriftTest {
         }
         assertEquals(emitted, types, "Problem.type enum");
         Set<String> warnings = new TreeSet<>();
-        contract.component("FitResponse").at("/properties/warnings/items/properties/code/enum")
+        contract.component("FitResponse")
+                .at("/properties/warnings/items/properties/code/enum")
                 .forEach(n -> warnings.add(n.asText()));
         assertEquals(FitWarning.Code.values().length, warnings.size(), "FitResponse warning codes");
     }
 
     @Test
     void highOrderSchemasMatchTheHighOrderRecords() {
-        assertRecordMatchesSchema(HighOrderDesignRequest.class, contract.component("HighOrderDesignRequest"),
-                "HighOrderDesignRequest");
-        assertRecordMatchesSchema(HighOrderDesignResponse.class, contract.component("HighOrderDesignResponse"),
+        assertRecordMatchesSchema(
+                HighOrderDesignRequest.class, contract.component("HighOrderDesignRequest"), "HighOrderDesignRequest");
+        assertRecordMatchesSchema(
+                HighOrderDesignResponse.class,
+                contract.component("HighOrderDesignResponse"),
                 "HighOrderDesignResponse");
     }
 
@@ -126,28 +130,35 @@ class ContractDriftTest {
                 Map.entry(request + "plant/properties/numerator/items/maximum", HighOrderLimits.MAX_ABS_COEFFICIENT),
                 Map.entry(request + "plant/properties/disturbance/items/maximum", HighOrderLimits.MAX_ABS_DISTURBANCE),
                 Map.entry(request + "plant/properties/b/maximum", FieldLimits.MAX_ABS_B),
-                Map.entry(request + "spec/properties/maxUndershootPercent/minimum",
+                Map.entry(
+                        request + "spec/properties/maxUndershootPercent/minimum",
                         HighOrderLimits.MIN_UNDERSHOOT_PERCENT),
-                Map.entry(request + "spec/properties/maxUndershootPercent/maximum",
+                Map.entry(
+                        request + "spec/properties/maxUndershootPercent/maximum",
                         HighOrderLimits.MAX_UNDERSHOOT_PERCENT),
-                Map.entry(request + "spec/properties/maxUndershootPercent/default",
+                Map.entry(
+                        request + "spec/properties/maxUndershootPercent/default",
                         HighOrderLimits.DEFAULT_MAX_UNDERSHOOT_PERCENT),
                 Map.entry(request + "spec/properties/settlingTime/minimum", FieldLimits.MIN_TIME_SECONDS),
                 Map.entry(request + "spec/properties/settlingTime/maximum", FieldLimits.MAX_TIME_SECONDS),
-                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/minimum",
+                Map.entry(
+                        request + "auxiliaryPoles/properties/realPartMultiple/minimum",
                         HighOrderLimits.MIN_REAL_PART_MULTIPLE),
-                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/maximum",
+                Map.entry(
+                        request + "auxiliaryPoles/properties/realPartMultiple/maximum",
                         HighOrderLimits.MAX_REAL_PART_MULTIPLE),
-                Map.entry(request + "auxiliaryPoles/properties/realPartMultiple/default",
+                Map.entry(
+                        request + "auxiliaryPoles/properties/realPartMultiple/default",
                         HighOrderLimits.DEFAULT_REAL_PART_MULTIPLE),
-                Map.entry(request + "auxiliaryPoles/properties/poles/maxItems",
-                        (double) (HighOrderLimits.MAX_ORDER - 2)),
-                Map.entry(request + "auxiliaryPoles/properties/poles/items/properties/re/minimum",
+                Map.entry(
+                        request + "auxiliaryPoles/properties/poles/maxItems", (double) (HighOrderLimits.MAX_ORDER - 2)),
+                Map.entry(
+                        request + "auxiliaryPoles/properties/poles/items/properties/re/minimum",
                         -HighOrderLimits.MAX_POLE_MAGNITUDE),
-                Map.entry("HighOrderDesignResponse/properties/specMatching/properties/iterations/maximum",
-                        (double) SpecMatcher.MAX_ITERATIONS),
-                Map.entry("HighOrderDesignResponse/properties/riccati/properties/newtonSteps/maximum",
-                        (double) PoleMatchedRiccati.MAX_NEWTON_STEPS));
+                Map.entry("HighOrderDesignResponse/properties/specMatching/properties/iterations/maximum", (double)
+                        SpecMatcher.MAX_ITERATIONS),
+                Map.entry("HighOrderDesignResponse/properties/riccati/properties/newtonSteps/maximum", (double)
+                        PoleMatchedRiccati.MAX_NEWTON_STEPS));
         expected.forEach((pointer, value) -> {
             JsonNode node = contract.document().at("/components/schemas/" + pointer);
             assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
@@ -158,41 +169,41 @@ class ContractDriftTest {
     @Test
     void responseSchemaMatchesTheResponseRecords() {
         assertRecordMatchesSchema(DesignResponse.class, contract.component("DesignResponse"), "DesignResponse");
-        assertRecordMatchesSchema(VerificationResponse.class, contract.component("VerificationResponse"),
-                "VerificationResponse");
+        assertRecordMatchesSchema(
+                VerificationResponse.class, contract.component("VerificationResponse"), "VerificationResponse");
     }
 
     @Test
     void documentedVerifyCapsMatchTheCode() {
         Map<String, Double> expected = Map.ofEntries(
-                Map.entry("UncertaintyInput/properties/monteCarloSamples/maximum",
-                        (double) VerifyLimits.MAX_MONTE_CARLO_SAMPLES),
-                Map.entry("UncertaintyInput/properties/monteCarloSamples/maximum#solver",
-                        (double) UncertaintyAnalyzer.MAX_SAMPLES),
+                Map.entry("UncertaintyInput/properties/monteCarloSamples/maximum", (double)
+                        VerifyLimits.MAX_MONTE_CARLO_SAMPLES),
+                Map.entry("UncertaintyInput/properties/monteCarloSamples/maximum#solver", (double)
+                        UncertaintyAnalyzer.MAX_SAMPLES),
                 Map.entry("VerifyInput/properties/disturbances/maxItems", (double) VerifyLimits.MAX_DISTURBANCES),
                 Map.entry("VerifyInput/properties/frequencyPoints/maximum", (double) VerifyLimits.MAX_FREQUENCY_POINTS),
-                Map.entry("VerifyInput/properties/frequencyPoints/maximum#solver",
-                        (double) LoopFrequencyAnalyzer.MAX_RESPONSE_POINTS),
-                Map.entry("VerifyInput/properties/timeSeriesPoints/maximum",
-                        (double) VerifyLimits.MAX_TIME_SERIES_POINTS),
-                Map.entry("VerifyInput/properties/timeSeriesPoints/minimum",
-                        (double) VerifyLimits.MIN_TIME_SERIES_POINTS),
+                Map.entry("VerifyInput/properties/frequencyPoints/maximum#solver", (double)
+                        LoopFrequencyAnalyzer.MAX_RESPONSE_POINTS),
+                Map.entry("VerifyInput/properties/timeSeriesPoints/maximum", (double)
+                        VerifyLimits.MAX_TIME_SERIES_POINTS),
+                Map.entry("VerifyInput/properties/timeSeriesPoints/minimum", (double)
+                        VerifyLimits.MIN_TIME_SERIES_POINTS),
                 Map.entry("VerifyInput/properties/tolerancePercent/maximum", VerifyLimits.MAX_TOLERANCE_PERCENT),
                 Map.entry("VerifyInput/properties/tolerancePercent/default", VerifyLimits.DEFAULT_TOLERANCE_PERCENT),
                 Map.entry("VerifyInput/properties/actuatorLimit/maximum", VerifyLimits.MAX_ACTUATOR_LIMIT),
                 Map.entry("VerifyInput/properties/inputDelay/maximum", VerifyLimits.MAX_TIME_SECONDS),
-                Map.entry("ParameterRangeInput/properties/plusMinusPercent/maximum",
-                        VerifyLimits.MAX_PLUS_MINUS_PERCENT),
+                Map.entry(
+                        "ParameterRangeInput/properties/plusMinusPercent/maximum", VerifyLimits.MAX_PLUS_MINUS_PERCENT),
                 Map.entry("SamplingInput/properties/samplePeriod/minimum", VerifyLimits.MIN_SAMPLE_PERIOD),
                 Map.entry("DisturbanceInput/properties/frequency/maximum", VerifyLimits.MAX_FREQUENCY),
                 Map.entry("DisturbanceInput/properties/amplitude/maximum", VerifyLimits.MAX_ABS_AMPLITUDE),
                 Map.entry("GainInput/properties/k1/maximum", VerifyLimits.MAX_ABS_GAIN),
-                Map.entry("RobustnessResponse/properties/margins/properties/response/maxItems",
-                        (double) VerifyLimits.MAX_FREQUENCY_POINTS),
-                Map.entry("RobustnessResponse/properties/timeSeries/items/properties/points/maxItems",
-                        (double) VerifyLimits.MAX_TIME_SERIES_POINTS),
-                Map.entry("RobustnessResponse/properties/disturbances/maxItems",
-                        (double) VerifyLimits.MAX_DISTURBANCES));
+                Map.entry("RobustnessResponse/properties/margins/properties/response/maxItems", (double)
+                        VerifyLimits.MAX_FREQUENCY_POINTS),
+                Map.entry("RobustnessResponse/properties/timeSeries/items/properties/points/maxItems", (double)
+                        VerifyLimits.MAX_TIME_SERIES_POINTS),
+                Map.entry(
+                        "RobustnessResponse/properties/disturbances/maxItems", (double) VerifyLimits.MAX_DISTURBANCES));
         expected.forEach((key, value) -> {
             String pointer = key.replace("#solver", "");
             JsonNode node = contract.document().at("/components/schemas/" + pointer);
@@ -200,7 +211,9 @@ class ContractDriftTest {
             assertEquals(value, node.asDouble(), 0, key);
         });
         // the caps that only the computation knows are stated in the operation description
-        String description = contract.document().at("/paths/~1v1~1verifications/post/description").asText();
+        String description = contract.document()
+                .at("/paths/~1v1~1verifications/post/description")
+                .asText();
         assertTrue(description.contains(String.valueOf(UncertaintyAnalyzer.MAX_SAMPLES)));
         assertTrue(description.contains("200000"), "sample interval cap");
         assertTrue(description.contains(fmt(RobustnessVerifier.MAX_DISTURBANCE_TIMING_HORIZONS) + " nominal horizons"));
@@ -237,15 +250,15 @@ class ContractDriftTest {
                 Map.entry("RotaryAxisPlant/properties/inertia/maximum", FieldLimits.MAX_ABS_PHYSICAL),
                 Map.entry("MassSpringDamperPlant/properties/mass/maximum", FieldLimits.MAX_ABS_PHYSICAL),
                 Map.entry("TransferFunctionPlant/properties/gain/maximum", FieldLimits.MAX_ABS_PHYSICAL),
-                Map.entry("TransferFunctionPlant/properties/numerator/maxItems",
-                        (double) FieldLimits.MAX_NUMERATOR_COEFFICIENTS),
+                Map.entry("TransferFunctionPlant/properties/numerator/maxItems", (double)
+                        FieldLimits.MAX_NUMERATOR_COEFFICIENTS),
                 Map.entry("StateSpacePlant/properties/b2/items/maximum", FieldLimits.MAX_ABS_PHYSICAL),
                 Map.entry("FitRequest/properties/samples/properties/time/maxItems", (double) FitLimits.MAX_SAMPLES),
                 Map.entry("FitRequest/properties/samples/properties/time/minItems", (double) FitLimits.MIN_SAMPLES),
                 Map.entry("FitRequest/properties/samples/properties/output/maxItems", (double) FitLimits.MAX_SAMPLES),
                 Map.entry("FitRequest/properties/samples/properties/input/maxItems", (double) FitLimits.MAX_SAMPLES),
-                Map.entry("FitRequest/properties/samples/properties/time/items/maximum",
-                        FitLimits.MAX_ABS_TIME_SECONDS),
+                Map.entry(
+                        "FitRequest/properties/samples/properties/time/items/maximum", FitLimits.MAX_ABS_TIME_SECONDS),
                 Map.entry("FitRequest/properties/samples/properties/output/items/maximum", FitLimits.MAX_ABS_SIGNAL));
         expected.forEach((pointer, value) -> {
             JsonNode node = contract.document().at("/components/schemas/" + pointer);
@@ -257,12 +270,14 @@ class ContractDriftTest {
     @Test
     void everyDocumentedOperationIsServed() {
         try (LiveServer server = LiveServer.start()) {
-            Iterator<Map.Entry<String, JsonNode>> paths = contract.document().get("paths").fields();
+            Iterator<Map.Entry<String, JsonNode>> paths =
+                    contract.document().get("paths").fields();
             while (paths.hasNext()) {
                 Map.Entry<String, JsonNode> path = paths.next();
                 for (Iterator<String> methods = path.getValue().fieldNames(); methods.hasNext(); ) {
                     String method = methods.next();
-                    String concrete = concretePath(path.getKey(), path.getValue().get(method));
+                    String concrete =
+                            concretePath(path.getKey(), path.getValue().get(method));
                     var reply = method.equals("get") ? server.get(concrete) : server.post(concrete, "{}");
                     assertNotEquals(404, reply.status(), method + " " + path.getKey());
                     assertNotEquals(405, reply.status(), method + " " + path.getKey());
@@ -274,21 +289,31 @@ class ContractDriftTest {
     @Test
     void readmeExampleIsTheContractExampleAndNamesEveryPath() throws Exception {
         String readme = Files.readString(Path.of("..", "README.md"));
-        Matcher block = Pattern.compile("```json\\s*\\n(\\{\"plant\".*?)\\n```", Pattern.DOTALL).matcher(readme);
+        Matcher block = Pattern.compile("```json\\s*\\n(\\{\"plant\".*?)\\n```", Pattern.DOTALL)
+                .matcher(readme);
         assertTrue(block.find(), "README has a ```json request example");
         ObjectMapper json = new ObjectMapper();
-        assertEquals(contract.document().at("/paths/~1v1~1designs/post/requestBody/content/application~1json"
-                + "/examples/indexingAxis/value"), json.readTree(block.group(1)), "README example = contract example");
-        contract.document().get("paths").fieldNames().forEachRemaining(
-                path -> assertTrue(readme.contains(path), "README does not mention " + path));
+        assertEquals(
+                contract.document()
+                        .at("/paths/~1v1~1designs/post/requestBody/content/application~1json"
+                                + "/examples/indexingAxis/value"),
+                json.readTree(block.group(1)),
+                "README example = contract example");
+        contract.document()
+                .get("paths")
+                .fieldNames()
+                .forEachRemaining(path -> assertTrue(readme.contains(path), "README does not mention " + path));
     }
 
     @Test
     void ciRunsTheReadmeTestCommand() throws Exception {
         String readme = Files.readString(Path.of("..", "README.md"));
-        Matcher command = Pattern.compile("Run all tests:\\s*\\n+```(?:sh|bash)?\\s*\\n(.+?)\\n```").matcher(readme);
+        Matcher command = Pattern.compile("Run all tests:\\s*\\n+```(?:sh|bash)?\\s*\\n(.+?)\\n```")
+                .matcher(readme);
         assertTrue(command.find(), "README gives the test command under 'Run all tests:'");
-        assertTrue(Files.readString(Path.of("..", ".ci", "run")).contains(command.group(1).trim()),
+        assertTrue(
+                Files.readString(Path.of("..", ".ci", "run"))
+                        .contains(command.group(1).trim()),
                 ".ci/run calls the README's test command: " + command.group(1));
     }
 
@@ -305,10 +330,18 @@ class ContractDriftTest {
         assertEquals(false, line.path("additionalProperties").asBoolean(true), "BatchLine is closed");
         assertEquals("integer", line.at("/properties/index/type").asText());
         assertEquals("integer", line.at("/properties/status/type").asText());
-        assertEquals("#/components/schemas/DesignResponse", line.at("/properties/design/$ref").asText());
-        assertEquals("#/components/schemas/Problem", line.at("/properties/problem/$ref").asText());
-        assertEquals("#/components/schemas/BatchStreamLine", contract.document().at("/paths/~1v1~1designs~1batch/post"
-                + "/responses/200/content/application~1x-ndjson/schema/$ref").asText());
+        assertEquals(
+                "#/components/schemas/DesignResponse",
+                line.at("/properties/design/$ref").asText());
+        assertEquals(
+                "#/components/schemas/Problem",
+                line.at("/properties/problem/$ref").asText());
+        assertEquals(
+                "#/components/schemas/BatchStreamLine",
+                contract.document()
+                        .at("/paths/~1v1~1designs~1batch/post"
+                                + "/responses/200/content/application~1x-ndjson/schema/$ref")
+                        .asText());
         JsonNode streamLine = contract.component("BatchStreamLine").get("oneOf");
         assertEquals("#/components/schemas/BatchLine", streamLine.at("/0/$ref").asText());
         assertEquals("#/components/schemas/BatchCut", streamLine.at("/1/$ref").asText());
@@ -317,7 +350,9 @@ class ContractDriftTest {
         for (RecordComponent component : com.loopwright.service.routes.BatchCut.class.getRecordComponents()) {
             cutComponents.add(component.getName());
             if (component.getType() == int.class) {
-                assertEquals("integer", cut.at("/properties/" + component.getName() + "/type").asText(),
+                assertEquals(
+                        "integer",
+                        cut.at("/properties/" + component.getName() + "/type").asText(),
                         "BatchCut." + component.getName());
             }
         }
@@ -325,12 +360,19 @@ class ContractDriftTest {
         cut.get("properties").fieldNames().forEachRemaining(cutProperties::add);
         assertEquals(cutComponents, cutProperties, "fields of BatchCut");
         assertEquals(false, cut.path("additionalProperties").asBoolean(true), "BatchCut is closed");
-        assertEquals("#/components/schemas/Problem", cut.at("/properties/problem/$ref").asText());
-        assertEquals(ServiceConfig.BATCH_ITEMS_CEILING - 1, cut.at("/properties/resumeFromIndex/maximum").asInt());
+        assertEquals(
+                "#/components/schemas/Problem",
+                cut.at("/properties/problem/$ref").asText());
+        assertEquals(
+                ServiceConfig.BATCH_ITEMS_CEILING - 1,
+                cut.at("/properties/resumeFromIndex/maximum").asInt());
         JsonNode items = contract.component("BatchRequest").at("/properties/items");
         assertEquals(ServiceConfig.BATCH_ITEMS_CEILING, items.get("maxItems").asInt(), "batch cap");
-        assertEquals(ServiceConfig.BATCH_ITEMS_CEILING - 1, line.at("/properties/index/maximum").asInt());
-        assertEquals("#/components/schemas/DesignRequest", items.at("/items/$ref").asText());
+        assertEquals(
+                ServiceConfig.BATCH_ITEMS_CEILING - 1,
+                line.at("/properties/index/maximum").asInt());
+        assertEquals(
+                "#/components/schemas/DesignRequest", items.at("/items/$ref").asText());
     }
 
     @Test
@@ -360,7 +402,8 @@ class ContractDriftTest {
         JsonNode parameters = operation.path("parameters");
         for (JsonNode parameter : parameters) {
             if ("path".equals(parameter.path("in").asText())) {
-                concrete = concrete.replace("{" + parameter.get("name").asText() + "}",
+                concrete = concrete.replace(
+                        "{" + parameter.get("name").asText() + "}",
                         parameter.at("/schema/enum/0").asText());
             }
         }
@@ -371,9 +414,10 @@ class ContractDriftTest {
     @Test
     void takeawaySchemasMatchTheirRecordsAndLimits() {
         assertRecordMatchesSchema(PlotRequest.class, contract.component("PlotRequest"), "PlotRequest");
-        assertRecordMatchesSchema(ControllerRequest.class, contract.component("ControllerRequest"), "ControllerRequest");
-        assertRecordMatchesSchema(ControllerParameters.class, contract.component("ControllerParameters"),
-                "ControllerParameters");
+        assertRecordMatchesSchema(
+                ControllerRequest.class, contract.component("ControllerRequest"), "ControllerRequest");
+        assertRecordMatchesSchema(
+                ControllerParameters.class, contract.component("ControllerParameters"), "ControllerParameters");
         Map<String, Double> expected = Map.of(
                 "ControllerRequest/properties/samplePeriodSeconds/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS,
                 "ControllerRequest/properties/samplePeriodSeconds/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS,
@@ -384,13 +428,20 @@ class ContractDriftTest {
             assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
             assertEquals(value, node.asDouble(), 0, pointer);
         });
-        assertEquals(Takeaways.FORMATS.size(), contract.document()
-                .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum").size());
+        assertEquals(
+                Takeaways.FORMATS.size(),
+                contract.document()
+                        .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum")
+                        .size());
         for (int i = 0; i < Takeaways.FORMATS.size(); i++) {
-            assertEquals(Takeaways.FORMATS.get(i), contract.document()
-                    .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum/" + i).asText());
+            assertEquals(
+                    Takeaways.FORMATS.get(i),
+                    contract.document()
+                            .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum/" + i)
+                            .asText());
         }
-        JsonNode figures = contract.document().at("/paths/~1v1~1designs~1plots~1{figure}/post/parameters/0/schema/enum");
+        JsonNode figures =
+                contract.document().at("/paths/~1v1~1designs~1plots~1{figure}/post/parameters/0/schema/enum");
         assertEquals(Figure.values().length, figures.size());
         for (Figure figure : Figure.values()) {
             assertEquals(figure.slug(), figures.get(figure.ordinal()).asText());

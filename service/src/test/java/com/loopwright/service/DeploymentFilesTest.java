@@ -37,16 +37,21 @@ class DeploymentFilesTest {
     @Test
     void kubernetesManifestsDescribeAProbedLimitedScalableService() throws Exception {
         Map<String, JsonNode> kinds = manifests();
-        assertTrue(kinds.keySet().containsAll(java.util.Set.of("Deployment", "Service", "HorizontalPodAutoscaler")),
+        assertTrue(
+                kinds.keySet().containsAll(java.util.Set.of("Deployment", "Service", "HorizontalPodAutoscaler")),
                 kinds.keySet().toString());
         JsonNode container = kinds.get("Deployment").at("/spec/template/spec/containers/0");
         assertEquals("/health/live", container.at("/livenessProbe/httpGet/path").asText());
-        assertEquals("/health/ready", container.at("/readinessProbe/httpGet/path").asText());
-        assertTrue(container.at("/resources/limits/cpu").isTextual() && container.at("/resources/limits/memory").isTextual());
+        assertEquals(
+                "/health/ready", container.at("/readinessProbe/httpGet/path").asText());
+        assertTrue(container.at("/resources/limits/cpu").isTextual()
+                && container.at("/resources/limits/memory").isTextual());
         assertTrue(container.at("/resources/requests/cpu").isTextual());
         assertEquals(8080, container.at("/ports/0/containerPort").asInt());
         assertTrue(container.at("/securityContext/readOnlyRootFilesystem").asBoolean());
-        assertTrue(kinds.get("Deployment").at("/spec/template/spec/securityContext/runAsNonRoot").asBoolean());
+        assertTrue(kinds.get("Deployment")
+                .at("/spec/template/spec/securityContext/runAsNonRoot")
+                .asBoolean());
         // The pod's grace period covers the pre-stop pause plus the service's own drain.
         long graceMillis = 0;
         for (JsonNode env : container.get("env")) {
@@ -55,14 +60,23 @@ class DeploymentFilesTest {
             }
             assertTrue(env.get("name").asText().startsWith("LOOPWRIGHT_"), env.toString());
         }
-        long podGraceSeconds = kinds.get("Deployment").at("/spec/template/spec/terminationGracePeriodSeconds").asLong();
+        long podGraceSeconds = kinds.get("Deployment")
+                .at("/spec/template/spec/terminationGracePeriodSeconds")
+                .asLong();
         long preStopSeconds = container.at("/lifecycle/preStop/sleep/seconds").asLong();
-        assertTrue(graceMillis > 0 && podGraceSeconds * 1000 > graceMillis + preStopSeconds * 1000,
+        assertTrue(
+                graceMillis > 0 && podGraceSeconds * 1000 > graceMillis + preStopSeconds * 1000,
                 "pod grace " + podGraceSeconds + " s covers the drain");
-        assertEquals("Deployment", kinds.get("HorizontalPodAutoscaler").at("/spec/scaleTargetRef/kind").asText());
+        assertEquals(
+                "Deployment",
+                kinds.get("HorizontalPodAutoscaler")
+                        .at("/spec/scaleTargetRef/kind")
+                        .asText());
         assertTrue(kinds.get("HorizontalPodAutoscaler").at("/spec/maxReplicas").asInt()
                 > kinds.get("HorizontalPodAutoscaler").at("/spec/minReplicas").asInt());
-        assertEquals(kinds.get("Deployment").at("/spec/selector/matchLabels"), kinds.get("Service").at("/spec/selector"));
+        assertEquals(
+                kinds.get("Deployment").at("/spec/selector/matchLabels"),
+                kinds.get("Service").at("/spec/selector"));
     }
 
     @Test
@@ -72,10 +86,15 @@ class DeploymentFilesTest {
         assertTrue(dockerfile.contains("HEALTHCHECK") && dockerfile.contains(HealthProbe.class.getName()));
         assertTrue(dockerfile.contains("loopwright.jar"));
         // Out of memory must end the process so that the orchestrator restarts it (not serve on, sick).
-        assertTrue(dockerfile.lines().anyMatch(line -> line.startsWith("ENTRYPOINT")
-                && line.contains("\"-XX:+ExitOnOutOfMemoryError\"")), "the java command exits on OutOfMemoryError");
+        assertTrue(
+                dockerfile
+                        .lines()
+                        .anyMatch(line ->
+                                line.startsWith("ENTRYPOINT") && line.contains("\"-XX:+ExitOnOutOfMemoryError\"")),
+                "the java command exits on OutOfMemoryError");
         String readme = Files.readString(ROOT.resolve("README.md"));
-        assertTrue(readme.contains("java -XX:+ExitOnOutOfMemoryError -jar service/target/loopwright.jar"),
+        assertTrue(
+                readme.contains("java -XX:+ExitOnOutOfMemoryError -jar service/target/loopwright.jar"),
                 "the README's start command has the flag too");
     }
 
@@ -84,7 +103,8 @@ class DeploymentFilesTest {
         Path script = ROOT.resolve("bench").resolve("load.sh");
         assertTrue(Files.isExecutable(script), "bench/load.sh is executable");
         String text = Files.readString(script);
-        assertTrue(text.contains("127.0.0.1") && !text.matches("(?s).*https?://(?!127\\.0\\.0\\.1)[a-z0-9].*"),
+        assertTrue(
+                text.contains("127.0.0.1") && !text.matches("(?s).*https?://(?!127\\.0\\.0\\.1)[a-z0-9].*"),
                 "targets loopback only");
         assertTrue(text.contains("--duration") || text.contains(" -d "), "wrk runs for a bounded time");
         assertTrue(text.contains("--latency"), "prints latency percentiles");

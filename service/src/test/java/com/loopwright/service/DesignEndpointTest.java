@@ -11,7 +11,6 @@ import org.junit.jupiter.api.Test;
 /** POST /v1/designs on the real server: designs that meet their specs, verified and schema-valid. */
 class DesignEndpointTest extends LiveServerTest {
 
-
     private static void assertSpecsMet(JsonNode design, double settlingTime, double overshootPercent) {
         JsonNode simulated = design.get("simulated");
         // Quality bar of the project: simulated settling within 0.5% and overshoot within 0.02 points of the spec.
@@ -19,7 +18,8 @@ class DesignEndpointTest extends LiveServerTest {
         assertEquals(overshootPercent, simulated.get("overshootPercent").asDouble(), 0.02);
         assertTrue(design.at("/verification/specsMet").asBoolean(), design.toString());
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
-        assertTrue(design.at("/verification/hinfNorm").asDouble() <= design.get("gamma").asDouble());
+        assertTrue(design.at("/verification/hinfNorm").asDouble()
+                <= design.get("gamma").asDouble());
     }
 
     // The README scenario: packaging-line indexing axis.
@@ -31,7 +31,8 @@ class DesignEndpointTest extends LiveServerTest {
         assertSpecsMet(design, 0.15, 1.5);
         // source: overshoot formula zeta = -ln OS / sqrt(pi^2 + ln^2 OS) at OS = 0.015.
         double ln = Math.log(0.015);
-        assertEquals(-ln / Math.hypot(Math.PI, ln), design.at("/target/dampingRatio").asDouble(), 1e-12);
+        assertEquals(
+                -ln / Math.hypot(Math.PI, ln), design.at("/target/dampingRatio").asDouble(), 1e-12);
         // source: pole matching, a1 + b k2 = 2 zeta wn and a0 + b k1 = wn^2 (closed-loop polynomial).
         double zeta = design.at("/target/dampingRatio").asDouble();
         double wn = design.at("/target/naturalFrequency").asDouble();
@@ -39,7 +40,8 @@ class DesignEndpointTest extends LiveServerTest {
         assertEquals(wn * wn, 400 * design.at("/gain/k1").asDouble(), 1e-9 * wn * wn);
         assertTrue(design.at("/riccati/residualNorm").asDouble() < 1e-12);
         assertTrue(design.at("/riccati/numeric/relativeDifference").asDouble() < 1e-8);
-        assertEquals(1.2 * design.get("gammaMin").asDouble(), design.get("gamma").asDouble(), 1e-12);
+        assertEquals(
+                1.2 * design.get("gammaMin").asDouble(), design.get("gamma").asDouble(), 1e-12);
         assertTrue(design.get("cautions").size() >= 3);
     }
 
@@ -70,8 +72,10 @@ class DesignEndpointTest extends LiveServerTest {
         assertEquals(gamma, reply.json().get("gamma").asDouble(), 1e-12 * gamma);
         assertSpecsMet(reply.json(), 0.3, 1);
         // source: linearity: the peak control of a step of 10 is 10 times that of a unit step.
-        assertEquals(10 * first.json().at("/simulated/peakControl").asDouble(),
-                reply.json().at("/simulated/peakControl").asDouble(), 1e-9 * reply.json().at("/simulated/peakControl").asDouble());
+        assertEquals(
+                10 * first.json().at("/simulated/peakControl").asDouble(),
+                reply.json().at("/simulated/peakControl").asDouble(),
+                1e-9 * reply.json().at("/simulated/peakControl").asDouble());
     }
 
     @Test
@@ -97,7 +101,8 @@ class DesignEndpointTest extends LiveServerTest {
     // The Java client other teams copy runs the README scenario against the live server.
     @Test
     void copyableJavaClientGetsACertifiedDesign() throws Exception {
-        DesignClient.Reply reply = new DesignClient(URI.create(server.base().toString())).design(DesignClient.INDEXING_AXIS);
+        DesignClient.Reply reply =
+                new DesignClient(URI.create(server.base().toString())).design(DesignClient.INDEXING_AXIS);
         assertTrue(reply.certified(), reply.body());
         assertTrue(reply.number("k1") > 0 && reply.number("k2") > 0);
     }

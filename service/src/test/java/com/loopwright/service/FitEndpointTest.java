@@ -31,9 +31,18 @@ class FitEndpointTest extends LiveServerTest {
      * A conveyor speed step test: input from 0 to inputStep at the first sample at or after stepTime (the logger
      * sees the step at a sample instant), output 0.5 + K inputStep S(t - step - delay) + noise.
      */
-    private static ObjectNode stepTest(double gain, double wn, double zeta, double delay, double inputStep,
-                                       double stepTime, double duration, int n, double noise, long seed,
-                                       double clipAt) {
+    private static ObjectNode stepTest(
+            double gain,
+            double wn,
+            double zeta,
+            double delay,
+            double inputStep,
+            double stepTime,
+            double duration,
+            int n,
+            double noise,
+            long seed,
+            double clipAt) {
         Random random = new Random(seed);
         stepTime = duration * Math.ceil(stepTime * (n - 1) / duration) / (n - 1);
         ObjectNode body = JSON.createObjectNode();
@@ -45,8 +54,9 @@ class FitEndpointTest extends LiveServerTest {
             double t = duration * i / (n - 1);
             time.add(t);
             input.add(t >= stepTime ? inputStep : 0);
-            output.add(Math.min(clipAt, 0.5 + gain * inputStep * step(t - stepTime - delay, wn, zeta)
-                    + noise * random.nextGaussian()));
+            output.add(Math.min(
+                    clipAt,
+                    0.5 + gain * inputStep * step(t - stepTime - delay, wn, zeta) + noise * random.nextGaussian()));
         }
         return body;
     }
@@ -62,8 +72,9 @@ class FitEndpointTest extends LiveServerTest {
 
     @Test
     void fittedConveyorModelIsInsideItsIntervalsAndDesignsDirectly() throws Exception {
-        var reply = server.post("/v1/models/fit", JSON.writeValueAsString(
-                stepTest(1.6, 4, 0.45, 0, 2, 0.5, 5, 500, 0.01, 17, Double.POSITIVE_INFINITY)));
+        var reply = server.post(
+                "/v1/models/fit",
+                JSON.writeValueAsString(stepTest(1.6, 4, 0.45, 0, 2, 0.5, 5, 500, 0.01, 17, Double.POSITIVE_INFINITY)));
         assertEquals(200, reply.status(), reply.text());
         JsonNode fit = reply.json();
         assertEquals("input", fit.at("/step/source").asText());
@@ -71,8 +82,9 @@ class FitEndpointTest extends LiveServerTest {
         double[] truth = {1.6, 4, 0.45, 0.5};
         String[] names = {"gain", "naturalFrequency", "dampingRatio", "initialOffset"};
         for (int i = 0; i < names.length; i++) {
-            assertTrue(parameter(fit, names[i], "lower95") <= truth[i]
-                    && truth[i] <= parameter(fit, names[i], "upper95"), names[i] + " " + fit);
+            assertTrue(
+                    parameter(fit, names[i], "lower95") <= truth[i] && truth[i] <= parameter(fit, names[i], "upper95"),
+                    names[i] + " " + fit);
         }
         assertTrue(fit.at("/quality/rSquared").asDouble() > 0.99);
         assertEquals(0.01, fit.at("/quality/rmsError").asDouble(), 0.002);
@@ -82,7 +94,8 @@ class FitEndpointTest extends LiveServerTest {
         design.set("spec", JSON.readTree("{\"settlingTime\":0.6,\"overshootPercent\":2}"));
         var designed = server.post("/v1/designs", JSON.writeValueAsString(design));
         assertEquals(200, designed.status(), designed.text());
-        assertEquals("secondOrderTransferFunction", designed.json().at("/model/form").asText());
+        assertEquals(
+                "secondOrderTransferFunction", designed.json().at("/model/form").asText());
         assertTrue(designed.json().at("/verification/certified").asBoolean());
         // source: the transfer-function form maps to a0 = wn^2, a1 = 2 zeta wn.
         double wn = fit.at("/plant/naturalFrequency").asDouble();
@@ -103,14 +116,16 @@ class FitEndpointTest extends LiveServerTest {
 
     @Test
     void clippedRecordsAreFlaggedAndFlatRecordsRefused() throws Exception {
-        var clipped = server.post("/v1/models/fit", JSON.writeValueAsString(
-                stepTest(1.0, 5, 0.3, 0, 1, 0.2, 4, 400, 0.001, 29, 1.7)));
+        var clipped = server.post(
+                "/v1/models/fit", JSON.writeValueAsString(stepTest(1.0, 5, 0.3, 0, 1, 0.2, 4, 400, 0.001, 29, 1.7)));
         assertEquals(200, clipped.status(), clipped.text());
         assertTrue(clipped.text().contains("saturationPlateau"), clipped.text());
-        var flat = server.post("/v1/models/fit", JSON.writeValueAsString(
-                stepTest(0, 5, 0.3, 0, 1, 0.2, 4, 100, 0, 31, Double.POSITIVE_INFINITY)));
+        var flat = server.post(
+                "/v1/models/fit",
+                JSON.writeValueAsString(stepTest(0, 5, 0.3, 0, 1, 0.2, 4, 100, 0, 31, Double.POSITIVE_INFINITY)));
         assertEquals(422, flat.status(), flat.text());
-        assertEquals("urn:loopwright:problem:fit-failed", flat.json().get("type").asText());
+        assertEquals(
+                "urn:loopwright:problem:fit-failed", flat.json().get("type").asText());
         assertEquals("/samples/output", flat.json().at("/errors/0/pointer").asText());
     }
 
@@ -131,7 +146,8 @@ class FitEndpointTest extends LiveServerTest {
         var nullEntry = server.post("/v1/models/fit", """
                 {"samples":{"time":[0,1,2,3,4,5,6,7],"output":[0,1,null,3,4,5,6,7]}}""");
         assertEquals(400, nullEntry.status());
-        assertEquals("/samples/output/2", nullEntry.json().at("/errors/0/pointer").asText());
+        assertEquals(
+                "/samples/output/2", nullEntry.json().at("/errors/0/pointer").asText());
         StringBuilder many = new StringBuilder("{\"samples\":{\"time\":[");
         for (int i = 0; i <= 20_000; i++) {
             many.append(i == 0 ? "" : ",").append(i);
@@ -188,8 +204,7 @@ class FitEndpointTest extends LiveServerTest {
         assertTrue(parameter(stuck.json(), "deadTime", "lower95") >= 0, stuck.text());
         assertTrue(stuck.json().at("/quality/rmsError").asDouble() < 0.012, stuck.text());
         // Item 12: wn 33.9, zeta 9.46 sampled at 10 Hz; J'J is singular at the optimum.
-        var singular = server.post("/v1/models/fit", JSON.writeValueAsString(
-                overdampedTest(33.9, 9.46, 0.1, 0.5, 5)));
+        var singular = server.post("/v1/models/fit", JSON.writeValueAsString(overdampedTest(33.9, 9.46, 0.1, 0.5, 5)));
         assertEquals(200, singular.status(), singular.text());
         assertTrue(singular.text().contains("poorlyDetermined"), singular.text());
         int withoutInterval = 0;

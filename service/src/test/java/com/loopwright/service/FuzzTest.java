@@ -42,22 +42,25 @@ class FuzzTest {
 
     private final Contract contract = Contract.load();
     private final SchemaFuzzer fuzzer = new SchemaFuzzer(contract.document());
-    private final JsonNode example = contract.document().at(
-            "/paths/~1v1~1designs/post/requestBody/content/application~1json/examples/indexingAxis/value");
+    private final JsonNode example = contract.document()
+            .at("/paths/~1v1~1designs/post/requestBody/content/application~1json/examples/indexingAxis/value");
 
-    private record Shot(String method, String path, String contentType, byte[] body, Map<String, String> headers) {
-    }
+    private record Shot(String method, String path, String contentType, byte[] body, Map<String, String> headers) {}
 
     @Test
     void mutatedRequestsNeverGet5xxAndEveryErrorIsAProblem() throws Exception {
         List<String> getPaths = new ArrayList<>();
         List<String> postPaths = new ArrayList<>();
-        for (Iterator<Map.Entry<String, JsonNode>> paths = contract.document().get("paths").fields(); paths.hasNext(); ) {
+        for (Iterator<Map.Entry<String, JsonNode>> paths =
+                        contract.document().get("paths").fields();
+                paths.hasNext(); ) {
             Map.Entry<String, JsonNode> path = paths.next();
             (path.getValue().has("post") ? postPaths : getPaths).add(path.getKey());
         }
-        HttpClient http = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
-                .connectTimeout(Duration.ofSeconds(5)).build();
+        HttpClient http = HttpClient.newBuilder()
+                .version(HttpClient.Version.HTTP_1_1)
+                .connectTimeout(Duration.ofSeconds(5))
+                .build();
         Queue<String> failures = new ConcurrentLinkedQueue<>();
         AtomicInteger sent = new AtomicInteger();
         AtomicInteger designs = new AtomicInteger();
@@ -79,7 +82,8 @@ class FuzzTest {
                         }
                         try {
                             int status = check(http, server.base(), shot, failures, designs, statuses5xx);
-                            statuses.computeIfAbsent(status, k -> new AtomicInteger()).incrementAndGet();
+                            statuses.computeIfAbsent(status, k -> new AtomicInteger())
+                                    .incrementAndGet();
                         } catch (Exception | AssertionError e) {
                             failures.add(i + " " + shot.method() + " " + shot.path() + ": " + e);
                         }
@@ -91,7 +95,10 @@ class FuzzTest {
             assertTrue(clients.awaitTermination(170, TimeUnit.SECONDS), "fuzzing finished in time");
             assertEquals(REQUESTS, sent.get());
             assertEquals(0, statuses5xx.get(), "5xx responses: " + failures);
-            assertTrue(failures.isEmpty(), failures.size() + " failures, first: " + failures.stream().limit(5).toList());
+            assertTrue(
+                    failures.isEmpty(),
+                    failures.size() + " failures, first: "
+                            + failures.stream().limit(5).toList());
             assertTrue(designs.get() > 100, "some requests were valid designs: " + designs.get());
             // The mutations reach every kind of rejection (so that this test cannot pass by sending nothing bad).
             for (int expected : new int[] {200, 400, 404, 405, 413, 415, 422}) {
@@ -109,11 +116,14 @@ class FuzzTest {
 
     private Shot shot(Random random, List<String> getPaths, List<String> postPaths) {
         List<String> otherPosts = postPaths.stream()
-                .filter(p -> !p.equals("/v1/designs") && !p.equals("/v1/designs/batch")).toList();
+                .filter(p -> !p.equals("/v1/designs") && !p.equals("/v1/designs/batch"))
+                .toList();
         int pick = random.nextInt(100);
         Map<String, String> headers = new java.util.HashMap<>();
         if (random.nextInt(4) == 0) {
-            headers.put("X-Request-Id", randomText(random, HEADER_CHARS, random.nextInt(300)).trim());
+            headers.put(
+                    "X-Request-Id",
+                    randomText(random, HEADER_CHARS, random.nextInt(300)).trim());
         }
         if (random.nextInt(10) == 0) {
             headers.put("Origin", "https://" + randomText(random, SAFE, 12) + ".example");
@@ -134,11 +144,17 @@ class FuzzTest {
             if (!named.isEmpty() && random.nextInt(4) > 0) {
                 base = named.get(random.nextInt(named.size())).get("value");
             } else {
-                String schema = operation.at("/requestBody/content/application~1json/schema/$ref").asText();
+                String schema = operation
+                        .at("/requestBody/content/application~1json/schema/$ref")
+                        .asText();
                 base = fuzzer.valid(schema.substring(schema.lastIndexOf('/') + 1), random);
             }
-            return new Shot("POST", concrete(path, operation, random), "application/json",
-                    fuzzer.mutate(base, random), headers);
+            return new Shot(
+                    "POST",
+                    concrete(path, operation, random),
+                    "application/json",
+                    fuzzer.mutate(base, random),
+                    headers);
         }
         if (pick < 70) {
             JsonNode base = fuzzer.valid("BatchRequest", random);
@@ -148,8 +164,8 @@ class FuzzTest {
             String path = getPaths.get(random.nextInt(getPaths.size()));
             path = concrete(path, contract.document().get("paths").get(path).path("get"), random);
             if (random.nextBoolean()) {
-                path += "?" + randomText(random, SAFE, random.nextInt(40)) + "=%" + "0123456789ABCDEF".charAt(random.nextInt(16))
-                        + "0123456789ABCDEF".charAt(random.nextInt(16));
+                path += "?" + randomText(random, SAFE, random.nextInt(40)) + "=%"
+                        + "0123456789ABCDEF".charAt(random.nextInt(16)) + "0123456789ABCDEF".charAt(random.nextInt(16));
             }
             return new Shot("GET", path, null, null, headers);
         }
@@ -161,8 +177,10 @@ class FuzzTest {
         JsonNode pathItem = contract.document().get("paths").path(path);
         path = concrete(path, pathItem.has("post") ? pathItem.get("post") : pathItem.path("get"), random);
         String method = new String[] {"POST", "PUT", "DELETE", "PATCH", "GET"}[random.nextInt(5)];
-        String type = new String[] {"text/plain", "application/xml", "application/json; charset=latin1",
-            "application/jsonx", null}[random.nextInt(5)];
+        String type = new String[] {
+                    "text/plain", "application/xml", "application/json; charset=latin1", "application/jsonx", null
+                }
+                [random.nextInt(5)];
         byte[] body = method.equals("GET") ? null : SchemaFuzzer.bytes(example);
         return new Shot(method, path, type, body, headers);
     }
@@ -188,11 +206,21 @@ class FuzzTest {
         return text.toString();
     }
 
-    private int check(HttpClient http, URI base, Shot shot, Queue<String> failures, AtomicInteger designs,
-                       AtomicInteger statuses5xx) throws IOException, InterruptedException {
-        HttpRequest.Builder request = HttpRequest.newBuilder(base.resolve(shot.path())).timeout(Duration.ofSeconds(60))
-                .method(shot.method(), shot.body() == null ? HttpRequest.BodyPublishers.noBody()
-                        : HttpRequest.BodyPublishers.ofByteArray(shot.body()));
+    private int check(
+            HttpClient http,
+            URI base,
+            Shot shot,
+            Queue<String> failures,
+            AtomicInteger designs,
+            AtomicInteger statuses5xx)
+            throws IOException, InterruptedException {
+        HttpRequest.Builder request = HttpRequest.newBuilder(base.resolve(shot.path()))
+                .timeout(Duration.ofSeconds(60))
+                .method(
+                        shot.method(),
+                        shot.body() == null
+                                ? HttpRequest.BodyPublishers.noBody()
+                                : HttpRequest.BodyPublishers.ofByteArray(shot.body()));
         if (shot.contentType() != null) {
             request.header("Content-Type", shot.contentType());
         }
@@ -200,7 +228,11 @@ class FuzzTest {
         HttpResponse<String> response = http.send(request.build(), HttpResponse.BodyHandlers.ofString());
         int status = response.statusCode();
         String where = shot.method() + " " + shot.path() + " -> " + status + ": ";
-        String mediaType = response.headers().firstValue("Content-Type").orElse("").split(";")[0].trim();
+        String mediaType = response.headers()
+                .firstValue("Content-Type")
+                .orElse("")
+                .split(";")[0]
+                .trim();
         String body = response.body();
         if (status >= 500) {
             statuses5xx.incrementAndGet();
@@ -239,7 +271,8 @@ class FuzzTest {
             for (String line : body.split("\n")) {
                 JsonNode parsed = JSON.readTree(line);
                 String violations = validate || parsed.path("status").asInt() != 200
-                        ? contract.violations("/v1/designs/batch", "post", 200, mediaType, parsed) : "";
+                        ? contract.violations("/v1/designs/batch", "post", 200, mediaType, parsed)
+                        : "";
                 if (!violations.isEmpty() || parsed.path("status").asInt() >= 500) {
                     failures.add(where + "bad batch line: " + violations + " " + line);
                 }

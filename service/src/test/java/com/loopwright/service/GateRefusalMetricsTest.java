@@ -7,7 +7,6 @@ import ch.qos.logback.classic.Level;
 import ch.qos.logback.classic.Logger;
 import ch.qos.logback.classic.spi.ILoggingEvent;
 import ch.qos.logback.core.read.ListAppender;
-
 import java.util.HashMap;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
@@ -42,8 +41,8 @@ class GateRefusalMetricsTest {
         double seen = -1;
         for (int attempt = 0; attempt < 50 && seen != expected; attempt++) {
             Thread.sleep(attempt == 0 ? 0 : 20);
-            seen = PrometheusText.parse(server.get("/metrics").text()).sum(REQUESTS,
-                    Map.of("route", route, "method", method, "status", status));
+            seen = PrometheusText.parse(server.get("/metrics").text())
+                    .sum(REQUESTS, Map.of("route", route, "method", method, "status", status));
         }
         return seen;
     }
@@ -53,12 +52,24 @@ class GateRefusalMetricsTest {
         try (LiveServer server = start(Map.of())) {
             // Answered at once (Expect: 100-continue) on a plain path and on a templated one.
             try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                assertEquals(413, socket.send(head("POST", "/v1/designs", "Content-Length: " + (CAP_BYTES + 1)
-                        + "\r\nExpect: 100-continue\r\n")).read().status());
+                assertEquals(
+                        413,
+                        socket.send(head(
+                                        "POST",
+                                        "/v1/designs",
+                                        "Content-Length: " + (CAP_BYTES + 1) + "\r\nExpect: 100-continue\r\n"))
+                                .read()
+                                .status());
             }
             try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                assertEquals(413, socket.send(head("POST", "/v1/designs/plots/bode", "Content-Length: "
-                        + (CAP_BYTES + 1) + "\r\nExpect: 100-continue\r\n")).read().status());
+                assertEquals(
+                        413,
+                        socket.send(head(
+                                        "POST",
+                                        "/v1/designs/plots/bode",
+                                        "Content-Length: " + (CAP_BYTES + 1) + "\r\nExpect: 100-continue\r\n"))
+                                .read()
+                                .status());
             }
             // Read and dropped first, then answered: still one count.
             byte[] body = new byte[CAP_BYTES + 10];
@@ -69,8 +80,14 @@ class GateRefusalMetricsTest {
             }
             // A path that fits no route and a made-up method: the bounded label "other".
             try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                assertEquals(413, socket.send(head("BREW", "/no/such/" + "x".repeat(40), "Content-Length: "
-                        + (CAP_BYTES + 1) + "\r\nExpect: 100-continue\r\n")).read().status());
+                assertEquals(
+                        413,
+                        socket.send(head(
+                                        "BREW",
+                                        "/no/such/" + "x".repeat(40),
+                                        "Content-Length: " + (CAP_BYTES + 1) + "\r\nExpect: 100-continue\r\n"))
+                                .read()
+                                .status());
             }
             assertEquals(1, count(server, "/v1/designs", "POST", "413", 1));
             assertEquals(1, count(server, "/v1/designs/plots/{figure}", "POST", "413", 1));
@@ -81,23 +98,35 @@ class GateRefusalMetricsTest {
 
     @Test
     void slowBrokenAndOverBudgetBodiesAreCounted() throws Exception {
-        try (LiveServer server = start(Map.of("LOOPWRIGHT_BODY_GRACE_MS", "300",
-                "LOOPWRIGHT_MIN_BODY_BYTES_PER_S", "1000"))) {
+        try (LiveServer server =
+                start(Map.of("LOOPWRIGHT_BODY_GRACE_MS", "300", "LOOPWRIGHT_MIN_BODY_BYTES_PER_S", "1000"))) {
             try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                assertEquals(408, socket.send(head("POST", "/v1/designs/batch", "Content-Length: 100\r\n") + "{")
-                        .read().status());
+                assertEquals(
+                        408,
+                        socket.send(head("POST", "/v1/designs/batch", "Content-Length: 100\r\n") + "{")
+                                .read()
+                                .status());
             }
             try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                assertEquals(400, socket.send(head("POST", "/v1/models/fit", "Transfer-Encoding: chunked\r\n")
-                        + "ZZ\r\nabc\r\n").read().status());
+                assertEquals(
+                        400,
+                        socket.send(head("POST", "/v1/models/fit", "Transfer-Encoding: chunked\r\n") + "ZZ\r\nabc\r\n")
+                                .read()
+                                .status());
             }
             // One body of the whole budget half sent; the next body is refused for the budget.
             try (RawExchange holder = new RawExchange(server.app().port(), 5_000);
-                 RawExchange refused = new RawExchange(server.app().port(), 5_000)) {
+                    RawExchange refused = new RawExchange(server.app().port(), 5_000)) {
                 holder.send(head("POST", "/v1/designs", "Content-Length: " + CAP_BYTES + "\r\n") + "{");
                 Thread.sleep(100);
-                assertEquals(503, refused.send(head("POST", "/v1/designs/high-order",
-                        "Content-Length: 10\r\nExpect: 100-continue\r\n")).read().status());
+                assertEquals(
+                        503,
+                        refused.send(head(
+                                        "POST",
+                                        "/v1/designs/high-order",
+                                        "Content-Length: 10\r\nExpect: 100-continue\r\n"))
+                                .read()
+                                .status());
             }
             assertEquals(1, count(server, "/v1/designs/batch", "POST", "408", 1));
             assertEquals(1, count(server, "/v1/models/fit", "POST", "400", 1));
@@ -114,9 +143,15 @@ class GateRefusalMetricsTest {
         access.setLevel(Level.INFO);
         access.addAppender(captured);
         try (LiveServer server = start(Map.of());
-             RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-            assertEquals(413, socket.send(head("POST", "/v1/designs/plots/bode", "Content-Length: " + (CAP_BYTES + 1)
-                    + "\r\nExpect: 100-continue\r\n")).read().status());
+                RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
+            assertEquals(
+                    413,
+                    socket.send(head(
+                                    "POST",
+                                    "/v1/designs/plots/bode",
+                                    "Content-Length: " + (CAP_BYTES + 1) + "\r\nExpect: 100-continue\r\n"))
+                            .read()
+                            .status());
         } finally {
             access.detachAppender(captured);
             access.setLevel(before);

@@ -16,8 +16,10 @@ class HighOrderEndpointTest extends LiveServerTest {
     /** The contract's own example (README scenario): spec matching meets the simulated specs, design verified. */
     @Test
     void contractExampleMatchesTheSpecsAndIsCertified() throws Exception {
-        JsonNode example = Contract.load().document().at("/paths/~1v1~1designs~1high-order/post/requestBody/content"
-                + "/application~1json/examples/pickAndPlaceAxis/value");
+        JsonNode example = Contract.load()
+                .document()
+                .at("/paths/~1v1~1designs~1high-order/post/requestBody/content"
+                        + "/application~1json/examples/pickAndPlaceAxis/value");
         LiveServer.Reply reply = server.post(PATH, new ObjectMapper().writeValueAsString(example));
         assertEquals(200, reply.status(), reply.text());
         JsonNode design = reply.json();
@@ -27,7 +29,8 @@ class HighOrderEndpointTest extends LiveServerTest {
         assertEquals(1.5, design.at("/simulated/overshootPercent").asDouble(), 0.01);
         assertTrue(design.at("/verification/specsMet").asBoolean(), design.toString());
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
-        assertTrue(design.at("/verification/hinfNorm").asDouble() <= design.get("gamma").asDouble() * (1 + 1e-8));
+        assertTrue(design.at("/verification/hinfNorm").asDouble()
+                <= design.get("gamma").asDouble() * (1 + 1e-8));
         assertTrue(design.at("/riccati/residualNorm").asDouble() < 1e-9);
         assertTrue(design.at("/riccati/numericRelativeDifference").asDouble() < 1e-6);
     }
@@ -35,17 +38,35 @@ class HighOrderEndpointTest extends LiveServerTest {
     /** n = 2 through both endpoints: the same gamma_min and gains as the closed form of POST /v1/designs. */
     @Test
     void secondOrderAgreesWithTheClosedFormEndpoint() {
-        JsonNode closed = server.post("/v1/designs", "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
-                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}").json();
-        JsonNode high = server.post(PATH, "{\"plant\":{\"denominator\":[0,0.48],\"b\":400,\"disturbance\":[0,400]},"
-                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}").json();
-        assertEquals(closed.get("gammaMin").asDouble(), high.get("gammaMin").asDouble(),
+        JsonNode closed = server.post(
+                        "/v1/designs",
+                        "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}")
+                .json();
+        JsonNode high = server.post(
+                        PATH,
+                        "{\"plant\":{\"denominator\":[0,0.48],\"b\":400,\"disturbance\":[0,400]},"
+                                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}")
+                .json();
+        assertEquals(
+                closed.get("gammaMin").asDouble(),
+                high.get("gammaMin").asDouble(),
                 1e-12 * closed.get("gammaMin").asDouble());
-        assertEquals(closed.at("/gain/k1").asDouble(), high.at("/gain/k/0").asDouble(), 1e-12 * closed.at("/gain/k1").asDouble());
-        assertEquals(closed.at("/gain/k2").asDouble(), high.at("/gain/k/1").asDouble(), 1e-12 * closed.at("/gain/k2").asDouble());
-        assertEquals(closed.at("/riccati/p11").asDouble(), high.at("/riccati/p/0/0").asDouble(),
+        assertEquals(
+                closed.at("/gain/k1").asDouble(),
+                high.at("/gain/k/0").asDouble(),
+                1e-12 * closed.at("/gain/k1").asDouble());
+        assertEquals(
+                closed.at("/gain/k2").asDouble(),
+                high.at("/gain/k/1").asDouble(),
+                1e-12 * closed.at("/gain/k2").asDouble());
+        assertEquals(
+                closed.at("/riccati/p11").asDouble(),
+                high.at("/riccati/p/0/0").asDouble(),
                 1e-12 * closed.at("/riccati/p11").asDouble());
-        assertEquals(closed.at("/weights/rho2").asDouble(), high.at("/weights/1").asDouble(),
+        assertEquals(
+                closed.at("/weights/rho2").asDouble(),
+                high.at("/weights/1").asDouble(),
                 1e-12 * closed.at("/weights/rho2").asDouble());
     }
 
@@ -55,12 +76,14 @@ class HighOrderEndpointTest extends LiveServerTest {
      */
     @Test
     void unmatchedDisturbanceAcceptsGammaNine() {
-        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[116.18020871989592,143.70716638812533,"
-                + "88.57936923160051,30.503422892081126,7.383026668401097],\"b\":9.239987350768951,"
-                + "\"numerator\":[1.0,-0.07477891545821842,0,0,0],\"disturbance\":[-0.011479745058412868,"
-                + "0.005237289926014479,-0.09520698703810945,-0.01578820225853452,-0.03225289088209848]},"
-                + "\"spec\":{\"settlingTime\":1.1425650820161488,\"overshootPercent\":1.8545524264102118,"
-                + "\"settlingBandPercent\":5,\"gamma\":9},\"matchSpecs\":true}");
+        LiveServer.Reply reply = server.post(
+                PATH,
+                "{\"plant\":{\"denominator\":[116.18020871989592,143.70716638812533,"
+                        + "88.57936923160051,30.503422892081126,7.383026668401097],\"b\":9.239987350768951,"
+                        + "\"numerator\":[1.0,-0.07477891545821842,0,0,0],\"disturbance\":[-0.011479745058412868,"
+                        + "0.005237289926014479,-0.09520698703810945,-0.01578820225853452,-0.03225289088209848]},"
+                        + "\"spec\":{\"settlingTime\":1.1425650820161488,\"overshootPercent\":1.8545524264102118,"
+                        + "\"settlingBandPercent\":5,\"gamma\":9},\"matchSpecs\":true}");
         assertEquals(200, reply.status(), reply.text());
         JsonNode design = reply.json();
         assertEquals(9, design.get("gamma").asDouble());
@@ -68,10 +91,13 @@ class HighOrderEndpointTest extends LiveServerTest {
         assertEquals(2.1429, design.at("/weights/4").asDouble(), 1e-4);
         assertEquals(8.994, design.at("/verification/hinfNorm").asDouble(), 1e-3);
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
-        JsonNode last = design.get("gammaIntervals").get(design.get("gammaIntervals").size() - 1);
+        JsonNode last =
+                design.get("gammaIntervals").get(design.get("gammaIntervals").size() - 1);
         assertTrue(last.get("unbounded").asBoolean());
         assertFalse(last.has("upper"), "no number stands for infinity: " + last);
-        assertEquals(design.get("gammaMin").asDouble(), design.at("/gammaIntervals/0/lower").asDouble());
+        assertEquals(
+                design.get("gammaMin").asDouble(),
+                design.at("/gammaIntervals/0/lower").asDouble());
     }
 
     /**
@@ -80,13 +106,15 @@ class HighOrderEndpointTest extends LiveServerTest {
      */
     @Test
     void boundedFeasibleSetAcceptsGammaThreeHundred() {
-        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[-4664.394958744662,10563.774241076499,"
-                + "4285.479299120085,580.1103571483848,35.17298130085375],\"b\":4981.713964800213,"
-                + "\"numerator\":[1.0,0.42082210235868306,0,0,0],\"disturbance\":[-87.57057439775919,222.93044269608208,"
-                + "-920.389020662208,8698.501577157102,-28721.24165932483]},\"spec\":{\"settlingTime\":2.055015615852868,"
-                + "\"overshootPercent\":0.3424922914388982,\"settlingBandPercent\":5,\"gamma\":300},"
-                + "\"auxiliaryPoles\":{\"poles\":[{\"re\":-15.945617686966436,\"im\":0},{\"re\":-21.564618342946243,"
-                + "\"im\":0},{\"re\":-17.05786188395355,\"im\":0}]}}");
+        LiveServer.Reply reply = server.post(
+                PATH,
+                "{\"plant\":{\"denominator\":[-4664.394958744662,10563.774241076499,"
+                        + "4285.479299120085,580.1103571483848,35.17298130085375],\"b\":4981.713964800213,"
+                        + "\"numerator\":[1.0,0.42082210235868306,0,0,0],\"disturbance\":[-87.57057439775919,222.93044269608208,"
+                        + "-920.389020662208,8698.501577157102,-28721.24165932483]},\"spec\":{\"settlingTime\":2.055015615852868,"
+                        + "\"overshootPercent\":0.3424922914388982,\"settlingBandPercent\":5,\"gamma\":300},"
+                        + "\"auxiliaryPoles\":{\"poles\":[{\"re\":-15.945617686966436,\"im\":0},{\"re\":-21.564618342946243,"
+                        + "\"im\":0},{\"re\":-17.05786188395355,\"im\":0}]}}");
         assertEquals(200, reply.status(), reply.text());
         JsonNode design = reply.json();
         assertEquals(2.8685, design.at("/weights/0").asDouble(), 1e-4);
@@ -102,12 +130,14 @@ class HighOrderEndpointTest extends LiveServerTest {
     /** Issue 12 item 3: 1.001 x the old gamma_min 892911.6 is outside the feasible set: 422 at /spec/gamma. */
     @Test
     void gammaOutsideTheFeasibleSetIsA422NamingTheIntervals() {
-        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[0.0,24.97941139170825,"
-                + "134.5277526057287,169.3013746965912,123.65431526377886,38.52871463226239,8.882909324515014],"
-                + "\"b\":0.04324120581504016,\"disturbance\":[7.7270514615083,-4.699242623990899,6.92906458125667,"
-                + "1.7780545876755274,-1.5050091596285124,-4.120016176140748,5.0987200947974]},"
-                + "\"spec\":{\"settlingTime\":4.27809291643725,\"overshootPercent\":5.483595520321292,"
-                + "\"gamma\":893804.5},\"matchSpecs\":true}");
+        LiveServer.Reply reply = server.post(
+                PATH,
+                "{\"plant\":{\"denominator\":[0.0,24.97941139170825,"
+                        + "134.5277526057287,169.3013746965912,123.65431526377886,38.52871463226239,8.882909324515014],"
+                        + "\"b\":0.04324120581504016,\"disturbance\":[7.7270514615083,-4.699242623990899,6.92906458125667,"
+                        + "1.7780545876755274,-1.5050091596285124,-4.120016176140748,5.0987200947974]},"
+                        + "\"spec\":{\"settlingTime\":4.27809291643725,\"overshootPercent\":5.483595520321292,"
+                        + "\"gamma\":893804.5},\"matchSpecs\":true}");
         assertEquals(422, reply.status(), reply.text());
         assertEquals("/spec/gamma", reply.json().at("/errors/0/pointer").asText());
         assertTrue(reply.json().get("detail").asText().contains("outside the feasible gamma set ("), reply.text());
@@ -117,36 +147,43 @@ class HighOrderEndpointTest extends LiveServerTest {
     /** A zero at +2 1/s with 0.5 s settling forces 57% undershoot (bound (1 - delta)/(e^{z ts} - 1), from memory). */
     @Test
     void rightHalfPlaneZeroIsA422NamingTheSettlingTime() {
-        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,-0.5,0],"
-                + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.5,\"overshootPercent\":2},"
-                + "\"matchSpecs\":true}");
+        LiveServer.Reply reply = server.post(
+                PATH,
+                "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,-0.5,0],"
+                        + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.5,\"overshootPercent\":2},"
+                        + "\"matchSpecs\":true}");
         assertEquals(422, reply.status(), reply.text());
         assertEquals("/spec/settlingTime", reply.json().at("/errors/0/pointer").asText());
         assertTrue(reply.json().get("detail").asText().contains("right-half-plane zero"), reply.text());
-        assertEquals("/spec/settlingTime", reply.json().at("/proposals/0/pointer").asText());
+        assertEquals(
+                "/spec/settlingTime", reply.json().at("/proposals/0/pointer").asText());
     }
 
     @Test
     void unreachableSpecReportsNonConvergenceAsA422() {
-        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,5,0],"
-                + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},"
-                + "\"matchSpecs\":true}");
+        LiveServer.Reply reply = server.post(
+                PATH,
+                "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,5,0],"
+                        + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},"
+                        + "\"matchSpecs\":true}");
         assertEquals(422, reply.status(), reply.text());
         assertTrue(reply.json().get("detail").asText().contains("did not converge"), reply.text());
     }
 
     @ParameterizedTest
-    @CsvSource(delimiter = '|', value = {
-            "{\"plant\":{\"denominator\":[1,2,3,4,5,6,7,8,9],\"b\":1,\"disturbance\":[1,1,1,1,1,1,1,1,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/denominator",
-            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
-            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,0]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
-            "{\"plant\":{\"denominator\":[1,2,3],\"numerator\":[0,1,0],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/numerator/0",
-            "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":1},{\"re\":-5,\"im\":2}]}}|/auxiliaryPoles/poles/0/im",
-            "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles",
-            "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":5,\"im\":0},{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles/0/re",
-            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"realPartMultiple\":0.5}}|/auxiliaryPoles/realPartMultiple",
-            "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"overshootPercent\":2}}|/spec/settlingTime",
-    })
+    @CsvSource(
+            delimiter = '|',
+            value = {
+                "{\"plant\":{\"denominator\":[1,2,3,4,5,6,7,8,9],\"b\":1,\"disturbance\":[1,1,1,1,1,1,1,1,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/denominator",
+                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
+                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,0]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
+                "{\"plant\":{\"denominator\":[1,2,3],\"numerator\":[0,1,0],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/numerator/0",
+                "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":1},{\"re\":-5,\"im\":2}]}}|/auxiliaryPoles/poles/0/im",
+                "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles",
+                "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":5,\"im\":0},{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles/0/re",
+                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"realPartMultiple\":0.5}}|/auxiliaryPoles/realPartMultiple",
+                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"overshootPercent\":2}}|/spec/settlingTime",
+            })
     void badInputIsA400NamingTheField(String body, String pointer) {
         LiveServer.Reply reply = server.post(PATH, body);
         assertEquals(400, reply.status(), reply.text());
@@ -155,10 +192,20 @@ class HighOrderEndpointTest extends LiveServerTest {
 
     @Test
     void unknownFieldsAndNaNAreRejected() {
-        assertEquals(400, server.post(PATH, "{\"plant\":{\"denominator\":[1,2],\"b\":1,\"disturbance\":[0,1],"
-                + "\"a0\":1},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}").status());
-        assertEquals(400, server.post(PATH, "{\"plant\":{\"denominator\":[NaN,2],\"b\":1,\"disturbance\":[0,1]},"
-                + "\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}").status());
+        assertEquals(
+                400,
+                server.post(
+                                PATH,
+                                "{\"plant\":{\"denominator\":[1,2],\"b\":1,\"disturbance\":[0,1],"
+                                        + "\"a0\":1},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}")
+                        .status());
+        assertEquals(
+                400,
+                server.post(
+                                PATH,
+                                "{\"plant\":{\"denominator\":[NaN,2],\"b\":1,\"disturbance\":[0,1]},"
+                                        + "\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}")
+                        .status());
         assertEquals(415, server.post(PATH, "{}", "text/plain").status());
     }
 
@@ -171,9 +218,11 @@ class HighOrderEndpointTest extends LiveServerTest {
      */
     @Test
     void stateSpaceInputIsTransformedAndTheGainActsOnThePhysicalState() {
-        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"stateSpace\":{\"a\":[[0,1,0],[0,-0.48,400],"
-                + "[0,0,-200]],\"b2\":[0,0,200],\"b1\":[0,400,0]}},\"spec\":{\"settlingTime\":0.3,"
-                + "\"overshootPercent\":1.5},\"auxiliaryPoles\":{\"poles\":[{\"re\":-250,\"im\":0}]}}");
+        LiveServer.Reply reply = server.post(
+                PATH,
+                "{\"plant\":{\"stateSpace\":{\"a\":[[0,1,0],[0,-0.48,400],"
+                        + "[0,0,-200]],\"b2\":[0,0,200],\"b1\":[0,400,0]}},\"spec\":{\"settlingTime\":0.3,"
+                        + "\"overshootPercent\":1.5},\"auxiliaryPoles\":{\"poles\":[{\"re\":-250,\"im\":0}]}}");
         assertEquals(200, reply.status(), reply.text());
         JsonNode design = reply.json();
         assertEquals("stateSpace", design.at("/coordinates/frame").asText());
@@ -187,23 +236,34 @@ class HighOrderEndpointTest extends LiveServerTest {
         }
         // det(sI - A) = s^3 - tr(A) s^2 + (sum of principal 2x2 minors) s - det(A)
         double trace = a[0][0] + a[1][1] + a[2][2];
-        double minors = a[0][0] * a[1][1] - a[0][1] * a[1][0] + a[0][0] * a[2][2] - a[0][2] * a[2][0]
-                + a[1][1] * a[2][2] - a[1][2] * a[2][1];
-        double det = a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1]) - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0])
+        double minors = a[0][0] * a[1][1]
+                - a[0][1] * a[1][0]
+                + a[0][0] * a[2][2]
+                - a[0][2] * a[2][0]
+                + a[1][1] * a[2][2]
+                - a[1][2] * a[2][1];
+        double det = a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1])
+                - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0])
                 + a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0]);
         JsonNode polynomial = design.at("/target/polynomial");
-        assertEquals(polynomial.get(2).asDouble(), -trace, 1e-9 * polynomial.get(2).asDouble());
-        assertEquals(polynomial.get(1).asDouble(), minors, 1e-9 * polynomial.get(1).asDouble());
-        assertEquals(polynomial.get(0).asDouble(), -det, 1e-9 * polynomial.get(0).asDouble());
+        assertEquals(
+                polynomial.get(2).asDouble(), -trace, 1e-9 * polynomial.get(2).asDouble());
+        assertEquals(
+                polynomial.get(1).asDouble(), minors, 1e-9 * polynomial.get(1).asDouble());
+        assertEquals(
+                polynomial.get(0).asDouble(), -det, 1e-9 * polynomial.get(0).asDouble());
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
     }
 
     @Test
     void uncontrollableStateSpaceIsA422NamingB2() {
-        LiveServer.Reply reply = server.post(PATH, "{\"plant\":{\"stateSpace\":{\"a\":[[-1,0,0],[0,-2,0],"
-                + "[0,0,-3]],\"b2\":[1,1,0],\"b1\":[0,0,1]}},\"spec\":{\"settlingTime\":1,"
-                + "\"overshootPercent\":2}}");
+        LiveServer.Reply reply = server.post(
+                PATH,
+                "{\"plant\":{\"stateSpace\":{\"a\":[[-1,0,0],[0,-2,0],"
+                        + "[0,0,-3]],\"b2\":[1,1,0],\"b1\":[0,0,1]}},\"spec\":{\"settlingTime\":1,"
+                        + "\"overshootPercent\":2}}");
         assertEquals(422, reply.status(), reply.text());
-        assertEquals("/plant/stateSpace/b2", reply.json().at("/errors/0/pointer").asText());
+        assertEquals(
+                "/plant/stateSpace/b2", reply.json().at("/errors/0/pointer").asText());
     }
 }

@@ -3,7 +3,6 @@ package com.loopwright.service;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.nio.charset.StandardCharsets;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
@@ -20,41 +19,69 @@ class HostileInputTest extends LiveServerTest {
         if (pointer != null) {
             assertEquals(pointer, reply.json().at("/errors/0/pointer").asText(), reply.text());
         }
-        assertTrue(!reply.text().contains("Exception") && !reply.text().contains("com.loopwright"),
+        assertTrue(
+                !reply.text().contains("Exception") && !reply.text().contains("com.loopwright"),
                 "no internal names leak: " + reply.text());
     }
 
     @ParameterizedTest(name = "{0}")
-    @CsvSource(delimiter = '|', quoteCharacter = '`', value = {
-        "not JSON                 | {plant:                                                               | 400 | ``",
-        "empty body               | ``                                                                    | 400 | ``",
-        "trailing garbage         | {" + PLANT + "," + SPEC + "} x                                       | 400 | ``",
-        "two documents            | {" + PLANT + "," + SPEC + "}{}                                       | 400 | ``",
-        "array body               | [1,2]                                                                 | 400 | ``",
-        "null body                | null                                                                  | 400 | ``",
-        "unknown top-level field  | {" + PLANT + "," + SPEC + ",\"extra\":1}                             | 400 | /extra",
-        "unknown plant field      | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"mass\":1}," + SPEC + "} | 400 | /plant/mass",
-        "string for a number      | {\"plant\":{\"a0\":\"0\",\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | /plant/a0",
-        "boolean for a number     | {\"plant\":{\"a0\":true,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | /plant/a0",
-        "object for a number      | {\"plant\":{\"a0\":{},\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | /plant/a0",
-        "NaN token                | {\"plant\":{\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | ``",
-        "Infinity token           | {\"plant\":{\"a0\":Infinity,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | ``",
-        "overflowing number       | {\"plant\":{\"a0\":1e400,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | /plant/a0",
-        "duplicate key            | {\"plant\":{\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | ``",
-        "missing plant            | {" + SPEC + "}                                                        | 400 | /plant",
-        "missing spec             | {" + PLANT + "}                                                       | 400 | /spec",
-        "missing b                | {\"plant\":{\"a0\":0,\"a1\":0.48,\"d\":400}," + SPEC + "}             | 400 | /plant/b",
-        "zero b                   | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400}," + SPEC + "}     | 400 | /plant/b",
-        "no time spec             | {" + PLANT + ",\"spec\":{\"overshootPercent\":1.5}}                  | 400 | /spec/settlingTime",
-        "two time specs           | {" + PLANT + ",\"spec\":{\"settlingTime\":1,\"riseTime\":0.5,\"overshootPercent\":1.5}} | 400 | /spec/riseTime",
-        "negative settling time   | {" + PLANT + ",\"spec\":{\"settlingTime\":-1,\"overshootPercent\":1.5}} | 400 | /spec/settlingTime",
-        "zero overshoot           | {" + PLANT + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":0}} | 400 | /spec/overshootPercent",
-        "overshoot of 100%        | {" + PLANT + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":100}} | 400 | /spec/overshootPercent",
-        "margin of 1              | {" + PLANT + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"gammaMargin\":1}} | 400 | /spec/gammaMargin",
-        "gamma and margin         | {" + PLANT + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"gamma\":5,\"gammaMargin\":2}} | 400 | /spec/gammaMargin",
-        "zero step                | {" + PLANT + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"stepSize\":0}} | 400 | /spec/stepSize",
-        "huge a0                  | {\"plant\":{\"a0\":1e300,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC + "} | 400 | /plant/a0",
-    })
+    @CsvSource(
+            delimiter = '|',
+            quoteCharacter = '`',
+            value = {
+                "not JSON                 | {plant:                                                               | 400 | ``",
+                "empty body               | ``                                                                    | 400 | ``",
+                "trailing garbage         | {" + PLANT + "," + SPEC
+                        + "} x                                       | 400 | ``",
+                "two documents            | {" + PLANT + "," + SPEC
+                        + "}{}                                       | 400 | ``",
+                "array body               | [1,2]                                                                 | 400 | ``",
+                "null body                | null                                                                  | 400 | ``",
+                "unknown top-level field  | {" + PLANT + "," + SPEC
+                        + ",\"extra\":1}                             | 400 | /extra",
+                "unknown plant field      | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"mass\":1}," + SPEC
+                        + "} | 400 | /plant/mass",
+                "string for a number      | {\"plant\":{\"a0\":\"0\",\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | /plant/a0",
+                "boolean for a number     | {\"plant\":{\"a0\":true,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | /plant/a0",
+                "object for a number      | {\"plant\":{\"a0\":{},\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | /plant/a0",
+                "NaN token                | {\"plant\":{\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | ``",
+                "Infinity token           | {\"plant\":{\"a0\":Infinity,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | ``",
+                "overflowing number       | {\"plant\":{\"a0\":1e400,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | /plant/a0",
+                "duplicate key            | {\"plant\":{\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | ``",
+                "missing plant            | {" + SPEC
+                        + "}                                                        | 400 | /plant",
+                "missing spec             | {" + PLANT
+                        + "}                                                       | 400 | /spec",
+                "missing b                | {\"plant\":{\"a0\":0,\"a1\":0.48,\"d\":400}," + SPEC
+                        + "}             | 400 | /plant/b",
+                "zero b                   | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400}," + SPEC
+                        + "}     | 400 | /plant/b",
+                "no time spec             | {" + PLANT
+                        + ",\"spec\":{\"overshootPercent\":1.5}}                  | 400 | /spec/settlingTime",
+                "two time specs           | {" + PLANT
+                        + ",\"spec\":{\"settlingTime\":1,\"riseTime\":0.5,\"overshootPercent\":1.5}} | 400 | /spec/riseTime",
+                "negative settling time   | {" + PLANT
+                        + ",\"spec\":{\"settlingTime\":-1,\"overshootPercent\":1.5}} | 400 | /spec/settlingTime",
+                "zero overshoot           | {" + PLANT
+                        + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":0}} | 400 | /spec/overshootPercent",
+                "overshoot of 100%        | {" + PLANT
+                        + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":100}} | 400 | /spec/overshootPercent",
+                "margin of 1              | {" + PLANT
+                        + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"gammaMargin\":1}} | 400 | /spec/gammaMargin",
+                "gamma and margin         | {" + PLANT
+                        + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"gamma\":5,\"gammaMargin\":2}} | 400 | /spec/gammaMargin",
+                "zero step                | {" + PLANT
+                        + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"stepSize\":0}} | 400 | /spec/stepSize",
+                "huge a0                  | {\"plant\":{\"a0\":1e300,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
+                        + "} | 400 | /plant/a0",
+            })
     void malformedOrOutOfRangeBodiesAreRejected(String name, String body, int status, String pointer) {
         assertProblem(server.post("/v1/designs", body), status, pointer.isEmpty() ? null : pointer);
     }
@@ -72,7 +99,8 @@ class HostileInputTest extends LiveServerTest {
         int length = (2 << 20) + 12;
         try (RawExchange socket = new RawExchange(server.base().getPort(), 10_000)) {
             RawExchange.Reply reply = socket.send("POST /v1/designs HTTP/1.1\r\nHost: 127.0.0.1\r\nContent-Type: "
-                    + "application/json\r\nContent-Length: " + length + "\r\nExpect: 100-continue\r\n\r\n").read();
+                            + "application/json\r\nContent-Length: " + length + "\r\nExpect: 100-continue\r\n\r\n")
+                    .read();
             assertEquals(413, reply.status(), reply.toString());
             assertEquals("application/problem+json", reply.header("Content-Type"));
             assertEquals(413, reply.json().get("status").asInt());
@@ -99,7 +127,8 @@ class HostileInputTest extends LiveServerTest {
 
     @Test
     void everyInvalidFieldIsListed() {
-        var reply = server.post("/v1/designs",
+        var reply = server.post(
+                "/v1/designs",
                 "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":{\"settlingTime\":-1,\"overshootPercent\":200}}");
         assertProblem(reply, 400, null);
         assertEquals(3, reply.json().get("errors").size(), reply.text());

@@ -2,7 +2,6 @@ package com.loopwright.service;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
-import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -54,8 +53,13 @@ class HttpLayerLimitsTest {
 
     /** GET /health on a fresh connection, answered within the bound, or fails. */
     private static void healthAnswersWithin(LiveServer server, Duration bound) throws Exception {
-        HttpResponse<String> health = server.http().send(HttpRequest.newBuilder(server.base().resolve("/health"))
-                .timeout(bound).GET().build(), HttpResponse.BodyHandlers.ofString());
+        HttpResponse<String> health = server.http()
+                .send(
+                        HttpRequest.newBuilder(server.base().resolve("/health"))
+                                .timeout(bound)
+                                .GET()
+                                .build(),
+                        HttpResponse.BodyHandlers.ofString());
         assertEquals(200, health.statusCode());
     }
 
@@ -93,7 +97,9 @@ class HttpLayerLimitsTest {
                 }
                 assertTrue(probes >= 5, "health probes during the attack: " + probes);
                 // The real clients are served too: a design while 60 bodies trickle in.
-                assertEquals(200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status());
+                assertEquals(
+                        200,
+                        server.post("/v1/designs", DesignClient.INDEXING_AXIS).status());
                 for (RawExchange socket : slow) {
                     assertFalse(socket.hasReply(), "a slow body within its grace is not answered yet");
                 }
@@ -107,9 +113,9 @@ class HttpLayerLimitsTest {
 
     @Test
     void aBodySlowerThanTheMinimumRateGets408ProblemAndTheConnectionCloses() throws Exception {
-        try (LiveServer server = start(Map.of("LOOPWRIGHT_BODY_GRACE_MS", "300", "LOOPWRIGHT_MIN_BODY_BYTES_PER_S",
-                "1000"));
-             RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
+        try (LiveServer server =
+                        start(Map.of("LOOPWRIGHT_BODY_GRACE_MS", "300", "LOOPWRIGHT_MIN_BODY_BYTES_PER_S", "1000"));
+                RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
             long started = System.nanoTime();
             socket.send(postHead("/v1/designs", "Content-Length: 100\r\n") + "{");
             RawExchange.Reply reply = socket.read();
@@ -123,9 +129,11 @@ class HttpLayerLimitsTest {
 
     @Test
     void aBodyThatStallsPastTheIdleTimeoutGets408ProblemNotPlainText() throws Exception {
-        try (LiveServer server = start(Map.of("LOOPWRIGHT_IDLE_TIMEOUT_MS", "500", "LOOPWRIGHT_BODY_GRACE_MS", "60000"));
-             RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-            RawExchange.Reply reply = socket.send(postHead("/v1/designs", "Content-Length: 100\r\n") + "{").read();
+        try (LiveServer server =
+                        start(Map.of("LOOPWRIGHT_IDLE_TIMEOUT_MS", "500", "LOOPWRIGHT_BODY_GRACE_MS", "60000"));
+                RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
+            RawExchange.Reply reply = socket.send(postHead("/v1/designs", "Content-Length: 100\r\n") + "{")
+                    .read();
             assertProblem(reply, 408, ProblemType.REQUEST_TIMEOUT);
         }
     }
@@ -138,13 +146,16 @@ class HttpLayerLimitsTest {
         byte[] body = HUGE_ITEM_BATCH.getBytes(java.nio.charset.StandardCharsets.US_ASCII);
         assertTrue(body.length <= 1 << 20, "the body is within the request cap: " + body.length);
         int connections = 12;
-        try (LiveServer server = start(Map.of("LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", String.valueOf(2 << 20),
-                "LOOPWRIGHT_HTTP_THREADS", "16"))) {
+        try (LiveServer server = start(Map.of(
+                "LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", String.valueOf(2 << 20), "LOOPWRIGHT_HTTP_THREADS", "16"))) {
             List<RawExchange> sockets = new ArrayList<>();
             try {
                 for (int i = 0; i < connections; i++) {
-                    sockets.add(new RawExchange(server.app().port(), 20_000).send(postHead("/v1/designs/batch",
-                            "Content-Length: " + body.length + "\r\nConnection: close\r\nExpect: 100-continue\r\n")));
+                    sockets.add(new RawExchange(server.app().port(), 20_000)
+                            .send(postHead(
+                                    "/v1/designs/batch",
+                                    "Content-Length: " + body.length
+                                            + "\r\nConnection: close\r\nExpect: 100-continue\r\n")));
                 }
                 Thread.sleep(300);
                 healthAnswersWithin(server, Duration.ofSeconds(2));
@@ -180,7 +191,7 @@ class HttpLayerLimitsTest {
     @Test
     void expectContinueWithABodyOverTheCapGets413AtOnce() throws Exception {
         try (LiveServer server = start(Map.of());
-             RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
+                RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
             socket.send(postHead("/v1/designs", "Content-Length: 5000000\r\nExpect: 100-continue\r\n"));
             RawExchange.Reply reply = socket.read();
             assertProblem(reply, 413, ProblemType.PAYLOAD_TOO_LARGE);
@@ -191,8 +202,9 @@ class HttpLayerLimitsTest {
     @Test
     void anHttp2PrefaceGets426WithAProblem() throws Exception {
         try (LiveServer server = start(Map.of());
-             RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
-            RawExchange.Reply reply = socket.send("PRI * HTTP/2.0\r\n\r\nSM\r\n\r\n").read();
+                RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
+            RawExchange.Reply reply =
+                    socket.send("PRI * HTTP/2.0\r\n\r\nSM\r\n\r\n").read();
             assertProblem(reply, 426, ProblemType.UNSUPPORTED_PROTOCOL);
         }
     }
@@ -200,7 +212,7 @@ class HttpLayerLimitsTest {
     @Test
     void aBadRequestLineIsAnHttpProblemNotAJsonOne() throws Exception {
         try (LiveServer server = start(Map.of());
-             RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
+                RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
             RawExchange.Reply reply = socket.send("BLAH\r\n\r\n").read();
             assertProblem(reply, 400, ProblemType.MALFORMED_HTTP);
             assertFalse(reply.body().contains("JSON"), reply.body());
@@ -211,9 +223,10 @@ class HttpLayerLimitsTest {
     void aBadChunkSizeIs400AndOneWarnLineWithoutAStackTrace() throws Exception {
         List<ILoggingEvent> events = captureDuring(() -> {
             try (LiveServer server = start(Map.of());
-                 RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
-                RawExchange.Reply reply = socket.send(postHead("/v1/designs", "Transfer-Encoding: chunked\r\n")
-                        + "ZZ\r\nabc\r\n").read();
+                    RawExchange socket = new RawExchange(server.app().port(), 3_000)) {
+                RawExchange.Reply reply = socket.send(
+                                postHead("/v1/designs", "Transfer-Encoding: chunked\r\n") + "ZZ\r\nabc\r\n")
+                        .read();
                 assertProblem(reply, 400, ProblemType.MALFORMED_HTTP);
             }
         });
@@ -246,7 +259,9 @@ class HttpLayerLimitsTest {
 
     private List<ILoggingEvent> warnings() {
         synchronized (captured.list) {
-            return captured.list.stream().filter(e -> e.getLevel().isGreaterOrEqual(Level.WARN)).toList();
+            return captured.list.stream()
+                    .filter(e -> e.getLevel().isGreaterOrEqual(Level.WARN))
+                    .toList();
         }
     }
 

@@ -9,7 +9,6 @@ import org.junit.jupiter.api.Test;
 /** Specs the plant cannot meet get a 422 naming the field, the reason and a computed spec that works. */
 class InfeasibleSpecTest extends LiveServerTest {
 
-
     private static JsonNode proposal(JsonNode problem, String pointer) {
         for (JsonNode p : problem.get("proposals")) {
             if (p.get("pointer").asText().equals(pointer)) {
@@ -25,13 +24,14 @@ class InfeasibleSpecTest extends LiveServerTest {
         var reply = server.post("/v1/designs", """
                 {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":10}}""");
         assertEquals(422, reply.status(), reply.text());
-        assertEquals("/spec/overshootPercent", reply.json().at("/errors/0/pointer").asText());
+        assertEquals(
+                "/spec/overshootPercent", reply.json().at("/errors/0/pointer").asText());
         assertTrue(reply.json().get("detail").asText().contains("1/sqrt(2)"), reply.text());
-        double proposed = proposal(reply.json(), "/spec/overshootPercent").get("value").asDouble();
+        double proposed =
+                proposal(reply.json(), "/spec/overshootPercent").get("value").asDouble();
         assertTrue(proposed < 4.33 && proposed > 3.5, "proposal " + proposed);
         var retry = server.post("/v1/designs", """
-                {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":%s}}"""
-                .formatted(proposed));
+                {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":%s}}""".formatted(proposed));
         assertEquals(200, retry.status(), retry.text());
     }
 
@@ -43,7 +43,8 @@ class InfeasibleSpecTest extends LiveServerTest {
         var reply = server.post("/v1/designs", body);
         assertEquals(422, reply.status(), reply.text());
         assertEquals("/spec/settlingTime", reply.json().at("/errors/0/pointer").asText());
-        double proposed = proposal(reply.json(), "/spec/settlingTime").get("value").asDouble();
+        double proposed =
+                proposal(reply.json(), "/spec/settlingTime").get("value").asDouble();
         assertTrue(proposed < 10);
         var retry = server.post("/v1/designs", body.replace("\"settlingTime\":10", "\"settlingTime\":" + proposed));
         assertEquals(200, retry.status(), retry.text());

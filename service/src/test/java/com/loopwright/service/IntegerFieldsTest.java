@@ -18,11 +18,13 @@ class IntegerFieldsTest extends LiveServerTest {
 
     // The reproductions of the issue: monteCarloSamples 2.9, seed 7.9, timeSeriesPoints 10.7.
     @ParameterizedTest
-    @CsvSource(delimiter = '|', value = {
-        "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10},\"monteCarloSamples\":2.9}} | /verify/uncertainty/monteCarloSamples",
-        "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10},\"monteCarloSamples\":3,\"seed\":7.9}} | /verify/uncertainty/seed",
-        "{\"timeSeriesPoints\":10.7} | /verify/timeSeriesPoints",
-    })
+    @CsvSource(
+            delimiter = '|',
+            value = {
+                "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10},\"monteCarloSamples\":2.9}} | /verify/uncertainty/monteCarloSamples",
+                "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10},\"monteCarloSamples\":3,\"seed\":7.9}} | /verify/uncertainty/seed",
+                "{\"timeSeriesPoints\":10.7} | /verify/timeSeriesPoints",
+            })
     void aFractionInAnIntegerFieldIsA400AtTheField(String verify, String pointer) {
         String request = HEAD + verify + "}";
         var single = server.post("/v1/designs", request);

@@ -21,6 +21,7 @@ class KeyBeforeBodyTest {
     private static final String KEY = "indexing-axis-key-0001";
     /** The request cap and the whole body budget: one body of the cap spends all of it. */
     private static final int BUDGET_BYTES = 1 << 20;
+
     private static final String BUDGET_GAUGE = "loopwright_http_body_budget_available_bytes";
     /** How long the budget is watched while an unauthenticated body is half sent [ms]. */
     private static final int WATCH_MILLIS = 400;
@@ -46,7 +47,7 @@ class KeyBeforeBodyTest {
     @Test
     void anUnauthenticatedBodyReservesNoBudgetAndGets401WhenItHasArrived() throws Exception {
         try (LiveServer server = keyedServer();
-             RawExchange intruder = new RawExchange(server.app().port(), 10_000)) {
+                RawExchange intruder = new RawExchange(server.app().port(), 10_000)) {
             // A body of the whole budget, its first kilobyte sent, the rest held back.
             byte[] body = new byte[BUDGET_BYTES];
             java.util.Arrays.fill(body, (byte) ' ');
@@ -58,18 +59,28 @@ class KeyBeforeBodyTest {
                 Thread.sleep(50);
             }
             // A client with the key is admitted meanwhile (before the fix: 503, the budget was spent).
-            var admitted = server.send(HttpRequest.newBuilder(server.base().resolve("/v1/designs"))
-                    .timeout(Duration.ofSeconds(30)).header("Content-Type", "application/json").header("X-Api-Key", KEY)
-                    .POST(HttpRequest.BodyPublishers.ofString(DesignClient.INDEXING_AXIS)).build(), "/v1/designs", "post");
+            var admitted = server.send(
+                    HttpRequest.newBuilder(server.base().resolve("/v1/designs"))
+                            .timeout(Duration.ofSeconds(30))
+                            .header("Content-Type", "application/json")
+                            .header("X-Api-Key", KEY)
+                            .POST(HttpRequest.BodyPublishers.ofString(DesignClient.INDEXING_AXIS))
+                            .build(),
+                    "/v1/designs",
+                    "post");
             assertEquals(200, admitted.status(), admitted.text());
             assertFalse(intruder.hasReply(), "the unauthenticated body is not answered before it has arrived");
             intruder.send(java.util.Arrays.copyOfRange(body, 1024, BUDGET_BYTES));
             RawExchange.Reply refused = intruder.read();
             assertEquals(401, refused.status(), refused.body());
-            assertEquals(ProblemType.UNAUTHORIZED.uri(), refused.json().get("type").asText());
-            assertTrue(refused.header("WWW-Authenticate").startsWith("Bearer"), refused.headers().toString());
+            assertEquals(
+                    ProblemType.UNAUTHORIZED.uri(), refused.json().get("type").asText());
+            assertTrue(
+                    refused.header("WWW-Authenticate").startsWith("Bearer"),
+                    refused.headers().toString());
             // The body was read and dropped, so the connection carries the next request.
-            RawExchange.Reply health = intruder.send("GET /health HTTP/1.1\r\nHost: 127.0.0.1\r\n\r\n").read();
+            RawExchange.Reply health = intruder.send("GET /health HTTP/1.1\r\nHost: 127.0.0.1\r\n\r\n")
+                    .read();
             assertEquals(200, health.status());
             assertEquals(BUDGET_BYTES, availableBudget(server));
         }
@@ -78,10 +89,10 @@ class KeyBeforeBodyTest {
     @Test
     void aWrongKeyGets403AndReservesNothingEither() throws Exception {
         try (LiveServer server = keyedServer();
-             RawExchange socket = new RawExchange(server.app().port(), 10_000)) {
+                RawExchange socket = new RawExchange(server.app().port(), 10_000)) {
             String body = DesignClient.INDEXING_AXIS;
-            socket.send(head("/v1/designs", "X-Api-Key: not-the-key-0000000\r\nContent-Length: " + body.length()
-                    + "\r\n"));
+            socket.send(
+                    head("/v1/designs", "X-Api-Key: not-the-key-0000000\r\nContent-Length: " + body.length() + "\r\n"));
             socket.send(body.substring(0, 10));
             Thread.sleep(100);
             assertEquals(BUDGET_BYTES, availableBudget(server));
@@ -101,7 +112,8 @@ class KeyBeforeBodyTest {
             };
             for (String header : headers) {
                 try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                    RawExchange.Reply reply = socket.send(head("/v1/designs", header)).read();
+                    RawExchange.Reply reply =
+                            socket.send(head("/v1/designs", header)).read();
                     assertEquals(401, reply.status(), header + reply.body());
                     assertEquals("close", reply.header("Connection"), header);
                 }
@@ -109,8 +121,10 @@ class KeyBeforeBodyTest {
             assertEquals(BUDGET_BYTES, availableBudget(server));
             // The same request with the key is admitted as before.
             try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                RawExchange.Reply reply = socket.send(head("/v1/designs", "X-Api-Key: " + KEY
-                        + "\r\nContent-Length: 5000\r\nExpect: 100-continue\r\n")).read();
+                RawExchange.Reply reply = socket.send(head(
+                                "/v1/designs",
+                                "X-Api-Key: " + KEY + "\r\nContent-Length: 5000\r\nExpect: 100-continue\r\n"))
+                        .read();
                 assertEquals(100, reply.status(), reply.toString());
             }
         }
@@ -123,9 +137,9 @@ class KeyBeforeBodyTest {
         byte[] part = new byte[sent];
         java.util.Arrays.fill(part, (byte) ' ');
         try (LiveServer server = keyedServer();
-             RawExchange socket = new RawExchange(server.app().port(), 10_000)) {
-            socket.send(head("/v1/designs", "Transfer-Encoding: chunked\r\n")
-                    + Integer.toHexString(8 * BUDGET_BYTES) + "\r\n");
+                RawExchange socket = new RawExchange(server.app().port(), 10_000)) {
+            socket.send(head("/v1/designs", "Transfer-Encoding: chunked\r\n") + Integer.toHexString(8 * BUDGET_BYTES)
+                    + "\r\n");
             RawExchange.Reply reply = socket.send(part).read();
             assertEquals(401, reply.status(), reply.body());
             assertEquals("close", reply.header("Connection"));
@@ -137,7 +151,7 @@ class KeyBeforeBodyTest {
     @Test
     void aRequestWithTheKeyStillReservesItsBodyAsBefore() throws Exception {
         try (LiveServer server = keyedServer();
-             RawExchange socket = new RawExchange(server.app().port(), 10_000)) {
+                RawExchange socket = new RawExchange(server.app().port(), 10_000)) {
             // With the key, a half-sent body holds its reservation, as every admitted body does.
             socket.send(head("/v1/designs", "Authorization: Bearer " + KEY + "\r\nContent-Length: 1000\r\n") + "{");
             double available = BUDGET_BYTES;

@@ -23,7 +23,8 @@ final class LiveServer implements AutoCloseable {
     private static final ObjectMapper JSON = new ObjectMapper();
 
     private final Javalin app;
-    private final HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
+    private final HttpClient http =
+            HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
     private final Contract contract = Contract.load();
 
     private LiveServer(Javalin app) {
@@ -88,7 +89,8 @@ final class LiveServer implements AutoCloseable {
     }
 
     Reply post(String path, String body, String contentType) {
-        HttpRequest.Builder request = HttpRequest.newBuilder(base().resolve(path)).timeout(Duration.ofSeconds(30))
+        HttpRequest.Builder request = HttpRequest.newBuilder(base().resolve(path))
+                .timeout(Duration.ofSeconds(30))
                 .POST(HttpRequest.BodyPublishers.ofString(body));
         if (contentType != null) {
             request.header("Content-Type", contentType);
@@ -99,14 +101,24 @@ final class LiveServer implements AutoCloseable {
     Reply postBytes(String path, byte[] body) {
         // No Expect: 100-continue: the service answers an oversized body with 413 before reading it, and the JDK 17
         // client then waits forever for the 100 (JDK-8286171, from memory). Oversized bodies go through RawExchange.
-        return send(HttpRequest.newBuilder(base().resolve(path)).timeout(Duration.ofSeconds(30))
-                .header("Content-Type", "application/json")
-                .POST(HttpRequest.BodyPublishers.ofByteArray(body)).build(), path, "post");
+        return send(
+                HttpRequest.newBuilder(base().resolve(path))
+                        .timeout(Duration.ofSeconds(30))
+                        .header("Content-Type", "application/json")
+                        .POST(HttpRequest.BodyPublishers.ofByteArray(body))
+                        .build(),
+                path,
+                "post");
     }
 
     Reply get(String path) {
-        return send(HttpRequest.newBuilder(base().resolve(path)).timeout(Duration.ofSeconds(30)).GET().build(),
-                path, "get");
+        return send(
+                HttpRequest.newBuilder(base().resolve(path))
+                        .timeout(Duration.ofSeconds(30))
+                        .GET()
+                        .build(),
+                path,
+                "get");
     }
 
     Reply send(HttpRequest request, String path, String method) {
@@ -149,13 +161,15 @@ final class LiveServer implements AutoCloseable {
                 throw new AssertionError("NDJSON line is not JSON: " + line, e);
             }
             String violations = contract.violations(path, method, status, mediaType, json);
-            assertTrue(violations.isEmpty(), "line of " + method + " " + path + " does not conform: " + violations
-                    + " in " + line);
+            assertTrue(
+                    violations.isEmpty(),
+                    "line of " + method + " " + path + " does not conform: " + violations + " in " + line);
         }
     }
 
     private void checkAgainstContract(String path, String method, int status, String mediaType, JsonNode json) {
-        boolean documentedPath = !contract.document().at("/paths/" + path.replace("/", "~1") + "/" + method)
+        boolean documentedPath = !contract.document()
+                .at("/paths/" + path.replace("/", "~1") + "/" + method)
                 .isMissingNode();
         if (status >= 400) {
             // Every error anywhere is a problem+json that conforms to the Problem schema.
@@ -166,8 +180,10 @@ final class LiveServer implements AutoCloseable {
         }
         if (documentedPath) {
             String violations = contract.violations(path, method, status, mediaType, json);
-            assertTrue(violations.isEmpty(), "response to " + method + " " + path + " " + status
-                    + " does not conform: " + violations + " in " + json);
+            assertTrue(
+                    violations.isEmpty(),
+                    "response to " + method + " " + path + " " + status + " does not conform: " + violations + " in "
+                            + json);
         }
     }
 

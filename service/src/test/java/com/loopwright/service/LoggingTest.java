@@ -31,11 +31,17 @@ class LoggingTest {
         LoggerContext context = new LoggerContext();
         JoranConfigurator configurator = new JoranConfigurator();
         configurator.setContext(context);
-        configurator.doConfigure(Path.of("src", "main", "resources", "logback.xml").toFile());
+        configurator.doConfigure(
+                Path.of("src", "main", "resources", "logback.xml").toFile());
         Logger root = context.getLogger(org.slf4j.Logger.ROOT_LOGGER_NAME);
         var appender = (OutputStreamAppender<ILoggingEvent>) root.getAppender("json");
-        LoggingEvent event = new LoggingEvent(LoggerContext.class.getName(), context.getLogger("com.loopwright.access"),
-                Level.INFO, "POST {} 200", null, new Object[] {"/v1/designs"});
+        LoggingEvent event = new LoggingEvent(
+                LoggerContext.class.getName(),
+                context.getLogger("com.loopwright.access"),
+                Level.INFO,
+                "POST {} 200",
+                null,
+                new Object[] {"/v1/designs"});
         event.setMDCPropertyMap(Map.of("requestId", "conveyor-7"));
         String line = new String(appender.getEncoder().encode(event), StandardCharsets.UTF_8);
         assertTrue(line.endsWith("\n") && line.indexOf('\n') == line.length() - 1, "one line: " + line);
@@ -56,10 +62,16 @@ class LoggingTest {
         access.addAppender(captured);
         String key = "camera-gimbal-key-000123";
         try (LiveServer server = LiveServer.start(ServiceConfig.defaults(0).withApiKeys(java.util.List.of(key)))) {
-            var reply = server.send(HttpRequest.newBuilder(server.base().resolve("/v1/designs"))
-                    .timeout(Duration.ofSeconds(30)).header("Content-Type", "application/json")
-                    .header("X-Request-Id", "pick-and-place-99").header("X-Api-Key", key)
-                    .POST(HttpRequest.BodyPublishers.ofString(DesignClient.INDEXING_AXIS)).build(), "/v1/designs", "post");
+            var reply = server.send(
+                    HttpRequest.newBuilder(server.base().resolve("/v1/designs"))
+                            .timeout(Duration.ofSeconds(30))
+                            .header("Content-Type", "application/json")
+                            .header("X-Request-Id", "pick-and-place-99")
+                            .header("X-Api-Key", key)
+                            .POST(HttpRequest.BodyPublishers.ofString(DesignClient.INDEXING_AXIS))
+                            .build(),
+                    "/v1/designs",
+                    "post");
             assertEquals(200, reply.status());
             for (int i = 0; i < 100 && captured.list.isEmpty(); i++) {
                 Thread.sleep(10);

@@ -25,8 +25,10 @@ class MetricsLabelsTest {
             for (int i = 0; i < requests; i++) {
                 String method = "M" + "X".repeat(6_990) + i;
                 try (RawExchange socket = new RawExchange(server.app().port(), 5_000)) {
-                    int status = socket.send(method + " /health HTTP/1.1\r\nHost: 127.0.0.1\r\nConnection: close\r\n\r\n")
-                            .read().status();
+                    int status = socket.send(
+                                    method + " /health HTTP/1.1\r\nHost: 127.0.0.1\r\nConnection: close\r\n\r\n")
+                            .read()
+                            .status();
                     assertTrue(status >= 400 && status < 500, "status " + status);
                 }
             }
@@ -42,8 +44,12 @@ class MetricsLabelsTest {
             allowed.add("other");
             assertTrue(allowed.containsAll(methods), "method labels " + methods);
             PrometheusText metrics = PrometheusText.parse(scrape);
-            assertEquals(1, metrics.sum("loopwright_http_requests_total",
-                    Map.of("route", "/health", "method", "GET", "status", "200")), "the real series after the flood");
+            assertEquals(
+                    1,
+                    metrics.sum(
+                            "loopwright_http_requests_total",
+                            Map.of("route", "/health", "method", "GET", "status", "200")),
+                    "the real series after the flood");
             assertEquals(requests, metrics.sum("loopwright_http_requests_total", Map.of("method", "other")));
         }
     }

@@ -29,14 +29,17 @@ class OperationsTest {
     }
 
     private static HttpRequest.Builder post(LiveServer server, String path, String body) {
-        return HttpRequest.newBuilder(server.base().resolve(path)).timeout(Duration.ofSeconds(30))
-                .header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(body));
+        return HttpRequest.newBuilder(server.base().resolve(path))
+                .timeout(Duration.ofSeconds(30))
+                .header("Content-Type", "application/json")
+                .POST(HttpRequest.BodyPublishers.ofString(body));
     }
 
     @Test
     void withoutKeysConfiguredNoCredentialIsNeeded() {
         try (LiveServer server = LiveServer.start()) {
-            assertEquals(200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status());
+            assertEquals(
+                    200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status());
         }
     }
 
@@ -45,17 +48,31 @@ class OperationsTest {
         try (LiveServer server = LiveServer.start(config(Map.of("LOOPWRIGHT_API_KEYS", KEY + "," + OTHER_KEY)))) {
             var missing = server.post("/v1/designs", DesignClient.INDEXING_AXIS);
             assertEquals(401, missing.status());
-            assertEquals("urn:loopwright:problem:unauthorized", missing.json().get("type").asText());
+            assertEquals(
+                    "urn:loopwright:problem:unauthorized",
+                    missing.json().get("type").asText());
             assertTrue(missing.header("WWW-Authenticate").startsWith("Bearer"));
-            var wrong = server.send(post(server, "/v1/designs", DesignClient.INDEXING_AXIS)
-                    .header("Authorization", "Bearer " + KEY + "x").build(), "/v1/designs", "post");
+            var wrong = server.send(
+                    post(server, "/v1/designs", DesignClient.INDEXING_AXIS)
+                            .header("Authorization", "Bearer " + KEY + "x")
+                            .build(),
+                    "/v1/designs",
+                    "post");
             assertEquals(403, wrong.status());
             assertFalse(wrong.text().contains(KEY), "keys are never echoed");
-            var bearer = server.send(post(server, "/v1/designs", DesignClient.INDEXING_AXIS)
-                    .header("Authorization", "Bearer " + KEY).build(), "/v1/designs", "post");
+            var bearer = server.send(
+                    post(server, "/v1/designs", DesignClient.INDEXING_AXIS)
+                            .header("Authorization", "Bearer " + KEY)
+                            .build(),
+                    "/v1/designs",
+                    "post");
             assertEquals(200, bearer.status(), bearer.text());
-            var header = server.send(post(server, "/v1/designs/batch", "{\"items\":[" + GIMBAL + "]}")
-                    .header("X-Api-Key", OTHER_KEY).build(), "/v1/designs/batch", "post");
+            var header = server.send(
+                    post(server, "/v1/designs/batch", "{\"items\":[" + GIMBAL + "]}")
+                            .header("X-Api-Key", OTHER_KEY)
+                            .build(),
+                    "/v1/designs/batch",
+                    "post");
             assertEquals(200, header.status(), header.text());
             var batchWithout = server.post("/v1/designs/batch", "{\"items\":[" + GIMBAL + "]}");
             assertEquals(401, batchWithout.status());
@@ -82,32 +99,55 @@ class OperationsTest {
     void corsIsOffByDefaultAndAllowsOnlyListedOrigins() {
         String origin = "https://scada.plant.example:8443";
         try (LiveServer off = LiveServer.start()) {
-            var reply = off.send(post(off, "/v1/designs", DesignClient.INDEXING_AXIS).header("Origin", origin).build(),
-                    "/v1/designs", "post");
+            var reply = off.send(
+                    post(off, "/v1/designs", DesignClient.INDEXING_AXIS)
+                            .header("Origin", origin)
+                            .build(),
+                    "/v1/designs",
+                    "post");
             assertEquals(200, reply.status());
             assertNull(reply.header("Access-Control-Allow-Origin"));
-            var preflight = off.send(HttpRequest.newBuilder(off.base().resolve("/v1/designs"))
-                    .method("OPTIONS", HttpRequest.BodyPublishers.noBody()).header("Origin", origin)
-                    .header("Access-Control-Request-Method", "POST").build(), "/v1/designs", "options");
+            var preflight = off.send(
+                    HttpRequest.newBuilder(off.base().resolve("/v1/designs"))
+                            .method("OPTIONS", HttpRequest.BodyPublishers.noBody())
+                            .header("Origin", origin)
+                            .header("Access-Control-Request-Method", "POST")
+                            .build(),
+                    "/v1/designs",
+                    "options");
             assertNull(preflight.header("Access-Control-Allow-Origin"));
             assertTrue(preflight.status() >= 400, "no preflight when CORS is off: " + preflight.status());
         }
         try (LiveServer on = LiveServer.start(config(Map.of("LOOPWRIGHT_CORS_ORIGINS", origin)))) {
-            var preflight = on.send(HttpRequest.newBuilder(on.base().resolve("/v1/designs"))
-                    .method("OPTIONS", HttpRequest.BodyPublishers.noBody()).header("Origin", origin)
-                    .header("Access-Control-Request-Method", "POST")
-                    .header("Access-Control-Request-Headers", "content-type, x-api-key").build(), "/v1/designs", "options");
+            var preflight = on.send(
+                    HttpRequest.newBuilder(on.base().resolve("/v1/designs"))
+                            .method("OPTIONS", HttpRequest.BodyPublishers.noBody())
+                            .header("Origin", origin)
+                            .header("Access-Control-Request-Method", "POST")
+                            .header("Access-Control-Request-Headers", "content-type, x-api-key")
+                            .build(),
+                    "/v1/designs",
+                    "options");
             assertEquals(204, preflight.status());
             assertEquals(origin, preflight.header("Access-Control-Allow-Origin"));
             assertTrue(preflight.header("Access-Control-Allow-Methods").contains("POST"));
             assertTrue(preflight.header("Access-Control-Allow-Headers").contains("X-Api-Key"));
-            var stranger = on.send(HttpRequest.newBuilder(on.base().resolve("/v1/designs"))
-                    .method("OPTIONS", HttpRequest.BodyPublishers.noBody()).header("Origin", "https://evil.example")
-                    .header("Access-Control-Request-Method", "POST").build(), "/v1/designs", "options");
+            var stranger = on.send(
+                    HttpRequest.newBuilder(on.base().resolve("/v1/designs"))
+                            .method("OPTIONS", HttpRequest.BodyPublishers.noBody())
+                            .header("Origin", "https://evil.example")
+                            .header("Access-Control-Request-Method", "POST")
+                            .build(),
+                    "/v1/designs",
+                    "options");
             assertEquals(403, stranger.status());
             assertNull(stranger.header("Access-Control-Allow-Origin"));
-            var simple = on.send(post(on, "/v1/designs", DesignClient.INDEXING_AXIS).header("Origin", origin).build(),
-                    "/v1/designs", "post");
+            var simple = on.send(
+                    post(on, "/v1/designs", DesignClient.INDEXING_AXIS)
+                            .header("Origin", origin)
+                            .build(),
+                    "/v1/designs",
+                    "post");
             assertEquals(origin, simple.header("Access-Control-Allow-Origin"));
             assertEquals("Origin", simple.header("Vary"));
         }
@@ -116,13 +156,21 @@ class OperationsTest {
     @Test
     void requestIdsAreEchoedOrIssuedAndSecurityHeadersAreSet() {
         try (LiveServer server = LiveServer.start()) {
-            var echoed = server.send(HttpRequest.newBuilder(server.base().resolve("/health"))
-                    .header("X-Request-Id", "conveyor-42.a_b:c").build(), "/health", "get");
+            var echoed = server.send(
+                    HttpRequest.newBuilder(server.base().resolve("/health"))
+                            .header("X-Request-Id", "conveyor-42.a_b:c")
+                            .build(),
+                    "/health",
+                    "get");
             assertEquals("conveyor-42.a_b:c", echoed.header("X-Request-Id"));
             var issued = server.get("/health");
             assertTrue(issued.header("X-Request-Id").matches("[0-9a-f-]{36}"), issued.header("X-Request-Id"));
-            var unsafe = server.send(HttpRequest.newBuilder(server.base().resolve("/health"))
-                    .header("X-Request-Id", "x".repeat(200)).build(), "/health", "get");
+            var unsafe = server.send(
+                    HttpRequest.newBuilder(server.base().resolve("/health"))
+                            .header("X-Request-Id", "x".repeat(200))
+                            .build(),
+                    "/health",
+                    "get");
             assertTrue(unsafe.header("X-Request-Id").matches("[0-9a-f-]{36}"), "an over-long id is replaced");
             var problem = server.get("/nowhere");
             assertNotNull(problem.header("X-Request-Id"), "errors carry the id too");
@@ -148,20 +196,31 @@ class OperationsTest {
     void metricsParseAndCountRequestsAndDesignsByOutcome() {
         try (LiveServer server = LiveServer.start()) {
             for (int i = 0; i < 3; i++) {
-                assertEquals(200, server.post("/v1/designs", DesignClient.INDEXING_AXIS).status());
+                assertEquals(
+                        200,
+                        server.post("/v1/designs", DesignClient.INDEXING_AXIS).status());
             }
             assertEquals(400, server.post("/v1/designs", "{}").status());
-            assertEquals(422, server.post("/v1/designs", DesignClient.INDEXING_AXIS.replace("1.5}", "10}")).status());
+            assertEquals(
+                    422,
+                    server.post("/v1/designs", DesignClient.INDEXING_AXIS.replace("1.5}", "10}"))
+                            .status());
             server.get("/nowhere");
             var scrape = server.get("/metrics");
             assertEquals(200, scrape.status());
             assertTrue(scrape.contentType().equals("text/plain"), scrape.contentType());
             PrometheusText metrics = PrometheusText.parse(scrape.text());
             assertEquals("histogram", metrics.types.get("loopwright_http_request_duration_seconds"));
-            assertEquals(3, metrics.sum("loopwright_http_requests_total",
-                    Map.of("route", "/v1/designs", "method", "POST", "status", "200")));
-            assertEquals(3, metrics.sum("loopwright_http_request_duration_seconds_count",
-                    Map.of("route", "/v1/designs", "status", "200")));
+            assertEquals(
+                    3,
+                    metrics.sum(
+                            "loopwright_http_requests_total",
+                            Map.of("route", "/v1/designs", "method", "POST", "status", "200")));
+            assertEquals(
+                    3,
+                    metrics.sum(
+                            "loopwright_http_request_duration_seconds_count",
+                            Map.of("route", "/v1/designs", "status", "200")));
             assertEquals(1, metrics.sum("loopwright_http_requests_total", Map.of("route", "other", "status", "404")));
             assertEquals(3, metrics.sum("loopwright_designs_total", Map.of("outcome", "designed")));
             assertEquals(1, metrics.sum("loopwright_designs_total", Map.of("outcome", "invalid")));
@@ -202,7 +261,9 @@ class OperationsTest {
                     JsonNode problem = lines.get(i).get("problem");
                     assertEquals(single.json().get("type"), problem.get("type"));
                     assertEquals(single.json().get("errors"), problem.get("errors"));
-                    assertEquals("/v1/designs/batch#/items/" + i, problem.get("instance").asText());
+                    assertEquals(
+                            "/v1/designs/batch#/items/" + i,
+                            problem.get("instance").asText());
                 }
             }
         }
@@ -227,7 +288,10 @@ class OperationsTest {
                 assertEquals(400, reply.status(), name + ": " + reply.text());
                 assertEquals("application/problem+json", reply.contentType(), name);
             });
-            assertEquals(415, server.post("/v1/designs/batch", "{\"items\":[" + one + "]}", "text/plain").status());
+            assertEquals(
+                    415,
+                    server.post("/v1/designs/batch", "{\"items\":[" + one + "]}", "text/plain")
+                            .status());
             var cap = server.post("/v1/designs/batch", "{\"items\":[" + String.join(",", one, one, one, one) + "]}");
             assertEquals("/items", cap.json().at("/errors/0/pointer").asText());
         }

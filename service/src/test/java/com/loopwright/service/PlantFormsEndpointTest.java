@@ -17,7 +17,8 @@ class PlantFormsEndpointTest extends LiveServerTest {
     // Every request example of the contract is served, certified, and reports its own form.
     @Test
     void everyContractExampleIsACertifiedDesign() throws Exception {
-        JsonNode examples = Contract.load().document()
+        JsonNode examples = Contract.load()
+                .document()
                 .at("/paths/~1v1~1designs/post/requestBody/content/application~1json/examples");
         int count = 0;
         for (Iterator<Map.Entry<String, JsonNode>> it = examples.fields(); it.hasNext(); ) {
@@ -45,13 +46,18 @@ class PlantFormsEndpointTest extends LiveServerTest {
         JsonNode view = design.at("/model/stateSpace");
         assertEquals(1, view.at("/transform/0/0").asDouble(), 1e-14);
         assertEquals(0, view.at("/transform/0/1").asDouble(), 1e-14);
-        assertEquals(design.at("/riccati/p12").asDouble(), view.at("/p/0/1").asDouble(),
+        assertEquals(
+                design.at("/riccati/p12").asDouble(),
+                view.at("/p/0/1").asDouble(),
                 1e-12 * design.at("/riccati/p12").asDouble());
         assertEquals(design.at("/gain/k1").asDouble(), view.at("/gain/0").asDouble(), 1e-12);
         assertTrue(view.get("riccatiResidual").asDouble() < 1e-10);
         var canonical = server.post("/v1/designs", """
                 {"plant":{"a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""");
-        assertEquals(canonical.json().at("/gain/k2").asDouble(), design.at("/gain/k2").asDouble(), 1e-12);
+        assertEquals(
+                canonical.json().at("/gain/k2").asDouble(),
+                design.at("/gain/k2").asDouble(),
+                1e-12);
     }
 
     @Test
@@ -60,7 +66,9 @@ class PlantFormsEndpointTest extends LiveServerTest {
                 {"plant":{"form":"massSpringDamper","mass":-2.5,"damping":4,"stiffness":150},
                  "spec":{"settlingTime":0.4,"overshootPercent":1}}""");
         assertEquals(422, negativeMass.status());
-        assertEquals("urn:loopwright:problem:plant-model-unusable", negativeMass.json().get("type").asText());
+        assertEquals(
+                "urn:loopwright:problem:plant-model-unusable",
+                negativeMass.json().get("type").asText());
         assertEquals("/plant/mass", negativeMass.json().at("/errors/0/pointer").asText());
         var uncontrollable = server.post("/v1/designs", """
                 {"plant":{"form":"stateSpace","a":[[-1,0],[0,-2]],"b2":[1,0]},

@@ -22,6 +22,7 @@ final class PrometheusText {
 
     /** Samples by name{labels} as written. */
     final Map<String, Double> samples = new LinkedHashMap<>();
+
     final Map<String, String> types = new HashMap<>();
 
     static PrometheusText parse(String text) {
@@ -42,10 +43,12 @@ final class PrometheusText {
             Matcher sample = SAMPLE.matcher(line);
             assertTrue(sample.matches(), "not a sample line: " + line);
             String name = sample.group(1);
-            assertTrue(family != null && (name.equals(family) || name.startsWith(family + "_")),
+            assertTrue(
+                    family != null && (name.equals(family) || name.startsWith(family + "_")),
                     "sample " + name + " outside its family " + family);
             double value = parseValue(sample.group(4));
-            assertTrue(parsed.samples.put(name + (sample.group(2) == null ? "" : sample.group(2)), value) == null,
+            assertTrue(
+                    parsed.samples.put(name + (sample.group(2) == null ? "" : sample.group(2)), value) == null,
                     "duplicate series " + line);
         }
         parsed.checkHistograms();
@@ -104,8 +107,10 @@ final class PrometheusText {
                 assertTrue(sample.getValue() >= before, "buckets are cumulative: " + sample.getKey());
                 previous.put(key, sample.getValue());
                 if (le.equals("+Inf")) {
-                    String count = family + "_count{" + sample.getKey().substring(sample.getKey().indexOf('{') + 1)
-                            .replaceAll(",?le=\"\\+Inf\"", "");
+                    String count = family + "_count{"
+                            + sample.getKey()
+                                    .substring(sample.getKey().indexOf('{') + 1)
+                                    .replaceAll(",?le=\"\\+Inf\"", "");
                     assertEquals(samples.get(count), sample.getValue(), "+Inf bucket equals _count: " + count);
                 }
             }

@@ -17,6 +17,7 @@ final class RawExchange implements AutoCloseable {
 
     /** Longest status line plus headers read back. */
     private static final int MAX_HEAD_BYTES = 64 * 1024;
+
     private static final ObjectMapper JSON = new ObjectMapper();
 
     private final Socket socket;
@@ -70,7 +71,9 @@ final class RawExchange implements AutoCloseable {
         for (int i = 1; i < lines.length; i++) {
             int colon = lines[i].indexOf(':');
             if (colon > 0) {
-                headers.put(lines[i].substring(0, colon).trim().toLowerCase(Locale.ROOT), lines[i].substring(colon + 1).trim());
+                headers.put(
+                        lines[i].substring(0, colon).trim().toLowerCase(Locale.ROOT),
+                        lines[i].substring(colon + 1).trim());
             }
         }
         byte[] body;

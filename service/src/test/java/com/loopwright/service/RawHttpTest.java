@@ -36,14 +36,15 @@ class RawHttpTest extends LiveServerTest {
     }
 
     @ParameterizedTest
-    @ValueSource(strings = {
-        "GET /%ZZ HTTP/1.1\r\nHost: x\r\nConnection: close\r\n\r\n",
-        "GET /health HTTP/1.1\r\nHost: x\r\nX-Big: %BIG%\r\nConnection: close\r\n\r\n",
-        "BLAH\r\n\r\n",
-        "GET /health HTTP/9.9\r\nHost: x\r\n\r\n",
-        "POST /v1/designs HTTP/1.1\r\nHost: x\r\nContent-Length: -5\r\nConnection: close\r\n\r\n",
-        "GET /health HTTP/1.1\r\nHost: x\r\nBad Header\r\nConnection: close\r\n\r\n",
-    })
+    @ValueSource(
+            strings = {
+                "GET /%ZZ HTTP/1.1\r\nHost: x\r\nConnection: close\r\n\r\n",
+                "GET /health HTTP/1.1\r\nHost: x\r\nX-Big: %BIG%\r\nConnection: close\r\n\r\n",
+                "BLAH\r\n\r\n",
+                "GET /health HTTP/9.9\r\nHost: x\r\n\r\n",
+                "POST /v1/designs HTTP/1.1\r\nHost: x\r\nContent-Length: -5\r\nConnection: close\r\n\r\n",
+                "GET /health HTTP/1.1\r\nHost: x\r\nBad Header\r\nConnection: close\r\n\r\n",
+            })
     void jettyLevelErrorsAreProblems(String raw) throws Exception {
         String reply = exchange(raw.replace("%BIG%", "y".repeat(64 * 1024)));
         String[] parts = reply.split("\r\n\r\n", 2);

@@ -20,6 +20,7 @@ final class SchemaFuzzer {
 
     /** Caps of the generator itself. */
     static final int MAX_GENERATED_ITEMS = 3;
+
     static final int MAX_NESTING = 6000;
     static final int MAX_HUGE_ARRAY = 20_000;
     /** Longer than the default 1 MiB request cap. */
@@ -75,8 +76,11 @@ final class SchemaFuzzer {
                 return array;
             }
             case "number", "integer" -> {
-                double low = schema.has("minimum") ? schema.get("minimum").asDouble()
-                        : schema.has("exclusiveMinimum") ? schema.get("exclusiveMinimum").asDouble() : -1e3;
+                double low = schema.has("minimum")
+                        ? schema.get("minimum").asDouble()
+                        : schema.has("exclusiveMinimum")
+                                ? schema.get("exclusiveMinimum").asDouble()
+                                : -1e3;
                 double high = schema.has("maximum") ? schema.get("maximum").asDouble() : 1e3;
                 double value;
                 if (random.nextBoolean()) {
@@ -112,12 +116,19 @@ final class SchemaFuzzer {
             case 2 -> removeRandomMember(tree, random);
             case 3 -> replaceRandomLeaf(tree, random, NODES.numberNode(random.nextBoolean() ? 1e308 : -1e308));
             case 4 -> {
-                return splice(tree, random, random.nextBoolean() ? "1e400" : "123456789012345678901234567890"
-                        + "12345678901234567890123456789012345678901234567890123456789012345678901234567890");
+                return splice(
+                        tree,
+                        random,
+                        random.nextBoolean()
+                                ? "1e400"
+                                : "123456789012345678901234567890"
+                                        + "12345678901234567890123456789012345678901234567890123456789012345678901234567890");
             }
             case 5 -> {
-                return splice(tree, random, new String[] {"NaN", "Infinity", "-Infinity", "\"NaN\"", "\"Infinity\""}
-                        [random.nextInt(5)]);
+                return splice(
+                        tree,
+                        random,
+                        new String[] {"NaN", "Infinity", "-Infinity", "\"NaN\"", "\"Infinity\""}[random.nextInt(5)]);
             }
             case 6 -> {
                 int depth = 17 + random.nextInt(MAX_NESTING);
@@ -134,7 +145,8 @@ final class SchemaFuzzer {
             case 8 -> {
                 byte[] body = bytes(tree);
                 int at = random.nextInt(body.length);
-                byte[] bad = {(byte) 0xC3, (byte) 0x28, (byte) 0xFF, (byte) 0xFE, (byte) 0xED, (byte) 0xA0, (byte) 0x80};
+                byte[] bad = {(byte) 0xC3, (byte) 0x28, (byte) 0xFF, (byte) 0xFE, (byte) 0xED, (byte) 0xA0, (byte) 0x80
+                };
                 byte[] out = new byte[body.length + bad.length];
                 System.arraycopy(body, 0, out, 0, at);
                 System.arraycopy(bad, 0, out, at, bad.length);
@@ -145,8 +157,10 @@ final class SchemaFuzzer {
             case 10 -> {
                 String text = new String(bytes(tree), StandardCharsets.UTF_8);
                 int brace = text.indexOf('{', 1);
-                return (brace < 0 ? text : text.substring(0, brace + 1) + "\"a0\":1,\"a0\":2,"
-                        + text.substring(brace + 1)).getBytes(StandardCharsets.UTF_8);
+                return (brace < 0
+                                ? text
+                                : text.substring(0, brace + 1) + "\"a0\":1,\"a0\":2," + text.substring(brace + 1))
+                        .getBytes(StandardCharsets.UTF_8);
             }
             case 11 -> {
                 byte[] body = bytes(tree);
@@ -163,8 +177,11 @@ final class SchemaFuzzer {
                 return (new String(bytes(tree), StandardCharsets.UTF_8) + (random.nextBoolean() ? " {}" : " x"))
                         .getBytes(StandardCharsets.UTF_8);
             }
-            case 14 -> replaceRandomLeaf(tree, random, NODES.textNode("x".repeat(random.nextInt(8) == 0
-                    ? OVERSIZED_STRING : random.nextInt(20_000))));
+            case 14 ->
+                replaceRandomLeaf(
+                        tree,
+                        random,
+                        NODES.textNode("x".repeat(random.nextInt(8) == 0 ? OVERSIZED_STRING : random.nextInt(20_000))));
             default -> replaceRandomLeaf(tree, random, NODES.numberNode(random.nextBoolean() ? 0.0 : -0.0));
         }
         return bytes(tree);
@@ -235,7 +252,8 @@ final class SchemaFuzzer {
     private static byte[] splice(JsonNode tree, Random random, String raw) {
         String text = new String(bytes(tree), StandardCharsets.UTF_8);
         List<int[]> numbers = new ArrayList<>();
-        java.util.regex.Matcher matcher = java.util.regex.Pattern.compile("-?[0-9][0-9.eE+-]*").matcher(text);
+        java.util.regex.Matcher matcher =
+                java.util.regex.Pattern.compile("-?[0-9][0-9.eE+-]*").matcher(text);
         while (matcher.find()) {
             numbers.add(new int[] {matcher.start(), matcher.end()});
         }

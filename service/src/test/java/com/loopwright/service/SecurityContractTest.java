@@ -77,8 +77,8 @@ class SecurityContractTest {
     void theRouteTableAndTheContractAgreeOnWhichRoutesNeedAKey() throws Exception {
         Map<String, Boolean> documented = documentedAccess(contract.document());
         Map<String, Boolean> served;
-        try (LiveServer server = LiveServer.start(ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0",
-                "LOOPWRIGHT_API_KEYS", KEY)))) {
+        try (LiveServer server = LiveServer.start(
+                ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0", "LOOPWRIGHT_API_KEYS", KEY)))) {
             served = servedAccess(server);
         }
         assertTrue(served.size() > 5, "registered routes: " + served.keySet());
@@ -91,17 +91,20 @@ class SecurityContractTest {
         Map<String, Boolean> served = documentedAccess(contract.document());
         ObjectNode opened = contract.document().deepCopy();
         ((ObjectNode) opened.at("/paths/~1v1~1designs/post")).set("security", opened.arrayNode());
-        assertEquals(List.of("POST /v1/designs: the service needs a key, the contract says none"),
+        assertEquals(
+                List.of("POST /v1/designs: the service needs a key, the contract says none"),
                 disagreements(served, documentedAccess(opened)));
         ObjectNode closed = contract.document().deepCopy();
         ArrayNode keyed = closed.arrayNode();
         keyed.addObject().putArray(BEARER);
         ((ObjectNode) closed.at("/paths/~1health/get")).set("security", keyed);
-        assertEquals(List.of("GET /health: the service needs none, the contract says a key"),
+        assertEquals(
+                List.of("GET /health: the service needs none, the contract says a key"),
                 disagreements(served, documentedAccess(closed)));
         ObjectNode missing = contract.document().deepCopy();
         ((ObjectNode) missing.get("paths")).remove("/metrics");
-        assertEquals(List.of("GET /metrics: served but not in the contract"),
+        assertEquals(
+                List.of("GET /metrics: served but not in the contract"),
                 disagreements(served, documentedAccess(missing)));
     }
 
@@ -142,7 +145,8 @@ class SecurityContractTest {
      * the CORS preflights left out), and whether it answers 401 without a key while keys are configured.
      */
     private Map<String, Boolean> servedAccess(LiveServer server) throws IOException, InterruptedException {
-        HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
+        HttpClient http =
+                HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
         Map<String, Boolean> access = new TreeMap<>();
         List<ParsedEndpoint> endpoints = server.app().unsafe.internalRouter.allHttpHandlers();
         assertTrue(endpoints.size() <= MAX_OPERATIONS, "registered: " + endpoints.size());
@@ -153,10 +157,16 @@ class SecurityContractTest {
             }
             String template = parsed.endpoint.path;
             String operation = method.name() + " " + template;
-            URI uri = server.base().resolve(concretePath(template, contract.document()
-                    .at("/paths/" + template.replace("~", "~0").replace("/", "~1") + "/" + method.name().toLowerCase())));
-            int without = http.send(probe(uri, method, null), HttpResponse.BodyHandlers.discarding()).statusCode();
-            int with = http.send(probe(uri, method, KEY), HttpResponse.BodyHandlers.discarding()).statusCode();
+            URI uri = server.base()
+                    .resolve(concretePath(
+                            template,
+                            contract.document()
+                                    .at("/paths/" + template.replace("~", "~0").replace("/", "~1") + "/"
+                                            + method.name().toLowerCase())));
+            int without = http.send(probe(uri, method, null), HttpResponse.BodyHandlers.discarding())
+                    .statusCode();
+            int with = http.send(probe(uri, method, KEY), HttpResponse.BodyHandlers.discarding())
+                    .statusCode();
             assertFalse(with == 401 || with == 403, operation + " refuses the configured key: " + with);
             access.put(operation, without == 401);
         }
@@ -164,10 +174,14 @@ class SecurityContractTest {
     }
 
     private static HttpRequest probe(URI uri, HandlerType method, String key) {
-        HttpRequest.Builder request = HttpRequest.newBuilder(uri).timeout(Duration.ofSeconds(30))
+        HttpRequest.Builder request = HttpRequest.newBuilder(uri)
+                .timeout(Duration.ofSeconds(30))
                 .header("Content-Type", "application/json")
-                .method(method.name(), method == HandlerType.GET ? HttpRequest.BodyPublishers.noBody()
-                        : HttpRequest.BodyPublishers.ofString("{}"));
+                .method(
+                        method.name(),
+                        method == HandlerType.GET
+                                ? HttpRequest.BodyPublishers.noBody()
+                                : HttpRequest.BodyPublishers.ofString("{}"));
         if (key != null) {
             request.header("Authorization", "Bearer " + key);
         }
@@ -179,7 +193,8 @@ class SecurityContractTest {
         String concrete = template;
         for (JsonNode parameter : operation.path("parameters")) {
             if ("path".equals(parameter.path("in").asText())) {
-                concrete = concrete.replace("{" + parameter.get("name").asText() + "}",
+                concrete = concrete.replace(
+                        "{" + parameter.get("name").asText() + "}",
                         parameter.at("/schema/enum/0").asText());
             }
         }
@@ -194,8 +209,10 @@ class SecurityContractTest {
             if (contractKeyed == null) {
                 wrong.add(route.getKey() + ": served but not in the contract");
             } else if (!contractKeyed.equals(route.getValue())) {
-                wrong.add(route.getKey() + (route.getValue() ? ": the service needs a key, the contract says none"
-                        : ": the service needs none, the contract says a key"));
+                wrong.add(route.getKey()
+                        + (route.getValue()
+                                ? ": the service needs a key, the contract says none"
+                                : ": the service needs none, the contract says a key"));
             }
         }
         for (String operation : documented.keySet()) {

@@ -31,20 +31,31 @@ class ServiceConfigTest {
         assertEquals(5_000, config.http().bodyGraceMillis());
         assertEquals(30_000, config.http().idleTimeoutMillis());
         // A request cap above the default budget raises the default budget with it (one body always fits).
-        assertEquals(48L << 20, ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES",
-                String.valueOf(48L << 20))).http().inFlightBodyBytes());
+        assertEquals(
+                48L << 20,
+                ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES", String.valueOf(48L << 20)))
+                        .http()
+                        .inFlightBodyBytes());
     }
 
     @Test
     void badValuesAreRefusedAtStartUp() {
-        for (Map<String, String> bad : List.of(Map.of("LOOPWRIGHT_PORT", "70000"),
-                Map.of("LOOPWRIGHT_WORKER_THREADS", "0"), Map.of("LOOPWRIGHT_QUEUE_CAPACITY", "-1"),
-                Map.of("LOOPWRIGHT_COMPUTE_DEADLINE_MS", "0"), Map.of("LOOPWRIGHT_MAX_BATCH_ITEMS", "1001"),
-                Map.of("LOOPWRIGHT_API_KEYS", "short"), Map.of("LOOPWRIGHT_CORS_ORIGINS", "*"),
-                Map.of("LOOPWRIGHT_LOG_FORMAT", "xml"), Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES", "ten"),
-                Map.of("LOOPWRIGHT_API_KEYS_FILE", "/nonexistent/keys"), Map.of("LOOPWRIGHT_HTTP_THREADS", "4"),
-                Map.of("LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", "1024"), Map.of("LOOPWRIGHT_MIN_BODY_BYTES_PER_S", "0"),
-                Map.of("LOOPWRIGHT_BODY_GRACE_MS", "-1"), Map.of("LOOPWRIGHT_IDLE_TIMEOUT_MS", "10"))) {
+        for (Map<String, String> bad : List.of(
+                Map.of("LOOPWRIGHT_PORT", "70000"),
+                Map.of("LOOPWRIGHT_WORKER_THREADS", "0"),
+                Map.of("LOOPWRIGHT_QUEUE_CAPACITY", "-1"),
+                Map.of("LOOPWRIGHT_COMPUTE_DEADLINE_MS", "0"),
+                Map.of("LOOPWRIGHT_MAX_BATCH_ITEMS", "1001"),
+                Map.of("LOOPWRIGHT_API_KEYS", "short"),
+                Map.of("LOOPWRIGHT_CORS_ORIGINS", "*"),
+                Map.of("LOOPWRIGHT_LOG_FORMAT", "xml"),
+                Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES", "ten"),
+                Map.of("LOOPWRIGHT_API_KEYS_FILE", "/nonexistent/keys"),
+                Map.of("LOOPWRIGHT_HTTP_THREADS", "4"),
+                Map.of("LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", "1024"),
+                Map.of("LOOPWRIGHT_MIN_BODY_BYTES_PER_S", "0"),
+                Map.of("LOOPWRIGHT_BODY_GRACE_MS", "-1"),
+                Map.of("LOOPWRIGHT_IDLE_TIMEOUT_MS", "10"))) {
             assertThrows(RuntimeException.class, () -> ServiceConfig.fromEnvironment(bad), bad.toString());
         }
     }
@@ -52,13 +63,17 @@ class ServiceConfigTest {
     @Test
     void keysAreNeverShownAndTheErrorNamesOnlyThePosition() {
         String secret = "pick-and-place-secret-7";
-        ServiceConfig config = ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_API_KEYS", secret + ", tank-level-secret-88",
-                "LOOPWRIGHT_CORS_ORIGINS", "https://scada.plant.example:8443"));
+        ServiceConfig config = ServiceConfig.fromEnvironment(Map.of(
+                "LOOPWRIGHT_API_KEYS",
+                secret + ", tank-level-secret-88",
+                "LOOPWRIGHT_CORS_ORIGINS",
+                "https://scada.plant.example:8443"));
         assertEquals(2, config.apiKeys().size());
         assertFalse(config.toString().contains(secret));
         assertTrue(config.describe().get("LOOPWRIGHT_API_KEYS").contains("2 keys"));
         assertEquals("https://scada.plant.example:8443", config.describe().get("LOOPWRIGHT_CORS_ORIGINS"));
-        var failure = assertThrows(IllegalArgumentException.class,
+        var failure = assertThrows(
+                IllegalArgumentException.class,
                 () -> ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_API_KEYS", secret + ",weak key")));
         assertFalse(failure.getMessage().contains("weak"), failure.getMessage());
         assertTrue(failure.getMessage().contains("#2"), failure.getMessage());

@@ -71,20 +71,35 @@ class ShutdownAndFailuresTest {
             }
         };
         long graceMillis = 1_500;
-        ServiceConfig config = ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_PORT", "0",
-                "LOOPWRIGHT_WORKER_THREADS", "1", "LOOPWRIGHT_QUEUE_CAPACITY", "4",
-                "LOOPWRIGHT_COMPUTE_DEADLINE_MS", "30000", "LOOPWRIGHT_SHUTDOWN_GRACE_MS", String.valueOf(graceMillis)));
+        ServiceConfig config = ServiceConfig.fromEnvironment(Map.of(
+                "LOOPWRIGHT_PORT",
+                "0",
+                "LOOPWRIGHT_WORKER_THREADS",
+                "1",
+                "LOOPWRIGHT_QUEUE_CAPACITY",
+                "4",
+                "LOOPWRIGHT_COMPUTE_DEADLINE_MS",
+                "30000",
+                "LOOPWRIGHT_SHUTDOWN_GRACE_MS",
+                String.valueOf(graceMillis)));
         LiveServer server = LiveServer.start(config, secondHangs);
         try {
-            String batch = "{\"items\":[" + String.join(",", DesignClient.INDEXING_AXIS, DesignClient.INDEXING_AXIS,
-                    DesignClient.INDEXING_AXIS) + "]}";
-            CompletableFuture<HttpResponse<String>> reply = server.http().sendAsync(HttpRequest.newBuilder(
-                    server.base().resolve("/v1/designs/batch")).timeout(Duration.ofSeconds(20))
-                    .header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(batch))
-                    .build(), HttpResponse.BodyHandlers.ofString());
+            String batch = "{\"items\":["
+                    + String.join(
+                            ",", DesignClient.INDEXING_AXIS, DesignClient.INDEXING_AXIS, DesignClient.INDEXING_AXIS)
+                    + "]}";
+            CompletableFuture<HttpResponse<String>> reply = server.http()
+                    .sendAsync(
+                            HttpRequest.newBuilder(server.base().resolve("/v1/designs/batch"))
+                                    .timeout(Duration.ofSeconds(20))
+                                    .header("Content-Type", "application/json")
+                                    .POST(HttpRequest.BodyPublishers.ofString(batch))
+                                    .build(),
+                            HttpResponse.BodyHandlers.ofString());
             assertTrue(secondEntered.await(10, TimeUnit.SECONDS), "the second item started");
             long stopStarted = System.nanoTime();
-            CompletableFuture<Void> stop = CompletableFuture.runAsync(() -> server.app().stop());
+            CompletableFuture<Void> stop =
+                    CompletableFuture.runAsync(() -> server.app().stop());
             // The body must end well-formed (a broken chunked body is an IOException here).
             HttpResponse<String> response = reply.get(10, TimeUnit.SECONDS);
             long endedMillis = (System.nanoTime() - stopStarted) / 1_000_000;
@@ -95,8 +110,8 @@ class ShutdownAndFailuresTest {
             assertTrue(response.body().endsWith("\n"));
             Contract contract = server.contract();
             for (String line : lines) {
-                String violations = contract.violations("/v1/designs/batch", "post", 200, "application/x-ndjson",
-                        JSON.readTree(line));
+                String violations = contract.violations(
+                        "/v1/designs/batch", "post", 200, "application/x-ndjson", JSON.readTree(line));
                 assertTrue(violations.isEmpty(), violations + " in " + line);
             }
             assertEquals(200, JSON.readTree(lines[0]).get("status").asInt());
@@ -118,12 +133,14 @@ class ShutdownAndFailuresTest {
         main.addAppender(captured);
         try {
             LoopwrightMain.shutdownHook(() -> {
-                throw new IllegalStateException("stop failed", new TimeoutException("graceful stop timed out"));
-            }).run();
+                        throw new IllegalStateException("stop failed", new TimeoutException("graceful stop timed out"));
+                    })
+                    .run();
         } finally {
             main.detachAppender(captured);
         }
-        List<ILoggingEvent> errors = captured.list.stream().filter(e -> e.getLevel() == Level.ERROR).toList();
+        List<ILoggingEvent> errors =
+                captured.list.stream().filter(e -> e.getLevel() == Level.ERROR).toList();
         assertEquals(1, errors.size(), captured.list.toString());
         assertOneJsonLine(errors.get(0));
     }
@@ -139,7 +156,8 @@ class ShutdownAndFailuresTest {
         try {
             fatal.uncaughtException(Thread.currentThread(), new IllegalStateException("a worker failed"));
             assertEquals(List.of(), halts, "an ordinary failure does not end the process");
-            fatal.uncaughtException(Thread.currentThread(), new RuntimeException(new OutOfMemoryError("Java heap space")));
+            fatal.uncaughtException(
+                    Thread.currentThread(), new RuntimeException(new OutOfMemoryError("Java heap space")));
             assertEquals(List.of(FatalErrors.OUT_OF_MEMORY_EXIT_STATUS), halts);
         } finally {
             logger.detachAppender(captured);
@@ -165,10 +183,14 @@ class ShutdownAndFailuresTest {
         };
         try (LiveServer server = LiveServer.start(ServiceConfig.defaults(0), exhausted, new FatalErrors(halts::add))) {
             // The process would be gone by now; the test's halt only records it, so the request still gets an answer.
-            HttpResponse<String> reply = server.http().send(HttpRequest.newBuilder(server.base().resolve("/v1/designs"))
-                    .timeout(Duration.ofSeconds(10)).header("Content-Type", "application/json")
-                    .POST(HttpRequest.BodyPublishers.ofString(DesignClient.INDEXING_AXIS)).build(),
-                    HttpResponse.BodyHandlers.ofString());
+            HttpResponse<String> reply = server.http()
+                    .send(
+                            HttpRequest.newBuilder(server.base().resolve("/v1/designs"))
+                                    .timeout(Duration.ofSeconds(10))
+                                    .header("Content-Type", "application/json")
+                                    .POST(HttpRequest.BodyPublishers.ofString(DesignClient.INDEXING_AXIS))
+                                    .build(),
+                            HttpResponse.BodyHandlers.ofString());
             assertTrue(reply.statusCode() >= 500, "status " + reply.statusCode());
         }
         assertEquals(List.of(FatalErrors.OUT_OF_MEMORY_EXIT_STATUS), halts);
@@ -180,7 +202,8 @@ class ShutdownAndFailuresTest {
         try {
             JoranConfigurator configurator = new JoranConfigurator();
             configurator.setContext(context);
-            configurator.doConfigure(Path.of("src", "main", "resources", "logback.xml").toFile());
+            configurator.doConfigure(
+                    Path.of("src", "main", "resources", "logback.xml").toFile());
             Logger root = context.getLogger(org.slf4j.Logger.ROOT_LOGGER_NAME);
             @SuppressWarnings("unchecked")
             var appender = (OutputStreamAppender<ILoggingEvent>) root.getAppender("json");

@@ -64,7 +64,9 @@ class TakeawayEndpointTest extends LiveServerTest {
 
         LiveServer.Reply missing = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + DESIGN + "}");
         assertEquals(400, missing.status());
-        assertEquals("/design/verify/uncertainty", missing.json().at("/errors/0/pointer").asText());
+        assertEquals(
+                "/design/verify/uncertainty",
+                missing.json().at("/errors/0/pointer").asText());
 
         String unstable = DESIGN.substring(0, DESIGN.length() - 1)
                 + ",\"verify\":{\"uncertainty\":{\"a0\":{\"min\":-2000,\"max\":-1000}}}}";
@@ -86,8 +88,10 @@ class TakeawayEndpointTest extends LiveServerTest {
     /** A negative step on an unstable plant with a rise-time spec: the band is still drawn with a height. */
     @Test
     void negativeStepKeepsTheBandAndTheRiseSpec() throws Exception {
-        LiveServer.Reply reply = server.post("/v1/designs/plots/step-response", "{\"design\":{\"plant\":{\"a0\":-4,"
-                + "\"a1\":0,\"b\":2,\"d\":0},\"spec\":{\"riseTime\":0.5,\"overshootPercent\":1,\"stepSize\":-2}}}");
+        LiveServer.Reply reply = server.post(
+                "/v1/designs/plots/step-response",
+                "{\"design\":{\"plant\":{\"a0\":-4,"
+                        + "\"a1\":0,\"b\":2,\"d\":0},\"spec\":{\"riseTime\":0.5,\"overshootPercent\":1,\"stepSize\":-2}}}");
         assertEquals(200, reply.status());
         Document svg = parseSafely(reply.text());
         NodeList rects = svg.getElementsByTagName("rect");
@@ -106,8 +110,8 @@ class TakeawayEndpointTest extends LiveServerTest {
 
     @Test
     void controlEffortShowsTheActuatorLimitAndBodeShowsTheMargins() throws Exception {
-        LiveServer.Reply effort = server.post("/v1/designs/plots/control-effort",
-                "{\"design\":" + DESIGN + ",\"commandLimit\":3}");
+        LiveServer.Reply effort =
+                server.post("/v1/designs/plots/control-effort", "{\"design\":" + DESIGN + ",\"commandLimit\":3}");
         assertEquals(200, effort.status());
         Document effortSvg = parseSafely(effort.text());
         assertEquals(3, countClass(effortSvg, "line", "limit")); // +limit, -limit and the legend swatch
@@ -128,15 +132,25 @@ class TakeawayEndpointTest extends LiveServerTest {
     @Test
     void parametersMatchTheDesignAndTheContract() {
         JsonNode design = server.post("/v1/designs", DESIGN).json();
-        LiveServer.Reply reply = server.post("/v1/designs/controllers/parameters",
+        LiveServer.Reply reply = server.post(
+                "/v1/designs/controllers/parameters",
                 "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
         assertEquals(200, reply.status());
-        String violations = contract.violations("/v1/designs/controllers/{format}", "post", 200,
-                "application/json", reply.json());
+        String violations =
+                contract.violations("/v1/designs/controllers/{format}", "post", 200, "application/json", reply.json());
         assertTrue(violations.isEmpty(), violations);
-        assertEquals(design.at("/gain/k1").asDouble(), reply.json().get("positionGain").asDouble(), 0);
-        assertEquals(design.at("/gain/k2").asDouble(), reply.json().get("velocityGain").asDouble(), 0);
-        assertEquals(design.at("/gain/referenceGain").asDouble(), reply.json().get("referenceGain").asDouble(), 0);
+        assertEquals(
+                design.at("/gain/k1").asDouble(),
+                reply.json().get("positionGain").asDouble(),
+                0);
+        assertEquals(
+                design.at("/gain/k2").asDouble(),
+                reply.json().get("velocityGain").asDouble(),
+                0);
+        assertEquals(
+                design.at("/gain/referenceGain").asDouble(),
+                reply.json().get("referenceGain").asDouble(),
+                0);
         assertEquals(design.get("gamma").asDouble(), reply.json().get("gamma").asDouble(), 0);
         assertTrue(reply.json().get("sampledSpectralRadius").asDouble() < 1);
         assertEquals(4, reply.json().get("cautions").size());
@@ -164,28 +178,35 @@ class TakeawayEndpointTest extends LiveServerTest {
         assertEquals(404, unknown.status());
         LiveServer.Reply missing = server.post("/v1/designs/controllers/c", "{\"design\":" + DESIGN + "}");
         assertEquals(400, missing.status());
-        assertEquals("/samplePeriodSeconds", missing.json().at("/errors/0/pointer").asText());
+        assertEquals(
+                "/samplePeriodSeconds", missing.json().at("/errors/0/pointer").asText());
         assertEquals("/commandLimit", missing.json().at("/errors/1/pointer").asText());
-        LiveServer.Reply badSpec = server.post("/v1/designs/plots/bode",
+        LiveServer.Reply badSpec = server.post(
+                "/v1/designs/plots/bode",
                 "{\"design\":{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                         + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":120}}}");
         assertEquals(400, badSpec.status());
-        assertEquals("/design/spec/overshootPercent", badSpec.json().at("/errors/0/pointer").asText());
-        LiveServer.Reply tooSlow = server.post("/v1/designs/controllers/structured-text",
+        assertEquals(
+                "/design/spec/overshootPercent",
+                badSpec.json().at("/errors/0/pointer").asText());
+        LiveServer.Reply tooSlow = server.post(
+                "/v1/designs/controllers/structured-text",
                 "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.05,\"commandLimit\":3}");
         assertEquals(422, tooSlow.status());
-        assertEquals("/samplePeriodSeconds", tooSlow.json().at("/errors/0/pointer").asText());
+        assertEquals(
+                "/samplePeriodSeconds", tooSlow.json().at("/errors/0/pointer").asText());
         assertTrue(tooSlow.json().get("detail").asText().contains("too long"));
-        LiveServer.Reply infeasible = server.post("/v1/designs/plots/step-response",
+        LiveServer.Reply infeasible = server.post(
+                "/v1/designs/plots/step-response",
                 "{\"design\":{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                         + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":30}}}");
         assertEquals(422, infeasible.status());
         assertTrue(infeasible.json().at("/errors/0/pointer").asText().startsWith("/design/spec/"));
-        LiveServer.Reply unknownField = server.post("/v1/designs/plots/bode",
-                "{\"design\":" + DESIGN + ",\"colour\":\"red\"}");
+        LiveServer.Reply unknownField =
+                server.post("/v1/designs/plots/bode", "{\"design\":" + DESIGN + ",\"colour\":\"red\"}");
         assertEquals(400, unknownField.status());
-        LiveServer.Reply negativeLimit = server.post("/v1/designs/plots/control-effort",
-                "{\"design\":" + DESIGN + ",\"commandLimit\":-1}");
+        LiveServer.Reply negativeLimit =
+                server.post("/v1/designs/plots/control-effort", "{\"design\":" + DESIGN + ",\"commandLimit\":-1}");
         assertEquals(400, negativeLimit.status());
         LiveServer.Reply text = server.post("/v1/designs/plots/bode", "{\"design\":" + DESIGN + "}", "text/plain");
         assertEquals(415, text.status());
@@ -197,7 +218,11 @@ class TakeawayEndpointTest extends LiveServerTest {
         assertEquals(200, page.status());
         assertEquals("text/html", page.contentType());
         assertTrue(page.text().contains("<form id=\"design-form\""));
-        assertFalse(Pattern.compile("(src|href)=\"(https?:)?//").matcher(page.text()).find(), "no external resources");
+        assertFalse(
+                Pattern.compile("(src|href)=\"(https?:)?//")
+                        .matcher(page.text())
+                        .find(),
+                "no external resources");
     }
 
     private static Document parseSafely(String text) throws Exception {

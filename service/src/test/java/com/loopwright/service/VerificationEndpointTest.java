@@ -21,7 +21,6 @@ class VerificationEndpointTest extends LiveServerTest {
     private static final String GAINS = "\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"gain\":{\"k1\":1.5723,\"k2\":0.0992069,\"referenceGain\":1.5723}";
 
-
     @Test
     void designWithoutVerifyHasNoRobustnessMember() {
         LiveServer.Reply reply = server.post("/v1/designs", "{" + AXIS + "}");
@@ -52,10 +51,15 @@ class VerificationEndpointTest extends LiveServerTest {
         }
         // kr = 1.5723 > 1.2: the unit step saturates, and the largest unsaturated step is 1.2 / 1.5723
         assertTrue(r.at("/saturation/saturates").asBoolean());
-        assertEquals(1.2 / reply.json().at("/gain/referenceGain").asDouble(),
-                r.at("/saturation/largestUnsaturatedStep").asDouble(), 1e-9);
+        assertEquals(
+                1.2 / reply.json().at("/gain/referenceGain").asDouble(),
+                r.at("/saturation/largestUnsaturatedStep").asDouble(),
+                1e-9);
         assertTrue(r.at("/sampled/longestSamplePeriod").asDouble() > 0.001);
-        assertEquals(r.at("/margins/delayMargin").asDouble(), r.at("/delay/delayMargin").asDouble(), 0);
+        assertEquals(
+                r.at("/margins/delayMargin").asDouble(),
+                r.at("/delay/delayMargin").asDouble(),
+                0);
         assertEquals(40, r.at("/margins/response").size());
         assertEquals(4 + 4, r.get("timeSeries").size());
         assertEquals(50, r.at("/timeSeries/0/points").size());
@@ -64,14 +68,20 @@ class VerificationEndpointTest extends LiveServerTest {
 
     @Test
     void theContractExampleVerifiesAndTheSameSeedGivesTheSameBody() throws Exception {
-        JsonNode example = server.contract().document().at("/paths/~1v1~1verifications/post/requestBody/content"
-                + "/application~1json/examples/conveyorWithDelay/value");
+        JsonNode example = server.contract()
+                .document()
+                .at("/paths/~1v1~1verifications/post/requestBody/content"
+                        + "/application~1json/examples/conveyorWithDelay/value");
         String body = new ObjectMapper().writeValueAsString(example);
         LiveServer.Reply first = server.post("/v1/verifications", body);
         LiveServer.Reply second = server.post("/v1/verifications", body);
         assertEquals(200, first.status(), first.text());
         assertEquals(first.text(), second.text(), "bit-for-bit reproducible");
-        assertEquals("x1", first.json().at("/robustness/disturbanceChannel/performanceOutput").asText());
+        assertEquals(
+                "x1",
+                first.json()
+                        .at("/robustness/disturbanceChannel/performanceOutput")
+                        .asText());
     }
 
     @Test
@@ -83,29 +93,47 @@ class VerificationEndpointTest extends LiveServerTest {
     }
 
     @ParameterizedTest(name = "{0}")
-    @CsvSource(delimiter = '|', quoteCharacter = '`', value = {
-        "Monte Carlo over cap     | {" + GAINS + ",\"verify\":{\"uncertainty\":{\"monteCarloSamples\":2001}}} | 400 | /verify/uncertainty/monteCarloSamples",
-        "frequency points over cap| {" + GAINS + ",\"verify\":{\"frequencyPoints\":501}}                   | 400 | /verify/frequencyPoints",
-        "series points over cap   | {" + GAINS + ",\"verify\":{\"timeSeriesPoints\":1001}}                 | 400 | /verify/timeSeriesPoints",
-        "b range through zero     | {" + GAINS + ",\"verify\":{\"uncertainty\":{\"b\":{\"min\":-1,\"max\":500}}}} | 400 | /verify/uncertainty/b",
-        "both range forms         | {" + GAINS + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":5,\"min\":0}}}} | 400 | /verify/uncertainty/a1",
-        "unknown shape            | {" + GAINS + ",\"verify\":{\"disturbances\":[{\"shape\":\"chirp\",\"amplitude\":1}]}} | 400 | /verify/disturbances/0/shape",
-        "member of another shape  | {" + GAINS + ",\"verify\":{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":1,\"frequency\":3}]}} | 400 | /verify/disturbances/0/frequency",
-        "pulse without duration   | {" + GAINS + ",\"verify\":{\"disturbances\":[{\"shape\":\"pulse\",\"amplitude\":1}]}} | 400 | /verify/disturbances/0/duration",
-        "unknown verify field     | {" + GAINS + ",\"verify\":{\"horizonOverride\":3}}                     | 400 | /verify/horizonOverride",
-        "gamma in spec            | {" + GAINS + ",\"spec\":{\"gamma\":3}}                                 | 400 | /spec/gamma",
-        "missing gain             | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}}                   | 400 | /gain",
-        "sample period over cap   | {" + GAINS + ",\"verify\":{\"sampling\":{\"samplePeriod\":1e-7}}}        | 422 | /verify/sampling/samplePeriod",
-        "delay over cap           | {" + GAINS + ",\"verify\":{\"inputDelay\":100}}                        | 422 | /verify/inputDelay",
-        "late disturbance         | {" + GAINS + ",\"verify\":{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":1,\"start\":1000}]}} | 422 | /verify/disturbances/0",
-        "unstable gains           | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":-1,\"k2\":0.1,\"referenceGain\":1}} | 422 | /gain",
-    })
+    @CsvSource(
+            delimiter = '|',
+            quoteCharacter = '`',
+            value = {
+                "Monte Carlo over cap     | {" + GAINS
+                        + ",\"verify\":{\"uncertainty\":{\"monteCarloSamples\":2001}}} | 400 | /verify/uncertainty/monteCarloSamples",
+                "frequency points over cap| {" + GAINS
+                        + ",\"verify\":{\"frequencyPoints\":501}}                   | 400 | /verify/frequencyPoints",
+                "series points over cap   | {" + GAINS
+                        + ",\"verify\":{\"timeSeriesPoints\":1001}}                 | 400 | /verify/timeSeriesPoints",
+                "b range through zero     | {" + GAINS
+                        + ",\"verify\":{\"uncertainty\":{\"b\":{\"min\":-1,\"max\":500}}}} | 400 | /verify/uncertainty/b",
+                "both range forms         | {" + GAINS
+                        + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":5,\"min\":0}}}} | 400 | /verify/uncertainty/a1",
+                "unknown shape            | {" + GAINS
+                        + ",\"verify\":{\"disturbances\":[{\"shape\":\"chirp\",\"amplitude\":1}]}} | 400 | /verify/disturbances/0/shape",
+                "member of another shape  | {" + GAINS
+                        + ",\"verify\":{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":1,\"frequency\":3}]}} | 400 | /verify/disturbances/0/frequency",
+                "pulse without duration   | {" + GAINS
+                        + ",\"verify\":{\"disturbances\":[{\"shape\":\"pulse\",\"amplitude\":1}]}} | 400 | /verify/disturbances/0/duration",
+                "unknown verify field     | {" + GAINS
+                        + ",\"verify\":{\"horizonOverride\":3}}                     | 400 | /verify/horizonOverride",
+                "gamma in spec            | {" + GAINS
+                        + ",\"spec\":{\"gamma\":3}}                                 | 400 | /spec/gamma",
+                "missing gain             | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}}                   | 400 | /gain",
+                "sample period over cap   | {" + GAINS
+                        + ",\"verify\":{\"sampling\":{\"samplePeriod\":1e-7}}}        | 422 | /verify/sampling/samplePeriod",
+                "delay over cap           | {" + GAINS
+                        + ",\"verify\":{\"inputDelay\":100}}                        | 422 | /verify/inputDelay",
+                "late disturbance         | {" + GAINS
+                        + ",\"verify\":{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":1,\"start\":1000}]}} | 422 | /verify/disturbances/0",
+                "unstable gains           | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":-1,\"k2\":0.1,\"referenceGain\":1}} | 422 | /gain",
+            })
     void capsAndBadOptionsAreProblems(String name, String body, int status, String pointer) {
         LiveServer.Reply reply = server.post("/v1/verifications", body);
         assertEquals(status, reply.status(), reply.text());
         assertEquals(pointer, reply.json().at("/errors/0/pointer").asText(), reply.text());
         if (status == 422 && !name.startsWith("unstable")) {
-            assertEquals("urn:loopwright:problem:cap-exceeded", reply.json().get("type").asText());
+            assertEquals(
+                    "urn:loopwright:problem:cap-exceeded",
+                    reply.json().get("type").asText());
             assertTrue(reply.json().get("detail").asText().matches(".*\\d.*"), "the cap is stated");
         }
     }
@@ -113,8 +141,8 @@ class VerificationEndpointTest extends LiveServerTest {
     @Test
     void manyBadProfilesGiveAtMostTheDocumentedNumberOfFieldErrors() {
         String bad = "{\"shape\":\"pulse\",\"amplitude\":1e99,\"start\":-1,\"frequency\":1,\"holdTime\":1,\"seed\":2}";
-        String body = "{" + GAINS + ",\"verify\":{\"disturbances\":[" + String.join(",", java.util.Collections.nCopies(8, bad))
-                + "]}}";
+        String body = "{" + GAINS + ",\"verify\":{\"disturbances\":["
+                + String.join(",", java.util.Collections.nCopies(8, bad)) + "]}}";
         LiveServer.Reply reply = server.post("/v1/verifications", body);
         assertEquals(400, reply.status(), reply.text());
         assertEquals(32, reply.json().get("errors").size());
@@ -122,9 +150,11 @@ class VerificationEndpointTest extends LiveServerTest {
 
     @Test
     void verifyOptionsOfADesignAreValidatedToo() {
-        LiveServer.Reply reply = server.post("/v1/designs", "{" + AXIS
-                + ",\"verify\":{\"uncertainty\":{\"monteCarloSamples\":5000}}}");
+        LiveServer.Reply reply =
+                server.post("/v1/designs", "{" + AXIS + ",\"verify\":{\"uncertainty\":{\"monteCarloSamples\":5000}}}");
         assertEquals(400, reply.status());
-        assertEquals("/verify/uncertainty/monteCarloSamples", reply.json().at("/errors/0/pointer").asText());
+        assertEquals(
+                "/verify/uncertainty/monteCarloSamples",
+                reply.json().at("/errors/0/pointer").asText());
     }
 }

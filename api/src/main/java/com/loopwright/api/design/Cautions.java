@@ -15,6 +15,5 @@ public final class Cautions {
             "Follow local codes, machine-safety and pressure-equipment standards, and licensed engineering"
                     + " practice before energizing moving machinery or pressurized equipment.");
 
-    private Cautions() {
-    }
+    private Cautions() {}
 }

@@ -1,10 +1,10 @@
 package com.loopwright.api.design;
 
-import com.loopwright.api.robustness.VerifyLimits;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.api.robustness.VerifyLimits;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -70,8 +70,9 @@ public final class ComputeBudget {
         }
         JsonNode disturbances = verify.get("disturbances");
         if (disturbances != null && disturbances.isArray() && !disturbances.isEmpty()) {
-            parts.put("/verify/disturbances", Math.min(disturbances.size(), VerifyLimits.MAX_DISTURBANCES)
-                    * DISTURBANCE_UNITS);
+            parts.put(
+                    "/verify/disturbances",
+                    Math.min(disturbances.size(), VerifyLimits.MAX_DISTURBANCES) * DISTURBANCE_UNITS);
         }
         if (present(verify.get("actuatorLimit"))) {
             parts.put("/verify/actuatorLimit", SATURATION_UNITS);
@@ -133,12 +134,14 @@ public final class ComputeBudget {
                 + " send fewer items or fewer checks per item (see the cost model in docs/limits-and-budgets.md)";
         long estimated = total;
         List<FieldError> errors = new ArrayList<>();
-        errors.add(new FieldError("/items", count + " items, " + estimated + " work units estimated; the cap is "
-                + MAX_REQUEST_WORK_UNITS));
+        errors.add(new FieldError(
+                "/items",
+                count + " items, " + estimated + " work units estimated; the cap is " + MAX_REQUEST_WORK_UNITS));
         byField.entrySet().stream()
                 .sorted(Map.Entry.<String, Long>comparingByValue().reversed())
                 .limit(MAX_DRIVERS)
-                .forEach(part -> errors.add(new FieldError("/items/" + firstItem.get(part.getKey()) + part.getKey(),
+                .forEach(part -> errors.add(new FieldError(
+                        "/items/" + firstItem.get(part.getKey()) + part.getKey(),
                         (part.getKey().isEmpty() ? "the designs themselves" : "this check")
                                 + " in " + itemsAsking.get(part.getKey()) + " items costs " + part.getValue()
                                 + " of the " + estimated + " work units")));

@@ -32,6 +32,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
 
     /** The robustness section's performance output: a design always weights z = [rho1 x1, rho2 x2, u]. */
     private static final String WEIGHTED_OUTPUT = "z = [rho1 x1, rho2 x2, u]";
+
     private static final String VERIFY_POINTER = "/verify";
 
     private final DesignRequestValidator validator = new DesignRequestValidator();
@@ -58,8 +59,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
      * @param callerCoordinates the design in the caller's state-space coordinates, or null
      * @param robustness        the robustness checks, or null
      */
-    public record Result(DesignReport report, StateSpaceDesign callerCoordinates, RobustnessReport robustness) {
-    }
+    public record Result(DesignReport report, StateSpaceDesign callerCoordinates, RobustnessReport robustness) {}
 
     @Override
     public Class<DesignRequest> requestType() {
@@ -80,20 +80,27 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     @Override
     public Result compute(Validated validated) {
         ValidatedDesign design = validated.design();
-        DesignReport report = designs.design(design.plant(), design.spec(), design.gammaChoice(), design.stepSize(),
-                design.bandFraction());
+        DesignReport report = designs.design(
+                design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
         if (!validated.verifyErrors().isEmpty()) {
             throw new InvalidRequestException(validated.verifyErrors());
         }
         RobustnessReport checked = null;
         if (validated.verify() != null) {
             ClosedFormDesign closedForm = report.design();
-            checked = robustness.check(design.plant(), gains(closedForm), design.stepSize(), limits(design),
-                    closedForm.rho1(), closedForm.rho2(), gamma(closedForm), validated.verify().options(),
+            checked = robustness.check(
+                    design.plant(),
+                    gains(closedForm),
+                    design.stepSize(),
+                    limits(design),
+                    closedForm.rho1(),
+                    closedForm.rho2(),
+                    gamma(closedForm),
+                    validated.verify().options(),
                     validated.verify().toleranceFraction());
         }
-        StateSpaceDesign callerCoordinates = designs.callerCoordinates(design.resolvedPlant().source(),
-                report.design());
+        StateSpaceDesign callerCoordinates =
+                designs.callerCoordinates(design.resolvedPlant().source(), report.design());
         return new Result(report, callerCoordinates, checked);
     }
 
@@ -103,23 +110,29 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
         if (result.robustness() != null) {
             ClosedFormDesign closedForm = result.report().design();
             ValidatedVerify verify = validated.verify();
-            robustnessResponse = robustnessResponses.toResponse(result.robustness(), limits(validated.design()),
-                    100 * verify.toleranceFraction(), validated.design().stepSize(), WEIGHTED_OUTPUT,
-                    gamma(closedForm), verify.options().seriesPoints());
+            robustnessResponse = robustnessResponses.toResponse(
+                    result.robustness(),
+                    limits(validated.design()),
+                    100 * verify.toleranceFraction(),
+                    validated.design().stepSize(),
+                    WEIGHTED_OUTPUT,
+                    gamma(closedForm),
+                    verify.options().seriesPoints());
         }
-        return responses.toResponse(validated.design(), result.report(), result.callerCoordinates(),
-                robustnessResponse);
+        return responses.toResponse(
+                validated.design(), result.report(), result.callerCoordinates(), robustnessResponse);
     }
 
     @Override
     public Problem nonFinite(String pointer) {
-        return FailureTable.unverifiable("the design's " + (pointer.isEmpty() ? "result" : pointer)
-                + " is outside double precision");
+        return FailureTable.unverifiable(
+                "the design's " + (pointer.isEmpty() ? "result" : pointer) + " is outside double precision");
     }
 
     @Override
     public FailureContext failureContext(Validated validated) {
-        return validated == null ? FailureContext.ROOT
+        return validated == null
+                ? FailureContext.ROOT
                 : FailureContext.ROOT.withTimeSpec(validated.design().timeSpecPointer());
     }
 
@@ -135,8 +148,10 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     /** The spec as given, in the verifier's terms (the tolerance widens it before judging). */
     private static AcceptanceLimits limits(ValidatedDesign design) {
         TimeSpec timeSpec = design.spec().timeSpec();
-        return new AcceptanceLimits(timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
+        return new AcceptanceLimits(
+                timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
                 timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
-                100 * design.spec().overshootFraction(), design.bandFraction());
+                100 * design.spec().overshootFraction(),
+                design.bandFraction());
     }
 }

@@ -4,8 +4,6 @@ import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.robustness.VerifyInput;
 import com.loopwright.api.validation.SpecInput;
 
-import com.loopwright.api.plant.PlantInput;
-
 /**
  * Body of POST /v1/designs.
  *

@@ -42,8 +42,13 @@ public final class DesignRequestValidator {
             errors.add(new FieldError("/spec", "required"));
             throw new InvalidRequestException(errors);
         }
-        Checks.range(errors, "/spec/overshootPercent", spec.overshootPercent(), MIN_OVERSHOOT_PERCENT,
-                MAX_OVERSHOOT_PERCENT, true);
+        Checks.range(
+                errors,
+                "/spec/overshootPercent",
+                spec.overshootPercent(),
+                MIN_OVERSHOOT_PERCENT,
+                MAX_OVERSHOOT_PERCENT,
+                true);
         boolean settling = spec.settlingTime() != null;
         boolean rise = spec.riseTime() != null;
         if (settling && rise) {
@@ -53,32 +58,40 @@ public final class DesignRequestValidator {
         }
         Checks.range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
         Checks.range(errors, "/spec/riseTime", spec.riseTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, false);
-        Checks.range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT,
+        Checks.range(
+                errors,
+                "/spec/settlingBandPercent",
+                spec.settlingBandPercent(),
+                MIN_BAND_PERCENT,
+                MAX_BAND_PERCENT,
                 false);
         if (spec.gamma() != null && spec.gammaMargin() != null) {
             errors.add(new FieldError("/spec/gammaMargin", "give either gamma or gammaMargin, not both"));
         }
         Checks.positive(errors, "/spec/gamma", spec.gamma(), MAX_GAMMA);
         if (spec.gammaMargin() != null && !(spec.gammaMargin() > 1 && spec.gammaMargin() <= MAX_GAMMA_MARGIN)) {
-            errors.add(new FieldError("/spec/gammaMargin", "must be above 1 and at most " + Checks.fmt(MAX_GAMMA_MARGIN)));
+            errors.add(
+                    new FieldError("/spec/gammaMargin", "must be above 1 and at most " + Checks.fmt(MAX_GAMMA_MARGIN)));
         }
         Checks.magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
         double band = (spec.settlingBandPercent() == null ? DEFAULT_BAND_PERCENT : spec.settlingBandPercent()) / 100;
-        TimeSpec timeSpec = settling ? new TimeSpec.SettlingTime(spec.settlingTime(), band)
+        TimeSpec timeSpec = settling
+                ? new TimeSpec.SettlingTime(spec.settlingTime(), band)
                 : new TimeSpec.RiseTime(spec.riseTime());
-        GammaChoice gamma = spec.gamma() != null ? new GammaChoice.Fixed(spec.gamma())
-                : new GammaChoice.MarginOverMinimum(spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN
-                        : spec.gammaMargin());
-        return new ValidatedDesign(resolved.canonical(),
-                new DesignSpec(spec.overshootPercent() / 100, timeSpec), gamma,
-                spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(), band,
-                settling ? "/spec/settlingTime" : "/spec/riseTime", resolved);
+        GammaChoice gamma = spec.gamma() != null
+                ? new GammaChoice.Fixed(spec.gamma())
+                : new GammaChoice.MarginOverMinimum(
+                        spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN : spec.gammaMargin());
+        return new ValidatedDesign(
+                resolved.canonical(),
+                new DesignSpec(spec.overshootPercent() / 100, timeSpec),
+                gamma,
+                spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(),
+                band,
+                settling ? "/spec/settlingTime" : "/spec/riseTime",
+                resolved);
     }
-
-
-
-
 }

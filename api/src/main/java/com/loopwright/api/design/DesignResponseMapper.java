@@ -21,8 +21,11 @@ public final class DesignResponseMapper {
      *                          as a state space)
      * @param robustness        the robustness section (null when the request did not ask for it)
      */
-    public DesignResponse toResponse(ValidatedDesign request, DesignReport report, StateSpaceDesign callerCoordinates,
-                                     com.loopwright.api.robustness.RobustnessResponse robustness) {
+    public DesignResponse toResponse(
+            ValidatedDesign request,
+            DesignReport report,
+            StateSpaceDesign callerCoordinates,
+            com.loopwright.api.robustness.RobustnessResponse robustness) {
         ClosedFormDesign design = report.design();
         Verification verification = report.verification();
         TargetDynamics target = design.target();
@@ -30,33 +33,62 @@ public final class DesignResponseMapper {
         StepMetrics metrics = report.stepMetrics();
         String timeSpecName = request.timeSpecPointer().substring("/spec/".length());
         return new DesignResponse(
-                new DesignResponse.Plant(design.plant().a0(), design.plant().a1(), design.plant().b(),
+                new DesignResponse.Plant(
+                        design.plant().a0(),
+                        design.plant().a1(),
+                        design.plant().b(),
                         design.plant().d()),
-                new DesignResponse.Target(target.dampingRatio(), target.naturalFrequencyRadPerSec(),
-                        target.poles().stream().map(p -> new DesignResponse.PoleView(p.re(), p.im())).toList(),
+                new DesignResponse.Target(
+                        target.dampingRatio(),
+                        target.naturalFrequencyRadPerSec(),
+                        target.poles().stream()
+                                .map(p -> new DesignResponse.PoleView(p.re(), p.im()))
+                                .toList(),
                         report.inversion().handbookNaturalFrequencyRadPerSec(),
                         List.of("overshootPercent", timeSpecName)),
-                new DesignResponse.Riccati(design.p11(), design.p12(), design.p22(),
+                new DesignResponse.Riccati(
+                        design.p11(),
+                        design.p12(),
+                        design.p22(),
                         verification.closedFormResidual(),
-                        new DesignResponse.NumericRiccati(numeric.p11(), numeric.p12(), numeric.p22(),
-                                numeric.relativeResidual(), numeric.relativeDifference(), numeric.iterations())),
+                        new DesignResponse.NumericRiccati(
+                                numeric.p11(),
+                                numeric.p12(),
+                                numeric.p22(),
+                                numeric.relativeResidual(),
+                                numeric.relativeDifference(),
+                                numeric.iterations())),
                 gammaBounds(design),
                 design.gammaMin(),
                 design.gamma(),
                 new DesignResponse.Weights(design.rho1(), design.rho2()),
-                new DesignResponse.Gain(design.positionGain(), design.velocityGain(), design.referenceGain(),
+                new DesignResponse.Gain(
+                        design.positionGain(),
+                        design.velocityGain(),
+                        design.referenceGain(),
                         "u = kr*r - (k1*x1 + k2*x2)"),
-                new DesignResponse.Simulated(metrics.riseTimeSeconds(), metrics.settlingTimeSeconds(),
-                        metrics.overshootPercent(), metrics.peakTimeSeconds(), metrics.steadyStateError(),
-                        metrics.peakControl(), report.stepSize(), 100 * report.bandFraction(),
-                        report.horizonSeconds(), report.samples()),
-                new DesignResponse.Verification(verification.hinfNorm().value(),
-                        verification.hinfNorm().peakFrequencyRadPerSec(), verification.certified(),
+                new DesignResponse.Simulated(
+                        metrics.riseTimeSeconds(),
+                        metrics.settlingTimeSeconds(),
+                        metrics.overshootPercent(),
+                        metrics.peakTimeSeconds(),
+                        metrics.steadyStateError(),
+                        metrics.peakControl(),
+                        report.stepSize(),
+                        100 * report.bandFraction(),
+                        report.horizonSeconds(),
+                        report.samples()),
+                new DesignResponse.Verification(
+                        verification.hinfNorm().value(),
+                        verification.hinfNorm().peakFrequencyRadPerSec(),
+                        verification.certified(),
                         design.positionPerDisturbanceBound().isPresent()
-                                ? design.positionPerDisturbanceBound().getAsDouble() : null,
+                                ? design.positionPerDisturbanceBound().getAsDouble()
+                                : null,
                         verification.specsMet(),
-                        verification.specChecks().stream().map(c -> new DesignResponse.SpecCheck(c.spec(),
-                                c.requested(), c.simulated(), c.met())).toList()),
+                        verification.specChecks().stream()
+                                .map(c -> new DesignResponse.SpecCheck(c.spec(), c.requested(), c.simulated(), c.met()))
+                                .toList()),
                 notes(report, ModelMapper.conditionNote(request.resolvedPlant())),
                 Cautions.ALL,
                 ModelMapper.toModel(request.resolvedPlant(), design, callerCoordinates),
@@ -73,13 +105,18 @@ public final class DesignResponseMapper {
             case STABILIZING_DAMPING -> "stabilizingDamping";
             case STABILIZING_STIFFNESS -> "stabilizingStiffness";
             case WEIGHT_REAL, STABILIZING, INPUT_GAIN, SOLUTION_BRANCH_END ->
-                    throw new IllegalArgumentException(condition + " is not a closed-form condition");
+                throw new IllegalArgumentException(condition + " is not a closed-form condition");
         };
     }
 
     private static List<DesignResponse.GammaBoundView> gammaBounds(ClosedFormDesign design) {
-        return design.gammaBounds().stream().map(b -> new DesignResponse.GammaBoundView(wireName(b.condition()),
-                b.gammaLowerBound(), b.condition().meaning(), b.binding())).toList();
+        return design.gammaBounds().stream()
+                .map(b -> new DesignResponse.GammaBoundView(
+                        wireName(b.condition()),
+                        b.gammaLowerBound(),
+                        b.condition().meaning(),
+                        b.binding()))
+                .toList();
     }
 
     private static List<String> notes(DesignReport report, String conditionNote) {
@@ -88,9 +125,12 @@ public final class DesignResponseMapper {
         List<String> notes = new ArrayList<>();
         double exactWn = design.target().naturalFrequencyRadPerSec();
         double handbookWn = inversion.handbookNaturalFrequencyRadPerSec();
-        notes.add(String.format(Locale.US,
-                "Exact inversion gives wn = %.6g rad/s; the handbook rule would give %.6g rad/s"
-                + " (%+.1f%%).", exactWn, handbookWn, 100 * (handbookWn - exactWn) / exactWn));
+        notes.add(String.format(
+                Locale.US,
+                "Exact inversion gives wn = %.6g rad/s; the handbook rule would give %.6g rad/s" + " (%+.1f%%).",
+                exactWn,
+                handbookWn,
+                100 * (handbookWn - exactWn) / exactWn));
         if (inversion.nearBandTouch()) {
             notes.add("A peak of the step response lies within 5% of the settling band edge: the settling time"
                     + " jumps for small changes in damping, so expect it to be sensitive to model error.");
@@ -98,8 +138,11 @@ public final class DesignResponseMapper {
         if (design.plant().d() == 0) {
             notes.add("The plant has no disturbance input (d = 0): gamma is free and the bound is trivial.");
         } else {
-            design.positionCertificateBestGamma().ifPresent(best -> notes.add(String.format(Locale.US,
-                    "gamma = %.6g minimizes the disturbance-to-position bound gamma/rho1 for this spec.", best)));
+            design.positionCertificateBestGamma()
+                    .ifPresent(best -> notes.add(String.format(
+                            Locale.US,
+                            "gamma = %.6g minimizes the disturbance-to-position bound gamma/rho1 for this spec.",
+                            best)));
         }
         if (conditionNote != null) {
             notes.add(conditionNote);

@@ -17,19 +17,28 @@ import org.ejml.data.DMatrixRMaj;
  */
 final class ModelMapper {
 
-    private ModelMapper() {
-    }
+    private ModelMapper() {}
 
-    static DesignResponse.Model toModel(ResolvedPlant resolved, ClosedFormDesign design,
-                                       StateSpaceDesign callerCoordinates) {
+    static DesignResponse.Model toModel(
+            ResolvedPlant resolved, ClosedFormDesign design, StateSpaceDesign callerCoordinates) {
         CanonicalPlant plant = resolved.canonical();
         DesignResponse.Plant canonical = new DesignResponse.Plant(plant.a0(), plant.a1(), plant.b(), plant.d());
         PlantNotation notation = resolved.notation();
         PlantNotation.LawTerms law = notation.law();
-        return new DesignResponse.Model(resolved.form().wireName(), canonical, units(notation.x1(), notation.x2(),
-                notation.command(), notation.disturbance(), notation.x1Short()), resolved.assumptions(),
-                law == null ? null : physicalLaw(design, law.command(), law.commandUnit(), law.position(),
-                        law.positionUnit(), law.feedforwardMeaning()),
+        return new DesignResponse.Model(
+                resolved.form().wireName(),
+                canonical,
+                units(notation.x1(), notation.x2(), notation.command(), notation.disturbance(), notation.x1Short()),
+                resolved.assumptions(),
+                law == null
+                        ? null
+                        : physicalLaw(
+                                design,
+                                law.command(),
+                                law.commandUnit(),
+                                law.position(),
+                                law.positionUnit(),
+                                law.feedforwardMeaning()),
                 callerCoordinates == null ? null : stateSpace(callerCoordinates));
     }
 
@@ -42,28 +51,53 @@ final class ModelMapper {
             return null;
         }
         double condition = model.controllabilityCondition();
-        return String.format(Locale.US, "The controllability matrix [B2, A B2] has condition number %.3g (above %.0e):"
-                + " the results in your coordinates (model.stateSpace) may have lost up to %.0f of their about 16"
-                + " significant digits; B2 is nearly an eigenvector of A. Rescale the states or check the model.",
-                condition, TwoStateModel.CONDITION_NOTE_THRESHOLD, Math.ceil(Math.log10(condition)));
+        return String.format(
+                Locale.US,
+                "The controllability matrix [B2, A B2] has condition number %.3g (above %.0e):"
+                        + " the results in your coordinates (model.stateSpace) may have lost up to %.0f of their about 16"
+                        + " significant digits; B2 is nearly an eigenvector of A. Rescale the states or check the model.",
+                condition,
+                TwoStateModel.CONDITION_NOTE_THRESHOLD,
+                Math.ceil(Math.log10(condition)));
     }
 
     private static DesignResponse.Units units(String x1, String x2, String u, String w, String x1Short) {
-        return new DesignResponse.Units(x1, x2, u, w, "1/s^2", "1/s", x1Short + "/(s^2 " + u + ")",
-                x1Short + "/(s^2 " + w + ")");
+        return new DesignResponse.Units(
+                x1, x2, u, w, "1/s^2", "1/s", x1Short + "/(s^2 " + u + ")", x1Short + "/(s^2 " + w + ")");
     }
 
-    private static DesignResponse.PhysicalLaw physicalLaw(ClosedFormDesign design, String command,
-                                                          String commandUnit, String position,
-                                                          String positionUnit, String meaning) {
+    private static DesignResponse.PhysicalLaw physicalLaw(
+            ClosedFormDesign design,
+            String command,
+            String commandUnit,
+            String position,
+            String positionUnit,
+            String meaning) {
         double k1 = design.positionGain();
         double k2 = design.velocityGain();
         double kr = design.referenceGain();
         double feedforward = design.plant().a0() / design.plant().b();
-        String law = String.format(Locale.US, "%s [%s] = %.6g*(r - %s) - %.6g*%s' + %.6g*r, with %s and r in %s",
-                command, commandUnit, k1, position, k2, position, feedforward, position, positionUnit);
-        return new DesignResponse.PhysicalLaw(law, k1, commandUnit + "/" + positionUnit, k2,
-                commandUnit + " s/" + positionUnit, kr, feedforward, commandUnit + "/" + positionUnit,
+        String law = String.format(
+                Locale.US,
+                "%s [%s] = %.6g*(r - %s) - %.6g*%s' + %.6g*r, with %s and r in %s",
+                command,
+                commandUnit,
+                k1,
+                position,
+                k2,
+                position,
+                feedforward,
+                position,
+                positionUnit);
+        return new DesignResponse.PhysicalLaw(
+                law,
+                k1,
+                commandUnit + "/" + positionUnit,
+                k2,
+                commandUnit + " s/" + positionUnit,
+                kr,
+                feedforward,
+                commandUnit + "/" + positionUnit,
                 "setpointFeedforward = a0/b = referenceGain - positionGain: " + meaning);
     }
 
@@ -71,14 +105,29 @@ final class ModelMapper {
     private static DesignResponse.StateSpaceView stateSpace(StateSpaceDesign view) {
         DMatrixRMaj gain = view.gain();
         DMatrixRMaj output = view.trackedOutput();
-        String law = String.format(Locale.US, "u = %.6g*r - (%.6g*x1 + %.6g*x2), tracking y = %.6g*x1 + (%.6g)*x2",
-                view.referenceGain(), gain.get(0), gain.get(1), output.get(0), output.get(1));
-        return new DesignResponse.StateSpaceView("transform maps canonical to caller coordinates (x = T z);"
-                + " p, gain, stateWeight and trackedOutput are in the caller's coordinates x; the riccati and gain"
-                + " sections of the response are in the canonical coordinates z", rows(view.transform()),
-                rows(view.p()), row(gain), rows(view.stateWeight()), row(output), view.referenceGain(),
-                view.relativeResidual(), view.closedLoopPoles().stream()
-                        .map(p -> new DesignResponse.PoleView(p.re(), p.im())).toList(), law,
+        String law = String.format(
+                Locale.US,
+                "u = %.6g*r - (%.6g*x1 + %.6g*x2), tracking y = %.6g*x1 + (%.6g)*x2",
+                view.referenceGain(),
+                gain.get(0),
+                gain.get(1),
+                output.get(0),
+                output.get(1));
+        return new DesignResponse.StateSpaceView(
+                "transform maps canonical to caller coordinates (x = T z);"
+                        + " p, gain, stateWeight and trackedOutput are in the caller's coordinates x; the riccati and gain"
+                        + " sections of the response are in the canonical coordinates z",
+                rows(view.transform()),
+                rows(view.p()),
+                row(gain),
+                rows(view.stateWeight()),
+                row(output),
+                view.referenceGain(),
+                view.relativeResidual(),
+                view.closedLoopPoles().stream()
+                        .map(p -> new DesignResponse.PoleView(p.re(), p.im()))
+                        .toList(),
+                law,
                 view.controllabilityCondition());
     }
 

@@ -16,8 +16,14 @@ import com.loopwright.solver.spec.DesignSpec;
  * @param timeSpecPointer  JSON pointer of the time spec the caller gave (settlingTime or riseTime)
  * @param resolvedPlant    the caller's plant description and its conversion (canonical when not given)
  */
-public record ValidatedDesign(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
-                              double bandFraction, String timeSpecPointer, ResolvedPlant resolvedPlant) {
+public record ValidatedDesign(
+        CanonicalPlant plant,
+        DesignSpec spec,
+        GammaChoice gammaChoice,
+        double stepSize,
+        double bandFraction,
+        String timeSpecPointer,
+        ResolvedPlant resolvedPlant) {
 
     public ValidatedDesign {
         if (resolvedPlant == null) {
@@ -26,8 +32,13 @@ public record ValidatedDesign(CanonicalPlant plant, DesignSpec spec, GammaChoice
     }
 
     /** A design of the canonical coefficients, without another plant description. */
-    public ValidatedDesign(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
-                           double bandFraction, String timeSpecPointer) {
+    public ValidatedDesign(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction,
+            String timeSpecPointer) {
         this(plant, spec, gammaChoice, stepSize, bandFraction, timeSpecPointer, null);
     }
 }

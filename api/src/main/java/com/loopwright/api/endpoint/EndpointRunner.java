@@ -1,12 +1,12 @@
 package com.loopwright.api.endpoint;
 
-import com.loopwright.api.validation.InvalidRequestException;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.json.FiniteNumbersModule;
 import com.loopwright.api.json.NonFiniteNumberException;
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.PlantParameterException;
 import java.io.IOException;

@@ -8,8 +8,7 @@ package com.loopwright.api.endpoint;
  * @param verifyPointer       pointer of the verify object (cap-exceeded checks point inside it)
  * @param unstableLoopPointer pointer blamed for an unstable loop
  */
-public record FailureContext(String prefix, String timeSpecPointer, String verifyPointer,
-                             String unstableLoopPointer) {
+public record FailureContext(String prefix, String timeSpecPointer, String verifyPointer, String unstableLoopPointer) {
 
     /** A request at the root with a settling-time spec. */
     public static final FailureContext ROOT = new FailureContext("", "/spec/settlingTime", "/verify", "/gain");

@@ -1,10 +1,10 @@
 package com.loopwright.api.endpoint;
 
-import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.api.problem.Proposal;
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.SpecQuantity;
 import com.loopwright.solver.pipeline.SolverFailure;
@@ -23,8 +23,7 @@ public final class FailureTable {
     private static final String SAMPLE_PERIOD_POINTER = "/samplePeriodSeconds";
     private static final String COMMAND_LIMIT_POINTER = "/commandLimit";
 
-    private FailureTable() {
-    }
+    private FailureTable() {}
 
     /**
      * The problem of a failure an endpoint step raised: an InvalidRequestException, a PlantParameterException
@@ -53,8 +52,11 @@ public final class FailureTable {
 
     /** A result that cannot be computed or written in double precision, with the advice to rescale. */
     public static Problem unverifiable(String detail) {
-        return ProblemType.UNVERIFIABLE_DESIGN.problem(detail + ". Rescale the plant units (for example"
-                + " millimetres instead of metres) so that the coefficients are nearer 1.", List.of(), List.of());
+        return ProblemType.UNVERIFIABLE_DESIGN.problem(
+                detail + ". Rescale the plant units (for example"
+                        + " millimetres instead of metres) so that the coefficients are nearer 1.",
+                List.of(),
+                List.of());
     }
 
     private static Problem solverProblem(SolverFailure failure, FailureContext context) {
@@ -67,14 +69,21 @@ public final class FailureTable {
             case UNVERIFIABLE -> unverifiable(message);
             case LOOP_NOT_SIMULABLE -> unverifiable("the closed loop could not be simulated or checked: " + message);
             case FIGURE_NOT_COMPUTABLE -> unverifiable("the figure could not be drawn: " + message);
-            case CHECK_NOT_COMPUTABLE -> ProblemType.UNVERIFIABLE_DESIGN.problem("a robustness check could not be"
-                    + " computed in double precision: " + message, List.of(), List.of());
+            case CHECK_NOT_COMPUTABLE ->
+                ProblemType.UNVERIFIABLE_DESIGN.problem(
+                        "a robustness check could not be" + " computed in double precision: " + message,
+                        List.of(),
+                        List.of());
             case CAP_EXCEEDED -> at(ProblemType.CAP_EXCEEDED, capPointer(failure, context), message);
             case UNSTABLE_LOOP -> at(ProblemType.UNSTABLE_LOOP, context.unstableLoopPointer(), message);
             case FIT_FAILED -> at(ProblemType.FIT_FAILED, FIT_POINTER, message);
-            case SAMPLED_LAW_INFEASIBLE -> at(ProblemType.INFEASIBLE_SPEC,
-                    SolverFailure.SAMPLE_PERIOD.equals(failure.subject()) ? SAMPLE_PERIOD_POINTER
-                            : COMMAND_LIMIT_POINTER, message);
+            case SAMPLED_LAW_INFEASIBLE ->
+                at(
+                        ProblemType.INFEASIBLE_SPEC,
+                        SolverFailure.SAMPLE_PERIOD.equals(failure.subject())
+                                ? SAMPLE_PERIOD_POINTER
+                                : COMMAND_LIMIT_POINTER,
+                        message);
         };
     }
 
@@ -97,19 +106,19 @@ public final class FailureTable {
     /** A plant description that is well-formed but not physical or not usable (422). */
     private static Problem plantModel(String parameter, String message, FailureContext context) {
         String pointer = parameter.isEmpty() ? "/plant" : "/plant/" + parameter;
-        return ProblemType.PLANT_MODEL_UNUSABLE.problem(pointer + ": " + message,
-                List.of(new FieldError(context.prefix() + pointer, message)), List.of());
+        return ProblemType.PLANT_MODEL_UNUSABLE.problem(
+                pointer + ": " + message, List.of(new FieldError(context.prefix() + pointer, message)), List.of());
     }
 
     private static Problem infeasible(Infeasibility infeasibility, FailureContext context) {
         String prefix = context.prefix();
         String pointer = pointerOf(infeasibility.quantity(), context.timeSpecPointer());
         List<Proposal> proposals = infeasibility.proposals().stream()
-                .map(p -> new Proposal(prefix + pointerOf(p.quantity(), context.timeSpecPointer()), p.value(),
-                        p.note()))
+                .map(p ->
+                        new Proposal(prefix + pointerOf(p.quantity(), context.timeSpecPointer()), p.value(), p.note()))
                 .toList();
-        return ProblemType.INFEASIBLE_SPEC.problem(infeasibility.reason(),
-                List.of(new FieldError(prefix + pointer, infeasibility.reason())), proposals);
+        return ProblemType.INFEASIBLE_SPEC.problem(
+                infeasibility.reason(), List.of(new FieldError(prefix + pointer, infeasibility.reason())), proposals);
     }
 
     private static String pointerOf(SpecQuantity quantity, String timeSpecPointer) {

@@ -40,8 +40,8 @@ public final class Reply {
 
     /** A 200 body the runner has just written and nobody else holds. */
     static Reply owning(String mediaType, byte[] body) {
-        return new Reply(200, Objects.requireNonNull(mediaType, "mediaType"), Objects.requireNonNull(body, "body"),
-                null);
+        return new Reply(
+                200, Objects.requireNonNull(mediaType, "mediaType"), Objects.requireNonNull(body, "body"), null);
     }
 
     public static Reply failure(Problem problem) {
@@ -96,8 +96,11 @@ public final class Reply {
 
     @Override
     public boolean equals(Object other) {
-        return other instanceof Reply o && status == o.status && Objects.equals(mediaType, o.mediaType)
-                && Arrays.equals(body, o.body) && Objects.equals(problem, o.problem);
+        return other instanceof Reply o
+                && status == o.status
+                && Objects.equals(mediaType, o.mediaType)
+                && Arrays.equals(body, o.body)
+                && Objects.equals(problem, o.problem);
     }
 
     @Override

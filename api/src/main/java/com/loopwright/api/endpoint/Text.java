@@ -6,5 +6,4 @@ package com.loopwright.api.endpoint;
  * @param mediaType the media type of the body
  * @param content   the text
  */
-public record Text(String mediaType, String content) {
-}
+public record Text(String mediaType, String content) {}

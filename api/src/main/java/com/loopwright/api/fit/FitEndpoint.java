@@ -39,7 +39,9 @@ public final class FitEndpoint implements Endpoint<FitRequest, ValidatedFit, Ste
 
     @Override
     public Problem nonFinite(String pointer) {
-        return ProblemType.FIT_FAILED.problem("the fitted " + pointer + " is outside double precision; rescale the"
-                + " samples", List.of(new FieldError(OUTPUT_POINTER, "outside double precision")), List.of());
+        return ProblemType.FIT_FAILED.problem(
+                "the fitted " + pointer + " is outside double precision; rescale the" + " samples",
+                List.of(new FieldError(OUTPUT_POINTER, "outside double precision")),
+                List.of());
     }
 }

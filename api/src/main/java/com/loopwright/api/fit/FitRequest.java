@@ -9,6 +9,9 @@ package com.loopwright.api.fit;
  * @param estimateDeadTime      fit a dead time; default false
  * @param estimateInitialOffset fit the output's value before the step; default true
  */
-public record FitRequest(SamplesInput samples, Double stepTime, Double stepAmplitude, Boolean estimateDeadTime,
-                         Boolean estimateInitialOffset) {
-}
+public record FitRequest(
+        SamplesInput samples,
+        Double stepTime,
+        Double stepAmplitude,
+        Boolean estimateDeadTime,
+        Boolean estimateInitialOffset) {}

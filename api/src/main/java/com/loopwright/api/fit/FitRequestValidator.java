@@ -24,8 +24,8 @@ public final class FitRequestValidator {
         SamplesInput samples = request.samples();
         double[] time = array(errors, "/samples/time", samples.time(), MAX_ABS_TIME_SECONDS);
         double[] output = array(errors, "/samples/output", samples.output(), MAX_ABS_SIGNAL);
-        double[] input = samples.input() == null ? null
-                : array(errors, "/samples/input", samples.input(), MAX_ABS_SIGNAL);
+        double[] input =
+                samples.input() == null ? null : array(errors, "/samples/input", samples.input(), MAX_ABS_SIGNAL);
         if (time != null) {
             for (int i = 1; i < time.length; i++) {
                 if (!(time[i] > time[i - 1])) {
@@ -44,8 +44,7 @@ public final class FitRequestValidator {
             errors.add(new FieldError("/stepAmplitude", "give either samples.input or stepAmplitude, not both"));
         }
         Checks.magnitude(errors, "/stepTime", request.stepTime(), 0, MAX_ABS_TIME_SECONDS, false);
-        Checks.magnitude(errors, "/stepAmplitude", request.stepAmplitude(), Double.MIN_NORMAL, MAX_ABS_SIGNAL,
-                false);
+        Checks.magnitude(errors, "/stepAmplitude", request.stepAmplitude(), Double.MIN_NORMAL, MAX_ABS_SIGNAL, false);
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
@@ -62,8 +61,8 @@ public final class FitRequestValidator {
             }
             amplitude = last - initial;
             if (amplitude == 0 || Math.abs(amplitude) < 1e-12 * Math.max(Math.abs(initial), Math.abs(last))) {
-                throw new InvalidRequestException(List.of(new FieldError("/samples/input",
-                        "the logged input does not step: its final value equals its initial value")));
+                throw new InvalidRequestException(List.of(new FieldError(
+                        "/samples/input", "the logged input does not step: its final value equals its initial value")));
             }
             int stepIndex = 0;
             while (stepIndex < input.length && Math.abs(input[stepIndex] - initial) < 0.5 * Math.abs(amplitude)) {
@@ -80,19 +79,22 @@ public final class FitRequestValidator {
                 worst = Math.max(worst, Math.abs(input[i] - initial));
             }
             if (worst > CLEAN_STEP_TOLERANCE * Math.abs(amplitude)) {
-                notes.add(String.format("The logged input is not a clean step (it strays %.0f%% of the step from"
-                        + " its levels); the fit assumes an ideal step of %.6g at t = %.6g s.",
+                notes.add(String.format(
+                        "The logged input is not a clean step (it strays %.0f%% of the step from"
+                                + " its levels); the fit assumes an ideal step of %.6g at t = %.6g s.",
                         100 * worst / Math.abs(amplitude), amplitude, stepTime));
             }
             source = "input";
         }
         // The step must come before the last sample, or there is no response to fit.
         if (!(stepTime < time[time.length - 1])) {
-            throw new InvalidRequestException(List.of(new FieldError(request.stepTime() != null ? "/stepTime"
-                    : "/samples/time", "the step at t = " + stepTime + " s is not before the last sample (t = "
-                    + time[time.length - 1] + " s): the record holds no response")));
+            throw new InvalidRequestException(List.of(new FieldError(
+                    request.stepTime() != null ? "/stepTime" : "/samples/time",
+                    "the step at t = " + stepTime + " s is not before the last sample (t = " + time[time.length - 1]
+                            + " s): the record holds no response")));
         }
-        FitOptions options = new FitOptions(Boolean.TRUE.equals(request.estimateDeadTime()),
+        FitOptions options = new FitOptions(
+                Boolean.TRUE.equals(request.estimateDeadTime()),
                 request.estimateInitialOffset() == null || request.estimateInitialOffset());
         return new ValidatedFit(new StepTestData(time, output, stepTime, amplitude), options, source, notes);
     }
@@ -111,8 +113,8 @@ public final class FitRequestValidator {
         for (int i = 0; i < out.length; i++) {
             Double value = values.get(i);
             if (value == null || !Double.isFinite(value) || Math.abs(value) > maxAbs) {
-                errors.add(new FieldError(pointer + "/" + i, "must be a finite number of magnitude at most "
-                        + Checks.fmt(maxAbs)));
+                errors.add(new FieldError(
+                        pointer + "/" + i, "must be a finite number of magnitude at most " + Checks.fmt(maxAbs)));
                 return null;
             }
             out[i] = value;

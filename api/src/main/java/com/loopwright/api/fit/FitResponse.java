@@ -15,9 +15,16 @@ import java.util.List;
  * @param quality    fit quality
  * @param warnings   findings that limit what the model can be trusted for
  */
-public record FitResponse(FittedPlant plant, List<ParameterView> parameters, double deadTime,
-                          double initialOffset, StepView step, Quality quality, List<WarningView> warnings,
-                          List<String> notes, List<String> cautions) {
+public record FitResponse(
+        FittedPlant plant,
+        List<ParameterView> parameters,
+        double deadTime,
+        double initialOffset,
+        StepView step,
+        Quality quality,
+        List<WarningView> warnings,
+        List<String> notes,
+        List<String> cautions) {
 
     public FitResponse {
         parameters = List.copyOf(parameters);
@@ -27,8 +34,7 @@ public record FitResponse(FittedPlant plant, List<ParameterView> parameters, dou
     }
 
     /** A secondOrderTransferFunction plant: gain wn^2/(s^2 + 2 zeta wn s + wn^2). */
-    public record FittedPlant(String form, double gain, double naturalFrequency, double dampingRatio) {
-    }
+    public record FittedPlant(String form, double gain, double naturalFrequency, double dampingRatio) {}
 
     /**
      * standardError, lower95 and upper95 are absent when the data do not determine the parameter (J'J singular
@@ -38,15 +44,13 @@ public record FitResponse(FittedPlant plant, List<ParameterView> parameters, dou
      * @param upper95 estimate + t_{0.975, n-p} standardError, at most the highest value the fit may give it
      */
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record ParameterView(String name, double estimate, Double standardError, Double lower95,
-                                Double upper95, String unit) {
-    }
+    public record ParameterView(
+            String name, double estimate, Double standardError, Double lower95, Double upper95, String unit) {}
 
     /**
      * @param source "input" (read from samples.input), "request" (stepTime/stepAmplitude) or "default" (0 and 1)
      */
-    public record StepView(double time, double amplitude, String source) {
-    }
+    public record StepView(double time, double amplitude, String source) {}
 
     /**
      * @param rmsError         root-mean-square residual [output units]
@@ -54,10 +58,8 @@ public record FitResponse(FittedPlant plant, List<ParameterView> parameters, dou
      * @param samples          n
      * @param degreesOfFreedom n - p
      */
-    public record Quality(double rmsError, double rSquared, int samples, int degreesOfFreedom, int iterations,
-                          int evaluations) {
-    }
+    public record Quality(
+            double rmsError, double rSquared, int samples, int degreesOfFreedom, int iterations, int evaluations) {}
 
-    public record WarningView(String code, String message) {
-    }
+    public record WarningView(String code, String message) {}
 }

@@ -12,18 +12,29 @@ import java.util.List;
 public final class FitResponseMapper {
 
     public FitResponse toResponse(ValidatedFit request, StepFit fit) {
-        List<FitResponse.ParameterView> parameters = fit.parameters().stream().map(FitResponseMapper::view).toList();
+        List<FitResponse.ParameterView> parameters =
+                fit.parameters().stream().map(FitResponseMapper::view).toList();
         List<String> notes = new ArrayList<>(request.notes());
         notes.add("plant is the fitted model as a secondOrderTransferFunction: pass it as the plant of POST"
                 + " /v1/designs. The disturbance is then assumed to enter at the plant input.");
         return new FitResponse(
-                new FitResponse.FittedPlant(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION.wireName(), fit.gain(),
-                        fit.naturalFrequency(), fit.dampingRatio()),
-                parameters, fit.deadTimeSeconds(), fit.initialOffset(),
-                new FitResponse.StepView(request.data().stepTimeSeconds(), request.data().stepAmplitude(),
-                        request.stepSource()),
-                new FitResponse.Quality(fit.rmsError(), fit.rSquared(), request.data().timeSeconds().length,
-                        fit.degreesOfFreedom(), fit.iterations(), fit.evaluations()),
+                new FitResponse.FittedPlant(
+                        PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION.wireName(),
+                        fit.gain(),
+                        fit.naturalFrequency(),
+                        fit.dampingRatio()),
+                parameters,
+                fit.deadTimeSeconds(),
+                fit.initialOffset(),
+                new FitResponse.StepView(
+                        request.data().stepTimeSeconds(), request.data().stepAmplitude(), request.stepSource()),
+                new FitResponse.Quality(
+                        fit.rmsError(),
+                        fit.rSquared(),
+                        request.data().timeSeconds().length,
+                        fit.degreesOfFreedom(),
+                        fit.iterations(),
+                        fit.evaluations()),
                 fit.warnings().stream().map(FitResponseMapper::view).toList(),
                 notes,
                 Cautions.ALL);
@@ -39,8 +50,8 @@ public final class FitResponseMapper {
         };
         // A parameter the data do not determine has no standard error and no interval to report.
         return p.determined()
-                ? new FitResponse.ParameterView(p.name(), p.estimate(), p.standardError(), p.lower95(), p.upper95(),
-                        unit)
+                ? new FitResponse.ParameterView(
+                        p.name(), p.estimate(), p.standardError(), p.lower95(), p.upper95(), unit)
                 : new FitResponse.ParameterView(p.name(), p.estimate(), null, null, null, unit);
     }
 

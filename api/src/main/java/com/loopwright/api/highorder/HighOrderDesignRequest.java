@@ -10,8 +10,8 @@ import java.util.List;
  * @param auxiliaryPoles where the n - 2 poles beyond the dominant pair go (default: real, 4 x its real part)
  * @param matchSpecs     true to adjust the dominant pair until the simulated loop meets the specs
  */
-public record HighOrderDesignRequest(HighOrderPlantInput plant, HighOrderSpecInput spec,
-                                     AuxiliaryPolesInput auxiliaryPoles, Boolean matchSpecs) {
+public record HighOrderDesignRequest(
+        HighOrderPlantInput plant, HighOrderSpecInput spec, AuxiliaryPolesInput auxiliaryPoles, Boolean matchSpecs) {
 
     /**
      * The plant in controllable canonical form, lowest power first.
@@ -22,9 +22,12 @@ public record HighOrderDesignRequest(HighOrderPlantInput plant, HighOrderSpecInp
      * @param disturbance disturbance input vector, one entry per state
      * @param stateSpace  instead of the four fields above: a controllable state space, transformed to companion form
      */
-    public record HighOrderPlantInput(List<Double> denominator, List<Double> numerator, Double b,
-                                      List<Double> disturbance, StateSpaceInput stateSpace) {
-    }
+    public record HighOrderPlantInput(
+            List<Double> denominator,
+            List<Double> numerator,
+            Double b,
+            List<Double> disturbance,
+            StateSpaceInput stateSpace) {}
 
     /**
      * x' = a x + b2 u + b1 w, y = output x.
@@ -34,20 +37,21 @@ public record HighOrderDesignRequest(HighOrderPlantInput plant, HighOrderSpecInp
      * @param b1     disturbance input vector
      * @param output output row (default [1, 0, ...])
      */
-    public record StateSpaceInput(List<List<Double>> a, List<Double> b2, List<Double> b1, List<Double> output) {
-    }
+    public record StateSpaceInput(List<List<Double>> a, List<Double> b2, List<Double> b1, List<Double> output) {}
 
     /** Specs and options; times in seconds, overshoot, band and undershoot in percent. */
-    public record HighOrderSpecInput(Double settlingTime, Double overshootPercent, Double settlingBandPercent,
-                                     Double gamma, Double gammaMargin, Double stepSize,
-                                     Double maxUndershootPercent) {
-    }
+    public record HighOrderSpecInput(
+            Double settlingTime,
+            Double overshootPercent,
+            Double settlingBandPercent,
+            Double gamma,
+            Double gammaMargin,
+            Double stepSize,
+            Double maxUndershootPercent) {}
 
     /** Exactly one of a real-part multiple or an explicit list of n - 2 poles. */
-    public record AuxiliaryPolesInput(Double realPartMultiple, List<PoleInput> poles) {
-    }
+    public record AuxiliaryPolesInput(Double realPartMultiple, List<PoleInput> poles) {}
 
     /** A pole re + j im [1/s]. */
-    public record PoleInput(Double re, Double im) {
-    }
+    public record PoleInput(Double re, Double im) {}
 }

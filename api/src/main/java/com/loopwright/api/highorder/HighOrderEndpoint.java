@@ -26,9 +26,15 @@ public final class HighOrderEndpoint
     @Override
     public HighOrderPipeline.Result compute(ValidatedHighOrderDesign input) {
         ValidatedHighOrderDesign.StateSpace ss = input.stateSpace();
-        return pipeline.design(new HighOrderPipeline.Request(input.plant(), ss == null ? null
-                : new HighOrderPipeline.StateSpace(ss.a(), ss.b2(), ss.b1(), ss.output()), input.spec(),
-                input.auxiliary(), input.matchSpecs(), input.gammaChoice(), input.stepSize(), input.bandFraction(),
+        return pipeline.design(new HighOrderPipeline.Request(
+                input.plant(),
+                ss == null ? null : new HighOrderPipeline.StateSpace(ss.a(), ss.b2(), ss.b1(), ss.output()),
+                input.spec(),
+                input.auxiliary(),
+                input.matchSpecs(),
+                input.gammaChoice(),
+                input.stepSize(),
+                input.bandFraction(),
                 input.maxUndershootPercent()));
     }
 
@@ -39,7 +45,7 @@ public final class HighOrderEndpoint
 
     @Override
     public Problem nonFinite(String pointer) {
-        return FailureTable.unverifiable("the design's " + (pointer.isEmpty() ? "result" : pointer)
-                + " is outside double precision");
+        return FailureTable.unverifiable(
+                "the design's " + (pointer.isEmpty() ? "result" : pointer) + " is outside double precision");
     }
 }

@@ -18,6 +18,5 @@ public final class HighOrderLimits {
     public static final double MAX_UNDERSHOOT_PERCENT = 1000;
     public static final double DEFAULT_MAX_UNDERSHOOT_PERCENT = 10;
 
-    private HighOrderLimits() {
-    }
+    private HighOrderLimits() {}
 }

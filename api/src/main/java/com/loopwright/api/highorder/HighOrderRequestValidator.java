@@ -37,10 +37,14 @@ public final class HighOrderRequestValidator {
         if (plant == null) {
             errors.add(new FieldError("/plant", "required"));
         } else if (plant.stateSpace() != null) {
-            if (plant.denominator() != null || plant.numerator() != null || plant.b() != null
+            if (plant.denominator() != null
+                    || plant.numerator() != null
+                    || plant.b() != null
                     || plant.disturbance() != null) {
-                errors.add(new FieldError("/plant/stateSpace", "give either stateSpace or the companion fields"
-                        + " (denominator, numerator, b, disturbance), not both"));
+                errors.add(new FieldError(
+                        "/plant/stateSpace",
+                        "give either stateSpace or the companion fields"
+                                + " (denominator, numerator, b, disturbance), not both"));
             } else {
                 stateSpace = stateSpace(errors, plant.stateSpace());
                 n = stateSpace == null ? -1 : stateSpace.a().numRows;
@@ -49,8 +53,9 @@ public final class HighOrderRequestValidator {
             denominator = coefficients(errors, "/plant/denominator", plant.denominator(), -1, MAX_ABS_COEFFICIENT);
             n = denominator == null ? -1 : denominator.length;
             if (n >= 0 && (n < MIN_ORDER || n > MAX_ORDER)) {
-                errors.add(new FieldError("/plant/denominator", "needs " + MIN_ORDER + " to " + MAX_ORDER
-                        + " coefficients (the plant order), got " + n));
+                errors.add(new FieldError(
+                        "/plant/denominator",
+                        "needs " + MIN_ORDER + " to " + MAX_ORDER + " coefficients (the plant order), got " + n));
                 n = -1;
             }
             if (plant.numerator() == null && n > 0) {
@@ -60,20 +65,23 @@ public final class HighOrderRequestValidator {
                 numerator = coefficients(errors, "/plant/numerator", plant.numerator(), n, MAX_ABS_COEFFICIENT);
             }
             if (numerator != null && numerator[0] == 0) {
-                errors.add(new FieldError("/plant/numerator/0", "must be non-zero: a zero at s = 0 gives the loop no"
-                        + " DC gain to scale the reference by"));
+                errors.add(new FieldError(
+                        "/plant/numerator/0",
+                        "must be non-zero: a zero at s = 0 gives the loop no" + " DC gain to scale the reference by"));
             }
             if (plant.b() == null) {
                 errors.add(new FieldError("/plant/b", "required"));
-            } else if (!Double.isFinite(plant.b()) || Math.abs(plant.b()) < MIN_ABS_B
+            } else if (!Double.isFinite(plant.b())
+                    || Math.abs(plant.b()) < MIN_ABS_B
                     || Math.abs(plant.b()) > MAX_ABS_B) {
-                errors.add(new FieldError("/plant/b", "magnitude must be from " + MIN_ABS_B + " to " + MAX_ABS_B
-                        + " (non-zero)"));
+                errors.add(new FieldError(
+                        "/plant/b", "magnitude must be from " + MIN_ABS_B + " to " + MAX_ABS_B + " (non-zero)"));
             }
             disturbance = coefficients(errors, "/plant/disturbance", plant.disturbance(), n, MAX_ABS_DISTURBANCE);
             if (disturbance != null && java.util.Arrays.stream(disturbance).allMatch(v -> v == 0)) {
-                errors.add(new FieldError("/plant/disturbance", "must not be all zero: gamma bounds the gain from"
-                        + " this disturbance"));
+                errors.add(new FieldError(
+                        "/plant/disturbance",
+                        "must not be all zero: gamma bounds the gain from" + " this disturbance"));
             }
         }
         HighOrderSpecInput spec = request.spec();
@@ -81,10 +89,20 @@ public final class HighOrderRequestValidator {
             errors.add(new FieldError("/spec", "required"));
             throw new InvalidRequestException(errors);
         }
-        Checks.range(errors, "/spec/overshootPercent", spec.overshootPercent(), MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT,
+        Checks.range(
+                errors,
+                "/spec/overshootPercent",
+                spec.overshootPercent(),
+                MIN_OVERSHOOT_PERCENT,
+                MAX_OVERSHOOT_PERCENT,
                 true);
         Checks.range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, true);
-        Checks.range(errors, "/spec/settlingBandPercent", spec.settlingBandPercent(), MIN_BAND_PERCENT, MAX_BAND_PERCENT,
+        Checks.range(
+                errors,
+                "/spec/settlingBandPercent",
+                spec.settlingBandPercent(),
+                MIN_BAND_PERCENT,
+                MAX_BAND_PERCENT,
                 false);
         if (spec.gamma() != null && spec.gammaMargin() != null) {
             errors.add(new FieldError("/spec/gammaMargin", "give either gamma or gammaMargin, not both"));
@@ -95,25 +113,36 @@ public final class HighOrderRequestValidator {
         if (spec.gammaMargin() != null && !(spec.gammaMargin() > 1 && spec.gammaMargin() <= MAX_GAMMA_MARGIN)) {
             errors.add(new FieldError("/spec/gammaMargin", "must be above 1 and at most " + MAX_GAMMA_MARGIN));
         }
-        if (spec.stepSize() != null && !(Double.isFinite(spec.stepSize()) && spec.stepSize() != 0
-                && Math.abs(spec.stepSize()) <= MAX_ABS_STEP)) {
+        if (spec.stepSize() != null
+                && !(Double.isFinite(spec.stepSize())
+                        && spec.stepSize() != 0
+                        && Math.abs(spec.stepSize()) <= MAX_ABS_STEP)) {
             errors.add(new FieldError("/spec/stepSize", "magnitude must be non-zero and at most " + MAX_ABS_STEP));
         }
-        Checks.range(errors, "/spec/maxUndershootPercent", spec.maxUndershootPercent(), MIN_UNDERSHOOT_PERCENT,
-                MAX_UNDERSHOOT_PERCENT, false);
+        Checks.range(
+                errors,
+                "/spec/maxUndershootPercent",
+                spec.maxUndershootPercent(),
+                MIN_UNDERSHOOT_PERCENT,
+                MAX_UNDERSHOOT_PERCENT,
+                false);
         AuxiliaryPlacement auxiliary = auxiliary(errors, request.auxiliaryPoles(), n);
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
         double band = (spec.settlingBandPercent() == null ? DEFAULT_BAND_PERCENT : spec.settlingBandPercent()) / 100;
-        GammaChoice gamma = spec.gamma() != null ? new GammaChoice.Fixed(spec.gamma())
-                : new GammaChoice.MarginOverMinimum(spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN
-                        : spec.gammaMargin());
-        return new ValidatedHighOrderDesign(stateSpace != null ? null
-                : new CompanionPlant(denominator, numerator, plant.b(), disturbance),
+        GammaChoice gamma = spec.gamma() != null
+                ? new GammaChoice.Fixed(spec.gamma())
+                : new GammaChoice.MarginOverMinimum(
+                        spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN : spec.gammaMargin());
+        return new ValidatedHighOrderDesign(
+                stateSpace != null ? null : new CompanionPlant(denominator, numerator, plant.b(), disturbance),
                 new DesignSpec(spec.overshootPercent() / 100, new TimeSpec.SettlingTime(spec.settlingTime(), band)),
-                auxiliary, Boolean.TRUE.equals(request.matchSpecs()), gamma,
-                spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(), band,
+                auxiliary,
+                Boolean.TRUE.equals(request.matchSpecs()),
+                gamma,
+                spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(),
+                band,
                 spec.maxUndershootPercent() == null ? DEFAULT_MAX_UNDERSHOOT_PERCENT : spec.maxUndershootPercent(),
                 stateSpace);
     }
@@ -127,8 +156,13 @@ public final class HighOrderRequestValidator {
             return null;
         }
         if (input.realPartMultiple() != null) {
-            Checks.range(errors, "/auxiliaryPoles/realPartMultiple", input.realPartMultiple(), MIN_REAL_PART_MULTIPLE,
-                    MAX_REAL_PART_MULTIPLE, true);
+            Checks.range(
+                    errors,
+                    "/auxiliaryPoles/realPartMultiple",
+                    input.realPartMultiple(),
+                    MIN_REAL_PART_MULTIPLE,
+                    MAX_REAL_PART_MULTIPLE,
+                    true);
             return errors.isEmpty() ? new AuxiliaryPlacement.RealPartMultiple(input.realPartMultiple()) : null;
         }
         List<PoleInput> poles = input.poles();
@@ -137,8 +171,9 @@ public final class HighOrderRequestValidator {
             return null;
         }
         if (n > 0 && poles.size() != n - 2) {
-            errors.add(new FieldError("/auxiliaryPoles/poles", "needs n - 2 = " + (n - 2) + " poles for a plant of order "
-                    + n + ", got " + poles.size()));
+            errors.add(new FieldError(
+                    "/auxiliaryPoles/poles",
+                    "needs n - 2 = " + (n - 2) + " poles for a plant of order " + n + ", got " + poles.size()));
             return null;
         }
         List<TargetDynamics.Pole> list = new ArrayList<>();
@@ -150,10 +185,13 @@ public final class HighOrderRequestValidator {
                 errors.add(new FieldError(pointer, "needs re and im"));
                 continue;
             }
-            if (!(p.re() < 0) || !Double.isFinite(p.re()) || !Double.isFinite(p.im())
+            if (!(p.re() < 0)
+                    || !Double.isFinite(p.re())
+                    || !Double.isFinite(p.im())
                     || Math.hypot(p.re(), p.im()) > MAX_POLE_MAGNITUDE) {
-                errors.add(new FieldError(pointer + "/re", "must be negative (a stable pole), with |pole| at most "
-                        + MAX_POLE_MAGNITUDE));
+                errors.add(new FieldError(
+                        pointer + "/re",
+                        "must be negative (a stable pole), with |pole| at most " + MAX_POLE_MAGNITUDE));
                 continue;
             }
             list.add(new TargetDynamics.Pole(p.re(), p.im()));
@@ -163,15 +201,15 @@ public final class HighOrderRequestValidator {
         }
         int unpaired = DesiredPoles.unpairedIndex(list);
         if (unpaired >= 0) {
-            errors.add(new FieldError("/auxiliaryPoles/poles/" + unpaired + "/im",
-                    "a complex pole needs its conjugate in the list"));
+            errors.add(new FieldError(
+                    "/auxiliaryPoles/poles/" + unpaired + "/im", "a complex pole needs its conjugate in the list"));
             return null;
         }
         return new AuxiliaryPlacement.Explicit(list);
     }
 
-    private static ValidatedHighOrderDesign.StateSpace stateSpace(List<FieldError> errors,
-                                                                  HighOrderDesignRequest.StateSpaceInput input) {
+    private static ValidatedHighOrderDesign.StateSpace stateSpace(
+            List<FieldError> errors, HighOrderDesignRequest.StateSpaceInput input) {
         List<List<Double>> rows = input.a();
         if (rows == null) {
             errors.add(new FieldError("/plant/stateSpace/a", "required"));
@@ -179,8 +217,9 @@ public final class HighOrderRequestValidator {
         }
         int n = rows.size();
         if (n < MIN_ORDER || n > MAX_ORDER) {
-            errors.add(new FieldError("/plant/stateSpace/a", "needs " + MIN_ORDER + " to " + MAX_ORDER
-                    + " rows (the plant order), got " + n));
+            errors.add(new FieldError(
+                    "/plant/stateSpace/a",
+                    "needs " + MIN_ORDER + " to " + MAX_ORDER + " rows (the plant order), got " + n));
             return null;
         }
         int before = errors.size();
@@ -203,19 +242,22 @@ public final class HighOrderRequestValidator {
             output = coefficients(errors, "/plant/stateSpace/output", input.output(), n, MAX_ABS_COEFFICIENT);
         }
         if (b1 != null && java.util.Arrays.stream(b1).allMatch(v -> v == 0)) {
-            errors.add(new FieldError("/plant/stateSpace/b1", "must not be all zero: gamma bounds the gain from"
-                    + " this disturbance"));
+            errors.add(new FieldError(
+                    "/plant/stateSpace/b1", "must not be all zero: gamma bounds the gain from" + " this disturbance"));
         }
         if (errors.size() > before) {
             return null;
         }
-        return new ValidatedHighOrderDesign.StateSpace(a, new org.ejml.data.DMatrixRMaj(n, 1, true, b2),
-                new org.ejml.data.DMatrixRMaj(n, 1, true, b1), new org.ejml.data.DMatrixRMaj(1, n, true, output));
+        return new ValidatedHighOrderDesign.StateSpace(
+                a,
+                new org.ejml.data.DMatrixRMaj(n, 1, true, b2),
+                new org.ejml.data.DMatrixRMaj(n, 1, true, b1),
+                new org.ejml.data.DMatrixRMaj(1, n, true, output));
     }
 
     /** A list of finite numbers within +-maxAbs, of the expected length (when known). */
-    private static double[] coefficients(List<FieldError> errors, String pointer, List<Double> values, int length,
-                                         double maxAbs) {
+    private static double[] coefficients(
+            List<FieldError> errors, String pointer, List<Double> values, int length, double maxAbs) {
         if (values == null) {
             errors.add(new FieldError(pointer, "required"));
             return null;
@@ -241,5 +283,4 @@ public final class HighOrderRequestValidator {
         }
         return ok ? out : null;
     }
-
 }

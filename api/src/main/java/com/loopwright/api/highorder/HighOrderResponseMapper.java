@@ -34,20 +34,34 @@ public final class HighOrderResponseMapper {
         List<List<Double>> rows = rows(design.solution().p());
         Double controllabilityCondition = result.controllabilityCondition();
         HighOrderDesignResponse.Coordinates coordinates = new HighOrderDesignResponse.Coordinates(
-                fromStateSpace ? "stateSpace" : "companion", boxed(design.plant().denominator()),
-                boxed(design.plant().numerator()), design.plant().b(), boxed(design.plant().disturbance()),
-                rows(result.toPlant()), boxed(result.plantGain()), controllabilityCondition);
+                fromStateSpace ? "stateSpace" : "companion",
+                boxed(design.plant().denominator()),
+                boxed(design.plant().numerator()),
+                design.plant().b(),
+                boxed(design.plant().disturbance()),
+                rows(result.toPlant()),
+                boxed(result.plantGain()),
+                controllabilityCondition);
         List<HighOrderDesignResponse.Bound> bounds = design.gammaBounds().stream()
-                .map(HighOrderResponseMapper::bound).toList();
+                .map(HighOrderResponseMapper::bound)
+                .toList();
         HighOrderStep step = verification.step();
         boolean specsMet = result.specCheck().met();
         HighOrderDesignResponse.SpecMatching matching = match == null
-                ? new HighOrderDesignResponse.SpecMatching(false, 0, result.specCheck().settlingResidual(),
-                result.specCheck().overshootResidualPoints(), dominant.dampingRatio(),
-                dominant.naturalFrequencyRadPerSec())
-                : new HighOrderDesignResponse.SpecMatching(true, match.iterations(), match.settlingResidual(),
-                match.overshootResidualPoints(), match.startingTarget().dampingRatio(),
-                match.startingTarget().naturalFrequencyRadPerSec());
+                ? new HighOrderDesignResponse.SpecMatching(
+                        false,
+                        0,
+                        result.specCheck().settlingResidual(),
+                        result.specCheck().overshootResidualPoints(),
+                        dominant.dampingRatio(),
+                        dominant.naturalFrequencyRadPerSec())
+                : new HighOrderDesignResponse.SpecMatching(
+                        true,
+                        match.iterations(),
+                        match.settlingResidual(),
+                        match.overshootResidualPoints(),
+                        match.startingTarget().dampingRatio(),
+                        match.startingTarget().naturalFrequencyRadPerSec());
         List<String> notes = new ArrayList<>();
         notes.add("P, the gains and the weights are in the companion coordinates of the request: z_1 is the state"
                 + " the output row weights first, z_n the state u drives.");
@@ -60,32 +74,59 @@ public final class HighOrderResponseMapper {
             notes.add("the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
                     + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain on x.");
             if (controllabilityCondition > TwoStateModel.CONDITION_NOTE_THRESHOLD) {
-                notes.add(String.format(Locale.US, "The controllability matrix [B2, A B2, ...] has condition number"
-                        + " %.3g (above %.0e): coordinates.plantGain and toPlant may have lost up to %.0f of their"
-                        + " about 16 significant digits. Rescale the states or check the model.",
-                        controllabilityCondition, TwoStateModel.CONDITION_NOTE_THRESHOLD,
+                notes.add(String.format(
+                        Locale.US,
+                        "The controllability matrix [B2, A B2, ...] has condition number"
+                                + " %.3g (above %.0e): coordinates.plantGain and toPlant may have lost up to %.0f of their"
+                                + " about 16 significant digits. Rescale the states or check the model.",
+                        controllabilityCondition,
+                        TwoStateModel.CONDITION_NOTE_THRESHOLD,
                         Math.ceil(Math.log10(controllabilityCondition))));
             }
         }
-        return new HighOrderDesignResponse(n, coordinates,
-                new HighOrderDesignResponse.Target(dominant.dampingRatio(), dominant.naturalFrequencyRadPerSec(),
-                        poles(dominant.poles()), poles(design.poles().auxiliary()),
+        return new HighOrderDesignResponse(
+                n,
+                coordinates,
+                new HighOrderDesignResponse.Target(
+                        dominant.dampingRatio(),
+                        dominant.naturalFrequencyRadPerSec(),
+                        poles(dominant.poles()),
+                        poles(design.poles().auxiliary()),
                         boxed(design.poles().coefficients())),
                 matching,
-                new HighOrderDesignResponse.Riccati(rows, design.solution().relativeResidual(),
-                        design.solution().reciprocalCondition(), design.solution().newtonSteps(),
-                        design.bisectionSteps(), verification.relativeDifference(),
-                        verification.numeric().relativeResidual(), verification.numeric().iterations()),
-                bounds, design.feasibleSet().stream().map(HighOrderResponseMapper::interval).toList(),
-                design.gammaMin(), design.gamma(), boxed(design.weights()),
+                new HighOrderDesignResponse.Riccati(
+                        rows,
+                        design.solution().relativeResidual(),
+                        design.solution().reciprocalCondition(),
+                        design.solution().newtonSteps(),
+                        design.bisectionSteps(),
+                        verification.relativeDifference(),
+                        verification.numeric().relativeResidual(),
+                        verification.numeric().iterations()),
+                bounds,
+                design.feasibleSet().stream()
+                        .map(HighOrderResponseMapper::interval)
+                        .toList(),
+                design.gammaMin(),
+                design.gamma(),
+                boxed(design.weights()),
                 new HighOrderDesignResponse.Gain(boxed(design.gain()), design.referenceGain()),
-                new HighOrderDesignResponse.Simulated(step.metrics().riseTimeSeconds(),
-                        step.metrics().settlingTimeSeconds(), step.metrics().overshootPercent(),
-                        step.undershootPercent(), step.metrics().peakControl(), step.horizonSeconds(), step.samples()),
-                new HighOrderDesignResponse.Verification(verification.norm().value(),
-                        verification.norm().peakFrequencyRadPerSec(), HighOrderPipeline.NORM_RELATIVE_TOLERANCE,
-                        verification.certified(), specsMet),
-                notes, Cautions.ALL);
+                new HighOrderDesignResponse.Simulated(
+                        step.metrics().riseTimeSeconds(),
+                        step.metrics().settlingTimeSeconds(),
+                        step.metrics().overshootPercent(),
+                        step.undershootPercent(),
+                        step.metrics().peakControl(),
+                        step.horizonSeconds(),
+                        step.samples()),
+                new HighOrderDesignResponse.Verification(
+                        verification.norm().value(),
+                        verification.norm().peakFrequencyRadPerSec(),
+                        HighOrderPipeline.NORM_RELATIVE_TOLERANCE,
+                        verification.certified(),
+                        specsMet),
+                notes,
+                Cautions.ALL);
     }
 
     private static List<List<Double>> rows(DMatrixRMaj m) {
@@ -101,22 +142,28 @@ public final class HighOrderResponseMapper {
     }
 
     private static HighOrderDesignResponse.Bound bound(GammaBound b) {
-        return new HighOrderDesignResponse.Bound(b.condition().name().toLowerCase(), b.stateIndex(), b.meaning(),
-                b.gammaLowerBound(), b.binding());
+        return new HighOrderDesignResponse.Bound(
+                b.condition().name().toLowerCase(), b.stateIndex(), b.meaning(), b.gammaLowerBound(), b.binding());
     }
 
     private static HighOrderDesignResponse.GammaInterval interval(GammaInterval i) {
-        return new HighOrderDesignResponse.GammaInterval(i.lowerGamma(), i.unbounded() ? null : i.upperGamma(),
-                i.unbounded(), end(i.lowerBinding()), i.unbounded() ? null : end(i.upperBinding()));
+        return new HighOrderDesignResponse.GammaInterval(
+                i.lowerGamma(),
+                i.unbounded() ? null : i.upperGamma(),
+                i.unbounded(),
+                end(i.lowerBinding()),
+                i.unbounded() ? null : end(i.upperBinding()));
     }
 
     private static HighOrderDesignResponse.IntervalEnd end(GammaInterval.GammaEnd end) {
-        return new HighOrderDesignResponse.IntervalEnd(end.condition().name().toLowerCase(), end.stateIndex(),
-                end.meaning());
+        return new HighOrderDesignResponse.IntervalEnd(
+                end.condition().name().toLowerCase(), end.stateIndex(), end.meaning());
     }
 
     private static List<DesignResponse.PoleView> poles(List<TargetDynamics.Pole> poles) {
-        return poles.stream().map(p -> new DesignResponse.PoleView(p.re(), p.im())).toList();
+        return poles.stream()
+                .map(p -> new DesignResponse.PoleView(p.re(), p.im()))
+                .toList();
     }
 
     private static List<Double> boxed(double[] values) {

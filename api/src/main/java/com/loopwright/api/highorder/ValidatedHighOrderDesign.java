@@ -6,14 +6,23 @@ import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
 
 /** A high-order request that passed validation, in solver types. */
-public record ValidatedHighOrderDesign(CompanionPlant plant, DesignSpec spec, AuxiliaryPlacement auxiliary,
-                                       boolean matchSpecs, GammaChoice gammaChoice, double stepSize,
-                                       double bandFraction, double maxUndershootPercent,
-                                       StateSpace stateSpace) {
+public record ValidatedHighOrderDesign(
+        CompanionPlant plant,
+        DesignSpec spec,
+        AuxiliaryPlacement auxiliary,
+        boolean matchSpecs,
+        GammaChoice gammaChoice,
+        double stepSize,
+        double bandFraction,
+        double maxUndershootPercent,
+        StateSpace stateSpace) {
 
     /** The state space as sent (null for a companion-form request), to be transformed. */
-    public record StateSpace(org.ejml.data.DMatrixRMaj a, org.ejml.data.DMatrixRMaj b2, org.ejml.data.DMatrixRMaj b1,
-                             org.ejml.data.DMatrixRMaj output) {
+    public record StateSpace(
+            org.ejml.data.DMatrixRMaj a,
+            org.ejml.data.DMatrixRMaj b2,
+            org.ejml.data.DMatrixRMaj b1,
+            org.ejml.data.DMatrixRMaj output) {
         public StateSpace {
             a = a.copy();
             b2 = b2.copy();

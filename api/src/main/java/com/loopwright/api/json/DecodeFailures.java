@@ -14,11 +14,11 @@ import java.util.List;
 /** Turns a Jackson decoding failure into a 400 problem that names the field, without internal class names. */
 public final class DecodeFailures {
 
-    private DecodeFailures() {
-    }
+    private DecodeFailures() {}
 
     public static Problem toProblem(JsonProcessingException failure) {
-        if (failure instanceof JsonMappingException mapping && !mapping.getPath().isEmpty()) {
+        if (failure instanceof JsonMappingException mapping
+                && !mapping.getPath().isEmpty()) {
             String pointer = pointerOf(mapping);
             String detail;
             if (mapping instanceof UnrecognizedPropertyException unknown) {
@@ -28,8 +28,8 @@ public final class DecodeFailures {
             } else {
                 detail = "cannot be read";
             }
-            return ProblemType.MALFORMED_REQUEST.problem("field " + pointer + ": " + detail,
-                    List.of(new FieldError(pointer, detail)), List.of());
+            return ProblemType.MALFORMED_REQUEST.problem(
+                    "field " + pointer + ": " + detail, List.of(new FieldError(pointer, detail)), List.of());
         }
         String detail;
         if (failure instanceof StreamConstraintsException) {

@@ -18,11 +18,11 @@ public final class StrictJson {
 
     /** No request of this API nests deeper than 4; 16 leaves room without inviting stack games. */
     public static final int MAX_NESTING_DEPTH = 16;
+
     public static final int MAX_STRING_LENGTH = 10_000;
     public static final int MAX_NUMBER_LENGTH = 100;
 
-    private StrictJson() {
-    }
+    private StrictJson() {}
 
     public static ObjectMapper newMapper() {
         JsonFactory factory = JsonFactory.builder()

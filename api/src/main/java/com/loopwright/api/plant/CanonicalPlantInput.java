@@ -1,6 +1,5 @@
 package com.loopwright.api.plant;
 
-import com.loopwright.api.validation.Checks;
 import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A0;
 import static com.loopwright.api.validation.FieldLimits.MAX_ABS_A1;
 import static com.loopwright.api.validation.FieldLimits.MAX_ABS_B;
@@ -10,6 +9,7 @@ import static com.loopwright.api.validation.FieldLimits.MIN_ABS_B;
 import com.fasterxml.jackson.databind.JsonDeserializer;
 import com.fasterxml.jackson.databind.annotation.JsonDeserialize;
 import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.validation.Checks;
 import com.loopwright.solver.plant.CanonicalPlant;
 import java.util.List;
 
@@ -23,8 +23,8 @@ import java.util.List;
 public record CanonicalPlantInput(Double a0, Double a1, Double b, Double d) implements PlantInput {
 
     /** The canonical states in the caller's own units. */
-    static final PlantNotation NOTATION = new PlantNotation("x1 units", "x1 units/s", "u units", "w units",
-            "x1 units", null);
+    static final PlantNotation NOTATION =
+            new PlantNotation("x1 units", "x1 units/s", "u units", "w units", "x1 units", null);
 
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {

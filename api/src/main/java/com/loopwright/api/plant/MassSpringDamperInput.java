@@ -19,9 +19,14 @@ import java.util.List;
 public record MassSpringDamperInput(Double mass, Double damping, Double stiffness) implements PlantInput {
 
     /** The position y [m] and the force command F [N]. */
-    static final PlantNotation NOTATION = new PlantNotation("m", "m/s", "N", "N", "m",
-            new PlantNotation.LawTerms("F", "N", "y", "m", "the spring force k r that holds the mass at the"
-                    + " setpoint"));
+    static final PlantNotation NOTATION = new PlantNotation(
+            "m",
+            "m/s",
+            "N",
+            "N",
+            "m",
+            new PlantNotation.LawTerms(
+                    "F", "N", "y", "m", "the spring force k r that holds the mass at the" + " setpoint"));
 
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {
@@ -32,7 +37,9 @@ public record MassSpringDamperInput(Double mass, Double damping, Double stiffnes
         if (errors.size() > before) {
             return null;
         }
-        return PlantConversion.converted(PlantFormName.MASS_SPRING_DAMPER, NOTATION,
+        return PlantConversion.converted(
+                PlantFormName.MASS_SPRING_DAMPER,
+                NOTATION,
                 () -> new MassSpringDamper(mass, damping, stiffness),
                 PlantConversion.fields("mass", mass, "damping", damping, "stiffness", stiffness),
                 List.of("m y'' + c y' + k y = F + w: y [m] is the position, F [N] the force command, w [N] a"

@@ -22,8 +22,7 @@ import java.util.function.Supplier;
 /** What the form records share: field checks with pointers below /plant, and the conversion to canonical. */
 final class PlantConversion {
 
-    private PlantConversion() {
-    }
+    private PlantConversion() {}
 
     /**
      * The converted canonical coefficients must be finite, keep b (and a given d) non-zero, and lie in the documented
@@ -33,8 +32,12 @@ final class PlantConversion {
      *
      * @param fields the description's numeric fields by JSON pointer below /plant (e.g. "denominator/0")
      */
-    static ResolvedPlant converted(PlantFormName form, PlantNotation notation, Supplier<PlantForm> description,
-                                   Map<String, Double> fields, List<String> assumptions) {
+    static ResolvedPlant converted(
+            PlantFormName form,
+            PlantNotation notation,
+            Supplier<PlantForm> description,
+            Map<String, Double> fields,
+            List<String> assumptions) {
         PlantForm source;
         CanonicalPlant plant;
         try {
@@ -42,12 +45,14 @@ final class PlantConversion {
             plant = source.canonical();
         } catch (PlantParameterException e) {
             String named = e.parameter();
-            if (!named.isEmpty() && fields.keySet().stream().anyMatch(f -> f.equals(named)
-                    || f.startsWith(named + "/"))) {
+            if (!named.isEmpty()
+                    && fields.keySet().stream().anyMatch(f -> f.equals(named) || f.startsWith(named + "/"))) {
                 throw e; // a field of this description, already named (a negative mass, an uncontrollable B2)
             }
-            throw plantModel(drivingField(fields), e.getMessage() + "; rescale the units (for"
-                    + " example mm instead of m, or g cm^2 instead of kg m^2)");
+            throw plantModel(
+                    drivingField(fields),
+                    e.getMessage() + "; rescale the units (for"
+                            + " example mm instead of m, or g cm^2 instead of kg m^2)");
         }
         List<String> outside = new ArrayList<>();
         if (Math.abs(plant.a0()) > MAX_ABS_A0) {
@@ -63,10 +68,13 @@ final class PlantConversion {
             outside.add("d");
         }
         if (!outside.isEmpty()) {
-            throw plantModel(drivingField(fields), String.format("the derived canonical"
-                    + " coefficients (a0 = %.6g, a1 = %.6g, b = %.6g, d = %.6g) put %s outside the ranges the design"
-                    + " supports; rescale the units (for example mm instead of m, or g cm^2 instead of kg m^2)",
-                    plant.a0(), plant.a1(), plant.b(), plant.d(), String.join(", ", outside)));
+            throw plantModel(
+                    drivingField(fields),
+                    String.format(
+                            "the derived canonical"
+                                    + " coefficients (a0 = %.6g, a1 = %.6g, b = %.6g, d = %.6g) put %s outside the ranges the design"
+                                    + " supports; rescale the units (for example mm instead of m, or g cm^2 instead of kg m^2)",
+                            plant.a0(), plant.a1(), plant.b(), plant.d(), String.join(", ", outside)));
         }
         return new ResolvedPlant(form, plant, source, assumptions, notation);
     }
@@ -128,8 +136,11 @@ final class PlantConversion {
             return null;
         }
         if (values.size() < min || values.size() > max) {
-            errors.add(new FieldError(pointer, min == max ? "must have exactly " + min + " numbers"
-                    : "must have from " + min + " to " + max + " numbers"));
+            errors.add(new FieldError(
+                    pointer,
+                    min == max
+                            ? "must have exactly " + min + " numbers"
+                            : "must have from " + min + " to " + max + " numbers"));
             return null;
         }
         int before = errors.size();

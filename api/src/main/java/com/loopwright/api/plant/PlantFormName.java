@@ -85,8 +85,8 @@ public enum PlantFormName {
         for (PlantFormName form : values()) {
             for (RecordComponent component : form.record.getRecordComponents()) {
                 if (fields.put(component.getName(), component.getGenericType()) != null) {
-                    throw new IllegalStateException("plant field '" + component.getName() + "' of the "
-                            + form.wireName + " form is declared twice");
+                    throw new IllegalStateException("plant field '" + component.getName() + "' of the " + form.wireName
+                            + " form is declared twice");
                 }
             }
         }

@@ -16,8 +16,13 @@ import java.util.List;
  */
 @JsonDeserialize(using = PlantInputDeserializer.class)
 @JsonSerialize(using = PlantInputSerializer.class)
-public sealed interface PlantInput permits CanonicalPlantInput, RotaryAxisInput, MassSpringDamperInput,
-        SecondOrderTransferFunctionInput, StateSpaceInput, UnmatchedPlant {
+public sealed interface PlantInput
+        permits CanonicalPlantInput,
+                RotaryAxisInput,
+                MassSpringDamperInput,
+                SecondOrderTransferFunctionInput,
+                StateSpaceInput,
+                UnmatchedPlant {
 
     /**
      * Validates this description and converts it to the canonical coefficients. Adds 400-class errors (pointers

@@ -48,8 +48,7 @@ final class PlantInputDeserializer extends StdDeserializer<PlantInput> implement
             throws JsonMappingException {
         Map<String, JsonDeserializer<Object>> found = new HashMap<>();
         for (Map.Entry<String, Type> field : WIRE_FIELDS.entrySet()) {
-            found.put(field.getKey(), ctxt.findContextualValueDeserializer(ctxt.constructType(field.getValue()),
-                    null));
+            found.put(field.getKey(), ctxt.findContextualValueDeserializer(ctxt.constructType(field.getValue()), null));
         }
         return new PlantInputDeserializer(Map.copyOf(found));
     }
@@ -105,8 +104,8 @@ final class PlantInputDeserializer extends StdDeserializer<PlantInput> implement
     /** The record of the chosen form, or an {@link UnmatchedPlant} when the fields make no one form. */
     private static PlantInput choose(Map<String, Object> values) {
         String formName = (String) values.get(PlantFormName.FORM_FIELD);
-        Optional<PlantFormName> named = formName == null ? Optional.of(PlantFormName.CANONICAL)
-                : PlantFormName.ofWireName(formName);
+        Optional<PlantFormName> named =
+                formName == null ? Optional.of(PlantFormName.CANONICAL) : PlantFormName.ofWireName(formName);
         if (named.isEmpty()) {
             return new UnmatchedPlant(formName, List.of());
         }
@@ -125,8 +124,9 @@ final class PlantInputDeserializer extends StdDeserializer<PlantInput> implement
     }
 
     /** One field's value as its declared type; a failure inside it names the field's pointer. */
-    private static Object read(JsonParser p, DeserializationContext ctxt, String name,
-                               JsonDeserializer<Object> deserializer) throws IOException {
+    private static Object read(
+            JsonParser p, DeserializationContext ctxt, String name, JsonDeserializer<Object> deserializer)
+            throws IOException {
         try {
             if (p.hasToken(JsonToken.VALUE_NULL)) {
                 return null;

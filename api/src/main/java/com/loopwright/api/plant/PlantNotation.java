@@ -11,8 +11,7 @@ package com.loopwright.api.plant;
  * @param x1Short      the unit of x1 as it appears in a quotient
  * @param law          the quantities of the control law written in physical units, or null when the form has none
  */
-public record PlantNotation(String x1, String x2, String command, String disturbance, String x1Short,
-                            LawTerms law) {
+public record PlantNotation(String x1, String x2, String command, String disturbance, String x1Short, LawTerms law) {
 
     /**
      * The control law in a form's physical quantities: command = k1 (r - position) - k2 position' + feedforward r.
@@ -23,7 +22,6 @@ public record PlantNotation(String x1, String x2, String command, String disturb
      * @param positionUnit         its unit
      * @param feedforwardMeaning   what the setpoint feedforward a0/b stands for in this form
      */
-    public record LawTerms(String command, String commandUnit, String position, String positionUnit,
-                           String feedforwardMeaning) {
-    }
+    public record LawTerms(
+            String command, String commandUnit, String position, String positionUnit, String feedforwardMeaning) {}
 }

@@ -13,8 +13,12 @@ import java.util.List;
  * @param assumptions what was assumed in the conversion, in words (for example where the disturbance enters)
  * @param notation    how the form names the canonical states, command and disturbance
  */
-public record ResolvedPlant(PlantFormName form, CanonicalPlant canonical, PlantForm source,
-                            List<String> assumptions, PlantNotation notation) {
+public record ResolvedPlant(
+        PlantFormName form,
+        CanonicalPlant canonical,
+        PlantForm source,
+        List<String> assumptions,
+        PlantNotation notation) {
 
     public ResolvedPlant {
         assumptions = List.copyOf(assumptions);

@@ -22,9 +22,18 @@ public record RotaryAxisInput(Double inertia, Double viscousFriction, Double tor
         implements PlantInput {
 
     /** The load angle q [rad] and the current command i [A]. */
-    static final PlantNotation NOTATION = new PlantNotation("rad", "rad/s", "A", "N m", "rad",
-            new PlantNotation.LawTerms("i", "A", "q", "rad", "no holding current is needed at standstill: the axis"
-                    + " has no stiffness (a0 = 0)"));
+    static final PlantNotation NOTATION = new PlantNotation(
+            "rad",
+            "rad/s",
+            "A",
+            "N m",
+            "rad",
+            new PlantNotation.LawTerms(
+                    "i",
+                    "A",
+                    "q",
+                    "rad",
+                    "no holding current is needed at standstill: the axis" + " has no stiffness (a0 = 0)"));
 
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {
@@ -43,9 +52,19 @@ public record RotaryAxisInput(Double inertia, Double viscousFriction, Double tor
         if (gearRatio == null) {
             assumptions.add("No gearRatio given: direct drive (N = 1).");
         }
-        return PlantConversion.converted(PlantFormName.ROTARY_AXIS, NOTATION,
+        return PlantConversion.converted(
+                PlantFormName.ROTARY_AXIS,
+                NOTATION,
                 () -> new RotaryAxis(inertia, viscousFriction, torqueConstant, ratio),
-                PlantConversion.fields("inertia", inertia, "viscousFriction", viscousFriction, "torqueConstant",
-                        torqueConstant, "gearRatio", gearRatio), assumptions);
+                PlantConversion.fields(
+                        "inertia",
+                        inertia,
+                        "viscousFriction",
+                        viscousFriction,
+                        "torqueConstant",
+                        torqueConstant,
+                        "gearRatio",
+                        gearRatio),
+                assumptions);
     }
 }

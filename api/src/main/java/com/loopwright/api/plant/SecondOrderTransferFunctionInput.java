@@ -25,13 +25,18 @@ import java.util.Map;
  * @param disturbanceNumerator m, numerator of the disturbance path; optional, default the command numerator
  */
 @JsonDeserialize(using = JsonDeserializer.None.class)
-public record SecondOrderTransferFunctionInput(Double gain, Double naturalFrequency, Double dampingRatio,
-                                               List<Double> numerator, List<Double> denominator,
-                                               Double disturbanceNumerator) implements PlantInput {
+public record SecondOrderTransferFunctionInput(
+        Double gain,
+        Double naturalFrequency,
+        Double dampingRatio,
+        List<Double> numerator,
+        List<Double> denominator,
+        Double disturbanceNumerator)
+        implements PlantInput {
 
     /** Phase variables: the output y and its rate. */
-    static final PlantNotation NOTATION = new PlantNotation("y (output units)", "y units/s", "input units",
-            "disturbance units", "y units", null);
+    static final PlantNotation NOTATION =
+            new PlantNotation("y (output units)", "y units/s", "input units", "disturbance units", "y units", null);
 
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {
@@ -39,8 +44,10 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
         boolean gainForm = gain != null || naturalFrequency != null || dampingRatio != null;
         boolean coefficientForm = numerator != null || denominator != null;
         if (gainForm && coefficientForm) {
-            errors.add(new FieldError("/plant/numerator", "give either gain, naturalFrequency and dampingRatio,"
-                    + " or numerator and denominator, not both"));
+            errors.add(new FieldError(
+                    "/plant/numerator",
+                    "give either gain, naturalFrequency and dampingRatio,"
+                            + " or numerator and denominator, not both"));
             return null;
         }
         physical(errors, "disturbanceNumerator", disturbanceNumerator, false);
@@ -59,11 +66,24 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
                 return null;
             }
             double commandNumerator = gain * naturalFrequency * naturalFrequency;
-            return PlantConversion.converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION, NOTATION,
-                    () -> SecondOrderTransferFunction.ofGainFrequencyDamping(gain, naturalFrequency, dampingRatio,
+            return PlantConversion.converted(
+                    PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION,
+                    NOTATION,
+                    () -> SecondOrderTransferFunction.ofGainFrequencyDamping(
+                            gain,
+                            naturalFrequency,
+                            dampingRatio,
                             disturbanceNumerator == null ? commandNumerator : disturbanceNumerator),
-                    PlantConversion.fields("gain", gain, "naturalFrequency", naturalFrequency, "dampingRatio",
-                            dampingRatio, "disturbanceNumerator", disturbanceNumerator), assumptions);
+                    PlantConversion.fields(
+                            "gain",
+                            gain,
+                            "naturalFrequency",
+                            naturalFrequency,
+                            "dampingRatio",
+                            dampingRatio,
+                            "disturbanceNumerator",
+                            disturbanceNumerator),
+                    assumptions);
         }
         List<Double> checkedNumerator = vector(errors, "numerator", numerator, 1, MAX_NUMERATOR_COEFFICIENTS);
         List<Double> checkedDenominator = vector(errors, "denominator", denominator, 3, 3);
@@ -75,8 +95,10 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
             first++;
         }
         if (checkedNumerator.size() - first > 1) {
-            throw PlantConversion.plantModel("numerator", "the numerator has a zero (it is not a constant);"
-                    + " the canonical second-order form has no zeros, so this transfer function cannot be used");
+            throw PlantConversion.plantModel(
+                    "numerator",
+                    "the numerator has a zero (it is not a constant);"
+                            + " the canonical second-order form has no zeros, so this transfer function cannot be used");
         }
         double n = checkedNumerator.get(first);
         Map<String, Double> fields = new LinkedHashMap<>();
@@ -85,9 +107,16 @@ public record SecondOrderTransferFunctionInput(Double gain, Double naturalFreque
         if (disturbanceNumerator != null) {
             fields.put("disturbanceNumerator", disturbanceNumerator);
         }
-        return PlantConversion.converted(PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION, NOTATION,
-                () -> new SecondOrderTransferFunction(n, disturbanceNumerator == null ? n : disturbanceNumerator,
-                        checkedDenominator.get(0), checkedDenominator.get(1), checkedDenominator.get(2)), fields,
+        return PlantConversion.converted(
+                PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION,
+                NOTATION,
+                () -> new SecondOrderTransferFunction(
+                        n,
+                        disturbanceNumerator == null ? n : disturbanceNumerator,
+                        checkedDenominator.get(0),
+                        checkedDenominator.get(1),
+                        checkedDenominator.get(2)),
+                fields,
                 assumptions);
     }
 }

@@ -22,8 +22,8 @@ import java.util.Map;
 public record StateSpaceInput(List<List<Double>> a, List<Double> b2, List<Double> b1) implements PlantInput {
 
     /** The canonical coordinates z = T^-1 x: the tracked output and its rate. */
-    static final PlantNotation NOTATION = new PlantNotation("z1 = y = c x (the tracked output)", "z2 = y'",
-            "u units", "w units", "y units", null);
+    static final PlantNotation NOTATION =
+            new PlantNotation("z1 = y = c x (the tracked output)", "z2 = y'", "u units", "w units", "y units", null);
 
     /** A is 2 x 2: the form describes a plant of two states. */
     private static final int STATES = 2;
@@ -58,8 +58,14 @@ public record StateSpaceInput(List<List<Double>> a, List<Double> b2, List<Double
         PlantConversion.putAll(fields, "a/1", List.of(matrix[1][0], matrix[1][1]));
         PlantConversion.putAll(fields, "b2", actuator);
         PlantConversion.putAll(fields, "b1", disturbance);
-        return PlantConversion.converted(PlantFormName.STATE_SPACE, NOTATION, () -> DesignPipeline.stateSpacePlant(matrix,
-                new double[] {actuator.get(0), actuator.get(1)}, new double[] {disturbance.get(0),
-                        disturbance.get(1)}), fields, assumptions);
+        return PlantConversion.converted(
+                PlantFormName.STATE_SPACE,
+                NOTATION,
+                () -> DesignPipeline.stateSpacePlant(
+                        matrix,
+                        new double[] {actuator.get(0), actuator.get(1)},
+                        new double[] {disturbance.get(0), disturbance.get(1)}),
+                fields,
+                assumptions);
     }
 }

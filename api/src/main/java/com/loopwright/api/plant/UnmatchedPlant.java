@@ -21,16 +21,18 @@ public record UnmatchedPlant(String form, List<String> fieldsOfOtherForms) imple
 
     @Override
     public ResolvedPlant resolve(List<FieldError> errors) {
-        Optional<PlantFormName> named = form == null ? Optional.of(PlantFormName.CANONICAL)
-                : PlantFormName.ofWireName(form);
+        Optional<PlantFormName> named =
+                form == null ? Optional.of(PlantFormName.CANONICAL) : PlantFormName.ofWireName(form);
         if (named.isEmpty()) {
             errors.add(new FieldError("/plant/form", "unknown form; one of " + PlantFormName.wireNames()));
             return null;
         }
         PlantFormName chosen = named.get();
         for (String field : fieldsOfOtherForms) {
-            errors.add(new FieldError("/plant/" + field, "not a field of the " + chosen.wireName()
-                    + " form (its fields: " + new TreeSet<>(chosen.fields()) + ")"));
+            errors.add(new FieldError(
+                    "/plant/" + field,
+                    "not a field of the " + chosen.wireName() + " form (its fields: " + new TreeSet<>(chosen.fields())
+                            + ")"));
         }
         return null;
     }

@@ -41,9 +41,11 @@ public final class DesignFigures {
      * response and the spec envelope on top.
      */
     public String uncertaintyBand(DesignReport report, StepEnvelope.Band band, String rangesText) {
-        StringBuilder svg = open(1, "Step response under parameter uncertainty (" + band.drawnCases()
-                + " parameter sets" + (band.unstableCases() > 0 ? ", " + band.unstableCases() + " unstable, not drawn"
-                : "") + ")");
+        StringBuilder svg = open(
+                1,
+                "Step response under parameter uncertainty (" + band.drawnCases()
+                        + " parameter sets"
+                        + (band.unstableCases() > 0 ? ", " + band.unstableCases() + " unstable, not drawn" : "") + ")");
         SvgPanel panel = specPanel(svg, report, min(band.lowerX1()), max(band.upperX1()));
         panel.envelope("spread", band.timeSeconds(), band.lowerX1(), band.upperX1());
         panel.polyline("series", band.timeSeconds(), band.nominalX1());
@@ -66,11 +68,21 @@ public final class DesignFigures {
             high = Math.max(0, highest);
             low = Math.min(Math.min(lowest, overshootLimit), r * (1 + band));
         }
-        SvgPanel panel = new SvgPanel(svg, LEFT, TOP, WIDTH - LEFT - RIGHT, PANEL_HEIGHT,
-                NiceTicks.covering(0, report.horizonSeconds(), 8), NiceTicks.covering(low, high, 7), false);
+        SvgPanel panel = new SvgPanel(
+                svg,
+                LEFT,
+                TOP,
+                WIDTH - LEFT - RIGHT,
+                PANEL_HEIGHT,
+                NiceTicks.covering(0, report.horizonSeconds(), 8),
+                NiceTicks.covering(low, high, 7),
+                false);
         panel.frame("time t [s]", "position x1 [x1 units]");
         panel.band("band", r * (1 - band), r * (1 + band));
-        panel.horizontal("spec", overshootLimit, "overshoot limit " + format(100 * report.spec().overshootFraction()) + "%");
+        panel.horizontal(
+                "spec",
+                overshootLimit,
+                "overshoot limit " + format(100 * report.spec().overshootFraction()) + "%");
         if (report.spec().timeSpec() instanceof TimeSpec.SettlingTime settling) {
             panel.vertical("spec", settling.seconds(), "settling spec " + format(settling.seconds()) + " s");
         } else if (report.spec().timeSpec() instanceof TimeSpec.RiseTime rise) {
@@ -88,11 +100,17 @@ public final class DesignFigures {
         SvgPanel panel = specPanel(svg, report, min(y), max(y));
         panel.polyline("series", step.timeSeconds(), y);
         panel.vertical("measured", metrics.settlingTimeSeconds(), null);
-        panel.marker("point", metrics.settlingTimeSeconds(), valueAt(step, metrics.settlingTimeSeconds()),
+        panel.marker(
+                "point",
+                metrics.settlingTimeSeconds(),
+                valueAt(step, metrics.settlingTimeSeconds()),
                 "settles " + format(metrics.settlingTimeSeconds()) + " s");
         double riseEnd = firstCrossing(step, 0.9 * r);
         panel.marker("point", riseEnd, 0.9 * r, "rise (10-90%) " + format(metrics.riseTimeSeconds()) + " s");
-        panel.marker("point", metrics.peakTimeSeconds(), r * (1 + metrics.overshootPercent() / 100),
+        panel.marker(
+                "point",
+                metrics.peakTimeSeconds(),
+                r * (1 + metrics.overshootPercent() / 100),
                 "peak overshoot " + format(metrics.overshootPercent()) + "%");
         legend(svg, "x1(t)", "band", "settling band +-" + format(100 * report.bandFraction()) + "%");
         return close(svg);
@@ -112,8 +130,15 @@ public final class DesignFigures {
             high = Math.max(high, commandLimit.getAsDouble());
         }
         StringBuilder svg = open(1, "Control effort u(t) for the same step");
-        SvgPanel panel = new SvgPanel(svg, LEFT, TOP, WIDTH - LEFT - RIGHT, PANEL_HEIGHT,
-                NiceTicks.covering(0, report.horizonSeconds(), 8), NiceTicks.covering(low, high, 7), false);
+        SvgPanel panel = new SvgPanel(
+                svg,
+                LEFT,
+                TOP,
+                WIDTH - LEFT - RIGHT,
+                PANEL_HEIGHT,
+                NiceTicks.covering(0, report.horizonSeconds(), 8),
+                NiceTicks.covering(low, high, 7),
+                false);
         panel.frame("time t [s]", "command u [u units]");
         if (commandLimit.isPresent()) {
             double limit = commandLimit.getAsDouble();
@@ -123,8 +148,7 @@ public final class DesignFigures {
         panel.polyline("series", step.timeSeconds(), u);
         double peak = report.stepMetrics().peakControl();
         panel.marker("point", 0, u[0], "peak |u| " + format(peak));
-        legend(svg, "u(t) = kr r - (k1 x1 + k2 x2)", commandLimit.isPresent() ? "limit" : null,
-                "actuator limit");
+        legend(svg, "u(t) = kr r - (k1 x1 + k2 x2)", commandLimit.isPresent() ? "limit" : null, "actuator limit");
         return close(svg);
     }
 
@@ -144,14 +168,28 @@ public final class DesignFigures {
         double[] phase = bode.phaseDegrees();
         StringBuilder svg = open(2, "Bode diagram of the loop broken at the plant input, L(s) = K (sI - A)^-1 B");
         double panelWidth = WIDTH - LEFT - RIGHT;
-        SvgPanel top = new SvgPanel(svg, LEFT, TOP, panelWidth, PANEL_HEIGHT, decades,
-                NiceTicks.covering(Math.min(min(magnitude), -20), Math.max(max(magnitude), 20), 7), true);
+        SvgPanel top = new SvgPanel(
+                svg,
+                LEFT,
+                TOP,
+                panelWidth,
+                PANEL_HEIGHT,
+                decades,
+                NiceTicks.covering(Math.min(min(magnitude), -20), Math.max(max(magnitude), 20), 7),
+                true);
         top.frame("angular frequency w [rad/s]", "magnitude |L(jw)| [dB]");
         top.horizontal("spec", 0, "0 dB");
         top.polyline("series", logW, magnitude);
         double phaseTop = PANEL_HEIGHT + TOP + BOTTOM + 16;
-        SvgPanel bottom = new SvgPanel(svg, LEFT, phaseTop, panelWidth, PANEL_HEIGHT, decades,
-                NiceTicks.covering(Math.min(min(phase), -180), Math.max(max(phase), 0), 7), true);
+        SvgPanel bottom = new SvgPanel(
+                svg,
+                LEFT,
+                phaseTop,
+                panelWidth,
+                PANEL_HEIGHT,
+                decades,
+                NiceTicks.covering(Math.min(min(phase), -180), Math.max(max(phase), 0), 7),
+                true);
         bottom.frame("angular frequency w [rad/s]", "phase arg L(jw) [deg]");
         bottom.horizontal("limit", -180, "-180 deg");
         bottom.polyline("series2", logW, phase);
@@ -162,17 +200,30 @@ public final class DesignFigures {
             top.marker("point", wc, 0, "gain crossover " + format(Math.pow(10, wc)) + " rad/s");
             bottom.vertical("measured", wc, null);
             // arg L = pm - 180 on the branch the phase is drawn on near the crossover
-            bottom.marker("point", wc, phaseNear(logW, phase, wc, pm - 180), String.format(Locale.ROOT,
-                    "phase margin %.1f deg, delay margin %s s", pm, format(margins.delayMarginSeconds())));
+            bottom.marker(
+                    "point",
+                    wc,
+                    phaseNear(logW, phase, wc, pm - 180),
+                    String.format(
+                            Locale.ROOT,
+                            "phase margin %.1f deg, delay margin %s s",
+                            pm,
+                            format(margins.delayMarginSeconds())));
         }
         if (margins.gainMarginRadPerSec() != null && margins.gainMarginRadPerSec() > 0) {
             double wp = Math.log10(margins.gainMarginRadPerSec());
             double gm = 20 * Math.log10(margins.gainMargin());
-            bottom.marker("point", wp, phaseNear(logW, phase, wp, -180),
+            bottom.marker(
+                    "point",
+                    wp,
+                    phaseNear(logW, phase, wp, -180),
                     "phase crossover " + format(Math.pow(10, wp)) + " rad/s");
             top.marker("point", wp, -gm, String.format(Locale.ROOT, "gain margin %.1f dB", gm));
         } else {
-            bottom.text(LEFT + 8, phaseTop + PANEL_HEIGHT - 10, "start",
+            bottom.text(
+                    LEFT + 8,
+                    phaseTop + PANEL_HEIGHT - 10,
+                    "start",
                     "phase never reaches -180 deg with |L| < 1: no finite gain margin");
         }
         return close(svg);
@@ -216,33 +267,53 @@ public final class DesignFigures {
     private static StringBuilder open(int panels, String title) {
         double height = TOP + panels * (PANEL_HEIGHT + BOTTOM) + (panels - 1) * 16 + 24;
         StringBuilder svg = new StringBuilder(64 * 1024);
-        svg.append(String.format(Locale.ROOT, "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%.0f\" height=\"%.0f\""
-                + " viewBox=\"0 0 %.0f %.0f\" role=\"img\">\n", WIDTH, height, WIDTH, height));
+        svg.append(String.format(
+                Locale.ROOT,
+                "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"%.0f\" height=\"%.0f\""
+                        + " viewBox=\"0 0 %.0f %.0f\" role=\"img\">\n",
+                WIDTH,
+                height,
+                WIDTH,
+                height));
         svg.append("<title>").append(SvgPanel.escape(title)).append("</title>\n");
         svg.append(STYLE);
-        svg.append(String.format(Locale.ROOT, "<text class=\"title\" x=\"%.0f\" y=\"26\">%s</text>\n", LEFT,
-                SvgPanel.escape(title)));
+        svg.append(String.format(
+                Locale.ROOT, "<text class=\"title\" x=\"%.0f\" y=\"26\">%s</text>\n", LEFT, SvgPanel.escape(title)));
         return svg;
     }
 
     /** One series entry, and a second entry drawn as a band swatch ("band") or a dashed line (other class). */
     private static void legend(StringBuilder svg, String first, String secondClass, String second) {
         double y = TOP + PANEL_HEIGHT + BOTTOM + 8;
-        svg.append(String.format(Locale.ROOT, "<g class=\"legend\"><line class=\"series\" x1=\"%.0f\" y1=\"%.0f\""
-                + " x2=\"%.0f\" y2=\"%.0f\"/>", LEFT, y, LEFT + 24, y));
-        svg.append(String.format(Locale.ROOT, "<text x=\"%.0f\" y=\"%.0f\">%s</text>", LEFT + 30, y + 4,
-                SvgPanel.escape(first)));
+        svg.append(String.format(
+                Locale.ROOT,
+                "<g class=\"legend\"><line class=\"series\" x1=\"%.0f\" y1=\"%.0f\"" + " x2=\"%.0f\" y2=\"%.0f\"/>",
+                LEFT,
+                y,
+                LEFT + 24,
+                y));
+        svg.append(String.format(
+                Locale.ROOT, "<text x=\"%.0f\" y=\"%.0f\">%s</text>", LEFT + 30, y + 4, SvgPanel.escape(first)));
         if (secondClass != null) {
             if (secondClass.equals("band") || secondClass.equals("spread")) {
-                svg.append(String.format(Locale.ROOT,
-                        "<rect class=\"%s\" x=\"%.0f\" y=\"%.0f\" width=\"24\" height=\"10\"/>", secondClass,
-                        LEFT + 300, y - 5));
+                svg.append(String.format(
+                        Locale.ROOT,
+                        "<rect class=\"%s\" x=\"%.0f\" y=\"%.0f\" width=\"24\" height=\"10\"/>",
+                        secondClass,
+                        LEFT + 300,
+                        y - 5));
             } else {
-                svg.append(String.format(Locale.ROOT, "<line class=\"%s\" x1=\"%.0f\" y1=\"%.0f\" x2=\"%.0f\""
-                        + " y2=\"%.0f\"/>", secondClass, LEFT + 300, y, LEFT + 324, y));
+                svg.append(String.format(
+                        Locale.ROOT,
+                        "<line class=\"%s\" x1=\"%.0f\" y1=\"%.0f\" x2=\"%.0f\"" + " y2=\"%.0f\"/>",
+                        secondClass,
+                        LEFT + 300,
+                        y,
+                        LEFT + 324,
+                        y));
             }
-            svg.append(String.format(Locale.ROOT, "<text x=\"%.0f\" y=\"%.0f\">%s</text>", LEFT + 330, y + 4,
-                    SvgPanel.escape(second)));
+            svg.append(String.format(
+                    Locale.ROOT, "<text x=\"%.0f\" y=\"%.0f\">%s</text>", LEFT + 330, y + 4, SvgPanel.escape(second)));
         }
         svg.append("</g>\n");
     }
@@ -253,7 +324,9 @@ public final class DesignFigures {
 
     /** Four significant digits without trailing zeros (0.15, 1.5, 0.0985). */
     static String format(double value) {
-        String text = new java.math.BigDecimal(value).round(new java.math.MathContext(4)).stripTrailingZeros()
+        String text = new java.math.BigDecimal(value)
+                .round(new java.math.MathContext(4))
+                .stripTrailingZeros()
                 .toPlainString();
         return text.equals("-0") ? "0" : text;
     }

@@ -21,8 +21,15 @@ final class SvgPanel {
     /**
      * @param logX when true, x values are log10 of the quantity and ticks are at decades
      */
-    SvgPanel(StringBuilder svg, double left, double top, double width, double height, NiceTicks xTicks,
-             NiceTicks yTicks, boolean logX) {
+    SvgPanel(
+            StringBuilder svg,
+            double left,
+            double top,
+            double width,
+            double height,
+            NiceTicks xTicks,
+            NiceTicks yTicks,
+            boolean logX) {
         this.svg = svg;
         this.left = left;
         this.top = top;
@@ -42,19 +49,28 @@ final class SvgPanel {
     }
 
     void frame(String xLabel, String yLabel) {
-        svg.append(String.format(Locale.ROOT,
+        svg.append(String.format(
+                Locale.ROOT,
                 "<rect class=\"frame\" x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\"/>\n",
-                left, top, width, height));
+                left,
+                top,
+                width,
+                height));
         svg.append("<g class=\"grid\">\n");
         for (int i = 0; i < xTicks.count(); i++) {
             double x = px(xTicks.tick(i));
-            svg.append(String.format(Locale.ROOT, "<line x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
-                    x, top, x, top + height));
+            svg.append(String.format(
+                    Locale.ROOT, "<line x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n", x, top, x, top + height));
         }
         for (int i = 0; i < yTicks.count(); i++) {
             double y = py(yTicks.tick(i));
-            svg.append(String.format(Locale.ROOT, "<line x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
-                    left, y, left + width, y));
+            svg.append(String.format(
+                    Locale.ROOT,
+                    "<line x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
+                    left,
+                    y,
+                    left + width,
+                    y));
         }
         svg.append("</g>\n<g class=\"ticks\">\n");
         for (int i = 0; i < xTicks.count(); i++) {
@@ -65,12 +81,18 @@ final class SvgPanel {
             text(left - 6, py(yTicks.tick(i)) + 4, "end", yTicks.label(i));
         }
         svg.append("</g>\n");
-        svg.append(String.format(Locale.ROOT,
+        svg.append(String.format(
+                Locale.ROOT,
                 "<text class=\"axis-title\" x=\"%.2f\" y=\"%.2f\" text-anchor=\"middle\">%s</text>\n",
-                left + width / 2, top + height + 34, escape(xLabel)));
-        svg.append(String.format(Locale.ROOT,
+                left + width / 2,
+                top + height + 34,
+                escape(xLabel)));
+        svg.append(String.format(
+                Locale.ROOT,
                 "<text class=\"axis-title\" transform=\"translate(%.2f %.2f) rotate(-90)\" text-anchor=\"middle\">%s</text>\n",
-                left - 46, top + height / 2, escape(yLabel)));
+                left - 46,
+                top + height / 2,
+                escape(yLabel)));
     }
 
     void polyline(String cssClass, double[] x, double[] y) {
@@ -80,26 +102,40 @@ final class SvgPanel {
             double sy = clampY(py(y[i]));
             points.append(String.format(Locale.ROOT, i == 0 ? "%.2f,%.2f" : " %.2f,%.2f", sx, sy));
         }
-        svg.append("<polyline class=\"").append(cssClass).append("\" points=\"").append(points).append("\"/>\n");
+        svg.append("<polyline class=\"")
+                .append(cssClass)
+                .append("\" points=\"")
+                .append(points)
+                .append("\"/>\n");
     }
 
     /** A filled region between two curves over the same x samples (a polygon: upper forward, lower back). */
     void envelope(String cssClass, double[] x, double[] lower, double[] upper) {
         StringBuilder points = new StringBuilder();
         for (int i = 0; i < x.length; i++) {
-            points.append(String.format(Locale.ROOT, i == 0 ? "%.2f,%.2f" : " %.2f,%.2f", clampX(px(x[i])),
-                    clampY(py(upper[i]))));
+            points.append(String.format(
+                    Locale.ROOT, i == 0 ? "%.2f,%.2f" : " %.2f,%.2f", clampX(px(x[i])), clampY(py(upper[i]))));
         }
         for (int i = x.length - 1; i >= 0; i--) {
             points.append(String.format(Locale.ROOT, " %.2f,%.2f", clampX(px(x[i])), clampY(py(lower[i]))));
         }
-        svg.append("<polygon class=\"").append(cssClass).append("\" points=\"").append(points).append("\"/>\n");
+        svg.append("<polygon class=\"")
+                .append(cssClass)
+                .append("\" points=\"")
+                .append(points)
+                .append("\"/>\n");
     }
 
     void horizontal(String cssClass, double y, String label) {
         double sy = clampY(py(y));
-        svg.append(String.format(Locale.ROOT, "<line class=\"%s\" x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
-                cssClass, left, sy, left + width, sy));
+        svg.append(String.format(
+                Locale.ROOT,
+                "<line class=\"%s\" x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
+                cssClass,
+                left,
+                sy,
+                left + width,
+                sy));
         if (label != null) {
             text(left + width - 4, sy - 4, "end", label);
         }
@@ -107,8 +143,14 @@ final class SvgPanel {
 
     void vertical(String cssClass, double x, String label) {
         double sx = clampX(px(x));
-        svg.append(String.format(Locale.ROOT, "<line class=\"%s\" x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
-                cssClass, sx, top, sx, top + height));
+        svg.append(String.format(
+                Locale.ROOT,
+                "<line class=\"%s\" x1=\"%.2f\" y1=\"%.2f\" x2=\"%.2f\" y2=\"%.2f\"/>\n",
+                cssClass,
+                sx,
+                top,
+                sx,
+                top + height));
         if (label != null) {
             text(sx + 4, top + 14, "start", label);
         }
@@ -118,24 +160,34 @@ final class SvgPanel {
     void band(String cssClass, double levelA, double levelB) {
         double y1 = clampY(py(Math.max(levelA, levelB)));
         double y2 = clampY(py(Math.min(levelA, levelB)));
-        svg.append(String.format(Locale.ROOT,
+        svg.append(String.format(
+                Locale.ROOT,
                 "<rect class=\"%s\" x=\"%.2f\" y=\"%.2f\" width=\"%.2f\" height=\"%.2f\"/>\n",
-                cssClass, left, y1, width, Math.max(0, y2 - y1)));
+                cssClass,
+                left,
+                y1,
+                width,
+                Math.max(0, y2 - y1)));
     }
 
     void marker(String cssClass, double x, double y, String label) {
         double sx = clampX(px(x));
         double sy = clampY(py(y));
-        svg.append(String.format(Locale.ROOT, "<circle class=\"%s\" cx=\"%.2f\" cy=\"%.2f\" r=\"4\"/>\n",
-                cssClass, sx, sy));
+        svg.append(String.format(
+                Locale.ROOT, "<circle class=\"%s\" cx=\"%.2f\" cy=\"%.2f\" r=\"4\"/>\n", cssClass, sx, sy));
         if (label != null) {
             text(sx + 6, sy - 6, "start", label);
         }
     }
 
     void text(double x, double y, String anchor, String content) {
-        svg.append(String.format(Locale.ROOT, "<text x=\"%.2f\" y=\"%.2f\" text-anchor=\"%s\">%s</text>\n",
-                finite(x), finite(y), anchor, escape(content)));
+        svg.append(String.format(
+                Locale.ROOT,
+                "<text x=\"%.2f\" y=\"%.2f\" text-anchor=\"%s\">%s</text>\n",
+                finite(x),
+                finite(y),
+                anchor,
+                escape(content)));
     }
 
     private double clampX(double x) {
@@ -165,6 +217,9 @@ final class SvgPanel {
     }
 
     static String escape(String text) {
-        return text.replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;").replace("\"", "&quot;");
+        return text.replace("&", "&amp;")
+                .replace("<", "&lt;")
+                .replace(">", "&gt;")
+                .replace("\"", "&quot;");
     }
 }

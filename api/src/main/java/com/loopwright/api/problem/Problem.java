@@ -8,8 +8,14 @@ import java.util.List;
  * computed proposals.
  */
 @JsonInclude(JsonInclude.Include.NON_EMPTY)
-public record Problem(String type, String title, int status, String detail, String instance,
-                      List<FieldError> errors, List<Proposal> proposals) {
+public record Problem(
+        String type,
+        String title,
+        int status,
+        String detail,
+        String instance,
+        List<FieldError> errors,
+        List<Proposal> proposals) {
 
     public static final String MEDIA_TYPE = "application/problem+json";
 

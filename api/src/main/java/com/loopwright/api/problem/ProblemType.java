@@ -11,13 +11,16 @@ public enum ProblemType {
     PAYLOAD_TOO_LARGE(413, "Payload too large", "The body exceeds the documented size cap."),
     UNSUPPORTED_MEDIA_TYPE(415, "Unsupported media type", "Send the body as application/json."),
     INFEASIBLE_SPEC(422, "Infeasible spec", "The plant cannot meet the spec with this method."),
-    UNVERIFIABLE_DESIGN(422, "Design could not be verified",
+    UNVERIFIABLE_DESIGN(
+            422,
+            "Design could not be verified",
             "The design is outside the range where it can be computed and verified in double precision."),
-    CAP_EXCEEDED(422, "Computation cap exceeded",
-            "A requested check would exceed a documented computation cap."),
+    CAP_EXCEEDED(422, "Computation cap exceeded", "A requested check would exceed a documented computation cap."),
     UNSTABLE_LOOP(422, "Unstable loop", "The loop with these gains is not stable, so it cannot be verified."),
     INTERNAL_ERROR(500, "Internal error", "The service failed; the request id identifies it in the logs."),
-    PLANT_MODEL_UNUSABLE(422, "Plant model not usable",
+    PLANT_MODEL_UNUSABLE(
+            422,
+            "Plant model not usable",
             "The plant description is not physical, not controllable, or outside the canonical form."),
     FIT_FAILED(422, "Model fit failed", "The samples do not determine a second-order model."),
     UNAUTHORIZED(401, "Unauthorized", "Send an API key as Authorization: Bearer <key> or X-Api-Key."),
@@ -25,9 +28,11 @@ public enum ProblemType {
     SERVICE_OVERLOADED(503, "Service overloaded", "Every design worker is busy; retry after the Retry-After delay."),
     DEADLINE_EXCEEDED(504, "Compute deadline exceeded", "The design did not finish within the compute deadline."),
     NOT_READY(503, "Not ready", "The service is shutting down or not yet able to take designs."),
-    MALFORMED_HTTP(400, "Malformed HTTP request",
-            "The request line, a header or the body framing is not valid HTTP/1.1."),
-    REQUEST_TIMEOUT(408, "Request timeout",
+    MALFORMED_HTTP(
+            400, "Malformed HTTP request", "The request line, a header or the body framing is not valid HTTP/1.1."),
+    REQUEST_TIMEOUT(
+            408,
+            "Request timeout",
             "The request did not arrive in time; send the body at least at the documented minimum rate."),
     UNSUPPORTED_PROTOCOL(505, "Unsupported protocol", "This service speaks HTTP/1.1 (and HTTP/1.0) only.");
 

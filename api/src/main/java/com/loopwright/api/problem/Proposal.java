@@ -7,5 +7,4 @@ package com.loopwright.api.problem;
  * @param value   the proposed value, in that field's units
  * @param note    what is kept and why
  */
-public record Proposal(String pointer, double value, String note) {
-}
+public record Proposal(String pointer, double value, String note) {}

@@ -1,5 +1,4 @@
 package com.loopwright.api.robustness;
 
 /** Either plusMinusPercent of the nominal value, or an absolute [min, max]. */
-public record ParameterRangeInput(Double plusMinusPercent, Double min, Double max) {
-}
+public record ParameterRangeInput(Double plusMinusPercent, Double min, Double max) {}

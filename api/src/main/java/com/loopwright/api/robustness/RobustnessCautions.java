@@ -12,6 +12,5 @@ public final class RobustnessCautions {
             "A pass here is not a substitute for commissioning tests with reduced gains and limits, for"
                     + " interlocks and safety functions, or for local codes and licensed engineering practice.");
 
-    private RobustnessCautions() {
-    }
+    private RobustnessCautions() {}
 }

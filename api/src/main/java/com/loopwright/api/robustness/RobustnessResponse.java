@@ -9,11 +9,22 @@ import java.util.List;
  * not requested are absent.
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
-public record RobustnessResponse(Acceptance acceptance, Metrics nominal, Boolean nominalMeetsSpec, double horizon,
-                                 Disturbance disturbanceChannel, Margins margins, Uncertainty uncertainty,
-                                 List<DisturbanceResult> disturbances, Saturation saturation, Sampled sampled,
-                                 Delay delay, List<Check> checks, List<Series> timeSeries, List<String> methods,
-                                 List<String> cautions) {
+public record RobustnessResponse(
+        Acceptance acceptance,
+        Metrics nominal,
+        Boolean nominalMeetsSpec,
+        double horizon,
+        Disturbance disturbanceChannel,
+        Margins margins,
+        Uncertainty uncertainty,
+        List<DisturbanceResult> disturbances,
+        Saturation saturation,
+        Sampled sampled,
+        Delay delay,
+        List<Check> checks,
+        List<Series> timeSeries,
+        List<String> methods,
+        List<String> cautions) {
 
     public RobustnessResponse {
         disturbances = List.copyOf(disturbances);
@@ -25,14 +36,17 @@ public record RobustnessResponse(Acceptance acceptance, Metrics nominal, Boolean
 
     /** The limits judged: the spec widened by tolerancePercent of each limit. */
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Acceptance(Double settlingTime, Double riseTime, Double overshootPercent, double settlingBandPercent,
-                             double tolerancePercent, double stepSize) {
-    }
+    public record Acceptance(
+            Double settlingTime,
+            Double riseTime,
+            Double overshootPercent,
+            double settlingBandPercent,
+            double tolerancePercent,
+            double stepSize) {}
 
     /** Step metrics; a time that is not reached within the horizon is absent. */
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Metrics(Double riseTime, Double settlingTime, double overshootPercent, double peakControl) {
-    }
+    public record Metrics(Double riseTime, Double settlingTime, double overshootPercent, double peakControl) {}
 
     /**
      * @param performanceOutput what z is: "z = [rho1 x1, rho2 x2, u]" or "x1"
@@ -40,72 +54,117 @@ public record RobustnessResponse(Acceptance acceptance, Metrics nominal, Boolean
      * @param gamma             the bound it is checked against, if known
      */
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Disturbance(String performanceOutput, double hinfNorm, Double gamma) {
-    }
+    public record Disturbance(String performanceOutput, double hinfNorm, Double gamma) {}
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Margins(Double crossoverFrequency, Double phaseMargin, Double delayMargin, Double gainMargin,
-                          Double gainReductionMargin, double peakSensitivity, Double peakSensitivityFrequency,
-                          double bandwidth, List<FrequencyPointView> response) {
+    public record Margins(
+            Double crossoverFrequency,
+            Double phaseMargin,
+            Double delayMargin,
+            Double gainMargin,
+            Double gainReductionMargin,
+            double peakSensitivity,
+            Double peakSensitivityFrequency,
+            double bandwidth,
+            List<FrequencyPointView> response) {
         public Margins {
             response = List.copyOf(response);
         }
     }
 
-    public record FrequencyPointView(double frequency, double loopGainDb, double loopPhaseDegrees,
-                                     double sensitivityDb, double closedLoopGainDb) {
-    }
+    public record FrequencyPointView(
+            double frequency,
+            double loopGainDb,
+            double loopPhaseDegrees,
+            double sensitivityDb,
+            double closedLoopGainDb) {}
 
-    public record PlantView(double a0, double a1, double b, double d) {
-    }
+    public record PlantView(double a0, double a1, double b, double d) {}
 
-    public record Summary(double min, double median, double max, PlantView worstAt, int count) {
-    }
-
-    @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record CaseView(PlantView plant, boolean stable, Double settlingTime, Double riseTime,
-                           Double overshootPercent, Double peakControl, Double disturbanceGain, boolean meetsSpec) {
-    }
+    public record Summary(double min, double median, double max, PlantView worstAt, int count) {}
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Uncertainty(int cornerCount, int monteCarloSamples, long seed, int unstableCount,
-                              Double meetingFraction, Summary settlingTime, Summary riseTime,
-                              Summary overshootPercent, Summary peakControl, Summary disturbanceGain,
-                              CaseView worstCase, List<CaseView> corners) {
+    public record CaseView(
+            PlantView plant,
+            boolean stable,
+            Double settlingTime,
+            Double riseTime,
+            Double overshootPercent,
+            Double peakControl,
+            Double disturbanceGain,
+            boolean meetsSpec) {}
+
+    @JsonInclude(JsonInclude.Include.NON_NULL)
+    public record Uncertainty(
+            int cornerCount,
+            int monteCarloSamples,
+            long seed,
+            int unstableCount,
+            Double meetingFraction,
+            Summary settlingTime,
+            Summary riseTime,
+            Summary overshootPercent,
+            Summary peakControl,
+            Summary disturbanceGain,
+            CaseView worstCase,
+            List<CaseView> corners) {
         public Uncertainty {
             corners = List.copyOf(corners);
         }
     }
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record DisturbanceResult(String shape, double amplitude, double peakDeviation,
-                                    double integralAbsoluteError, double integralSquaredError, Double recoveryTime,
-                                    double peakControl, double disturbanceEnergy, double outputEnergy,
-                                    double observedGain, boolean withinNorm, Boolean withinGamma) {
-    }
+    public record DisturbanceResult(
+            String shape,
+            double amplitude,
+            double peakDeviation,
+            double integralAbsoluteError,
+            double integralSquaredError,
+            Double recoveryTime,
+            double peakControl,
+            double disturbanceEnergy,
+            double outputEnergy,
+            double observedGain,
+            boolean withinNorm,
+            Boolean withinGamma) {}
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Saturation(double limit, double unsaturatedPeakControl, boolean saturates,
-                             Double largestUnsaturatedStep, boolean diverged, Metrics metrics, Boolean meetsSpec) {
-    }
+    public record Saturation(
+            double limit,
+            double unsaturatedPeakControl,
+            boolean saturates,
+            Double largestUnsaturatedStep,
+            boolean diverged,
+            Metrics metrics,
+            Boolean meetsSpec) {}
 
-    public record GainView(double k1, double k2, double referenceGain) {
-    }
-
-    @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Sampled(double samplePeriod, double spectralRadius, Metrics emulated, Boolean emulatedMeetsSpec, GainView directGain,
-                          Metrics direct, Boolean directMeetsSpec, Double longestSamplePeriod,
-                          boolean longestIsLowerBound, int searchEvaluations) {
-    }
+    public record GainView(double k1, double k2, double referenceGain) {}
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Delay(double inputDelay, double samplePeriod, Double delayMargin, Boolean withinMargin,
-                        boolean diverged, Metrics metrics, Boolean meetsSpec) {
-    }
+    public record Sampled(
+            double samplePeriod,
+            double spectralRadius,
+            Metrics emulated,
+            Boolean emulatedMeetsSpec,
+            GainView directGain,
+            Metrics direct,
+            Boolean directMeetsSpec,
+            Double longestSamplePeriod,
+            boolean longestIsLowerBound,
+            int searchEvaluations) {}
+
+    @JsonInclude(JsonInclude.Include.NON_NULL)
+    public record Delay(
+            double inputDelay,
+            double samplePeriod,
+            Double delayMargin,
+            Boolean withinMargin,
+            boolean diverged,
+            Metrics metrics,
+            Boolean meetsSpec) {}
 
     /** One pass/fail verdict against the acceptance limits. */
-    public record Check(String check, boolean passed, String detail) {
-    }
+    public record Check(String check, boolean passed, String detail) {}
 
     public record Series(String name, List<SeriesPoint> points) {
         public Series {
@@ -113,6 +172,5 @@ public record RobustnessResponse(Acceptance acceptance, Metrics nominal, Boolean
         }
     }
 
-    public record SeriesPoint(double t, double x1, double x2, double u, double w) {
-    }
+    public record SeriesPoint(double t, double x1, double x2, double u, double w) {}
 }

@@ -1,5 +1,4 @@
 package com.loopwright.api.robustness;
 
 /** A sampled implementation: period Ts [s], and whether to search the longest Ts that still meets the spec. */
-public record SamplingInput(Double samplePeriod, Boolean findLongest) {
-}
+public record SamplingInput(Double samplePeriod, Boolean findLongest) {}

@@ -8,5 +8,4 @@ import com.loopwright.solver.robustness.RobustnessOptions;
  * @param options          the solver options
  * @param toleranceFraction the spec is widened by this fraction of each limit before judging
  */
-public record ValidatedVerify(RobustnessOptions options, double toleranceFraction) {
-}
+public record ValidatedVerify(RobustnessOptions options, double toleranceFraction) {}

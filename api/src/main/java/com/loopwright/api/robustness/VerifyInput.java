@@ -14,7 +14,12 @@ import java.util.List;
  * @param timeSeriesPoints  points per returned time series
  * @param tolerancePercent  the limits judged are the spec widened by this percentage of each limit
  */
-public record VerifyInput(UncertaintyInput uncertainty, List<DisturbanceInput> disturbances, Double actuatorLimit,
-                          SamplingInput sampling, Double inputDelay, Integer frequencyPoints, Integer timeSeriesPoints,
-                          Double tolerancePercent) {
-}
+public record VerifyInput(
+        UncertaintyInput uncertainty,
+        List<DisturbanceInput> disturbances,
+        Double actuatorLimit,
+        SamplingInput sampling,
+        Double inputDelay,
+        Integer frequencyPoints,
+        Integer timeSeriesPoints,
+        Double tolerancePercent) {}

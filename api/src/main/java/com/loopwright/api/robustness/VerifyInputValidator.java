@@ -16,7 +16,6 @@ import static com.loopwright.api.robustness.VerifyLimits.MIN_SAMPLE_PERIOD;
 import static com.loopwright.api.robustness.VerifyLimits.MIN_TIME_SERIES_POINTS;
 
 import com.loopwright.api.problem.FieldError;
-import com.loopwright.api.validation.Checks;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.DisturbanceProfile;
 import com.loopwright.solver.robustness.ParameterBox;
@@ -46,8 +45,8 @@ public final class VerifyInputValidator {
             if (uncertainty.monteCarloSamples() != null) {
                 samples = uncertainty.monteCarloSamples();
                 if (samples < 0 || samples > MAX_MONTE_CARLO_SAMPLES) {
-                    errors.add(new FieldError(p + "/monteCarloSamples",
-                            "must be from 0 to " + MAX_MONTE_CARLO_SAMPLES + " (the cap)"));
+                    errors.add(new FieldError(
+                            p + "/monteCarloSamples", "must be from 0 to " + MAX_MONTE_CARLO_SAMPLES + " (the cap)"));
                 }
             }
             if (uncertainty.seed() != null) {
@@ -69,7 +68,8 @@ public final class VerifyInputValidator {
                 }
             }
         }
-        if (verify.actuatorLimit() != null && !(verify.actuatorLimit() > 0 && verify.actuatorLimit() <= MAX_ACTUATOR_LIMIT)) {
+        if (verify.actuatorLimit() != null
+                && !(verify.actuatorLimit() > 0 && verify.actuatorLimit() <= MAX_ACTUATOR_LIMIT)) {
             errors.add(new FieldError(prefix + "/actuatorLimit", "must be positive and at most " + MAX_ACTUATOR_LIMIT));
         }
         Double samplePeriod = null;
@@ -79,7 +79,8 @@ public final class VerifyInputValidator {
             if (samplePeriod == null) {
                 errors.add(new FieldError(prefix + "/sampling/samplePeriod", "required"));
             } else if (!(samplePeriod >= MIN_SAMPLE_PERIOD && samplePeriod <= MAX_TIME_SECONDS)) {
-                errors.add(new FieldError(prefix + "/sampling/samplePeriod",
+                errors.add(new FieldError(
+                        prefix + "/sampling/samplePeriod",
                         "must be from " + MIN_SAMPLE_PERIOD + " to " + fmt(MAX_TIME_SECONDS) + " s"));
             }
             findLongest = Boolean.TRUE.equals(verify.sampling().findLongest());
@@ -89,14 +90,15 @@ public final class VerifyInputValidator {
         }
         int frequencyPoints = verify.frequencyPoints() == null ? 0 : verify.frequencyPoints();
         if (frequencyPoints < 0 || frequencyPoints > MAX_FREQUENCY_POINTS) {
-            errors.add(new FieldError(prefix + "/frequencyPoints", "must be from 0 to " + MAX_FREQUENCY_POINTS
-                    + " (the cap)"));
+            errors.add(new FieldError(
+                    prefix + "/frequencyPoints", "must be from 0 to " + MAX_FREQUENCY_POINTS + " (the cap)"));
         }
         int seriesPoints = verify.timeSeriesPoints() == null ? 0 : verify.timeSeriesPoints();
         if (verify.timeSeriesPoints() != null
                 && (seriesPoints < MIN_TIME_SERIES_POINTS || seriesPoints > MAX_TIME_SERIES_POINTS)) {
-            errors.add(new FieldError(prefix + "/timeSeriesPoints", "must be from " + MIN_TIME_SERIES_POINTS + " to "
-                    + MAX_TIME_SERIES_POINTS + " (the cap)"));
+            errors.add(new FieldError(
+                    prefix + "/timeSeriesPoints",
+                    "must be from " + MIN_TIME_SERIES_POINTS + " to " + MAX_TIME_SERIES_POINTS + " (the cap)"));
         }
         double tolerance = verify.tolerancePercent() == null ? DEFAULT_TOLERANCE_PERCENT : verify.tolerancePercent();
         if (!(tolerance >= 0 && tolerance <= MAX_TOLERANCE_PERCENT)) {
@@ -105,8 +107,19 @@ public final class VerifyInputValidator {
         if (errors.size() > before) {
             return null;
         }
-        return new ValidatedVerify(new RobustnessOptions(box, samples, seed, profiles, verify.actuatorLimit(),
-                samplePeriod, findLongest, verify.inputDelay(), frequencyPoints, seriesPoints), tolerance / 100);
+        return new ValidatedVerify(
+                new RobustnessOptions(
+                        box,
+                        samples,
+                        seed,
+                        profiles,
+                        verify.actuatorLimit(),
+                        samplePeriod,
+                        findLongest,
+                        verify.inputDelay(),
+                        frequencyPoints,
+                        seriesPoints),
+                tolerance / 100);
     }
 
     /** {min, max} of one parameter, or null with an error. Absent: fixed at nominal. */
@@ -123,15 +136,16 @@ public final class VerifyInputValidator {
         if (relative) {
             double percent = input.plusMinusPercent();
             if (!(percent >= 0 && percent <= MAX_PLUS_MINUS_PERCENT)) {
-                errors.add(new FieldError(pointer + "/plusMinusPercent",
-                        "must be from 0 to " + fmt(MAX_PLUS_MINUS_PERCENT)));
+                errors.add(new FieldError(
+                        pointer + "/plusMinusPercent", "must be from 0 to " + fmt(MAX_PLUS_MINUS_PERCENT)));
                 return null;
             }
             double spread = Math.abs(nominal) * percent / 100;
             return new double[] {nominal - spread, nominal + spread};
         }
         if (input.min() == null || input.max() == null) {
-            errors.add(new FieldError(pointer + (input.min() == null ? "/min" : "/max"), "required with the other bound"));
+            errors.add(
+                    new FieldError(pointer + (input.min() == null ? "/min" : "/max"), "required with the other bound"));
             return null;
         }
         double limit = 1e8;
@@ -179,33 +193,36 @@ public final class VerifyInputValidator {
             case "step" -> profile = errors.size() > before ? null : new DisturbanceProfile.Step(amplitude, start);
             case "pulse" -> {
                 if (input.duration() == null || !(input.duration() > 0 && input.duration() <= MAX_TIME_SECONDS)) {
-                    errors.add(new FieldError(pointer + "/duration", "required, positive, at most "
-                            + fmt(MAX_TIME_SECONDS) + " s"));
+                    errors.add(new FieldError(
+                            pointer + "/duration", "required, positive, at most " + fmt(MAX_TIME_SECONDS) + " s"));
                 }
-                profile = errors.size() > before ? null
+                profile = errors.size() > before
+                        ? null
                         : new DisturbanceProfile.Pulse(amplitude, start, input.duration());
             }
             case "sinusoid" -> {
                 if (input.frequency() == null || !(input.frequency() > 0 && input.frequency() <= MAX_FREQUENCY)) {
-                    errors.add(new FieldError(pointer + "/frequency", "required, positive, at most "
-                            + fmt(MAX_FREQUENCY) + " rad/s"));
+                    errors.add(new FieldError(
+                            pointer + "/frequency", "required, positive, at most " + fmt(MAX_FREQUENCY) + " rad/s"));
                 }
                 profile = errors.size() > before ? null : new DisturbanceProfile.Sinusoid(amplitude, input.frequency());
             }
             default -> {
                 if (input.holdTime() == null || !(input.holdTime() > 0 && input.holdTime() <= MAX_TIME_SECONDS)) {
-                    errors.add(new FieldError(pointer + "/holdTime", "required, positive, at most "
-                            + fmt(MAX_TIME_SECONDS) + " s"));
+                    errors.add(new FieldError(
+                            pointer + "/holdTime", "required, positive, at most " + fmt(MAX_TIME_SECONDS) + " s"));
                 }
-                profile = errors.size() > before ? null : new DisturbanceProfile.BoundedRandom(amplitude,
-                        input.holdTime(), input.seed() == null ? DEFAULT_SEED : input.seed());
+                profile = errors.size() > before
+                        ? null
+                        : new DisturbanceProfile.BoundedRandom(
+                                amplitude, input.holdTime(), input.seed() == null ? DEFAULT_SEED : input.seed());
             }
         }
         return profile;
     }
 
-    private static void notFor(List<FieldError> errors, String pointer, String member, Double value,
-                               List<String> allowed, String shape) {
+    private static void notFor(
+            List<FieldError> errors, String pointer, String member, Double value, List<String> allowed, String shape) {
         if (value != null && !allowed.contains(member)) {
             errors.add(new FieldError(pointer + "/" + member, "not used by the " + shape + " shape"));
         }
@@ -223,7 +240,8 @@ public final class VerifyInputValidator {
     }
 
     private static String fmt(double value) {
-        return value == Math.rint(value) && Math.abs(value) < 1e6 ? String.valueOf((long) value)
+        return value == Math.rint(value) && Math.abs(value) < 1e6
+                ? String.valueOf((long) value)
                 : String.valueOf(value);
     }
 }

@@ -28,6 +28,5 @@ public final class VerifyLimits {
         return errors.size() <= MAX_FIELD_ERRORS ? errors : errors.subList(0, MAX_FIELD_ERRORS);
     }
 
-    private VerifyLimits() {
-    }
+    private VerifyLimits() {}
 }

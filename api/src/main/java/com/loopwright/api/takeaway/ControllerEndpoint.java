@@ -30,8 +30,7 @@ import java.util.Optional;
  * POST /v1/designs/controllers/{format}, one format: the design, its emulated sampled law and the sampled loop's
  * step from the solver, written as IEC 61131-3 Structured Text, C, or a JSON parameter set. Stateless.
  */
-final class ControllerEndpoint
-        implements Endpoint<ControllerRequest, ControllerEndpoint.Validated, ControllerExport> {
+final class ControllerEndpoint implements Endpoint<ControllerRequest, ControllerEndpoint.Validated, ControllerExport> {
 
     static final String STRUCTURED_TEXT = "text/plain; charset=utf-8";
     static final String C_SOURCE = "text/x-c; charset=utf-8";
@@ -42,8 +41,7 @@ final class ControllerEndpoint
     private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
     private final ExportPipeline exports = new ExportPipeline();
 
-    record Validated(ValidatedDesign design, double samplePeriodSeconds, double commandLimit) {
-    }
+    record Validated(ValidatedDesign design, double samplePeriodSeconds, double commandLimit) {}
 
     /** @param format one of {@link Takeaways#FORMATS} */
     ControllerEndpoint(String format) {
@@ -58,8 +56,8 @@ final class ControllerEndpoint
     @Override
     public Validated validate(ControllerRequest request) {
         if (request == null) {
-            throw new InvalidRequestException(List.of(new FieldError("", "a JSON object with design,"
-                    + " samplePeriodSeconds and commandLimit")));
+            throw new InvalidRequestException(List.of(
+                    new FieldError("", "a JSON object with design," + " samplePeriodSeconds and commandLimit")));
         }
         List<FieldError> errors = new ArrayList<>();
         Double period = request.samplePeriodSeconds();
@@ -67,14 +65,16 @@ final class ControllerEndpoint
             errors.add(new FieldError("/samplePeriodSeconds", "required"));
         } else if (!(period >= TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS
                 && period <= TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS)) {
-            errors.add(new FieldError("/samplePeriodSeconds", "must be a finite number from "
-                    + TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS + " to " + TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS));
+            errors.add(new FieldError(
+                    "/samplePeriodSeconds",
+                    "must be a finite number from " + TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS + " to "
+                            + TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS));
         }
         if (request.commandLimit() == null) {
             errors.add(new FieldError("/commandLimit", "required"));
         } else {
-            TakeawayDesign.optionalPositive(errors, "/commandLimit", request.commandLimit(),
-                    TakeawayLimits.MAX_COMMAND_LIMIT);
+            TakeawayDesign.optionalPositive(
+                    errors, "/commandLimit", request.commandLimit(), TakeawayLimits.MAX_COMMAND_LIMIT);
         }
         ValidatedDesign design = designRequests.validate(request.design(), errors);
         return new Validated(design, period, request.commandLimit());
@@ -83,18 +83,20 @@ final class ControllerEndpoint
     @Override
     public ControllerExport compute(Validated validated) {
         ValidatedDesign design = validated.design();
-        DesignReport report = designs.design(design.plant(), design.spec(), design.gammaChoice(), design.stepSize(),
-                design.bandFraction());
+        DesignReport report = designs.design(
+                design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
         return exports.export(report, validated.samplePeriodSeconds(), validated.commandLimit());
     }
 
     @Override
     public Object respond(Validated validated, ControllerExport export) {
         return switch (format) {
-            case "structured-text" -> new Text(STRUCTURED_TEXT, exports.structuredText(export, TITLE,
-                    headerLines(validated, export), Cautions.ALL));
-            case "c" -> new Text(C_SOURCE, exports.cSource(export, TITLE, headerLines(validated, export),
-                    Cautions.ALL));
+            case "structured-text" ->
+                new Text(
+                        STRUCTURED_TEXT,
+                        exports.structuredText(export, TITLE, headerLines(validated, export), Cautions.ALL));
+            case "c" ->
+                new Text(C_SOURCE, exports.cSource(export, TITLE, headerLines(validated, export), Cautions.ALL));
             default -> parameters(export);
         };
     }
@@ -120,13 +122,26 @@ final class ControllerEndpoint
         StepMetrics continuous = report.stepMetrics();
         return new ControllerParameters(
                 "u = clamp(kr*r - (k1*x1 + k2*x2), -commandLimit, commandLimit), evaluated once per sample period"
-                        + " and held until the next", "emulation", law.samplePeriodSeconds(), law.positionGain(),
-                law.velocityGain(), law.referenceGain(), law.commandLimit(), law.sampledSpectralRadius(),
-                law.periodPerTimeConstant(), report.design().gamma(),
-                new RobustnessResponse.Metrics(continuous.riseTimeSeconds(), continuous.settlingTimeSeconds(),
-                        continuous.overshootPercent(), continuous.peakControl()),
-                export.sampledStep().map(m -> new RobustnessResponse.Metrics(m.riseTimeSeconds(),
-                        m.settlingTimeSeconds(), m.overshootPercent(), m.peakControl())).orElse(null), Cautions.ALL);
+                        + " and held until the next",
+                "emulation",
+                law.samplePeriodSeconds(),
+                law.positionGain(),
+                law.velocityGain(),
+                law.referenceGain(),
+                law.commandLimit(),
+                law.sampledSpectralRadius(),
+                law.periodPerTimeConstant(),
+                report.design().gamma(),
+                new RobustnessResponse.Metrics(
+                        continuous.riseTimeSeconds(),
+                        continuous.settlingTimeSeconds(),
+                        continuous.overshootPercent(),
+                        continuous.peakControl()),
+                export.sampledStep()
+                        .map(m -> new RobustnessResponse.Metrics(
+                                m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(), m.peakControl()))
+                        .orElse(null),
+                Cautions.ALL);
     }
 
     /** The header's lines: the plant, the specs, the target, the continuous and the sampled step. */
@@ -139,21 +154,41 @@ final class ControllerEndpoint
         StepMetrics metrics = report.stepMetrics();
         String time = report.spec().timeSpec() instanceof TimeSpec.SettlingTime s
                 ? String.format(Locale.ROOT, "settling time %.6g s (%.3g%% band)", s.seconds(), 100 * s.bandFraction())
-                : String.format(Locale.ROOT, "rise time (10-90%%) %.6g s",
+                : String.format(
+                        Locale.ROOT,
+                        "rise time (10-90%%) %.6g s",
                         ((TimeSpec.RiseTime) report.spec().timeSpec()).seconds());
         List<String> lines = List.of(
-                "Plant: x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w with a0 = " + p.a0() + ", a1 = " + p.a1()
-                        + ", b = " + p.b() + ", d = " + p.d(),
-                String.format(Locale.ROOT, "Specs: %s, overshoot %.6g%%", time, 100 * report.spec().overshootFraction()),
-                String.format(Locale.ROOT, "Target: damping ratio %.6g, natural frequency %.6g rad/s",
-                        target.dampingRatio(), target.naturalFrequencyRadPerSec()),
-                String.format(Locale.ROOT, "Simulated (continuous, unclamped): rise %.5g s, settling %.5g s,"
-                        + " overshoot %.5g%%, peak |u| %.5g", metrics.riseTimeSeconds(), metrics.settlingTimeSeconds(),
-                        metrics.overshootPercent(), metrics.peakControl()),
-                sampledStep.map(m -> String.format(Locale.ROOT, "Simulated (sampled at T = %s s, zero-order hold,"
-                        + " unclamped, between samples): rise %s, settling %s, overshoot %.5g%%, peak |u| %.5g",
-                        law.samplePeriodSeconds(), seconds(m.riseTimeSeconds()), seconds(m.settlingTimeSeconds()),
-                        m.overshootPercent(), m.peakControl()))
+                "Plant: x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w with a0 = " + p.a0() + ", a1 = " + p.a1() + ", b = "
+                        + p.b() + ", d = " + p.d(),
+                String.format(
+                        Locale.ROOT,
+                        "Specs: %s, overshoot %.6g%%",
+                        time,
+                        100 * report.spec().overshootFraction()),
+                String.format(
+                        Locale.ROOT,
+                        "Target: damping ratio %.6g, natural frequency %.6g rad/s",
+                        target.dampingRatio(),
+                        target.naturalFrequencyRadPerSec()),
+                String.format(
+                        Locale.ROOT,
+                        "Simulated (continuous, unclamped): rise %.5g s, settling %.5g s,"
+                                + " overshoot %.5g%%, peak |u| %.5g",
+                        metrics.riseTimeSeconds(),
+                        metrics.settlingTimeSeconds(),
+                        metrics.overshootPercent(),
+                        metrics.peakControl()),
+                sampledStep
+                        .map(m -> String.format(
+                                Locale.ROOT,
+                                "Simulated (sampled at T = %s s, zero-order hold,"
+                                        + " unclamped, between samples): rise %s, settling %s, overshoot %.5g%%, peak |u| %.5g",
+                                law.samplePeriodSeconds(),
+                                seconds(m.riseTimeSeconds()),
+                                seconds(m.settlingTimeSeconds()),
+                                m.overshootPercent(),
+                                m.peakControl()))
                         .orElse("Simulated (sampled): not simulated (the sampled loop diverges or the period is too"
                                 + " short to simulate over the horizon)"),
                 "Certified: " + report.verification().certified());

@@ -1,7 +1,7 @@
 package com.loopwright.api.takeaway;
 
-import com.loopwright.api.robustness.RobustnessResponse;
 import com.fasterxml.jackson.annotation.JsonInclude;
+import com.loopwright.api.robustness.RobustnessResponse;
 import java.util.List;
 
 /**
@@ -23,11 +23,20 @@ import java.util.List;
  * @param cautions              safety cautions
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
-public record ControllerParameters(String law, String discretization, double samplePeriodSeconds,
-                                   double positionGain, double velocityGain, double referenceGain,
-                                   double commandLimit, double sampledSpectralRadius, double periodPerTimeConstant,
-                                   double gamma, RobustnessResponse.Metrics continuousStep,
-                                   RobustnessResponse.Metrics sampledStep, List<String> cautions) {
+public record ControllerParameters(
+        String law,
+        String discretization,
+        double samplePeriodSeconds,
+        double positionGain,
+        double velocityGain,
+        double referenceGain,
+        double commandLimit,
+        double sampledSpectralRadius,
+        double periodPerTimeConstant,
+        double gamma,
+        RobustnessResponse.Metrics continuousStep,
+        RobustnessResponse.Metrics sampledStep,
+        List<String> cautions) {
 
     public ControllerParameters {
         cautions = List.copyOf(cautions);

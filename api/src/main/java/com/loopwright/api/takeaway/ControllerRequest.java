@@ -9,5 +9,4 @@ import com.loopwright.api.design.DesignRequest;
  * @param samplePeriodSeconds period of the controller's cyclic task [s]
  * @param commandLimit        actuator limit |u| the generated code clamps to [u units]
  */
-public record ControllerRequest(DesignRequest design, Double samplePeriodSeconds, Double commandLimit) {
-}
+public record ControllerRequest(DesignRequest design, Double samplePeriodSeconds, Double commandLimit) {}

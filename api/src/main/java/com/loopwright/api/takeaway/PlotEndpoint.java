@@ -1,11 +1,6 @@
 package com.loopwright.api.takeaway;
 
 import com.loopwright.api.design.ValidatedDesign;
-import com.loopwright.api.validation.FieldLimits;
-import com.loopwright.api.robustness.ValidatedVerify;
-import com.loopwright.api.robustness.VerifyInputValidator;
-import com.loopwright.api.robustness.VerifyLimits;
-import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.endpoint.FailureTable;
@@ -14,6 +9,11 @@ import com.loopwright.api.plot.DesignFigures;
 import com.loopwright.api.plot.Figure;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
+import com.loopwright.api.robustness.ValidatedVerify;
+import com.loopwright.api.robustness.VerifyInputValidator;
+import com.loopwright.api.robustness.VerifyLimits;
+import com.loopwright.api.validation.FieldLimits;
+import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.pipeline.BodeData;
 import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
@@ -49,16 +49,15 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
      * @param verify       the band's parameter box and samples (uncertainty band only)
      * @param bandErrors   why the band cannot be drawn from this request; reported once the design is feasible
      */
-    record Validated(ValidatedDesign design, OptionalDouble commandLimit, ValidatedVerify verify,
-                     List<FieldError> bandErrors) {
+    record Validated(
+            ValidatedDesign design, OptionalDouble commandLimit, ValidatedVerify verify, List<FieldError> bandErrors) {
         Validated {
             bandErrors = List.copyOf(bandErrors);
         }
     }
 
     /** The design and the data of one figure (the fields the figure does not draw are null). */
-    record Result(DesignReport report, StepSeries step, BodeData bode, StepEnvelope.Band band) {
-    }
+    record Result(DesignReport report, StepSeries step, BodeData bode, StepEnvelope.Band band) {}
 
     PlotEndpoint(Figure figure) {
         this.figure = figure;
@@ -75,29 +74,34 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
             throw new InvalidRequestException(List.of(new FieldError("", "a JSON object with design")));
         }
         List<FieldError> errors = new ArrayList<>();
-        TakeawayDesign.optionalPositive(errors, "/commandLimit", request.commandLimit(),
-                TakeawayLimits.MAX_COMMAND_LIMIT);
+        TakeawayDesign.optionalPositive(
+                errors, "/commandLimit", request.commandLimit(), TakeawayLimits.MAX_COMMAND_LIMIT);
         ValidatedDesign design = designRequests.validate(request.design(), errors);
-        OptionalDouble limit = request.commandLimit() == null ? OptionalDouble.empty()
-                : OptionalDouble.of(request.commandLimit());
+        OptionalDouble limit =
+                request.commandLimit() == null ? OptionalDouble.empty() : OptionalDouble.of(request.commandLimit());
         if (figure != Figure.UNCERTAINTY_BAND) {
             return new Validated(design, limit, null, List.of());
         }
         if (request.design().verify() == null || request.design().verify().uncertainty() == null) {
-            return new Validated(design, limit, null, List.of(new FieldError(UNCERTAINTY_POINTER,
-                    "required for the uncertainty-band figure: the parameter ranges to sweep")));
+            return new Validated(
+                    design,
+                    limit,
+                    null,
+                    List.of(new FieldError(
+                            UNCERTAINTY_POINTER,
+                            "required for the uncertainty-band figure: the parameter ranges to sweep")));
         }
         List<FieldError> verifyErrors = new ArrayList<>();
-        ValidatedVerify verify = verifyValidator.validate(request.design().verify(), design.plant(),
-                TakeawayDesign.PREFIX + "/verify", verifyErrors);
+        ValidatedVerify verify = verifyValidator.validate(
+                request.design().verify(), design.plant(), TakeawayDesign.PREFIX + "/verify", verifyErrors);
         return new Validated(design, limit, verify, verify == null ? VerifyLimits.capped(verifyErrors) : List.of());
     }
 
     @Override
     public Result compute(Validated validated) {
         ValidatedDesign design = validated.design();
-        DesignReport report = designs.design(design.plant(), design.spec(), design.gammaChoice(), design.stepSize(),
-                design.bandFraction());
+        DesignReport report = designs.design(
+                design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
         if (!validated.bandErrors().isEmpty()) {
             throw new InvalidRequestException(validated.bandErrors());
         }
@@ -106,8 +110,11 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
             case BODE -> new Result(report, null, data.bode(report), null);
             case UNCERTAINTY_BAND -> {
                 RobustnessOptions options = validated.verify().options();
-                yield new Result(report, null, null, data.band(report, options.parameterBox(),
-                        options.monteCarloSamples(), options.seed()));
+                yield new Result(
+                        report,
+                        null,
+                        null,
+                        data.band(report, options.parameterBox(), options.monteCarloSamples(), options.seed()));
             }
         };
     }
@@ -119,8 +126,11 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
             case STEP_RESPONSE -> figures.stepResponse(report, result.step());
             case CONTROL_EFFORT -> figures.controlEffort(report, result.step(), validated.commandLimit());
             case BODE -> figures.bode(report, result.bode());
-            case UNCERTAINTY_BAND -> figures.uncertaintyBand(report, result.band(),
-                    ranges(validated.verify().options().parameterBox()));
+            case UNCERTAINTY_BAND ->
+                figures.uncertaintyBand(
+                        report,
+                        result.band(),
+                        ranges(validated.verify().options().parameterBox()));
         };
         return new Text(SVG, svg);
     }
@@ -141,12 +151,18 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
     }
 
     private static String ranges(ParameterBox box) {
-        return String.format(Locale.ROOT, "a0 %s, a1 %s, b %s, d %s", range(box.a0Min(), box.a0Max()),
-                range(box.a1Min(), box.a1Max()), range(box.bMin(), box.bMax()), range(box.dMin(), box.dMax()));
+        return String.format(
+                Locale.ROOT,
+                "a0 %s, a1 %s, b %s, d %s",
+                range(box.a0Min(), box.a0Max()),
+                range(box.a1Min(), box.a1Max()),
+                range(box.bMin(), box.bMax()),
+                range(box.dMin(), box.dMax()));
     }
 
     private static String range(double low, double high) {
-        return low == high ? String.format(Locale.ROOT, "%.4g", low)
+        return low == high
+                ? String.format(Locale.ROOT, "%.4g", low)
                 : String.format(Locale.ROOT, "%.4g..%.4g", low, high);
     }
 }

@@ -8,5 +8,4 @@ import com.loopwright.api.design.DesignRequest;
  * @param design       the design request, exactly as POST /v1/designs takes it
  * @param commandLimit optional actuator limit |u| drawn on the control-effort figure [u units]
  */
-public record PlotRequest(DesignRequest design, Double commandLimit) {
-}
+public record PlotRequest(DesignRequest design, Double commandLimit) {}

@@ -3,9 +3,9 @@ package com.loopwright.api.takeaway;
 import com.loopwright.api.design.DesignRequest;
 import com.loopwright.api.design.DesignRequestValidator;
 import com.loopwright.api.design.ValidatedDesign;
-import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.validation.InvalidRequestException;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -17,8 +17,8 @@ final class TakeawayDesign {
 
     static final String PREFIX = "/design";
     /** Where the failures of a nested design point: under /design; an unstable band blames the box. */
-    static final FailureContext CONTEXT = new FailureContext(PREFIX, "/spec/settlingTime", PREFIX + "/verify",
-            PREFIX + "/verify/uncertainty");
+    static final FailureContext CONTEXT =
+            new FailureContext(PREFIX, "/spec/settlingTime", PREFIX + "/verify", PREFIX + "/verify/uncertainty");
 
     private final DesignRequestValidator validator = new DesignRequestValidator();
 

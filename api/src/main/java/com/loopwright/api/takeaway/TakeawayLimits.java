@@ -10,6 +10,5 @@ public final class TakeawayLimits {
     /** Largest actuator limit in u units (any realistic drive or valve command is far below). */
     public static final double MAX_COMMAND_LIMIT = 1e9;
 
-    private TakeawayLimits() {
-    }
+    private TakeawayLimits() {}
 }

@@ -31,10 +31,10 @@ public final class Takeaways {
 
     public Takeaways(EndpointRunner runner) {
         this.runner = runner;
-        this.plots = Arrays.stream(Figure.values())
-                .collect(Collectors.toUnmodifiableMap(Figure::slug, PlotEndpoint::new));
-        this.controllers = FORMATS.stream()
-                .collect(Collectors.toUnmodifiableMap(Function.identity(), ControllerEndpoint::new));
+        this.plots =
+                Arrays.stream(Figure.values()).collect(Collectors.toUnmodifiableMap(Figure::slug, PlotEndpoint::new));
+        this.controllers =
+                FORMATS.stream().collect(Collectors.toUnmodifiableMap(Function.identity(), ControllerEndpoint::new));
     }
 
     /** POST /v1/designs/plots/{figure}. */
@@ -51,8 +51,8 @@ public final class Takeaways {
     public Reply controller(String format, byte[] body) {
         ControllerEndpoint endpoint = controllers.get(format);
         if (endpoint == null) {
-            return Reply.failure(ProblemType.NOT_FOUND.problem("no controller format '" + format + "'; formats are "
-                    + String.join(", ", FORMATS)));
+            return Reply.failure(ProblemType.NOT_FOUND.problem(
+                    "no controller format '" + format + "'; formats are " + String.join(", ", FORMATS)));
         }
         return runner.run(endpoint, body);
     }

@@ -31,9 +31,8 @@ public final class FieldLimits {
     public static final int MAX_NUMERATOR_COEFFICIENTS = 3;
 
     /** The spec ranges above, for the solver's proposals (a proposal is always a request these limits accept). */
-    public static final SpecRanges SPEC_RANGES = new SpecRanges(MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT,
-            MIN_TIME_SECONDS, MAX_TIME_SECONDS, MAX_GAMMA);
+    public static final SpecRanges SPEC_RANGES =
+            new SpecRanges(MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT, MIN_TIME_SECONDS, MAX_TIME_SECONDS, MAX_GAMMA);
 
-    private FieldLimits() {
-    }
+    private FieldLimits() {}
 }

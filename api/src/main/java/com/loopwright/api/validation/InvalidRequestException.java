@@ -9,7 +9,10 @@ public final class InvalidRequestException extends RuntimeException {
     private final transient List<FieldError> errors;
 
     public InvalidRequestException(List<FieldError> errors) {
-        super(errors.isEmpty() ? "invalid request" : errors.get(0).pointer() + ": " + errors.get(0).detail());
+        super(
+                errors.isEmpty()
+                        ? "invalid request"
+                        : errors.get(0).pointer() + ": " + errors.get(0).detail());
         this.errors = List.copyOf(errors);
     }
 

@@ -17,6 +17,12 @@ import com.loopwright.solver.robustness.AcceptanceLimits;
  * @param gamma       bound to check the disturbance gain against, or null
  * @param verify      the checks
  */
-public record ValidatedVerification(CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
-                                    Double rho1, Double rho2, Double gamma, ValidatedVerify verify) {
-}
+public record ValidatedVerification(
+        CanonicalPlant plant,
+        FeedbackGains gains,
+        double stepSize,
+        AcceptanceLimits limits,
+        Double rho1,
+        Double rho2,
+        Double gamma,
+        ValidatedVerify verify) {}

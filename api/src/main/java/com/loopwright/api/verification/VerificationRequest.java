@@ -4,13 +4,10 @@ import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.robustness.VerifyInput;
 import com.loopwright.api.validation.SpecInput;
 
-import com.loopwright.api.plant.CanonicalPlantInput;
-
 /**
  * Body of POST /v1/verifications: a plant, gains the caller already has, optional specs to judge pass/fail
  * (overshootPercent, settlingTime or riseTime, settlingBandPercent, stepSize), optional performance weights, and the
  * checks to run.
  */
-public record VerificationRequest(CanonicalPlantInput plant, GainInput gain, SpecInput spec, PerformanceInput performance,
-                                  VerifyInput verify) {
-}
+public record VerificationRequest(
+        CanonicalPlantInput plant, GainInput gain, SpecInput spec, PerformanceInput performance, VerifyInput verify) {}

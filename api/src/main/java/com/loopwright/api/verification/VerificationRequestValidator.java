@@ -104,16 +104,25 @@ public final class VerificationRequestValidator {
             throw new InvalidRequestException(VerifyLimits.capped(errors));
         }
         CanonicalPlant canonical = new CanonicalPlant(plant.a0(), plant.a1(), plant.b(), plant.d());
-        ValidatedVerify verify = verifyValidator.validate(request.verify() == null
-                ? new VerifyInput(null, null, null, null, null, null, null, null) : request.verify(), canonical,
-                "/verify", errors);
+        ValidatedVerify verify = verifyValidator.validate(
+                request.verify() == null
+                        ? new VerifyInput(null, null, null, null, null, null, null, null)
+                        : request.verify(),
+                canonical,
+                "/verify",
+                errors);
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(VerifyLimits.capped(errors));
         }
-        return new ValidatedVerification(canonical, new FeedbackGains(gain.k1(), gain.k2(), gain.referenceGain()), step,
+        return new ValidatedVerification(
+                canonical,
+                new FeedbackGains(gain.k1(), gain.k2(), gain.referenceGain()),
+                step,
                 new AcceptanceLimits(settling, rise, overshoot, band),
-                performance == null ? null : performance.rho1(), performance == null ? null : performance.rho2(),
-                performance == null ? null : performance.gamma(), verify);
+                performance == null ? null : performance.rho1(),
+                performance == null ? null : performance.rho2(),
+                performance == null ? null : performance.gamma(),
+                verify);
     }
 
     private static void range(List<FieldError> errors, String pointer, Double value, double min, double max) {
@@ -121,5 +130,4 @@ public final class VerificationRequestValidator {
             errors.add(new FieldError(pointer, "must be a finite number from " + min + " to " + max));
         }
     }
-
 }

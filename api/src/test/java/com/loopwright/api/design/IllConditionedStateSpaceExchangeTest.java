@@ -1,11 +1,10 @@
 package com.loopwright.api.design;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
 import java.nio.charset.StandardCharsets;
 import java.util.stream.StreamSupport;
 import org.junit.jupiter.api.Test;
@@ -27,10 +26,13 @@ class IllConditionedStateSpaceExchangeTest {
                 + "\"spec\":{\"settlingTime\":0.01,\"overshootPercent\":1}}";
         Answer outcome = Answer.design(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
-        double condition = outcome.body().at("/model/stateSpace/controllabilityCondition").asDouble();
+        double condition =
+                outcome.body().at("/model/stateSpace/controllabilityCondition").asDouble();
         assertEquals(3.334e10, condition, 0.001e10);
-        assertTrue(StreamSupport.stream(outcome.body().at("/notes").spliterator(), false).map(JsonNode::asText)
-                .anyMatch(note -> note.contains("controllability matrix") && note.contains("3.33e+10")),
+        assertTrue(
+                StreamSupport.stream(outcome.body().at("/notes").spliterator(), false)
+                        .map(JsonNode::asText)
+                        .anyMatch(note -> note.contains("controllability matrix") && note.contains("3.33e+10")),
                 () -> outcome.body().at("/notes").toString());
     }
 
@@ -40,8 +42,10 @@ class IllConditionedStateSpaceExchangeTest {
                 + "\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":1}}";
         Answer outcome = Answer.design(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
-        assertTrue(outcome.body().at("/model/stateSpace/controllabilityCondition").asDouble() < 100);
-        assertTrue(StreamSupport.stream(outcome.body().at("/notes").spliterator(), false).map(JsonNode::asText)
+        assertTrue(
+                outcome.body().at("/model/stateSpace/controllabilityCondition").asDouble() < 100);
+        assertTrue(StreamSupport.stream(outcome.body().at("/notes").spliterator(), false)
+                .map(JsonNode::asText)
                 .noneMatch(note -> note.contains("controllability matrix")));
     }
 }

@@ -1,11 +1,10 @@
 package com.loopwright.api.design;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
 import java.nio.charset.StandardCharsets;
 import org.junit.jupiter.api.Test;
 
@@ -28,9 +27,21 @@ class PlantFormExchangeTest {
     }
 
     private static void assertSameDesign(JsonNode expected, JsonNode actual) {
-        for (String pointer : new String[] {"/plant/a0", "/plant/a1", "/plant/b", "/plant/d", "/gain/k1", "/gain/k2",
-                "/gain/referenceGain", "/riccati/p11", "/riccati/p12", "/riccati/p22", "/gamma", "/weights/rho1",
-                "/weights/rho2"}) {
+        for (String pointer : new String[] {
+            "/plant/a0",
+            "/plant/a1",
+            "/plant/b",
+            "/plant/d",
+            "/gain/k1",
+            "/gain/k2",
+            "/gain/referenceGain",
+            "/riccati/p11",
+            "/riccati/p12",
+            "/riccati/p22",
+            "/gamma",
+            "/weights/rho1",
+            "/weights/rho2"
+        }) {
             double e = expected.at(pointer).asDouble();
             assertEquals(e, actual.at(pointer).asDouble(), 1e-12 * Math.max(1, Math.abs(e)), pointer);
         }
@@ -43,13 +54,15 @@ class PlantFormExchangeTest {
     void rotaryAxisDesignsLikeItsCanonicalCoefficients() {
         JsonNode viaForm = ok("{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,"
                 + "\"torqueConstant\":0.12,\"gearRatio\":10}");
-        JsonNode viaCanonical = ok("{\"a0\":0,\"a1\":%s,\"b\":%s,\"d\":%s}".formatted(0.002 / 0.004,
-                10 * 0.12 / 0.004, 1 / 0.004));
+        JsonNode viaCanonical =
+                ok("{\"a0\":0,\"a1\":%s,\"b\":%s,\"d\":%s}".formatted(0.002 / 0.004, 10 * 0.12 / 0.004, 1 / 0.004));
         assertSameDesign(viaCanonical, viaForm);
         assertEquals("rotaryAxis", viaForm.at("/model/form").asText());
         assertEquals("A", viaForm.at("/model/units/u").asText());
         assertEquals(0, viaForm.at("/model/physicalLaw/setpointFeedforward").asDouble());
-        assertEquals(viaForm.at("/gain/k1").asDouble(), viaForm.at("/model/physicalLaw/positionGain").asDouble());
+        assertEquals(
+                viaForm.at("/gain/k1").asDouble(),
+                viaForm.at("/model/physicalLaw/positionGain").asDouble());
         assertEquals("canonical", viaCanonical.at("/model/form").asText());
     }
 
@@ -57,14 +70,17 @@ class PlantFormExchangeTest {
     @Test
     void massSpringDamperDesignsLikeItsCanonicalCoefficientsAndHoldsTheSpring() {
         JsonNode viaForm = ok("{\"form\":\"massSpringDamper\",\"mass\":2.5,\"damping\":4,\"stiffness\":150}");
-        JsonNode viaCanonical = ok("{\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s}".formatted(150 / 2.5, 4 / 2.5,
-                1 / 2.5, 1 / 2.5));
+        JsonNode viaCanonical =
+                ok("{\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s}".formatted(150 / 2.5, 4 / 2.5, 1 / 2.5, 1 / 2.5));
         assertSameDesign(viaCanonical, viaForm);
         // kr = k1 + a0/b, and a0/b = k: the feedforward is the spring force per metre of setpoint.
         JsonNode law = viaForm.at("/model/physicalLaw");
         assertEquals(150, law.get("setpointFeedforward").asDouble(), 1e-10);
-        assertEquals(law.get("referenceGain").asDouble(), law.get("positionGain").asDouble()
-                + law.get("setpointFeedforward").asDouble(), 1e-10 * law.get("referenceGain").asDouble());
+        assertEquals(
+                law.get("referenceGain").asDouble(),
+                law.get("positionGain").asDouble()
+                        + law.get("setpointFeedforward").asDouble(),
+                1e-10 * law.get("referenceGain").asDouble());
     }
 
     // source: K wn^2/(s^2 + 2 zeta wn s + wn^2) in phase variables (any control textbook). Tank-level loop.
@@ -72,8 +88,8 @@ class PlantFormExchangeTest {
     void transferFunctionFormsDesignLikeTheirCanonicalCoefficients() {
         JsonNode viaGain = ok("{\"form\":\"secondOrderTransferFunction\",\"gain\":0.8,\"naturalFrequency\":0.5,"
                 + "\"dampingRatio\":0.9}");
-        JsonNode viaCoefficients = ok("{\"form\":\"secondOrderTransferFunction\",\"numerator\":[0.4],"
-                + "\"denominator\":[2,1.8,0.5]}");
+        JsonNode viaCoefficients =
+                ok("{\"form\":\"secondOrderTransferFunction\",\"numerator\":[0.4]," + "\"denominator\":[2,1.8,0.5]}");
         JsonNode viaCanonical = ok("{\"a0\":0.25,\"a1\":0.9,\"b\":0.2,\"d\":0.2}");
         assertSameDesign(viaCanonical, viaGain);
         assertSameDesign(viaCanonical, viaCoefficients);
@@ -98,39 +114,54 @@ class PlantFormExchangeTest {
         JsonNode view = viaForm.at("/model/stateSpace");
         assertTrue(view.get("riccatiResidual").asDouble() < 1e-10, view.toString());
         assertEquals(2, view.get("closedLoopPoles").size());
-        assertEquals(viaForm.at("/target/poles/0/re").asDouble(), view.at("/closedLoopPoles/0/re").asDouble(),
+        assertEquals(
+                viaForm.at("/target/poles/0/re").asDouble(),
+                view.at("/closedLoopPoles/0/re").asDouble(),
                 1e-8 * viaForm.at("/target/naturalFrequency").asDouble());
     }
 
     @Test
     void nonPhysicalAndUnusableModelsAre422sThatNameTheField() {
-        assertProblem(post("{\"form\":\"massSpringDamper\",\"mass\":-2,\"damping\":1,\"stiffness\":1}"), 422,
-                "/plant/mass");
+        assertProblem(
+                post("{\"form\":\"massSpringDamper\",\"mass\":-2,\"damping\":1,\"stiffness\":1}"), 422, "/plant/mass");
         assertProblem(post("{\"form\":\"stateSpace\",\"a\":[[-1,0],[0,-2]],\"b2\":[1,0]}"), 422, "/plant/b2");
-        assertProblem(post("{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-1]],\"b2\":[0,1],\"b1\":[1,0]}"), 422,
-                "/plant/b1");
-        assertProblem(post("{\"form\":\"secondOrderTransferFunction\",\"numerator\":[1,2],"
-                + "\"denominator\":[1,1,1]}"), 422, "/plant/numerator");
-        assertProblem(post("{\"form\":\"rotaryAxis\",\"inertia\":1e-12,\"viscousFriction\":0,"
-                + "\"torqueConstant\":1}"), 422, "/plant/inertia"); // b = d = 1/J = 1e12: J drives it
+        assertProblem(
+                post("{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-1]],\"b2\":[0,1],\"b1\":[1,0]}"), 422, "/plant/b1");
+        assertProblem(
+                post("{\"form\":\"secondOrderTransferFunction\",\"numerator\":[1,2]," + "\"denominator\":[1,1,1]}"),
+                422,
+                "/plant/numerator");
+        assertProblem(
+                post("{\"form\":\"rotaryAxis\",\"inertia\":1e-12,\"viscousFriction\":0," + "\"torqueConstant\":1}"),
+                422,
+                "/plant/inertia"); // b = d = 1/J = 1e12: J drives it
     }
 
     @Test
     void fieldsOfAnotherFormUnknownFormsAndBadShapesAre400s() {
-        assertProblem(post("{\"form\":\"rotaryAxis\",\"mass\":1,\"inertia\":1,\"viscousFriction\":0,"
-                + "\"torqueConstant\":1}"), 400, "/plant/mass");
+        assertProblem(
+                post("{\"form\":\"rotaryAxis\",\"mass\":1,\"inertia\":1,\"viscousFriction\":0,"
+                        + "\"torqueConstant\":1}"),
+                400,
+                "/plant/mass");
         assertProblem(post("{\"a0\":0,\"a1\":1,\"b\":1,\"d\":1,\"inertia\":2}"), 400, "/plant/inertia");
         assertProblem(post("{\"form\":\"flywheel\"}"), 400, "/plant/form");
         assertProblem(post("{\"form\":\"stateSpace\",\"a\":[[0,1],[0]],\"b2\":[0,1]}"), 400, "/plant/a/1");
         assertProblem(post("{\"form\":\"stateSpace\",\"a\":[[0,1],[0,1]],\"b2\":[0,null]}"), 400, "/plant/b2/1");
         assertProblem(post("{\"form\":\"massSpringDamper\",\"mass\":1,\"damping\":1}"), 400, "/plant/stiffness");
-        assertProblem(post("{\"form\":\"rotaryAxis\",\"inertia\":1,\"viscousFriction\":0,\"torqueConstant\":1,"
-                + "\"spin\":3}"), 400, "/plant/spin");
+        assertProblem(
+                post("{\"form\":\"rotaryAxis\",\"inertia\":1,\"viscousFriction\":0,\"torqueConstant\":1,"
+                        + "\"spin\":3}"),
+                400,
+                "/plant/spin");
     }
 
     private static void assertProblem(Answer outcome, int status, String pointer) {
         assertEquals(status, outcome.status(), () -> outcome.body().toString());
-        assertEquals(pointer, outcome.body().at("/errors/0/pointer").asText(), () -> outcome.body().toString());
+        assertEquals(
+                pointer,
+                outcome.body().at("/errors/0/pointer").asText(),
+                () -> outcome.body().toString());
     }
 
     private static double[][] multiply(double[][] x, double[][] y) {

@@ -1,13 +1,13 @@
 package com.loopwright.api.design;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
-import com.loopwright.api.json.StrictJson;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import com.loopwright.api.endpoint.Answer;
+import com.loopwright.api.json.StrictJson;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -75,7 +75,12 @@ class ProposalRoundTripTest {
                 proposals++;
                 Answer retry = Answer.design(withProposal(request, proposal));
                 if (retry.status() != 200) {
-                    refused.add(String.format(Locale.ROOT, "%s with %s -> %d %s", request, proposal, retry.status(),
+                    refused.add(String.format(
+                            Locale.ROOT,
+                            "%s with %s -> %d %s",
+                            request,
+                            proposal,
+                            retry.status(),
                             retry.body().path("detail").asText()));
                 }
             }
@@ -104,7 +109,9 @@ class ProposalRoundTripTest {
             assertEquals(200, retry.status(), () -> proposal + " -> " + retry.body());
         }
         // here no overshoot from 0.001% up works with this rise time, and the problem says so
-        assertTrue(!overshootProposed && outcome.body().get("detail").asText().contains(
-                "no overshoot within the accepted range"), outcome.body().toString());
+        assertTrue(
+                !overshootProposed
+                        && outcome.body().get("detail").asText().contains("no overshoot within the accepted range"),
+                outcome.body().toString());
     }
 }

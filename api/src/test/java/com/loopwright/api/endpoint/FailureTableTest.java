@@ -23,15 +23,17 @@ import org.junit.jupiter.api.Test;
  */
 class FailureTableTest {
 
-    private static final FailureContext NESTED = new FailureContext("/design", "/spec/riseTime", "/design/verify",
-            "/design/verify/uncertainty");
+    private static final FailureContext NESTED =
+            new FailureContext("/design", "/spec/riseTime", "/design/verify", "/design/verify/uncertainty");
 
     @Test
     void infeasibleSpecsPointAtTheTimeSpecGivenAndPrefixNestedPointers() {
-        Infeasibility infeasibility = new Infeasibility(SpecQuantity.TIME_SPEC, "too fast",
+        Infeasibility infeasibility = new Infeasibility(
+                SpecQuantity.TIME_SPEC,
+                "too fast",
                 List.of(new SpecProposal(SpecQuantity.OVERSHOOT_PERCENT, 4.5, "more overshoot")));
-        Problem top = FailureTable.toProblem(SolverFailure.infeasible(infeasibility, null),
-                FailureContext.ROOT.withTimeSpec("/spec/riseTime"));
+        Problem top = FailureTable.toProblem(
+                SolverFailure.infeasible(infeasibility, null), FailureContext.ROOT.withTimeSpec("/spec/riseTime"));
         assertEquals(ProblemType.INFEASIBLE_SPEC.uri(), top.type());
         assertEquals("too fast", top.detail());
         assertEquals(List.of(new FieldError("/spec/riseTime", "too fast")), top.errors());
@@ -53,56 +55,119 @@ class FailureTableTest {
 
     @Test
     void cappedChecksPointInsideTheVerifyObject() {
-        assertEquals("/verify/disturbances/2", FailureTable.toProblem(SolverFailure.about(
-                SolverFailure.Kind.CAP_EXCEEDED, "DISTURBANCE_TIMING", 2, "too late", null), FailureContext.ROOT)
-                .errors().get(0).pointer());
-        assertEquals("/design/verify/sampling/samplePeriod", FailureTable.toProblem(SolverFailure.about(
-                SolverFailure.Kind.CAP_EXCEEDED, "SAMPLE_PERIOD", -1, "too short", null), NESTED)
-                .errors().get(0).pointer());
-        assertEquals("/verify/inputDelay", FailureTable.toProblem(SolverFailure.about(
-                SolverFailure.Kind.CAP_EXCEEDED, "INPUT_DELAY", -1, "too long", null), FailureContext.ROOT)
-                .errors().get(0).pointer());
+        assertEquals(
+                "/verify/disturbances/2",
+                FailureTable.toProblem(
+                                SolverFailure.about(
+                                        SolverFailure.Kind.CAP_EXCEEDED, "DISTURBANCE_TIMING", 2, "too late", null),
+                                FailureContext.ROOT)
+                        .errors()
+                        .get(0)
+                        .pointer());
+        assertEquals(
+                "/design/verify/sampling/samplePeriod",
+                FailureTable.toProblem(
+                                SolverFailure.about(
+                                        SolverFailure.Kind.CAP_EXCEEDED, "SAMPLE_PERIOD", -1, "too short", null),
+                                NESTED)
+                        .errors()
+                        .get(0)
+                        .pointer());
+        assertEquals(
+                "/verify/inputDelay",
+                FailureTable.toProblem(
+                                SolverFailure.about(
+                                        SolverFailure.Kind.CAP_EXCEEDED, "INPUT_DELAY", -1, "too long", null),
+                                FailureContext.ROOT)
+                        .errors()
+                        .get(0)
+                        .pointer());
     }
 
     @Test
     void eachKindKeepsItsProblemTypeAndWording() {
-        assertEquals("/gain", problem(SolverFailure.Kind.UNSTABLE_LOOP, FailureContext.ROOT).errors().get(0)
-                .pointer());
-        assertEquals("/design/verify/uncertainty", problem(SolverFailure.Kind.UNSTABLE_LOOP, NESTED).errors().get(0)
-                .pointer());
-        assertEquals(List.of(new FieldError("/samples/output", "m")), problem(SolverFailure.Kind.FIT_FAILED,
-                FailureContext.ROOT).errors());
-        assertEquals("/plant/stateSpace/b2", problem(SolverFailure.Kind.UNCONTROLLABLE, FailureContext.ROOT)
-                .errors().get(0).pointer());
-        assertEquals("/plant/stateSpace/output", problem(SolverFailure.Kind.NO_DC_GAIN, FailureContext.ROOT)
-                .errors().get(0).pointer());
+        assertEquals(
+                "/gain",
+                problem(SolverFailure.Kind.UNSTABLE_LOOP, FailureContext.ROOT)
+                        .errors()
+                        .get(0)
+                        .pointer());
+        assertEquals(
+                "/design/verify/uncertainty",
+                problem(SolverFailure.Kind.UNSTABLE_LOOP, NESTED)
+                        .errors()
+                        .get(0)
+                        .pointer());
+        assertEquals(
+                List.of(new FieldError("/samples/output", "m")),
+                problem(SolverFailure.Kind.FIT_FAILED, FailureContext.ROOT).errors());
+        assertEquals(
+                "/plant/stateSpace/b2",
+                problem(SolverFailure.Kind.UNCONTROLLABLE, FailureContext.ROOT)
+                        .errors()
+                        .get(0)
+                        .pointer());
+        assertEquals(
+                "/plant/stateSpace/output",
+                problem(SolverFailure.Kind.NO_DC_GAIN, FailureContext.ROOT)
+                        .errors()
+                        .get(0)
+                        .pointer());
         String rescale = ". Rescale the plant units (for example millimetres instead of metres) so that the"
                 + " coefficients are nearer 1.";
-        assertEquals("m" + rescale, problem(SolverFailure.Kind.UNVERIFIABLE, FailureContext.ROOT).detail());
-        assertEquals("the closed loop could not be simulated or checked: m" + rescale,
-                problem(SolverFailure.Kind.LOOP_NOT_SIMULABLE, FailureContext.ROOT).detail());
-        assertEquals("the figure could not be drawn: m" + rescale,
+        assertEquals(
+                "m" + rescale,
+                problem(SolverFailure.Kind.UNVERIFIABLE, FailureContext.ROOT).detail());
+        assertEquals(
+                "the closed loop could not be simulated or checked: m" + rescale,
+                problem(SolverFailure.Kind.LOOP_NOT_SIMULABLE, FailureContext.ROOT)
+                        .detail());
+        assertEquals(
+                "the figure could not be drawn: m" + rescale,
                 problem(SolverFailure.Kind.FIGURE_NOT_COMPUTABLE, NESTED).detail());
         Problem check = problem(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, FailureContext.ROOT);
         assertEquals("a robustness check could not be computed in double precision: m", check.detail());
         assertEquals(List.of(), check.errors());
-        assertEquals("/samplePeriodSeconds", FailureTable.toProblem(SolverFailure.about(
-                SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE, SolverFailure.SAMPLE_PERIOD, -1, "m", null), NESTED)
-                .errors().get(0).pointer());
-        assertEquals("/commandLimit", FailureTable.toProblem(SolverFailure.about(
-                SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE, SolverFailure.COMMAND_LIMIT, -1, "m", null), NESTED)
-                .errors().get(0).pointer());
+        assertEquals(
+                "/samplePeriodSeconds",
+                FailureTable.toProblem(
+                                SolverFailure.about(
+                                        SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE,
+                                        SolverFailure.SAMPLE_PERIOD,
+                                        -1,
+                                        "m",
+                                        null),
+                                NESTED)
+                        .errors()
+                        .get(0)
+                        .pointer());
+        assertEquals(
+                "/commandLimit",
+                FailureTable.toProblem(
+                                SolverFailure.about(
+                                        SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE,
+                                        SolverFailure.COMMAND_LIMIT,
+                                        -1,
+                                        "m",
+                                        null),
+                                NESTED)
+                        .errors()
+                        .get(0)
+                        .pointer());
     }
 
     @Test
     void fieldErrorsAreAllReportedAndOneIsNamedInTheDetail() {
         FieldError one = new FieldError("/spec/gamma", "must be positive");
-        assertEquals("/spec/gamma: must be positive",
-                FailureTable.toProblem(new InvalidRequestException(List.of(one)), FailureContext.ROOT).detail());
+        assertEquals(
+                "/spec/gamma: must be positive",
+                FailureTable.toProblem(new InvalidRequestException(List.of(one)), FailureContext.ROOT)
+                        .detail());
         Problem two = FailureTable.toProblem(new InvalidRequestException(List.of(one, one)), FailureContext.ROOT);
         assertEquals("2 fields are invalid; see errors", two.detail());
         assertEquals(2, two.errors().size());
-        assertThrows(IllegalArgumentException.class,
+        assertThrows(
+                IllegalArgumentException.class,
                 () -> FailureTable.toProblem(new IllegalStateException("a defect"), FailureContext.ROOT));
     }
 

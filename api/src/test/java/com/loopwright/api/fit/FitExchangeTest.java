@@ -1,7 +1,5 @@
 package com.loopwright.api.fit;
 
-import com.loopwright.api.endpoint.Answer;
-import com.loopwright.api.json.FiniteNumbers;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNull;
@@ -11,6 +9,8 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import com.loopwright.api.endpoint.Answer;
+import com.loopwright.api.json.FiniteNumbers;
 import com.loopwright.api.json.StrictJson;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -48,8 +48,7 @@ class FitExchangeTest {
     void theReadmeExampleGivesTheDocumentedFit() throws IOException {
         String readme = Files.readString(Path.of("..", "README.md"));
         int start = readme.indexOf("/v1/models/fit <<'JSON'\n");
-        String body = readme.substring(start + "/v1/models/fit <<'JSON'\n".length(),
-                readme.indexOf("\nJSON\n", start));
+        String body = readme.substring(start + "/v1/models/fit <<'JSON'\n".length(), readme.indexOf("\nJSON\n", start));
         Answer outcome = Answer.fit(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         JsonNode fit = outcome.body();

@@ -1,11 +1,10 @@
 package com.loopwright.api.highorder;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
 import java.nio.charset.StandardCharsets;
 import org.junit.jupiter.api.Test;
 

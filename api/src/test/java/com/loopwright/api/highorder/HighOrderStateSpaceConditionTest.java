@@ -1,11 +1,10 @@
 package com.loopwright.api.highorder;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
@@ -51,7 +50,8 @@ class HighOrderStateSpaceConditionTest {
         double condition = coordinates.at("/controllabilityCondition").asDouble();
         assertEquals(max / min, condition, 1e-6 * condition);
         assertTrue(condition > 1e6, "condition " + condition);
-        assertTrue(StreamSupport.stream(outcome.body().at("/notes").spliterator(), false).map(JsonNode::asText)
+        assertTrue(StreamSupport.stream(outcome.body().at("/notes").spliterator(), false)
+                .map(JsonNode::asText)
                 .anyMatch(note -> note.contains("controllability matrix") && note.contains("plantGain")));
 
         DMatrixRMaj closed = new DMatrixRMaj(A);
@@ -63,10 +63,14 @@ class HighOrderStateSpaceConditionTest {
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(3, false);
         assertTrue(eig.decompose(closed));
         List<double[]> targets = new ArrayList<>();
-        outcome.body().at("/target/dominantPoles").forEach(p -> targets.add(new double[] {p.get("re").asDouble(),
-            p.get("im").asDouble()}));
-        outcome.body().at("/target/auxiliaryPoles").forEach(p -> targets.add(new double[] {p.get("re").asDouble(),
-            p.get("im").asDouble()}));
+        outcome.body()
+                .at("/target/dominantPoles")
+                .forEach(p -> targets.add(
+                        new double[] {p.get("re").asDouble(), p.get("im").asDouble()}));
+        outcome.body()
+                .at("/target/auxiliaryPoles")
+                .forEach(p -> targets.add(
+                        new double[] {p.get("re").asDouble(), p.get("im").asDouble()}));
         for (int i = 0; i < 3; i++) {
             Complex_F64 lambda = eig.getEigenvalue(i);
             double nearest = Double.POSITIVE_INFINITY;

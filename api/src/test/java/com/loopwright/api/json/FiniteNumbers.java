@@ -13,8 +13,7 @@ public final class FiniteNumbers {
     /** Response trees are a few hundred nodes; the cap only guards against a runaway structure. */
     private static final int MAX_NODES = 100_000;
 
-    private FiniteNumbers() {
-    }
+    private FiniteNumbers() {}
 
     /** JSON pointer of the first NaN/Infinity, or null when every number is finite. */
     public static String firstNonFinite(JsonNode root) {
@@ -42,6 +41,5 @@ public final class FiniteNumbers {
         return null;
     }
 
-    private record Visit(JsonNode node, String pointer) {
-    }
+    private record Visit(JsonNode node, String pointer) {}
 }

@@ -1,6 +1,5 @@
 package com.loopwright.api.json;
 
-import com.loopwright.api.design.DesignRequest;
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNull;
@@ -10,6 +9,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.design.DesignEndpoint;
+import com.loopwright.api.design.DesignRequest;
 import com.loopwright.api.endpoint.EndpointRunner;
 import com.loopwright.api.endpoint.Reply;
 import java.nio.charset.StandardCharsets;
@@ -25,18 +25,21 @@ import org.junit.jupiter.api.Test;
  */
 class FiniteNumbersModuleTest {
 
-    record Leaf(double value, Double boxed, float single) {
-    }
+    record Leaf(double value, Double boxed, float single) {}
 
-    record Shape(String name, Leaf leaf, List<Double> list, double[] samples, double[][] rows, List<Leaf> leaves) {
-    }
+    record Shape(String name, Leaf leaf, List<Double> list, double[] samples, double[][] rows, List<Leaf> leaves) {}
 
     private static final ObjectMapper PLAIN = StrictJson.newMapper();
     private static final ObjectMapper GUARDED = FiniteNumbersModule.newResponseWriter();
 
     private static Shape finite() {
-        return new Shape("conveyor", new Leaf(1.5, -2.25, 0.5f), List.of(0.1, 0.2, 0.3), new double[] {1, 2, 3},
-                new double[][] {{1, 2}, {3, 4}}, List.of(new Leaf(0, 1.0, 2f), new Leaf(3, 4.0, 5f)));
+        return new Shape(
+                "conveyor",
+                new Leaf(1.5, -2.25, 0.5f),
+                List.of(0.1, 0.2, 0.3),
+                new double[] {1, 2, 3},
+                new double[][] {{1, 2}, {3, 4}},
+                List.of(new Leaf(0, 1.0, 2f), new Leaf(3, 4.0, 5f)));
     }
 
     /** Every position a double can sit in a response record, each with NaN, +Infinity and -Infinity. */
@@ -51,7 +54,12 @@ class FiniteNumbersModuleTest {
                 new Shape(f.name(), f.leaf(), f.list(), new double[] {1, 2, bad}, f.rows(), f.leaves()),
                 new Shape(f.name(), f.leaf(), f.list(), new double[] {bad}, f.rows(), f.leaves()),
                 new Shape(f.name(), f.leaf(), f.list(), f.samples(), new double[][] {{1, 2}, {3, bad}}, f.leaves()),
-                new Shape(f.name(), f.leaf(), f.list(), f.samples(), f.rows(),
+                new Shape(
+                        f.name(),
+                        f.leaf(),
+                        f.list(),
+                        f.samples(),
+                        f.rows(),
                         List.of(new Leaf(0, 1.0, 2f), new Leaf(3, bad, 5f))));
     }
 
@@ -62,11 +70,11 @@ class FiniteNumbersModuleTest {
                 // Independent route: the plain mapper keeps NaN as a number node; FiniteNumbers walks the tree.
                 String expected = FiniteNumbers.firstNonFinite(PLAIN.valueToTree(shape));
                 assertTrue(expected != null && !expected.isEmpty(), "the tree walk finds it");
-                NonFiniteNumberException bytes = assertThrows(NonFiniteNumberException.class,
-                        () -> GUARDED.writeValueAsBytes(shape));
+                NonFiniteNumberException bytes =
+                        assertThrows(NonFiniteNumberException.class, () -> GUARDED.writeValueAsBytes(shape));
                 assertEquals(expected, bytes.pointer(), "writing bytes: " + shape);
-                IllegalArgumentException tree = assertThrows(IllegalArgumentException.class,
-                        () -> GUARDED.valueToTree(shape));
+                IllegalArgumentException tree =
+                        assertThrows(IllegalArgumentException.class, () -> GUARDED.valueToTree(shape));
                 assertEquals(expected, NonFiniteNumberException.in(tree).pointer(), "building a tree");
             }
         }
@@ -84,10 +92,33 @@ class FiniteNumbersModuleTest {
     void theFastWriterAndParserRoundTripEveryDoubleBitForBit() throws Exception {
         // Edge cases from memory (IEEE 754 binary64: subnormals, extremes, a value whose shortest form is long),
         // then random bit patterns over the whole finite range.
-        double[] edges = {0.0, -0.0, Double.MIN_VALUE, -Double.MIN_VALUE, Double.MIN_NORMAL,
-            Math.nextDown(Double.MIN_NORMAL), Double.MAX_VALUE, -Double.MAX_VALUE, 0.1, 0.2, 0.3, 1.0 / 3,
-            2.0E-3, 1.0E7, 9.999999999999999E22, 1.0E23, 5.0E-324, 4.9E-324, 2.2250738585072014E-308,
-            1.7976931348623157E308, 0.48, 400, 23.921561032485474, 2.5914335609051888E-5, 5.611801696108024E-17};
+        double[] edges = {
+            0.0,
+            -0.0,
+            Double.MIN_VALUE,
+            -Double.MIN_VALUE,
+            Double.MIN_NORMAL,
+            Math.nextDown(Double.MIN_NORMAL),
+            Double.MAX_VALUE,
+            -Double.MAX_VALUE,
+            0.1,
+            0.2,
+            0.3,
+            1.0 / 3,
+            2.0E-3,
+            1.0E7,
+            9.999999999999999E22,
+            1.0E23,
+            5.0E-324,
+            4.9E-324,
+            2.2250738585072014E-308,
+            1.7976931348623157E308,
+            0.48,
+            400,
+            23.921561032485474,
+            2.5914335609051888E-5,
+            5.611801696108024E-17
+        };
         SplittableRandom random = new SplittableRandom(20261202);
         double[] values = new double[20_000 + edges.length];
         System.arraycopy(edges, 0, values, 0, edges.length);
@@ -101,7 +132,10 @@ class FiniteNumbersModuleTest {
         byte[] json = GUARDED.writeValueAsBytes(values);
         double[] fast = GUARDED.readValue(json, double[].class);
         assertEquals(values.length, fast.length);
-        String[] tokens = new String(json, StandardCharsets.US_ASCII).replace("[", "").replace("]", "").split(",");
+        String[] tokens = new String(json, StandardCharsets.US_ASCII)
+                .replace("[", "")
+                .replace("]", "")
+                .split(",");
         for (int i = 0; i < values.length; i++) {
             long bits = Double.doubleToRawLongBits(values[i]);
             assertEquals(bits, Double.doubleToRawLongBits(fast[i]), "fast writer -> fast parser: " + values[i]);
@@ -109,7 +143,10 @@ class FiniteNumbersModuleTest {
             assertEquals(bits, Double.doubleToRawLongBits(Double.parseDouble(tokens[i])), tokens[i]);
         }
         // And the JDK's own text read by the fast parser.
-        String jdkText = Arrays.stream(values).mapToObj(Double::toString).reduce((a, b) -> a + "," + b).orElseThrow();
+        String jdkText = Arrays.stream(values)
+                .mapToObj(Double::toString)
+                .reduce((a, b) -> a + "," + b)
+                .orElseThrow();
         double[] fromJdk = PLAIN.readValue("[" + jdkText + "]", double[].class);
         for (int i = 0; i < values.length; i++) {
             assertEquals(Double.doubleToRawLongBits(values[i]), Double.doubleToRawLongBits(fromJdk[i]));
@@ -121,7 +158,8 @@ class FiniteNumbersModuleTest {
         EndpointRunner runner = new EndpointRunner(StrictJson.newMapper());
         DesignEndpoint endpoint = new DesignEndpoint();
         byte[] request = ("{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
-                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}").getBytes(StandardCharsets.UTF_8);
+                        + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}")
+                .getBytes(StandardCharsets.UTF_8);
         Reply bytes = runner.run(endpoint, request);
         assertEquals(200, bytes.status());
         // Independent route: the same steps by hand, the response record turned into a tree by the plain mapper.

@@ -17,16 +17,33 @@ import java.util.List;
  *   <li>{@code stateSpace}: a (2 x 2), b2, b1.</li>
  * </ul>
  */
-record FormerFlatPlantInput(String form, Double a0, Double a1, Double b, Double d,
-                            Double inertia, Double viscousFriction, Double torqueConstant, Double gearRatio,
-                            Double mass, Double damping, Double stiffness,
-                            Double gain, Double naturalFrequency, Double dampingRatio, List<Double> numerator,
-                            List<Double> denominator, Double disturbanceNumerator,
-                            List<List<Double>> a, List<Double> b2, List<Double> b1) {
+record FormerFlatPlantInput(
+        String form,
+        Double a0,
+        Double a1,
+        Double b,
+        Double d,
+        Double inertia,
+        Double viscousFriction,
+        Double torqueConstant,
+        Double gearRatio,
+        Double mass,
+        Double damping,
+        Double stiffness,
+        Double gain,
+        Double naturalFrequency,
+        Double dampingRatio,
+        List<Double> numerator,
+        List<Double> denominator,
+        Double disturbanceNumerator,
+        List<List<Double>> a,
+        List<Double> b2,
+        List<Double> b1) {
 
     /** The canonical coefficients, without a form. */
     FormerFlatPlantInput(Double a0, Double a1, Double b, Double d) {
-        this(null, a0, a1, b, d, null, null, null, null, null, null, null, null, null, null, null, null, null,
-                null, null, null);
+        this(
+                null, a0, a1, b, d, null, null, null, null, null, null, null, null, null, null, null, null, null, null,
+                null, null);
     }
 }

@@ -26,26 +26,65 @@ class PlantDecodingEquivalenceTest {
 
     /** Bounded so the test stays a few seconds: generated bodies per run. */
     private static final int GENERATED_BODIES = 3000;
+
     private static final int MAX_FIELDS_PER_OBJECT = 7;
     private static final long SEED = 20261203L;
 
     private static final ObjectMapper STRICT = StrictJson.newMapper();
 
-    record Former(FormerFlatPlantInput plant, Double after) {
-    }
+    record Former(FormerFlatPlantInput plant, Double after) {}
 
-    record Current(PlantInput plant, Double after) {
-    }
+    record Current(PlantInput plant, Double after) {}
 
     private static final List<String> NAMES = names();
     private static final String[] UNKNOWN_NAMES = {"foo", "length", "Form", "a2", ""};
-    private static final String[] VALUES = {"1", "0", "-2.5", "1e3", "1e999", "-0.0", "12345678901234567890",
-            "1" + "0".repeat(150), "\"x\"", "\"1.5\"", "\"\"", "null", "true", "false", "NaN", "-Infinity", "[]",
-            "[1]", "[1,2]", "[1,2,3]", "[0,0,4]", "[[1,2],[3,4]]", "[[1,\"x\"],[3,4]]", "[null]", "[1,[2]]", "[{}]",
-            "{}", "{\"a\":1}", "[" .repeat(20) + "1" + "]".repeat(20), "[1,NaN]", "[[1,2],null]"};
-    private static final String[] FORMS = {"\"canonical\"", "\"rotaryAxis\"", "\"massSpringDamper\"",
-            "\"secondOrderTransferFunction\"", "\"stateSpace\"", "\"bogus\"", "\"\"", "3", "null", "true", "{}",
-            "[\"rotaryAxis\"]"};
+    private static final String[] VALUES = {
+        "1",
+        "0",
+        "-2.5",
+        "1e3",
+        "1e999",
+        "-0.0",
+        "12345678901234567890",
+        "1" + "0".repeat(150),
+        "\"x\"",
+        "\"1.5\"",
+        "\"\"",
+        "null",
+        "true",
+        "false",
+        "NaN",
+        "-Infinity",
+        "[]",
+        "[1]",
+        "[1,2]",
+        "[1,2,3]",
+        "[0,0,4]",
+        "[[1,2],[3,4]]",
+        "[[1,\"x\"],[3,4]]",
+        "[null]",
+        "[1,[2]]",
+        "[{}]",
+        "{}",
+        "{\"a\":1}",
+        "[".repeat(20) + "1" + "]".repeat(20),
+        "[1,NaN]",
+        "[[1,2],null]"
+    };
+    private static final String[] FORMS = {
+        "\"canonical\"",
+        "\"rotaryAxis\"",
+        "\"massSpringDamper\"",
+        "\"secondOrderTransferFunction\"",
+        "\"stateSpace\"",
+        "\"bogus\"",
+        "\"\"",
+        "3",
+        "null",
+        "true",
+        "{}",
+        "[\"rotaryAxis\"]"
+    };
     private static final String[] NOT_OBJECTS = {"\"x\"", "\"\"", "3", "1.5", "[]", "[{}]", "true", "null"};
 
     @Test
@@ -60,7 +99,8 @@ class PlantDecodingEquivalenceTest {
                 default -> object(random);
             };
             String after = random.nextInt(4) == 0 ? "\"late\"" : "2";
-            String body = random.nextBoolean() ? "{\"plant\":" + plant + ",\"after\":" + after + "}"
+            String body = random.nextBoolean()
+                    ? "{\"plant\":" + plant + ",\"after\":" + after + "}"
                     : "{\"after\":" + after + ",\"plant\":" + plant + "}";
             String outcome = assertSameDecoding(body);
             if (outcome.equals("ok")) {
@@ -82,15 +122,31 @@ class PlantDecodingEquivalenceTest {
 
     @Test
     void handPickedEdgesDecodeAsTheFormerRecordDid() {
-        String[] plants = {"{}", "{\"form\":null}", "{\"form\":\"canonical\",\"a0\":1,\"a1\":2,\"b\":3,\"d\":4}",
-                "{\"form\":\"rotaryAxis\",\"mass\":1,\"a0\":null}", "{\"mass\":1,\"inertia\":2}",
-                "{\"foo\":1,\"a0\":\"x\"}", "{\"foo\":[[[[[[[[[[[[[[[[[[[[1]]]]]]]]]]]]]]]]]]]]}",
-                "{\"a0\":[[[[[[[[[[[[[[[[[[[[1]]]]]]]]]]]]]]]]]]]]}", "{\"foo\":1,\"a0\":NaN}",
-                "{\"a0\":0,\"a0\":1}", "{\"form\":3}", "{\"form\":{}}", "{\"numerator\":3}", "{\"a\":[[1,\"x\"]]}",
-                "{\"a\":[1]}", "{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-2]],\"b2\":[0,150],\"b1\":[0,60]}",
-                "{\"form\":\"bogus\",\"mass\":1}", "{\"gearRatio\":1.0e400}", "{" + EVERY_FIELD + "}",
-                "{\"foo\":1," + EVERY_FIELD + ",\"bar\":NaN}", "{" + EVERY_FIELD + ",\"bar\":1,\"baz\":NaN}",
-                "{" + EVERY_FIELD + ",\"bar\":1,\"a0\":\"x\"}", "{\"foo\":1," + EVERY_FIELD + ",\"bar\":\"x\"}"};
+        String[] plants = {
+            "{}",
+            "{\"form\":null}",
+            "{\"form\":\"canonical\",\"a0\":1,\"a1\":2,\"b\":3,\"d\":4}",
+            "{\"form\":\"rotaryAxis\",\"mass\":1,\"a0\":null}",
+            "{\"mass\":1,\"inertia\":2}",
+            "{\"foo\":1,\"a0\":\"x\"}",
+            "{\"foo\":[[[[[[[[[[[[[[[[[[[[1]]]]]]]]]]]]]]]]]]]]}",
+            "{\"a0\":[[[[[[[[[[[[[[[[[[[[1]]]]]]]]]]]]]]]]]]]]}",
+            "{\"foo\":1,\"a0\":NaN}",
+            "{\"a0\":0,\"a0\":1}",
+            "{\"form\":3}",
+            "{\"form\":{}}",
+            "{\"numerator\":3}",
+            "{\"a\":[[1,\"x\"]]}",
+            "{\"a\":[1]}",
+            "{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-2]],\"b2\":[0,150],\"b1\":[0,60]}",
+            "{\"form\":\"bogus\",\"mass\":1}",
+            "{\"gearRatio\":1.0e400}",
+            "{" + EVERY_FIELD + "}",
+            "{\"foo\":1," + EVERY_FIELD + ",\"bar\":NaN}",
+            "{" + EVERY_FIELD + ",\"bar\":1,\"baz\":NaN}",
+            "{" + EVERY_FIELD + ",\"bar\":1,\"a0\":\"x\"}",
+            "{\"foo\":1," + EVERY_FIELD + ",\"bar\":\"x\"}"
+        };
         for (String plant : plants) {
             assertSameDecoding("{\"plant\":" + plant + ",\"after\":2}");
         }
@@ -144,7 +200,8 @@ class PlantDecodingEquivalenceTest {
         if (flat == null) {
             return "null";
         }
-        var form = flat.form() == null ? java.util.Optional.of(PlantFormName.CANONICAL)
+        var form = flat.form() == null
+                ? java.util.Optional.of(PlantFormName.CANONICAL)
                 : PlantFormName.ofWireName(flat.form());
         if (form.isEmpty()) {
             return new UnmatchedPlant(flat.form(), List.of()).toString();
@@ -154,7 +211,8 @@ class PlantDecodingEquivalenceTest {
         for (RecordComponent component : FormerFlatPlantInput.class.getRecordComponents()) {
             Object value = value(component, flat);
             values.put(component.getName(), value);
-            if (!component.getName().equals("form") && value != null
+            if (!component.getName().equals("form")
+                    && value != null
                     && !form.get().fields().contains(component.getName())) {
                 foreign.add(component.getName());
             }
@@ -178,7 +236,8 @@ class PlantDecodingEquivalenceTest {
         List<String> fields = new ArrayList<>();
         for (int i = 0; i < count; i++) {
             int pick = random.nextInt(10);
-            String name = pick == 0 ? UNKNOWN_NAMES[random.nextInt(UNKNOWN_NAMES.length)]
+            String name = pick == 0
+                    ? UNKNOWN_NAMES[random.nextInt(UNKNOWN_NAMES.length)]
                     : NAMES.get(random.nextInt(NAMES.size()));
             String value = name.equals("form") ? FORMS[random.nextInt(FORMS.length)] : value(random, name);
             fields.add("\"" + name + "\":" + value);
@@ -207,7 +266,8 @@ class PlantDecodingEquivalenceTest {
         java.util.Collections.shuffle(fields, random);
         int extras = 1 + random.nextInt(2);
         for (int i = 0; i < extras; i++) {
-            String name = random.nextBoolean() ? UNKNOWN_NAMES[random.nextInt(UNKNOWN_NAMES.length)]
+            String name = random.nextBoolean()
+                    ? UNKNOWN_NAMES[random.nextInt(UNKNOWN_NAMES.length)]
                     : NAMES.get(random.nextInt(NAMES.size()));
             String extra = "\"" + name + "\":" + VALUES[random.nextInt(VALUES.length)];
             fields.add(random.nextInt(fields.size() + 1), extra);

@@ -22,9 +22,8 @@ class PlantFormNameTest {
     private static final ObjectMapper STRICT = StrictJson.newMapper();
 
     /** A rotary axis with one more field than the wire form has, as a new field would be declared. */
-    record RotaryAxisWithBrake(Double inertia, Double viscousFriction, Double torqueConstant, Double gearRatio,
-                               Double brakeTorque) {
-    }
+    record RotaryAxisWithBrake(
+            Double inertia, Double viscousFriction, Double torqueConstant, Double gearRatio, Double brakeTorque) {}
 
     @Test
     void fieldsAreTheRecordComponentsInDeclaredOrder() {
@@ -37,7 +36,8 @@ class PlantFormNameTest {
         }
         // the lists as the contract documents them (openapi.yaml, one branch per form)
         assertEquals(List.of("a0", "a1", "b", "d"), List.copyOf(PlantFormName.CANONICAL.fields()));
-        assertEquals(List.of("inertia", "viscousFriction", "torqueConstant", "gearRatio"),
+        assertEquals(
+                List.of("inertia", "viscousFriction", "torqueConstant", "gearRatio"),
                 List.copyOf(PlantFormName.ROTARY_AXIS.fields()));
         assertEquals(List.of("a", "b2", "b1"), List.copyOf(PlantFormName.STATE_SPACE.fields()));
     }
@@ -75,20 +75,23 @@ class PlantFormNameTest {
         for (PlantFormName form : PlantFormName.values()) {
             for (RecordComponent component : form.record().getRecordComponents()) {
                 String field = "\"" + component.getName() + "\":" + sampleValue(component);
-                PlantInput own = STRICT.readValue("{\"form\":\"" + form.wireName() + "\"," + field + "}",
-                        PlantInput.class);
+                PlantInput own =
+                        STRICT.readValue("{\"form\":\"" + form.wireName() + "\"," + field + "}", PlantInput.class);
                 assertInstanceOf(form.record(), own, component.getName());
                 assertNotEquals(null, component.getAccessor().invoke(own), component.getName());
                 for (PlantFormName other : PlantFormName.values()) {
                     if (other == form) {
                         continue;
                     }
-                    PlantInput mixed = STRICT.readValue("{\"form\":\"" + other.wireName() + "\"," + field + "}",
-                            PlantInput.class);
+                    PlantInput mixed =
+                            STRICT.readValue("{\"form\":\"" + other.wireName() + "\"," + field + "}", PlantInput.class);
                     List<FieldError> errors = new ArrayList<>();
                     assertEquals(null, mixed.resolve(errors));
-                    assertEquals(List.of(new FieldError("/plant/" + component.getName(), "not a field of the "
-                            + other.wireName() + " form (its fields: " + new TreeSet<>(other.fields()) + ")")),
+                    assertEquals(
+                            List.of(new FieldError(
+                                    "/plant/" + component.getName(),
+                                    "not a field of the " + other.wireName() + " form (its fields: "
+                                            + new TreeSet<>(other.fields()) + ")")),
                             errors);
                 }
             }

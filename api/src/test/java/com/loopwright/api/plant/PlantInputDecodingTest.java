@@ -22,8 +22,7 @@ class PlantInputDecodingTest {
 
     private static final ObjectMapper STRICT = StrictJson.newMapper();
 
-    record Body(PlantInput plant) {
-    }
+    record Body(PlantInput plant) {}
 
     @Test
     void everyFormRoundTripsThroughItsWireForm() throws Exception {
@@ -33,8 +32,8 @@ class PlantInputDecodingTest {
                 new MassSpringDamperInput(2.5, 4.0, 150.0),
                 new SecondOrderTransferFunctionInput(null, null, null, List.of(0.4), List.of(2.0, 1.8, 0.5), 0.2),
                 new SecondOrderTransferFunctionInput(2.0, 10.0, 0.3, null, null, null),
-                new StateSpaceInput(List.of(List.of(0.0, 1.0), List.of(0.0, -2.0)), List.of(0.0, 150.0),
-                        List.of(0.0, 60.0)));
+                new StateSpaceInput(
+                        List.of(List.of(0.0, 1.0), List.of(0.0, -2.0)), List.of(0.0, 150.0), List.of(0.0, 60.0)));
         for (PlantInput plant : forms) {
             String json = STRICT.writeValueAsString(plant);
             assertEquals(plant, STRICT.readValue(json, PlantInput.class), json);
@@ -43,28 +42,45 @@ class PlantInputDecodingTest {
             assertEquals(plant, STRICT.treeToValue(tree, PlantInput.class), json);
             PlantFormName form = PlantFormName.of(plant).orElseThrow();
             // the canonical form is written without a form, as /v1/verifications takes it
-            assertEquals(form == PlantFormName.CANONICAL ? null : form.wireName(), tree.path("form").textValue());
+            assertEquals(
+                    form == PlantFormName.CANONICAL ? null : form.wireName(),
+                    tree.path("form").textValue());
         }
     }
 
     // source: openapi.yaml, the request examples of POST /v1/designs (one per form)
     @Test
     void theContractExamplesDecodeIntoTheirRecords() throws Exception {
-        assertEquals(new RotaryAxisInput(0.004, 0.002, 0.12, null), STRICT.readValue("{\"form\":\"rotaryAxis\","
-                + "\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12}", PlantInput.class));
-        assertEquals(new MassSpringDamperInput(2.5, 4.0, 150.0), STRICT.readValue("{\"form\":\"massSpringDamper\","
-                + "\"mass\":2.5,\"damping\":4,\"stiffness\":150}", PlantInput.class));
-        assertEquals(new SecondOrderTransferFunctionInput(null, null, null, List.of(0.4), List.of(2.0, 1.8, 0.5),
-                null), STRICT.readValue("{\"form\":\"secondOrderTransferFunction\",\"numerator\":[0.4],"
-                + "\"denominator\":[2,1.8,0.5]}", PlantInput.class));
-        assertEquals(new StateSpaceInput(List.of(List.of(0.0, 1.0), List.of(0.0, -2.0)), List.of(0.0, 150.0),
-                List.of(0.0, 60.0)), STRICT.readValue("{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-2]],"
-                + "\"b2\":[0,150],\"b1\":[0,60]}", PlantInput.class));
+        assertEquals(
+                new RotaryAxisInput(0.004, 0.002, 0.12, null),
+                STRICT.readValue(
+                        "{\"form\":\"rotaryAxis\","
+                                + "\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12}",
+                        PlantInput.class));
+        assertEquals(
+                new MassSpringDamperInput(2.5, 4.0, 150.0),
+                STRICT.readValue(
+                        "{\"form\":\"massSpringDamper\"," + "\"mass\":2.5,\"damping\":4,\"stiffness\":150}",
+                        PlantInput.class));
+        assertEquals(
+                new SecondOrderTransferFunctionInput(null, null, null, List.of(0.4), List.of(2.0, 1.8, 0.5), null),
+                STRICT.readValue(
+                        "{\"form\":\"secondOrderTransferFunction\",\"numerator\":[0.4],"
+                                + "\"denominator\":[2,1.8,0.5]}",
+                        PlantInput.class));
+        assertEquals(
+                new StateSpaceInput(
+                        List.of(List.of(0.0, 1.0), List.of(0.0, -2.0)), List.of(0.0, 150.0), List.of(0.0, 60.0)),
+                STRICT.readValue(
+                        "{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-2]]," + "\"b2\":[0,150],\"b1\":[0,60]}",
+                        PlantInput.class));
         // absent, null and "canonical" all choose the canonical coefficients
         CanonicalPlantInput axis = new CanonicalPlantInput(0.0, 0.48, 400.0, 400.0);
         for (String form : List.of("", "\"form\":null,", "\"form\":\"canonical\",")) {
-            assertEquals(axis, STRICT.readValue("{" + form + "\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}",
-                    PlantInput.class), form);
+            assertEquals(
+                    axis,
+                    STRICT.readValue("{" + form + "\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}", PlantInput.class),
+                    form);
         }
     }
 
@@ -75,39 +91,53 @@ class PlantInputDecodingTest {
         assertEquals(new UnmatchedPlant("linearMotor", List.of()), plant);
         List<FieldError> errors = new ArrayList<>();
         assertNull(new PlantInputValidator().resolve(plant, errors));
-        assertEquals(List.of(new FieldError("/plant/form", "unknown form; one of [canonical, rotaryAxis,"
-                + " massSpringDamper, secondOrderTransferFunction, stateSpace]")), errors);
+        assertEquals(
+                List.of(new FieldError(
+                        "/plant/form",
+                        "unknown form; one of [canonical, rotaryAxis,"
+                                + " massSpringDamper, secondOrderTransferFunction, stateSpace]")),
+                errors);
     }
 
     @Test
     void fieldsOfAnotherFormAreNamedInTheFormerOrder() throws Exception {
-        PlantInput plant = STRICT.readValue("{\"mass\":1,\"form\":\"rotaryAxis\",\"inertia\":0.004,\"a0\":2}",
-                PlantInput.class);
+        PlantInput plant =
+                STRICT.readValue("{\"mass\":1,\"form\":\"rotaryAxis\",\"inertia\":0.004,\"a0\":2}", PlantInput.class);
         List<FieldError> errors = new ArrayList<>();
         assertNull(new PlantInputValidator().resolve(plant, errors));
         String fields = " form (its fields: [gearRatio, inertia, torqueConstant, viscousFriction])";
-        assertEquals(List.of(new FieldError("/plant/a0", "not a field of the rotaryAxis" + fields),
-                new FieldError("/plant/mass", "not a field of the rotaryAxis" + fields)), errors);
+        assertEquals(
+                List.of(
+                        new FieldError("/plant/a0", "not a field of the rotaryAxis" + fields),
+                        new FieldError("/plant/mass", "not a field of the rotaryAxis" + fields)),
+                errors);
         // without a form the plant is canonical, and a physical field is not one of its fields
         List<FieldError> canonical = new ArrayList<>();
         assertNull(STRICT.readValue("{\"a0\":0,\"a1\":1,\"b\":1,\"d\":1,\"mass\":1}", PlantInput.class)
                 .resolve(canonical));
-        assertEquals(List.of(new FieldError("/plant/mass", "not a field of the canonical form (its fields: [a0, a1,"
-                + " b, d])")), canonical);
+        assertEquals(
+                List.of(new FieldError(
+                        "/plant/mass", "not a field of the canonical form (its fields: [a0, a1," + " b, d])")),
+                canonical);
         // a null field is absent, as before
-        assertFalse(STRICT.readValue("{\"form\":\"massSpringDamper\",\"mass\":1,\"a0\":null}", PlantInput.class)
-                instanceof UnmatchedPlant);
+        assertFalse(
+                STRICT.readValue("{\"form\":\"massSpringDamper\",\"mass\":1,\"a0\":null}", PlantInput.class)
+                        instanceof UnmatchedPlant);
     }
 
     @Test
     void decodingFailuresNameTheFieldAsBefore() {
-        assertProblem("{\"plant\":{\"form\":\"rotaryAxis\",\"length\":1,\"inertia\":\"x\"}}",
-                "/plant/inertia", "wrong type: expected a JSON number");
-        assertProblem("{\"plant\":{\"form\":\"rotaryAxis\",\"length\":1}}", "/plant/length", "unknown field 'length'");
-        assertProblem("{\"plant\":{\"form\":\"stateSpace\",\"a\":[[0,1],[0,\"x\"]]}}", "/plant/a/1/1",
+        assertProblem(
+                "{\"plant\":{\"form\":\"rotaryAxis\",\"length\":1,\"inertia\":\"x\"}}",
+                "/plant/inertia",
                 "wrong type: expected a JSON number");
-        assertProblem("{\"plant\":{\"form\":\"stateSpace\",\"b2\":3}}", "/plant/b2",
-                "wrong type: expected a JSON object");
+        assertProblem("{\"plant\":{\"form\":\"rotaryAxis\",\"length\":1}}", "/plant/length", "unknown field 'length'");
+        assertProblem(
+                "{\"plant\":{\"form\":\"stateSpace\",\"a\":[[0,1],[0,\"x\"]]}}",
+                "/plant/a/1/1",
+                "wrong type: expected a JSON number");
+        assertProblem(
+                "{\"plant\":{\"form\":\"stateSpace\",\"b2\":3}}", "/plant/b2", "wrong type: expected a JSON object");
         assertProblem("{\"plant\":{\"form\":{}}}", "/plant/form", "wrong type: expected a JSON object");
         assertProblem("{\"plant\":[1,2]}", "/plant", "wrong type: expected a JSON object");
         assertProblem("{\"plant\":{\"a0\":0,\"a0\":1}}", "/plant", "cannot be read");
@@ -116,13 +146,14 @@ class PlantInputDecodingTest {
 
     @Test
     void anUnmatchedPlantIsNotWritten() {
-        assertThrows(JsonProcessingException.class,
+        assertThrows(
+                JsonProcessingException.class,
                 () -> STRICT.writeValueAsString(new UnmatchedPlant("linearMotor", List.of())));
     }
 
     private static void assertProblem(String body, String pointer, String detail) {
-        JsonProcessingException failure = assertThrows(JsonProcessingException.class,
-                () -> STRICT.readValue(body, Body.class), body);
+        JsonProcessingException failure =
+                assertThrows(JsonProcessingException.class, () -> STRICT.readValue(body, Body.class), body);
         Problem problem = DecodeFailures.toProblem(failure);
         assertEquals(400, problem.status(), body);
         assertEquals("field " + pointer + ": " + detail, problem.detail(), body);

@@ -1,11 +1,10 @@
 package com.loopwright.api.plot;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
 import java.nio.charset.StandardCharsets;
 import java.util.Locale;
 import org.junit.jupiter.api.Test;
@@ -30,13 +29,16 @@ class BodeMarginsAgreeTest {
         assertEquals(0.368081, margins.at("/delayMargin").asDouble(), 1e-5);
         assertTrue(outcome.body().at("/robustness/delay/withinMargin").asBoolean());
 
-        Answer bode = Answer.plot("bode",
-                ("{\"design\":" + design + "}").getBytes(StandardCharsets.UTF_8));
+        Answer bode = Answer.plot("bode", ("{\"design\":" + design + "}").getBytes(StandardCharsets.UTF_8));
         assertEquals(200, bode.status());
-        String stated = String.format(Locale.ROOT, "phase margin %.1f deg, delay margin %s s",
-                margins.at("/phaseMargin").asDouble(), DesignFigures.format(margins.at("/delayMargin").asDouble()));
+        String stated = String.format(
+                Locale.ROOT,
+                "phase margin %.1f deg, delay margin %s s",
+                margins.at("/phaseMargin").asDouble(),
+                DesignFigures.format(margins.at("/delayMargin").asDouble()));
         assertTrue(bode.text().contains(stated), stated);
-        assertTrue(bode.text().contains("gain crossover " + DesignFigures.format(
-                margins.at("/crossoverFrequency").asDouble()) + " rad/s"));
+        assertTrue(bode.text()
+                .contains("gain crossover "
+                        + DesignFigures.format(margins.at("/crossoverFrequency").asDouble()) + " rad/s"));
     }
 }

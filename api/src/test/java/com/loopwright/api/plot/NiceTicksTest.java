@@ -34,9 +34,14 @@ class NiceTicksTest {
             double high = low + random.nextDouble() * Math.pow(10, random.nextInt(12) - 6);
             NiceTicks ticks = NiceTicks.covering(low, high, 7);
             double mantissa = ticks.step() / Math.pow(10, Math.floor(Math.log10(ticks.step()) + 1e-12));
-            assertTrue(Math.abs(mantissa - 1) < 1e-9 || Math.abs(mantissa - 2) < 1e-9 || Math.abs(mantissa - 5) < 1e-9
-                    || Math.abs(mantissa - 10) < 1e-9, "step " + ticks.step());
-            assertTrue(ticks.start() <= low + 1e-12 * Math.abs(low) && ticks.end() >= high - 1e-9 * ticks.step(),
+            assertTrue(
+                    Math.abs(mantissa - 1) < 1e-9
+                            || Math.abs(mantissa - 2) < 1e-9
+                            || Math.abs(mantissa - 5) < 1e-9
+                            || Math.abs(mantissa - 10) < 1e-9,
+                    "step " + ticks.step());
+            assertTrue(
+                    ticks.start() <= low + 1e-12 * Math.abs(low) && ticks.end() >= high - 1e-9 * ticks.step(),
                     low + ".." + high + " -> " + ticks);
             assertTrue(ticks.count() >= 2 && ticks.count() <= NiceTicks.MAX_TICKS);
             for (int k = 0; k < ticks.count(); k++) {

@@ -1,11 +1,11 @@
 package com.loopwright.api.takeaway;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.endpoint.Answer;
 import com.loopwright.api.json.StrictJson;
 import java.nio.charset.StandardCharsets;
 import java.util.Locale;
@@ -39,19 +39,25 @@ class ExportedStepMetricsTest {
         JsonNode continuous = json.get("continuousStep");
         JsonNode sampled = json.get("sampledStep");
 
-        Answer verified = Answer.design((DESIGN + ",\"verify\":{\"sampling\":{\"samplePeriod\":"
-                + PERIOD + "}}}").getBytes(StandardCharsets.UTF_8));
+        Answer verified = Answer.design((DESIGN + ",\"verify\":{\"sampling\":{\"samplePeriod\":" + PERIOD + "}}}")
+                .getBytes(StandardCharsets.UTF_8));
         assertEquals(200, verified.status(), () -> verified.body().toString());
         JsonNode emulated = verified.body().at("/robustness/sampled/emulated");
         for (String field : new String[] {"overshootPercent", "riseTime", "settlingTime"}) {
             assertEquals(emulated.get(field).asDouble(), sampled.get(field).asDouble(), 0, field);
         }
-        assertEquals(verified.body().at("/simulated/overshootPercent").asDouble(),
-                continuous.get("overshootPercent").asDouble(), 1e-12);
-        assertTrue(Math.abs(sampled.get("overshootPercent").asDouble()
-                - continuous.get("overshootPercent").asDouble()) > 0.01, "the two differ at wn T = 0.15");
+        assertEquals(
+                verified.body().at("/simulated/overshootPercent").asDouble(),
+                continuous.get("overshootPercent").asDouble(),
+                1e-12);
+        assertTrue(
+                Math.abs(sampled.get("overshootPercent").asDouble()
+                                - continuous.get("overshootPercent").asDouble())
+                        > 0.01,
+                "the two differ at wn T = 0.15");
 
-        String line = String.format(Locale.ROOT, "overshoot %.5g%%", sampled.get("overshootPercent").asDouble());
+        String line = String.format(
+                Locale.ROOT, "overshoot %.5g%%", sampled.get("overshootPercent").asDouble());
         for (String format : new String[] {"structured-text", "c"}) {
             String code = export(format).text();
             assertTrue(code.contains("Simulated (sampled at T = " + PERIOD + " s"), format);
@@ -67,8 +73,10 @@ class ExportedStepMetricsTest {
         String slow = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                 + "\"spec\":{\"settlingTime\":1.5,\"overshootPercent\":1.5}}";
         for (String format : new String[] {"parameters", "c"}) {
-            Answer exported = Answer.controller(format, ("{\"design\":" + slow
-                    + ",\"samplePeriodSeconds\":1e-5,\"commandLimit\":10}").getBytes(StandardCharsets.UTF_8));
+            Answer exported = Answer.controller(
+                    format,
+                    ("{\"design\":" + slow + ",\"samplePeriodSeconds\":1e-5,\"commandLimit\":10}")
+                            .getBytes(StandardCharsets.UTF_8));
             assertEquals(200, exported.status(), () -> String.valueOf(exported.problem()));
             if (format.equals("parameters")) {
                 JsonNode json = mapper.readTree(exported.text());

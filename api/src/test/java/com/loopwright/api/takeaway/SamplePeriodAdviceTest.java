@@ -1,11 +1,10 @@
 package com.loopwright.api.takeaway;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
 import java.nio.charset.StandardCharsets;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -17,6 +16,7 @@ class SamplePeriodAdviceTest {
     /** The README axis. */
     private static final String DESIGN = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+
     private static final Pattern ADVICE = Pattern.compile("at most ([0-9.eE+-]+) s");
 
     private Answer export(double period) {

@@ -1,9 +1,8 @@
 package com.loopwright.api.verification;
 
-import com.loopwright.api.endpoint.Answer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
-import com.loopwright.api.json.StrictJson;
+import com.loopwright.api.endpoint.Answer;
 import java.nio.charset.StandardCharsets;
 import org.junit.jupiter.api.Test;
 
@@ -26,6 +25,9 @@ class LatePeakVerificationTest {
         double sigma = 0.5 * (a1 + b * -3.286906667311671);
         double wd = Math.sqrt(a0 + b * -26.698820246411938 - sigma * sigma);
         double expected = 100 * Math.exp(-sigma * Math.PI / wd);
-        assertEquals(expected, outcome.body().at("/robustness/nominal/overshootPercent").asDouble(), 1e-4 * expected);
+        assertEquals(
+                expected,
+                outcome.body().at("/robustness/nominal/overshootPercent").asDouble(),
+                1e-4 * expected);
     }
 }

@@ -35,25 +35,33 @@ public final class ComputePool implements AutoCloseable {
 
     /** Retry-After seconds suggested to a refused client. */
     public static final int RETRY_AFTER_SECONDS = 1;
+
     private static final Logger LOG = LoggerFactory.getLogger(ComputePool.class);
 
     private final ThreadPoolExecutor executor;
     private final long deadlineMillis;
     /** Workers batch items may hold at once, over all batches: ceil(workers/2). */
     private final int batchShare;
+
     private final Semaphore batchSlots;
 
     public ComputePool(int workerThreads, int queueCapacity, long deadlineMillis) {
-        BlockingQueue<Runnable> queue = queueCapacity == 0 ? new SynchronousQueue<>()
-                : new ArrayBlockingQueue<>(queueCapacity);
+        BlockingQueue<Runnable> queue =
+                queueCapacity == 0 ? new SynchronousQueue<>() : new ArrayBlockingQueue<>(queueCapacity);
         AtomicInteger count = new AtomicInteger();
         ThreadFactory threads = task -> {
             Thread thread = new Thread(task, "loopwright-design-" + count.incrementAndGet());
             thread.setDaemon(true);
             return thread;
         };
-        this.executor = new ThreadPoolExecutor(workerThreads, workerThreads, 0, TimeUnit.MILLISECONDS, queue,
-                threads, new ThreadPoolExecutor.AbortPolicy());
+        this.executor = new ThreadPoolExecutor(
+                workerThreads,
+                workerThreads,
+                0,
+                TimeUnit.MILLISECONDS,
+                queue,
+                threads,
+                new ThreadPoolExecutor.AbortPolicy());
         this.deadlineMillis = deadlineMillis;
         this.batchShare = (workerThreads + 1) / 2;
         this.batchSlots = new Semaphore(batchShare, true);
@@ -78,7 +86,7 @@ public final class ComputePool implements AutoCloseable {
      * resolved to the overloaded problem.
      */
     public <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem) {
-        return submit(computation, onProblem, deadlineFromNow(), () -> { });
+        return submit(computation, onProblem, deadlineFromNow(), () -> {});
     }
 
     /**
@@ -89,17 +97,21 @@ public final class ComputePool implements AutoCloseable {
      *
      * @param deadlineNanos the batch's deadline as a {@link System#nanoTime()} instant
      */
-    public <T> Pending<T> submitBatchItem(Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos,
-                                          boolean waitForSlot) {
+    public <T> Pending<T> submitBatchItem(
+            Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos, boolean waitForSlot) {
         long remainingNanos = deadlineNanos - System.nanoTime();
         boolean slot;
         try {
-            slot = waitForSlot ? remainingNanos > 0 && batchSlots.tryAcquire(remainingNanos, TimeUnit.NANOSECONDS)
+            slot = waitForSlot
+                    ? remainingNanos > 0 && batchSlots.tryAcquire(remainingNanos, TimeUnit.NANOSECONDS)
                     : batchSlots.tryAcquire();
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
-            return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(ProblemType.NOT_READY
-                    .problem("the request was interrupted by a shutdown")));
+            return new Pending<>(
+                    null,
+                    deadlineNanos,
+                    onProblem,
+                    onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown")));
         }
         if (!slot) {
             if (waitForSlot || deadlineNanos - System.nanoTime() <= 0) {
@@ -118,8 +130,8 @@ public final class ComputePool implements AutoCloseable {
     /**
      * @param release runs once the computation has ended, was refused, or was cancelled before it started
      */
-    private <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos,
-                                  Runnable release) {
+    private <T> Pending<T> submit(
+            Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos, Runnable release) {
         if (deadlineNanos - System.nanoTime() <= 0) {
             release.run();
             return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(deadlineProblem()));
@@ -128,33 +140,38 @@ public final class ComputePool implements AutoCloseable {
         // sets; carrying one string avoids copying the whole context map per computation).
         String requestId = MDC.get(RequestIds.MDC_KEY);
         AtomicBoolean started = new AtomicBoolean();
-        FutureTask<T> task = new FutureTask<>(() -> {
-            started.set(true);
-            if (requestId != null) {
-                MDC.put(RequestIds.MDC_KEY, requestId);
-            }
-            try {
-                return computation.get();
-            } finally {
-                MDC.remove(RequestIds.MDC_KEY);
-                release.run();
-            }
-        }) {
-            @Override
-            protected void done() {
-                if (!started.get()) {
-                    release.run(); // cancelled while queued: the computation never runs
-                }
-            }
-        };
+        FutureTask<T> task =
+                new FutureTask<>(() -> {
+                    started.set(true);
+                    if (requestId != null) {
+                        MDC.put(RequestIds.MDC_KEY, requestId);
+                    }
+                    try {
+                        return computation.get();
+                    } finally {
+                        MDC.remove(RequestIds.MDC_KEY);
+                        release.run();
+                    }
+                }) {
+                    @Override
+                    protected void done() {
+                        if (!started.get()) {
+                            release.run(); // cancelled while queued: the computation never runs
+                        }
+                    }
+                };
         try {
             executor.execute(task);
             return new Pending<>(task, deadlineNanos, onProblem, null);
         } catch (RejectedExecutionException e) {
             release.run();
-            return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(ProblemType.SERVICE_OVERLOADED
-                    .problem("all " + executor.getMaximumPoolSize() + " design workers are busy and "
-                            + queueCapacity() + " designs are queued; retry after " + RETRY_AFTER_SECONDS + " s")));
+            return new Pending<>(
+                    null,
+                    deadlineNanos,
+                    onProblem,
+                    onProblem.apply(ProblemType.SERVICE_OVERLOADED.problem(
+                            "all " + executor.getMaximumPoolSize() + " design workers are busy and " + queueCapacity()
+                                    + " designs are queued; retry after " + RETRY_AFTER_SECONDS + " s")));
         }
     }
 
@@ -226,7 +243,8 @@ public final class ComputePool implements AutoCloseable {
                 return onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown"));
             } catch (ExecutionException e) {
                 if (e.getCause() instanceof ComputationCancelledException) {
-                    return onProblem.apply(ProblemType.NOT_READY.problem("the computation was cancelled by a shutdown"));
+                    return onProblem.apply(
+                            ProblemType.NOT_READY.problem("the computation was cancelled by a shutdown"));
                 }
                 LOG.error("design computation failed", e.getCause());
                 return onProblem.apply(ProblemType.INTERNAL_ERROR.problem(null));
@@ -245,7 +263,8 @@ public final class ComputePool implements AutoCloseable {
 
     /** True when a new computation would be refused right now (every worker busy and the queue full). */
     public boolean saturated() {
-        return executor.getActiveCount() >= executor.getMaximumPoolSize() && executor.getQueue().remainingCapacity() == 0;
+        return executor.getActiveCount() >= executor.getMaximumPoolSize()
+                && executor.getQueue().remainingCapacity() == 0;
     }
 
     public int activeWorkers() {

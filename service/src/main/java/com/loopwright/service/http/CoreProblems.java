@@ -26,7 +26,8 @@ public final class CoreProblems {
             return mapper.writeValueAsBytes(problem);
         } catch (JsonProcessingException e) {
             return ("{\"type\":\"" + ProblemType.INTERNAL_ERROR.uri() + "\",\"title\":\"Error\",\"status\":"
-                    + problem.status() + ",\"detail\":\"unavailable\"}").getBytes(StandardCharsets.UTF_8);
+                            + problem.status() + ",\"detail\":\"unavailable\"}")
+                    .getBytes(StandardCharsets.UTF_8);
         }
     }
 

@@ -16,11 +16,16 @@ package com.loopwright.service.http;
  * @param idleTimeoutMillis       a connection with no bytes in either direction for this long is closed
  *                                (LOOPWRIGHT_IDLE_TIMEOUT_MS, default 30000)
  */
-public record HttpLimits(int httpThreads, long inFlightBodyBytes, long minBodyBytesPerSecond, long bodyGraceMillis,
-                         long idleTimeoutMillis) {
+public record HttpLimits(
+        int httpThreads,
+        long inFlightBodyBytes,
+        long minBodyBytesPerSecond,
+        long bodyGraceMillis,
+        long idleTimeoutMillis) {
 
     /** Javalin's own default for the Jetty pool. */
     public static final int DEFAULT_HTTP_THREADS = 250;
+
     public static final long DEFAULT_INFLIGHT_BODY_BYTES = 32L << 20;
     public static final long DEFAULT_MIN_BODY_BYTES_PER_SECOND = 16_384;
     public static final long DEFAULT_BODY_GRACE_MILLIS = 5_000;
@@ -29,21 +34,23 @@ public record HttpLimits(int httpThreads, long inFlightBodyBytes, long minBodyBy
     public static final int MAX_HEADER_BYTES = 8 * 1024;
     /** Jetty needs a few threads of its own (acceptor, selector, reserved); fewer cannot serve. */
     public static final int MIN_HTTP_THREADS = 8;
+
     public static final int MAX_HTTP_THREADS = 2_000;
     /** Budget permits are an int count of bytes. */
     public static final long MAX_INFLIGHT_BODY_BYTES = 1L << 30;
 
     public HttpLimits {
         if (httpThreads < MIN_HTTP_THREADS || httpThreads > MAX_HTTP_THREADS) {
-            throw new IllegalArgumentException("HTTP threads must be from " + MIN_HTTP_THREADS + " to "
-                    + MAX_HTTP_THREADS + ": " + httpThreads);
+            throw new IllegalArgumentException(
+                    "HTTP threads must be from " + MIN_HTTP_THREADS + " to " + MAX_HTTP_THREADS + ": " + httpThreads);
         }
         if (inFlightBodyBytes < 1024 || inFlightBodyBytes > MAX_INFLIGHT_BODY_BYTES) {
-            throw new IllegalArgumentException("in-flight body bytes must be from 1 KiB to 1 GiB: " + inFlightBodyBytes);
+            throw new IllegalArgumentException(
+                    "in-flight body bytes must be from 1 KiB to 1 GiB: " + inFlightBodyBytes);
         }
         if (minBodyBytesPerSecond < 1 || minBodyBytesPerSecond > (1L << 30)) {
-            throw new IllegalArgumentException("minimum body rate must be from 1 to 2^30 bytes/s: "
-                    + minBodyBytesPerSecond);
+            throw new IllegalArgumentException(
+                    "minimum body rate must be from 1 to 2^30 bytes/s: " + minBodyBytesPerSecond);
         }
         if (bodyGraceMillis < 0 || bodyGraceMillis > 600_000) {
             throw new IllegalArgumentException("body grace must be from 0 to 600000 ms: " + bodyGraceMillis);
@@ -54,7 +61,11 @@ public record HttpLimits(int httpThreads, long inFlightBodyBytes, long minBodyBy
     }
 
     public static HttpLimits defaults() {
-        return new HttpLimits(DEFAULT_HTTP_THREADS, DEFAULT_INFLIGHT_BODY_BYTES, DEFAULT_MIN_BODY_BYTES_PER_SECOND,
-                DEFAULT_BODY_GRACE_MILLIS, DEFAULT_IDLE_TIMEOUT_MILLIS);
+        return new HttpLimits(
+                DEFAULT_HTTP_THREADS,
+                DEFAULT_INFLIGHT_BODY_BYTES,
+                DEFAULT_MIN_BODY_BYTES_PER_SECOND,
+                DEFAULT_BODY_GRACE_MILLIS,
+                DEFAULT_IDLE_TIMEOUT_MILLIS);
     }
 }

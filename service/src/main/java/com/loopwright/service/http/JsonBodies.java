@@ -7,8 +7,7 @@ public final class JsonBodies {
 
     public static final String JSON = "application/json";
 
-    private JsonBodies() {
-    }
+    private JsonBodies() {}
 
     /** True for application/json with or without parameters such as charset=utf-8. */
     public static boolean isJson(String contentType) {

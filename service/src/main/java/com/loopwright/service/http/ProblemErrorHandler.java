@@ -41,18 +41,24 @@ public final class ProblemErrorHandler extends ErrorHandler {
             case 413 -> ProblemType.PAYLOAD_TOO_LARGE.problem(null);
             case 414 -> ProblemType.MALFORMED_HTTP.problem("the request target is longer than the request line cap");
             case 415 -> ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(null);
-            case 426 -> ProblemType.UNSUPPORTED_PROTOCOL.problem(
-                    "HTTP/2 is not offered; send the request as HTTP/1.1");
-            case 431 -> ProblemType.MALFORMED_HTTP.problem("the request line and headers exceed "
-                    + HttpLimits.MAX_HEADER_BYTES + " bytes");
+            case 426 -> ProblemType.UNSUPPORTED_PROTOCOL.problem("HTTP/2 is not offered; send the request as HTTP/1.1");
+            case 431 ->
+                ProblemType.MALFORMED_HTTP.problem(
+                        "the request line and headers exceed " + HttpLimits.MAX_HEADER_BYTES + " bytes");
             case 503 -> ProblemType.NOT_READY.problem(null);
             case 505 -> ProblemType.UNSUPPORTED_PROTOCOL.problem(null);
-            default -> status >= 500 ? ProblemType.INTERNAL_ERROR.problem(null)
-                    : ProblemType.MALFORMED_HTTP.problem(null);
+            default ->
+                status >= 500 ? ProblemType.INTERNAL_ERROR.problem(null) : ProblemType.MALFORMED_HTTP.problem(null);
         };
         // Keep the type, but report the status that is actually sent (e.g. 431 for oversized headers).
-        return new Problem(problem.type(), problem.title(), status >= 400 && status <= 599 ? status : problem.status(),
-                problem.detail(), null, List.of(), List.of());
+        return new Problem(
+                problem.type(),
+                problem.title(),
+                status >= 400 && status <= 599 ? status : problem.status(),
+                problem.detail(),
+                null,
+                List.of(),
+                List.of());
     }
 
     /** A body for every method (Jetty's default gives none for methods other than GET, POST and HEAD). */
@@ -62,8 +68,8 @@ public final class ProblemErrorHandler extends ErrorHandler {
     }
 
     @Override
-    protected void generateResponse(Request request, Response response, int code, String message, Throwable cause,
-                                    Callback callback) {
+    protected void generateResponse(
+            Request request, Response response, int code, String message, Throwable cause, Callback callback) {
         fatal.check(cause);
         problems.write(response, callback, problemFor(code), Map.of());
     }

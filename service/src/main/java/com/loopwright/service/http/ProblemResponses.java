@@ -23,7 +23,8 @@ public final class ProblemResponses {
         } catch (JsonProcessingException e) {
             // A Problem is plain strings and numbers; this cannot fail, but never leak a stack trace if it does.
             body = ("{\"type\":\"" + located.type() + "\",\"title\":\"" + located.title() + "\",\"status\":"
-                    + located.status() + ",\"detail\":\"unavailable\"}").getBytes(StandardCharsets.UTF_8);
+                            + located.status() + ",\"detail\":\"unavailable\"}")
+                    .getBytes(StandardCharsets.UTF_8);
         }
         ctx.status(located.status()).contentType(Problem.MEDIA_TYPE).result(body);
     }

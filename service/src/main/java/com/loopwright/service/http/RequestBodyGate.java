@@ -56,6 +56,7 @@ public final class RequestBodyGate extends Handler.Wrapper {
     static final long DRAIN_FACTOR = 4;
     /** Request attribute (Boolean.TRUE) of a request handed on without its body: it failed the admission test. */
     public static final String WITHHELD = "loopwright.bodyWithheld";
+
     private static final Logger LOG = LoggerFactory.getLogger(RequestBodyGate.class);
     private static final ByteBuffer NO_BYTES = ByteBuffer.allocate(0);
 
@@ -88,8 +89,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
      * @param admission the header-only test run before a body is admitted (e.g. the API key of a keyed route)
      * @param observer  told of every refused body and every request answered here
      */
-    public RequestBodyGate(long maxBodyBytes, HttpLimits limits, CoreProblems problems, Admission admission,
-                           Observer observer) {
+    public RequestBodyGate(
+            long maxBodyBytes, HttpLimits limits, CoreProblems problems, Admission admission, Observer observer) {
         this.maxBodyBytes = maxBodyBytes;
         this.budgetBytes = limits.inFlightBodyBytes();
         this.budget = new Semaphore(Math.toIntExact(budgetBytes));
@@ -124,16 +125,30 @@ public final class RequestBodyGate extends Handler.Wrapper {
             return true;
         }
         if (declared > maxBodyBytes) {
-            refuse(request, response, callback, startNanos, declared, "too_large", ProblemType.PAYLOAD_TOO_LARGE.problem(
-                    "the body of " + declared + " bytes exceeds the request size cap of " + maxBodyBytes + " bytes"),
+            refuse(
+                    request,
+                    response,
+                    callback,
+                    startNanos,
+                    declared,
+                    "too_large",
+                    ProblemType.PAYLOAD_TOO_LARGE.problem("the body of " + declared
+                            + " bytes exceeds the request size cap of " + maxBodyBytes + " bytes"),
                     Map.of());
             return true;
         }
         int reserved = (int) (chunked ? maxBodyBytes : declared);
         if (!budget.tryAcquire(reserved)) {
-            refuse(request, response, callback, startNanos, reserved, "budget", ProblemType.SERVICE_OVERLOADED.problem(
-                    "the service is reading as many request bodies as its memory budget of " + budgetBytes
-                    + " bytes allows; retry after " + RETRY_AFTER_SECONDS + " s"),
+            refuse(
+                    request,
+                    response,
+                    callback,
+                    startNanos,
+                    reserved,
+                    "budget",
+                    ProblemType.SERVICE_OVERLOADED.problem(
+                            "the service is reading as many request bodies as its memory budget of " + budgetBytes
+                                    + " bytes allows; retry after " + RETRY_AFTER_SECONDS + " s"),
                     Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS)));
             return true;
         }
@@ -146,8 +161,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
      * read and dropped first (see {@link #refuse} for why), unless the client waits for 100 Continue or the body is
      * over {@link #DRAIN_FACTOR} request caps; then nothing is read and the connection closes after the answer.
      */
-    private void withhold(Handler next, Request request, Response response, Callback callback, long declared,
-                          long startNanos) {
+    private void withhold(
+            Handler next, Request request, Response response, Callback callback, long declared, long startNanos) {
         request.setAttribute(WITHHELD, Boolean.TRUE);
         boolean expectsContinue = request.getHeaders().contains(HttpHeader.EXPECT, "100-continue");
         if (expectsContinue || declared > DRAIN_FACTOR * maxBodyBytes) {
@@ -171,12 +186,22 @@ public final class RequestBodyGate extends Handler.Wrapper {
      * the body already, so it is read and dropped first (at the minimum rate, nothing kept): closing a connection
      * with unread bytes resets it, and the client may lose the answer.
      */
-    private void refuse(Request request, Response response, Callback callback, long startNanos, long length,
-                        String reason, Problem problem, Map<String, String> headers) {
+    private void refuse(
+            Request request,
+            Response response,
+            Callback callback,
+            long startNanos,
+            long length,
+            String reason,
+            Problem problem,
+            Map<String, String> headers) {
         observer.bodyRefused(reason);
         boolean expectsContinue = request.getHeaders().contains(HttpHeader.EXPECT, "100-continue");
         if (expectsContinue || length > DRAIN_FACTOR * maxBodyBytes) {
-            observer.answered(request.getMethod(), request.getHttpURI().getPath(), problem.status(),
+            observer.answered(
+                    request.getMethod(),
+                    request.getHttpURI().getPath(),
+                    problem.status(),
                     System.nanoTime() - startNanos);
             problems.write(response, callback, problem, closing(headers));
             return;
@@ -212,17 +237,26 @@ public final class RequestBodyGate extends Handler.Wrapper {
         private final boolean chunked;
         /** Non-null when the body is only drained: dropped as it arrives, then this answer. */
         private final Refusal refusal;
+
         private final long startNanos;
         /** Set once: the body was handed on, or the request was answered here. */
         private final AtomicBoolean finished = new AtomicBoolean();
+
         private final AtomicBoolean released = new AtomicBoolean();
         private int reserved;
         private byte[] body;
         private volatile int length;
         private volatile Scheduler.Task rateCheck;
 
-        BodyRead(Handler next, Request request, Response response, Callback callback, boolean chunked, int reserved,
-                 Refusal refusal, long startNanos) {
+        BodyRead(
+                Handler next,
+                Request request,
+                Response response,
+                Callback callback,
+                boolean chunked,
+                int reserved,
+                Refusal refusal,
+                long startNanos) {
             this.refusal = refusal;
             this.startNanos = startNanos;
             this.next = next;
@@ -231,7 +265,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
             this.callback = callback;
             this.chunked = chunked;
             this.reserved = reserved;
-            this.body = new byte[refusal != null ? 0 : chunked ? Math.min(reserved, FIRST_CHUNKED_BUFFER_BYTES) : reserved];
+            this.body =
+                    new byte[refusal != null ? 0 : chunked ? Math.min(reserved, FIRST_CHUNKED_BUFFER_BYTES) : reserved];
         }
 
         void start() {
@@ -268,7 +303,8 @@ public final class RequestBodyGate extends Handler.Wrapper {
                         return;
                     }
                     if (length + count > body.length) {
-                        body = Arrays.copyOf(body, (int) Math.min(reserved, Math.max(2L * body.length, length + count)));
+                        body = Arrays.copyOf(
+                                body, (int) Math.min(reserved, Math.max(2L * body.length, length + count)));
                     }
                     bytes.get(body, length, count);
                     length += count;
@@ -293,23 +329,28 @@ public final class RequestBodyGate extends Handler.Wrapper {
             long elapsedNanos = System.nanoTime() - startNanos;
             long allowedNanos = graceNanos + length * 1_000_000_000L / minBytesPerSecond;
             if (elapsedNanos > allowedNanos) {
-                answer(ProblemType.REQUEST_TIMEOUT.problem("the body arrived slower than the minimum of "
-                        + minBytesPerSecond + " bytes/s (" + length + " bytes in " + elapsedNanos / 1_000_000
-                        + " ms); send it again faster"), "slow", Map.of("Connection", "close"));
+                answer(
+                        ProblemType.REQUEST_TIMEOUT.problem("the body arrived slower than the minimum of "
+                                + minBytesPerSecond + " bytes/s (" + length + " bytes in " + elapsedNanos / 1_000_000
+                                + " ms); send it again faster"),
+                        "slow",
+                        Map.of("Connection", "close"));
             } else {
                 scheduleRateCheck(allowedNanos - elapsedNanos + TimeUnit.MILLISECONDS.toNanos(1));
             }
         }
 
         private void scheduleRateCheck(long delayNanos) {
-            rateCheck = request.getComponents().getScheduler().schedule(this::checkRate, delayNanos,
-                    TimeUnit.NANOSECONDS);
+            rateCheck =
+                    request.getComponents().getScheduler().schedule(this::checkRate, delayNanos, TimeUnit.NANOSECONDS);
         }
 
         private void unreadable(Throwable failure) {
             if (failure instanceof TimeoutException) {
-                answer(ProblemType.REQUEST_TIMEOUT.problem("no byte of the body arrived within the idle timeout"),
-                        "slow", Map.of("Connection", "close"));
+                answer(
+                        ProblemType.REQUEST_TIMEOUT.problem("no byte of the body arrived within the idle timeout"),
+                        "slow",
+                        Map.of("Connection", "close"));
                 return;
             }
             String reason = failure instanceof HttpException
@@ -319,8 +360,11 @@ public final class RequestBodyGate extends Handler.Wrapper {
         }
 
         private void tooLong() {
-            answer(ProblemType.PAYLOAD_TOO_LARGE.problem("the body exceeds the request size cap of " + maxBodyBytes
-                    + " bytes"), "too_large", Map.of("Connection", "close"));
+            answer(
+                    ProblemType.PAYLOAD_TOO_LARGE.problem(
+                            "the body exceeds the request size cap of " + maxBodyBytes + " bytes"),
+                    "too_large",
+                    Map.of("Connection", "close"));
         }
 
         /** Answers here instead of handing on: one WARN line (no stack trace), the budget back, the problem. */
@@ -331,10 +375,18 @@ public final class RequestBodyGate extends Handler.Wrapper {
             cancelRateCheck();
             release();
             observer.bodyRefused(refusal);
-            observer.answered(request.getMethod(), request.getHttpURI().getPath(), problem.status(),
+            observer.answered(
+                    request.getMethod(),
+                    request.getHttpURI().getPath(),
+                    problem.status(),
                     System.nanoTime() - startNanos);
-            LOG.warn("request body not accepted: {} {} answered {} after {} bytes: {}", shortened(request.getMethod()),
-                    shortened(request.getHttpURI().getPath()), problem.status(), length, problem.detail());
+            LOG.warn(
+                    "request body not accepted: {} {} answered {} after {} bytes: {}",
+                    shortened(request.getMethod()),
+                    shortened(request.getHttpURI().getPath()),
+                    problem.status(),
+                    length,
+                    problem.detail());
             problems.write(response, callback, problem, headers);
         }
 
@@ -350,10 +402,13 @@ public final class RequestBodyGate extends Handler.Wrapper {
             }
             if (finished.compareAndSet(false, true)) {
                 cancelRateCheck();
-                observer.answered(request.getMethod(), request.getHttpURI().getPath(), refusal.problem().status(),
+                observer.answered(
+                        request.getMethod(),
+                        request.getHttpURI().getPath(),
+                        refusal.problem().status(),
                         System.nanoTime() - startNanos);
-                problems.write(response, callback, refusal.problem(),
-                        cut ? closing(refusal.headers()) : refusal.headers());
+                problems.write(
+                        response, callback, refusal.problem(), cut ? closing(refusal.headers()) : refusal.headers());
             }
         }
 

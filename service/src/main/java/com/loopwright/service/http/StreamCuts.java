@@ -35,14 +35,16 @@ public final class StreamCuts {
     /** Cuts every open stream {@link #CUT_MARGIN_MILLIS} (at most half the grace) before the grace period ends. */
     public void cutBefore(long graceMillis) {
         long delayMillis = Math.max(graceMillis / 2, graceMillis - CUT_MARGIN_MILLIS);
-        Thread timer = new Thread(() -> {
-            try {
-                Thread.sleep(delayMillis);
-                cutAll();
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-            }
-        }, "loopwright-stream-cut");
+        Thread timer = new Thread(
+                () -> {
+                    try {
+                        Thread.sleep(delayMillis);
+                        cutAll();
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                    }
+                },
+                "loopwright-stream-cut");
         timer.setDaemon(true);
         timer.start();
     }

@@ -23,11 +23,12 @@ public final class Metrics {
 
     public static final String CONTENT_TYPE = "text/plain; version=0.0.4; charset=utf-8";
     /** Latency bucket upper bounds [s]: from a health check to a slow batch. */
-    static final double[] LATENCY_BUCKETS_SECONDS = {0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1, 0.25,
-        0.5, 1, 2.5, 5, 10, 30};
+    static final double[] LATENCY_BUCKETS_SECONDS = {
+        0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1, 0.25, 0.5, 1, 2.5, 5, 10, 30
+    };
     /** Outcomes of one design computation (a request or a batch item). */
-    public static final Set<String> DESIGN_OUTCOMES = Set.of("designed", "invalid", "infeasible", "unverifiable",
-            "overloaded", "deadline", "failed");
+    public static final Set<String> DESIGN_OUTCOMES =
+            Set.of("designed", "invalid", "infeasible", "unverifiable", "overloaded", "deadline", "failed");
     /** Guards the label space: at most this many (route, method, status) series, then one overflow series per
      * status class. */
     public static final int MAX_SERIES = 512;
@@ -35,8 +36,8 @@ public final class Metrics {
      * Method label values: the methods of HTTP semantics (RFC 9110) and PATCH (RFC 5789), exactly as sent (methods
      * are case-sensitive); any other method name is counted as "other", so that a client cannot mint label values.
      */
-    public static final Set<String> METHODS = Set.of("GET", "HEAD", "POST", "PUT", "DELETE", "CONNECT", "OPTIONS",
-            "TRACE", "PATCH");
+    public static final Set<String> METHODS =
+            Set.of("GET", "HEAD", "POST", "PUT", "DELETE", "CONNECT", "OPTIONS", "TRACE", "PATCH");
     /** Why the HTTP layer refused a request body (see RequestBodyGate). */
     public static final Set<String> BODY_REFUSALS = Set.of("too_large", "budget", "slow", "unreadable");
 
@@ -164,10 +165,13 @@ public final class Metrics {
         out.append("# TYPE loopwright_http_requests_total counter\n");
         Map<String, Histogram> series = new TreeMap<>();
         requests.forEach((key, histogram) -> series.merge(key.labels(), histogram, Histogram::sum));
-        series.forEach((labels, histogram) -> out
-                .append("loopwright_http_requests_total{").append(labels).append("} ")
-                .append(histogram.count()).append('\n'));
-        out.append("# HELP loopwright_http_request_duration_seconds HTTP request latency by route, method and status.\n");
+        series.forEach((labels, histogram) -> out.append("loopwright_http_requests_total{")
+                .append(labels)
+                .append("} ")
+                .append(histogram.count())
+                .append('\n'));
+        out.append(
+                "# HELP loopwright_http_request_duration_seconds HTTP request latency by route, method and status.\n");
         out.append("# TYPE loopwright_http_request_duration_seconds histogram\n");
         series.forEach((labels, histogram) -> histogram.write(out, "loopwright_http_request_duration_seconds", labels));
         out.append("# HELP loopwright_http_requests_in_flight Requests being served now.\n");
@@ -175,28 +179,47 @@ public final class Metrics {
         out.append("loopwright_http_requests_in_flight ").append(inFlight.get()).append('\n');
         out.append("# HELP loopwright_designs_total Design computations (requests and batch items) by outcome.\n");
         out.append("# TYPE loopwright_designs_total counter\n");
-        designs.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> out
-                .append("loopwright_designs_total{outcome=\"").append(e.getKey()).append("\"} ")
-                .append(e.getValue().get()).append('\n'));
+        designs.entrySet().stream()
+                .sorted(Map.Entry.comparingByKey())
+                .forEach(e -> out.append("loopwright_designs_total{outcome=\"")
+                        .append(e.getKey())
+                        .append("\"} ")
+                        .append(e.getValue().get())
+                        .append('\n'));
         out.append("# HELP loopwright_http_bodies_refused_total Request bodies the HTTP layer refused, by reason.\n");
         out.append("# TYPE loopwright_http_bodies_refused_total counter\n");
-        bodyRefusals.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> out
-                .append("loopwright_http_bodies_refused_total{reason=\"").append(e.getKey()).append("\"} ")
-                .append(e.getValue().sum()).append('\n'));
-        gauge(out, "loopwright_http_body_budget_available_bytes",
-                "Bytes of the in-flight request body budget not reserved now.", availableBodyBytes.getAsLong());
+        bodyRefusals.entrySet().stream()
+                .sorted(Map.Entry.comparingByKey())
+                .forEach(e -> out.append("loopwright_http_bodies_refused_total{reason=\"")
+                        .append(e.getKey())
+                        .append("\"} ")
+                        .append(e.getValue().sum())
+                        .append('\n'));
+        gauge(
+                out,
+                "loopwright_http_body_budget_available_bytes",
+                "Bytes of the in-flight request body budget not reserved now.",
+                availableBodyBytes.getAsLong());
         gauge(out, "loopwright_design_workers_active", "Design workers computing now.", activeWorkers.getAsInt());
         gauge(out, "loopwright_design_queue_length", "Designs waiting for a worker.", queuedDesigns.getAsInt());
         MemoryUsage heap = memory.getHeapMemoryUsage();
         MemoryUsage nonHeap = memory.getNonHeapMemoryUsage();
         out.append("# HELP jvm_memory_used_bytes Used JVM memory by area.\n");
         out.append("# TYPE jvm_memory_used_bytes gauge\n");
-        out.append("jvm_memory_used_bytes{area=\"heap\"} ").append(heap.getUsed()).append('\n');
-        out.append("jvm_memory_used_bytes{area=\"nonheap\"} ").append(nonHeap.getUsed()).append('\n');
+        out.append("jvm_memory_used_bytes{area=\"heap\"} ")
+                .append(heap.getUsed())
+                .append('\n');
+        out.append("jvm_memory_used_bytes{area=\"nonheap\"} ")
+                .append(nonHeap.getUsed())
+                .append('\n');
         out.append("# HELP jvm_memory_committed_bytes Committed JVM memory by area.\n");
         out.append("# TYPE jvm_memory_committed_bytes gauge\n");
-        out.append("jvm_memory_committed_bytes{area=\"heap\"} ").append(heap.getCommitted()).append('\n');
-        out.append("jvm_memory_committed_bytes{area=\"nonheap\"} ").append(nonHeap.getCommitted()).append('\n');
+        out.append("jvm_memory_committed_bytes{area=\"heap\"} ")
+                .append(heap.getCommitted())
+                .append('\n');
+        out.append("jvm_memory_committed_bytes{area=\"nonheap\"} ")
+                .append(nonHeap.getCommitted())
+                .append('\n');
         gauge(out, "jvm_memory_max_bytes", "Largest heap the JVM may use (-1 when undefined).", heap.getMax());
         gauge(out, "jvm_threads_live", "Live JVM threads.", threads.getThreadCount());
         gauge(out, "jvm_threads_peak", "Peak live JVM threads.", threads.getPeakThreadCount());
@@ -256,13 +279,34 @@ public final class Metrics {
             long cumulative = 0;
             for (int i = 0; i < LATENCY_BUCKETS_SECONDS.length; i++) {
                 cumulative += buckets[i].sum();
-                out.append(name).append("_bucket{").append(labels).append(",le=\"")
-                        .append(LATENCY_BUCKETS_SECONDS[i]).append("\"} ").append(cumulative).append('\n');
+                out.append(name)
+                        .append("_bucket{")
+                        .append(labels)
+                        .append(",le=\"")
+                        .append(LATENCY_BUCKETS_SECONDS[i])
+                        .append("\"} ")
+                        .append(cumulative)
+                        .append('\n');
             }
             long total = count.sum();
-            out.append(name).append("_bucket{").append(labels).append(",le=\"+Inf\"} ").append(Math.max(total, cumulative)).append('\n');
-            out.append(name).append("_sum{").append(labels).append("} ").append(sum.sum()).append('\n');
-            out.append(name).append("_count{").append(labels).append("} ").append(Math.max(total, cumulative)).append('\n');
+            out.append(name)
+                    .append("_bucket{")
+                    .append(labels)
+                    .append(",le=\"+Inf\"} ")
+                    .append(Math.max(total, cumulative))
+                    .append('\n');
+            out.append(name)
+                    .append("_sum{")
+                    .append(labels)
+                    .append("} ")
+                    .append(sum.sum())
+                    .append('\n');
+            out.append(name)
+                    .append("_count{")
+                    .append(labels)
+                    .append("} ")
+                    .append(Math.max(total, cumulative))
+                    .append('\n');
         }
     }
 }

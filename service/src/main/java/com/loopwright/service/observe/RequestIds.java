@@ -12,8 +12,7 @@ public final class RequestIds {
     /** Accepted ids: 1 to 128 characters of letters, digits and . _ - : (safe in logs and headers). */
     private static final Pattern ACCEPTED = Pattern.compile("[A-Za-z0-9._:-]{1,128}");
 
-    private RequestIds() {
-    }
+    private RequestIds() {}
 
     public static String accept(String presented) {
         return presented != null && ACCEPTED.matcher(presented).matches() ? presented : issue();

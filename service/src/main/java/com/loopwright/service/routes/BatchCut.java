@@ -11,5 +11,4 @@ import com.loopwright.api.problem.Problem;
  * @param status          503: the service is not ready for these items
  * @param problem         why the stream was cut (type not-ready)
  */
-public record BatchCut(int resumeFromIndex, int status, Problem problem) {
-}
+public record BatchCut(int resumeFromIndex, int status, Problem problem) {}

@@ -27,6 +27,7 @@ final class BatchEnvelope {
     private final byte[] body;
     /** Per item: its first byte and the byte after its last, or -1 for an item that is not an object. */
     private final int[] starts;
+
     private final int[] ends;
     private final JsonNode[] others;
     private final int size;
@@ -87,8 +88,10 @@ final class BatchEnvelope {
                     token = parser.nextToken();
                     if (!name.equals("items")) {
                         if (first == null) {
-                            first = new Invalid("/" + name.replace("~", "~0").replace("/", "~1"), "unknown field '"
-                                    + (name.length() > 64 ? name.substring(0, 64) + "..." : name) + "'");
+                            first = new Invalid(
+                                    "/" + name.replace("~", "~0").replace("/", "~1"),
+                                    "unknown field '" + (name.length() > 64 ? name.substring(0, 64) + "..." : name)
+                                            + "'");
                         }
                         skip(parser);
                     } else if (token != JsonToken.START_ARRAY) {
@@ -127,8 +130,9 @@ final class BatchEnvelope {
         return new BatchEnvelope(mapper, body, starts, ends, others, count);
     }
 
-    private static void locate(JsonParser parser, JsonToken token, int index, int[] starts, int[] ends,
-                               JsonNode[] others) throws IOException {
+    private static void locate(
+            JsonParser parser, JsonToken token, int index, int[] starts, int[] ends, JsonNode[] others)
+            throws IOException {
         if (token == JsonToken.START_OBJECT) {
             starts[index] = Math.toIntExact(parser.currentTokenLocation().getByteOffset());
             skip(parser);
@@ -183,11 +187,12 @@ final class BatchEnvelope {
         JsonNodeFactory nodes = JsonNodeFactory.instance;
         return switch (token) {
             case VALUE_STRING -> nodes.textNode(parser.getText());
-            case VALUE_NUMBER_INT -> switch (parser.getNumberType()) {
-                case INT -> nodes.numberNode(parser.getIntValue());
-                case LONG -> nodes.numberNode(parser.getLongValue());
-                default -> nodes.numberNode(parser.getBigIntegerValue());
-            };
+            case VALUE_NUMBER_INT ->
+                switch (parser.getNumberType()) {
+                    case INT -> nodes.numberNode(parser.getIntValue());
+                    case LONG -> nodes.numberNode(parser.getLongValue());
+                    default -> nodes.numberNode(parser.getBigIntegerValue());
+                };
             case VALUE_NUMBER_FLOAT -> nodes.numberNode(parser.getDoubleValue());
             case VALUE_TRUE -> nodes.booleanNode(true);
             case VALUE_FALSE -> nodes.booleanNode(false);
@@ -201,8 +206,10 @@ final class BatchEnvelope {
 
         Invalid(String pointer, String detail) {
             super(detail, null, false, false);
-            this.problem = ProblemType.INVALID_FIELD.problem(pointer.isEmpty() ? detail : "field " + pointer + ": "
-                    + detail, List.of(new FieldError(pointer, detail)), List.of());
+            this.problem = ProblemType.INVALID_FIELD.problem(
+                    pointer.isEmpty() ? detail : "field " + pointer + ": " + detail,
+                    List.of(new FieldError(pointer, detail)),
+                    List.of());
         }
 
         Problem problem() {

@@ -13,5 +13,4 @@ import com.loopwright.api.problem.Problem;
  * @param problem the problem otherwise, else null
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
-public record BatchLine(int index, int status, JsonNode design, Problem problem) {
-}
+public record BatchLine(int index, int status, JsonNode design, Problem problem) {}

@@ -1,9 +1,9 @@
 package com.loopwright.service.routes;
 
-import com.loopwright.api.design.ComputeBudget;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.design.ComputeBudget;
 import com.loopwright.api.endpoint.Reply;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.Problem;
@@ -47,6 +47,7 @@ public final class BatchRoute implements Handler {
     public static final int MAX_ITEMS_IN_FLIGHT = 16;
     /** Longest a finished line waits in the buffer for the next design before the stream is flushed [ms]. */
     public static final int FLUSH_DELAY_MILLIS = 2;
+
     private static final long FLUSH_DELAY_NANOS = FLUSH_DELAY_MILLIS * 1_000_000L;
     private static final byte NEWLINE = '\n';
     private static final byte[] CLOSE_LINE = {'}', '\n'};
@@ -60,8 +61,14 @@ public final class BatchRoute implements Handler {
     private final ComputeBudget budget = new ComputeBudget();
     private final StreamCuts cuts;
 
-    public BatchRoute(ObjectMapper mapper, ProblemResponses problems, Designs designs, ComputePool pool,
-                      Metrics metrics, int maxItems, StreamCuts cuts) {
+    public BatchRoute(
+            ObjectMapper mapper,
+            ProblemResponses problems,
+            Designs designs,
+            ComputePool pool,
+            Metrics metrics,
+            int maxItems,
+            StreamCuts cuts) {
         this.mapper = mapper;
         this.problems = problems;
         this.designs = designs;
@@ -75,8 +82,9 @@ public final class BatchRoute implements Handler {
     public void handle(Context ctx) throws IOException {
         long deadlineNanos = pool.deadlineFromNow();
         if (!JsonBodies.isJson(ctx.contentType())) {
-            problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
-                    "send the batch with Content-Type: application/json"));
+            problems.write(
+                    ctx,
+                    ProblemType.UNSUPPORTED_MEDIA_TYPE.problem("send the batch with Content-Type: application/json"));
             return;
         }
         BatchEnvelope items;
@@ -100,8 +108,10 @@ public final class BatchRoute implements Handler {
         if (pool.saturated()) {
             // Refuse before the 200 is committed rather than streaming a batch of 503 lines.
             ctx.header("Retry-After", String.valueOf(ComputePool.RETRY_AFTER_SECONDS));
-            problems.write(ctx, ProblemType.SERVICE_OVERLOADED.problem("every design worker is busy; retry after "
-                    + ComputePool.RETRY_AFTER_SECONDS + " s"));
+            problems.write(
+                    ctx,
+                    ProblemType.SERVICE_OVERLOADED.problem(
+                            "every design worker is busy; retry after " + ComputePool.RETRY_AFTER_SECONDS + " s"));
             return;
         }
         ctx.status(200).contentType(MEDIA_TYPE);
@@ -117,10 +127,10 @@ public final class BatchRoute implements Handler {
                 // Keep up to `window` items of this batch on the pool, each on a free batch slot.
                 while (next < count && inFlight.size() < window) {
                     JsonNode item = items.item(next); // a tree only while in flight: at most `window` per batch
-                    ComputePool.Pending<Reply> pending = pool.submitBatchItem(() -> designs.design(item),
-                            Reply::failure, deadlineNanos, inFlight.isEmpty());
-                    if (pending == null || (pending.refused() && !inFlight.isEmpty()
-                            && deadlineNanos - System.nanoTime() > 0)) {
+                    ComputePool.Pending<Reply> pending = pool.submitBatchItem(
+                            () -> designs.design(item), Reply::failure, deadlineNanos, inFlight.isEmpty());
+                    if (pending == null
+                            || (pending.refused() && !inFlight.isEmpty() && deadlineNanos - System.nanoTime() > 0)) {
                         break; // no slot or a full pool: submit this item again once our oldest one is written
                     }
                     inFlight.addLast(pending);
@@ -149,9 +159,15 @@ public final class BatchRoute implements Handler {
 
     /** The final line of a stream cut by a shutdown: items from {@code index} on have no line (BatchCut). */
     private void writeCut(OutputStream out, int index) throws IOException {
-        out.write(mapper.writeValueAsBytes(new BatchCut(index, 503, ProblemType.NOT_READY.problem("the service is "
-                + "shutting down and its grace period is ending: the stream was cut before item " + index
-                + "; send items " + index + " and later again").withInstance(PATH + "#/items/" + index))));
+        out.write(mapper.writeValueAsBytes(new BatchCut(
+                index,
+                503,
+                ProblemType.NOT_READY
+                        .problem("the service is "
+                                + "shutting down and its grace period is ending: the stream was cut before item "
+                                + index
+                                + "; send items " + index + " and later again")
+                        .withInstance(PATH + "#/items/" + index))));
         out.write(NEWLINE);
         out.flush();
     }
@@ -163,8 +179,8 @@ public final class BatchRoute implements Handler {
             outcome.writeTo(out);
             out.write(CLOSE_LINE);
         } else {
-            out.write(mapper.writeValueAsBytes(new BatchLine(index, outcome.status(), null,
-                    outcome.problem().withInstance(PATH + "#/items/" + index))));
+            out.write(mapper.writeValueAsBytes(new BatchLine(
+                    index, outcome.status(), null, outcome.problem().withInstance(PATH + "#/items/" + index))));
             out.write(NEWLINE);
         }
     }

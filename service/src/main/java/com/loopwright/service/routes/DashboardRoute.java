@@ -3,12 +3,12 @@ package com.loopwright.service.routes;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.Base64;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
 
 /** GET /: the static dashboard page (one self-contained HTML file: inline style and script, no CDN). */
 public final class DashboardRoute implements Handler {

@@ -26,11 +26,11 @@ public final class JsonExchangeRoute implements Handler {
 
     /** A route over an endpoint run (api.endpoint.EndpointRunner) that answers a body or a problem. */
     public JsonExchangeRoute(ProblemResponses problems, ComputePool pool, Function<byte[], Reply> exchange) {
-        this(problems, pool, exchange, outcome -> { });
+        this(problems, pool, exchange, outcome -> {});
     }
 
-    private JsonExchangeRoute(ProblemResponses problems, ComputePool pool, Function<byte[], Reply> exchange,
-                              Consumer<Reply> afterwards) {
+    private JsonExchangeRoute(
+            ProblemResponses problems, ComputePool pool, Function<byte[], Reply> exchange, Consumer<Reply> afterwards) {
         this.problems = problems;
         this.pool = pool;
         this.exchange = exchange;
@@ -42,16 +42,18 @@ public final class JsonExchangeRoute implements Handler {
      *
      * @param afterwards sees every reply before it is written (for example to count designs by outcome)
      */
-    public static JsonExchangeRoute encoded(ProblemResponses problems, ComputePool pool,
-                                            Function<byte[], Reply> exchange, Consumer<Reply> afterwards) {
+    public static JsonExchangeRoute encoded(
+            ProblemResponses problems, ComputePool pool, Function<byte[], Reply> exchange, Consumer<Reply> afterwards) {
         return new JsonExchangeRoute(problems, pool, exchange, afterwards);
     }
 
     @Override
     public void handle(Context ctx) {
         if (!JsonBodies.isJson(ctx.contentType())) {
-            problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
-                    "send the request body with Content-Type: application/json"));
+            problems.write(
+                    ctx,
+                    ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
+                            "send the request body with Content-Type: application/json"));
             return;
         }
         byte[] body = ctx.bodyAsBytes();

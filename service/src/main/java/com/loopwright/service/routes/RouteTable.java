@@ -51,8 +51,8 @@ public final class RouteTable {
             Objects.requireNonNull(handler, "handler");
             Objects.requireNonNull(access, "access");
             if (path == null || !path.startsWith("/") || !method.isHttpMethod()) {
-                throw new IllegalArgumentException("a route needs an HTTP method and an absolute path: " + method
-                        + " " + path);
+                throw new IllegalArgumentException(
+                        "a route needs an HTTP method and an absolute path: " + method + " " + path);
             }
         }
 
@@ -89,8 +89,9 @@ public final class RouteTable {
             }
         }
         for (Route route : this.routes) {
-            if (route.access() == Access.PUBLIC && scopes.stream().anyMatch(scope -> route.path().startsWith(
-                    scope.substring(0, scope.length() - 1)))) {
+            if (route.access() == Access.PUBLIC
+                    && scopes.stream()
+                            .anyMatch(scope -> route.path().startsWith(scope.substring(0, scope.length() - 1)))) {
                 throw new IllegalArgumentException("the public route " + route.path() + " lies in a keyed segment");
             }
         }
@@ -102,8 +103,8 @@ public final class RouteTable {
     private static String scopeOf(String path) {
         int end = path.indexOf('/', 1);
         if (end < 0) {
-            throw new IllegalArgumentException("a keyed route needs a first segment of its own (e.g. /v1/...): "
-                    + path);
+            throw new IllegalArgumentException(
+                    "a keyed route needs a first segment of its own (e.g. /v1/...): " + path);
         }
         return path.substring(0, end + 1) + "*";
     }

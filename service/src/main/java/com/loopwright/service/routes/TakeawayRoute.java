@@ -26,8 +26,8 @@ public final class TakeawayRoute implements Handler {
     /**
      * @param parameter the path parameter handed to {@code work} with the body (figure or format)
      */
-    public TakeawayRoute(String parameter, BiFunction<String, byte[], Reply> work, ProblemResponses problems,
-                         ComputePool pool) {
+    public TakeawayRoute(
+            String parameter, BiFunction<String, byte[], Reply> work, ProblemResponses problems, ComputePool pool) {
         this.parameter = parameter;
         this.work = work;
         this.problems = problems;
@@ -37,8 +37,9 @@ public final class TakeawayRoute implements Handler {
     @Override
     public void handle(Context ctx) {
         if (!JsonBodies.isJson(ctx.contentType())) {
-            problems.write(ctx, ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(
-                    "send the request with Content-Type: application/json"));
+            problems.write(
+                    ctx,
+                    ProblemType.UNSUPPORTED_MEDIA_TYPE.problem("send the request with Content-Type: application/json"));
             return;
         }
         String value = ctx.pathParam(parameter);

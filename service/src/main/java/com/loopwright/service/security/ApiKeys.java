@@ -44,7 +44,9 @@ public final class ApiKeys {
             return true;
         }
         String presented = presented(authorization, apiKeyHeader);
-        return presented != null && !presented.isEmpty() && presented.length() <= MAX_PRESENTED_LENGTH
+        return presented != null
+                && !presented.isEmpty()
+                && presented.length() <= MAX_PRESENTED_LENGTH
                 && matches(presented);
     }
 
@@ -55,8 +57,10 @@ public final class ApiKeys {
         }
         String presented = presented(authorization, apiKeyHeader);
         if (presented == null || presented.isEmpty()) {
-            throw new ProblemException(ProblemType.UNAUTHORIZED.problem(
-                    "this service requires an API key: send Authorization: Bearer <key> or " + HEADER + ": <key>"),
+            throw new ProblemException(
+                    ProblemType.UNAUTHORIZED.problem(
+                            "this service requires an API key: send Authorization: Bearer <key> or " + HEADER
+                                    + ": <key>"),
                     Map.of("WWW-Authenticate", "Bearer realm=\"loopwright\""));
         }
         if (presented.length() > MAX_PRESENTED_LENGTH || !matches(presented)) {
@@ -66,7 +70,8 @@ public final class ApiKeys {
 
     /** The X-Api-Key header, else the token of an "Authorization: Bearer" header, else null. */
     private static String presented(String authorization, String apiKeyHeader) {
-        if (apiKeyHeader == null && authorization != null
+        if (apiKeyHeader == null
+                && authorization != null
                 && authorization.regionMatches(true, 0, BEARER, 0, BEARER.length())) {
             return authorization.substring(BEARER.length()).trim();
         }

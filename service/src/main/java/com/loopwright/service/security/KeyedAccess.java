@@ -24,8 +24,11 @@ public final class KeyedAccess {
 
     /** The body gate's admission test: false when the path is keyed and no accepted key is presented. */
     public boolean admitsBody(Request request) {
-        return !keys.enabled() || !paths.keyed(request.getMethod(), request.getHttpURI().getPath())
-                || keys.accepts(request.getHeaders().get(HttpHeader.AUTHORIZATION), request.getHeaders().get(ApiKeys.HEADER));
+        return !keys.enabled()
+                || !paths.keyed(request.getMethod(), request.getHttpURI().getPath())
+                || keys.accepts(
+                        request.getHeaders().get(HttpHeader.AUTHORIZATION),
+                        request.getHeaders().get(ApiKeys.HEADER));
     }
 
     /** Before-handler of a keyed scope: 401 without a key, 403 with a wrong one. */

@@ -5,8 +5,7 @@ import io.javalin.http.Context;
 /** Response headers for an API that serves no HTML: no sniffing, no framing, no caching, no referrer. */
 public final class SecurityHeaders {
 
-    private SecurityHeaders() {
-    }
+    private SecurityHeaders() {}
 
     public static void apply(Context ctx) {
         ctx.header("X-Content-Type-Options", "nosniff");

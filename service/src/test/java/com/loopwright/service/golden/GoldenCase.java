@@ -13,8 +13,14 @@ import java.util.Map;
  * @param body        body sent as UTF-8 text, or null for none
  * @param headers     further request headers (copied)
  */
-record GoldenCase(String id, String server, String method, String path, String contentType, String body,
-                  Map<String, String> headers) {
+record GoldenCase(
+        String id,
+        String server,
+        String method,
+        String path,
+        String contentType,
+        String body,
+        Map<String, String> headers) {
 
     /** The server with authentication off (the jar's default). */
     static final String OPEN = "open";

@@ -70,10 +70,12 @@ final class GoldenCases {
             double overshoot = pick(0.2, 0.5, 1.5, 2.66, 4, 10, 20, 0.01);
             boolean rise = random.nextInt(4) == 0;
             double time = pick(0.05, 0.15, 0.37, 1.35, 3, 12, 0.5);
-            String spec = "{\"" + (rise ? "riseTime" : "settlingTime") + "\":" + num(time)
-                    + ",\"overshootPercent\":" + num(overshoot) + "}";
-            design(String.format(Locale.ROOT, "canonical-%02d", i), "{\"plant\":{\"a0\":" + num(a0) + ",\"a1\":"
-                    + num(a1) + ",\"b\":" + num(b) + ",\"d\":" + num(d) + "},\"spec\":" + spec + "}");
+            String spec = "{\"" + (rise ? "riseTime" : "settlingTime") + "\":" + num(time) + ",\"overshootPercent\":"
+                    + num(overshoot) + "}";
+            design(
+                    String.format(Locale.ROOT, "canonical-%02d", i),
+                    "{\"plant\":{\"a0\":" + num(a0) + ",\"a1\":" + num(a1) + ",\"b\":" + num(b) + ",\"d\":" + num(d)
+                            + "},\"spec\":" + spec + "}");
         }
     }
 
@@ -98,8 +100,9 @@ final class GoldenCases {
             "{\"settlingTime\":0.0001,\"overshootPercent\":1}",
         };
         for (int i = 0; i < specs.length; i++) {
-            design(String.format(Locale.ROOT, "option-%02d", i), "{\"plant\":" + AXIS_PLANT + ",\"spec\":"
-                    + specs[i] + "}");
+            design(
+                    String.format(Locale.ROOT, "option-%02d", i),
+                    "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + specs[i] + "}");
         }
     }
 
@@ -177,18 +180,28 @@ final class GoldenCases {
             "{\"sampling\":{\"samplePeriod\":1.0e-7}}",
         };
         for (int i = 0; i < verify.length; i++) {
-            design(String.format(Locale.ROOT, "verify-%02d", i), "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC
-                    + ",\"verify\":" + verify[i] + "}");
+            design(
+                    String.format(Locale.ROOT, "verify-%02d", i),
+                    "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"verify\":" + verify[i] + "}");
         }
-        design("verify-tank-level", "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":"
-                + "60,\"overshootPercent\":2},\"verify\":{\"uncertainty\":{\"a0\":{\"plusMinusPercent\":30},"
-                + "\"monteCarloSamples\":20},\"actuatorLimit\":100,\"sampling\":{\"samplePeriod\":0.5}}}");
+        design(
+                "verify-tank-level",
+                "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":"
+                        + "60,\"overshootPercent\":2},\"verify\":{\"uncertainty\":{\"a0\":{\"plusMinusPercent\":30},"
+                        + "\"monteCarloSamples\":20},\"actuatorLimit\":100,\"sampling\":{\"samplePeriod\":0.5}}}");
     }
 
     /** Bodies that are not the JSON an endpoint takes, and fields out of range, missing or of another type. */
     private void malformedAndInvalid() {
         String[] bodies = {
-            "", "{", "[]", "null", "42", "\"text\"", "{\"plant\":}", "{\"plant\":" + AXIS_PLANT + ",}",
+            "",
+            "{",
+            "[]",
+            "null",
+            "42",
+            "\"text\"",
+            "{\"plant\":}",
+            "{\"plant\":" + AXIS_PLANT + ",}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + "} trailing",
             "{\"plant\":{\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
             "{\"plant\":{\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
@@ -204,14 +217,18 @@ final class GoldenCases {
             "{\"plant\":{\"a0\":2e8,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15}}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"overshootPercent\":1.5}}",
-            "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"riseTime\":0.05,\"overshootPercent\":1.5}}",
+            "{\"plant\":" + AXIS_PLANT
+                    + ",\"spec\":{\"settlingTime\":0.15,\"riseTime\":0.05,\"overshootPercent\":1.5}}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":0}}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":96}}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":-1,\"overshootPercent\":1.5}}",
-            "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"gamma\":3,\"gammaMargin\":2}}",
-            "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"gammaMargin\":1}}",
+            "{\"plant\":" + AXIS_PLANT
+                    + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"gamma\":3,\"gammaMargin\":2}}",
+            "{\"plant\":" + AXIS_PLANT
+                    + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"gammaMargin\":1}}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"stepSize\":0}}",
-            "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"settlingBandPercent\":30}}",
+            "{\"plant\":" + AXIS_PLANT
+                    + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"settlingBandPercent\":30}}",
             "{\"plant\":[1,2],\"spec\":" + AXIS_SPEC + "}",
             "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":true,\"overshootPercent\":1.5}}",
             "{\"plant\":{\"a0\":0,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":95}}",
@@ -219,12 +236,18 @@ final class GoldenCases {
         for (int i = 0; i < bodies.length; i++) {
             design(String.format(Locale.ROOT, "invalid-%02d", i), bodies[i]);
         }
-        cases.add(new GoldenCase("design-media-type-text", GoldenCase.OPEN, "POST", "/v1/designs", "text/plain",
-                AXIS, Map.of()));
-        cases.add(new GoldenCase("design-media-type-none", GoldenCase.OPEN, "POST", "/v1/designs", null, AXIS,
+        cases.add(new GoldenCase(
+                "design-media-type-text", GoldenCase.OPEN, "POST", "/v1/designs", "text/plain", AXIS, Map.of()));
+        cases.add(
+                new GoldenCase("design-media-type-none", GoldenCase.OPEN, "POST", "/v1/designs", null, AXIS, Map.of()));
+        cases.add(new GoldenCase(
+                "design-media-type-charset",
+                GoldenCase.OPEN,
+                "POST",
+                "/v1/designs",
+                "application/json; charset=utf-8",
+                AXIS,
                 Map.of()));
-        cases.add(new GoldenCase("design-media-type-charset", GoldenCase.OPEN, "POST", "/v1/designs",
-                "application/json; charset=utf-8", AXIS, Map.of()));
     }
 
     private void batches() {
@@ -237,18 +260,30 @@ final class GoldenCases {
         StringBuilder mixed = new StringBuilder("{\"items\":[");
         for (int i = 0; i < 24; i++) {
             double overshoot = 0.5 + i * 0.4;
-            mixed.append(i == 0 ? "" : ",").append("{\"plant\":").append(AXIS_PLANT)
-                    .append(",\"spec\":{\"settlingTime\":").append(num(0.1 + 0.02 * i)).append(",\"overshootPercent\":")
-                    .append(num(overshoot)).append("}}");
+            mixed.append(i == 0 ? "" : ",")
+                    .append("{\"plant\":")
+                    .append(AXIS_PLANT)
+                    .append(",\"spec\":{\"settlingTime\":")
+                    .append(num(0.1 + 0.02 * i))
+                    .append(",\"overshootPercent\":")
+                    .append(num(overshoot))
+                    .append("}}");
         }
         post("batch-mixed", "/v1/designs/batch", mixed.append("]}").toString());
-        post("batch-forms", "/v1/designs/batch", "{\"items\":[{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,"
-                + "\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,"
-                + "\"overshootPercent\":1}},{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":-1,\"damping\":1,"
-                + "\"stiffness\":1},\"spec\":{\"settlingTime\":1,\"overshootPercent\":1}},{\"plant\":" + AXIS_PLANT
-                + ",\"spec\":" + AXIS_SPEC + ",\"verify\":{\"actuatorLimit\":3}}]}");
-        post("batch-with-infeasible", "/v1/designs/batch", "{\"items\":[{\"plant\":" + AXIS_PLANT
-                + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":10}}," + AXIS + "]}");
+        post(
+                "batch-forms",
+                "/v1/designs/batch",
+                "{\"items\":[{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,"
+                        + "\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,"
+                        + "\"overshootPercent\":1}},{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":-1,\"damping\":1,"
+                        + "\"stiffness\":1},\"spec\":{\"settlingTime\":1,\"overshootPercent\":1}},{\"plant\":"
+                        + AXIS_PLANT
+                        + ",\"spec\":" + AXIS_SPEC + ",\"verify\":{\"actuatorLimit\":3}}]}");
+        post(
+                "batch-with-infeasible",
+                "/v1/designs/batch",
+                "{\"items\":[{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":10}},"
+                        + AXIS + "]}");
         post("batch-items-not-array", "/v1/designs/batch", "{\"items\":{}}");
     }
 
@@ -287,9 +322,13 @@ final class GoldenCases {
             };
             String spec = "{\"settlingTime\":" + num(settling) + ",\"overshootPercent\":" + num(overshoot)
                     + (i % 6 == 5 ? ",\"settlingBandPercent\":5" : "") + (i % 8 == 7 ? ",\"gammaMargin\":2" : "") + "}";
-            post(String.format(Locale.ROOT, "high-order-%02d", i), "/v1/designs/high-order", "{\"plant\":{\"denominator\":"
-                    + array(denominator) + ",\"b\":" + num(pick(1, 2, 0.5, 10)) + ",\"numerator\":" + array(numerator)
-                    + ",\"disturbance\":" + array(disturbance) + "},\"spec\":" + spec + extra + "}");
+            post(
+                    String.format(Locale.ROOT, "high-order-%02d", i),
+                    "/v1/designs/high-order",
+                    "{\"plant\":{\"denominator\":"
+                            + array(denominator) + ",\"b\":" + num(pick(1, 2, 0.5, 10)) + ",\"numerator\":"
+                            + array(numerator)
+                            + ",\"disturbance\":" + array(disturbance) + "},\"spec\":" + spec + extra + "}");
         }
         String[] special = {
             "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-8,\"im\":0}]}}",
@@ -342,12 +381,16 @@ final class GoldenCases {
             "{\"plant\":" + AXIS_PLANT + "," + gains + "}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"spec\":" + AXIS_SPEC + "}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"spec\":{\"riseTime\":0.1,\"overshootPercent\":2}}",
-            "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"performance\":{\"rho1\":1.444,\"rho2\":0.0260367,\"gamma\":2.5274}}",
+            "{\"plant\":" + AXIS_PLANT + "," + gains
+                    + ",\"performance\":{\"rho1\":1.444,\"rho2\":0.0260367,\"gamma\":2.5274}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"performance\":{\"rho1\":1.444,\"rho2\":0.0260367}}",
-            "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"monteCarloSamples\":15,\"seed\":3}}}",
-            "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001}}}",
+            "{\"plant\":" + AXIS_PLANT + "," + gains
+                    + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"monteCarloSamples\":15,\"seed\":3}}}",
+            "{\"plant\":" + AXIS_PLANT + "," + gains
+                    + ",\"verify\":{\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"inputDelay\":0.003,\"frequencyPoints\":10}}",
-            "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}]}}",
+            "{\"plant\":" + AXIS_PLANT + "," + gains
+                    + ",\"verify\":{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}]}}",
             "{\"plant\":" + AXIS_PLANT + ",\"gain\":{\"k1\":-1,\"k2\":0.1,\"referenceGain\":1}}",
             "{\"plant\":" + AXIS_PLANT + ",\"gain\":{\"k1\":1,\"k2\":0.1}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"spec\":{\"gamma\":3}}",
@@ -357,8 +400,10 @@ final class GoldenCases {
             "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"gain\":{\"k1\":2,\"k2\":3,\"referenceGain\":2.4},\"verify\":{\"uncertainty\":{\"b\":{\"plusMinusPercent\":25}}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"timeSeriesPoints\":6}}",
             "{\"plant\":" + AXIS_PLANT + "}",
-            "{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":1,\"viscousFriction\":0,\"torqueConstant\":1}," + gains + "}",
-            "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"sampling\":{\"samplePeriod\":0.004,\"findLongest\":true}}}",
+            "{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":1,\"viscousFriction\":0,\"torqueConstant\":1}," + gains
+                    + "}",
+            "{\"plant\":" + AXIS_PLANT + "," + gains
+                    + ",\"verify\":{\"sampling\":{\"samplePeriod\":0.004,\"findLongest\":true}}}",
         };
         for (int i = 0; i < bodies.length; i++) {
             post(String.format(Locale.ROOT, "verification-%02d", i), "/v1/verifications", bodies[i]);
@@ -383,23 +428,45 @@ final class GoldenCases {
             double[] t = truths[i];
             boolean withInput = i % 2 == 1;
             boolean deadTime = t[3] > 0;
-            post(String.format(Locale.ROOT, "fit-%02d", i), "/v1/models/fit",
+            post(
+                    String.format(Locale.ROOT, "fit-%02d", i),
+                    "/v1/models/fit",
                     stepTest(t[0], t[1], t[2], t[3], t[4], t[5], (int) t[6], t[7], withInput, deadTime));
         }
         post("fit-too-few", "/v1/models/fit", "{\"samples\":{\"time\":[0,1,2],\"output\":[0,1,2]}}");
-        post("fit-unequal", "/v1/models/fit", "{\"samples\":{\"time\":[0,1,2,3,4,5,6,7,8],\"output\":[0,1,2,3,4,5,6,7]}}");
-        post("fit-not-increasing", "/v1/models/fit", "{\"samples\":{\"time\":[0,1,2,3,3,5,6,7],\"output\":[0,1,2,3,4,5,6,7]}}");
+        post(
+                "fit-unequal",
+                "/v1/models/fit",
+                "{\"samples\":{\"time\":[0,1,2,3,4,5,6,7,8],\"output\":[0,1,2,3,4,5,6,7]}}");
+        post(
+                "fit-not-increasing",
+                "/v1/models/fit",
+                "{\"samples\":{\"time\":[0,1,2,3,3,5,6,7],\"output\":[0,1,2,3,4,5,6,7]}}");
         post("fit-flat", "/v1/models/fit", "{\"samples\":{\"time\":[0,1,2,3,4,5,6,7],\"output\":[1,1,1,1,1,1,1,1]}}");
-        post("fit-both-step-sources", "/v1/models/fit", "{\"samples\":{\"time\":[0,1,2,3,4,5,6,7],\"output\":[0,1,2,3,4,5,6,7],"
-                + "\"input\":[0,1,1,1,1,1,1,1]},\"stepAmplitude\":2}");
-        post("fit-zero-amplitude", "/v1/models/fit", "{\"samples\":{\"time\":[0,1,2,3,4,5,6,7],\"output\":[0,1,2,3,4,5,6,7]},"
-                + "\"stepAmplitude\":0}");
+        post(
+                "fit-both-step-sources",
+                "/v1/models/fit",
+                "{\"samples\":{\"time\":[0,1,2,3,4,5,6,7],\"output\":[0,1,2,3,4,5,6,7],"
+                        + "\"input\":[0,1,1,1,1,1,1,1]},\"stepAmplitude\":2}");
+        post(
+                "fit-zero-amplitude",
+                "/v1/models/fit",
+                "{\"samples\":{\"time\":[0,1,2,3,4,5,6,7],\"output\":[0,1,2,3,4,5,6,7]}," + "\"stepAmplitude\":0}");
         post("fit-no-samples", "/v1/models/fit", "{\"stepAmplitude\":1}");
     }
 
     /** y(t) = offset + K u (1 - step shape) after the delay, the textbook step response of K wn^2/(s^2+2 zeta wn s+wn^2). */
-    private String stepTest(double gain, double wn, double zeta, double delay, double offset, double noise,
-                            int samples, double inputStep, boolean withInput, boolean deadTime) {
+    private String stepTest(
+            double gain,
+            double wn,
+            double zeta,
+            double delay,
+            double offset,
+            double noise,
+            int samples,
+            double inputStep,
+            boolean withInput,
+            boolean deadTime) {
         double horizon = 10 / (Math.min(zeta, 1) * wn) + delay;
         StringBuilder time = new StringBuilder();
         StringBuilder output = new StringBuilder();
@@ -456,12 +523,17 @@ final class GoldenCases {
         for (String figure : figures) {
             for (int i = 0; i < designs.length; i++) {
                 String limit = i == 0 ? ",\"commandLimit\":3" : "";
-                post("plot-" + figure + "-" + i, "/v1/designs/plots/" + figure, "{\"design\":" + designs[i] + limit + "}");
+                post(
+                        "plot-" + figure + "-" + i,
+                        "/v1/designs/plots/" + figure,
+                        "{\"design\":" + designs[i] + limit + "}");
             }
         }
         post("plot-unknown-figure", "/v1/designs/plots/nyquist", "{\"design\":" + AXIS + "}");
-        post("plot-infeasible", "/v1/designs/plots/step-response", "{\"design\":{\"plant\":" + AXIS_PLANT
-                + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":10}}}");
+        post(
+                "plot-infeasible",
+                "/v1/designs/plots/step-response",
+                "{\"design\":{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":10}}}");
         post("plot-missing-design", "/v1/designs/plots/bode", "{\"commandLimit\":3}");
         post("plot-band-without-box", "/v1/designs/plots/uncertainty-band", "{\"design\":" + AXIS + "}");
     }
@@ -478,12 +550,18 @@ final class GoldenCases {
                 post("controller-" + format + "-" + i, "/v1/designs/controllers/" + format, bodies[i]);
             }
         }
-        post("controller-period-too-long", "/v1/designs/controllers/c", "{\"design\":" + AXIS
-                + ",\"samplePeriodSeconds\":0.05,\"commandLimit\":3}");
-        post("controller-unknown-format", "/v1/designs/controllers/ladder", "{\"design\":" + AXIS
-                + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
-        post("controller-missing-limit", "/v1/designs/controllers/structured-text", "{\"design\":" + AXIS
-                + ",\"samplePeriodSeconds\":0.001}");
+        post(
+                "controller-period-too-long",
+                "/v1/designs/controllers/c",
+                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.05,\"commandLimit\":3}");
+        post(
+                "controller-unknown-format",
+                "/v1/designs/controllers/ladder",
+                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
+        post(
+                "controller-missing-limit",
+                "/v1/designs/controllers/structured-text",
+                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001}");
     }
 
     private void plainResources() {
@@ -494,23 +572,40 @@ final class GoldenCases {
         get("get-health-ready", "/health/ready");
         get("get-unknown-path", "/v1/nothing-here");
         get("get-design-method", "/v1/designs");
-        cases.add(new GoldenCase("put-design-method", GoldenCase.OPEN, "PUT", "/v1/designs", "application/json", AXIS,
-                Map.of()));
+        cases.add(new GoldenCase(
+                "put-design-method", GoldenCase.OPEN, "PUT", "/v1/designs", "application/json", AXIS, Map.of()));
         cases.add(new GoldenCase("delete-health", GoldenCase.OPEN, "DELETE", "/health", null, null, Map.of()));
     }
 
     /** Coefficients at the ends of their ranges, where double precision runs out. */
     private void extremes() {
-        design("extreme-00", "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
-        design("extreme-01", "{\"plant\":{\"a0\":-1e8,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":1}}");
-        design("extreme-02", "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
-        design("extreme-03", "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e-8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":0.001}}");
-        post("verification-extreme-00", "/v1/verifications", "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e8},"
-                + "\"gain\":{\"k1\":1e12,\"k2\":1e12,\"referenceGain\":1e12}}");
-        post("verification-extreme-01", "/v1/verifications", "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},"
-                + "\"gain\":{\"k1\":1e-12,\"k2\":1e-12,\"referenceGain\":1e12}}");
-        post("high-order-extreme-00", "/v1/designs/high-order", "{\"plant\":{\"denominator\":[1e8,1e8,1e8,1e8,1e8,1e8,1e8,1e8],"
-                + "\"b\":1e-6,\"disturbance\":[1e8,0,0,0,0,0,0,1e8]},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
+        design(
+                "extreme-00",
+                "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
+        design(
+                "extreme-01",
+                "{\"plant\":{\"a0\":-1e8,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":1}}");
+        design(
+                "extreme-02",
+                "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
+        design(
+                "extreme-03",
+                "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e-8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":0.001}}");
+        post(
+                "verification-extreme-00",
+                "/v1/verifications",
+                "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e8},"
+                        + "\"gain\":{\"k1\":1e12,\"k2\":1e12,\"referenceGain\":1e12}}");
+        post(
+                "verification-extreme-01",
+                "/v1/verifications",
+                "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},"
+                        + "\"gain\":{\"k1\":1e-12,\"k2\":1e-12,\"referenceGain\":1e12}}");
+        post(
+                "high-order-extreme-00",
+                "/v1/designs/high-order",
+                "{\"plant\":{\"denominator\":[1e8,1e8,1e8,1e8,1e8,1e8,1e8,1e8],"
+                        + "\"b\":1e-6,\"disturbance\":[1e8,0,0,0,0,0,0,1e8]},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
     }
 
     private void get(String id, String path) {
@@ -520,14 +615,32 @@ final class GoldenCases {
     /** A server with API keys: no credential, a wrong one, a right one in either header. */
     private void keyed() {
         String right = GoldenCase.KEY;
-        cases.add(new GoldenCase("keyed-none", GoldenCase.KEYED, "POST", "/v1/designs", "application/json", AXIS,
-                Map.of()));
-        cases.add(new GoldenCase("keyed-wrong", GoldenCase.KEYED, "POST", "/v1/designs", "application/json", AXIS,
+        cases.add(new GoldenCase(
+                "keyed-none", GoldenCase.KEYED, "POST", "/v1/designs", "application/json", AXIS, Map.of()));
+        cases.add(new GoldenCase(
+                "keyed-wrong",
+                GoldenCase.KEYED,
+                "POST",
+                "/v1/designs",
+                "application/json",
+                AXIS,
                 Map.of("X-Api-Key", "not-the-key")));
-        cases.add(new GoldenCase("keyed-header", GoldenCase.KEYED, "POST", "/v1/designs", "application/json", AXIS,
+        cases.add(new GoldenCase(
+                "keyed-header",
+                GoldenCase.KEYED,
+                "POST",
+                "/v1/designs",
+                "application/json",
+                AXIS,
                 Map.of("X-Api-Key", right)));
-        cases.add(new GoldenCase("keyed-bearer", GoldenCase.KEYED, "POST", "/v1/designs/batch", "application/json",
-                "{\"items\":[" + AXIS + "]}", Map.of("Authorization", "Bearer " + right)));
+        cases.add(new GoldenCase(
+                "keyed-bearer",
+                GoldenCase.KEYED,
+                "POST",
+                "/v1/designs/batch",
+                "application/json",
+                "{\"items\":[" + AXIS + "]}",
+                Map.of("Authorization", "Bearer " + right)));
         cases.add(new GoldenCase("keyed-health", GoldenCase.KEYED, "GET", "/health", null, null, Map.of()));
     }
 }

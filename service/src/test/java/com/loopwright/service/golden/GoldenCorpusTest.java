@@ -44,6 +44,7 @@ class GoldenCorpusTest {
 
     /** Where the corpus lives, relative to the service module (surefire's working directory). */
     static final Path CORPUS = Path.of("src", "test", "resources", "golden");
+
     private static final Path CASES = CORPUS.resolve("cases.jsonl");
     private static final Path RESPONSES = CORPUS.resolve("responses");
     /** The corpus must stay at least this large (every endpoint, form, problem type and batch). */
@@ -52,9 +53,14 @@ class GoldenCorpusTest {
      * Problem types no well-formed HTTP request can provoke deterministically on an idle server (the protocol-level
      * ones are covered on raw sockets by HttpLayerLimitsTest and RawHttpTest).
      */
-    private static final Set<ProblemType> NOT_PROVOKABLE = EnumSet.of(ProblemType.SERVICE_OVERLOADED,
-            ProblemType.DEADLINE_EXCEEDED, ProblemType.INTERNAL_ERROR, ProblemType.NOT_READY,
-            ProblemType.PAYLOAD_TOO_LARGE, ProblemType.MALFORMED_HTTP, ProblemType.REQUEST_TIMEOUT,
+    private static final Set<ProblemType> NOT_PROVOKABLE = EnumSet.of(
+            ProblemType.SERVICE_OVERLOADED,
+            ProblemType.DEADLINE_EXCEEDED,
+            ProblemType.INTERNAL_ERROR,
+            ProblemType.NOT_READY,
+            ProblemType.PAYLOAD_TOO_LARGE,
+            ProblemType.MALFORMED_HTTP,
+            ProblemType.REQUEST_TIMEOUT,
             ProblemType.UNSUPPORTED_PROTOCOL);
     /** Paths of the contract that the corpus does not replay: metrics change with every request. */
     private static final Set<String> NOT_REPLAYED = Set.of("/metrics");
@@ -66,12 +72,15 @@ class GoldenCorpusTest {
     private static final Map<String, Path> SERVED_FILES = Map.of(
             "get-contract", Path.of("..", "openapi.yaml"),
             "get-dashboard", Path.of("src", "main", "resources", "dashboard", "index.html"));
+
     private static final ObjectMapper JSON = new ObjectMapper();
 
     private static Javalin open;
     private static Javalin keyed;
-    private static final HttpClient HTTP = HttpClient.newBuilder().version(HttpClient.Version.HTTP_1_1)
-            .connectTimeout(Duration.ofSeconds(5)).build();
+    private static final HttpClient HTTP = HttpClient.newBuilder()
+            .version(HttpClient.Version.HTTP_1_1)
+            .connectTimeout(Duration.ofSeconds(5))
+            .build();
 
     @BeforeAll
     static void start() {
@@ -100,8 +109,8 @@ class GoldenCorpusTest {
         for (GoldenCase c : cases) {
             Recorded expected = Recorded.parse(Files.readAllBytes(RESPONSES.resolve(c.id() + ".txt")));
             if (SERVED_FILES.containsKey(c.id())) {
-                expected = new Recorded(expected.status(), expected.contentType(),
-                        Files.readAllBytes(SERVED_FILES.get(c.id())));
+                expected = new Recorded(
+                        expected.status(), expected.contentType(), Files.readAllBytes(SERVED_FILES.get(c.id())));
             }
             Recorded actual = send(c);
             String difference = expected.difference(actual);
@@ -109,9 +118,11 @@ class GoldenCorpusTest {
                 mismatches.add(c.id() + ": " + difference);
             }
         }
-        assertTrue(mismatches.isEmpty(), mismatches.size() + " of " + cases.size()
-                + " responses differ from the corpus:\n" + String.join("\n", mismatches.subList(0,
-                Math.min(20, mismatches.size()))));
+        assertTrue(
+                mismatches.isEmpty(),
+                mismatches.size() + " of " + cases.size()
+                        + " responses differ from the corpus:\n"
+                        + String.join("\n", mismatches.subList(0, Math.min(20, mismatches.size()))));
     }
 
     @Test
@@ -174,7 +185,10 @@ class GoldenCorpusTest {
 
     private static ObjectNode toJson(GoldenCase c) {
         ObjectNode node = JSON.createObjectNode();
-        node.put("id", c.id()).put("server", c.server()).put("method", c.method()).put("path", c.path());
+        node.put("id", c.id())
+                .put("server", c.server())
+                .put("method", c.method())
+                .put("path", c.path());
         node.put("contentType", c.contentType()).put("body", c.body());
         ObjectNode headers = node.putObject("headers");
         new TreeMap<>(c.headers()).forEach(headers::put);
@@ -189,9 +203,17 @@ class GoldenCorpusTest {
             }
             JsonNode node = JSON.readTree(line);
             Map<String, String> headers = new TreeMap<>();
-            node.get("headers").fields().forEachRemaining(e -> headers.put(e.getKey(), e.getValue().asText()));
-            cases.add(new GoldenCase(node.get("id").asText(), node.get("server").asText(), node.get("method").asText(),
-                    node.get("path").asText(), text(node, "contentType"), text(node, "body"), headers));
+            node.get("headers")
+                    .fields()
+                    .forEachRemaining(e -> headers.put(e.getKey(), e.getValue().asText()));
+            cases.add(new GoldenCase(
+                    node.get("id").asText(),
+                    node.get("server").asText(),
+                    node.get("method").asText(),
+                    node.get("path").asText(),
+                    text(node, "contentType"),
+                    text(node, "body"),
+                    headers));
         }
         return cases;
     }
@@ -203,18 +225,23 @@ class GoldenCorpusTest {
 
     private static Recorded send(GoldenCase c) {
         Javalin server = c.server().equals(GoldenCase.KEYED) ? keyed : open;
-        HttpRequest.BodyPublisher body = c.body() == null ? HttpRequest.BodyPublishers.noBody()
+        HttpRequest.BodyPublisher body = c.body() == null
+                ? HttpRequest.BodyPublishers.noBody()
                 : HttpRequest.BodyPublishers.ofString(c.body(), StandardCharsets.UTF_8);
         // A fixed request id per case, so anything derived from it is reproducible too.
         HttpRequest.Builder request = HttpRequest.newBuilder(URI.create("http://127.0.0.1:" + server.port() + c.path()))
-                .timeout(Duration.ofSeconds(120)).method(c.method(), body).header("X-Request-Id", "golden-" + c.id());
+                .timeout(Duration.ofSeconds(120))
+                .method(c.method(), body)
+                .header("X-Request-Id", "golden-" + c.id());
         if (c.contentType() != null) {
             request.header("Content-Type", c.contentType());
         }
         c.headers().forEach(request::header);
         try {
             HttpResponse<byte[]> response = HTTP.send(request.build(), HttpResponse.BodyHandlers.ofByteArray());
-            return new Recorded(response.statusCode(), response.headers().firstValue("Content-Type").orElse(""),
+            return new Recorded(
+                    response.statusCode(),
+                    response.headers().firstValue("Content-Type").orElse(""),
                     response.body());
         } catch (IOException e) {
             throw new UncheckedIOException("case " + c.id() + " failed", e);
@@ -232,8 +259,8 @@ class GoldenCorpusTest {
         }
 
         byte[] bytes() {
-            byte[] head = ("status: " + status + "\ncontent-type: " + contentType + "\n\n")
-                    .getBytes(StandardCharsets.UTF_8);
+            byte[] head =
+                    ("status: " + status + "\ncontent-type: " + contentType + "\n\n").getBytes(StandardCharsets.UTF_8);
             byte[] out = new byte[head.length + body.length];
             System.arraycopy(head, 0, out, 0, head.length);
             System.arraycopy(body, 0, out, head.length, body.length);
@@ -246,8 +273,10 @@ class GoldenCorpusTest {
             String status = new String(stored, 0, first, StandardCharsets.UTF_8);
             String type = new String(stored, first + 1, second - first - 1, StandardCharsets.UTF_8);
             byte[] body = java.util.Arrays.copyOfRange(stored, second + 2, stored.length);
-            return new Recorded(Integer.parseInt(status.substring("status: ".length())),
-                    type.substring("content-type: ".length()), body);
+            return new Recorded(
+                    Integer.parseInt(status.substring("status: ".length())),
+                    type.substring("content-type: ".length()),
+                    body);
         }
 
         private static int indexOf(byte[] bytes, int from) {
@@ -274,7 +303,8 @@ class GoldenCorpusTest {
                             + excerpt(body, i) + "...";
                 }
             }
-            return body.length == actual.body.length ? null
+            return body.length == actual.body.length
+                    ? null
                     : "body is " + actual.body.length + " bytes instead of " + body.length;
         }
 

@@ -72,12 +72,15 @@ class BatchEnvelopeTest {
         assertEquals(mapper.readTree(one), envelope.item(4));
         // Strings are decoded while skipped, so the parser's caps hold as in a full parse (not only when an item is
         // read again): one string of 12,000 characters in an item is a malformed body.
-        byte[] longString = ("{\"items\":[{\"plant\":\"" + "x".repeat(12_000) + "\"}]}").getBytes(StandardCharsets.UTF_8);
-        assertThrows(com.fasterxml.jackson.core.exc.StreamConstraintsException.class,
+        byte[] longString =
+                ("{\"items\":[{\"plant\":\"" + "x".repeat(12_000) + "\"}]}").getBytes(StandardCharsets.UTF_8);
+        assertThrows(
+                com.fasterxml.jackson.core.exc.StreamConstraintsException.class,
                 () -> BatchEnvelope.read(mapper, longString, 5));
-        BatchEnvelope.Invalid overCap = assertThrows(BatchEnvelope.Invalid.class, () -> BatchEnvelope.read(mapper,
-                body, 4));
+        BatchEnvelope.Invalid overCap =
+                assertThrows(BatchEnvelope.Invalid.class, () -> BatchEnvelope.read(mapper, body, 4));
         assertEquals("/items", overCap.problem().errors().get(0).pointer());
-        assertTrue(overCap.problem().detail().endsWith("not 5"), overCap.problem().detail());
+        assertTrue(
+                overCap.problem().detail().endsWith("not 5"), overCap.problem().detail());
     }
 }

@@ -17,7 +17,7 @@ import org.junit.jupiter.api.Test;
 
 class RouteTableTest {
 
-    private static final Handler NOTHING = ctx -> { };
+    private static final Handler NOTHING = ctx -> {};
 
     private static RouteTable table() {
         return new RouteTable(List.of(
@@ -31,8 +31,7 @@ class RouteTableTest {
     void aKeyedRouteKeysItsFirstSegmentAndTheLabelsAreTheTemplates() {
         RouteTable table = table();
         assertEquals(Set.of("/v1/*"), table.keyedScopes());
-        assertEquals(List.of("/v1/designs", "/v1/designs/plots/{figure}", "/health", "/"),
-                List.copyOf(table.paths()));
+        assertEquals(List.of("/v1/designs", "/v1/designs/plots/{figure}", "/health", "/"), List.copyOf(table.paths()));
     }
 
     @Test
@@ -54,16 +53,24 @@ class RouteTableTest {
 
     @Test
     void aTableThatWouldMisrouteIsRefused() {
-        assertThrows(IllegalArgumentException.class, () -> new RouteTable(List.of(
-                Route.keyed(POST, "/v1/designs", NOTHING), Route.keyed(POST, "/v1/designs", NOTHING))),
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> new RouteTable(
+                        List.of(Route.keyed(POST, "/v1/designs", NOTHING), Route.keyed(POST, "/v1/designs", NOTHING))),
                 "two rows for one method and path");
-        assertThrows(IllegalArgumentException.class, () -> new RouteTable(List.of(
-                Route.keyed(POST, "/v1/designs", NOTHING), Route.open(GET, "/v1/status", NOTHING))),
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> new RouteTable(
+                        List.of(Route.keyed(POST, "/v1/designs", NOTHING), Route.open(GET, "/v1/status", NOTHING))),
                 "a public route inside a keyed segment would be keyed after all");
-        assertThrows(IllegalArgumentException.class, () -> new RouteTable(List.of(
-                Route.keyed(POST, "/designs", NOTHING))), "a keyed route needs a segment of its own");
-        assertThrows(IllegalArgumentException.class, () -> new Route(POST, "designs", NOTHING, false,
-                RouteTable.Access.PUBLIC), "relative path");
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> new RouteTable(List.of(Route.keyed(POST, "/designs", NOTHING))),
+                "a keyed route needs a segment of its own");
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> new Route(POST, "designs", NOTHING, false, RouteTable.Access.PUBLIC),
+                "relative path");
         List<Route> many = new ArrayList<>();
         for (int i = 0; i <= RouteTable.MAX_ROUTES; i++) {
             many.add(Route.open(GET, "/r" + i, NOTHING));

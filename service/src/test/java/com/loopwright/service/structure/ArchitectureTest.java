@@ -59,23 +59,33 @@ class ArchitectureTest {
 
     @Test
     void theSolverKnowsNoWireOrHttpType() {
-        noClasses().that().resideInAPackage("com.loopwright.solver..")
-                .should().dependOnClassesThat().resideInAnyPackage("com.loopwright.api..", "com.loopwright.service..",
-                        "io.javalin..", "com.fasterxml.jackson..")
+        noClasses()
+                .that()
+                .resideInAPackage("com.loopwright.solver..")
+                .should()
+                .dependOnClassesThat()
+                .resideInAnyPackage(
+                        "com.loopwright.api..", "com.loopwright.service..", "io.javalin..", "com.fasterxml.jackson..")
                 .check(PRODUCTION);
     }
 
     @Test
     void theApiKnowsNoHttpServer() {
-        noClasses().that().resideInAPackage("com.loopwright.api..")
-                .should().dependOnClassesThat().resideInAnyPackage("com.loopwright.service..", "io.javalin..",
-                        "org.eclipse.jetty..")
+        noClasses()
+                .that()
+                .resideInAPackage("com.loopwright.api..")
+                .should()
+                .dependOnClassesThat()
+                .resideInAnyPackage("com.loopwright.service..", "io.javalin..", "org.eclipse.jetty..")
                 .check(PRODUCTION);
     }
 
     @Test
     void noPackageCycleInsideTheSolver() {
-        slices().matching("com.loopwright.solver.(*)..").should().beFreeOfCycles().check(PRODUCTION);
+        slices().matching("com.loopwright.solver.(*)..")
+                .should()
+                .beFreeOfCycles()
+                .check(PRODUCTION);
     }
 
     @Test
@@ -85,15 +95,20 @@ class ArchitectureTest {
 
     @Test
     void noPackageCycleInsideTheService() {
-        slices().matching("com.loopwright.service.(*)..").should().beFreeOfCycles().check(PRODUCTION);
+        slices().matching("com.loopwright.service.(*)..")
+                .should()
+                .beFreeOfCycles()
+                .check(PRODUCTION);
     }
 
     @Test
     void theApiSourcesNameAFewSolverPackagesOnly() throws IOException {
         Set<String> named = solverPackagesNamedInApiSources();
         assertTrue(named.contains("pipeline"), "the api must reach the solver through pipeline; it names " + named);
-        assertTrue(named.size() <= MAX_SOLVER_PACKAGES_SEEN_BY_API, "the api sources name " + named.size()
-                + " solver packages, at most " + MAX_SOLVER_PACKAGES_SEEN_BY_API + " allowed: " + named);
+        assertTrue(
+                named.size() <= MAX_SOLVER_PACKAGES_SEEN_BY_API,
+                "the api sources name " + named.size() + " solver packages, at most " + MAX_SOLVER_PACKAGES_SEEN_BY_API
+                        + " allowed: " + named);
     }
 
     /**
@@ -117,19 +132,25 @@ class ArchitectureTest {
         }
         Set<String> unnamed = new TreeSet<>(reached);
         unnamed.removeAll(named);
-        assertTrue(unnamed.isEmpty(), "the compiled api reaches solver packages its sources do not name: " + unnamed
-                + " (reached " + reached + ", named " + named + ")");
+        assertTrue(
+                unnamed.isEmpty(),
+                "the compiled api reaches solver packages its sources do not name: " + unnamed + " (reached " + reached
+                        + ", named " + named + ")");
     }
 
     /** The solver packages named in the api's production sources (imports and qualified names). */
     private static Set<String> solverPackagesNamedInApiSources() throws IOException {
-        Path root = Path.of(System.getProperty("basedir", ".")).resolve(API_SOURCES).normalize();
+        Path root =
+                Path.of(System.getProperty("basedir", ".")).resolve(API_SOURCES).normalize();
         assertTrue(Files.isDirectory(root), "no api sources at " + root);
         List<Path> sources;
         try (Stream<Path> walk = Files.walk(root, MAX_SOURCE_DEPTH)) {
-            sources = walk.filter(p -> p.toString().endsWith(".java")).limit(MAX_SOURCE_FILES + 1L).toList();
+            sources = walk.filter(p -> p.toString().endsWith(".java"))
+                    .limit(MAX_SOURCE_FILES + 1L)
+                    .toList();
         }
-        assertTrue(!sources.isEmpty() && sources.size() <= MAX_SOURCE_FILES,
+        assertTrue(
+                !sources.isEmpty() && sources.size() <= MAX_SOURCE_FILES,
                 sources.size() + " api source files under " + root);
         Set<String> named = new TreeSet<>();
         for (Path source : sources) {
@@ -143,17 +164,24 @@ class ArchitectureTest {
 
     @Test
     void theApiConstructsSolverRecordsAndEnumsOnly() {
-        DescribedPredicate<JavaConstructorCall> solverMachinery = new DescribedPredicate<>(
-                "a constructor of a solver class outside " + SOLVER_FRONT_DOOR + " that is neither a record nor an enum") {
-            @Override
-            public boolean test(JavaConstructorCall call) {
-                JavaClass owner = call.getTargetOwner();
-                String pkg = owner.getPackageName();
-                return pkg.startsWith(SOLVER_PREFIX) && !pkg.startsWith(SOLVER_FRONT_DOOR)
-                        && !owner.isRecord() && !owner.isEnum();
-            }
-        };
-        noClasses().that().resideInAPackage("com.loopwright.api..").should().callConstructorWhere(solverMachinery)
+        DescribedPredicate<JavaConstructorCall> solverMachinery =
+                new DescribedPredicate<>("a constructor of a solver class outside " + SOLVER_FRONT_DOOR
+                        + " that is neither a record nor an enum") {
+                    @Override
+                    public boolean test(JavaConstructorCall call) {
+                        JavaClass owner = call.getTargetOwner();
+                        String pkg = owner.getPackageName();
+                        return pkg.startsWith(SOLVER_PREFIX)
+                                && !pkg.startsWith(SOLVER_FRONT_DOOR)
+                                && !owner.isRecord()
+                                && !owner.isEnum();
+                    }
+                };
+        noClasses()
+                .that()
+                .resideInAPackage("com.loopwright.api..")
+                .should()
+                .callConstructorWhere(solverMachinery)
                 .check(PRODUCTION);
     }
 }

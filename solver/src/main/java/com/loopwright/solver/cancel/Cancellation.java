@@ -8,8 +8,7 @@ package com.loopwright.solver.cancel;
  */
 public final class Cancellation {
 
-    private Cancellation() {
-    }
+    private Cancellation() {}
 
     /**
      * Returns at once when the current thread is not interrupted.

@@ -9,9 +9,17 @@ import java.util.OptionalDouble;
  * The closed-form design: Riccati solution P = [[p11, p12], [p12, p22]], weights of z = [rho1 x1, rho2 x2, u],
  * the gamma bounds and the chosen gamma. The law is u = -B2'P x + r wn^2/b for a reference r.
  */
-public record ClosedFormDesign(CanonicalPlant plant, TargetDynamics target, double p11, double p12, double p22,
-                               double rho1, double rho2, List<GammaBound> gammaBounds, double gammaMin,
-                               double gamma) {
+public record ClosedFormDesign(
+        CanonicalPlant plant,
+        TargetDynamics target,
+        double p11,
+        double p12,
+        double p22,
+        double rho1,
+        double rho2,
+        List<GammaBound> gammaBounds,
+        double gammaMin,
+        double gamma) {
 
     public ClosedFormDesign {
         gammaBounds = List.copyOf(gammaBounds);

@@ -26,28 +26,32 @@ public final class ClosedFormDesigner {
     }
 
     /** p12 and p22 of the pole match must be positive, or the target is out of the plant's reach. */
-    private static Optional<DesignObstacle> matchObstacle(CanonicalPlant plant, TargetDynamics target,
-                                                          PoleMatch match) {
+    private static Optional<DesignObstacle> matchObstacle(
+            CanonicalPlant plant, TargetDynamics target, PoleMatch match) {
         double zeta = target.dampingRatio();
         double wn = target.naturalFrequencyRadPerSec();
         if (!(match.p12() > 0)) {
-            return Optional.of(new DesignObstacle(String.format(
-                    "natural frequency %.6g rad/s is not above the plant's own sqrt(a0) = %.6g rad/s: the spec asks"
-                            + " for a loop no stiffer than the plant already is (p12 = (wn^2 - a0)/b^2 must be > 0)",
-                    wn, Math.sqrt(Math.max(plant.a0(), 0))), false));
+            return Optional.of(new DesignObstacle(
+                    String.format(
+                            "natural frequency %.6g rad/s is not above the plant's own sqrt(a0) = %.6g rad/s: the spec asks"
+                                    + " for a loop no stiffer than the plant already is (p12 = (wn^2 - a0)/b^2 must be > 0)",
+                            wn, Math.sqrt(Math.max(plant.a0(), 0))),
+                    false));
         }
         if (!(match.p22() > 0)) {
-            return Optional.of(new DesignObstacle(String.format(
-                    "2 zeta wn = %.6g 1/s is not above the plant's own damping a1 = %.6g 1/s: the spec asks for less"
-                            + " damping than the plant already has (p22 = (2 zeta wn - a1)/b^2 must be > 0)",
-                    2 * zeta * wn, plant.a1()), false));
+            return Optional.of(new DesignObstacle(
+                    String.format(
+                            "2 zeta wn = %.6g 1/s is not above the plant's own damping a1 = %.6g 1/s: the spec asks for less"
+                                    + " damping than the plant already has (p22 = (2 zeta wn - a1)/b^2 must be > 0)",
+                            2 * zeta * wn, plant.a1()),
+                    false));
         }
         return Optional.empty();
     }
 
     /** The first bound no gamma can meet, as an obstacle. */
-    private static Optional<DesignObstacle> boundObstacle(List<GammaBound> bounds, CanonicalPlant plant,
-                                                          TargetDynamics target) {
+    private static Optional<DesignObstacle> boundObstacle(
+            List<GammaBound> bounds, CanonicalPlant plant, TargetDynamics target) {
         for (GammaBound bound : bounds) {
             if (!bound.satisfiable()) {
                 return Optional.of(obstacleFor(bound, plant, target));
@@ -86,8 +90,10 @@ public final class ClosedFormDesigner {
         }
         if (plant.d() != 0) {
             GammaBound first = bounds.get(binding);
-            bounds.set(binding, GammaBound.closedForm(first.condition(), first.headroom().getAsDouble(),
-                    first.gammaLowerBound(), true));
+            bounds.set(
+                    binding,
+                    GammaBound.closedForm(
+                            first.condition(), first.headroom().getAsDouble(), first.gammaLowerBound(), true));
         }
         return bounds;
     }
@@ -108,9 +114,11 @@ public final class ClosedFormDesigner {
         if (obstacle.isPresent()) {
             throw new InfeasibleDesignException(new Infeasibility(
                     obstacle.get().dampingBound() ? SpecQuantity.OVERSHOOT_PERCENT : SpecQuantity.TIME_SPEC,
-                    obstacle.get().reason(), List.of()));
+                    obstacle.get().reason(),
+                    List.of()));
         }
-        double gammaMin = bounds.stream().mapToDouble(GammaBound::gammaLowerBound).max().orElse(0);
+        double gammaMin =
+                bounds.stream().mapToDouble(GammaBound::gammaLowerBound).max().orElse(0);
         double gamma = choice instanceof GammaChoice.Fixed fixed
                 ? requireAbove(fixed.gamma(), gammaMin, plant)
                 : gammaMin * ((GammaChoice.MarginOverMinimum) choice).factor();
@@ -121,8 +129,17 @@ public final class ClosedFormDesigner {
         double rho2Squared = 2 * plant.a1() * p22 - 2 * p12 + k * p22 * p22;
         double p11 = plant.a1() * p12 + plant.a0() * p22 + k * p12 * p22;
         // Above gamma_min both squares are >= 0 in exact arithmetic; clamp rounding dust at the boundary.
-        return new ClosedFormDesign(plant, target, p11, p12, p22, Math.sqrt(Math.max(rho1Squared, 0)),
-                Math.sqrt(Math.max(rho2Squared, 0)), bounds, gammaMin, gamma);
+        return new ClosedFormDesign(
+                plant,
+                target,
+                p11,
+                p12,
+                p22,
+                Math.sqrt(Math.max(rho1Squared, 0)),
+                Math.sqrt(Math.max(rho2Squared, 0)),
+                bounds,
+                gammaMin,
+                gamma);
     }
 
     /** k = b^2 - d^2/gamma^2; with d = 0 the disturbance channel is absent and k = b^2 for any gamma. */
@@ -133,10 +150,14 @@ public final class ClosedFormDesigner {
 
     private static double requireAbove(double gamma, double gammaMin, CanonicalPlant plant) {
         if (plant.d() != 0 && !(gamma > gammaMin)) {
-            throw new InfeasibleDesignException(new Infeasibility(SpecQuantity.GAMMA, String.format(
-                    "gamma %.6g is not above gamma_min %.6g: some Riccati requirement fails at this gamma",
-                    gamma, gammaMin),
-                    List.of(new SpecProposal(SpecQuantity.GAMMA, gammaMin * GammaChoice.MarginOverMinimum.DEFAULT_FACTOR,
+            throw new InfeasibleDesignException(new Infeasibility(
+                    SpecQuantity.GAMMA,
+                    String.format(
+                            "gamma %.6g is not above gamma_min %.6g: some Riccati requirement fails at this gamma",
+                            gamma, gammaMin),
+                    List.of(new SpecProposal(
+                            SpecQuantity.GAMMA,
+                            gammaMin * GammaChoice.MarginOverMinimum.DEFAULT_FACTOR,
                             "the default margin of 1.2 over gamma_min"))));
         }
         return gamma;
@@ -147,16 +168,24 @@ public final class ClosedFormDesigner {
         if (bound.condition() == GammaCondition.VELOCITY_WEIGHT_REAL) {
             // D2 > 0 <=> wn^2 (4 zeta^2 - 2) > a1^2 - 2 a0: no wn helps when both sides say no.
             boolean dampingBound = 4 * zeta * zeta - 2 <= 0 && plant.a1() * plant.a1() - 2 * plant.a0() >= 0;
-            return new DesignObstacle(String.format(
-                    "the velocity weight rho2 is imaginary for every gamma: wn^2 (4 zeta^2 - 2) = %.6g must exceed"
-                            + " a1^2 - 2 a0 = %.6g%s",
-                    Math.pow(target.naturalFrequencyRadPerSec(), 2) * (4 * zeta * zeta - 2),
-                    plant.a1() * plant.a1() - 2 * plant.a0(),
-                    dampingBound ? String.format("; with damping ratio %.4g below 1/sqrt(2) (overshoot above about"
-                            + " 4.3%%) no natural frequency can fix it", zeta) : ""),
+            return new DesignObstacle(
+                    String.format(
+                            "the velocity weight rho2 is imaginary for every gamma: wn^2 (4 zeta^2 - 2) = %.6g must exceed"
+                                    + " a1^2 - 2 a0 = %.6g%s",
+                            Math.pow(target.naturalFrequencyRadPerSec(), 2) * (4 * zeta * zeta - 2),
+                            plant.a1() * plant.a1() - 2 * plant.a0(),
+                            dampingBound
+                                    ? String.format(
+                                            "; with damping ratio %.4g below 1/sqrt(2) (overshoot above about"
+                                                    + " 4.3%%) no natural frequency can fix it",
+                                            zeta)
+                                    : ""),
                     dampingBound);
         }
-        return new DesignObstacle(String.format("no gamma makes the %s (its headroom D = %.6g is not positive)",
-                bound.condition().meaning(), bound.headroom().getAsDouble()), false);
+        return new DesignObstacle(
+                String.format(
+                        "no gamma makes the %s (its headroom D = %.6g is not positive)",
+                        bound.condition().meaning(), bound.headroom().getAsDouble()),
+                false);
     }
 }

@@ -4,8 +4,7 @@ package com.loopwright.solver.design;
  * A simulated trajectory on a dense, strictly increasing time grid: states, the control applied to the plant,
  * and the disturbance. Arrays are copied in and out.
  */
-public record DenseTrajectory(double[] timeSeconds, double[] x1, double[] x2, double[] control,
-                              double[] disturbance) {
+public record DenseTrajectory(double[] timeSeconds, double[] x1, double[] x2, double[] control, double[] disturbance) {
 
     public DenseTrajectory {
         int n = timeSeconds.length;

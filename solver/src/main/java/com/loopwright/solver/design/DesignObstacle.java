@@ -7,5 +7,4 @@ package com.loopwright.solver.design;
  * @param dampingBound  true when no natural frequency can cure it at this damping ratio, so the overshoot spec
  *                      must change; false when a faster (or slower) loop can
  */
-public record DesignObstacle(String reason, boolean dampingBound) {
-}
+public record DesignObstacle(String reason, boolean dampingBound) {}

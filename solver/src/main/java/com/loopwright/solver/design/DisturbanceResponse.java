@@ -1,6 +1,5 @@
 package com.loopwright.solver.design;
 
-
 /**
  * The loop's response (r = 0) to one disturbance profile.
  *
@@ -16,7 +15,13 @@ package com.loopwright.solver.design;
  * @param observedGain           ||z||_2 / ||w||_2 (0 when w = 0)
  * @param trajectory             the dense trajectory
  */
-public record DisturbanceResponse(double peakDeviation, double integralAbsoluteError, double integralSquaredError,
-                                  Double recoverySeconds, double peakControl, double disturbanceEnergy,
-                                  double outputEnergy, double observedGain, DenseTrajectory trajectory) {
-}
+public record DisturbanceResponse(
+        double peakDeviation,
+        double integralAbsoluteError,
+        double integralSquaredError,
+        Double recoverySeconds,
+        double peakControl,
+        double disturbanceEnergy,
+        double outputEnergy,
+        double observedGain,
+        DenseTrajectory trajectory) {}

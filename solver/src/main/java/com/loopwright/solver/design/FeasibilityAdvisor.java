@@ -23,13 +23,16 @@ public final class FeasibilityAdvisor {
 
     /** Grid ratio for the natural-frequency walk; 1.02^700 spans a factor of about 10^6 either way. */
     private static final double FREQUENCY_STEP = 1.02;
+
     private static final int FREQUENCY_STEPS = 700;
     /** Damping ratios walked for an overshoot proposal: (0, 1) in steps of 0.001. */
     private static final double DAMPING_STEP = 0.001;
+
     private static final double DAMPING_MIN = 0.02;
     private static final double DAMPING_MAX = 0.998;
     /** Step from the bisected damping boundary into the feasible side (about 0.1 percentage point of overshoot). */
     private static final double DAMPING_INSIDE = 0.002;
+
     private static final int BOUNDARY_BISECTIONS = 60;
     /** Relative step from the bisected boundary into the feasible side. */
     private static final double INSIDE_MARGIN = 0.01;
@@ -43,7 +46,10 @@ public final class FeasibilityAdvisor {
 
     /** Proposals without range limits and with gamma chosen over its minimum. */
     public List<SpecProposal> propose(CanonicalPlant plant, DesignSpec spec) {
-        return propose(plant, spec, new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR),
+        return propose(
+                plant,
+                spec,
+                new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR),
                 SpecRanges.UNBOUNDED);
     }
 
@@ -51,18 +57,22 @@ public final class FeasibilityAdvisor {
      * Proposals for a spec whose target has an obstacle (either list element may be missing; the list is empty
      * when no single change within the ranges works).
      */
-    public List<SpecProposal> propose(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice,
-                                      SpecRanges ranges) {
+    public List<SpecProposal> propose(
+            CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, SpecRanges ranges) {
         List<SpecProposal> proposals = new ArrayList<>(2);
         double zeta = OvershootDamping.dampingRatio(spec.overshootFraction());
         TimeSpec timeSpec = spec.timeSpec();
         double normalizedTime = timeSpec.normalizedTime(zeta);
         double wn = normalizedTime / timeSpec.seconds();
-        nearestFeasibleTime(plant, spec, zeta, normalizedTime, wn, gammaChoice, ranges).ifPresent(seconds ->
-                proposals.add(new SpecProposal(SpecQuantity.TIME_SPEC, seconds,
+        nearestFeasibleTime(plant, spec, zeta, normalizedTime, wn, gammaChoice, ranges)
+                .ifPresent(seconds -> proposals.add(new SpecProposal(
+                        SpecQuantity.TIME_SPEC,
+                        seconds,
                         "keeps the overshoot and moves the natural frequency just inside the feasible range")));
-        nearestFeasibleOvershoot(plant, spec, zeta, gammaChoice, ranges).ifPresent(percent ->
-                proposals.add(new SpecProposal(SpecQuantity.OVERSHOOT_PERCENT, percent,
+        nearestFeasibleOvershoot(plant, spec, zeta, gammaChoice, ranges)
+                .ifPresent(percent -> proposals.add(new SpecProposal(
+                        SpecQuantity.OVERSHOOT_PERCENT,
+                        percent,
                         "keeps the time spec and moves the damping ratio just inside the feasible range")));
         return proposals;
     }
@@ -77,7 +87,9 @@ public final class FeasibilityAdvisor {
         }
         if (gammaChoice instanceof GammaChoice.Fixed fixed && plant.d() != 0) {
             double gammaMin = designer.bounds(plant, PoleMatch.of(plant, target)).stream()
-                    .mapToDouble(GammaBound::gammaLowerBound).max().orElse(0);
+                    .mapToDouble(GammaBound::gammaLowerBound)
+                    .max()
+                    .orElse(0);
             return fixed.gamma() > gammaMin;
         }
         return true;
@@ -91,15 +103,24 @@ public final class FeasibilityAdvisor {
 
     private static TimeSpec withSeconds(TimeSpec timeSpec, double seconds) {
         return timeSpec instanceof TimeSpec.SettlingTime settling
-                ? new TimeSpec.SettlingTime(seconds, settling.bandFraction()) : new TimeSpec.RiseTime(seconds);
+                ? new TimeSpec.SettlingTime(seconds, settling.bandFraction())
+                : new TimeSpec.RiseTime(seconds);
     }
 
-    private OptionalDouble nearestFeasibleTime(CanonicalPlant plant, DesignSpec spec, double zeta,
-                                               double normalizedTime, double wn, GammaChoice gammaChoice,
-                                               SpecRanges ranges) {
+    private OptionalDouble nearestFeasibleTime(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            double zeta,
+            double normalizedTime,
+            double wn,
+            GammaChoice gammaChoice,
+            SpecRanges ranges) {
         DoublePredicate ok = w -> ranges.timeInRange(normalizedTime / w) && feasible(plant, zeta, w, gammaChoice);
-        DoublePredicate accepted = seconds -> ranges.timeInRange(seconds) && feasibleAsPosted(plant,
-                new DesignSpec(spec.overshootFraction(), withSeconds(spec.timeSpec(), seconds)), gammaChoice);
+        DoublePredicate accepted = seconds -> ranges.timeInRange(seconds)
+                && feasibleAsPosted(
+                        plant,
+                        new DesignSpec(spec.overshootFraction(), withSeconds(spec.timeSpec(), seconds)),
+                        gammaChoice);
         for (int step = 1; step <= FREQUENCY_STEPS; step++) {
             double factor = Math.pow(FREQUENCY_STEP, step);
             for (double candidate : new double[] {wn * factor, wn / factor}) {
@@ -107,23 +128,32 @@ public final class FeasibilityAdvisor {
                     double outside = candidate > wn ? candidate / FREQUENCY_STEP : candidate * FREQUENCY_STEP;
                     double edge = boundary(ok, outside, candidate);
                     double inside = edge * (candidate > wn ? 1 + INSIDE_MARGIN : 1 - INSIDE_MARGIN);
-                    return firstAccepted(accepted, ranges.minTimeSeconds(), ranges.maxTimeSeconds(),
-                            normalizedTime / inside, normalizedTime / candidate, normalizedTime / edge);
+                    return firstAccepted(
+                            accepted,
+                            ranges.minTimeSeconds(),
+                            ranges.maxTimeSeconds(),
+                            normalizedTime / inside,
+                            normalizedTime / candidate,
+                            normalizedTime / edge);
                 }
             }
         }
         return OptionalDouble.empty();
     }
 
-    private OptionalDouble nearestFeasibleOvershoot(CanonicalPlant plant, DesignSpec spec, double zeta,
-                                                    GammaChoice gammaChoice, SpecRanges ranges) {
+    private OptionalDouble nearestFeasibleOvershoot(
+            CanonicalPlant plant, DesignSpec spec, double zeta, GammaChoice gammaChoice, SpecRanges ranges) {
         TimeSpec timeSpec = spec.timeSpec();
         // overshoot falls as zeta rises: the range's largest overshoot bounds zeta from below
-        double zetaLow = Math.max(DAMPING_MIN, ranges.maxOvershootPercent() >= 100 ? 0
-                : OvershootDamping.dampingRatio(ranges.maxOvershootPercent() / 100));
+        double zetaLow = Math.max(
+                DAMPING_MIN,
+                ranges.maxOvershootPercent() >= 100
+                        ? 0
+                        : OvershootDamping.dampingRatio(ranges.maxOvershootPercent() / 100));
         double zetaHigh = Math.min(DAMPING_MAX, OvershootDamping.dampingRatio(ranges.minOvershootPercent() / 100));
         DoublePredicate ok = z -> feasible(plant, z, timeSpec.normalizedTime(z) / timeSpec.seconds(), gammaChoice);
-        DoublePredicate accepted = percent -> ranges.overshootInRange(percent) && percent > 0
+        DoublePredicate accepted = percent -> ranges.overshootInRange(percent)
+                && percent > 0
                 && feasibleAsPosted(plant, spec.withOvershoot(percent / 100), gammaChoice);
         int steps = (int) Math.ceil((DAMPING_MAX - DAMPING_MIN) / DAMPING_STEP);
         for (int step = 1; step <= steps; step++) {
@@ -131,10 +161,14 @@ public final class FeasibilityAdvisor {
                 if (candidate >= zetaLow && candidate <= zetaHigh && ok.test(candidate)) {
                     double outside = candidate > zeta ? candidate - DAMPING_STEP : candidate + DAMPING_STEP;
                     double edge = boundary(ok, outside, candidate);
-                    double inside = SpecRanges.clamp(edge + (candidate > zeta ? DAMPING_INSIDE : -DAMPING_INSIDE),
-                            zetaLow, zetaHigh);
-                    return firstAccepted(accepted, ranges.minOvershootPercent(), ranges.maxOvershootPercent(),
-                            100 * OvershootDamping.overshoot(inside), 100 * OvershootDamping.overshoot(candidate),
+                    double inside = SpecRanges.clamp(
+                            edge + (candidate > zeta ? DAMPING_INSIDE : -DAMPING_INSIDE), zetaLow, zetaHigh);
+                    return firstAccepted(
+                            accepted,
+                            ranges.minOvershootPercent(),
+                            ranges.maxOvershootPercent(),
+                            100 * OvershootDamping.overshoot(inside),
+                            100 * OvershootDamping.overshoot(candidate),
                             100 * OvershootDamping.overshoot(edge));
                 }
             }

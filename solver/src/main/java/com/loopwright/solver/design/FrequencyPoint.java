@@ -9,6 +9,9 @@ package com.loopwright.solver.design;
  * @param sensitivityDb         20 log10 |1 / (1 + L(j omega))|
  * @param closedLoopGainDb      20 log10 |T(j omega)| of the reference r to x1
  */
-public record FrequencyPoint(double frequencyRadPerSec, double loopGainDb, double loopPhaseDegrees,
-                             double sensitivityDb, double closedLoopGainDb) {
-}
+public record FrequencyPoint(
+        double frequencyRadPerSec,
+        double loopGainDb,
+        double loopPhaseDegrees,
+        double sensitivityDb,
+        double closedLoopGainDb) {}

@@ -14,12 +14,12 @@ import java.util.OptionalDouble;
  * @param binding         true when this requirement ends the feasible set at gamma_min
  * @param headroom        order 2 only: D, the requirement is d^2/gamma^2 &lt;= D and can hold only if D &gt; 0
  */
-public record GammaBound(GammaCondition condition, int stateIndex, double gammaLowerBound, boolean binding,
-                         OptionalDouble headroom) {
+public record GammaBound(
+        GammaCondition condition, int stateIndex, double gammaLowerBound, boolean binding, OptionalDouble headroom) {
 
     /** An order-2 bound. */
-    public static GammaBound closedForm(GammaCondition condition, double headroom, double gammaLowerBound,
-                                        boolean binding) {
+    public static GammaBound closedForm(
+            GammaCondition condition, double headroom, double gammaLowerBound, boolean binding) {
         return new GammaBound(condition, 0, gammaLowerBound, binding, OptionalDouble.of(headroom));
     }
 

@@ -36,12 +36,19 @@ public enum GammaCondition {
      */
     INPUT_GAIN(true, false, "gamma exceeds the closed-loop gain from the disturbance to u"),
     /** Order n: the Riccati solution branch followed in 1/gamma^2 turns back (or stops converging) here. */
-    SOLUTION_BRANCH_END(true, false, "the followed Riccati solution branch ends (turning point); smaller gamma on it"
-            + " was not searched");
+    SOLUTION_BRANCH_END(
+            true,
+            false,
+            "the followed Riccati solution branch ends (turning point); smaller gamma on it" + " was not searched");
 
     /** The six requirements of the closed-form order-2 design, in the order they are reported. */
-    public static final List<GammaCondition> CLOSED_FORM = List.of(POSITION_WEIGHT_REAL, VELOCITY_WEIGHT_REAL,
-            P11_POSITIVE, P_POSITIVE_DEFINITE, STABILIZING_DAMPING, STABILIZING_STIFFNESS);
+    public static final List<GammaCondition> CLOSED_FORM = List.of(
+            POSITION_WEIGHT_REAL,
+            VELOCITY_WEIGHT_REAL,
+            P11_POSITIVE,
+            P_POSITIVE_DEFINITE,
+            STABILIZING_DAMPING,
+            STABILIZING_STIFFNESS);
 
     private final boolean strict;
     private final boolean perState;

@@ -1,6 +1,5 @@
 package com.loopwright.solver.design;
 
-
 /**
  * One interval of the feasible gamma set: every gamma strictly between the ends completes the design.
  *

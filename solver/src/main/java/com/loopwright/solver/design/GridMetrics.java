@@ -1,6 +1,5 @@
 package com.loopwright.solver.design;
 
-
 /**
  * Step metrics of a dense trajectory (saturated, sampled or delayed loops, where the exact event refinement of the
  * linear simulation does not apply). Level crossings are interpolated linearly between grid points; the overshoot
@@ -11,8 +10,8 @@ package com.loopwright.solver.design;
  * @param overshootPercent    100 (max x1 / y_inf - 1), at least 0
  * @param peakControl         max |u| applied to the plant
  */
-public record GridMetrics(Double riseTimeSeconds, Double settlingTimeSeconds, double overshootPercent,
-                          double peakControl) {
+public record GridMetrics(
+        Double riseTimeSeconds, Double settlingTimeSeconds, double overshootPercent, double peakControl) {
 
     /**
      * @param finalValue   y_inf, non-zero

@@ -1,6 +1,5 @@
 package com.loopwright.solver.design;
 
-
 /**
  * H-infinity norm of a stable, strictly proper transfer matrix G(s) = C (sI - A)^-1 B.
  *
@@ -21,8 +20,8 @@ public record HInfinityNorm(double value, double peakFrequencyRadPerSec, double 
             throw new IllegalArgumentException("peak frequency must be finite and >= 0, got " + peakFrequencyRadPerSec);
         }
         if (!Double.isFinite(attainedGain) || attainedGain < 0 || attainedGain > value) {
-            throw new IllegalArgumentException("attained gain must be finite, >= 0 and <= the norm " + value
-                    + ", got " + attainedGain);
+            throw new IllegalArgumentException(
+                    "attained gain must be finite, >= 0 and <= the norm " + value + ", got " + attainedGain);
         }
         if (iterations < 0) {
             throw new IllegalArgumentException("iterations must be >= 0, got " + iterations);

@@ -19,9 +19,16 @@ import org.ejml.data.DMatrixRMaj;
  * @param bisectionSteps Newton solves spent on the feasible set (continuation, refinement of the ends, checks)
  * @param notes       how gamma was chosen when not by the plain rule, intervals left out, other branches
  */
-public record HighOrderDesign(CompanionPlant plant, DesiredPoles poles, PoleMatchedSolution solution,
-                              List<GammaBound> gammaBounds, List<GammaInterval> feasibleSet,
-                              double gammaMin, double gamma, int bisectionSteps, List<String> notes) {
+public record HighOrderDesign(
+        CompanionPlant plant,
+        DesiredPoles poles,
+        PoleMatchedSolution solution,
+        List<GammaBound> gammaBounds,
+        List<GammaInterval> feasibleSet,
+        double gammaMin,
+        double gamma,
+        int bisectionSteps,
+        List<String> notes) {
 
     public HighOrderDesign {
         gammaBounds = List.copyOf(gammaBounds);

@@ -1,6 +1,5 @@
 package com.loopwright.solver.design;
 
-
 /**
  * The simulated step of an order-n closed loop (highorder.ClosedLoopStep): metrics and sampled undershoot (largest excursion opposite to the final value, percent of it).
  *
@@ -9,5 +8,4 @@ package com.loopwright.solver.design;
  * @param horizonSeconds   simulated window
  * @param samples          samples on it
  */
-public record HighOrderStep(StepMetrics metrics, double undershootPercent, double horizonSeconds, int samples) {
-}
+public record HighOrderStep(StepMetrics metrics, double undershootPercent, double horizonSeconds, int samples) {}

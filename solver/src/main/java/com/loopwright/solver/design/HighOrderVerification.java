@@ -1,6 +1,5 @@
 package com.loopwright.solver.design;
 
-
 /**
  * Independent checks of a high-order design.
  *
@@ -10,6 +9,9 @@ package com.loopwright.solver.design;
  * @param step                 the simulated step of the actual closed loop (zeros included)
  * @param certified            norm &lt;= gamma (with rounding slack) and the two solutions agree
  */
-public record HighOrderVerification(RiccatiSolution numeric, double relativeDifference, HInfinityNorm norm,
-                                    HighOrderStep step, boolean certified) {
-}
+public record HighOrderVerification(
+        RiccatiSolution numeric,
+        double relativeDifference,
+        HInfinityNorm norm,
+        HighOrderStep step,
+        boolean certified) {}

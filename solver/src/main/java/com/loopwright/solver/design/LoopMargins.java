@@ -24,10 +24,17 @@ import java.util.List;
  * @param bandwidthRadPerSec      -3 dB frequency of the reference-to-x1 transfer b kr/(s^2 + c1 s + c0)
  * @param response                log-spaced frequency response (possibly empty)
  */
-public record LoopMargins(Double crossoverRadPerSec, Double phaseMarginDegrees, Double delayMarginSeconds,
-                          Double gainMargin, Double gainMarginRadPerSec, Double gainReductionMargin,
-                          double peakSensitivity, Double peakSensitivityRadPerSec, double bandwidthRadPerSec,
-                          List<FrequencyPoint> response) {
+public record LoopMargins(
+        Double crossoverRadPerSec,
+        Double phaseMarginDegrees,
+        Double delayMarginSeconds,
+        Double gainMargin,
+        Double gainMarginRadPerSec,
+        Double gainReductionMargin,
+        double peakSensitivity,
+        Double peakSensitivityRadPerSec,
+        double bandwidthRadPerSec,
+        List<FrequencyPoint> response) {
 
     public LoopMargins {
         response = List.copyOf(response);

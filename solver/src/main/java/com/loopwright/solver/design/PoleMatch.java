@@ -15,7 +15,6 @@ public record PoleMatch(double p12, double p22) {
     public static PoleMatch of(CanonicalPlant plant, TargetDynamics target) {
         double wn = target.naturalFrequencyRadPerSec();
         double b2 = plant.b() * plant.b();
-        return new PoleMatch((wn * wn - plant.a0()) / b2,
-                (2 * target.dampingRatio() * wn - plant.a1()) / b2);
+        return new PoleMatch((wn * wn - plant.a0()) / b2, (2 * target.dampingRatio() * wn - plant.a1()) / b2);
     }
 }

@@ -11,8 +11,8 @@ import org.ejml.data.DMatrixRMaj;
  * @param reciprocalCondition   sigma_min/sigma_max of the column-scaled linear system
  * @param newtonSteps           Newton steps taken after the first solve
  */
-public record PoleMatchedSolution(DMatrixRMaj p, double[] weightsSquared, double relativeResidual,
-                                  double reciprocalCondition, int newtonSteps) {
+public record PoleMatchedSolution(
+        DMatrixRMaj p, double[] weightsSquared, double relativeResidual, double reciprocalCondition, int newtonSteps) {
     public PoleMatchedSolution {
         p = p.copy();
         weightsSquared = weightsSquared.clone();

@@ -13,8 +13,14 @@ package com.loopwright.solver.design;
  * @param sampledSpectralRadius  largest |eigenvalue| of Ad - Bd K, the unclamped sampled loop (&lt; 1: stable)
  * @param periodPerTimeConstant  wn T, the sample period in units of the closed-loop time scale 1/wn
  */
-public record SampledLaw(double samplePeriodSeconds, double positionGain, double velocityGain, double referenceGain,
-                         double commandLimit, double sampledSpectralRadius, double periodPerTimeConstant) {
+public record SampledLaw(
+        double samplePeriodSeconds,
+        double positionGain,
+        double velocityGain,
+        double referenceGain,
+        double commandLimit,
+        double sampledSpectralRadius,
+        double periodPerTimeConstant) {
 
     /** u for one sample, clamped to the actuator limit. */
     public double command(double setpoint, double position, double velocity) {

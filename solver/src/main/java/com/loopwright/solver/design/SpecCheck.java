@@ -8,5 +8,4 @@ package com.loopwright.solver.design;
  * @param simulated simulated value, same units
  * @param met       simulated &lt;= requested within the stated tolerance
  */
-public record SpecCheck(String spec, double requested, double simulated, boolean met) {
-}
+public record SpecCheck(String spec, double requested, double simulated, boolean met) {}

@@ -12,6 +12,10 @@ import com.loopwright.solver.spec.TargetDynamics;
  * @param overshootResidualPoints simulated overshoot - spec [percentage points]
  * @param step                  the simulated step at the matched pair
  */
-public record SpecMatch(TargetDynamics target, TargetDynamics startingTarget, int iterations,
-                        double settlingResidual, double overshootResidualPoints, HighOrderStep step) {
-}
+public record SpecMatch(
+        TargetDynamics target,
+        TargetDynamics startingTarget,
+        int iterations,
+        double settlingResidual,
+        double overshootResidualPoints,
+        HighOrderStep step) {}

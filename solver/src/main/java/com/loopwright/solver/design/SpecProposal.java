@@ -7,5 +7,4 @@ package com.loopwright.solver.design;
  * @param value    the proposed value, in the spec's own units (percent, seconds, or gamma)
  * @param note     what is kept and why the value is where it is
  */
-public record SpecProposal(SpecQuantity quantity, double value, String note) {
-}
+public record SpecProposal(SpecQuantity quantity, double value, String note) {}

@@ -9,16 +9,21 @@ package com.loopwright.solver.design;
  * @param maxTimeSeconds      longest accepted settling or rise time [s]
  * @param maxGamma            largest accepted fixed gamma
  */
-public record SpecRanges(double minOvershootPercent, double maxOvershootPercent, double minTimeSeconds,
-                         double maxTimeSeconds, double maxGamma) {
+public record SpecRanges(
+        double minOvershootPercent,
+        double maxOvershootPercent,
+        double minTimeSeconds,
+        double maxTimeSeconds,
+        double maxGamma) {
 
     /** No bounds beyond those of the quantities themselves (overshoot in (0, 100) percent, times and gamma positive). */
-    public static final SpecRanges UNBOUNDED = new SpecRanges(1e-300, 100, Double.MIN_VALUE,
-            Double.MAX_VALUE, Double.MAX_VALUE);
+    public static final SpecRanges UNBOUNDED =
+            new SpecRanges(1e-300, 100, Double.MIN_VALUE, Double.MAX_VALUE, Double.MAX_VALUE);
 
     public SpecRanges {
         if (!(minOvershootPercent > 0 && minOvershootPercent < maxOvershootPercent && maxOvershootPercent <= 100)
-                || !(minTimeSeconds > 0 && minTimeSeconds < maxTimeSeconds) || !(maxGamma > 0)) {
+                || !(minTimeSeconds > 0 && minTimeSeconds < maxTimeSeconds)
+                || !(maxGamma > 0)) {
             throw new IllegalArgumentException("spec ranges must be non-empty and positive");
         }
     }

@@ -16,9 +16,15 @@ package com.loopwright.solver.design;
  * @param undershootPercent 100 max(0, -min y / y_inf) over [0, horizon]: the largest excursion
  *     opposite to the final value, refined between samples as the overshoot is
  */
-public record StepMetrics(double riseTimeSeconds, double settlingTimeSeconds,
-                          double overshootPercent, double peakTimeSeconds, double steadyStateError,
-                          double peakControl, double finalValue, double undershootPercent) {
+public record StepMetrics(
+        double riseTimeSeconds,
+        double settlingTimeSeconds,
+        double overshootPercent,
+        double peakTimeSeconds,
+        double steadyStateError,
+        double peakControl,
+        double finalValue,
+        double undershootPercent) {
 
     public StepMetrics {
         requireFinite(riseTimeSeconds, "riseTimeSeconds");
@@ -29,8 +35,12 @@ public record StepMetrics(double riseTimeSeconds, double settlingTimeSeconds,
         requireFinite(peakControl, "peakControl");
         requireFinite(finalValue, "finalValue");
         requireFinite(undershootPercent, "undershootPercent");
-        if (riseTimeSeconds < 0.0 || settlingTimeSeconds < 0.0 || overshootPercent < 0.0
-            || peakTimeSeconds < 0.0 || peakControl < 0.0 || undershootPercent < 0.0) {
+        if (riseTimeSeconds < 0.0
+                || settlingTimeSeconds < 0.0
+                || overshootPercent < 0.0
+                || peakTimeSeconds < 0.0
+                || peakControl < 0.0
+                || undershootPercent < 0.0) {
             throw new IllegalArgumentException("times, overshoot, undershoot and peak control must be >= 0");
         }
     }

@@ -13,8 +13,14 @@ import java.util.List;
  * @param specChecks          each spec against its simulated value
  * @param certified           hinfNorm &lt;= gamma and the two Riccati solutions agree
  */
-public record Verification(double closedFormResidual, RiccatiSolution numeric, double relativeDifference,
-                           HInfinityNorm hinfNorm, StepMetrics metrics, List<SpecCheck> specChecks, boolean certified) {
+public record Verification(
+        double closedFormResidual,
+        RiccatiSolution numeric,
+        double relativeDifference,
+        HInfinityNorm hinfNorm,
+        StepMetrics metrics,
+        List<SpecCheck> specChecks,
+        boolean certified) {
 
     public Verification {
         specChecks = List.copyOf(specChecks);

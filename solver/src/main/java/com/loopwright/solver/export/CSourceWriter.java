@@ -18,13 +18,24 @@ public final class CSourceWriter {
             c.append(" * ").append(line).append('\n');
         }
         c.append(" */\n");
-        c.append("#define LW_K_POSITION (").append(Literals.real(law.positionGain())).append(")\n");
-        c.append("#define LW_K_VELOCITY (").append(Literals.real(law.velocityGain())).append(")\n");
-        c.append("#define LW_K_REFERENCE (").append(Literals.real(law.referenceGain())).append(")\n");
-        c.append("#define LW_COMMAND_LIMIT (").append(Literals.real(law.commandLimit())).append(")\n");
-        c.append("#define LW_SAMPLE_PERIOD_S (").append(Literals.real(law.samplePeriodSeconds())).append(")\n\n");
+        c.append("#define LW_K_POSITION (")
+                .append(Literals.real(law.positionGain()))
+                .append(")\n");
+        c.append("#define LW_K_VELOCITY (")
+                .append(Literals.real(law.velocityGain()))
+                .append(")\n");
+        c.append("#define LW_K_REFERENCE (")
+                .append(Literals.real(law.referenceGain()))
+                .append(")\n");
+        c.append("#define LW_COMMAND_LIMIT (")
+                .append(Literals.real(law.commandLimit()))
+                .append(")\n");
+        c.append("#define LW_SAMPLE_PERIOD_S (")
+                .append(Literals.real(law.samplePeriodSeconds()))
+                .append(")\n\n");
         c.append("/* Returns u for one sample; *saturated (if not NULL) is set to 1 while the clamp is active. */\n");
-        c.append("double ").append(FUNCTION_NAME)
+        c.append("double ")
+                .append(FUNCTION_NAME)
                 .append("(double setpoint, double position, double velocity, int *saturated)\n");
         c.append("{\n");
         c.append("    double u = LW_K_REFERENCE * setpoint - (LW_K_POSITION * position + LW_K_VELOCITY * velocity);\n");

@@ -10,8 +10,7 @@ final class Literals {
     /** Longest comment line before wrapping. */
     static final int COMMENT_WIDTH = 100;
 
-    private Literals() {
-    }
+    private Literals() {}
 
     /** Shortest round-trip decimal of a finite double, always with a '.' (e.g. 400.0, 1.0E-4). */
     static String real(double value) {
@@ -23,7 +22,10 @@ final class Literals {
 
     /** Text made safe inside a comment (no comment terminators, ASCII only), wrapped to COMMENT_WIDTH. */
     static List<String> commentLines(String text) {
-        String safe = text.replace("*)", "* )").replace("*/", "* /").replace("(*", "( *").replace("/*", "/ *")
+        String safe = text.replace("*)", "* )")
+                .replace("*/", "* /")
+                .replace("(*", "( *")
+                .replace("/*", "/ *")
                 .replaceAll("[^\\x20-\\x7E]", "?");
         List<String> lines = new ArrayList<>();
         StringBuilder line = new StringBuilder();

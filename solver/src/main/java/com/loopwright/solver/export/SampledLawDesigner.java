@@ -33,8 +33,10 @@ public final class SampledLawDesigner {
      */
     public SampledLaw emulate(ClosedFormDesign design, double samplePeriodSeconds, double commandLimit) {
         if (!(samplePeriodSeconds >= MIN_SAMPLE_PERIOD_SECONDS && samplePeriodSeconds <= MAX_SAMPLE_PERIOD_SECONDS)) {
-            throw new SampledLawException("the sample period must lie in [" + MIN_SAMPLE_PERIOD_SECONDS + ", "
-                    + MAX_SAMPLE_PERIOD_SECONDS + "] s", true);
+            throw new SampledLawException(
+                    "the sample period must lie in [" + MIN_SAMPLE_PERIOD_SECONDS + ", " + MAX_SAMPLE_PERIOD_SECONDS
+                            + "] s",
+                    true);
         }
         if (!(commandLimit > 0) || !Double.isFinite(commandLimit)) {
             throw new SampledLawException("the command limit must be finite and positive", false);
@@ -44,11 +46,17 @@ public final class SampledLawDesigner {
         // compared as T > 0.5 / wn, the same double the advice below is rounded down from
         double longestPeriod = MAX_PERIOD_PER_TIME_CONSTANT / wn;
         if (samplePeriodSeconds > longestPeriod) {
-            throw new SampledLawException(String.format(java.util.Locale.ROOT,
-                    "the sample period %.6g s is too long for a loop with natural frequency %.6g rad/s: wn T = %.6g"
-                            + " exceeds %.2g; use a period of at most %." + ADVICE_DIGITS + "g s", samplePeriodSeconds,
-                    wn, periodPerTimeConstant, MAX_PERIOD_PER_TIME_CONSTANT,
-                    SafeRounding.atMost(longestPeriod, ADVICE_DIGITS)), true);
+            throw new SampledLawException(
+                    String.format(
+                            java.util.Locale.ROOT,
+                            "the sample period %.6g s is too long for a loop with natural frequency %.6g rad/s: wn T = %.6g"
+                                    + " exceeds %.2g; use a period of at most %." + ADVICE_DIGITS + "g s",
+                            samplePeriodSeconds,
+                            wn,
+                            periodPerTimeConstant,
+                            MAX_PERIOD_PER_TIME_CONSTANT,
+                            SafeRounding.atMost(longestPeriod, ADVICE_DIGITS)),
+                    true);
         }
         double k1 = design.positionGain();
         double k2 = design.velocityGain();
@@ -61,11 +69,13 @@ public final class SampledLawDesigner {
         double m22 = ad.get(1, 1) - bd.get(1, 0) * k2;
         double radius = spectralRadius(m11, m12, m21, m22);
         if (!(radius < 1)) {
-            throw new SampledLawException("the sampled loop is unstable at this period (spectral radius "
-                    + radius + "); shorten the sample period", true);
+            throw new SampledLawException(
+                    "the sampled loop is unstable at this period (spectral radius " + radius
+                            + "); shorten the sample period",
+                    true);
         }
-        return new SampledLaw(samplePeriodSeconds, k1, k2, design.referenceGain(), commandLimit, radius,
-                periodPerTimeConstant);
+        return new SampledLaw(
+                samplePeriodSeconds, k1, k2, design.referenceGain(), commandLimit, radius, periodPerTimeConstant);
     }
 
     /** The canonical plant sampled exactly under zero-order hold. */

@@ -29,11 +29,20 @@ public final class StructuredTextWriter {
         st.append("    Saturated : BOOL; (* TRUE while the clamp is active *)\n");
         st.append("END_VAR\n");
         st.append("VAR CONSTANT\n");
-        st.append("    K_POSITION : LREAL := ").append(Literals.real(law.positionGain())).append(";\n");
-        st.append("    K_VELOCITY : LREAL := ").append(Literals.real(law.velocityGain())).append(";\n");
-        st.append("    K_REFERENCE : LREAL := ").append(Literals.real(law.referenceGain())).append(";\n");
-        st.append("    COMMAND_LIMIT : LREAL := ").append(Literals.real(law.commandLimit())).append(";\n");
-        st.append("    SAMPLE_PERIOD_S : LREAL := ").append(Literals.real(law.samplePeriodSeconds()))
+        st.append("    K_POSITION : LREAL := ")
+                .append(Literals.real(law.positionGain()))
+                .append(";\n");
+        st.append("    K_VELOCITY : LREAL := ")
+                .append(Literals.real(law.velocityGain()))
+                .append(";\n");
+        st.append("    K_REFERENCE : LREAL := ")
+                .append(Literals.real(law.referenceGain()))
+                .append(";\n");
+        st.append("    COMMAND_LIMIT : LREAL := ")
+                .append(Literals.real(law.commandLimit()))
+                .append(";\n");
+        st.append("    SAMPLE_PERIOD_S : LREAL := ")
+                .append(Literals.real(law.samplePeriodSeconds()))
                 .append("; (* the task period this block was designed for *)\n");
         st.append("END_VAR\n");
         st.append("VAR\n");

@@ -20,8 +20,7 @@ final class ParameterCovariance {
     /** Share of a variance from undetermined directions above which the standard error is not reported. */
     static final double UNDETERMINED_SHARE = 0.5;
 
-    private ParameterCovariance() {
-    }
+    private ParameterCovariance() {}
 
     /**
      * @param jacobian         n x p Jacobian of the model at the optimum
@@ -52,12 +51,15 @@ final class ParameterCovariance {
                 if (singular[k] > NEAR_SINGULAR * largest) {
                     determined += loading * loading / (singular[k] * singular[k]);
                 } else if (loading != 0) {
-                    undetermined += singular[k] > 0 ? loading * loading / (singular[k] * singular[k])
+                    undetermined += singular[k] > 0
+                            ? loading * loading / (singular[k] * singular[k])
                             : Double.POSITIVE_INFINITY;
                 }
             }
             double variance = determined + undetermined;
-            boolean supported = scale[i] > 0 && largest > 0 && Double.isFinite(variance)
+            boolean supported = scale[i] > 0
+                    && largest > 0
+                    && Double.isFinite(variance)
                     && undetermined <= UNDETERMINED_SHARE * variance;
             errors[i] = supported ? Math.sqrt(residualVariance * variance) / scale[i] : Double.NaN;
         }

@@ -27,6 +27,7 @@ final class ResponseModel implements MultivariateJacobianFunction {
 
     /** Smallest damping ratio the search visits (a lossless oscillator is not a step-test result). */
     static final double MIN_DAMPING_RATIO = 1e-4;
+
     private static final double ZETA_STEP = 1e-6;
     /** An estimate within this fraction of the box width (or record duration) of a bound sits on it. */
     private static final double AT_BOUND_TOLERANCE = 1e-9;
@@ -41,8 +42,14 @@ final class ResponseModel implements MultivariateJacobianFunction {
     private final double durationSeconds;
     private final double minNaturalFrequency;
 
-    private ResponseModel(double[] t, double stepTime, double amplitude, boolean freeDeadTime, boolean holding,
-                          double heldDeadTime, boolean estimateOffset) {
+    private ResponseModel(
+            double[] t,
+            double stepTime,
+            double amplitude,
+            boolean freeDeadTime,
+            boolean holding,
+            double heldDeadTime,
+            boolean estimateOffset) {
         this.t = t;
         this.stepTime = stepTime;
         this.amplitude = amplitude;
@@ -57,8 +64,14 @@ final class ResponseModel implements MultivariateJacobianFunction {
 
     /** The model of the fit: theta is a parameter when the options estimate it, otherwise 0. */
     ResponseModel(StepTestData data, FitOptions options) {
-        this(data.timeSeconds(), data.stepTimeSeconds(), data.stepAmplitude(), options.estimateDeadTime(), false,
-                0, options.estimateInitialOffset());
+        this(
+                data.timeSeconds(),
+                data.stepTimeSeconds(),
+                data.stepAmplitude(),
+                options.estimateDeadTime(),
+                false,
+                0,
+                options.estimateInitialOffset());
     }
 
     /** The same model with the dead time held at deadTimeSeconds (not a parameter). */
@@ -155,8 +168,7 @@ final class ResponseModel implements MultivariateJacobianFunction {
         at[2] = x[2] <= MIN_DAMPING_RATIO * (1 + AT_BOUND_TOLERANCE)
                 || x[2] >= StepResponseFitter.MAX_DAMPING_RATIO * (1 - AT_BOUND_TOLERANCE);
         if (freeDeadTime) {
-            at[3] = x[3] <= AT_BOUND_TOLERANCE * durationSeconds
-                    || x[3] >= durationSeconds * (1 - AT_BOUND_TOLERANCE);
+            at[3] = x[3] <= AT_BOUND_TOLERANCE * durationSeconds || x[3] >= durationSeconds * (1 - AT_BOUND_TOLERANCE);
         }
         return at;
     }
@@ -182,8 +194,10 @@ final class ResponseModel implements MultivariateJacobianFunction {
             values[i] = y0 + gain * amplitude * s;
             jacobian[i][0] = amplitude * s;
             jacobian[i][1] = gain * amplitude * Math.max(elapsed, 0) * ds;
-            jacobian[i][2] = gain * amplitude * (UnitStepShape.step(tau, zeta + h)
-                    - UnitStepShape.step(tau, zeta - h)) / (2 * h);
+            jacobian[i][2] = gain
+                    * amplitude
+                    * (UnitStepShape.step(tau, zeta + h) - UnitStepShape.step(tau, zeta - h))
+                    / (2 * h);
             if (freeDeadTime) {
                 jacobian[i][3] = -gain * amplitude * wn * ds;
             }

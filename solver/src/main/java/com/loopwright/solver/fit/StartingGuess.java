@@ -27,8 +27,7 @@ final class StartingGuess {
      * @param y0        initial value guess
      * @param change    final minus initial value guess (non-zero)
      */
-    StartingGuess(double[] t, double[] y, int afterStep, double stepTime, double y0, double change,
-                  double amplitude) {
+    StartingGuess(double[] t, double[] y, int afterStep, double stepTime, double y0, double change, double amplitude) {
         double peak = 0;
         int peakIndex = afterStep;
         for (int i = afterStep; i < t.length; i++) {
@@ -80,8 +79,9 @@ final class StartingGuess {
             double previous = (y[i - 1] - y0) / change;
             double current = (y[i] - y0) / change;
             if (current >= level && i > from) {
-                return previous >= level ? t[i] : t[i - 1] + (t[i] - t[i - 1]) * (level - previous)
-                        / (current - previous);
+                return previous >= level
+                        ? t[i]
+                        : t[i - 1] + (t[i] - t[i - 1]) * (level - previous) / (current - previous);
             }
         }
         return t[t.length - 1];

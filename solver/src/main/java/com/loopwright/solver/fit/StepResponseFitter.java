@@ -90,8 +90,7 @@ public final class StepResponseFitter {
     }
 
     /** One Levenberg-Marquardt run: the point in the layout of the full fit, its cost sqrt(SSR), its work. */
-    private record Run(double[] point, double cost, int iterations, int evaluations) {
-    }
+    private record Run(double[] point, double cost, int iterations, int evaluations) {}
 
     public StepFit fit(StepTestData data, FitOptions options) {
         int n = data.size();
@@ -113,17 +112,19 @@ public final class StepResponseFitter {
         double change = finalGuess - y0Guess;
         double range = max(y, 0, n) - min(y, 0, n);
         if (range == 0 || change == 0) {
-            throw new FitFailedException("the output does not move after the step: there is no excitation to"
-                    + " identify a model from");
+            throw new FitFailedException(
+                    "the output does not move after the step: there is no excitation to" + " identify a model from");
         }
         ResponseModel model = new ResponseModel(data, options);
-        StartingGuess guess = new StartingGuess(t, y, afterStep, data.stepTimeSeconds(), y0Guess, change,
-                data.stepAmplitude());
+        StartingGuess guess =
+                new StartingGuess(t, y, afterStep, data.stepTimeSeconds(), y0Guess, change, data.stepAmplitude());
         List<Run> finalists = search(model, guess, y, options);
-        Run best = finalists.stream().filter(r -> Double.isFinite(r.cost()))
-                .min(Comparator.comparingDouble(Run::cost)).orElseThrow(() -> new FitFailedException(
-                        "the least-squares fit did not converge within " + maxIterations + " iterations and "
-                        + MAX_EVALUATIONS + " evaluations; the record may not be a second-order step response"));
+        Run best = finalists.stream()
+                .filter(r -> Double.isFinite(r.cost()))
+                .min(Comparator.comparingDouble(Run::cost))
+                .orElseThrow(() -> new FitFailedException("the least-squares fit did not converge within "
+                        + maxIterations + " iterations and " + MAX_EVALUATIONS
+                        + " evaluations; the record may not be a second-order step response"));
         return summarize(data, model, best, n, p, afterStep);
     }
 
@@ -144,8 +145,8 @@ public final class StepResponseFitter {
                 double heldDeadTime = points == 1 ? 0 : span * k / (points - 1);
                 ResponseModel held = model.holdingDeadTime(heldDeadTime);
                 double[] start = guess.point(heldDeadTime, false, options.estimateInitialOffset());
-                Optional<Run> run = minimize(held, y, start, Math.min(maxIterations, PROFILE_ITERATIONS),
-                        PROFILE_EVALUATIONS);
+                Optional<Run> run =
+                        minimize(held, y, start, Math.min(maxIterations, PROFILE_ITERATIONS), PROFILE_EVALUATIONS);
                 run.filter(r -> heldDeadTime == 0).ifPresent(finalists::add);
                 profile.add(run.orElse(new Run(held.fullLayout(start), cost(held, y, start), 0, 1)));
             }
@@ -166,8 +167,8 @@ public final class StepResponseFitter {
      * One Levenberg-Marquardt run of the model from the start, kept in the model's box; empty when it does not
      * converge within the caps. Every run of a fit goes through here.
      */
-    private static Optional<Run> minimize(ResponseModel model, double[] y, double[] start, int iterations,
-                                          int evaluations) {
+    private static Optional<Run> minimize(
+            ResponseModel model, double[] y, double[] start, int iterations, int evaluations) {
         LeastSquaresProblem problem = new LeastSquaresBuilder()
                 .start(start)
                 .model(model)
@@ -180,8 +181,8 @@ public final class StepResponseFitter {
         try {
             LeastSquaresOptimizer.Optimum optimum = new LevenbergMarquardtOptimizer().optimize(problem);
             double[] point = optimum.getPoint().toArray();
-            return Optional.of(new Run(model.fullLayout(point), optimum.getCost(), optimum.getIterations(),
-                    optimum.getEvaluations()));
+            return Optional.of(new Run(
+                    model.fullLayout(point), optimum.getCost(), optimum.getIterations(), optimum.getEvaluations()));
         } catch (MathIllegalStateException | MathIllegalArgumentException e) {
             return Optional.empty();
         }
@@ -189,7 +190,8 @@ public final class StepResponseFitter {
 
     /** sqrt(SSR) of the model at the point, the cost Levenberg-Marquardt reports. */
     private static double cost(ResponseModel model, double[] y, double[] point) {
-        double[] fitted = model.value(new ArrayRealVector(point, false)).getFirst().toArray();
+        double[] fitted =
+                model.value(new ArrayRealVector(point, false)).getFirst().toArray();
         double ssr = 0;
         for (int i = 0; i < y.length; i++) {
             ssr += (y[i] - fitted[i]) * (y[i] - fitted[i]);
@@ -221,8 +223,9 @@ public final class StepResponseFitter {
         double stepChange = Math.abs(gain * data.stepAmplitude());
         double sigma = Math.sqrt(s2);
         if (!(stepChange > MIN_SIGNAL_TO_NOISE * sigma)) {
-            throw new FitFailedException(String.format("the fitted step change %.3g is below %.0f residual"
-                    + " standard deviations (%.3g): the noise hides the response, so no model is identified",
+            throw new FitFailedException(String.format(
+                    "the fitted step change %.3g is below %.0f residual"
+                            + " standard deviations (%.3g): the noise hides the response, so no model is identified",
                     stepChange, MIN_SIGNAL_TO_NOISE, sigma));
         }
         double[] standardErrors = ParameterCovariance.standardErrors(atOptimum.getSecond(), s2);
@@ -236,33 +239,58 @@ public final class StepResponseFitter {
         for (int i = 0; i < p; i++) {
             double se = standardErrors[i];
             if (atBound[i]) {
-                warnings.add(new FitWarning(FitWarning.Code.AT_BOUND, String.format("%s = %.4g sits on the bound"
-                        + " of the values the fit may take: the optimum is constrained there, its interval is"
-                        + " one-sided (clipped at the bound) and only approximate", names[i], point[i])));
+                warnings.add(new FitWarning(
+                        FitWarning.Code.AT_BOUND,
+                        String.format(
+                                "%s = %.4g sits on the bound"
+                                        + " of the values the fit may take: the optimum is constrained there, its interval is"
+                                        + " one-sided (clipped at the bound) and only approximate",
+                                names[i], point[i])));
             }
             if (!Double.isFinite(se)) {
                 parameters.add(new FittedParameter(names[i], point[i], Double.NaN, Double.NaN, Double.NaN));
-                warnings.add(new FitWarning(FitWarning.Code.POORLY_DETERMINED, String.format("%s = %.4g is not"
-                        + " determined by the data (J'J is singular in its direction), so it has no standard"
-                        + " error or interval: record more of the transient or excite the plant harder",
-                        names[i], point[i])));
+                warnings.add(new FitWarning(
+                        FitWarning.Code.POORLY_DETERMINED,
+                        String.format(
+                                "%s = %.4g is not"
+                                        + " determined by the data (J'J is singular in its direction), so it has no standard"
+                                        + " error or interval: record more of the transient or excite the plant harder",
+                                names[i], point[i])));
                 continue;
             }
-            parameters.add(new FittedParameter(names[i], point[i], se,
-                    Math.max(point[i] - quantile * se, lowest[i]), Math.min(point[i] + quantile * se, highest[i])));
+            parameters.add(new FittedParameter(
+                    names[i],
+                    point[i],
+                    se,
+                    Math.max(point[i] - quantile * se, lowest[i]),
+                    Math.min(point[i] + quantile * se, highest[i])));
             if (i < 3 && se > POORLY_DETERMINED_RELATIVE_ERROR * Math.abs(point[i])) {
-                warnings.add(new FitWarning(FitWarning.Code.POORLY_DETERMINED, String.format("%s = %.4g has a"
-                        + " standard error of %.0f%% of its value: the data hardly determine it", names[i],
-                        point[i], 100 * se / Math.abs(point[i]))));
+                warnings.add(new FitWarning(
+                        FitWarning.Code.POORLY_DETERMINED,
+                        String.format(
+                                "%s = %.4g has a"
+                                        + " standard error of %.0f%% of its value: the data hardly determine it",
+                                names[i], point[i], 100 * se / Math.abs(point[i]))));
             }
         }
         warnings.addAll(dataWarnings(data, afterStep, wn, zeta, theta, stepChange, sigma));
-        return new StepFit(gain, wn, zeta, theta, y0, parameters, Math.sqrt(ssr / n),
-                sst == 0 ? 0 : 1 - ssr / sst, dof, best.iterations(), best.evaluations(), warnings);
+        return new StepFit(
+                gain,
+                wn,
+                zeta,
+                theta,
+                y0,
+                parameters,
+                Math.sqrt(ssr / n),
+                sst == 0 ? 0 : 1 - ssr / sst,
+                dof,
+                best.iterations(),
+                best.evaluations(),
+                warnings);
     }
 
-    private static List<FitWarning> dataWarnings(StepTestData data, int afterStep, double wn, double zeta,
-                                                 double theta, double stepChange, double sigma) {
+    private static List<FitWarning> dataWarnings(
+            StepTestData data, int afterStep, double wn, double zeta, double theta, double stepChange, double sigma) {
         List<FitWarning> warnings = new ArrayList<>();
         double[] t = data.timeSeconds();
         double[] y = data.output();
@@ -275,9 +303,13 @@ public final class StepResponseFitter {
         }
         double recorded = t[n - 1] - data.stepTimeSeconds() - theta;
         if (!(recorded >= settling)) {
-            warnings.add(new FitWarning(FitWarning.Code.RECORD_TOO_SHORT, String.format("the record ends %.3g s"
-                    + " after the response starts, before the fitted model settles to 2%% (%.3g s): the final"
-                    + " value and the gain are extrapolated", recorded, settling)));
+            warnings.add(new FitWarning(
+                    FitWarning.Code.RECORD_TOO_SHORT,
+                    String.format(
+                            "the record ends %.3g s"
+                                    + " after the response starts, before the fitted model settles to 2%% (%.3g s): the final"
+                                    + " value and the gain are extrapolated",
+                            recorded, settling)));
         }
         double riseEnd = data.stepTimeSeconds() + theta + riseTo90(zeta) / wn;
         int inTransient = 0;
@@ -285,9 +317,11 @@ public final class StepResponseFitter {
             inTransient++;
         }
         if (inTransient < MIN_TRANSIENT_SAMPLES) {
-            warnings.add(new FitWarning(FitWarning.Code.FEW_SAMPLES_IN_TRANSIENT, "only " + inTransient
-                    + " samples fall on the rise to 90%: sample faster to pin down the natural frequency and"
-                    + " damping"));
+            warnings.add(new FitWarning(
+                    FitWarning.Code.FEW_SAMPLES_IN_TRANSIENT,
+                    "only " + inTransient
+                            + " samples fall on the rise to 90%: sample faster to pin down the natural frequency and"
+                            + " damping"));
         }
         double top = max(y, afterStep, n);
         double bottom = min(y, afterStep, n);
@@ -299,22 +333,33 @@ public final class StepResponseFitter {
         }
         int plateau = Math.max(atTop, atBottom);
         if (plateau >= 5 && plateau >= PLATEAU_FRACTION * (n - afterStep)) {
-            warnings.add(new FitWarning(FitWarning.Code.SATURATION_PLATEAU, plateau + " samples sit exactly at"
-                    + " the output's extreme value: a sensor or actuator limit clipped the response, which a"
-                    + " linear model cannot follow; repeat the test with a smaller step"));
+            warnings.add(new FitWarning(
+                    FitWarning.Code.SATURATION_PLATEAU,
+                    plateau + " samples sit exactly at"
+                            + " the output's extreme value: a sensor or actuator limit clipped the response, which a"
+                            + " linear model cannot follow; repeat the test with a smaller step"));
         }
         if (sigma > NOISE_DOMINATES_FRACTION * stepChange) {
-            warnings.add(new FitWarning(FitWarning.Code.NOISE_DOMINATES, String.format("the residual standard"
-                    + " deviation %.3g is %.0f%% of the step change: noise dominates, repeat with a larger step or"
-                    + " filter the measurement", sigma, 100 * sigma / stepChange)));
+            warnings.add(new FitWarning(
+                    FitWarning.Code.NOISE_DOMINATES,
+                    String.format(
+                            "the residual standard"
+                                    + " deviation %.3g is %.0f%% of the step change: noise dominates, repeat with a larger step or"
+                                    + " filter the measurement",
+                            sigma, 100 * sigma / stepChange)));
         } else if (stepChange < 10 * sigma) {
-            warnings.add(new FitWarning(FitWarning.Code.WEAK_EXCITATION, "the step change is less than ten"
-                    + " residual standard deviations: the excitation is weak"));
+            warnings.add(new FitWarning(
+                    FitWarning.Code.WEAK_EXCITATION,
+                    "the step change is less than ten" + " residual standard deviations: the excitation is weak"));
         }
         if (theta > 0) {
-            warnings.add(new FitWarning(FitWarning.Code.DEAD_TIME_NOT_IN_DESIGN, String.format("the fitted dead"
-                    + " time %.3g s is not part of the returned plant: a design from it ignores the delay, so keep"
-                    + " the closed-loop natural frequency well below 1/(dead time)", theta)));
+            warnings.add(new FitWarning(
+                    FitWarning.Code.DEAD_TIME_NOT_IN_DESIGN,
+                    String.format(
+                            "the fitted dead"
+                                    + " time %.3g s is not part of the returned plant: a design from it ignores the delay, so keep"
+                                    + " the closed-loop natural frequency well below 1/(dead time)",
+                            theta)));
         }
         return warnings;
     }

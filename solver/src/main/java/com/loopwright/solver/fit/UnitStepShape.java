@@ -16,8 +16,7 @@ final class UnitStepShape {
     /** Below this w tau the series C = 1 + q tau^2/2 + q^2 tau^4/24 + q^3 tau^6/720 is exact to rounding. */
     private static final double SERIES_LIMIT = 1e-2;
 
-    private UnitStepShape() {
-    }
+    private UnitStepShape() {}
 
     static double step(double tau, double zeta) {
         if (tau <= 0) {

@@ -31,11 +31,11 @@ public record CrossoverMargins(double crossoverRadPerSec, double phaseMarginDegr
      * @param closedLoopStable    whether 1 + L has all its zeros in the open left half plane
      * @return empty without a crossover
      */
-    public static Optional<CrossoverMargins> of(double[] crossoversRadPerSec, double[] loopPhaseRadians,
-                                                boolean closedLoopStable) {
+    public static Optional<CrossoverMargins> of(
+            double[] crossoversRadPerSec, double[] loopPhaseRadians, boolean closedLoopStable) {
         if (crossoversRadPerSec.length != loopPhaseRadians.length || crossoversRadPerSec.length > MAX_CROSSOVERS) {
-            throw new IllegalArgumentException("need equal numbers of crossovers and phases, at most "
-                    + MAX_CROSSOVERS);
+            throw new IllegalArgumentException(
+                    "need equal numbers of crossovers and phases, at most " + MAX_CROSSOVERS);
         }
         double crossover = Double.NaN;
         double phaseMargin = Double.NaN;

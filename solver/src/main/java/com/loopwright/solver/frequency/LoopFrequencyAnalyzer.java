@@ -41,7 +41,8 @@ public final class LoopFrequencyAnalyzer {
                 phase[i] = wrapped - 360 * Math.rint(step / 360);
             }
             if (!Double.isFinite(magnitude[i]) || !Double.isFinite(phase[i])) {
-                throw new IllegalArgumentException("L(jw) is not finite at w = " + w[i] + " rad/s (a pole on the axis)");
+                throw new IllegalArgumentException(
+                        "L(jw) is not finite at w = " + w[i] + " rad/s (a pole on the axis)");
             }
         }
         return new BodeSeries(w, magnitude, phase);
@@ -66,18 +67,22 @@ public final class LoopFrequencyAnalyzer {
         double k1 = gains.positionGain();
         double k2 = gains.velocityGain();
 
-        List<Double> roots = SecondOrderLoopResponse.positiveRoots(1, a1 * a1 - 2 * a0 - b * b * k2 * k2, a0 * a0 - b * b * k1 * k1);
+        List<Double> roots =
+                SecondOrderLoopResponse.positiveRoots(1, a1 * a1 - 2 * a0 - b * b * k2 * k2, a0 * a0 - b * b * k1 * k1);
         double[] crossovers = new double[roots.size()];
         double[] phases = new double[roots.size()];
         for (int i = 0; i < crossovers.length; i++) {
             crossovers[i] = Math.sqrt(roots.get(i));
             phases[i] = SecondOrderLoopResponse.loopPhase(plant, gains, crossovers[i]);
         }
-        Optional<CrossoverMargins> phaseMargins = CrossoverMargins.of(crossovers, phases,
-                LoopMatrices.stable(plant, gains));
-        Double crossover = phaseMargins.map(CrossoverMargins::crossoverRadPerSec).orElse(null);
-        Double phaseMargin = phaseMargins.map(CrossoverMargins::phaseMarginDegrees).orElse(null);
-        Double delayMargin = phaseMargins.map(CrossoverMargins::delayMarginSeconds).orElse(null);
+        Optional<CrossoverMargins> phaseMargins =
+                CrossoverMargins.of(crossovers, phases, LoopMatrices.stable(plant, gains));
+        Double crossover =
+                phaseMargins.map(CrossoverMargins::crossoverRadPerSec).orElse(null);
+        Double phaseMargin =
+                phaseMargins.map(CrossoverMargins::phaseMarginDegrees).orElse(null);
+        Double delayMargin =
+                phaseMargins.map(CrossoverMargins::delayMarginSeconds).orElse(null);
 
         Double gainMargin = null;
         Double gainMarginFrequency = null;
@@ -124,8 +129,7 @@ public final class LoopFrequencyAnalyzer {
         List<FrequencyPoint> response = new ArrayList<>(responsePoints);
         double previousPhase = Double.NaN;
         for (int i = 0; i < responsePoints; i++) {
-            double w = responsePoints == 1 ? center
-                    : low * Math.pow(high / low, (double) i / (responsePoints - 1));
+            double w = responsePoints == 1 ? center : low * Math.pow(high / low, (double) i / (responsePoints - 1));
             double[] l = SecondOrderLoopResponse.loop(plant, gains, w);
             double phase = Math.toDegrees(Math.atan2(l[1], l[0]));
             if (!Double.isNaN(previousPhase)) {
@@ -138,13 +142,26 @@ public final class LoopFrequencyAnalyzer {
             }
             previousPhase = phase;
             double[] t = SecondOrderLoopResponse.closedLoop(plant, gains, w);
-            response.add(new FrequencyPoint(w, 20 * Math.log10(Math.hypot(l[0], l[1])), phase,
-                    20 * Math.log10(SecondOrderLoopResponse.sensitivity(plant, gains, w)), 20 * Math.log10(Math.hypot(t[0], t[1]))));
+            response.add(new FrequencyPoint(
+                    w,
+                    20 * Math.log10(Math.hypot(l[0], l[1])),
+                    phase,
+                    20 * Math.log10(SecondOrderLoopResponse.sensitivity(plant, gains, w)),
+                    20 * Math.log10(Math.hypot(t[0], t[1]))));
         }
         // L is strictly proper, so |S(j w)| -> 1 as w -> infinity: the supremum is at least 1
         boolean finitePeak = peak[1] > 1;
-        return new LoopMargins(crossover, phaseMargin, delayMargin, gainMargin, gainMarginFrequency, gainReduction,
-                finitePeak ? peak[1] : 1.0, finitePeak ? peak[0] : null, bandwidth, response);
+        return new LoopMargins(
+                crossover,
+                phaseMargin,
+                delayMargin,
+                gainMargin,
+                gainMarginFrequency,
+                gainReduction,
+                finitePeak ? peak[1] : 1.0,
+                finitePeak ? peak[0] : null,
+                bandwidth,
+                response);
     }
 
     static double[] grid(double low, double high, int points) {

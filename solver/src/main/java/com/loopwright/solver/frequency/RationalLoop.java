@@ -34,7 +34,8 @@ public record RationalLoop(double[] numerator, double[] denominator) {
      * K = [k1, k2], (sI - A)^-1 B = b [1; s] / (s^2 + a1 s + a0), so L(s) = b (k1 + k2 s) / (s^2 + a1 s + a0).
      */
     public static RationalLoop atPlantInput(CanonicalPlant plant, double positionGain, double velocityGain) {
-        return new RationalLoop(new double[] {plant.b() * positionGain, plant.b() * velocityGain},
+        return new RationalLoop(
+                new double[] {plant.b() * positionGain, plant.b() * velocityGain},
                 new double[] {plant.a0(), plant.a1(), 1});
     }
 

@@ -21,8 +21,7 @@ import java.util.List;
  */
 public final class SecondOrderLoopResponse {
 
-    private SecondOrderLoopResponse() {
-    }
+    private SecondOrderLoopResponse() {}
 
     static final int SENSITIVITY_GRID = 4000;
     static final int GOLDEN_ITERATIONS = 100;

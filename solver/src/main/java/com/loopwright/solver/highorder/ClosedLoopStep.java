@@ -21,6 +21,7 @@ public final class ClosedLoopStep {
     static final double HORIZON_TIME_CONSTANTS = 14;
     /** Samples per radian of the fastest oscillation (the metrics need at most pi/2). */
     static final double SAMPLES_PER_RADIAN = 1.5;
+
     static final int MIN_SAMPLES = 2000;
 
     private final StepResponseMetrics metrics = new StepResponseMetrics();
@@ -40,8 +41,12 @@ public final class ClosedLoopStep {
         return new LinearLoop(closed, bRef, plant.outputRow(), control, kr);
     }
 
-    public HighOrderStep simulate(CompanionPlant plant, DesiredPoles poles, double stepSize, double bandFraction,
-                           double minimumHorizonSeconds) {
+    public HighOrderStep simulate(
+            CompanionPlant plant,
+            DesiredPoles poles,
+            double stepSize,
+            double bandFraction,
+            double minimumHorizonSeconds) {
         List<com.loopwright.solver.spec.TargetDynamics.Pole> all = poles.all();
         double slowest = Double.POSITIVE_INFINITY;
         double fastestOscillation = 0;

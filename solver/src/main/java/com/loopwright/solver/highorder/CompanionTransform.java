@@ -24,8 +24,8 @@ public final class CompanionTransform {
      * @param toCompanion          T^-1, z = T^-1 x
      * @param reciprocalCondition  sigma_min/sigma_max of the controllability matrix Wx
      */
-    public record Result(CompanionPlant plant, DMatrixRMaj toPlant, DMatrixRMaj toCompanion,
-                         double reciprocalCondition) {
+    public record Result(
+            CompanionPlant plant, DMatrixRMaj toPlant, DMatrixRMaj toCompanion, double reciprocalCondition) {
         public Result {
             toPlant = toPlant.copy();
             toCompanion = toCompanion.copy();
@@ -54,8 +54,9 @@ public final class CompanionTransform {
         DMatrixRMaj wx = controllability(a, b2);
         double rcond = reciprocalCondition(wx);
         if (!(rcond >= MIN_RECIPROCAL_CONDITION)) {
-            throw new UncontrollableException(String.format("the state space is not controllable from u: the"
-                    + " controllability matrix [B2, A B2, ...] has reciprocal condition %.3g (needs at least %.0e)",
+            throw new UncontrollableException(String.format(
+                    "the state space is not controllable from u: the"
+                            + " controllability matrix [B2, A B2, ...] has reciprocal condition %.3g (needs at least %.0e)",
                     rcond, MIN_RECIPROCAL_CONDITION));
         }
         DMatrixRMaj wxInverse = wx.copy();

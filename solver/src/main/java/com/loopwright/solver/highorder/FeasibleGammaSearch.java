@@ -108,8 +108,7 @@ public final class FeasibleGammaSearch {
     }
 
     /** An interval with the branch it lies on. */
-    record Claim(GammaInterval interval, Branch branch) {
-    }
+    record Claim(GammaInterval interval, Branch branch) {}
 
     /**
      * The feasible set found.
@@ -123,8 +122,14 @@ public final class FeasibleGammaSearch {
      * @param lowestHolding per requirement (order as in {@link #margins}): the smallest gamma at which it holds
      *                      on a followed branch; infinity when it holds at no finite gamma there
      */
-    public record FeasibleGammaSet(List<GammaInterval> intervals, List<Claim> claims, double inputGain,
-                                   double muCap, int evaluations, List<String> notes, double[] lowestHolding) {
+    public record FeasibleGammaSet(
+            List<GammaInterval> intervals,
+            List<Claim> claims,
+            double inputGain,
+            double muCap,
+            int evaluations,
+            List<String> notes,
+            double[] lowestHolding) {
         public FeasibleGammaSet {
             intervals = List.copyOf(intervals);
             claims = List.copyOf(claims);
@@ -168,7 +173,8 @@ public final class FeasibleGammaSearch {
             notes.add("the closed-loop gain from w to u could not be computed (" + e.getMessage() + "); gamma was"
                     + " searched down to |B1|/b x 10^-6");
         }
-        double muCap = inputGain > 0 ? muCap(inputGain)
+        double muCap = inputGain > 0
+                ? muCap(inputGain)
                 : FALLBACK_CAP_FACTOR * Math.pow(plant.b() / HighOrderDesigner.norm(plant.disturbance()), 2);
         List<Claim> claims = new ArrayList<>();
         PoleMatchedSolution atInfinity;
@@ -177,8 +183,8 @@ public final class FeasibleGammaSearch {
             counter.value++;
         } catch (PoleMatchedRiccati.SystemFailure e) {
             notes.add("the pole-matched Riccati system at gamma = infinity is singular: " + e.getMessage());
-            return new FeasibleGammaSet(List.of(), List.of(), inputGain, muCap, counter.value, notes,
-                    infinities(plant.order() + 2));
+            return new FeasibleGammaSet(
+                    List.of(), List.of(), inputGain, muCap, counter.value, notes, infinities(plant.order() + 2));
         }
         Point origin = point(plant, 0, atInfinity);
         Branch principal = follow(plant, desired, origin, muCap, counter);
@@ -208,7 +214,8 @@ public final class FeasibleGammaSearch {
         for (Claim claim : set.claims()) {
             List<Point> points = claim.branch().points();
             starts.add(points.get(0).solution());
-            points.stream().min(Comparator.comparingDouble(p -> Math.abs(Math.log(p.mu() / mu))))
+            points.stream()
+                    .min(Comparator.comparingDouble(p -> Math.abs(Math.log(p.mu() / mu))))
                     .ifPresent(p -> starts.add(p.solution()));
         }
         for (PoleMatchedSolution start : starts) {
@@ -228,9 +235,11 @@ public final class FeasibleGammaSearch {
             double[] lowestHolding = set.lowestHolding();
             List<Claim> found = checkedClaims(plant, desired, branch, counter, notes, lowestHolding);
             if (found.stream().anyMatch(c -> c.interval().contains(gamma))) {
-                notes.add(String.format("gamma %.6g lies on a second solution branch of the pole-matched Riccati"
-                        + " system (other weights rho_i for the same gain), found by Newton from another start;"
-                        + " its intervals are part of the feasible set", gamma));
+                notes.add(String.format(
+                        "gamma %.6g lies on a second solution branch of the pole-matched Riccati"
+                                + " system (other weights rho_i for the same gain), found by Newton from another start;"
+                                + " its intervals are part of the feasible set",
+                        gamma));
                 List<Claim> claims = new ArrayList<>(set.claims());
                 claims.addAll(found);
                 return assemble(claims, set.inputGain(), set.muCap(), counter.value, notes, lowestHolding);
@@ -240,8 +249,7 @@ public final class FeasibleGammaSearch {
     }
 
     /** P and the weights at gamma, on the branch of an interval that contains it. */
-    public PoleMatchedSolution solutionAt(CompanionPlant plant, double[] desired, FeasibleGammaSet set,
-                                                  double gamma) {
+    public PoleMatchedSolution solutionAt(CompanionPlant plant, double[] desired, FeasibleGammaSet set, double gamma) {
         double mu = 1 / (gamma * gamma);
         for (Claim claim : set.claims()) {
             if (claim.interval().contains(gamma)) {
@@ -317,17 +325,15 @@ public final class FeasibleGammaSearch {
         }
         points.add(first);
         boolean reached = trace(plant, desired, first, origin, cap, points, counter);
-        return new Branch(points, null, reached ? GammaCondition.INPUT_GAIN
-                : GammaCondition.SOLUTION_BRANCH_END);
+        return new Branch(points, null, reached ? GammaCondition.INPUT_GAIN : GammaCondition.SOLUTION_BRANCH_END);
     }
 
     /** From a seed at mu &gt; 0 down to mu = 0 and up to mu_cap. */
-    private Branch followBothWays(CompanionPlant plant, double[] desired, Point seed, double cap,
-                                  Counter counter) {
+    private Branch followBothWays(CompanionPlant plant, double[] desired, Point seed, double cap, Counter counter) {
         List<Point> down = new ArrayList<>();
         double floor = cap * Math.pow(10, -SCAN_DECADES);
-        boolean reachedFloor = seed.mu() <= floor
-                || trace(plant, desired, seed, null, Math.min(floor, seed.mu()), down, counter);
+        boolean reachedFloor =
+                seed.mu() <= floor || trace(plant, desired, seed, null, Math.min(floor, seed.mu()), down, counter);
         boolean reachedZero = false;
         if (reachedFloor) {
             Point last = down.isEmpty() ? seed : down.get(down.size() - 1);
@@ -345,7 +351,9 @@ public final class FeasibleGammaSearch {
         }
         points.add(seed);
         points.addAll(up);
-        return new Branch(points, reachedZero ? null : GammaCondition.SOLUTION_BRANCH_END,
+        return new Branch(
+                points,
+                reachedZero ? null : GammaCondition.SOLUTION_BRANCH_END,
                 reachedCap ? GammaCondition.INPUT_GAIN : GammaCondition.SOLUTION_BRANCH_END);
     }
 
@@ -355,8 +363,14 @@ public final class FeasibleGammaSearch {
      *
      * @return true when target was reached, false at a turning point or the attempt cap
      */
-    private boolean trace(CompanionPlant plant, double[] desired, Point start, Point previous, double target,
-                          List<Point> out, Counter counter) {
+    private boolean trace(
+            CompanionPlant plant,
+            double[] desired,
+            Point start,
+            Point previous,
+            double target,
+            List<Point> out,
+            Counter counter) {
         double logTarget = Math.log(target);
         double h = MAX_LOG_STEP / 4;
         Point last = start;
@@ -386,9 +400,9 @@ public final class FeasibleGammaSearch {
     }
 
     /** One predictor-corrector step to mu, or null when Newton fails or leaves the neighbourhood. */
-    private Point step(CompanionPlant plant, double[] desired, Point last, Point before, double mu,
-                       Counter counter) {
-        PoleMatchedSolution prediction = before == null ? last.solution()
+    private Point step(CompanionPlant plant, double[] desired, Point last, Point before, double mu, Counter counter) {
+        PoleMatchedSolution prediction = before == null
+                ? last.solution()
                 : blend(before.solution(), last.solution(), (mu - before.mu()) / (last.mu() - before.mu()));
         if (counter.value >= MAX_SOLVES) {
             return null;
@@ -408,8 +422,7 @@ public final class FeasibleGammaSearch {
     }
 
     /** x0 + s (x1 - x0) for P and the weights. */
-    private static PoleMatchedSolution blend(PoleMatchedSolution x0, PoleMatchedSolution x1,
-                                                     double s) {
+    private static PoleMatchedSolution blend(PoleMatchedSolution x0, PoleMatchedSolution x1, double s) {
         DMatrixRMaj p = x0.p();
         DMatrixRMaj p1 = x1.p();
         for (int i = 0; i < p.getNumElements(); i++) {
@@ -449,21 +462,24 @@ public final class FeasibleGammaSearch {
                 return blend(a.solution(), b.solution(), (mu - a.mu()) / (b.mu() - a.mu()));
             }
         }
-        return points.stream().min(Comparator.comparingDouble(p -> Math.abs(p.mu() - mu))).orElseThrow()
+        return points.stream()
+                .min(Comparator.comparingDouble(p -> Math.abs(p.mu() - mu)))
+                .orElseThrow()
                 .solution();
     }
 
-    private boolean onKnownBranch(CompanionPlant plant, double[] desired, FeasibleGammaSet set, Point seed,
-                                  Counter counter) {
+    private boolean onKnownBranch(
+            CompanionPlant plant, double[] desired, FeasibleGammaSet set, Point seed, Counter counter) {
         for (Claim claim : set.claims()) {
             List<Point> points = claim.branch().points();
-            if (seed.mu() < points.get(0).mu() || seed.mu() > points.get(points.size() - 1).mu()) {
+            if (seed.mu() < points.get(0).mu()
+                    || seed.mu() > points.get(points.size() - 1).mu()) {
                 continue;
             }
             try {
                 counter.value++;
-                PoleMatchedSolution known = riccati.solveFrom(plant, desired, seed.mu(),
-                        interpolated(claim.branch(), seed.mu()));
+                PoleMatchedSolution known =
+                        riccati.solveFrom(plant, desired, seed.mu(), interpolated(claim.branch(), seed.mu()));
                 if (distance(seed.solution(), known) <= SAME_BRANCH_DISTANCE) {
                     return true;
                 }
@@ -475,12 +491,16 @@ public final class FeasibleGammaSearch {
     }
 
     /** One sign change of one requirement, refined; holdsAbove: the requirement holds at larger mu. */
-    private record Event(double mu, int condition, boolean holdsAbove) {
-    }
+    private record Event(double mu, int condition, boolean holdsAbove) {}
 
     /** The intervals of one branch where every requirement holds, each checked independently. */
-    private List<Claim> checkedClaims(CompanionPlant plant, double[] desired, Branch branch, Counter counter,
-                                      List<String> notes, double[] lowestHolding) {
+    private List<Claim> checkedClaims(
+            CompanionPlant plant,
+            double[] desired,
+            Branch branch,
+            Counter counter,
+            List<String> notes,
+            double[] lowestHolding) {
         List<Point> points = branch.points();
         int n = plant.order();
         int conditions = n + 2;
@@ -515,7 +535,8 @@ public final class FeasibleGammaSearch {
         List<GammaInterval.GammaEnd[]> ends = new ArrayList<>();
         boolean open = all(status);
         double openMu = points.get(0).mu();
-        GammaInterval.GammaEnd openEnd = branch.lowEnd() == null ? null : new GammaInterval.GammaEnd(branch.lowEnd(), 0);
+        GammaInterval.GammaEnd openEnd =
+                branch.lowEnd() == null ? null : new GammaInterval.GammaEnd(branch.lowEnd(), 0);
         for (Event e : events) {
             status[e.condition()] = e.holdsAbove();
             boolean now = all(status);
@@ -554,9 +575,10 @@ public final class FeasibleGammaSearch {
             if (failure == null) {
                 claims.add(new Claim(interval, branch));
             } else {
-                notes.add(String.format("the gamma interval (%.6g, %s) found along a solution branch failed the"
-                        + " independent Riccati check (%s) and is left out", lower,
-                        interval.unbounded() ? "infinity" : String.format("%.6g", upper), failure));
+                notes.add(String.format(
+                        "the gamma interval (%.6g, %s) found along a solution branch failed the"
+                                + " independent Riccati check (%s) and is left out",
+                        lower, interval.unbounded() ? "infinity" : String.format("%.6g", upper), failure));
             }
         }
         return claims;
@@ -575,8 +597,8 @@ public final class FeasibleGammaSearch {
         if (condition < order) {
             return new GammaInterval.GammaEnd(GammaCondition.WEIGHT_REAL, condition + 1);
         }
-        return new GammaInterval.GammaEnd(condition == order ? GammaCondition.P_POSITIVE_DEFINITE
-                : GammaCondition.STABILIZING, 0);
+        return new GammaInterval.GammaEnd(
+                condition == order ? GammaCondition.P_POSITIVE_DEFINITE : GammaCondition.STABILIZING, 0);
     }
 
     /**
@@ -584,25 +606,34 @@ public final class FeasibleGammaSearch {
      * solution at each trial mu by Newton from the blend of a and b). If the solver fails, the neighbouring point
      * where the requirement holds is returned (the interval only shrinks).
      */
-    private double refine(CompanionPlant plant, double[] desired, Point a, Point b, int c, boolean holdsAtA,
-                          Counter counter) {
+    private double refine(
+            CompanionPlant plant, double[] desired, Point a, Point b, int c, boolean holdsAtA, Counter counter) {
         double fallback = holdsAtA ? a.mu() : b.mu();
         if (counter.value >= MAX_SOLVES) {
             return fallback;
         }
-        BracketingNthOrderBrentSolver brent = new BracketingNthOrderBrentSolver(REFINEMENT_RELATIVE_ACCURACY, Double.MIN_NORMAL, 0, 5);
+        BracketingNthOrderBrentSolver brent =
+                new BracketingNthOrderBrentSolver(REFINEMENT_RELATIVE_ACCURACY, Double.MIN_NORMAL, 0, 5);
         try {
-            return brent.solve(MAX_REFINEMENT_EVALUATIONS, mu -> {
-                counter.value++;
-                PoleMatchedSolution s = riccati.solveFrom(plant, desired, mu,
-                        blend(a.solution(), b.solution(), (mu - a.mu()) / (b.mu() - a.mu())));
-                double m = margins(plant, mu, s)[c];
-                if (Double.isNaN(m)) {
-                    throw new PoleMatchedRiccati.SystemFailure("margin not computable");
-                }
-                // strict requirements: a zero margin fails, so shift it to the failing sign
-                return c < plant.order() || m != 0 ? m : -Double.MIN_VALUE;
-            }, a.mu(), b.mu(), holdsAtA ? AllowedSolution.LEFT_SIDE : AllowedSolution.RIGHT_SIDE);
+            return brent.solve(
+                    MAX_REFINEMENT_EVALUATIONS,
+                    mu -> {
+                        counter.value++;
+                        PoleMatchedSolution s = riccati.solveFrom(
+                                plant,
+                                desired,
+                                mu,
+                                blend(a.solution(), b.solution(), (mu - a.mu()) / (b.mu() - a.mu())));
+                        double m = margins(plant, mu, s)[c];
+                        if (Double.isNaN(m)) {
+                            throw new PoleMatchedRiccati.SystemFailure("margin not computable");
+                        }
+                        // strict requirements: a zero margin fails, so shift it to the failing sign
+                        return c < plant.order() || m != 0 ? m : -Double.MIN_VALUE;
+                    },
+                    a.mu(),
+                    b.mu(),
+                    holdsAtA ? AllowedSolution.LEFT_SIDE : AllowedSolution.RIGHT_SIDE);
         } catch (MathRuntimeException | PoleMatchedRiccati.SystemFailure | IllegalArgumentException e) {
             return fallback;
         }
@@ -615,8 +646,8 @@ public final class FeasibleGammaSearch {
      *
      * @return null when every check passes, else what failed
      */
-    private String check(CompanionPlant plant, double[] desired, Branch branch, GammaInterval interval,
-                         Counter counter) {
+    private String check(
+            CompanionPlant plant, double[] desired, Branch branch, GammaInterval interval, Counter counter) {
         double[] gammas;
         if (interval.unbounded()) {
             gammas = new double[UNBOUNDED_CHECK_FACTORS.length];
@@ -625,9 +656,11 @@ public final class FeasibleGammaSearch {
             }
         } else {
             double logWidth = Math.log(interval.upperGamma() / interval.lowerGamma());
-            gammas = new double[] {interval.lowerGamma() * Math.exp(INSIDE_FRACTION * logWidth),
-                    interval.lowerGamma() * Math.exp(0.5 * logWidth),
-                    interval.lowerGamma() * Math.exp((1 - INSIDE_FRACTION) * logWidth)};
+            gammas = new double[] {
+                interval.lowerGamma() * Math.exp(INSIDE_FRACTION * logWidth),
+                interval.lowerGamma() * Math.exp(0.5 * logWidth),
+                interval.lowerGamma() * Math.exp((1 - INSIDE_FRACTION) * logWidth)
+            };
         }
         for (double gamma : gammas) {
             double mu = 1 / (gamma * gamma);
@@ -657,7 +690,9 @@ public final class FeasibleGammaSearch {
         }
         RiccatiSolution numeric;
         try {
-            numeric = hamiltonian.solve(plant.stateMatrix(), PoleMatchedRiccati.quadraticTerm(plant, mu),
+            numeric = hamiltonian.solve(
+                    plant.stateMatrix(),
+                    PoleMatchedRiccati.quadraticTerm(plant, mu),
                     PoleMatchedRiccati.weightMatrix(solution.weightsSquared()));
         } catch (RuntimeException e) {
             return "no stabilizing solution: " + e.getMessage();
@@ -674,8 +709,8 @@ public final class FeasibleGammaSearch {
             k = Math.hypot(k, p.get(n - 1, j));
         }
         if (!(relative <= DesignVerifier.AGREEMENT_TOLERANCE) || !(dk <= DesignVerifier.AGREEMENT_TOLERANCE * k)) {
-            return String.format("the stabilizing solution differs from P by %.3g (relative), K by %.3g", relative,
-                    dk / k);
+            return String.format(
+                    "the stabilizing solution differs from P by %.3g (relative), K by %.3g", relative, dk / k);
         }
         return null;
     }
@@ -687,18 +722,27 @@ public final class FeasibleGammaSearch {
         return values;
     }
 
-    private static FeasibleGammaSet assemble(List<Claim> claims, double inputGain, double muCap, int evaluations,
-                                             List<String> notes, double[] lowestHolding) {
-        List<GammaInterval> sorted = claims.stream().map(Claim::interval)
-                .sorted(Comparator.comparingDouble(GammaInterval::lowerGamma)).toList();
+    private static FeasibleGammaSet assemble(
+            List<Claim> claims,
+            double inputGain,
+            double muCap,
+            int evaluations,
+            List<String> notes,
+            double[] lowestHolding) {
+        List<GammaInterval> sorted = claims.stream()
+                .map(Claim::interval)
+                .sorted(Comparator.comparingDouble(GammaInterval::lowerGamma))
+                .toList();
         List<GammaInterval> union = new ArrayList<>();
         for (GammaInterval next : sorted) {
-            if (!union.isEmpty() && next.lowerGamma() < union.get(union.size() - 1).upperGamma()) {
+            if (!union.isEmpty()
+                    && next.lowerGamma() < union.get(union.size() - 1).upperGamma()) {
                 GammaInterval last = union.remove(union.size() - 1);
-                union.add(next.upperGamma() > last.upperGamma()
-                        ? new GammaInterval(last.lowerGamma(), next.upperGamma(), last.lowerBinding(),
-                        next.upperBinding())
-                        : last);
+                union.add(
+                        next.upperGamma() > last.upperGamma()
+                                ? new GammaInterval(
+                                        last.lowerGamma(), next.upperGamma(), last.lowerBinding(), next.upperBinding())
+                                : last);
             } else {
                 union.add(next);
             }

@@ -49,11 +49,15 @@ public final class HighOrderDesigner {
                 throw noGamma(plant, desired, poles, set);
             }
             if (!set.contains(gamma)) {
-                throw new InfeasibleDesignException(new Infeasibility(SpecQuantity.GAMMA, String.format(
-                        "gamma %.6g is outside the feasible gamma set %s: some Riccati requirement fails at this"
-                                + " gamma", gamma, describe(set.intervals())),
-                        List.of(new SpecProposal(SpecQuantity.GAMMA, defaultGamma(set, 
-                                GammaChoice.MarginOverMinimum.DEFAULT_FACTOR, new ArrayList<>()),
+                throw new InfeasibleDesignException(new Infeasibility(
+                        SpecQuantity.GAMMA,
+                        String.format(
+                                "gamma %.6g is outside the feasible gamma set %s: some Riccati requirement fails at this"
+                                        + " gamma",
+                                gamma, describe(set.intervals())),
+                        List.of(new SpecProposal(
+                                SpecQuantity.GAMMA,
+                                defaultGamma(set, GammaChoice.MarginOverMinimum.DEFAULT_FACTOR, new ArrayList<>()),
                                 "the default choice: 1.2 x gamma_min, or the middle of the lowest interval when"
                                         + " that falls in a gap"))));
             }
@@ -81,11 +85,15 @@ public final class HighOrderDesigner {
         for (int c = 0; c < conditions; c++) {
             GammaCondition condition = condition(c, plant);
             int index = index(c, plant);
-            list.add(new GammaBound(condition, index, Math.min(lowest[c], gammaMin),
-                    binding.condition() == condition && binding.stateIndex() == index, OptionalDouble.empty()));
+            list.add(new GammaBound(
+                    condition,
+                    index,
+                    Math.min(lowest[c], gammaMin),
+                    binding.condition() == condition && binding.stateIndex() == index,
+                    OptionalDouble.empty()));
         }
-        return new HighOrderDesign(plant, poles, solution, list, set.intervals(), gammaMin, gamma,
-                set.evaluations(), notes);
+        return new HighOrderDesign(
+                plant, poles, solution, list, set.intervals(), gammaMin, gamma, set.evaluations(), notes);
     }
 
     /**
@@ -99,9 +107,10 @@ public final class HighOrderDesigner {
         }
         GammaInterval lowest = set.intervals().get(0);
         double middle = Math.sqrt(lowest.lowerGamma() * lowest.upperGamma());
-        notes.add(String.format("%.6g x gamma_min = %.6g falls in a gap of the feasible gamma set %s; gamma is"
-                        + " the geometric middle of the lowest interval instead", margin, gamma,
-                describe(set.intervals())));
+        notes.add(String.format(
+                "%.6g x gamma_min = %.6g falls in a gap of the feasible gamma set %s; gamma is"
+                        + " the geometric middle of the lowest interval instead",
+                margin, gamma, describe(set.intervals())));
         return middle;
     }
 
@@ -116,32 +125,39 @@ public final class HighOrderDesigner {
             if (i > 0) {
                 text.append(i + 1 == intervals.size() ? " and " : ", ");
             }
-            text.append(String.format("(%.6g, %s)", interval.lowerGamma(),
+            text.append(String.format(
+                    "(%.6g, %s)",
+                    interval.lowerGamma(),
                     interval.unbounded() ? "infinity" : String.format("%.6g", interval.upperGamma())));
         }
         return text.toString();
     }
 
-    private InfeasibleDesignException noGamma(CompanionPlant plant, double[] desired, DesiredPoles poles,
-                                              FeasibleGammaSearch.FeasibleGammaSet set) {
+    private InfeasibleDesignException noGamma(
+            CompanionPlant plant, double[] desired, DesiredPoles poles, FeasibleGammaSearch.FeasibleGammaSet set) {
         boolean[] atInfinity = holds(plant, desired, 0);
         String failing = "";
         for (int c = 0; c < atInfinity.length; c++) {
             if (!atInfinity[c]) {
-                failing = "; at gamma = infinity the requirement '" + condition(c, plant).meaning(index(c, plant))
-                        + "' fails";
+                failing = "; at gamma = infinity the requirement '"
+                        + condition(c, plant).meaning(index(c, plant)) + "' fails";
                 break;
             }
         }
         boolean lowDamping = poles.dominant().dampingRatio() < 1 / Math.sqrt(2);
-        String searched = set.inputGain() > 0 ? String.format(" (searched from gamma = infinity down to the"
-                + " closed-loop gain from w to u, %.6g)", set.inputGain()) : "";
+        String searched = set.inputGain() > 0
+                ? String.format(
+                        " (searched from gamma = infinity down to the" + " closed-loop gain from w to u, %.6g)",
+                        set.inputGain())
+                : "";
         String reason = "no gamma meets every Riccati requirement for these closed-loop poles" + searched + failing
                 + "; the "
-                + (lowDamping ? "dominant damping ratio " + String.format("%.4g", poles.dominant().dampingRatio())
-                + " is below 1/sqrt(2): lower the overshoot"
-                : "requested poles are not reachable by this weighting: ask for faster settling or move"
-                + " the auxiliary poles");
+                + (lowDamping
+                        ? "dominant damping ratio "
+                                + String.format("%.4g", poles.dominant().dampingRatio())
+                                + " is below 1/sqrt(2): lower the overshoot"
+                        : "requested poles are not reachable by this weighting: ask for faster settling or move"
+                                + " the auxiliary poles");
         if (!set.notes().isEmpty()) {
             reason += " (" + String.join("; ", set.notes()) + ")";
         }
@@ -176,7 +192,8 @@ public final class HighOrderDesigner {
     }
 
     private static GammaCondition condition(int c, CompanionPlant plant) {
-        return c < plant.order() ? GammaCondition.WEIGHT_REAL
+        return c < plant.order()
+                ? GammaCondition.WEIGHT_REAL
                 : c == plant.order() ? GammaCondition.P_POSITIVE_DEFINITE : GammaCondition.STABILIZING;
     }
 

@@ -21,8 +21,8 @@ public final class HighOrderVerifier {
     private final HInfinityNormCalculator normCalculator = new HInfinityNormCalculator();
     private final ClosedLoopStep step = new ClosedLoopStep();
 
-    public HighOrderVerification verify(HighOrderDesign design, double stepSize, double bandFraction,
-                                        double minimumHorizonSeconds) {
+    public HighOrderVerification verify(
+            HighOrderDesign design, double stepSize, double bandFraction, double minimumHorizonSeconds) {
         CompanionPlant plant = design.plant();
         int n = plant.order();
         try {
@@ -44,8 +44,7 @@ public final class HighOrderVerifier {
                 performance.set(n, j, -k[j]);
             }
             HInfinityNorm norm = normCalculator.compute(closed, plant.disturbanceInput(), performance);
-            HighOrderStep result = step.simulate(plant, design.poles(), stepSize, bandFraction,
-                    minimumHorizonSeconds);
+            HighOrderStep result = step.simulate(plant, design.poles(), stepSize, bandFraction, minimumHorizonSeconds);
             boolean certified = norm.value() <= design.gamma() * (1 + DesignVerifier.NORM_TOLERANCE)
                     && relativeDifference <= DesignVerifier.AGREEMENT_TOLERANCE;
             return new HighOrderVerification(numeric, relativeDifference, norm, result, certified);

@@ -82,9 +82,16 @@ public final class PoleMatchedRiccati {
     }
 
     /** As {@link #solve(CompanionPlant, double[], double)}; the singular-value condition check is optional. */
-    PoleMatchedSolution solve(CompanionPlant plant, double[] desired, double inverseGammaSquared, boolean checkCondition) {
+    PoleMatchedSolution solve(
+            CompanionPlant plant, double[] desired, double inverseGammaSquared, boolean checkCondition) {
         int n = plant.order();
-        return newton(plant, desired, inverseGammaSquared, new DMatrixRMaj(n, n), new double[n], checkCondition,
+        return newton(
+                plant,
+                desired,
+                inverseGammaSquared,
+                new DMatrixRMaj(n, n),
+                new double[n],
+                checkCondition,
                 checkCondition);
     }
 
@@ -94,18 +101,25 @@ public final class PoleMatchedRiccati {
      *
      * @throws SystemFailure when the Jacobian is singular or Newton does not reach the residual
      */
-    public PoleMatchedSolution solveFrom(CompanionPlant plant, double[] desired, double inverseGammaSquared, PoleMatchedSolution start) {
+    public PoleMatchedSolution solveFrom(
+            CompanionPlant plant, double[] desired, double inverseGammaSquared, PoleMatchedSolution start) {
         return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), false, false);
     }
 
     /** As {@link #solveFrom} and reports the reciprocal condition of the first Jacobian (one SVD more). */
-    public PoleMatchedSolution solveFromWithCondition(CompanionPlant plant, double[] desired, double inverseGammaSquared,
-                                           PoleMatchedSolution start) {
+    public PoleMatchedSolution solveFromWithCondition(
+            CompanionPlant plant, double[] desired, double inverseGammaSquared, PoleMatchedSolution start) {
         return newton(plant, desired, inverseGammaSquared, start.p(), start.weightsSquared(), true, false);
     }
 
-    private PoleMatchedSolution newton(CompanionPlant plant, double[] desired, double inverseGammaSquared, DMatrixRMaj start,
-                            double[] startWeights, boolean computeCondition, boolean checkCondition) {
+    private PoleMatchedSolution newton(
+            CompanionPlant plant,
+            double[] desired,
+            double inverseGammaSquared,
+            DMatrixRMaj start,
+            double[] startWeights,
+            boolean computeCondition,
+            boolean checkCondition) {
         int n = plant.order();
         int free = n * (n - 1) / 2;
         int unknowns = free + n;
@@ -198,8 +212,8 @@ public final class PoleMatchedRiccati {
             }
         }
         if (!(residual <= MAX_ACCEPTED_RESIDUAL)) {
-            throw new SystemFailure("Newton on the pole-matched Riccati system stalled at relative residual "
-                    + residual);
+            throw new SystemFailure(
+                    "Newton on the pole-matched Riccati system stalled at relative residual " + residual);
         }
         return new PoleMatchedSolution(p, weights, residual, reciprocalCondition, steps);
     }

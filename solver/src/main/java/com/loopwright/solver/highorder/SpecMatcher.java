@@ -40,6 +40,7 @@ public final class SpecMatcher {
     public static final double OVERSHOOT_TOLERANCE_POINTS = 0.01;
     /** Relative finite-difference step on zeta and ln wn. */
     static final double DIFFERENCE_STEP = 1e-5;
+
     static final double MIN_DAMPING = 0.2;
     static final double MAX_DAMPING = 2.5;
     /** Largest change of zeta and of ln wn in one step. */
@@ -53,8 +54,12 @@ public final class SpecMatcher {
      * @throws InfeasibleDesignException when a right-half-plane zero forces more undershoot, or the iteration
      *                                   does not converge within its cap (the reason gives the residuals)
      */
-    public SpecMatch match(CompanionPlant plant, DesignSpec spec, AuxiliaryPlacement placement, double stepSize,
-                           double maxUndershootPercent) {
+    public SpecMatch match(
+            CompanionPlant plant,
+            DesignSpec spec,
+            AuxiliaryPlacement placement,
+            double stepSize,
+            double maxUndershootPercent) {
         if (!(spec.timeSpec() instanceof TimeSpec.SettlingTime settling)) {
             throw new IllegalArgumentException("spec matching needs a settling-time spec");
         }
@@ -64,13 +69,19 @@ public final class SpecMatcher {
             double forced = 100 * (1 - band) / Math.expm1(zero * ts);
             if (forced > maxUndershootPercent) {
                 double fastest = Math.log1p(100 * (1 - band) / maxUndershootPercent) / zero;
-                throw new InfeasibleDesignException(new Infeasibility(SpecQuantity.TIME_SPEC, String.format(
-                        "the plant's right-half-plane zero at +%.6g 1/s makes the output start the wrong way: settling"
-                                + " into the band by %.6g s forces at least %.4g%% undershoot, above the accepted"
-                                + " %.4g%% (maxUndershootPercent)", zero, ts, forced, maxUndershootPercent),
-                        List.of(new SpecProposal(SpecQuantity.TIME_SPEC, fastest, String.format(
-                                "the shortest settling time whose forced undershoot is at most %.4g%%",
-                                maxUndershootPercent)))));
+                throw new InfeasibleDesignException(new Infeasibility(
+                        SpecQuantity.TIME_SPEC,
+                        String.format(
+                                "the plant's right-half-plane zero at +%.6g 1/s makes the output start the wrong way: settling"
+                                        + " into the band by %.6g s forces at least %.4g%% undershoot, above the accepted"
+                                        + " %.4g%% (maxUndershootPercent)",
+                                zero, ts, forced, maxUndershootPercent),
+                        List.of(new SpecProposal(
+                                SpecQuantity.TIME_SPEC,
+                                fastest,
+                                String.format(
+                                        "the shortest settling time whose forced undershoot is at most %.4g%%",
+                                        maxUndershootPercent)))));
             }
         }
         TargetDynamics start = new SpecInverter().invert(spec).target();
@@ -103,8 +114,9 @@ public final class SpecMatcher {
                 throw notConverged(iteration, f, "settling time and overshoot stopped responding to the dominant pair");
             }
             double[] delta = {
-                    -(jacobian[1][1] * f[0] - jacobian[0][1] * f[1]) / det,
-                    -(-jacobian[1][0] * f[0] + jacobian[0][0] * f[1]) / det};
+                -(jacobian[1][1] * f[0] - jacobian[0][1] * f[1]) / det,
+                -(-jacobian[1][0] * f[0] + jacobian[0][0] * f[1]) / det
+            };
             double length = Math.max(Math.abs(delta[0]), Math.abs(delta[1]));
             if (length > MAX_STEP) {
                 delta[0] *= MAX_STEP / length;
@@ -131,16 +143,24 @@ public final class SpecMatcher {
             f = nextF;
         }
         TargetDynamics target = new TargetDynamics(v[0], Math.exp(v[1]));
-        HighOrderStep result = step.simulate(plant, placement.place(target, plant.order()), stepSize, band,
-                ts);
+        HighOrderStep result = step.simulate(plant, placement.place(target, plant.order()), stepSize, band, ts);
         if (result.undershootPercent() > maxUndershootPercent) {
-            throw new InfeasibleDesignException(new Infeasibility(SpecQuantity.TIME_SPEC, String.format(
-                    "the matched loop undershoots by %.4g%%, above the accepted %.4g%% (maxUndershootPercent):"
-                            + " the plant's zeros pull the output the wrong way at this speed; allow a longer"
-                            + " settling time", result.undershootPercent(), maxUndershootPercent), List.of()));
+            throw new InfeasibleDesignException(new Infeasibility(
+                    SpecQuantity.TIME_SPEC,
+                    String.format(
+                            "the matched loop undershoots by %.4g%%, above the accepted %.4g%% (maxUndershootPercent):"
+                                    + " the plant's zeros pull the output the wrong way at this speed; allow a longer"
+                                    + " settling time",
+                            result.undershootPercent(), maxUndershootPercent),
+                    List.of()));
         }
-        return new SpecMatch(target, start, iteration, result.metrics().settlingTimeSeconds() / ts - 1,
-                result.metrics().overshootPercent() - targetOvershoot, result);
+        return new SpecMatch(
+                target,
+                start,
+                iteration,
+                result.metrics().settlingTimeSeconds() / ts - 1,
+                result.metrics().overshootPercent() - targetOvershoot,
+                result);
     }
 
     /** Real zeros of c_0 + c_1 s + ... with positive real part (complex ones are not bounded here). */
@@ -167,16 +187,24 @@ public final class SpecMatcher {
         return java.util.stream.IntStream.range(0, eig.getNumberOfEigenvalues())
                 .mapToObj(eig::getEigenvalue)
                 .filter(z -> z.real > 0 && Math.abs(z.imaginary) <= 1e-9 * Math.max(1, Math.abs(z.real)))
-                .mapToDouble(Complex_F64::getReal).toArray();
+                .mapToDouble(Complex_F64::getReal)
+                .toArray();
     }
 
-    private double[] residual(CompanionPlant plant, AuxiliaryPlacement placement, double[] v, double stepSize,
-                              double band, double ts, double targetOvershoot) {
+    private double[] residual(
+            CompanionPlant plant,
+            AuxiliaryPlacement placement,
+            double[] v,
+            double stepSize,
+            double band,
+            double ts,
+            double targetOvershoot) {
         try {
             TargetDynamics target = new TargetDynamics(v[0], Math.exp(v[1]));
             HighOrderStep r = step.simulate(plant, placement.place(target, plant.order()), stepSize, band, ts);
-            return new double[] {r.metrics().settlingTimeSeconds() / ts - 1,
-                    r.metrics().overshootPercent() - targetOvershoot};
+            return new double[] {
+                r.metrics().settlingTimeSeconds() / ts - 1, r.metrics().overshootPercent() - targetOvershoot
+            };
         } catch (IllegalArgumentException e) {
             return null;
         }
@@ -195,13 +223,20 @@ public final class SpecMatcher {
     }
 
     private static InfeasibleDesignException notConverged(int iterations, double[] f, String why) {
-        SpecQuantity blamed = f == null || Math.abs(f[0]) / SETTLING_TOLERANCE
-                >= Math.abs(f[1]) / OVERSHOOT_TOLERANCE_POINTS ? SpecQuantity.TIME_SPEC
-                : SpecQuantity.OVERSHOOT_PERCENT;
-        String residuals = f == null ? "" : String.format(" (settling time off by %.3g%%, overshoot off by %.3g"
-                + " percentage points)", 100 * f[0], f[1]);
-        return new InfeasibleDesignException(new Infeasibility(blamed, "spec matching did not converge after "
-                + iterations + " iterations" + residuals + ": " + why
-                + "; the zeros and auxiliary poles keep the actual loop from meeting these specs", List.of()));
+        SpecQuantity blamed =
+                f == null || Math.abs(f[0]) / SETTLING_TOLERANCE >= Math.abs(f[1]) / OVERSHOOT_TOLERANCE_POINTS
+                        ? SpecQuantity.TIME_SPEC
+                        : SpecQuantity.OVERSHOOT_PERCENT;
+        String residuals = f == null
+                ? ""
+                : String.format(
+                        " (settling time off by %.3g%%, overshoot off by %.3g" + " percentage points)",
+                        100 * f[0], f[1]);
+        return new InfeasibleDesignException(new Infeasibility(
+                blamed,
+                "spec matching did not converge after "
+                        + iterations + " iterations" + residuals + ": " + why
+                        + "; the zeros and auxiliary poles keep the actual loop from meeting these specs",
+                List.of()));
     }
 }

@@ -40,17 +40,26 @@ public final class MatrixExponential {
     private static final double[] PADE_5 = {30240, 15120, 3360, 420, 30, 1};
     private static final double[] PADE_7 = {17297280, 8648640, 1995840, 277200, 25200, 1512, 56, 1};
     private static final double[] PADE_9 = {
-        17643225600.0, 8821612800.0, 2075673600.0, 302702400.0, 30270240.0, 2162160.0, 110880.0,
-        3960.0, 90.0, 1.0
+        17643225600.0, 8821612800.0, 2075673600.0, 302702400.0, 30270240.0, 2162160.0, 110880.0, 3960.0, 90.0, 1.0
     };
     private static final double[] PADE_13 = {
-        64764752532480000.0, 32382376266240000.0, 7771770303897600.0, 1187353796428800.0,
-        129060195264000.0, 10559470521600.0, 670442572800.0, 33522128640.0, 1323241920.0,
-        40840800.0, 960960.0, 16380.0, 182.0, 1.0
+        64764752532480000.0,
+        32382376266240000.0,
+        7771770303897600.0,
+        1187353796428800.0,
+        129060195264000.0,
+        10559470521600.0,
+        670442572800.0,
+        33522128640.0,
+        1323241920.0,
+        40840800.0,
+        960960.0,
+        16380.0,
+        182.0,
+        1.0
     };
 
-    private MatrixExponential() {
-    }
+    private MatrixExponential() {}
 
     /**
      * Returns e^A as a new matrix; the argument is not modified.
@@ -85,8 +94,7 @@ public final class MatrixExponential {
         }
         for (double entry : result.data) {
             if (!Double.isFinite(entry)) {
-                throw new IllegalArgumentException(
-                    "e^A overflows double precision (||A||_1 = " + norm1 + ")");
+                throw new IllegalArgumentException("e^A overflows double precision (||A||_1 = " + norm1 + ")");
             }
         }
         return result;
@@ -97,18 +105,16 @@ public final class MatrixExponential {
             throw new IllegalArgumentException("matrix must not be null");
         }
         if (a.numRows != a.numCols) {
-            throw new IllegalArgumentException(
-                "matrix must be square, got " + a.numRows + " x " + a.numCols);
+            throw new IllegalArgumentException("matrix must be square, got " + a.numRows + " x " + a.numCols);
         }
         if (a.numRows < 1 || a.numRows > MAX_DIMENSION) {
             throw new IllegalArgumentException(
-                "matrix dimension must be in [1, " + MAX_DIMENSION + "], got " + a.numRows);
+                    "matrix dimension must be in [1, " + MAX_DIMENSION + "], got " + a.numRows);
         }
         for (int i = 0; i < a.getNumElements(); i++) {
             if (!Double.isFinite(a.data[i])) {
                 throw new IllegalArgumentException(
-                    "matrix entry (" + i / a.numCols + ", " + i % a.numCols + ") is not finite: "
-                        + a.data[i]);
+                        "matrix entry (" + i / a.numCols + ", " + i % a.numCols + ") is not finite: " + a.data[i]);
             }
         }
     }
@@ -138,8 +144,7 @@ public final class MatrixExponential {
         }
         if (s > MAX_SQUARINGS) {
             throw new IllegalArgumentException(
-                "||A||_1 = " + norm1 + " is too large: needs more than " + MAX_SQUARINGS
-                    + " squarings");
+                    "||A||_1 = " + norm1 + " is too large: needs more than " + MAX_SQUARINGS + " squarings");
         }
         return s;
     }
@@ -223,9 +228,16 @@ public final class MatrixExponential {
     }
 
     /** target = c6 A6 + c4 A4 + c2 A2 + c0 I. */
-    private static void combine(DMatrixRMaj target, double c6, DMatrixRMaj a6, double c4,
-                                DMatrixRMaj a4, double c2, DMatrixRMaj a2, double c0,
-                                DMatrixRMaj identity) {
+    private static void combine(
+            DMatrixRMaj target,
+            double c6,
+            DMatrixRMaj a6,
+            double c4,
+            DMatrixRMaj a4,
+            double c2,
+            DMatrixRMaj a2,
+            double c0,
+            DMatrixRMaj identity) {
         CommonOps_DDRM.scale(c6, a6, target);
         CommonOps_DDRM.addEquals(target, c4, a4);
         CommonOps_DDRM.addEquals(target, c2, a2);

@@ -22,8 +22,7 @@ public final class LoopMatrices {
     /** Cap on the window extension, in base windows (a counted peak needs at most 2.9 x 1.25 of them). */
     public static final double MAX_HORIZON_EXTENSION = 4;
 
-    private LoopMatrices() {
-    }
+    private LoopMatrices() {}
 
     public static DMatrixRMaj openLoop(CanonicalPlant plant) {
         return new DMatrixRMaj(new double[][] {{0, 1}, {-plant.a0(), -plant.a1()}});
@@ -38,8 +37,9 @@ public final class LoopMatrices {
     }
 
     public static DMatrixRMaj closedLoop(CanonicalPlant plant, FeedbackGains gains) {
-        return new DMatrixRMaj(new double[][] {{0, 1},
-            {-plant.a0() - plant.b() * gains.positionGain(), -plant.a1() - plant.b() * gains.velocityGain()}});
+        return new DMatrixRMaj(new double[][] {
+            {0, 1}, {-plant.a0() - plant.b() * gains.positionGain(), -plant.a1() - plant.b() * gains.velocityGain()}
+        });
     }
 
     /** Closed-loop stiffness c0 = a0 + b k1 and damping c1 = a1 + b k2 of s^2 + c1 s + c0. */

@@ -159,8 +159,8 @@ public final class HInfinityNormCalculator {
                             + peak.frequency() + " rad/s); the system is probably too badly scaled");
                 }
                 double gamma = (1.0 + RELATIVE_TOLERANCE) * peak.gain();
-                double[] crossings = imaginaryAxisFrequencies(
-                        hamiltonian(aBalanced, bTimesBTranspose, cTransposeTimesC, gamma));
+                double[] crossings =
+                        imaginaryAxisFrequencies(hamiltonian(aBalanced, bTimesBTranspose, cTransposeTimesC, gamma));
                 Peak improved = Peak.best(response, midpoints(crossings), Peak.best(response, crossings, peak));
                 if (!(improved.gain() > gamma)) {
                     // no detection (or only detections that are not genuine crossings: a genuine crossing
@@ -191,12 +191,14 @@ public final class HInfinityNormCalculator {
         }
         double low = peak.below();
         double high = Double.isFinite(peak.above()) ? peak.above() : OPEN_BRACKET_FACTOR * peak.frequency();
-        BrentOptimizer brent = new BrentOptimizer(FREQUENCY_RELATIVE_TOLERANCE,
-                Math.max(absoluteTolerance, Double.MIN_NORMAL));
+        BrentOptimizer brent =
+                new BrentOptimizer(FREQUENCY_RELATIVE_TOLERANCE, Math.max(absoluteTolerance, Double.MIN_NORMAL));
         UnivariatePointValuePair best;
         try {
-            best = brent.optimize(new MaxEval(MAX_BRENT_EVALUATIONS),
-                    new UnivariateObjectiveFunction(response::maxSingularValue), GoalType.MAXIMIZE,
+            best = brent.optimize(
+                    new MaxEval(MAX_BRENT_EVALUATIONS),
+                    new UnivariateObjectiveFunction(response::maxSingularValue),
+                    GoalType.MAXIMIZE,
                     new SearchInterval(low, high, peak.frequency()));
         } catch (MathIllegalStateException e) {
             // evaluation cap reached: keep the best evaluated point
@@ -251,7 +253,8 @@ public final class HInfinityNormCalculator {
      * [[A, B B'/gamma], [-C'C/gamma, -A']], similar to M(gamma) = [[A, B B'/gamma^2], [-C'C, -A']] by
      * diag(I, gamma I), so it has the same eigenvalues with off-diagonal blocks of equal size.
      */
-    private static DMatrixRMaj hamiltonian(DMatrixRMaj a, DMatrixRMaj bTimesBTranspose, DMatrixRMaj cTransposeTimesC, double gamma) {
+    private static DMatrixRMaj hamiltonian(
+            DMatrixRMaj a, DMatrixRMaj bTimesBTranspose, DMatrixRMaj cTransposeTimesC, double gamma) {
         int n = a.numRows;
         double inverseGamma = 1.0 / gamma;
         DMatrixRMaj m = new DMatrixRMaj(2 * n, 2 * n);
@@ -317,7 +320,8 @@ public final class HInfinityNormCalculator {
         for (int i = 0; i < values.length; i++) {
             values[i] = eig.getEigenvalue(i);
             if (!Double.isFinite(values[i].real) || !Double.isFinite(values[i].imaginary)) {
-                throw new NormComputationException("eigenvalue computation of " + name + " produced a non-finite value");
+                throw new NormComputationException(
+                        "eigenvalue computation of " + name + " produced a non-finite value");
             }
         }
         return values;
@@ -350,7 +354,8 @@ public final class HInfinityNormCalculator {
             throw new IllegalArgumentException("A must be square and non-empty, got " + a.numRows + "x" + a.numCols);
         }
         if (n > MAX_STATE_DIMENSION) {
-            throw new IllegalArgumentException("state dimension " + n + " exceeds the supported maximum " + MAX_STATE_DIMENSION);
+            throw new IllegalArgumentException(
+                    "state dimension " + n + " exceeds the supported maximum " + MAX_STATE_DIMENSION);
         }
         if (b.numRows != n || b.numCols == 0) {
             throw new IllegalArgumentException("B must be " + n + "xm with m >= 1, got " + b.numRows + "x" + b.numCols);
@@ -367,7 +372,8 @@ public final class HInfinityNormCalculator {
     static void requireFinite(DMatrixRMaj m, String name) {
         for (int i = 0; i < m.getNumElements(); i++) {
             if (!Double.isFinite(m.data[i])) {
-                throw new IllegalArgumentException(name + " has a non-finite entry at (" + i / m.numCols + ", " + i % m.numCols + ")");
+                throw new IllegalArgumentException(
+                        name + " has a non-finite entry at (" + i / m.numCols + ", " + i % m.numCols + ")");
             }
         }
     }

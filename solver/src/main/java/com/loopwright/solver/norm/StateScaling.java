@@ -22,12 +22,10 @@ final class StateScaling {
     /** Largest binary exponent of one factor per sweep (keeps the scaling finite for any finite input). */
     static final int MAX_EXPONENT_PER_SWEEP = 60;
 
-    private StateScaling() {
-    }
+    private StateScaling() {}
 
     /** The balanced triple; the arguments are not changed. */
-    record Balanced(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
-    }
+    record Balanced(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {}
 
     static Balanced balance(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c) {
         DMatrixRMaj as = a.copy();

@@ -24,8 +24,7 @@ public final class BracketedRoot {
 
     private static final double EPSILON = Math.ulp(1.0);
 
-    private BracketedRoot() {
-    }
+    private BracketedRoot() {}
 
     /**
      * Brent's method. Returns t in [lo, hi] with f(t) = 0 to within a few ulps of t. The end values are taken as
@@ -34,8 +33,7 @@ public final class BracketedRoot {
      */
     public static double brent(DoubleUnaryOperator f, double lo, double hi, double fLo, double fHi) {
         if (!(lo < hi)) {
-            throw new IllegalArgumentException("bracket must satisfy lo < hi, got [" + lo + ", " + hi
-                + "]");
+            throw new IllegalArgumentException("bracket must satisfy lo < hi, got [" + lo + ", " + hi + "]");
         }
         if (!Double.isFinite(fLo) || !Double.isFinite(fHi)) {
             throw new IllegalArgumentException("bracket values must be finite");
@@ -47,8 +45,7 @@ public final class BracketedRoot {
             return hi;
         }
         if ((fLo > 0.0) == (fHi > 0.0)) {
-            throw new IllegalArgumentException(
-                "no sign change on [" + lo + ", " + hi + "]: f = " + fLo + ", " + fHi);
+            throw new IllegalArgumentException("no sign change on [" + lo + ", " + hi + "]: f = " + fLo + ", " + fHi);
         }
         double absoluteTolerance = 2.0 * Math.ulp(Math.max(Math.abs(lo), Math.abs(hi)));
         // b is the best estimate, c the other end of the bracket, a the previous b.
@@ -100,8 +97,7 @@ public final class BracketedRoot {
                 } else {
                     p = -p;
                 }
-                if (2.0 * p < Math.min(3.0 * halfWidth * q - Math.abs(tolerance * q),
-                    Math.abs(e * q))) {
+                if (2.0 * p < Math.min(3.0 * halfWidth * q - Math.abs(tolerance * q), Math.abs(e * q))) {
                     e = d;
                     d = p / q;
                 } else {
@@ -120,8 +116,8 @@ public final class BracketedRoot {
                 throw new IllegalStateException("function is not finite at " + b + ": " + fb);
             }
         }
-        throw new IllegalStateException("root refinement on [" + lo + ", " + hi
-            + "] did not converge in " + MAX_ITERATIONS + " iterations");
+        throw new IllegalStateException(
+                "root refinement on [" + lo + ", " + hi + "] did not converge in " + MAX_ITERATIONS + " iterations");
     }
 
     /**

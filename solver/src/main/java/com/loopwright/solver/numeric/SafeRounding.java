@@ -15,8 +15,7 @@ public final class SafeRounding {
     /** Most significant digits a bound is rounded to. */
     public static final int MAX_DIGITS = 17;
 
-    private SafeRounding() {
-    }
+    private SafeRounding() {}
 
     /** The largest value with {@code digits} significant digits that is at most {@code bound}. */
     public static double atMost(double bound, int digits) {

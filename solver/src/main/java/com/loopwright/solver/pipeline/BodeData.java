@@ -13,8 +13,13 @@ import com.loopwright.solver.design.LoopMargins;
  * @param lowRadPerSec              the window's lower end: two decades below wn, or lower to show a crossover
  * @param highRadPerSec             the window's upper end
  */
-public record BodeData(double[] angularFrequencyRadPerSec, double[] magnitudeDecibels, double[] phaseDegrees,
-                       LoopMargins margins, double lowRadPerSec, double highRadPerSec) {
+public record BodeData(
+        double[] angularFrequencyRadPerSec,
+        double[] magnitudeDecibels,
+        double[] phaseDegrees,
+        LoopMargins margins,
+        double lowRadPerSec,
+        double highRadPerSec) {
 
     public BodeData {
         angularFrequencyRadPerSec = angularFrequencyRadPerSec.clone();

@@ -17,23 +17,23 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
 /** Takes a design made in canonical coordinates z back to the caller's coordinates x = T z. */
 public final class CallerCoordinates {
 
-    private CallerCoordinates() {
-    }
+    private CallerCoordinates() {}
 
     public static StateSpaceDesign of(TwoStateModel model, ClosedFormDesign design) {
         DMatrixRMaj t = model.transform();
         DMatrixRMaj tInv = model.inverseTransform();
         DMatrixRMaj pz = new DMatrixRMaj(new double[][] {{design.p11(), design.p12()}, {design.p12(), design.p22()}});
-        DMatrixRMaj qz = new DMatrixRMaj(new double[][] {{design.rho1() * design.rho1(), 0},
-                {0, design.rho2() * design.rho2()}});
+        DMatrixRMaj qz =
+                new DMatrixRMaj(new double[][] {{design.rho1() * design.rho1(), 0}, {0, design.rho2() * design.rho2()}
+                });
         DMatrixRMaj kz = new DMatrixRMaj(1, 2, true, design.positionGain(), design.velocityGain());
         DMatrixRMaj px = congruence(tInv, pz);
         DMatrixRMaj qx = congruence(tInv, qz);
         // K_x = K_z T^-1 = (K_z C_z) C_x^-1: an LU solve with C_x, no explicit inverse
         double b = design.plant().b();
         double a1 = design.plant().a1();
-        DMatrixRMaj kzCz = new DMatrixRMaj(1, 2, true, design.velocityGain() * b,
-                design.positionGain() * b - a1 * b * design.velocityGain());
+        DMatrixRMaj kzCz = new DMatrixRMaj(
+                1, 2, true, design.velocityGain() * b, design.positionGain() * b - a1 * b * design.velocityGain());
         DMatrixRMaj kx = TwoStateModel.solveTransposed(model.controllabilityMatrix(), kzCz);
         DMatrixRMaj trackedOutput = new DMatrixRMaj(1, 2, true, tInv.get(0, 0) + 0.0, tInv.get(0, 1) + 0.0);
 
@@ -63,8 +63,8 @@ public final class CallerCoordinates {
                 poles.add(new TargetDynamics.Pole(value.real, value.imaginary));
             }
         }
-        return new StateSpaceDesign(t, px, kx, qx, trackedOutput, referenceGain, residual, poles,
-                model.controllabilityCondition());
+        return new StateSpaceDesign(
+                t, px, kx, qx, trackedOutput, referenceGain, residual, poles, model.controllabilityCondition());
     }
 
     /**
@@ -74,8 +74,8 @@ public final class CallerCoordinates {
      * (kr, K_x, c) give y_inf = r to rounding even when T is ill-conditioned. Falls back to the canonical kr if
      * the solve fails (a singular closed loop is caught by the verification).
      */
-    private static double callerReferenceGain(DMatrixRMaj closedLoop, DMatrixRMaj b2, DMatrixRMaj c,
-                                              double canonicalReferenceGain) {
+    private static double callerReferenceGain(
+            DMatrixRMaj closedLoop, DMatrixRMaj b2, DMatrixRMaj c, double canonicalReferenceGain) {
         LinearSolverDense<DMatrixRMaj> lu = LinearSolverFactory_DDRM.lu(2);
         if (!lu.setA(closedLoop.copy())) {
             return canonicalReferenceGain;

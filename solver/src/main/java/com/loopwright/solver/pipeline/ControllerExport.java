@@ -12,5 +12,4 @@ import java.util.Optional;
  * @param sampledStep the step of the sampled loop (zero-order hold, unclamped), or empty when it diverges or the
  *                    period is too short to simulate over the horizon
  */
-public record ControllerExport(DesignReport design, SampledLaw law, Optional<GridMetrics> sampledStep) {
-}
+public record ControllerExport(DesignReport design, SampledLaw law, Optional<GridMetrics> sampledStep) {}

@@ -26,8 +26,8 @@ public final class DesignPipeline {
     /**
      * @throws SolverFailure INFEASIBLE_SPEC with the proposals, or UNVERIFIABLE when a check cannot be computed
      */
-    public DesignReport design(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
-                               double bandFraction) {
+    public DesignReport design(
+            CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize, double bandFraction) {
         try {
             return designer.design(plant, spec, gammaChoice, stepSize, bandFraction);
         } catch (InfeasibleDesignException e) {

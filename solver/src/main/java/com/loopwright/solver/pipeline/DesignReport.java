@@ -13,9 +13,15 @@ import com.loopwright.solver.spec.SpecInversion;
  * @param horizonSeconds simulated time
  * @param samples        simulation grid size
  */
-public record DesignReport(DesignSpec spec, SpecInversion inversion, ClosedFormDesign design,
-                           Verification verification, double stepSize, double bandFraction, double horizonSeconds,
-                           int samples) {
+public record DesignReport(
+        DesignSpec spec,
+        SpecInversion inversion,
+        ClosedFormDesign design,
+        Verification verification,
+        double stepSize,
+        double bandFraction,
+        double horizonSeconds,
+        int samples) {
 
     /** The simulated step metrics of the verification. */
     public StepMetrics stepMetrics() {
@@ -25,7 +31,12 @@ public record DesignReport(DesignSpec spec, SpecInversion inversion, ClosedFormD
     /** The numeric Riccati solution that cross-checks the closed-form P, with its agreement. */
     public NumericRiccati numericRiccati() {
         RiccatiSolution numeric = verification.numeric();
-        return new NumericRiccati(numeric.p().get(0, 0), numeric.p().get(0, 1), numeric.p().get(1, 1),
-                numeric.relativeResidual(), verification.relativeDifference(), numeric.iterations());
+        return new NumericRiccati(
+                numeric.p().get(0, 0),
+                numeric.p().get(0, 1),
+                numeric.p().get(1, 1),
+                numeric.relativeResidual(),
+                verification.relativeDifference(),
+                numeric.iterations());
     }
 }

@@ -36,14 +36,21 @@ public final class ExportPipeline {
         try {
             law = lawDesigner.emulate(report.design(), samplePeriodSeconds, commandLimit);
         } catch (SampledLawException e) {
-            throw SolverFailure.about(SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE, e.aboutSamplePeriod()
-                    ? SolverFailure.SAMPLE_PERIOD : SolverFailure.COMMAND_LIMIT, -1, e.getMessage(), e);
+            throw SolverFailure.about(
+                    SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE,
+                    e.aboutSamplePeriod() ? SolverFailure.SAMPLE_PERIOD : SolverFailure.COMMAND_LIMIT,
+                    -1,
+                    e.getMessage(),
+                    e);
         }
         ClosedFormDesign d = report.design();
         // the sampled loop's own step (not the continuous one): the header and the parameter set quote both
-        Optional<GridMetrics> sampledStep = sampledMetrics.measure(d.plant(),
-                new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), report.stepSize(),
-                law.samplePeriodSeconds(), report.bandFraction());
+        Optional<GridMetrics> sampledStep = sampledMetrics.measure(
+                d.plant(),
+                new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()),
+                report.stepSize(),
+                law.samplePeriodSeconds(),
+                report.bandFraction());
         return new ControllerExport(report, law, sampledStep);
     }
 
@@ -53,8 +60,7 @@ public final class ExportPipeline {
      * @param specLines the header's lines (plant, specs, simulated steps), written as given
      * @throws IllegalArgumentException when a number cannot be written as source
      */
-    public String structuredText(ControllerExport export, String title, List<String> specLines,
-                                 List<String> cautions) {
+    public String structuredText(ControllerExport export, String title, List<String> specLines, List<String> cautions) {
         return new StructuredTextWriter().write(header(export, title, specLines, cautions), export.law());
     }
 
@@ -67,8 +73,8 @@ public final class ExportPipeline {
         return new CSourceWriter().write(header(export, title, specLines, cautions), export.law());
     }
 
-    private static ExportHeader header(ControllerExport export, String title, List<String> specLines,
-                                       List<String> cautions) {
+    private static ExportHeader header(
+            ControllerExport export, String title, List<String> specLines, List<String> cautions) {
         return new ExportHeader(title, specLines, export.design().design().gamma(), cautions);
     }
 }

@@ -38,8 +38,8 @@ public final class FigurePipeline {
     public StepSeries step(DesignReport report) {
         try {
             ClosedFormDesign d = report.design();
-            LinearLoop loop = LinearLoop.ofStep(d.plant(),
-                    new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()));
+            LinearLoop loop = LinearLoop.ofStep(
+                    d.plant(), new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()));
             StepResponse step = simulator.simulate(loop, report.stepSize(), report.horizonSeconds(), PLOT_SAMPLES);
             return new StepSeries(step.timeSeconds(), step.output(), step.control());
         } catch (IllegalArgumentException e) {
@@ -57,8 +57,8 @@ public final class FigurePipeline {
         try {
             ClosedFormDesign d = report.design();
             RationalLoop loop = RationalLoop.atPlantInput(d.plant(), d.positionGain(), d.velocityGain());
-            LoopMargins margins = frequency.margins(d.plant(),
-                    new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), 0);
+            LoopMargins margins = frequency.margins(
+                    d.plant(), new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), 0);
             double wn = d.target().naturalFrequencyRadPerSec();
             double low = wn * Math.pow(10, -BODE_DECADES);
             double high = wn * Math.pow(10, BODE_DECADES);
@@ -69,8 +69,13 @@ public final class FigurePipeline {
                 }
             }
             BodeSeries series = frequency.sample(loop, low, high, BODE_POINTS);
-            return new BodeData(series.angularFrequencyRadPerSec(), series.magnitudeDecibels(), series.phaseDegrees(),
-                    margins, low, high);
+            return new BodeData(
+                    series.angularFrequencyRadPerSec(),
+                    series.magnitudeDecibels(),
+                    series.phaseDegrees(),
+                    margins,
+                    low,
+                    high);
         } catch (IllegalArgumentException e) {
             throw notComputable(e);
         }
@@ -84,9 +89,15 @@ public final class FigurePipeline {
         ClosedFormDesign d = report.design();
         int interior = Math.min(monteCarloSamples, StepEnvelope.MAX_INTERIOR_SAMPLES);
         try {
-            return envelope.sweep(box, d.plant(),
-                    new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()), report.stepSize(),
-                    report.horizonSeconds(), PLOT_SAMPLES, interior, seed);
+            return envelope.sweep(
+                    box,
+                    d.plant(),
+                    new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()),
+                    report.stepSize(),
+                    report.horizonSeconds(),
+                    PLOT_SAMPLES,
+                    interior,
+                    seed);
         } catch (UnstableLoopException e) {
             throw SolverFailure.of(SolverFailure.Kind.UNSTABLE_LOOP, e.getMessage(), e);
         } catch (IllegalArgumentException e) {

@@ -46,8 +46,7 @@ public final class HighOrderPipeline {
     private final HighOrderVerifier verifier = new HighOrderVerifier();
 
     /** The state space as sent: dx/dt = A x + B2 u + B1 w, tracked output y = c x. */
-    public record StateSpace(DMatrixRMaj a, DMatrixRMaj b2, DMatrixRMaj b1, DMatrixRMaj output) {
-    }
+    public record StateSpace(DMatrixRMaj a, DMatrixRMaj b2, DMatrixRMaj b1, DMatrixRMaj output) {}
 
     /**
      * One order-n design request in solver terms.
@@ -58,10 +57,16 @@ public final class HighOrderPipeline {
      *                             closed form for the dominant pair
      * @param maxUndershootPercent the undershoot allowed while matching
      */
-    public record Request(CompanionPlant plant, StateSpace stateSpace, DesignSpec spec, AuxiliaryPlacement auxiliary,
-                          boolean matchSpecs, GammaChoice gammaChoice, double stepSize, double bandFraction,
-                          double maxUndershootPercent) {
-    }
+    public record Request(
+            CompanionPlant plant,
+            StateSpace stateSpace,
+            DesignSpec spec,
+            AuxiliaryPlacement auxiliary,
+            boolean matchSpecs,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction,
+            double maxUndershootPercent) {}
 
     /**
      * @param transform                the companion transform of the state space, or null
@@ -73,9 +78,15 @@ public final class HighOrderPipeline {
      *                                 transform
      * @param specCheck                the simulated step against the specs
      */
-    public record Result(CompanionTransform.Result transform, SpecMatch match, HighOrderDesign design,
-                         HighOrderVerification verification, DMatrixRMaj toPlant, double[] plantGain,
-                         Double controllabilityCondition, SpecCheck specCheck) {
+    public record Result(
+            CompanionTransform.Result transform,
+            SpecMatch match,
+            HighOrderDesign design,
+            HighOrderVerification verification,
+            DMatrixRMaj toPlant,
+            double[] plantGain,
+            Double controllabilityCondition,
+            SpecCheck specCheck) {
         public Result {
             toPlant = toPlant.copy();
             plantGain = plantGain.clone();
@@ -105,8 +116,7 @@ public final class HighOrderPipeline {
      * @param settlingResidual        simulated settling time / ts - 1
      * @param overshootResidualPoints simulated overshoot - the spec, in percentage points
      */
-    public record SpecCheck(boolean met, double settlingResidual, double overshootResidualPoints) {
-    }
+    public record SpecCheck(boolean met, double settlingResidual, double overshootResidualPoints) {}
 
     /**
      * @throws SolverFailure UNCONTROLLABLE or NO_DC_GAIN for the state space, INFEASIBLE_SPEC, UNVERIFIABLE,
@@ -124,8 +134,10 @@ public final class HighOrderPipeline {
             }
             plant = transform.plant();
             if (!(Math.abs(plant.numerator()[0]) > DC_GAIN_TOLERANCE * norm(plant.numerator()))) {
-                throw SolverFailure.of(SolverFailure.Kind.NO_DC_GAIN, "the output has a zero at s = 0 (no DC gain),"
-                        + " so the reference cannot be scaled to it", null);
+                throw SolverFailure.of(
+                        SolverFailure.Kind.NO_DC_GAIN,
+                        "the output has a zero at s = 0 (no DC gain)," + " so the reference cannot be scaled to it",
+                        null);
             }
         }
         Partial result;
@@ -133,16 +145,19 @@ public final class HighOrderPipeline {
             SpecMatch match = null;
             TargetDynamics target;
             if (request.matchSpecs()) {
-                match = matcher.match(plant, request.spec(), request.auxiliary(), request.stepSize(),
-                        request.maxUndershootPercent());
+                match = matcher.match(
+                        plant, request.spec(), request.auxiliary(), request.stepSize(), request.maxUndershootPercent());
                 target = match.target();
             } else {
                 target = new SpecInverter().invert(request.spec()).target();
             }
             DesiredPoles poles = request.auxiliary().place(target, plant.order());
             HighOrderDesign design = designer.design(plant, poles, request.gammaChoice());
-            HighOrderVerification verification = verifier.verify(design, request.stepSize(),
-                    request.bandFraction(), ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds());
+            HighOrderVerification verification = verifier.verify(
+                    design,
+                    request.stepSize(),
+                    request.bandFraction(),
+                    ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds());
             result = new Partial(match, design, verification);
         } catch (InfeasibleDesignException e) {
             throw SolverFailure.infeasible(e.infeasibility(), e);
@@ -163,12 +178,18 @@ public final class HighOrderPipeline {
             plantGain = gainOnPlantState(transform.toPlant(), k);
             controllabilityCondition = 1 / transform.reciprocalCondition();
         }
-        return new Result(transform, result.match(), design, result.verification(), toPlant, plantGain,
-                controllabilityCondition, specCheck(request, result.verification().step()));
+        return new Result(
+                transform,
+                result.match(),
+                design,
+                result.verification(),
+                toPlant,
+                plantGain,
+                controllabilityCondition,
+                specCheck(request, result.verification().step()));
     }
 
-    private record Partial(SpecMatch match, HighOrderDesign design, HighOrderVerification verification) {
-    }
+    private record Partial(SpecMatch match, HighOrderDesign design, HighOrderVerification verification) {}
 
     private static SpecCheck specCheck(Request request, HighOrderStep step) {
         double ts = ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds();
@@ -176,7 +197,9 @@ public final class HighOrderPipeline {
         boolean met = step.metrics().settlingTimeSeconds() <= ts * (1 + SpecMatcher.SETTLING_TOLERANCE)
                 && step.metrics().overshootPercent() <= overshoot + SpecMatcher.OVERSHOOT_TOLERANCE_POINTS
                 && step.undershootPercent() <= request.maxUndershootPercent();
-        return new SpecCheck(met, step.metrics().settlingTimeSeconds() / ts - 1,
+        return new SpecCheck(
+                met,
+                step.metrics().settlingTimeSeconds() / ts - 1,
                 step.metrics().overshootPercent() - overshoot);
     }
 

@@ -52,12 +52,12 @@ public final class LoopDesigner {
     private static String missing(List<SpecProposal> proposals) {
         StringBuilder text = new StringBuilder();
         if (proposals.stream().noneMatch(p -> p.quantity() == SpecQuantity.TIME_SPEC)) {
-            text.append("; no time spec within the accepted range makes this plant feasible with the overshoot"
-                    + " kept");
+            text.append(
+                    "; no time spec within the accepted range makes this plant feasible with the overshoot" + " kept");
         }
         if (proposals.stream().noneMatch(p -> p.quantity() == SpecQuantity.OVERSHOOT_PERCENT)) {
-            text.append("; no overshoot within the accepted range makes this plant feasible with the time spec"
-                    + " kept");
+            text.append(
+                    "; no overshoot within the accepted range makes this plant feasible with the time spec" + " kept");
         }
         return text.toString();
     }
@@ -66,13 +66,14 @@ public final class LoopDesigner {
      * @throws InfeasibleDesignException when the plant cannot meet the spec (with computed proposals)
      * @throws com.loopwright.solver.verify.VerificationFailedException when a check cannot be computed
      */
-    public DesignReport design(CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize,
-                               double bandFraction) {
+    public DesignReport design(
+            CanonicalPlant plant, DesignSpec spec, GammaChoice gammaChoice, double stepSize, double bandFraction) {
         SpecInversion inversion = inverter.invert(spec);
         TargetDynamics target = inversion.target();
         Optional<DesignObstacle> obstacle = designer.obstacle(plant, target);
         if (obstacle.isPresent()) {
-            SpecQuantity blamed = obstacle.get().dampingBound() ? SpecQuantity.OVERSHOOT_PERCENT : SpecQuantity.TIME_SPEC;
+            SpecQuantity blamed =
+                    obstacle.get().dampingBound() ? SpecQuantity.OVERSHOOT_PERCENT : SpecQuantity.TIME_SPEC;
             List<SpecProposal> proposals = advisor.propose(plant, spec, gammaChoice, ranges);
             String reason = obstacle.get().reason() + missing(proposals);
             throw new InfeasibleDesignException(new Infeasibility(blamed, reason, proposals));
@@ -83,17 +84,18 @@ public final class LoopDesigner {
         } catch (InfeasibleDesignException e) {
             // a fixed gamma below gamma_min: keep only the gamma proposals a request accepts
             List<SpecProposal> inRange = e.infeasibility().proposals().stream()
-                    .filter(p -> p.quantity() != SpecQuantity.GAMMA || ranges.gammaInRange(p.value())).toList();
+                    .filter(p -> p.quantity() != SpecQuantity.GAMMA || ranges.gammaInRange(p.value()))
+                    .toList();
             if (inRange.size() == e.infeasibility().proposals().size()) {
                 throw e;
             }
             throw new InfeasibleDesignException(e.infeasibility().withProposals(inRange));
         }
-        double expectedSettling = NormalizedSettlingTime.of(target.dampingRatio(), bandFraction)
-                / target.naturalFrequencyRadPerSec();
+        double expectedSettling =
+                NormalizedSettlingTime.of(target.dampingRatio(), bandFraction) / target.naturalFrequencyRadPerSec();
         double horizon = HORIZON_PER_SETTLING_TIME * expectedSettling;
         Verification verification = verifier.verify(design, spec, stepSize, bandFraction, horizon, SIMULATION_SAMPLES);
-        return new DesignReport(spec, inversion, design, verification, stepSize, bandFraction, horizon,
-                SIMULATION_SAMPLES);
+        return new DesignReport(
+                spec, inversion, design, verification, stepSize, bandFraction, horizon, SIMULATION_SAMPLES);
     }
 }

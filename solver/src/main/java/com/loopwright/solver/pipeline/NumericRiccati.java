@@ -11,6 +11,5 @@ package com.loopwright.solver.pipeline;
  * @param relativeDifference ||P_numeric - P_closed||_F / ||P_closed||_F
  * @param iterations         matrix-sign-function Newton iterations taken
  */
-public record NumericRiccati(double p11, double p12, double p22, double relativeResidual, double relativeDifference,
-                             int iterations) {
-}
+public record NumericRiccati(
+        double p11, double p12, double p22, double relativeResidual, double relativeDifference, int iterations) {}

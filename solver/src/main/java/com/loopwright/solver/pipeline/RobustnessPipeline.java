@@ -28,18 +28,26 @@ public final class RobustnessPipeline {
      * @throws SolverFailure CAP_EXCEEDED (subject: the option, index: the list entry), UNSTABLE_LOOP, or
      *                       CHECK_NOT_COMPUTABLE when a number leaves double precision
      */
-    public RobustnessReport check(CanonicalPlant plant, FeedbackGains gains, double stepSize,
-                                  AcceptanceLimits limits, Double rho1, Double rho2, Double gamma,
-                                  RobustnessOptions options, double toleranceFraction) {
-        DMatrixRMaj output = rho1 == null ? new DMatrixRMaj(new double[][] {{1, 0}})
-                : new DMatrixRMaj(new double[][] {{rho1, 0}, {0, rho2},
-                    {-gains.positionGain(), -gains.velocityGain()}});
+    public RobustnessReport check(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            AcceptanceLimits limits,
+            Double rho1,
+            Double rho2,
+            Double gamma,
+            RobustnessOptions options,
+            double toleranceFraction) {
+        DMatrixRMaj output = rho1 == null
+                ? new DMatrixRMaj(new double[][] {{1, 0}})
+                : new DMatrixRMaj(
+                        new double[][] {{rho1, 0}, {0, rho2}, {-gains.positionGain(), -gains.velocityGain()}});
         AcceptanceLimits judged = widened(limits, toleranceFraction);
         try {
             return verifier.verify(plant, gains, stepSize, judged, output, gamma, options);
         } catch (CapExceededException e) {
-            throw SolverFailure.about(SolverFailure.Kind.CAP_EXCEEDED, e.option().name(), e.index(),
-                    e.getMessage(), e);
+            throw SolverFailure.about(
+                    SolverFailure.Kind.CAP_EXCEEDED, e.option().name(), e.index(), e.getMessage(), e);
         } catch (UnstableLoopException e) {
             throw SolverFailure.of(SolverFailure.Kind.UNSTABLE_LOOP, e.getMessage(), e);
         } catch (ComputationCancelledException e) {
@@ -52,9 +60,11 @@ public final class RobustnessPipeline {
 
     /** The limits actually judged: each given limit times (1 + toleranceFraction). */
     public static AcceptanceLimits widened(AcceptanceLimits limits, double toleranceFraction) {
-        return new AcceptanceLimits(scale(limits.settlingTimeSeconds(), 1 + toleranceFraction),
+        return new AcceptanceLimits(
+                scale(limits.settlingTimeSeconds(), 1 + toleranceFraction),
                 scale(limits.riseTimeSeconds(), 1 + toleranceFraction),
-                scale(limits.overshootPercent(), 1 + toleranceFraction), limits.bandFraction());
+                scale(limits.overshootPercent(), 1 + toleranceFraction),
+                limits.bandFraction());
     }
 
     private static Double scale(Double value, double factor) {

@@ -42,6 +42,7 @@ public final class SolverFailure extends RuntimeException {
 
     /** Subjects of {@link Kind#SAMPLED_LAW_INFEASIBLE}. */
     public static final String SAMPLE_PERIOD = "samplePeriod";
+
     public static final String COMMAND_LIMIT = "commandLimit";
 
     private final Kind kind;
@@ -49,8 +50,8 @@ public final class SolverFailure extends RuntimeException {
     private final int index;
     private final transient Infeasibility infeasibility;
 
-    private SolverFailure(Kind kind, String message, String subject, int index, Infeasibility infeasibility,
-                          Throwable cause) {
+    private SolverFailure(
+            Kind kind, String message, String subject, int index, Infeasibility infeasibility, Throwable cause) {
         super(message, cause);
         this.kind = Objects.requireNonNull(kind, "kind");
         this.subject = subject == null ? "" : subject;

@@ -23,9 +23,16 @@ import org.ejml.data.DMatrixRMaj;
  * @param controllabilityCondition cond_2 of C_x = [B2, A B2]; the caller-coordinate results may lose up to
  *                             log10 of it in digits ({@link com.loopwright.solver.plant.TwoStateModel#CONDITION_NOTE_THRESHOLD})
  */
-public record StateSpaceDesign(DMatrixRMaj transform, DMatrixRMaj p, DMatrixRMaj gain, DMatrixRMaj stateWeight,
-                               DMatrixRMaj trackedOutput, double referenceGain, double relativeResidual,
-                               List<TargetDynamics.Pole> closedLoopPoles, double controllabilityCondition) {
+public record StateSpaceDesign(
+        DMatrixRMaj transform,
+        DMatrixRMaj p,
+        DMatrixRMaj gain,
+        DMatrixRMaj stateWeight,
+        DMatrixRMaj trackedOutput,
+        double referenceGain,
+        double relativeResidual,
+        List<TargetDynamics.Pole> closedLoopPoles,
+        double controllabilityCondition) {
 
     public StateSpaceDesign {
         transform = transform.copy();

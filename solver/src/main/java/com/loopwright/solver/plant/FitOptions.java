@@ -7,5 +7,4 @@ package com.loopwright.solver.plant;
  * @param estimateInitialOffset fit the output's value before the step (otherwise 0: the samples are already
  *                              deviations from the operating point)
  */
-public record FitOptions(boolean estimateDeadTime, boolean estimateInitialOffset) {
-}
+public record FitOptions(boolean estimateDeadTime, boolean estimateInitialOffset) {}

@@ -9,7 +9,13 @@ package com.loopwright.solver.plant;
 public record FitWarning(Code code, String message) {
 
     public enum Code {
-        RECORD_TOO_SHORT, FEW_SAMPLES_IN_TRANSIENT, SATURATION_PLATEAU, NOISE_DOMINATES, POORLY_DETERMINED,
-        DEAD_TIME_NOT_IN_DESIGN, WEAK_EXCITATION, AT_BOUND
+        RECORD_TOO_SHORT,
+        FEW_SAMPLES_IN_TRANSIENT,
+        SATURATION_PLATEAU,
+        NOISE_DOMINATES,
+        POORLY_DETERMINED,
+        DEAD_TIME_NOT_IN_DESIGN,
+        WEAK_EXCITATION,
+        AT_BOUND
     }
 }

@@ -6,8 +6,7 @@ package com.loopwright.solver.plant;
  * at its bound 0 gets the one-sided interval [0, t se]). When the data do not determine the parameter (J'J
  * singular in its direction) the standard error and both ends are NaN: there is no interval to report.
  */
-public record FittedParameter(String name, double estimate, double standardError, double lower95,
-                              double upper95) {
+public record FittedParameter(String name, double estimate, double standardError, double lower95, double upper95) {
 
     /** Whether the data determine the parameter, so that the standard error and interval exist. */
     public boolean determined() {

@@ -22,7 +22,6 @@ public record MassSpringDamper(double massKg, double dampingNsPerM, double stiff
 
     @Override
     public CanonicalPlant canonical() {
-        return PhysicalCheck.canonical(stiffnessNPerM / massKg, dampingNsPerM / massKg, 1 / massKg, 1 / massKg,
-                true);
+        return PhysicalCheck.canonical(stiffnessNPerM / massKg, dampingNsPerM / massKg, 1 / massKg, 1 / massKg, true);
     }
 }

@@ -15,8 +15,9 @@ package com.loopwright.solver.plant;
  * @param torqueConstantNmPerAmp       kt, non-zero (its sign sets the direction of positive current)
  * @param gearRatio                    N, positive (1 for a direct drive)
  */
-public record RotaryAxis(double inertiaKgM2, double viscousFrictionNmsPerRad, double torqueConstantNmPerAmp,
-                         double gearRatio) implements PlantForm {
+public record RotaryAxis(
+        double inertiaKgM2, double viscousFrictionNmsPerRad, double torqueConstantNmPerAmp, double gearRatio)
+        implements PlantForm {
 
     public RotaryAxis {
         PhysicalCheck.positive("inertia", inertiaKgM2, "inertia");
@@ -27,7 +28,11 @@ public record RotaryAxis(double inertiaKgM2, double viscousFrictionNmsPerRad, do
 
     @Override
     public CanonicalPlant canonical() {
-        return PhysicalCheck.canonical(0, viscousFrictionNmsPerRad / inertiaKgM2,
-                gearRatio * torqueConstantNmPerAmp / inertiaKgM2, 1 / inertiaKgM2, true);
+        return PhysicalCheck.canonical(
+                0,
+                viscousFrictionNmsPerRad / inertiaKgM2,
+                gearRatio * torqueConstantNmPerAmp / inertiaKgM2,
+                1 / inertiaKgM2,
+                true);
     }
 }

@@ -16,14 +16,15 @@ package com.loopwright.solver.plant;
  * @param s1                   c1
  * @param s0                   c0
  */
-public record SecondOrderTransferFunction(double numerator, double disturbanceNumerator, double s2, double s1,
-                                          double s0) implements PlantForm {
+public record SecondOrderTransferFunction(
+        double numerator, double disturbanceNumerator, double s2, double s1, double s0) implements PlantForm {
 
     public SecondOrderTransferFunction {
         PhysicalCheck.nonZero("numerator", numerator, "numerator");
         if (s2 == 0 || !Double.isFinite(s2)) {
-            throw new PlantParameterException("denominator", "the s^2 coefficient of the denominator must be"
-                    + " non-zero: the model must be of second order");
+            throw new PlantParameterException(
+                    "denominator",
+                    "the s^2 coefficient of the denominator must be" + " non-zero: the model must be of second order");
         }
         if (!Double.isFinite(s1) || !Double.isFinite(s0) || !Double.isFinite(disturbanceNumerator)) {
             throw new PlantParameterException("denominator", "coefficients must be finite");
@@ -35,20 +36,19 @@ public record SecondOrderTransferFunction(double numerator, double disturbanceNu
      *
      * @throws PlantParameterException when wn is not positive or zeta is negative
      */
-    public static SecondOrderTransferFunction ofGainFrequencyDamping(double gain, double naturalFrequencyRadPerSec,
-                                                                     double dampingRatio,
-                                                                     double disturbanceNumerator) {
+    public static SecondOrderTransferFunction ofGainFrequencyDamping(
+            double gain, double naturalFrequencyRadPerSec, double dampingRatio, double disturbanceNumerator) {
         PhysicalCheck.nonZero("gain", gain, "steady-state gain");
         PhysicalCheck.positive("naturalFrequency", naturalFrequencyRadPerSec, "natural frequency");
         PhysicalCheck.nonNegative("dampingRatio", dampingRatio, "damping ratio");
         double wn2 = naturalFrequencyRadPerSec * naturalFrequencyRadPerSec;
-        return new SecondOrderTransferFunction(gain * wn2, disturbanceNumerator, 1,
-                2 * dampingRatio * naturalFrequencyRadPerSec, wn2);
+        return new SecondOrderTransferFunction(
+                gain * wn2, disturbanceNumerator, 1, 2 * dampingRatio * naturalFrequencyRadPerSec, wn2);
     }
 
     @Override
     public CanonicalPlant canonical() {
-        return PhysicalCheck.canonical(s0 / s2, s1 / s2, numerator / s2, disturbanceNumerator / s2,
-                disturbanceNumerator != 0);
+        return PhysicalCheck.canonical(
+                s0 / s2, s1 / s2, numerator / s2, disturbanceNumerator / s2, disturbanceNumerator != 0);
     }
 }

@@ -19,9 +19,19 @@ import java.util.List;
  * @param evaluations       model evaluations of that run
  * @param warnings          findings about the data
  */
-public record StepFit(double gain, double naturalFrequency, double dampingRatio, double deadTimeSeconds,
-                      double initialOffset, List<FittedParameter> parameters, double rmsError, double rSquared,
-                      int degreesOfFreedom, int iterations, int evaluations, List<FitWarning> warnings) {
+public record StepFit(
+        double gain,
+        double naturalFrequency,
+        double dampingRatio,
+        double deadTimeSeconds,
+        double initialOffset,
+        List<FittedParameter> parameters,
+        double rmsError,
+        double rSquared,
+        int degreesOfFreedom,
+        int iterations,
+        int evaluations,
+        List<FitWarning> warnings) {
 
     public StepFit {
         parameters = List.copyOf(parameters);
@@ -29,6 +39,9 @@ public record StepFit(double gain, double naturalFrequency, double dampingRatio,
     }
 
     public FittedParameter parameter(String name) {
-        return parameters.stream().filter(p -> p.name().equals(name)).findFirst().orElseThrow();
+        return parameters.stream()
+                .filter(p -> p.name().equals(name))
+                .findFirst()
+                .orElseThrow();
     }
 }

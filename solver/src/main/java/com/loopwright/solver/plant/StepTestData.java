@@ -11,7 +11,8 @@ public record StepTestData(double[] timeSeconds, double[] output, double stepTim
             throw new IllegalArgumentException("time and output must have the same non-zero length");
         }
         for (int i = 0; i < timeSeconds.length; i++) {
-            if (!Double.isFinite(timeSeconds[i]) || !Double.isFinite(output[i])
+            if (!Double.isFinite(timeSeconds[i])
+                    || !Double.isFinite(output[i])
                     || i > 0 && !(timeSeconds[i] > timeSeconds[i - 1])) {
                 throw new IllegalArgumentException("samples must be finite at strictly increasing times");
             }

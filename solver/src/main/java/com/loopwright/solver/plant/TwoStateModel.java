@@ -67,9 +67,11 @@ public final class TwoStateModel implements PlantForm {
         double detCx = CommonOps_DDRM.det(cx);
         double scale = NormOps_DDRM.normF(this.b2) * NormOps_DDRM.normF(ab2);
         if (!(scale > 0) || !(Math.abs(detCx) > CONTROLLABILITY_TOLERANCE * scale)) {
-            throw new PlantParameterException("b2", "the model is not controllable: the actuator input B2 and"
-                    + " A B2 are parallel (or B2 is zero), so the actuator cannot move both states independently"
-                    + " and no state feedback can place both closed-loop poles");
+            throw new PlantParameterException(
+                    "b2",
+                    "the model is not controllable: the actuator input B2 and"
+                            + " A B2 are parallel (or B2 is zero), so the actuator cannot move both states independently"
+                            + " and no state feedback can place both closed-loop poles");
         }
         // + 0.0 turns a negative zero into zero.
         double a1 = -(a[0][0] + a[1][1]) + 0.0;
@@ -88,10 +90,14 @@ public final class TwoStateModel implements PlantForm {
         CommonOps_DDRM.mult(tInv, this.b1, b1z);
         double b1zNorm = NormOps_DDRM.normF(b1z);
         if (Math.abs(b1z.get(0)) > DISTURBANCE_ALIGNMENT_TOLERANCE * b1zNorm) {
-            throw new PlantParameterException("b1", String.format("the disturbance input B1 is not a multiple of"
-                    + " the actuator input B2: in canonical coordinates it also drives the position-like state"
-                    + " (T^-1 B1 = [%.6g, %.6g]), which the closed-form design does not cover; model the"
-                    + " disturbance as entering where the actuator acts (B1 = (d/b) B2)", b1z.get(0), b1z.get(1)));
+            throw new PlantParameterException(
+                    "b1",
+                    String.format(
+                            "the disturbance input B1 is not a multiple of"
+                                    + " the actuator input B2: in canonical coordinates it also drives the position-like state"
+                                    + " (T^-1 B1 = [%.6g, %.6g]), which the closed-form design does not cover; model the"
+                                    + " disturbance as entering where the actuator acts (B1 = (d/b) B2)",
+                            b1z.get(0), b1z.get(1)));
         }
         this.transform = t;
         this.inverseTransform = tInv;

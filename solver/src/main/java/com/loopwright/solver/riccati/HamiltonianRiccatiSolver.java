@@ -204,15 +204,15 @@ public final class HamiltonianRiccatiSolver {
     private static void requireStabilizing(DMatrixRMaj a, DMatrixRMaj r, DMatrixRMaj p, String stage) {
         for (int i = 0; i < p.getNumElements(); i++) {
             if (!Double.isFinite(p.data[i])) {
-                throw new NoStabilizingSolutionException(
-                        "Riccati solution " + stage + " has non-finite entries: no stabilizing solution could be computed");
+                throw new NoStabilizingSolutionException("Riccati solution " + stage
+                        + " has non-finite entries: no stabilizing solution could be computed");
             }
         }
         DMatrixRMaj closedLoop = closedLoop(a, r, p);
         OptionalDouble abscissa = SpectralAbscissa.of(closedLoop);
         if (abscissa.isEmpty()) {
-            throw new NoStabilizingSolutionException(
-                    "eigenvalue computation of A + RP failed " + stage + ": stability of the solution cannot be verified");
+            throw new NoStabilizingSolutionException("eigenvalue computation of A + RP failed " + stage
+                    + ": stability of the solution cannot be verified");
         }
         double margin = HURWITZ_MARGIN * NormOps_DDRM.normF(closedLoop);
         if (!(abscissa.getAsDouble() < -margin)) {
@@ -237,8 +237,8 @@ public final class HamiltonianRiccatiSolver {
         for (int i = 0; i < n; i++) {
             for (int j = i + 1; j < n; j++) {
                 if (Math.abs(m.get(i, j) - m.get(j, i)) > SYMMETRY_TOLERANCE * maxAbs) {
-                    throw new IllegalArgumentException(name + " must be symmetric: entries (" + i + ", " + j
-                            + ") and (" + j + ", " + i + ") differ by " + Math.abs(m.get(i, j) - m.get(j, i)));
+                    throw new IllegalArgumentException(name + " must be symmetric: entries (" + i + ", " + j + ") and ("
+                            + j + ", " + i + ") differ by " + Math.abs(m.get(i, j) - m.get(j, i)));
                 }
             }
         }

@@ -34,11 +34,9 @@ final class HamiltonianSignIteration {
     /** Reciprocal 1-norm condition number of an iterate below which it counts as singular. */
     private static final double MIN_RECIPROCAL_CONDITION = 1e-15;
 
-    record Result(DMatrixRMaj sign, int iterations) {
-    }
+    record Result(DMatrixRMaj sign, int iterations) {}
 
-    private HamiltonianSignIteration() {
-    }
+    private HamiltonianSignIteration() {}
 
     static Result compute(DMatrixRMaj hamiltonian) {
         int dim = hamiltonian.numRows;

@@ -11,8 +11,7 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
  */
 final class KroneckerLyapunovSolver {
 
-    private KroneckerLyapunovSolver() {
-    }
+    private KroneckerLyapunovSolver() {}
 
     /** Returns X with {@code F'X + XF = S}, or null if the linear system is numerically singular. */
     static DMatrixRMaj solve(DMatrixRMaj f, DMatrixRMaj s) {

@@ -8,8 +8,7 @@ import org.ejml.dense.row.NormOps_DDRM;
 /** Relative residual of a candidate solution of {@code A'P + PA + PRP + Q = 0}. */
 public final class RiccatiResidual {
 
-    private RiccatiResidual() {
-    }
+    private RiccatiResidual() {}
 
     /**
      * Relative residual
@@ -40,8 +39,8 @@ public final class RiccatiResidual {
             s[i] = transAP.data[i] + pa.data[i] + prp.data[i] + q.data[i];
         }
         double numerator = NormOps_DDRM.normF(sum);
-        double denominator = NormOps_DDRM.normF(transAP) + NormOps_DDRM.normF(pa)
-                + NormOps_DDRM.normF(prp) + NormOps_DDRM.normF(q);
+        double denominator =
+                NormOps_DDRM.normF(transAP) + NormOps_DDRM.normF(pa) + NormOps_DDRM.normF(prp) + NormOps_DDRM.normF(q);
         if (!Double.isFinite(numerator) || !Double.isFinite(denominator)) {
             throw new IllegalArgumentException(
                     "Riccati residual overflowed: entries of A, R, Q or P are too large to evaluate in double precision");
@@ -52,7 +51,8 @@ public final class RiccatiResidual {
     static int requireSquare(DMatrixRMaj m, String name) {
         Objects.requireNonNull(m, name);
         if (m.numRows != m.numCols || m.numRows == 0) {
-            throw new IllegalArgumentException(name + " must be square and non-empty, got " + m.numRows + "x" + m.numCols);
+            throw new IllegalArgumentException(
+                    name + " must be square and non-empty, got " + m.numRows + "x" + m.numCols);
         }
         requireFinite(m, name);
         return m.numRows;
@@ -61,7 +61,8 @@ public final class RiccatiResidual {
     static void requireShape(DMatrixRMaj m, int n, String name) {
         Objects.requireNonNull(m, name);
         if (m.numRows != n || m.numCols != n) {
-            throw new IllegalArgumentException(name + " must be " + n + "x" + n + ", got " + m.numRows + "x" + m.numCols);
+            throw new IllegalArgumentException(
+                    name + " must be " + n + "x" + n + ", got " + m.numRows + "x" + m.numCols);
         }
         requireFinite(m, name);
     }
@@ -70,7 +71,8 @@ public final class RiccatiResidual {
         int size = m.getNumElements();
         for (int i = 0; i < size; i++) {
             if (!Double.isFinite(m.data[i])) {
-                throw new IllegalArgumentException(name + " has a non-finite entry at (" + i / m.numCols + ", " + i % m.numCols + ")");
+                throw new IllegalArgumentException(
+                        name + " has a non-finite entry at (" + i / m.numCols + ", " + i % m.numCols + ")");
             }
         }
     }

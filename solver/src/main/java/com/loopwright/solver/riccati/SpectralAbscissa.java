@@ -9,8 +9,7 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 /** Largest real part of the eigenvalues of a real square matrix (closed form for 2 x 2). */
 final class SpectralAbscissa {
 
-    private SpectralAbscissa() {
-    }
+    private SpectralAbscissa() {}
 
     /** Returns max Re(lambda_i(m)), or empty if the eigenvalue QR iteration failed. */
     static OptionalDouble of(DMatrixRMaj m) {

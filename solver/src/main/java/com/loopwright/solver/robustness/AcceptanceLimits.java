@@ -8,8 +8,8 @@ package com.loopwright.solver.robustness;
  * @param overshootPercent    overshoot limit
  * @param bandFraction        settling band as a fraction of the final value
  */
-public record AcceptanceLimits(Double settlingTimeSeconds, Double riseTimeSeconds, Double overshootPercent,
-                               double bandFraction) {
+public record AcceptanceLimits(
+        Double settlingTimeSeconds, Double riseTimeSeconds, Double overshootPercent, double bandFraction) {
 
     public AcceptanceLimits {
         if (!(bandFraction > 0 && bandFraction < 1)) {

@@ -8,7 +8,11 @@ package com.loopwright.solver.robustness;
 public final class CapExceededException extends IllegalArgumentException {
 
     /** Which request option is at fault, in solver terms. */
-    public enum Option { SAMPLE_PERIOD, INPUT_DELAY, DISTURBANCE_TIMING }
+    public enum Option {
+        SAMPLE_PERIOD,
+        INPUT_DELAY,
+        DISTURBANCE_TIMING
+    }
 
     private final Option option;
     private final int index;

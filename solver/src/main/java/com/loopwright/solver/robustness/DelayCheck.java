@@ -20,8 +20,15 @@ final class DelayCheck {
      * @param delayMarginSeconds the continuous loop's delay margin, null without a crossover
      * @param horizonSeconds     the simulated window, the slow horizon plus the delay
      */
-    DelayReport run(CanonicalPlant plant, FeedbackGains gains, double stepSize, double delay, double ts,
-                    Double delayMarginSeconds, AcceptanceLimits limits, double horizonSeconds) {
+    DelayReport run(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            double delay,
+            double ts,
+            Double delayMarginSeconds,
+            AcceptanceLimits limits,
+            double horizonSeconds) {
         DenseTrajectory trajectory = null;
         GridMetrics metrics = null;
         boolean diverges = false;
@@ -32,7 +39,14 @@ final class DelayCheck {
             diverges = true;
         }
         Verdict withinMargin = delayMarginSeconds == null ? Verdict.NOT_JUDGED : Verdict.of(delay < delayMarginSeconds);
-        return new DelayReport(delay, ts, delayMarginSeconds, withinMargin, diverges, metrics,
-                Verdict.ofStep(limits, metrics), trajectory);
+        return new DelayReport(
+                delay,
+                ts,
+                delayMarginSeconds,
+                withinMargin,
+                diverges,
+                metrics,
+                Verdict.ofStep(limits, metrics),
+                trajectory);
     }
 }

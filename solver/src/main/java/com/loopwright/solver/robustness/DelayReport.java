@@ -15,7 +15,12 @@ import com.loopwright.solver.design.GridMetrics;
  * @param meetsSpec            the delayed step against the acceptance limits (NOT_JUDGED without limits)
  * @param trajectory           the delayed step (null when it diverges)
  */
-public record DelayReport(double delaySeconds, double samplePeriodSeconds, Double delayMarginSeconds,
-                          Verdict withinMargin, boolean diverges, GridMetrics metrics, Verdict meetsSpec,
-                          DenseTrajectory trajectory) {
-}
+public record DelayReport(
+        double delaySeconds,
+        double samplePeriodSeconds,
+        Double delayMarginSeconds,
+        Verdict withinMargin,
+        boolean diverges,
+        GridMetrics metrics,
+        Verdict meetsSpec,
+        DenseTrajectory trajectory) {}

@@ -22,8 +22,8 @@ public final class DiscretePoleMatching {
      * @throws IllegalArgumentException when the sampled plant is not controllable (pathological sampling)
      */
     public FeedbackGains design(CanonicalPlant plant, FeedbackGains continuous, double samplePeriodSeconds) {
-        DiscreteStateSpace hold = ZeroOrderHold.discretize(LoopMatrices.openLoop(plant),
-                LoopMatrices.actuatorInput(plant), samplePeriodSeconds);
+        DiscreteStateSpace hold = ZeroOrderHold.discretize(
+                LoopMatrices.openLoop(plant), LoopMatrices.actuatorInput(plant), samplePeriodSeconds);
         DMatrixRMaj ad = hold.ad();
         DMatrixRMaj bd = hold.bd();
         double c0 = LoopMatrices.closedLoopStiffness(plant, continuous);
@@ -42,12 +42,12 @@ public final class DiscretePoleMatching {
         phi.add(1, 1, alpha0);
         DMatrixRMaj adBd = new DMatrixRMaj(2, 1);
         CommonOps_DDRM.mult(ad, bd, adBd);
-        DMatrixRMaj controllability = new DMatrixRMaj(new double[][] {
-            {bd.get(0, 0), adBd.get(0, 0)}, {bd.get(1, 0), adBd.get(1, 0)}});
+        DMatrixRMaj controllability =
+                new DMatrixRMaj(new double[][] {{bd.get(0, 0), adBd.get(0, 0)}, {bd.get(1, 0), adBd.get(1, 0)}});
         double det = CommonOps_DDRM.det(controllability);
         if (!(Math.abs(det) > 0) || !Double.isFinite(det)) {
-            throw new IllegalArgumentException("the sampled plant is not controllable at Ts = " + samplePeriodSeconds
-                    + " s");
+            throw new IllegalArgumentException(
+                    "the sampled plant is not controllable at Ts = " + samplePeriodSeconds + " s");
         }
         // last row of W^-1 for W = [[w00, w01], [w10, w11]]: [-w10, w00] / det
         double r0 = -controllability.get(1, 0) / det;
@@ -57,7 +57,8 @@ public final class DiscretePoleMatching {
         // (I - Ad + Bd K) x = Bd kr r, x1 = r
         DMatrixRMaj m = new DMatrixRMaj(new double[][] {
             {1 - ad.get(0, 0) + bd.get(0, 0) * k1, -ad.get(0, 1) + bd.get(0, 0) * k2},
-            {-ad.get(1, 0) + bd.get(1, 0) * k1, 1 - ad.get(1, 1) + bd.get(1, 0) * k2}});
+            {-ad.get(1, 0) + bd.get(1, 0) * k1, 1 - ad.get(1, 1) + bd.get(1, 0) * k2}
+        });
         DMatrixRMaj x = new DMatrixRMaj(2, 1);
         if (!CommonOps_DDRM.solve(m, bd, x)) {
             throw new IllegalArgumentException("the discrete loop has a pole at z = 1");

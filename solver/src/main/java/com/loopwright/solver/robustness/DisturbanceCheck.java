@@ -11,6 +11,5 @@ import com.loopwright.solver.plant.DisturbanceProfile;
  * @param withinNorm     observedGain &lt;= hinfNorm (1 + 1e-8)
  * @param withinGamma    observedGain &lt;= gamma (NOT_JUDGED when no gamma is known)
  */
-public record DisturbanceCheck(DisturbanceProfile profile, DisturbanceResponse response, boolean withinNorm,
-                               Verdict withinGamma) {
-}
+public record DisturbanceCheck(
+        DisturbanceProfile profile, DisturbanceResponse response, boolean withinNorm, Verdict withinGamma) {}

@@ -17,6 +17,7 @@ final class LongestSamplePeriodSearch {
 
     /** Search caps: doublings, halvings and bisections of the sample period. */
     static final int MAX_DOUBLINGS = 6;
+
     static final int MAX_HALVINGS = 12;
     static final int MAX_BISECTIONS = 20;
     static final double SEARCH_RELATIVE_WIDTH = 1e-3;
@@ -27,8 +28,8 @@ final class LongestSamplePeriodSearch {
         this.sampled = sampled;
     }
 
-    LongestSamplePeriod search(CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
-                               double horizon) {
+    LongestSamplePeriod search(
+            CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits, double horizon) {
         int[] evaluations = {0};
         double start = Math.PI / LoopMatrices.fastestPoleMagnitude(plant, gains);
         double lo;
@@ -74,16 +75,22 @@ final class LongestSamplePeriodSearch {
         return new LongestSamplePeriod(OptionalDouble.of(lo), false, evaluations[0]);
     }
 
-    private boolean meets(CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
-                          double horizon, double ts, int[] evaluations) {
+    private boolean meets(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            AcceptanceLimits limits,
+            double horizon,
+            double ts,
+            int[] evaluations) {
         Cancellation.checkpoint(); // one simulation of the longest-period search
         evaluations[0]++;
         if (Math.ceil(horizon / ts) > DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS) {
             return false;
         }
         try {
-            GridMetrics metrics = RobustnessVerifier.metricsOf(sampled.simulate(plant, gains, stepSize, ts, 0,
-                    horizon), plant, gains, stepSize, limits);
+            GridMetrics metrics = RobustnessVerifier.metricsOf(
+                    sampled.simulate(plant, gains, stepSize, ts, 0, horizon), plant, gains, stepSize, limits);
             return limits.met(metrics.settlingTimeSeconds(), metrics.riseTimeSeconds(), metrics.overshootPercent());
         } catch (IllegalArgumentException e) {
             return false;

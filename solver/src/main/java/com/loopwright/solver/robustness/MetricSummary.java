@@ -11,5 +11,4 @@ import com.loopwright.solver.plant.CanonicalPlant;
  * @param worstAt  parameters of the worst case
  * @param count    number of cases measured
  */
-public record MetricSummary(double min, double median, double max, CanonicalPlant worstAt, int count) {
-}
+public record MetricSummary(double min, double median, double max, CanonicalPlant worstAt, int count) {}

@@ -6,8 +6,8 @@ import com.loopwright.solver.plant.CanonicalPlant;
  * Closed intervals for the plant parameters a0, a1, b, d (lo == hi for a fixed parameter). A b interval must not
  * contain 0.
  */
-public record ParameterBox(double a0Min, double a0Max, double a1Min, double a1Max, double bMin, double bMax,
-                           double dMin, double dMax) {
+public record ParameterBox(
+        double a0Min, double a0Max, double a1Min, double a1Max, double bMin, double bMax, double dMin, double dMax) {
 
     public ParameterBox {
         double[] all = {a0Min, a0Max, a1Min, a1Max, bMin, bMax, dMin, dMax};
@@ -26,8 +26,8 @@ public record ParameterBox(double a0Min, double a0Max, double a1Min, double a1Ma
 
     /** The nominal plant as a degenerate box. */
     public static ParameterBox of(CanonicalPlant plant) {
-        return new ParameterBox(plant.a0(), plant.a0(), plant.a1(), plant.a1(), plant.b(), plant.b(), plant.d(),
-                plant.d());
+        return new ParameterBox(
+                plant.a0(), plant.a0(), plant.a1(), plant.a1(), plant.b(), plant.b(), plant.d(), plant.d());
     }
 
     double[] lows() {

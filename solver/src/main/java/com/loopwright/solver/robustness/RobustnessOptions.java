@@ -17,10 +17,17 @@ import java.util.List;
  * @param frequencyPoints         log-spaced frequency response points (0 for margins only)
  * @param seriesPoints            points per returned time series (0 for none)
  */
-public record RobustnessOptions(ParameterBox parameterBox, int monteCarloSamples, long seed,
-                                List<DisturbanceProfile> disturbances, Double actuatorLimit,
-                                Double samplePeriodSeconds, boolean searchLongestPeriod, Double inputDelaySeconds,
-                                int frequencyPoints, int seriesPoints) {
+public record RobustnessOptions(
+        ParameterBox parameterBox,
+        int monteCarloSamples,
+        long seed,
+        List<DisturbanceProfile> disturbances,
+        Double actuatorLimit,
+        Double samplePeriodSeconds,
+        boolean searchLongestPeriod,
+        Double inputDelaySeconds,
+        int frequencyPoints,
+        int seriesPoints) {
 
     public RobustnessOptions {
         disturbances = disturbances == null ? List.of() : List.copyOf(disturbances);

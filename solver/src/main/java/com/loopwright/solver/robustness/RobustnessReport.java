@@ -20,10 +20,18 @@ import java.util.List;
  * @param delay             input delay
  * @param nominalTrajectory the nominal step on the dense grid (for plots)
  */
-public record RobustnessReport(StepMetrics nominal, Verdict nominalMeetsSpec, double horizonSeconds, double hinfNorm,
-                               LoopMargins margins, UncertaintyReport uncertainty,
-                               List<DisturbanceCheck> disturbances, SaturationReport saturation,
-                               SampledReport sampled, DelayReport delay, DenseTrajectory nominalTrajectory) {
+public record RobustnessReport(
+        StepMetrics nominal,
+        Verdict nominalMeetsSpec,
+        double horizonSeconds,
+        double hinfNorm,
+        LoopMargins margins,
+        UncertaintyReport uncertainty,
+        List<DisturbanceCheck> disturbances,
+        SaturationReport saturation,
+        SampledReport sampled,
+        DelayReport delay,
+        DenseTrajectory nominalTrajectory) {
 
     public RobustnessReport {
         disturbances = List.copyOf(disturbances);

@@ -59,89 +59,138 @@ public final class RobustnessVerifier {
      * @throws UnstableLoopException when the nominal loop is unstable
      * @throws CapExceededException when a check would exceed a computation cap
      */
-    public RobustnessReport verify(CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
-                                   DMatrixRMaj performanceOutput, Double gamma, RobustnessOptions options) {
+    public RobustnessReport verify(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            AcceptanceLimits limits,
+            DMatrixRMaj performanceOutput,
+            Double gamma,
+            RobustnessOptions options) {
         requireStable(plant, gains);
         double horizon = LoopMatrices.horizonSeconds(plant, gains);
         StepMetrics nominal = nominalStep(plant, gains, stepSize, limits, horizon);
-        Verdict nominalMeets = Verdict.ofStep(limits, nominal.settlingTimeSeconds(), nominal.riseTimeSeconds(),
-                nominal.overshootPercent());
-        double hinf = plant.d() == 0 ? 0 : norms.compute(LoopMatrices.closedLoop(plant, gains),
-                LoopMatrices.disturbanceInput(plant), performanceOutput).value();
+        Verdict nominalMeets = Verdict.ofStep(
+                limits, nominal.settlingTimeSeconds(), nominal.riseTimeSeconds(), nominal.overshootPercent());
+        double hinf = plant.d() == 0
+                ? 0
+                : norms.compute(
+                                LoopMatrices.closedLoop(plant, gains),
+                                LoopMatrices.disturbanceInput(plant),
+                                performanceOutput)
+                        .value();
         LoopMargins margins = frequency.margins(plant, gains, options.frequencyPoints());
-        UncertaintyReport uncertain = options.parameterBox() == null ? null
-                : uncertainty.analyze(options.parameterBox(), gains, stepSize, limits, performanceOutput,
-                        options.monteCarloSamples(), options.seed());
-        List<DisturbanceCheck> checks = disturbances.run(plant, gains, options.disturbances(), performanceOutput,
-                hinf, gamma, horizon);
+        UncertaintyReport uncertain = options.parameterBox() == null
+                ? null
+                : uncertainty.analyze(
+                        options.parameterBox(),
+                        gains,
+                        stepSize,
+                        limits,
+                        performanceOutput,
+                        options.monteCarloSamples(),
+                        options.seed());
+        List<DisturbanceCheck> checks =
+                disturbances.run(plant, gains, options.disturbances(), performanceOutput, hinf, gamma, horizon);
         double slowHorizon = SLOW_HORIZON_FACTOR * horizon;
         if (options.inputDelaySeconds() != null) {
             requireDelayWithinCap(options.inputDelaySeconds(), horizon);
         }
-        SaturationReport saturationReport = options.actuatorLimit() == null ? null
-                : saturation.run(plant, gains, stepSize, options.actuatorLimit(), limits, nominal.peakControl(),
-                        slowHorizon);
+        SaturationReport saturationReport = options.actuatorLimit() == null
+                ? null
+                : saturation.run(
+                        plant, gains, stepSize, options.actuatorLimit(), limits, nominal.peakControl(), slowHorizon);
         SampledReport sampledReport = null;
         if (options.samplePeriodSeconds() != null) {
             double ts = options.samplePeriodSeconds();
             // the delayed step runs at the same Ts over a horizon longer by the delay: advise for the longer one
             double delayed = options.inputDelaySeconds() == null ? 0 : options.inputDelaySeconds();
             requireIntervals(ts, slowHorizon + delayed, CapExceededException.Option.SAMPLE_PERIOD);
-            sampledReport = sampledCheck.run(plant, gains, stepSize, ts, limits, options.searchLongestPeriod(),
-                    slowHorizon);
+            sampledReport =
+                    sampledCheck.run(plant, gains, stepSize, ts, limits, options.searchLongestPeriod(), slowHorizon);
         }
         DelayReport delayReport = null;
         if (options.inputDelaySeconds() != null) {
             double delay = options.inputDelaySeconds();
-            double ts = options.samplePeriodSeconds() != null ? options.samplePeriodSeconds()
+            double ts = options.samplePeriodSeconds() != null
+                    ? options.samplePeriodSeconds()
                     : slowHorizon / DELAY_SIMULATION_INTERVALS;
             double delayHorizon = slowHorizon + delay;
             requireIntervals(ts, delayHorizon, CapExceededException.Option.INPUT_DELAY);
-            delayReport = delayCheck.run(plant, gains, stepSize, delay, ts, margins.delayMarginSeconds(), limits,
-                    delayHorizon);
+            delayReport = delayCheck.run(
+                    plant, gains, stepSize, delay, ts, margins.delayMarginSeconds(), limits, delayHorizon);
         }
         DenseTrajectory nominalTrajectory = options.seriesPoints() > 0
-                ? saturated.simulate(plant, gains, stepSize, Double.POSITIVE_INFINITY, horizon) : null;
-        return new RobustnessReport(nominal, nominalMeets, horizon, hinf, margins, uncertain, checks,
-                saturationReport, sampledReport, delayReport, nominalTrajectory);
+                ? saturated.simulate(plant, gains, stepSize, Double.POSITIVE_INFINITY, horizon)
+                : null;
+        return new RobustnessReport(
+                nominal,
+                nominalMeets,
+                horizon,
+                hinf,
+                margins,
+                uncertain,
+                checks,
+                saturationReport,
+                sampledReport,
+                delayReport,
+                nominalTrajectory);
     }
 
     private static void requireStable(CanonicalPlant plant, FeedbackGains gains) {
         if (!LoopMatrices.stable(plant, gains)) {
-            throw new UnstableLoopException(String.format("the loop is unstable with these gains: closed-loop"
-                    + " stiffness a0 + b k1 = %.6g and damping a1 + b k2 = %.6g must both be positive",
+            throw new UnstableLoopException(String.format(
+                    "the loop is unstable with these gains: closed-loop"
+                            + " stiffness a0 + b k1 = %.6g and damping a1 + b k2 = %.6g must both be positive",
                     LoopMatrices.closedLoopStiffness(plant, gains), LoopMatrices.closedLoopDamping(plant, gains)));
         }
     }
 
     /** Exact step metrics of the nominal continuous loop, on enough samples for its fastest oscillation. */
-    private StepMetrics nominalStep(CanonicalPlant plant, FeedbackGains gains, double stepSize,
-                                    AcceptanceLimits limits, double horizon) {
-        double needed = Math.ceil(horizon * LoopMatrices.fastestOscillation(plant, gains)
-                / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
+    private StepMetrics nominalStep(
+            CanonicalPlant plant, FeedbackGains gains, double stepSize, AcceptanceLimits limits, double horizon) {
+        double needed = Math.ceil(horizon
+                        * LoopMatrices.fastestOscillation(plant, gains)
+                        / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE)
+                + 2;
         if (needed > StepSimulator.MAX_SAMPLES) {
             throw new UnstableLoopException("the loop is too lightly damped to simulate: it needs " + (long) needed
                     + " samples, more than " + StepSimulator.MAX_SAMPLES);
         }
-        return stepMetrics.measure(LinearLoop.ofStep(plant, gains), stepSize, horizon,
-                (int) Math.max(UncertaintyAnalyzer.BASE_GRID, needed), limits.bandFraction());
+        return stepMetrics.measure(
+                LinearLoop.ofStep(plant, gains),
+                stepSize,
+                horizon,
+                (int) Math.max(UncertaintyAnalyzer.BASE_GRID, needed),
+                limits.bandFraction());
     }
 
     private static void requireDelayWithinCap(double delay, double horizon) {
         if (delay > MAX_DELAY_HORIZONS * horizon) {
-            throw new CapExceededException(CapExceededException.Option.INPUT_DELAY, -1, String.format(
-                    "the input delay must be at most %.6g s (%s nominal horizon), got %.6g s",
-                    SafeRounding.atMost(MAX_DELAY_HORIZONS * horizon, ADVICE_DIGITS), fmt(MAX_DELAY_HORIZONS),
-                    delay));
+            throw new CapExceededException(
+                    CapExceededException.Option.INPUT_DELAY,
+                    -1,
+                    String.format(
+                            "the input delay must be at most %.6g s (%s nominal horizon), got %.6g s",
+                            SafeRounding.atMost(MAX_DELAY_HORIZONS * horizon, ADVICE_DIGITS),
+                            fmt(MAX_DELAY_HORIZONS),
+                            delay));
         }
     }
 
     private static void requireIntervals(double ts, double horizon, CapExceededException.Option option) {
         if (!fitsIntervals(ts, horizon)) {
-            throw new CapExceededException(option, -1, String.format("the sampled simulation over %.6g s at"
-                    + " Ts = %.6g s needs %.0f sample intervals, more than the cap %d: use Ts >= %.6g s", horizon, ts,
-                    Math.ceil(horizon / ts), DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS,
-                    shortestPeriod(horizon)));
+            throw new CapExceededException(
+                    option,
+                    -1,
+                    String.format(
+                            "the sampled simulation over %.6g s at"
+                                    + " Ts = %.6g s needs %.0f sample intervals, more than the cap %d: use Ts >= %.6g s",
+                            horizon,
+                            ts,
+                            Math.ceil(horizon / ts),
+                            DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS,
+                            shortestPeriod(horizon)));
         }
     }
 
@@ -162,11 +211,15 @@ public final class RobustnessVerifier {
         return advice;
     }
 
-    static GridMetrics metricsOf(DenseTrajectory trajectory, CanonicalPlant plant, FeedbackGains gains,
-                                         double stepSize, AcceptanceLimits limits) {
+    static GridMetrics metricsOf(
+            DenseTrajectory trajectory,
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            AcceptanceLimits limits) {
         // the sampled loop's DC gain equals the continuous one: at rest x2 = 0 and u = kr r - k1 x1 = a0 x1 / b
-        return GridMetrics.of(trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize,
-                limits.bandFraction());
+        return GridMetrics.of(
+                trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize, limits.bandFraction());
     }
 
     static String fmt(double value) {

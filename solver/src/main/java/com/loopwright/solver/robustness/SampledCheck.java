@@ -26,8 +26,14 @@ final class SampledCheck {
         this.longest = new LongestSamplePeriodSearch(sampled);
     }
 
-    SampledReport run(CanonicalPlant plant, FeedbackGains gains, double stepSize, double ts, AcceptanceLimits limits,
-                      boolean searchLongestPeriod, double horizonSeconds) {
+    SampledReport run(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            double ts,
+            AcceptanceLimits limits,
+            boolean searchLongestPeriod,
+            double horizonSeconds) {
         double radius = spectralRadius(plant, gains, ts);
         DenseTrajectory emulated = null;
         GridMetrics emulatedMetrics = null;
@@ -41,24 +47,37 @@ final class SampledCheck {
         GridMetrics directMetrics = null;
         try {
             directGains = discrete.design(plant, gains, ts);
-            directMetrics = RobustnessVerifier.metricsOf(sampled.simulate(plant, directGains, stepSize, ts, 0,
-                    horizonSeconds), plant, directGains, stepSize, limits);
+            directMetrics = RobustnessVerifier.metricsOf(
+                    sampled.simulate(plant, directGains, stepSize, ts, 0, horizonSeconds),
+                    plant,
+                    directGains,
+                    stepSize,
+                    limits);
         } catch (IllegalArgumentException e) {
             directMetrics = null; // the direct design overflowed: it cannot be used at this Ts
         }
         LongestSamplePeriod search = searchLongestPeriod && limits.judges()
-                ? longest.search(plant, gains, stepSize, limits, horizonSeconds) : LongestSamplePeriod.NOT_SEARCHED;
-        return new SampledReport(ts, radius, emulatedMetrics, Verdict.ofStep(limits, emulatedMetrics), directGains,
-                directMetrics, Verdict.ofStep(limits, directMetrics),
+                ? longest.search(plant, gains, stepSize, limits, horizonSeconds)
+                : LongestSamplePeriod.NOT_SEARCHED;
+        return new SampledReport(
+                ts,
+                radius,
+                emulatedMetrics,
+                Verdict.ofStep(limits, emulatedMetrics),
+                directGains,
+                directMetrics,
+                Verdict.ofStep(limits, directMetrics),
                 search.periodSeconds().isPresent() ? search.periodSeconds().getAsDouble() : null,
-                search.lowerBoundOnly(), search.evaluations(), emulated);
+                search.lowerBoundOnly(),
+                search.evaluations(),
+                emulated);
     }
 
     /** max |z| over the eigenvalues of Ad - Bd K, the emulated sampled loop without delay. */
     static double spectralRadius(CanonicalPlant plant, FeedbackGains gains, double ts) {
         try {
-            DiscreteStateSpace hold = ZeroOrderHold.discretize(LoopMatrices.openLoop(plant),
-                    LoopMatrices.actuatorInput(plant), ts);
+            DiscreteStateSpace hold =
+                    ZeroOrderHold.discretize(LoopMatrices.openLoop(plant), LoopMatrices.actuatorInput(plant), ts);
             DMatrixRMaj closed = hold.ad();
             DMatrixRMaj bd = hold.bd();
             for (int i = 0; i < 2; i++) {

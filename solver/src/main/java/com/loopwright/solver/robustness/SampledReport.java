@@ -21,8 +21,15 @@ import com.loopwright.solver.design.GridMetrics;
  * @param searchEvaluations         simulations spent in the search
  * @param trajectory                the emulated step
  */
-public record SampledReport(double samplePeriodSeconds, double spectralRadius, GridMetrics emulated, Verdict emulatedMeetsSpec,
-                            FeedbackGains directGains, GridMetrics direct, Verdict directMeetsSpec,
-                            Double longestPeriodSeconds, boolean longestPeriodIsLowerBound, int searchEvaluations,
-                            DenseTrajectory trajectory) {
-}
+public record SampledReport(
+        double samplePeriodSeconds,
+        double spectralRadius,
+        GridMetrics emulated,
+        Verdict emulatedMeetsSpec,
+        FeedbackGains directGains,
+        GridMetrics direct,
+        Verdict directMeetsSpec,
+        Double longestPeriodSeconds,
+        boolean longestPeriodIsLowerBound,
+        int searchEvaluations,
+        DenseTrajectory trajectory) {}

@@ -24,8 +24,12 @@ public final class SampledStepMetrics {
      * @return the metrics, or empty when the nominal loop is unstable, the sampled loop diverges, or the horizon
      *     needs more than the simulator's cap of sample intervals (a period that short behaves as the continuous loop)
      */
-    public Optional<GridMetrics> measure(CanonicalPlant plant, FeedbackGains gains, double stepSize,
-                                         double samplePeriodSeconds, double bandFraction) {
+    public Optional<GridMetrics> measure(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            double samplePeriodSeconds,
+            double bandFraction) {
         if (!LoopMatrices.stable(plant, gains)) {
             return Optional.empty();
         }
@@ -35,8 +39,8 @@ public final class SampledStepMetrics {
         }
         try {
             DenseTrajectory trajectory = simulator.simulate(plant, gains, stepSize, samplePeriodSeconds, 0, horizon);
-            return Optional.of(GridMetrics.of(trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize,
-                    bandFraction));
+            return Optional.of(
+                    GridMetrics.of(trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize, bandFraction));
         } catch (IllegalArgumentException e) {
             return Optional.empty(); // the state overflowed: the sampled loop diverges
         }

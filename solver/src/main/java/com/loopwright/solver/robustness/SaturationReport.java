@@ -16,7 +16,12 @@ import com.loopwright.solver.design.GridMetrics;
  * @param meetsSpec              the saturated step against the acceptance limits (NOT_JUDGED without limits)
  * @param trajectory             the saturated step
  */
-public record SaturationReport(double limit, double unsaturatedPeakControl, boolean saturates,
-                               Double largestUnsaturatedStep, boolean diverged, GridMetrics metrics, Verdict meetsSpec,
-                               DenseTrajectory trajectory) {
-}
+public record SaturationReport(
+        double limit,
+        double unsaturatedPeakControl,
+        boolean saturates,
+        Double largestUnsaturatedStep,
+        boolean diverged,
+        GridMetrics metrics,
+        Verdict meetsSpec,
+        DenseTrajectory trajectory) {}

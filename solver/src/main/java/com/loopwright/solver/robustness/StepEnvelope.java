@@ -27,8 +27,15 @@ public final class StepEnvelope {
      * @param interiorSamples seeded uniform samples inside the box, 0 to {@value #MAX_INTERIOR_SAMPLES}
      * @throws UnstableLoopException when no parameter set of the box gives a stable loop
      */
-    public Band sweep(ParameterBox box, CanonicalPlant nominal, FeedbackGains gains, double stepSize,
-                      double horizonSeconds, int samples, int interiorSamples, long seed) {
+    public Band sweep(
+            ParameterBox box,
+            CanonicalPlant nominal,
+            FeedbackGains gains,
+            double stepSize,
+            double horizonSeconds,
+            int samples,
+            int interiorSamples,
+            long seed) {
         if (interiorSamples < 0 || interiorSamples > MAX_INTERIOR_SAMPLES) {
             throw new IllegalArgumentException("interior samples must be from 0 to " + MAX_INTERIOR_SAMPLES);
         }
@@ -55,14 +62,16 @@ public final class StepEnvelope {
             }
             plants.add(ParameterBox.plant(p));
         }
-        double[] nominalX1 = response(nominal, gains, stepSize, horizonSeconds, samples).output();
+        double[] nominalX1 =
+                response(nominal, gains, stepSize, horizonSeconds, samples).output();
         double[] lower = nominalX1.clone();
         double[] upper = nominalX1.clone();
         double[] time = null;
         int unstable = 0;
         int drawn = 0;
         for (CanonicalPlant plant : plants) {
-            if (!(plant.a0() + plant.b() * gains.positionGain() > 0 && plant.a1() + plant.b() * gains.velocityGain() > 0)) {
+            if (!(plant.a0() + plant.b() * gains.positionGain() > 0
+                    && plant.a1() + plant.b() * gains.velocityGain() > 0)) {
                 unstable++;
                 continue;
             }
@@ -81,12 +90,13 @@ public final class StepEnvelope {
         return new Band(time, lower, upper, nominalX1, drawn, unstable);
     }
 
-    private StepResponse response(CanonicalPlant plant, FeedbackGains gains, double stepSize, double horizon,
-                                  int samples) {
+    private StepResponse response(
+            CanonicalPlant plant, FeedbackGains gains, double stepSize, double horizon, int samples) {
         double b = plant.b();
         LinearLoop loop = new LinearLoop(
-                new DMatrixRMaj(new double[][] {{0, 1},
-                    {-plant.a0() - b * gains.positionGain(), -plant.a1() - b * gains.velocityGain()}}),
+                new DMatrixRMaj(new double[][] {
+                    {0, 1}, {-plant.a0() - b * gains.positionGain(), -plant.a1() - b * gains.velocityGain()}
+                }),
                 new DMatrixRMaj(new double[][] {{0}, {b * gains.referenceGain()}}),
                 new DMatrixRMaj(new double[][] {{1, 0}}),
                 new DMatrixRMaj(new double[][] {{-gains.positionGain(), -gains.velocityGain()}}),
@@ -102,8 +112,13 @@ public final class StepEnvelope {
      * @param drawnCases   parameter sets in the band
      * @param unstableCases parameter sets left out because their loop is unstable
      */
-    public record Band(double[] timeSeconds, double[] lowerX1, double[] upperX1, double[] nominalX1, int drawnCases,
-                       int unstableCases) {
+    public record Band(
+            double[] timeSeconds,
+            double[] lowerX1,
+            double[] upperX1,
+            double[] nominalX1,
+            int drawnCases,
+            int unstableCases) {
         public Band {
             timeSeconds = timeSeconds.clone();
             lowerX1 = lowerX1.clone();

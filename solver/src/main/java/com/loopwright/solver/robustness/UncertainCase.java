@@ -15,7 +15,13 @@ import com.loopwright.solver.plant.CanonicalPlant;
  * @param disturbanceGain     H-infinity norm from w to the performance output (null if unstable or not computed)
  * @param meetsSpec           meets the acceptance limits (false when unstable)
  */
-public record UncertainCase(CanonicalPlant plant, boolean corner, boolean stable, Double settlingTimeSeconds,
-                            Double riseTimeSeconds, Double overshootPercent, Double peakControl,
-                            Double disturbanceGain, boolean meetsSpec) {
-}
+public record UncertainCase(
+        CanonicalPlant plant,
+        boolean corner,
+        boolean stable,
+        Double settlingTimeSeconds,
+        Double riseTimeSeconds,
+        Double overshootPercent,
+        Double peakControl,
+        Double disturbanceGain,
+        boolean meetsSpec) {}

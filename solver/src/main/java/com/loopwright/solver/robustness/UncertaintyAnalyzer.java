@@ -36,8 +36,14 @@ public final class UncertaintyAnalyzer {
     /**
      * @param performanceOutput C_z with z = C_z x (p x 2)
      */
-    public UncertaintyReport analyze(ParameterBox box, FeedbackGains gains, double stepSize, AcceptanceLimits limits,
-                                     DMatrixRMaj performanceOutput, int samples, long seed) {
+    public UncertaintyReport analyze(
+            ParameterBox box,
+            FeedbackGains gains,
+            double stepSize,
+            AcceptanceLimits limits,
+            DMatrixRMaj performanceOutput,
+            int samples,
+            long seed) {
         if (samples < 0 || samples > MAX_SAMPLES) {
             throw new IllegalArgumentException("samples must be 0 to " + MAX_SAMPLES);
         }
@@ -70,7 +76,8 @@ public final class UncertaintyAnalyzer {
         }
         int unstable = (int) all.stream().filter(c -> !c.stable()).count();
         Double fraction = limits.judges()
-                ? (double) all.stream().filter(UncertainCase::meetsSpec).count() / all.size() : null;
+                ? (double) all.stream().filter(UncertainCase::meetsSpec).count() / all.size()
+                : null;
         UncertainCase worst = null;
         if (limits.judges()) {
             double worstScore = Double.NEGATIVE_INFINITY;
@@ -82,34 +89,55 @@ public final class UncertaintyAnalyzer {
                 }
             }
         }
-        return new UncertaintyReport(corners.size(), samples, seed, unstable, fraction,
-                summary(all, UncertainCase::settlingTimeSeconds), summary(all, UncertainCase::riseTimeSeconds),
-                summary(all, UncertainCase::overshootPercent), summary(all, UncertainCase::peakControl),
-                summary(all, UncertainCase::disturbanceGain), worst, corners);
+        return new UncertaintyReport(
+                corners.size(),
+                samples,
+                seed,
+                unstable,
+                fraction,
+                summary(all, UncertainCase::settlingTimeSeconds),
+                summary(all, UncertainCase::riseTimeSeconds),
+                summary(all, UncertainCase::overshootPercent),
+                summary(all, UncertainCase::peakControl),
+                summary(all, UncertainCase::disturbanceGain),
+                worst,
+                corners);
     }
 
-    UncertainCase evaluate(CanonicalPlant plant, boolean corner, FeedbackGains gains, double stepSize,
-                           AcceptanceLimits limits, DMatrixRMaj performanceOutput) {
+    UncertainCase evaluate(
+            CanonicalPlant plant,
+            boolean corner,
+            FeedbackGains gains,
+            double stepSize,
+            AcceptanceLimits limits,
+            DMatrixRMaj performanceOutput) {
         if (!LoopMatrices.stable(plant, gains)) {
             return new UncertainCase(plant, corner, false, null, null, null, null, null, false);
         }
         StepMetrics step = null;
         try {
             double horizon = LoopMatrices.horizonSeconds(plant, gains);
-            double needed = Math.ceil(horizon * LoopMatrices.fastestOscillation(plant, gains)
-                    / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
+            double needed = Math.ceil(horizon
+                            * LoopMatrices.fastestOscillation(plant, gains)
+                            / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE)
+                    + 2;
             if (needed <= StepSimulator.MAX_SAMPLES) {
                 LinearLoop loop = LinearLoop.ofStep(plant, gains);
-                step = metrics.measure(loop, stepSize, horizon, (int) Math.max(BASE_GRID, needed),
-                        limits.bandFraction());
+                step = metrics.measure(
+                        loop, stepSize, horizon, (int) Math.max(BASE_GRID, needed), limits.bandFraction());
             }
         } catch (IllegalArgumentException e) {
             step = null; // not measurable in double precision (reported as a missing metric)
         }
         Double gain = null;
         try {
-            gain = plant.d() == 0 ? 0.0 : norms.compute(LoopMatrices.closedLoop(plant, gains),
-                    LoopMatrices.disturbanceInput(plant), performanceOutput).value();
+            gain = plant.d() == 0
+                    ? 0.0
+                    : norms.compute(
+                                    LoopMatrices.closedLoop(plant, gains),
+                                    LoopMatrices.disturbanceInput(plant),
+                                    performanceOutput)
+                            .value();
         } catch (RuntimeException e) {
             gain = null;
         }
@@ -117,8 +145,16 @@ public final class UncertaintyAnalyzer {
             return new UncertainCase(plant, corner, true, null, null, null, null, gain, false);
         }
         boolean meets = limits.met(step.settlingTimeSeconds(), step.riseTimeSeconds(), step.overshootPercent());
-        return new UncertainCase(plant, corner, true, step.settlingTimeSeconds(), step.riseTimeSeconds(),
-                step.overshootPercent(), step.peakControl(), gain, meets);
+        return new UncertainCase(
+                plant,
+                corner,
+                true,
+                step.settlingTimeSeconds(),
+                step.riseTimeSeconds(),
+                step.overshootPercent(),
+                step.peakControl(),
+                gain,
+                meets);
     }
 
     /** Largest ratio metric / limit; unstable or unmeasured cases score infinity. */
@@ -140,7 +176,8 @@ public final class UncertaintyAnalyzer {
     }
 
     private static MetricSummary summary(List<UncertainCase> cases, Function<UncertainCase, Double> metric) {
-        List<UncertainCase> measured = cases.stream().filter(c -> metric.apply(c) != null).toList();
+        List<UncertainCase> measured =
+                cases.stream().filter(c -> metric.apply(c) != null).toList();
         if (measured.isEmpty()) {
             return null;
         }

@@ -19,10 +19,19 @@ import java.util.List;
  *                             metric to its limit); null when nothing is judged
  * @param cases                the corners, in binary order over (a0, a1, b, d) low/high
  */
-public record UncertaintyReport(int cornerCount, int sampleCount, long seed, int unstableCount,
-                                Double meetingFraction, MetricSummary settlingTime, MetricSummary riseTime,
-                                MetricSummary overshootPercent, MetricSummary peakControl,
-                                MetricSummary disturbanceGain, UncertainCase worstCase, List<UncertainCase> cases) {
+public record UncertaintyReport(
+        int cornerCount,
+        int sampleCount,
+        long seed,
+        int unstableCount,
+        Double meetingFraction,
+        MetricSummary settlingTime,
+        MetricSummary riseTime,
+        MetricSummary overshootPercent,
+        MetricSummary peakControl,
+        MetricSummary disturbanceGain,
+        UncertainCase worstCase,
+        List<UncertainCase> cases) {
 
     public UncertaintyReport {
         cases = List.copyOf(cases);

@@ -5,8 +5,7 @@ import org.ejml.data.DMatrixRMaj;
 /** x+ = Ad x + Bd v for a two-state, one-input hold; checks that the state stays finite. */
 public final class CheckedHoldStep {
 
-    private CheckedHoldStep() {
-    }
+    private CheckedHoldStep() {}
 
     public static double[] apply(DiscreteStateSpace hold, double[] x, double input) {
         DMatrixRMaj ad = hold.ad();

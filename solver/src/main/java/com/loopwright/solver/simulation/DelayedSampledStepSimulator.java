@@ -25,13 +25,19 @@ public final class DelayedSampledStepSimulator {
     public static final int MAX_SUBSTEPS = 2_000;
     /** Target total number of observation points; each interval has at least {@link #MIN_SUBSTEPS}. */
     public static final int TARGET_POINTS = 20_000;
+
     public static final int MIN_SUBSTEPS = 4;
 
     /**
      * @throws IllegalArgumentException when the horizon needs more than {@value #MAX_SAMPLE_INTERVALS} intervals
      */
-    public DenseTrajectory simulate(CanonicalPlant plant, FeedbackGains gains, double stepSize, double samplePeriodSeconds,
-                             double delaySeconds, double horizonSeconds) {
+    public DenseTrajectory simulate(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double stepSize,
+            double samplePeriodSeconds,
+            double delaySeconds,
+            double horizonSeconds) {
         double intervalsExact = Math.ceil(horizonSeconds / samplePeriodSeconds);
         if (!(intervalsExact <= MAX_SAMPLE_INTERVALS)) {
             throw new IllegalArgumentException("the horizon " + horizonSeconds + " s needs " + (long) intervalsExact

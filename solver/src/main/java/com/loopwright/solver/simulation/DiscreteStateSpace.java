@@ -18,15 +18,15 @@ public record DiscreteStateSpace(DMatrixRMaj ad, DMatrixRMaj bd, double samplePe
         }
         if (ad.numRows != ad.numCols || ad.numRows < 1) {
             throw new IllegalArgumentException(
-                "ad must be square and non-empty, got " + ad.numRows + " x " + ad.numCols);
+                    "ad must be square and non-empty, got " + ad.numRows + " x " + ad.numCols);
         }
         if (bd.numRows != ad.numRows || bd.numCols < 1) {
-            throw new IllegalArgumentException("bd must be " + ad.numRows + " x m with m >= 1, got "
-                + bd.numRows + " x " + bd.numCols);
+            throw new IllegalArgumentException(
+                    "bd must be " + ad.numRows + " x m with m >= 1, got " + bd.numRows + " x " + bd.numCols);
         }
         if (!(samplePeriodSeconds > 0.0) || !Double.isFinite(samplePeriodSeconds)) {
             throw new IllegalArgumentException(
-                "samplePeriodSeconds must be finite and positive, got " + samplePeriodSeconds);
+                    "samplePeriodSeconds must be finite and positive, got " + samplePeriodSeconds);
         }
         MatrixChecks.requireFinite(ad, "ad");
         MatrixChecks.requireFinite(bd, "bd");

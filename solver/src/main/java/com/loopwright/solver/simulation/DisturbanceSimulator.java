@@ -29,8 +29,12 @@ public final class DisturbanceSimulator {
     /**
      * @param performanceOutput C_z, p x 2 (z = C_z x); for example [[rho1, 0], [0, rho2], [-k1, -k2]]
      */
-    public DisturbanceResponse simulate(CanonicalPlant plant, FeedbackGains gains, DisturbanceProfile profile,
-                                 DMatrixRMaj performanceOutput, double horizonSeconds) {
+    public DisturbanceResponse simulate(
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            DisturbanceProfile profile,
+            DMatrixRMaj performanceOutput,
+            double horizonSeconds) {
         DMatrixRMaj closed = LoopMatrices.closedLoop(plant, gains);
         DMatrixRMaj b1 = LoopMatrices.disturbanceInput(plant);
         int steps = GRID_POINTS - 1;
@@ -76,14 +80,26 @@ public final class DisturbanceSimulator {
         double outputEnergy = Math.sqrt(Math.max(0, outputEnergySquared));
         double disturbanceEnergy = Math.sqrt(disturbanceEnergySquared);
         Double recovery = recovery(profile, plant, gains, t, x1, w, peak);
-        return new DisturbanceResponse(peak, absoluteIntegral, Math.max(0, positionEnergySquared), recovery,
-                peakControl, disturbanceEnergy, outputEnergy,
+        return new DisturbanceResponse(
+                peak,
+                absoluteIntegral,
+                Math.max(0, positionEnergySquared),
+                recovery,
+                peakControl,
+                disturbanceEnergy,
+                outputEnergy,
                 disturbanceEnergy == 0 ? 0 : outputEnergy / disturbanceEnergy,
                 new DenseTrajectory(t, x1, x2, u, wOut));
     }
 
-    private static Double recovery(DisturbanceProfile profile, CanonicalPlant plant, FeedbackGains gains, double[] t,
-                                   double[] x1, double[] w, double peak) {
+    private static Double recovery(
+            DisturbanceProfile profile,
+            CanonicalPlant plant,
+            FeedbackGains gains,
+            double[] t,
+            double[] x1,
+            double[] w,
+            double peak) {
         double from = profile.settledFromSeconds();
         if (from < 0 || peak == 0) {
             return null;

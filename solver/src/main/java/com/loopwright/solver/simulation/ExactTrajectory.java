@@ -23,8 +23,12 @@ final class ExactTrajectory {
      *     expression of {@link StepSimulator}
      * @param sampleCount number of samples on [0, horizon], at least 2
      */
-    ExactTrajectory(LinearLoop loop, double reference, double horizonSeconds, int sampleCount,
-                    SubIntervalPropagator propagator) {
+    ExactTrajectory(
+            LinearLoop loop,
+            double reference,
+            double horizonSeconds,
+            int sampleCount,
+            SubIntervalPropagator propagator) {
         DMatrixRMaj aMatrix = loop.a();
         this.n = aMatrix.numRows;
         this.a = aMatrix.data;
@@ -47,8 +51,7 @@ final class ExactTrajectory {
      * Writes x(t) for t in [t_k, t_(k+1)] into target, propagated exactly from
      * x_k = state[offset .. offset + n).
      */
-    void stateBetween(int sampleIndex, double[] state, int offset, double tSeconds,
-                      double[] target) {
+    void stateBetween(int sampleIndex, double[] state, int offset, double tSeconds, double[] target) {
         double tau = tSeconds - time(sampleIndex);
         if (tau <= 0.0) {
             System.arraycopy(state, offset, target, 0, n);

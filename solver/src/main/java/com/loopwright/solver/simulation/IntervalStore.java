@@ -19,6 +19,7 @@ final class IntervalStore {
     private double[] states;
     /** s_k, s'_k, s_(k+1), s'_(k+1) of entry i at [4 i, 4 i + 4). */
     private double[] ends;
+
     private double[] keys;
 
     IntervalStore(int stateDimension) {
@@ -35,8 +36,14 @@ final class IntervalStore {
     }
 
     /** Appends interval k with x_k = state[0 .. n). */
-    void add(int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd,
-             double rateAtEnd, double key) {
+    void add(
+            int k,
+            double[] state,
+            double valueAtStart,
+            double rateAtStart,
+            double valueAtEnd,
+            double rateAtEnd,
+            double key) {
         if (index == null) {
             index = new int[INITIAL_CAPACITY];
             states = new double[INITIAL_CAPACITY * n];
@@ -139,8 +146,7 @@ final class IntervalStore {
         int right = middle;
         for (int out = from; out < to; out++) {
             // Take from the left run unless the right one's key is strictly larger: stable.
-            if (right >= to || (left < middle
-                && Double.compare(keys[scratch[right]], keys[scratch[left]]) <= 0)) {
+            if (right >= to || (left < middle && Double.compare(keys[scratch[right]], keys[scratch[left]]) <= 0)) {
                 order[out] = scratch[left++];
             } else {
                 order[out] = scratch[right++];

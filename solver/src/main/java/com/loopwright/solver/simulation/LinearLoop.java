@@ -15,8 +15,7 @@ import org.ejml.data.DMatrixRMaj;
  * @param cControl control row, 1 x n
  * @param dControl feedthrough from r to u
  */
-public record LinearLoop(DMatrixRMaj a, DMatrixRMaj bRef, DMatrixRMaj cOut, DMatrixRMaj cControl,
-                         double dControl) {
+public record LinearLoop(DMatrixRMaj a, DMatrixRMaj bRef, DMatrixRMaj cOut, DMatrixRMaj cControl, double dControl) {
 
     /** Largest state dimension: the block exponential of [[A, bRef], [0, 0]] is (n + 1) square. */
     public static final int MAX_STATE_DIMENSION = ZeroOrderHold.MAX_BLOCK_DIMENSION - 1;
@@ -25,7 +24,8 @@ public record LinearLoop(DMatrixRMaj a, DMatrixRMaj bRef, DMatrixRMaj cOut, DMat
      * The canonical plant under u = kr r - k1 x1 - k2 x2, seen from the reference: y = x1, u = -K x + kr r.
      */
     public static LinearLoop ofStep(CanonicalPlant plant, FeedbackGains gains) {
-        return new LinearLoop(LoopMatrices.closedLoop(plant, gains),
+        return new LinearLoop(
+                LoopMatrices.closedLoop(plant, gains),
                 new DMatrixRMaj(new double[][] {{0}, {plant.b() * gains.referenceGain()}}),
                 new DMatrixRMaj(new double[][] {{1, 0}}),
                 new DMatrixRMaj(new double[][] {{-gains.positionGain(), -gains.velocityGain()}}),
@@ -38,8 +38,7 @@ public record LinearLoop(DMatrixRMaj a, DMatrixRMaj bRef, DMatrixRMaj cOut, DMat
         }
         int n = a.numRows;
         if (n < 1 || n > MAX_STATE_DIMENSION) {
-            throw new IllegalArgumentException(
-                "state dimension must be in [1, " + MAX_STATE_DIMENSION + "], got " + n);
+            throw new IllegalArgumentException("state dimension must be in [1, " + MAX_STATE_DIMENSION + "], got " + n);
         }
         MatrixChecks.requireShape(a, n, n, "a");
         MatrixChecks.requireShape(bRef, n, 1, "bRef");

@@ -10,8 +10,7 @@ package com.loopwright.solver.simulation;
 final class MaximumScan {
 
     /** A time and the signal value there. */
-    record Point(double timeSeconds, double value) {
-    }
+    record Point(double timeSeconds, double value) {}
 
     private final SignalBetweenSamples signal;
     private final IntervalStore candidates;
@@ -34,8 +33,7 @@ final class MaximumScan {
      * Interval k from x_k = state[0 .. n), then sample k + 1 (k = 0, 1, ... in order); values
      * and rates of the signed signal.
      */
-    void interval(int k, double[] state, double valueAtStart, double rateAtStart,
-                  double valueAtEnd, double rateAtEnd) {
+    void interval(int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
         // The per-sample tests stay small; the rare candidate is handled in a separate method.
         if (rateAtStart > 0.0 && rateAtEnd < 0.0) {
             consider(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
@@ -47,10 +45,10 @@ final class MaximumScan {
     }
 
     /** Interval k has an interior maximum: keeps it if its bound beats the best sample so far. */
-    private void consider(int k, double[] state, double valueAtStart, double rateAtStart,
-                          double valueAtEnd, double rateAtEnd) {
+    private void consider(
+            int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
         double bound = SignalBetweenSamples.interiorMaximumBound(
-            signal.time(k + 1) - signal.time(k), valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
+                signal.time(k + 1) - signal.time(k), valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
         if (bound > bestValue) {
             candidates.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, bound);
         }
@@ -70,8 +68,8 @@ final class MaximumScan {
             }
             int k = candidates.sampleIndex(entry);
             int from = candidates.stateOffset(entry);
-            double tStar = signal.criticalTime(k, states, from, candidates.rateAtStart(entry),
-                candidates.rateAtEnd(entry));
+            double tStar =
+                    signal.criticalTime(k, states, from, candidates.rateAtStart(entry), candidates.rateAtEnd(entry));
             Point refined = new Point(tStar, signal.valueBetween(k, states, from, tStar));
             if (refined.value() > best.value()) {
                 best = refined;

@@ -23,6 +23,7 @@ final class RiseScan {
     private final double[] timeSeconds;
     /** The level being scanned; levels.length when done. */
     private int current;
+
     private double level;
     private RuntimeException failure;
 
@@ -47,38 +48,41 @@ final class RiseScan {
     }
 
     /** Interval k from x_k = state[0 .. n) with the end values and rates of s. */
-    void interval(int k, double[] state, double valueAtStart, double rateAtStart,
-                  double valueAtEnd, double rateAtEnd) {
+    void interval(int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
         // The per-sample test stays small; the rare refinements are a separate method.
-        if (current < levels.length && (valueAtEnd >= level
-            || rateAtStart > 0.0 && rateAtEnd < 0.0)) {
+        if (current < levels.length && (valueAtEnd >= level || rateAtStart > 0.0 && rateAtEnd < 0.0)) {
             refine(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd);
         }
     }
 
     /** Interval k for the current level and, once it is reached, for the levels above it. */
-    private void refine(int k, double[] state, double valueAtStart, double rateAtStart,
-                        double valueAtEnd, double rateAtEnd) {
+    private void refine(
+            int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
         try {
             boolean reached = true;
             while (current < levels.length && reached) {
                 reached = false;
-                if (rateAtStart > 0.0 && rateAtEnd < 0.0
-                    && SignalBetweenSamples.interiorMaximumBound(signal.time(k + 1)
-                        - signal.time(k), valueAtStart, rateAtStart, valueAtEnd, rateAtEnd) >= level) {
+                if (rateAtStart > 0.0
+                        && rateAtEnd < 0.0
+                        && SignalBetweenSamples.interiorMaximumBound(
+                                        signal.time(k + 1) - signal.time(k),
+                                        valueAtStart,
+                                        rateAtStart,
+                                        valueAtEnd,
+                                        rateAtEnd)
+                                >= level) {
                     double peakTime = signal.criticalTime(k, state, 0, rateAtStart, rateAtEnd);
                     double peakValue = signal.valueBetween(k, state, 0, peakTime);
                     if (peakValue >= level) {
                         // s rises monotonically from t_k to the peak
-                        finish(signal.crossing(k, state, 0, level, signal.time(k), valueAtStart,
-                            peakTime, peakValue));
+                        finish(signal.crossing(k, state, 0, level, signal.time(k), valueAtStart, peakTime, peakValue));
                         reached = true;
                         continue;
                     }
                 }
                 if (valueAtEnd >= level) {
-                    finish(signal.crossing(k, state, 0, level, signal.time(k), valueAtStart,
-                        signal.time(k + 1), valueAtEnd));
+                    finish(signal.crossing(
+                            k, state, 0, level, signal.time(k), valueAtStart, signal.time(k + 1), valueAtEnd));
                     reached = true;
                 }
             }

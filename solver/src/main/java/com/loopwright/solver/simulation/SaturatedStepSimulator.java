@@ -23,10 +23,14 @@ public final class SaturatedStepSimulator {
     /** Mode switches handled inside one grid step. */
     public static final int MAX_SWITCHES_PER_STEP = 4;
 
-    private enum Mode { LINEAR, HIGH, LOW }
+    private enum Mode {
+        LINEAR,
+        HIGH,
+        LOW
+    }
 
-    public DenseTrajectory simulate(CanonicalPlant plant, FeedbackGains gains, double stepSize, double limit,
-                             double horizonSeconds) {
+    public DenseTrajectory simulate(
+            CanonicalPlant plant, FeedbackGains gains, double stepSize, double limit, double horizonSeconds) {
         DMatrixRMaj open = LoopMatrices.openLoop(plant);
         DMatrixRMaj closed = LoopMatrices.closedLoop(plant, gains);
         DMatrixRMaj b2 = LoopMatrices.actuatorInput(plant);
@@ -51,23 +55,38 @@ public final class SaturatedStepSimulator {
         return new DenseTrajectory(t, x1, x2, u, new double[GRID_POINTS]);
     }
 
-    private double[] advance(double[] x, double h, DiscreteStateSpace linearStep, DiscreteStateSpace saturatedStep,
-                             DMatrixRMaj open, DMatrixRMaj closed, DMatrixRMaj b2, FeedbackGains gains,
-                             double reference, double limit) {
+    private double[] advance(
+            double[] x,
+            double h,
+            DiscreteStateSpace linearStep,
+            DiscreteStateSpace saturatedStep,
+            DMatrixRMaj open,
+            DMatrixRMaj closed,
+            DMatrixRMaj b2,
+            FeedbackGains gains,
+            double reference,
+            double limit) {
         double remaining = h;
         for (int s = 0; s <= MAX_SWITCHES_PER_STEP && remaining > 0; s++) {
             Mode mode = modeAt(x, gains, reference, limit);
             boolean full = remaining == h;
-            double[] end = full ? propagate(x, mode == Mode.LINEAR ? linearStep : saturatedStep, mode, reference,
-                    limit) : propagate(x, remaining, mode, open, closed, b2, reference, limit);
+            double[] end = full
+                    ? propagate(x, mode == Mode.LINEAR ? linearStep : saturatedStep, mode, reference, limit)
+                    : propagate(x, remaining, mode, open, closed, b2, reference, limit);
             if (modeAt(end, gains, reference, limit) == mode || s == MAX_SWITCHES_PER_STEP) {
                 return end;
             }
             double[] start = x;
             // g(tau) = excess over the limit along the current mode's trajectory; changes sign at the switch
-            double tau = BracketedRoot.bisection(dt -> excess(dt <= 0 ? start
-                    : propagate(start, dt, mode, open, closed, b2, reference, limit), gains, reference, limit, mode),
-                    0, remaining);
+            double tau = BracketedRoot.bisection(
+                    dt -> excess(
+                            dt <= 0 ? start : propagate(start, dt, mode, open, closed, b2, reference, limit),
+                            gains,
+                            reference,
+                            limit,
+                            mode),
+                    0,
+                    remaining);
             tau = Math.max(tau, Math.ulp(remaining));
             x = propagate(start, Math.min(tau, remaining), mode, open, closed, b2, reference, limit);
             remaining -= tau;
@@ -102,14 +121,20 @@ public final class SaturatedStepSimulator {
         return Math.max(-limit, Math.min(limit, command));
     }
 
-    private static double[] propagate(double[] x, double dt, Mode mode, DMatrixRMaj open, DMatrixRMaj closed,
-                                      DMatrixRMaj b2, double reference, double limit) {
+    private static double[] propagate(
+            double[] x,
+            double dt,
+            Mode mode,
+            DMatrixRMaj open,
+            DMatrixRMaj closed,
+            DMatrixRMaj b2,
+            double reference,
+            double limit) {
         DiscreteStateSpace hold = ZeroOrderHold.discretize(mode == Mode.LINEAR ? closed : open, b2, dt);
         return propagate(x, hold, mode, reference, limit);
     }
 
-    private static double[] propagate(double[] x, DiscreteStateSpace hold, Mode mode, double reference,
-                                      double limit) {
+    private static double[] propagate(double[] x, DiscreteStateSpace hold, Mode mode, double reference, double limit) {
         double input = switch (mode) {
             case LINEAR -> reference;
             case HIGH -> limit;

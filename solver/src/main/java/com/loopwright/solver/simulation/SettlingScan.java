@@ -35,8 +35,7 @@ final class SettlingScan {
     }
 
     /** Interval k (k = 0, 1, ... in order, each after sample k) from x_k = state[0 .. n). */
-    void interval(int k, double[] state, double valueAtStart, double rateAtStart,
-                  double valueAtEnd, double rateAtEnd) {
+    void interval(int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
         // The per-sample tests stay small; the rare bookkeeping is in separate methods.
         if (k == lastOutside && !(Math.abs(valueAtEnd - centre) > halfWidth)) {
             keepLastOutside(state, valueAtEnd);
@@ -57,18 +56,18 @@ final class SettlingScan {
         System.arraycopy(state, 0, stateOutside, 0, stateOutside.length);
     }
 
-    private void considerMaximum(int k, double[] state, double valueAtStart, double rateAtStart,
-                                 double valueAtEnd, double rateAtEnd) {
-        if (SignalBetweenSamples.interiorMaximumBound(width(k), valueAtStart, rateAtStart,
-            valueAtEnd, rateAtEnd) > upper) {
+    private void considerMaximum(
+            int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
+        if (SignalBetweenSamples.interiorMaximumBound(width(k), valueAtStart, rateAtStart, valueAtEnd, rateAtEnd)
+                > upper) {
             excursions.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, 0.0);
         }
     }
 
-    private void considerMinimum(int k, double[] state, double valueAtStart, double rateAtStart,
-                                 double valueAtEnd, double rateAtEnd) {
-        if (SignalBetweenSamples.interiorMinimumBound(width(k), valueAtStart, rateAtStart,
-            valueAtEnd, rateAtEnd) < lower) {
+    private void considerMinimum(
+            int k, double[] state, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
+        if (SignalBetweenSamples.interiorMinimumBound(width(k), valueAtStart, rateAtStart, valueAtEnd, rateAtEnd)
+                < lower) {
             excursions.add(k, state, valueAtStart, rateAtStart, valueAtEnd, rateAtEnd, 0.0);
         }
     }
@@ -106,14 +105,21 @@ final class SettlingScan {
             double extremumTime = signal.criticalTime(k, states, from, rateAtStart, rateAtEnd);
             double extremumValue = signal.valueBetween(k, states, from, extremumTime);
             if (rateAtStart > 0.0 ? extremumValue > upper : extremumValue < lower) {
-                return signal.crossing(k, states, from, level, extremumTime, extremumValue,
-                    signal.time(k + 1), valueAtEnd);
+                return signal.crossing(
+                        k, states, from, level, extremumTime, extremumValue, signal.time(k + 1), valueAtEnd);
             }
         }
         if (lastOutside >= 0) {
             double level = valueOutside > centre ? upper : lower;
-            return signal.crossing(lastOutside, stateOutside, 0, level, signal.time(lastOutside),
-                valueOutside, signal.time(lastOutside + 1), valueAfterOutside);
+            return signal.crossing(
+                    lastOutside,
+                    stateOutside,
+                    0,
+                    level,
+                    signal.time(lastOutside),
+                    valueOutside,
+                    signal.time(lastOutside + 1),
+                    valueAfterOutside);
         }
         return signal.time(0);
     }

@@ -54,21 +54,31 @@ final class SignalBetweenSamples {
      * (which must differ in sign).
      */
     double criticalTime(int k, double[] state, int from, double rateAtStart, double rateAtEnd) {
-        return BracketedRoot.brent(t -> rateBetween(k, state, from, t), time(k), time(k + 1),
-            rateAtStart, rateAtEnd);
+        return BracketedRoot.brent(t -> rateBetween(k, state, from, t), time(k), time(k + 1), rateAtStart, rateAtEnd);
     }
 
     /**
      * The time in [loSeconds, hiSeconds] within interval k where s = level, given the signal
      * values at the bracket ends (they must straddle the level).
      */
-    double crossing(int k, double[] state, int from, double level, double loSeconds,
-                    double valueAtLo, double hiSeconds, double valueAtHi) {
+    double crossing(
+            int k,
+            double[] state,
+            int from,
+            double level,
+            double loSeconds,
+            double valueAtLo,
+            double hiSeconds,
+            double valueAtHi) {
         if (loSeconds == hiSeconds) {
             return loSeconds;
         }
-        return BracketedRoot.brent(t -> valueBetween(k, state, from, t) - level, loSeconds,
-            hiSeconds, valueAtLo - level, valueAtHi - level);
+        return BracketedRoot.brent(
+                t -> valueBetween(k, state, from, t) - level,
+                loSeconds,
+                hiSeconds,
+                valueAtLo - level,
+                valueAtHi - level);
     }
 
     /**
@@ -76,16 +86,14 @@ final class SignalBetweenSamples {
      * across the interval of width h, s(t*) <= s_k + s'_k h and s(t*) <= s_(k+1) - s'_(k+1) h; a
      * factor 2 on the increments adds a margin for a non-monotone s'.
      */
-    static double interiorMaximumBound(double widthSeconds, double valueAtStart,
-                                       double rateAtStart, double valueAtEnd, double rateAtEnd) {
-        return Math.min(valueAtStart + 2.0 * rateAtStart * widthSeconds,
-            valueAtEnd - 2.0 * rateAtEnd * widthSeconds);
+    static double interiorMaximumBound(
+            double widthSeconds, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
+        return Math.min(valueAtStart + 2.0 * rateAtStart * widthSeconds, valueAtEnd - 2.0 * rateAtEnd * widthSeconds);
     }
 
     /** Lower estimate of an interior minimum on interval k, mirror of the maximum bound. */
-    static double interiorMinimumBound(double widthSeconds, double valueAtStart,
-                                       double rateAtStart, double valueAtEnd, double rateAtEnd) {
-        return Math.max(valueAtStart + 2.0 * rateAtStart * widthSeconds,
-            valueAtEnd - 2.0 * rateAtEnd * widthSeconds);
+    static double interiorMinimumBound(
+            double widthSeconds, double valueAtStart, double rateAtStart, double valueAtEnd, double rateAtEnd) {
+        return Math.max(valueAtStart + 2.0 * rateAtStart * widthSeconds, valueAtEnd - 2.0 * rateAtEnd * widthSeconds);
     }
 }

@@ -17,10 +17,12 @@ final class StepMetricsScan implements StepSampleSink {
 
     /** The rise-start and rise-end levels, in that order. */
     private final RiseScan rise;
+
     private final SettlingScan settling;
     private final MaximumScan outputMaximum;
     /** The maximum of -z: the undershoot. */
     private final MaximumScan outputMinimum;
+
     private final MaximumScan controlMaximum;
     private final MaximumScan controlMinimum;
     /** A failure to build the propagation between samples, reported after the pass. */
@@ -28,6 +30,7 @@ final class StepMetricsScan implements StepSampleSink {
 
     /** x_(k-1) while sample k is handled: the simulator's array, unchanged until then. */
     private double[] previousState;
+
     private double previousOutput;
     private double previousOutputRate;
     private double previousControl;
@@ -39,10 +42,16 @@ final class StepMetricsScan implements StepSampleSink {
      * @param riseEndLevel the higher level of z whose first time ends the rise
      * @param bandHalfWidth settling band around z = 1
      */
-    StepMetricsScan(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
-                    double[] outputWeights, double riseStartLevel, double riseEndLevel,
-                    double bandHalfWidth,
-                    BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
+    StepMetricsScan(
+            LinearLoop loop,
+            double stepSize,
+            double horizonSeconds,
+            int samples,
+            double[] outputWeights,
+            double riseStartLevel,
+            double riseEndLevel,
+            double bandHalfWidth,
+            BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
         int n = loop.stateDimension();
         SubIntervalPropagator propagator = null;
         try {
@@ -50,18 +59,13 @@ final class StepMetricsScan implements StepSampleSink {
         } catch (RuntimeException e) {
             propagationFailure = e;
         }
-        ExactTrajectory trajectory =
-            new ExactTrajectory(loop, stepSize, horizonSeconds, samples, propagator);
-        SignalBetweenSamples output =
-            new SignalBetweenSamples(trajectory, outputWeights, 0.0, 1.0);
-        SignalBetweenSamples negatedOutput =
-            new SignalBetweenSamples(trajectory, outputWeights, 0.0, -1.0);
+        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, horizonSeconds, samples, propagator);
+        SignalBetweenSamples output = new SignalBetweenSamples(trajectory, outputWeights, 0.0, 1.0);
+        SignalBetweenSamples negatedOutput = new SignalBetweenSamples(trajectory, outputWeights, 0.0, -1.0);
         double[] cControl = loop.cControl().data;
         double feedthrough = loop.dControl() * stepSize;
-        SignalBetweenSamples control =
-            new SignalBetweenSamples(trajectory, cControl, feedthrough, 1.0);
-        SignalBetweenSamples negatedControl =
-            new SignalBetweenSamples(trajectory, cControl, feedthrough, -1.0);
+        SignalBetweenSamples control = new SignalBetweenSamples(trajectory, cControl, feedthrough, 1.0);
+        SignalBetweenSamples negatedControl = new SignalBetweenSamples(trajectory, cControl, feedthrough, -1.0);
         this.rise = new RiseScan(output, riseStartLevel, riseEndLevel);
         this.settling = new SettlingScan(output, n, 1.0, bandHalfWidth);
         this.outputMaximum = new MaximumScan(output, n);
@@ -74,8 +78,8 @@ final class StepMetricsScan implements StepSampleSink {
     }
 
     @Override
-    public void accept(int k, double[] state, double outputValue, double outputRate,
-                       double controlValue, double controlRate) {
+    public void accept(
+            int k, double[] state, double outputValue, double outputRate, double controlValue, double controlRate) {
         // Kept small, so that the simulator's loop can inline it with the scans' per-sample tests.
         if (k == 0) {
             first(state, outputValue, outputRate, controlValue, controlRate);
@@ -84,16 +88,11 @@ final class StepMetricsScan implements StepSampleSink {
         int interval = k - 1;
         double[] from = previousState;
         rise.interval(interval, from, previousOutput, previousOutputRate, outputValue, outputRate);
-        settling.interval(interval, from, previousOutput, previousOutputRate, outputValue,
-            outputRate);
-        outputMaximum.interval(interval, from, previousOutput, previousOutputRate, outputValue,
-            outputRate);
-        outputMinimum.interval(interval, from, -previousOutput, -previousOutputRate,
-            -outputValue, -outputRate);
-        controlMaximum.interval(interval, from, previousControl, previousControlRate,
-            controlValue, controlRate);
-        controlMinimum.interval(interval, from, -previousControl, -previousControlRate,
-            -controlValue, -controlRate);
+        settling.interval(interval, from, previousOutput, previousOutputRate, outputValue, outputRate);
+        outputMaximum.interval(interval, from, previousOutput, previousOutputRate, outputValue, outputRate);
+        outputMinimum.interval(interval, from, -previousOutput, -previousOutputRate, -outputValue, -outputRate);
+        controlMaximum.interval(interval, from, previousControl, previousControlRate, controlValue, controlRate);
+        controlMinimum.interval(interval, from, -previousControl, -previousControlRate, -controlValue, -controlRate);
         settling.sample(k, outputValue);
         previousState = state;
         previousOutput = outputValue;
@@ -103,8 +102,7 @@ final class StepMetricsScan implements StepSampleSink {
     }
 
     /** Sample 0. */
-    private void first(double[] state, double outputValue, double outputRate,
-                       double controlValue, double controlRate) {
+    private void first(double[] state, double outputValue, double outputRate, double controlValue, double controlRate) {
         rise.firstSample(outputValue);
         outputMaximum.firstSample(outputValue);
         outputMinimum.firstSample(-outputValue);

@@ -32,8 +32,8 @@ public final class StepResponse {
      * @param control u(t_k), finite, one per sample
      * @throws IllegalArgumentException on null, mismatched, non-finite or non-increasing input
      */
-    public StepResponse(double[] timeSeconds, double[] stateRowMajor, int stateDimension,
-                        double[] output, double[] control) {
+    public StepResponse(
+            double[] timeSeconds, double[] stateRowMajor, int stateDimension, double[] output, double[] control) {
         if (timeSeconds == null || stateRowMajor == null || output == null || control == null) {
             throw new IllegalArgumentException("arrays must not be null");
         }
@@ -42,12 +42,12 @@ public final class StepResponse {
         }
         int count = timeSeconds.length;
         if (count < 2 || output.length != count || control.length != count) {
-            throw new IllegalArgumentException("need at least 2 samples and equal lengths, got time "
-                + count + ", output " + output.length + ", control " + control.length);
+            throw new IllegalArgumentException("need at least 2 samples and equal lengths, got time " + count
+                    + ", output " + output.length + ", control " + control.length);
         }
         if (stateRowMajor.length != (long) count * stateDimension) {
-            throw new IllegalArgumentException("states must hold " + count + " x " + stateDimension
-                + " entries, got " + stateRowMajor.length);
+            throw new IllegalArgumentException(
+                    "states must hold " + count + " x " + stateDimension + " entries, got " + stateRowMajor.length);
         }
         double[] timeCopy = timeSeconds.clone();
         double[] stateCopy = stateRowMajor.clone();
@@ -57,8 +57,7 @@ public final class StepResponse {
             for (int i = 0; i < stateDimension; i++) {
                 double value = stateCopy[k * stateDimension + i];
                 if (!Double.isFinite(value)) {
-                    throw new IllegalArgumentException(
-                        "state[" + k + "][" + i + "] is not finite: " + value);
+                    throw new IllegalArgumentException("state[" + k + "][" + i + "] is not finite: " + value);
                 }
             }
             if (k > 0 && !(timeCopy[k] > timeCopy[k - 1])) {
@@ -75,8 +74,8 @@ public final class StepResponse {
         this.control = controlCopy;
     }
 
-    private StepResponse(int stateDimension, double[] timeSeconds, double[] stateRowMajor,
-                         double[] output, double[] control) {
+    private StepResponse(
+            int stateDimension, double[] timeSeconds, double[] stateRowMajor, double[] output, double[] control) {
         this.timeSeconds = timeSeconds;
         this.stateRowMajor = stateRowMajor;
         this.stateDimension = stateDimension;
@@ -88,8 +87,8 @@ public final class StepResponse {
      * Takes the arrays over without copying or checking: for {@link StepSimulator}, which has
      * already checked them and never touches them again.
      */
-    static StepResponse owning(double[] timeSeconds, double[] stateRowMajor, int stateDimension,
-                               double[] output, double[] control) {
+    static StepResponse owning(
+            double[] timeSeconds, double[] stateRowMajor, int stateDimension, double[] output, double[] control) {
         return new StepResponse(stateDimension, timeSeconds, stateRowMajor, output, control);
     }
 
@@ -153,8 +152,8 @@ public final class StepResponse {
     public double state(int sampleIndex, int stateIndex) {
         checkSample(sampleIndex);
         if (stateIndex < 0 || stateIndex >= stateDimension) {
-            throw new IllegalArgumentException("state index " + stateIndex + " outside [0, "
-                + (stateDimension - 1) + "]");
+            throw new IllegalArgumentException(
+                    "state index " + stateIndex + " outside [0, " + (stateDimension - 1) + "]");
         }
         return stateRowMajor[sampleIndex * stateDimension + stateIndex];
     }
@@ -168,8 +167,8 @@ public final class StepResponse {
 
     private void checkSample(int sampleIndex) {
         if (sampleIndex < 0 || sampleIndex >= timeSeconds.length) {
-            throw new IllegalArgumentException("sample index " + sampleIndex + " outside [0, "
-                + (timeSeconds.length - 1) + "]");
+            throw new IllegalArgumentException(
+                    "sample index " + sampleIndex + " outside [0, " + (timeSeconds.length - 1) + "]");
         }
     }
 
@@ -181,10 +180,12 @@ public final class StepResponse {
     /** Equal when every array holds the same values (compared as by {@link Arrays#equals}). */
     @Override
     public boolean equals(Object other) {
-        return other instanceof StepResponse that && stateDimension == that.stateDimension
-            && Arrays.equals(timeSeconds, that.timeSeconds)
-            && Arrays.equals(stateRowMajor, that.stateRowMajor)
-            && Arrays.equals(output, that.output) && Arrays.equals(control, that.control);
+        return other instanceof StepResponse that
+                && stateDimension == that.stateDimension
+                && Arrays.equals(timeSeconds, that.timeSeconds)
+                && Arrays.equals(stateRowMajor, that.stateRowMajor)
+                && Arrays.equals(output, that.output)
+                && Arrays.equals(control, that.control);
     }
 
     @Override
@@ -198,7 +199,7 @@ public final class StepResponse {
 
     @Override
     public String toString() {
-        return "StepResponse[" + timeSeconds.length + " samples of " + stateDimension
-            + " states, t = 0 .. " + timeSeconds[timeSeconds.length - 1] + " s]";
+        return "StepResponse[" + timeSeconds.length + " samples of " + stateDimension + " states, t = 0 .. "
+                + timeSeconds[timeSeconds.length - 1] + " s]";
     }
 }

@@ -53,35 +53,36 @@ public final class StepResponseMetrics {
      * @throws HorizonTooShortException if the output does not reach 90% of y_inf or is outside the
      *     settling band at the horizon
      */
-    public StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
-                               double settlingBandFraction) {
-        return measure(loop, stepSize, horizonSeconds, samples, settlingBandFraction,
-            SubIntervalPropagator::of);
+    public StepMetrics measure(
+            LinearLoop loop, double stepSize, double horizonSeconds, int samples, double settlingBandFraction) {
+        return measure(loop, stepSize, horizonSeconds, samples, settlingBandFraction, SubIntervalPropagator::of);
     }
 
     /**
      * {@link #measure(LinearLoop, double, double, int, double)} with a chosen propagation between
      * samples (tests compare the closed form for n = 2 with the general zero-order hold).
      */
-    StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
-                        double settlingBandFraction,
-                        BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
+    StepMetrics measure(
+            LinearLoop loop,
+            double stepSize,
+            double horizonSeconds,
+            int samples,
+            double settlingBandFraction,
+            BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
         StepSimulator.validate(loop, stepSize, horizonSeconds, samples);
         if (stepSize == 0.0) {
             throw new IllegalArgumentException("stepSize must be non-zero");
         }
         if (!(settlingBandFraction > 0.0 && settlingBandFraction < 1.0)) {
-            throw new IllegalArgumentException(
-                "settlingBandFraction must be in (0, 1), got " + settlingBandFraction);
+            throw new IllegalArgumentException("settlingBandFraction must be in (0, 1), got " + settlingBandFraction);
         }
         double maxOscillationRadPerSecond = requireHurwitz(loop.a());
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
         if (samplePeriodSeconds * maxOscillationRadPerSecond > MAX_RADIANS_PER_SAMPLE) {
-            double needed = Math.ceil(horizonSeconds * maxOscillationRadPerSecond
-                / MAX_RADIANS_PER_SAMPLE) + 1;
+            double needed = Math.ceil(horizonSeconds * maxOscillationRadPerSecond / MAX_RADIANS_PER_SAMPLE) + 1;
             throw new IllegalArgumentException("sample grid too coarse: the fastest oscillation ("
-                + maxOscillationRadPerSecond + " rad/s) needs at least " + (long) needed
-                + " samples over " + horizonSeconds + " s, got " + samples);
+                    + maxOscillationRadPerSecond + " rad/s) needs at least " + (long) needed
+                    + " samples over " + horizonSeconds + " s, got " + samples);
         }
         double finalValue = finalValue(loop, stepSize);
 
@@ -91,29 +92,36 @@ public final class StepResponseMetrics {
         for (int j = 0; j < n; j++) {
             normalisedOutputWeights[j] = cOut.get(0, j) / finalValue;
             if (!Double.isFinite(normalisedOutputWeights[j])) {
-                throw new IllegalArgumentException("cOut / y_inf overflows: final value "
-                    + finalValue + " is too close to zero");
+                throw new IllegalArgumentException(
+                        "cOut / y_inf overflows: final value " + finalValue + " is too close to zero");
             }
         }
         // z = y / y_inf: z(0) = 0, z -> 1; and u. The simulator streams their sample values and
         // rates into the scans, which keep only the intervals that may hold events.
-        StepMetricsScan scan = new StepMetricsScan(loop, stepSize, horizonSeconds, samples,
-            normalisedOutputWeights, RISE_START_FRACTION, RISE_END_FRACTION,
-            settlingBandFraction, propagators);
-        StepSimulator.stream(loop, stepSize, horizonSeconds, samples, normalisedOutputWeights,
-            scan);
+        StepMetricsScan scan = new StepMetricsScan(
+                loop,
+                stepSize,
+                horizonSeconds,
+                samples,
+                normalisedOutputWeights,
+                RISE_START_FRACTION,
+                RISE_END_FRACTION,
+                settlingBandFraction,
+                propagators);
+        StepSimulator.stream(loop, stepSize, horizonSeconds, samples, normalisedOutputWeights, scan);
         scan.throwDeferred();
 
         double riseStart = scan.riseStartSeconds();
         double riseEnd = scan.riseEndSeconds();
         if (riseStart < 0.0 || riseEnd < 0.0) {
             throw new HorizonTooShortException(
-                "the output does not reach 90% of its final value " + finalValue, horizonSeconds);
+                    "the output does not reach 90% of its final value " + finalValue, horizonSeconds);
         }
         double settlingTimeSeconds = scan.settlingSeconds();
         if (settlingTimeSeconds < 0.0) {
-            throw new HorizonTooShortException("the output is outside the "
-                + settlingBandFraction + " settling band at the horizon", horizonSeconds);
+            throw new HorizonTooShortException(
+                    "the output is outside the " + settlingBandFraction + " settling band at the horizon",
+                    horizonSeconds);
         }
         MaximumScan.Point peak = scan.outputMaximum();
         double overshootPercent = Math.max(0.0, 100.0 * (peak.value() - 1.0));
@@ -125,10 +133,18 @@ public final class StepResponseMetrics {
 
         // undershoot: the largest excursion of z opposite to the final value, refined between
         // samples like the overshoot (z(0) = 0 is a sample, so it is never negative)
-        double undershootPercent = Math.max(0.0, 100.0 * scan.outputMinimumNegated().value());
+        double undershootPercent =
+                Math.max(0.0, 100.0 * scan.outputMinimumNegated().value());
 
-        return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,
-            peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue, undershootPercent);
+        return new StepMetrics(
+                riseEnd - riseStart,
+                settlingTimeSeconds,
+                overshootPercent,
+                peak.timeSeconds(),
+                stepSize - finalValue,
+                peakControl,
+                finalValue,
+                undershootPercent);
     }
 
     /** Checks Re lambda < 0 for every eigenvalue; returns max |Im lambda| in rad/s (closed form for n = 2). */
@@ -143,8 +159,7 @@ public final class StepResponseMetrics {
             }
             return spectrum.maxImaginary();
         }
-        EigenDecomposition_F64<DMatrixRMaj> eigen =
-            DecompositionFactory_DDRM.eig(a.numRows, false, false);
+        EigenDecomposition_F64<DMatrixRMaj> eigen = DecompositionFactory_DDRM.eig(a.numRows, false, false);
         if (!eigen.decompose(a.copy())) {
             throw new IllegalArgumentException("eigenvalues of A could not be computed");
         }
@@ -161,8 +176,8 @@ public final class StepResponseMetrics {
 
     private static IllegalArgumentException notHurwitz(double real, double imaginary) {
         return new IllegalArgumentException("A is not Hurwitz: eigenvalue " + real
-            + (imaginary >= 0 ? " + " : " - ") + Math.abs(imaginary)
-            + "i has a non-negative real part, so the step response has no final value");
+                + (imaginary >= 0 ? " + " : " - ") + Math.abs(imaginary)
+                + "i has a non-negative real part, so the step response has no final value");
     }
 
     /** y_inf = cOut x_inf with A x_inf = -bRef r (the equilibrium of x' = A x + bRef r). */
@@ -188,7 +203,7 @@ public final class StepResponseMetrics {
         }
         if (finalValue == 0.0) {
             throw new IllegalArgumentException(
-                "final value is zero: rise, overshoot and settling relative to it are undefined");
+                    "final value is zero: rise, overshoot and settling relative to it are undefined");
         }
         return finalValue;
     }

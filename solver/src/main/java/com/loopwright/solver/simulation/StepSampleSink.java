@@ -17,6 +17,5 @@ interface StepSampleSink {
      * @param controlValue u_k, exactly as in {@link StepResponse#control()}
      * @param controlRate u'_k = 0 + sum_i cControl_i (bRef_i r + sum_j a_ij x_j)
      */
-    void accept(int k, double[] state, double outputValue, double outputRate, double controlValue,
-                double controlRate);
+    void accept(int k, double[] state, double outputValue, double outputRate, double controlValue, double controlRate);
 }

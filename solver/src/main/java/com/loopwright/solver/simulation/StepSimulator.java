@@ -27,8 +27,7 @@ public final class StepSimulator {
      * @throws IllegalArgumentException on bad arguments, or if the response overflows double
      *     precision within the horizon (an unstable loop over a long horizon)
      */
-    public StepResponse simulate(LinearLoop loop, double stepSize, double horizonSeconds,
-                                 int samples) {
+    public StepResponse simulate(LinearLoop loop, double stepSize, double horizonSeconds, int samples) {
         return sample(loop, stepSize, horizonSeconds, samples);
     }
 
@@ -48,8 +47,7 @@ public final class StepSimulator {
         validate(loop, stepSize, horizonSeconds, samples);
         int n = loop.stateDimension();
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        DiscreteStateSpace discrete =
-            ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
         // Row-major data of fresh copies (DiscreteStateSpace and LinearLoop return copies).
         double[] ad = discrete.ad().data;
         double[] bd = discrete.bd().data;
@@ -68,16 +66,14 @@ public final class StepSimulator {
         // t_k = horizon k / (samples - 1); the last sample is exactly the horizon
         double intervals = samples - 1;
         double guard = n == 2
-            ? new TwoStateRecursion(ad, drive, cOut, cControl, feedthrough).run(samples,
-                (k, x0, x1, y, u) -> {
+                ? new TwoStateRecursion(ad, drive, cOut, cControl, feedthrough).run(samples, (k, x0, x1, y, u) -> {
                     timeSeconds[k] = horizonSeconds * (k / intervals);
                     state[2 * k] = x0;
                     state[2 * k + 1] = x1;
                     output[k] = y;
                     control[k] = u;
                 })
-            : new StateRecursion(n, ad, drive, cOut, cControl, feedthrough).run(samples,
-                (k, x, y, u) -> {
+                : new StateRecursion(n, ad, drive, cOut, cControl, feedthrough).run(samples, (k, x, y, u) -> {
                     timeSeconds[k] = horizonSeconds * (k / intervals);
                     System.arraycopy(x, 0, state, k * n, n);
                     output[k] = y;
@@ -104,13 +100,17 @@ public final class StepSimulator {
      * pass, as {@link #sample} does, so the sink may see non-finite samples before the exception;
      * it must defer its own failures until this method returns.
      */
-    static void stream(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
-                       double[] outputWeights, StepSampleSink sink) {
+    static void stream(
+            LinearLoop loop,
+            double stepSize,
+            double horizonSeconds,
+            int samples,
+            double[] outputWeights,
+            StepSampleSink sink) {
         validate(loop, stepSize, horizonSeconds, samples);
         int n = loop.stateDimension();
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        DiscreteStateSpace discrete =
-            ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
         double[] ad = discrete.ad().data;
         double[] bd = discrete.bd().data;
         double[] a = loop.a().data;
@@ -125,13 +125,26 @@ public final class StepSimulator {
             rateDrive[i] = bRef[i] * stepSize;
         }
         double guard = n == 2
-            ? streamTwoStates(new TwoStateRecursion(ad, drive, cOut, cControl, feedthrough), samples, a,
-                rateDrive, cControl, outputWeights, sink)
-            : streamAnyStates(new StateRecursion(n, ad, drive, cOut, cControl, feedthrough), n, samples, a,
-                rateDrive, cControl, outputWeights, sink);
+                ? streamTwoStates(
+                        new TwoStateRecursion(ad, drive, cOut, cControl, feedthrough),
+                        samples,
+                        a,
+                        rateDrive,
+                        cControl,
+                        outputWeights,
+                        sink)
+                : streamAnyStates(
+                        new StateRecursion(n, ad, drive, cOut, cControl, feedthrough),
+                        n,
+                        samples,
+                        a,
+                        rateDrive,
+                        cControl,
+                        outputWeights,
+                        sink);
         if (!Double.isFinite(guard)) {
-            replayFirstOverflow(new StateRecursion(n, ad, drive, cOut, cControl, feedthrough), n, horizonSeconds,
-                samples);
+            replayFirstOverflow(
+                    new StateRecursion(n, ad, drive, cOut, cControl, feedthrough), n, horizonSeconds, samples);
         }
         // t_k = fl(horizon fl(k / (samples - 1))): the quotients grow by about 1 / (samples - 1)
         // >= 1e-5, far above their rounding, so the times can only repeat where the spacing h is
@@ -154,9 +167,14 @@ public final class StepSimulator {
      * The streaming pass for n = 2 on the unrolled recursion: rates x' = A x + bRef r in locals; x_k goes to one of
      * two arrays by the parity of k, so it survives the next call. Returns the running sum of y + u.
      */
-    private static double streamTwoStates(TwoStateRecursion recursion, int samples, double[] a,
-                                          double[] rateDrive, double[] cControl, double[] outputWeights,
-                                          StepSampleSink sink) {
+    private static double streamTwoStates(
+            TwoStateRecursion recursion,
+            int samples,
+            double[] a,
+            double[] rateDrive,
+            double[] cControl,
+            double[] outputWeights,
+            StepSampleSink sink) {
         double a00 = a[0];
         double a01 = a[1];
         double a10 = a[2];
@@ -175,15 +193,21 @@ public final class StepSimulator {
             double[] state = (k & 1) == 0 ? even : odd;
             state[0] = x0;
             state[1] = x1;
-            sink.accept(k, state, 0.0 + w0 * x0 + w1 * x1, 0.0 + w0 * rate0 + w1 * rate1, u,
-                0.0 + k0 * rate0 + k1 * rate1);
+            sink.accept(
+                    k, state, 0.0 + w0 * x0 + w1 * x1, 0.0 + w0 * rate0 + w1 * rate1, u, 0.0 + k0 * rate0 + k1 * rate1);
         });
     }
 
     /** The streaming pass for any n: the same sums as for n = 2, in loops. Returns the running sum of y + u. */
-    private static double streamAnyStates(StateRecursion recursion, int n, int samples, double[] a,
-                                          double[] rateDrive, double[] cControl, double[] outputWeights,
-                                          StepSampleSink sink) {
+    private static double streamAnyStates(
+            StateRecursion recursion,
+            int n,
+            int samples,
+            double[] a,
+            double[] rateDrive,
+            double[] cControl,
+            double[] outputWeights,
+            StepSampleSink sink) {
         return recursion.run(samples, (k, state, y, u) -> {
             double value = 0.0;
             double rate = 0.0;
@@ -213,30 +237,30 @@ public final class StepSimulator {
             double timeSeconds = horizonSeconds * (k / intervals);
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(state[i])) {
-                    throw new IllegalArgumentException("response overflows double precision at t = "
-                        + timeSeconds + " s: the loop diverges over this horizon");
+                    throw new IllegalArgumentException("response overflows double precision at t = " + timeSeconds
+                            + " s: the loop diverges over this horizon");
                 }
             }
             if (!Double.isFinite(y) || !Double.isFinite(u)) {
-                throw new IllegalArgumentException("output or control overflows double precision at t = "
-                    + timeSeconds + " s");
+                throw new IllegalArgumentException(
+                        "output or control overflows double precision at t = " + timeSeconds + " s");
             }
         });
     }
 
     /** Throws for the first non-finite sample, states before outputs; returns on a false alarm. */
-    private static void reportFirstOverflow(int n, double[] timeSeconds, double[] state,
-                                            double[] output, double[] control) {
+    private static void reportFirstOverflow(
+            int n, double[] timeSeconds, double[] state, double[] output, double[] control) {
         for (int k = 0; k < timeSeconds.length; k++) {
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(state[k * n + i])) {
-                    throw new IllegalArgumentException("response overflows double precision at t = "
-                        + timeSeconds[k] + " s: the loop diverges over this horizon");
+                    throw new IllegalArgumentException("response overflows double precision at t = " + timeSeconds[k]
+                            + " s: the loop diverges over this horizon");
                 }
             }
             if (!Double.isFinite(output[k]) || !Double.isFinite(control[k])) {
-                throw new IllegalArgumentException("output or control overflows double precision at t = "
-                    + timeSeconds[k] + " s");
+                throw new IllegalArgumentException(
+                        "output or control overflows double precision at t = " + timeSeconds[k] + " s");
             }
         }
     }
@@ -249,16 +273,15 @@ public final class StepSimulator {
             throw new IllegalArgumentException("stepSize must be finite, got " + stepSize);
         }
         if (!(horizonSeconds > 0.0) || !Double.isFinite(horizonSeconds)) {
-            throw new IllegalArgumentException(
-                "horizonSeconds must be finite and positive, got " + horizonSeconds);
+            throw new IllegalArgumentException("horizonSeconds must be finite and positive, got " + horizonSeconds);
         }
         if (samples < MIN_SAMPLES || samples > MAX_SAMPLES) {
-            throw new IllegalArgumentException("samples must be in [" + MIN_SAMPLES + ", "
-                + MAX_SAMPLES + "], got " + samples);
+            throw new IllegalArgumentException(
+                    "samples must be in [" + MIN_SAMPLES + ", " + MAX_SAMPLES + "], got " + samples);
         }
         if (!(horizonSeconds / (samples - 1) > 0.0)) {
-            throw new IllegalArgumentException("sample period underflows: horizon " + horizonSeconds
-                + " s over " + (samples - 1) + " intervals");
+            throw new IllegalArgumentException(
+                    "sample period underflows: horizon " + horizonSeconds + " s over " + (samples - 1) + " intervals");
         }
     }
 }

@@ -20,7 +20,7 @@ interface SubIntervalPropagator {
      */
     static SubIntervalPropagator of(LinearLoop loop, double reference) {
         return loop.stateDimension() == 2
-            ? new TwoStatePropagator(loop, reference)
-            : new HoldPropagator(loop, reference);
+                ? new TwoStatePropagator(loop, reference)
+                : new HoldPropagator(loop, reference);
     }
 }

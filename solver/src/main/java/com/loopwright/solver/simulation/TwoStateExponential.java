@@ -54,8 +54,7 @@ final class TwoStateExponential {
 
     /** A = [[a11, a12], [a21, a22]], all finite. */
     TwoStateExponential(double a11, double a12, double a21, double a22) {
-        if (!Double.isFinite(a11) || !Double.isFinite(a12) || !Double.isFinite(a21)
-            || !Double.isFinite(a22)) {
+        if (!Double.isFinite(a11) || !Double.isFinite(a12) || !Double.isFinite(a21) || !Double.isFinite(a22)) {
             throw new IllegalArgumentException("A must be finite");
         }
         this.halfTrace = 0.5 * (a11 + a22);
@@ -64,8 +63,7 @@ final class TwoStateExponential {
         this.a21 = a21;
         this.discriminant = halfDifference * halfDifference + a12 * a21;
         this.determinant = a11 * a22 - a12 * a21;
-        if (!Double.isFinite(halfTrace) || !Double.isFinite(discriminant)
-            || !Double.isFinite(determinant)) {
+        if (!Double.isFinite(halfTrace) || !Double.isFinite(discriminant) || !Double.isFinite(determinant)) {
             throw new IllegalArgumentException("A is too large for the closed-form exponential");
         }
     }

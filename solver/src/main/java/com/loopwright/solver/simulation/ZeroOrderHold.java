@@ -17,8 +17,7 @@ public final class ZeroOrderHold {
     /** Largest state dimension n: the block matrix has n + m rows. */
     public static final int MAX_BLOCK_DIMENSION = MatrixExponential.MAX_DIMENSION;
 
-    private ZeroOrderHold() {
-    }
+    private ZeroOrderHold() {}
 
     /**
      * Discretizes x' = A x + B u exactly for piecewise-constant u.
@@ -29,28 +28,25 @@ public final class ZeroOrderHold {
      * @throws IllegalArgumentException on null, mismatched or non-finite arguments, on a
      *     non-positive period, or if the exponential of the block matrix cannot be formed
      */
-    public static DiscreteStateSpace discretize(DMatrixRMaj a, DMatrixRMaj b,
-                                                double samplePeriodSeconds) {
+    public static DiscreteStateSpace discretize(DMatrixRMaj a, DMatrixRMaj b, double samplePeriodSeconds) {
         if (a == null || b == null) {
             throw new IllegalArgumentException("a and b must not be null");
         }
         int n = a.numRows;
         if (a.numCols != n || n < 1) {
-            throw new IllegalArgumentException(
-                "a must be square and non-empty, got " + a.numRows + " x " + a.numCols);
+            throw new IllegalArgumentException("a must be square and non-empty, got " + a.numRows + " x " + a.numCols);
         }
         int m = b.numCols;
         if (b.numRows != n || m < 1) {
             throw new IllegalArgumentException(
-                "b must be " + n + " x m with m >= 1, got " + b.numRows + " x " + b.numCols);
+                    "b must be " + n + " x m with m >= 1, got " + b.numRows + " x " + b.numCols);
         }
         if (n + m > MAX_BLOCK_DIMENSION) {
-            throw new IllegalArgumentException("n + m must be at most " + MAX_BLOCK_DIMENSION
-                + ", got " + (n + m));
+            throw new IllegalArgumentException("n + m must be at most " + MAX_BLOCK_DIMENSION + ", got " + (n + m));
         }
         if (!(samplePeriodSeconds > 0.0) || !Double.isFinite(samplePeriodSeconds)) {
             throw new IllegalArgumentException(
-                "samplePeriodSeconds must be finite and positive, got " + samplePeriodSeconds);
+                    "samplePeriodSeconds must be finite and positive, got " + samplePeriodSeconds);
         }
         MatrixChecks.requireFinite(a, "a");
         MatrixChecks.requireFinite(b, "b");

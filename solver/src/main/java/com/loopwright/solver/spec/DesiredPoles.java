@@ -54,7 +54,9 @@ public record DesiredPoles(TargetDynamics dominant, List<TargetDynamics.Pole> au
             for (int j = 0; j < poles.size() && partner < 0; j++) {
                 TargetDynamics.Pole q = poles.get(j);
                 double scale = Math.hypot(p.re(), p.im());
-                if (j != i && !used[j] && Math.abs(q.re() - p.re()) <= CONJUGATE_TOLERANCE * scale
+                if (j != i
+                        && !used[j]
+                        && Math.abs(q.re() - p.re()) <= CONJUGATE_TOLERANCE * scale
                         && Math.abs(q.im() + p.im()) <= CONJUGATE_TOLERANCE * scale) {
                     partner = j;
                 }
@@ -85,8 +87,11 @@ public record DesiredPoles(TargetDynamics dominant, List<TargetDynamics.Pole> au
      */
     public double[] coefficients() {
         double[] poly = {1};
-        poly = times(poly, new double[] {dominant.naturalFrequencyRadPerSec() * dominant.naturalFrequencyRadPerSec(),
-                2 * dominant.dampingRatio() * dominant.naturalFrequencyRadPerSec(), 1});
+        poly = times(poly, new double[] {
+            dominant.naturalFrequencyRadPerSec() * dominant.naturalFrequencyRadPerSec(),
+            2 * dominant.dampingRatio() * dominant.naturalFrequencyRadPerSec(),
+            1
+        });
         for (TargetDynamics.Pole p : auxiliary) {
             if (p.im() == 0) {
                 poly = times(poly, new double[] {-p.re(), 1});

@@ -8,8 +8,7 @@ final class MonotoneRise {
     /** Doublings of the search bracket for non-oscillating responses: 2^200 is beyond any finite time. */
     private static final int MAX_DOUBLINGS = 200;
 
-    private MonotoneRise() {
-    }
+    private MonotoneRise() {}
 
     /**
      * y rises monotonically from 0 up to its first peak (zeta &lt; 1) or to 1 (zeta &gt;= 1), so the first

@@ -9,8 +9,7 @@ public final class NormalizedRiseTime {
     public static final double LOW_LEVEL = 0.1;
     public static final double HIGH_LEVEL = 0.9;
 
-    private NormalizedRiseTime() {
-    }
+    private NormalizedRiseTime() {}
 
     public static double of(double dampingRatio) {
         NormalizedStepResponse response = new NormalizedStepResponse(dampingRatio);

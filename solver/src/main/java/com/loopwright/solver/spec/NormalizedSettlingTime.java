@@ -17,8 +17,7 @@ public final class NormalizedSettlingTime {
     /** Cap on the peaks counted: with zeta &gt;= 1e-3 and band &gt;= 1e-4 there are fewer than 3000. */
     static final int MAX_PEAKS = 100_000;
 
-    private NormalizedSettlingTime() {
-    }
+    private NormalizedSettlingTime() {}
 
     /**
      * @param dampingRatio zeta &gt; 0
@@ -68,6 +67,5 @@ public final class NormalizedSettlingTime {
      * @param bandTouchLogDistance  |ln(peak / band)| of the peak nearest the band edge (0 for zeta &gt;= 1,
      *                              where there are no peaks); below ~0.05 the settling time is close to a jump
      */
-    public record SettlingAnalysis(double normalizedTime, int peaksOutsideBand, double bandTouchLogDistance) {
-    }
+    public record SettlingAnalysis(double normalizedTime, int peaksOutsideBand, double bandTouchLogDistance) {}
 }

@@ -16,6 +16,7 @@ public final class NormalizedStepResponse {
     private final double dampingRatio;
     /** s = sqrt(1 - zeta^2) and acos zeta (underdamped), computed once: root finders evaluate y many times. */
     private final double dampedRatio;
+
     private final double phase;
 
     public NormalizedStepResponse(double dampingRatio) {

@@ -10,8 +10,7 @@ package com.loopwright.solver.spec;
  */
 public final class OvershootDamping {
 
-    private OvershootDamping() {
-    }
+    private OvershootDamping() {}
 
     /** Damping ratio that gives exactly the overshoot fraction {@code overshoot} in (0, 1). */
     public static double dampingRatio(double overshoot) {

@@ -11,8 +11,8 @@ package com.loopwright.solver.spec;
  *                                        band edge (0 when zeta &gt;= 1 or for a rise-time spec); below
  *                                        {@link #BAND_TOUCH_WARNING} the settling time sits near a jump
  */
-public record SpecInversion(TargetDynamics target, double handbookNaturalFrequencyRadPerSec,
-                            double settlingBandTouchLogDistance) {
+public record SpecInversion(
+        TargetDynamics target, double handbookNaturalFrequencyRadPerSec, double settlingBandTouchLogDistance) {
 
     /** A peak within about 5% of the band edge makes the settling time jump for tiny changes in damping. */
     public static final double BAND_TOUCH_WARNING = 0.05;

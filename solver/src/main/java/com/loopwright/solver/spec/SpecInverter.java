@@ -35,9 +35,8 @@ public final class SpecInverter {
     }
 
     /** The first peak not counted outside the band, OS^(m+1), lies within the guard below the band edge. */
-    private static boolean peakTouchesBandFromInside(double overshoot,
-                                                     NormalizedSettlingTime.SettlingAnalysis analysis,
-                                                     double band) {
+    private static boolean peakTouchesBandFromInside(
+            double overshoot, NormalizedSettlingTime.SettlingAnalysis analysis, double band) {
         double nextPeak = Math.pow(overshoot, analysis.peaksOutsideBand() + 1);
         return nextPeak <= band && Math.log(band / nextPeak) < BAND_TOUCH_GUARD;
     }

@@ -21,7 +21,8 @@ public record TargetDynamics(double dampingRatio, double naturalFrequencyRadPerS
 
     /** Real part of both poles for zeta &lt; 1: -zeta wn [1/s]. */
     public double poleRealPart() {
-        return dampingRatio < 1 ? -dampingRatio * naturalFrequencyRadPerSec
+        return dampingRatio < 1
+                ? -dampingRatio * naturalFrequencyRadPerSec
                 : -naturalFrequencyRadPerSec * (dampingRatio - Math.sqrt(dampingRatio * dampingRatio - 1));
     }
 
@@ -43,6 +44,5 @@ public record TargetDynamics(double dampingRatio, double naturalFrequencyRadPerS
     }
 
     /** A pole re + j im [1/s]. */
-    public record Pole(double re, double im) {
-    }
+    public record Pole(double re, double im) {}
 }

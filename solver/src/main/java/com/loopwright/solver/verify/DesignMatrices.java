@@ -12,8 +12,15 @@ import org.ejml.data.DMatrixRMaj;
  *   z = C_z x with C_z = [[rho1, 0], [0, rho2], [-k1, -k2]] (the u row is u = -K x).
  * </pre>
  */
-record DesignMatrices(DMatrixRMaj a, DMatrixRMaj b1, DMatrixRMaj b2, DMatrixRMaj q, DMatrixRMaj r,
-                      DMatrixRMaj p, DMatrixRMaj closedLoop, DMatrixRMaj performanceOutput) {
+record DesignMatrices(
+        DMatrixRMaj a,
+        DMatrixRMaj b1,
+        DMatrixRMaj b2,
+        DMatrixRMaj q,
+        DMatrixRMaj r,
+        DMatrixRMaj p,
+        DMatrixRMaj closedLoop,
+        DMatrixRMaj performanceOutput) {
 
     static DesignMatrices of(ClosedFormDesign design) {
         CanonicalPlant plant = design.plant();
@@ -24,7 +31,8 @@ record DesignMatrices(DMatrixRMaj a, DMatrixRMaj b1, DMatrixRMaj b2, DMatrixRMaj
                 new DMatrixRMaj(new double[][] {{0, 1}, {-plant.a0(), -plant.a1()}}),
                 new DMatrixRMaj(new double[][] {{0}, {plant.d()}}),
                 new DMatrixRMaj(new double[][] {{0}, {plant.b()}}),
-                new DMatrixRMaj(new double[][] {{design.rho1() * design.rho1(), 0}, {0, design.rho2() * design.rho2()}}),
+                new DMatrixRMaj(new double[][] {{design.rho1() * design.rho1(), 0}, {0, design.rho2() * design.rho2()}
+                }),
                 new DMatrixRMaj(new double[][] {{0, 0}, {0, disturbanceCurvature - plant.b() * plant.b()}}),
                 new DMatrixRMaj(new double[][] {{design.p11(), design.p12()}, {design.p12(), design.p22()}}),
                 new DMatrixRMaj(new double[][] {{0, 1}, {-plant.a0() - plant.b() * k1, -plant.a1() - plant.b() * k2}}),

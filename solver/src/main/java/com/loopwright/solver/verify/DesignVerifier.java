@@ -38,8 +38,13 @@ public final class DesignVerifier {
      * @param horizon      simulated time [s]
      * @param samples      samples of the simulation grid
      */
-    public Verification verify(ClosedFormDesign design, DesignSpec spec, double stepSize, double bandFraction,
-                               double horizon, int samples) {
+    public Verification verify(
+            ClosedFormDesign design,
+            DesignSpec spec,
+            double stepSize,
+            double bandFraction,
+            double horizon,
+            int samples) {
         DesignMatrices m = DesignMatrices.of(design);
         try {
             double closedFormResidual = RiccatiResidual.relative(m.a(), m.r(), m.q(), m.p());
@@ -50,16 +55,23 @@ public final class DesignVerifier {
             HInfinityNorm norm = design.plant().d() == 0
                     ? new HInfinityNorm(0, 0, 0)
                     : normCalculator.compute(m.closedLoop(), m.b1(), m.performanceOutput());
-            LinearLoop loop = new LinearLoop(m.closedLoop(),
+            LinearLoop loop = new LinearLoop(
+                    m.closedLoop(),
                     new DMatrixRMaj(new double[][] {{0}, {design.plant().b() * design.referenceGain()}}),
                     new DMatrixRMaj(new double[][] {{1, 0}}),
                     new DMatrixRMaj(new double[][] {{-design.positionGain(), -design.velocityGain()}}),
                     design.referenceGain());
             StepMetrics metrics = stepMetrics.measure(loop, stepSize, horizon, samples, bandFraction);
-            boolean certified = norm.value() <= design.gamma() * (1 + NORM_TOLERANCE)
-                    && relativeDifference <= AGREEMENT_TOLERANCE;
-            return new Verification(closedFormResidual, numeric, relativeDifference, norm, metrics,
-                    compliance.check(spec, metrics), certified);
+            boolean certified =
+                    norm.value() <= design.gamma() * (1 + NORM_TOLERANCE) && relativeDifference <= AGREEMENT_TOLERANCE;
+            return new Verification(
+                    closedFormResidual,
+                    numeric,
+                    relativeDifference,
+                    norm,
+                    metrics,
+                    compliance.check(spec, metrics),
+                    certified);
         } catch (RuntimeException e) {
             throw new VerificationFailedException("an independent check could not be computed: " + e.getMessage(), e);
         }

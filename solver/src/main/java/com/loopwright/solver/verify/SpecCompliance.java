@@ -17,12 +17,18 @@ public final class SpecCompliance {
 
     public List<SpecCheck> check(DesignSpec spec, StepMetrics metrics) {
         double requestedOvershoot = 100 * spec.overshootFraction();
-        SpecCheck overshoot = new SpecCheck("overshootPercent", requestedOvershoot, metrics.overshootPercent(),
+        SpecCheck overshoot = new SpecCheck(
+                "overshootPercent",
+                requestedOvershoot,
+                metrics.overshootPercent(),
                 metrics.overshootPercent() <= requestedOvershoot + OVERSHOOT_TOLERANCE_POINTS);
         TimeSpec timeSpec = spec.timeSpec();
         boolean settling = timeSpec instanceof TimeSpec.SettlingTime;
         double simulatedTime = settling ? metrics.settlingTimeSeconds() : metrics.riseTimeSeconds();
-        SpecCheck time = new SpecCheck(settling ? "settlingTime" : "riseTime", timeSpec.seconds(), simulatedTime,
+        SpecCheck time = new SpecCheck(
+                settling ? "settlingTime" : "riseTime",
+                timeSpec.seconds(),
+                simulatedTime,
                 simulatedTime <= timeSpec.seconds() * (1 + TIME_TOLERANCE));
         return List.of(overshoot, time);
     }

@@ -41,8 +41,11 @@ class ClosedFormDesignerTest {
     }
 
     private static double scale(ClosedFormDesign design) {
-        return Math.abs(design.p11()) + Math.abs(design.p12()) * design.plant().b() * design.plant().b()
-                + design.rho1() * design.rho1() + design.rho2() * design.rho2() + 1e-300;
+        return Math.abs(design.p11())
+                + Math.abs(design.p12()) * design.plant().b() * design.plant().b()
+                + design.rho1() * design.rho1()
+                + design.rho2() * design.rho2()
+                + 1e-300;
     }
 
     // The project's demonstration axis (a packaging-line indexing axis): a0 = 0, a1 = 0.48, b = d = 400,
@@ -70,8 +73,12 @@ class ClosedFormDesignerTest {
         double rho2Sq = 2 * plant.a1() * m.p22() - 2 * m.p12() + k * m.p22() * m.p22();
         double p11 = plant.a1() * m.p12() + plant.a0() * m.p22() + k * m.p12() * m.p22();
         double det = p11 * m.p22() - m.p12() * m.p12();
-        return rho1Sq >= 0 && rho2Sq >= 0 && p11 > 0 && det > 0
-                && plant.a1() + k * m.p22() > 0 && plant.a0() + k * m.p12() > 0;
+        return rho1Sq >= 0
+                && rho2Sq >= 0
+                && p11 > 0
+                && det > 0
+                && plant.a1() + k * m.p22() > 0
+                && plant.a0() + k * m.p12() > 0;
     }
 
     @Test
@@ -79,10 +86,13 @@ class ClosedFormDesignerTest {
         Random random = new Random(20261202L);
         int checked = 0;
         for (int trial = 0; trial < 2000 && checked < 300; trial++) {
-            CanonicalPlant plant = new CanonicalPlant(-5 + 25 * random.nextDouble(), 3 * random.nextDouble(),
-                    0.5 + 500 * random.nextDouble(), 0.1 + 500 * random.nextDouble());
-            TargetDynamics target = new TargetDynamics(0.72 + 0.27 * random.nextDouble(),
-                    0.5 + 60 * random.nextDouble());
+            CanonicalPlant plant = new CanonicalPlant(
+                    -5 + 25 * random.nextDouble(),
+                    3 * random.nextDouble(),
+                    0.5 + 500 * random.nextDouble(),
+                    0.1 + 500 * random.nextDouble());
+            TargetDynamics target =
+                    new TargetDynamics(0.72 + 0.27 * random.nextDouble(), 0.5 + 60 * random.nextDouble());
             if (designer.obstacle(plant, target).isPresent()) {
                 continue;
             }
@@ -113,18 +123,24 @@ class ClosedFormDesignerTest {
     void specSlowerThanThePlantIsInfeasible() {
         // wn^2 <= a0: the spec is no stiffer than the plant (p12 <= 0).
         assertTrue(designer.obstacle(new CanonicalPlant(100, 0, 1, 1), new TargetDynamics(0.8, 9))
-                .orElseThrow().reason().contains("sqrt(a0)"));
+                .orElseThrow()
+                .reason()
+                .contains("sqrt(a0)"));
         // 2 zeta wn <= a1: the plant is more damped than the spec (p22 <= 0).
         assertTrue(designer.obstacle(new CanonicalPlant(0, 50, 1, 1), new TargetDynamics(0.8, 20))
-                .orElseThrow().reason().contains("damping"));
+                .orElseThrow()
+                .reason()
+                .contains("damping"));
     }
 
     @Test
     void fixedGammaBelowTheBoundIsRejectedWithAProposal() {
         CanonicalPlant plant = new CanonicalPlant(0, 0.48, 400, 400);
         TargetDynamics target = new TargetDynamics(0.8, 25);
-        double gammaMin = designer.design(plant, target, new GammaChoice.MarginOverMinimum(2)).gammaMin();
-        var error = assertThrows(InfeasibleDesignException.class,
+        double gammaMin = designer.design(plant, target, new GammaChoice.MarginOverMinimum(2))
+                .gammaMin();
+        var error = assertThrows(
+                InfeasibleDesignException.class,
                 () -> designer.design(plant, target, new GammaChoice.Fixed(0.9 * gammaMin)));
         assertEquals(SpecQuantity.GAMMA, error.infeasibility().quantity());
         assertEquals(1.2 * gammaMin, error.infeasibility().proposals().get(0).value(), 1e-12 * gammaMin);
@@ -133,8 +149,8 @@ class ClosedFormDesignerTest {
     // source: with d = 0 the Riccati equation loses its gamma term (k = b^2) and gamma is free.
     @Test
     void noDisturbanceChannelLeavesGammaFree() {
-        ClosedFormDesign design = designer.design(new CanonicalPlant(4, 0.2, 2, 0), new TargetDynamics(0.8, 6),
-                new GammaChoice.MarginOverMinimum(1.2));
+        ClosedFormDesign design = designer.design(
+                new CanonicalPlant(4, 0.2, 2, 0), new TargetDynamics(0.8, 6), new GammaChoice.MarginOverMinimum(1.2));
         assertEquals(0, design.gammaMin());
         for (double r : riccatiResidual(design)) {
             assertEquals(0, r / scale(design), 1e-13);
@@ -151,10 +167,12 @@ class ClosedFormDesignerTest {
         ClosedFormDesign base = designer.design(plant, target, new GammaChoice.MarginOverMinimum(1.01));
         double best = base.positionCertificateBestGamma().orElseThrow();
         double bestBound = designer.design(plant, target, new GammaChoice.Fixed(best))
-                .positionPerDisturbanceBound().orElseThrow();
+                .positionPerDisturbanceBound()
+                .orElseThrow();
         for (double g = base.gammaMin() * 1.001; g < base.gammaMin() * 50; g *= 1.01) {
             double bound = designer.design(plant, target, new GammaChoice.Fixed(g))
-                    .positionPerDisturbanceBound().orElseThrow();
+                    .positionPerDisturbanceBound()
+                    .orElseThrow();
             assertTrue(bound >= bestBound * (1 - 1e-12), "gamma " + g);
         }
     }

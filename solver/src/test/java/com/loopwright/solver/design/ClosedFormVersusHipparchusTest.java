@@ -25,14 +25,17 @@ class ClosedFormVersusHipparchusTest {
         int compared = 0;
         double worst = 0;
         for (int trial = 0; trial < 5000 && compared < 220; trial++) {
-            CanonicalPlant plant = new CanonicalPlant(-5 + 25 * random.nextDouble(), 3 * random.nextDouble(),
-                    0.5 + 50 * random.nextDouble(), 0.1 + 50 * random.nextDouble());
+            CanonicalPlant plant = new CanonicalPlant(
+                    -5 + 25 * random.nextDouble(),
+                    3 * random.nextDouble(),
+                    0.5 + 50 * random.nextDouble(),
+                    0.1 + 50 * random.nextDouble());
             TargetDynamics target = new TargetDynamics(0.72 + 0.27 * random.nextDouble(), 1 + 30 * random.nextDouble());
             if (designer.obstacle(plant, target).isPresent()) {
                 continue;
             }
-            ClosedFormDesign design = designer.design(plant, target,
-                    new GammaChoice.MarginOverMinimum(1.05 + random.nextDouble()));
+            ClosedFormDesign design =
+                    designer.design(plant, target, new GammaChoice.MarginOverMinimum(1.05 + random.nextDouble()));
             double k = design.riccatiCurvature();
             if (!(k > 0)) {
                 continue;

@@ -28,7 +28,9 @@ class FeasibilityAdvisorTest {
         DesignSpec spec = new DesignSpec(0.10, new TimeSpec.SettlingTime(0.5, 0.02));
         List<SpecProposal> proposals = advisor.propose(plant, spec);
         SpecProposal overshoot = proposals.stream()
-                .filter(p -> p.quantity() == SpecQuantity.OVERSHOOT_PERCENT).findFirst().orElseThrow();
+                .filter(p -> p.quantity() == SpecQuantity.OVERSHOOT_PERCENT)
+                .findFirst()
+                .orElseThrow();
         double limit = 100 * OvershootDamping.overshoot(1 / Math.sqrt(2));
         assertTrue(overshoot.value() < limit && overshoot.value() > limit - 0.3, "proposal " + overshoot.value());
         assertTrue(feasible(plant, spec.withOvershoot(overshoot.value() / 100)));
@@ -44,7 +46,9 @@ class FeasibilityAdvisorTest {
         DesignSpec spec = new DesignSpec(0.01, new TimeSpec.SettlingTime(10, 0.02));
         assertTrue(!feasible(plant, spec));
         SpecProposal time = advisor.propose(plant, spec).stream()
-                .filter(p -> p.quantity() == SpecQuantity.TIME_SPEC).findFirst().orElseThrow();
+                .filter(p -> p.quantity() == SpecQuantity.TIME_SPEC)
+                .findFirst()
+                .orElseThrow();
         assertTrue(time.value() < 10);
         assertTrue(feasible(plant, new DesignSpec(0.01, new TimeSpec.SettlingTime(time.value(), 0.02))));
         assertTrue(!feasible(plant, new DesignSpec(0.01, new TimeSpec.SettlingTime(time.value() * 1.02, 0.02))));
@@ -74,8 +78,8 @@ class FeasibilityAdvisorTest {
         assertTrue(unbounded < 0.001, "without ranges the step inside leaves the range: " + unbounded);
 
         SpecRanges ranges = new SpecRanges(0.001, 95, 1e-4, 1e4, 1e12);
-        List<SpecProposal> proposals = advisor.propose(plant, spec,
-                new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR), ranges);
+        List<SpecProposal> proposals = advisor.propose(
+                plant, spec, new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR), ranges);
         double bounded = overshootProposal(proposals);
         assertTrue(bounded >= 0.001 && bounded < boundaryPercent, "proposal " + bounded);
         assertTrue(feasible(plant, spec.withOvershoot(bounded / 100)));
@@ -88,7 +92,10 @@ class FeasibilityAdvisorTest {
     }
 
     private static double overshootProposal(List<SpecProposal> proposals) {
-        return proposals.stream().filter(p -> p.quantity() == SpecQuantity.OVERSHOOT_PERCENT).findFirst()
-                .orElseThrow().value();
+        return proposals.stream()
+                .filter(p -> p.quantity() == SpecQuantity.OVERSHOOT_PERCENT)
+                .findFirst()
+                .orElseThrow()
+                .value();
     }
 }

@@ -19,10 +19,14 @@ class GammaBoundTest {
     /** The binding order-2 bound is the largest one, and gamma_min equals it (definition of gamma_min). */
     @Test
     void exactlyOneClosedFormBoundBindsAndItSetsGammaMin() {
-        ClosedFormDesign design = designer.design(new CanonicalPlant(0, 0.48, 400, 400), new TargetDynamics(0.8, 30),
+        ClosedFormDesign design = designer.design(
+                new CanonicalPlant(0, 0.48, 400, 400),
+                new TargetDynamics(0.8, 30),
                 new GammaChoice.MarginOverMinimum(1.2));
         List<GammaBound> bounds = design.gammaBounds();
-        assertEquals(GammaCondition.CLOSED_FORM, bounds.stream().map(GammaBound::condition).toList());
+        assertEquals(
+                GammaCondition.CLOSED_FORM,
+                bounds.stream().map(GammaBound::condition).toList());
         List<GammaBound> binding = bounds.stream().filter(GammaBound::binding).toList();
         assertEquals(1, binding.size());
         assertEquals(design.gammaMin(), binding.get(0).gammaLowerBound());
@@ -36,8 +40,8 @@ class GammaBoundTest {
     /** Without a disturbance input (d = 0) every bound is 0 and none binds. */
     @Test
     void noBoundBindsWithoutADisturbanceInput() {
-        ClosedFormDesign design = designer.design(new CanonicalPlant(4, 0.2, 2, 0), new TargetDynamics(0.8, 6),
-                new GammaChoice.MarginOverMinimum(1.2));
+        ClosedFormDesign design = designer.design(
+                new CanonicalPlant(4, 0.2, 2, 0), new TargetDynamics(0.8, 6), new GammaChoice.MarginOverMinimum(1.2));
         assertFalse(design.gammaBounds().stream().anyMatch(GammaBound::binding));
     }
 
@@ -50,7 +54,9 @@ class GammaBoundTest {
         assertEquals("state weight rho_2 is real", orderN.meaning());
         assertTrue(orderN.satisfiable());
         // order 2, D = 0 on a non-strict condition with d = 0 holds at equality; on a strict one it does not
-        assertTrue(GammaBound.closedForm(GammaCondition.POSITION_WEIGHT_REAL, 0, 0, false).satisfiable());
-        assertFalse(GammaBound.closedForm(GammaCondition.P11_POSITIVE, 0, 0, false).satisfiable());
+        assertTrue(GammaBound.closedForm(GammaCondition.POSITION_WEIGHT_REAL, 0, 0, false)
+                .satisfiable());
+        assertFalse(
+                GammaBound.closedForm(GammaCondition.P11_POSITIVE, 0, 0, false).satisfiable());
     }
 }

@@ -43,8 +43,17 @@ class CSourceWriterTest {
         assertFalse(source.contains("(*/"), "comment terminators must be escaped");
         Path controller = dir.resolve("controller.c");
         Files.writeString(controller, source, StandardCharsets.US_ASCII);
-        run(List.of("gcc", "-std=c99", "-Wall", "-Wextra", "-Werror", "-pedantic", "-c", controller.toString(),
-                "-o", dir.resolve("controller.o").toString()));
+        run(List.of(
+                "gcc",
+                "-std=c99",
+                "-Wall",
+                "-Wextra",
+                "-Werror",
+                "-pedantic",
+                "-c",
+                controller.toString(),
+                "-o",
+                dir.resolve("controller.o").toString()));
 
         DiscreteStateSpace sampled = SampledLawDesigner.sampledPlant(IndexingAxis.PLANT, 1e-3);
         DMatrixRMaj ad = sampled.ad();
@@ -55,16 +64,26 @@ class CSourceWriterTest {
                 + "    int k, sat;\n"
                 + "    for (k = 0; k < " + STEPS + "; k++) {\n"
                 + "        double u = " + CSourceWriter.FUNCTION_NAME + "(1.0, x1, x2, &sat);\n"
-                + "        double n1 = " + ad.get(0, 0) + " * x1 + " + ad.get(0, 1) + " * x2 + " + bd.get(0, 0) + " * u;\n"
-                + "        double n2 = " + ad.get(1, 0) + " * x1 + " + ad.get(1, 1) + " * x2 + " + bd.get(1, 0) + " * u;\n"
+                + "        double n1 = " + ad.get(0, 0) + " * x1 + " + ad.get(0, 1) + " * x2 + " + bd.get(0, 0)
+                + " * u;\n"
+                + "        double n2 = " + ad.get(1, 0) + " * x1 + " + ad.get(1, 1) + " * x2 + " + bd.get(1, 0)
+                + " * u;\n"
                 + "        printf(\"%.17g %.17g %.17g %d\\n\", x1, x2, u, sat);\n"
                 + "        x1 = n1;\n        x2 = n2;\n"
                 + "    }\n    return 0;\n}\n";
         Path harnessFile = dir.resolve("harness.c");
         Files.writeString(harnessFile, harness, StandardCharsets.US_ASCII);
         Path binary = dir.resolve("harness");
-        run(List.of("gcc", "-std=c99", "-Wall", "-Werror", "-O0", "-ffp-contract=off", harnessFile.toString(),
-                "-o", binary.toString()));
+        run(List.of(
+                "gcc",
+                "-std=c99",
+                "-Wall",
+                "-Werror",
+                "-O0",
+                "-ffp-contract=off",
+                harnessFile.toString(),
+                "-o",
+                binary.toString()));
         List<String> lines = List.of(run(List.of(binary.toString())).split("\n"));
         assertEquals(STEPS, lines.size());
 
@@ -85,7 +104,10 @@ class CSourceWriterTest {
     }
 
     private String run(List<String> command) throws IOException, InterruptedException {
-        Process process = new ProcessBuilder(command).directory(dir.toFile()).redirectErrorStream(true).start();
+        Process process = new ProcessBuilder(command)
+                .directory(dir.toFile())
+                .redirectErrorStream(true)
+                .start();
         assertTrue(process.waitFor(60, TimeUnit.SECONDS), "timed out: " + command);
         String output = new String(process.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
         assertEquals(0, process.exitValue(), command + " failed:\n" + output);
@@ -94,7 +116,9 @@ class CSourceWriterTest {
 
     private static boolean gccAvailable() {
         try {
-            Process p = new ProcessBuilder("gcc", "--version").redirectErrorStream(true).start();
+            Process p = new ProcessBuilder("gcc", "--version")
+                    .redirectErrorStream(true)
+                    .start();
             p.getInputStream().readAllBytes();
             return p.waitFor(20, TimeUnit.SECONDS) && p.exitValue() == 0;
         } catch (IOException e) {

@@ -13,17 +13,23 @@ final class IndexingAxis {
 
     static final CanonicalPlant PLANT = new CanonicalPlant(0, 0.48, 400, 400);
 
-    private IndexingAxis() {
-    }
+    private IndexingAxis() {}
 
     static DesignReport report() {
-        return new LoopDesigner().design(PLANT, new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, 0.02)),
-                new GammaChoice.MarginOverMinimum(1.2), 1, 0.02);
+        return new LoopDesigner()
+                .design(
+                        PLANT,
+                        new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, 0.02)),
+                        new GammaChoice.MarginOverMinimum(1.2),
+                        1,
+                        0.02);
     }
 
     static ExportHeader header(DesignReport report) {
-        return new ExportHeader("Packaging-line indexing axis: current command from position and velocity",
-                List.of("settling time 0.15 s (2% band), overshoot 1.5%"), report.design().gamma(),
+        return new ExportHeader(
+                "Packaging-line indexing axis: current command from position and velocity",
+                List.of("settling time 0.15 s (2% band), overshoot 1.5%"),
+                report.design().gamma(),
                 List.of("Commission with reduced gains first; this design provides no safety function (*/ *) test)."));
     }
 }

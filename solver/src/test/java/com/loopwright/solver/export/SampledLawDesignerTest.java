@@ -68,7 +68,8 @@ class SampledLawDesignerTest {
                 new DMatrixRMaj(new double[][] {{0, 1}, {-b * d.positionGain(), -0.48 - b * d.velocityGain()}}),
                 new DMatrixRMaj(new double[][] {{0}, {b * d.referenceGain()}}),
                 new DMatrixRMaj(new double[][] {{1, 0}}),
-                new DMatrixRMaj(new double[][] {{-d.positionGain(), -d.velocityGain()}}), d.referenceGain());
+                new DMatrixRMaj(new double[][] {{-d.positionGain(), -d.velocityGain()}}),
+                d.referenceGain());
         StepResponse continuous = new StepSimulator().simulate(loop, 1, period * (steps - 1), steps);
         double worst = 0;
         for (int k = 0; k < steps; k++) {

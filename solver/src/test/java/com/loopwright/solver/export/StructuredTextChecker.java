@@ -21,11 +21,31 @@ final class StructuredTextChecker {
     private static final Pattern DECLARATION = Pattern.compile(
             "([A-Za-z_][A-Za-z0-9_]*) : (BOOL|LREAL|REAL|INT|DINT)( := (-?[0-9]+\\.[0-9]+(E[+-]?[0-9]+)?|TRUE|FALSE))?;");
     private static final Pattern ASSIGNMENT = Pattern.compile("([A-Za-z_][A-Za-z0-9_]*) := (.+);");
-    private static final Pattern TOKEN = Pattern.compile(
-            "\\s*([A-Za-z_][A-Za-z0-9_]*|[0-9]+\\.[0-9]+(E[+-]?[0-9]+)?|:=|<=|>=|<>|[-+*/()<>=])");
-    private static final Set<String> KEYWORDS = Set.of("FUNCTION_BLOCK", "END_FUNCTION_BLOCK", "VAR", "VAR_INPUT",
-            "VAR_OUTPUT", "CONSTANT", "END_VAR", "IF", "THEN", "ELSIF", "ELSE", "END_IF", "TRUE", "FALSE", "AND",
-            "OR", "NOT", "BOOL", "LREAL", "REAL", "INT", "DINT");
+    private static final Pattern TOKEN =
+            Pattern.compile("\\s*([A-Za-z_][A-Za-z0-9_]*|[0-9]+\\.[0-9]+(E[+-]?[0-9]+)?|:=|<=|>=|<>|[-+*/()<>=])");
+    private static final Set<String> KEYWORDS = Set.of(
+            "FUNCTION_BLOCK",
+            "END_FUNCTION_BLOCK",
+            "VAR",
+            "VAR_INPUT",
+            "VAR_OUTPUT",
+            "CONSTANT",
+            "END_VAR",
+            "IF",
+            "THEN",
+            "ELSIF",
+            "ELSE",
+            "END_IF",
+            "TRUE",
+            "FALSE",
+            "AND",
+            "OR",
+            "NOT",
+            "BOOL",
+            "LREAL",
+            "REAL",
+            "INT",
+            "DINT");
 
     List<String> check(String text) {
         List<String> problems = new ArrayList<>();
@@ -50,7 +70,9 @@ final class StructuredTextChecker {
                 open.push("FUNCTION_BLOCK");
             } else if (line.equals("END_FUNCTION_BLOCK")) {
                 expect(open, "FUNCTION_BLOCK", where, problems);
-            } else if (line.equals("VAR") || line.equals("VAR_INPUT") || line.equals("VAR_OUTPUT")
+            } else if (line.equals("VAR")
+                    || line.equals("VAR_INPUT")
+                    || line.equals("VAR_OUTPUT")
                     || line.equals("VAR CONSTANT")) {
                 if (!"FUNCTION_BLOCK".equals(open.peek())) {
                     problems.add(where + line + " outside the block header");
@@ -137,7 +159,9 @@ final class StructuredTextChecker {
     }
 
     private static void requireIdentifier(String name, String where, List<String> problems) {
-        if (!IDENTIFIER.matcher(name).matches() || name.contains("__") || name.endsWith("_")
+        if (!IDENTIFIER.matcher(name).matches()
+                || name.contains("__")
+                || name.endsWith("_")
                 || KEYWORDS.contains(name.toUpperCase())) {
             problems.add(where + "illegal identifier " + name);
         }

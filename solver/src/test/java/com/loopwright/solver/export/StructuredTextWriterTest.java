@@ -34,8 +34,8 @@ class StructuredTextWriterTest {
     @Test
     void checkerRejectsBrokenBlocks() {
         DesignReport report = IndexingAxis.report();
-        String good = new StructuredTextWriter().write(IndexingAxis.header(report),
-                new SampledLawDesigner().emulate(report.design(), 1e-3, 3));
+        String good = new StructuredTextWriter()
+                .write(IndexingAxis.header(report), new SampledLawDesigner().emulate(report.design(), 1e-3, 3));
         List<String> broken = List.of(
                 good.replace("END_FUNCTION_BLOCK\n", ""),
                 good.replaceFirst("END_VAR\n", ""),

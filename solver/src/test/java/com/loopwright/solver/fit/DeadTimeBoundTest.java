@@ -22,8 +22,16 @@ class DeadTimeBoundTest {
     private final StepResponseFitter fitter = new StepResponseFitter();
 
     /** 41 samples 0.25 s apart from t = 0, stepped at t = 0: y = y0 + K S(t - theta) + noise. */
-    private static StepTestData record(double gain, double wn, double zeta, double theta, double y0, double noise,
-                                       double spacing, double stepTime, long seed) {
+    private static StepTestData record(
+            double gain,
+            double wn,
+            double zeta,
+            double theta,
+            double y0,
+            double noise,
+            double spacing,
+            double stepTime,
+            long seed) {
         Random random = new Random(seed);
         int n = 41;
         double[] t = new double[n];
@@ -48,8 +56,12 @@ class DeadTimeBoundTest {
         FittedParameter deadTime = fit.parameter("deadTime");
         assertTrue(deadTime.lower95() >= 0, deadTime.toString());
         assertTrue(deadTime.covers(0.1), deadTime.toString());
-        assertTrue(fit.parameter("dampingRatio").covers(1.3), fit.parameter("dampingRatio").toString());
-        assertTrue(fit.parameter("naturalFrequency").covers(2), fit.parameter("naturalFrequency").toString());
+        assertTrue(
+                fit.parameter("dampingRatio").covers(1.3),
+                fit.parameter("dampingRatio").toString());
+        assertTrue(
+                fit.parameter("naturalFrequency").covers(2),
+                fit.parameter("naturalFrequency").toString());
     }
 
     // A plant without delay fitted with a dead time: the optimum wants a negative dead time, so it sits on
@@ -64,8 +76,9 @@ class DeadTimeBoundTest {
             assertTrue(deadTime.lower95() >= 0 && deadTime.upper95() > deadTime.lower95(), deadTime.toString());
             double reference = ReferenceStepFit.rmsError(data, new double[] {1, 2, 1.3, 0, 0.5});
             assertTrue(fit.rmsError() <= 1.001 * reference, fit.rmsError() + " vs reference " + reference);
-            boolean warned = fit.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.AT_BOUND
-                    && w.message().startsWith("deadTime"));
+            boolean warned = fit.warnings().stream()
+                    .anyMatch(w ->
+                            w.code() == FitWarning.Code.AT_BOUND && w.message().startsWith("deadTime"));
             assertEquals(fit.deadTimeSeconds() == 0, warned, fit.warnings().toString());
             if (fit.deadTimeSeconds() == 0) {
                 onBound++;
@@ -86,24 +99,29 @@ class DeadTimeBoundTest {
     void aSingularNormalMatrixGivesNoZeroStandardErrorAndNoUnsupportedInterval() {
         StepTestData data = record(1, 33.9, 9.46, 0.1, 0.5, 0.01, 0.1, 0.5, 5);
         StepFit fit = fitter.fit(data, new FitOptions(true, true));
-        assertTrue(fit.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.POORLY_DETERMINED),
+        assertTrue(
+                fit.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.POORLY_DETERMINED),
                 fit.warnings().toString());
         int undetermined = 0;
         for (FittedParameter p : fit.parameters()) {
             if (p.determined()) {
-                assertTrue(p.standardError() > 0 && p.lower95() < p.estimate() && p.estimate() < p.upper95(),
+                assertTrue(
+                        p.standardError() > 0 && p.lower95() < p.estimate() && p.estimate() < p.upper95(),
                         p.toString());
             } else {
                 undetermined++;
                 assertTrue(Double.isNaN(p.lower95()) && Double.isNaN(p.upper95()), p.toString());
-                assertTrue(fit.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.POORLY_DETERMINED
-                        && w.message().startsWith(p.name())), fit.warnings().toString());
+                assertTrue(
+                        fit.warnings().stream()
+                                .anyMatch(w -> w.code() == FitWarning.Code.POORLY_DETERMINED
+                                        && w.message().startsWith(p.name())),
+                        fit.warnings().toString());
             }
         }
         assertTrue(undetermined >= 2, fit.parameters().toString());
         // The slow pole wn (zeta - sqrt(zeta^2 - 1)) = 1.80 rad/s, which the samples do show, is determined.
-        double slowPole = fit.naturalFrequency() * (fit.dampingRatio()
-                - Math.sqrt(fit.dampingRatio() * fit.dampingRatio() - 1));
+        double slowPole =
+                fit.naturalFrequency() * (fit.dampingRatio() - Math.sqrt(fit.dampingRatio() * fit.dampingRatio() - 1));
         assertEquals(1.80, slowPole, 0.1);
         assertTrue(fit.parameter("gain").determined() && fit.parameter("gain").covers(1));
     }

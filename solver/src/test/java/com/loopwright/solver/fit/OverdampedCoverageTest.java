@@ -23,9 +23,17 @@ class OverdampedCoverageTest {
     /**
      * @param duration record length [s]; samples spaced uniformly at random in [0.5, 1.5] x duration/(n - 1)
      */
-    private record Configuration(String name, double gain, double wn, double zeta, double deadTime,
-                                 double offset, double stepTime, double duration, int n, double noise) {
-    }
+    private record Configuration(
+            String name,
+            double gain,
+            double wn,
+            double zeta,
+            double deadTime,
+            double offset,
+            double stepTime,
+            double duration,
+            int n,
+            double noise) {}
 
     private static StepTestData record(Configuration c, long seed) {
         Random random = new Random(seed);
@@ -34,7 +42,8 @@ class OverdampedCoverageTest {
         double mean = c.duration() / (c.n() - 1);
         for (int i = 0; i < c.n(); i++) {
             t[i] = i == 0 ? 0 : t[i - 1] + mean * (0.5 + random.nextDouble());
-            y[i] = c.offset() + c.gain() * TextbookStep.of(t[i] - c.stepTime() - c.deadTime(), c.wn(), c.zeta())
+            y[i] = c.offset()
+                    + c.gain() * TextbookStep.of(t[i] - c.stepTime() - c.deadTime(), c.wn(), c.zeta())
                     + c.noise() * random.nextGaussian();
         }
         return new StepTestData(t, y, c.stepTime(), 1);
@@ -44,12 +53,12 @@ class OverdampedCoverageTest {
     void intervalsCoverTheTruthAtTheStatedRateOnceTheFitReachesTheOptimum() {
         StepResponseFitter fitter = new StepResponseFitter();
         Configuration[] configurations = {
-                // The plant of the issue: 41 samples over 10 s, stepped at t = 0.
-                new Configuration("issue plant", 1, 2, 1.3, 0.1, 0.5, 0, 10, 41, 0.01),
-                // Tank level loop: slow, strongly overdamped, transport delay.
-                new Configuration("tank level", 0.5, 1.2, 2.0, 0.4, 0, 1, 15, 80, 0.005),
-                // Just above critical damping, where the model passes its series form near zeta = 1.
-                new Configuration("near critical", 2, 5, 1.05, 0.05, 0.2, 0.5, 4, 60, 0.01),
+            // The plant of the issue: 41 samples over 10 s, stepped at t = 0.
+            new Configuration("issue plant", 1, 2, 1.3, 0.1, 0.5, 0, 10, 41, 0.01),
+            // Tank level loop: slow, strongly overdamped, transport delay.
+            new Configuration("tank level", 0.5, 1.2, 2.0, 0.4, 0, 1, 15, 80, 0.005),
+            // Just above critical damping, where the model passes its series form near zeta = 1.
+            new Configuration("near critical", 2, 5, 1.05, 0.05, 0.2, 0.5, 4, 60, 0.01),
         };
         StringBuilder report = new StringBuilder();
         boolean allCovered = true;
@@ -60,8 +69,9 @@ class OverdampedCoverageTest {
                 StepFit fit = fitter.fit(data, new FitOptions(true, true));
                 double[] truth = {c.gain(), c.wn(), c.zeta(), c.deadTime(), c.offset()};
                 double reference = ReferenceStepFit.rmsError(data, truth);
-                assertTrue(fit.rmsError() <= 1.001 * reference, c.name() + " seed " + seed + ": RMS "
-                        + fit.rmsError() + " vs reference " + reference);
+                assertTrue(
+                        fit.rmsError() <= 1.001 * reference,
+                        c.name() + " seed " + seed + ": RMS " + fit.rmsError() + " vs reference " + reference);
                 for (int i = 0; i < NAMES.length; i++) {
                     covered[i] += fit.parameter(NAMES[i]).covers(truth[i]) ? 1 : 0;
                 }

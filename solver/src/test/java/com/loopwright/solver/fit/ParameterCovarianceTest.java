@@ -24,7 +24,9 @@ class ParameterCovarianceTest {
         RealMatrix jacobian = new Array2DRowRealMatrix(j);
         double s2 = 0.04;
         // source: textbook least squares, Cov = s^2 (J'J)^-1, inverted by LU (reference library).
-        RealMatrix covariance = new LUDecomposition(jacobian.transposeMultiply(jacobian)).getSolver().getInverse()
+        RealMatrix covariance = new LUDecomposition(jacobian.transposeMultiply(jacobian))
+                .getSolver()
+                .getInverse()
                 .scalarMultiply(s2);
         double[] errors = ParameterCovariance.standardErrors(jacobian, s2);
         for (int i = 0; i < 3; i++) {

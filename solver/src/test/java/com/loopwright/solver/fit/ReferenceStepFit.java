@@ -21,11 +21,11 @@ final class ReferenceStepFit {
 
     /** Relative step of the central differences. */
     private static final double DIFFERENCE_STEP = 1e-6;
+
     private static final int MAX_ITERATIONS = 500;
     private static final int MAX_EVALUATIONS = 2000;
 
-    private ReferenceStepFit() {
-    }
+    private ReferenceStepFit() {}
 
     /** RMS residual of the reference optimum, started at {K, wn, zeta, theta, y0}. */
     static double rmsError(StepTestData data, double[] start) {
@@ -33,39 +33,40 @@ final class ReferenceStepFit {
         double[] y = data.output();
         double stepTime = data.stepTimeSeconds();
         double amplitude = data.stepAmplitude();
-        LeastSquaresOptimizer.Optimum optimum = new LevenbergMarquardtOptimizer().optimize(new LeastSquaresBuilder()
-                .start(start)
-                .target(y)
-                .model(point -> {
-                    double[] x = point.toArray();
-                    double[] values = values(t, stepTime, amplitude, x);
-                    double[][] jacobian = new double[t.length][x.length];
-                    for (int j = 0; j < x.length; j++) {
-                        double h = DIFFERENCE_STEP * Math.max(Math.abs(x[j]), 1e-3);
-                        double[] up = x.clone();
-                        double[] down = x.clone();
-                        up[j] += h;
-                        down[j] = j == 3 ? Math.max(down[j] - h, 0) : down[j] - h;
-                        double[] vu = values(t, stepTime, amplitude, up);
-                        double[] vd = values(t, stepTime, amplitude, down);
-                        for (int i = 0; i < t.length; i++) {
-                            jacobian[i][j] = (vu[i] - vd[i]) / (up[j] - down[j]);
-                        }
-                    }
-                    return new Pair<RealVector, RealMatrix>(new ArrayRealVector(values, false),
-                            new Array2DRowRealMatrix(jacobian, false));
-                })
-                .parameterValidator(point -> {
-                    double[] x = point.toArray();
-                    x[1] = Math.abs(x[1]);
-                    x[2] = Math.max(Math.abs(x[2]), 1e-6);
-                    x[3] = Math.max(x[3], 0);
-                    return new ArrayRealVector(x, false);
-                })
-                .maxIterations(MAX_ITERATIONS)
-                .maxEvaluations(MAX_EVALUATIONS)
-                .lazyEvaluation(false)
-                .build());
+        LeastSquaresOptimizer.Optimum optimum = new LevenbergMarquardtOptimizer()
+                .optimize(new LeastSquaresBuilder()
+                        .start(start)
+                        .target(y)
+                        .model(point -> {
+                            double[] x = point.toArray();
+                            double[] values = values(t, stepTime, amplitude, x);
+                            double[][] jacobian = new double[t.length][x.length];
+                            for (int j = 0; j < x.length; j++) {
+                                double h = DIFFERENCE_STEP * Math.max(Math.abs(x[j]), 1e-3);
+                                double[] up = x.clone();
+                                double[] down = x.clone();
+                                up[j] += h;
+                                down[j] = j == 3 ? Math.max(down[j] - h, 0) : down[j] - h;
+                                double[] vu = values(t, stepTime, amplitude, up);
+                                double[] vd = values(t, stepTime, amplitude, down);
+                                for (int i = 0; i < t.length; i++) {
+                                    jacobian[i][j] = (vu[i] - vd[i]) / (up[j] - down[j]);
+                                }
+                            }
+                            return new Pair<RealVector, RealMatrix>(
+                                    new ArrayRealVector(values, false), new Array2DRowRealMatrix(jacobian, false));
+                        })
+                        .parameterValidator(point -> {
+                            double[] x = point.toArray();
+                            x[1] = Math.abs(x[1]);
+                            x[2] = Math.max(Math.abs(x[2]), 1e-6);
+                            x[3] = Math.max(x[3], 0);
+                            return new ArrayRealVector(x, false);
+                        })
+                        .maxIterations(MAX_ITERATIONS)
+                        .maxEvaluations(MAX_EVALUATIONS)
+                        .lazyEvaluation(false)
+                        .build());
         return optimum.getRMS();
     }
 

@@ -21,31 +21,48 @@ class StepResponseFitterTest {
     private final StepResponseFitter fitter = new StepResponseFitter();
 
     /** Samples of y0 + K A S(wn (t - t_step - theta)) + noise on a uniform grid. */
-    private static StepTestData generate(double gain, double wn, double zeta, double theta, double y0,
-                                         double amplitude, double stepTime, double duration, int n, double noise,
-                                         Random random) {
+    private static StepTestData generate(
+            double gain,
+            double wn,
+            double zeta,
+            double theta,
+            double y0,
+            double amplitude,
+            double stepTime,
+            double duration,
+            int n,
+            double noise,
+            Random random) {
         double[] t = new double[n];
         double[] y = new double[n];
         for (int i = 0; i < n; i++) {
             t[i] = duration * i / (n - 1);
-            y[i] = y0 + gain * amplitude * TextbookStep.of(t[i] - stepTime - theta, wn, zeta)
+            y[i] = y0
+                    + gain * amplitude * TextbookStep.of(t[i] - stepTime - theta, wn, zeta)
                     + noise * random.nextGaussian();
         }
         return new StepTestData(t, y, stepTime, amplitude);
     }
 
-    private record Scenario(double gain, double wn, double zeta, double theta, double y0, double duration,
-                            int n, double noise, FitOptions options) {
-    }
+    private record Scenario(
+            double gain,
+            double wn,
+            double zeta,
+            double theta,
+            double y0,
+            double duration,
+            int n,
+            double noise,
+            FitOptions options) {}
 
     // Conveyor speed loop, tank level, and a gimbal axis with transport delay: several noise levels and counts.
     @Test
     void confidenceIntervalsCoverTheTrueParametersAtTheStatedRate() {
         Scenario[] scenarios = {
-                new Scenario(2.0, 5, 0.4, 0, 0.3, 4, 400, 0.01, new FitOptions(false, true)),
-                new Scenario(0.5, 1.2, 1.3, 0, 0, 15, 1000, 0.01, new FitOptions(false, false)),
-                new Scenario(1.5, 8, 0.6, 0.3, -0.2, 2.5, 250, 0.03, new FitOptions(true, true)),
-                new Scenario(4.0, 20, 0.25, 0, 1.0, 1.5, 2000, 0.2, new FitOptions(false, true)),
+            new Scenario(2.0, 5, 0.4, 0, 0.3, 4, 400, 0.01, new FitOptions(false, true)),
+            new Scenario(0.5, 1.2, 1.3, 0, 0, 15, 1000, 0.01, new FitOptions(false, false)),
+            new Scenario(1.5, 8, 0.6, 0.3, -0.2, 2.5, 250, 0.03, new FitOptions(true, true)),
+            new Scenario(4.0, 20, 0.25, 0, 1.0, 1.5, 2000, 0.2, new FitOptions(false, true)),
         };
         int trialsPerScenario = 30;
         int covered = 0;
@@ -53,8 +70,18 @@ class StepResponseFitterTest {
         Random random = new Random(8_2026_12_02L);
         for (Scenario s : scenarios) {
             for (int trial = 0; trial < trialsPerScenario; trial++) {
-                StepTestData data = generate(s.gain(), s.wn(), s.zeta(), s.theta(), s.y0(), 1, 0.1 * s.duration(),
-                        s.duration(), s.n(), s.noise(), random);
+                StepTestData data = generate(
+                        s.gain(),
+                        s.wn(),
+                        s.zeta(),
+                        s.theta(),
+                        s.y0(),
+                        1,
+                        0.1 * s.duration(),
+                        s.duration(),
+                        s.n(),
+                        s.noise(),
+                        random);
                 StepFit fit = fitter.fit(data, s.options());
                 assertTrue(fit.rSquared() > 0.9, "R^2 " + fit.rSquared());
                 // source: for Gaussian noise of sigma, the RMS residual tends to sigma sqrt((n-p)/n).
@@ -62,7 +89,8 @@ class StepResponseFitterTest {
                 double[] truth = {s.gain(), s.wn(), s.zeta(), s.theta(), s.y0()};
                 String[] names = {"gain", "naturalFrequency", "dampingRatio", "deadTime", "initialOffset"};
                 for (int i = 0; i < names.length; i++) {
-                    if (i == 3 && !s.options().estimateDeadTime() || i == 4 && !s.options().estimateInitialOffset()) {
+                    if (i == 3 && !s.options().estimateDeadTime()
+                            || i == 4 && !s.options().estimateInitialOffset()) {
                         continue;
                     }
                     intervals++;
@@ -97,10 +125,14 @@ class StepResponseFitterTest {
             t[i] = 0.1 * i;
             flat[i] = 2.0;
         }
-        assertThrows(FitFailedException.class,
+        assertThrows(
+                FitFailedException.class,
                 () -> fitter.fit(new StepTestData(t, flat, 0, 1), new FitOptions(false, true)));
-        assertThrows(FitFailedException.class, () -> fitter.fit(new StepTestData(new double[] {0, 1, 2, 3, 4},
-                new double[] {0, 1, 1, 1, 1}, 0, 1), new FitOptions(false, true)));
+        assertThrows(
+                FitFailedException.class,
+                () -> fitter.fit(
+                        new StepTestData(new double[] {0, 1, 2, 3, 4}, new double[] {0, 1, 1, 1, 1}, 0, 1),
+                        new FitOptions(false, true)));
         // Pure noise: the fitted change is buried in the noise.
         Random random = new Random(5);
         double[] noise = new double[200];
@@ -109,10 +141,14 @@ class StepResponseFitterTest {
             tn[i] = 0.01 * i;
             noise[i] = random.nextGaussian();
         }
-        FitFailedException buried = assertThrows(FitFailedException.class,
+        FitFailedException buried = assertThrows(
+                FitFailedException.class,
                 () -> fitter.fit(new StepTestData(tn, noise, 0.5, 1), new FitOptions(false, true)));
-        assertTrue(buried.getMessage().contains("noise") || buried.getMessage().contains("converge")
-                || buried.getMessage().contains("identifiable"), buried.getMessage());
+        assertTrue(
+                buried.getMessage().contains("noise")
+                        || buried.getMessage().contains("converge")
+                        || buried.getMessage().contains("identifiable"),
+                buried.getMessage());
 
         // Clipped at a sensor limit of 1.1 while the true response overshoots to about 1.37.
         StepTestData raw = generate(1, 4, 0.3, 0, 0, 1, 0.2, 5, 500, 0.001, new Random(3));
@@ -120,21 +156,24 @@ class StepResponseFitterTest {
         for (int i = 0; i < clipped.length; i++) {
             clipped[i] = Math.min(clipped[i], 1.1);
         }
-        StepFit saturated = fitter.fit(new StepTestData(raw.timeSeconds(), clipped, 0.2, 1),
-                new FitOptions(false, true));
-        assertTrue(saturated.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.SATURATION_PLATEAU),
+        StepFit saturated =
+                fitter.fit(new StepTestData(raw.timeSeconds(), clipped, 0.2, 1), new FitOptions(false, true));
+        assertTrue(
+                saturated.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.SATURATION_PLATEAU),
                 saturated.warnings().toString());
 
         // A record that stops during the rise.
         StepTestData shortRecord = generate(1, 2, 0.8, 0, 0, 1, 0, 1.0, 100, 0.001, new Random(4));
         StepFit cut = fitter.fit(shortRecord, new FitOptions(false, false));
-        assertTrue(cut.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.RECORD_TOO_SHORT),
+        assertTrue(
+                cut.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.RECORD_TOO_SHORT),
                 cut.warnings().toString());
 
         // Noisy: sigma 20% of the step.
         StepTestData noisy = generate(1, 3, 0.5, 0, 0, 1, 0.2, 6, 800, 0.2, new Random(6));
         StepFit loud = fitter.fit(noisy, new FitOptions(false, true));
-        assertTrue(loud.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.NOISE_DOMINATES),
+        assertTrue(
+                loud.warnings().stream().anyMatch(w -> w.code() == FitWarning.Code.NOISE_DOMINATES),
                 loud.warnings().toString());
     }
 
@@ -142,8 +181,8 @@ class StepResponseFitterTest {
     void aFitThatRunsOutOfIterationsIsAFailureNotAResult() {
         // Heavy noise and a start far from the optimum: two iterations cannot converge.
         StepTestData data = generate(1, 3, 0.2, 0.4, 0, 1, 0.2, 6, 800, 0.05, new Random(9));
-        FitFailedException failure = assertThrows(FitFailedException.class,
-                () -> new StepResponseFitter(2).fit(data, new FitOptions(true, true)));
+        FitFailedException failure = assertThrows(
+                FitFailedException.class, () -> new StepResponseFitter(2).fit(data, new FitOptions(true, true)));
         assertTrue(failure.getMessage().contains("did not converge within 2 iterations"), failure.getMessage());
         assertThrows(IllegalArgumentException.class, () -> new StepResponseFitter(0));
     }

@@ -6,8 +6,7 @@ package com.loopwright.solver.fit;
  */
 final class TextbookStep {
 
-    private TextbookStep() {
-    }
+    private TextbookStep() {}
 
     static double of(double t, double wn, double zeta) {
         if (t <= 0) {

@@ -11,7 +11,10 @@ class UnitStepShapeTest {
     void agreesWithTheTextbookFormulasInEveryDampingRegime() {
         for (double zeta : new double[] {0, 0.05, 0.3, 0.707, 0.95, 1, 1.2, 3, 20}) {
             for (double tau = 0.01; tau < 40; tau *= 1.37) {
-                assertEquals(TextbookStep.of(tau, 1, zeta), UnitStepShape.step(tau, zeta), 1e-12,
+                assertEquals(
+                        TextbookStep.of(tau, 1, zeta),
+                        UnitStepShape.step(tau, zeta),
+                        1e-12,
                         "zeta " + zeta + " tau " + tau);
             }
         }

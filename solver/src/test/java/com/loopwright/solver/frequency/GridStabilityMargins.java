@@ -22,6 +22,7 @@ final class GridStabilityMargins {
     static final int MAX_ROOTS = CrossoverMargins.MAX_CROSSOVERS;
     /** Brent refinement in ln w: relative and absolute accuracy, order, and evaluations per crossing. */
     static final double RELATIVE_ACCURACY = 1e-15;
+
     static final double ABSOLUTE_ACCURACY_LOG = 1e-15;
     static final int BRENT_ORDER = 5;
     static final int MAX_EVALUATIONS = 200;
@@ -35,13 +36,14 @@ final class GridStabilityMargins {
      * @param phaseCrossoverRadPerSec where L(j w) crosses the negative real axis with the gain margin below
      * @param gainMarginDecibels      -20 log10 |L| there: the least positive one, else the one nearest 0 dB
      */
-    record Margins(OptionalDouble gainCrossoverRadPerSec, OptionalDouble phaseMarginDegrees,
-                   OptionalDouble delayMarginSeconds, OptionalDouble phaseCrossoverRadPerSec,
-                   OptionalDouble gainMarginDecibels) {
-    }
+    record Margins(
+            OptionalDouble gainCrossoverRadPerSec,
+            OptionalDouble phaseMarginDegrees,
+            OptionalDouble delayMarginSeconds,
+            OptionalDouble phaseCrossoverRadPerSec,
+            OptionalDouble gainMarginDecibels) {}
 
-    private GridStabilityMargins() {
-    }
+    private GridStabilityMargins() {}
 
     /**
      * Margins over every crossing in the window: the gain crossovers (log |L| = 0) and phase crossovers
@@ -78,7 +80,8 @@ final class GridStabilityMargins {
             }
             double margin = -20 * Math.log10(-l[0]);
             boolean better = gainMargin.isEmpty()
-                    || (margin > 0 ? gainMargin.getAsDouble() <= 0 || margin < gainMargin.getAsDouble()
+                    || (margin > 0
+                            ? gainMargin.getAsDouble() <= 0 || margin < gainMargin.getAsDouble()
                             : gainMargin.getAsDouble() <= 0 && margin > gainMargin.getAsDouble());
             if (better) {
                 gainMargin = OptionalDouble.of(margin);
@@ -89,13 +92,14 @@ final class GridStabilityMargins {
                 phaseMargins.map(m -> OptionalDouble.of(m.crossoverRadPerSec())).orElse(OptionalDouble.empty()),
                 phaseMargins.map(m -> OptionalDouble.of(m.phaseMarginDegrees())).orElse(OptionalDouble.empty()),
                 phaseMargins.map(m -> OptionalDouble.of(m.delayMarginSeconds())).orElse(OptionalDouble.empty()),
-                phaseCrossover, gainMargin);
+                phaseCrossover,
+                gainMargin);
     }
 
     /** Every sign change of f(ln w) between grid neighbours, refined by Brent's method; at most MAX_ROOTS. */
     private static List<Double> roots(double[] w, UnivariateFunction f) {
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(RELATIVE_ACCURACY,
-                ABSOLUTE_ACCURACY_LOG, 0, BRENT_ORDER);
+        BracketingNthOrderBrentSolver solver =
+                new BracketingNthOrderBrentSolver(RELATIVE_ACCURACY, ABSOLUTE_ACCURACY_LOG, 0, BRENT_ORDER);
         List<Double> roots = new ArrayList<>();
         double previous = f.value(Math.log(w[0]));
         if (previous == 0) {
@@ -106,8 +110,8 @@ final class GridStabilityMargins {
             if (current == 0) {
                 roots.add(w[i]);
             } else if (previous * current < 0) {
-                roots.add(Math.exp(solver.solve(MAX_EVALUATIONS, f, Math.log(w[i - 1]), Math.log(w[i]),
-                        AllowedSolution.ANY_SIDE)));
+                roots.add(Math.exp(solver.solve(
+                        MAX_EVALUATIONS, f, Math.log(w[i - 1]), Math.log(w[i]), AllowedSolution.ANY_SIDE)));
             }
             previous = current;
         }

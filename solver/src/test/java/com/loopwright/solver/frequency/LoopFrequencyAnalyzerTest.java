@@ -91,25 +91,34 @@ class LoopFrequencyAnalyzerTest {
     @Test
     void twoCrossoverLoopsAgreeWithTheClosedFormAnalyzer() {
         CanonicalPlant[] plants = {new CanonicalPlant(10, 2, 75, 6), new CanonicalPlant(150, -1, 65, 6)};
-        FeedbackGains[] gains = {new FeedbackGains(0.02270865497444023, 0.05474815300409212, 0.15604198830777358),
-            new FeedbackGains(1.3238037013361184, 0.3727054578964097, 3.631496009028426)};
+        FeedbackGains[] gains = {
+            new FeedbackGains(0.02270865497444023, 0.05474815300409212, 0.15604198830777358),
+            new FeedbackGains(1.3238037013361184, 0.3727054578964097, 3.631496009028426)
+        };
         double[] delays = {0.368081, 0.0478400};
         for (int i = 0; i < plants.length; i++) {
-            RationalLoop loop = RationalLoop.atPlantInput(plants[i], gains[i].positionGain(),
-                    gains[i].velocityGain());
+            RationalLoop loop = RationalLoop.atPlantInput(plants[i], gains[i].positionGain(), gains[i].velocityGain());
             assertTrue(loop.closedLoopStable());
             GridStabilityMargins.Margins grid = GridStabilityMargins.of(loop, 1e-2, 1e3, 400);
             LoopMargins closedForm = analyzer.margins(plants[i], gains[i], 0);
-            assertEquals(closedForm.crossoverRadPerSec(), grid.gainCrossoverRadPerSec().getAsDouble(),
+            assertEquals(
+                    closedForm.crossoverRadPerSec(),
+                    grid.gainCrossoverRadPerSec().getAsDouble(),
                     1e-12 * closedForm.crossoverRadPerSec());
-            assertEquals(closedForm.phaseMarginDegrees(), grid.phaseMarginDegrees().getAsDouble(), 1e-9);
-            assertEquals(closedForm.delayMarginSeconds(), grid.delayMarginSeconds().getAsDouble(), 1e-12);
+            assertEquals(
+                    closedForm.phaseMarginDegrees(), grid.phaseMarginDegrees().getAsDouble(), 1e-9);
+            assertEquals(
+                    closedForm.delayMarginSeconds(), grid.delayMarginSeconds().getAsDouble(), 1e-12);
             assertEquals(delays[i], grid.delayMarginSeconds().getAsDouble(), 2e-5 * delays[i]);
         }
         // an unstable closed loop (gain 10 around 1/(s(s+1)(s+2)), Routh: unstable above 6) has no delay margin
         RationalLoop unstable = new RationalLoop(new double[] {10}, new double[] {0, 2, 3, 1});
         assertFalse(unstable.closedLoopStable());
-        assertEquals(0, GridStabilityMargins.of(unstable, 1e-2, 1e2, 400).delayMarginSeconds().getAsDouble());
+        assertEquals(
+                0,
+                GridStabilityMargins.of(unstable, 1e-2, 1e2, 400)
+                        .delayMarginSeconds()
+                        .getAsDouble());
     }
 
     /** Unwrapped phase of 1/(s+1)^4 runs continuously from 0 to near -360 (common practice). */
@@ -131,7 +140,8 @@ class LoopFrequencyAnalyzerTest {
         RationalLoop loop = new RationalLoop(new double[] {1}, new double[] {1, 1});
         assertThrows(IllegalArgumentException.class, () -> analyzer.sample(loop, 0, 1, 10));
         assertThrows(IllegalArgumentException.class, () -> analyzer.sample(loop, 1, 1, 10));
-        assertThrows(IllegalArgumentException.class,
+        assertThrows(
+                IllegalArgumentException.class,
                 () -> analyzer.sample(loop, 1, 10, LoopFrequencyAnalyzer.MAX_POINTS + 1));
         assertThrows(IllegalArgumentException.class, () -> new RationalLoop(new double[] {0}, new double[] {1}));
         assertThrows(IllegalArgumentException.class, () -> new RationalLoop(new double[] {1}, new double[] {1, 0}));
@@ -141,7 +151,8 @@ class LoopFrequencyAnalyzerTest {
         // (jw I - A) v = B by Hipparchus' complex LU, then L = K v.
         FieldMatrix<Complex> m = new Array2DRowFieldMatrix<>(new Complex[][] {
             {new Complex(0, w), new Complex(-1, 0)},
-            {new Complex(plant.a0(), 0), new Complex(plant.a1(), w)}});
+            {new Complex(plant.a0(), 0), new Complex(plant.a1(), w)}
+        });
         FieldVector<Complex> rhs = new ArrayFieldVector<>(new Complex[] {Complex.ZERO, new Complex(plant.b(), 0)});
         FieldVector<Complex> v = new FieldLUDecomposition<>(m).getSolver().solve(rhs);
         Complex l = v.getEntry(0).multiply(k1).add(v.getEntry(1).multiply(k2));

@@ -39,10 +39,14 @@ class CompanionTransformTest {
             assertTrue(NormOps_DDRM.normF(companion) < 1e-9 * NormOps_DDRM.normF(expected), "T^-1 A T, n=" + n);
             DMatrixRMaj unit = product(tInverse, b2);
             assertEquals(1, unit.get(n - 1, 0), 1e-9);
-            HighOrderDesign design = new HighOrderDesigner().design(result.plant(),
-                    DesiredPoles.atMultiple(new TargetDynamics(0.8, 2), n, 3), new GammaChoice.MarginOverMinimum(1.2));
+            HighOrderDesign design = new HighOrderDesigner()
+                    .design(
+                            result.plant(),
+                            DesiredPoles.atMultiple(new TargetDynamics(0.8, 2), n, 3),
+                            new GammaChoice.MarginOverMinimum(1.2));
             DMatrixRMaj px = congruence(tInverse, design.solution().p());
-            DMatrixRMaj qx = congruence(tInverse, PoleMatchedRiccati.weightMatrix(design.solution().weightsSquared()));
+            DMatrixRMaj qx = congruence(
+                    tInverse, PoleMatchedRiccati.weightMatrix(design.solution().weightsSquared()));
             double u = 1 / (design.gamma() * design.gamma());
             DMatrixRMaj r = new DMatrixRMaj(n, n);
             CommonOps_DDRM.multTransB(u, b1, b1, r);
@@ -58,8 +62,9 @@ class CompanionTransformTest {
     void uncontrollablePairIsRejected() {
         DMatrixRMaj a = new DMatrixRMaj(new double[][] {{-1, 0, 0}, {0, -2, 0}, {0, 0, -3}});
         DMatrixRMaj b2 = new DMatrixRMaj(new double[][] {{1}, {1}, {0}});
-        assertThrows(CompanionTransform.UncontrollableException.class, () -> new CompanionTransform()
-                .transform(a, b2, b2, new DMatrixRMaj(new double[][] {{1, 0, 0}})));
+        assertThrows(
+                CompanionTransform.UncontrollableException.class,
+                () -> new CompanionTransform().transform(a, b2, b2, new DMatrixRMaj(new double[][] {{1, 0, 0}})));
     }
 
     private static DMatrixRMaj product(DMatrixRMaj x, DMatrixRMaj y) {

@@ -22,11 +22,14 @@ final class DirectFeasibility {
 
     private static final FeasibleGammaSearch SEARCH = new FeasibleGammaSearch();
 
-    private DirectFeasibility() {
-    }
+    private DirectFeasibility() {}
 
-    static void assertFeasible(CompanionPlant plant, double[] desired, FeasibleGammaSearch.FeasibleGammaSet set,
-                                double gamma, String where) {
+    static void assertFeasible(
+            CompanionPlant plant,
+            double[] desired,
+            FeasibleGammaSearch.FeasibleGammaSet set,
+            double gamma,
+            String where) {
         int n = plant.order();
         double mu = 1 / (gamma * gamma);
         PoleMatchedSolution solution = SEARCH.solutionAt(plant, desired, set, gamma);
@@ -34,8 +37,11 @@ final class DirectFeasibility {
         for (double value : w) {
             assertTrue(value >= 0, "rho_i^2 >= 0 at gamma " + gamma + " " + where);
         }
-        RiccatiSolution numeric = new HamiltonianRiccatiSolver().solve(plant.stateMatrix(), PoleMatchedRiccati.quadraticTerm(plant, mu),
-                PoleMatchedRiccati.weightMatrix(w));
+        RiccatiSolution numeric = new HamiltonianRiccatiSolver()
+                .solve(
+                        plant.stateMatrix(),
+                        PoleMatchedRiccati.quadraticTerm(plant, mu),
+                        PoleMatchedRiccati.weightMatrix(w));
         DMatrixRMaj p = numeric.p();
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(n, false, true);
         assertTrue(eig.decompose(p.copy()));

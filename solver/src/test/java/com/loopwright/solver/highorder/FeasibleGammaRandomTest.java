@@ -75,14 +75,16 @@ class FeasibleGammaRandomTest {
                 intervals++;
                 assertTrue(interval.lowerGamma() > set.inputGain(), "no gamma at or below ||T_wu|| is feasible");
                 for (double gamma : inside(interval)) {
-                    DirectFeasibility.assertFeasible(plant, desired, set, gamma, "design " + design + " n=" + n + " " + interval);
+                    DirectFeasibility.assertFeasible(
+                            plant, desired, set, gamma, "design " + design + " n=" + n + " " + interval);
                     checkedPoints++;
                 }
             }
         }
         double seconds = (cpu.getCurrentThreadCpuTime() - start) / 1e9;
         System.out.printf("search %.1f s CPU, %d Newton solves%n", searchNanos / 1e9, evaluations);
-        System.out.printf("designs %d, with a feasible gamma %d, intervals %d, gaps %d, points %d, %.1f s CPU%n",
+        System.out.printf(
+                "designs %d, with a feasible gamma %d, intervals %d, gaps %d, points %d, %.1f s CPU%n",
                 DESIGNS, nonEmpty, intervals, gaps, checkedPoints, seconds);
         assertTrue(nonEmpty >= DESIGNS / 2, "most random designs have a feasible gamma: " + nonEmpty);
     }
@@ -93,8 +95,8 @@ class FeasibleGammaRandomTest {
             return new double[] {low * (1 + JUST_INSIDE), low * 100};
         }
         double width = Math.log(interval.upperGamma() / low);
-        return new double[] {low * Math.exp(JUST_INSIDE * width), low * Math.exp(0.5 * width),
-                low * Math.exp((1 - JUST_INSIDE) * width)};
+        return new double[] {
+            low * Math.exp(JUST_INSIDE * width), low * Math.exp(0.5 * width), low * Math.exp((1 - JUST_INSIDE) * width)
+        };
     }
-
 }

@@ -35,20 +35,20 @@ class HighOrderDesignerTest {
     @Test
     void secondOrderReproducesTheClosedForm() {
         double[][] cases = {
-                {0, 0.48, 400, 400, 0.80075, 25.078},
-                {4, 0.5, 2, 1, 0.8, 5},
-                {-3, 1, 1.5, 0.7, 0.9, 4},
-                {10, -0.2, 3, 2, 0.75, 8},
+            {0, 0.48, 400, 400, 0.80075, 25.078},
+            {4, 0.5, 2, 1, 0.8, 5},
+            {-3, 1, 1.5, 0.7, 0.9, 4},
+            {10, -0.2, 3, 2, 0.75, 8},
         };
         ClosedFormDesigner closedForm = new ClosedFormDesigner();
         for (double[] c : cases) {
             CanonicalPlant plant = new CanonicalPlant(c[0], c[1], c[2], c[3]);
             TargetDynamics target = new TargetDynamics(c[4], c[5]);
             ClosedFormDesign expected = closedForm.design(plant, target, new GammaChoice.MarginOverMinimum(1.2));
-            CompanionPlant companion = new CompanionPlant(new double[] {c[0], c[1]}, new double[] {1, 0}, c[2],
-                    new double[] {0, c[3]});
-            HighOrderDesign actual = designer.design(companion, new DesiredPoles(target, List.of()),
-                    new GammaChoice.MarginOverMinimum(1.2));
+            CompanionPlant companion =
+                    new CompanionPlant(new double[] {c[0], c[1]}, new double[] {1, 0}, c[2], new double[] {0, c[3]});
+            HighOrderDesign actual = designer.design(
+                    companion, new DesiredPoles(target, List.of()), new GammaChoice.MarginOverMinimum(1.2));
             String where = Arrays.toString(c);
             assertRelative(expected.gammaMin(), actual.gammaMin(), 1e-12, "gammaMin " + where);
             DMatrixRMaj p = actual.solution().p();
@@ -100,7 +100,8 @@ class HighOrderDesignerTest {
             DMatrixRMaj aMat = plant.stateMatrix();
             DMatrixRMaj r = PoleMatchedRiccati.quadraticTerm(plant, 1 / (design.gamma() * design.gamma()));
             DMatrixRMaj q = PoleMatchedRiccati.weightMatrix(design.solution().weightsSquared());
-            double residual = RiccatiResidual.relative(aMat, r, q, design.solution().p());
+            double residual =
+                    RiccatiResidual.relative(aMat, r, q, design.solution().p());
             assertTrue(residual < 1e-9, "residual " + residual);
             RiccatiSolution reference = numeric.solve(aMat, r, q);
             DMatrixRMaj diff = reference.p();
@@ -123,14 +124,19 @@ class HighOrderDesignerTest {
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(plant.order(), false);
         assertTrue(eig.decompose(closedLoop));
         List<TargetDynamics.Pole> requested = design.poles().all();
-        double scale = requested.stream().mapToDouble(p -> Math.hypot(p.re(), p.im())).max().orElse(1);
+        double scale = requested.stream()
+                .mapToDouble(p -> Math.hypot(p.re(), p.im()))
+                .max()
+                .orElse(1);
         boolean[] used = new boolean[requested.size()];
         for (int i = 0; i < eig.getNumberOfEigenvalues(); i++) {
             Complex_F64 lambda = eig.getEigenvalue(i);
             int best = -1;
             double bestDistance = Double.POSITIVE_INFINITY;
             for (int j = 0; j < requested.size(); j++) {
-                double distance = Math.hypot(lambda.real - requested.get(j).re(), lambda.imaginary - requested.get(j).im());
+                double distance = Math.hypot(
+                        lambda.real - requested.get(j).re(),
+                        lambda.imaginary - requested.get(j).im());
                 if (!used[j] && distance < bestDistance) {
                     best = j;
                     bestDistance = distance;
@@ -155,11 +161,11 @@ class HighOrderDesignerTest {
         PoleMatchedSolution atAbove = search.solutionAt(plant, desired, set, above);
         double[] marginsAbove = FeasibleGammaSearch.margins(plant, 1 / (above * above), atAbove);
         for (int c = 0; c < marginsAbove.length; c++) {
-            assertTrue(FeasibleGammaSearch.holds(c, marginsAbove[c], plant.order()),
+            assertTrue(
+                    FeasibleGammaSearch.holds(c, marginsAbove[c], plant.order()),
                     "all requirements hold just above gamma_min, not " + c);
         }
-        PoleMatchedSolution atBelow = new PoleMatchedRiccati().solveFrom(plant, desired, 1 / (below * below),
-                atAbove);
+        PoleMatchedSolution atBelow = new PoleMatchedRiccati().solveFrom(plant, desired, 1 / (below * below), atAbove);
         double[] marginsBelow = FeasibleGammaSearch.margins(plant, 1 / (below * below), atBelow);
         List<GammaBound> bounds = design.gammaBounds();
         boolean bindingFails = false;

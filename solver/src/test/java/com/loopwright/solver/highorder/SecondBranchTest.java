@@ -42,8 +42,14 @@ class SecondBranchTest {
         double[] col = PoleMatchedRiccati.matchedColumn(plant, desired);
         java.util.function.Function<double[], DMatrixRMaj> pOf = x -> {
             DMatrixRMaj p = new DMatrixRMaj(n, n);
-            p.set(0, 0, x[0]); p.set(0, 1, x[1]); p.set(1, 0, x[1]); p.set(1, 1, x[2]);
-            for (int j = 0; j < n; j++) { p.set(j, 2, col[j]); p.set(2, j, col[j]); }
+            p.set(0, 0, x[0]);
+            p.set(0, 1, x[1]);
+            p.set(1, 0, x[1]);
+            p.set(1, 1, x[2]);
+            for (int j = 0; j < n; j++) {
+                p.set(j, 2, col[j]);
+                p.set(2, j, col[j]);
+            }
             return p;
         };
         java.util.function.Function<double[], double[]> eqs = x -> {
@@ -54,12 +60,18 @@ class SecondBranchTest {
         double[] f0 = eqs.apply(new double[3]);
         double[][] m = new double[2][3];
         for (int k = 0; k < 3; k++) {
-            double[] e = new double[3]; e[k] = 1;
+            double[] e = new double[3];
+            e[k] = 1;
             double[] fk = eqs.apply(e);
-            m[0][k] = fk[0] - f0[0]; m[1][k] = fk[1] - f0[1];
+            m[0][k] = fk[0] - f0[0];
+            m[1][k] = fk[1] - f0[1];
         }
         // null vector v = row0 x row1
-        double[] v = {m[0][1] * m[1][2] - m[0][2] * m[1][1], m[0][2] * m[1][0] - m[0][0] * m[1][2], m[0][0] * m[1][1] - m[0][1] * m[1][0]};
+        double[] v = {
+            m[0][1] * m[1][2] - m[0][2] * m[1][1],
+            m[0][2] * m[1][0] - m[0][0] * m[1][2],
+            m[0][0] * m[1][1] - m[0][1] * m[1][0]
+        };
         // particular solution: least squares via pseudo-inverse of 2x3
         DMatrixRMaj mm = new DMatrixRMaj(2, 3, true, m[0][0], m[0][1], m[0][2], m[1][0], m[1][1], m[1][2]);
         DMatrixRMaj pinv = new DMatrixRMaj(3, 2);
@@ -68,13 +80,17 @@ class SecondBranchTest {
         CommonOps_DDRM.mult(pinv, new DMatrixRMaj(2, 1, true, -f0[0], -f0[1]), x0);
         double vn = Math.sqrt(v[0] * v[0] + v[1] * v[1] + v[2] * v[2]);
         double scale = Math.max(1, Math.abs(x0.get(0)) + Math.abs(x0.get(1)) + Math.abs(x0.get(2)));
-        java.util.function.DoubleFunction<double[]> xt = t -> new double[] {x0.get(0) + t * v[0] / vn * scale, x0.get(1) + t * v[1] / vn * scale, x0.get(2) + t * v[2] / vn * scale};
+        java.util.function.DoubleFunction<double[]> xt = t -> new double[] {
+            x0.get(0) + t * v[0] / vn * scale, x0.get(1) + t * v[1] / vn * scale, x0.get(2) + t * v[2] / vn * scale
+        };
         double qm = eqs.apply(xt.apply(-1))[2], q0 = eqs.apply(xt.apply(0))[2], qp = eqs.apply(xt.apply(1))[2];
         double alpha = (qp + qm) / 2 - q0, beta = (qp - qm) / 2, gamma0 = q0;
         List<PoleMatchedSolution> out = new ArrayList<>();
         double disc = beta * beta - 4 * alpha * gamma0;
         if (disc < 0) return out;
-        double[] ts = alpha == 0 ? new double[] {-gamma0 / beta} : new double[] {(-beta + Math.sqrt(disc)) / (2 * alpha), (-beta - Math.sqrt(disc)) / (2 * alpha)};
+        double[] ts = alpha == 0
+                ? new double[] {-gamma0 / beta}
+                : new double[] {(-beta + Math.sqrt(disc)) / (2 * alpha), (-beta - Math.sqrt(disc)) / (2 * alpha)};
         for (double t : ts) {
             DMatrixRMaj p = pOf.apply(xt.apply(t));
             DMatrixRMaj f = PoleMatchedRiccati.riccati(a, r, p, new DMatrixRMaj(n, n));
@@ -82,7 +98,8 @@ class SecondBranchTest {
             // polish with Newton
             try {
                 out.add(new PoleMatchedRiccati().solveFrom(plant, desired, mu, new PoleMatchedSolution(p, w, 0, 0, 0)));
-            } catch (RuntimeException e) { }
+            } catch (RuntimeException e) {
+            }
         }
         return out;
     }
@@ -98,8 +115,9 @@ class SecondBranchTest {
             CompanionPlant plant = new CompanionPlant(a, new double[] {1, 0, 0}, 0.5 + 2 * random.nextDouble(), d);
             TargetDynamics target = new TargetDynamics(0.72 + 0.25 * random.nextDouble(), 1 + 3 * random.nextDouble());
             double multiple = 2 + 2 * random.nextDouble();
-            double[] desired = new DesiredPoles(target,
-                    List.of(new TargetDynamics.Pole(target.poleRealPart() * multiple, 0))).coefficients();
+            double[] desired = new DesiredPoles(
+                            target, List.of(new TargetDynamics.Pole(target.poleRealPart() * multiple, 0)))
+                    .coefficients();
             FeasibleGammaSearch.FeasibleGammaSet set = search.search(plant, desired);
             for (int i = 1; i <= GAMMAS; i++) {
                 double gamma = set.inputGain() * Math.pow(1e4, (double) i / GAMMAS);
@@ -111,14 +129,16 @@ class SecondBranchTest {
                     }
                     otherBranch++;
                     FeasibleGammaSearch.FeasibleGammaSet more = search.seek(plant, desired, set, gamma);
-                    assertTrue(more.contains(gamma), "design " + design + ": a feasible solution at gamma " + gamma
-                            + " is neither in " + set.intervals() + " nor found by seek");
+                    assertTrue(
+                            more.contains(gamma),
+                            "design " + design + ": a feasible solution at gamma " + gamma + " is neither in "
+                                    + set.intervals() + " nor found by seek");
                     DirectFeasibility.assertFeasible(plant, desired, more, gamma, "second branch, design " + design);
                 }
             }
         }
-        System.out.printf("n = 3: %d real solutions, %d feasible ones on a second branch, all found%n", solutions,
-                otherBranch);
+        System.out.printf(
+                "n = 3: %d real solutions, %d feasible ones on a second branch, all found%n", solutions, otherBranch);
         assertTrue(solutions > DESIGNS * GAMMAS, "two real solutions at many points");
         assertTrue(otherBranch >= 1, "the seed holds feasible points that only a second branch reaches");
     }
@@ -144,9 +164,13 @@ class SecondBranchTest {
         FeasibleGammaSearch.FeasibleGammaSet principal = search.search(plant, poles.coefficients());
         assertFalse(principal.contains(gamma), "not on the branch from gamma = infinity: " + principal.intervals());
         HighOrderDesign design = new HighOrderDesigner().design(plant, poles, new GammaChoice.Fixed(gamma));
-        assertTrue(design.feasibleSet().stream().anyMatch(i -> i.contains(gamma)), design.feasibleSet().toString());
+        assertTrue(
+                design.feasibleSet().stream().anyMatch(i -> i.contains(gamma)),
+                design.feasibleSet().toString());
         assertTrue(design.gammaMin() < principal.gammaMin());
-        assertTrue(design.notes().stream().anyMatch(n -> n.contains("second solution branch")), design.notes().toString());
+        assertTrue(
+                design.notes().stream().anyMatch(n -> n.contains("second solution branch")),
+                design.notes().toString());
         assertNull(search.independentCheck(plant, 1 / (gamma * gamma), design.solution()));
     }
 }

@@ -29,8 +29,8 @@ class SpecMatcherTest {
      */
     @Test
     void leftHalfPlaneZeroConvergesOnTheSimulatedSpecs() {
-        CompanionPlant plant = new CompanionPlant(new double[] {0, 96, 200.48}, new double[] {1, 1 / 15.0, 0},
-                8e4, new double[] {0, 400, 0});
+        CompanionPlant plant = new CompanionPlant(
+                new double[] {0, 96, 200.48}, new double[] {1, 1 / 15.0, 0}, 8e4, new double[] {0, 400, 0});
         DesignSpec spec = new DesignSpec(0.015, new TimeSpec.SettlingTime(0.3, 0.02));
         // the auxiliary pole must stay faster than the current loop (-200 1/s), else rho_3 turns imaginary
         AuxiliaryPlacement auxiliary = new AuxiliaryPlacement.Explicit(List.of(new TargetDynamics.Pole(-250, 0)));
@@ -38,16 +38,19 @@ class SpecMatcherTest {
         assertTrue(Math.abs(match.settlingResidual()) <= SpecMatcher.SETTLING_TOLERANCE);
         assertTrue(Math.abs(match.overshootResidualPoints()) <= SpecMatcher.OVERSHOOT_TOLERANCE_POINTS);
         // independent: the uncorrected second-order pair misses the overshoot by more than the tolerance
-        HighOrderStep unmatched = new ClosedLoopStep().simulate(plant,
-                auxiliary.place(match.startingTarget(), 3), 1, 0.02, 0.3);
-        assertTrue(Math.abs(unmatched.metrics().overshootPercent() - 1.5) > 10 * SpecMatcher.OVERSHOOT_TOLERANCE_POINTS,
+        HighOrderStep unmatched =
+                new ClosedLoopStep().simulate(plant, auxiliary.place(match.startingTarget(), 3), 1, 0.02, 0.3);
+        assertTrue(
+                Math.abs(unmatched.metrics().overshootPercent() - 1.5) > 10 * SpecMatcher.OVERSHOOT_TOLERANCE_POINTS,
                 "the zero moves the overshoot: " + unmatched.metrics());
-        HighOrderDesign design = new HighOrderDesigner().design(plant,
-                auxiliary.place(match.target(), 3), new GammaChoice.MarginOverMinimum(1.2));
+        HighOrderDesign design = new HighOrderDesigner()
+                .design(plant, auxiliary.place(match.target(), 3), new GammaChoice.MarginOverMinimum(1.2));
         HighOrderVerification verification = new HighOrderVerifier().verify(design, 1, 0.02, 0.3);
         assertTrue(verification.certified(), verification.toString());
-        assertEquals(match.step().metrics().settlingTimeSeconds(),
-                verification.step().metrics().settlingTimeSeconds(), 1e-9);
+        assertEquals(
+                match.step().metrics().settlingTimeSeconds(),
+                verification.step().metrics().settlingTimeSeconds(),
+                1e-9);
     }
 
     /**
@@ -56,10 +59,11 @@ class SpecMatcherTest {
      */
     @Test
     void rightHalfPlaneZeroThatForcesUndershootIsInfeasibleWithAProposal() {
-        CompanionPlant plant = new CompanionPlant(new double[] {2, 3, 0}, new double[] {1, -0.5, 0}, 5,
-                new double[] {0, 0, 1});
+        CompanionPlant plant =
+                new CompanionPlant(new double[] {2, 3, 0}, new double[] {1, -0.5, 0}, 5, new double[] {0, 0, 1});
         DesignSpec spec = new DesignSpec(0.02, new TimeSpec.SettlingTime(0.5, 0.02));
-        InfeasibleDesignException e = assertThrows(InfeasibleDesignException.class,
+        InfeasibleDesignException e = assertThrows(
+                InfeasibleDesignException.class,
                 () -> matcher.match(plant, spec, new AuxiliaryPlacement.RealPartMultiple(4), 1, 10));
         assertEquals(SpecQuantity.TIME_SPEC, e.infeasibility().quantity());
         assertTrue(e.getMessage().contains("right-half-plane zero"), e.getMessage());
@@ -70,8 +74,8 @@ class SpecMatcherTest {
     /** With the undershoot cap lifted the specs are met, and the simulated undershoot respects the bound. */
     @Test
     void liftedUndershootCapConvergesAndTheSimulationObeysTheBound() {
-        CompanionPlant plant = new CompanionPlant(new double[] {2, 3, 0}, new double[] {1, -0.5, 0}, 5,
-                new double[] {0, 0, 1});
+        CompanionPlant plant =
+                new CompanionPlant(new double[] {2, 3, 0}, new double[] {1, -0.5, 0}, 5, new double[] {0, 0, 1});
         DesignSpec spec = new DesignSpec(0.02, new TimeSpec.SettlingTime(0.5, 0.02));
         SpecMatch match = matcher.match(plant, spec, new AuxiliaryPlacement.RealPartMultiple(4), 1, 1000);
         double bound = 100 * 0.98 / Math.expm1(2 * match.step().metrics().settlingTimeSeconds());
@@ -85,10 +89,11 @@ class SpecMatcherTest {
      */
     @Test
     void unreachableSpecReportsNonConvergence() {
-        CompanionPlant plant = new CompanionPlant(new double[] {2, 3, 0}, new double[] {1, 5, 0}, 5,
-                new double[] {0, 0, 1});
+        CompanionPlant plant =
+                new CompanionPlant(new double[] {2, 3, 0}, new double[] {1, 5, 0}, 5, new double[] {0, 0, 1});
         DesignSpec spec = new DesignSpec(0.02, new TimeSpec.SettlingTime(0.3, 0.02));
-        InfeasibleDesignException e = assertThrows(InfeasibleDesignException.class,
+        InfeasibleDesignException e = assertThrows(
+                InfeasibleDesignException.class,
                 () -> matcher.match(plant, spec, new AuxiliaryPlacement.RealPartMultiple(4), 1, 10));
         assertTrue(e.getMessage().contains("did not converge"), e.getMessage());
     }

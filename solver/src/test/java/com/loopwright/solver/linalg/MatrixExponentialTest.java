@@ -30,17 +30,17 @@ class MatrixExponentialTest {
         // matrix (solution of the harmonic oscillator x1' = w x2, x2' = -w x1).
         double angularRate = 3.0; // rad/s
         double timeSeconds = angleRadians / angularRate;
-        DMatrixRMaj generator = new DMatrixRMaj(new double[][] {
-            {0.0, angularRate * timeSeconds}, {-angularRate * timeSeconds, 0.0}});
+        DMatrixRMaj generator =
+                new DMatrixRMaj(new double[][] {{0.0, angularRate * timeSeconds}, {-angularRate * timeSeconds, 0.0}});
         DMatrixRMaj expected = new DMatrixRMaj(new double[][] {
             {Math.cos(angleRadians), Math.sin(angleRadians)},
-            {-Math.sin(angleRadians), Math.cos(angleRadians)}});
+            {-Math.sin(angleRadians), Math.cos(angleRadians)}
+        });
         DMatrixRMaj actual = MatrixExponential.of(generator);
         // Tolerance 1e-15 + 4 wt eps: the angle wt itself is only known to wt eps absolute.
         // Measured: <= 2.1e-16 up to wt = 10, 2.0e-15 at wt = 100.
         double tolerance = 1e-15 + 4.0 * angleRadians * Math.ulp(1.0);
-        assertTrue(relativeError(actual, expected) <= tolerance,
-            "relative error " + relativeError(actual, expected));
+        assertTrue(relativeError(actual, expected) <= tolerance, "relative error " + relativeError(actual, expected));
     }
 
     @ParameterizedTest
@@ -144,8 +144,7 @@ class MatrixExponentialTest {
                 if (j > i) {
                     factorial *= j - i;
                 }
-                expected.set(i, j,
-                    Math.exp(eigenvalue * timeSeconds) * Math.pow(timeSeconds, j - i) / factorial);
+                expected.set(i, j, Math.exp(eigenvalue * timeSeconds) * Math.pow(timeSeconds, j - i) / factorial);
             }
         }
         double error = relativeError(MatrixExponential.of(jordanTimesT), expected);
@@ -195,20 +194,19 @@ class MatrixExponentialTest {
     @Test
     void rejectsBadArguments() {
         assertThrows(IllegalArgumentException.class, () -> MatrixExponential.of(null));
-        assertThrows(IllegalArgumentException.class,
-            () -> MatrixExponential.of(new DMatrixRMaj(2, 3)));
-        assertThrows(IllegalArgumentException.class,
-            () -> MatrixExponential.of(new DMatrixRMaj(33, 33)));
-        assertThrows(IllegalArgumentException.class,
-            () -> MatrixExponential.of(new DMatrixRMaj(new double[][] {{1, Double.NaN}, {0, 1}})));
-        assertThrows(IllegalArgumentException.class,
-            () -> MatrixExponential.of(
-                new DMatrixRMaj(new double[][] {{Double.POSITIVE_INFINITY}})));
+        assertThrows(IllegalArgumentException.class, () -> MatrixExponential.of(new DMatrixRMaj(2, 3)));
+        assertThrows(IllegalArgumentException.class, () -> MatrixExponential.of(new DMatrixRMaj(33, 33)));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> MatrixExponential.of(new DMatrixRMaj(new double[][] {{1, Double.NaN}, {0, 1}})));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> MatrixExponential.of(new DMatrixRMaj(new double[][] {{Double.POSITIVE_INFINITY}})));
         // ||A||_1 = 1e21 needs more than 64 squarings.
-        assertThrows(IllegalArgumentException.class,
-            () -> MatrixExponential.of(new DMatrixRMaj(new double[][] {{-1e21}})));
+        assertThrows(
+                IllegalArgumentException.class, () -> MatrixExponential.of(new DMatrixRMaj(new double[][] {{-1e21}})));
         // e^710 exceeds Double.MAX_VALUE (about e^709.78): overflow is reported, not returned.
-        assertThrows(IllegalArgumentException.class,
-            () -> MatrixExponential.of(new DMatrixRMaj(new double[][] {{710.0}})));
+        assertThrows(
+                IllegalArgumentException.class, () -> MatrixExponential.of(new DMatrixRMaj(new double[][] {{710.0}})));
     }
 }

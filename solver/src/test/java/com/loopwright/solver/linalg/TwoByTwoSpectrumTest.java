@@ -25,10 +25,11 @@ class TwoByTwoSpectrumTest {
                 }
             }
             TwoByTwoSpectrum spectrum = TwoByTwoSpectrum.of(new DMatrixRMaj(entries));
-            Complex[] eigenvalues = new EigenDecompositionNonSymmetric(new Array2DRowRealMatrix(entries))
-                    .getEigenvalues();
+            Complex[] eigenvalues =
+                    new EigenDecompositionNonSymmetric(new Array2DRowRealMatrix(entries)).getEigenvalues();
             double abscissa = Math.max(eigenvalues[0].getReal(), eigenvalues[1].getReal());
-            double imaginary = Math.max(Math.abs(eigenvalues[0].getImaginary()), Math.abs(eigenvalues[1].getImaginary()));
+            double imaginary =
+                    Math.max(Math.abs(eigenvalues[0].getImaginary()), Math.abs(eigenvalues[1].getImaginary()));
             assertEquals(abscissa, spectrum.abscissa(), 1e-12 * scale, "trial " + trial);
             assertEquals(imaginary, spectrum.maxImaginary(), 1e-7 * scale, "trial " + trial);
         }
@@ -45,8 +46,14 @@ class TwoByTwoSpectrumTest {
         assertEquals(-1e-9, stiff.abscissa(), 1e-24);
         assertEquals(0, stiff.maxImaginary());
         // repeated root -3 (Jordan block) and an unstable diagonal
-        assertEquals(-3, TwoByTwoSpectrum.of(new DMatrixRMaj(new double[][] {{-3, 1}, {0, -3}})).abscissa());
-        assertEquals(2, TwoByTwoSpectrum.of(new DMatrixRMaj(new double[][] {{2, 0}, {0, -5}})).abscissa());
+        assertEquals(
+                -3,
+                TwoByTwoSpectrum.of(new DMatrixRMaj(new double[][] {{-3, 1}, {0, -3}}))
+                        .abscissa());
+        assertEquals(
+                2,
+                TwoByTwoSpectrum.of(new DMatrixRMaj(new double[][] {{2, 0}, {0, -5}}))
+                        .abscissa());
         assertThrows(IllegalArgumentException.class, () -> TwoByTwoSpectrum.of(new DMatrixRMaj(3, 3)));
     }
 }

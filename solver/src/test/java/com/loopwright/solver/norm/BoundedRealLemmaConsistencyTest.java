@@ -36,7 +36,9 @@ class BoundedRealLemmaConsistencyTest {
             CommonOps_DDRM.multTransA(c, c, q);
             RiccatiSolution above = riccatiSolver.solve(a, quadraticTerm(b, 1.0001 * norm), q);
             assertTrue(above.relativeResidual() < 1e-8);
-            assertThrows(NoStabilizingSolutionException.class, () -> riccatiSolver.solve(a, quadraticTerm(b, 0.9999 * norm), q));
+            assertThrows(
+                    NoStabilizingSolutionException.class,
+                    () -> riccatiSolver.solve(a, quadraticTerm(b, 0.9999 * norm), q));
         }
     }
 

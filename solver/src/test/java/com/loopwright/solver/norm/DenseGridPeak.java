@@ -18,11 +18,9 @@ final class DenseGridPeak {
     /** Cap on Brent evaluations per local maximum. */
     static final int MAX_BRENT_EVALUATIONS = 300;
 
-    record Peak(double frequency, double gain, double gridMaximum) {
-    }
+    record Peak(double frequency, double gain, double gridMaximum) {}
 
-    private DenseGridPeak() {
-    }
+    private DenseGridPeak() {}
 
     /** Grid of {@code points} log-spaced frequencies from {@code low} to {@code high} [rad/s], then Brent. */
     static Peak of(DMatrixRMaj a, DMatrixRMaj b, DMatrixRMaj c, double low, double high, int points) {
@@ -49,8 +47,10 @@ final class DenseGridPeak {
                 bestW = w[i];
             }
             if (localMax && i < points) {
-                UnivariatePointValuePair refined = brent.optimize(new MaxEval(MAX_BRENT_EVALUATIONS),
-                        new UnivariateObjectiveFunction(response::maxSingularValue), GoalType.MAXIMIZE,
+                UnivariatePointValuePair refined = brent.optimize(
+                        new MaxEval(MAX_BRENT_EVALUATIONS),
+                        new UnivariateObjectiveFunction(response::maxSingularValue),
+                        GoalType.MAXIMIZE,
                         new SearchInterval(w[i - 1], w[i + 1], w[i]));
                 if (refined.getValue() > bestG) {
                     bestG = refined.getValue();

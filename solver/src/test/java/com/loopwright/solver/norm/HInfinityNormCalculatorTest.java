@@ -20,7 +20,9 @@ class HInfinityNormCalculatorTest {
         // source: resonant peak of a second-order system, any control textbook:
         // G = wn^2/(s^2 + 2 zeta wn s + wn^2), zeta < 1/sqrt(2):
         // Mr = 1/(2 zeta sqrt(1 - zeta^2)) at wr = wn sqrt(1 - 2 zeta^2)
-        double[][] cases = {{0.15, 1}, {0.05, 10}, {0.3, 0.2}, {0.5, 1000}, {0.7, 3}, {0.01, 2}, {0.4, 1e-2}, {0.001, 50}};
+        double[][] cases = {
+            {0.15, 1}, {0.05, 10}, {0.3, 0.2}, {0.5, 1000}, {0.7, 3}, {0.01, 2}, {0.4, 1e-2}, {0.001, 50}
+        };
         for (double[] c : cases) {
             double zeta = c[0];
             double wn = c[1];
@@ -28,7 +30,8 @@ class HInfinityNormCalculatorTest {
             double expectedPeak = 1 / (2 * zeta * Math.sqrt(1 - zeta * zeta));
             double expectedFrequency = wn * Math.sqrt(1 - 2 * zeta * zeta);
             assertEquals(expectedPeak, norm.value(), 1e-8 * expectedPeak, "zeta = " + zeta + ", wn = " + wn);
-            assertEquals(expectedFrequency, norm.peakFrequencyRadPerSec(), 1e-5 * wn, "zeta = " + zeta + ", wn = " + wn);
+            assertEquals(
+                    expectedFrequency, norm.peakFrequencyRadPerSec(), 1e-5 * wn, "zeta = " + zeta + ", wn = " + wn);
             assertTrue(norm.iterations() >= 1 && norm.iterations() <= 100);
         }
         // wn = 1, zeta = 0.15: Mr = 3.3715..., wr = 0.97724...
@@ -57,7 +60,8 @@ class HInfinityNormCalculatorTest {
      */
     static void assertBrackets(double exact, HInfinityNorm norm, double rounding, String message) {
         assertTrue(norm.value() >= exact * (1 - rounding), message + ": value " + norm.value() + " below " + exact);
-        assertTrue(norm.value() <= exact * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + rounding),
+        assertTrue(
+                norm.value() <= exact * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + rounding),
                 message + ": value " + norm.value() + " above " + exact + " beyond the stated tolerance");
         assertTrue(norm.attainedGain() <= exact * (1 + rounding), message + ": attained " + norm.attainedGain());
         assertEquals(exact, norm.attainedGain(), 1e-9 * exact, message);
@@ -145,14 +149,17 @@ class HInfinityNormCalculatorTest {
             assertTrue(refinedMax <= bound, "refined value " + refinedMax + " exceeds norm " + norm.value());
             double gap = (norm.value() - refinedMax) / norm.value();
             assertTrue(gap < 1e-6, "refined sweep " + refinedMax + " vs norm " + norm.value());
-            assertEquals(norm.attainedGain(), sweep.maxSingularValue(norm.peakFrequencyRadPerSec()), 1e-12 * norm.value());
-            assertTrue(norm.value() <= refinedMax * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + 1e-12),
+            assertEquals(
+                    norm.attainedGain(), sweep.maxSingularValue(norm.peakFrequencyRadPerSec()), 1e-12 * norm.value());
+            assertTrue(
+                    norm.value() <= refinedMax * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + 1e-12),
                     "certified upper end " + norm.value() + " vs refined sweep " + refinedMax);
             worstGap = Math.max(worstGap, gap);
             worstExcess = Math.max(worstExcess, (refinedMax - norm.value()) / norm.value());
             maxIterations = Math.max(maxIterations, norm.iterations());
         }
-        System.out.printf("norm vs sweep: worst (norm - refined sweep)/norm %.3e, worst (refined sweep - norm)/norm %.3e, max iterations %d%n",
+        System.out.printf(
+                "norm vs sweep: worst (norm - refined sweep)/norm %.3e, worst (refined sweep - norm)/norm %.3e, max iterations %d%n",
                 worstGap, worstExcess, maxIterations);
     }
 
@@ -161,7 +168,8 @@ class HInfinityNormCalculatorTest {
         DMatrixRMaj b = column(0, 1);
         DMatrixRMaj c = row(1, 0);
         // eigenvalues 0.1 +- j: unstable
-        UnstableSystemException e = assertThrows(UnstableSystemException.class,
+        UnstableSystemException e = assertThrows(
+                UnstableSystemException.class,
                 () -> calculator.compute(new DMatrixRMaj(new double[][] {{0.1, 1}, {-1, 0.1}}), b, c));
         assertFalse(e.getMessage().isBlank());
         // undamped oscillator, eigenvalues +- j
@@ -197,14 +205,18 @@ class HInfinityNormCalculatorTest {
     @Test
     void rejectsInvalidInput() {
         DMatrixRMaj a = secondOrderA(0.5, 1);
-        assertThrows(IllegalArgumentException.class, () -> calculator.compute(new DMatrixRMaj(2, 3), column(0, 1), row(1, 0)));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> calculator.compute(new DMatrixRMaj(2, 3), column(0, 1), row(1, 0)));
         assertThrows(IllegalArgumentException.class, () -> calculator.compute(a, new DMatrixRMaj(3, 1), row(1, 0)));
         assertThrows(IllegalArgumentException.class, () -> calculator.compute(a, new DMatrixRMaj(2, 0), row(1, 0)));
         assertThrows(IllegalArgumentException.class, () -> calculator.compute(a, column(0, 1), new DMatrixRMaj(1, 3)));
         assertThrows(IllegalArgumentException.class, () -> calculator.compute(a, column(0, Double.NaN), row(1, 0)));
         DMatrixRMaj big = CommonOps_DDRM.identity(33);
         CommonOps_DDRM.scale(-1, big);
-        assertThrows(IllegalArgumentException.class, () -> calculator.compute(big, new DMatrixRMaj(33, 1), new DMatrixRMaj(1, 33)));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> calculator.compute(big, new DMatrixRMaj(33, 1), new DMatrixRMaj(1, 33)));
         assertThrows(NullPointerException.class, () -> calculator.compute(a, null, row(1, 0)));
     }
 
@@ -273,9 +285,12 @@ class HInfinityNormCalculatorTest {
     }
 
     private static DMatrixRMaj rotation(double x, double y, double z) {
-        DMatrixRMaj rx = new DMatrixRMaj(new double[][] {{1, 0, 0}, {0, Math.cos(x), -Math.sin(x)}, {0, Math.sin(x), Math.cos(x)}});
-        DMatrixRMaj ry = new DMatrixRMaj(new double[][] {{Math.cos(y), 0, Math.sin(y)}, {0, 1, 0}, {-Math.sin(y), 0, Math.cos(y)}});
-        DMatrixRMaj rz = new DMatrixRMaj(new double[][] {{Math.cos(z), -Math.sin(z), 0}, {Math.sin(z), Math.cos(z), 0}, {0, 0, 1}});
+        DMatrixRMaj rx = new DMatrixRMaj(
+                new double[][] {{1, 0, 0}, {0, Math.cos(x), -Math.sin(x)}, {0, Math.sin(x), Math.cos(x)}});
+        DMatrixRMaj ry = new DMatrixRMaj(
+                new double[][] {{Math.cos(y), 0, Math.sin(y)}, {0, 1, 0}, {-Math.sin(y), 0, Math.cos(y)}});
+        DMatrixRMaj rz = new DMatrixRMaj(
+                new double[][] {{Math.cos(z), -Math.sin(z), 0}, {Math.sin(z), Math.cos(z), 0}, {0, 0, 1}});
         DMatrixRMaj rxy = new DMatrixRMaj(3, 3);
         CommonOps_DDRM.mult(rx, ry, rxy);
         DMatrixRMaj r = new DMatrixRMaj(3, 3);

@@ -24,13 +24,15 @@ class HInfinityNormRegressionTest {
      */
     @Test
     void companionLoopWithTenDecadesOfCoefficientsIsNotUnderestimated() {
-        double[] denominator = {3286.5795497977865, 2443.8582808398724, 1093.8567775813508, 164.76062175845746,
-            24.903359880407102};
+        double[] denominator = {
+            3286.5795497977865, 2443.8582808398724, 1093.8567775813508, 164.76062175845746, 24.903359880407102
+        };
         double b = 0.36536984243058584;
-        double[] k = {8.53062239383797E7, 1.3034084009849595E7, 902605.7905172684, 29690.134300739497,
-            399.94475534320117};
-        double[] rho = {7.50816215481988E7, 3457512.964125883, 298789.5816734896, 9809.467403276947,
-            125.99626990164073};
+        double[] k = {
+            8.53062239383797E7, 1.3034084009849595E7, 902605.7905172684, 29690.134300739497, 399.94475534320117
+        };
+        double[] rho = {7.50816215481988E7, 3457512.964125883, 298789.5816734896, 9809.467403276947, 125.99626990164073
+        };
         int n = 5;
         DMatrixRMaj a = new DMatrixRMaj(n, n);
         DMatrixRMaj c = new DMatrixRMaj(n + 1, n);
@@ -59,11 +61,14 @@ class HInfinityNormRegressionTest {
     /** The reference peak lies in [attainedGain, value] up to rounding; value within the stated tolerance. */
     static void assertCertifiedAgainst(DenseGridPeak.Peak reference, HInfinityNorm norm) {
         double rounding = 1e-12;
-        assertTrue(norm.value() >= reference.gain() * (1 - rounding),
+        assertTrue(
+                norm.value() >= reference.gain() * (1 - rounding),
                 "norm " + norm.value() + " below the refined grid peak " + reference.gain());
-        assertTrue(norm.value() >= reference.gridMaximum() * (1 - rounding),
+        assertTrue(
+                norm.value() >= reference.gridMaximum() * (1 - rounding),
                 "norm " + norm.value() + " below the grid maximum " + reference.gridMaximum());
-        assertTrue(norm.value() <= reference.gain() * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + rounding),
+        assertTrue(
+                norm.value() <= reference.gain() * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + rounding),
                 "norm " + norm.value() + " more than the tolerance above the refined grid peak " + reference.gain());
         assertTrue(norm.attainedGain() <= norm.value());
     }

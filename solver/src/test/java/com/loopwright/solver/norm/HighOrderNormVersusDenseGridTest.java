@@ -115,9 +115,15 @@ class HighOrderNormVersusDenseGridTest {
             }
             worstExcess = Math.max(worstExcess, norm.value() / reference.gain() - 1);
         }
-        System.out.printf("order-n norms vs dense grid: %d accepted (%d spec-matched, %d with zeros), %d rejected,"
-                + " worst (norm / reference - 1) %.3e, orders 3..8 %s, %.1f s CPU%n", accepted, matched, withZeros,
-                rejected, worstExcess, java.util.Arrays.toString(java.util.Arrays.copyOfRange(orders, 3, 9)),
+        System.out.printf(
+                "order-n norms vs dense grid: %d accepted (%d spec-matched, %d with zeros), %d rejected,"
+                        + " worst (norm / reference - 1) %.3e, orders 3..8 %s, %.1f s CPU%n",
+                accepted,
+                matched,
+                withZeros,
+                rejected,
+                worstExcess,
+                java.util.Arrays.toString(java.util.Arrays.copyOfRange(orders, 3, 9)),
                 1e-9 * (java.lang.management.ManagementFactory.getThreadMXBean().getCurrentThreadCpuTime() - cpuStart));
         for (int order = 3; order <= CompanionPlant.MAX_ORDER; order++) {
             assertTrue(orders[order] > 0, "no accepted design of order " + order);

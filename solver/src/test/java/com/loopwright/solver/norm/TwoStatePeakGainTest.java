@@ -21,8 +21,8 @@ class TwoStatePeakGainTest {
         for (double[] c : cases) {
             double zeta = c[0];
             double wn = c[1];
-            HInfinityNorm norm = peakGain.compute(HInfinityNormCalculatorTest.secondOrderA(zeta, wn),
-                    column(0, 1), row(wn * wn, 0));
+            HInfinityNorm norm =
+                    peakGain.compute(HInfinityNormCalculatorTest.secondOrderA(zeta, wn), column(0, 1), row(wn * wn, 0));
             double expectedPeak = 1 / (2 * zeta * Math.sqrt(1 - zeta * zeta));
             assertEquals(expectedPeak, norm.value(), 1e-13 * expectedPeak, "zeta = " + zeta);
             assertEquals(wn * Math.sqrt(1 - 2 * zeta * zeta), norm.peakFrequencyRadPerSec(), 1e-12 * wn);
@@ -35,8 +35,8 @@ class TwoStatePeakGainTest {
         // source: for zeta >= 1/sqrt(2) the magnitude of wn^2/(s^2 + 2 zeta wn s + wn^2) falls monotonically
         // from its DC gain 1 (textbook), so the norm is 1 at w = 0
         for (double zeta : new double[] {1 / Math.sqrt(2), 0.75, 1, 2.5}) {
-            HInfinityNorm norm = peakGain.compute(HInfinityNormCalculatorTest.secondOrderA(zeta, 4), column(0, 1),
-                    row(16, 0));
+            HInfinityNorm norm =
+                    peakGain.compute(HInfinityNormCalculatorTest.secondOrderA(zeta, 4), column(0, 1), row(16, 0));
             assertEquals(1.0, norm.value(), 1e-14);
             assertTrue(norm.peakFrequencyRadPerSec() < 1e-6, "peak at " + norm.peakFrequencyRadPerSec());
         }
@@ -47,8 +47,8 @@ class TwoStatePeakGainTest {
         // source: |jw/((jw)^2 + 2 zeta wn jw + wn^2)| = 1/(2 zeta wn) at w = wn, its maximum (textbook band-pass)
         double zeta = 0.3;
         double wn = 7;
-        HInfinityNorm norm = peakGain.compute(HInfinityNormCalculatorTest.secondOrderA(zeta, wn), column(0, 1),
-                row(0, 1));
+        HInfinityNorm norm =
+                peakGain.compute(HInfinityNormCalculatorTest.secondOrderA(zeta, wn), column(0, 1), row(0, 1));
         assertEquals(1 / (2 * zeta * wn), norm.value(), 1e-15);
         assertEquals(wn, norm.peakFrequencyRadPerSec(), 1e-12 * wn);
     }
@@ -88,13 +88,17 @@ class TwoStatePeakGainTest {
             double zeta = 0.05 + 1.5 * random.nextDouble();
             DMatrixRMaj a = HInfinityNormCalculatorTest.secondOrderA(zeta, wn);
             DMatrixRMaj b = column(0, Math.pow(10, -2 + 4 * random.nextDouble()));
-            DMatrixRMaj c = new DMatrixRMaj(new double[][] {{random.nextDouble() * 10, 0},
-                {0, random.nextDouble()}, {-random.nextDouble() * wn, -random.nextDouble()}});
+            DMatrixRMaj c = new DMatrixRMaj(new double[][] {
+                {random.nextDouble() * 10, 0},
+                {0, random.nextDouble()},
+                {-random.nextDouble() * wn, -random.nextDouble()}
+            });
             HInfinityNorm exact = peakGain.compute(a, b, c);
             HInfinityNorm iterated = general.compute(a, b, c);
             assertTrue(exact.value() >= iterated.attainedGain() * (1 - 1e-14), "trial " + trial);
             assertTrue(exact.value() <= iterated.value() * (1 + 1e-14), "trial " + trial);
-            assertTrue(iterated.value() <= exact.value() * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + 1e-14),
+            assertTrue(
+                    iterated.value() <= exact.value() * (1 + HInfinityNormCalculator.RELATIVE_TOLERANCE + 1e-14),
                     "trial " + trial);
         }
     }
@@ -120,22 +124,33 @@ class TwoStatePeakGainTest {
     void repeatedAndRealPolesAreExact() {
         // source: 1/(s + 1)^2 has |G(jw)| = 1/(1 + w^2), largest at DC (= 1);
         // 1/(s + 1) - 1/(s + 100) = 99/((s + 1)(s + 100)) falls monotonically from its DC gain 0.99
-        assertEquals(1.0, peakGain.compute(matrix(0, 1, -1, -2), column(0, 1), row(1, 0)).value(), 1e-15);
-        assertEquals(0.99, peakGain.compute(matrix(-1, 0, 0, -100), column(1, 1), row(1, -1)).value(), 1e-15);
+        assertEquals(
+                1.0,
+                peakGain.compute(matrix(0, 1, -1, -2), column(0, 1), row(1, 0)).value(),
+                1e-15);
+        assertEquals(
+                0.99,
+                peakGain.compute(matrix(-1, 0, 0, -100), column(1, 1), row(1, -1))
+                        .value(),
+                1e-15);
     }
 
     @Test
     void zeroSystemAndUnstableOnes() {
-        assertEquals(0.0, peakGain.compute(matrix(-1, 0, 0, -2), column(0, 0), row(1, 1)).value());
-        assertThrows(UnstableSystemException.class,
-                () -> peakGain.compute(matrix(0, 1, 4, -1), column(0, 1), row(1, 0)));
-        assertThrows(UnstableSystemException.class,
-                () -> peakGain.compute(matrix(0, 1, -4, 0), column(0, 1), row(1, 0)));
-        assertThrows(UnstableSystemException.class,
-                () -> peakGain.compute(matrix(0, 1, 0, -1), column(0, 1), row(1, 0)));
-        assertThrows(IllegalArgumentException.class,
+        assertEquals(
+                0.0,
+                peakGain.compute(matrix(-1, 0, 0, -2), column(0, 0), row(1, 1)).value());
+        assertThrows(
+                UnstableSystemException.class, () -> peakGain.compute(matrix(0, 1, 4, -1), column(0, 1), row(1, 0)));
+        assertThrows(
+                UnstableSystemException.class, () -> peakGain.compute(matrix(0, 1, -4, 0), column(0, 1), row(1, 0)));
+        assertThrows(
+                UnstableSystemException.class, () -> peakGain.compute(matrix(0, 1, 0, -1), column(0, 1), row(1, 0)));
+        assertThrows(
+                IllegalArgumentException.class,
                 () -> peakGain.compute(matrix(-1, 0, 0, -1), new DMatrixRMaj(2, 2), row(1, 0)));
-        assertThrows(IllegalArgumentException.class,
+        assertThrows(
+                IllegalArgumentException.class,
                 () -> peakGain.compute(matrix(-1, Double.NaN, 0, -1), column(0, 1), row(1, 0)));
     }
 

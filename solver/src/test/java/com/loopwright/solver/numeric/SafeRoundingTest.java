@@ -29,10 +29,10 @@ class SafeRoundingTest {
         for (int i = 0; i < SAMPLES; i++) {
             double bound = Math.pow(10, -6 + 12 * random.nextDouble());
             for (int digits : new int[] {4, 6}) {
-                double down = Double.parseDouble(String.format(Locale.ROOT, "%." + digits + "g",
-                        SafeRounding.atMost(bound, digits)));
-                double up = Double.parseDouble(String.format(Locale.ROOT, "%." + digits + "g",
-                        SafeRounding.atLeast(bound, digits)));
+                double down = Double.parseDouble(
+                        String.format(Locale.ROOT, "%." + digits + "g", SafeRounding.atMost(bound, digits)));
+                double up = Double.parseDouble(
+                        String.format(Locale.ROOT, "%." + digits + "g", SafeRounding.atLeast(bound, digits)));
                 double unit = Math.pow(10, Math.floor(Math.log10(bound)) - digits + 1);
                 assertTrue(down <= bound && bound - down <= unit * (1 + 1e-9), bound + " -> " + down);
                 assertTrue(up >= bound && up - bound <= unit * (1 + 1e-9), bound + " -> " + up);

@@ -31,8 +31,10 @@ class HighOrderPipelineTest {
         HighOrderPipeline.StateSpace derivative = new HighOrderPipeline.StateSpace(
                 new DMatrixRMaj(new double[][] {{0, 1}, {-2, -3}}), new DMatrixRMaj(new double[][] {{0}, {1}}),
                 new DMatrixRMaj(new double[][] {{0}, {1}}), new DMatrixRMaj(new double[][] {{0, 1}}));
-        SolverFailure failure = assertThrows(SolverFailure.class, () -> new HighOrderPipeline().design(
-                new HighOrderPipeline.Request(null, derivative, null, null, false, null, 1, 0.02, 0)));
+        SolverFailure failure = assertThrows(
+                SolverFailure.class,
+                () -> new HighOrderPipeline()
+                        .design(new HighOrderPipeline.Request(null, derivative, null, null, false, null, 1, 0.02, 0)));
         assertEquals(SolverFailure.Kind.NO_DC_GAIN, failure.kind());
     }
 }

@@ -29,8 +29,10 @@ class IllConditionedStateSpaceTest {
      * A = R diag(-100, -200) R' and B2 = R [1, 3e-9]' with R the rotation by 0.5 rad (rounded to doubles): B2 is
      * nearly the eigenvector of A for -100, so [B2, A B2] is nearly singular; B1 = B2 / 2.
      */
-    private static final double[][] A = {{-122.98488470659302, 42.07354924039484},
-        {42.07354924039482, -177.015115293407}};
+    private static final double[][] A = {
+        {-122.98488470659302, 42.07354924039484}, {42.07354924039482, -177.015115293407}
+    };
+
     private static final double[] B2 = {0.8775825604520961, 0.4794255412369507};
     private static final double[] B1 = {0.5 * B2[0], 0.5 * B2[1]};
 
@@ -38,8 +40,8 @@ class IllConditionedStateSpaceTest {
     void conditionIsStatedAndCallerGainAndDcGainMatchSixtyDigits() {
         TwoStateModel model = new TwoStateModel(A, B2, B1);
         TargetDynamics target = new TargetDynamics(0.8, 400);
-        ClosedFormDesign design = new ClosedFormDesigner().design(model.canonical(), target,
-                new GammaChoice.MarginOverMinimum(1.2));
+        ClosedFormDesign design =
+                new ClosedFormDesigner().design(model.canonical(), target, new GammaChoice.MarginOverMinimum(1.2));
         StateSpaceDesign view = CallerCoordinates.of(model, design);
 
         BigDecimal[][] cx = {{bd(B2[0]), ab2(0)}, {bd(B2[1]), ab2(1)}};
@@ -83,19 +85,22 @@ class IllConditionedStateSpaceTest {
             kReference[j] = row2[0].multiply(phi[0][j], DIGITS).add(row2[1].multiply(phi[1][j], DIGITS), DIGITS);
         }
         DMatrixRMaj gain = view.gain();
-        double gainError = Math.max(relative(gain.get(0), kReference[0], kReference),
-                relative(gain.get(1), kReference[1], kReference));
+        double gainError = Math.max(
+                relative(gain.get(0), kReference[0], kReference), relative(gain.get(1), kReference[1], kReference));
 
         BigDecimal scale = row2[0].abs().compareTo(row2[1].abs()) >= 0 ? row2[0] : row2[1];
         DMatrixRMaj c = view.trackedOutput();
-        double outputError = Math.max(Math.abs(c.get(0) - row2[0].divide(scale, DIGITS).doubleValue()),
+        double outputError = Math.max(
+                Math.abs(c.get(0) - row2[0].divide(scale, DIGITS).doubleValue()),
                 Math.abs(c.get(1) - row2[1].divide(scale, DIGITS).doubleValue()));
 
         // DC gain of the reported law u = kr r - K_x x, y = c x, evaluated at 60 digits
         BigDecimal dcGain = dcGain(gain, c, view.referenceGain());
         double dcError = dcGain.subtract(BigDecimal.ONE).abs().doubleValue();
-        System.out.printf("ill-conditioned state space: cond %.3e, K_x relative error %.2e, c error %.2e,"
-                + " |DC gain - 1| %.2e%n", model.controllabilityCondition(), gainError, outputError, dcError);
+        System.out.printf(
+                "ill-conditioned state space: cond %.3e, K_x relative error %.2e, c error %.2e,"
+                        + " |DC gain - 1| %.2e%n",
+                model.controllabilityCondition(), gainError, outputError, dcError);
         // the stated bound: up to log10(cond) digits lost, i.e. relative error <= a few cond * unit roundoff
         double statedBound = 4 * model.controllabilityCondition() * 0x1p-53;
         assertTrue(gainError < statedBound, "K_x relative error " + gainError + " above " + statedBound);
@@ -107,8 +112,8 @@ class IllConditionedStateSpaceTest {
 
     @Test
     void wellConditionedModelCarriesNoNote() {
-        TwoStateModel model = new TwoStateModel(new double[][] {{0, 50}, {0, -2}}, new double[] {0, 3},
-                new double[] {0, 1});
+        TwoStateModel model =
+                new TwoStateModel(new double[][] {{0, 50}, {0, -2}}, new double[] {0, 3}, new double[] {0, 1});
         assertFalse(model.illConditioned());
         assertTrue(model.controllabilityCondition() < 100);
     }
@@ -123,9 +128,11 @@ class IllConditionedStateSpaceTest {
         }
         BigDecimal det = m[0][0].multiply(m[1][1], DIGITS).subtract(m[0][1].multiply(m[1][0], DIGITS), DIGITS);
         // x = m^-1 B2 = adj(m) B2 / det
-        BigDecimal x0 = m[1][1].multiply(bd(B2[0]), DIGITS).subtract(m[0][1].multiply(bd(B2[1]), DIGITS), DIGITS)
+        BigDecimal x0 = m[1][1].multiply(bd(B2[0]), DIGITS)
+                .subtract(m[0][1].multiply(bd(B2[1]), DIGITS), DIGITS)
                 .divide(det, DIGITS);
-        BigDecimal x1 = m[0][0].multiply(bd(B2[1]), DIGITS).subtract(m[1][0].multiply(bd(B2[0]), DIGITS), DIGITS)
+        BigDecimal x1 = m[0][0].multiply(bd(B2[1]), DIGITS)
+                .subtract(m[1][0].multiply(bd(B2[0]), DIGITS), DIGITS)
                 .divide(det, DIGITS);
         BigDecimal cx = bd(c.get(0)).multiply(x0, DIGITS).add(bd(c.get(1)).multiply(x1, DIGITS), DIGITS);
         return cx.negate().multiply(bd(kr), DIGITS);

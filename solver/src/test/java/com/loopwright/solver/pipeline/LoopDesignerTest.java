@@ -36,8 +36,11 @@ class LoopDesignerTest {
         int infeasible = 0;
         for (int trial = 0; trial < 1500 && designed < 250; trial++) {
             double sign = random.nextBoolean() ? 1 : -1;
-            CanonicalPlant plant = new CanonicalPlant(-20 + 70 * random.nextDouble(), -1 + 6 * random.nextDouble(),
-                    sign * Math.pow(10, -1 + 4 * random.nextDouble()), 500 * random.nextDouble());
+            CanonicalPlant plant = new CanonicalPlant(
+                    -20 + 70 * random.nextDouble(),
+                    -1 + 6 * random.nextDouble(),
+                    sign * Math.pow(10, -1 + 4 * random.nextDouble()),
+                    500 * random.nextDouble());
             double band = new double[] {0.02, 0.05, 0.01}[random.nextInt(3)];
             DesignSpec spec = new DesignSpec(0.0001 + 0.06 * random.nextDouble(), timeSpec(random, band));
             DesignReport report;
@@ -55,17 +58,24 @@ class LoopDesignerTest {
             assertTrue(verification.hinfNorm().value() <= report.design().gamma() * (1 + 1e-8));
             // independent route for the reported norm: the general Hamiltonian eigenvalue iteration
             // (within 2e-10 below the norm) on the same closed loop from w to z
-            assertEquals(hamiltonianNorm(report), verification.hinfNorm().value(),
-                    3e-10 * verification.hinfNorm().value(), plant + " " + spec);
+            assertEquals(
+                    hamiltonianNorm(report),
+                    verification.hinfNorm().value(),
+                    3e-10 * verification.hinfNorm().value(),
+                    plant + " " + spec);
             assertTrue(verification.closedFormResidual() < 1e-10, "residual " + verification.closedFormResidual());
             var metrics = verification.metrics();
             // Quality bar: simulated overshoot within 0.02 points of the spec, times within 0.5%, away from the
             // band-touching jump of the settling time.
             assertEquals(100 * spec.overshootFraction(), metrics.overshootPercent(), 0.02, plant + " " + spec);
             double simulatedTime = spec.timeSpec() instanceof TimeSpec.SettlingTime
-                    ? metrics.settlingTimeSeconds() : metrics.riseTimeSeconds();
+                    ? metrics.settlingTimeSeconds()
+                    : metrics.riseTimeSeconds();
             if (!report.inversion().nearBandTouch()) {
-                assertEquals(spec.timeSpec().seconds(), simulatedTime, 0.005 * spec.timeSpec().seconds(),
+                assertEquals(
+                        spec.timeSpec().seconds(),
+                        simulatedTime,
+                        0.005 * spec.timeSpec().seconds(),
                         plant + " " + spec);
                 assertTrue(verification.specsMet(), plant + " " + spec);
             }
@@ -82,11 +92,12 @@ class LoopDesignerTest {
         if (plant.d() == 0) {
             return 0;
         }
-        DMatrixRMaj closedLoop = new DMatrixRMaj(new double[][] {{0, 1},
-            {-plant.a0() - plant.b() * d.positionGain(), -plant.a1() - plant.b() * d.velocityGain()}});
+        DMatrixRMaj closedLoop = new DMatrixRMaj(new double[][] {
+            {0, 1}, {-plant.a0() - plant.b() * d.positionGain(), -plant.a1() - plant.b() * d.velocityGain()}
+        });
         DMatrixRMaj b1 = new DMatrixRMaj(new double[][] {{0}, {plant.d()}});
-        DMatrixRMaj cz = new DMatrixRMaj(new double[][] {{d.rho1(), 0}, {0, d.rho2()},
-            {-d.positionGain(), -d.velocityGain()}});
+        DMatrixRMaj cz =
+                new DMatrixRMaj(new double[][] {{d.rho1(), 0}, {0, d.rho2()}, {-d.positionGain(), -d.velocityGain()}});
         return new HInfinityNormCalculator().compute(closedLoop, b1, cz).value();
     }
 
@@ -95,8 +106,11 @@ class LoopDesignerTest {
         Random random = new Random(99L);
         int checked = 0;
         for (int trial = 0; trial < 400 && checked < 40; trial++) {
-            CanonicalPlant plant = new CanonicalPlant(-5 + 30 * random.nextDouble(), 6 * random.nextDouble(),
-                    0.5 + 50 * random.nextDouble(), 10 * random.nextDouble());
+            CanonicalPlant plant = new CanonicalPlant(
+                    -5 + 30 * random.nextDouble(),
+                    6 * random.nextDouble(),
+                    0.5 + 50 * random.nextDouble(),
+                    10 * random.nextDouble());
             DesignSpec spec = new DesignSpec(0.001 + 0.3 * random.nextDouble(), timeSpec(random, 0.02));
             try {
                 designer.design(plant, spec, new GammaChoice.MarginOverMinimum(1.2), 1, 0.02);
@@ -104,10 +118,13 @@ class LoopDesignerTest {
                 for (SpecProposal proposal : e.infeasibility().proposals()) {
                     DesignSpec fixed = proposal.quantity() == SpecQuantity.OVERSHOOT_PERCENT
                             ? spec.withOvershoot(proposal.value() / 100)
-                            : new DesignSpec(spec.overshootFraction(), spec.timeSpec() instanceof TimeSpec.SettlingTime
-                                    ? new TimeSpec.SettlingTime(proposal.value(), 0.02)
-                                    : new TimeSpec.RiseTime(proposal.value()));
-                    DesignReport report = designer.design(plant, fixed, new GammaChoice.MarginOverMinimum(1.2), 1, 0.02);
+                            : new DesignSpec(
+                                    spec.overshootFraction(),
+                                    spec.timeSpec() instanceof TimeSpec.SettlingTime
+                                            ? new TimeSpec.SettlingTime(proposal.value(), 0.02)
+                                            : new TimeSpec.RiseTime(proposal.value()));
+                    DesignReport report =
+                            designer.design(plant, fixed, new GammaChoice.MarginOverMinimum(1.2), 1, 0.02);
                     assertTrue(report.verification().certified());
                     checked++;
                 }
@@ -125,8 +142,11 @@ class LoopDesignerTest {
             // A stiff, lightly damped conveyor tensioner (a0 > 0) admits damping below 1/sqrt(2).
             CanonicalPlant plant = new CanonicalPlant(10, 0.3, 50, 10);
             DesignSpec spec = new DesignSpec(percent / 100, new TimeSpec.SettlingTime(0.6, percent / 100));
-            DesignReport report = designer.design(plant, spec, new GammaChoice.MarginOverMinimum(1.2), 1, percent / 100);
-            assertTrue(report.verification().specsMet(), report.verification().specChecks().toString());
+            DesignReport report =
+                    designer.design(plant, spec, new GammaChoice.MarginOverMinimum(1.2), 1, percent / 100);
+            assertTrue(
+                    report.verification().specsMet(),
+                    report.verification().specChecks().toString());
             assertEquals(0.6, report.verification().metrics().settlingTimeSeconds(), 1e-6);
             assertTrue(report.verification().metrics().overshootPercent() <= percent);
         }

@@ -37,20 +37,24 @@ class StateSpaceDesignTest {
         HamiltonianRiccatiSolver numeric = new HamiltonianRiccatiSolver();
         int designed = 0;
         for (int trial = 0; trial < 60; trial++) {
-            CanonicalPlant base = new CanonicalPlant(-5 + 30 * random.nextDouble(), 2 * random.nextDouble(),
-                    1 + 50 * random.nextDouble(), 20 * random.nextDouble());
+            CanonicalPlant base = new CanonicalPlant(
+                    -5 + 30 * random.nextDouble(),
+                    2 * random.nextDouble(),
+                    1 + 50 * random.nextDouble(),
+                    20 * random.nextDouble());
             DMatrixRMaj s;
             do {
-                s = new DMatrixRMaj(new double[][] {{random.nextGaussian(), random.nextGaussian()},
-                        {random.nextGaussian(), random.nextGaussian()}});
+                s = new DMatrixRMaj(new double[][] {
+                    {random.nextGaussian(), random.nextGaussian()}, {random.nextGaussian(), random.nextGaussian()}
+                });
             } while (Math.abs(CommonOps_DDRM.det(s)) < 0.2);
             DMatrixRMaj sInv = new DMatrixRMaj(2, 2);
             CommonOps_DDRM.invert(s, sInv);
             DMatrixRMaj a = product(s, new DMatrixRMaj(new double[][] {{0, 1}, {-base.a0(), -base.a1()}}), sInv);
             DMatrixRMaj b2 = product(s, new DMatrixRMaj(2, 1, true, 0, base.b()));
             DMatrixRMaj b1 = product(s, new DMatrixRMaj(2, 1, true, 0, base.d()));
-            TwoStateModel model = new TwoStateModel(new double[][] {{a.get(0, 0), a.get(0, 1)},
-                    {a.get(1, 0), a.get(1, 1)}}, b2.data, b1.data);
+            TwoStateModel model = new TwoStateModel(
+                    new double[][] {{a.get(0, 0), a.get(0, 1)}, {a.get(1, 0), a.get(1, 1)}}, b2.data, b1.data);
             CanonicalPlant canonical = model.canonical();
             // source: the characteristic polynomial is invariant under similarity (any linear algebra text).
             assertEquals(base.a0(), canonical.a0(), 1e-9 * (1 + Math.abs(base.a0())));
@@ -88,7 +92,8 @@ class StateSpaceDesignTest {
             RiccatiSolution solution = numeric.solve(a, r, inCaller.stateWeight());
             DMatrixRMaj difference = solution.p();
             CommonOps_DDRM.subtractEquals(difference, inCaller.p());
-            assertTrue(NormOps_DDRM.normF(difference) < 1e-7 * NormOps_DDRM.normF(inCaller.p()),
+            assertTrue(
+                    NormOps_DDRM.normF(difference) < 1e-7 * NormOps_DDRM.normF(inCaller.p()),
                     "numeric P differs by " + NormOps_DDRM.normF(difference));
             // K_x = B2' P_x (the central law in the caller's coordinates).
             DMatrixRMaj k = new DMatrixRMaj(1, 2);
@@ -104,8 +109,8 @@ class StateSpaceDesignTest {
 
     @Test
     void canonicalModelInCanonicalCoordinatesHasTheIdentityTransform() {
-        TwoStateModel model = new TwoStateModel(new double[][] {{0, 1}, {-4, -0.5}}, new double[] {0, 20},
-                new double[] {0, 5});
+        TwoStateModel model =
+                new TwoStateModel(new double[][] {{0, 1}, {-4, -0.5}}, new double[] {0, 20}, new double[] {0, 5});
         DMatrixRMaj t = model.transform();
         assertTrue(NormOps_DDRM.normF(difference(t, CommonOps_DDRM.identity(2))) < 1e-14, t.toString());
         assertEquals(20, model.canonical().b(), 1e-13);
@@ -119,8 +124,8 @@ class StateSpaceDesignTest {
         double j = 0.02;
         double c = 0.04;
         double kt = 3;
-        TwoStateModel model = new TwoStateModel(new double[][] {{0, 1 / j}, {0, -c / j}}, new double[] {0, kt},
-                new double[] {0, 1});
+        TwoStateModel model =
+                new TwoStateModel(new double[][] {{0, 1 / j}, {0, -c / j}}, new double[] {0, kt}, new double[] {0, 1});
         assertEquals(0, model.canonical().a0(), 1e-15);
         assertEquals(c / j, model.canonical().a1(), 1e-13);
         assertEquals(kt / j, model.canonical().b(), 1e-12);
@@ -133,17 +138,34 @@ class StateSpaceDesignTest {
     @Test
     void uncontrollableModelsAndMisalignedDisturbancesAreRejected() {
         // Two decoupled first-order modes with the actuator on only one of them.
-        assertEquals("b2", assertThrows(PlantParameterException.class, () -> new TwoStateModel(
-                new double[][] {{-1, 0}, {0, -2}}, new double[] {1, 0}, new double[] {0, 0})).parameter());
+        assertEquals(
+                "b2",
+                assertThrows(
+                                PlantParameterException.class,
+                                () -> new TwoStateModel(
+                                        new double[][] {{-1, 0}, {0, -2}}, new double[] {1, 0}, new double[] {0, 0}))
+                        .parameter());
         // B2 an eigenvector of A: A B2 = -3 B2.
-        assertEquals("b2", assertThrows(PlantParameterException.class, () -> new TwoStateModel(
-                new double[][] {{-1, 2}, {2, -1}}, new double[] {1, -1}, new double[] {0, 0})).parameter());
-        assertEquals("b1", assertThrows(PlantParameterException.class, () -> new TwoStateModel(
-                new double[][] {{0, 1}, {0, -1}}, new double[] {0, 1}, new double[] {1, 0})).parameter());
+        assertEquals(
+                "b2",
+                assertThrows(
+                                PlantParameterException.class,
+                                () -> new TwoStateModel(
+                                        new double[][] {{-1, 2}, {2, -1}}, new double[] {1, -1}, new double[] {0, 0}))
+                        .parameter());
+        assertEquals(
+                "b1",
+                assertThrows(
+                                PlantParameterException.class,
+                                () -> new TwoStateModel(
+                                        new double[][] {{0, 1}, {0, -1}}, new double[] {0, 1}, new double[] {1, 0}))
+                        .parameter());
     }
 
     private static List<TargetDynamics.Pole> sorted(List<TargetDynamics.Pole> poles) {
-        return poles.stream().sorted(Comparator.comparingDouble(TargetDynamics.Pole::im)).toList();
+        return poles.stream()
+                .sorted(Comparator.comparingDouble(TargetDynamics.Pole::im))
+                .toList();
     }
 
     private static DMatrixRMaj product(DMatrixRMaj... factors) {

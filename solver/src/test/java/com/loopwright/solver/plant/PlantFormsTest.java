@@ -55,7 +55,8 @@ class PlantFormsTest {
     // poles -zeta wn +- j wn sqrt(1 - zeta^2).
     @Test
     void transferFunctionFormsAgreeAndKeepTheDcGain() {
-        CanonicalPlant fromGain = SecondOrderTransferFunction.ofGainFrequencyDamping(2.5, 8, 0.3, 1).canonical();
+        CanonicalPlant fromGain = SecondOrderTransferFunction.ofGainFrequencyDamping(2.5, 8, 0.3, 1)
+                .canonical();
         assertEquals(64, fromGain.a0(), 1e-12);
         assertEquals(2 * 0.3 * 8, fromGain.a1(), 1e-12);
         assertEquals(2.5 * 64, fromGain.b(), 1e-12);
@@ -74,18 +75,32 @@ class PlantFormsTest {
 
     @Test
     void nonPhysicalParametersAreNamed() {
-        assertEquals("mass", assertThrows(PlantParameterException.class,
-                () -> new MassSpringDamper(-1, 1, 1)).parameter());
-        assertEquals("damping", assertThrows(PlantParameterException.class,
-                () -> new MassSpringDamper(1, -1, 1)).parameter());
-        assertEquals("inertia", assertThrows(PlantParameterException.class,
-                () -> new RotaryAxis(0, 1, 1, 1)).parameter());
-        assertEquals("torqueConstant", assertThrows(PlantParameterException.class,
-                () -> new RotaryAxis(1, 1, 0, 1)).parameter());
-        assertEquals("naturalFrequency", assertThrows(PlantParameterException.class,
-                () -> SecondOrderTransferFunction.ofGainFrequencyDamping(1, -2, 0.5, 0)).parameter());
-        assertEquals("denominator", assertThrows(PlantParameterException.class,
-                () -> new SecondOrderTransferFunction(1, 0, 0, 1, 1)).parameter());
+        assertEquals(
+                "mass",
+                assertThrows(PlantParameterException.class, () -> new MassSpringDamper(-1, 1, 1))
+                        .parameter());
+        assertEquals(
+                "damping",
+                assertThrows(PlantParameterException.class, () -> new MassSpringDamper(1, -1, 1))
+                        .parameter());
+        assertEquals(
+                "inertia",
+                assertThrows(PlantParameterException.class, () -> new RotaryAxis(0, 1, 1, 1))
+                        .parameter());
+        assertEquals(
+                "torqueConstant",
+                assertThrows(PlantParameterException.class, () -> new RotaryAxis(1, 1, 0, 1))
+                        .parameter());
+        assertEquals(
+                "naturalFrequency",
+                assertThrows(
+                                PlantParameterException.class,
+                                () -> SecondOrderTransferFunction.ofGainFrequencyDamping(1, -2, 0.5, 0))
+                        .parameter());
+        assertEquals(
+                "denominator",
+                assertThrows(PlantParameterException.class, () -> new SecondOrderTransferFunction(1, 0, 0, 1, 1))
+                        .parameter());
     }
 
     static Complex_F64[] eigenvalues(double[][] a) {

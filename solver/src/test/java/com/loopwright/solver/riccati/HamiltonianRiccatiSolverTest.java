@@ -31,8 +31,15 @@ class HamiltonianRiccatiSolverTest {
     void scalarCaseMatchesQuadraticFormula() {
         // {a, r, q}: r p^2 + 2 a p + q = 0 with a + r p < 0
         double[][] cases = {
-            {-1, -1, 3}, {2, -0.5, 1}, {0.3, -4, 0}, {-2, 0, 5}, {-3, 0.5, 2}, {5, -1e-3, 1e3}, {-1e-2, -1e2, 1e-4},
-            {-4, 2, 0}, {1e3, -1, 1e-6},
+            {-1, -1, 3},
+            {2, -0.5, 1},
+            {0.3, -4, 0},
+            {-2, 0, 5},
+            {-3, 0.5, 2},
+            {5, -1e-3, 1e3},
+            {-1e-2, -1e2, 1e-4},
+            {-4, 2, 0},
+            {1e3, -1, 1e-6},
         };
         for (double[] c : cases) {
             double a = c[0];
@@ -44,7 +51,8 @@ class HamiltonianRiccatiSolverTest {
             double expected = a < 0 ? q / (s - a) : (-a - s) / r;
             RiccatiSolution solution = solver.solve(scalar(a), scalar(r), scalar(q));
             double p = solution.p().get(0, 0);
-            assertEquals(expected, p, 1e-13 * Math.max(1.0, Math.abs(expected)), () -> "a, r, q = " + Arrays.toString(c));
+            assertEquals(
+                    expected, p, 1e-13 * Math.max(1.0, Math.abs(expected)), () -> "a, r, q = " + Arrays.toString(c));
             assertTrue(a + r * p < 0, "solution must be stabilizing");
             assertTrue(solution.relativeResidual() < 1e-14);
         }
@@ -76,7 +84,8 @@ class HamiltonianRiccatiSolverTest {
             DMatrixRMaj reference;
             try {
                 reference = fromHipparchus(new RiccatiEquationSolverImpl(
-                        toHipparchus(a), toHipparchus(b), toHipparchus(q), toHipparchus(controlWeight)).getP());
+                                toHipparchus(a), toHipparchus(b), toHipparchus(q), toHipparchus(controlWeight))
+                        .getP());
             } catch (RuntimeException e) {
                 // The reference stops its Newton refinement on an absolute 1e-8 change and gives up
                 // after 100 steps when P is large; without a reference, check the definition instead.
@@ -97,9 +106,16 @@ class HamiltonianRiccatiSolverTest {
         Arrays.sort(referenceResiduals);
         double ourWorst = ourResiduals[199];
         double referenceWorst = referenceResiduals[199];
-        System.out.printf("LQ vs Hipparchus (%d cases, %d reference failures): worst relative P difference %.3e;"
+        System.out.printf(
+                "LQ vs Hipparchus (%d cases, %d reference failures): worst relative P difference %.3e;"
                         + " residual median ours %.3e / Hipparchus %.3e, worst ours %.3e / Hipparchus %.3e%n",
-                compared, referenceFailures, worstDifference, ourResiduals[100], referenceResiduals[100], ourWorst, referenceWorst);
+                compared,
+                referenceFailures,
+                worstDifference,
+                ourResiduals[100],
+                referenceResiduals[100],
+                ourWorst,
+                referenceWorst);
         assertTrue(referenceFailures < 40, "too few cases had a reference: " + referenceFailures + " failures");
         assertTrue(ourResiduals[100] <= referenceResiduals[100], "our median residual is worse than the reference's");
         assertTrue(ourWorst <= referenceWorst, "our worst residual is worse than the reference's");
@@ -126,8 +142,11 @@ class HamiltonianRiccatiSolverTest {
             DMatrixRMaj r = new DMatrixRMaj(new double[][] {{0, 0}, {0, d * d / (gamma * gamma) - b * b}});
             DMatrixRMaj q = new DMatrixRMaj(new double[][] {{rho1 * rho1, 0}, {0, rho2 * rho2}});
             DMatrixRMaj reference = fromHipparchus(new RiccatiEquationSolverImpl(
-                    toHipparchus(a), toHipparchus(new DMatrixRMaj(new double[][] {{0}, {1}})), toHipparchus(q),
-                    toHipparchus(new DMatrixRMaj(new double[][] {{1 / k}}))).getP());
+                            toHipparchus(a),
+                            toHipparchus(new DMatrixRMaj(new double[][] {{0}, {1}})),
+                            toHipparchus(q),
+                            toHipparchus(new DMatrixRMaj(new double[][] {{1 / k}})))
+                    .getP());
             RiccatiSolution ours = solver.solve(a, r, q);
             double difference = relativeDifference(ours.p(), reference);
             assertTrue(difference < 1e-8, "relative difference to Hipparchus " + difference);
@@ -177,16 +196,19 @@ class HamiltonianRiccatiSolverTest {
                 ours = solver.solve(a, r, q);
             } catch (NoStabilizingSolutionException e) {
                 rejected++;
-                assertTrue(hamiltonianAxisDistance < 1e-9,
+                assertTrue(
+                        hamiltonianAxisDistance < 1e-9,
                         "rejected although the Hamiltonian has no imaginary-axis eigenvalue: " + e.getMessage());
                 continue;
             }
-            assertTrue(hamiltonianAxisDistance > 1e-9, "solved although the Hamiltonian has an imaginary-axis eigenvalue");
+            assertTrue(
+                    hamiltonianAxisDistance > 1e-9, "solved although the Hamiltonian has an imaginary-axis eigenvalue");
             worstResidual = Math.max(worstResidual, ours.relativeResidual());
             DMatrixRMaj reference;
             try {
                 reference = fromHipparchus(new RiccatiEquationSolverImpl(
-                        toHipparchus(a), toHipparchus(b), toHipparchus(q), toHipparchus(weight)).getP());
+                                toHipparchus(a), toHipparchus(b), toHipparchus(q), toHipparchus(weight))
+                        .getP());
             } catch (RuntimeException e) {
                 continue;
             }
@@ -198,7 +220,8 @@ class HamiltonianRiccatiSolverTest {
             worstDifference = Math.max(worstDifference, difference);
             compared++;
         }
-        System.out.printf("indefinite R vs Hipparchus (%d cases, %d correctly rejected): worst relative P difference %.3e, worst residual %.3e%n",
+        System.out.printf(
+                "indefinite R vs Hipparchus (%d cases, %d correctly rejected): worst relative P difference %.3e, worst residual %.3e%n",
                 compared, rejected, worstDifference, worstResidual);
         assertEquals(200, compared);
         assertTrue(rejected > 0, "the sample should contain cases without a stabilizing solution");
@@ -218,7 +241,8 @@ class HamiltonianRiccatiSolverTest {
             DMatrixRMaj q = randomPositiveDefinite(n, 0.1, random);
             DMatrixRMaj controlWeight = randomPositiveDefinite(m, 1.0, random);
             DMatrixRMaj reference = fromHipparchus(new RiccatiEquationSolverImpl(
-                    toHipparchus(a), toHipparchus(b), toHipparchus(q), toHipparchus(controlWeight)).getP());
+                            toHipparchus(a), toHipparchus(b), toHipparchus(q), toHipparchus(controlWeight))
+                    .getP());
             RiccatiSolution ours = solver.solve(a, lqQuadraticTerm(b, controlWeight), q);
             assertTrue(relativeDifference(ours.p(), reference) < 1e-8, "n = " + n);
             assertTrue(ours.iterations() >= 1 && ours.iterations() <= 100);
@@ -228,8 +252,8 @@ class HamiltonianRiccatiSolverTest {
     @Test
     void imaginaryAxisHamiltonianEigenvaluesThrow() {
         // source: quadratic formula; r p^2 + 2 a p + q = 0 has no real root when a^2 - r q < 0
-        NoStabilizingSolutionException e = assertThrows(NoStabilizingSolutionException.class,
-                () -> solver.solve(scalar(-1), scalar(2), scalar(1)));
+        NoStabilizingSolutionException e = assertThrows(
+                NoStabilizingSolutionException.class, () -> solver.solve(scalar(-1), scalar(2), scalar(1)));
         assertFalse(e.getMessage().isBlank());
     }
 
@@ -247,8 +271,7 @@ class HamiltonianRiccatiSolverTest {
         DMatrixRMaj r = new DMatrixRMaj(new double[][] {{0, 0}, {0, -1}});
         DMatrixRMaj q = CommonOps_DDRM.identity(2);
         assertThrows(NoStabilizingSolutionException.class, () -> solver.solve(a, r, q));
-        assertThrows(NoStabilizingSolutionException.class,
-                () -> solver.solve(scalar(1), scalar(0), scalar(0)));
+        assertThrows(NoStabilizingSolutionException.class, () -> solver.solve(scalar(1), scalar(0), scalar(0)));
     }
 
     @Test
@@ -260,7 +283,8 @@ class HamiltonianRiccatiSolverTest {
         // premise, via an independent eigen solver (Hipparchus EigenDecompositionNonSymmetric):
         // the Hamiltonian has imaginary-axis eigenvalues, so no stabilizing solution exists.
         assertTrue(smallestAbsRealPartOfHamiltonianEigenvalues(a, r, q) < 1e-9);
-        NoStabilizingSolutionException e = assertThrows(NoStabilizingSolutionException.class, () -> solver.solve(a, r, q));
+        NoStabilizingSolutionException e =
+                assertThrows(NoStabilizingSolutionException.class, () -> solver.solve(a, r, q));
         assertTrue(e.getMessage().contains("imaginary axis"), e.getMessage());
     }
 
@@ -270,7 +294,9 @@ class HamiltonianRiccatiSolverTest {
         assertThrows(IllegalArgumentException.class, () -> solver.solve(new DMatrixRMaj(2, 3), i2, i2));
         assertThrows(IllegalArgumentException.class, () -> solver.solve(i2, CommonOps_DDRM.identity(3), i2));
         assertThrows(IllegalArgumentException.class, () -> solver.solve(i2, i2, new DMatrixRMaj(2, 1)));
-        assertThrows(IllegalArgumentException.class, () -> solver.solve(new DMatrixRMaj(0, 0), new DMatrixRMaj(0, 0), new DMatrixRMaj(0, 0)));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> solver.solve(new DMatrixRMaj(0, 0), new DMatrixRMaj(0, 0), new DMatrixRMaj(0, 0)));
         DMatrixRMaj i17 = CommonOps_DDRM.identity(17);
         assertThrows(IllegalArgumentException.class, () -> solver.solve(i17, i17, i17));
         DMatrixRMaj withNan = i2.copy();
@@ -291,7 +317,9 @@ class HamiltonianRiccatiSolverTest {
         DMatrixRMaj rCopy = r.copy();
         DMatrixRMaj qCopy = q.copy();
         solver.solve(a, r, q);
-        assertTrue(Arrays.equals(aCopy.data, a.data) && Arrays.equals(rCopy.data, r.data) && Arrays.equals(qCopy.data, q.data));
+        assertTrue(Arrays.equals(aCopy.data, a.data)
+                && Arrays.equals(rCopy.data, r.data)
+                && Arrays.equals(qCopy.data, q.data));
     }
 
     private static DMatrixRMaj scalar(double value) {

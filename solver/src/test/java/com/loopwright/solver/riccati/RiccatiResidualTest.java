@@ -41,10 +41,15 @@ class RiccatiResidualTest {
     @Test
     void rejectsBadShapesAndNonFiniteEntries() {
         DMatrixRMaj i2 = CommonOps_DDRM.identity(2);
-        assertThrows(IllegalArgumentException.class, () -> RiccatiResidual.relative(i2, i2, i2, CommonOps_DDRM.identity(3)));
+        assertThrows(
+                IllegalArgumentException.class, () -> RiccatiResidual.relative(i2, i2, i2, CommonOps_DDRM.identity(3)));
         assertThrows(IllegalArgumentException.class, () -> RiccatiResidual.relative(new DMatrixRMaj(2, 3), i2, i2, i2));
-        assertThrows(IllegalArgumentException.class, () -> RiccatiResidual.relative(i2, i2, scalar(Double.POSITIVE_INFINITY), i2));
-        assertThrows(IllegalArgumentException.class, () -> RiccatiResidual.relative(scalar(1e300), scalar(1e300), scalar(1), scalar(1e300)));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> RiccatiResidual.relative(i2, i2, scalar(Double.POSITIVE_INFINITY), i2));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> RiccatiResidual.relative(scalar(1e300), scalar(1e300), scalar(1), scalar(1e300)));
     }
 
     private static DMatrixRMaj scalar(double value) {

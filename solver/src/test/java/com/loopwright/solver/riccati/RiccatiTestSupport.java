@@ -10,8 +10,7 @@ import org.hipparchus.linear.RealMatrix;
 /** Conversions and small matrix helpers shared by the Riccati tests. */
 final class RiccatiTestSupport {
 
-    private RiccatiTestSupport() {
-    }
+    private RiccatiTestSupport() {}
 
     static RealMatrix toHipparchus(DMatrixRMaj m) {
         double[][] rows = new double[m.numRows][m.numCols];

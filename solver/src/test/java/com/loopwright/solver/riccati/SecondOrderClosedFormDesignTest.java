@@ -29,8 +29,17 @@ class SecondOrderClosedFormDesignTest {
     private final HamiltonianRiccatiSolver solver = new HamiltonianRiccatiSolver();
 
     /** One feasible random design: plant, target, chosen gamma and the closed-form P and Q. */
-    private record Design(double a0, double a1, double b, double d, double zeta, double wn, double gamma,
-                          double k, DMatrixRMaj p, DMatrixRMaj q) {
+    private record Design(
+            double a0,
+            double a1,
+            double b,
+            double d,
+            double zeta,
+            double wn,
+            double gamma,
+            double k,
+            DMatrixRMaj p,
+            DMatrixRMaj q) {
 
         DMatrixRMaj a() {
             return new DMatrixRMaj(new double[][] {{0, 1}, {-a0, -a1}});
@@ -52,7 +61,9 @@ class SecondOrderClosedFormDesignTest {
             RiccatiSolution solution = solver.solve(design.a(), design.r(), design.q());
 
             double difference = RiccatiTestSupport.relativeDifference(solution.p(), design.p());
-            assertTrue(difference < 1e-8, () -> "closed form not reproduced, relative difference " + difference + " for " + design);
+            assertTrue(
+                    difference < 1e-8,
+                    () -> "closed form not reproduced, relative difference " + difference + " for " + design);
             worstDifference = Math.max(worstDifference, difference);
             worstResidual = Math.max(worstResidual, solution.relativeResidual());
 
@@ -67,12 +78,16 @@ class SecondOrderClosedFormDesignTest {
             double expectedReal = -design.zeta() * design.wn();
             double expectedImaginary = design.wn() * Math.sqrt(1 - design.zeta() * design.zeta());
             double poleError = Math.max(
-                    Math.hypot(poles[0].real - expectedReal, poles[0].imaginary + expectedImaginary),
-                    Math.hypot(poles[1].real - expectedReal, poles[1].imaginary - expectedImaginary)) / design.wn();
-            assertTrue(poleError < 1e-7, () -> "closed-loop poles off by " + poleError + " (relative to wn) for " + design);
+                            Math.hypot(poles[0].real - expectedReal, poles[0].imaginary + expectedImaginary),
+                            Math.hypot(poles[1].real - expectedReal, poles[1].imaginary - expectedImaginary))
+                    / design.wn();
+            assertTrue(
+                    poleError < 1e-7,
+                    () -> "closed-loop poles off by " + poleError + " (relative to wn) for " + design);
             worstPoleError = Math.max(worstPoleError, poleError);
         }
-        System.out.printf("closed form: worst relative P difference %.3e, worst residual %.3e, worst pole error/wn %.3e%n",
+        System.out.printf(
+                "closed form: worst relative P difference %.3e, worst residual %.3e, worst pole error/wn %.3e%n",
                 worstDifference, worstResidual, worstPoleError);
     }
 
@@ -85,20 +100,20 @@ class SecondOrderClosedFormDesignTest {
             double zeta = 0.72 + 0.27 * random.nextDouble();
             // smallest wn with wn^2 > |a0|, 2 zeta wn > a1 and, at gamma -> infinity (k = b^2),
             // rho2^2 b^2 = (4 zeta^2 - 2) wn^2 + 2 a0 - a1^2 > 0
-            double wnSquaredMin = Math.max(Math.abs(a0), Math.max(Math.pow(a1 / (2 * zeta), 2),
-                    (a1 * a1 - 2 * a0) / (4 * zeta * zeta - 2)));
+            double wnSquaredMin = Math.max(
+                    Math.abs(a0), Math.max(Math.pow(a1 / (2 * zeta), 2), (a1 * a1 - 2 * a0) / (4 * zeta * zeta - 2)));
             double wn = Math.sqrt(Math.max(wnSquaredMin, 1e-2)) * Math.pow(10, 0.05 + 1.5 * random.nextDouble());
 
             double p12 = (wn * wn - a0) / (b * b);
             double p22 = (2 * zeta * wn - a1) / (b * b);
             // every feasibility condition is alpha + beta k > 0 with beta > 0, so it is k > -alpha/beta
             double[][] conditions = {
-                {2 * a0 * p12, p12 * p12},                                             // rho1^2 > 0
-                {2 * a1 * p22 - 2 * p12, p22 * p22},                                   // rho2^2 > 0
-                {a1 * p12 + a0 * p22, p12 * p22},                                      // p11 > 0
-                {(a1 * p12 + a0 * p22) * p22 - p12 * p12, p12 * p22 * p22},            // det P > 0
-                {a1, p22},                                                             // a1 + k p22 > 0
-                {a0, p12},                                                             // a0 + k p12 > 0
+                {2 * a0 * p12, p12 * p12}, // rho1^2 > 0
+                {2 * a1 * p22 - 2 * p12, p22 * p22}, // rho2^2 > 0
+                {a1 * p12 + a0 * p22, p12 * p22}, // p11 > 0
+                {(a1 * p12 + a0 * p22) * p22 - p12 * p12, p12 * p22 * p22}, // det P > 0
+                {a1, p22}, // a1 + k p22 > 0
+                {a0, p12}, // a0 + k p12 > 0
             };
             double kMin = Double.NEGATIVE_INFINITY;
             for (double[] condition : conditions) {
@@ -117,8 +132,14 @@ class SecondOrderClosedFormDesignTest {
             double rho2Squared = 2 * a1 * p22 - 2 * p12 + k * p22 * p22;
             DMatrixRMaj p = new DMatrixRMaj(new double[][] {{p11, p12}, {p12, p22}});
             DMatrixRMaj q = new DMatrixRMaj(new double[][] {{rho1Squared, 0}, {0, rho2Squared}});
-            assertTrue(rho1Squared > 0 && rho2Squared > 0 && p11 > 0 && p11 * p22 - p12 * p12 > 0
-                    && a1 + k * p22 > 0 && a0 + k * p12 > 0, "generator bug: infeasible design");
+            assertTrue(
+                    rho1Squared > 0
+                            && rho2Squared > 0
+                            && p11 > 0
+                            && p11 * p22 - p12 * p12 > 0
+                            && a1 + k * p22 > 0
+                            && a0 + k * p12 > 0,
+                    "generator bug: infeasible design");
             return new Design(a0, a1, b, d, zeta, wn, gamma, k, p, q);
         }
         throw new AssertionError("no feasible design found in 1000 attempts");

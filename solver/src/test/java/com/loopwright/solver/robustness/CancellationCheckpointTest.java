@@ -31,18 +31,30 @@ class CancellationCheckpointTest {
         return new RobustnessOptions(BOX, samples, 1, List.of(), null, null, false, null, 0, 0);
     }
 
-
     @Test
     void monteCarloSamplesStopOnAnInterruptedThread() {
         RobustnessVerifier verifier = new RobustnessVerifier();
         // Not interrupted: the 20 samples (and 16 corners) are all evaluated.
-        RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
-                IndexingAxis.performanceOutput(), IndexingAxis.DESIGN.gamma(), monteCarlo(20));
+        RobustnessReport report = verifier.verify(
+                IndexingAxis.PLANT,
+                IndexingAxis.GAINS,
+                1,
+                LIMITS,
+                IndexingAxis.performanceOutput(),
+                IndexingAxis.DESIGN.gamma(),
+                monteCarlo(20));
         assertEquals(20, report.uncertainty().sampleCount());
         Thread.currentThread().interrupt();
-        assertThrows(ComputationCancelledException.class, () -> verifier.verify(IndexingAxis.PLANT,
-                IndexingAxis.GAINS, 1, LIMITS, IndexingAxis.performanceOutput(), IndexingAxis.DESIGN.gamma(),
-                monteCarlo(2000)));
+        assertThrows(
+                ComputationCancelledException.class,
+                () -> verifier.verify(
+                        IndexingAxis.PLANT,
+                        IndexingAxis.GAINS,
+                        1,
+                        LIMITS,
+                        IndexingAxis.performanceOutput(),
+                        IndexingAxis.DESIGN.gamma(),
+                        monteCarlo(2000)));
         assertTrue(Thread.interrupted(), "the interrupt flag is read, not cleared");
     }
 
@@ -60,7 +72,8 @@ class CancellationCheckpointTest {
         }
         StepTestData data = new StepTestData(t, y, 1, 1);
         Thread.currentThread().interrupt();
-        assertThrows(ComputationCancelledException.class,
+        assertThrows(
+                ComputationCancelledException.class,
                 () -> new StepResponseFitter().fit(data, new FitOptions(true, true)));
     }
 }

@@ -19,6 +19,7 @@ class ClosedFormLoopMarginsTest {
 
     /** L(s) = 1/(s (s + 1)): a0 = 0, a1 = 1, b = 1, k1 = 1, k2 = 0. */
     private static final CanonicalPlant UNIT_LAG = new CanonicalPlant(0, 1, 1, 0);
+
     private static final FeedbackGains UNIT_GAIN = new FeedbackGains(1, 0, 1);
 
     @Test
@@ -42,8 +43,10 @@ class ClosedFormLoopMarginsTest {
         for (FeedbackGains gains : new FeedbackGains[] {UNIT_GAIN, IndexingAxis.GAINS}) {
             CanonicalPlant plant = gains == UNIT_GAIN ? UNIT_LAG : IndexingAxis.PLANT;
             LoopMargins margins = analyzer.margins(plant, gains, 0);
-            assertEquals(Math.toRadians(margins.phaseMarginDegrees()) / margins.crossoverRadPerSec(),
-                    margins.delayMarginSeconds(), 1e-15 * margins.delayMarginSeconds());
+            assertEquals(
+                    Math.toRadians(margins.phaseMarginDegrees()) / margins.crossoverRadPerSec(),
+                    margins.delayMarginSeconds(),
+                    1e-15 * margins.delayMarginSeconds());
             // independent route: |L(j wc)| = 1 by direct evaluation
             double[] l = SecondOrderLoopResponse.loop(plant, gains, margins.crossoverRadPerSec());
             assertEquals(1, Math.hypot(l[0], l[1]), 1e-12);
@@ -74,14 +77,22 @@ class ClosedFormLoopMarginsTest {
      */
     @Test
     void everyCrossoverCountsForPhaseAndDelayMargins() {
-        record Case(CanonicalPlant plant, FeedbackGains gains, double crossover, double phaseMargin,
-                    double delayMargin) {
-        }
+        record Case(
+                CanonicalPlant plant, FeedbackGains gains, double crossover, double phaseMargin, double delayMargin) {}
         for (Case c : new Case[] {
-            new Case(new CanonicalPlant(10, 2, 75, 6), new FeedbackGains(0.02270865497444023, 0.05474815300409212,
-                    0.15604198830777358), 5.43846, 114.695, 0.368081),
-            new Case(new CanonicalPlant(150, -1, 65, 6), new FeedbackGains(1.3238037013361184, 0.3727054578964097,
-                    3.631496009028426), 29.4703, 80.7789, 0.0478400)}) {
+            new Case(
+                    new CanonicalPlant(10, 2, 75, 6),
+                    new FeedbackGains(0.02270865497444023, 0.05474815300409212, 0.15604198830777358),
+                    5.43846,
+                    114.695,
+                    0.368081),
+            new Case(
+                    new CanonicalPlant(150, -1, 65, 6),
+                    new FeedbackGains(1.3238037013361184, 0.3727054578964097, 3.631496009028426),
+                    29.4703,
+                    80.7789,
+                    0.0478400)
+        }) {
             LoopMargins margins = analyzer.margins(c.plant(), c.gains(), 0);
             assertEquals(c.crossover(), margins.crossoverRadPerSec(), 1e-4 * c.crossover());
             assertEquals(c.phaseMargin(), margins.phaseMarginDegrees(), 2e-3);
@@ -136,8 +147,9 @@ class ClosedFormLoopMarginsTest {
         LoopMargins lag = analyzer.margins(UNIT_LAG, UNIT_GAIN, 0);
         double lagBest = 0;
         for (int i = 0; i <= 400_000; i++) {
-            lagBest = Math.max(lagBest, SecondOrderLoopResponse.sensitivity(UNIT_LAG, UNIT_GAIN,
-                    Math.pow(10, -2 + 4.0 * i / 400_000)));
+            lagBest = Math.max(
+                    lagBest,
+                    SecondOrderLoopResponse.sensitivity(UNIT_LAG, UNIT_GAIN, Math.pow(10, -2 + 4.0 * i / 400_000)));
         }
         assertTrue(lagBest > 1);
         assertEquals(lagBest, lag.peakSensitivity(), 1e-9);
@@ -149,14 +161,17 @@ class ClosedFormLoopMarginsTest {
     void responseIsLogSpacedCappedAndPhaseContinuous() {
         LoopMargins margins = analyzer.margins(IndexingAxis.PLANT, IndexingAxis.GAINS, 50);
         assertEquals(50, margins.response().size());
-        double ratio = margins.response().get(1).frequencyRadPerSec() / margins.response().get(0).frequencyRadPerSec();
+        double ratio = margins.response().get(1).frequencyRadPerSec()
+                / margins.response().get(0).frequencyRadPerSec();
         for (int i = 1; i < 50; i++) {
             FrequencyPoint a = margins.response().get(i - 1);
             FrequencyPoint b = margins.response().get(i);
             assertEquals(ratio, b.frequencyRadPerSec() / a.frequencyRadPerSec(), 1e-9 * ratio);
             assertTrue(Math.abs(b.loopPhaseDegrees() - a.loopPhaseDegrees()) < 180);
         }
-        org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
-                () -> analyzer.margins(IndexingAxis.PLANT, IndexingAxis.GAINS, LoopFrequencyAnalyzer.MAX_RESPONSE_POINTS + 1));
+        org.junit.jupiter.api.Assertions.assertThrows(
+                IllegalArgumentException.class,
+                () -> analyzer.margins(
+                        IndexingAxis.PLANT, IndexingAxis.GAINS, LoopFrequencyAnalyzer.MAX_RESPONSE_POINTS + 1));
     }
 }

@@ -16,10 +16,10 @@ final class DelayedLoopRoots {
     static final double DOMINANCE = 1000;
     /** Grid step as a fraction of the finest time scale of chi. */
     static final double STEP_FRACTION = 0.01;
+
     static final int MAX_POINTS = 50_000_000;
 
-    private DelayedLoopRoots() {
-    }
+    private DelayedLoopRoots() {}
 
     /** Zeros of chi in the open right half plane (chi must have none on the imaginary axis). */
     static int rightHalfPlaneZeros(CanonicalPlant plant, FeedbackGains gains, double delaySeconds) {
@@ -30,8 +30,8 @@ final class DelayedLoopRoots {
         double scale = Math.abs(a0) + Math.abs(a1) + Math.abs(n0) + Math.abs(n1);
         double top = Math.sqrt(DOMINANCE * scale) + DOMINANCE * (Math.abs(a1) + Math.abs(n1));
         // the finest features: the delay's rotation (period 2 pi / tau) and the undelayed loop's damping and frequency
-        double step = STEP_FRACTION / Math.max(delaySeconds,
-                Math.max(1 / Math.abs(a1 + n1), 1 / Math.sqrt(Math.abs(a0 + n0))));
+        double step = STEP_FRACTION
+                / Math.max(delaySeconds, Math.max(1 / Math.abs(a1 + n1), 1 / Math.sqrt(Math.abs(a0 + n0))));
         long points = (long) Math.ceil(top / step);
         if (points > MAX_POINTS) {
             throw new IllegalArgumentException("grid too large: " + points);

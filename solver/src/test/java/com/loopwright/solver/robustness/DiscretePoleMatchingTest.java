@@ -19,8 +19,8 @@ class DiscretePoleMatchingTest {
     void discretePolesAreTheMappedContinuousPolesAndDcGainIsOne() {
         double ts = 0.004;
         FeedbackGains direct = new DiscretePoleMatching().design(IndexingAxis.PLANT, IndexingAxis.GAINS, ts);
-        DiscreteStateSpace hold = ZeroOrderHold.discretize(LoopMatrices.openLoop(IndexingAxis.PLANT),
-                LoopMatrices.actuatorInput(IndexingAxis.PLANT), ts);
+        DiscreteStateSpace hold = ZeroOrderHold.discretize(
+                LoopMatrices.openLoop(IndexingAxis.PLANT), LoopMatrices.actuatorInput(IndexingAxis.PLANT), ts);
         DMatrixRMaj closed = hold.ad();
         DMatrixRMaj bd = hold.bd();
         for (int i = 0; i < 2; i++) {

@@ -13,18 +13,23 @@ import org.ejml.data.DMatrixRMaj;
 public final class IndexingAxis {
 
     public static final CanonicalPlant PLANT = new CanonicalPlant(0, 0.48, 400, 400);
-    public static final ClosedFormDesign DESIGN = new LoopDesigner().design(PLANT,
-            new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, 0.02)), new GammaChoice.MarginOverMinimum(1.2),
-            1, 0.02).design();
-    public static final FeedbackGains GAINS = new FeedbackGains(DESIGN.positionGain(), DESIGN.velocityGain(),
-            DESIGN.referenceGain());
+    public static final ClosedFormDesign DESIGN = new LoopDesigner()
+            .design(
+                    PLANT,
+                    new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, 0.02)),
+                    new GammaChoice.MarginOverMinimum(1.2),
+                    1,
+                    0.02)
+            .design();
+    public static final FeedbackGains GAINS =
+            new FeedbackGains(DESIGN.positionGain(), DESIGN.velocityGain(), DESIGN.referenceGain());
 
-    private IndexingAxis() {
-    }
+    private IndexingAxis() {}
 
     /** z = [rho1 x1, rho2 x2, u] with u = -K x. */
     public static DMatrixRMaj performanceOutput() {
-        return new DMatrixRMaj(new double[][] {{DESIGN.rho1(), 0}, {0, DESIGN.rho2()},
-            {-DESIGN.positionGain(), -DESIGN.velocityGain()}});
+        return new DMatrixRMaj(
+                new double[][] {{DESIGN.rho1(), 0}, {0, DESIGN.rho2()}, {-DESIGN.positionGain(), -DESIGN.velocityGain()}
+                });
     }
 }

@@ -19,14 +19,29 @@ class RobustnessVerifierTest {
     private static final AcceptanceLimits LIMITS = new AcceptanceLimits(0.165, null, 1.65, 0.02);
 
     private static RobustnessOptions options(Double ts, boolean search, Double delay) {
-        return new RobustnessOptions(null, 0, 1, List.of(new DisturbanceProfile.BoundedRandom(1, 0.005, 3)), 2.0,
-                ts, search, delay, 20, 100);
+        return new RobustnessOptions(
+                null,
+                0,
+                1,
+                List.of(new DisturbanceProfile.BoundedRandom(1, 0.005, 3)),
+                2.0,
+                ts,
+                search,
+                delay,
+                20,
+                100);
     }
 
     @Test
     void everySectionOfTheIndexingAxisIsConsistent() {
-        RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
-                IndexingAxis.performanceOutput(), IndexingAxis.DESIGN.gamma(), options(1e-3, true, 2e-3));
+        RobustnessReport report = verifier.verify(
+                IndexingAxis.PLANT,
+                IndexingAxis.GAINS,
+                1,
+                LIMITS,
+                IndexingAxis.performanceOutput(),
+                IndexingAxis.DESIGN.gamma(),
+                options(1e-3, true, 2e-3));
         assertEquals(Verdict.MET, report.nominalMeetsSpec());
         assertTrue(report.hinfNorm() <= IndexingAxis.DESIGN.gamma());
         DisturbanceCheck check = report.disturbances().get(0);
@@ -34,7 +49,8 @@ class RobustnessVerifierTest {
         assertEquals(Verdict.MET, check.withinGamma());
         // peak |u| of the unit step is kr (the jump at t = 0+), below the 2.0 limit: no saturation
         assertFalse(report.saturation().saturates());
-        assertEquals(2.0 / IndexingAxis.GAINS.referenceGain(), report.saturation().largestUnsaturatedStep(), 1e-9);
+        assertEquals(
+                2.0 / IndexingAxis.GAINS.referenceGain(), report.saturation().largestUnsaturatedStep(), 1e-9);
         SampledReport sampled = report.sampled();
         assertNotNull(sampled.longestPeriodSeconds());
         // the longest period meets the limits, 0.2% longer does not (bisection bracket width 1e-3)
@@ -45,40 +61,83 @@ class RobustnessVerifierTest {
 
     @Test
     void longerPeriodsMoveTheEmulatedStepFurtherFromTheContinuousOne() {
-        RobustnessReport fine = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
-                IndexingAxis.performanceOutput(), null, options(2e-4, false, null));
-        RobustnessReport coarse = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
-                IndexingAxis.performanceOutput(), null, options(4e-3, false, null));
+        RobustnessReport fine = verifier.verify(
+                IndexingAxis.PLANT,
+                IndexingAxis.GAINS,
+                1,
+                LIMITS,
+                IndexingAxis.performanceOutput(),
+                null,
+                options(2e-4, false, null));
+        RobustnessReport coarse = verifier.verify(
+                IndexingAxis.PLANT,
+                IndexingAxis.GAINS,
+                1,
+                LIMITS,
+                IndexingAxis.performanceOutput(),
+                null,
+                options(4e-3, false, null));
         // for this loop the held first control value pushes harder early: faster rise, less overshoot
         double nominal = fine.nominal().overshootPercent();
         assertTrue(Math.abs(coarse.sampled().emulated().overshootPercent() - nominal)
                 > Math.abs(fine.sampled().emulated().overshootPercent() - nominal));
-        assertTrue(Math.abs(coarse.sampled().emulated().settlingTimeSeconds() - fine.nominal().settlingTimeSeconds())
-                > Math.abs(fine.sampled().emulated().settlingTimeSeconds() - fine.nominal().settlingTimeSeconds()));
+        assertTrue(Math.abs(coarse.sampled().emulated().settlingTimeSeconds()
+                        - fine.nominal().settlingTimeSeconds())
+                > Math.abs(fine.sampled().emulated().settlingTimeSeconds()
+                        - fine.nominal().settlingTimeSeconds()));
         assertEquals(Verdict.MET, fine.sampled().emulatedMeetsSpec());
     }
 
     @Test
     void aTooSlowSampledLoopIsReportedAsDivergingNotRejected() {
         // pi / max|pole| is about 0.1 s; at Ts = 0.5 s the emulated loop is unstable: spectral radius above 1
-        RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
-                IndexingAxis.performanceOutput(), null, options(0.5, false, null));
-        assertTrue(report.sampled().spectralRadius() > 1, "radius " + report.sampled().spectralRadius());
+        RobustnessReport report = verifier.verify(
+                IndexingAxis.PLANT,
+                IndexingAxis.GAINS,
+                1,
+                LIMITS,
+                IndexingAxis.performanceOutput(),
+                null,
+                options(0.5, false, null));
+        assertTrue(
+                report.sampled().spectralRadius() > 1,
+                "radius " + report.sampled().spectralRadius());
         assertEquals(Verdict.NOT_MET, report.sampled().emulatedMeetsSpec());
-        RobustnessReport fine = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
-                IndexingAxis.performanceOutput(), null, options(1e-3, false, null));
+        RobustnessReport fine = verifier.verify(
+                IndexingAxis.PLANT,
+                IndexingAxis.GAINS,
+                1,
+                LIMITS,
+                IndexingAxis.performanceOutput(),
+                null,
+                options(1e-3, false, null));
         assertTrue(fine.sampled().spectralRadius() < 1);
     }
 
     @Test
     void capsAndUnstableLoopsAreRejected() {
-        CapExceededException cap = assertThrows(CapExceededException.class, () -> verifier.verify(IndexingAxis.PLANT,
-                IndexingAxis.GAINS, 1, LIMITS, IndexingAxis.performanceOutput(), null, options(1e-7, false, null)));
+        CapExceededException cap = assertThrows(
+                CapExceededException.class,
+                () -> verifier.verify(
+                        IndexingAxis.PLANT,
+                        IndexingAxis.GAINS,
+                        1,
+                        LIMITS,
+                        IndexingAxis.performanceOutput(),
+                        null,
+                        options(1e-7, false, null)));
         assertEquals(CapExceededException.Option.SAMPLE_PERIOD, cap.option());
         assertTrue(cap.getMessage().contains(String.valueOf(DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS)));
-        assertThrows(UnstableLoopException.class, () -> verifier.verify(new CanonicalPlant(0, 0.48, 400, 400),
-                new FeedbackGains(-1, 0.1, 1), 1, LIMITS, IndexingAxis.performanceOutput(), null,
-                options(null, false, null)));
+        assertThrows(
+                UnstableLoopException.class,
+                () -> verifier.verify(
+                        new CanonicalPlant(0, 0.48, 400, 400),
+                        new FeedbackGains(-1, 0.1, 1),
+                        1,
+                        LIMITS,
+                        IndexingAxis.performanceOutput(),
+                        null,
+                        options(null, false, null)));
     }
 
     // Regression (issue 12, item 8): the advised shortest sample period "use Ts >= X" is accepted when posted
@@ -88,14 +147,27 @@ class RobustnessVerifierTest {
     void advisedShortestPeriodIsAcceptedWhenPostedBack() {
         java.util.regex.Pattern advice = java.util.regex.Pattern.compile("use Ts >= ([0-9.eE+-]+) s");
         for (Double delay : new Double[] {null, 0.01}) {
-            CapExceededException cap = assertThrows(CapExceededException.class, () -> verifier.verify(
-                    IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS, IndexingAxis.performanceOutput(), null,
-                    options(1e-7, false, delay)));
+            CapExceededException cap = assertThrows(
+                    CapExceededException.class,
+                    () -> verifier.verify(
+                            IndexingAxis.PLANT,
+                            IndexingAxis.GAINS,
+                            1,
+                            LIMITS,
+                            IndexingAxis.performanceOutput(),
+                            null,
+                            options(1e-7, false, delay)));
             java.util.regex.Matcher m = advice.matcher(cap.getMessage());
             assertTrue(m.find(), cap.getMessage());
             double advised = Double.parseDouble(m.group(1));
-            RobustnessReport report = verifier.verify(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, LIMITS,
-                    IndexingAxis.performanceOutput(), null, options(advised, false, delay));
+            RobustnessReport report = verifier.verify(
+                    IndexingAxis.PLANT,
+                    IndexingAxis.GAINS,
+                    1,
+                    LIMITS,
+                    IndexingAxis.performanceOutput(),
+                    null,
+                    options(advised, false, delay));
             assertNotNull(report.sampled());
         }
         // brute force over horizons: the advice fits and is at most one printed unit above horizon / cap

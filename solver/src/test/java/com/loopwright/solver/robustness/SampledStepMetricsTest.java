@@ -101,27 +101,35 @@ class SampledStepMetricsTest {
     }
 
     // Regression (issue 12, item 10): the export quoted only the continuous metrics, while at wn T = 0.13 to
-    // 0.19 the sampled loop's overshoot differs by a tenth of a point and more. A pure inertia (a0 = a1 = 0, b = d = 400) designed for
+    // 0.19 the sampled loop's overshoot differs by a tenth of a point and more. A pure inertia (a0 = a1 = 0, b = d =
+    // 400) designed for
     // 1.5% overshoot and 0.15 s settling, run at wn T = 0.15: the quoted sampled metrics match the exact sampled
     // simulation above and differ from the continuous ones.
     @Test
     void sampledMetricsMatchTheExactSampledDoubleIntegrator() {
         CanonicalPlant plant = new CanonicalPlant(0, 0, 400, 400);
-        DesignReport report = new LoopDesigner().design(plant,
-                new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, BAND)),
-                new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR), 1, BAND);
+        DesignReport report = new LoopDesigner()
+                .design(
+                        plant,
+                        new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, BAND)),
+                        new GammaChoice.MarginOverMinimum(GammaChoice.MarginOverMinimum.DEFAULT_FACTOR),
+                        1,
+                        BAND);
         ClosedFormDesign d = report.design();
         FeedbackGains gains = new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain());
         double wn = d.target().naturalFrequencyRadPerSec();
         for (double wnT : new double[] {0.13, 0.15, 0.19}) {
             double period = wnT / wn;
-            GridMetrics quoted = new SampledStepMetrics().measure(plant, gains, 1, period, BAND).orElseThrow();
+            GridMetrics quoted = new SampledStepMetrics()
+                    .measure(plant, gains, 1, period, BAND)
+                    .orElseThrow();
             double[] exact = exactSampledDoubleIntegrator(plant.b(), gains, period, (int) Math.ceil(3 / period));
             assertEquals(exact[2], quoted.overshootPercent(), 1e-4, "overshoot at wn T " + wnT);
             assertEquals(exact[0], quoted.riseTimeSeconds(), 1e-5, "rise at wn T " + wnT);
             assertEquals(exact[1], quoted.settlingTimeSeconds(), 1e-5, "settling at wn T " + wnT);
             double continuous = report.verification().metrics().overshootPercent();
-            assertTrue(Math.abs(quoted.overshootPercent() - continuous) > 0.05,
+            assertTrue(
+                    Math.abs(quoted.overshootPercent() - continuous) > 0.05,
                     "the sampled loop's overshoot differs: " + quoted.overshootPercent() + " vs " + continuous);
         }
     }

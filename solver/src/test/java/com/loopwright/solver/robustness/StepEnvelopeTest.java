@@ -14,8 +14,8 @@ class StepEnvelopeTest {
 
     private static final CanonicalPlant AXIS = new CanonicalPlant(0, 0.48, 400, 400);
     // The indexing-axis design's gains (README example): k1 = kr = 1.5723, k2 = 0.0992069.
-    private static final FeedbackGains GAINS = new FeedbackGains(1.572298492880701, 0.09920692688762654,
-            1.572298492880701);
+    private static final FeedbackGains GAINS =
+            new FeedbackGains(1.572298492880701, 0.09920692688762654, 1.572298492880701);
 
     /**
      * With a0 = 0 and only b varying, each parameter set is a second-order loop with wn^2 = b k1,
@@ -55,9 +55,12 @@ class StepEnvelopeTest {
         for (int k = 0; k < 300; k++) {
             assertTrue(sampled.lowerX1()[k] <= corners.lowerX1()[k] + 1e-15);
             assertTrue(sampled.upperX1()[k] >= corners.upperX1()[k] - 1e-15);
-            assertTrue(sampled.lowerX1()[k] <= sampled.nominalX1()[k] && sampled.nominalX1()[k] <= sampled.upperX1()[k]);
+            assertTrue(
+                    sampled.lowerX1()[k] <= sampled.nominalX1()[k] && sampled.nominalX1()[k] <= sampled.upperX1()[k]);
         }
-        assertArrayEquals(sampled.upperX1(), envelope.sweep(box, AXIS, GAINS, 1, 0.45, 300, 50, 3).upperX1());
+        assertArrayEquals(
+                sampled.upperX1(),
+                envelope.sweep(box, AXIS, GAINS, 1, 0.45, 300, 50, 3).upperX1());
     }
 
     // Hurwitz test of the 2x2 companion matrix: a0 + b k1 > 0 and a1 + b k2 > 0 (any linear systems text).
@@ -68,7 +71,6 @@ class StepEnvelopeTest {
         assertEquals(1, band.unstableCases());
         assertEquals(1, band.drawnCases());
         ParameterBox all = new ParameterBox(-2000, -1000, 0.48, 0.48, 400, 400, 400, 400);
-        assertThrows(UnstableLoopException.class,
-                () -> new StepEnvelope().sweep(all, AXIS, GAINS, 1, 0.45, 300, 0, 1));
+        assertThrows(UnstableLoopException.class, () -> new StepEnvelope().sweep(all, AXIS, GAINS, 1, 0.45, 300, 0, 1));
     }
 }

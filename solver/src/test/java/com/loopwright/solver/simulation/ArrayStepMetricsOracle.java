@@ -20,7 +20,6 @@ import org.ejml.interfaces.linsol.LinearSolverDense;
  */
 final class ArrayStepMetricsOracle {
 
-
     /** Largest accepted h max|Im lambda(A)| (rad): at least 4 samples per oscillation period. */
     public static final double MAX_RADIANS_PER_SAMPLE = Math.PI / 2.0;
 
@@ -41,35 +40,36 @@ final class ArrayStepMetricsOracle {
      * @throws HorizonTooShortException if the output does not reach 90% of y_inf or is outside the
      *     settling band at the horizon
      */
-    StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
-                               double settlingBandFraction) {
-        return measure(loop, stepSize, horizonSeconds, samples, settlingBandFraction,
-            SubIntervalPropagator::of);
+    StepMetrics measure(
+            LinearLoop loop, double stepSize, double horizonSeconds, int samples, double settlingBandFraction) {
+        return measure(loop, stepSize, horizonSeconds, samples, settlingBandFraction, SubIntervalPropagator::of);
     }
 
     /**
      * {@link #measure(LinearLoop, double, double, int, double)} with a chosen propagation between
      * samples (tests compare the closed form for n = 2 with the general zero-order hold).
      */
-    StepMetrics measure(LinearLoop loop, double stepSize, double horizonSeconds, int samples,
-                        double settlingBandFraction,
-                        BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
+    StepMetrics measure(
+            LinearLoop loop,
+            double stepSize,
+            double horizonSeconds,
+            int samples,
+            double settlingBandFraction,
+            BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators) {
         StepSimulator.validate(loop, stepSize, horizonSeconds, samples);
         if (stepSize == 0.0) {
             throw new IllegalArgumentException("stepSize must be non-zero");
         }
         if (!(settlingBandFraction > 0.0 && settlingBandFraction < 1.0)) {
-            throw new IllegalArgumentException(
-                "settlingBandFraction must be in (0, 1), got " + settlingBandFraction);
+            throw new IllegalArgumentException("settlingBandFraction must be in (0, 1), got " + settlingBandFraction);
         }
         double maxOscillationRadPerSecond = requireHurwitz(loop.a());
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
         if (samplePeriodSeconds * maxOscillationRadPerSecond > MAX_RADIANS_PER_SAMPLE) {
-            double needed = Math.ceil(horizonSeconds * maxOscillationRadPerSecond
-                / MAX_RADIANS_PER_SAMPLE) + 1;
+            double needed = Math.ceil(horizonSeconds * maxOscillationRadPerSecond / MAX_RADIANS_PER_SAMPLE) + 1;
             throw new IllegalArgumentException("sample grid too coarse: the fastest oscillation ("
-                + maxOscillationRadPerSecond + " rad/s) needs at least " + (long) needed
-                + " samples over " + horizonSeconds + " s, got " + samples);
+                    + maxOscillationRadPerSecond + " rad/s) needs at least " + (long) needed
+                    + " samples over " + horizonSeconds + " s, got " + samples);
         }
         double finalValue = finalValue(loop, stepSize);
 
@@ -79,29 +79,28 @@ final class ArrayStepMetricsOracle {
         for (int j = 0; j < n; j++) {
             normalisedOutputWeights[j] = cOut.get(0, j) / finalValue;
             if (!Double.isFinite(normalisedOutputWeights[j])) {
-                throw new IllegalArgumentException("cOut / y_inf overflows: final value "
-                    + finalValue + " is too close to zero");
+                throw new IllegalArgumentException(
+                        "cOut / y_inf overflows: final value " + finalValue + " is too close to zero");
             }
         }
         // z = y / y_inf: z(0) = 0, z -> 1; and u. The simulator records their sample values and
         // rates; the states only feed the trajectory, so they are shared, not copied.
-        MetricSamples sampled = sampleForMetrics(loop, stepSize,
-            horizonSeconds, samples, normalisedOutputWeights);
-        ExactTrajectory trajectory = new ExactTrajectory(loop, stepSize, horizonSeconds,
-            sampled.stateRowMajor(), propagators.apply(loop, stepSize));
+        MetricSamples sampled = sampleForMetrics(loop, stepSize, horizonSeconds, samples, normalisedOutputWeights);
+        ExactTrajectory trajectory = new ExactTrajectory(
+                loop, stepSize, horizonSeconds, sampled.stateRowMajor(), propagators.apply(loop, stepSize));
         LinearSignal normalisedOutput = new LinearSignal(trajectory, sampled.output());
 
         double riseStart = normalisedOutput.firstTimeReaching(RISE_START_FRACTION);
         double riseEnd = normalisedOutput.firstTimeReaching(RISE_END_FRACTION);
         if (riseStart < 0.0 || riseEnd < 0.0) {
             throw new HorizonTooShortException(
-                "the output does not reach 90% of its final value " + finalValue, horizonSeconds);
+                    "the output does not reach 90% of its final value " + finalValue, horizonSeconds);
         }
-        double settlingTimeSeconds =
-            normalisedOutput.lastTimeOutsideBand(1.0, settlingBandFraction);
+        double settlingTimeSeconds = normalisedOutput.lastTimeOutsideBand(1.0, settlingBandFraction);
         if (settlingTimeSeconds < 0.0) {
-            throw new HorizonTooShortException("the output is outside the "
-                + settlingBandFraction + " settling band at the horizon", horizonSeconds);
+            throw new HorizonTooShortException(
+                    "the output is outside the " + settlingBandFraction + " settling band at the horizon",
+                    horizonSeconds);
         }
         LinearSignal.Point peak = normalisedOutput.maximum();
         double overshootPercent = Math.max(0.0, 100.0 * (peak.value() - 1.0));
@@ -114,10 +113,18 @@ final class ArrayStepMetricsOracle {
 
         // undershoot: the old code's maximum of the negation, applied to z (added with the streaming
         // undershoot, so the oracle covers it too)
-        double undershootPercent = Math.max(0.0, 100.0 * normalisedOutput.maximumOfNegation().value());
+        double undershootPercent =
+                Math.max(0.0, 100.0 * normalisedOutput.maximumOfNegation().value());
 
-        return new StepMetrics(riseEnd - riseStart, settlingTimeSeconds, overshootPercent,
-            peak.timeSeconds(), stepSize - finalValue, peakControl, finalValue, undershootPercent);
+        return new StepMetrics(
+                riseEnd - riseStart,
+                settlingTimeSeconds,
+                overshootPercent,
+                peak.timeSeconds(),
+                stepSize - finalValue,
+                peakControl,
+                finalValue,
+                undershootPercent);
     }
 
     /** Checks Re lambda < 0 for every eigenvalue; returns max |Im lambda| in rad/s (closed form for n = 2). */
@@ -132,8 +139,7 @@ final class ArrayStepMetricsOracle {
             }
             return spectrum.maxImaginary();
         }
-        EigenDecomposition_F64<DMatrixRMaj> eigen =
-            DecompositionFactory_DDRM.eig(a.numRows, false, false);
+        EigenDecomposition_F64<DMatrixRMaj> eigen = DecompositionFactory_DDRM.eig(a.numRows, false, false);
         if (!eigen.decompose(a.copy())) {
             throw new IllegalArgumentException("eigenvalues of A could not be computed");
         }
@@ -150,8 +156,8 @@ final class ArrayStepMetricsOracle {
 
     private static IllegalArgumentException notHurwitz(double real, double imaginary) {
         return new IllegalArgumentException("A is not Hurwitz: eigenvalue " + real
-            + (imaginary >= 0 ? " + " : " - ") + Math.abs(imaginary)
-            + "i has a non-negative real part, so the step response has no final value");
+                + (imaginary >= 0 ? " + " : " - ") + Math.abs(imaginary)
+                + "i has a non-negative real part, so the step response has no final value");
     }
 
     /** y_inf = cOut x_inf with A x_inf = -bRef r (the equilibrium of x' = A x + bRef r). */
@@ -177,7 +183,7 @@ final class ArrayStepMetricsOracle {
         }
         if (finalValue == 0.0) {
             throw new IllegalArgumentException(
-                "final value is zero: rise, overshoot and settling relative to it are undefined");
+                    "final value is zero: rise, overshoot and settling relative to it are undefined");
         }
         return finalValue;
     }
@@ -191,12 +197,11 @@ final class ArrayStepMetricsOracle {
      * expression, and y is formed only for the finiteness check) and stores u once, as the
      * control signal's values; otherwise from {@link #sample} and a pass over its states.
      */
-    static MetricSamples sampleForMetrics(LinearLoop loop, double stepSize, double horizonSeconds,
-                                          int samples, double[] outputWeights) {
+    static MetricSamples sampleForMetrics(
+            LinearLoop loop, double stepSize, double horizonSeconds, int samples, double[] outputWeights) {
         int n = loop.stateDimension();
         SampledSignal outputSignal = new SampledSignal(outputWeights, 0.0);
-        SampledSignal controlSignal =
-            new SampledSignal(loop.cControl().data, loop.dControl() * stepSize);
+        SampledSignal controlSignal = new SampledSignal(loop.cControl().data, loop.dControl() * stepSize);
         double[] a = loop.a().data;
         double[] bRef = loop.bRef().data;
         if (n != 2) {
@@ -208,8 +213,7 @@ final class ArrayStepMetricsOracle {
         }
         StepSimulator.validate(loop, stepSize, horizonSeconds, samples);
         double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        DiscreteStateSpace discrete =
-            ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
         double[] ad = discrete.ad().data;
         double[] bd = discrete.bd().data;
         double[] cOut = loop.cOut().data;
@@ -289,32 +293,29 @@ final class ArrayStepMetricsOracle {
     }
 
     /** What {@link #sampleForMetrics} returns; arrays owned by the receiver. */
-    record MetricSamples(double[] stateRowMajor, SampledSignal output, SampledSignal control) {
-    }
+    record MetricSamples(double[] stateRowMajor, SampledSignal output, SampledSignal control) {}
 
     /** Throws for the first non-finite sample, states before outputs; returns on a false alarm. */
-    private static void reportFirstOverflow(int n, double[] timeSeconds, double[] state,
-                                            double[] output, double[] control) {
+    private static void reportFirstOverflow(
+            int n, double[] timeSeconds, double[] state, double[] output, double[] control) {
         for (int k = 0; k < timeSeconds.length; k++) {
             for (int i = 0; i < n; i++) {
                 if (!Double.isFinite(state[k * n + i])) {
-                    throw new IllegalArgumentException("response overflows double precision at t = "
-                        + timeSeconds[k] + " s: the loop diverges over this horizon");
+                    throw new IllegalArgumentException("response overflows double precision at t = " + timeSeconds[k]
+                            + " s: the loop diverges over this horizon");
                 }
             }
             if (!Double.isFinite(output[k]) || !Double.isFinite(control[k])) {
-                throw new IllegalArgumentException("output or control overflows double precision at t = "
-                    + timeSeconds[k] + " s");
+                throw new IllegalArgumentException(
+                        "output or control overflows double precision at t = " + timeSeconds[k] + " s");
             }
         }
     }
-
 
     static final class LinearSignal {
 
         /** A time and the signal value there. */
-        record Point(double timeSeconds, double value) {
-        }
+        record Point(double timeSeconds, double value) {}
 
         private final ExactTrajectory trajectory;
         private final double[] weights;
@@ -387,21 +388,21 @@ final class ArrayStepMetricsOracle {
          */
         double interiorMaximumBound(int k) {
             double width = time(k + 1) - time(k);
-            return Math.min(sampleValue[k] + 2.0 * sampleRate[k] * width,
-                sampleValue[k + 1] - 2.0 * sampleRate[k + 1] * width);
+            return Math.min(
+                    sampleValue[k] + 2.0 * sampleRate[k] * width, sampleValue[k + 1] - 2.0 * sampleRate[k + 1] * width);
         }
 
         /** Lower estimate of an interior minimum on interval k, mirror of the maximum bound. */
         double interiorMinimumBound(int k) {
             double width = time(k + 1) - time(k);
-            return Math.max(sampleValue[k] + 2.0 * sampleRate[k] * width,
-                sampleValue[k + 1] - 2.0 * sampleRate[k + 1] * width);
+            return Math.max(
+                    sampleValue[k] + 2.0 * sampleRate[k] * width, sampleValue[k + 1] - 2.0 * sampleRate[k + 1] * width);
         }
 
         /** The critical point s'(t*) = 0 inside interval k, by Brent's method on the exact s'. */
         Point criticalPoint(int k) {
-            double tStar = BracketedRoot.brent(t -> rateBetween(k, t),
-                time(k), time(k + 1), sampleRate[k], sampleRate[k + 1]);
+            double tStar =
+                    BracketedRoot.brent(t -> rateBetween(k, t), time(k), time(k + 1), sampleRate[k], sampleRate[k + 1]);
             return new Point(tStar, valueBetween(k, tStar));
         }
 
@@ -409,13 +410,12 @@ final class ArrayStepMetricsOracle {
          * The time in [loSeconds, hiSeconds] within interval k where s = level, given the signal
          * values at the bracket ends (they must straddle the level).
          */
-        double crossing(int k, double level, double loSeconds, double valueAtLo, double hiSeconds,
-                        double valueAtHi) {
+        double crossing(int k, double level, double loSeconds, double valueAtLo, double hiSeconds, double valueAtHi) {
             if (loSeconds == hiSeconds) {
                 return loSeconds;
             }
-            return BracketedRoot.brent(t -> valueBetween(k, t) - level, loSeconds, hiSeconds,
-                valueAtLo - level, valueAtHi - level);
+            return BracketedRoot.brent(
+                    t -> valueBetween(k, t) - level, loSeconds, hiSeconds, valueAtLo - level, valueAtHi - level);
         }
 
         /**
@@ -479,14 +479,18 @@ final class ArrayStepMetricsOracle {
                     order[found++] = candidates[i];
                 }
             }
-            java.util.Arrays.sort(order,
-                (p, q) -> Double.compare(signedMaximumBound(q, sign), signedMaximumBound(p, sign)));
+            java.util.Arrays.sort(
+                    order, (p, q) -> Double.compare(signedMaximumBound(q, sign), signedMaximumBound(p, sign)));
             for (int k : order) {
                 if (signedMaximumBound(k, sign) <= best.value()) {
                     break;
                 }
-                double tStar = BracketedRoot.brent(t -> sign * rateBetween(k, t),
-                    time(k), time(k + 1), sign * sampleRate[k], sign * sampleRate[k + 1]);
+                double tStar = BracketedRoot.brent(
+                        t -> sign * rateBetween(k, t),
+                        time(k),
+                        time(k + 1),
+                        sign * sampleRate[k],
+                        sign * sampleRate[k + 1]);
                 Point refined = new Point(tStar, sign * valueBetween(k, tStar));
                 if (refined.value() > best.value()) {
                     best = refined;
@@ -503,8 +507,9 @@ final class ArrayStepMetricsOracle {
         /** {@link #interiorMaximumBound} of sign s. */
         private double signedMaximumBound(int k, double sign) {
             double width = time(k + 1) - time(k);
-            return Math.min(sign * sampleValue[k] + 2.0 * (sign * sampleRate[k]) * width,
-                sign * sampleValue[k + 1] - 2.0 * (sign * sampleRate[k + 1]) * width);
+            return Math.min(
+                    sign * sampleValue[k] + 2.0 * (sign * sampleRate[k]) * width,
+                    sign * sampleValue[k + 1] - 2.0 * (sign * sampleRate[k + 1]) * width);
         }
 
         /**
@@ -520,13 +525,11 @@ final class ArrayStepMetricsOracle {
                     Point peak = criticalPoint(k);
                     if (peak.value() >= level) {
                         // s rises monotonically from t_k to the peak
-                        return crossing(k, level, time(k), sampleValue[k], peak.timeSeconds(),
-                            peak.value());
+                        return crossing(k, level, time(k), sampleValue[k], peak.timeSeconds(), peak.value());
                     }
                 }
                 if (sampleValue[k + 1] >= level) {
-                    return crossing(k, level, time(k), sampleValue[k], time(k + 1),
-                        sampleValue[k + 1]);
+                    return crossing(k, level, time(k), sampleValue[k], time(k + 1), sampleValue[k + 1]);
                 }
             }
             return -1.0;
@@ -548,21 +551,19 @@ final class ArrayStepMetricsOracle {
                 if (hasInteriorMaximum(k) && interiorMaximumBound(k) > upper) {
                     Point peak = criticalPoint(k);
                     if (peak.value() > upper) {
-                        return crossing(k, upper, peak.timeSeconds(), peak.value(), time(k + 1),
-                            sampleValue[k + 1]);
+                        return crossing(k, upper, peak.timeSeconds(), peak.value(), time(k + 1), sampleValue[k + 1]);
                     }
                 }
                 if (hasInteriorMinimum(k) && interiorMinimumBound(k) < lower) {
                     Point trough = criticalPoint(k);
                     if (trough.value() < lower) {
-                        return crossing(k, lower, trough.timeSeconds(), trough.value(), time(k + 1),
-                            sampleValue[k + 1]);
+                        return crossing(
+                                k, lower, trough.timeSeconds(), trough.value(), time(k + 1), sampleValue[k + 1]);
                     }
                 }
                 if (Math.abs(sampleValue[k] - centre) > halfWidth) {
                     double level = sampleValue[k] > centre ? upper : lower;
-                    return crossing(k, level, time(k), sampleValue[k], time(k + 1),
-                        sampleValue[k + 1]);
+                    return crossing(k, level, time(k), sampleValue[k], time(k + 1), sampleValue[k + 1]);
                 }
             }
             return time(0);
@@ -650,8 +651,12 @@ final class ArrayStepMetricsOracle {
          *     expression of {@link StepSimulator}
          * @param state row-major samples, x_i(t_k) at k n + i
          */
-        ExactTrajectory(LinearLoop loop, double reference, double horizonSeconds, double[] state,
-                        SubIntervalPropagator propagator) {
+        ExactTrajectory(
+                LinearLoop loop,
+                double reference,
+                double horizonSeconds,
+                double[] state,
+                SubIntervalPropagator propagator) {
             DMatrixRMaj aMatrix = loop.a();
             this.n = aMatrix.numRows;
             this.a = aMatrix.data;

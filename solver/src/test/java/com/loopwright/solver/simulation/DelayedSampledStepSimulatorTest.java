@@ -10,11 +10,8 @@ import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
-import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
-import com.loopwright.solver.simulation.StepResponseMetrics;
 import org.junit.jupiter.api.Test;
 
 class DelayedSampledStepSimulatorTest {
@@ -23,8 +20,8 @@ class DelayedSampledStepSimulatorTest {
 
     @Test
     void sampledMetricsConvergeToTheContinuousOnesAsTsShrinks() {
-        StepMetrics exact = new StepResponseMetrics().measure(LinearLoop.ofStep(IndexingAxis.PLANT,
-                IndexingAxis.GAINS), 1, 0.45, 4000, 0.02);
+        StepMetrics exact = new StepResponseMetrics()
+                .measure(LinearLoop.ofStep(IndexingAxis.PLANT, IndexingAxis.GAINS), 1, 0.45, 4000, 0.02);
         double previousError = Double.POSITIVE_INFINITY;
         for (double ts : new double[] {2e-3, 5e-4, 1.25e-4, 3e-5}) {
             DenseTrajectory trajectory = simulator.simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, ts, 0, 0.45);
@@ -66,8 +63,8 @@ class DelayedSampledStepSimulatorTest {
         CanonicalPlant plant = new CanonicalPlant(0, 1, 1, 0);
         FeedbackGains gains = new FeedbackGains(1, 0, 1);
         double margin = new LoopFrequencyAnalyzer().margins(plant, gains, 0).delayMarginSeconds();
-        assertEquals(Math.toRadians(90 - Math.toDegrees(Math.atan(0.7861513777574233))) / 0.7861513777574233, margin,
-                1e-9);
+        assertEquals(
+                Math.toRadians(90 - Math.toDegrees(Math.atan(0.7861513777574233))) / 0.7861513777574233, margin, 1e-9);
         double ts = 1e-3;
         DenseTrajectory below = simulator.simulate(plant, gains, 1, ts, 0.9 * margin, 150);
         DenseTrajectory above = simulator.simulate(plant, gains, 1, ts, 1.1 * margin, 150);

@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import com.loopwright.solver.design.DenseTrajectory;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.simulation.DelayedSampledStepSimulator;
 import org.hipparchus.ode.ODEState;
 import org.hipparchus.ode.ODEStateAndDerivative;
 import org.hipparchus.ode.OrdinaryDifferentialEquation;
@@ -23,8 +22,8 @@ class DelayedSampledStepVersusOdeTest {
         double ts = 4e-3;
         double delay = 2.4 * ts; // two whole samples plus a fraction: exercises the split hold
         double horizon = 0.3;
-        DenseTrajectory simulated = new DelayedSampledStepSimulator().simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, ts,
-                delay, horizon);
+        DenseTrajectory simulated = new DelayedSampledStepSimulator()
+                .simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, ts, delay, horizon);
         double a0 = IndexingAxis.PLANT.a0();
         double a1 = IndexingAxis.PLANT.a1();
         double b = IndexingAxis.PLANT.b();

@@ -16,8 +16,9 @@ class IntervalStoreTest {
         // key p), on 500 random key sets of 0 .. 300 entries with many ties, signed zeros and
         // infinities; the merge sort on entry numbers must give the same permutation.
         Random random = new Random(2027L);
-        double[] pool = {0.0, -0.0, 1.0, 1.0, 2.5, -3.0, Double.POSITIVE_INFINITY,
-            Double.NEGATIVE_INFINITY, 1e-300, -1e-300};
+        double[] pool = {
+            0.0, -0.0, 1.0, 1.0, 2.5, -3.0, Double.POSITIVE_INFINITY, Double.NEGATIVE_INFINITY, 1e-300, -1e-300
+        };
         for (int c = 0; c < 500; c++) {
             int count = random.nextInt(301);
             IntervalStore store = new IntervalStore(2);
@@ -32,8 +33,8 @@ class IntervalStoreTest {
             }
             Arrays.sort(expected, (p, q) -> Double.compare(keys[q], keys[p]));
             int[] actual = store.orderByKeyDescending();
-            assertArrayEquals(Arrays.stream(expected).mapToInt(Integer::intValue).toArray(), actual,
-                "key set " + c);
+            assertArrayEquals(
+                    Arrays.stream(expected).mapToInt(Integer::intValue).toArray(), actual, "key set " + c);
         }
     }
 

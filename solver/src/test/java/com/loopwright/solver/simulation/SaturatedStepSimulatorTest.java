@@ -6,22 +6,19 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.loopwright.solver.design.DenseTrajectory;
 import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.design.StepMetrics;
-import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.simulation.SaturatedStepSimulator;
-import com.loopwright.solver.simulation.StepResponseMetrics;
 import org.junit.jupiter.api.Test;
 
 class SaturatedStepSimulatorTest {
 
     private final SaturatedStepSimulator simulator = new SaturatedStepSimulator();
-    private final StepMetrics exact = new StepResponseMetrics().measure(
-            LinearLoop.ofStep(IndexingAxis.PLANT, IndexingAxis.GAINS), 1, 0.45, 4000, 0.02);
+    private final StepMetrics exact = new StepResponseMetrics()
+            .measure(LinearLoop.ofStep(IndexingAxis.PLANT, IndexingAxis.GAINS), 1, 0.45, 4000, 0.02);
 
     @Test
     void withoutActiveLimitTheGridMetricsMatchTheExactOnes() {
-        DenseTrajectory t = simulator.simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, Double.POSITIVE_INFINITY,
-                0.45);
+        DenseTrajectory t =
+                simulator.simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, Double.POSITIVE_INFINITY, 0.45);
         GridMetrics m = GridMetrics.of(t, 1, 0.02);
         assertEquals(exact.settlingTimeSeconds(), m.settlingTimeSeconds(), 1e-6);
         assertEquals(exact.riseTimeSeconds(), m.riseTimeSeconds(), 1e-6);

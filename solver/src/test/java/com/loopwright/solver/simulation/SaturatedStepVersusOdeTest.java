@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import com.loopwright.solver.design.DenseTrajectory;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.robustness.IndexingAxis;
-import com.loopwright.solver.simulation.SaturatedStepSimulator;
 import org.hipparchus.analysis.UnivariateFunction;
 import org.hipparchus.analysis.solvers.BracketedUnivariateSolver;
 import org.hipparchus.analysis.solvers.BracketingNthOrderBrentSolver;
@@ -30,8 +29,8 @@ class SaturatedStepVersusOdeTest {
     void saturatedStepMatchesAnAdaptiveOdeIntegrationWithEvents() {
         double limit = 0.5;
         double horizon = 0.6;
-        DenseTrajectory simulated = new SaturatedStepSimulator().simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1,
-                limit, horizon);
+        DenseTrajectory simulated =
+                new SaturatedStepSimulator().simulate(IndexingAxis.PLANT, IndexingAxis.GAINS, 1, limit, horizon);
         double a0 = IndexingAxis.PLANT.a0();
         double a1 = IndexingAxis.PLANT.a1();
         double b = IndexingAxis.PLANT.b();
@@ -72,16 +71,24 @@ class SaturatedStepVersusOdeTest {
         private final double sign;
 
         Switch(double limit, FeedbackGains gains, double sign) {
-            super((state, isForward) -> 1e-4, 100, new BracketingNthOrderBrentSolver(1e-14, 1e-15, 5),
+            super(
+                    (state, isForward) -> 1e-4,
+                    100,
+                    new BracketingNthOrderBrentSolver(1e-14, 1e-15, 5),
                     (s, detector, increasing) -> Action.RESET_DERIVATIVES);
             this.limit = limit;
             this.gains = gains;
             this.sign = sign;
         }
 
-        private Switch(AdaptableInterval interval, int maxIterations,
-                       BracketedUnivariateSolver<UnivariateFunction> solver, ODEEventHandler handler,
-                       double limit, FeedbackGains gains, double sign) {
+        private Switch(
+                AdaptableInterval interval,
+                int maxIterations,
+                BracketedUnivariateSolver<UnivariateFunction> solver,
+                ODEEventHandler handler,
+                double limit,
+                FeedbackGains gains,
+                double sign) {
             super(interval, maxIterations, solver, handler);
             this.limit = limit;
             this.gains = gains;
@@ -95,8 +102,11 @@ class SaturatedStepVersusOdeTest {
         }
 
         @Override
-        protected Switch create(AdaptableInterval interval, int maxIterations,
-                                BracketedUnivariateSolver<UnivariateFunction> solver, ODEEventHandler handler) {
+        protected Switch create(
+                AdaptableInterval interval,
+                int maxIterations,
+                BracketedUnivariateSolver<UnivariateFunction> solver,
+                ODEEventHandler handler) {
             return new Switch(interval, maxIterations, solver, handler, limit, gains, sign);
         }
     }

@@ -9,8 +9,7 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 /** Loops shared by the simulation tests. */
 final class SecondOrderLoops {
 
-    private SecondOrderLoops() {
-    }
+    private SecondOrderLoops() {}
 
     /**
      * The double integrator y'' = u under state feedback u = -wn^2 x1 - 2 zeta wn x2 + wn^2 r:
@@ -20,18 +19,17 @@ final class SecondOrderLoops {
     static LinearLoop stateFeedbackLoop(double zeta, double naturalFrequencyRadPerSecond) {
         double wn = naturalFrequencyRadPerSecond;
         return new LinearLoop(
-            new DMatrixRMaj(new double[][] {{0, 1}, {-wn * wn, -2 * zeta * wn}}),
-            new DMatrixRMaj(new double[][] {{0}, {wn * wn}}),
-            new DMatrixRMaj(new double[][] {{1, 0}}),
-            new DMatrixRMaj(new double[][] {{-wn * wn, -2 * zeta * wn}}),
-            wn * wn);
+                new DMatrixRMaj(new double[][] {{0, 1}, {-wn * wn, -2 * zeta * wn}}),
+                new DMatrixRMaj(new double[][] {{0}, {wn * wn}}),
+                new DMatrixRMaj(new double[][] {{1, 0}}),
+                new DMatrixRMaj(new double[][] {{-wn * wn, -2 * zeta * wn}}),
+                wn * wn);
     }
 
     /** The same loop with u taken as the velocity x2 = y' (no feedthrough). */
     static LinearLoop velocityAsControl(double zeta, double naturalFrequencyRadPerSecond) {
         LinearLoop loop = stateFeedbackLoop(zeta, naturalFrequencyRadPerSecond);
-        return new LinearLoop(loop.a(), loop.bRef(), loop.cOut(),
-            new DMatrixRMaj(new double[][] {{0, 1}}), 0.0);
+        return new LinearLoop(loop.a(), loop.bRef(), loop.cOut(), new DMatrixRMaj(new double[][] {{0, 1}}), 0.0);
     }
 
     /**
@@ -53,8 +51,8 @@ final class SecondOrderLoops {
         for (int i = 0; i < n; i++) {
             g.add(i, i, -(maxReal + margin));
         }
-        return new LinearLoop(g, gaussian(random, n, 1), gaussian(random, 1, n),
-            gaussian(random, 1, n), random.nextGaussian());
+        return new LinearLoop(
+                g, gaussian(random, n, 1), gaussian(random, 1, n), gaussian(random, 1, n), random.nextGaussian());
     }
 
     /** x' = A x + bRef r as a Hipparchus ODE, for the independent Dormand-Prince reference. */

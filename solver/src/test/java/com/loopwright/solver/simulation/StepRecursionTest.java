@@ -16,28 +16,31 @@ class StepRecursionTest {
     void unrolledTwoStateRecursionEqualsTheGeneralOneBitForBit() {
         Random random = new Random(14);
         for (int trial = 0; trial < 50; trial++) {
-            double[] ad = {random.nextGaussian() * 0.7, random.nextGaussian() * 0.7, random.nextGaussian() * 0.7,
-                random.nextGaussian() * 0.7};
+            double[] ad = {
+                random.nextGaussian() * 0.7,
+                random.nextGaussian() * 0.7,
+                random.nextGaussian() * 0.7,
+                random.nextGaussian() * 0.7
+            };
             double[] drive = {random.nextGaussian(), random.nextGaussian()};
             double[] c = {random.nextGaussian(), random.nextGaussian()};
             double[] k = {random.nextGaussian(), random.nextGaussian()};
             double feedthrough = random.nextGaussian();
             double[] unrolled = new double[4 * SAMPLES];
             double[] general = new double[4 * SAMPLES];
-            double unrolledGuard = new TwoStateRecursion(ad, drive, c, k, feedthrough).run(SAMPLES,
-                (i, x0, x1, y, u) -> {
-                    unrolled[4 * i] = x0;
-                    unrolled[4 * i + 1] = x1;
-                    unrolled[4 * i + 2] = y;
-                    unrolled[4 * i + 3] = u;
-                });
-            double generalGuard = new StateRecursion(2, ad, drive, c, k, feedthrough).run(SAMPLES,
-                (i, x, y, u) -> {
-                    general[4 * i] = x[0];
-                    general[4 * i + 1] = x[1];
-                    general[4 * i + 2] = y;
-                    general[4 * i + 3] = u;
-                });
+            double unrolledGuard = new TwoStateRecursion(ad, drive, c, k, feedthrough)
+                    .run(SAMPLES, (i, x0, x1, y, u) -> {
+                        unrolled[4 * i] = x0;
+                        unrolled[4 * i + 1] = x1;
+                        unrolled[4 * i + 2] = y;
+                        unrolled[4 * i + 3] = u;
+                    });
+            double generalGuard = new StateRecursion(2, ad, drive, c, k, feedthrough).run(SAMPLES, (i, x, y, u) -> {
+                general[4 * i] = x[0];
+                general[4 * i + 1] = x[1];
+                general[4 * i + 2] = y;
+                general[4 * i + 3] = u;
+            });
             assertArrayEquals(general, unrolled);
             assertEquals(generalGuard, unrolledGuard);
         }

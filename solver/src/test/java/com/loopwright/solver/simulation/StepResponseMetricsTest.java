@@ -41,7 +41,8 @@ class StepResponseMetricsTest {
         "0.60, 200.0, 1.0",
         "0.707, 1.0, -2.5",
         "0.80, 40.0, 0.3",
-        "0.95, 3.0, 1.0"})
+        "0.95, 3.0, 1.0"
+    })
     void underdampedLoopMatchesAnalyticResponse(double zeta, double wn, double r) {
         // source: unit step response of wn^2 / (s^2 + 2 zeta wn s + wn^2), any control textbook:
         // y(t) = 1 - e^(-zeta wn t) / sqrt(1 - zeta^2) sin(wd t + acos zeta), wd = wn sqrt(1 - zeta^2);
@@ -65,31 +66,34 @@ class StepResponseMetricsTest {
             lastOutside++;
         }
         double side = lastOutside % 2 == 0 ? -1.0 : 1.0; // sign of y(t_K) - 1
-        double settling = referenceRoot(t -> y.applyAsDouble(t) - 1 - side * BAND,
-            lastOutside * Math.PI / wd, (lastOutside + 1) * Math.PI / wd);
+        double settling = referenceRoot(
+                t -> y.applyAsDouble(t) - 1 - side * BAND,
+                lastOutside * Math.PI / wd,
+                (lastOutside + 1) * Math.PI / wd);
 
         // Horizon: 1.5 times the envelope bound e^(-zeta wn t) / sqrt(1 - zeta^2) = band, and at
         // least two oscillation periods so that the first peak (t_1 = pi / wd) is inside.
-        double horizonSeconds =
-            Math.max(1.5 * -Math.log(BAND * root) / (zeta * wn), 4 * Math.PI / wd);
+        double horizonSeconds = Math.max(1.5 * -Math.log(BAND * root) / (zeta * wn), 4 * Math.PI / wd);
         LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(zeta, wn);
         StepMetrics coarse = metrics.measure(loop, r, horizonSeconds, 500, BAND);
         StepMetrics fine = metrics.measure(loop, r, horizonSeconds, 5000, BAND);
 
         // The coarsest grid the density check accepts (4 samples per damped period, plus margin)
         // must give the same exact values: events between samples are refined, not sampled.
-        int coarsest =
-            (int) Math.ceil(horizonSeconds * wd / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
+        int coarsest = (int) Math.ceil(horizonSeconds * wd / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE) + 2;
         StepMetrics coarsestMetrics = metrics.measure(loop, r, horizonSeconds, coarsest, BAND);
 
         for (StepMetrics m : new StepMetrics[] {coarsestMetrics, coarse, fine}) {
             assertEquals(expectedOvershoot, m.overshootPercent(), 1e-8 * expectedOvershoot);
-            assertTrue(relative(m.peakTimeSeconds(), expectedPeakTime) <= 1e-8,
-                "peak time " + m.peakTimeSeconds() + " vs " + expectedPeakTime);
-            assertTrue(relative(m.riseTimeSeconds(), t90 - t10) <= 1e-9,
-                "rise time " + m.riseTimeSeconds() + " vs " + (t90 - t10));
-            assertTrue(relative(m.settlingTimeSeconds(), settling) <= 1e-9,
-                "settling time " + m.settlingTimeSeconds() + " vs " + settling);
+            assertTrue(
+                    relative(m.peakTimeSeconds(), expectedPeakTime) <= 1e-8,
+                    "peak time " + m.peakTimeSeconds() + " vs " + expectedPeakTime);
+            assertTrue(
+                    relative(m.riseTimeSeconds(), t90 - t10) <= 1e-9,
+                    "rise time " + m.riseTimeSeconds() + " vs " + (t90 - t10));
+            assertTrue(
+                    relative(m.settlingTimeSeconds(), settling) <= 1e-9,
+                    "settling time " + m.settlingTimeSeconds() + " vs " + settling);
             // source: unit DC gain, y_inf = r exactly up to rounding of -cOut A^-1 bRef.
             assertEquals(r, m.finalValue(), 1e-13 * Math.abs(r));
             assertEquals(0.0, m.steadyStateError(), 1e-13 * Math.abs(r));
@@ -119,21 +123,21 @@ class StepResponseMetricsTest {
         double samplePeriodSeconds = secondExtremum / 5.5;
         int samples = 13;
         double horizonSeconds = (samples - 1) * samplePeriodSeconds;
-        DoubleUnaryOperator y = t ->
-            1 - Math.exp(-zeta * wn * t) / root * Math.sin(wd * t + Math.acos(zeta));
-        double settling = referenceRoot(t -> y.applyAsDouble(t) - (1 - BAND),
-            secondExtremum, 3 * Math.PI / wd);
+        DoubleUnaryOperator y = t -> 1 - Math.exp(-zeta * wn * t) / root * Math.sin(wd * t + Math.acos(zeta));
+        double settling = referenceRoot(t -> y.applyAsDouble(t) - (1 - BAND), secondExtremum, 3 * Math.PI / wd);
 
         LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(zeta, wn);
-        double[] output = new StepSimulator().simulate(loop, 1.0, horizonSeconds, samples).output();
+        double[] output =
+                new StepSimulator().simulate(loop, 1.0, horizonSeconds, samples).output();
         for (int k = 5; k < samples; k++) {
             assertTrue(Math.abs(output[k] - 1) <= BAND, "sample " + k + " is inside the band");
         }
         assertTrue(Math.abs(y.applyAsDouble(secondExtremum) - 1) > BAND);
 
         StepMetrics m = metrics.measure(loop, 1.0, horizonSeconds, samples, BAND);
-        assertTrue(relative(m.settlingTimeSeconds(), settling) <= 1e-9,
-            "settling time " + m.settlingTimeSeconds() + " vs " + settling);
+        assertTrue(
+                relative(m.settlingTimeSeconds(), settling) <= 1e-9,
+                "settling time " + m.settlingTimeSeconds() + " vs " + settling);
         assertTrue(m.settlingTimeSeconds() > secondExtremum);
     }
 
@@ -150,10 +154,9 @@ class StepResponseMetricsTest {
         double s = 0.02;
         double w = 10.0;
         double beta = 0.08;
-        DoubleUnaryOperator y =
-            t -> 1 - Math.exp(-a * t) + beta * Math.exp(-s * t) * Math.sin(w * t);
-        DoubleUnaryOperator yRate = t -> a * Math.exp(-a * t)
-            + beta * Math.exp(-s * t) * (w * Math.cos(w * t) - s * Math.sin(w * t));
+        DoubleUnaryOperator y = t -> 1 - Math.exp(-a * t) + beta * Math.exp(-s * t) * Math.sin(w * t);
+        DoubleUnaryOperator yRate =
+                t -> a * Math.exp(-a * t) + beta * Math.exp(-s * t) * (w * Math.cos(w * t) - s * Math.sin(w * t));
         double scanStep = 1e-3;
         double horizonGuess = 500.0;
         double t10 = firstScannedCrossing(y, 0.1, scanStep, horizonGuess);
@@ -173,14 +176,15 @@ class StepResponseMetricsTest {
         while (Math.abs(y.applyAsDouble(lastOutside * scanStep) - 1) <= BAND) {
             lastOutside--;
         }
-        double settling = referenceRoot(t -> y.applyAsDouble(t) - (1 - BAND),
-            lastOutside * scanStep, (lastOutside + 1) * scanStep);
+        double settling = referenceRoot(
+                t -> y.applyAsDouble(t) - (1 - BAND), lastOutside * scanStep, (lastOutside + 1) * scanStep);
 
         LinearLoop loop = new LinearLoop(
-            new DMatrixRMaj(new double[][] {{-a, 0, 0}, {0, -s, w}, {0, -w, -s}}),
-            new DMatrixRMaj(new double[][] {{a}, {w}, {-s}}),
-            new DMatrixRMaj(new double[][] {{1, beta, 0}}),
-            new DMatrixRMaj(new double[][] {{0, 0, 0}}), 1.0);
+                new DMatrixRMaj(new double[][] {{-a, 0, 0}, {0, -s, w}, {0, -w, -s}}),
+                new DMatrixRMaj(new double[][] {{a}, {w}, {-s}}),
+                new DMatrixRMaj(new double[][] {{1, beta, 0}}),
+                new DMatrixRMaj(new double[][] {{0, 0, 0}}),
+                1.0);
         StepResponse response = new StepSimulator().simulate(loop, 1.0, horizonSeconds, samples);
         double[] time = response.timeSeconds();
         double[] output = response.output();
@@ -190,16 +194,17 @@ class StepResponseMetricsTest {
         assertTrue(y.applyAsDouble(peakTime) > 0.1);
 
         StepMetrics m = metrics.measure(loop, 1.0, horizonSeconds, samples, BAND);
-        assertTrue(relative(m.riseTimeSeconds(), t90 - t10) <= 1e-9,
-            "rise time " + m.riseTimeSeconds() + " vs " + (t90 - t10));
-        assertTrue(relative(m.settlingTimeSeconds(), settling) <= 1e-9,
-            "settling time " + m.settlingTimeSeconds() + " vs " + settling);
+        assertTrue(
+                relative(m.riseTimeSeconds(), t90 - t10) <= 1e-9,
+                "rise time " + m.riseTimeSeconds() + " vs " + (t90 - t10));
+        assertTrue(
+                relative(m.settlingTimeSeconds(), settling) <= 1e-9,
+                "settling time " + m.settlingTimeSeconds() + " vs " + settling);
         assertEquals(1.0, m.peakControl(), 1e-15);
     }
 
     /** First crossing of the level on a fine scan, then Hipparchus' Brent solver on it. */
-    private static double firstScannedCrossing(DoubleUnaryOperator f, double level, double step,
-                                               double end) {
+    private static double firstScannedCrossing(DoubleUnaryOperator f, double level, double step, double end) {
         double t = 0.0;
         while (f.applyAsDouble(t + step) < level) {
             t += step;
@@ -214,14 +219,22 @@ class StepResponseMetricsTest {
         double[] second = values(b);
         for (int i = 0; i < first.length; i++) {
             double scale = Math.max(Math.abs(first[i]), Math.abs(second[i]));
-            assertTrue(Math.abs(first[i] - second[i]) <= tolerance * Math.max(scale, 1e-300),
-                "metric " + i + ": " + first[i] + " vs " + second[i]);
+            assertTrue(
+                    Math.abs(first[i] - second[i]) <= tolerance * Math.max(scale, 1e-300),
+                    "metric " + i + ": " + first[i] + " vs " + second[i]);
         }
     }
 
     private static double[] values(StepMetrics m) {
-        return new double[] {m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(),
-            m.peakTimeSeconds(), m.steadyStateError(), m.peakControl(), m.finalValue()};
+        return new double[] {
+            m.riseTimeSeconds(),
+            m.settlingTimeSeconds(),
+            m.overshootPercent(),
+            m.peakTimeSeconds(),
+            m.steadyStateError(),
+            m.peakControl(),
+            m.finalValue()
+        };
     }
 
     @ParameterizedTest
@@ -237,8 +250,9 @@ class StepResponseMetricsTest {
         LinearLoop loop = SecondOrderLoops.velocityAsControl(zeta, wn);
         for (int samples : new int[] {500, 5000}) {
             StepMetrics m = metrics.measure(loop, 1.0, horizonSeconds, samples, BAND);
-            assertTrue(relative(m.peakControl(), expected) <= 1e-12,
-                "peak velocity " + m.peakControl() + " vs " + expected + " at " + samples);
+            assertTrue(
+                    relative(m.peakControl(), expected) <= 1e-12,
+                    "peak velocity " + m.peakControl() + " vs " + expected + " at " + samples);
         }
     }
 
@@ -259,8 +273,7 @@ class StepResponseMetricsTest {
         // monotone increasing.
         double p1 = wn * (zeta - Math.sqrt(zeta * zeta - 1));
         double p2 = wn * (zeta + Math.sqrt(zeta * zeta - 1));
-        DoubleUnaryOperator y =
-            t -> 1 - (p2 * Math.exp(-p1 * t) - p1 * Math.exp(-p2 * t)) / (p2 - p1);
+        DoubleUnaryOperator y = t -> 1 - (p2 * Math.exp(-p1 * t) - p1 * Math.exp(-p2 * t)) / (p2 - p1);
         assertMonotoneResponse(zeta, wn, y);
     }
 
@@ -279,10 +292,12 @@ class StepResponseMetricsTest {
             // in the window is at the horizon.
             assertEquals(0.0, m.overshootPercent());
             assertEquals(horizonSeconds, m.peakTimeSeconds(), 1e-15 * horizonSeconds);
-            assertTrue(relative(m.riseTimeSeconds(), t90 - t10) <= 1e-9,
-                "rise time " + m.riseTimeSeconds() + " vs " + (t90 - t10));
-            assertTrue(relative(m.settlingTimeSeconds(), settling) <= 1e-9,
-                "settling time " + m.settlingTimeSeconds() + " vs " + settling);
+            assertTrue(
+                    relative(m.riseTimeSeconds(), t90 - t10) <= 1e-9,
+                    "rise time " + m.riseTimeSeconds() + " vs " + (t90 - t10));
+            assertTrue(
+                    relative(m.settlingTimeSeconds(), settling) <= 1e-9,
+                    "settling time " + m.settlingTimeSeconds() + " vs " + settling);
             assertEquals(1.0, m.finalValue(), 1e-13);
         }
         assertSameMetrics(coarse, fine, 1e-9);
@@ -316,8 +331,7 @@ class StepResponseMetricsTest {
         DMatrixRMaj cOut = loop.cOut();
         DMatrixRMaj cControl = loop.cControl();
         OrdinaryDifferentialEquation ode = SecondOrderLoops.referenceOde(loop, r);
-        DormandPrince853Integrator integrator =
-            new DormandPrince853Integrator(1e-12, horizonSeconds, 1e-13, 1e-13);
+        DormandPrince853Integrator integrator = new DormandPrince853Integrator(1e-12, horizonSeconds, 1e-13, 1e-13);
         DenseOutputModel dense = new DenseOutputModel();
         integrator.addStepHandler(dense);
         integrator.integrate(ode, new ODEState(0.0, new double[n]), horizonSeconds);
@@ -327,15 +341,20 @@ class StepResponseMetricsTest {
         CommonOps_DDRM.scale(-r, minusBr);
         assertTrue(CommonOps_DDRM.solve(a, minusBr, equilibrium));
         double finalValue = CommonOps_DDRM.dot(cOut, equilibrium);
-        DoubleUnaryOperator z = t -> CommonOps_DDRM.dot(cOut,
-            DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryState())) / finalValue;
-        DoubleUnaryOperator zRate = t -> CommonOps_DDRM.dot(cOut,
-            DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryDerivative())) / finalValue;
-        DoubleUnaryOperator u = t -> CommonOps_DDRM.dot(cControl,
-            DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryState()))
-            + loop.dControl() * r;
-        DoubleUnaryOperator uRate = t -> CommonOps_DDRM.dot(cControl,
-            DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryDerivative()));
+        DoubleUnaryOperator z = t -> CommonOps_DDRM.dot(
+                        cOut,
+                        DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryState()))
+                / finalValue;
+        DoubleUnaryOperator zRate = t -> CommonOps_DDRM.dot(
+                        cOut,
+                        DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryDerivative()))
+                / finalValue;
+        DoubleUnaryOperator u = t -> CommonOps_DDRM.dot(
+                        cControl,
+                        DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryState()))
+                + loop.dControl() * r;
+        DoubleUnaryOperator uRate = t -> CommonOps_DDRM.dot(
+                cControl, DMatrixRMaj.wrap(n, 1, dense.getInterpolatedState(t).getPrimaryDerivative()));
 
         int scan = 20_000;
         double step = horizonSeconds / scan;
@@ -360,8 +379,8 @@ class StepResponseMetricsTest {
             lastOutside--;
         }
         double bandEdge = zScan[lastOutside] > 1 ? 1 + BAND : 1 - BAND;
-        double settling = referenceRoot(t -> z.applyAsDouble(t) - bandEdge,
-            lastOutside * step, (lastOutside + 1) * step);
+        double settling =
+                referenceRoot(t -> z.applyAsDouble(t) - bandEdge, lastOutside * step, (lastOutside + 1) * step);
         int peakIndex = 0;
         int controlIndex = 0;
         for (int i = 1; i <= scan; i++) {
@@ -370,20 +389,25 @@ class StepResponseMetricsTest {
         }
         double peakTime = referenceRoot(zRate, (peakIndex - 1) * step, (peakIndex + 1) * step);
         double overshoot = 100 * (z.applyAsDouble(peakTime) - 1);
-        double peakControl = controlIndex == 0 ? Math.abs(uScan[0]) : Math.abs(u.applyAsDouble(
-            referenceRoot(uRate, (controlIndex - 1) * step, (controlIndex + 1) * step)));
+        double peakControl = controlIndex == 0
+                ? Math.abs(uScan[0])
+                : Math.abs(u.applyAsDouble(referenceRoot(uRate, (controlIndex - 1) * step, (controlIndex + 1) * step)));
 
         StepMetrics m = metrics.measure(loop, r, horizonSeconds, 500, BAND);
         assertTrue(overshoot > 1.0 && peakIndex > 0 && peakIndex < scan, "an interior peak");
-        assertTrue(relative(m.riseTimeSeconds(), rise[1] - rise[0]) <= 1e-8,
-            "rise time " + m.riseTimeSeconds() + " vs " + (rise[1] - rise[0]));
-        assertTrue(relative(m.settlingTimeSeconds(), settling) <= 1e-8,
-            "settling time " + m.settlingTimeSeconds() + " vs " + settling);
-        assertTrue(relative(m.peakTimeSeconds(), peakTime) <= 1e-8,
-            "peak time " + m.peakTimeSeconds() + " vs " + peakTime);
+        assertTrue(
+                relative(m.riseTimeSeconds(), rise[1] - rise[0]) <= 1e-8,
+                "rise time " + m.riseTimeSeconds() + " vs " + (rise[1] - rise[0]));
+        assertTrue(
+                relative(m.settlingTimeSeconds(), settling) <= 1e-8,
+                "settling time " + m.settlingTimeSeconds() + " vs " + settling);
+        assertTrue(
+                relative(m.peakTimeSeconds(), peakTime) <= 1e-8,
+                "peak time " + m.peakTimeSeconds() + " vs " + peakTime);
         assertEquals(overshoot, m.overshootPercent(), 1e-8);
-        assertTrue(relative(m.peakControl(), peakControl) <= 1e-8,
-            "peak control " + m.peakControl() + " vs " + peakControl);
+        assertTrue(
+                relative(m.peakControl(), peakControl) <= 1e-8,
+                "peak control " + m.peakControl() + " vs " + peakControl);
         assertEquals(finalValue, m.finalValue(), 1e-12 * Math.abs(finalValue));
         assertEquals(r - finalValue, m.steadyStateError(), 1e-12 * Math.abs(finalValue));
     }
@@ -418,8 +442,9 @@ class StepResponseMetricsTest {
                 closed = metrics.measure(loop, r, window[0], samples, BAND);
             } catch (IllegalArgumentException e) {
                 // Both routes refuse the same loops (e.g. a final value of zero).
-                IllegalArgumentException general = assertThrows(IllegalArgumentException.class,
-                    () -> metrics.measure(loop, r, window[0], samples, BAND, HoldPropagator::new));
+                IllegalArgumentException general = assertThrows(
+                        IllegalArgumentException.class,
+                        () -> metrics.measure(loop, r, window[0], samples, BAND, HoldPropagator::new));
                 assertEquals(e.getMessage(), general.getMessage());
                 continue;
             }
@@ -448,15 +473,18 @@ class StepResponseMetricsTest {
         // from memory), x_inf = -M^-1 (1, 1); its maximum over [0, 30 s] by a 10^6-point scan,
         // then Hipparchus' Brent solver on z' around the best scan point; a 6 s window.
         LinearLoop loop = new LinearLoop(
-            new DMatrixRMaj(new double[][] {{-4, 0, 0}, {0, -0.4, 100}, {0, -100, -0.4}}),
-            new DMatrixRMaj(new double[][] {{4}, {1}, {1}}), new DMatrixRMaj(new double[][] {{1, 1, 0}}),
-            new DMatrixRMaj(new double[][] {{0, 0, 1}}), 0.0);
+                new DMatrixRMaj(new double[][] {{-4, 0, 0}, {0, -0.4, 100}, {0, -100, -0.4}}),
+                new DMatrixRMaj(new double[][] {{4}, {1}, {1}}),
+                new DMatrixRMaj(new double[][] {{1, 1, 0}}),
+                new DMatrixRMaj(new double[][] {{0, 0, 1}}),
+                0.0);
         double determinant = 0.4 * 0.4 + 10_000;
         double xi2 = (0.4 + 100) / determinant;
         double xi3 = (0.4 - 100) / determinant;
         double finalValue = 1 + xi2;
-        DoubleUnaryOperator z = t -> (1 - Math.exp(-4 * t) + xi2
-            - Math.exp(-0.4 * t) * (Math.cos(100 * t) * xi2 + Math.sin(100 * t) * xi3)) / finalValue;
+        DoubleUnaryOperator z = t ->
+                (1 - Math.exp(-4 * t) + xi2 - Math.exp(-0.4 * t) * (Math.cos(100 * t) * xi2 + Math.sin(100 * t) * xi3))
+                        / finalValue;
         DoubleUnaryOperator zRate = t -> {
             double x2 = xi2 - Math.exp(-0.4 * t) * (Math.cos(100 * t) * xi2 + Math.sin(100 * t) * xi3);
             double x3 = xi3 - Math.exp(-0.4 * t) * (-Math.sin(100 * t) * xi2 + Math.cos(100 * t) * xi3);
@@ -474,11 +502,11 @@ class StepResponseMetricsTest {
             }
         }
         double step = horizonSeconds / scan;
-        double peakTime = best == scan ? horizonSeconds
-            : referenceRoot(zRate, (best - 1) * step, (best + 1) * step);
+        double peakTime = best == scan ? horizonSeconds : referenceRoot(zRate, (best - 1) * step, (best + 1) * step);
         StepMetrics m = metrics.measure(loop, 1.0, horizonSeconds, 2000, BAND);
-        assertTrue(relative(m.peakTimeSeconds(), peakTime) <= 1e-9,
-            "peak time " + m.peakTimeSeconds() + " vs " + peakTime);
+        assertTrue(
+                relative(m.peakTimeSeconds(), peakTime) <= 1e-9,
+                "peak time " + m.peakTimeSeconds() + " vs " + peakTime);
         assertTrue(m.overshootPercent() > 0.1, "overshoot " + m.overshootPercent());
         assertEquals(100 * (z.applyAsDouble(peakTime) - 1), m.overshootPercent(), 1e-10);
         assertEquals(finalValue, m.finalValue(), 1e-14);
@@ -500,50 +528,49 @@ class StepResponseMetricsTest {
         LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
         assertThrows(IllegalArgumentException.class, () -> metrics.measure(null, 1, 10, 500, BAND));
         assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, 1, 10, 1, BAND));
-        assertThrows(IllegalArgumentException.class,
-            () -> metrics.measure(loop, 1, 10, 100_001, BAND));
+        assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, 1, 10, 100_001, BAND));
         assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, 0, 10, 500, BAND));
-        assertThrows(IllegalArgumentException.class,
-            () -> metrics.measure(loop, Double.NaN, 10, 500, BAND));
-        assertThrows(IllegalArgumentException.class,
-            () -> metrics.measure(loop, 1, Double.NaN, 500, BAND));
+        assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, Double.NaN, 10, 500, BAND));
+        assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, 1, Double.NaN, 500, BAND));
         assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, 1, 10, 500, 0));
         assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, 1, 10, 500, 1));
-        assertThrows(IllegalArgumentException.class,
-            () -> metrics.measure(loop, 1, 10, 500, Double.NaN));
+        assertThrows(IllegalArgumentException.class, () -> metrics.measure(loop, 1, 10, 500, Double.NaN));
         // Not Hurwitz: the double integrator without feedback (eigenvalues 0, 0) and an unstable
         // loop (zeta < 0) have no final value.
-        LinearLoop openLoop = new LinearLoop(new DMatrixRMaj(new double[][] {{0, 1}, {0, 0}}),
-            new DMatrixRMaj(new double[][] {{0}, {1}}), new DMatrixRMaj(new double[][] {{1, 0}}),
-            new DMatrixRMaj(new double[][] {{0, 0}}), 1.0);
-        assertThrows(IllegalArgumentException.class,
-            () -> metrics.measure(openLoop, 1, 10, 500, BAND));
-        assertThrows(IllegalArgumentException.class, () -> metrics.measure(
-            SecondOrderLoops.stateFeedbackLoop(-0.1, 2.0), 1, 10, 500, BAND));
-        assertThrows(IllegalArgumentException.class, () -> metrics.measure(
-            SecondOrderLoops.stateFeedbackLoop(0.0, 2.0), 1, 10, 500, BAND));
+        LinearLoop openLoop = new LinearLoop(
+                new DMatrixRMaj(new double[][] {{0, 1}, {0, 0}}),
+                new DMatrixRMaj(new double[][] {{0}, {1}}),
+                new DMatrixRMaj(new double[][] {{1, 0}}),
+                new DMatrixRMaj(new double[][] {{0, 0}}),
+                1.0);
+        assertThrows(IllegalArgumentException.class, () -> metrics.measure(openLoop, 1, 10, 500, BAND));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> metrics.measure(SecondOrderLoops.stateFeedbackLoop(-0.1, 2.0), 1, 10, 500, BAND));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> metrics.measure(SecondOrderLoops.stateFeedbackLoop(0.0, 2.0), 1, 10, 500, BAND));
         // Zero final value: the velocity output x2 of the loop tends to 0.
-        LinearLoop velocityOutput = new LinearLoop(loop.a(), loop.bRef(),
-            new DMatrixRMaj(new double[][] {{0, 1}}), loop.cControl(), loop.dControl());
-        assertThrows(IllegalArgumentException.class,
-            () -> metrics.measure(velocityOutput, 1, 10, 500, BAND));
+        LinearLoop velocityOutput = new LinearLoop(
+                loop.a(), loop.bRef(), new DMatrixRMaj(new double[][] {{0, 1}}), loop.cControl(), loop.dControl());
+        assertThrows(IllegalArgumentException.class, () -> metrics.measure(velocityOutput, 1, 10, 500, BAND));
         // The result record itself refuses non-finite or negative values.
-        assertThrows(IllegalArgumentException.class,
-            () -> new StepMetrics(Double.NaN, 1, 0, 1, 0, 1, 1, 0));
-        assertThrows(IllegalArgumentException.class,
-            () -> new StepMetrics(1, Double.POSITIVE_INFINITY, 0, 1, 0, 1, 1, 0));
+        assertThrows(IllegalArgumentException.class, () -> new StepMetrics(Double.NaN, 1, 0, 1, 0, 1, 1, 0));
+        assertThrows(
+                IllegalArgumentException.class, () -> new StepMetrics(1, Double.POSITIVE_INFINITY, 0, 1, 0, 1, 1, 0));
         assertThrows(IllegalArgumentException.class, () -> new StepMetrics(1, 1, -1, 1, 0, 1, 1, 0));
         // Grid too coarse: wd = 200 rad/s over 10 s needs more than 10 samples.
-        assertThrows(IllegalArgumentException.class, () -> metrics.measure(
-            SecondOrderLoops.stateFeedbackLoop(0.3, 200.0), 1, 10, 10, BAND));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> metrics.measure(SecondOrderLoops.stateFeedbackLoop(0.3, 200.0), 1, 10, 10, BAND));
     }
 
     @Test
     void shortHorizonIsReportedNotMeasured() {
         LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
         // Rise to 90% takes about 0.9 s here; at 0.5 s the output is still below it.
-        HorizonTooShortException notRisen = assertThrows(HorizonTooShortException.class,
-            () -> metrics.measure(loop, 1, 0.5, 500, BAND));
+        HorizonTooShortException notRisen =
+                assertThrows(HorizonTooShortException.class, () -> metrics.measure(loop, 1, 0.5, 500, BAND));
         assertEquals(0.5, notRisen.horizonSeconds());
         // 2% settling takes about 4 s; at 2 s the output has risen but not settled.
         assertThrows(HorizonTooShortException.class, () -> metrics.measure(loop, 1, 2.0, 500, BAND));

@@ -35,6 +35,7 @@ class StreamingStepMetricsTest {
 
     /** Counts of the outcomes compared. */
     private int measured;
+
     private int refused;
 
     @Test
@@ -54,8 +55,7 @@ class StreamingStepMetricsTest {
             double wn = Math.pow(10, 3 * random.nextDouble() - 1);
             switch (c % 4) {
                 case 0 -> {
-                    LinearLoop unit =
-                        SecondOrderLoops.randomStableLoop(9000L + c, 2, 0.02 + random.nextDouble());
+                    LinearLoop unit = SecondOrderLoops.randomStableLoop(9000L + c, 2, 0.02 + random.nextDouble());
                     DMatrixRMaj a = unit.a();
                     CommonOps_DDRM.scale(wn, a);
                     loop = new LinearLoop(a, unit.bRef(), unit.cOut(), unit.cControl(), unit.dControl());
@@ -63,8 +63,9 @@ class StreamingStepMetricsTest {
                 }
                 case 1 -> {
                     double zeta = 0.005 + 0.145 * random.nextDouble();
-                    loop = random.nextBoolean() ? SecondOrderLoops.stateFeedbackLoop(zeta, wn)
-                        : SecondOrderLoops.velocityAsControl(zeta, wn);
+                    loop = random.nextBoolean()
+                            ? SecondOrderLoops.stateFeedbackLoop(zeta, wn)
+                            : SecondOrderLoops.velocityAsControl(zeta, wn);
                     r = random.nextBoolean() ? 1.0 : -2.5 * random.nextDouble();
                 }
                 case 2 -> {
@@ -102,10 +103,11 @@ class StreamingStepMetricsTest {
                 double w = 20 + 80 * random.nextDouble();
                 double g = 0.2 + random.nextDouble();
                 loop = new LinearLoop(
-                    new DMatrixRMaj(new double[][] {{-p, 0, 0}, {0, -s, w}, {0, -w, -s}}),
-                    new DMatrixRMaj(new double[][] {{p}, {1}, {1}}),
-                    new DMatrixRMaj(new double[][] {{1, g, 0}}),
-                    new DMatrixRMaj(new double[][] {{0, 0, 1}}), 0.0);
+                        new DMatrixRMaj(new double[][] {{-p, 0, 0}, {0, -s, w}, {0, -w, -s}}),
+                        new DMatrixRMaj(new double[][] {{p}, {1}, {1}}),
+                        new DMatrixRMaj(new double[][] {{1, g, 0}}),
+                        new DMatrixRMaj(new double[][] {{0, 0, 1}}),
+                        0.0);
             }
             compare(loop.stateDimension() + "-state loop " + c, loop, random.nextGaussian(), random);
         }
@@ -120,30 +122,49 @@ class StreamingStepMetricsTest {
         // metrics' (output below 90% at the horizon, outside the band at the horizon, a grid too
         // coarse for the oscillation, a zero final value).
         LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
-        LinearLoop hugeControl = new LinearLoop(new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}}),
-            new DMatrixRMaj(new double[][] {{1}, {1}}), new DMatrixRMaj(new double[][] {{1, 0}}),
-            new DMatrixRMaj(new double[][] {{1e308, 1e308}}), 0.0);
+        LinearLoop hugeControl = new LinearLoop(
+                new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}}),
+                new DMatrixRMaj(new double[][] {{1}, {1}}),
+                new DMatrixRMaj(new double[][] {{1, 0}}),
+                new DMatrixRMaj(new double[][] {{1e308, 1e308}}),
+                0.0);
         LinearLoop hugeControl3 = new LinearLoop(
-            new DMatrixRMaj(new double[][] {{-1, 0, 0}, {0, -2, 0}, {0, 0, -3}}),
-            new DMatrixRMaj(new double[][] {{1}, {1}, {1}}), new DMatrixRMaj(new double[][] {{1, 0, 0}}),
-            new DMatrixRMaj(new double[][] {{1e308, 1e308, 0}}), 0.0);
-        LinearLoop velocityOutput = new LinearLoop(loop.a(), loop.bRef(),
-            new DMatrixRMaj(new double[][] {{0, 1}}), loop.cControl(), loop.dControl());
-        assertSameOutcome("control overflow", () -> metrics.measure(hugeControl, 10, 10, 1000, BAND),
-            () -> oracle.measure(hugeControl, 10, 10, 1000, BAND));
-        assertSameOutcome("control overflow, 3 states", () -> metrics.measure(hugeControl3, 10, 10, 1000, BAND),
-            () -> oracle.measure(hugeControl3, 10, 10, 1000, BAND));
-        assertSameOutcome("subnormal horizon", () -> metrics.measure(loop, 1, 3.5e-321, 1000, BAND),
-            () -> oracle.measure(loop, 1, 3.5e-321, 1000, BAND));
-        assertSameOutcome("not risen", () -> metrics.measure(loop, 1, 0.5, 500, BAND),
-            () -> oracle.measure(loop, 1, 0.5, 500, BAND));
-        assertSameOutcome("not settled", () -> metrics.measure(loop, 1, 2.0, 500, BAND),
-            () -> oracle.measure(loop, 1, 2.0, 500, BAND));
+                new DMatrixRMaj(new double[][] {{-1, 0, 0}, {0, -2, 0}, {0, 0, -3}}),
+                new DMatrixRMaj(new double[][] {{1}, {1}, {1}}),
+                new DMatrixRMaj(new double[][] {{1, 0, 0}}),
+                new DMatrixRMaj(new double[][] {{1e308, 1e308, 0}}),
+                0.0);
+        LinearLoop velocityOutput = new LinearLoop(
+                loop.a(), loop.bRef(), new DMatrixRMaj(new double[][] {{0, 1}}), loop.cControl(), loop.dControl());
+        assertSameOutcome(
+                "control overflow",
+                () -> metrics.measure(hugeControl, 10, 10, 1000, BAND),
+                () -> oracle.measure(hugeControl, 10, 10, 1000, BAND));
+        assertSameOutcome(
+                "control overflow, 3 states",
+                () -> metrics.measure(hugeControl3, 10, 10, 1000, BAND),
+                () -> oracle.measure(hugeControl3, 10, 10, 1000, BAND));
+        assertSameOutcome(
+                "subnormal horizon",
+                () -> metrics.measure(loop, 1, 3.5e-321, 1000, BAND),
+                () -> oracle.measure(loop, 1, 3.5e-321, 1000, BAND));
+        assertSameOutcome(
+                "not risen",
+                () -> metrics.measure(loop, 1, 0.5, 500, BAND),
+                () -> oracle.measure(loop, 1, 0.5, 500, BAND));
+        assertSameOutcome(
+                "not settled",
+                () -> metrics.measure(loop, 1, 2.0, 500, BAND),
+                () -> oracle.measure(loop, 1, 2.0, 500, BAND));
         LinearLoop fast = SecondOrderLoops.stateFeedbackLoop(0.3, 200.0);
-        assertSameOutcome("coarse grid", () -> metrics.measure(fast, 1, 10, 10, BAND),
-            () -> oracle.measure(fast, 1, 10, 10, BAND));
-        assertSameOutcome("zero final value", () -> metrics.measure(velocityOutput, 1, 10, 500, BAND),
-            () -> oracle.measure(velocityOutput, 1, 10, 500, BAND));
+        assertSameOutcome(
+                "coarse grid",
+                () -> metrics.measure(fast, 1, 10, 10, BAND),
+                () -> oracle.measure(fast, 1, 10, 10, BAND));
+        assertSameOutcome(
+                "zero final value",
+                () -> metrics.measure(velocityOutput, 1, 10, 500, BAND),
+                () -> oracle.measure(velocityOutput, 1, 10, 500, BAND));
         assertEquals(0, measured);
         assertEquals(7, refused);
     }
@@ -161,15 +182,19 @@ class StreamingStepMetricsTest {
             throw new IllegalStateException("propagation failed at tau = " + tau);
         };
         LinearLoop clean = SecondOrderLoops.stateFeedbackLoop(0.5, 2.0);
-        LinearLoop hugeControl = new LinearLoop(new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}}),
-            new DMatrixRMaj(new double[][] {{1}, {1}}), new DMatrixRMaj(new double[][] {{1, 0}}),
-            new DMatrixRMaj(new double[][] {{1e308, 1e308}}), 0.0);
-        for (BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators
-            : java.util.List.of(unbuildable, failing)) {
+        LinearLoop hugeControl = new LinearLoop(
+                new DMatrixRMaj(new double[][] {{-1, 0}, {0, -2}}),
+                new DMatrixRMaj(new double[][] {{1}, {1}}),
+                new DMatrixRMaj(new double[][] {{1, 0}}),
+                new DMatrixRMaj(new double[][] {{1e308, 1e308}}),
+                0.0);
+        for (BiFunction<LinearLoop, Double, SubIntervalPropagator> propagators :
+                java.util.List.of(unbuildable, failing)) {
             for (LinearLoop loop : new LinearLoop[] {clean, hugeControl}) {
-                assertSameOutcome("propagation failure",
-                    () -> metrics.measure(loop, 10, 10, 1000, BAND, propagators),
-                    () -> oracle.measure(loop, 10, 10, 1000, BAND, propagators));
+                assertSameOutcome(
+                        "propagation failure",
+                        () -> metrics.measure(loop, 10, 10, 1000, BAND, propagators),
+                        () -> oracle.measure(loop, 10, 10, 1000, BAND, propagators));
             }
         }
         assertEquals(4, refused);
@@ -184,13 +209,13 @@ class StreamingStepMetricsTest {
         // about 100 KB per call; the streaming scans keep only the previous sample and the event
         // candidates.
         if (!(ManagementFactory.getThreadMXBean() instanceof com.sun.management.ThreadMXBean threads)
-            || !threads.isThreadAllocatedMemorySupported()) {
+                || !threads.isThreadAllocatedMemorySupported()) {
             return;
         }
         TargetDynamics target = new SpecInverter()
-            .invert(new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, 0.02))).target();
-        LinearLoop loop =
-            SecondOrderLoops.stateFeedbackLoop(target.dampingRatio(), target.naturalFrequencyRadPerSec());
+                .invert(new DesignSpec(0.015, new TimeSpec.SettlingTime(0.15, 0.02)))
+                .target();
+        LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(target.dampingRatio(), target.naturalFrequencyRadPerSec());
         double horizonSeconds = 3 * 0.15;
         int samples = 2000;
         double sink = 0;
@@ -214,33 +239,35 @@ class StreamingStepMetricsTest {
      */
     private void compare(String label, LinearLoop loop, double r, Random random) {
         double[] spectrum = slowestDecayAndFastestOscillation(loop.a());
-        double horizonSeconds = (random.nextInt(10) == 0 ? 0.5 + 2.5 * random.nextDouble()
-            : 6 + 10 * random.nextDouble()) / spectrum[0];
+        double horizonSeconds =
+                (random.nextInt(10) == 0 ? 0.5 + 2.5 * random.nextDouble() : 6 + 10 * random.nextDouble())
+                        / spectrum[0];
         int needed = (int) Math.ceil(horizonSeconds * spectrum[1] / 1.5) + 2;
-        int samples = Math.min(StepSimulator.MAX_SAMPLES,
-            Math.max(needed, 100 + random.nextInt(3000)) + random.nextInt(50));
+        int samples =
+                Math.min(StepSimulator.MAX_SAMPLES, Math.max(needed, 100 + random.nextInt(3000)) + random.nextInt(50));
         String where = label + " (r " + r + ", horizon " + horizonSeconds + " s, " + samples + " samples)";
-        assertSameOutcome(where, () -> metrics.measure(loop, r, horizonSeconds, samples, BAND),
-            () -> oracle.measure(loop, r, horizonSeconds, samples, BAND));
+        assertSameOutcome(
+                where,
+                () -> metrics.measure(loop, r, horizonSeconds, samples, BAND),
+                () -> oracle.measure(loop, r, horizonSeconds, samples, BAND));
         if (loop.stateDimension() == 2 && random.nextInt(4) == 0) {
             BiFunction<LinearLoop, Double, SubIntervalPropagator> hold = HoldPropagator::new;
-            assertSameOutcome(where + " by the hold",
-                () -> metrics.measure(loop, r, horizonSeconds, samples, BAND, hold),
-                () -> oracle.measure(loop, r, horizonSeconds, samples, BAND, hold));
+            assertSameOutcome(
+                    where + " by the hold",
+                    () -> metrics.measure(loop, r, horizonSeconds, samples, BAND, hold),
+                    () -> oracle.measure(loop, r, horizonSeconds, samples, BAND, hold));
         }
     }
 
     /** The same metrics bit for bit, or the same exception class and message. */
-    private void assertSameOutcome(String label, Supplier<StepMetrics> streaming,
-                                   Supplier<StepMetrics> array) {
+    private void assertSameOutcome(String label, Supplier<StepMetrics> streaming, Supplier<StepMetrics> array) {
         StepMetrics expected;
         try {
             expected = array.get();
         } catch (RuntimeException e) {
             try {
                 StepMetrics unexpected = streaming.get();
-                fail(label + ": the array implementation threw " + e + ", the streaming one gave "
-                    + unexpected);
+                fail(label + ": the array implementation threw " + e + ", the streaming one gave " + unexpected);
             } catch (RuntimeException actual) {
                 assertEquals(e.getClass(), actual.getClass(), label);
                 assertEquals(e.getMessage(), actual.getMessage(), label);
@@ -252,16 +279,25 @@ class StreamingStepMetricsTest {
         double[] want = values(expected);
         double[] got = values(actual);
         for (int i = 0; i < want.length; i++) {
-            assertEquals(Double.doubleToRawLongBits(want[i]), Double.doubleToRawLongBits(got[i]),
-                label + ", metric " + i + ": " + actual + " vs " + expected);
+            assertEquals(
+                    Double.doubleToRawLongBits(want[i]),
+                    Double.doubleToRawLongBits(got[i]),
+                    label + ", metric " + i + ": " + actual + " vs " + expected);
         }
         measured++;
     }
 
     private static double[] values(StepMetrics m) {
-        return new double[] {m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(),
-            m.peakTimeSeconds(), m.steadyStateError(), m.peakControl(), m.finalValue(),
-            m.undershootPercent()};
+        return new double[] {
+            m.riseTimeSeconds(),
+            m.settlingTimeSeconds(),
+            m.overshootPercent(),
+            m.peakTimeSeconds(),
+            m.steadyStateError(),
+            m.peakControl(),
+            m.finalValue(),
+            m.undershootPercent()
+        };
     }
 
     /** min |Re lambda(A)| and max |Im lambda(A)| by EJML's eigenvalues. */

@@ -24,15 +24,21 @@ class SubIntervalPropagatorTest {
             double r = random.nextGaussian();
             TwoStatePropagator closed = new TwoStatePropagator(loop, r);
             HoldPropagator hold = new HoldPropagator(loop, r);
-            double[] state = {random.nextGaussian(), random.nextGaussian(), random.nextGaussian(),
-                random.nextGaussian()};
+            double[] state = {random.nextGaussian(), random.nextGaussian(), random.nextGaussian(), random.nextGaussian()
+            };
             double tau = Math.pow(10, -4 + 4 * random.nextDouble());
             closed.propagate(state, 2, tau, target);
             hold.propagate(state, 2, tau, reference);
-            double scale = Math.max(Math.max(Math.abs(state[2]), Math.abs(state[3])),
-                Math.max(Math.abs(reference[0]), Math.abs(reference[1])));
-            scale = Math.max(scale, Math.abs(r) * tau
-                * Math.max(Math.abs(loop.bRef().get(0, 0)), Math.abs(loop.bRef().get(1, 0))));
+            double scale = Math.max(
+                    Math.max(Math.abs(state[2]), Math.abs(state[3])),
+                    Math.max(Math.abs(reference[0]), Math.abs(reference[1])));
+            scale = Math.max(
+                    scale,
+                    Math.abs(r)
+                            * tau
+                            * Math.max(
+                                    Math.abs(loop.bRef().get(0, 0)),
+                                    Math.abs(loop.bRef().get(1, 0))));
             for (int i = 0; i < 2; i++) {
                 assertEquals(reference[i], target[i], 1e-13 * scale, "loop " + c + ", state " + i);
             }
@@ -82,7 +88,7 @@ class SubIntervalPropagatorTest {
         // source: common practice; HotSpot's per-thread allocation counter
         // (com.sun.management.ThreadMXBean.getThreadAllocatedBytes) before and after 100000 calls.
         if (!(ManagementFactory.getThreadMXBean() instanceof com.sun.management.ThreadMXBean threads)
-            || !threads.isThreadAllocatedMemorySupported()) {
+                || !threads.isThreadAllocatedMemorySupported()) {
             return;
         }
         LinearLoop loop = SecondOrderLoops.stateFeedbackLoop(0.8, 25.0);
@@ -108,17 +114,22 @@ class SubIntervalPropagatorTest {
 
     @Test
     void choosesTheClosedFormForTwoStatesOnly() {
-        assertTrue(SubIntervalPropagator.of(SecondOrderLoops.stateFeedbackLoop(0.5, 2.0), 1.0)
-            instanceof TwoStatePropagator);
-        assertTrue(SubIntervalPropagator.of(SecondOrderLoops.randomStableLoop(4L, 4, 0.5), 1.0)
-            instanceof HoldPropagator);
-        assertTrue(SubIntervalPropagator.of(SecondOrderLoops.randomStableLoop(3L, 3, 0.5), 1.0)
-            instanceof HoldPropagator);
-        LinearLoop singular = new LinearLoop(new DMatrixRMaj(new double[][] {{0, 1}, {0, 0}}),
-            new DMatrixRMaj(new double[][] {{0}, {1}}), new DMatrixRMaj(new double[][] {{1, 0}}),
-            new DMatrixRMaj(new double[][] {{0, 0}}), 1.0);
+        assertTrue(
+                SubIntervalPropagator.of(SecondOrderLoops.stateFeedbackLoop(0.5, 2.0), 1.0)
+                        instanceof TwoStatePropagator);
+        assertTrue(
+                SubIntervalPropagator.of(SecondOrderLoops.randomStableLoop(4L, 4, 0.5), 1.0) instanceof HoldPropagator);
+        assertTrue(
+                SubIntervalPropagator.of(SecondOrderLoops.randomStableLoop(3L, 3, 0.5), 1.0) instanceof HoldPropagator);
+        LinearLoop singular = new LinearLoop(
+                new DMatrixRMaj(new double[][] {{0, 1}, {0, 0}}),
+                new DMatrixRMaj(new double[][] {{0}, {1}}),
+                new DMatrixRMaj(new double[][] {{1, 0}}),
+                new DMatrixRMaj(new double[][] {{0, 0}}),
+                1.0);
         assertThrows(IllegalArgumentException.class, () -> new TwoStatePropagator(singular, 1.0));
-        assertThrows(IllegalArgumentException.class,
-            () -> new TwoStatePropagator(SecondOrderLoops.randomStableLoop(3L, 3, 0.5), 1.0));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> new TwoStatePropagator(SecondOrderLoops.randomStableLoop(3L, 3, 0.5), 1.0));
     }
 }

@@ -59,19 +59,19 @@ class TwoStateExponentialTest {
     @ParameterizedTest
     @CsvSource({
         // a11, a12, a21, a22, t: q^2 > 0 (distinct real), q^2 < 0 (complex), q^2 = 0 (repeated)
-        "0, 1, -4, -5, 0.3",       // eigenvalues -1, -4
+        "0, 1, -4, -5, 0.3", // eigenvalues -1, -4
         "0, 1, -4, -5, 7.0",
         "-3, 2, 1, -8, 0.05",
         "-1000, 1, 0, -0.001, 2.0", // stiff: |z| = 2.5e5, slow eigenvalue via det / fast
-        "0, 1, -629, -40, 0.001",  // the indexing-axis loop (zeta 0.8, wn 25), one sample period
+        "0, 1, -629, -40, 0.001", // the indexing-axis loop (zeta 0.8, wn 25), one sample period
         "0, 1, -629, -40, 0.2",
-        "0, 1, -100, -2, 3.0",     // lightly damped: cos / sin branch
+        "0, 1, -100, -2, 3.0", // lightly damped: cos / sin branch
         "-0.5, 3, -3, -0.5, 10.0", // rotation with decay
-        "0, 1, -100, -20, 0.37",   // critically damped companion form, q^2 = 0 exactly
-        "-2, 1, 0, -2, 1.5",       // Jordan block
-        "-2, 0, 0, -2, 1.5",       // scalar matrix, D = 0
-        "3, -1, 2, 0.5, 0.8",      // unstable is fine for the exponential itself
-        "0, 1, -1, 0, -2.0"        // negative time
+        "0, 1, -100, -20, 0.37", // critically damped companion form, q^2 = 0 exactly
+        "-2, 1, 0, -2, 1.5", // Jordan block
+        "-2, 0, 0, -2, 1.5", // scalar matrix, D = 0
+        "3, -1, 2, 0.5, 0.8", // unstable is fine for the exponential itself
+        "0, 1, -1, 0, -2.0" // negative time
     })
     void matchesPadeAndHipparchus(double a11, double a12, double a21, double a22, double t) {
         // source: EJML-based MatrixExponential (Higham's scaling and squaring), tolerance
@@ -94,14 +94,24 @@ class TwoStateExponentialTest {
         double l = -3.0;
         double t = 0.7;
         double decay = Math.exp(l * t);
-        assertClose(new double[] {decay, t * decay, 0, decay}, closedForm(new double[][] {{l, 1}, {0, l}}, t),
-            4e-16, "Jordan block");
+        assertClose(
+                new double[] {decay, t * decay, 0, decay},
+                closedForm(new double[][] {{l, 1}, {0, l}}, t),
+                4e-16,
+                "Jordan block");
         double s = -0.2;
         double w = 5.0;
         double envelope = Math.exp(s * t);
-        assertClose(new double[] {envelope * Math.cos(w * t), envelope * Math.sin(w * t),
-            -envelope * Math.sin(w * t), envelope * Math.cos(w * t)},
-            closedForm(new double[][] {{s, w}, {-w, s}}, t), 1e-15, "rotation");
+        assertClose(
+                new double[] {
+                    envelope * Math.cos(w * t),
+                    envelope * Math.sin(w * t),
+                    -envelope * Math.sin(w * t),
+                    envelope * Math.cos(w * t)
+                },
+                closedForm(new double[][] {{s, w}, {-w, s}}, t),
+                1e-15,
+                "rotation");
         // e^(A 0) = I exactly.
         double[] identity = closedForm(new double[][] {{-3, 2}, {1, -8}}, 0.0);
         assertEquals(1.0, identity[0]);
@@ -140,8 +150,9 @@ class TwoStateExponentialTest {
         // source: continuity of c(z), s(z) at |z| = SERIES_LIMIT; the reference is
         // MatrixExponential on either side.
         for (double sign : new double[] {1, -1}) {
-            for (double z : new double[] {Math.nextDown(TwoStateExponential.SERIES_LIMIT),
-                Math.nextUp(TwoStateExponential.SERIES_LIMIT)}) {
+            for (double z : new double[] {
+                Math.nextDown(TwoStateExponential.SERIES_LIMIT), Math.nextUp(TwoStateExponential.SERIES_LIMIT)
+            }) {
                 double t = 0.5;
                 double q2 = sign * z / (t * t);
                 // A = [[d, 1], [q^2 - d^2, -d]] - I has D^2 = q^2 I.
@@ -159,20 +170,19 @@ class TwoStateExponentialTest {
         // parameterised cases.
         Random random = new Random(8L);
         for (int i = 0; i < 2000; i++) {
-            double[][] a = {{random.nextGaussian(), random.nextGaussian()},
-                {random.nextGaussian(), random.nextGaussian()}};
+            double[][] a = {
+                {random.nextGaussian(), random.nextGaussian()}, {random.nextGaussian(), random.nextGaussian()}
+            };
             double t = 3 * random.nextDouble();
             double norm = t * (Math.abs(a[0][0]) + Math.abs(a[0][1]) + Math.abs(a[1][0]) + Math.abs(a[1][1]));
-            assertClose(pade(a, t), closedForm(a, t), 1e-14 * Math.max(1, norm),
-                "case " + i);
+            assertClose(pade(a, t), closedForm(a, t), 1e-14 * Math.max(1, norm), "case " + i);
         }
     }
 
     @Test
     void rejectsNonFiniteMatrices() {
         assertThrows(IllegalArgumentException.class, () -> new TwoStateExponential(Double.NaN, 0, 0, 0));
-        assertThrows(IllegalArgumentException.class,
-            () -> new TwoStateExponential(0, Double.POSITIVE_INFINITY, 0, 0));
+        assertThrows(IllegalArgumentException.class, () -> new TwoStateExponential(0, Double.POSITIVE_INFINITY, 0, 0));
         assertThrows(IllegalArgumentException.class, () -> new TwoStateExponential(1e308, 1e308, 1e308, 1e308));
     }
 }

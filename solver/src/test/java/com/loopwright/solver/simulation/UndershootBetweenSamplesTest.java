@@ -46,10 +46,12 @@ class UndershootBetweenSamplesTest {
     void undershootOfTheNonMinimumPhaseOrderFourLoopIsRefined() {
         CompanionPlant plant = new CompanionPlant(
                 new double[] {0.009078623638924007, 0.09303427763201173, 0.41839321133113727, 1.192578756140489},
-                new double[] {1.0, -0.5782773668692388, 0, 0}, 0.04340825295325368,
+                new double[] {1.0, -0.5782773668692388, 0, 0},
+                0.04340825295325368,
                 new double[] {0, 0, 0, 0.022057260905507935});
-        TargetDynamics target = new SpecInverter().invert(new DesignSpec(0.24565128665507857 / 100,
-                new TimeSpec.SettlingTime(12.039949496201748, 0.05))).target();
+        TargetDynamics target = new SpecInverter()
+                .invert(new DesignSpec(0.24565128665507857 / 100, new TimeSpec.SettlingTime(12.039949496201748, 0.05)))
+                .target();
         DesiredPoles poles = DesiredPoles.atMultiple(target, 4, DesiredPoles.DEFAULT_REAL_PART_MULTIPLE);
         HighOrderStep result = new ClosedLoopStep().simulate(plant, poles, 1.0, 0.05, 12.039949496201748);
         assertEquals(2000, result.samples());
@@ -59,7 +61,10 @@ class UndershootBetweenSamplesTest {
         // the values, to the digits it states
         assertEquals(0.389930, result.undershootPercent(), 5e-7);
         assertEquals(1.246, reference[0], 5e-4);
-        assertEquals(reference[1], result.undershootPercent(), 1e-9 * reference[1],
+        assertEquals(
+                reference[1],
+                result.undershootPercent(),
+                1e-9 * reference[1],
                 "refined undershoot vs Dormand-Prince + Brent");
         // the largest sample alone is farther off than the refinement is
         assertTrue(reference[1] - 0.389865 > 50 * Math.abs(reference[1] - result.undershootPercent()));
@@ -70,8 +75,8 @@ class UndershootBetweenSamplesTest {
         RealMatrix a = hipparchus(loop.a());
         RealMatrix bRef = hipparchus(loop.bRef());
         double[] c = loop.cOut().data.clone();
-        double finalValue = -new ArrayRealVector(c).dotProduct(
-                new LUDecomposition(a).getSolver().solve(bRef.getColumnVector(0)));
+        double finalValue = -new ArrayRealVector(c)
+                .dotProduct(new LUDecomposition(a).getSolver().solve(bRef.getColumnVector(0)));
         double dt = horizon / REFERENCE_SCAN_STEPS;
         double bestT = 0;
         double bestZ = 0;
@@ -85,9 +90,12 @@ class UndershootBetweenSamplesTest {
         if (bestT == 0) {
             return new double[] {0, 0};
         }
-        UnivariatePointValuePair min = new BrentOptimizer(1e-12, 1e-14).optimize(new MaxEval(200),
-                new UnivariateObjectiveFunction(t -> normalisedOutput(a, bRef, c, finalValue, t)), GoalType.MINIMIZE,
-                new SearchInterval(bestT - dt, bestT + dt, bestT));
+        UnivariatePointValuePair min = new BrentOptimizer(1e-12, 1e-14)
+                .optimize(
+                        new MaxEval(200),
+                        new UnivariateObjectiveFunction(t -> normalisedOutput(a, bRef, c, finalValue, t)),
+                        GoalType.MINIMIZE,
+                        new SearchInterval(bestT - dt, bestT + dt, bestT));
         return new double[] {min.getPoint(), Math.max(0, -100 * min.getValue())};
     }
 
@@ -109,7 +117,8 @@ class UndershootBetweenSamplesTest {
             }
         };
         double[] x = new DormandPrince853Integrator(1e-10, 1.0, 1e-14, 1e-14)
-                .integrate(ode, new ODEState(0, new double[n]), t).getPrimaryState();
+                .integrate(ode, new ODEState(0, new double[n]), t)
+                .getPrimaryState();
         return new ArrayRealVector(c).dotProduct(new ArrayRealVector(x)) / finalValue;
     }
 

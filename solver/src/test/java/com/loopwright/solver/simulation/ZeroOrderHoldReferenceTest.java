@@ -1,11 +1,9 @@
 package com.loopwright.solver.simulation;
 
-import com.loopwright.solver.loop.LoopMatrices;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import com.loopwright.solver.linalg.MatrixExponential;
-import com.loopwright.solver.simulation.DiscreteStateSpace;
-import com.loopwright.solver.simulation.ZeroOrderHold;
+import com.loopwright.solver.loop.LoopMatrices;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
 import org.junit.jupiter.api.Test;
@@ -20,7 +18,8 @@ class ZeroOrderHoldReferenceTest {
         for (double t : new double[] {1e-4, 0.01, 0.3, 2.5}) {
             DiscreteStateSpace hold = ZeroOrderHold.discretize(
                     LoopMatrices.openLoop(new com.loopwright.solver.plant.CanonicalPlant(0, 0, 1, 0)),
-                    new DMatrixRMaj(new double[][] {{0}, {1}}), t);
+                    new DMatrixRMaj(new double[][] {{0}, {1}}),
+                    t);
             DMatrixRMaj ad = hold.ad();
             DMatrixRMaj bd = hold.bd();
             assertEquals(1, ad.get(0, 0), 1e-15);

@@ -13,15 +13,17 @@ import org.junit.jupiter.params.provider.ValueSource;
 
 class ZeroOrderHoldTest {
 
-    private static void assertMatrixEquals(DMatrixRMaj expected, DMatrixRMaj actual,
-                                           double relativeTolerance) {
+    private static void assertMatrixEquals(DMatrixRMaj expected, DMatrixRMaj actual, double relativeTolerance) {
         assertEquals(expected.numRows, actual.numRows);
         assertEquals(expected.numCols, actual.numCols);
         for (int i = 0; i < expected.numRows; i++) {
             for (int j = 0; j < expected.numCols; j++) {
                 double want = expected.get(i, j);
-                assertEquals(want, actual.get(i, j), relativeTolerance * Math.max(1.0, Math.abs(want)),
-                    "entry (" + i + ", " + j + ")");
+                assertEquals(
+                        want,
+                        actual.get(i, j),
+                        relativeTolerance * Math.max(1.0, Math.abs(want)),
+                        "entry (" + i + ", " + j + ")");
             }
         }
     }
@@ -47,7 +49,7 @@ class ZeroOrderHoldTest {
         double b = 2.0;
         double t = 0.4;
         DiscreteStateSpace discrete = ZeroOrderHold.discretize(
-            new DMatrixRMaj(new double[][] {{a}}), new DMatrixRMaj(new double[][] {{b}}), t);
+                new DMatrixRMaj(new double[][] {{a}}), new DMatrixRMaj(new double[][] {{b}}), t);
         assertEquals(Math.exp(a * t), discrete.ad().get(0, 0), 1e-15);
         assertEquals(Math.expm1(a * t) * b / a, discrete.bd().get(0, 0), 1e-15);
     }
@@ -60,13 +62,11 @@ class ZeroOrderHoldTest {
         double w = 5.0; // rad/s
         double t = 0.37;
         DiscreteStateSpace discrete = ZeroOrderHold.discretize(
-            new DMatrixRMaj(new double[][] {{0, w}, {-w, 0}}),
-            new DMatrixRMaj(new double[][] {{0}, {1}}), t);
+                new DMatrixRMaj(new double[][] {{0, w}, {-w, 0}}), new DMatrixRMaj(new double[][] {{0}, {1}}), t);
         double c = Math.cos(w * t);
         double s = Math.sin(w * t);
         assertMatrixEquals(new DMatrixRMaj(new double[][] {{c, s}, {-s, c}}), discrete.ad(), 1e-15);
-        assertMatrixEquals(new DMatrixRMaj(new double[][] {{(1 - c) / w}, {s / w}}),
-            discrete.bd(), 1e-15);
+        assertMatrixEquals(new DMatrixRMaj(new double[][] {{(1 - c) / w}, {s / w}}), discrete.bd(), 1e-15);
     }
 
     @Test
@@ -145,26 +145,24 @@ class ZeroOrderHoldTest {
         assertThrows(IllegalArgumentException.class, () -> ZeroOrderHold.discretize(a, null, 1));
         assertThrows(IllegalArgumentException.class, () -> ZeroOrderHold.discretize(a, b, 0.0));
         assertThrows(IllegalArgumentException.class, () -> ZeroOrderHold.discretize(a, b, -1.0));
-        assertThrows(IllegalArgumentException.class,
-            () -> ZeroOrderHold.discretize(a, b, Double.NaN));
-        assertThrows(IllegalArgumentException.class,
-            () -> ZeroOrderHold.discretize(a, b, Double.POSITIVE_INFINITY));
-        assertThrows(IllegalArgumentException.class,
-            () -> ZeroOrderHold.discretize(new DMatrixRMaj(2, 3), b, 1));
-        assertThrows(IllegalArgumentException.class,
-            () -> ZeroOrderHold.discretize(a, new DMatrixRMaj(3, 1), 1));
-        assertThrows(IllegalArgumentException.class,
-            () -> ZeroOrderHold.discretize(new DMatrixRMaj(32, 32), new DMatrixRMaj(32, 1), 1));
-        assertThrows(IllegalArgumentException.class,
-            () -> ZeroOrderHold.discretize(
-                new DMatrixRMaj(new double[][] {{0, Double.NaN}, {0, 0}}), b, 1));
-        assertThrows(IllegalArgumentException.class,
-            () -> new DiscreteStateSpace(a, b, Double.NaN));
-        assertThrows(IllegalArgumentException.class,
-            () -> new DiscreteStateSpace(a, new DMatrixRMaj(new double[][] {{0}, {Double.NaN}}), 1));
+        assertThrows(IllegalArgumentException.class, () -> ZeroOrderHold.discretize(a, b, Double.NaN));
+        assertThrows(IllegalArgumentException.class, () -> ZeroOrderHold.discretize(a, b, Double.POSITIVE_INFINITY));
+        assertThrows(IllegalArgumentException.class, () -> ZeroOrderHold.discretize(new DMatrixRMaj(2, 3), b, 1));
+        assertThrows(IllegalArgumentException.class, () -> ZeroOrderHold.discretize(a, new DMatrixRMaj(3, 1), 1));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> ZeroOrderHold.discretize(new DMatrixRMaj(32, 32), new DMatrixRMaj(32, 1), 1));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> ZeroOrderHold.discretize(new DMatrixRMaj(new double[][] {{0, Double.NaN}, {0, 0}}), b, 1));
+        assertThrows(IllegalArgumentException.class, () -> new DiscreteStateSpace(a, b, Double.NaN));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> new DiscreteStateSpace(a, new DMatrixRMaj(new double[][] {{0}, {Double.NaN}}), 1));
         // e^(1000 * 1) overflows: reported, never returned as Infinity.
-        assertThrows(IllegalArgumentException.class,
-            () -> ZeroOrderHold.discretize(new DMatrixRMaj(new double[][] {{1000}}),
-                new DMatrixRMaj(new double[][] {{1}}), 1.0));
+        assertThrows(
+                IllegalArgumentException.class,
+                () -> ZeroOrderHold.discretize(
+                        new DMatrixRMaj(new double[][] {{1000}}), new DMatrixRMaj(new double[][] {{1}}), 1.0));
     }
 }
