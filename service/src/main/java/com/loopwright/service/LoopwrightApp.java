@@ -188,12 +188,23 @@ public final class LoopwrightApp {
                     404,
                     ctx -> problems.write(
                             ctx, ProblemType.NOT_FOUND.problem("no resource at this path; see GET /openapi.yaml")));
-            javalin.routes.error(
-                    405,
-                    ctx -> problems.write(
-                            ctx, ProblemType.METHOD_NOT_ALLOWED.problem("this method is not supported on this path")));
+            javalin.routes.error(405, ctx -> methodNotAllowed(ctx, table.methodsOn(paths.label(ctx.path())), problems));
             javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths));
         });
+    }
+
+    /** 405 with the Allow header (RFC 9110, section 15.5.6) and the method to use in its detail. */
+    private static void methodNotAllowed(Context ctx, List<String> allowed, ProblemResponses problems) {
+        if (allowed.isEmpty()) {
+            problems.write(ctx, ProblemType.METHOD_NOT_ALLOWED.problem("this method is not supported on this path"));
+            return;
+        }
+        String methods = String.join(", ", allowed);
+        ctx.header("Allow", methods);
+        problems.write(
+                ctx,
+                ProblemType.METHOD_NOT_ALLOWED.problem(ctx.method().name() + " is not supported on this"
+                        + " path; send " + (allowed.size() == 1 ? methods : "one of " + methods)));
     }
 
     /** Counts and logs the requests the body gate answers itself, labelled by the route their path fits. */

@@ -118,6 +118,18 @@ public final class RouteTable {
         return paths;
     }
 
+    /**
+     * The methods the table serves on a path template, in table order: the Allow header of a 405 (RFC 9110,
+     * section 15.5.6: a 405 must list the methods the target supports). Empty for a path the table does not serve.
+     */
+    public List<String> methodsOn(String template) {
+        return routes.stream()
+                .filter(route -> route.path().equals(template))
+                .map(route -> route.method().name())
+                .distinct()
+                .toList();
+    }
+
     /** Path patterns whose every request needs a key when keys are configured (e.g. "/v1/*"). */
     public Set<String> keyedScopes() {
         return keyedScopes;
