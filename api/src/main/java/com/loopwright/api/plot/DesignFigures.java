@@ -157,15 +157,15 @@ public final class DesignFigures {
         LoopMargins margins = bode.margins();
         double low = bode.lowRadPerSec();
         double high = bode.highRadPerSec();
-        double[] logW = new double[bode.size()];
-        double[] w = bode.angularFrequencyRadPerSec();
+        double[] logW = new double[bode.series().size()];
+        double[] w = bode.series().angularFrequencyRadPerSec();
         for (int i = 0; i < logW.length; i++) {
             logW[i] = Math.log10(w[i]);
         }
         double firstDecade = Math.floor(Math.log10(low));
         NiceTicks decades = new NiceTicks(firstDecade, 1, (int) (Math.ceil(Math.log10(high)) - firstDecade) + 1);
-        double[] magnitude = bode.magnitudeDecibels();
-        double[] phase = bode.phaseDegrees();
+        double[] magnitude = bode.series().magnitudeDecibels();
+        double[] phase = bode.series().phaseDegrees();
         StringBuilder svg = open(2, "Bode diagram of the loop broken at the plant input, L(s) = K (sI - A)^-1 B");
         double panelWidth = WIDTH - LEFT - RIGHT;
         SvgPanel top = new SvgPanel(

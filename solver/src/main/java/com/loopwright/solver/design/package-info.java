@@ -8,7 +8,8 @@
  * {@code SpecMatch}, {@code HighOrderStep}, {@code GammaInterval}, {@code PoleMatchedSolution}), the order-2
  * verification ({@code Verification}, {@code SpecCheck}, {@code RiccatiSolution}, {@code HInfinityNorm}), step
  * metrics, grid metrics and trajectories ({@code StepMetrics}, {@code GridMetrics}, {@code DenseTrajectory},
- * {@code DisturbanceResponse}), the frequency margins ({@code LoopMargins}, {@code FrequencyPoint}) and the
+ * {@code DisturbanceResponse}), the frequency response and margins ({@code BodeSeries}, {@code LoopMargins},
+ * {@code FrequencyPoint}) and the
  * sampled law ({@code SampledLaw}).
  *
  * <p>Invariant: a requirement on the Riccati solution has one name for every order, and gamma_min is the largest

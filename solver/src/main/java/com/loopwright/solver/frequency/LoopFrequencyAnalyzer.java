@@ -1,5 +1,6 @@
 package com.loopwright.solver.frequency;
 
+import com.loopwright.solver.design.BodeSeries;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.FrequencyPoint;
 import com.loopwright.solver.design.LoopMargins;

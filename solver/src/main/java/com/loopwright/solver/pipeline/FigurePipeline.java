@@ -1,9 +1,9 @@
 package com.loopwright.solver.pipeline;
 
+import com.loopwright.solver.design.BodeSeries;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.LoopMargins;
-import com.loopwright.solver.frequency.BodeSeries;
 import com.loopwright.solver.frequency.LoopFrequencyAnalyzer;
 import com.loopwright.solver.frequency.RationalLoop;
 import com.loopwright.solver.robustness.ParameterBox;
@@ -69,13 +69,7 @@ public final class FigurePipeline {
                 }
             }
             BodeSeries series = frequency.sample(loop, low, high, BODE_POINTS);
-            return new BodeData(
-                    series.angularFrequencyRadPerSec(),
-                    series.magnitudeDecibels(),
-                    series.phaseDegrees(),
-                    margins,
-                    low,
-                    high);
+            return new BodeData(series, margins, low, high);
         } catch (IllegalArgumentException e) {
             throw notComputable(e);
         }

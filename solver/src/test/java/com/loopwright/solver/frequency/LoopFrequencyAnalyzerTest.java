@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.design.BodeSeries;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.LoopMargins;
 import com.loopwright.solver.plant.CanonicalPlant;

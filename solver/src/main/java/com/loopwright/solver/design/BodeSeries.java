@@ -1,4 +1,4 @@
-package com.loopwright.solver.frequency;
+package com.loopwright.solver.design;
 
 /**
  * Samples of L(j w) on a logarithmic frequency grid.
