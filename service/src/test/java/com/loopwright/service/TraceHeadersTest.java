@@ -82,6 +82,15 @@ class TraceHeadersTest {
         assertEquals(400, infeasible.statusCode(), infeasible.body());
         assertTrue(infeasible.headers().firstValue(Trace.DIGEST_HEADER).isPresent());
         assertTrue(infeasible.headers().firstValue(Trace.VERSION_HEADER).isPresent());
+        // Regression: a plant with a field of another form decodes only to be refused; it was a 500 (its decoded
+        // value has no JSON form to digest) and is the 400 naming the field, without a digest.
+        HttpResponse<String> otherForm = post(
+                "/v1/designs",
+                "{\"plant\":{\"form\":\"stateSpace\",\"a\":[[0,1],[-4,-0.4]],\"b2\":[0,2],\"mass\":3},"
+                        + "\"spec\":{\"settlingTime\":0.25,\"overshootPercent\":1}}");
+        assertEquals(400, otherForm.statusCode(), otherForm.body());
+        assertTrue(otherForm.body().contains("/plant/mass"), otherForm.body());
+        assertTrue(otherForm.headers().firstValue(Trace.DIGEST_HEADER).isEmpty());
         HttpResponse<String> malformed = post("/v1/designs", "{\"plant\":");
         assertEquals(400, malformed.statusCode());
         assertTrue(malformed.headers().firstValue(Trace.DIGEST_HEADER).isEmpty());

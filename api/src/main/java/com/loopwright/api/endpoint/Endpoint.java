@@ -29,7 +29,8 @@ public interface Endpoint<Q, V, R> {
 
     /**
      * The response, knowing which build answers which request; by default {@link #respond(Object, Object)} (the
-     * runner adds the trace to a JSON body itself; a {@link Text} body states it in its own way).
+     * runner adds the trace to a JSON body itself; a {@link Text} body states it in its own way). The trace is null
+     * only for a request without a canonical form, which validation refuses.
      */
     default Object respond(V validated, R result, Trace trace) {
         return respond(validated, result);

@@ -71,10 +71,17 @@ public final class EndpointRunner {
         return run(endpoint, request);
     }
 
-    /** A decoded request: the reply states its digest, and a JSON body carries the {@link Trace}. */
+    /**
+     * A decoded request: the reply states its digest, and a JSON body carries the {@link Trace} (without a digest
+     * when the decoded value has no canonical form; {@link RequestDigest#of}).
+     */
     public <Q, V, R> Reply run(Endpoint<Q, V, R> endpoint, Q request) {
-        Trace trace = new Trace(serviceVersion, digests.of(request));
-        return answer(endpoint, request, trace).traced(trace.requestDigest());
+        String digest = digests.of(request);
+        if (digest == null) {
+            // No canonical form (validation refuses such a request): answered without a digest.
+            return answer(endpoint, request, null);
+        }
+        return answer(endpoint, request, new Trace(serviceVersion, digest)).traced(digest);
     }
 
     private <Q, V, R> Reply answer(Endpoint<Q, V, R> endpoint, Q request, Trace trace) {
@@ -99,7 +106,8 @@ public final class EndpointRunner {
             return Reply.owning(text.mediaType(), text.content().getBytes(StandardCharsets.UTF_8));
         }
         try {
-            return Reply.owning(Reply.JSON, writer.writeValueAsBytes(new Traced(response, trace)));
+            return Reply.owning(
+                    Reply.JSON, writer.writeValueAsBytes(trace == null ? response : new Traced(response, trace)));
         } catch (JsonProcessingException e) {
             NonFiniteNumberException nonFinite = NonFiniteNumberException.in(e);
             if (nonFinite == null) {

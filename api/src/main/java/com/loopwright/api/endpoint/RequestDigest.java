@@ -34,9 +34,18 @@ public final class RequestDigest {
         this.mapper = mapper;
     }
 
-    /** The digest of a decoded request record (or tree). */
+    /**
+     * The digest of a decoded request record (or tree); null when the decoded value has no JSON form (a plant
+     * that makes no one form, kept only so that validation can name its fields): such a request did not decode
+     * into a request of the contract.
+     */
     public String of(Object request) {
-        JsonNode tree = request instanceof JsonNode node ? node : mapper.valueToTree(request);
+        JsonNode tree;
+        try {
+            tree = request instanceof JsonNode node ? node : mapper.valueToTree(request);
+        } catch (IllegalArgumentException notWritable) {
+            return null;
+        }
         JsonNode value = tree == null ? com.fasterxml.jackson.databind.node.NullNode.getInstance() : tree;
         return digest(out -> write(out, value));
     }

@@ -165,7 +165,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                         Locale.ROOT,
                         "rise time (10-90%%) %.6g s",
                         ((TimeSpec.RiseTime) report.spec().timeSpec()).seconds());
-        List<String> lines = new ArrayList<>(trace.headerLines());
+        List<String> lines = new ArrayList<>(trace == null ? List.of() : trace.headerLines());
         lines.addAll(List.of(
                 "Plant: x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w with a0 = " + p.a0() + ", a1 = " + p.a1() + ", b = "
                         + p.b() + ", d = " + p.d(),
