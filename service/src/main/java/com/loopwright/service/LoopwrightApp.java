@@ -6,6 +6,7 @@ import static io.javalin.http.HandlerType.POST;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.EndpointRunner;
+import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.fit.FitEndpoint;
 import com.loopwright.api.highorder.HighOrderEndpoint;
 import com.loopwright.api.json.StrictJson;
@@ -75,7 +76,8 @@ public final class LoopwrightApp {
     /** With a replaceable reaction to an OutOfMemoryError (tests record it instead of halting the JVM). */
     public static Javalin create(ServiceConfig config, Designs computation, FatalErrors fatal) {
         ObjectMapper mapper = StrictJson.newMapper();
-        Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(mapper) : computation, fatal);
+        EndpointRunner runner = new EndpointRunner(mapper, config.serviceVersion());
+        Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(runner) : computation, fatal);
         ProblemResponses problems = new ProblemResponses(mapper);
         ComputePool pool =
                 new ComputePool(config.workerThreads(), config.queueCapacity(), config.computeDeadlineMillis());
@@ -87,7 +89,6 @@ public final class LoopwrightApp {
         JsonExchangeRoute design = JsonExchangeRoute.encoded(
                 problems, pool, designs::design, outcome -> metrics.design(Metrics.outcomeOf(outcome)));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
-        EndpointRunner runner = new EndpointRunner(mapper);
         // A JSON-to-JSON endpoint on the compute pool, its fatal errors guarded: one call per route-table row.
         Function<Endpoint<?, ?, ?>, JsonExchangeRoute> json = endpoint ->
                 new JsonExchangeRoute(problems, pool, fatal.guard((byte[] body) -> runner.run(endpoint, body)));
@@ -168,6 +169,7 @@ public final class LoopwrightApp {
                 String requestId = RequestIds.accept(ctx.header(RequestIds.HEADER));
                 MDC.put(RequestIds.MDC_KEY, requestId);
                 ctx.header(RequestIds.HEADER, requestId);
+                ctx.header(Trace.VERSION_HEADER, config.serviceVersion());
                 SecurityHeaders.apply(ctx);
                 cors.decorate(ctx);
                 access.refuseWithheld(ctx);

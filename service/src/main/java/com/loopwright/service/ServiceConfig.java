@@ -1,5 +1,6 @@
 package com.loopwright.service;
 
+import com.loopwright.api.endpoint.ServiceVersion;
 import com.loopwright.service.http.HttpLimits;
 import java.io.IOException;
 import java.io.UncheckedIOException;
@@ -34,6 +35,9 @@ import java.util.Map;
  *                            default 20000)
  * @param http                limits of the HTTP layer: request threads, in-flight body bytes, minimum body rate,
  *                            idle timeout ({@link HttpLimits})
+ * @param serviceVersion      the version every response states: the project version the build stamped
+ *                            ({@link ServiceVersion#fromBuild}), not an environment variable; tests that record
+ *                            answers fix it with {@link #withServiceVersion}
  */
 public record ServiceConfig(
         int port,
@@ -46,7 +50,8 @@ public record ServiceConfig(
         List<String> corsOrigins,
         String logFormat,
         long shutdownGraceMillis,
-        HttpLimits http) {
+        HttpLimits http,
+        String serviceVersion) {
 
     public static final int DEFAULT_PORT = 8080;
     public static final long DEFAULT_MAX_REQUEST_BYTES = 1L << 20;
@@ -115,6 +120,9 @@ public record ServiceConfig(
         if (shutdownGraceMillis < 0 || shutdownGraceMillis > 600_000) {
             throw new IllegalArgumentException("shutdown grace must be from 0 to 600000 ms: " + shutdownGraceMillis);
         }
+        if (serviceVersion == null || serviceVersion.isBlank()) {
+            throw new IllegalArgumentException("the service version must be stated");
+        }
         if (http.inFlightBodyBytes() < maxRequestBytes) {
             throw new IllegalArgumentException("in-flight body bytes (" + http.inFlightBodyBytes()
                     + ") must hold at least one body of the request cap (" + maxRequestBytes + ")");
@@ -161,7 +169,8 @@ public record ServiceConfig(
                                 "LOOPWRIGHT_MIN_BODY_BYTES_PER_S",
                                 HttpLimits.DEFAULT_MIN_BODY_BYTES_PER_SECOND),
                         parse(environment, "LOOPWRIGHT_BODY_GRACE_MS", HttpLimits.DEFAULT_BODY_GRACE_MILLIS),
-                        parse(environment, "LOOPWRIGHT_IDLE_TIMEOUT_MS", HttpLimits.DEFAULT_IDLE_TIMEOUT_MILLIS)));
+                        parse(environment, "LOOPWRIGHT_IDLE_TIMEOUT_MS", HttpLimits.DEFAULT_IDLE_TIMEOUT_MILLIS)),
+                ServiceVersion.fromBuild());
     }
 
     public ServiceConfig withApiKeys(List<String> keys) {
@@ -176,7 +185,25 @@ public record ServiceConfig(
                 corsOrigins,
                 logFormat,
                 shutdownGraceMillis,
-                http);
+                http,
+                serviceVersion);
+    }
+
+    /** The same settings answering as {@code version} (tests that record answers fix the version). */
+    public ServiceConfig withServiceVersion(String version) {
+        return new ServiceConfig(
+                port,
+                maxRequestBytes,
+                workerThreads,
+                queueCapacity,
+                computeDeadlineMillis,
+                maxBatchItems,
+                apiKeys,
+                corsOrigins,
+                logFormat,
+                shutdownGraceMillis,
+                http,
+                version);
     }
 
     /** Every setting by its variable name, with API keys masked (only their count is shown). */

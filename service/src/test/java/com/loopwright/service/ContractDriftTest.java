@@ -72,7 +72,7 @@ class ContractDriftTest {
 
     @Test
     void fitResponseSchemaMatchesTheFitResponseRecords() {
-        assertRecordMatchesSchema(FitResponse.class, contract.component("FitResponse"), "FitResponse");
+        assertTracedResponseMatchesSchema(FitResponse.class, contract.component("FitResponse"), "FitResponse");
     }
 
     @Test
@@ -114,7 +114,7 @@ class ContractDriftTest {
     void highOrderSchemasMatchTheHighOrderRecords() {
         assertRecordMatchesSchema(
                 HighOrderDesignRequest.class, contract.component("HighOrderDesignRequest"), "HighOrderDesignRequest");
-        assertRecordMatchesSchema(
+        assertTracedResponseMatchesSchema(
                 HighOrderDesignResponse.class,
                 contract.component("HighOrderDesignResponse"),
                 "HighOrderDesignResponse");
@@ -168,8 +168,8 @@ class ContractDriftTest {
 
     @Test
     void responseSchemaMatchesTheResponseRecords() {
-        assertRecordMatchesSchema(DesignResponse.class, contract.component("DesignResponse"), "DesignResponse");
-        assertRecordMatchesSchema(
+        assertTracedResponseMatchesSchema(DesignResponse.class, contract.component("DesignResponse"), "DesignResponse");
+        assertTracedResponseMatchesSchema(
                 VerificationResponse.class, contract.component("VerificationResponse"), "VerificationResponse");
     }
 
@@ -416,7 +416,7 @@ class ContractDriftTest {
         assertRecordMatchesSchema(PlotRequest.class, contract.component("PlotRequest"), "PlotRequest");
         assertRecordMatchesSchema(
                 ControllerRequest.class, contract.component("ControllerRequest"), "ControllerRequest");
-        assertRecordMatchesSchema(
+        assertTracedResponseMatchesSchema(
                 ControllerParameters.class, contract.component("ControllerParameters"), "ControllerParameters");
         Map<String, Double> expected = Map.of(
                 "ControllerRequest/properties/samplePeriodSeconds/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS,
@@ -449,6 +449,26 @@ class ContractDriftTest {
     }
 
     /** Record components and schema properties must be the same names, recursively. */
+    /**
+     * A JSON response the endpoint runner writes: the record's members and the required member {@code trace} that
+     * the runner adds (schema Trace, which matches the record api.endpoint.Trace).
+     */
+    private void assertTracedResponseMatchesSchema(Class<?> type, JsonNode schema, String where) {
+        com.fasterxml.jackson.databind.node.ObjectNode copy =
+                (com.fasterxml.jackson.databind.node.ObjectNode) resolve(schema).deepCopy();
+        assertEquals(
+                "#/components/schemas/Trace", copy.at("/properties/trace/$ref").asText(), where + " has a trace");
+        boolean required = false;
+        for (JsonNode name : copy.path("required")) {
+            required |= name.asText().equals("trace");
+        }
+        assertTrue(required, where + " requires its trace");
+        ((com.fasterxml.jackson.databind.node.ObjectNode) copy.get("properties")).remove("trace");
+        assertRecordMatchesSchema(type, copy, where);
+        assertRecordMatchesSchema(
+                com.loopwright.api.endpoint.Trace.class, contract.component("Trace"), where + ".trace");
+    }
+
     private void assertRecordMatchesSchema(Class<?> type, JsonNode schema, String where) {
         schema = resolve(schema);
         Set<String> components = new TreeSet<>();

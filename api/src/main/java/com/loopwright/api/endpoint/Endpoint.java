@@ -27,6 +27,15 @@ public interface Endpoint<Q, V, R> {
     /** The response: a record written as JSON through the finite-number guard, or a {@link Text} body. */
     Object respond(V validated, R result);
 
+    /**
+     * The response, knowing which build answers which request; by default {@link #respond(Object, Object)} (the
+     * runner adds the trace to a JSON body itself; a {@link Text} body states it in its own way). The trace is null
+     * only for a request without a canonical form, which validation refuses.
+     */
+    default Object respond(V validated, R result, Trace trace) {
+        return respond(validated, result);
+    }
+
     /** The problem for a NaN or an infinity met while writing the JSON response, at {@code pointer}. */
     Problem nonFinite(String pointer);
 

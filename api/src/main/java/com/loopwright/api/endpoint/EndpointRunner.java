@@ -23,11 +23,28 @@ public final class EndpointRunner {
 
     private final ObjectMapper reader;
     private final ObjectMapper writer;
+    private final RequestDigest digests;
+    private final String serviceVersion;
 
-    /** @param strict the strict request mapper (StrictJson); responses are written by its finite-number copy */
+    /** With the version this build was stamped with ({@link ServiceVersion#fromBuild}). */
     public EndpointRunner(ObjectMapper strict) {
+        this(strict, ServiceVersion.fromBuild());
+    }
+
+    /**
+     * @param strict         the strict request mapper (StrictJson); responses are written by its finite-number copy
+     * @param serviceVersion the version every answer states ({@link Trace})
+     */
+    public EndpointRunner(ObjectMapper strict, String serviceVersion) {
         this.reader = strict;
         this.writer = FiniteNumbersModule.responseWriter(strict);
+        this.digests = new RequestDigest(strict);
+        this.serviceVersion = java.util.Objects.requireNonNull(serviceVersion, "serviceVersion");
+    }
+
+    /** The version every answer states. */
+    public String serviceVersion() {
+        return serviceVersion;
     }
 
     /** A raw request body. */
@@ -54,30 +71,43 @@ public final class EndpointRunner {
         return run(endpoint, request);
     }
 
-    /** A decoded request. */
+    /**
+     * A decoded request: the reply states its digest, and a JSON body carries the {@link Trace} (without a digest
+     * when the decoded value has no canonical form; {@link RequestDigest#of}).
+     */
     public <Q, V, R> Reply run(Endpoint<Q, V, R> endpoint, Q request) {
+        String digest = digests.of(request);
+        if (digest == null) {
+            // No canonical form (validation refuses such a request): answered without a digest.
+            return answer(endpoint, request, null);
+        }
+        return answer(endpoint, request, new Trace(serviceVersion, digest)).traced(digest);
+    }
+
+    private <Q, V, R> Reply answer(Endpoint<Q, V, R> endpoint, Q request, Trace trace) {
         V validated = null;
         Object response;
         try {
             validated = endpoint.validate(request);
             R result = endpoint.compute(validated);
             try {
-                response = endpoint.respond(validated, result);
+                response = endpoint.respond(validated, result, trace);
             } catch (IllegalArgumentException e) {
                 return Reply.failure(endpoint.unwritable(e));
             }
         } catch (InvalidRequestException | PlantParameterException | SolverFailure e) {
             return Reply.failure(FailureTable.toProblem(e, endpoint.failureContext(validated)));
         }
-        return write(endpoint, response);
+        return write(endpoint, response, trace);
     }
 
-    private Reply write(Endpoint<?, ?, ?> endpoint, Object response) {
+    private Reply write(Endpoint<?, ?, ?> endpoint, Object response, Trace trace) {
         if (response instanceof Text text) {
             return Reply.owning(text.mediaType(), text.content().getBytes(StandardCharsets.UTF_8));
         }
         try {
-            return Reply.owning(Reply.JSON, writer.writeValueAsBytes(response));
+            return Reply.owning(
+                    Reply.JSON, writer.writeValueAsBytes(trace == null ? response : new Traced(response, trace)));
         } catch (JsonProcessingException e) {
             NonFiniteNumberException nonFinite = NonFiniteNumberException.in(e);
             if (nonFinite == null) {

@@ -25,12 +25,14 @@ public final class Reply {
     private final String mediaType;
     private final byte[] body;
     private final Problem problem;
+    private final String requestDigest;
 
-    private Reply(int status, String mediaType, byte[] body, Problem problem) {
+    private Reply(int status, String mediaType, byte[] body, Problem problem, String requestDigest) {
         this.status = status;
         this.mediaType = mediaType;
         this.body = body;
         this.problem = problem;
+        this.requestDigest = requestDigest;
     }
 
     /** A 200 body (copied). */
@@ -41,11 +43,21 @@ public final class Reply {
     /** A 200 body the runner has just written and nobody else holds. */
     static Reply owning(String mediaType, byte[] body) {
         return new Reply(
-                200, Objects.requireNonNull(mediaType, "mediaType"), Objects.requireNonNull(body, "body"), null);
+                200, Objects.requireNonNull(mediaType, "mediaType"), Objects.requireNonNull(body, "body"), null, null);
     }
 
     public static Reply failure(Problem problem) {
-        return new Reply(problem.status(), Problem.MEDIA_TYPE, null, Objects.requireNonNull(problem, "problem"));
+        return new Reply(problem.status(), Problem.MEDIA_TYPE, null, Objects.requireNonNull(problem, "problem"), null);
+    }
+
+    /** The same reply, stating the digest of the request it answers ({@link RequestDigest}). */
+    public Reply traced(String digest) {
+        return new Reply(status, mediaType, body, problem, Objects.requireNonNull(digest, "digest"));
+    }
+
+    /** {@link RequestDigest} of the decoded request, or null when the request did not decode. */
+    public String requestDigest() {
+        return requestDigest;
     }
 
     /** HTTP status. */
@@ -100,17 +112,18 @@ public final class Reply {
                 && status == o.status
                 && Objects.equals(mediaType, o.mediaType)
                 && Arrays.equals(body, o.body)
-                && Objects.equals(problem, o.problem);
+                && Objects.equals(problem, o.problem)
+                && Objects.equals(requestDigest, o.requestDigest);
     }
 
     @Override
     public int hashCode() {
-        return Objects.hash(status, mediaType, Arrays.hashCode(body), problem);
+        return Objects.hash(status, mediaType, Arrays.hashCode(body), problem, requestDigest);
     }
 
     @Override
     public String toString() {
         return "Reply[status=" + status + ", mediaType=" + mediaType + ", bytes=" + (body == null ? 0 : body.length)
-                + ", problem=" + problem + "]";
+                + ", problem=" + problem + ", requestDigest=" + requestDigest + "]";
     }
 }

@@ -6,6 +6,7 @@ import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.endpoint.FailureTable;
 import com.loopwright.api.endpoint.Text;
+import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.robustness.RobustnessResponse;
@@ -90,13 +91,19 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
 
     @Override
     public Object respond(Validated validated, ControllerExport export) {
+        throw new UnsupportedOperationException("an exported controller states its trace: respond with the trace");
+    }
+
+    /** The code's header states the service version and the request digest first; the parameter set its trace. */
+    @Override
+    public Object respond(Validated validated, ControllerExport export, Trace trace) {
         return switch (format) {
             case "structured-text" ->
                 new Text(
                         STRUCTURED_TEXT,
-                        exports.structuredText(export, TITLE, headerLines(validated, export), Cautions.ALL));
+                        exports.structuredText(export, TITLE, headerLines(validated, export, trace), Cautions.ALL));
             case "c" ->
-                new Text(C_SOURCE, exports.cSource(export, TITLE, headerLines(validated, export), Cautions.ALL));
+                new Text(C_SOURCE, exports.cSource(export, TITLE, headerLines(validated, export, trace), Cautions.ALL));
             default -> parameters(export);
         };
     }
@@ -144,8 +151,8 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                 Cautions.ALL);
     }
 
-    /** The header's lines: the plant, the specs, the target, the continuous and the sampled step. */
-    private static List<String> headerLines(Validated validated, ControllerExport export) {
+    /** The header's lines: the build and request, the plant, the specs, the target, the continuous and sampled step. */
+    private static List<String> headerLines(Validated validated, ControllerExport export, Trace trace) {
         DesignReport report = export.design();
         SampledLaw law = export.law();
         Optional<GridMetrics> sampledStep = export.sampledStep();
@@ -158,7 +165,8 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                         Locale.ROOT,
                         "rise time (10-90%%) %.6g s",
                         ((TimeSpec.RiseTime) report.spec().timeSpec()).seconds());
-        List<String> lines = List.of(
+        List<String> lines = new ArrayList<>(trace == null ? List.of() : trace.headerLines());
+        lines.addAll(List.of(
                 "Plant: x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w with a0 = " + p.a0() + ", a1 = " + p.a1() + ", b = "
                         + p.b() + ", d = " + p.d(),
                 String.format(
@@ -191,7 +199,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                                 m.peakControl()))
                         .orElse("Simulated (sampled): not simulated (the sampled loop diverges or the period is too"
                                 + " short to simulate over the horizon)"),
-                "Certified: " + report.verification().certified());
+                "Certified: " + report.verification().certified()));
         return lines;
     }
 

@@ -12,8 +12,14 @@ public final class ExchangeDesigns implements Designs {
     private final EndpointRunner runner;
     private final DesignEndpoint endpoint = new DesignEndpoint();
 
+    /** Answering as the version the build stamped. */
     public ExchangeDesigns(ObjectMapper mapper) {
-        this.runner = new EndpointRunner(mapper);
+        this(new EndpointRunner(mapper));
+    }
+
+    /** Through the given runner (which states the service version). */
+    public ExchangeDesigns(EndpointRunner runner) {
+        this.runner = runner;
     }
 
     @Override

@@ -5,6 +5,8 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.design.ComputeBudget;
 import com.loopwright.api.endpoint.Reply;
+import com.loopwright.api.endpoint.RequestDigest;
+import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
@@ -60,6 +62,7 @@ public final class BatchRoute implements Handler {
     private final int maxItems;
     private final ComputeBudget budget = new ComputeBudget();
     private final StreamCuts cuts;
+    private final RequestDigest digests;
 
     public BatchRoute(
             ObjectMapper mapper,
@@ -76,6 +79,7 @@ public final class BatchRoute implements Handler {
         this.metrics = metrics;
         this.maxItems = maxItems;
         this.cuts = cuts;
+        this.digests = new RequestDigest(mapper);
     }
 
     @Override
@@ -114,6 +118,8 @@ public final class BatchRoute implements Handler {
                             "every design worker is busy; retry after " + ComputePool.RETRY_AFTER_SECONDS + " s"));
             return;
         }
+        // The envelope's digest (each item's own digest is in its line's design trace).
+        ctx.header(Trace.DIGEST_HEADER, digests.ofItems(items.size(), items::item));
         ctx.status(200).contentType(MEDIA_TYPE);
         // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
         OutputStream out = ctx.res().getOutputStream();

@@ -1,6 +1,7 @@
 package com.loopwright.service.routes;
 
 import com.loopwright.api.endpoint.Reply;
+import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.http.JsonBodies;
@@ -59,6 +60,9 @@ public final class JsonExchangeRoute implements Handler {
         byte[] body = ctx.bodyAsBytes();
         Reply outcome = pool.run(() -> exchange.apply(body), Reply::failure);
         afterwards.accept(outcome);
+        if (outcome.requestDigest() != null) {
+            ctx.header(Trace.DIGEST_HEADER, outcome.requestDigest());
+        }
         if (!outcome.ok()) {
             if (outcome.status() == 503) {
                 ctx.header("Retry-After", String.valueOf(ComputePool.RETRY_AFTER_SECONDS));

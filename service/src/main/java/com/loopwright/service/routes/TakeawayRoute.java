@@ -1,6 +1,7 @@
 package com.loopwright.service.routes;
 
 import com.loopwright.api.endpoint.Reply;
+import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.http.JsonBodies;
@@ -45,6 +46,9 @@ public final class TakeawayRoute implements Handler {
         String value = ctx.pathParam(parameter);
         byte[] body = ctx.bodyAsBytes();
         Reply takeaway = pool.run(() -> work.apply(value, body), Reply::failure);
+        if (takeaway.requestDigest() != null) {
+            ctx.header(Trace.DIGEST_HEADER, takeaway.requestDigest());
+        }
         if (!takeaway.ok()) {
             if (takeaway.status() == 503) {
                 ctx.header("Retry-After", String.valueOf(ComputePool.RETRY_AFTER_SECONDS));

@@ -75,6 +75,9 @@ class GoldenCorpusTest {
 
     private static final ObjectMapper JSON = new ObjectMapper();
 
+    /** The service version the recorded answers state (not the build's, which changes every release). */
+    static final String RECORDED_VERSION = "0.0.0-golden";
+
     private static Javalin open;
     private static Javalin keyed;
     private static final HttpClient HTTP = HttpClient.newBuilder()
@@ -86,10 +89,14 @@ class GoldenCorpusTest {
     static void start() {
         // A long deadline: a slow CI machine must not turn a recorded 200 into a 504.
         Map<String, String> base = Map.of("LOOPWRIGHT_PORT", "0", "LOOPWRIGHT_COMPUTE_DEADLINE_MS", "120000");
-        open = LoopwrightApp.create(ServiceConfig.fromEnvironment(base)).start("127.0.0.1", 0);
+        // A fixed version through the configuration the jar uses, so that the recorded bytes do not change with
+        // every release (the version itself comes from the build: ServiceVersionTest).
+        open = LoopwrightApp.create(ServiceConfig.fromEnvironment(base).withServiceVersion(RECORDED_VERSION))
+                .start("127.0.0.1", 0);
         Map<String, String> withKeys = new LinkedHashMap<>(base);
         withKeys.put("LOOPWRIGHT_API_KEYS", GoldenCase.KEY);
-        keyed = LoopwrightApp.create(ServiceConfig.fromEnvironment(withKeys)).start("127.0.0.1", 0);
+        keyed = LoopwrightApp.create(ServiceConfig.fromEnvironment(withKeys).withServiceVersion(RECORDED_VERSION))
+                .start("127.0.0.1", 0);
     }
 
     @AfterAll
