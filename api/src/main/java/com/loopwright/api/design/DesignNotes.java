@@ -144,7 +144,7 @@ public record DesignNotes(List<String> texts, List<String> codes) {
                     String.format(
                             Locale.US,
                             "The peak command, %.4g, is %.3g times the plant's own command scale for this step,"
-                                    + " %.4g ((|a0| + |a1| wp + wp^2)/|b| with wp = max(sqrt|a0|, |a1|) = %.4g rad/s,"
+                                    + " %.4g ((|a0| + |a1| wp + wp^2)/|b| with wp = sqrt|a0| = %.4g rad/s,"
                                     + " times |stepSize|): the spec asks for a loop far faster than the plant moves"
                                     + " by itself. Check the units of the coefficients and the time spec.",
                             peakCommand,
@@ -170,18 +170,18 @@ public record DesignNotes(List<String> texts, List<String> codes) {
     }
 
     /**
-     * The plant's own frequency wp = max(sqrt|a0|, |a1|) [rad/s]: the pace at which its stiffness or its damping
-     * moves it without a controller (0 for a pure double integrator, which has no pace of its own).
+     * The plant's own frequency wp = sqrt|a0| [rad/s], set by its stiffness (0 without stiffness: an axis with only
+     * inertia and friction has no pace of its own to compare a command with).
      */
     static double ownFrequency(CanonicalPlant plant) {
-        return Math.max(Math.sqrt(Math.abs(plant.a0())), Math.abs(plant.a1()));
+        return Math.sqrt(Math.abs(plant.a0()));
     }
 
     /**
-     * The plant's own command scale per unit step, (|a0| + |a1| wp + wp^2)/|b|: the command that drives a unit
-     * step through its stiffness, its damping and an acceleration at its own pace wp. The target's wn would not
-     * do: the pole-matched law starts at u(0+) = kr r = wn^2 r/b, so a scale built on wn never sees a spec that
-     * is too fast for the plant.
+     * The plant's own command scale per unit step, (|a0| + |a1| wp + wp^2)/|b| with wp = sqrt|a0|: the command that
+     * holds a unit step against the stiffness, plus the damping and acceleration terms of a move at the plant's own
+     * natural frequency. The target's wn would not do: the pole-matched law starts at u(0+) = kr r = wn^2 r/b, so a
+     * scale built on wn never sees a spec that is too fast for the plant. 0 when a0 = 0 (no note then).
      */
     static double plantCommandScale(CanonicalPlant plant) {
         double wp = ownFrequency(plant);

@@ -115,22 +115,23 @@ class DesignAdviceTest {
 
     @Test
     void aSpecFarFasterThanThePlantIsNotedAgainstThePlantsOwnScale() {
-        // a slow axis, a1 = 0.01 1/s, asked to settle in 0.1 s: wn about 58 rad/s
-        Answer fast = Answer.design(request(0, 0.01, 4, 0.1));
+        // a soft spring, a0 = 0.01 1/s^2 (wp = 0.1 rad/s), asked to settle in 0.1 s: wn about 58 rad/s
+        Answer fast = Answer.design(request(0.01, 0, 4, 0.1));
         assertEquals(200, fast.status(), fast.text());
         double peak = fast.body().get("simulated").get("peakControl").asDouble();
-        // own scale: wp = |a1| = 0.01, (|a0| + |a1| wp + wp^2)/|b| = 2e-4 per unit step (hand computed)
-        double scale = 2e-4;
+        // own scale: (|a0| + |a1| wp + wp^2)/|b| = (0.01 + 0 + 0.01)/1 = 0.02 per unit step (hand computed)
+        double scale = 0.02;
         assertEquals(
                 scale,
-                DesignNotes.plantCommandScale(new com.loopwright.solver.plant.CanonicalPlant(0, 0.01, 1, 1)),
-                1e-18);
+                DesignNotes.plantCommandScale(new com.loopwright.solver.plant.CanonicalPlant(0.01, 0, 1, 1)),
+                1e-15);
         assertTrue(peak > 1e3 * scale);
         assertTrue(note(fast, DesignNotes.PEAK_COMMAND_ABOVE_PLANT_SCALE).contains("times the plant's own"));
-        // the same spec on a plant of its own pace (a1 = 1): peak about wn^2 = 34, scale 2: no note
-        assertFalse(codes(Answer.design(request(0, 1, 4, 1))).contains(DesignNotes.PEAK_COMMAND_ABOVE_PLANT_SCALE));
-        // a pure double integrator has no pace of its own: no scale, no note
-        assertFalse(codes(Answer.design(request(0, 0, 4, 0.1))).contains(DesignNotes.PEAK_COMMAND_ABOVE_PLANT_SCALE));
+        // a plant with a pace near the spec's (a0 = 1, a1 = 1; peak about wn^2 = 34, scale 3): no note
+        assertFalse(codes(Answer.design(request(1, 1, 4, 1))).contains(DesignNotes.PEAK_COMMAND_ABOVE_PLANT_SCALE));
+        // no stiffness (a0 = 0): no pace of its own, no scale, no note, however fast the spec
+        assertFalse(
+                codes(Answer.design(request(0, 0.01, 4, 0.1))).contains(DesignNotes.PEAK_COMMAND_ABOVE_PLANT_SCALE));
     }
 
     @Test
