@@ -14,6 +14,15 @@ import java.util.List;
 /** Solver results to the wire records of POST /v1/designs. */
 public final class DesignResponseMapper {
 
+    /** The response of a design without robustness checks to feed the sanity notes. */
+    public DesignResponse toResponse(
+            ValidatedDesign request,
+            DesignReport report,
+            StateSpaceDesign callerCoordinates,
+            com.loopwright.api.robustness.RobustnessResponse robustness) {
+        return toResponse(request, report, callerCoordinates, robustness, null);
+    }
+
     /**
      * @param callerCoordinates the design in the caller's state-space coordinates (null unless the plant was given
      *                          as a state space)
