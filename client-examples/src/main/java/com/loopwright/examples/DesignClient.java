@@ -199,6 +199,7 @@ public final class DesignClient {
             }
             boolean inString = false;
             int open = -1;
+            int depth = 0;
             for (int i = start.end(); i < json.length() && objects.size() < MAX_LISTED; i++) {
                 char c = json.charAt(i);
                 if (inString) {
@@ -210,11 +211,14 @@ public final class DesignClient {
                 } else if (c == '"') {
                     inString = true;
                 } else if (c == '{') {
-                    open = i;
-                } else if (c == '}' && open >= 0) {
-                    objects.add(json.substring(open, i + 1));
-                    open = -1;
-                } else if (c == ']') {
+                    if (depth++ == 0) {
+                        open = i;
+                    }
+                } else if (c == '}' && depth > 0) {
+                    if (--depth == 0) { // an item's own closing brace, not a nested object's
+                        objects.add(json.substring(open, i + 1));
+                    }
+                } else if (c == ']' && depth == 0) {
                     break;
                 }
             }

@@ -12,6 +12,7 @@ import com.loopwright.api.robustness.VerifyInputValidator;
 import com.loopwright.api.robustness.VerifyLimits;
 import com.loopwright.api.validation.FieldLimits;
 import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.validation.SpecInput;
 import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.pipeline.DesignPipeline;
@@ -47,8 +48,10 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
      * @param verify       the robustness checks, or null when not asked for (or invalid)
      * @param verifyErrors the field errors of the verify object; reported after the design is found feasible, as
      *                     the contract orders them (an infeasible spec is named first)
+     * @param sentSpec     the spec object as sent (the proposals of an infeasible spec return it amended)
      */
-    public record Validated(ValidatedDesign design, ValidatedVerify verify, List<FieldError> verifyErrors) {
+    public record Validated(
+            ValidatedDesign design, ValidatedVerify verify, List<FieldError> verifyErrors, SpecInput sentSpec) {
         public Validated {
             verifyErrors = List.copyOf(verifyErrors);
         }
@@ -70,11 +73,11 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     public Validated validate(DesignRequest request) {
         ValidatedDesign design = validator.validate(request);
         if (request.verify() == null) {
-            return new Validated(design, null, List.of());
+            return new Validated(design, null, List.of(), request.spec());
         }
         List<FieldError> errors = new ArrayList<>();
         ValidatedVerify verify = verifyValidator.validate(request.verify(), design.plant(), VERIFY_POINTER, errors);
-        return new Validated(design, verify, verify == null ? VerifyLimits.capped(errors) : List.of());
+        return new Validated(design, verify, verify == null ? VerifyLimits.capped(errors) : List.of(), request.spec());
     }
 
     @Override
@@ -120,7 +123,11 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                     verify.options().seriesPoints());
         }
         return responses.toResponse(
-                validated.design(), result.report(), result.callerCoordinates(), robustnessResponse);
+                validated.design(),
+                result.report(),
+                result.callerCoordinates(),
+                robustnessResponse,
+                validated.verify() == null ? null : validated.verify().options());
     }
 
     @Override
@@ -133,7 +140,9 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     public FailureContext failureContext(Validated validated) {
         return validated == null
                 ? FailureContext.ROOT
-                : FailureContext.ROOT.withTimeSpec(validated.design().timeSpecPointer());
+                : FailureContext.ROOT
+                        .withTimeSpec(validated.design().timeSpecPointer())
+                        .withSentSpec(validated.sentSpec());
     }
 
     private static FeedbackGains gains(ClosedFormDesign design) {

@@ -11,9 +11,11 @@ import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.validation.SpecInput;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.OvershootDamping;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 
 /** Checks presence, finiteness, ranges and exclusive choices of a design request; reports every offending field. */
 public final class DesignRequestValidator {
@@ -42,13 +44,7 @@ public final class DesignRequestValidator {
             errors.add(new FieldError("/spec", "required"));
             throw new InvalidRequestException(errors);
         }
-        Checks.range(
-                errors,
-                "/spec/overshootPercent",
-                spec.overshootPercent(),
-                MIN_OVERSHOOT_PERCENT,
-                MAX_OVERSHOOT_PERCENT,
-                true);
+        overshoot(errors, spec.overshootPercent());
         boolean settling = spec.settlingTime() != null;
         boolean rise = spec.riseTime() != null;
         if (settling && rise) {
@@ -94,4 +90,48 @@ public final class DesignRequestValidator {
                 settling ? "/spec/settlingTime" : "/spec/riseTime",
                 resolved);
     }
+
+    /**
+     * Range check of the overshoot, with advice for the two commonest mistakes: zero (the exact overshoot formula
+     * needs zeta &lt; 1) and a fraction typed as a percentage.
+     */
+    static void overshoot(List<FieldError> errors, Double overshootPercent) {
+        String pointer = "/spec/overshootPercent";
+        List<FieldError> found = new ArrayList<>(1);
+        Checks.range(found, pointer, overshootPercent, MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT, true);
+        if (found.isEmpty() || overshootPercent == null || !Double.isFinite(overshootPercent)) {
+            errors.addAll(found);
+            return;
+        }
+        String range = found.get(0).detail();
+        if (overshootPercent == 0) {
+            errors.add(new FieldError(
+                    pointer,
+                    range
+                            + String.format(
+                                    Locale.US,
+                                    ". 0 %% asks for a critically damped loop (damping ratio 1), which has no overshoot"
+                                            + " to match: the exact overshoot formula OS = exp(-pi zeta/sqrt(1 - zeta^2))"
+                                            + " needs zeta < 1. Give the largest overshoot you accept; the smallest"
+                                            + " accepted, %s %%, means damping ratio %.3g (0.1 %% means %.3g)",
+                                    Checks.fmt(MIN_OVERSHOOT_PERCENT),
+                                    OvershootDamping.dampingRatio(MIN_OVERSHOOT_PERCENT / 100),
+                                    OvershootDamping.dampingRatio(FRACTION_SUSPECT_PERCENT / 100))));
+        } else if (overshootPercent > 0 && overshootPercent < MIN_OVERSHOOT_PERCENT) {
+            errors.add(new FieldError(
+                    pointer,
+                    range
+                            + String.format(
+                                    Locale.US,
+                                    ". The value is in percent: %s looks like a fraction typed as a percentage (as a"
+                                            + " fraction it is %s %%; send that number instead)",
+                                    overshootPercent,
+                                    Checks.fmt(100 * overshootPercent))));
+        } else {
+            errors.addAll(found);
+        }
+    }
+
+    /** Overshoots below this percentage read like a fraction typed as a percentage. */
+    static final double FRACTION_SUSPECT_PERCENT = 0.1;
 }

@@ -7,7 +7,8 @@ import java.util.List;
 /**
  * Body of a successful POST /v1/designs. Units: seconds, rad/s, the caller's x1 and u units; gamma is the
  * L2 gain bound from w to z = [rho1 x1, rho2 x2, u]. {@code robustness} is present only when the request asked
- * for it (verify).
+ * for it (verify). {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
+ * strings; a client that acts on a note matches its code).
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 public record DesignResponse(
@@ -22,6 +23,7 @@ public record DesignResponse(
         Simulated simulated,
         Verification verification,
         List<String> notes,
+        List<String> noteCodes,
         List<String> cautions,
         Model model,
         RobustnessResponse robustness) {
@@ -29,6 +31,7 @@ public record DesignResponse(
     public DesignResponse {
         gammaBounds = List.copyOf(gammaBounds);
         notes = List.copyOf(notes);
+        noteCodes = List.copyOf(noteCodes);
         cautions = List.copyOf(cautions);
     }
 

@@ -7,31 +7,47 @@ import com.loopwright.solver.design.Verification;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.NumericRiccati;
 import com.loopwright.solver.pipeline.StateSpaceDesign;
-import com.loopwright.solver.spec.SpecInversion;
+import com.loopwright.solver.robustness.RobustnessOptions;
 import com.loopwright.solver.spec.TargetDynamics;
-import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 
 /** Solver results to the wire records of POST /v1/designs. */
 public final class DesignResponseMapper {
 
-    /**
-     * @param callerCoordinates the design in the caller's state-space coordinates (null unless the plant was given
-     *                          as a state space)
-     * @param robustness        the robustness section (null when the request did not ask for it)
-     */
+    /** The response of a design without robustness checks to feed the sanity notes. */
     public DesignResponse toResponse(
             ValidatedDesign request,
             DesignReport report,
             StateSpaceDesign callerCoordinates,
             com.loopwright.api.robustness.RobustnessResponse robustness) {
+        return toResponse(request, report, callerCoordinates, robustness, null);
+    }
+
+    /**
+     * @param callerCoordinates the design in the caller's state-space coordinates (null unless the plant was given
+     *                          as a state space)
+     * @param robustness        the robustness section (null when the request did not ask for it)
+     * @param verifyOptions     the robustness checks asked for (null when none): their actuator limit and sample
+     *                          period feed the sanity notes
+     */
+    public DesignResponse toResponse(
+            ValidatedDesign request,
+            DesignReport report,
+            StateSpaceDesign callerCoordinates,
+            com.loopwright.api.robustness.RobustnessResponse robustness,
+            RobustnessOptions verifyOptions) {
         ClosedFormDesign design = report.design();
         Verification verification = report.verification();
         TargetDynamics target = design.target();
         NumericRiccati numeric = report.numericRiccati();
         StepMetrics metrics = report.stepMetrics();
         String timeSpecName = request.timeSpecPointer().substring("/spec/".length());
+        DesignNotes notes = DesignNotes.of(
+                report,
+                100 * request.spec().overshootFraction(),
+                verifyOptions == null ? null : verifyOptions.actuatorLimit(),
+                verifyOptions == null ? null : verifyOptions.samplePeriodSeconds(),
+                ModelMapper.conditionNote(request.resolvedPlant()));
         return new DesignResponse(
                 new DesignResponse.Plant(
                         design.plant().a0(),
@@ -89,7 +105,8 @@ public final class DesignResponseMapper {
                         verification.specChecks().stream()
                                 .map(c -> new DesignResponse.SpecCheck(c.spec(), c.requested(), c.simulated(), c.met()))
                                 .toList()),
-                notes(report, ModelMapper.conditionNote(request.resolvedPlant())),
+                notes.texts(),
+                notes.codes(),
                 Cautions.ALL,
                 ModelMapper.toModel(request.resolvedPlant(), design, callerCoordinates),
                 robustness);
@@ -117,36 +134,5 @@ public final class DesignResponseMapper {
                         b.condition().meaning(),
                         b.binding()))
                 .toList();
-    }
-
-    private static List<String> notes(DesignReport report, String conditionNote) {
-        ClosedFormDesign design = report.design();
-        SpecInversion inversion = report.inversion();
-        List<String> notes = new ArrayList<>();
-        double exactWn = design.target().naturalFrequencyRadPerSec();
-        double handbookWn = inversion.handbookNaturalFrequencyRadPerSec();
-        notes.add(String.format(
-                Locale.US,
-                "Exact inversion gives wn = %.6g rad/s; the handbook rule would give %.6g rad/s" + " (%+.1f%%).",
-                exactWn,
-                handbookWn,
-                100 * (handbookWn - exactWn) / exactWn));
-        if (inversion.nearBandTouch()) {
-            notes.add("A peak of the step response lies within 5% of the settling band edge: the settling time"
-                    + " jumps for small changes in damping, so expect it to be sensitive to model error.");
-        }
-        if (design.plant().d() == 0) {
-            notes.add("The plant has no disturbance input (d = 0): gamma is free and the bound is trivial.");
-        } else {
-            design.positionCertificateBestGamma()
-                    .ifPresent(best -> notes.add(String.format(
-                            Locale.US,
-                            "gamma = %.6g minimizes the disturbance-to-position bound gamma/rho1 for this spec.",
-                            best)));
-        }
-        if (conditionNote != null) {
-            notes.add(conditionNote);
-        }
-        return notes;
     }
 }

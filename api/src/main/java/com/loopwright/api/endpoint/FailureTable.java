@@ -5,11 +5,16 @@ import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.api.problem.Proposal;
 import com.loopwright.api.validation.InvalidRequestException;
+import com.loopwright.api.validation.SpecInput;
 import com.loopwright.solver.design.Infeasibility;
+import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
 import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.PlantParameterException;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.Objects;
 
 /**
  * The one place failures become RFC 9457 problems: field errors of validation, unusable plant parameters, and
@@ -22,6 +27,7 @@ public final class FailureTable {
     private static final String FIT_POINTER = "/samples/output";
     private static final String SAMPLE_PERIOD_POINTER = "/samplePeriodSeconds";
     private static final String COMMAND_LIMIT_POINTER = "/commandLimit";
+    private static final String SPEC_PREFIX = "/spec/";
 
     private FailureTable() {}
 
@@ -114,11 +120,37 @@ public final class FailureTable {
         String prefix = context.prefix();
         String pointer = pointerOf(infeasibility.quantity(), context.timeSpecPointer());
         List<Proposal> proposals = infeasibility.proposals().stream()
-                .map(p ->
-                        new Proposal(prefix + pointerOf(p.quantity(), context.timeSpecPointer()), p.value(), p.note()))
+                .map(p -> {
+                    String field = pointerOf(p.quantity(), context.timeSpecPointer());
+                    return new Proposal(prefix + field, p.value(), p.note(), readyToSend(context.sentSpec(), field, p));
+                })
                 .toList();
         return ProblemType.INFEASIBLE_SPEC.problem(
                 infeasibility.reason(), List.of(new FieldError(prefix + pointer, infeasibility.reason())), proposals);
+    }
+
+    /**
+     * The sent spec with the proposed value in place of the field it replaces (null without a sent spec). A
+     * proposed gamma replaces a gammaMargin too, since the request takes one of the two.
+     */
+    private static Map<String, Double> readyToSend(SpecInput sent, String field, SpecProposal proposal) {
+        if (sent == null) {
+            return null;
+        }
+        Map<String, Double> spec = new LinkedHashMap<>();
+        spec.put("settlingTime", sent.settlingTime());
+        spec.put("riseTime", sent.riseTime());
+        spec.put("overshootPercent", sent.overshootPercent());
+        spec.put("settlingBandPercent", sent.settlingBandPercent());
+        spec.put("gamma", sent.gamma());
+        spec.put("gammaMargin", sent.gammaMargin());
+        spec.put("stepSize", sent.stepSize());
+        if (proposal.quantity() == SpecQuantity.GAMMA) {
+            spec.put("gammaMargin", null);
+        }
+        spec.put(field.substring(SPEC_PREFIX.length()), proposal.value());
+        spec.values().removeIf(Objects::isNull);
+        return spec;
     }
 
     private static String pointerOf(SpecQuantity quantity, String timeSpecPointer) {

@@ -177,7 +177,12 @@ public final class ClosedFormDesigner {
                             dampingBound
                                     ? String.format(
                                             "; with damping ratio %.4g below 1/sqrt(2) (overshoot above about"
-                                                    + " 4.3%%) no natural frequency can fix it",
+                                                    + " 4.3%%) no natural frequency can fix it. This is a limit of the"
+                                                    + " certified method, not a fault of the plant: a loop this lightly"
+                                                    + " damped is not the optimum of any real weights, so it cannot"
+                                                    + " carry the H-infinity certificate; for a plant without"
+                                                    + " stiffness (a0 = 0) the guaranteed-robust optimal loop cannot be"
+                                                    + " damped below 1/sqrt(2)",
                                             zeta)
                                     : ""),
                     dampingBound);
