@@ -19,11 +19,11 @@ RETRY_AFTER_SECONDS = 1
 
 OVERLOADED = {"type": "urn:loopwright:problem:service-overloaded", "title": "Service overloaded", "status": 503,
               "detail": "every design worker is busy; retry after the Retry-After delay",
-              "instance": "/v1/designs"}
+              "instance": "/requests/stub-overloaded"}
 INFEASIBLE = {"type": "urn:loopwright:problem:infeasible-spec", "title": "Infeasible spec", "status": 422,
               "detail": "with damping ratio 0.3579 below 1/sqrt(2) (overshoot above about 4.3%) no natural "
                         "frequency can fix it",
-              "instance": "/v1/designs",
+              "instance": "/requests/stub-infeasible",
               "errors": [{"pointer": "/spec/overshootPercent",
                           "detail": "overshoot above about 4.3% cannot be met by this plant"}],
               "proposals": [{"pointer": "/spec/overshootPercent", "value": 4.243970022728987,

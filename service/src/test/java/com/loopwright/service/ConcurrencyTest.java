@@ -55,14 +55,21 @@ class ConcurrencyTest {
             new Call("GET", "/v1/nothing", null));
 
     private static String send(HttpClient http, LiveServer server, Call call) throws Exception {
-        HttpRequest.Builder request =
-                HttpRequest.newBuilder(server.base().resolve(call.path())).timeout(Duration.ofSeconds(60));
+        // A request id of its own: the reply must name it (a problem's instance), never another request's.
+        String requestId = "concurrency-" + java.util.UUID.randomUUID();
+        HttpRequest.Builder request = HttpRequest.newBuilder(server.base().resolve(call.path()))
+                .timeout(Duration.ofSeconds(60))
+                .header("X-Request-Id", requestId);
         if (call.body() != null) {
             request.header("Content-Type", "application/json").POST(HttpRequest.BodyPublishers.ofString(call.body()));
         }
         HttpResponse<String> response = http.send(request.build(), HttpResponse.BodyHandlers.ofString());
+        // The reply with its own request id replaced, so that replies to equal requests compare equal.
         return response.statusCode() + " "
-                + response.headers().firstValue("Content-Type").orElse("") + "\n" + response.body();
+                + response.headers().firstValue("Content-Type").orElse("") + "\n"
+                + response.body()
+                        .replace("/requests/" + requestId + "\"", "/requests/ID\"")
+                        .replace("/requests/" + requestId + "#", "/requests/ID#");
     }
 
     @Test

@@ -48,13 +48,13 @@ class HostileInputTest extends LiveServerTest {
                 "object for a number      | {\"plant\":{\"a0\":{},\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
                         + "} | 400 | /plant/a0",
                 "NaN token                | {\"plant\":{\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | ``",
+                        + "} | 400 | /plant/a0",
                 "Infinity token           | {\"plant\":{\"a0\":Infinity,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | ``",
+                        + "} | 400 | /plant/a0",
                 "overflowing number       | {\"plant\":{\"a0\":1e400,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
                         + "} | 400 | /plant/a0",
                 "duplicate key            | {\"plant\":{\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | ``",
+                        + "} | 400 | /plant/a0",
                 "missing plant            | {" + SPEC
                         + "}                                                        | 400 | /plant",
                 "missing spec             | {" + PLANT
@@ -99,11 +99,15 @@ class HostileInputTest extends LiveServerTest {
         int length = (2 << 20) + 12;
         try (RawExchange socket = new RawExchange(server.base().getPort(), 10_000)) {
             RawExchange.Reply reply = socket.send("POST /v1/designs HTTP/1.1\r\nHost: 127.0.0.1\r\nContent-Type: "
-                            + "application/json\r\nContent-Length: " + length + "\r\nExpect: 100-continue\r\n\r\n")
+                            + "application/json\r\nX-Request-Id: line-4-gate\r\nContent-Length: " + length
+                            + "\r\nExpect: 100-continue\r\n\r\n")
                     .read();
             assertEquals(413, reply.status(), reply.toString());
             assertEquals("application/problem+json", reply.header("Content-Type"));
             assertEquals(413, reply.json().get("status").asInt());
+            // Answered by the body gate, before the application: the occurrence is still named by the request id.
+            assertEquals("line-4-gate", reply.header("X-Request-Id"));
+            assertEquals("/requests/line-4-gate", reply.json().get("instance").asText());
         }
     }
 

@@ -69,6 +69,11 @@ class HttpLayerLimitsTest {
         JsonNode problem = reply.json();
         assertEquals(status, problem.get("status").asInt(), reply.body());
         assertEquals(type.uri(), problem.get("type").asText(), reply.body());
+        // The HTTP layer names the occurrence too: the request id it answers in X-Request-Id.
+        assertEquals(
+                "/requests/" + reply.header("X-Request-Id"),
+                problem.path("instance").asText(),
+                reply.toString());
         String violations = Contract.load().violations("/v1/designs", "post", 400, "application/problem+json", problem);
         assertTrue(violations.isEmpty(), violations + " in " + problem);
     }

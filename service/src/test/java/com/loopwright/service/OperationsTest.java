@@ -262,7 +262,8 @@ class OperationsTest {
                     assertEquals(single.json().get("type"), problem.get("type"));
                     assertEquals(single.json().get("errors"), problem.get("errors"));
                     assertEquals(
-                            "/v1/designs/batch#/items/" + i,
+                            "/requests/"
+                                    + reply.headers().firstValue("X-Request-Id").orElseThrow() + "#/items/" + i,
                             problem.get("instance").asText());
                 }
             }

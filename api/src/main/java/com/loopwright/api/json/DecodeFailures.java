@@ -1,7 +1,10 @@
 package com.loopwright.api.json;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.JsonStreamContext;
+import com.fasterxml.jackson.core.exc.InputCoercionException;
 import com.fasterxml.jackson.core.exc.StreamConstraintsException;
+import com.fasterxml.jackson.core.exc.StreamReadException;
 import com.fasterxml.jackson.databind.JsonMappingException;
 import com.fasterxml.jackson.databind.exc.InvalidFormatException;
 import com.fasterxml.jackson.databind.exc.MismatchedInputException;
@@ -9,14 +12,31 @@ import com.fasterxml.jackson.databind.exc.UnrecognizedPropertyException;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
+import java.util.ArrayList;
 import java.util.List;
 
-/** Turns a Jackson decoding failure into a 400 problem that names the field, without internal class names. */
+/**
+ * Turns a Jackson decoding failure into a 400 problem worded by us that names the field by its JSON pointer: no
+ * parser text (source excerpt, line and column, token dumps, feature or class names) ever reaches a client.
+ */
 public final class DecodeFailures {
+
+    /** Wrapped causes followed to find the parser's own failure. */
+    private static final int MAX_CAUSE_DEPTH = 8;
 
     private DecodeFailures() {}
 
     public static Problem toProblem(JsonProcessingException failure) {
+        if (causeOfType(failure, StreamConstraintsException.class) != null) {
+            String detail = "the body exceeds a structural limit (nesting depth at most " + StrictJson.MAX_NESTING_DEPTH
+                    + ", numbers at most " + StrictJson.MAX_NUMBER_LENGTH + " characters, strings at most "
+                    + StrictJson.MAX_STRING_LENGTH + " characters)";
+            return ProblemType.MALFORMED_REQUEST.problem(detail, List.of(new FieldError("", detail)), List.of());
+        }
+        StreamReadException parse = causeOfType(failure, StreamReadException.class);
+        if (parse != null) {
+            return parseProblem(parse);
+        }
         if (failure instanceof JsonMappingException mapping
                 && !mapping.getPath().isEmpty()) {
             String pointer = pointerOf(mapping);
@@ -28,20 +48,105 @@ public final class DecodeFailures {
             } else {
                 detail = "cannot be read";
             }
-            return ProblemType.MALFORMED_REQUEST.problem(
-                    "field " + pointer + ": " + detail, List.of(new FieldError(pointer, detail)), List.of());
+            return fieldProblem(pointer, detail);
         }
         String detail;
-        if (failure instanceof StreamConstraintsException) {
-            detail = "the body exceeds a structural limit (nesting depth at most " + StrictJson.MAX_NESTING_DEPTH
-                    + ", numbers at most " + StrictJson.MAX_NUMBER_LENGTH + " characters)";
-        } else if (failure instanceof JsonMappingException) {
+        if (failure instanceof JsonMappingException) {
             // Root-level mapping failures: an array, a scalar, or content after the object.
             detail = "the body must be exactly one JSON object with plant and spec";
         } else {
-            detail = "not valid JSON: " + firstLine(failure.getOriginalMessage());
+            detail = "not valid JSON";
         }
         return ProblemType.MALFORMED_REQUEST.problem(detail, List.of(new FieldError("", detail)), List.of());
+    }
+
+    private static Problem fieldProblem(String pointer, String detail) {
+        if (pointer.isEmpty()) {
+            String whole = "not valid JSON: " + detail;
+            return ProblemType.MALFORMED_REQUEST.problem(whole, List.of(new FieldError("", whole)), List.of());
+        }
+        return ProblemType.MALFORMED_REQUEST.problem(
+                "field " + pointer + ": " + detail, List.of(new FieldError(pointer, detail)), List.of());
+    }
+
+    /** The parser's own failure (the failure itself or its cause), however deep a deserializer wrapped it. */
+    private static <T extends Throwable> T causeOfType(Throwable failure, Class<T> type) {
+        Throwable cause = failure;
+        for (int depth = 0; cause != null && depth < MAX_CAUSE_DEPTH; depth++) {
+            if (type.isInstance(cause)) {
+                return type.cast(cause);
+            }
+            cause = cause.getCause();
+        }
+        return null;
+    }
+
+    /**
+     * A syntax or limit failure of the parser, at the pointer of the value the parser was reading when it stopped
+     * (a nested duplicate key, NaN or trailing comma is named where it is, not at its parent), worded by us: the
+     * parser's own message (its source excerpt, line and column, its feature names) never reaches a client.
+     */
+    private static Problem parseProblem(StreamReadException parse) {
+        String pointer = parse.getProcessor() == null
+                ? ""
+                : pointerOf(parse.getProcessor().getParsingContext());
+        return fieldProblem(pointer, causeOf(parse));
+    }
+
+    /** Our words for the parser's failure; the message is only classified, never echoed. */
+    static String causeOf(StreamReadException parse) {
+        if (parse instanceof InputCoercionException) {
+            return "the number is outside the range of this whole-number field";
+        }
+        String message = parse.getOriginalMessage() == null ? "" : parse.getOriginalMessage();
+        if (message.startsWith("Duplicate field")) {
+            return "duplicate key: this member appears more than once in its object; send it once";
+        }
+        if (message.contains("'NaN'") || message.contains("Infinity'")) {
+            return "NaN and Infinity are not JSON numbers; send a finite number";
+        }
+        if (message.contains("end-of-input")) {
+            return "the body ends before this value is complete (a truncated document)";
+        }
+        if (message.startsWith("Unexpected character ('}'") && message.contains("double-quote to start field name")) {
+            return "a trailing comma after this member: a comma must be followed by another member; remove it";
+        }
+        if (message.startsWith("Unexpected character (']'") && message.contains("expected a value")) {
+            return "a trailing comma before the end of the array: a comma must be followed by a value; remove it";
+        }
+        if (message.contains("expected a value")) {
+            return "a value is missing here";
+        }
+        if (message.contains("Invalid numeric value") || message.contains("Numeric value")) {
+            return "not a valid JSON number";
+        }
+        if (message.contains("Unrecognized token")) {
+            return "not a JSON value (strings need double quotes; the only bare words are true, false and null)";
+        }
+        return "not valid JSON at this point (check quotes, commas, colons and brackets)";
+    }
+
+    /** RFC 6901 pointer of the value the parser was reading, e.g. /plant/a0 or /plant/numerator/1. */
+    static String pointerOf(JsonStreamContext context) {
+        List<String> segments = new ArrayList<>();
+        JsonStreamContext level = context;
+        for (int depth = 0; level != null && !level.inRoot() && depth <= StrictJson.MAX_NESTING_DEPTH; depth++) {
+            if (level.inArray()) {
+                segments.add(String.valueOf(Math.max(level.getCurrentIndex(), 0)));
+            } else if (level.getCurrentName() != null) {
+                segments.add(escaped(level.getCurrentName()));
+            }
+            level = level.getParent();
+        }
+        StringBuilder pointer = new StringBuilder();
+        for (int i = segments.size() - 1; i >= 0; i--) {
+            pointer.append('/').append(segments.get(i));
+        }
+        return pointer.toString();
+    }
+
+    private static String escaped(String name) {
+        return name.replace("~", "~0").replace("/", "~1");
     }
 
     /** The body could not be read at all (for example invalid UTF-8 that the decoder rejects). */
@@ -56,7 +161,7 @@ public final class DecodeFailures {
         for (JsonMappingException.Reference reference : mapping.getPath()) {
             pointer.append('/');
             if (reference.getFieldName() != null) {
-                pointer.append(reference.getFieldName().replace("~", "~0").replace("/", "~1"));
+                pointer.append(escaped(reference.getFieldName()));
             } else {
                 pointer.append(Math.max(reference.getIndex(), 0));
             }
@@ -72,20 +177,18 @@ public final class DecodeFailures {
         if (target == Integer.class || target == Long.class || target == int.class || target == long.class) {
             return "a whole number (an integer, written without a fraction or exponent)";
         }
+        if (target == boolean.class || target == Boolean.class) {
+            return "true or false";
+        }
         if (Number.class.isAssignableFrom(target) || target.isPrimitive()) {
             return "a JSON number";
         }
-        return "a JSON object";
-    }
-
-    private static String firstLine(String message) {
-        if (message == null) {
-            return "unreadable input";
+        if (target == String.class || target.isEnum()) {
+            return "a JSON string";
         }
-        int cut = message.indexOf('\n');
-        // Jackson quotes types and features in backticks; none of that is the caller's business.
-        String line = (cut < 0 ? message : message.substring(0, cut)).replaceAll("`[^`]*`", "value");
-        // Jackson quotes the offending text; keep it short so nothing large is echoed back.
-        return line.length() > 200 ? line.substring(0, 200) + "..." : line;
+        if (target.isArray() || java.util.Collection.class.isAssignableFrom(target)) {
+            return "a JSON array";
+        }
+        return "a JSON object";
     }
 }

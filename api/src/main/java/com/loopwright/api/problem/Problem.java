@@ -6,6 +6,16 @@ import java.util.List;
 /**
  * RFC 9457 problem details, with two extension members: the offending fields and, for infeasible specs,
  * computed proposals.
+ *
+ * <p>{@code instance} identifies the occurrence (RFC 9457 section 3.1.5: a URI reference identifying the specific
+ * occurrence of the problem), not the resource: the service sets it to {@code /requests/<request-id>}, the id also
+ * answered in {@code X-Request-Id} and written on every log line of that request, so a client quoting the problem
+ * quotes what an operator searches for. A batch item's problem adds its JSON pointer as fragment
+ * ({@code /requests/<request-id>#/items/3}). The form is a relative reference in our own path space: no URN
+ * namespace to register, it resolves against the service's own origin, and accepted request ids hold only URI path
+ * characters, so it needs no escaping. It is an identifier, not a link: nothing is served at that path. The request
+ * path is not used, because it names the resource (the same for every failing call), not the occurrence. The api
+ * leaves it empty; only the HTTP layer knows the request id.
  */
 @JsonInclude(JsonInclude.Include.NON_EMPTY)
 public record Problem(
@@ -24,7 +34,8 @@ public record Problem(
         proposals = proposals == null ? List.of() : List.copyOf(proposals);
     }
 
-    public Problem withInstance(String path) {
-        return new Problem(type, title, status, detail, path, errors, proposals);
+    /** The same problem, naming the occurrence {@code instance} (a URI reference, see the class comment). */
+    public Problem withInstance(String instance) {
+        return new Problem(type, title, status, detail, instance, errors, proposals);
     }
 }

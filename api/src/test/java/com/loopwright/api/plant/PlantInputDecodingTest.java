@@ -137,11 +137,16 @@ class PlantInputDecodingTest {
                 "/plant/a/1/1",
                 "wrong type: expected a JSON number");
         assertProblem(
-                "{\"plant\":{\"form\":\"stateSpace\",\"b2\":3}}", "/plant/b2", "wrong type: expected a JSON object");
-        assertProblem("{\"plant\":{\"form\":{}}}", "/plant/form", "wrong type: expected a JSON object");
+                "{\"plant\":{\"form\":\"stateSpace\",\"b2\":3}}", "/plant/b2", "wrong type: expected a JSON array");
+        assertProblem("{\"plant\":{\"form\":{}}}", "/plant/form", "wrong type: expected a JSON string");
         assertProblem("{\"plant\":[1,2]}", "/plant", "wrong type: expected a JSON object");
-        assertProblem("{\"plant\":{\"a0\":0,\"a0\":1}}", "/plant", "cannot be read");
-        assertProblem("{\"plant\":{\"a0\":NaN}}", "/plant", "cannot be read");
+        // Parser failures inside the plant are named at their own member, with their cause (issue 15).
+        assertProblem(
+                "{\"plant\":{\"a0\":0,\"a0\":1}}",
+                "/plant/a0",
+                "duplicate key: this member appears more than once in its object; send it once");
+        assertProblem(
+                "{\"plant\":{\"a0\":NaN}}", "/plant/a0", "NaN and Infinity are not JSON numbers; send a finite number");
     }
 
     @Test

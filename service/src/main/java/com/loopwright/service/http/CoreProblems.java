@@ -4,10 +4,12 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.observe.RequestIds;
 import java.nio.ByteBuffer;
 import java.nio.charset.StandardCharsets;
 import java.util.Map;
 import org.eclipse.jetty.http.HttpHeader;
+import org.eclipse.jetty.server.Request;
 import org.eclipse.jetty.server.Response;
 import org.eclipse.jetty.util.Callback;
 
@@ -31,9 +33,19 @@ public final class CoreProblems {
         }
     }
 
-    /** Status, problem+json headers (plus {@code headers}) and the body, completing {@code callback}. */
-    public void write(Response response, Callback callback, Problem problem, Map<String, String> headers) {
+    /**
+     * Status, problem+json headers (plus {@code headers}) and the body, completing {@code callback}; the problem's
+     * {@code instance} names this request by its id (answered in {@code X-Request-Id} too).
+     */
+    public void write(
+            Request request, Response response, Callback callback, Problem problem, Map<String, String> headers) {
+        String requestId = response.getHeaders().get(RequestIds.HEADER);
+        if (requestId == null) {
+            requestId = RequestIds.accept(request.getHeaders().get(RequestIds.HEADER));
+        }
+        problem = problem.withInstance(RequestIds.instance(requestId));
         response.setStatus(problem.status());
+        response.getHeaders().put(RequestIds.HEADER, requestId);
         response.getHeaders().put(HttpHeader.CONTENT_TYPE, Problem.MEDIA_TYPE);
         response.getHeaders().put(HttpHeader.CACHE_CONTROL, "no-store");
         response.getHeaders().put("X-Content-Type-Options", "nosniff");

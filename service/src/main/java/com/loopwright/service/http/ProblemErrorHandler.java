@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.FatalErrors;
+import com.loopwright.service.observe.RequestIds;
 import java.nio.ByteBuffer;
 import java.util.List;
 import java.util.Map;
@@ -71,12 +72,15 @@ public final class ProblemErrorHandler extends ErrorHandler {
     protected void generateResponse(
             Request request, Response response, int code, String message, Throwable cause, Callback callback) {
         fatal.check(cause);
-        problems.write(response, callback, problemFor(code), Map.of());
+        problems.write(request, response, callback, problemFor(code), Map.of());
     }
 
     @Override
     public ByteBuffer badMessageError(int status, String reason, HttpFields.Mutable fields) {
+        // A message too broken to read its headers: a new request id names the occurrence.
+        String requestId = RequestIds.accept(null);
         fields.put(new HttpField(HttpHeader.CONTENT_TYPE, Problem.MEDIA_TYPE));
-        return ByteBuffer.wrap(problems.bytes(problemFor(status)));
+        fields.put(new HttpField(RequestIds.HEADER, requestId));
+        return ByteBuffer.wrap(problems.bytes(problemFor(status).withInstance(RequestIds.instance(requestId))));
     }
 }

@@ -3,6 +3,7 @@ package com.loopwright.service.http;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.loopwright.api.problem.Problem;
+import com.loopwright.service.observe.RequestIds;
 import io.javalin.http.Context;
 import java.nio.charset.StandardCharsets;
 
@@ -15,8 +16,22 @@ public final class ProblemResponses {
         this.mapper = mapper;
     }
 
+    /**
+     * The id of this request: the one the before-handler already answered in {@code X-Request-Id}, or (for a problem
+     * written before it ran) the accepted caller's id or a new one, then answered in the header too.
+     */
+    public static String requestId(Context ctx) {
+        String answered = ctx.res().getHeader(RequestIds.HEADER);
+        if (answered != null) {
+            return answered;
+        }
+        String requestId = RequestIds.accept(ctx.header(RequestIds.HEADER));
+        ctx.header(RequestIds.HEADER, requestId);
+        return requestId;
+    }
+
     public void write(Context ctx, Problem problem) {
-        Problem located = problem.withInstance(ctx.path());
+        Problem located = problem.withInstance(RequestIds.instance(requestId(ctx)));
         byte[] body;
         try {
             body = mapper.writeValueAsBytes(located);

@@ -203,7 +203,7 @@ public final class RequestBodyGate extends Handler.Wrapper {
                     request.getHttpURI().getPath(),
                     problem.status(),
                     System.nanoTime() - startNanos);
-            problems.write(response, callback, problem, closing(headers));
+            problems.write(request, response, callback, problem, closing(headers));
             return;
         }
         new BodyRead(null, request, response, callback, false, 0, new Refusal(problem, headers), startNanos).start();
@@ -387,7 +387,7 @@ public final class RequestBodyGate extends Handler.Wrapper {
                     problem.status(),
                     length,
                     problem.detail());
-            problems.write(response, callback, problem, headers);
+            problems.write(request, response, callback, problem, headers);
         }
 
         /**
@@ -408,7 +408,11 @@ public final class RequestBodyGate extends Handler.Wrapper {
                         refusal.problem().status(),
                         System.nanoTime() - startNanos);
                 problems.write(
-                        response, callback, refusal.problem(), cut ? closing(refusal.headers()) : refusal.headers());
+                        request,
+                        response,
+                        callback,
+                        refusal.problem(),
+                        cut ? closing(refusal.headers()) : refusal.headers());
             }
         }
 

@@ -12,7 +12,23 @@ public final class RequestIds {
     /** Accepted ids: 1 to 128 characters of letters, digits and . _ - : (safe in logs and headers). */
     private static final Pattern ACCEPTED = Pattern.compile("[A-Za-z0-9._:-]{1,128}");
 
+    /** Where an occurrence's problem points (RFC 9457 section 3.1.5); see {@link #instance(String)}. */
+    public static final String INSTANCE_PREFIX = "/requests/";
+
     private RequestIds() {}
+
+    /**
+     * The problem {@code instance} of the request with this id: {@code /requests/<id>}, a relative reference
+     * (accepted ids hold only URI path characters, so it needs no escaping).
+     */
+    public static String instance(String requestId) {
+        return INSTANCE_PREFIX + requestId;
+    }
+
+    /** The {@code instance} of item {@code index} of a batch: the request's, with the item's JSON pointer as fragment. */
+    public static String itemInstance(String requestId, int index) {
+        return instance(requestId) + "#/items/" + index;
+    }
 
     public static String accept(String presented) {
         return presented != null && ACCEPTED.matcher(presented).matches() ? presented : issue();

@@ -16,6 +16,7 @@ import com.loopwright.service.http.JsonBodies;
 import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.http.StreamCuts;
 import com.loopwright.service.observe.Metrics;
+import com.loopwright.service.observe.RequestIds;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import java.io.IOException;
@@ -85,6 +86,7 @@ public final class BatchRoute implements Handler {
     @Override
     public void handle(Context ctx) throws IOException {
         long deadlineNanos = pool.deadlineFromNow();
+        String requestId = ProblemResponses.requestId(ctx);
         if (!JsonBodies.isJson(ctx.contentType())) {
             problems.write(
                     ctx,
@@ -149,11 +151,11 @@ public final class BatchRoute implements Handler {
                 }
                 Reply outcome = oldest.await();
                 if (stream.isCut()) {
-                    writeCut(out, index);
+                    writeCut(out, index, requestId);
                     break;
                 }
                 metrics.design(Metrics.outcomeOf(outcome));
-                writeLine(out, index, outcome);
+                writeLine(out, index, outcome, requestId);
             }
             out.flush();
         } finally {
@@ -164,7 +166,7 @@ public final class BatchRoute implements Handler {
     }
 
     /** The final line of a stream cut by a shutdown: items from {@code index} on have no line (BatchCut). */
-    private void writeCut(OutputStream out, int index) throws IOException {
+    private void writeCut(OutputStream out, int index, String requestId) throws IOException {
         out.write(mapper.writeValueAsBytes(new BatchCut(
                 index,
                 503,
@@ -173,20 +175,23 @@ public final class BatchRoute implements Handler {
                                 + "shutting down and its grace period is ending: the stream was cut before item "
                                 + index
                                 + "; send items " + index + " and later again")
-                        .withInstance(PATH + "#/items/" + index))));
+                        .withInstance(RequestIds.itemInstance(requestId, index)))));
         out.write(NEWLINE);
         out.flush();
     }
 
     /** One BatchLine: {"index":i,"status":200,"design":{...}} or {"index":i,"status":s,"problem":{...}}. */
-    private void writeLine(OutputStream out, int index, Reply outcome) throws IOException {
+    private void writeLine(OutputStream out, int index, Reply outcome, String requestId) throws IOException {
         if (outcome.ok()) {
             out.write(("{\"index\":" + index + ",\"status\":200,\"design\":").getBytes(StandardCharsets.US_ASCII));
             outcome.writeTo(out);
             out.write(CLOSE_LINE);
         } else {
             out.write(mapper.writeValueAsBytes(new BatchLine(
-                    index, outcome.status(), null, outcome.problem().withInstance(PATH + "#/items/" + index))));
+                    index,
+                    outcome.status(),
+                    null,
+                    outcome.problem().withInstance(RequestIds.itemInstance(requestId, index)))));
             out.write(NEWLINE);
         }
     }
