@@ -68,15 +68,7 @@ public final class DesignFigures {
             high = Math.max(0, highest);
             low = Math.min(Math.min(lowest, overshootLimit), r * (1 + band));
         }
-        SvgPanel panel = new SvgPanel(
-                svg,
-                LEFT,
-                TOP,
-                WIDTH - LEFT - RIGHT,
-                PANEL_HEIGHT,
-                NiceTicks.covering(0, report.horizonSeconds(), 8),
-                NiceTicks.covering(low, high, 7),
-                false);
+        SvgPanel panel = timePanel(svg, report, low, high);
         panel.frame("time t [s]", "position x1 [x1 units]");
         panel.band("band", r * (1 - band), r * (1 + band));
         panel.horizontal(
@@ -89,6 +81,19 @@ public final class DesignFigures {
             panel.vertical("spec", rise.seconds(), "rise spec " + format(rise.seconds()) + " s");
         }
         return panel;
+    }
+
+    /** One panel over the design's horizon: time from 0 on the x axis, [low, high] on the y axis. */
+    private static SvgPanel timePanel(StringBuilder svg, DesignReport report, double low, double high) {
+        return new SvgPanel(
+                svg,
+                LEFT,
+                TOP,
+                WIDTH - LEFT - RIGHT,
+                PANEL_HEIGHT,
+                NiceTicks.covering(0, report.horizonSeconds(), 8),
+                NiceTicks.covering(low, high, 7),
+                false);
     }
 
     /** The step the solver simulated (FigurePipeline#step), with the spec envelope and the measured metrics. */
@@ -130,15 +135,7 @@ public final class DesignFigures {
             high = Math.max(high, commandLimit.getAsDouble());
         }
         StringBuilder svg = open(1, "Control effort u(t) for the same step");
-        SvgPanel panel = new SvgPanel(
-                svg,
-                LEFT,
-                TOP,
-                WIDTH - LEFT - RIGHT,
-                PANEL_HEIGHT,
-                NiceTicks.covering(0, report.horizonSeconds(), 8),
-                NiceTicks.covering(low, high, 7),
-                false);
+        SvgPanel panel = timePanel(svg, report, low, high);
         panel.frame("time t [s]", "command u [u units]");
         if (commandLimit.isPresent()) {
             double limit = commandLimit.getAsDouble();
