@@ -1,5 +1,7 @@
 package com.loopwright.service;
 
+import ch.qos.logback.classic.LoggerContext;
+import com.loopwright.service.observe.LogSettings;
 import io.javalin.Javalin;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -20,6 +22,7 @@ public final class LoopwrightMain {
             System.exit(2);
             return;
         }
+        LogSettings.apply((LoggerContext) LoggerFactory.getILoggerFactory(), config.logFormat(), config.logLevel());
         FatalErrors fatal = FatalErrors.haltingTheJvm();
         // Any failure no code catches is one log line (one JSON object), and an OutOfMemoryError ends the process.
         Thread.setDefaultUncaughtExceptionHandler(fatal);

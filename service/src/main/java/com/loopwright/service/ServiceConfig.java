@@ -30,7 +30,11 @@ import java.util.Map;
  * @param apiKeys             accepted API keys; empty turns authentication off (LOOPWRIGHT_API_KEYS, comma
  *                            separated, and/or LOOPWRIGHT_API_KEYS_FILE, one key per line)
  * @param corsOrigins         browser origins allowed by CORS; empty turns CORS off (LOOPWRIGHT_CORS_ORIGINS)
- * @param logFormat           "json" or "text" (LOOPWRIGHT_LOG_FORMAT, read by logback.xml; default json)
+ * @param apiKeysFile         the file the keys were also read from (LOOPWRIGHT_API_KEYS_FILE), or null
+ * @param logFormat           "json" or "text", any case (LOOPWRIGHT_LOG_FORMAT, default json); applied to logback
+ *                            by {@link com.loopwright.service.observe.LogSettings}
+ * @param logLevel            root log level TRACE, DEBUG, INFO, WARN, ERROR or OFF, any case (LOOPWRIGHT_LOG_LEVEL,
+ *                            default INFO)
  * @param shutdownGraceMillis how long a stop waits for in-flight requests (LOOPWRIGHT_SHUTDOWN_GRACE_MS,
  *                            default 20000)
  * @param http                limits of the HTTP layer: request threads, in-flight body bytes, minimum body rate,
@@ -48,7 +52,9 @@ public record ServiceConfig(
         int maxBatchItems,
         List<String> apiKeys,
         List<String> corsOrigins,
+        String apiKeysFile,
         String logFormat,
+        String logLevel,
         long shutdownGraceMillis,
         HttpLimits http,
         String serviceVersion) {
@@ -62,6 +68,10 @@ public record ServiceConfig(
     public static final int BATCH_ITEMS_CEILING = 1000;
 
     public static final String DEFAULT_LOG_FORMAT = "json";
+    public static final String DEFAULT_LOG_LEVEL = "INFO";
+    /** The root levels logback knows; anything else would silently become DEBUG there. */
+    public static final List<String> LOG_LEVELS = List.of("TRACE", "DEBUG", "INFO", "WARN", "ERROR", "OFF");
+
     public static final long DEFAULT_SHUTDOWN_GRACE_MILLIS = 20_000;
     /** Caps on the configuration itself, so that a typo cannot exhaust the machine. */
     public static final int MAX_WORKER_THREADS = 256;
@@ -117,6 +127,9 @@ public record ServiceConfig(
         if (!logFormat.equals("json") && !logFormat.equals("text")) {
             throw new IllegalArgumentException("log format must be json or text: " + logFormat);
         }
+        if (!LOG_LEVELS.contains(logLevel)) {
+            throw new IllegalArgumentException("log level must be one of " + LOG_LEVELS + ": " + logLevel);
+        }
         if (shutdownGraceMillis < 0 || shutdownGraceMillis > 600_000) {
             throw new IllegalArgumentException("shutdown grace must be from 0 to 600000 ms: " + shutdownGraceMillis);
         }
@@ -153,10 +166,15 @@ public record ServiceConfig(
                 (int) parse(environment, "LOOPWRIGHT_MAX_BATCH_ITEMS", DEFAULT_MAX_BATCH_ITEMS),
                 keys,
                 list(environment.get("LOOPWRIGHT_CORS_ORIGINS")),
+                keyFile == null || keyFile.isBlank() ? null : keyFile.trim(),
                 environment
                         .getOrDefault("LOOPWRIGHT_LOG_FORMAT", DEFAULT_LOG_FORMAT)
                         .trim()
                         .toLowerCase(Locale.ROOT),
+                environment
+                        .getOrDefault("LOOPWRIGHT_LOG_LEVEL", DEFAULT_LOG_LEVEL)
+                        .trim()
+                        .toUpperCase(Locale.ROOT),
                 parse(environment, "LOOPWRIGHT_SHUTDOWN_GRACE_MS", DEFAULT_SHUTDOWN_GRACE_MILLIS),
                 new HttpLimits(
                         (int) parse(environment, "LOOPWRIGHT_HTTP_THREADS", HttpLimits.DEFAULT_HTTP_THREADS),
@@ -183,7 +201,9 @@ public record ServiceConfig(
                 maxBatchItems,
                 keys,
                 corsOrigins,
+                apiKeysFile,
                 logFormat,
+                logLevel,
                 shutdownGraceMillis,
                 http,
                 serviceVersion);
@@ -200,7 +220,9 @@ public record ServiceConfig(
                 maxBatchItems,
                 apiKeys,
                 corsOrigins,
+                apiKeysFile,
                 logFormat,
+                logLevel,
                 shutdownGraceMillis,
                 http,
                 version);
@@ -222,7 +244,9 @@ public record ServiceConfig(
                         : "****** (" + apiKeys.size() + " key" + (apiKeys.size() == 1 ? "" : "s") + ")");
         shown.put(
                 "LOOPWRIGHT_CORS_ORIGINS", corsOrigins.isEmpty() ? "(none: CORS off)" : String.join(",", corsOrigins));
+        shown.put("LOOPWRIGHT_API_KEYS_FILE", apiKeysFile == null ? "(none)" : apiKeysFile);
         shown.put("LOOPWRIGHT_LOG_FORMAT", logFormat);
+        shown.put("LOOPWRIGHT_LOG_LEVEL", logLevel);
         shown.put("LOOPWRIGHT_SHUTDOWN_GRACE_MS", String.valueOf(shutdownGraceMillis));
         shown.put("LOOPWRIGHT_HTTP_THREADS", String.valueOf(http.httpThreads()));
         shown.put("LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", String.valueOf(http.inFlightBodyBytes()));

@@ -88,4 +88,25 @@ class LoggingTest {
         assertTrue(line.getFormattedMessage().startsWith("POST /v1/designs 200"), line.getFormattedMessage());
         assertFalse(line.getFormattedMessage().contains(key));
     }
+
+    /**
+     * Regression: LOOPWRIGHT_LOG_FORMAT=JSON passed validation (lower-cased) while logback looked up the raw value
+     * and attached no appender, so the service logged nothing. Every accepted spelling must attach an appender
+     * that writes.
+     */
+    @Test
+    void everyAcceptedFormatAndLevelSpellingLogs() {
+        for (String[] spelling : new String[][] {{"JSON", "info"}, {"Text", "WARN"}, {"json", "Debug"}}) {
+            ServiceConfig config = ServiceConfig.fromEnvironment(
+                    Map.of("LOOPWRIGHT_LOG_FORMAT", spelling[0], "LOOPWRIGHT_LOG_LEVEL", spelling[1]));
+            LoggerContext context = new LoggerContext();
+            com.loopwright.service.observe.LogSettings.apply(context, config.logFormat(), config.logLevel());
+            Logger root = context.getLogger(org.slf4j.Logger.ROOT_LOGGER_NAME);
+            var appender = root.getAppender(config.logFormat());
+            assertTrue(appender != null && appender.isStarted(), "an appender for " + spelling[0]);
+            assertEquals(Level.toLevel(config.logLevel()), root.getLevel(), spelling[1]);
+            assertTrue(root.isEnabledFor(Level.WARN), "warnings are written");
+            context.stop();
+        }
+    }
 }

@@ -24,6 +24,7 @@ class ServiceConfigTest {
         assertEquals(List.of(), config.apiKeys());
         assertEquals(List.of(), config.corsOrigins());
         assertEquals("json", config.logFormat());
+        assertEquals("INFO", config.logLevel());
         assertEquals(20_000, config.shutdownGraceMillis());
         assertEquals(250, config.http().httpThreads());
         assertEquals(32L << 20, config.http().inFlightBodyBytes());
@@ -49,6 +50,7 @@ class ServiceConfigTest {
                 Map.of("LOOPWRIGHT_API_KEYS", "short"),
                 Map.of("LOOPWRIGHT_CORS_ORIGINS", "*"),
                 Map.of("LOOPWRIGHT_LOG_FORMAT", "xml"),
+                Map.of("LOOPWRIGHT_LOG_LEVEL", "verbose"),
                 Map.of("LOOPWRIGHT_MAX_REQUEST_BYTES", "ten"),
                 Map.of("LOOPWRIGHT_API_KEYS_FILE", "/nonexistent/keys"),
                 Map.of("LOOPWRIGHT_HTTP_THREADS", "4"),
@@ -77,5 +79,29 @@ class ServiceConfigTest {
                 () -> ServiceConfig.fromEnvironment(Map.of("LOOPWRIGHT_API_KEYS", secret + ",weak key")));
         assertFalse(failure.getMessage().contains("weak"), failure.getMessage());
         assertTrue(failure.getMessage().contains("#2"), failure.getMessage());
+    }
+
+    /** Regression: README says every setting is printed at start-up; the keys file and the log level were not. */
+    @Test
+    void everyDocumentedVariableIsPrintedAtStartUp() throws Exception {
+        String readme = java.nio.file.Files.readString(java.nio.file.Path.of("..", "README.md"));
+        java.util.regex.Matcher row = java.util.regex.Pattern.compile("(?m)^\\| `(LOOPWRIGHT_[A-Z_]+)` \\|")
+                .matcher(readme);
+        java.util.Set<String> documented = new java.util.TreeSet<>();
+        while (row.find()) {
+            documented.add(row.group(1));
+        }
+        assertTrue(documented.contains("LOOPWRIGHT_LOG_LEVEL"), documented.toString());
+        assertEquals(
+                documented,
+                new java.util.TreeSet<>(ServiceConfig.defaults(0).describe().keySet()));
+    }
+
+    @Test
+    void logFormatAndLevelAreAcceptedInAnyCaseAndNormalised() {
+        ServiceConfig config = ServiceConfig.fromEnvironment(
+                Map.of("LOOPWRIGHT_LOG_FORMAT", " JSON ", "LOOPWRIGHT_LOG_LEVEL", "debug"));
+        assertEquals("json", config.logFormat());
+        assertEquals("DEBUG", config.logLevel());
     }
 }
