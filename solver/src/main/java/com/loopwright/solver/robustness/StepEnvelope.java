@@ -7,7 +7,6 @@ import com.loopwright.solver.simulation.StepResponse;
 import com.loopwright.solver.simulation.StepSimulator;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Random;
 import org.ejml.data.DMatrixRMaj;
 
 /**
@@ -54,13 +53,10 @@ public final class StepEnvelope {
                 plants.add(ParameterBox.plant(p));
             }
         }
-        Random random = new Random(seed);
+        // The same samples as the robustness report for this seed (its first interiorSamples).
+        ParameterSampler sampler = new ParameterSampler(box, seed);
         for (int s = 0; s < interiorSamples; s++) {
-            double[] p = new double[4];
-            for (int i = 0; i < 4; i++) {
-                p[i] = lo[i] + (hi[i] - lo[i]) * random.nextDouble();
-            }
-            plants.add(ParameterBox.plant(p));
+            plants.add(ParameterBox.plant(sampler.next()));
         }
         double[] nominalX1 =
                 response(nominal, gains, stepSize, horizonSeconds, samples).output();

@@ -12,7 +12,6 @@ import com.loopwright.solver.simulation.StepSimulator;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import java.util.SplittableRandom;
 import java.util.function.Function;
 import org.ejml.data.DMatrixRMaj;
 
@@ -20,8 +19,8 @@ import org.ejml.data.DMatrixRMaj;
  * Evaluates the nominal gains on every corner of a parameter box and on seeded uniform Monte Carlo samples inside
  * it. Each case gets the exact step metrics of {@link StepResponseMetrics} (horizon
  * {@value LoopMatrices#HORIZON_PER_TIME_CONSTANT} slowest time constants) and the H-infinity norm from w to the
- * performance output. The generator is {@link SplittableRandom} with the given seed, drawn in a fixed order
- * (a0, a1, b, d per sample), so the same request gives the same samples bit for bit.
+ * performance output. The samples are those of {@link ParameterSampler} with the given seed, so the same request
+ * gives the same samples bit for bit, and the same ones the uncertainty-band figure draws.
  */
 public final class UncertaintyAnalyzer {
 
@@ -65,13 +64,10 @@ public final class UncertaintyAnalyzer {
             corners.add(evaluate(ParameterBox.plant(p), true, gains, stepSize, limits, performanceOutput));
         }
         List<UncertainCase> all = new ArrayList<>(corners);
-        SplittableRandom random = new SplittableRandom(seed);
+        ParameterSampler sampler = new ParameterSampler(box, seed);
         for (int s = 0; s < samples; s++) {
             Cancellation.checkpoint(); // a Monte Carlo sample is the unit of cancellation
-            double[] p = new double[4];
-            for (int i = 0; i < 4; i++) {
-                p[i] = lo[i] + (hi[i] - lo[i]) * random.nextDouble();
-            }
+            double[] p = sampler.next();
             all.add(evaluate(ParameterBox.plant(p), false, gains, stepSize, limits, performanceOutput));
         }
         int unstable = (int) all.stream().filter(c -> !c.stable()).count();
