@@ -1,6 +1,7 @@
 package com.loopwright.service;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -77,6 +78,28 @@ class DeploymentFilesTest {
         assertEquals(
                 kinds.get("Deployment").at("/spec/selector/matchLabels"),
                 kinds.get("Service").at("/spec/selector"));
+        // Availability and least privilege (common practice for a stateless service).
+        JsonNode pod = kinds.get("Deployment").at("/spec/template/spec");
+        assertFalse(pod.at("/automountServiceAccountToken").asBoolean(true), "no service-account token");
+        assertEquals(
+                "kubernetes.io/hostname",
+                pod.at("/topologySpreadConstraints/0/topologyKey").asText());
+        assertEquals(
+                kinds.get("Deployment").at("/spec/selector/matchLabels"),
+                kinds.get("PodDisruptionBudget").at("/spec/selector/matchLabels"));
+        assertEquals(
+                1, kinds.get("PodDisruptionBudget").at("/spec/minAvailable").asInt());
+    }
+
+    /** CI checks the manifests against the Kubernetes schemas, and that the checker refuses broken ones. */
+    @Test
+    void ciChecksTheManifestsAgainstTheKubernetesSchemas() throws Exception {
+        String ci = Files.readString(ROOT.resolve(".ci/run"));
+        assertTrue(ci.contains("check-manifests.mjs .. ../monitoring"), "the real manifests are checked");
+        assertTrue(ci.contains("deploy/validate/test/"), "the broken examples must fail the check");
+        try (var broken = Files.list(ROOT.resolve("deploy/validate/test"))) {
+            assertTrue(broken.count() >= 2, "a misspelled member and a wrong type");
+        }
     }
 
     @Test
