@@ -434,10 +434,10 @@ class ContractDriftTest {
         assertTracedResponseMatchesSchema(
                 ControllerParameters.class, contract.component("ControllerParameters"), "ControllerParameters");
         Map<String, Double> expected = Map.of(
-                "ControllerRequest/properties/samplePeriodSeconds/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS,
-                "ControllerRequest/properties/samplePeriodSeconds/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS,
-                "ControllerRequest/properties/commandLimit/maximum", TakeawayLimits.MAX_COMMAND_LIMIT,
-                "PlotRequest/properties/commandLimit/maximum", TakeawayLimits.MAX_COMMAND_LIMIT);
+                "ControllerRequest/properties/samplePeriod/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD,
+                "ControllerRequest/properties/samplePeriod/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD,
+                "ControllerRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT,
+                "PlotRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT);
         expected.forEach((pointer, value) -> {
             JsonNode node = contract.document().at("/components/schemas/" + pointer);
             assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);

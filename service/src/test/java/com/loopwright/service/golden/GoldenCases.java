@@ -522,7 +522,7 @@ final class GoldenCases {
         };
         for (String figure : figures) {
             for (int i = 0; i < designs.length; i++) {
-                String limit = i == 0 ? ",\"commandLimit\":3" : "";
+                String limit = i == 0 ? ",\"actuatorLimit\":3" : "";
                 post(
                         "plot-" + figure + "-" + i,
                         "/v1/designs/plots/" + figure,
@@ -534,16 +534,16 @@ final class GoldenCases {
                 "plot-infeasible",
                 "/v1/designs/plots/step-response",
                 "{\"design\":{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":10}}}");
-        post("plot-missing-design", "/v1/designs/plots/bode", "{\"commandLimit\":3}");
+        post("plot-missing-design", "/v1/designs/plots/bode", "{\"actuatorLimit\":3}");
         post("plot-band-without-box", "/v1/designs/plots/uncertainty-band", "{\"design\":" + AXIS + "}");
     }
 
     private void controllers() {
         String[] formats = {"structured-text", "c", "parameters"};
         String[] bodies = {
-            "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}",
-            "{\"design\":{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,\"overshootPercent\":1}},\"samplePeriodSeconds\":0.0005,\"commandLimit\":8}",
-            "{\"design\":{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":60,\"overshootPercent\":2}},\"samplePeriodSeconds\":0.5,\"commandLimit\":100}",
+            "{\"design\":" + AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}",
+            "{\"design\":{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,\"overshootPercent\":1}},\"samplePeriod\":0.0005,\"actuatorLimit\":8}",
+            "{\"design\":{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":60,\"overshootPercent\":2}},\"samplePeriod\":0.5,\"actuatorLimit\":100}",
         };
         for (String format : formats) {
             for (int i = 0; i < bodies.length; i++) {
@@ -553,15 +553,15 @@ final class GoldenCases {
         post(
                 "controller-period-too-long",
                 "/v1/designs/controllers/c",
-                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.05,\"commandLimit\":3}");
+                "{\"design\":" + AXIS + ",\"samplePeriod\":0.05,\"actuatorLimit\":3}");
         post(
                 "controller-unknown-format",
                 "/v1/designs/controllers/ladder",
-                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
+                "{\"design\":" + AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}");
         post(
                 "controller-missing-limit",
                 "/v1/designs/controllers/structured-text",
-                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001}");
+                "{\"design\":" + AXIS + ",\"samplePeriod\":0.001}");
     }
 
     private void plainResources() {
