@@ -191,8 +191,7 @@ class ContractDriftTest {
                 Map.entry("VerifyInput/properties/tolerancePercent/default", VerifyLimits.DEFAULT_TOLERANCE_PERCENT),
                 Map.entry("VerifyInput/properties/actuatorLimit/maximum", VerifyLimits.MAX_ACTUATOR_LIMIT),
                 Map.entry("VerifyInput/properties/inputDelay/maximum", VerifyLimits.MAX_TIME_SECONDS),
-                Map.entry(
-                        "ParameterRangeInput/properties/plusMinusPercent/maximum", VerifyLimits.MAX_PLUS_MINUS_PERCENT),
+                Map.entry("ParameterRangeInput/properties/spreadPercent/maximum", VerifyLimits.MAX_SPREAD_PERCENT),
                 Map.entry("SamplingInput/properties/samplePeriod/minimum", VerifyLimits.MIN_SAMPLE_PERIOD),
                 Map.entry("DisturbanceInput/properties/frequency/maximum", VerifyLimits.MAX_FREQUENCY),
                 Map.entry("DisturbanceInput/properties/amplitude/maximum", VerifyLimits.MAX_ABS_AMPLITUDE),

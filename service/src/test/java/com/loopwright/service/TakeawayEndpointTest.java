@@ -50,8 +50,8 @@ class TakeawayEndpointTest extends LiveServerTest {
 
     @Test
     void uncertaintyBandDrawsTheSpreadOverTheParameterBox() throws Exception {
-        String box = "\"verify\":{\"uncertainty\":{\"b\":{\"plusMinusPercent\":20},\"monteCarloSamples\":10,"
-                + "\"seed\":5}}";
+        String box =
+                "\"verify\":{\"uncertainty\":{\"b\":{\"spreadPercent\":20},\"monteCarloSamples\":10," + "\"seed\":5}}";
         String design = DESIGN.substring(0, DESIGN.length() - 1) + "," + box + "}";
         LiveServer.Reply reply = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + design + "}");
         assertEquals(200, reply.status(), reply.text());
@@ -69,7 +69,7 @@ class TakeawayEndpointTest extends LiveServerTest {
                 missing.json().at("/errors/0/pointer").asText());
 
         String unstable = DESIGN.substring(0, DESIGN.length() - 1)
-                + ",\"verify\":{\"uncertainty\":{\"a0\":{\"min\":-2000,\"max\":-1000}}}}";
+                + ",\"verify\":{\"uncertainty\":{\"a0\":{\"lowest\":-2000,\"highest\":-1000}}}}";
         LiveServer.Reply none = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + unstable + "}");
         assertEquals(422, none.status(), none.text());
     }

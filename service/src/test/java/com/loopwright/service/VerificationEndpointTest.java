@@ -30,20 +30,21 @@ class VerificationEndpointTest extends LiveServerTest {
 
     @Test
     void designWithEveryCheckReportsVerdicts() {
-        String verify = "\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"b\":{\"min\":380,\"max\":420},"
-                + "\"monteCarloSamples\":40,\"seed\":9},"
-                + "\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.05,\"start\":0.01},"
-                + "{\"shape\":\"pulse\",\"amplitude\":0.1,\"start\":0.01,\"duration\":0.02},"
-                + "{\"shape\":\"sinusoid\",\"amplitude\":0.02,\"frequency\":30},"
-                + "{\"shape\":\"randomBounded\",\"amplitude\":0.05,\"holdTime\":0.005,\"seed\":4}],"
-                + "\"actuatorLimit\":1.2,\"sampling\":{\"samplePeriod\":0.001,\"findLongest\":true},"
-                + "\"inputDelay\":0.0025,\"frequencyPoints\":40,\"timeSeriesPoints\":50}";
+        String verify =
+                "\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":20},\"b\":{\"lowest\":380,\"highest\":420},"
+                        + "\"monteCarloSamples\":40,\"seed\":9},"
+                        + "\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.05,\"start\":0.01},"
+                        + "{\"shape\":\"pulse\",\"amplitude\":0.1,\"start\":0.01,\"duration\":0.02},"
+                        + "{\"shape\":\"sinusoid\",\"amplitude\":0.02,\"frequency\":30},"
+                        + "{\"shape\":\"randomBounded\",\"amplitude\":0.05,\"holdTime\":0.005,\"seed\":4}],"
+                        + "\"actuatorLimit\":1.2,\"sampling\":{\"samplePeriod\":0.001,\"findLongest\":true},"
+                        + "\"inputDelay\":0.0025,\"frequencyPoints\":40,\"timeSeriesPoints\":50}";
         LiveServer.Reply reply = server.post("/v1/designs", "{" + AXIS + "," + verify + "}");
         assertEquals(200, reply.status(), reply.text());
         JsonNode r = reply.json().get("robustness");
         assertTrue(r.get("nominalMeetsSpec").asBoolean());
         assertEquals(4, r.at("/uncertainty/cornerCount").asInt());
-        double norm = r.at("/disturbanceChannel/hinfNorm").asDouble();
+        double norm = r.at("/disturbanceChannel/peakDisturbanceGain").asDouble();
         assertTrue(norm <= reply.json().get("gamma").asDouble());
         for (JsonNode d : r.get("disturbances")) {
             assertTrue(d.get("observedGain").asDouble() <= norm, d.toString());
@@ -104,9 +105,9 @@ class VerificationEndpointTest extends LiveServerTest {
                 "series points over cap   | {" + GAINS
                         + ",\"verify\":{\"timeSeriesPoints\":1001}}                 | 400 | /verify/timeSeriesPoints",
                 "b range through zero     | {" + GAINS
-                        + ",\"verify\":{\"uncertainty\":{\"b\":{\"min\":-1,\"max\":500}}}} | 400 | /verify/uncertainty/b",
+                        + ",\"verify\":{\"uncertainty\":{\"b\":{\"lowest\":-1,\"highest\":500}}}} | 400 | /verify/uncertainty/b",
                 "both range forms         | {" + GAINS
-                        + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":5,\"min\":0}}}} | 400 | /verify/uncertainty/a1",
+                        + ",\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":5,\"lowest\":0}}}} | 400 | /verify/uncertainty/a1",
                 "unknown shape            | {" + GAINS
                         + ",\"verify\":{\"disturbances\":[{\"shape\":\"chirp\",\"amplitude\":1}]}} | 400 | /verify/disturbances/0/shape",
                 "member of another shape  | {" + GAINS

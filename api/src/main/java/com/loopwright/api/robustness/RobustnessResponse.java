@@ -50,11 +50,11 @@ public record RobustnessResponse(
 
     /**
      * @param performanceOutput what z is: "z = [rho1 x1, rho2 x2, u]" or "x1"
-     * @param hinfNorm          H-infinity norm from w to z of the nominal loop
+     * @param peakDisturbanceGain the peak over frequency of the gain from w to z of the nominal loop (its H-infinity norm)
      * @param gamma             the bound it is checked against, if known
      */
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Disturbance(String performanceOutput, double hinfNorm, Double gamma) {}
+    public record Disturbance(String performanceOutput, double peakDisturbanceGain, Double gamma) {}
 
     @JsonInclude(JsonInclude.Include.NON_NULL)
     public record Margins(

@@ -149,10 +149,10 @@ final class GoldenCases {
     /** The verify section: every check alone, then several together. */
     private void verifyOptions() {
         String[] verify = {
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20}}}",
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"b\":{\"min\":266.7,\"max\":500},\"d\":{\"min\":266.7,\"max\":500},\"monteCarloSamples\":40,\"seed\":7}}",
-            "{\"uncertainty\":{\"a0\":{\"min\":-5,\"max\":5},\"monteCarloSamples\":10}}",
-            "{\"uncertainty\":{\"b\":{\"min\":-10,\"max\":10}}}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":20}}}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":20},\"b\":{\"lowest\":266.7,\"highest\":500},\"d\":{\"lowest\":266.7,\"highest\":500},\"monteCarloSamples\":40,\"seed\":7}}",
+            "{\"uncertainty\":{\"a0\":{\"lowest\":-5,\"highest\":5},\"monteCarloSamples\":10}}",
+            "{\"uncertainty\":{\"b\":{\"lowest\":-10,\"highest\":10}}}",
             "{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}]}",
             "{\"disturbances\":[{\"shape\":\"pulse\",\"amplitude\":0.05,\"start\":0.1,\"duration\":0.02}]}",
             "{\"disturbances\":[{\"shape\":\"sinusoid\",\"amplitude\":0.01,\"frequency\":30}]}",
@@ -169,10 +169,10 @@ final class GoldenCases {
             "{\"timeSeriesPoints\":12}",
             "{\"tolerancePercent\":0}",
             "{\"tolerancePercent\":50,\"actuatorLimit\":2,\"frequencyPoints\":5}",
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10}},\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}],\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001},\"inputDelay\":0.001,\"timeSeriesPoints\":5}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":10}},\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}],\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001},\"inputDelay\":0.001,\"timeSeriesPoints\":5}",
             "{\"frequencyPoints\":501}",
             "{\"uncertainty\":{\"monteCarloSamples\":2001}}",
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20,\"min\":0,\"max\":1}}}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":20,\"lowest\":0,\"highest\":1}}}",
             "{\"disturbances\":[{\"shape\":\"chirp\",\"amplitude\":1}]}",
             "{\"timeSeriesPoints\":10.7}",
             "{\"uncertainty\":{\"monteCarloSamples\":2.9}}",
@@ -187,7 +187,7 @@ final class GoldenCases {
         design(
                 "verify-tank-level",
                 "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":"
-                        + "60,\"overshootPercent\":2},\"verify\":{\"uncertainty\":{\"a0\":{\"plusMinusPercent\":30},"
+                        + "60,\"overshootPercent\":2},\"verify\":{\"uncertainty\":{\"a0\":{\"spreadPercent\":30},"
                         + "\"monteCarloSamples\":20},\"actuatorLimit\":100,\"sampling\":{\"samplePeriod\":0.5}}}");
     }
 
@@ -385,7 +385,7 @@ final class GoldenCases {
                     + ",\"performance\":{\"rho1\":1.444,\"rho2\":0.0260367,\"gamma\":2.5274}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"performance\":{\"rho1\":1.444,\"rho2\":0.0260367}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains
-                    + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"monteCarloSamples\":15,\"seed\":3}}}",
+                    + ",\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":20},\"monteCarloSamples\":15,\"seed\":3}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains
                     + ",\"verify\":{\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"inputDelay\":0.003,\"frequencyPoints\":10}}",
@@ -397,7 +397,7 @@ final class GoldenCases {
             "{\"plant\":{\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},\"gain\":{\"k1\":0.5,\"k2\":0.08,\"referenceGain\":0.63}}",
             "{\"plant\":{\"a0\":150,\"a1\":-1,\"b\":65,\"d\":6},\"gain\":{\"k1\":4,\"k2\":0.3,\"referenceGain\":6.3},\"verify\":{\"frequencyPoints\":8}}",
             "{\"plant\":{\"a0\":-20,\"a1\":0,\"b\":5,\"d\":1},\"gain\":{\"k1\":20,\"k2\":2,\"referenceGain\":16},\"spec\":{\"settlingTime\":2,\"overshootPercent\":5}}",
-            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"gain\":{\"k1\":2,\"k2\":3,\"referenceGain\":2.4},\"verify\":{\"uncertainty\":{\"b\":{\"plusMinusPercent\":25}}}}",
+            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"gain\":{\"k1\":2,\"k2\":3,\"referenceGain\":2.4},\"verify\":{\"uncertainty\":{\"b\":{\"spreadPercent\":25}}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"timeSeriesPoints\":6}}",
             "{\"plant\":" + AXIS_PLANT + "}",
             "{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":1,\"viscousFriction\":0,\"torqueConstant\":1}," + gains
@@ -518,7 +518,7 @@ final class GoldenCases {
         String[] designs = {
             AXIS,
             "{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":12,\"damping\":40,\"stiffness\":3000},\"spec\":{\"settlingTime\":0.5,\"overshootPercent\":2}}",
-            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"riseTime\":20,\"overshootPercent\":1},\"verify\":{\"uncertainty\":{\"a0\":{\"plusMinusPercent\":30},\"monteCarloSamples\":12,\"seed\":5}}}",
+            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"riseTime\":20,\"overshootPercent\":1},\"verify\":{\"uncertainty\":{\"a0\":{\"spreadPercent\":30},\"monteCarloSamples\":12,\"seed\":5}}}",
         };
         for (String figure : figures) {
             for (int i = 0; i < designs.length; i++) {
