@@ -85,6 +85,17 @@ class VerificationEndpointTest extends LiveServerTest {
                         .asText());
     }
 
+    /** A verification answer carries the four cautions of a design answer, word for word and in order. */
+    @Test
+    void verificationCarriesTheDesignCautions() {
+        LiveServer.Reply verified = server.post("/v1/verifications", "{" + GAINS + "}");
+        LiveServer.Reply designed = server.post("/v1/designs", "{" + AXIS + "}");
+        assertEquals(200, verified.status(), verified.text());
+        assertEquals(200, designed.status(), designed.text());
+        assertEquals(4, verified.json().get("cautions").size());
+        assertEquals(designed.json().get("cautions"), verified.json().get("cautions"));
+    }
+
     @Test
     void verificationWithoutSpecReportsNoVerdicts() {
         LiveServer.Reply reply = server.post("/v1/verifications", "{" + GAINS + "}");
