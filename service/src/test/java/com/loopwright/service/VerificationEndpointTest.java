@@ -85,6 +85,28 @@ class VerificationEndpointTest extends LiveServerTest {
                         .asText());
     }
 
+    /**
+     * The gain margin on the wire: stated unbounded (and no gainMargin member) for the indexing axis under state
+     * feedback, whose loop b (k1 + k2 s)/(s^2 + a1 s) never reaches -180 deg (relative degree 1); finite for
+     * a0 = 1, a1 = 3, b = 1, k1 = 1, k2 = -1, where L(2j) = -1/3 by hand and Routh-Hurwitz puts the stability
+     * boundary of s^2 + (3 - g) s + (1 + g) at a gain factor g = 3.
+     */
+    @Test
+    void gainMarginIsStatedUnboundedOrGivenFinite() {
+        JsonNode unbounded = server.post("/v1/verifications", "{" + GAINS + "}").json();
+        assertTrue(unbounded.at("/robustness/margins/gainMarginUnbounded").asBoolean(), unbounded.toString());
+        assertTrue(unbounded.at("/robustness/margins/gainMargin").isMissingNode());
+
+        LiveServer.Reply finite = server.post(
+                "/v1/verifications",
+                "{\"plant\":{\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},"
+                        + "\"gain\":{\"k1\":1,\"k2\":-1,\"referenceGain\":2}}");
+        assertEquals(200, finite.status(), finite.text());
+        JsonNode margins = finite.json().at("/robustness/margins");
+        assertFalse(margins.get("gainMarginUnbounded").asBoolean(), margins.toString());
+        assertEquals(3, margins.get("gainMargin").asDouble(), 1e-12);
+    }
+
     /** A verification answer carries the four cautions of a design answer, word for word and in order. */
     @Test
     void verificationCarriesTheDesignCautions() {

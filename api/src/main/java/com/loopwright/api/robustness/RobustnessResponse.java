@@ -56,12 +56,21 @@ public record RobustnessResponse(
     @JsonInclude(JsonInclude.Include.NON_NULL)
     public record Disturbance(String performanceOutput, double peakDisturbanceGain, Double gamma) {}
 
+    /**
+     * Margins of the loop broken at the plant input. An unbounded gain margin is stated by gainMarginUnbounded
+     * (always present); gainMargin is present only when it is bounded (JSON has no infinity).
+     *
+     * @param gainMargin          factor the loop gain may grow by before instability; absent when unbounded
+     * @param gainMarginUnbounded true when no phase crossover of -180 deg with |L| &lt; 1 exists, so the gain can
+     *                            grow without bound
+     */
     @JsonInclude(JsonInclude.Include.NON_NULL)
     public record Margins(
             Double crossoverFrequency,
             Double phaseMargin,
             Double delayMargin,
             Double gainMargin,
+            boolean gainMarginUnbounded,
             Double gainReductionMargin,
             double peakSensitivity,
             Double peakSensitivityFrequency,

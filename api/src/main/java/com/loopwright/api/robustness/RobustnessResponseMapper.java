@@ -177,6 +177,7 @@ public final class RobustnessResponseMapper {
                 m.phaseMarginDegrees(),
                 m.delayMarginSeconds(),
                 m.gainMargin(),
+                m.gainMarginUnbounded(),
                 m.gainReductionMargin(),
                 m.peakSensitivity(),
                 m.peakSensitivityRadPerSec(),

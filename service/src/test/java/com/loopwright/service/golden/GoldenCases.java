@@ -404,6 +404,8 @@ final class GoldenCases {
                     + "}",
             "{\"plant\":" + AXIS_PLANT + "," + gains
                     + ",\"verify\":{\"sampling\":{\"samplePeriod\":0.004,\"findLongest\":true}}}",
+            // a finite gain margin (3, by hand: L(2j) = -1/3): velocity fed back with the wrong sign
+            "{\"plant\":{\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},\"gain\":{\"k1\":1,\"k2\":-1,\"referenceGain\":2}}",
         };
         for (int i = 0; i < bodies.length; i++) {
             post(String.format(Locale.ROOT, "verification-%02d", i), "/v1/verifications", bodies[i]);
