@@ -45,7 +45,7 @@ try {
     () => document.getElementById('status').textContent.includes('figures ready'), null, { timeout: 20_000 });
 
   // 1. A shared link: the form is filled from the URL and the design runs on load.
-  const query = 'a0=0&a1=0.48&b=400&d=400&overshootPercent=1.5&timeKind=settlingTime&time=0.15&commandLimit=3';
+  const query = 'a0=0&a1=0.48&b=400&d=400&overshootPercent=1.5&timeKind=settlingTime&time=0.15&actuatorLimit=3';
   await page.goto(`${base}/?${query}`);
   let scenarios = 3;
   if (apiKey) {

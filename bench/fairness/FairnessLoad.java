@@ -26,8 +26,8 @@ public final class FairnessLoad {
     /** One item of 2036 work units: every coefficient +-10 % and 2000 Monte Carlo samples. */
     static final String HEAVY_ITEM = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5},\"verify\":{\"uncertainty\":{"
-            + "\"a0\":{\"plusMinusPercent\":10},\"a1\":{\"plusMinusPercent\":10},\"b\":{\"plusMinusPercent\":10},"
-            + "\"d\":{\"plusMinusPercent\":10},\"monteCarloSamples\":2000}}}";
+            + "\"a0\":{\"spreadPercent\":10},\"a1\":{\"spreadPercent\":10},\"b\":{\"spreadPercent\":10},"
+            + "\"d\":{\"spreadPercent\":10},\"monteCarloSamples\":2000}}}";
     /** 24 x 2036 = 48864 of the 50000 units a request may cost: the most CPU per unit of the cost model. */
     static final int HEAVY_ITEMS = 24;
     /** Cap on the latencies kept per phase (one single design at a time cannot exceed it in 20 s). */

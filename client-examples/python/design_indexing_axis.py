@@ -84,7 +84,7 @@ def main():
     print("u = %.6g*r - (%.6g*x1 + %.6g*x2), gamma = %.6g" % (gain["referenceGain"], gain["k1"], gain["k2"],
                                                             design["gamma"]))
     status, media, st = post(base, "/v1/designs/controllers/structured-text",
-                             {"design": DESIGN, "samplePeriodSeconds": 0.001, "commandLimit": 3})
+                             {"design": DESIGN, "samplePeriod": 0.001, "actuatorLimit": 3})
     if status != 200:
         fail_with_problem(status, st)
     if media != "text/plain" or "END_FUNCTION_BLOCK" not in st:

@@ -191,8 +191,7 @@ class ContractDriftTest {
                 Map.entry("VerifyInput/properties/tolerancePercent/default", VerifyLimits.DEFAULT_TOLERANCE_PERCENT),
                 Map.entry("VerifyInput/properties/actuatorLimit/maximum", VerifyLimits.MAX_ACTUATOR_LIMIT),
                 Map.entry("VerifyInput/properties/inputDelay/maximum", VerifyLimits.MAX_TIME_SECONDS),
-                Map.entry(
-                        "ParameterRangeInput/properties/plusMinusPercent/maximum", VerifyLimits.MAX_PLUS_MINUS_PERCENT),
+                Map.entry("ParameterRangeInput/properties/spreadPercent/maximum", VerifyLimits.MAX_SPREAD_PERCENT),
                 Map.entry("SamplingInput/properties/samplePeriod/minimum", VerifyLimits.MIN_SAMPLE_PERIOD),
                 Map.entry("DisturbanceInput/properties/frequency/maximum", VerifyLimits.MAX_FREQUENCY),
                 Map.entry("DisturbanceInput/properties/amplitude/maximum", VerifyLimits.MAX_ABS_AMPLITUDE),
@@ -434,10 +433,10 @@ class ContractDriftTest {
         assertTracedResponseMatchesSchema(
                 ControllerParameters.class, contract.component("ControllerParameters"), "ControllerParameters");
         Map<String, Double> expected = Map.of(
-                "ControllerRequest/properties/samplePeriodSeconds/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS,
-                "ControllerRequest/properties/samplePeriodSeconds/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS,
-                "ControllerRequest/properties/commandLimit/maximum", TakeawayLimits.MAX_COMMAND_LIMIT,
-                "PlotRequest/properties/commandLimit/maximum", TakeawayLimits.MAX_COMMAND_LIMIT);
+                "ControllerRequest/properties/samplePeriod/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD,
+                "ControllerRequest/properties/samplePeriod/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD,
+                "ControllerRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT,
+                "PlotRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT);
         expected.forEach((pointer, value) -> {
             JsonNode node = contract.document().at("/components/schemas/" + pointer);
             assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);

@@ -102,6 +102,30 @@ class FitEndpointTest extends LiveServerTest {
         assertEquals(wn * wn, designed.json().at("/plant/a0").asDouble(), 1e-9 * wn * wn);
     }
 
+    /**
+     * Notes and noteCodes run index for index: a clean logged step gets only the note that the plant designs
+     * directly; an input that strays 30 % of the step at one sample (tolerance 5 %) adds the unclean-step note.
+     */
+    @Test
+    void everyFitNoteHasItsCodeIndexForIndex() throws Exception {
+        ObjectNode clean = stepTest(1.6, 4, 0.45, 0, 2, 0.5, 5, 500, 0.01, 17, Double.POSITIVE_INFINITY);
+        var cleanReply = server.post("/v1/models/fit", JSON.writeValueAsString(clean));
+        assertEquals(200, cleanReply.status(), cleanReply.text());
+        assertEquals(
+                "[\"fittedPlantForDesign\"]", cleanReply.json().get("noteCodes").toString());
+        assertEquals(1, cleanReply.json().get("notes").size());
+
+        ObjectNode strayed = stepTest(1.6, 4, 0.45, 0, 2, 0.5, 5, 500, 0.01, 17, Double.POSITIVE_INFINITY);
+        ((ArrayNode) strayed.at("/samples/input")).set(300, 2 * 1.3);
+        var strayedReply = server.post("/v1/models/fit", JSON.writeValueAsString(strayed));
+        assertEquals(200, strayedReply.status(), strayedReply.text());
+        assertEquals(
+                "[\"inputNotCleanStep\",\"fittedPlantForDesign\"]",
+                strayedReply.json().get("noteCodes").toString());
+        assertTrue(strayedReply.json().at("/notes/0").asText().contains("not a clean step"));
+        assertTrue(strayedReply.json().at("/notes/1").asText().startsWith("plant is the fitted model"));
+    }
+
     @Test
     void deadTimeIsRecoveredAndFlagged() throws Exception {
         ObjectNode body = stepTest(1.0, 6, 0.6, 0.2, 1, 0.3, 3, 600, 0.003, 23, Double.POSITIVE_INFINITY);

@@ -21,8 +21,8 @@ class IntegerFieldsTest extends LiveServerTest {
     @CsvSource(
             delimiter = '|',
             value = {
-                "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10},\"monteCarloSamples\":2.9}} | /verify/uncertainty/monteCarloSamples",
-                "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10},\"monteCarloSamples\":3,\"seed\":7.9}} | /verify/uncertainty/seed",
+                "{\"uncertainty\":{\"a1\":{\"spreadPercent\":10},\"monteCarloSamples\":2.9}} | /verify/uncertainty/monteCarloSamples",
+                "{\"uncertainty\":{\"a1\":{\"spreadPercent\":10},\"monteCarloSamples\":3,\"seed\":7.9}} | /verify/uncertainty/seed",
                 "{\"timeSeriesPoints\":10.7} | /verify/timeSeriesPoints",
             })
     void aFractionInAnIntegerFieldIsA400AtTheField(String verify, String pointer) {

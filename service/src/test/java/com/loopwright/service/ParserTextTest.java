@@ -55,15 +55,14 @@ class ParserTextTest extends LiveServerTest {
                     "\"a1\":0.48,\"b\":400,\"d\":400"),
             new Host(
                     "/v1/designs/plots/bode",
-                    "{\"design\":{\"plant\":" + PLANT + ",\"spec\":@},\"commandLimit\":3}",
+                    "{\"design\":{\"plant\":" + PLANT + ",\"spec\":@},\"actuatorLimit\":3}",
                     "/design/spec",
                     "settlingTime",
                     "0.15",
                     SPEC_REST),
             new Host(
                     "/v1/designs/controllers/c",
-                    "{\"design\":{\"plant\":" + PLANT
-                            + ",\"spec\":@},\"samplePeriodSeconds\":0.001,\"commandLimit\":3}",
+                    "{\"design\":{\"plant\":" + PLANT + ",\"spec\":@},\"samplePeriod\":0.001,\"actuatorLimit\":3}",
                     "/design/spec",
                     "settlingTime",
                     "0.15",

@@ -34,7 +34,7 @@ class RandomVerificationRequestsTest {
                         "{\"plant\":{\"a0\":%.6g,\"a1\":%.6g,\"b\":%.6g,\"d\":%.6g},"
                                 + "\"gain\":{\"k1\":%.6g,\"k2\":%.6g,\"referenceGain\":%.6g},"
                                 + "\"spec\":{\"settlingTime\":%.6g,\"overshootPercent\":%.6g},"
-                                + "\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":%.3g},\"monteCarloSamples\":5},"
+                                + "\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":%.3g},\"monteCarloSamples\":5},"
                                 + "\"disturbances\":[{\"shape\":\"sinusoid\",\"amplitude\":1,\"frequency\":%.6g}],"
                                 + "\"actuatorLimit\":%.6g,\"sampling\":{\"samplePeriod\":%.6g},\"inputDelay\":%.6g,"
                                 + "\"frequencyPoints\":10,\"timeSeriesPoints\":20}}",

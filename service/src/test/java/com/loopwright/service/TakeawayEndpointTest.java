@@ -50,8 +50,8 @@ class TakeawayEndpointTest extends LiveServerTest {
 
     @Test
     void uncertaintyBandDrawsTheSpreadOverTheParameterBox() throws Exception {
-        String box = "\"verify\":{\"uncertainty\":{\"b\":{\"plusMinusPercent\":20},\"monteCarloSamples\":10,"
-                + "\"seed\":5}}";
+        String box =
+                "\"verify\":{\"uncertainty\":{\"b\":{\"spreadPercent\":20},\"monteCarloSamples\":10," + "\"seed\":5}}";
         String design = DESIGN.substring(0, DESIGN.length() - 1) + "," + box + "}";
         LiveServer.Reply reply = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + design + "}");
         assertEquals(200, reply.status(), reply.text());
@@ -69,7 +69,7 @@ class TakeawayEndpointTest extends LiveServerTest {
                 missing.json().at("/errors/0/pointer").asText());
 
         String unstable = DESIGN.substring(0, DESIGN.length() - 1)
-                + ",\"verify\":{\"uncertainty\":{\"a0\":{\"min\":-2000,\"max\":-1000}}}}";
+                + ",\"verify\":{\"uncertainty\":{\"a0\":{\"lowest\":-2000,\"highest\":-1000}}}}";
         LiveServer.Reply none = server.post("/v1/designs/plots/uncertainty-band", "{\"design\":" + unstable + "}");
         assertEquals(422, none.status(), none.text());
     }
@@ -111,7 +111,7 @@ class TakeawayEndpointTest extends LiveServerTest {
     @Test
     void controlEffortShowsTheActuatorLimitAndBodeShowsTheMargins() throws Exception {
         LiveServer.Reply effort =
-                server.post("/v1/designs/plots/control-effort", "{\"design\":" + DESIGN + ",\"commandLimit\":3}");
+                server.post("/v1/designs/plots/control-effort", "{\"design\":" + DESIGN + ",\"actuatorLimit\":3}");
         assertEquals(200, effort.status());
         Document effortSvg = parseSafely(effort.text());
         assertEquals(3, countClass(effortSvg, "line", "limit")); // +limit, -limit and the legend swatch
@@ -134,7 +134,7 @@ class TakeawayEndpointTest extends LiveServerTest {
         JsonNode design = server.post("/v1/designs", DESIGN).json();
         LiveServer.Reply reply = server.post(
                 "/v1/designs/controllers/parameters",
-                "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
+                "{\"design\":" + DESIGN + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}");
         assertEquals(200, reply.status());
         String violations =
                 contract.violations("/v1/designs/controllers/{format}", "post", 200, "application/json", reply.json());
@@ -158,7 +158,7 @@ class TakeawayEndpointTest extends LiveServerTest {
 
     @Test
     void structuredTextAndCCarryGainsAndCautions() {
-        String body = "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}";
+        String body = "{\"design\":" + DESIGN + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}";
         LiveServer.Reply st = server.post("/v1/designs/controllers/structured-text", body);
         assertEquals(200, st.status());
         assertEquals("text/plain", st.contentType());
@@ -169,7 +169,7 @@ class TakeawayEndpointTest extends LiveServerTest {
         assertEquals(200, c.status());
         assertEquals("text/x-c", c.contentType());
         assertTrue(c.text().contains("double lw_state_feedback_command("));
-        assertTrue(c.text().contains("#define LW_COMMAND_LIMIT (3.0)"));
+        assertTrue(c.text().contains("#define LW_ACTUATOR_LIMIT (3.0)"));
     }
 
     @Test
@@ -178,9 +178,8 @@ class TakeawayEndpointTest extends LiveServerTest {
         assertEquals(404, unknown.status());
         LiveServer.Reply missing = server.post("/v1/designs/controllers/c", "{\"design\":" + DESIGN + "}");
         assertEquals(400, missing.status());
-        assertEquals(
-                "/samplePeriodSeconds", missing.json().at("/errors/0/pointer").asText());
-        assertEquals("/commandLimit", missing.json().at("/errors/1/pointer").asText());
+        assertEquals("/samplePeriod", missing.json().at("/errors/0/pointer").asText());
+        assertEquals("/actuatorLimit", missing.json().at("/errors/1/pointer").asText());
         LiveServer.Reply badSpec = server.post(
                 "/v1/designs/plots/bode",
                 "{\"design\":{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
@@ -191,10 +190,9 @@ class TakeawayEndpointTest extends LiveServerTest {
                 badSpec.json().at("/errors/0/pointer").asText());
         LiveServer.Reply tooSlow = server.post(
                 "/v1/designs/controllers/structured-text",
-                "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.05,\"commandLimit\":3}");
+                "{\"design\":" + DESIGN + ",\"samplePeriod\":0.05,\"actuatorLimit\":3}");
         assertEquals(422, tooSlow.status());
-        assertEquals(
-                "/samplePeriodSeconds", tooSlow.json().at("/errors/0/pointer").asText());
+        assertEquals("/samplePeriod", tooSlow.json().at("/errors/0/pointer").asText());
         assertTrue(tooSlow.json().get("detail").asText().contains("too long"));
         LiveServer.Reply infeasible = server.post(
                 "/v1/designs/plots/step-response",
@@ -206,7 +204,7 @@ class TakeawayEndpointTest extends LiveServerTest {
                 server.post("/v1/designs/plots/bode", "{\"design\":" + DESIGN + ",\"colour\":\"red\"}");
         assertEquals(400, unknownField.status());
         LiveServer.Reply negativeLimit =
-                server.post("/v1/designs/plots/control-effort", "{\"design\":" + DESIGN + ",\"commandLimit\":-1}");
+                server.post("/v1/designs/plots/control-effort", "{\"design\":" + DESIGN + ",\"actuatorLimit\":-1}");
         assertEquals(400, negativeLimit.status());
         LiveServer.Reply text = server.post("/v1/designs/plots/bode", "{\"design\":" + DESIGN + "}", "text/plain");
         assertEquals(415, text.status());

@@ -120,7 +120,7 @@ class TraceHeadersTest {
 
     @Test
     void exportedControllersStateTheVersionAndTheDigest() throws Exception {
-        String body = "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":10}";
+        String body = "{\"design\":" + DESIGN + ",\"samplePeriod\":0.001,\"actuatorLimit\":10}";
         for (String format : new String[] {"c", "structured-text"}) {
             HttpResponse<String> code = post("/v1/designs/controllers/" + format, body);
             assertEquals(200, code.statusCode(), code.body());

@@ -30,20 +30,21 @@ class VerificationEndpointTest extends LiveServerTest {
 
     @Test
     void designWithEveryCheckReportsVerdicts() {
-        String verify = "\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"b\":{\"min\":380,\"max\":420},"
-                + "\"monteCarloSamples\":40,\"seed\":9},"
-                + "\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.05,\"start\":0.01},"
-                + "{\"shape\":\"pulse\",\"amplitude\":0.1,\"start\":0.01,\"duration\":0.02},"
-                + "{\"shape\":\"sinusoid\",\"amplitude\":0.02,\"frequency\":30},"
-                + "{\"shape\":\"randomBounded\",\"amplitude\":0.05,\"holdTime\":0.005,\"seed\":4}],"
-                + "\"actuatorLimit\":1.2,\"sampling\":{\"samplePeriod\":0.001,\"findLongest\":true},"
-                + "\"inputDelay\":0.0025,\"frequencyPoints\":40,\"timeSeriesPoints\":50}";
+        String verify =
+                "\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":20},\"b\":{\"lowest\":380,\"highest\":420},"
+                        + "\"monteCarloSamples\":40,\"seed\":9},"
+                        + "\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.05,\"start\":0.01},"
+                        + "{\"shape\":\"pulse\",\"amplitude\":0.1,\"start\":0.01,\"duration\":0.02},"
+                        + "{\"shape\":\"sinusoid\",\"amplitude\":0.02,\"frequency\":30},"
+                        + "{\"shape\":\"randomBounded\",\"amplitude\":0.05,\"holdTime\":0.005,\"seed\":4}],"
+                        + "\"actuatorLimit\":1.2,\"sampling\":{\"samplePeriod\":0.001,\"findLongest\":true},"
+                        + "\"inputDelay\":0.0025,\"frequencyPoints\":40,\"timeSeriesPoints\":50}";
         LiveServer.Reply reply = server.post("/v1/designs", "{" + AXIS + "," + verify + "}");
         assertEquals(200, reply.status(), reply.text());
         JsonNode r = reply.json().get("robustness");
         assertTrue(r.get("nominalMeetsSpec").asBoolean());
         assertEquals(4, r.at("/uncertainty/cornerCount").asInt());
-        double norm = r.at("/disturbanceChannel/hinfNorm").asDouble();
+        double norm = r.at("/disturbanceChannel/peakDisturbanceGain").asDouble();
         assertTrue(norm <= reply.json().get("gamma").asDouble());
         for (JsonNode d : r.get("disturbances")) {
             assertTrue(d.get("observedGain").asDouble() <= norm, d.toString());
@@ -84,6 +85,39 @@ class VerificationEndpointTest extends LiveServerTest {
                         .asText());
     }
 
+    /**
+     * The gain margin on the wire: stated unbounded (and no gainMargin member) for the indexing axis under state
+     * feedback, whose loop b (k1 + k2 s)/(s^2 + a1 s) never reaches -180 deg (relative degree 1); finite for
+     * a0 = 1, a1 = 3, b = 1, k1 = 1, k2 = -1, where L(2j) = -1/3 by hand and Routh-Hurwitz puts the stability
+     * boundary of s^2 + (3 - g) s + (1 + g) at a gain factor g = 3.
+     */
+    @Test
+    void gainMarginIsStatedUnboundedOrGivenFinite() {
+        JsonNode unbounded = server.post("/v1/verifications", "{" + GAINS + "}").json();
+        assertTrue(unbounded.at("/robustness/margins/gainMarginUnbounded").asBoolean(), unbounded.toString());
+        assertTrue(unbounded.at("/robustness/margins/gainMargin").isMissingNode());
+
+        LiveServer.Reply finite = server.post(
+                "/v1/verifications",
+                "{\"plant\":{\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},"
+                        + "\"gain\":{\"k1\":1,\"k2\":-1,\"referenceGain\":2}}");
+        assertEquals(200, finite.status(), finite.text());
+        JsonNode margins = finite.json().at("/robustness/margins");
+        assertFalse(margins.get("gainMarginUnbounded").asBoolean(), margins.toString());
+        assertEquals(3, margins.get("gainMargin").asDouble(), 1e-12);
+    }
+
+    /** A verification answer carries the four cautions of a design answer, word for word and in order. */
+    @Test
+    void verificationCarriesTheDesignCautions() {
+        LiveServer.Reply verified = server.post("/v1/verifications", "{" + GAINS + "}");
+        LiveServer.Reply designed = server.post("/v1/designs", "{" + AXIS + "}");
+        assertEquals(200, verified.status(), verified.text());
+        assertEquals(200, designed.status(), designed.text());
+        assertEquals(4, verified.json().get("cautions").size());
+        assertEquals(designed.json().get("cautions"), verified.json().get("cautions"));
+    }
+
     @Test
     void verificationWithoutSpecReportsNoVerdicts() {
         LiveServer.Reply reply = server.post("/v1/verifications", "{" + GAINS + "}");
@@ -104,9 +138,9 @@ class VerificationEndpointTest extends LiveServerTest {
                 "series points over cap   | {" + GAINS
                         + ",\"verify\":{\"timeSeriesPoints\":1001}}                 | 400 | /verify/timeSeriesPoints",
                 "b range through zero     | {" + GAINS
-                        + ",\"verify\":{\"uncertainty\":{\"b\":{\"min\":-1,\"max\":500}}}} | 400 | /verify/uncertainty/b",
+                        + ",\"verify\":{\"uncertainty\":{\"b\":{\"lowest\":-1,\"highest\":500}}}} | 400 | /verify/uncertainty/b",
                 "both range forms         | {" + GAINS
-                        + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":5,\"min\":0}}}} | 400 | /verify/uncertainty/a1",
+                        + ",\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":5,\"lowest\":0}}}} | 400 | /verify/uncertainty/a1",
                 "unknown shape            | {" + GAINS
                         + ",\"verify\":{\"disturbances\":[{\"shape\":\"chirp\",\"amplitude\":1}]}} | 400 | /verify/disturbances/0/shape",
                 "member of another shape  | {" + GAINS

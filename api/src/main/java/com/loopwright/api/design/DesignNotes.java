@@ -64,14 +64,14 @@ public record DesignNotes(List<String> texts, List<String> codes) {
      *
      * @param overshootPercent      the overshoot as sent [%]
      * @param actuatorLimit         verify.actuatorLimit in u units, or null
-     * @param samplePeriodSeconds   verify.sampling.samplePeriod [s], or null
+     * @param samplePeriod   verify.sampling.samplePeriod [s], or null
      * @param conditionNote         the ill-conditioning note of a state-space plant, or null
      */
     static DesignNotes of(
             DesignReport report,
             double overshootPercent,
             Double actuatorLimit,
-            Double samplePeriodSeconds,
+            Double samplePeriod,
             String conditionNote) {
         Builder notes = new Builder();
         ClosedFormDesign design = report.design();
@@ -153,7 +153,7 @@ public record DesignNotes(List<String> texts, List<String> codes) {
                             ownFrequency(design.plant())));
         }
         double settling = metrics.settlingTimeSeconds();
-        if (samplePeriodSeconds != null && settling < MIN_SAMPLES_PER_SETTLING * samplePeriodSeconds) {
+        if (samplePeriod != null && settling < MIN_SAMPLES_PER_SETTLING * samplePeriod) {
             notes.add(
                     SETTLING_WITHIN_FEW_SAMPLES,
                     String.format(
@@ -162,8 +162,8 @@ public record DesignNotes(List<String> texts, List<String> codes) {
                                     + " fewer than %d: a controller sampled this slowly cannot be judged as the"
                                     + " continuous design; sample faster or ask for a slower loop.",
                             settling,
-                            settling / samplePeriodSeconds,
-                            samplePeriodSeconds,
+                            settling / samplePeriod,
+                            samplePeriod,
                             MIN_SAMPLES_PER_SETTLING));
         }
         return notes.build();

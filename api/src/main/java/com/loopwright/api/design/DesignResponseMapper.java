@@ -46,7 +46,7 @@ public final class DesignResponseMapper {
                 report,
                 100 * request.spec().overshootFraction(),
                 verifyOptions == null ? null : verifyOptions.actuatorLimit(),
-                verifyOptions == null ? null : verifyOptions.samplePeriodSeconds(),
+                verifyOptions == null ? null : verifyOptions.samplePeriod(),
                 ModelMapper.conditionNote(request.resolvedPlant()));
         return new DesignResponse(
                 new DesignResponse.Plant(

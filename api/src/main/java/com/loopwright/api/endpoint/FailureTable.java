@@ -25,8 +25,8 @@ public final class FailureTable {
     private static final String UNCONTROLLABLE_POINTER = "/plant/stateSpace/b2";
     private static final String NO_DC_GAIN_POINTER = "/plant/stateSpace/output";
     private static final String FIT_POINTER = "/samples/output";
-    private static final String SAMPLE_PERIOD_POINTER = "/samplePeriodSeconds";
-    private static final String COMMAND_LIMIT_POINTER = "/commandLimit";
+    private static final String SAMPLE_PERIOD_POINTER = "/samplePeriod";
+    private static final String ACTUATOR_LIMIT_POINTER = "/actuatorLimit";
     private static final String SPEC_PREFIX = "/spec/";
 
     private FailureTable() {}
@@ -88,7 +88,7 @@ public final class FailureTable {
                         ProblemType.INFEASIBLE_SPEC,
                         SolverFailure.SAMPLE_PERIOD.equals(failure.subject())
                                 ? SAMPLE_PERIOD_POINTER
-                                : COMMAND_LIMIT_POINTER,
+                                : ACTUATOR_LIMIT_POINTER,
                         message);
         };
     }

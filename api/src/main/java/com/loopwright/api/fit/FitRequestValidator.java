@@ -48,7 +48,7 @@ public final class FitRequestValidator {
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
-        List<String> notes = new ArrayList<>();
+        FitNotes notes = FitNotes.NONE;
         double stepTime = request.stepTime() == null ? 0 : request.stepTime();
         double amplitude = request.stepAmplitude() == null ? 1 : request.stepAmplitude();
         String source = request.stepTime() == null && request.stepAmplitude() == null ? "default" : "request";
@@ -79,10 +79,12 @@ public final class FitRequestValidator {
                 worst = Math.max(worst, Math.abs(input[i] - initial));
             }
             if (worst > CLEAN_STEP_TOLERANCE * Math.abs(amplitude)) {
-                notes.add(String.format(
-                        "The logged input is not a clean step (it strays %.0f%% of the step from"
-                                + " its levels); the fit assumes an ideal step of %.6g at t = %.6g s.",
-                        100 * worst / Math.abs(amplitude), amplitude, stepTime));
+                notes = notes.with(
+                        FitNotes.INPUT_NOT_CLEAN_STEP,
+                        String.format(
+                                "The logged input is not a clean step (it strays %.0f%% of the step from"
+                                        + " its levels); the fit assumes an ideal step of %.6g at t = %.6g s.",
+                                100 * worst / Math.abs(amplitude), amplitude, stepTime));
             }
             source = "input";
         }

@@ -14,6 +14,8 @@ import java.util.List;
  * @param step       the step the fit assumed
  * @param quality    fit quality
  * @param warnings   findings that limit what the model can be trusted for
+ * @param notes      remarks on the data and on using the model, in engineering words
+ * @param noteCodes  the stable code of each note, index for index with notes
  */
 public record FitResponse(
         FittedPlant plant,
@@ -24,12 +26,14 @@ public record FitResponse(
         Quality quality,
         List<WarningView> warnings,
         List<String> notes,
+        List<String> noteCodes,
         List<String> cautions) {
 
     public FitResponse {
         parameters = List.copyOf(parameters);
         warnings = List.copyOf(warnings);
         notes = List.copyOf(notes);
+        noteCodes = List.copyOf(noteCodes);
         cautions = List.copyOf(cautions);
     }
 

@@ -5,7 +5,6 @@ import com.loopwright.api.plant.PlantFormName;
 import com.loopwright.solver.plant.FitWarning;
 import com.loopwright.solver.plant.FittedParameter;
 import com.loopwright.solver.plant.StepFit;
-import java.util.ArrayList;
 import java.util.List;
 
 /** A step-test fit to the wire record of POST /v1/models/fit. */
@@ -14,9 +13,11 @@ public final class FitResponseMapper {
     public FitResponse toResponse(ValidatedFit request, StepFit fit) {
         List<FitResponse.ParameterView> parameters =
                 fit.parameters().stream().map(FitResponseMapper::view).toList();
-        List<String> notes = new ArrayList<>(request.notes());
-        notes.add("plant is the fitted model as a secondOrderTransferFunction: pass it as the plant of POST"
-                + " /v1/designs. The disturbance is then assumed to enter at the plant input.");
+        FitNotes notes = request.notes()
+                .with(
+                        FitNotes.FITTED_PLANT_FOR_DESIGN,
+                        "plant is the fitted model as a secondOrderTransferFunction: pass it as the plant of POST"
+                                + " /v1/designs. The disturbance is then assumed to enter at the plant input.");
         return new FitResponse(
                 new FitResponse.FittedPlant(
                         PlantFormName.SECOND_ORDER_TRANSFER_FUNCTION.wireName(),
@@ -36,7 +37,8 @@ public final class FitResponseMapper {
                         fit.iterations(),
                         fit.evaluations()),
                 fit.warnings().stream().map(FitResponseMapper::view).toList(),
-                notes,
+                notes.texts(),
+                notes.codes(),
                 Cautions.ALL);
     }
 

@@ -124,28 +124,28 @@ public final class DesignFigures {
     /**
      * The command of the same step.
      *
-     * @param commandLimit actuator limit drawn on the figure, if given
+     * @param actuatorLimit actuator limit drawn on the figure, if given
      */
-    public String controlEffort(DesignReport report, StepSeries step, OptionalDouble commandLimit) {
+    public String controlEffort(DesignReport report, StepSeries step, OptionalDouble actuatorLimit) {
         double[] u = step.control();
         double low = Math.min(0, min(u));
         double high = Math.max(0, max(u));
-        if (commandLimit.isPresent()) {
-            low = Math.min(low, -commandLimit.getAsDouble());
-            high = Math.max(high, commandLimit.getAsDouble());
+        if (actuatorLimit.isPresent()) {
+            low = Math.min(low, -actuatorLimit.getAsDouble());
+            high = Math.max(high, actuatorLimit.getAsDouble());
         }
         StringBuilder svg = open(1, "Control effort u(t) for the same step");
         SvgPanel panel = timePanel(svg, report, low, high);
         panel.frame("time t [s]", "command u [u units]");
-        if (commandLimit.isPresent()) {
-            double limit = commandLimit.getAsDouble();
+        if (actuatorLimit.isPresent()) {
+            double limit = actuatorLimit.getAsDouble();
             panel.horizontal("limit", limit, "actuator limit +" + format(limit));
             panel.horizontal("limit", -limit, "actuator limit -" + format(limit));
         }
         panel.polyline("series", step.timeSeconds(), u);
         double peak = report.stepMetrics().peakControl();
         panel.marker("point", 0, u[0], "peak |u| " + format(peak));
-        legend(svg, "u(t) = kr r - (k1 x1 + k2 x2)", commandLimit.isPresent() ? "limit" : null, "actuator limit");
+        legend(svg, "u(t) = kr r - (k1 x1 + k2 x2)", actuatorLimit.isPresent() ? "limit" : null, "actuator limit");
         return close(svg);
     }
 

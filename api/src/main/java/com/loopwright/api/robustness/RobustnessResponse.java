@@ -50,18 +50,27 @@ public record RobustnessResponse(
 
     /**
      * @param performanceOutput what z is: "z = [rho1 x1, rho2 x2, u]" or "x1"
-     * @param hinfNorm          H-infinity norm from w to z of the nominal loop
+     * @param peakDisturbanceGain the peak over frequency of the gain from w to z of the nominal loop (its H-infinity norm)
      * @param gamma             the bound it is checked against, if known
      */
     @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Disturbance(String performanceOutput, double hinfNorm, Double gamma) {}
+    public record Disturbance(String performanceOutput, double peakDisturbanceGain, Double gamma) {}
 
+    /**
+     * Margins of the loop broken at the plant input. An unbounded gain margin is stated by gainMarginUnbounded
+     * (always present); gainMargin is present only when it is bounded (JSON has no infinity).
+     *
+     * @param gainMargin          factor the loop gain may grow by before instability; absent when unbounded
+     * @param gainMarginUnbounded true when no phase crossover of -180 deg with |L| &lt; 1 exists, so the gain can
+     *                            grow without bound
+     */
     @JsonInclude(JsonInclude.Include.NON_NULL)
     public record Margins(
             Double crossoverFrequency,
             Double phaseMargin,
             Double delayMargin,
             Double gainMargin,
+            boolean gainMarginUnbounded,
             Double gainReductionMargin,
             double peakSensitivity,
             Double peakSensitivityFrequency,

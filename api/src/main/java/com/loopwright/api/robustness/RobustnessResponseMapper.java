@@ -130,7 +130,7 @@ public final class RobustnessResponseMapper {
         if (report.sampled() != null) {
             SampledReport s = report.sampled();
             sampled = new RobustnessResponse.Sampled(
-                    s.samplePeriodSeconds(),
+                    s.samplePeriod(),
                     s.spectralRadius(),
                     s.emulated() == null ? null : metrics(s.emulated()),
                     wire(s.emulatedMeetsSpec()),
@@ -157,7 +157,7 @@ public final class RobustnessResponseMapper {
             DelayReport d = report.delay();
             delay = new RobustnessResponse.Delay(
                     d.delaySeconds(),
-                    d.samplePeriodSeconds(),
+                    d.samplePeriod(),
                     d.delayMarginSeconds(),
                     wire(d.withinMargin()),
                     d.diverges(),
@@ -177,6 +177,7 @@ public final class RobustnessResponseMapper {
                 m.phaseMarginDegrees(),
                 m.delayMarginSeconds(),
                 m.gainMargin(),
+                m.gainMarginUnbounded(),
                 m.gainReductionMargin(),
                 m.peakSensitivity(),
                 m.peakSensitivityRadPerSec(),

@@ -8,7 +8,7 @@ import static com.loopwright.api.robustness.VerifyLimits.MAX_DISTURBANCES;
 import static com.loopwright.api.robustness.VerifyLimits.MAX_FREQUENCY;
 import static com.loopwright.api.robustness.VerifyLimits.MAX_FREQUENCY_POINTS;
 import static com.loopwright.api.robustness.VerifyLimits.MAX_MONTE_CARLO_SAMPLES;
-import static com.loopwright.api.robustness.VerifyLimits.MAX_PLUS_MINUS_PERCENT;
+import static com.loopwright.api.robustness.VerifyLimits.MAX_SPREAD_PERCENT;
 import static com.loopwright.api.robustness.VerifyLimits.MAX_TIME_SECONDS;
 import static com.loopwright.api.robustness.VerifyLimits.MAX_TIME_SERIES_POINTS;
 import static com.loopwright.api.robustness.VerifyLimits.MAX_TOLERANCE_PERCENT;
@@ -122,42 +122,41 @@ public final class VerifyInputValidator {
                 tolerance / 100);
     }
 
-    /** {min, max} of one parameter, or null with an error. Absent: fixed at nominal. */
+    /** {lowest, highest} of one parameter, or null with an error. Absent: fixed at nominal. */
     private static double[] range(List<FieldError> errors, String pointer, ParameterRangeInput input, double nominal) {
         if (input == null) {
             return new double[] {nominal, nominal};
         }
-        boolean relative = input.plusMinusPercent() != null;
-        boolean absolute = input.min() != null || input.max() != null;
+        boolean relative = input.spreadPercent() != null;
+        boolean absolute = input.lowest() != null || input.highest() != null;
         if (relative == absolute) {
-            errors.add(new FieldError(pointer, "give either plusMinusPercent or both min and max"));
+            errors.add(new FieldError(pointer, "give either spreadPercent or both lowest and highest"));
             return null;
         }
         if (relative) {
-            double percent = input.plusMinusPercent();
-            if (!(percent >= 0 && percent <= MAX_PLUS_MINUS_PERCENT)) {
-                errors.add(new FieldError(
-                        pointer + "/plusMinusPercent", "must be from 0 to " + fmt(MAX_PLUS_MINUS_PERCENT)));
+            double percent = input.spreadPercent();
+            if (!(percent >= 0 && percent <= MAX_SPREAD_PERCENT)) {
+                errors.add(new FieldError(pointer + "/spreadPercent", "must be from 0 to " + fmt(MAX_SPREAD_PERCENT)));
                 return null;
             }
             double spread = Math.abs(nominal) * percent / 100;
             return new double[] {nominal - spread, nominal + spread};
         }
-        if (input.min() == null || input.max() == null) {
-            errors.add(
-                    new FieldError(pointer + (input.min() == null ? "/min" : "/max"), "required with the other bound"));
+        if (input.lowest() == null || input.highest() == null) {
+            errors.add(new FieldError(
+                    pointer + (input.lowest() == null ? "/lowest" : "/highest"), "required with the other bound"));
             return null;
         }
         double limit = 1e8;
-        if (!(Math.abs(input.min()) <= limit && Math.abs(input.max()) <= limit)) {
+        if (!(Math.abs(input.lowest()) <= limit && Math.abs(input.highest()) <= limit)) {
             errors.add(new FieldError(pointer, "bounds must be finite with magnitude at most 1e8"));
             return null;
         }
-        if (input.min() > input.max()) {
-            errors.add(new FieldError(pointer + "/min", "must not exceed max"));
+        if (input.lowest() > input.highest()) {
+            errors.add(new FieldError(pointer + "/lowest", "must not exceed highest"));
             return null;
         }
-        return new double[] {input.min(), input.max()};
+        return new double[] {input.lowest(), input.highest()};
     }
 
     private static DisturbanceProfile profile(List<FieldError> errors, String pointer, DisturbanceInput input) {

@@ -8,7 +8,7 @@ public final class VerifyLimits {
     public static final int MAX_FREQUENCY_POINTS = 500;
     public static final int MIN_TIME_SERIES_POINTS = 2;
     public static final int MAX_TIME_SERIES_POINTS = 1000;
-    public static final double MAX_PLUS_MINUS_PERCENT = 90;
+    public static final double MAX_SPREAD_PERCENT = 90;
     public static final double MAX_ABS_AMPLITUDE = 1e9;
     public static final double MAX_TIME_SECONDS = 1e4;
     public static final double MIN_SAMPLE_PERIOD = 1e-7;

@@ -42,7 +42,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
     private final ExportPipeline exports = new ExportPipeline();
 
-    record Validated(ValidatedDesign design, double samplePeriodSeconds, double commandLimit) {}
+    record Validated(ValidatedDesign design, double samplePeriod, double actuatorLimit) {}
 
     /** @param format one of {@link Takeaways#FORMATS} */
     ControllerEndpoint(String format) {
@@ -57,28 +57,27 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     @Override
     public Validated validate(ControllerRequest request) {
         if (request == null) {
-            throw new InvalidRequestException(List.of(
-                    new FieldError("", "a JSON object with design," + " samplePeriodSeconds and commandLimit")));
+            throw new InvalidRequestException(
+                    List.of(new FieldError("", "a JSON object with design," + " samplePeriod and actuatorLimit")));
         }
         List<FieldError> errors = new ArrayList<>();
-        Double period = request.samplePeriodSeconds();
+        Double period = request.samplePeriod();
         if (period == null) {
-            errors.add(new FieldError("/samplePeriodSeconds", "required"));
-        } else if (!(period >= TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS
-                && period <= TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS)) {
+            errors.add(new FieldError("/samplePeriod", "required"));
+        } else if (!(period >= TakeawayLimits.MIN_SAMPLE_PERIOD && period <= TakeawayLimits.MAX_SAMPLE_PERIOD)) {
             errors.add(new FieldError(
-                    "/samplePeriodSeconds",
-                    "must be a finite number from " + TakeawayLimits.MIN_SAMPLE_PERIOD_SECONDS + " to "
-                            + TakeawayLimits.MAX_SAMPLE_PERIOD_SECONDS));
+                    "/samplePeriod",
+                    "must be a finite number from " + TakeawayLimits.MIN_SAMPLE_PERIOD + " to "
+                            + TakeawayLimits.MAX_SAMPLE_PERIOD));
         }
-        if (request.commandLimit() == null) {
-            errors.add(new FieldError("/commandLimit", "required"));
+        if (request.actuatorLimit() == null) {
+            errors.add(new FieldError("/actuatorLimit", "required"));
         } else {
             TakeawayDesign.optionalPositive(
-                    errors, "/commandLimit", request.commandLimit(), TakeawayLimits.MAX_COMMAND_LIMIT);
+                    errors, "/actuatorLimit", request.actuatorLimit(), TakeawayLimits.MAX_ACTUATOR_LIMIT);
         }
         ValidatedDesign design = designRequests.validate(request.design(), errors);
-        return new Validated(design, period, request.commandLimit());
+        return new Validated(design, period, request.actuatorLimit());
     }
 
     @Override
@@ -86,7 +85,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
         ValidatedDesign design = validated.design();
         DesignReport report = designs.design(
                 design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
-        return exports.export(report, validated.samplePeriodSeconds(), validated.commandLimit());
+        return exports.export(report, validated.samplePeriod(), validated.actuatorLimit());
     }
 
     @Override
@@ -128,14 +127,14 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
         SampledLaw law = export.law();
         StepMetrics continuous = report.stepMetrics();
         return new ControllerParameters(
-                "u = clamp(kr*r - (k1*x1 + k2*x2), -commandLimit, commandLimit), evaluated once per sample period"
+                "u = clamp(kr*r - (k1*x1 + k2*x2), -actuatorLimit, actuatorLimit), evaluated once per sample period"
                         + " and held until the next",
                 "emulation",
-                law.samplePeriodSeconds(),
+                law.samplePeriod(),
                 law.positionGain(),
                 law.velocityGain(),
                 law.referenceGain(),
-                law.commandLimit(),
+                law.actuatorLimit(),
                 law.sampledSpectralRadius(),
                 law.periodPerTimeConstant(),
                 report.design().gamma(),
@@ -192,7 +191,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                                 Locale.ROOT,
                                 "Simulated (sampled at T = %s s, zero-order hold,"
                                         + " unclamped, between samples): rise %s, settling %s, overshoot %.5g%%, peak |u| %.5g",
-                                law.samplePeriodSeconds(),
+                                law.samplePeriod(),
                                 seconds(m.riseTimeSeconds()),
                                 seconds(m.settlingTimeSeconds()),
                                 m.overshootPercent(),

@@ -9,16 +9,16 @@ import java.util.List;
  *
  * @param law                   the law in words, u = clamp(kr r - (k1 x1 + k2 x2), -limit, limit)
  * @param discretization        how the continuous gains were carried to the sampled law ("emulation")
- * @param samplePeriodSeconds   task period [s]
+ * @param samplePeriod   task period [s]
  * @param positionGain          k1
  * @param velocityGain          k2
  * @param referenceGain         kr (setpoint feedforward)
- * @param commandLimit          actuator limit
+ * @param actuatorLimit          actuator limit
  * @param sampledSpectralRadius largest |eigenvalue| of the unclamped sampled loop (stable below 1)
  * @param periodPerTimeConstant wn T
  * @param gamma                 H-infinity level of the continuous design
  * @param continuousStep        step metrics of the continuous loop (the design's verification, unclamped)
- * @param sampledStep           step metrics of this sampled loop (zero-order hold at samplePeriodSeconds,
+ * @param sampledStep           step metrics of this sampled loop (zero-order hold at samplePeriod,
  *                              unclamped, observed at and between the samples); null when not simulated
  * @param cautions              safety cautions
  */
@@ -26,11 +26,11 @@ import java.util.List;
 public record ControllerParameters(
         String law,
         String discretization,
-        double samplePeriodSeconds,
+        double samplePeriod,
         double positionGain,
         double velocityGain,
         double referenceGain,
-        double commandLimit,
+        double actuatorLimit,
         double sampledSpectralRadius,
         double periodPerTimeConstant,
         double gamma,

@@ -45,12 +45,12 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
     private final DesignFigures figures = new DesignFigures();
 
     /**
-     * @param commandLimit the actuator limit to draw, if given
+     * @param actuatorLimit the actuator limit to draw, if given
      * @param verify       the band's parameter box and samples (uncertainty band only)
      * @param bandErrors   why the band cannot be drawn from this request; reported once the design is feasible
      */
     record Validated(
-            ValidatedDesign design, OptionalDouble commandLimit, ValidatedVerify verify, List<FieldError> bandErrors) {
+            ValidatedDesign design, OptionalDouble actuatorLimit, ValidatedVerify verify, List<FieldError> bandErrors) {
         Validated {
             bandErrors = List.copyOf(bandErrors);
         }
@@ -75,10 +75,10 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
         }
         List<FieldError> errors = new ArrayList<>();
         TakeawayDesign.optionalPositive(
-                errors, "/commandLimit", request.commandLimit(), TakeawayLimits.MAX_COMMAND_LIMIT);
+                errors, "/actuatorLimit", request.actuatorLimit(), TakeawayLimits.MAX_ACTUATOR_LIMIT);
         ValidatedDesign design = designRequests.validate(request.design(), errors);
         OptionalDouble limit =
-                request.commandLimit() == null ? OptionalDouble.empty() : OptionalDouble.of(request.commandLimit());
+                request.actuatorLimit() == null ? OptionalDouble.empty() : OptionalDouble.of(request.actuatorLimit());
         if (figure != Figure.UNCERTAINTY_BAND) {
             return new Validated(design, limit, null, List.of());
         }
@@ -124,7 +124,7 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
         DesignReport report = result.report();
         String svg = switch (figure) {
             case STEP_RESPONSE -> figures.stepResponse(report, result.step());
-            case CONTROL_EFFORT -> figures.controlEffort(report, result.step(), validated.commandLimit());
+            case CONTROL_EFFORT -> figures.controlEffort(report, result.step(), validated.actuatorLimit());
             case BODE -> figures.bode(report, result.bode());
             case UNCERTAINTY_BAND ->
                 figures.uncertaintyBand(

@@ -1,5 +1,6 @@
 package com.loopwright.api.verification;
 
+import com.loopwright.api.design.Cautions;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureTable;
 import com.loopwright.api.problem.Problem;
@@ -60,7 +61,8 @@ public final class VerificationEndpoint
                         v.gains().positionGain(),
                         v.gains().velocityGain(),
                         v.gains().referenceGain()),
-                checks);
+                checks,
+                Cautions.ALL);
     }
 
     @Override

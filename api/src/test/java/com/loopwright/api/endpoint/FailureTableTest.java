@@ -129,7 +129,7 @@ class FailureTableTest {
         assertEquals("a robustness check could not be computed in double precision: m", check.detail());
         assertEquals(List.of(), check.errors());
         assertEquals(
-                "/samplePeriodSeconds",
+                "/samplePeriod",
                 FailureTable.toProblem(
                                 SolverFailure.about(
                                         SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE,
@@ -142,11 +142,11 @@ class FailureTableTest {
                         .get(0)
                         .pointer());
         assertEquals(
-                "/commandLimit",
+                "/actuatorLimit",
                 FailureTable.toProblem(
                                 SolverFailure.about(
                                         SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE,
-                                        SolverFailure.COMMAND_LIMIT,
+                                        SolverFailure.ACTUATOR_LIMIT,
                                         -1,
                                         "m",
                                         null),

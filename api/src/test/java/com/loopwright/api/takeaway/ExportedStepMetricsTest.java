@@ -27,7 +27,7 @@ class ExportedStepMetricsTest {
     private final ObjectMapper mapper = StrictJson.newMapper();
 
     private Answer export(String format) {
-        String body = "{\"design\":" + DESIGN + "},\"samplePeriodSeconds\":" + PERIOD + ",\"commandLimit\":10}";
+        String body = "{\"design\":" + DESIGN + "},\"samplePeriod\":" + PERIOD + ",\"actuatorLimit\":10}";
         return Answer.controller(format, body.getBytes(StandardCharsets.UTF_8));
     }
 
@@ -75,7 +75,7 @@ class ExportedStepMetricsTest {
         for (String format : new String[] {"parameters", "c"}) {
             Answer exported = Answer.controller(
                     format,
-                    ("{\"design\":" + slow + ",\"samplePeriodSeconds\":1e-5,\"commandLimit\":10}")
+                    ("{\"design\":" + slow + ",\"samplePeriod\":1e-5,\"actuatorLimit\":10}")
                             .getBytes(StandardCharsets.UTF_8));
             assertEquals(200, exported.status(), () -> String.valueOf(exported.problem()));
             if (format.equals("parameters")) {

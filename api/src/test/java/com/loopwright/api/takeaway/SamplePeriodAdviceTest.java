@@ -20,7 +20,7 @@ class SamplePeriodAdviceTest {
     private static final Pattern ADVICE = Pattern.compile("at most ([0-9.eE+-]+) s");
 
     private Answer export(double period) {
-        String body = "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":" + period + ",\"commandLimit\":10}";
+        String body = "{\"design\":" + DESIGN + ",\"samplePeriod\":" + period + ",\"actuatorLimit\":10}";
         return Answer.controller("parameters", body.getBytes(StandardCharsets.UTF_8));
     }
 

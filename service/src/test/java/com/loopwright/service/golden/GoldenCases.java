@@ -149,10 +149,10 @@ final class GoldenCases {
     /** The verify section: every check alone, then several together. */
     private void verifyOptions() {
         String[] verify = {
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20}}}",
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"b\":{\"min\":266.7,\"max\":500},\"d\":{\"min\":266.7,\"max\":500},\"monteCarloSamples\":40,\"seed\":7}}",
-            "{\"uncertainty\":{\"a0\":{\"min\":-5,\"max\":5},\"monteCarloSamples\":10}}",
-            "{\"uncertainty\":{\"b\":{\"min\":-10,\"max\":10}}}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":20}}}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":20},\"b\":{\"lowest\":266.7,\"highest\":500},\"d\":{\"lowest\":266.7,\"highest\":500},\"monteCarloSamples\":40,\"seed\":7}}",
+            "{\"uncertainty\":{\"a0\":{\"lowest\":-5,\"highest\":5},\"monteCarloSamples\":10}}",
+            "{\"uncertainty\":{\"b\":{\"lowest\":-10,\"highest\":10}}}",
             "{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}]}",
             "{\"disturbances\":[{\"shape\":\"pulse\",\"amplitude\":0.05,\"start\":0.1,\"duration\":0.02}]}",
             "{\"disturbances\":[{\"shape\":\"sinusoid\",\"amplitude\":0.01,\"frequency\":30}]}",
@@ -169,10 +169,10 @@ final class GoldenCases {
             "{\"timeSeriesPoints\":12}",
             "{\"tolerancePercent\":0}",
             "{\"tolerancePercent\":50,\"actuatorLimit\":2,\"frequencyPoints\":5}",
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":10}},\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}],\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001},\"inputDelay\":0.001,\"timeSeriesPoints\":5}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":10}},\"disturbances\":[{\"shape\":\"step\",\"amplitude\":0.01}],\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001},\"inputDelay\":0.001,\"timeSeriesPoints\":5}",
             "{\"frequencyPoints\":501}",
             "{\"uncertainty\":{\"monteCarloSamples\":2001}}",
-            "{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20,\"min\":0,\"max\":1}}}",
+            "{\"uncertainty\":{\"a1\":{\"spreadPercent\":20,\"lowest\":0,\"highest\":1}}}",
             "{\"disturbances\":[{\"shape\":\"chirp\",\"amplitude\":1}]}",
             "{\"timeSeriesPoints\":10.7}",
             "{\"uncertainty\":{\"monteCarloSamples\":2.9}}",
@@ -187,7 +187,7 @@ final class GoldenCases {
         design(
                 "verify-tank-level",
                 "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":"
-                        + "60,\"overshootPercent\":2},\"verify\":{\"uncertainty\":{\"a0\":{\"plusMinusPercent\":30},"
+                        + "60,\"overshootPercent\":2},\"verify\":{\"uncertainty\":{\"a0\":{\"spreadPercent\":30},"
                         + "\"monteCarloSamples\":20},\"actuatorLimit\":100,\"sampling\":{\"samplePeriod\":0.5}}}");
     }
 
@@ -385,7 +385,7 @@ final class GoldenCases {
                     + ",\"performance\":{\"rho1\":1.444,\"rho2\":0.0260367,\"gamma\":2.5274}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"performance\":{\"rho1\":1.444,\"rho2\":0.0260367}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains
-                    + ",\"verify\":{\"uncertainty\":{\"a1\":{\"plusMinusPercent\":20},\"monteCarloSamples\":15,\"seed\":3}}}",
+                    + ",\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":20},\"monteCarloSamples\":15,\"seed\":3}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains
                     + ",\"verify\":{\"actuatorLimit\":3,\"sampling\":{\"samplePeriod\":0.001}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"inputDelay\":0.003,\"frequencyPoints\":10}}",
@@ -397,13 +397,15 @@ final class GoldenCases {
             "{\"plant\":{\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},\"gain\":{\"k1\":0.5,\"k2\":0.08,\"referenceGain\":0.63}}",
             "{\"plant\":{\"a0\":150,\"a1\":-1,\"b\":65,\"d\":6},\"gain\":{\"k1\":4,\"k2\":0.3,\"referenceGain\":6.3},\"verify\":{\"frequencyPoints\":8}}",
             "{\"plant\":{\"a0\":-20,\"a1\":0,\"b\":5,\"d\":1},\"gain\":{\"k1\":20,\"k2\":2,\"referenceGain\":16},\"spec\":{\"settlingTime\":2,\"overshootPercent\":5}}",
-            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"gain\":{\"k1\":2,\"k2\":3,\"referenceGain\":2.4},\"verify\":{\"uncertainty\":{\"b\":{\"plusMinusPercent\":25}}}}",
+            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"gain\":{\"k1\":2,\"k2\":3,\"referenceGain\":2.4},\"verify\":{\"uncertainty\":{\"b\":{\"spreadPercent\":25}}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"timeSeriesPoints\":6}}",
             "{\"plant\":" + AXIS_PLANT + "}",
             "{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":1,\"viscousFriction\":0,\"torqueConstant\":1}," + gains
                     + "}",
             "{\"plant\":" + AXIS_PLANT + "," + gains
                     + ",\"verify\":{\"sampling\":{\"samplePeriod\":0.004,\"findLongest\":true}}}",
+            // a finite gain margin (3, by hand: L(2j) = -1/3): velocity fed back with the wrong sign
+            "{\"plant\":{\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},\"gain\":{\"k1\":1,\"k2\":-1,\"referenceGain\":2}}",
         };
         for (int i = 0; i < bodies.length; i++) {
             post(String.format(Locale.ROOT, "verification-%02d", i), "/v1/verifications", bodies[i]);
@@ -518,11 +520,11 @@ final class GoldenCases {
         String[] designs = {
             AXIS,
             "{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":12,\"damping\":40,\"stiffness\":3000},\"spec\":{\"settlingTime\":0.5,\"overshootPercent\":2}}",
-            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"riseTime\":20,\"overshootPercent\":1},\"verify\":{\"uncertainty\":{\"a0\":{\"plusMinusPercent\":30},\"monteCarloSamples\":12,\"seed\":5}}}",
+            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"riseTime\":20,\"overshootPercent\":1},\"verify\":{\"uncertainty\":{\"a0\":{\"spreadPercent\":30},\"monteCarloSamples\":12,\"seed\":5}}}",
         };
         for (String figure : figures) {
             for (int i = 0; i < designs.length; i++) {
-                String limit = i == 0 ? ",\"commandLimit\":3" : "";
+                String limit = i == 0 ? ",\"actuatorLimit\":3" : "";
                 post(
                         "plot-" + figure + "-" + i,
                         "/v1/designs/plots/" + figure,
@@ -534,16 +536,16 @@ final class GoldenCases {
                 "plot-infeasible",
                 "/v1/designs/plots/step-response",
                 "{\"design\":{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":10}}}");
-        post("plot-missing-design", "/v1/designs/plots/bode", "{\"commandLimit\":3}");
+        post("plot-missing-design", "/v1/designs/plots/bode", "{\"actuatorLimit\":3}");
         post("plot-band-without-box", "/v1/designs/plots/uncertainty-band", "{\"design\":" + AXIS + "}");
     }
 
     private void controllers() {
         String[] formats = {"structured-text", "c", "parameters"};
         String[] bodies = {
-            "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}",
-            "{\"design\":{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,\"overshootPercent\":1}},\"samplePeriodSeconds\":0.0005,\"commandLimit\":8}",
-            "{\"design\":{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":60,\"overshootPercent\":2}},\"samplePeriodSeconds\":0.5,\"commandLimit\":100}",
+            "{\"design\":" + AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}",
+            "{\"design\":{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,\"overshootPercent\":1}},\"samplePeriod\":0.0005,\"actuatorLimit\":8}",
+            "{\"design\":{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":60,\"overshootPercent\":2}},\"samplePeriod\":0.5,\"actuatorLimit\":100}",
         };
         for (String format : formats) {
             for (int i = 0; i < bodies.length; i++) {
@@ -553,15 +555,15 @@ final class GoldenCases {
         post(
                 "controller-period-too-long",
                 "/v1/designs/controllers/c",
-                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.05,\"commandLimit\":3}");
+                "{\"design\":" + AXIS + ",\"samplePeriod\":0.05,\"actuatorLimit\":3}");
         post(
                 "controller-unknown-format",
                 "/v1/designs/controllers/ladder",
-                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
+                "{\"design\":" + AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}");
         post(
                 "controller-missing-limit",
                 "/v1/designs/controllers/structured-text",
-                "{\"design\":" + AXIS + ",\"samplePeriodSeconds\":0.001}");
+                "{\"design\":" + AXIS + ",\"samplePeriod\":0.001}");
     }
 
     private void plainResources() {

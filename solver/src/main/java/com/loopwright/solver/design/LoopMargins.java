@@ -39,4 +39,12 @@ public record LoopMargins(
     public LoopMargins {
         response = List.copyOf(response);
     }
+
+    /**
+     * True when no phase crossover (arg L = -180 deg) has |L| &lt; 1, so the loop gain can grow without bound and
+     * the loop stays stable; then {@link #gainMargin()} is null.
+     */
+    public boolean gainMarginUnbounded() {
+        return gainMargin == null;
+    }
 }

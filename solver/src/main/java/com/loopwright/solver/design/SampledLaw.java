@@ -3,28 +3,28 @@ package com.loopwright.solver.design;
 /**
  * The state-feedback law run by a controller once per sample period, by emulation: the continuous gains are
  * used unchanged, the measurement is sampled and the command held (zero-order hold) until the next sample:
- * u[k] = clamp(kr r[k] - (k1 x1[k] + k2 x2[k]), -commandLimit, commandLimit).
+ * u[k] = clamp(kr r[k] - (k1 x1[k] + k2 x2[k]), -actuatorLimit, actuatorLimit).
  *
- * @param samplePeriodSeconds    T [s]
+ * @param samplePeriod    T [s]
  * @param positionGain           k1 [u per x1 unit]
  * @param velocityGain           k2 [u per x2 unit]
  * @param referenceGain          kr, the setpoint feedforward [u per x1 unit] (unit DC gain from r to x1)
- * @param commandLimit           actuator limit |u| &lt;= commandLimit [u units]
+ * @param actuatorLimit           actuator limit |u| &lt;= actuatorLimit [u units]
  * @param sampledSpectralRadius  largest |eigenvalue| of Ad - Bd K, the unclamped sampled loop (&lt; 1: stable)
  * @param periodPerTimeConstant  wn T, the sample period in units of the closed-loop time scale 1/wn
  */
 public record SampledLaw(
-        double samplePeriodSeconds,
+        double samplePeriod,
         double positionGain,
         double velocityGain,
         double referenceGain,
-        double commandLimit,
+        double actuatorLimit,
         double sampledSpectralRadius,
         double periodPerTimeConstant) {
 
     /** u for one sample, clamped to the actuator limit. */
     public double command(double setpoint, double position, double velocity) {
         double unclamped = referenceGain * setpoint - (positionGain * position + velocityGain * velocity);
-        return Math.max(-commandLimit, Math.min(commandLimit, unclamped));
+        return Math.max(-actuatorLimit, Math.min(actuatorLimit, unclamped));
     }
 }

@@ -27,11 +27,11 @@ public final class CSourceWriter {
         c.append("#define LW_K_REFERENCE (")
                 .append(Literals.real(law.referenceGain()))
                 .append(")\n");
-        c.append("#define LW_COMMAND_LIMIT (")
-                .append(Literals.real(law.commandLimit()))
+        c.append("#define LW_ACTUATOR_LIMIT (")
+                .append(Literals.real(law.actuatorLimit()))
                 .append(")\n");
         c.append("#define LW_SAMPLE_PERIOD_S (")
-                .append(Literals.real(law.samplePeriodSeconds()))
+                .append(Literals.real(law.samplePeriod()))
                 .append(")\n\n");
         c.append("/* Returns u for one sample; *saturated (if not NULL) is set to 1 while the clamp is active. */\n");
         c.append("double ")
@@ -40,11 +40,11 @@ public final class CSourceWriter {
         c.append("{\n");
         c.append("    double u = LW_K_REFERENCE * setpoint - (LW_K_POSITION * position + LW_K_VELOCITY * velocity);\n");
         c.append("    int clamped = 0;\n");
-        c.append("    if (u > LW_COMMAND_LIMIT) {\n");
-        c.append("        u = LW_COMMAND_LIMIT;\n");
+        c.append("    if (u > LW_ACTUATOR_LIMIT) {\n");
+        c.append("        u = LW_ACTUATOR_LIMIT;\n");
         c.append("        clamped = 1;\n");
-        c.append("    } else if (u < -LW_COMMAND_LIMIT) {\n");
-        c.append("        u = -LW_COMMAND_LIMIT;\n");
+        c.append("    } else if (u < -LW_ACTUATOR_LIMIT) {\n");
+        c.append("        u = -LW_ACTUATOR_LIMIT;\n");
         c.append("        clamped = 1;\n");
         c.append("    }\n");
         c.append("    if (saturated) {\n");

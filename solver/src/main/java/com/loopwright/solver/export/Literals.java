@@ -49,7 +49,7 @@ final class Literals {
         lines.addAll(commentLines(header.title()));
         lines.add("");
         lines.addAll(commentLines("u = clamp(kr*r - (k1*x1 + k2*x2), -limit, +limit), run once every "
-                + real(law.samplePeriodSeconds())
+                + real(law.samplePeriod())
                 + " s with the command held between samples (emulation of the continuous law: gains unchanged)."));
         lines.add("Sampled loop: spectral radius " + real(law.sampledSpectralRadius()) + ", wn*T = "
                 + real(law.periodPerTimeConstant()));

@@ -16,9 +16,9 @@ import org.ejml.data.DMatrixRMaj;
 public final class SampledLawDesigner {
 
     /** Shortest accepted sample period [s] (10 kHz is beyond most drive position loops). */
-    public static final double MIN_SAMPLE_PERIOD_SECONDS = 1e-5;
+    public static final double MIN_SAMPLE_PERIOD = 1e-5;
     /** Longest accepted sample period [s]. */
-    public static final double MAX_SAMPLE_PERIOD_SECONDS = 10;
+    public static final double MAX_SAMPLE_PERIOD = 10;
     /**
      * Emulation keeps the continuous behaviour only when the period is short against 1/wn; above this wn T
      * the sampled loop is rejected even if stable (common practice: sample 20 to 30 times per rise time).
@@ -31,27 +31,25 @@ public final class SampledLawDesigner {
      * @throws SampledLawException when the period or limit is out of range, or the sampled loop is not stable
      *     with margin (wn T above {@value #MAX_PERIOD_PER_TIME_CONSTANT} or spectral radius &gt;= 1)
      */
-    public SampledLaw emulate(ClosedFormDesign design, double samplePeriodSeconds, double commandLimit) {
-        if (!(samplePeriodSeconds >= MIN_SAMPLE_PERIOD_SECONDS && samplePeriodSeconds <= MAX_SAMPLE_PERIOD_SECONDS)) {
+    public SampledLaw emulate(ClosedFormDesign design, double samplePeriod, double actuatorLimit) {
+        if (!(samplePeriod >= MIN_SAMPLE_PERIOD && samplePeriod <= MAX_SAMPLE_PERIOD)) {
             throw new SampledLawException(
-                    "the sample period must lie in [" + MIN_SAMPLE_PERIOD_SECONDS + ", " + MAX_SAMPLE_PERIOD_SECONDS
-                            + "] s",
-                    true);
+                    "the sample period must lie in [" + MIN_SAMPLE_PERIOD + ", " + MAX_SAMPLE_PERIOD + "] s", true);
         }
-        if (!(commandLimit > 0) || !Double.isFinite(commandLimit)) {
-            throw new SampledLawException("the command limit must be finite and positive", false);
+        if (!(actuatorLimit > 0) || !Double.isFinite(actuatorLimit)) {
+            throw new SampledLawException("the actuator limit must be finite and positive", false);
         }
         double wn = design.target().naturalFrequencyRadPerSec();
-        double periodPerTimeConstant = wn * samplePeriodSeconds;
+        double periodPerTimeConstant = wn * samplePeriod;
         // compared as T > 0.5 / wn, the same double the advice below is rounded down from
         double longestPeriod = MAX_PERIOD_PER_TIME_CONSTANT / wn;
-        if (samplePeriodSeconds > longestPeriod) {
+        if (samplePeriod > longestPeriod) {
             throw new SampledLawException(
                     String.format(
                             java.util.Locale.ROOT,
                             "the sample period %.6g s is too long for a loop with natural frequency %.6g rad/s: wn T = %.6g"
                                     + " exceeds %.2g; use a period of at most %." + ADVICE_DIGITS + "g s",
-                            samplePeriodSeconds,
+                            samplePeriod,
                             wn,
                             periodPerTimeConstant,
                             MAX_PERIOD_PER_TIME_CONSTANT,
@@ -60,7 +58,7 @@ public final class SampledLawDesigner {
         }
         double k1 = design.positionGain();
         double k2 = design.velocityGain();
-        DiscreteStateSpace sampled = sampledPlant(design.plant(), samplePeriodSeconds);
+        DiscreteStateSpace sampled = sampledPlant(design.plant(), samplePeriod);
         DMatrixRMaj ad = sampled.ad();
         DMatrixRMaj bd = sampled.bd();
         double m11 = ad.get(0, 0) - bd.get(0, 0) * k1;
@@ -75,14 +73,14 @@ public final class SampledLawDesigner {
                     true);
         }
         return new SampledLaw(
-                samplePeriodSeconds, k1, k2, design.referenceGain(), commandLimit, radius, periodPerTimeConstant);
+                samplePeriod, k1, k2, design.referenceGain(), actuatorLimit, radius, periodPerTimeConstant);
     }
 
     /** The canonical plant sampled exactly under zero-order hold. */
-    public static DiscreteStateSpace sampledPlant(CanonicalPlant plant, double samplePeriodSeconds) {
+    public static DiscreteStateSpace sampledPlant(CanonicalPlant plant, double samplePeriod) {
         DMatrixRMaj a = new DMatrixRMaj(new double[][] {{0, 1}, {-plant.a0(), -plant.a1()}});
         DMatrixRMaj b = new DMatrixRMaj(new double[][] {{0}, {plant.b()}});
-        return ZeroOrderHold.discretize(a, b, samplePeriodSeconds);
+        return ZeroOrderHold.discretize(a, b, samplePeriod);
     }
 
     /** max |z| over the roots of z^2 - t z + d with t = m11 + m22, d = m11 m22 - m12 m21. */

@@ -10,7 +10,7 @@ public final class SampledLawException extends RuntimeException {
         this.aboutSamplePeriod = aboutSamplePeriod;
     }
 
-    /** True when the sample period is the offending quantity, false when the command limit is. */
+    /** True when the sample period is the offending quantity, false when the actuator limit is. */
     public boolean aboutSamplePeriod() {
         return aboutSamplePeriod;
     }

@@ -21,7 +21,7 @@ public final class SampledLawSimulator {
         if (steps < 1 || steps > MAX_STEPS) {
             throw new IllegalArgumentException("steps must be in [1, " + MAX_STEPS + "]");
         }
-        DiscreteStateSpace sampled = SampledLawDesigner.sampledPlant(plant, law.samplePeriodSeconds());
+        DiscreteStateSpace sampled = SampledLawDesigner.sampledPlant(plant, law.samplePeriod());
         DMatrixRMaj ad = sampled.ad();
         DMatrixRMaj bd = sampled.bd();
         double[][] rows = new double[steps][];

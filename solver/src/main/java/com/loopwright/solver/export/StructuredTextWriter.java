@@ -38,11 +38,11 @@ public final class StructuredTextWriter {
         st.append("    K_REFERENCE : LREAL := ")
                 .append(Literals.real(law.referenceGain()))
                 .append(";\n");
-        st.append("    COMMAND_LIMIT : LREAL := ")
-                .append(Literals.real(law.commandLimit()))
+        st.append("    ACTUATOR_LIMIT : LREAL := ")
+                .append(Literals.real(law.actuatorLimit()))
                 .append(";\n");
         st.append("    SAMPLE_PERIOD_S : LREAL := ")
-                .append(Literals.real(law.samplePeriodSeconds()))
+                .append(Literals.real(law.samplePeriod()))
                 .append("; (* the task period this block was designed for *)\n");
         st.append("END_VAR\n");
         st.append("VAR\n");
@@ -53,11 +53,11 @@ public final class StructuredTextWriter {
         st.append("ELSE\n");
         st.append("    Unclamped := 0.0;\n");
         st.append("END_IF;\n");
-        st.append("IF Unclamped > COMMAND_LIMIT THEN\n");
-        st.append("    Command := COMMAND_LIMIT;\n");
+        st.append("IF Unclamped > ACTUATOR_LIMIT THEN\n");
+        st.append("    Command := ACTUATOR_LIMIT;\n");
         st.append("    Saturated := TRUE;\n");
-        st.append("ELSIF Unclamped < -COMMAND_LIMIT THEN\n");
-        st.append("    Command := -COMMAND_LIMIT;\n");
+        st.append("ELSIF Unclamped < -ACTUATOR_LIMIT THEN\n");
+        st.append("    Command := -ACTUATOR_LIMIT;\n");
         st.append("    Saturated := TRUE;\n");
         st.append("ELSE\n");
         st.append("    Command := Unclamped;\n");

@@ -20,25 +20,25 @@ import java.util.Optional;
 public final class ExportPipeline {
 
     /** The shortest sample period a law is built for. */
-    public static final double MIN_SAMPLE_PERIOD_SECONDS = SampledLawDesigner.MIN_SAMPLE_PERIOD_SECONDS;
+    public static final double MIN_SAMPLE_PERIOD = SampledLawDesigner.MIN_SAMPLE_PERIOD;
     /** The longest sample period a law is built for. */
-    public static final double MAX_SAMPLE_PERIOD_SECONDS = SampledLawDesigner.MAX_SAMPLE_PERIOD_SECONDS;
+    public static final double MAX_SAMPLE_PERIOD = SampledLawDesigner.MAX_SAMPLE_PERIOD;
 
     private final SampledLawDesigner lawDesigner = new SampledLawDesigner();
     private final SampledStepMetrics sampledMetrics = new SampledStepMetrics();
 
     /**
      * @throws SolverFailure SAMPLED_LAW_INFEASIBLE with subject {@link SolverFailure#SAMPLE_PERIOD} or
-     *                       {@link SolverFailure#COMMAND_LIMIT}
+     *                       {@link SolverFailure#ACTUATOR_LIMIT}
      */
-    public ControllerExport export(DesignReport report, double samplePeriodSeconds, double commandLimit) {
+    public ControllerExport export(DesignReport report, double samplePeriod, double actuatorLimit) {
         SampledLaw law;
         try {
-            law = lawDesigner.emulate(report.design(), samplePeriodSeconds, commandLimit);
+            law = lawDesigner.emulate(report.design(), samplePeriod, actuatorLimit);
         } catch (SampledLawException e) {
             throw SolverFailure.about(
                     SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE,
-                    e.aboutSamplePeriod() ? SolverFailure.SAMPLE_PERIOD : SolverFailure.COMMAND_LIMIT,
+                    e.aboutSamplePeriod() ? SolverFailure.SAMPLE_PERIOD : SolverFailure.ACTUATOR_LIMIT,
                     -1,
                     e.getMessage(),
                     e);
@@ -49,7 +49,7 @@ public final class ExportPipeline {
                 d.plant(),
                 new FeedbackGains(d.positionGain(), d.velocityGain(), d.referenceGain()),
                 report.stepSize(),
-                law.samplePeriodSeconds(),
+                law.samplePeriod(),
                 report.bandFraction());
         return new ControllerExport(report, law, sampledStep);
     }

@@ -43,7 +43,7 @@ public final class SolverFailure extends RuntimeException {
     /** Subjects of {@link Kind#SAMPLED_LAW_INFEASIBLE}. */
     public static final String SAMPLE_PERIOD = "samplePeriod";
 
-    public static final String COMMAND_LIMIT = "commandLimit";
+    public static final String ACTUATOR_LIMIT = "actuatorLimit";
 
     private final Kind kind;
     private final String subject;

@@ -7,7 +7,7 @@ import com.loopwright.solver.design.GridMetrics;
  * The reference step with an input delay, simulated exactly in the sampled loop.
  *
  * @param delaySeconds         the delay
- * @param samplePeriodSeconds  sampling period of the simulation (the requested Ts, or a fine period)
+ * @param samplePeriod  sampling period of the simulation (the requested Ts, or a fine period)
  * @param delayMarginSeconds   continuous-loop delay margin (phase margin / crossover), null without a crossover
  * @param withinMargin         delay &lt; delay margin (NOT_JUDGED without a crossover)
  * @param diverges             the simulated state overflowed (the delayed loop is unstable)
@@ -17,7 +17,7 @@ import com.loopwright.solver.design.GridMetrics;
  */
 public record DelayReport(
         double delaySeconds,
-        double samplePeriodSeconds,
+        double samplePeriod,
         Double delayMarginSeconds,
         Verdict withinMargin,
         boolean diverges,

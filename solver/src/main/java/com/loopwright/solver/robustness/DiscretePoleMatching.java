@@ -21,18 +21,18 @@ public final class DiscretePoleMatching {
      * @param continuous the continuous gains whose closed-loop poles are matched
      * @throws IllegalArgumentException when the sampled plant is not controllable (pathological sampling)
      */
-    public FeedbackGains design(CanonicalPlant plant, FeedbackGains continuous, double samplePeriodSeconds) {
-        DiscreteStateSpace hold = ZeroOrderHold.discretize(
-                LoopMatrices.openLoop(plant), LoopMatrices.actuatorInput(plant), samplePeriodSeconds);
+    public FeedbackGains design(CanonicalPlant plant, FeedbackGains continuous, double samplePeriod) {
+        DiscreteStateSpace hold =
+                ZeroOrderHold.discretize(LoopMatrices.openLoop(plant), LoopMatrices.actuatorInput(plant), samplePeriod);
         DMatrixRMaj ad = hold.ad();
         DMatrixRMaj bd = hold.bd();
         double c0 = LoopMatrices.closedLoopStiffness(plant, continuous);
         double c1 = LoopMatrices.closedLoopDamping(plant, continuous);
-        double decay = Math.exp(-0.5 * c1 * samplePeriodSeconds);
+        double decay = Math.exp(-0.5 * c1 * samplePeriod);
         double discriminant = 0.25 * c1 * c1 - c0;
         double sum = discriminant < 0
-                ? 2 * decay * Math.cos(Math.sqrt(-discriminant) * samplePeriodSeconds)
-                : 2 * decay * Math.cosh(Math.sqrt(discriminant) * samplePeriodSeconds);
+                ? 2 * decay * Math.cos(Math.sqrt(-discriminant) * samplePeriod)
+                : 2 * decay * Math.cosh(Math.sqrt(discriminant) * samplePeriod);
         double alpha1 = -sum;
         double alpha0 = decay * decay;
         DMatrixRMaj phi = new DMatrixRMaj(2, 2);
@@ -46,8 +46,7 @@ public final class DiscretePoleMatching {
                 new DMatrixRMaj(new double[][] {{bd.get(0, 0), adBd.get(0, 0)}, {bd.get(1, 0), adBd.get(1, 0)}});
         double det = CommonOps_DDRM.det(controllability);
         if (!(Math.abs(det) > 0) || !Double.isFinite(det)) {
-            throw new IllegalArgumentException(
-                    "the sampled plant is not controllable at Ts = " + samplePeriodSeconds + " s");
+            throw new IllegalArgumentException("the sampled plant is not controllable at Ts = " + samplePeriod + " s");
         }
         // last row of W^-1 for W = [[w00, w01], [w10, w11]]: [-w10, w00] / det
         double r0 = -controllability.get(1, 0) / det;

@@ -11,7 +11,7 @@ import java.util.List;
  * @param seed                    generator seed
  * @param disturbances            disturbance profiles
  * @param actuatorLimit           |u| limit
- * @param samplePeriodSeconds     Ts of a sampled implementation
+ * @param samplePeriod     Ts of a sampled implementation
  * @param searchLongestPeriod     search the longest Ts that meets the limits
  * @param inputDelaySeconds       input delay to simulate
  * @param frequencyPoints         log-spaced frequency response points (0 for margins only)
@@ -23,7 +23,7 @@ public record RobustnessOptions(
         long seed,
         List<DisturbanceProfile> disturbances,
         Double actuatorLimit,
-        Double samplePeriodSeconds,
+        Double samplePeriod,
         boolean searchLongestPeriod,
         Double inputDelaySeconds,
         int frequencyPoints,

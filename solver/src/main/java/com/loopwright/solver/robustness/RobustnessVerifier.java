@@ -101,8 +101,8 @@ public final class RobustnessVerifier {
                 : saturation.run(
                         plant, gains, stepSize, options.actuatorLimit(), limits, nominal.peakControl(), slowHorizon);
         SampledReport sampledReport = null;
-        if (options.samplePeriodSeconds() != null) {
-            double ts = options.samplePeriodSeconds();
+        if (options.samplePeriod() != null) {
+            double ts = options.samplePeriod();
             // the delayed step runs at the same Ts over a horizon longer by the delay: advise for the longer one
             double delayed = options.inputDelaySeconds() == null ? 0 : options.inputDelaySeconds();
             requireIntervals(ts, slowHorizon + delayed, CapExceededException.Option.SAMPLE_PERIOD);
@@ -112,9 +112,8 @@ public final class RobustnessVerifier {
         DelayReport delayReport = null;
         if (options.inputDelaySeconds() != null) {
             double delay = options.inputDelaySeconds();
-            double ts = options.samplePeriodSeconds() != null
-                    ? options.samplePeriodSeconds()
-                    : slowHorizon / DELAY_SIMULATION_INTERVALS;
+            double ts =
+                    options.samplePeriod() != null ? options.samplePeriod() : slowHorizon / DELAY_SIMULATION_INTERVALS;
             double delayHorizon = slowHorizon + delay;
             requireIntervals(ts, delayHorizon, CapExceededException.Option.INPUT_DELAY);
             delayReport = delayCheck.run(

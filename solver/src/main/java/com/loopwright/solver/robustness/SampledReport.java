@@ -7,7 +7,7 @@ import com.loopwright.solver.design.GridMetrics;
 /**
  * The loop implemented with a sampler and hold.
  *
- * @param samplePeriodSeconds       Ts
+ * @param samplePeriod       Ts
  * @param spectralRadius            max |z| of the emulated sampled loop Ad - Bd K (stable iff below 1)
  * @param emulated                  metrics with the continuous gains run at Ts (between samples); null when the
  *                                  simulation diverges
@@ -22,7 +22,7 @@ import com.loopwright.solver.design.GridMetrics;
  * @param trajectory                the emulated step
  */
 public record SampledReport(
-        double samplePeriodSeconds,
+        double samplePeriod,
         double spectralRadius,
         GridMetrics emulated,
         Verdict emulatedMeetsSpec,

@@ -25,20 +25,16 @@ public final class SampledStepMetrics {
      *     needs more than the simulator's cap of sample intervals (a period that short behaves as the continuous loop)
      */
     public Optional<GridMetrics> measure(
-            CanonicalPlant plant,
-            FeedbackGains gains,
-            double stepSize,
-            double samplePeriodSeconds,
-            double bandFraction) {
+            CanonicalPlant plant, FeedbackGains gains, double stepSize, double samplePeriod, double bandFraction) {
         if (!LoopMatrices.stable(plant, gains)) {
             return Optional.empty();
         }
         double horizon = RobustnessVerifier.SLOW_HORIZON_FACTOR * LoopMatrices.horizonSeconds(plant, gains);
-        if (!(Math.ceil(horizon / samplePeriodSeconds) <= DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS)) {
+        if (!(Math.ceil(horizon / samplePeriod) <= DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS)) {
             return Optional.empty();
         }
         try {
-            DenseTrajectory trajectory = simulator.simulate(plant, gains, stepSize, samplePeriodSeconds, 0, horizon);
+            DenseTrajectory trajectory = simulator.simulate(plant, gains, stepSize, samplePeriod, 0, horizon);
             return Optional.of(
                     GridMetrics.of(trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize, bandFraction));
         } catch (IllegalArgumentException e) {

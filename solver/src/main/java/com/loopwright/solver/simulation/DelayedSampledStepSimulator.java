@@ -35,19 +35,19 @@ public final class DelayedSampledStepSimulator {
             CanonicalPlant plant,
             FeedbackGains gains,
             double stepSize,
-            double samplePeriodSeconds,
+            double samplePeriod,
             double delaySeconds,
             double horizonSeconds) {
-        double intervalsExact = Math.ceil(horizonSeconds / samplePeriodSeconds);
+        double intervalsExact = Math.ceil(horizonSeconds / samplePeriod);
         if (!(intervalsExact <= MAX_SAMPLE_INTERVALS)) {
             throw new IllegalArgumentException("the horizon " + horizonSeconds + " s needs " + (long) intervalsExact
-                    + " sample intervals of " + samplePeriodSeconds + " s, more than the cap " + MAX_SAMPLE_INTERVALS);
+                    + " sample intervals of " + samplePeriod + " s, more than the cap " + MAX_SAMPLE_INTERVALS);
         }
         int intervals = Math.max(1, (int) intervalsExact);
         int substeps = Math.max(MIN_SUBSTEPS, Math.min(MAX_SUBSTEPS, TARGET_POINTS / intervals));
-        int wholeDelay = (int) Math.floor(delaySeconds / samplePeriodSeconds);
-        double fraction = delaySeconds - wholeDelay * samplePeriodSeconds;
-        if (fraction >= samplePeriodSeconds) {
+        int wholeDelay = (int) Math.floor(delaySeconds / samplePeriod);
+        double fraction = delaySeconds - wholeDelay * samplePeriod;
+        if (fraction >= samplePeriod) {
             wholeDelay++;
             fraction = 0;
         }
@@ -59,7 +59,7 @@ public final class DelayedSampledStepSimulator {
         DMatrixRMaj[] adAfter = new DMatrixRMaj[substeps + 1];
         DMatrixRMaj[] bdAfter = new DMatrixRMaj[substeps + 1];
         for (int j = 1; j <= substeps; j++) {
-            double offset = samplePeriodSeconds * j / substeps;
+            double offset = samplePeriod * j / substeps;
             DiscreteStateSpace hold = ZeroOrderHold.discretize(a, b2, offset);
             adOffset[j] = hold.ad();
             bdOffset[j] = hold.bd();
@@ -90,7 +90,7 @@ public final class DelayedSampledStepSimulator {
             computed[k] = reference - gains.positionGain() * x[0] - gains.velocityGain() * x[1];
             double before = held(computed, k - wholeDelay - 1);
             double after = held(computed, k - wholeDelay);
-            double start = k * samplePeriodSeconds;
+            double start = k * samplePeriod;
             if (k == 0) {
                 t[0] = 0;
                 x1[0] = 0;
@@ -100,7 +100,7 @@ public final class DelayedSampledStepSimulator {
             double[] atSplit = fraction > 0 ? CheckedHoldStep.apply(adSplit, bdSplit, x, before) : x;
             double[] end = x;
             for (int j = 1; j <= substeps; j++) {
-                double offset = samplePeriodSeconds * j / substeps;
+                double offset = samplePeriod * j / substeps;
                 double[] state;
                 double input;
                 if (fraction > 0 && offset <= fraction) {

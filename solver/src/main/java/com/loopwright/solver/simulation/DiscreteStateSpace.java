@@ -4,13 +4,13 @@ import org.ejml.data.DMatrixRMaj;
 
 /**
  * A sampled linear system x[k+1] = ad x[k] + bd u[k], with u held constant over each sample
- * period of {@code samplePeriodSeconds}.
+ * period of {@code samplePeriod}.
  *
  * @param ad state transition over one period, n x n
  * @param bd input matrix over one period, n x m
- * @param samplePeriodSeconds sample period T in seconds, finite and positive
+ * @param samplePeriod sample period T in seconds, finite and positive
  */
-public record DiscreteStateSpace(DMatrixRMaj ad, DMatrixRMaj bd, double samplePeriodSeconds) {
+public record DiscreteStateSpace(DMatrixRMaj ad, DMatrixRMaj bd, double samplePeriod) {
 
     public DiscreteStateSpace {
         if (ad == null || bd == null) {
@@ -24,9 +24,8 @@ public record DiscreteStateSpace(DMatrixRMaj ad, DMatrixRMaj bd, double samplePe
             throw new IllegalArgumentException(
                     "bd must be " + ad.numRows + " x m with m >= 1, got " + bd.numRows + " x " + bd.numCols);
         }
-        if (!(samplePeriodSeconds > 0.0) || !Double.isFinite(samplePeriodSeconds)) {
-            throw new IllegalArgumentException(
-                    "samplePeriodSeconds must be finite and positive, got " + samplePeriodSeconds);
+        if (!(samplePeriod > 0.0) || !Double.isFinite(samplePeriod)) {
+            throw new IllegalArgumentException("samplePeriod must be finite and positive, got " + samplePeriod);
         }
         MatrixChecks.requireFinite(ad, "ad");
         MatrixChecks.requireFinite(bd, "bd");

@@ -77,8 +77,8 @@ public final class StepResponseMetrics {
             throw new IllegalArgumentException("settlingBandFraction must be in (0, 1), got " + settlingBandFraction);
         }
         double maxOscillationRadPerSecond = requireHurwitz(loop.a());
-        double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        if (samplePeriodSeconds * maxOscillationRadPerSecond > MAX_RADIANS_PER_SAMPLE) {
+        double samplePeriod = horizonSeconds / (samples - 1);
+        if (samplePeriod * maxOscillationRadPerSecond > MAX_RADIANS_PER_SAMPLE) {
             double needed = Math.ceil(horizonSeconds * maxOscillationRadPerSecond / MAX_RADIANS_PER_SAMPLE) + 1;
             throw new IllegalArgumentException("sample grid too coarse: the fastest oscillation ("
                     + maxOscillationRadPerSecond + " rad/s) needs at least " + (long) needed

@@ -46,8 +46,8 @@ public final class StepSimulator {
     static StepResponse sample(LinearLoop loop, double stepSize, double horizonSeconds, int samples) {
         validate(loop, stepSize, horizonSeconds, samples);
         int n = loop.stateDimension();
-        double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        double samplePeriod = horizonSeconds / (samples - 1);
+        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriod);
         // Row-major data of fresh copies (DiscreteStateSpace and LinearLoop return copies).
         double[] ad = discrete.ad().data;
         double[] bd = discrete.bd().data;
@@ -109,8 +109,8 @@ public final class StepSimulator {
             StepSampleSink sink) {
         validate(loop, stepSize, horizonSeconds, samples);
         int n = loop.stateDimension();
-        double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        double samplePeriod = horizonSeconds / (samples - 1);
+        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriod);
         double[] ad = discrete.ad().data;
         double[] bd = discrete.bd().data;
         double[] a = loop.a().data;
@@ -150,7 +150,7 @@ public final class StepSimulator {
         // >= 1e-5, far above their rounding, so the times can only repeat where the spacing h is
         // subnormal and products round to a few multiples of the smallest double. Only then are
         // they checked one by one, with the message of sample().
-        if (!(samplePeriodSeconds >= Double.MIN_NORMAL)) {
+        if (!(samplePeriod >= Double.MIN_NORMAL)) {
             double intervals = samples - 1;
             double previous = 0.0;
             for (int k = 1; k < samples; k++) {

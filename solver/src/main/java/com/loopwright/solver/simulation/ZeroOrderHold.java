@@ -24,11 +24,11 @@ public final class ZeroOrderHold {
      *
      * @param a state matrix, n x n, finite
      * @param b input matrix, n x m with m >= 1 and n + m <= {@value #MAX_BLOCK_DIMENSION}, finite
-     * @param samplePeriodSeconds hold period T in seconds, finite and positive
+     * @param samplePeriod hold period T in seconds, finite and positive
      * @throws IllegalArgumentException on null, mismatched or non-finite arguments, on a
      *     non-positive period, or if the exponential of the block matrix cannot be formed
      */
-    public static DiscreteStateSpace discretize(DMatrixRMaj a, DMatrixRMaj b, double samplePeriodSeconds) {
+    public static DiscreteStateSpace discretize(DMatrixRMaj a, DMatrixRMaj b, double samplePeriod) {
         if (a == null || b == null) {
             throw new IllegalArgumentException("a and b must not be null");
         }
@@ -44,9 +44,8 @@ public final class ZeroOrderHold {
         if (n + m > MAX_BLOCK_DIMENSION) {
             throw new IllegalArgumentException("n + m must be at most " + MAX_BLOCK_DIMENSION + ", got " + (n + m));
         }
-        if (!(samplePeriodSeconds > 0.0) || !Double.isFinite(samplePeriodSeconds)) {
-            throw new IllegalArgumentException(
-                    "samplePeriodSeconds must be finite and positive, got " + samplePeriodSeconds);
+        if (!(samplePeriod > 0.0) || !Double.isFinite(samplePeriod)) {
+            throw new IllegalArgumentException("samplePeriod must be finite and positive, got " + samplePeriod);
         }
         MatrixChecks.requireFinite(a, "a");
         MatrixChecks.requireFinite(b, "b");
@@ -55,10 +54,10 @@ public final class ZeroOrderHold {
         DMatrixRMaj block = new DMatrixRMaj(n + m, n + m);
         CommonOps_DDRM.insert(a, block, 0, 0);
         CommonOps_DDRM.insert(b, block, 0, n);
-        CommonOps_DDRM.scale(samplePeriodSeconds, block);
+        CommonOps_DDRM.scale(samplePeriod, block);
         DMatrixRMaj blockExponential = MatrixExponential.of(block);
         DMatrixRMaj ad = CommonOps_DDRM.extract(blockExponential, 0, n, 0, n);
         DMatrixRMaj bd = CommonOps_DDRM.extract(blockExponential, 0, n, n, n + m);
-        return new DiscreteStateSpace(ad, bd, samplePeriodSeconds);
+        return new DiscreteStateSpace(ad, bd, samplePeriod);
     }
 }

@@ -22,7 +22,7 @@ class StructuredTextWriterTest {
         assertTrue(st.contains("K_POSITION : LREAL := " + report.design().positionGain() + ";"));
         assertTrue(st.contains("K_VELOCITY : LREAL := " + report.design().velocityGain() + ";"));
         assertTrue(st.contains("K_REFERENCE : LREAL := " + report.design().referenceGain() + ";"));
-        assertTrue(st.contains("COMMAND_LIMIT : LREAL := 3.0;"));
+        assertTrue(st.contains("ACTUATOR_LIMIT : LREAL := 3.0;"));
         assertTrue(st.contains("gamma (H-infinity level"));
         assertTrue(st.contains("CAUTIONS:"));
         assertTrue(st.contains("settling time 0.15 s"));

@@ -1,6 +1,7 @@
 package com.loopwright.solver.robustness;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -35,7 +36,52 @@ class ClosedFormLoopMarginsTest {
         assertEquals(90 - Math.toDegrees(Math.atan(wc)), margins.phaseMarginDegrees(), 1e-9);
         assertEquals(51.827, margins.phaseMarginDegrees(), 1e-3);
         assertNull(margins.gainMargin());
+        assertTrue(margins.gainMarginUnbounded());
         assertNull(margins.gainReductionMargin());
+    }
+
+    /**
+     * A second-order plant under state feedback with k1, k2, b &gt; 0: L(jw) = b (k1 + j k2 w)/(a0 - w^2 + j a1 w)
+     * has one zero and two poles (relative degree 1), so its phase tends to -90 deg and never reaches -180 deg
+     * (the textbook relative-degree argument, e.g. Franklin, Powell and Emami-Naeini, Feedback Control of Dynamic
+     * Systems, Bode/Nyquist chapters): the gain margin is unbounded. Independent check (Routh-Hurwitz): with the
+     * gain scaled by g the closed loop s^2 + (a1 + g b k2) s + (a0 + g b k1) has positive coefficients for every
+     * g &gt; 0, here up to g = 1e6.
+     */
+    @Test
+    void stateFeedbackOnAnAxisHasAnUnboundedGainMargin() {
+        LoopMargins margins = analyzer.margins(IndexingAxis.PLANT, IndexingAxis.GAINS, 0);
+        assertTrue(margins.gainMarginUnbounded());
+        assertNull(margins.gainMargin());
+        assertNull(margins.gainMarginRadPerSec());
+        FeedbackGains k = IndexingAxis.GAINS;
+        for (double g = 1; g <= 1e6; g *= 10) {
+            FeedbackGains scaled = new FeedbackGains(g * k.positionGain(), g * k.velocityGain(), k.referenceGain());
+            assertTrue(LoopMatrices.stable(IndexingAxis.PLANT, scaled), "stable at gain factor " + g);
+        }
+    }
+
+    /**
+     * A finite gain margin: a0 = 1, a1 = 3, b = 1, k1 = 1, k2 = -1 (velocity fed back with the wrong sign, stable
+     * because of the plant's own damping). By hand: Im L = 0 at w^2 = a0 - k1 a1/k2 = 4, where
+     * L(2j) = (1 - 2j)/(-3 + 6j) = -1/3, so the gain may grow by 3 before instability. Independent check
+     * (Routh-Hurwitz): with the gains scaled by g the closed loop is s^2 + (3 - g) s + (1 + g), whose damping
+     * coefficient vanishes at g = 3 exactly.
+     */
+    @Test
+    void negativeVelocityFeedbackHasAFiniteGainMarginOfThree() {
+        CanonicalPlant plant = new CanonicalPlant(1, 3, 1, 1);
+        FeedbackGains gains = new FeedbackGains(1, -1, 1);
+        LoopMargins margins = analyzer.margins(plant, gains, 0);
+        assertFalse(margins.gainMarginUnbounded());
+        assertEquals(3, margins.gainMargin(), 1e-12);
+        assertEquals(2, margins.gainMarginRadPerSec(), 1e-12);
+        double[] l = SecondOrderLoopResponse.loop(plant, gains, 2);
+        assertEquals(-1.0 / 3, l[0], 1e-14);
+        assertEquals(0, l[1], 1e-14);
+        assertEquals(0, LoopMatrices.closedLoopDamping(plant, new FeedbackGains(3, -3, 1)), 0);
+        assertTrue(LoopMatrices.stable(plant, new FeedbackGains(2.99, -2.99, 1)));
+        assertFalse(LoopMatrices.stable(plant, new FeedbackGains(3.01, -3.01, 1)));
     }
 
     @Test

@@ -64,8 +64,8 @@ final class ArrayStepMetricsOracle {
             throw new IllegalArgumentException("settlingBandFraction must be in (0, 1), got " + settlingBandFraction);
         }
         double maxOscillationRadPerSecond = requireHurwitz(loop.a());
-        double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        if (samplePeriodSeconds * maxOscillationRadPerSecond > MAX_RADIANS_PER_SAMPLE) {
+        double samplePeriod = horizonSeconds / (samples - 1);
+        if (samplePeriod * maxOscillationRadPerSecond > MAX_RADIANS_PER_SAMPLE) {
             double needed = Math.ceil(horizonSeconds * maxOscillationRadPerSecond / MAX_RADIANS_PER_SAMPLE) + 1;
             throw new IllegalArgumentException("sample grid too coarse: the fastest oscillation ("
                     + maxOscillationRadPerSecond + " rad/s) needs at least " + (long) needed
@@ -212,8 +212,8 @@ final class ArrayStepMetricsOracle {
             return new MetricSamples(state, outputSignal, controlSignal);
         }
         StepSimulator.validate(loop, stepSize, horizonSeconds, samples);
-        double samplePeriodSeconds = horizonSeconds / (samples - 1);
-        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriodSeconds);
+        double samplePeriod = horizonSeconds / (samples - 1);
+        DiscreteStateSpace discrete = ZeroOrderHold.discretize(loop.a(), loop.bRef(), samplePeriod);
         double[] ad = discrete.ad().data;
         double[] bd = discrete.bd().data;
         double[] cOut = loop.cOut().data;
@@ -279,7 +279,7 @@ final class ArrayStepMetricsOracle {
         // >= 1e-5, far above their rounding, so the times can only repeat where the spacing h is
         // subnormal and products round to a few multiples of the smallest double. Only then are
         // they checked one by one, with the message of sample().
-        if (!(samplePeriodSeconds >= Double.MIN_NORMAL)) {
+        if (!(samplePeriod >= Double.MIN_NORMAL)) {
             double previous = 0.0;
             for (int k = 1; k < samples; k++) {
                 double t = horizonSeconds * (k / intervals);

@@ -120,9 +120,9 @@ class StepResponseMetricsTest {
         double root = Math.sqrt(1 - zeta * zeta);
         double wd = wn * root;
         double secondExtremum = 2 * Math.PI / wd;
-        double samplePeriodSeconds = secondExtremum / 5.5;
+        double samplePeriod = secondExtremum / 5.5;
         int samples = 13;
-        double horizonSeconds = (samples - 1) * samplePeriodSeconds;
+        double horizonSeconds = (samples - 1) * samplePeriod;
         DoubleUnaryOperator y = t -> 1 - Math.exp(-zeta * wn * t) / root * Math.sin(wd * t + Math.acos(zeta));
         double settling = referenceRoot(t -> y.applyAsDouble(t) - (1 - BAND), secondExtremum, 3 * Math.PI / wd);
 
@@ -169,9 +169,9 @@ class StepResponseMetricsTest {
         double peakTime = referenceRoot(yRate, peak, peak + scanStep);
 
         double nominalPeriod = 1.2 / w;
-        double samplePeriodSeconds = peakTime / (Math.floor(peakTime / nominalPeriod) + 0.5);
-        int samples = (int) Math.ceil(horizonGuess / samplePeriodSeconds) + 1;
-        double horizonSeconds = (samples - 1) * samplePeriodSeconds;
+        double samplePeriod = peakTime / (Math.floor(peakTime / nominalPeriod) + 0.5);
+        int samples = (int) Math.ceil(horizonGuess / samplePeriod) + 1;
+        double horizonSeconds = (samples - 1) * samplePeriod;
         int lastOutside = (int) Math.floor(horizonSeconds / scanStep);
         while (Math.abs(y.applyAsDouble(lastOutside * scanStep) - 1) <= BAND) {
             lastOutside--;
@@ -188,7 +188,7 @@ class StepResponseMetricsTest {
         StepResponse response = new StepSimulator().simulate(loop, 1.0, horizonSeconds, samples);
         double[] time = response.timeSeconds();
         double[] output = response.output();
-        for (int k = 0; k < samples && time[k] <= peakTime + samplePeriodSeconds; k++) {
+        for (int k = 0; k < samples && time[k] <= peakTime + samplePeriod; k++) {
             assertTrue(output[k] < 0.1, "sample at t = " + time[k] + " is below 10%");
         }
         assertTrue(y.applyAsDouble(peakTime) > 0.1);

@@ -39,7 +39,7 @@ class ZeroOrderHoldTest {
         double t = periodSeconds;
         assertMatrixEquals(new DMatrixRMaj(new double[][] {{1, t}, {0, 1}}), discrete.ad(), 1e-14);
         assertMatrixEquals(new DMatrixRMaj(new double[][] {{t * t / 2}, {t}}), discrete.bd(), 1e-14);
-        assertEquals(periodSeconds, discrete.samplePeriodSeconds());
+        assertEquals(periodSeconds, discrete.samplePeriod());
     }
 
     @Test
