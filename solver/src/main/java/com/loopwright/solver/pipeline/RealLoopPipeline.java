@@ -16,6 +16,7 @@ import com.loopwright.solver.design.TrackingLaw;
 import com.loopwright.solver.frequency.StateSpaceMargins;
 import com.loopwright.solver.highorder.HighOrderDesigner;
 import com.loopwright.solver.highorder.PoleMatchedRiccati;
+import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.solver.integral.IntegralAugmentation;
 import com.loopwright.solver.integral.IntegralDesigner;
 import com.loopwright.solver.integral.LoadStepSimulator;
@@ -75,6 +76,7 @@ public final class RealLoopPipeline {
     static final double PROPOSAL_OVERSHOOT_FACTOR = 0.6;
 
     private final HighOrderDesigner designer = new HighOrderDesigner();
+    private final SpecMatcher matcher = new SpecMatcher();
     private final IntegralDesigner integralDesigner = new IntegralDesigner();
     private final ObserverDesigner observerDesigner = new ObserverDesigner();
     private final HInfinityNormCalculator norm = new HInfinityNormCalculator();
@@ -88,6 +90,7 @@ public final class RealLoopPipeline {
      * @param gammaChoice  how gamma is chosen
      * @param structure    integral action, measurement, observer
      * @param loadStepSize the constant load w0 of the load-step figures, non-zero
+     * @param maxUndershootPercent the undershoot accepted while matching the specs of an order-n plant (n &gt; 2)
      */
     public record Request(
             CompanionPlant plant,
@@ -95,7 +98,8 @@ public final class RealLoopPipeline {
             AuxiliaryPlacement auxiliary,
             GammaChoice gammaChoice,
             LoopStructure structure,
-            double loadStepSize) {
+            double loadStepSize,
+            double maxUndershootPercent) {
 
         /** The canonical plant (position x1 measured and tracked). */
         public static Request canonical(
@@ -110,7 +114,8 @@ public final class RealLoopPipeline {
                     new AuxiliaryPlacement.RealPartMultiple(DesiredPoles.DEFAULT_REAL_PART_MULTIPLE),
                     gammaChoice,
                     structure,
-                    loadStepSize);
+                    loadStepSize,
+                    0);
         }
     }
 
@@ -139,10 +144,14 @@ public final class RealLoopPipeline {
                         null);
             }
         }
-        TargetDynamics target = new SpecInverter().invert(request.spec()).target();
-        DesiredPoles plantPoles = request.auxiliary().place(target, plant.order());
         List<String> notes = new ArrayList<>();
-        Designed designed = designOrFail(request, plantPoles);
+        Designed designed = designOrFail(request);
+        TargetDynamics target = designed.poles().dominant();
+        DesiredPoles plantPoles = designed.poles();
+        if (plant.order() > 2) {
+            notes.add("order " + plant.order() + ": the dominant pair is matched by simulating the plain loop with its"
+                    + " auxiliary poles; the integral pole is cancelled, so the same pair serves the augmented loop");
+        }
         HighOrderDesign design = designed.design();
         TrackingLaw law = designed.law();
         double[] weights = design.weights();
@@ -210,11 +219,11 @@ public final class RealLoopPipeline {
         }
     }
 
-    private record Designed(HighOrderDesign design, TrackingLaw law) {}
+    private record Designed(DesiredPoles poles, HighOrderDesign design, TrackingLaw law) {}
 
-    private Designed designOrFail(Request request, DesiredPoles plantPoles) {
+    private Designed designOrFail(Request request) {
         try {
-            return designFor(request, plantPoles);
+            return designFor(request, request.spec());
         } catch (InfeasibleDesignException e) {
             Infeasibility infeasibility = e.infeasibility();
             if (infeasibility.proposals().isEmpty() && request.structure().integralAction()) {
@@ -226,14 +235,25 @@ public final class RealLoopPipeline {
         }
     }
 
-    private Designed designFor(Request request, DesiredPoles plantPoles) {
+    /**
+     * Order 2: the exact closed-form inversion of the specs (with the integral pole cancelled, r -> y is exactly the
+     * second-order response). Order n: the dominant pair matched by simulating the plain loop with its auxiliary
+     * poles, which is also the augmented loop's r -> y response.
+     */
+    private Designed designFor(Request request, DesignSpec spec) {
+        CompanionPlant plant = request.plant();
+        TargetDynamics target = plant.order() == 2
+                ? new SpecInverter().invert(spec).target()
+                : matcher.match(plant, spec, request.auxiliary(), 1, request.maxUndershootPercent())
+                        .target();
+        DesiredPoles plantPoles = request.auxiliary().place(target, plant.order());
         if (request.structure().integralAction()) {
             IntegralDesigner.IntegralDesign d = integralDesigner.design(
-                    request.plant(), plantPoles, request.structure().integralPoleMultiple(), request.gammaChoice());
-            return new Designed(d.augmented(), d.law());
+                    plant, plantPoles, request.structure().integralPoleMultiple(), request.gammaChoice());
+            return new Designed(plantPoles, d.augmented(), d.law());
         }
-        HighOrderDesign d = designer.design(request.plant(), plantPoles, request.gammaChoice());
-        return new Designed(d, IntegralDesigner.plainLaw(d));
+        HighOrderDesign d = designer.design(plant, plantPoles, request.gammaChoice());
+        return new Designed(plantPoles, d, IntegralDesigner.plainLaw(d));
     }
 
     /** The largest tried overshoot (a fraction 0.6^k of the asked one) whose augmented design is feasible. */
@@ -243,10 +263,7 @@ public final class RealLoopPipeline {
             overshoot *= PROPOSAL_OVERSHOOT_FACTOR;
             DesignSpec lower = request.spec().withOvershoot(overshoot);
             try {
-                TargetDynamics target = new SpecInverter().invert(lower).target();
-                designFor(
-                        request,
-                        request.auxiliary().place(target, request.plant().order()));
+                designFor(request, lower);
                 return List.of(new SpecProposal(
                         SpecQuantity.OVERSHOOT_PERCENT,
                         100 * overshoot,
