@@ -260,6 +260,19 @@ class OutputFeedbackTest {
     }
 
     @Test
+    void slowObserverRaisesTheFullLoopNormAboveGammaAndTheReportSaysSo() {
+        RealLoopReport report = axis(true, new ObserverChoice.PoleMultiple(1));
+        double full = report.outputFeedback().disturbanceToPerformanceNorm().attainedGain();
+        System.out.printf(
+                "axis, observer at 1x the controller poles: gamma %.4g, full-loop norm %.4g%n",
+                report.design().gamma(), full);
+        assertTrue(full > report.design().gamma(), "full-loop norm " + full);
+        assertTrue(report.outputFeedback().exceedsGamma());
+        assertTrue(report.stateFeedbackNorm().attainedGain() <= report.design().gamma() * (1 + 1e-9));
+        assertTrue(report.notes().stream().anyMatch(n -> n.contains("does not cover the output-feedback loop")));
+    }
+
+    @Test
     void statePlantInputMarginsMatchTheClosedFormAnalyzerOnThePlainLoop() {
         RealLoopReport report = new RealLoopPipeline()
                 .design(RealLoopPipeline.Request.canonical(
