@@ -155,6 +155,51 @@ class IntegralActionTest {
     }
 
     @Test
+    void loadStepPeakAndRecoveryTimeAgreeWithAnIndependentDormandPrinceSimulation() {
+        RealLoopReport report = design(LoopStructure.withIntegralAction());
+        double[] k = report.law().stateGain();
+        double ki = report.law().integralGain();
+        double w0 = GRAVITY_LOAD_NEWTONS;
+        // plant, integrator and law written equation by equation, r = 0, load w0 from t = 0
+        org.hipparchus.ode.OrdinaryDifferentialEquation ode = new org.hipparchus.ode.OrdinaryDifferentialEquation() {
+            @Override
+            public int getDimension() {
+                return 3;
+            }
+
+            @Override
+            public double[] computeDerivatives(double t, double[] s) {
+                double u = ki * s[2] - k[0] * s[0] - k[1] * s[1];
+                return new double[] {s[1], -AXIS.a0() * s[0] - AXIS.a1() * s[1] + AXIS.b() * u + AXIS.d() * w0, -s[0]};
+            }
+        };
+        org.hipparchus.ode.nonstiff.DormandPrince853Integrator integrator =
+                new org.hipparchus.ode.nonstiff.DormandPrince853Integrator(1e-12, 1e-2, 1e-13, 1e-13);
+        double recovery = report.loadStep().recoveryTimeSeconds();
+        double band = com.loopwright.solver.design.LoadStepResponse.RECOVERY_BAND_FRACTION
+                * report.loadStep().peakDeviation();
+        double step = report.loadStep().horizonSeconds() / (report.loadStep().samples() - 1);
+        org.hipparchus.ode.ODEState state = new org.hipparchus.ode.ODEState(0, new double[3]);
+        double peak = 0;
+        double lastOutside = 0;
+        int points = 20_000;
+        double end = 3 * recovery;
+        for (int i = 1; i <= points; i++) {
+            double t = end * i / points;
+            org.hipparchus.ode.ODEStateAndDerivative next = integrator.integrate(ode, state, t);
+            double y = next.getPrimaryState()[0];
+            peak = Math.max(peak, Math.abs(y));
+            if (Math.abs(y) > band) {
+                lastOutside = t;
+            }
+            state = new org.hipparchus.ode.ODEState(next.getTime(), next.getPrimaryState());
+        }
+        assertEquals(peak, report.loadStep().peakDeviation(), 1e-4 * peak);
+        // both resolve the last exit to their own grids
+        assertEquals(lastOutside, recovery, step + end / points);
+    }
+
+    @Test
     void infeasibleAugmentedDesignIsASolverFailureWithAComputedProposal() {
         // 10% overshoot: zeta ~ 0.59 < 1/sqrt(2), outside the region of an axis without stiffness (method.md sec. 6)
         DesignSpec tooLively = new DesignSpec(0.10, new TimeSpec.SettlingTime(0.4, 0.02));
