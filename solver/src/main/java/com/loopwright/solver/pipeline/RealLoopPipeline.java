@@ -101,13 +101,39 @@ public final class RealLoopPipeline {
             double loadStepSize,
             double maxUndershootPercent) {
 
-        /** The canonical plant (position x1 measured and tracked). */
+        public Request {
+            if (plant == null || spec == null || auxiliary == null || gammaChoice == null || structure == null) {
+                throw new IllegalArgumentException(
+                        "plant, spec, auxiliary placement, gamma choice and structure are" + " required");
+            }
+            if (!(loadStepSize != 0) || !Double.isFinite(loadStepSize)) {
+                throw new IllegalArgumentException("the load step must be finite and non-zero");
+            }
+            if (!(maxUndershootPercent >= 0) || !Double.isFinite(maxUndershootPercent)) {
+                throw new IllegalArgumentException("the accepted undershoot must be finite and at least 0");
+            }
+        }
+
+        /**
+         * The canonical plant (position x1 measured and tracked).
+         *
+         * @throws SolverFailure PLANT_MODEL (subject "d") when d = 0: the load enters through d, and the companion
+         *                       plant of the H-infinity design needs a disturbance input
+         */
         public static Request canonical(
                 CanonicalPlant plant,
                 DesignSpec spec,
                 GammaChoice gammaChoice,
                 LoopStructure structure,
                 double loadStepSize) {
+            if (plant.d() == 0) {
+                throw SolverFailure.about(
+                        SolverFailure.Kind.PLANT_MODEL,
+                        "d",
+                        -1,
+                        "the load enters through d: a loop with integral action or an observer needs d != 0",
+                        null);
+            }
             return new Request(
                     IntegralAugmentation.companionOf(plant),
                     spec,

@@ -220,6 +220,21 @@ class IntegralActionTest {
         assertTrue(accepted.specCheck().met());
     }
 
+    @Test
+    void canonicalPlantWithoutDisturbanceInputIsAPlantModelFailureNotAnUncheckedError() {
+        CanonicalPlant noLoadInput = new CanonicalPlant(0, 2.5, 40.0 / 12, 0);
+        SolverFailure failure = assertThrows(
+                SolverFailure.class,
+                () -> RealLoopPipeline.Request.canonical(
+                        noLoadInput,
+                        SPEC,
+                        new GammaChoice.MarginOverMinimum(1.2),
+                        LoopStructure.withIntegralAction(),
+                        1));
+        assertEquals(SolverFailure.Kind.PLANT_MODEL, failure.kind());
+        assertEquals("d", failure.subject());
+    }
+
     static double relativeDifference(DMatrixRMaj a, DMatrixRMaj b) {
         DMatrixRMaj difference = a.copy();
         CommonOps_DDRM.subtractEquals(difference, b);
