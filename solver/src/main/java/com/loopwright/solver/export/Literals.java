@@ -20,6 +20,12 @@ final class Literals {
         return Double.toString(value);
     }
 
+    /** The value itself, checked finite. */
+    static double realValue(double value) {
+        real(value);
+        return value;
+    }
+
     /** Text made safe inside a comment (no comment terminators, ASCII only), wrapped to COMMENT_WIDTH. */
     static List<String> commentLines(String text) {
         String safe = text.replace("*)", "* )")

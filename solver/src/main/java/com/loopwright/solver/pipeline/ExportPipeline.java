@@ -4,12 +4,20 @@ import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.design.SampledLaw;
+import com.loopwright.solver.discrete.DiscreteController;
 import com.loopwright.solver.export.CSourceWriter;
+import com.loopwright.solver.export.ControllerCWriter;
+import com.loopwright.solver.export.ControllerExportOptions;
+import com.loopwright.solver.export.ControllerStructuredTextWriter;
+import com.loopwright.solver.export.ControllerTexts;
 import com.loopwright.solver.export.ExportHeader;
+import com.loopwright.solver.export.PlcOpenXmlWriter;
+import com.loopwright.solver.export.ProvenanceHeader;
 import com.loopwright.solver.export.SampledLawDesigner;
 import com.loopwright.solver.export.SampledLawException;
 import com.loopwright.solver.export.StructuredTextWriter;
 import com.loopwright.solver.robustness.SampledStepMetrics;
+import java.time.Instant;
 import java.util.List;
 import java.util.Optional;
 
@@ -71,6 +79,29 @@ public final class ExportPipeline {
      */
     public String cSource(ControllerExport export, String title, List<String> specLines, List<String> cautions) {
         return new CSourceWriter().write(header(export, title, specLines, cautions), export.law());
+    }
+
+    /**
+     * A generic discrete controller (plain law, integral action, observer) as Structured Text, a C header and
+     * source pair and a PLCopen XML project, all with the same provenance header, prefix and precision.
+     *
+     * @param createdAt the PLCopen fileHeader creationDateTime (fixed instant: reproducible bytes)
+     * @throws IllegalArgumentException when a constant cannot be written (non-finite, or beyond REAL's range) or
+     *     the settings do not match the controller's measured channels
+     */
+    public ControllerTexts controllerTexts(
+            DiscreteController controller,
+            ProvenanceHeader header,
+            ControllerExportOptions options,
+            Instant createdAt) {
+        ControllerCWriter.Pair c = new ControllerCWriter().write(header, controller, options);
+        return new ControllerTexts(
+                new ControllerStructuredTextWriter().write(header, controller, options),
+                c.headerFileName(),
+                c.header(),
+                c.sourceFileName(),
+                c.source(),
+                new PlcOpenXmlWriter().write(header, controller, options, createdAt));
     }
 
     private static ExportHeader header(
