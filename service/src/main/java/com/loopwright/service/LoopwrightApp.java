@@ -45,7 +45,7 @@ import io.javalin.http.HttpResponseException;
 import java.util.List;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
-import java.util.function.Function;
+import java.util.function.BiFunction;
 import org.eclipse.jetty.server.AbstractConnector;
 import org.eclipse.jetty.server.Connector;
 import org.eclipse.jetty.server.Server;
@@ -61,6 +61,10 @@ public final class LoopwrightApp {
     private static final Logger LOG = LoggerFactory.getLogger(LoopwrightApp.class);
     private static final Logger ACCESS = LoggerFactory.getLogger("com.loopwright.access");
     private static final String STARTED_NANOS = "loopwright.startedNanos";
+    private static final String DESIGNS_PATH = "/v1/designs";
+    private static final String FIT_PATH = "/v1/models/fit";
+    private static final String HIGH_ORDER_PATH = "/v1/designs/high-order";
+    private static final String VERIFICATIONS_PATH = "/v1/verifications";
 
     private LoopwrightApp() {}
 
@@ -79,31 +83,49 @@ public final class LoopwrightApp {
         EndpointRunner runner = new EndpointRunner(mapper, config.serviceVersion());
         Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(runner) : computation, fatal);
         ProblemResponses problems = new ProblemResponses(mapper);
-        ComputePool pool =
-                new ComputePool(config.workerThreads(), config.queueCapacity(), config.computeDeadlineMillis());
-        Metrics metrics = new Metrics(pool::activeWorkers, pool::queuedDesigns);
+        Metrics metrics = new Metrics(config.serviceVersion());
+        ComputePool pool = new ComputePool(
+                config.workerThreads(),
+                config.queueCapacity(),
+                config.computeDeadlineMillis(),
+                new ComputePool.Timings(metrics::computationQueued, metrics::computationRan));
+        metrics.observeComputePool(pool::activeWorkers, pool::queuedDesigns);
         StreamCuts cuts = new StreamCuts();
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
         Cors cors = new Cors(config.corsOrigins());
         JsonExchangeRoute design = JsonExchangeRoute.encoded(
-                problems, pool, designs::design, outcome -> metrics.design(Metrics.outcomeOf(outcome)));
+                problems, pool, designs::design, outcome -> metrics.design(DESIGNS_PATH, outcome));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
-        // A JSON-to-JSON endpoint on the compute pool, its fatal errors guarded: one call per route-table row.
-        Function<Endpoint<?, ?, ?>, JsonExchangeRoute> json = endpoint ->
-                new JsonExchangeRoute(problems, pool, fatal.guard((byte[] body) -> runner.run(endpoint, body)));
+        // A JSON-to-JSON endpoint on the compute pool, its fatal errors guarded and its outcomes counted under its
+        // route template: one call per route-table row.
+        BiFunction<String, Endpoint<?, ?, ?>, JsonExchangeRoute> json = (path, endpoint) -> JsonExchangeRoute.encoded(
+                problems,
+                pool,
+                fatal.guard((byte[] body) -> runner.run(endpoint, body)),
+                outcome -> metrics.computation(path, outcome));
         HealthRoute health = new HealthRoute();
         Takeaways takeaways = new Takeaways(runner);
-        TakeawayRoute plots = new TakeawayRoute("figure", fatal.guard(takeaways::plot), problems, pool);
-        TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems, pool);
+        TakeawayRoute plots = new TakeawayRoute(
+                "figure",
+                fatal.guard(takeaways::plot),
+                problems,
+                pool,
+                outcome -> metrics.computation(TakeawayRoute.PLOTS_PATH, outcome));
+        TakeawayRoute controllers = new TakeawayRoute(
+                "format",
+                fatal.guard(takeaways::controller),
+                problems,
+                pool,
+                outcome -> metrics.computation(TakeawayRoute.CONTROLLERS_PATH, outcome));
         DashboardRoute dashboard = new DashboardRoute();
         // Every endpoint, one line each: the table registers it, preflights it, keys it and labels its metrics.
         RouteTable table = new RouteTable(List.of(
-                Route.keyed(POST, "/v1/designs", design),
+                Route.keyed(POST, DESIGNS_PATH, design),
                 Route.keyed(POST, BatchRoute.PATH, batch),
-                Route.keyed(POST, "/v1/models/fit", json.apply(new FitEndpoint())),
-                Route.keyed(POST, "/v1/designs/high-order", json.apply(new HighOrderEndpoint())),
-                Route.keyed(POST, "/v1/verifications", json.apply(new VerificationEndpoint())),
+                Route.keyed(POST, FIT_PATH, json.apply(FIT_PATH, new FitEndpoint())),
+                Route.keyed(POST, HIGH_ORDER_PATH, json.apply(HIGH_ORDER_PATH, new HighOrderEndpoint())),
+                Route.keyed(POST, VERIFICATIONS_PATH, json.apply(VERIFICATIONS_PATH, new VerificationEndpoint())),
                 Route.keyed(POST, TakeawayRoute.PLOTS_PATH, plots),
                 Route.keyed(POST, TakeawayRoute.CONTROLLERS_PATH, controllers),
                 Route.open(GET, ContractRoute.PATH, new ContractRoute()),
@@ -112,6 +134,10 @@ public final class LoopwrightApp {
                 Route.open(GET, ReadinessRoute.PATH, new ReadinessRoute(draining::get, problems)),
                 Route.open(GET, MetricsRoute.PATH, new MetricsRoute(metrics)),
                 Route.open(GET, DashboardRoute.PATH, dashboard)));
+        List.of(DESIGNS_PATH, BatchRoute.PATH, FIT_PATH, HIGH_ORDER_PATH, VERIFICATIONS_PATH)
+                .forEach(metrics::declareComputingRoute);
+        metrics.declareComputingRoute(TakeawayRoute.PLOTS_PATH);
+        metrics.declareComputingRoute(TakeawayRoute.CONTROLLERS_PATH);
         return Javalin.create(javalin -> {
             RouteTable.Matcher paths = table.matcher(javalin.router);
             KeyedAccess access = new KeyedAccess(keys, paths);
