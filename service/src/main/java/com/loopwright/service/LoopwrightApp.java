@@ -23,6 +23,7 @@ import com.loopwright.service.http.ProblemException;
 import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.http.RequestBodyGate;
 import com.loopwright.service.http.StreamCuts;
+import com.loopwright.service.observe.AccessLog;
 import com.loopwright.service.observe.Metrics;
 import com.loopwright.service.observe.RequestIds;
 import com.loopwright.service.routes.BatchRoute;
@@ -46,6 +47,7 @@ import java.util.List;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
 import java.util.function.BiFunction;
+import org.eclipse.jetty.ee10.servlet.ServletContextRequest;
 import org.eclipse.jetty.server.AbstractConnector;
 import org.eclipse.jetty.server.Connector;
 import org.eclipse.jetty.server.Server;
@@ -59,7 +61,6 @@ import org.slf4j.MDC;
 public final class LoopwrightApp {
 
     private static final Logger LOG = LoggerFactory.getLogger(LoopwrightApp.class);
-    private static final Logger ACCESS = LoggerFactory.getLogger("com.loopwright.access");
     private static final String STARTED_NANOS = "loopwright.startedNanos";
     private static final String DESIGNS_PATH = "/v1/designs";
     private static final String FIT_PATH = "/v1/models/fit";
@@ -217,7 +218,7 @@ public final class LoopwrightApp {
                     ctx -> problems.write(
                             ctx, ProblemType.NOT_FOUND.problem("no resource at this path; see GET /openapi.yaml")));
             javalin.routes.error(405, ctx -> methodNotAllowed(ctx, table.methodsOn(paths.label(ctx.path())), problems));
-            javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths));
+            javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths, keys));
         });
     }
 
@@ -247,7 +248,8 @@ public final class LoopwrightApp {
             public void answered(String method, String path, int status, long elapsedNanos) {
                 String route = paths.label(path);
                 metrics.requestAnsweredByHttpLayer(route, method, status, elapsedNanos / 1e9);
-                logAccess(method, route, status, elapsedNanos / 1e9);
+                AccessLog.write(new AccessLog.Line(
+                        Metrics.methodLabel(method), route, status, elapsedNanos / 1e9, -1, null, null, null));
             }
         };
     }
@@ -265,7 +267,7 @@ public final class LoopwrightApp {
     }
 
     /** Counts the request, writes the access line and clears the request id from the thread. */
-    private static void finish(Context ctx, Metrics metrics, RouteTable table, RouteTable.Matcher paths) {
+    private static void finish(Context ctx, Metrics metrics, RouteTable table, RouteTable.Matcher paths, ApiKeys keys) {
         Long started = ctx.attribute(STARTED_NANOS);
         double seconds = started == null ? 0 : (System.nanoTime() - started) / 1e9;
         String route = routeLabel(ctx, table, paths);
@@ -273,17 +275,27 @@ public final class LoopwrightApp {
         if (started != null) {
             metrics.requestFinished(route, ctx.method().name(), status, seconds);
         }
-        logAccess(ctx.method().name(), route, status, seconds);
+        AccessLog.write(new AccessLog.Line(
+                Metrics.methodLabel(ctx.method().name()),
+                route,
+                status,
+                seconds,
+                bytesWritten(ctx),
+                keys.keyId(ctx.header("Authorization"), ctx.header(ApiKeys.HEADER)),
+                ctx.header("User-Agent"),
+                ctx.header(AccessLog.TRACEPARENT_HEADER)));
         MDC.remove(RequestIds.MDC_KEY);
     }
 
-    /** One access line: method (a bounded label), route label, status, milliseconds to one decimal. */
-    private static void logAccess(String method, String route, int status, double seconds) {
-        if (ACCESS.isInfoEnabled()) {
-            // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
-            ACCESS.info(Metrics.methodLabel(method) + ' ' + route + ' ' + status + ' '
-                    + Math.round(seconds * 1e4) / 10.0 + " ms");
-        }
+    /**
+     * Response body bytes the application wrote for this exchange (some may still sit in the servlet's buffer when
+     * the access line is written), or -1 when it cannot tell.
+     */
+    private static long bytesWritten(Context ctx) {
+        ServletContextRequest request = ServletContextRequest.getServletContextRequest(ctx.req());
+        return request == null
+                ? -1
+                : request.getServletContextResponse().getHttpOutput().getWritten();
     }
 
     private static com.loopwright.api.problem.Problem statusProblem(int status) {

@@ -20,6 +20,8 @@ public final class ApiKeys {
     private static final String BEARER = "Bearer ";
     /** A presented credential longer than this is refused without hashing. */
     static final int MAX_PRESENTED_LENGTH = 512;
+    /** Hex digits of a key's SHA-256 digest shown as its id in access logs. */
+    public static final int KEY_ID_HEX_DIGITS = 8;
 
     private final List<byte[]> digests;
 
@@ -66,6 +68,23 @@ public final class ApiKeys {
         if (presented.length() > MAX_PRESENTED_LENGTH || !matches(presented)) {
             throw new ProblemException(ProblemType.FORBIDDEN.problem("the API key is not accepted"));
         }
+    }
+
+    /**
+     * A short id of the presented credential for access logs: the first {@link #KEY_ID_HEX_DIGITS} hex digits of
+     * its SHA-256 digest (never the key; 32 bits of a digest tell nothing usable about a key), or null when
+     * authentication is off or no credential (or an over-long one) is presented. The same key always has the
+     * same id, so an operator can tell callers apart and match a rotated key to its digest.
+     */
+    public String keyId(String authorization, String apiKeyHeader) {
+        if (!enabled()) {
+            return null;
+        }
+        String presented = presented(authorization, apiKeyHeader);
+        if (presented == null || presented.isEmpty() || presented.length() > MAX_PRESENTED_LENGTH) {
+            return null;
+        }
+        return java.util.HexFormat.of().formatHex(sha256(presented)).substring(0, KEY_ID_HEX_DIGITS);
     }
 
     /** The X-Api-Key header, else the token of an "Authorization: Bearer" header, else null. */
