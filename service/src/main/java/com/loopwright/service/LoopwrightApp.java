@@ -37,12 +37,14 @@ import com.loopwright.service.routes.RouteTable;
 import com.loopwright.service.routes.RouteTable.Route;
 import com.loopwright.service.routes.TakeawayRoute;
 import com.loopwright.service.security.ApiKeys;
+import com.loopwright.service.security.ApiKeysFile;
 import com.loopwright.service.security.Cors;
 import com.loopwright.service.security.KeyedAccess;
 import com.loopwright.service.security.SecurityHeaders;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HttpResponseException;
+import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
@@ -80,6 +82,11 @@ public final class LoopwrightApp {
 
     /** With a replaceable reaction to an OutOfMemoryError (tests record it instead of halting the JVM). */
     public static Javalin create(ServiceConfig config, Designs computation, FatalErrors fatal) {
+        return create(config, computation, fatal, ApiKeysFile.POLL_INTERVAL_MILLIS);
+    }
+
+    /** With the key file's poll interval (tests rotate keys in a fraction of a second). */
+    public static Javalin create(ServiceConfig config, Designs computation, FatalErrors fatal, long keyFilePollMillis) {
         ObjectMapper mapper = StrictJson.newMapper();
         EndpointRunner runner = new EndpointRunner(mapper, config.serviceVersion());
         Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(runner) : computation, fatal);
@@ -94,6 +101,10 @@ public final class LoopwrightApp {
         StreamCuts cuts = new StreamCuts();
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
+        // A mounted secret rotates without a restart: the key file is polled and re-read when it changes.
+        ApiKeysFile keyFile = config.apiKeysFile() == null
+                ? null
+                : new ApiKeysFile(Path.of(config.apiKeysFile()), config.fixedApiKeys(), keys, keyFilePollMillis);
         Cors cors = new Cors(config.corsOrigins());
         JsonExchangeRoute design = JsonExchangeRoute.encoded(
                 problems, pool, designs::design, outcome -> metrics.design(DESIGNS_PATH, outcome));
@@ -188,7 +199,12 @@ public final class LoopwrightApp {
                 draining.set(true);
                 cuts.cutBefore(config.shutdownGraceMillis());
             });
-            javalin.events.serverStopped(() -> pool.shutdown(config.shutdownGraceMillis()));
+            javalin.events.serverStopped(() -> {
+                if (keyFile != null) {
+                    keyFile.close();
+                }
+                pool.shutdown(config.shutdownGraceMillis());
+            });
 
             javalin.routes.before(ctx -> {
                 ctx.attribute(STARTED_NANOS, System.nanoTime());

@@ -23,14 +23,60 @@ public final class ApiKeys {
     /** Hex digits of a key's SHA-256 digest shown as its id in access logs. */
     public static final int KEY_ID_HEX_DIGITS = 8;
 
-    private final List<byte[]> digests;
+    /** At most this many accepted keys (all sources together). */
+    public static final int MAX_KEYS = 64;
+    /** A configured key is at least this long (printable ASCII without spaces). */
+    public static final int MIN_KEY_LENGTH = 16;
+
+    /** The digests in force, swapped whole when a key file is re-read (readers see the old or the new set). */
+    private volatile List<byte[]> digests;
 
     public ApiKeys(List<String> keys) {
+        validate(keys);
+        this.digests = digestsOf(keys);
+    }
+
+    /**
+     * Throws IllegalArgumentException unless every key is at least {@link #MIN_KEY_LENGTH} printable ASCII
+     * characters without spaces and there are at most {@link #MAX_KEYS}. The message names the key's position,
+     * never the key.
+     */
+    public static void validate(List<String> keys) {
+        if (keys.size() > MAX_KEYS) {
+            throw new IllegalArgumentException("at most " + MAX_KEYS + " API keys");
+        }
+        for (int i = 0; i < keys.size(); i++) {
+            String key = keys.get(i);
+            if (key == null || key.length() < MIN_KEY_LENGTH || !key.chars().allMatch(c -> c > 0x20 && c < 0x7f)) {
+                throw new IllegalArgumentException("API key #" + (i + 1) + " must be at least " + MIN_KEY_LENGTH
+                        + " printable ASCII characters without spaces");
+            }
+        }
+    }
+
+    /**
+     * Puts a new key set in force at once (a rotated key file). An empty or invalid set is refused with
+     * IllegalArgumentException and the keys in force stay: a rotation never turns authentication off.
+     */
+    public void replace(List<String> keys) {
+        if (keys.isEmpty()) {
+            throw new IllegalArgumentException("an empty key set would turn authentication off");
+        }
+        validate(keys);
+        this.digests = digestsOf(keys);
+    }
+
+    /** How many keys are in force. */
+    public int size() {
+        return digests.size();
+    }
+
+    private static List<byte[]> digestsOf(List<String> keys) {
         List<byte[]> hashed = new ArrayList<>();
         for (String key : keys) {
             hashed.add(sha256(key));
         }
-        this.digests = List.copyOf(hashed);
+        return List.copyOf(hashed);
     }
 
     public boolean enabled() {
@@ -100,7 +146,7 @@ public final class ApiKeys {
     private boolean matches(String presented) {
         byte[] digest = sha256(presented);
         boolean match = false;
-        for (byte[] known : digests) {
+        for (byte[] known : digests) { // one read of the volatile set: all of one version
             match |= MessageDigest.isEqual(known, digest);
         }
         return match;
