@@ -53,6 +53,7 @@ import org.eclipse.jetty.ee10.servlet.ServletContextRequest;
 import org.eclipse.jetty.server.AbstractConnector;
 import org.eclipse.jetty.server.Connector;
 import org.eclipse.jetty.server.Server;
+import org.eclipse.jetty.server.ServerConnector;
 import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.eclipse.jetty.util.thread.QueuedThreadPool;
 import org.slf4j.Logger;
@@ -64,6 +65,9 @@ public final class LoopwrightApp {
 
     private static final Logger LOG = LoggerFactory.getLogger(LoopwrightApp.class);
     private static final String STARTED_NANOS = "loopwright.startedNanos";
+    /** The name of the management connector (LOOPWRIGHT_METRICS_PORT) among the server's connectors. */
+    public static final String METRICS_CONNECTOR = "management";
+
     private static final String DESIGNS_PATH = "/v1/designs";
     private static final String FIT_PATH = "/v1/models/fit";
     private static final String HIGH_ORDER_PATH = "/v1/designs/high-order";
@@ -181,9 +185,23 @@ public final class LoopwrightApp {
                 server.setStopTimeout(config.shutdownGraceMillis());
                 jetty.set(server);
             });
-            // Javalin adds its connector after modifyServer; the idle timeout is set on it just before the start.
+            // Javalin adds its connector after modifyServer; the idle timeout is set on it just before the start,
+            // and the management connector (LOOPWRIGHT_METRICS_PORT) is added beside it, on the same host.
+            AtomicReference<ServerConnector> management = new AtomicReference<>();
             javalin.events.serverStarting(() -> {
-                for (Connector connector : jetty.get().getConnectors()) {
+                Server server = jetty.get();
+                if (config.metricsPort() != ServiceConfig.METRICS_ON_MAIN_PORT) {
+                    ServerConnector metricsConnector = new ServerConnector(server);
+                    metricsConnector.setName(METRICS_CONNECTOR);
+                    metricsConnector.setPort(config.metricsPort());
+                    if (server.getConnectors().length > 0
+                            && server.getConnectors()[0] instanceof ServerConnector main) {
+                        metricsConnector.setHost(main.getHost());
+                    }
+                    server.addConnector(metricsConnector);
+                    management.set(metricsConnector);
+                }
+                for (Connector connector : server.getConnectors()) {
                     if (connector instanceof AbstractConnector network) {
                         network.setIdleTimeout(limits.idleTimeoutMillis());
                     }
@@ -215,6 +233,7 @@ public final class LoopwrightApp {
                 ctx.header(Trace.VERSION_HEADER, config.serviceVersion());
                 SecurityHeaders.apply(ctx);
                 cors.decorate(ctx);
+                keepMetricsOnItsPort(ctx, management.get());
                 access.refuseWithheld(ctx);
             });
             table.register(javalin.routes, access::check, cors.enabled() ? cors::preflight : null);
@@ -236,6 +255,23 @@ public final class LoopwrightApp {
             javalin.routes.error(405, ctx -> methodNotAllowed(ctx, table.methodsOn(paths.label(ctx.path())), problems));
             javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths, keys));
         });
+    }
+
+    /**
+     * With a management connector, GET /metrics is served there alone: the main port answers 404 on /metrics, the
+     * management port 404 on every other path (a NetworkPolicy admits by port, not by path).
+     */
+    private static void keepMetricsOnItsPort(Context ctx, ServerConnector management) {
+        if (management == null) {
+            return;
+        }
+        boolean onManagementPort = ctx.req().getLocalPort() == management.getLocalPort();
+        if (onManagementPort != ctx.path().equals(MetricsRoute.PATH)) {
+            throw new ProblemException(ProblemType.NOT_FOUND.problem(
+                    onManagementPort
+                            ? "the management port serves GET " + MetricsRoute.PATH + " only"
+                            : "metrics are served on the management port (LOOPWRIGHT_METRICS_PORT)"));
+        }
     }
 
     /** 405 with the Allow header (RFC 9110, section 15.5.6) and the method to use in its detail. */
