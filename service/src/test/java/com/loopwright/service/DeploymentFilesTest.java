@@ -210,4 +210,20 @@ class DeploymentFilesTest {
         assertTrue(text.contains("--duration") || text.contains(" -d "), "wrk runs for a bounded time");
         assertTrue(text.contains("--latency"), "prints latency percentiles");
     }
+
+    /** The soak test CI runs: loopback only, bounded by a timeout, under the documented heap, started by .ci/run. */
+    @Test
+    void soakScriptIsBoundedAndLoopbackOnlyAndRunInCi() throws Exception {
+        Path script = ROOT.resolve("bench").resolve("soak.sh");
+        assertTrue(Files.isExecutable(script), "bench/soak.sh is executable");
+        String text = Files.readString(script);
+        assertTrue(
+                text.contains("127.0.0.1") && !text.matches("(?s).*https?://(?!127\\.0\\.0\\.1)[a-z0-9].*"),
+                "targets loopback only");
+        assertTrue(text.contains("timeout 160 mvn"), "the soak run is bounded in time");
+        assertTrue(text.contains("heap=${SOAK_HEAP:-256m}") && text.contains("-Xmx\"$heap\""), "under -Xmx256m");
+        assertTrue(Files.readString(ROOT.resolve(".ci/run")).contains("bench/soak.sh"), ".ci/run starts it");
+        assertTrue(SoakTest.ROUNDS >= SoakTest.COMPARED_ROUND && SoakTest.RSS_GROWTH_LIMIT <= 0.10);
+        assertTrue(SoakTest.ROUND_BUDGET_MILLIS * SoakTest.ROUNDS <= 150_000, "rounds fit the time promise");
+    }
 }
