@@ -9,7 +9,14 @@ import io.prometheus.metrics.core.metrics.GaugeWithCallback;
 import io.prometheus.metrics.core.metrics.Histogram;
 import io.prometheus.metrics.core.metrics.Info;
 import io.prometheus.metrics.expositionformats.PrometheusTextFormatWriter;
-import io.prometheus.metrics.instrumentation.jvm.JvmMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmBufferPoolMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmClassLoadingMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmCompilationMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmGarbageCollectorMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmMemoryMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmRuntimeInfoMetric;
+import io.prometheus.metrics.instrumentation.jvm.JvmThreadsMetrics;
+import io.prometheus.metrics.instrumentation.jvm.ProcessMetrics;
 import io.prometheus.metrics.model.registry.PrometheusRegistry;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
@@ -82,7 +89,17 @@ public final class Metrics {
 
     /** @param version the service version, the label of loopwright_build_info */
     public Metrics(String version) {
-        JvmMetrics.builder().register(registry);
+        // The components of the client's JvmMetrics, one by one: JvmMetrics itself remembers every registry it
+        // registered with in a static set (so every application built in one JVM, as in tests, would stay
+        // reachable), and its allocation counters add a GC listener per registry that is never removed.
+        JvmThreadsMetrics.builder().register(registry);
+        JvmBufferPoolMetrics.builder().register(registry);
+        JvmClassLoadingMetrics.builder().register(registry);
+        JvmCompilationMetrics.builder().register(registry);
+        JvmGarbageCollectorMetrics.builder().register(registry);
+        JvmMemoryMetrics.builder().register(registry);
+        JvmRuntimeInfoMetric.builder().register(registry);
+        ProcessMetrics.builder().register(registry);
         Info.builder()
                 .name("loopwright_build_info")
                 .help("The running build: its version (always 1).")
