@@ -96,7 +96,17 @@ class ApiKeysRotationTest {
             assertEquals(403, awaitStatus(server, OLD_KEY, 403), "the old key is refused after the rotation");
             assertEquals(200, status(server, NEW_KEY), "the new key is accepted");
             assertEquals(200, status(server, FIXED_KEY), "LOOPWRIGHT_API_KEYS stays");
+            assertTrue(pollerAlive(), "the key file is polled while the server runs");
         }
+        for (int i = 0; i < 100 && pollerAlive(); i++) {
+            Thread.sleep(10);
+        }
+        assertTrue(!pollerAlive(), "the poller stops with the server");
+    }
+
+    private static boolean pollerAlive() {
+        return Thread.getAllStackTraces().keySet().stream()
+                .anyMatch(thread -> thread.getName().equals("loopwright-api-keys-file") && thread.isAlive());
     }
 
     @Test
