@@ -23,6 +23,7 @@ import com.loopwright.service.http.ProblemException;
 import com.loopwright.service.http.ProblemResponses;
 import com.loopwright.service.http.RequestBodyGate;
 import com.loopwright.service.http.StreamCuts;
+import com.loopwright.service.observe.AccessLog;
 import com.loopwright.service.observe.Metrics;
 import com.loopwright.service.observe.RequestIds;
 import com.loopwright.service.routes.BatchRoute;
@@ -36,19 +37,23 @@ import com.loopwright.service.routes.RouteTable;
 import com.loopwright.service.routes.RouteTable.Route;
 import com.loopwright.service.routes.TakeawayRoute;
 import com.loopwright.service.security.ApiKeys;
+import com.loopwright.service.security.ApiKeysFile;
 import com.loopwright.service.security.Cors;
 import com.loopwright.service.security.KeyedAccess;
 import com.loopwright.service.security.SecurityHeaders;
 import io.javalin.Javalin;
 import io.javalin.http.Context;
 import io.javalin.http.HttpResponseException;
+import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicReference;
-import java.util.function.Function;
+import java.util.function.BiFunction;
+import org.eclipse.jetty.ee10.servlet.ServletContextRequest;
 import org.eclipse.jetty.server.AbstractConnector;
 import org.eclipse.jetty.server.Connector;
 import org.eclipse.jetty.server.Server;
+import org.eclipse.jetty.server.ServerConnector;
 import org.eclipse.jetty.server.handler.GracefulHandler;
 import org.eclipse.jetty.util.thread.QueuedThreadPool;
 import org.slf4j.Logger;
@@ -59,8 +64,14 @@ import org.slf4j.MDC;
 public final class LoopwrightApp {
 
     private static final Logger LOG = LoggerFactory.getLogger(LoopwrightApp.class);
-    private static final Logger ACCESS = LoggerFactory.getLogger("com.loopwright.access");
     private static final String STARTED_NANOS = "loopwright.startedNanos";
+    /** The name of the management connector (LOOPWRIGHT_METRICS_PORT) among the server's connectors. */
+    public static final String METRICS_CONNECTOR = "management";
+
+    private static final String DESIGNS_PATH = "/v1/designs";
+    private static final String FIT_PATH = "/v1/models/fit";
+    private static final String HIGH_ORDER_PATH = "/v1/designs/high-order";
+    private static final String VERIFICATIONS_PATH = "/v1/verifications";
 
     private LoopwrightApp() {}
 
@@ -75,35 +86,62 @@ public final class LoopwrightApp {
 
     /** With a replaceable reaction to an OutOfMemoryError (tests record it instead of halting the JVM). */
     public static Javalin create(ServiceConfig config, Designs computation, FatalErrors fatal) {
+        return create(config, computation, fatal, ApiKeysFile.POLL_INTERVAL_MILLIS);
+    }
+
+    /** With the key file's poll interval (tests rotate keys in a fraction of a second). */
+    public static Javalin create(ServiceConfig config, Designs computation, FatalErrors fatal, long keyFilePollMillis) {
         ObjectMapper mapper = StrictJson.newMapper();
         EndpointRunner runner = new EndpointRunner(mapper, config.serviceVersion());
         Designs designs = new OutOfMemoryGuard(computation == null ? new ExchangeDesigns(runner) : computation, fatal);
         ProblemResponses problems = new ProblemResponses(mapper);
-        ComputePool pool =
-                new ComputePool(config.workerThreads(), config.queueCapacity(), config.computeDeadlineMillis());
-        Metrics metrics = new Metrics(pool::activeWorkers, pool::queuedDesigns);
+        Metrics metrics = new Metrics(config.serviceVersion());
+        ComputePool pool = new ComputePool(
+                config.workerThreads(),
+                config.queueCapacity(),
+                config.computeDeadlineMillis(),
+                new ComputePool.Timings(metrics::computationQueued, metrics::computationRan));
+        metrics.observeComputePool(pool::activeWorkers, pool::queuedDesigns);
         StreamCuts cuts = new StreamCuts();
         AtomicBoolean draining = new AtomicBoolean();
         ApiKeys keys = new ApiKeys(config.apiKeys());
+        // A mounted secret rotates without a restart: the key file is polled and re-read when it changes.
+        ApiKeysFile keyFile = config.apiKeysFile() == null
+                ? null
+                : new ApiKeysFile(Path.of(config.apiKeysFile()), config.fixedApiKeys(), keys, keyFilePollMillis);
         Cors cors = new Cors(config.corsOrigins());
         JsonExchangeRoute design = JsonExchangeRoute.encoded(
-                problems, pool, designs::design, outcome -> metrics.design(Metrics.outcomeOf(outcome)));
+                problems, pool, designs::design, outcome -> metrics.design(DESIGNS_PATH, outcome));
         BatchRoute batch = new BatchRoute(mapper, problems, designs, pool, metrics, config.maxBatchItems(), cuts);
-        // A JSON-to-JSON endpoint on the compute pool, its fatal errors guarded: one call per route-table row.
-        Function<Endpoint<?, ?, ?>, JsonExchangeRoute> json = endpoint ->
-                new JsonExchangeRoute(problems, pool, fatal.guard((byte[] body) -> runner.run(endpoint, body)));
+        // A JSON-to-JSON endpoint on the compute pool, its fatal errors guarded and its outcomes counted under its
+        // route template: one call per route-table row.
+        BiFunction<String, Endpoint<?, ?, ?>, JsonExchangeRoute> json = (path, endpoint) -> JsonExchangeRoute.encoded(
+                problems,
+                pool,
+                fatal.guard((byte[] body) -> runner.run(endpoint, body)),
+                outcome -> metrics.computation(path, outcome));
         HealthRoute health = new HealthRoute();
         Takeaways takeaways = new Takeaways(runner);
-        TakeawayRoute plots = new TakeawayRoute("figure", fatal.guard(takeaways::plot), problems, pool);
-        TakeawayRoute controllers = new TakeawayRoute("format", fatal.guard(takeaways::controller), problems, pool);
+        TakeawayRoute plots = new TakeawayRoute(
+                "figure",
+                fatal.guard(takeaways::plot),
+                problems,
+                pool,
+                outcome -> metrics.computation(TakeawayRoute.PLOTS_PATH, outcome));
+        TakeawayRoute controllers = new TakeawayRoute(
+                "format",
+                fatal.guard(takeaways::controller),
+                problems,
+                pool,
+                outcome -> metrics.computation(TakeawayRoute.CONTROLLERS_PATH, outcome));
         DashboardRoute dashboard = new DashboardRoute();
         // Every endpoint, one line each: the table registers it, preflights it, keys it and labels its metrics.
         RouteTable table = new RouteTable(List.of(
-                Route.keyed(POST, "/v1/designs", design),
+                Route.keyed(POST, DESIGNS_PATH, design),
                 Route.keyed(POST, BatchRoute.PATH, batch),
-                Route.keyed(POST, "/v1/models/fit", json.apply(new FitEndpoint())),
-                Route.keyed(POST, "/v1/designs/high-order", json.apply(new HighOrderEndpoint())),
-                Route.keyed(POST, "/v1/verifications", json.apply(new VerificationEndpoint())),
+                Route.keyed(POST, FIT_PATH, json.apply(FIT_PATH, new FitEndpoint())),
+                Route.keyed(POST, HIGH_ORDER_PATH, json.apply(HIGH_ORDER_PATH, new HighOrderEndpoint())),
+                Route.keyed(POST, VERIFICATIONS_PATH, json.apply(VERIFICATIONS_PATH, new VerificationEndpoint())),
                 Route.keyed(POST, TakeawayRoute.PLOTS_PATH, plots),
                 Route.keyed(POST, TakeawayRoute.CONTROLLERS_PATH, controllers),
                 Route.open(GET, ContractRoute.PATH, new ContractRoute()),
@@ -112,6 +150,10 @@ public final class LoopwrightApp {
                 Route.open(GET, ReadinessRoute.PATH, new ReadinessRoute(draining::get, problems)),
                 Route.open(GET, MetricsRoute.PATH, new MetricsRoute(metrics)),
                 Route.open(GET, DashboardRoute.PATH, dashboard)));
+        List.of(DESIGNS_PATH, BatchRoute.PATH, FIT_PATH, HIGH_ORDER_PATH, VERIFICATIONS_PATH)
+                .forEach(metrics::declareComputingRoute);
+        metrics.declareComputingRoute(TakeawayRoute.PLOTS_PATH);
+        metrics.declareComputingRoute(TakeawayRoute.CONTROLLERS_PATH);
         return Javalin.create(javalin -> {
             RouteTable.Matcher paths = table.matcher(javalin.router);
             KeyedAccess access = new KeyedAccess(keys, paths);
@@ -143,9 +185,23 @@ public final class LoopwrightApp {
                 server.setStopTimeout(config.shutdownGraceMillis());
                 jetty.set(server);
             });
-            // Javalin adds its connector after modifyServer; the idle timeout is set on it just before the start.
+            // Javalin adds its connector after modifyServer; the idle timeout is set on it just before the start,
+            // and the management connector (LOOPWRIGHT_METRICS_PORT) is added beside it, on the same host.
+            AtomicReference<ServerConnector> management = new AtomicReference<>();
             javalin.events.serverStarting(() -> {
-                for (Connector connector : jetty.get().getConnectors()) {
+                Server server = jetty.get();
+                if (config.metricsPort() != ServiceConfig.METRICS_ON_MAIN_PORT) {
+                    ServerConnector metricsConnector = new ServerConnector(server);
+                    metricsConnector.setName(METRICS_CONNECTOR);
+                    metricsConnector.setPort(config.metricsPort());
+                    if (server.getConnectors().length > 0
+                            && server.getConnectors()[0] instanceof ServerConnector main) {
+                        metricsConnector.setHost(main.getHost());
+                    }
+                    server.addConnector(metricsConnector);
+                    management.set(metricsConnector);
+                }
+                for (Connector connector : server.getConnectors()) {
                     if (connector instanceof AbstractConnector network) {
                         network.setIdleTimeout(limits.idleTimeoutMillis());
                     }
@@ -161,7 +217,12 @@ public final class LoopwrightApp {
                 draining.set(true);
                 cuts.cutBefore(config.shutdownGraceMillis());
             });
-            javalin.events.serverStopped(() -> pool.shutdown(config.shutdownGraceMillis()));
+            javalin.events.serverStopped(() -> {
+                if (keyFile != null) {
+                    keyFile.close();
+                }
+                pool.shutdown(config.shutdownGraceMillis());
+            });
 
             javalin.routes.before(ctx -> {
                 ctx.attribute(STARTED_NANOS, System.nanoTime());
@@ -172,6 +233,7 @@ public final class LoopwrightApp {
                 ctx.header(Trace.VERSION_HEADER, config.serviceVersion());
                 SecurityHeaders.apply(ctx);
                 cors.decorate(ctx);
+                keepMetricsOnItsPort(ctx, management.get());
                 access.refuseWithheld(ctx);
             });
             table.register(javalin.routes, access::check, cors.enabled() ? cors::preflight : null);
@@ -191,8 +253,25 @@ public final class LoopwrightApp {
                     ctx -> problems.write(
                             ctx, ProblemType.NOT_FOUND.problem("no resource at this path; see GET /openapi.yaml")));
             javalin.routes.error(405, ctx -> methodNotAllowed(ctx, table.methodsOn(paths.label(ctx.path())), problems));
-            javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths));
+            javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths, keys));
         });
+    }
+
+    /**
+     * With a management connector, GET /metrics is served there alone: the main port answers 404 on /metrics, the
+     * management port 404 on every other path (a NetworkPolicy admits by port, not by path).
+     */
+    private static void keepMetricsOnItsPort(Context ctx, ServerConnector management) {
+        if (management == null) {
+            return;
+        }
+        boolean onManagementPort = ctx.req().getLocalPort() == management.getLocalPort();
+        if (onManagementPort != ctx.path().equals(MetricsRoute.PATH)) {
+            throw new ProblemException(ProblemType.NOT_FOUND.problem(
+                    onManagementPort
+                            ? "the management port serves GET " + MetricsRoute.PATH + " only"
+                            : "metrics are served on the management port (LOOPWRIGHT_METRICS_PORT)"));
+        }
     }
 
     /** 405 with the Allow header (RFC 9110, section 15.5.6) and the method to use in its detail. */
@@ -221,7 +300,8 @@ public final class LoopwrightApp {
             public void answered(String method, String path, int status, long elapsedNanos) {
                 String route = paths.label(path);
                 metrics.requestAnsweredByHttpLayer(route, method, status, elapsedNanos / 1e9);
-                logAccess(method, route, status, elapsedNanos / 1e9);
+                AccessLog.write(new AccessLog.Line(
+                        Metrics.methodLabel(method), route, status, elapsedNanos / 1e9, -1, null, null, null));
             }
         };
     }
@@ -239,7 +319,7 @@ public final class LoopwrightApp {
     }
 
     /** Counts the request, writes the access line and clears the request id from the thread. */
-    private static void finish(Context ctx, Metrics metrics, RouteTable table, RouteTable.Matcher paths) {
+    private static void finish(Context ctx, Metrics metrics, RouteTable table, RouteTable.Matcher paths, ApiKeys keys) {
         Long started = ctx.attribute(STARTED_NANOS);
         double seconds = started == null ? 0 : (System.nanoTime() - started) / 1e9;
         String route = routeLabel(ctx, table, paths);
@@ -247,17 +327,27 @@ public final class LoopwrightApp {
         if (started != null) {
             metrics.requestFinished(route, ctx.method().name(), status, seconds);
         }
-        logAccess(ctx.method().name(), route, status, seconds);
+        AccessLog.write(new AccessLog.Line(
+                Metrics.methodLabel(ctx.method().name()),
+                route,
+                status,
+                seconds,
+                bytesWritten(ctx),
+                keys.keyId(ctx.header("Authorization"), ctx.header(ApiKeys.HEADER)),
+                ctx.header("User-Agent"),
+                ctx.header(AccessLog.TRACEPARENT_HEADER)));
         MDC.remove(RequestIds.MDC_KEY);
     }
 
-    /** One access line: method (a bounded label), route label, status, milliseconds to one decimal. */
-    private static void logAccess(String method, String route, int status, double seconds) {
-        if (ACCESS.isInfoEnabled()) {
-            // Built by hand: the same text as "{} {} {} {} ms", without the placeholder formatter per request.
-            ACCESS.info(Metrics.methodLabel(method) + ' ' + route + ' ' + status + ' '
-                    + Math.round(seconds * 1e4) / 10.0 + " ms");
-        }
+    /**
+     * Response body bytes the application wrote for this exchange (some may still sit in the servlet's buffer when
+     * the access line is written), or -1 when it cannot tell.
+     */
+    private static long bytesWritten(Context ctx) {
+        ServletContextRequest request = ServletContextRequest.getServletContextRequest(ctx.req());
+        return request == null
+                ? -1
+                : request.getServletContextResponse().getHttpOutput().getWritten();
     }
 
     private static com.loopwright.api.problem.Problem statusProblem(int status) {

@@ -32,6 +32,12 @@ public final class LoopwrightMain {
         // within LOOPWRIGHT_SHUTDOWN_GRACE_MS (batch streams end with a cut line just before), then the pool drains.
         Runtime.getRuntime().addShutdownHook(new Thread(shutdownHook(app::stop), "loopwright-shutdown"));
         LOG.info("Loopwright listening on port {}", app.port());
+        for (var connector : app.jettyServer().server().getConnectors()) {
+            if (LoopwrightApp.METRICS_CONNECTOR.equals(connector.getName())
+                    && connector instanceof org.eclipse.jetty.server.ServerConnector management) {
+                LOG.info("metrics on the management port {}", management.getLocalPort());
+            }
+        }
     }
 
     /**

@@ -2,10 +2,10 @@ package com.loopwright.service;
 
 import com.loopwright.api.endpoint.ServiceVersion;
 import com.loopwright.service.http.HttpLimits;
+import com.loopwright.service.security.ApiKeys;
+import com.loopwright.service.security.ApiKeysFile;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -27,8 +27,9 @@ import java.util.Map;
  *                            (LOOPWRIGHT_COMPUTE_DEADLINE_MS, default 10000)
  * @param maxBatchItems       items per POST /v1/designs/batch (LOOPWRIGHT_MAX_BATCH_ITEMS, default 1000, at most
  *                            {@link #BATCH_ITEMS_CEILING})
- * @param apiKeys             accepted API keys; empty turns authentication off (LOOPWRIGHT_API_KEYS, comma
+ * @param apiKeys             accepted API keys at start-up; empty turns authentication off (LOOPWRIGHT_API_KEYS, comma
  *                            separated, and/or LOOPWRIGHT_API_KEYS_FILE, one key per line)
+ * @param fixedApiKeys        the keys of LOOPWRIGHT_API_KEYS alone (they stay when the key file is re-read)
  * @param corsOrigins         browser origins allowed by CORS; empty turns CORS off (LOOPWRIGHT_CORS_ORIGINS)
  * @param apiKeysFile         the file the keys were also read from (LOOPWRIGHT_API_KEYS_FILE), or null
  * @param logFormat           "json" or "text", any case (LOOPWRIGHT_LOG_FORMAT, default json); applied to logback
@@ -37,6 +38,8 @@ import java.util.Map;
  *                            default INFO)
  * @param shutdownGraceMillis how long a stop waits for in-flight requests (LOOPWRIGHT_SHUTDOWN_GRACE_MS,
  *                            default 20000)
+ * @param metricsPort         a separate management port serving only GET /metrics (LOOPWRIGHT_METRICS_PORT), or -1
+ *                            (unset, the default) for /metrics on the main port; 0 picks a free port
  * @param http                limits of the HTTP layer: request threads, in-flight body bytes, minimum body rate,
  *                            idle timeout ({@link HttpLimits})
  * @param serviceVersion      the version every response states: the project version the build stamped
@@ -51,11 +54,13 @@ public record ServiceConfig(
         long computeDeadlineMillis,
         int maxBatchItems,
         List<String> apiKeys,
+        List<String> fixedApiKeys,
         List<String> corsOrigins,
         String apiKeysFile,
         String logFormat,
         String logLevel,
         long shutdownGraceMillis,
+        int metricsPort,
         HttpLimits http,
         String serviceVersion) {
 
@@ -77,9 +82,11 @@ public record ServiceConfig(
     public static final int MAX_WORKER_THREADS = 256;
 
     public static final int MAX_QUEUE_CAPACITY = 100_000;
-    public static final int MAX_API_KEYS = 64;
+    public static final int MAX_API_KEYS = ApiKeys.MAX_KEYS;
     public static final int MAX_CORS_ORIGINS = 64;
-    public static final int MIN_API_KEY_LENGTH = 16;
+    public static final int MIN_API_KEY_LENGTH = ApiKeys.MIN_KEY_LENGTH;
+    /** LOOPWRIGHT_METRICS_PORT unset: /metrics is served on the main port. */
+    public static final int METRICS_ON_MAIN_PORT = -1;
 
     public ServiceConfig {
         if (port < 0 || port > 65_535) {
@@ -105,15 +112,17 @@ public record ServiceConfig(
                     "batch cap must be from 1 to " + BATCH_ITEMS_CEILING + ": " + maxBatchItems);
         }
         apiKeys = List.copyOf(apiKeys);
-        if (apiKeys.size() > MAX_API_KEYS) {
-            throw new IllegalArgumentException("at most " + MAX_API_KEYS + " API keys");
+        fixedApiKeys = List.copyOf(fixedApiKeys);
+        // The key itself is never echoed, only its position.
+        ApiKeys.validate(apiKeys);
+        if (!apiKeys.containsAll(fixedApiKeys)) {
+            throw new IllegalArgumentException("the fixed API keys are among the accepted keys");
         }
-        for (String key : apiKeys) {
-            // The key itself is never echoed, only its position.
-            if (key.length() < MIN_API_KEY_LENGTH || !key.chars().allMatch(c -> c > 0x20 && c < 0x7f)) {
-                throw new IllegalArgumentException("API key #" + (apiKeys.indexOf(key) + 1) + " must be at least "
-                        + MIN_API_KEY_LENGTH + " printable ASCII characters without spaces");
-            }
+        if (metricsPort < METRICS_ON_MAIN_PORT || metricsPort > 65_535) {
+            throw new IllegalArgumentException("metrics port must be from 0 to 65535 (or unset): " + metricsPort);
+        }
+        if (metricsPort > 0 && metricsPort == port) {
+            throw new IllegalArgumentException("the metrics port must differ from the main port: " + metricsPort);
         }
         corsOrigins = List.copyOf(corsOrigins);
         if (corsOrigins.size() > MAX_CORS_ORIGINS) {
@@ -148,7 +157,8 @@ public record ServiceConfig(
     }
 
     public static ServiceConfig fromEnvironment(Map<String, String> environment) {
-        List<String> keys = new ArrayList<>(list(environment.get("LOOPWRIGHT_API_KEYS")));
+        List<String> fixedKeys = list(environment.get("LOOPWRIGHT_API_KEYS"));
+        List<String> keys = new ArrayList<>(fixedKeys);
         String keyFile = environment.get("LOOPWRIGHT_API_KEYS_FILE");
         if (keyFile != null && !keyFile.isBlank()) {
             keys.addAll(readKeyFile(Path.of(keyFile.trim())));
@@ -165,6 +175,7 @@ public record ServiceConfig(
                 parse(environment, "LOOPWRIGHT_COMPUTE_DEADLINE_MS", DEFAULT_COMPUTE_DEADLINE_MILLIS),
                 (int) parse(environment, "LOOPWRIGHT_MAX_BATCH_ITEMS", DEFAULT_MAX_BATCH_ITEMS),
                 keys,
+                fixedKeys,
                 list(environment.get("LOOPWRIGHT_CORS_ORIGINS")),
                 keyFile == null || keyFile.isBlank() ? null : keyFile.trim(),
                 environment
@@ -176,6 +187,7 @@ public record ServiceConfig(
                         .trim()
                         .toUpperCase(Locale.ROOT),
                 parse(environment, "LOOPWRIGHT_SHUTDOWN_GRACE_MS", DEFAULT_SHUTDOWN_GRACE_MILLIS),
+                (int) parse(environment, "LOOPWRIGHT_METRICS_PORT", METRICS_ON_MAIN_PORT),
                 new HttpLimits(
                         (int) parse(environment, "LOOPWRIGHT_HTTP_THREADS", HttpLimits.DEFAULT_HTTP_THREADS),
                         parse(
@@ -200,11 +212,13 @@ public record ServiceConfig(
                 computeDeadlineMillis,
                 maxBatchItems,
                 keys,
+                keys,
                 corsOrigins,
                 apiKeysFile,
                 logFormat,
                 logLevel,
                 shutdownGraceMillis,
+                metricsPort,
                 http,
                 serviceVersion);
     }
@@ -219,11 +233,13 @@ public record ServiceConfig(
                 computeDeadlineMillis,
                 maxBatchItems,
                 apiKeys,
+                fixedApiKeys,
                 corsOrigins,
                 apiKeysFile,
                 logFormat,
                 logLevel,
                 shutdownGraceMillis,
+                metricsPort,
                 http,
                 version);
     }
@@ -244,10 +260,19 @@ public record ServiceConfig(
                         : "****** (" + apiKeys.size() + " key" + (apiKeys.size() == 1 ? "" : "s") + ")");
         shown.put(
                 "LOOPWRIGHT_CORS_ORIGINS", corsOrigins.isEmpty() ? "(none: CORS off)" : String.join(",", corsOrigins));
-        shown.put("LOOPWRIGHT_API_KEYS_FILE", apiKeysFile == null ? "(none)" : apiKeysFile);
+        shown.put(
+                "LOOPWRIGHT_API_KEYS_FILE",
+                apiKeysFile == null
+                        ? "(none)"
+                        : apiKeysFile + " (re-read every " + ApiKeysFile.POLL_INTERVAL_MILLIS + " ms)");
         shown.put("LOOPWRIGHT_LOG_FORMAT", logFormat);
         shown.put("LOOPWRIGHT_LOG_LEVEL", logLevel);
         shown.put("LOOPWRIGHT_SHUTDOWN_GRACE_MS", String.valueOf(shutdownGraceMillis));
+        shown.put(
+                "LOOPWRIGHT_METRICS_PORT",
+                metricsPort == METRICS_ON_MAIN_PORT
+                        ? "(none: /metrics on the main port)"
+                        : String.valueOf(metricsPort));
         shown.put("LOOPWRIGHT_HTTP_THREADS", String.valueOf(http.httpThreads()));
         shown.put("LOOPWRIGHT_MAX_INFLIGHT_BODY_BYTES", String.valueOf(http.inFlightBodyBytes()));
         shown.put("LOOPWRIGHT_MIN_BODY_BYTES_PER_S", String.valueOf(http.minBodyBytesPerSecond()));
@@ -264,17 +289,7 @@ public record ServiceConfig(
 
     private static List<String> readKeyFile(Path file) {
         try {
-            List<String> keys = new ArrayList<>();
-            for (String line : Files.readAllLines(file, StandardCharsets.UTF_8)) {
-                String key = line.trim();
-                if (!key.isEmpty() && !key.startsWith("#")) {
-                    keys.add(key);
-                }
-                if (keys.size() > MAX_API_KEYS) {
-                    throw new IllegalArgumentException("at most " + MAX_API_KEYS + " API keys");
-                }
-            }
-            return keys;
+            return ApiKeysFile.read(file);
         } catch (IOException e) {
             throw new UncheckedIOException("cannot read LOOPWRIGHT_API_KEYS_FILE " + file, e);
         }

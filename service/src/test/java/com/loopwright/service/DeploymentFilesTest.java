@@ -91,6 +91,66 @@ class DeploymentFilesTest {
                 1, kinds.get("PodDisruptionBudget").at("/spec/minAvailable").asInt());
     }
 
+    /**
+     * /metrics on the management port, and that port open to the monitoring namespace only: a NetworkPolicy admits
+     * by port (Kubernetes NetworkPolicy API, networking.k8s.io/v1), so the policy names the container ports.
+     */
+    @Test
+    void metricsPortIsOpenToTheMonitoringNamespaceOnly() throws Exception {
+        Map<String, JsonNode> kinds = manifests();
+        JsonNode container = kinds.get("Deployment").at("/spec/template/spec/containers/0");
+        int metricsPort = -1;
+        for (JsonNode port : container.get("ports")) {
+            if (port.get("name").asText().equals("metrics")) {
+                metricsPort = port.get("containerPort").asInt();
+            }
+        }
+        assertTrue(metricsPort > 0 && metricsPort != 8080, "a metrics container port of its own");
+        String metricsEnv = null;
+        for (JsonNode env : container.get("env")) {
+            if (env.get("name").asText().equals("LOOPWRIGHT_METRICS_PORT")) {
+                metricsEnv = env.get("value").asText();
+            }
+        }
+        assertEquals(String.valueOf(metricsPort), metricsEnv, "the service listens where the port is declared");
+        assertEquals(
+                String.valueOf(metricsPort),
+                kinds.get("Deployment")
+                        .at("/spec/template/metadata/annotations/prometheus.io~1port")
+                        .asText());
+        boolean servicePort = false;
+        for (JsonNode port : kinds.get("Service").at("/spec/ports")) {
+            servicePort |= port.get("targetPort").asText().equals("metrics");
+        }
+        assertTrue(servicePort, "the Service exposes the metrics port");
+        ObjectMapper yaml = new ObjectMapper(new YAMLFactory());
+        JsonNode monitor = yaml.readTree(Files.readString(ROOT.resolve("deploy/monitoring/servicemonitor.yaml")));
+        assertEquals("metrics", monitor.at("/spec/endpoints/0/port").asText());
+
+        JsonNode policy = kinds.get("NetworkPolicy");
+        assertEquals(
+                kinds.get("Deployment").at("/spec/selector/matchLabels"), policy.at("/spec/podSelector/matchLabels"));
+        assertEquals("Ingress", policy.at("/spec/policyTypes/0").asText());
+        JsonNode rules = policy.at("/spec/ingress");
+        assertEquals(2, rules.size());
+        for (JsonNode rule : rules) {
+            assertEquals(1, rule.get("ports").size(), rule.toString());
+            String port = rule.at("/ports/0/port").asText();
+            JsonNode from = rule.at("/from/0");
+            if (port.equals("metrics")) {
+                assertEquals(
+                        "monitoring",
+                        from.at("/namespaceSelector/matchLabels/kubernetes.io~1metadata.name")
+                                .asText(),
+                        "metrics only from the monitoring namespace");
+                assertFalse(from.has("podSelector"), rule.toString());
+            } else {
+                assertEquals("http", port, rule.toString());
+                assertTrue(from.has("podSelector") && !from.has("namespaceSelector"), "http from this namespace");
+            }
+        }
+    }
+
     /** CI checks the manifests against the Kubernetes schemas, and that the checker refuses broken ones. */
     @Test
     void ciChecksTheManifestsAgainstTheKubernetesSchemas() throws Exception {
@@ -149,5 +209,21 @@ class DeploymentFilesTest {
                 "targets loopback only");
         assertTrue(text.contains("--duration") || text.contains(" -d "), "wrk runs for a bounded time");
         assertTrue(text.contains("--latency"), "prints latency percentiles");
+    }
+
+    /** The soak test CI runs: loopback only, bounded by a timeout, under the documented heap, started by .ci/run. */
+    @Test
+    void soakScriptIsBoundedAndLoopbackOnlyAndRunInCi() throws Exception {
+        Path script = ROOT.resolve("bench").resolve("soak.sh");
+        assertTrue(Files.isExecutable(script), "bench/soak.sh is executable");
+        String text = Files.readString(script);
+        assertTrue(
+                text.contains("127.0.0.1") && !text.matches("(?s).*https?://(?!127\\.0\\.0\\.1)[a-z0-9].*"),
+                "targets loopback only");
+        assertTrue(text.contains("timeout 160 mvn"), "the soak run is bounded in time");
+        assertTrue(text.contains("heap=${SOAK_HEAP:-256m}") && text.contains("-Xmx\"$heap\""), "under -Xmx256m");
+        assertTrue(Files.readString(ROOT.resolve(".ci/run")).contains("bench/soak.sh"), ".ci/run starts it");
+        assertTrue(SoakTest.ROUNDS >= SoakTest.COMPARED_ROUND && SoakTest.RSS_GROWTH_LIMIT <= 0.10);
+        assertTrue(SoakTest.ROUND_BUDGET_MILLIS * SoakTest.ROUNDS <= 150_000, "rounds fit the time promise");
     }
 }

@@ -47,6 +47,11 @@ final class LiveServer implements AutoCloseable {
         return new LiveServer(LoopwrightApp.create(config, designs, fatal).start("127.0.0.1", 0));
     }
 
+    /** Starts an application built by the test itself (on loopback, a free port). */
+    static LiveServer started(Javalin app) {
+        return new LiveServer(app.start("127.0.0.1", 0));
+    }
+
     Javalin app() {
         return app;
     }

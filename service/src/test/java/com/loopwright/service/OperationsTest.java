@@ -226,7 +226,7 @@ class OperationsTest {
             assertEquals(1, metrics.sum("loopwright_designs_total", Map.of("outcome", "invalid")));
             assertEquals(1, metrics.sum("loopwright_designs_total", Map.of("outcome", "infeasible")));
             assertTrue(metrics.sum("jvm_memory_used_bytes", Map.of("area", "heap")) > 0);
-            assertTrue(metrics.sum("jvm_threads_live", Map.of()) > 0);
+            assertTrue(metrics.sum("jvm_threads_current", Map.of()) > 0);
             // In flight during a scrape: the scrape itself (the previous request's count lands just after its
             // response, so look again briefly).
             double inFlight = metrics.sum("loopwright_http_requests_in_flight", Map.of());

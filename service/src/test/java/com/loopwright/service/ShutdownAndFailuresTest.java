@@ -211,7 +211,14 @@ class ShutdownAndFailuresTest {
             assertTrue(line.endsWith("\n") && line.indexOf('\n') == line.length() - 1, "one line: " + line);
             JsonNode json = JSON.readTree(line);
             assertNotNull(json.get("level"));
-            assertFalse(json.get("formattedMessage").asText().isEmpty());
+            assertFalse(json.get("message").asText().isEmpty());
+            if (event.getThrowableProxy() != null) {
+                assertTrue(
+                        json.get("exception")
+                                .asText()
+                                .contains(event.getThrowableProxy().getClassName()),
+                        line);
+            }
         } catch (Exception e) {
             throw new AssertionError(e);
         } finally {

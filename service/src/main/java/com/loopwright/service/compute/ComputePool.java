@@ -19,6 +19,7 @@ import java.util.concurrent.TimeoutException;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.Function;
+import java.util.function.LongConsumer;
 import java.util.function.Supplier;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -44,8 +45,22 @@ public final class ComputePool implements AutoCloseable {
     private final int batchShare;
 
     private final Semaphore batchSlots;
+    private final Timings timings;
+
+    /**
+     * Sees how long each computation waited in the queue and how long it kept its worker (nanoseconds; a
+     * computation cancelled while queued is not seen).
+     */
+    public record Timings(LongConsumer queueWaitNanos, LongConsumer computeNanos) {
+        public static final Timings NONE = new Timings(nanos -> {}, nanos -> {});
+    }
 
     public ComputePool(int workerThreads, int queueCapacity, long deadlineMillis) {
+        this(workerThreads, queueCapacity, deadlineMillis, Timings.NONE);
+    }
+
+    public ComputePool(int workerThreads, int queueCapacity, long deadlineMillis, Timings timings) {
+        this.timings = timings;
         BlockingQueue<Runnable> queue =
                 queueCapacity == 0 ? new SynchronousQueue<>() : new ArrayBlockingQueue<>(queueCapacity);
         AtomicInteger count = new AtomicInteger();
@@ -140,15 +155,19 @@ public final class ComputePool implements AutoCloseable {
         // sets; carrying one string avoids copying the whole context map per computation).
         String requestId = MDC.get(RequestIds.MDC_KEY);
         AtomicBoolean started = new AtomicBoolean();
+        long queuedNanos = System.nanoTime();
         FutureTask<T> task =
                 new FutureTask<>(() -> {
                     started.set(true);
+                    long startedNanos = System.nanoTime();
+                    timings.queueWaitNanos().accept(startedNanos - queuedNanos);
                     if (requestId != null) {
                         MDC.put(RequestIds.MDC_KEY, requestId);
                     }
                     try {
                         return computation.get();
                     } finally {
+                        timings.computeNanos().accept(System.nanoTime() - startedNanos);
                         MDC.remove(RequestIds.MDC_KEY);
                         release.run();
                     }

@@ -1,37 +1,62 @@
 package com.loopwright.service.observe;
 
-import java.lang.management.ManagementFactory;
-import java.lang.management.MemoryMXBean;
-import java.lang.management.MemoryUsage;
-import java.lang.management.ThreadMXBean;
+import io.prometheus.metrics.config.EscapingScheme;
+import io.prometheus.metrics.core.datapoints.CounterDataPoint;
+import io.prometheus.metrics.core.datapoints.DistributionDataPoint;
+import io.prometheus.metrics.core.metrics.Counter;
+import io.prometheus.metrics.core.metrics.Gauge;
+import io.prometheus.metrics.core.metrics.GaugeWithCallback;
+import io.prometheus.metrics.core.metrics.Histogram;
+import io.prometheus.metrics.core.metrics.Info;
+import io.prometheus.metrics.expositionformats.PrometheusTextFormatWriter;
+import io.prometheus.metrics.instrumentation.jvm.JvmBufferPoolMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmClassLoadingMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmCompilationMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmGarbageCollectorMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmMemoryMetrics;
+import io.prometheus.metrics.instrumentation.jvm.JvmRuntimeInfoMetric;
+import io.prometheus.metrics.instrumentation.jvm.JvmThreadsMetrics;
+import io.prometheus.metrics.instrumentation.jvm.ProcessMetrics;
+import io.prometheus.metrics.model.registry.PrometheusRegistry;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.util.Map;
 import java.util.Set;
-import java.util.TreeMap;
 import java.util.concurrent.ConcurrentHashMap;
-import java.util.concurrent.atomic.AtomicLong;
-import java.util.concurrent.atomic.DoubleAdder;
-import java.util.concurrent.atomic.LongAdder;
 import java.util.function.IntSupplier;
 import java.util.function.LongSupplier;
 
 /**
- * Request and design metrics in the Prometheus text exposition format (version 0.0.4), written by hand: the
- * format is a small open standard, and a few counters and histograms do not justify a dependency.
- * Label values come from fixed sets (known routes, status codes, design outcomes), so cardinality is bounded.
+ * The service's Prometheus metrics, kept by the Prometheus Java client in a registry of this instance (never the
+ * client's process-wide default registry): the client's JVM instrumentation (the standard jvm_* and process_*
+ * series), the build info, HTTP requests by route, method and status, computations by route and outcome, the
+ * compute pool's queue wait and compute time, and the HTTP layer's body refusals. Label values come from fixed
+ * sets (route templates of the route table, methods, status codes, outcomes, refusal reasons); a client can never
+ * mint one.
  */
 public final class Metrics {
 
-    public static final String CONTENT_TYPE = "text/plain; version=0.0.4; charset=utf-8";
+    /** The Prometheus text exposition format, version 0.0.4. */
+    public static final String CONTENT_TYPE = PrometheusTextFormatWriter.CONTENT_TYPE;
     /** Latency bucket upper bounds [s]: from a health check to a slow batch. */
     static final double[] LATENCY_BUCKETS_SECONDS = {
         0.0005, 0.001, 0.0025, 0.005, 0.01, 0.025, 0.05, 0.1, 0.25, 0.5, 1, 2.5, 5, 10, 30
     };
-    /** Outcomes of one design computation (a request or a batch item). */
+    /** Outcomes of one design computation (a request or a batch item): loopwright_designs_total. */
     public static final Set<String> DESIGN_OUTCOMES =
             Set.of("designed", "invalid", "infeasible", "unverifiable", "overloaded", "deadline", "failed");
+    /**
+     * Outcomes of one computation of any computing route (designs, batch items, order n, fits, verifications,
+     * plots, controller exports): loopwright_computations_total. "ok" is an answer; the others name the problem.
+     */
+    public static final Set<String> COMPUTATION_OUTCOMES =
+            Set.of("ok", "invalid", "infeasible", "unverifiable", "overloaded", "deadline", "failed");
     /** Guards the label space: at most this many (route, method, status) series, then one overflow series per
      * status class. */
     public static final int MAX_SERIES = 512;
+    /** At most this many computing routes (each with the fixed outcome set). */
+    public static final int MAX_COMPUTING_ROUTES = 32;
     /**
      * Method label values: the methods of HTTP semantics (RFC 9110) and PATCH (RFC 5789), exactly as sent (methods
      * are case-sensitive); any other method name is counted as "other", so that a client cannot mint label values.
@@ -41,21 +66,114 @@ public final class Metrics {
     /** Why the HTTP layer refused a request body (see RequestBodyGate). */
     public static final Set<String> BODY_REFUSALS = Set.of("too_large", "budget", "slow", "unreadable");
 
-    private final Map<Series, Histogram> requests = new ConcurrentHashMap<>();
-    private final Map<String, AtomicLong> designs = new ConcurrentHashMap<>();
-    private final MemoryMXBean memory = ManagementFactory.getMemoryMXBean();
-    private final ThreadMXBean threads = ManagementFactory.getThreadMXBean();
-    private final IntSupplier activeWorkers;
-    private final IntSupplier queuedDesigns;
-    private final AtomicLong inFlight = new AtomicLong();
-    private final Map<String, LongAdder> bodyRefusals = new ConcurrentHashMap<>();
-    private volatile LongSupplier availableBodyBytes = () -> -1;
+    private static final String OVERFLOW = "other";
 
-    public Metrics(IntSupplier activeWorkers, IntSupplier queuedDesigns) {
-        this.activeWorkers = activeWorkers;
-        this.queuedDesigns = queuedDesigns;
-        DESIGN_OUTCOMES.forEach(outcome -> designs.put(outcome, new AtomicLong()));
-        BODY_REFUSALS.forEach(reason -> bodyRefusals.put(reason, new LongAdder()));
+    private final PrometheusRegistry registry = new PrometheusRegistry();
+    private final PrometheusTextFormatWriter writer =
+            PrometheusTextFormatWriter.builder().build();
+    private final Counter requests;
+    private final Histogram requestSeconds;
+    private final Gauge inFlight;
+    private final Counter designs;
+    private final Counter computations;
+    private final Counter bodyRefusals;
+    private final Histogram queueWaitSeconds;
+    private final Histogram computeSeconds;
+    /** The data points of each (route, method, status) series, looked up once per series, not per request. */
+    private final Map<Series, RequestPoints> series = new ConcurrentHashMap<>();
+
+    private final Set<String> computingRoutes = ConcurrentHashMap.newKeySet();
+    private volatile LongSupplier availableBodyBytes = () -> -1;
+    private volatile IntSupplier activeWorkers = () -> 0;
+    private volatile IntSupplier queuedComputations = () -> 0;
+
+    /** @param version the service version, the label of loopwright_build_info */
+    public Metrics(String version) {
+        // The components of the client's JvmMetrics, one by one: JvmMetrics itself remembers every registry it
+        // registered with in a static set (so every application built in one JVM, as in tests, would stay
+        // reachable), and its allocation counters add a GC listener per registry that is never removed.
+        JvmThreadsMetrics.builder().register(registry);
+        JvmBufferPoolMetrics.builder().register(registry);
+        JvmClassLoadingMetrics.builder().register(registry);
+        JvmCompilationMetrics.builder().register(registry);
+        JvmGarbageCollectorMetrics.builder().register(registry);
+        JvmMemoryMetrics.builder().register(registry);
+        JvmRuntimeInfoMetric.builder().register(registry);
+        ProcessMetrics.builder().register(registry);
+        Info.builder()
+                .name("loopwright_build_info")
+                .help("The running build: its version (always 1).")
+                .labelNames("version")
+                .register(registry)
+                .setLabelValues(version);
+        requests = Counter.builder()
+                .name("loopwright_http_requests_total")
+                .help("HTTP requests by route, method and status.")
+                .labelNames("route", "method", "status")
+                .withoutExemplars()
+                .register(registry);
+        requestSeconds = Histogram.builder()
+                .name("loopwright_http_request_duration_seconds")
+                .help("HTTP request latency by route, method and status.")
+                .labelNames("route", "method", "status")
+                .classicUpperBounds(LATENCY_BUCKETS_SECONDS)
+                .classicOnly()
+                .withoutExemplars()
+                .register(registry);
+        inFlight = Gauge.builder()
+                .name("loopwright_http_requests_in_flight")
+                .help("Requests being served now.")
+                .withoutExemplars()
+                .register(registry);
+        designs = Counter.builder()
+                .name("loopwright_designs_total")
+                .help("Design computations (requests and batch items) by outcome.")
+                .labelNames("outcome")
+                .withoutExemplars()
+                .register(registry);
+        DESIGN_OUTCOMES.forEach(outcome -> designs.labelValues(outcome));
+        computations = Counter.builder()
+                .name("loopwright_computations_total")
+                .help("Computations of every computing route (a batch counts each item) by route and outcome.")
+                .labelNames("route", "outcome")
+                .withoutExemplars()
+                .register(registry);
+        bodyRefusals = Counter.builder()
+                .name("loopwright_http_bodies_refused_total")
+                .help("Request bodies the HTTP layer refused, by reason.")
+                .labelNames("reason")
+                .withoutExemplars()
+                .register(registry);
+        BODY_REFUSALS.forEach(reason -> bodyRefusals.labelValues(reason));
+        queueWaitSeconds = Histogram.builder()
+                .name("loopwright_compute_queue_wait_seconds")
+                .help("Time a computation waited in the compute pool's queue before a worker took it.")
+                .classicUpperBounds(LATENCY_BUCKETS_SECONDS)
+                .classicOnly()
+                .withoutExemplars()
+                .register(registry);
+        computeSeconds = Histogram.builder()
+                .name("loopwright_compute_duration_seconds")
+                .help("Time a worker spent on one computation (to its answer, its failure or its cancellation).")
+                .classicUpperBounds(LATENCY_BUCKETS_SECONDS)
+                .classicOnly()
+                .withoutExemplars()
+                .register(registry);
+        GaugeWithCallback.builder()
+                .name("loopwright_http_body_budget_available_bytes")
+                .help("Bytes of the in-flight request body budget not reserved now.")
+                .callback(callback -> callback.call(availableBodyBytes.getAsLong()))
+                .register(registry);
+        GaugeWithCallback.builder()
+                .name("loopwright_design_workers_active")
+                .help("Compute workers computing now.")
+                .callback(callback -> callback.call(activeWorkers.getAsInt()))
+                .register(registry);
+        GaugeWithCallback.builder()
+                .name("loopwright_design_queue_length")
+                .help("Computations waiting for a compute worker.")
+                .callback(callback -> callback.call(queuedComputations.getAsInt()))
+                .register(registry);
     }
 
     /** The gauge of the in-flight body budget not reserved (set once when the HTTP layer is built). */
@@ -63,21 +181,36 @@ public final class Metrics {
         this.availableBodyBytes = available;
     }
 
+    /** The gauges of the compute pool (set once when the pool is built). */
+    public void observeComputePool(IntSupplier active, IntSupplier queued) {
+        this.activeWorkers = active;
+        this.queuedComputations = queued;
+    }
+
+    /** One computation waited this long in the pool's queue. */
+    public void computationQueued(long nanos) {
+        queueWaitSeconds.observe(nanos / 1e9);
+    }
+
+    /** One computation kept a worker this long. */
+    public void computationRan(long nanos) {
+        computeSeconds.observe(nanos / 1e9);
+    }
+
     /** Counts one body refused by the HTTP layer; an unknown reason is not counted. */
     public void bodyRefused(String reason) {
-        LongAdder counter = bodyRefusals.get(reason);
-        if (counter != null) {
-            counter.increment();
+        if (BODY_REFUSALS.contains(reason)) {
+            bodyRefusals.labelValues(reason).inc();
         }
     }
 
     /** The method as a label value: one of {@link #METHODS}, else "other". */
     public static String methodLabel(String method) {
-        return method != null && METHODS.contains(method) ? method : "other";
+        return method != null && METHODS.contains(method) ? method : OVERFLOW;
     }
 
     public void requestStarted() {
-        inFlight.incrementAndGet();
+        inFlight.inc();
     }
 
     /**
@@ -85,7 +218,7 @@ public final class Metrics {
      * the method is reduced to {@link #METHODS} or "other" here.
      */
     public void requestFinished(String route, String method, int status, double seconds) {
-        inFlight.decrementAndGet();
+        inFlight.dec();
         count(route, method, status, seconds);
     }
 
@@ -98,42 +231,75 @@ public final class Metrics {
     }
 
     private void count(String route, String method, int status, double seconds) {
-        // A small record as the key: no label string is built per request (that happens only in scrape()).
         Series key = new Series(route, methodLabel(method), status >= 100 && status <= 599 ? status : 599);
-        Histogram histogram = requests.get(key);
-        if (histogram == null) {
-            if (requests.size() >= MAX_SERIES) {
-                key = new Series("other", "other", status / 100 * -1 - 1);
+        RequestPoints points = series.get(key);
+        if (points == null) {
+            if (series.size() >= MAX_SERIES) {
+                key = new Series(OVERFLOW, OVERFLOW, -(key.status / 100) - 1);
             }
-            histogram = requests.computeIfAbsent(key, k -> new Histogram());
+            points = series.computeIfAbsent(key, this::points);
         }
-        histogram.observe(seconds);
+        points.count.inc();
+        points.seconds.observe(seconds);
+    }
+
+    private RequestPoints points(Series key) {
+        String status = key.status < 0 ? (-key.status - 1) + "xx" : String.valueOf(key.status);
+        return new RequestPoints(
+                requests.labelValues(key.route, key.method, status),
+                requestSeconds.labelValues(key.route, key.method, status));
+    }
+
+    /** One (route, method, status) series; a negative status -(c + 1) stands for the overflow class "cxx". */
+    private record Series(String route, String method, int status) {}
+
+    private record RequestPoints(CounterDataPoint count, DistributionDataPoint seconds) {}
+
+    public long inFlight() {
+        return (long) inFlight.get();
     }
 
     /**
-     * One (route, method, status) series. A negative status -(c + 1) stands for the class "cxx" of the overflow
-     * series.
+     * Counts one design computation (a POST /v1/designs or one batch item) by its design outcome, and as a
+     * computation of {@code route}.
      */
-    private record Series(String route, String method, int status) {
-        String labels() {
-            if (status < 0) {
-                return "route=\"" + route + "\",method=\"" + method + "\",status=\"" + (-status - 1) + "xx\"";
+    public void design(String route, com.loopwright.api.endpoint.Reply outcome) {
+        String label = outcomeOf(outcome);
+        designs.labelValues(DESIGN_OUTCOMES.contains(label) ? label : "failed").inc();
+        computation(route, outcome);
+    }
+
+    /**
+     * Counts one computation of a computing route by outcome. {@code route} is a route template the application
+     * names in code (never a request's path); past {@link #MAX_COMPUTING_ROUTES} routes it counts as "other".
+     */
+    public void computation(String route, com.loopwright.api.endpoint.Reply outcome) {
+        String label = outcomeOf(outcome);
+        computations
+                .labelValues(declareComputingRoute(route), label.equals("designed") ? "ok" : label)
+                .inc();
+    }
+
+    /**
+     * Makes the series of a computing route exist (at zero, for every outcome) before its first request; returns
+     * the route's label: the route itself, or "other" past {@link #MAX_COMPUTING_ROUTES} routes.
+     */
+    public String declareComputingRoute(String route) {
+        if (!computingRoutes.contains(route)) {
+            synchronized (computingRoutes) {
+                if (!computingRoutes.contains(route)) {
+                    if (computingRoutes.size() >= MAX_COMPUTING_ROUTES) {
+                        return OVERFLOW;
+                    }
+                    COMPUTATION_OUTCOMES.forEach(each -> computations.labelValues(route, each));
+                    computingRoutes.add(route);
+                }
             }
-            return "route=\"" + route + "\",method=\"" + method + "\",status=\"" + status + "\"";
         }
+        return route;
     }
 
-    public long inFlight() {
-        return inFlight.get();
-    }
-
-    /** Counts one design by outcome (see {@link #DESIGN_OUTCOMES}). */
-    public void design(String outcome) {
-        AtomicLong counter = designs.get(outcome);
-        (counter == null ? designs.get("failed") : counter).incrementAndGet();
-    }
-
-    /** The outcome label of one design computation. */
+    /** The design outcome label of one computation: "designed" for an answer, else the problem's kind. */
     public static String outcomeOf(com.loopwright.api.endpoint.Reply outcome) {
         return outcomeOf(outcome.status(), outcome.problem());
     }
@@ -158,155 +324,19 @@ public final class Metrics {
         return status < 500 ? "invalid" : "failed";
     }
 
-    /** The whole exposition. */
-    public String scrape() {
-        StringBuilder out = new StringBuilder(4096);
-        out.append("# HELP loopwright_http_requests_total HTTP requests by route, method and status.\n");
-        out.append("# TYPE loopwright_http_requests_total counter\n");
-        Map<String, Histogram> series = new TreeMap<>();
-        requests.forEach((key, histogram) -> series.merge(key.labels(), histogram, Histogram::sum));
-        series.forEach((labels, histogram) -> out.append("loopwright_http_requests_total{")
-                .append(labels)
-                .append("} ")
-                .append(histogram.count())
-                .append('\n'));
-        out.append(
-                "# HELP loopwright_http_request_duration_seconds HTTP request latency by route, method and status.\n");
-        out.append("# TYPE loopwright_http_request_duration_seconds histogram\n");
-        series.forEach((labels, histogram) -> histogram.write(out, "loopwright_http_request_duration_seconds", labels));
-        out.append("# HELP loopwright_http_requests_in_flight Requests being served now.\n");
-        out.append("# TYPE loopwright_http_requests_in_flight gauge\n");
-        out.append("loopwright_http_requests_in_flight ").append(inFlight.get()).append('\n');
-        out.append("# HELP loopwright_designs_total Design computations (requests and batch items) by outcome.\n");
-        out.append("# TYPE loopwright_designs_total counter\n");
-        designs.entrySet().stream()
-                .sorted(Map.Entry.comparingByKey())
-                .forEach(e -> out.append("loopwright_designs_total{outcome=\"")
-                        .append(e.getKey())
-                        .append("\"} ")
-                        .append(e.getValue().get())
-                        .append('\n'));
-        out.append("# HELP loopwright_http_bodies_refused_total Request bodies the HTTP layer refused, by reason.\n");
-        out.append("# TYPE loopwright_http_bodies_refused_total counter\n");
-        bodyRefusals.entrySet().stream()
-                .sorted(Map.Entry.comparingByKey())
-                .forEach(e -> out.append("loopwright_http_bodies_refused_total{reason=\"")
-                        .append(e.getKey())
-                        .append("\"} ")
-                        .append(e.getValue().sum())
-                        .append('\n'));
-        gauge(
-                out,
-                "loopwright_http_body_budget_available_bytes",
-                "Bytes of the in-flight request body budget not reserved now.",
-                availableBodyBytes.getAsLong());
-        gauge(out, "loopwright_design_workers_active", "Design workers computing now.", activeWorkers.getAsInt());
-        gauge(out, "loopwright_design_queue_length", "Designs waiting for a worker.", queuedDesigns.getAsInt());
-        MemoryUsage heap = memory.getHeapMemoryUsage();
-        MemoryUsage nonHeap = memory.getNonHeapMemoryUsage();
-        out.append("# HELP jvm_memory_used_bytes Used JVM memory by area.\n");
-        out.append("# TYPE jvm_memory_used_bytes gauge\n");
-        out.append("jvm_memory_used_bytes{area=\"heap\"} ")
-                .append(heap.getUsed())
-                .append('\n');
-        out.append("jvm_memory_used_bytes{area=\"nonheap\"} ")
-                .append(nonHeap.getUsed())
-                .append('\n');
-        out.append("# HELP jvm_memory_committed_bytes Committed JVM memory by area.\n");
-        out.append("# TYPE jvm_memory_committed_bytes gauge\n");
-        out.append("jvm_memory_committed_bytes{area=\"heap\"} ")
-                .append(heap.getCommitted())
-                .append('\n');
-        out.append("jvm_memory_committed_bytes{area=\"nonheap\"} ")
-                .append(nonHeap.getCommitted())
-                .append('\n');
-        gauge(out, "jvm_memory_max_bytes", "Largest heap the JVM may use (-1 when undefined).", heap.getMax());
-        gauge(out, "jvm_threads_live", "Live JVM threads.", threads.getThreadCount());
-        gauge(out, "jvm_threads_peak", "Peak live JVM threads.", threads.getPeakThreadCount());
-        return out.toString();
+    /** The whole exposition in the Prometheus text format 0.0.4 (classic metric names, underscores only). */
+    public byte[] scrape() {
+        ByteArrayOutputStream out = new ByteArrayOutputStream(16 * 1024);
+        try {
+            writer.write(out, registry.scrape(), EscapingScheme.UNDERSCORE_ESCAPING);
+        } catch (IOException e) {
+            throw new UncheckedIOException("a byte array stream does not fail", e);
+        }
+        return out.toByteArray();
     }
 
-    private static void gauge(StringBuilder out, String name, String help, long value) {
-        out.append("# HELP ").append(name).append(' ').append(help).append('\n');
-        out.append("# TYPE ").append(name).append(" gauge\n");
-        out.append(name).append(' ').append(value).append('\n');
-    }
-
-    /**
-     * Cumulative histogram: one counter per bucket, a total count and a sum, as LongAdder/DoubleAdder cells so
-     * that request threads on different cores do not contend on one counter.
-     */
-    private static final class Histogram {
-        private final LongAdder[] buckets = new LongAdder[LATENCY_BUCKETS_SECONDS.length];
-        private final LongAdder count = new LongAdder();
-        private final DoubleAdder sum = new DoubleAdder();
-
-        Histogram() {
-            for (int i = 0; i < buckets.length; i++) {
-                buckets[i] = new LongAdder();
-            }
-        }
-
-        void observe(double seconds) {
-            for (int i = 0; i < LATENCY_BUCKETS_SECONDS.length; i++) {
-                if (seconds <= LATENCY_BUCKETS_SECONDS[i]) {
-                    buckets[i].increment();
-                    break;
-                }
-            }
-            sum.add(seconds);
-            count.increment();
-        }
-
-        long count() {
-            return count.sum();
-        }
-
-        /** Two series that print with the same labels (method names differing only in case) as one. */
-        static Histogram sum(Histogram a, Histogram b) {
-            Histogram total = new Histogram();
-            for (Histogram h : new Histogram[] {a, b}) {
-                for (int i = 0; i < h.buckets.length; i++) {
-                    total.buckets[i].add(h.buckets[i].sum());
-                }
-                total.count.add(h.count.sum());
-                total.sum.add(h.sum.sum());
-            }
-            return total;
-        }
-
-        void write(StringBuilder out, String name, String labels) {
-            long cumulative = 0;
-            for (int i = 0; i < LATENCY_BUCKETS_SECONDS.length; i++) {
-                cumulative += buckets[i].sum();
-                out.append(name)
-                        .append("_bucket{")
-                        .append(labels)
-                        .append(",le=\"")
-                        .append(LATENCY_BUCKETS_SECONDS[i])
-                        .append("\"} ")
-                        .append(cumulative)
-                        .append('\n');
-            }
-            long total = count.sum();
-            out.append(name)
-                    .append("_bucket{")
-                    .append(labels)
-                    .append(",le=\"+Inf\"} ")
-                    .append(Math.max(total, cumulative))
-                    .append('\n');
-            out.append(name)
-                    .append("_sum{")
-                    .append(labels)
-                    .append("} ")
-                    .append(sum.sum())
-                    .append('\n');
-            out.append(name)
-                    .append("_count{")
-                    .append(labels)
-                    .append("} ")
-                    .append(Math.max(total, cumulative))
-                    .append('\n');
-        }
+    /** {@link #scrape()} as text (tests, diagnostics). */
+    public String scrapeText() {
+        return new String(scrape(), java.nio.charset.StandardCharsets.UTF_8);
     }
 }

@@ -154,7 +154,7 @@ public final class BatchRoute implements Handler {
                     writeCut(out, index, requestId);
                     break;
                 }
-                metrics.design(Metrics.outcomeOf(outcome));
+                metrics.design(PATH, outcome);
                 writeLine(out, index, outcome, requestId);
             }
             out.flush();

@@ -4,7 +4,7 @@ import com.loopwright.service.observe.Metrics;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
 
-/** GET /metrics: Prometheus text exposition. */
+/** GET /metrics: the Prometheus text exposition (format 0.0.4) of the service's registry. */
 public final class MetricsRoute implements Handler {
 
     public static final String PATH = "/metrics";

@@ -9,6 +9,7 @@ import com.loopwright.service.http.ProblemResponses;
 import io.javalin.http.Context;
 import io.javalin.http.Handler;
 import java.util.function.BiFunction;
+import java.util.function.Consumer;
 
 /**
  * POST /v1/designs/plots/{figure} and /v1/designs/controllers/{format}: a JSON body and one path parameter in,
@@ -23,16 +24,32 @@ public final class TakeawayRoute implements Handler {
     private final BiFunction<String, byte[], Reply> work;
     private final ProblemResponses problems;
     private final ComputePool pool;
+    private final Consumer<Reply> afterwards;
 
     /**
      * @param parameter the path parameter handed to {@code work} with the body (figure or format)
      */
     public TakeawayRoute(
             String parameter, BiFunction<String, byte[], Reply> work, ProblemResponses problems, ComputePool pool) {
+        this(parameter, work, problems, pool, outcome -> {});
+    }
+
+    /**
+     * The same, with a look at every reply before it is written.
+     *
+     * @param afterwards sees every reply before it is written (for example to count computations by outcome)
+     */
+    public TakeawayRoute(
+            String parameter,
+            BiFunction<String, byte[], Reply> work,
+            ProblemResponses problems,
+            ComputePool pool,
+            Consumer<Reply> afterwards) {
         this.parameter = parameter;
         this.work = work;
         this.problems = problems;
         this.pool = pool;
+        this.afterwards = afterwards;
     }
 
     @Override
@@ -46,6 +63,7 @@ public final class TakeawayRoute implements Handler {
         String value = ctx.pathParam(parameter);
         byte[] body = ctx.bodyAsBytes();
         Reply takeaway = pool.run(() -> work.apply(value, body), Reply::failure);
+        afterwards.accept(takeaway);
         if (takeaway.requestDigest() != null) {
             ctx.header(Trace.DIGEST_HEADER, takeaway.requestDigest());
         }

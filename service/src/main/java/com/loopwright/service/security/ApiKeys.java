@@ -20,15 +20,63 @@ public final class ApiKeys {
     private static final String BEARER = "Bearer ";
     /** A presented credential longer than this is refused without hashing. */
     static final int MAX_PRESENTED_LENGTH = 512;
+    /** Hex digits of a key's SHA-256 digest shown as its id in access logs. */
+    public static final int KEY_ID_HEX_DIGITS = 8;
 
-    private final List<byte[]> digests;
+    /** At most this many accepted keys (all sources together). */
+    public static final int MAX_KEYS = 64;
+    /** A configured key is at least this long (printable ASCII without spaces). */
+    public static final int MIN_KEY_LENGTH = 16;
+
+    /** The digests in force, swapped whole when a key file is re-read (readers see the old or the new set). */
+    private volatile List<byte[]> digests;
 
     public ApiKeys(List<String> keys) {
+        validate(keys);
+        this.digests = digestsOf(keys);
+    }
+
+    /**
+     * Throws IllegalArgumentException unless every key is at least {@link #MIN_KEY_LENGTH} printable ASCII
+     * characters without spaces and there are at most {@link #MAX_KEYS}. The message names the key's position,
+     * never the key.
+     */
+    public static void validate(List<String> keys) {
+        if (keys.size() > MAX_KEYS) {
+            throw new IllegalArgumentException("at most " + MAX_KEYS + " API keys");
+        }
+        for (int i = 0; i < keys.size(); i++) {
+            String key = keys.get(i);
+            if (key == null || key.length() < MIN_KEY_LENGTH || !key.chars().allMatch(c -> c > 0x20 && c < 0x7f)) {
+                throw new IllegalArgumentException("API key #" + (i + 1) + " must be at least " + MIN_KEY_LENGTH
+                        + " printable ASCII characters without spaces");
+            }
+        }
+    }
+
+    /**
+     * Puts a new key set in force at once (a rotated key file). An empty or invalid set is refused with
+     * IllegalArgumentException and the keys in force stay: a rotation never turns authentication off.
+     */
+    public void replace(List<String> keys) {
+        if (keys.isEmpty()) {
+            throw new IllegalArgumentException("an empty key set would turn authentication off");
+        }
+        validate(keys);
+        this.digests = digestsOf(keys);
+    }
+
+    /** How many keys are in force. */
+    public int size() {
+        return digests.size();
+    }
+
+    private static List<byte[]> digestsOf(List<String> keys) {
         List<byte[]> hashed = new ArrayList<>();
         for (String key : keys) {
             hashed.add(sha256(key));
         }
-        this.digests = List.copyOf(hashed);
+        return List.copyOf(hashed);
     }
 
     public boolean enabled() {
@@ -68,6 +116,23 @@ public final class ApiKeys {
         }
     }
 
+    /**
+     * A short id of the presented credential for access logs: the first {@link #KEY_ID_HEX_DIGITS} hex digits of
+     * its SHA-256 digest (never the key; 32 bits of a digest tell nothing usable about a key), or null when
+     * authentication is off or no credential (or an over-long one) is presented. The same key always has the
+     * same id, so an operator can tell callers apart and match a rotated key to its digest.
+     */
+    public String keyId(String authorization, String apiKeyHeader) {
+        if (!enabled()) {
+            return null;
+        }
+        String presented = presented(authorization, apiKeyHeader);
+        if (presented == null || presented.isEmpty() || presented.length() > MAX_PRESENTED_LENGTH) {
+            return null;
+        }
+        return java.util.HexFormat.of().formatHex(sha256(presented)).substring(0, KEY_ID_HEX_DIGITS);
+    }
+
     /** The X-Api-Key header, else the token of an "Authorization: Bearer" header, else null. */
     private static String presented(String authorization, String apiKeyHeader) {
         if (apiKeyHeader == null
@@ -81,7 +146,7 @@ public final class ApiKeys {
     private boolean matches(String presented) {
         byte[] digest = sha256(presented);
         boolean match = false;
-        for (byte[] known : digests) {
+        for (byte[] known : digests) { // one read of the volatile set: all of one version
             match |= MessageDigest.isEqual(known, digest);
         }
         return match;
