@@ -29,7 +29,7 @@ class HighOrderNormExchangeTest {
                 verification.at("/peakDisturbanceGainRelativeTolerance").asDouble();
         assertEquals(1e-10, tolerance);
         double norm = verification.at("/peakDisturbanceGain").asDouble();
-        assertTrue(norm >= 3973.3735 && norm <= 3973.3745, "hinfNorm " + norm);
+        assertTrue(norm >= 3973.3735 && norm <= 3973.3745, "peakDisturbanceGain " + norm);
         assertEquals(46.71, verification.at("/peakDisturbanceGainFrequency").asDouble(), 0.005);
     }
 }
