@@ -12,8 +12,8 @@ import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.validation.Checks;
 import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.CompanionPlant;
-import com.loopwright.solver.plant.PlantParameterException;
 import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.DesiredPoles;
@@ -112,11 +112,14 @@ public final class HighOrderRequestValidator {
         }
         if (denominator != null && denominator[0] != 1) {
             // well-formed but not a description the design takes: 422 at the leading coefficient
-            throw new PlantParameterException(
+            throw SolverFailure.about(
+                    SolverFailure.Kind.PLANT_MODEL,
                     "denominator/0",
+                    -1,
                     "must be 1: the denominator is monic, s^n + a_{n-1} s^{n-1} + ... + a_0, highest power first;"
                             + " divide the denominator and the numerator by the leading coefficient (got "
-                            + denominator[0] + ")");
+                            + denominator[0] + ")",
+                    null);
         }
         double band = (spec.settlingBandPercent() == null ? DEFAULT_BAND_PERCENT : spec.settlingBandPercent()) / 100;
         GammaChoice gamma = spec.gamma() != null

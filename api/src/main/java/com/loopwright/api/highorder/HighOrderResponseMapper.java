@@ -18,7 +18,6 @@ import com.loopwright.solver.design.HighOrderDesign;
 import com.loopwright.solver.design.HighOrderStep;
 import com.loopwright.solver.design.HighOrderVerification;
 import com.loopwright.solver.design.SpecMatch;
-import com.loopwright.solver.highorder.SpecMatcher;
 import com.loopwright.solver.pipeline.HighOrderPipeline;
 import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -200,8 +199,9 @@ public final class HighOrderResponseMapper {
                         "overshootPercent",
                         overshootPercent,
                         overshoot,
-                        overshoot <= overshootPercent + SpecMatcher.OVERSHOOT_TOLERANCE_POINTS),
-                new SpecCheck("settlingTime", ts, settling, settling <= ts * (1 + SpecMatcher.SETTLING_TOLERANCE)),
+                        overshoot <= overshootPercent + HighOrderPipeline.OVERSHOOT_TOLERANCE_POINTS),
+                new SpecCheck(
+                        "settlingTime", ts, settling, settling <= ts * (1 + HighOrderPipeline.SETTLING_TOLERANCE)),
                 new SpecCheck(
                         "maxUndershootPercent",
                         request.maxUndershootPercent(),

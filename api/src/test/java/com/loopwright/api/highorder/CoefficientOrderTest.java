@@ -57,6 +57,14 @@ class CoefficientOrderTest {
                 6 + body.at("/gain/k/0").asDouble(),
                 poly.get(3).asDouble(),
                 1e-9 * poly.get(3).asDouble());
+        // the per-spec checks add up to the pipeline's own verdict (here the settling time misses: 3.138 s > 3 s)
+        boolean all = true;
+        for (JsonNode check : body.at("/verification/specChecks")) {
+            all &= check.get("met").asBoolean();
+        }
+        assertEquals(body.at("/verification/specsMet").asBoolean(), all);
+        assertEquals("settlingTime", body.at("/verification/specChecks/1/spec").asText());
+        assertEquals(false, body.at("/verification/specChecks/1/met").asBoolean());
     }
 
     /** A leading coefficient other than 1 is a 422 at /plant/denominator/0 that says the polynomial is monic. */
