@@ -57,7 +57,7 @@ if (!result.verification.certified) {
   console.error('the design is not certified');
   process.exit(1);
 }
-const { k1, k2, referenceGain } = result.gain;
+const { k: [k1, k2], referenceGain } = result.gain;
 console.log(`u = ${referenceGain.toPrecision(6)}*r - (${k1.toPrecision(6)}*x1 + ${k2.toPrecision(6)}*x2),`
   + ` settling ${result.simulated.settlingTime.toPrecision(6)} s`);
 

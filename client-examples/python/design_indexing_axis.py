@@ -81,7 +81,7 @@ def main():
     if not design["verification"]["certified"]:
         sys.exit("the design is not certified")
     gain = design["gain"]
-    print("u = %.6g*r - (%.6g*x1 + %.6g*x2), gamma = %.6g" % (gain["referenceGain"], gain["k1"], gain["k2"],
+    print("u = %.6g*r - (%.6g*x1 + %.6g*x2), gamma = %.6g" % (gain["referenceGain"], gain["k"][0], gain["k"][1],
                                                             design["gamma"]))
     status, media, st = post(base, "/v1/designs/controllers/structured-text",
                              {"design": DESIGN, "samplePeriod": 0.001, "actuatorLimit": 3})
@@ -89,8 +89,8 @@ def main():
         fail_with_problem(status, st)
     if media != "text/plain" or "END_FUNCTION_BLOCK" not in st:
         sys.exit("controller export failed: HTTP %d %s" % (status, st[:200]))
-    if ("K_POSITION : LREAL := %r;" % gain["k1"]) not in st:
-        sys.exit("the exported block does not carry k1 = %r" % gain["k1"])
+    if ("K_POSITION : LREAL := %r;" % gain["k"][0]) not in st:
+        sys.exit("the exported block does not carry k1 = %r" % gain["k"][0])
     print("Structured Text: %d lines, first constant line: %s"
           % (st.count("\n"), next(line.strip() for line in st.splitlines() if "K_POSITION" in line)))
 

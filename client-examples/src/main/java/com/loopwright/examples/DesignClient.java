@@ -62,6 +62,20 @@ public final class DesignClient {
                     .matcher(body);
             return m.find() ? Double.parseDouble(m.group(1)) : Double.NaN;
         }
+
+        /** The state-feedback gains gain.k (order 2: [k1, k2]); empty when absent. */
+        public double[] gains() {
+            Matcher m = Pattern.compile("\"k\":\\[([^\\]]*)\\]").matcher(body);
+            if (!m.find() || m.group(1).isBlank()) {
+                return new double[0];
+            }
+            String[] parts = m.group(1).split(",");
+            double[] k = new double[parts.length];
+            for (int i = 0; i < k.length; i++) {
+                k[i] = Double.parseDouble(parts[i].trim());
+            }
+            return k;
+        }
     }
 
     /** POSTs a design request; a 503 is retried after its Retry-After, {@link #MAX_ATTEMPTS} times in all. */
@@ -130,8 +144,8 @@ public final class DesignClient {
         System.out.printf(
                 "u = %.6g*r - (%.6g*x1 + %.6g*x2), gamma = %.6g (gamma_min %.6g)%n",
                 reply.number("referenceGain"),
-                reply.number("k1"),
-                reply.number("k2"),
+                reply.gains()[0],
+                reply.gains()[1],
                 reply.number("gamma"),
                 reply.number("gammaMin"));
         System.out.printf(

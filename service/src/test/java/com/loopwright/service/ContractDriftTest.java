@@ -123,8 +123,8 @@ class ContractDriftTest {
     void highOrderRangesMatchTheValidator() {
         String request = "HighOrderDesignRequest/properties/";
         Map<String, Double> expected = Map.ofEntries(
-                Map.entry(request + "plant/properties/denominator/maxItems", (double) HighOrderLimits.MAX_ORDER),
-                Map.entry(request + "plant/properties/denominator/minItems", (double) HighOrderLimits.MIN_ORDER),
+                Map.entry(request + "plant/properties/denominator/maxItems", (double) HighOrderLimits.MAX_ORDER + 1),
+                Map.entry(request + "plant/properties/denominator/minItems", (double) HighOrderLimits.MIN_ORDER + 1),
                 Map.entry(request + "plant/properties/denominator/items/maximum", HighOrderLimits.MAX_ABS_COEFFICIENT),
                 Map.entry(request + "plant/properties/numerator/items/maximum", HighOrderLimits.MAX_ABS_COEFFICIENT),
                 Map.entry(request + "plant/properties/disturbance/items/maximum", HighOrderLimits.MAX_ABS_DISTURBANCE),
@@ -156,7 +156,7 @@ class ContractDriftTest {
                         -HighOrderLimits.MAX_POLE_MAGNITUDE),
                 Map.entry("HighOrderDesignResponse/properties/specMatching/properties/iterations/maximum", (double)
                         SpecMatcher.MAX_ITERATIONS),
-                Map.entry("HighOrderDesignResponse/properties/riccati/properties/newtonSteps/maximum", (double)
+                Map.entry("RiccatiSolution/properties/newtonSteps/maximum", (double)
                         PoleMatchedRiccati.MAX_NEWTON_STEPS));
         expected.forEach((pointer, value) -> {
             JsonNode node = contract.document().at("/components/schemas/" + pointer);

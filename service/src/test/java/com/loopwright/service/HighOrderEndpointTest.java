@@ -29,10 +29,10 @@ class HighOrderEndpointTest extends LiveServerTest {
         assertEquals(1.5, design.at("/simulated/overshootPercent").asDouble(), 0.01);
         assertTrue(design.at("/verification/specsMet").asBoolean(), design.toString());
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
-        assertTrue(design.at("/verification/hinfNorm").asDouble()
+        assertTrue(design.at("/verification/peakDisturbanceGain").asDouble()
                 <= design.get("gamma").asDouble() * (1 + 1e-8));
         assertTrue(design.at("/riccati/residualNorm").asDouble() < 1e-9);
-        assertTrue(design.at("/riccati/numericRelativeDifference").asDouble() < 1e-6);
+        assertTrue(design.at("/riccati/numeric/relativeDifference").asDouble() < 1e-6);
     }
 
     /** n = 2 through both endpoints: the same gamma_min and gains as the closed form of POST /v1/designs. */
@@ -45,7 +45,7 @@ class HighOrderEndpointTest extends LiveServerTest {
                 .json();
         JsonNode high = server.post(
                         PATH,
-                        "{\"plant\":{\"denominator\":[0,0.48],\"b\":400,\"disturbance\":[0,400]},"
+                        "{\"plant\":{\"denominator\":[1,0.48,0],\"b\":400,\"disturbance\":[0,400]},"
                                 + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}")
                 .json();
         assertEquals(
@@ -53,21 +53,21 @@ class HighOrderEndpointTest extends LiveServerTest {
                 high.get("gammaMin").asDouble(),
                 1e-12 * closed.get("gammaMin").asDouble());
         assertEquals(
-                closed.at("/gain/k1").asDouble(),
+                closed.at("/gain/k/0").asDouble(),
                 high.at("/gain/k/0").asDouble(),
-                1e-12 * closed.at("/gain/k1").asDouble());
+                1e-12 * closed.at("/gain/k/0").asDouble());
         assertEquals(
-                closed.at("/gain/k2").asDouble(),
+                closed.at("/gain/k/1").asDouble(),
                 high.at("/gain/k/1").asDouble(),
-                1e-12 * closed.at("/gain/k2").asDouble());
+                1e-12 * closed.at("/gain/k/1").asDouble());
         assertEquals(
-                closed.at("/riccati/p11").asDouble(),
+                closed.at("/riccati/p/0/0").asDouble(),
                 high.at("/riccati/p/0/0").asDouble(),
-                1e-12 * closed.at("/riccati/p11").asDouble());
+                1e-12 * closed.at("/riccati/p/0/0").asDouble());
         assertEquals(
-                closed.at("/weights/rho2").asDouble(),
+                closed.at("/weights/1").asDouble(),
                 high.at("/weights/1").asDouble(),
-                1e-12 * closed.at("/weights/rho2").asDouble());
+                1e-12 * closed.at("/weights/1").asDouble());
     }
 
     /**
@@ -78,9 +78,9 @@ class HighOrderEndpointTest extends LiveServerTest {
     void unmatchedDisturbanceAcceptsGammaNine() {
         LiveServer.Reply reply = server.post(
                 PATH,
-                "{\"plant\":{\"denominator\":[116.18020871989592,143.70716638812533,"
-                        + "88.57936923160051,30.503422892081126,7.383026668401097],\"b\":9.239987350768951,"
-                        + "\"numerator\":[1.0,-0.07477891545821842,0,0,0],\"disturbance\":[-0.011479745058412868,"
+                "{\"plant\":{\"denominator\":[1,7.383026668401097,30.503422892081126,"
+                        + "88.57936923160051,143.70716638812533,116.18020871989592],\"b\":9.239987350768951,"
+                        + "\"numerator\":[-0.07477891545821842,1.0],\"disturbance\":[-0.011479745058412868,"
                         + "0.005237289926014479,-0.09520698703810945,-0.01578820225853452,-0.03225289088209848]},"
                         + "\"spec\":{\"settlingTime\":1.1425650820161488,\"overshootPercent\":1.8545524264102118,"
                         + "\"settlingBandPercent\":5,\"gamma\":9},\"matchSpecs\":true}");
@@ -89,7 +89,7 @@ class HighOrderEndpointTest extends LiveServerTest {
         assertEquals(9, design.get("gamma").asDouble());
         assertEquals(373.38, design.at("/weights/0").asDouble(), 0.01);
         assertEquals(2.1429, design.at("/weights/4").asDouble(), 1e-4);
-        assertEquals(8.994, design.at("/verification/hinfNorm").asDouble(), 1e-3);
+        assertEquals(8.994, design.at("/verification/peakDisturbanceGain").asDouble(), 1e-3);
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
         JsonNode last =
                 design.get("gammaIntervals").get(design.get("gammaIntervals").size() - 1);
@@ -108,9 +108,9 @@ class HighOrderEndpointTest extends LiveServerTest {
     void boundedFeasibleSetAcceptsGammaThreeHundred() {
         LiveServer.Reply reply = server.post(
                 PATH,
-                "{\"plant\":{\"denominator\":[-4664.394958744662,10563.774241076499,"
-                        + "4285.479299120085,580.1103571483848,35.17298130085375],\"b\":4981.713964800213,"
-                        + "\"numerator\":[1.0,0.42082210235868306,0,0,0],\"disturbance\":[-87.57057439775919,222.93044269608208,"
+                "{\"plant\":{\"denominator\":[1,35.17298130085375,580.1103571483848,"
+                        + "4285.479299120085,10563.774241076499,-4664.394958744662],\"b\":4981.713964800213,"
+                        + "\"numerator\":[0.42082210235868306,1.0],\"disturbance\":[-87.57057439775919,222.93044269608208,"
                         + "-920.389020662208,8698.501577157102,-28721.24165932483]},\"spec\":{\"settlingTime\":2.055015615852868,"
                         + "\"overshootPercent\":0.3424922914388982,\"settlingBandPercent\":5,\"gamma\":300},"
                         + "\"auxiliaryPoles\":{\"poles\":[{\"re\":-15.945617686966436,\"im\":0},{\"re\":-21.564618342946243,"
@@ -119,12 +119,12 @@ class HighOrderEndpointTest extends LiveServerTest {
         JsonNode design = reply.json();
         assertEquals(2.8685, design.at("/weights/0").asDouble(), 1e-4);
         assertEquals(0.0061446, design.at("/weights/4").asDouble(), 1e-7);
-        assertEquals(284.3, design.at("/verification/hinfNorm").asDouble(), 0.1);
+        assertEquals(284.3, design.at("/verification/peakDisturbanceGain").asDouble(), 0.1);
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
         JsonNode only = design.at("/gammaIntervals/0");
         assertFalse(only.get("unbounded").asBoolean());
         assertTrue(only.get("lower").asDouble() < 300 && only.get("upper").asDouble() > 300, only.toString());
-        assertEquals("weight_real", only.at("/upperBinding/condition").asText());
+        assertEquals("weightReal", only.at("/upperBinding/condition").asText());
     }
 
     /** Issue 12 item 3: 1.001 x the old gamma_min 892911.6 is outside the feasible set: 422 at /spec/gamma. */
@@ -132,8 +132,8 @@ class HighOrderEndpointTest extends LiveServerTest {
     void gammaOutsideTheFeasibleSetIsA422NamingTheIntervals() {
         LiveServer.Reply reply = server.post(
                 PATH,
-                "{\"plant\":{\"denominator\":[0.0,24.97941139170825,"
-                        + "134.5277526057287,169.3013746965912,123.65431526377886,38.52871463226239,8.882909324515014],"
+                "{\"plant\":{\"denominator\":[1,8.882909324515014,38.52871463226239,123.65431526377886,"
+                        + "169.3013746965912,134.5277526057287,24.97941139170825,0.0],"
                         + "\"b\":0.04324120581504016,\"disturbance\":[7.7270514615083,-4.699242623990899,6.92906458125667,"
                         + "1.7780545876755274,-1.5050091596285124,-4.120016176140748,5.0987200947974]},"
                         + "\"spec\":{\"settlingTime\":4.27809291643725,\"overshootPercent\":5.483595520321292,"
@@ -149,7 +149,7 @@ class HighOrderEndpointTest extends LiveServerTest {
     void rightHalfPlaneZeroIsA422NamingTheSettlingTime() {
         LiveServer.Reply reply = server.post(
                 PATH,
-                "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,-0.5,0],"
+                "{\"plant\":{\"denominator\":[1,0,3,2],\"numerator\":[-0.5,1],"
                         + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.5,\"overshootPercent\":2},"
                         + "\"matchSpecs\":true}");
         assertEquals(422, reply.status(), reply.text());
@@ -163,7 +163,7 @@ class HighOrderEndpointTest extends LiveServerTest {
     void unreachableSpecReportsNonConvergenceAsA422() {
         LiveServer.Reply reply = server.post(
                 PATH,
-                "{\"plant\":{\"denominator\":[2,3,0],\"numerator\":[1,5,0],"
+                "{\"plant\":{\"denominator\":[1,0,3,2],\"numerator\":[5,1],"
                         + "\"b\":5,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},"
                         + "\"matchSpecs\":true}");
         assertEquals(422, reply.status(), reply.text());
@@ -174,15 +174,15 @@ class HighOrderEndpointTest extends LiveServerTest {
     @CsvSource(
             delimiter = '|',
             value = {
-                "{\"plant\":{\"denominator\":[1,2,3,4,5,6,7,8,9],\"b\":1,\"disturbance\":[1,1,1,1,1,1,1,1,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/denominator",
-                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
-                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,0]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
-                "{\"plant\":{\"denominator\":[1,2,3],\"numerator\":[0,1,0],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/numerator/0",
-                "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":1},{\"re\":-5,\"im\":2}]}}|/auxiliaryPoles/poles/0/im",
-                "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles",
-                "{\"plant\":{\"denominator\":[1,2,3,4],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":5,\"im\":0},{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles/0/re",
-                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"realPartMultiple\":0.5}}|/auxiliaryPoles/realPartMultiple",
-                "{\"plant\":{\"denominator\":[1,2,3],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"overshootPercent\":2}}|/spec/settlingTime",
+                "{\"plant\":{\"denominator\":[1,9,8,7,6,5,4,3,2,1],\"b\":1,\"disturbance\":[1,1,1,1,1,1,1,1,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/denominator",
+                "{\"plant\":{\"denominator\":[1,3,2,1],\"b\":1,\"disturbance\":[0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
+                "{\"plant\":{\"denominator\":[1,3,2,1],\"b\":1,\"disturbance\":[0,0,0]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/disturbance",
+                "{\"plant\":{\"denominator\":[1,3,2,1],\"numerator\":[1,0],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}|/plant/numerator/1",
+                "{\"plant\":{\"denominator\":[1,4,3,2,1],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":1},{\"re\":-5,\"im\":2}]}}|/auxiliaryPoles/poles/0/im",
+                "{\"plant\":{\"denominator\":[1,4,3,2,1],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles",
+                "{\"plant\":{\"denominator\":[1,4,3,2,1],\"b\":1,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":5,\"im\":0},{\"re\":-5,\"im\":0}]}}|/auxiliaryPoles/poles/0/re",
+                "{\"plant\":{\"denominator\":[1,3,2,1],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2},\"auxiliaryPoles\":{\"realPartMultiple\":0.5}}|/auxiliaryPoles/realPartMultiple",
+                "{\"plant\":{\"denominator\":[1,3,2,1],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"overshootPercent\":2}}|/spec/settlingTime",
             })
     void badInputIsA400NamingTheField(String body, String pointer) {
         LiveServer.Reply reply = server.post(PATH, body);
@@ -196,14 +196,14 @@ class HighOrderEndpointTest extends LiveServerTest {
                 400,
                 server.post(
                                 PATH,
-                                "{\"plant\":{\"denominator\":[1,2],\"b\":1,\"disturbance\":[0,1],"
+                                "{\"plant\":{\"denominator\":[1,2,1],\"b\":1,\"disturbance\":[0,1],"
                                         + "\"a0\":1},\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}")
                         .status());
         assertEquals(
                 400,
                 server.post(
                                 PATH,
-                                "{\"plant\":{\"denominator\":[NaN,2],\"b\":1,\"disturbance\":[0,1]},"
+                                "{\"plant\":{\"denominator\":[1,2,NaN],\"b\":1,\"disturbance\":[0,1]},"
                                         + "\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}}")
                         .status());
         assertEquals(415, server.post(PATH, "{}", "text/plain").status());
@@ -226,9 +226,11 @@ class HighOrderEndpointTest extends LiveServerTest {
         assertEquals(200, reply.status(), reply.text());
         JsonNode design = reply.json();
         assertEquals("stateSpace", design.at("/coordinates/frame").asText());
-        assertEquals(0, design.at("/coordinates/denominator/0").asDouble(), 1e-9);
-        assertEquals(96, design.at("/coordinates/denominator/1").asDouble(), 1e-9);
-        assertEquals(200.48, design.at("/coordinates/denominator/2").asDouble(), 1e-9);
+        // highest power first: s^3 + 200.48 s^2 + 96 s + 0
+        assertEquals(1, design.at("/coordinates/denominator/0").asDouble(), 0);
+        assertEquals(200.48, design.at("/coordinates/denominator/1").asDouble(), 1e-9);
+        assertEquals(96, design.at("/coordinates/denominator/2").asDouble(), 1e-9);
+        assertEquals(0, design.at("/coordinates/denominator/3").asDouble(), 1e-9);
         // closed loop A - b2 plantGain on x: its characteristic polynomial is the requested one
         double[][] a = {{0, 1, 0}, {0, -0.48, 400}, {0, 0, -200}};
         for (int j = 0; j < 3; j++) {
@@ -245,13 +247,15 @@ class HighOrderEndpointTest extends LiveServerTest {
         double det = a[0][0] * (a[1][1] * a[2][2] - a[1][2] * a[2][1])
                 - a[0][1] * (a[1][0] * a[2][2] - a[1][2] * a[2][0])
                 + a[0][2] * (a[1][0] * a[2][1] - a[1][1] * a[2][0]);
-        JsonNode polynomial = design.at("/target/polynomial");
+        // highest power first: [1, alpha_2, alpha_1, alpha_0]
+        JsonNode polynomial = design.at("/target/characteristicPolynomial");
+        assertEquals(1, polynomial.get(0).asDouble(), 0);
         assertEquals(
-                polynomial.get(2).asDouble(), -trace, 1e-9 * polynomial.get(2).asDouble());
+                polynomial.get(1).asDouble(), -trace, 1e-9 * polynomial.get(1).asDouble());
         assertEquals(
-                polynomial.get(1).asDouble(), minors, 1e-9 * polynomial.get(1).asDouble());
+                polynomial.get(2).asDouble(), minors, 1e-9 * polynomial.get(2).asDouble());
         assertEquals(
-                polynomial.get(0).asDouble(), -det, 1e-9 * polynomial.get(0).asDouble());
+                polynomial.get(3).asDouble(), -det, 1e-9 * polynomial.get(3).asDouble());
         assertTrue(design.at("/verification/certified").asBoolean(), design.toString());
     }
 

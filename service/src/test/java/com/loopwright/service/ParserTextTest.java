@@ -41,7 +41,7 @@ class ParserTextTest extends LiveServerTest {
             new Host("/v1/designs", "{\"plant\":" + PLANT + ",\"spec\":@}", "/spec", "settlingTime", "0.15", SPEC_REST),
             new Host(
                     "/v1/designs/high-order",
-                    "{\"plant\":{\"denominator\":[2.64,8.08,6.1],\"b\":1.0},\"spec\":@}",
+                    "{\"plant\":{\"denominator\":[1,6.1,8.08,2.64],\"b\":1.0},\"spec\":@}",
                     "/spec",
                     "settlingTime",
                     "1.0",

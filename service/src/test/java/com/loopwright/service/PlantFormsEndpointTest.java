@@ -47,16 +47,16 @@ class PlantFormsEndpointTest extends LiveServerTest {
         assertEquals(1, view.at("/transform/0/0").asDouble(), 1e-14);
         assertEquals(0, view.at("/transform/0/1").asDouble(), 1e-14);
         assertEquals(
-                design.at("/riccati/p12").asDouble(),
+                design.at("/riccati/p/0/1").asDouble(),
                 view.at("/p/0/1").asDouble(),
-                1e-12 * design.at("/riccati/p12").asDouble());
-        assertEquals(design.at("/gain/k1").asDouble(), view.at("/gain/0").asDouble(), 1e-12);
+                1e-12 * design.at("/riccati/p/0/1").asDouble());
+        assertEquals(design.at("/gain/k/0").asDouble(), view.at("/gain/0").asDouble(), 1e-12);
         assertTrue(view.get("riccatiResidual").asDouble() < 1e-10);
         var canonical = server.post("/v1/designs", """
                 {"plant":{"a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""");
         assertEquals(
-                canonical.json().at("/gain/k2").asDouble(),
-                design.at("/gain/k2").asDouble(),
+                canonical.json().at("/gain/k/1").asDouble(),
+                design.at("/gain/k/1").asDouble(),
                 1e-12);
     }
 

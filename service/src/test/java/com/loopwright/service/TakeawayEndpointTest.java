@@ -140,11 +140,11 @@ class TakeawayEndpointTest extends LiveServerTest {
                 contract.violations("/v1/designs/controllers/{format}", "post", 200, "application/json", reply.json());
         assertTrue(violations.isEmpty(), violations);
         assertEquals(
-                design.at("/gain/k1").asDouble(),
+                design.at("/gain/k/0").asDouble(),
                 reply.json().get("positionGain").asDouble(),
                 0);
         assertEquals(
-                design.at("/gain/k2").asDouble(),
+                design.at("/gain/k/1").asDouble(),
                 reply.json().get("velocityGain").asDouble(),
                 0);
         assertEquals(

@@ -108,21 +108,8 @@ public record DesignNotes(List<String> texts, List<String> codes) {
         if (conditionNote != null) {
             notes.add(PLANT_CONDITIONING, conditionNote);
         }
-        // the percentage comes back from a fraction: a relative slack keeps 0.1 itself out
-        if (overshootPercent < FRACTION_SUSPECT_PERCENT * (1 - PERCENT_ROUND_TRIP)) {
-            notes.add(
-                    OVERSHOOT_LOOKS_LIKE_FRACTION,
-                    String.format(
-                            Locale.US,
-                            "overshootPercent = %s is in percent: the design meets %s %% (damping ratio %.3g, nearly"
-                                    + " critically damped). If it was meant as a fraction, that is %s %%: send"
-                                    + " overshootPercent = %s.",
-                            number(overshootPercent),
-                            number(overshootPercent),
-                            design.target().dampingRatio(),
-                            number(100 * overshootPercent),
-                            number(100 * overshootPercent)));
-        }
+        overshootFractionNote(overshootPercent, design.target().dampingRatio())
+                .ifPresent(text -> notes.add(OVERSHOOT_LOOKS_LIKE_FRACTION, text));
         StepMetrics metrics = report.stepMetrics();
         double peakCommand = metrics.peakControl();
         if (actuatorLimit != null && peakCommand > ACTUATOR_LIMIT_FACTOR * actuatorLimit) {
@@ -186,6 +173,30 @@ public record DesignNotes(List<String> texts, List<String> codes) {
     static double plantCommandScale(CanonicalPlant plant) {
         double wp = ownFrequency(plant);
         return (Math.abs(plant.a0()) + Math.abs(plant.a1()) * wp + wp * wp) / Math.abs(plant.b());
+    }
+
+    /**
+     * The note for an overshoot below 0.1 % (code {@link #OVERSHOOT_LOOKS_LIKE_FRACTION}), the same for every
+     * design order: it reads like a fraction typed as a percentage.
+     *
+     * @param overshootPercent the requested overshoot [percent]
+     * @param dampingRatio     the damping ratio the design met it with
+     */
+    public static java.util.Optional<String> overshootFractionNote(double overshootPercent, double dampingRatio) {
+        // the percentage comes back from a fraction: a relative slack keeps 0.1 itself out
+        if (!(overshootPercent < FRACTION_SUSPECT_PERCENT * (1 - PERCENT_ROUND_TRIP))) {
+            return java.util.Optional.empty();
+        }
+        return java.util.Optional.of(String.format(
+                Locale.US,
+                "overshootPercent = %s is in percent: the design meets %s %% (damping ratio %.3g, nearly"
+                        + " critically damped). If it was meant as a fraction, that is %s %%: send"
+                        + " overshootPercent = %s.",
+                number(overshootPercent),
+                number(overshootPercent),
+                dampingRatio,
+                number(100 * overshootPercent),
+                number(100 * overshootPercent)));
     }
 
     private static String number(double value) {

@@ -93,9 +93,9 @@ public final class DesignRequestValidator {
 
     /**
      * Range check of the overshoot, with advice for the two commonest mistakes: zero (the exact overshoot formula
-     * needs zeta &lt; 1) and a fraction typed as a percentage.
+     * needs zeta &lt; 1) and a fraction typed as a percentage. The same advice for every design order.
      */
-    static void overshoot(List<FieldError> errors, Double overshootPercent) {
+    public static void overshoot(List<FieldError> errors, Double overshootPercent) {
         String pointer = "/spec/overshootPercent";
         List<FieldError> found = new ArrayList<>(1);
         Checks.range(found, pointer, overshootPercent, MIN_OVERSHOOT_PERCENT, MAX_OVERSHOOT_PERCENT, true);

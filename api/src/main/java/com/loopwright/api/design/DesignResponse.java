@@ -1,12 +1,22 @@
 package com.loopwright.api.design;
 
 import com.fasterxml.jackson.annotation.JsonInclude;
+import com.loopwright.api.result.Gain;
+import com.loopwright.api.result.GammaBound;
+import com.loopwright.api.result.GammaInterval;
+import com.loopwright.api.result.Pole;
+import com.loopwright.api.result.Riccati;
+import com.loopwright.api.result.Simulated;
+import com.loopwright.api.result.Target;
+import com.loopwright.api.result.Verification;
 import com.loopwright.api.robustness.RobustnessResponse;
 import java.util.List;
 
 /**
  * Body of a successful POST /v1/designs. Units: seconds, rad/s, the caller's x1 and u units; gamma is the
- * L2 gain bound from w to z = [rho1 x1, rho2 x2, u]. {@code robustness} is present only when the request asked
+ * L2 gain bound from w to z = [rho1 x1, rho2 x2, u]. target, riccati, gammaBounds, gammaIntervals, weights, gain,
+ * simulated and verification are the records every design result shares (package {@code api.result}); this
+ * order-2 result adds plant and model. {@code robustness} is present only when the request asked
  * for it (verify). {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
  * strings; a client that acts on a note matches its code).
  */
@@ -15,10 +25,11 @@ public record DesignResponse(
         Plant plant,
         Target target,
         Riccati riccati,
-        List<GammaBoundView> gammaBounds,
+        List<GammaBound> gammaBounds,
+        List<GammaInterval> gammaIntervals,
         double gammaMin,
         double gamma,
-        Weights weights,
+        List<Double> weights,
         Gain gain,
         Simulated simulated,
         Verification verification,
@@ -30,6 +41,8 @@ public record DesignResponse(
 
     public DesignResponse {
         gammaBounds = List.copyOf(gammaBounds);
+        gammaIntervals = List.copyOf(gammaIntervals);
+        weights = List.copyOf(weights);
         notes = List.copyOf(notes);
         noteCodes = List.copyOf(noteCodes);
         cautions = List.copyOf(cautions);
@@ -37,98 +50,6 @@ public record DesignResponse(
 
     /** The canonical plant the design used. */
     public record Plant(double a0, double a1, double b, double d) {}
-
-    /**
-     * Target closed-loop dynamics.
-     *
-     * @param handbookNaturalFrequency wn from the textbook rule of thumb, for comparison only
-     * @param bindingSpecs             the specs met with equality by the target (the others are met with room)
-     */
-    public record Target(
-            double dampingRatio,
-            double naturalFrequency,
-            List<PoleView> poles,
-            double handbookNaturalFrequency,
-            List<String> bindingSpecs) {
-        public Target {
-            poles = List.copyOf(poles);
-            bindingSpecs = List.copyOf(bindingSpecs);
-        }
-    }
-
-    public record PoleView(double re, double im) {}
-
-    /**
-     * Closed-form Riccati solution P = [[p11, p12], [p12, p22]] and its relative residual in the Riccati
-     * equation, with the independent numeric solution beside it.
-     */
-    public record Riccati(double p11, double p12, double p22, double residualNorm, NumericRiccati numeric) {}
-
-    /**
-     * @param relativeDifference ||P_numeric - P_closed||_F / ||P_closed||_F
-     * @param iterations         matrix-sign iterations used
-     */
-    public record NumericRiccati(
-            double p11, double p12, double p22, double residualNorm, double relativeDifference, int iterations) {}
-
-    /**
-     * @param condition wire name of the requirement
-     * @param value     gamma lower bound d/sqrt(D)
-     * @param meaning   what holds above it
-     * @param binding   true for the bound that sets gamma_min
-     */
-    public record GammaBoundView(String condition, double value, String meaning, boolean binding) {}
-
-    public record Weights(double rho1, double rho2) {}
-
-    /**
-     * Law u = kr r - (k1 x1 + k2 x2).
-     *
-     * @param referenceGain kr, which gives unit DC gain from the reference r to x1
-     */
-    public record Gain(double k1, double k2, double referenceGain, String law) {}
-
-    /** Metrics of the simulated closed-loop step of size stepSize. */
-    public record Simulated(
-            double riseTime,
-            double settlingTime,
-            double overshootPercent,
-            double peakTime,
-            double steadyStateError,
-            double peakControl,
-            double stepSize,
-            double settlingBandPercent,
-            double horizon,
-            int samples) {}
-
-    /**
-     * Independent checks of the design.
-     *
-     * @param hinfNorm                    H-infinity norm of the closed loop from w to z, by Hamiltonian test
-     * @param hinfPeakFrequency           frequency where it peaks [rad/s]
-     * @param certified                   hinfNorm &lt;= gamma and numeric and closed-form P agree
-     * @param positionPerDisturbanceBound certified ||x1||_2 / ||w||_2 &lt;= gamma/rho1 (absent when rho1 = 0)
-     * @param specChecks                  each requested spec against its simulated value
-     */
-    @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record Verification(
-            double hinfNorm,
-            double hinfPeakFrequency,
-            boolean certified,
-            Double positionPerDisturbanceBound,
-            boolean specsMet,
-            List<SpecCheck> specChecks) {
-        public Verification {
-            specChecks = List.copyOf(specChecks);
-        }
-    }
-
-    /**
-     * @param spec      request field name
-     * @param requested requested value (an upper limit)
-     * @param simulated simulated value
-     */
-    public record SpecCheck(String spec, double requested, double simulated, boolean met) {}
 
     /**
      * The plant description the caller sent and what the design made of it.
@@ -197,7 +118,7 @@ public record DesignResponse(
             List<Double> trackedOutput,
             double referenceGain,
             double riccatiResidual,
-            List<PoleView> closedLoopPoles,
+            List<Pole> closedLoopPoles,
             String law,
             double controllabilityCondition) {
         public StateSpaceView {

@@ -1,7 +1,17 @@
 package com.loopwright.api.design;
 
+import com.loopwright.api.result.Gain;
+import com.loopwright.api.result.GammaConditions;
+import com.loopwright.api.result.GammaInterval;
+import com.loopwright.api.result.IntervalEnd;
+import com.loopwright.api.result.Matrices;
+import com.loopwright.api.result.Pole;
+import com.loopwright.api.result.Riccati;
+import com.loopwright.api.result.Simulated;
+import com.loopwright.api.result.SpecCheck;
+import com.loopwright.api.result.Target;
 import com.loopwright.solver.design.ClosedFormDesign;
-import com.loopwright.solver.design.GammaCondition;
+import com.loopwright.solver.design.GammaBound;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.design.Verification;
 import com.loopwright.solver.pipeline.DesignReport;
@@ -48,45 +58,49 @@ public final class DesignResponseMapper {
                 verifyOptions == null ? null : verifyOptions.actuatorLimit(),
                 verifyOptions == null ? null : verifyOptions.samplePeriod(),
                 ModelMapper.conditionNote(request.resolvedPlant()));
+        double wn = target.naturalFrequencyRadPerSec();
         return new DesignResponse(
                 new DesignResponse.Plant(
                         design.plant().a0(),
                         design.plant().a1(),
                         design.plant().b(),
                         design.plant().d()),
-                new DesignResponse.Target(
+                new Target(
                         target.dampingRatio(),
-                        target.naturalFrequencyRadPerSec(),
+                        wn,
                         target.poles().stream()
-                                .map(p -> new DesignResponse.PoleView(p.re(), p.im()))
+                                .map(p -> new Pole(p.re(), p.im()))
                                 .toList(),
+                        List.of(),
+                        // s^2 + 2 zeta wn s + wn^2, highest power first
+                        List.of(1.0, 2 * target.dampingRatio() * wn, wn * wn),
                         report.inversion().handbookNaturalFrequencyRadPerSec(),
                         List.of("overshootPercent", timeSpecName)),
-                new DesignResponse.Riccati(
-                        design.p11(),
-                        design.p12(),
-                        design.p22(),
+                new Riccati(
+                        Matrices.symmetric2(design.p11(), design.p12(), design.p22()),
                         verification.closedFormResidual(),
-                        new DesignResponse.NumericRiccati(
-                                numeric.p11(),
-                                numeric.p12(),
-                                numeric.p22(),
+                        new com.loopwright.api.result.NumericRiccati(
+                                Matrices.symmetric2(numeric.p11(), numeric.p12(), numeric.p22()),
                                 numeric.relativeResidual(),
                                 numeric.relativeDifference(),
-                                numeric.iterations())),
-                gammaBounds(design),
+                                numeric.iterations()),
+                        null,
+                        null,
+                        null),
+                design.gammaBounds().stream().map(GammaConditions::toWire).toList(),
+                List.of(gammaInterval(design)),
                 design.gammaMin(),
                 design.gamma(),
-                new DesignResponse.Weights(design.rho1(), design.rho2()),
-                new DesignResponse.Gain(
-                        design.positionGain(),
-                        design.velocityGain(),
+                List.of(design.rho1(), design.rho2()),
+                new Gain(
+                        List.of(design.positionGain(), design.velocityGain()),
                         design.referenceGain(),
                         "u = kr*r - (k1*x1 + k2*x2)"),
-                new DesignResponse.Simulated(
+                new Simulated(
                         metrics.riseTimeSeconds(),
                         metrics.settlingTimeSeconds(),
                         metrics.overshootPercent(),
+                        metrics.undershootPercent(),
                         metrics.peakTimeSeconds(),
                         metrics.steadyStateError(),
                         metrics.peakControl(),
@@ -94,16 +108,17 @@ public final class DesignResponseMapper {
                         100 * report.bandFraction(),
                         report.horizonSeconds(),
                         report.samples()),
-                new DesignResponse.Verification(
+                new com.loopwright.api.result.Verification(
                         verification.hinfNorm().value(),
                         verification.hinfNorm().peakFrequencyRadPerSec(),
+                        null,
                         verification.certified(),
                         design.positionPerDisturbanceBound().isPresent()
                                 ? design.positionPerDisturbanceBound().getAsDouble()
                                 : null,
                         verification.specsMet(),
                         verification.specChecks().stream()
-                                .map(c -> new DesignResponse.SpecCheck(c.spec(), c.requested(), c.simulated(), c.met()))
+                                .map(c -> new SpecCheck(c.spec(), c.requested(), c.simulated(), c.met()))
                                 .toList()),
                 notes.texts(),
                 notes.codes(),
@@ -112,27 +127,19 @@ public final class DesignResponseMapper {
                 robustness);
     }
 
-    /** Wire name of a gamma condition. */
-    public static String wireName(GammaCondition condition) {
-        return switch (condition) {
-            case POSITION_WEIGHT_REAL -> "positionWeightReal";
-            case VELOCITY_WEIGHT_REAL -> "velocityWeightReal";
-            case P11_POSITIVE -> "p11Positive";
-            case P_POSITIVE_DEFINITE -> "positiveDefinite";
-            case STABILIZING_DAMPING -> "stabilizingDamping";
-            case STABILIZING_STIFFNESS -> "stabilizingStiffness";
-            case WEIGHT_REAL, STABILIZING, INPUT_GAIN, SOLUTION_BRANCH_END ->
-                throw new IllegalArgumentException(condition + " is not a closed-form condition");
-        };
-    }
-
-    private static List<DesignResponse.GammaBoundView> gammaBounds(ClosedFormDesign design) {
-        return design.gammaBounds().stream()
-                .map(b -> new DesignResponse.GammaBoundView(
-                        wireName(b.condition()),
-                        b.gammaLowerBound(),
-                        b.condition().meaning(),
-                        b.binding()))
-                .toList();
+    /**
+     * The feasible gamma set of the closed-form design, [gammaMin, unbounded): every requirement is
+     * d^2/gamma^2 &lt;= D, so it holds for every gamma above its bound; the binding requirement ends it below.
+     */
+    static GammaInterval gammaInterval(ClosedFormDesign design) {
+        IntervalEnd lower = design.gammaBounds().stream()
+                .filter(GammaBound::binding)
+                .findFirst()
+                .map(b -> new IntervalEnd(
+                        GammaConditions.wireName(b.condition()),
+                        GammaConditions.state(b.condition(), b.stateIndex()),
+                        b.meaning()))
+                .orElse(null);
+        return new GammaInterval(design.gammaMin(), null, true, lower, null);
     }
 }

@@ -125,7 +125,7 @@ final class ModelMapper {
                 view.referenceGain(),
                 view.relativeResidual(),
                 view.closedLoopPoles().stream()
-                        .map(p -> new DesignResponse.PoleView(p.re(), p.im()))
+                        .map(p -> new com.loopwright.api.result.Pole(p.re(), p.im()))
                         .toList(),
                 law,
                 view.controllabilityCondition());

@@ -1,13 +1,21 @@
 package com.loopwright.api.highorder;
 
 import com.fasterxml.jackson.annotation.JsonInclude;
-import com.loopwright.api.design.DesignResponse;
+import com.loopwright.api.result.Gain;
+import com.loopwright.api.result.GammaBound;
+import com.loopwright.api.result.GammaInterval;
+import com.loopwright.api.result.Riccati;
+import com.loopwright.api.result.Simulated;
+import com.loopwright.api.result.Target;
+import com.loopwright.api.result.Verification;
 import java.util.List;
 
 /**
  * Body of a successful POST /v1/designs/high-order. Every matrix and gain is in the companion coordinates z of
  * the request (z_1 the output-side state, z_n the state u drives); gamma bounds the L2 gain from w to
- * z_perf = [rho_1 z_1, ..., rho_n z_n, u].
+ * z_perf = [rho_1 z_1, ..., rho_n z_n, u]. target, riccati, gammaBounds, gammaIntervals, weights, gain, simulated
+ * and verification are the records every design result shares (package {@code api.result}); this order-n result
+ * adds order, coordinates and specMatching. Polynomial coefficients are highest power first.
  */
 public record HighOrderDesignResponse(
         int order,
@@ -15,7 +23,7 @@ public record HighOrderDesignResponse(
         Target target,
         SpecMatching specMatching,
         Riccati riccati,
-        List<Bound> gammaBounds,
+        List<GammaBound> gammaBounds,
         List<GammaInterval> gammaIntervals,
         double gammaMin,
         double gamma,
@@ -24,6 +32,7 @@ public record HighOrderDesignResponse(
         Simulated simulated,
         Verification verification,
         List<String> notes,
+        List<String> noteCodes,
         List<String> cautions) {
 
     public HighOrderDesignResponse {
@@ -31,6 +40,10 @@ public record HighOrderDesignResponse(
         gammaIntervals = List.copyOf(gammaIntervals);
         weights = List.copyOf(weights);
         notes = List.copyOf(notes);
+        noteCodes = List.copyOf(noteCodes);
+        if (notes.size() != noteCodes.size()) {
+            throw new IllegalArgumentException("one code per note");
+        }
         cautions = List.copyOf(cautions);
     }
 
@@ -53,14 +66,6 @@ public record HighOrderDesignResponse(
             List<Double> plantGain,
             @JsonInclude(JsonInclude.Include.NON_NULL) Double controllabilityCondition) {}
 
-    /** The requested closed loop: dominant pair, auxiliary poles and the polynomial alpha_0 .. alpha_{n-1}. */
-    public record Target(
-            double dampingRatio,
-            double naturalFrequency,
-            List<DesignResponse.PoleView> dominantPoles,
-            List<DesignResponse.PoleView> auxiliaryPoles,
-            List<Double> polynomial) {}
-
     /** Spec matching: iterations and residuals (0 iterations and the formula residuals when not asked for). */
     public record SpecMatching(
             boolean enabled,
@@ -69,57 +74,4 @@ public record HighOrderDesignResponse(
             double overshootResidualPoints,
             double startingDampingRatio,
             double startingNaturalFrequency) {}
-
-    /** P in companion coordinates, from the pole-matched linear system, and the numeric re-solve. */
-    public record Riccati(
-            List<List<Double>> p,
-            double residualNorm,
-            double reciprocalCondition,
-            int newtonSteps,
-            int bisectionSteps,
-            double numericRelativeDifference,
-            double numericResidualNorm,
-            int numericIterations) {}
-
-    /** One lower bound on gamma; state is the 1-based index for a weight condition, else 0. */
-    public record Bound(String condition, int state, String meaning, double gammaLowerBound, boolean binding) {}
-
-    /**
-     * One interval of the feasible gamma set: every gamma strictly between lower and upper completes the design.
-     * upper and upperBinding are absent when the interval is unbounded (JSON has no infinity).
-     */
-    @JsonInclude(JsonInclude.Include.NON_NULL)
-    public record GammaInterval(
-            double lower, Double upper, boolean unbounded, IntervalEnd lowerBinding, IntervalEnd upperBinding) {}
-
-    /** What ends an interval: a requirement (state is the 1-based index for a weight, else 0) or a search limit. */
-    public record IntervalEnd(String condition, int state, String meaning) {}
-
-    /** u = referenceGain r - sum k_j z_j. */
-    public record Gain(List<Double> k, double referenceGain) {}
-
-    /** Simulated step of the actual closed loop, zeros included. */
-    public record Simulated(
-            double riseTime,
-            double settlingTime,
-            double overshootPercent,
-            double undershootPercent,
-            double peakControl,
-            double horizon,
-            int samples) {}
-
-    /**
-     * Closed-loop H-infinity norm from w to z_perf, and whether the design is certified.
-     *
-     * @param hinfNorm                  certified upper bound: never below the true norm, at most a factor
-     *                                  (1 + hinfNormRelativeTolerance) above it
-     * @param peakFrequency             frequency [rad/s] of the largest evaluated gain, refined to a local maximum
-     * @param hinfNormRelativeTolerance the relative tolerance of hinfNorm
-     */
-    public record Verification(
-            double hinfNorm,
-            double peakFrequency,
-            double hinfNormRelativeTolerance,
-            boolean certified,
-            boolean specsMet) {}
 }

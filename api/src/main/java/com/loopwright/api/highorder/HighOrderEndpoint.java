@@ -40,7 +40,7 @@ public final class HighOrderEndpoint
 
     @Override
     public Object respond(ValidatedHighOrderDesign input, HighOrderPipeline.Result result) {
-        return responses.toResponse(result);
+        return responses.toResponse(input, result);
     }
 
     @Override

@@ -3,6 +3,7 @@ package com.loopwright.api.highorder;
 import static com.loopwright.api.highorder.HighOrderLimits.*;
 import static com.loopwright.api.validation.FieldLimits.*;
 
+import com.loopwright.api.design.DesignRequestValidator;
 import com.loopwright.api.highorder.HighOrderDesignRequest.AuxiliaryPolesInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.HighOrderPlantInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.HighOrderSpecInput;
@@ -11,6 +12,7 @@ import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.validation.Checks;
 import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
@@ -50,25 +52,9 @@ public final class HighOrderRequestValidator {
                 n = stateSpace == null ? -1 : stateSpace.a().numRows;
             }
         } else {
-            denominator = coefficients(errors, "/plant/denominator", plant.denominator(), -1, MAX_ABS_COEFFICIENT);
-            n = denominator == null ? -1 : denominator.length;
-            if (n >= 0 && (n < MIN_ORDER || n > MAX_ORDER)) {
-                errors.add(new FieldError(
-                        "/plant/denominator",
-                        "needs " + MIN_ORDER + " to " + MAX_ORDER + " coefficients (the plant order), got " + n));
-                n = -1;
-            }
-            if (plant.numerator() == null && n > 0) {
-                numerator = new double[n];
-                numerator[0] = 1;
-            } else {
-                numerator = coefficients(errors, "/plant/numerator", plant.numerator(), n, MAX_ABS_COEFFICIENT);
-            }
-            if (numerator != null && numerator[0] == 0) {
-                errors.add(new FieldError(
-                        "/plant/numerator/0",
-                        "must be non-zero: a zero at s = 0 gives the loop no" + " DC gain to scale the reference by"));
-            }
+            denominator = denominator(errors, plant.denominator());
+            n = denominator == null ? -1 : denominator.length - 1;
+            numerator = numerator(errors, plant.numerator(), n);
             if (plant.b() == null) {
                 errors.add(new FieldError("/plant/b", "required"));
             } else if (!Double.isFinite(plant.b())
@@ -89,13 +75,7 @@ public final class HighOrderRequestValidator {
             errors.add(new FieldError("/spec", "required"));
             throw new InvalidRequestException(errors);
         }
-        Checks.range(
-                errors,
-                "/spec/overshootPercent",
-                spec.overshootPercent(),
-                MIN_OVERSHOOT_PERCENT,
-                MAX_OVERSHOOT_PERCENT,
-                true);
+        DesignRequestValidator.overshoot(errors, spec.overshootPercent());
         Checks.range(errors, "/spec/settlingTime", spec.settlingTime(), MIN_TIME_SECONDS, MAX_TIME_SECONDS, true);
         Checks.range(
                 errors,
@@ -130,13 +110,27 @@ public final class HighOrderRequestValidator {
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
+        if (denominator != null && denominator[0] != 1) {
+            // well-formed but not a description the design takes: 422 at the leading coefficient
+            throw SolverFailure.about(
+                    SolverFailure.Kind.PLANT_MODEL,
+                    "denominator/0",
+                    -1,
+                    "must be 1: the denominator is monic, s^n + a_{n-1} s^{n-1} + ... + a_0, highest power first;"
+                            + " divide the denominator and the numerator by the leading coefficient (got "
+                            + denominator[0] + ")",
+                    null);
+        }
         double band = (spec.settlingBandPercent() == null ? DEFAULT_BAND_PERCENT : spec.settlingBandPercent()) / 100;
         GammaChoice gamma = spec.gamma() != null
                 ? new GammaChoice.Fixed(spec.gamma())
                 : new GammaChoice.MarginOverMinimum(
                         spec.gammaMargin() == null ? DEFAULT_GAMMA_MARGIN : spec.gammaMargin());
         return new ValidatedHighOrderDesign(
-                stateSpace != null ? null : new CompanionPlant(denominator, numerator, plant.b(), disturbance),
+                stateSpace != null
+                        ? null
+                        : new CompanionPlant(
+                                CoefficientOrder.fromMonicHighestFirst(denominator), numerator, plant.b(), disturbance),
                 new DesignSpec(spec.overshootPercent() / 100, new TimeSpec.SettlingTime(spec.settlingTime(), band)),
                 auxiliary,
                 Boolean.TRUE.equals(request.matchSpecs()),
@@ -255,6 +249,57 @@ public final class HighOrderRequestValidator {
                 new org.ejml.data.DMatrixRMaj(1, n, true, output));
     }
 
+    /**
+     * The denominator [1, a_{n-1}, ..., a_0], highest power first, as sent (its leading 1 is checked once every
+     * field is well-formed); null after an error.
+     */
+    private static double[] denominator(List<FieldError> errors, List<Double> values) {
+        String pointer = "/plant/denominator";
+        if (values != null && (values.size() < MIN_ORDER + 1 || values.size() > MAX_ORDER + 1)) {
+            errors.add(new FieldError(
+                    pointer,
+                    "needs " + (MIN_ORDER + 1) + " to " + (MAX_ORDER + 1) + " coefficients, highest power first"
+                            + " (1 and a_{n-1} .. a_0 for a plant of order n = " + MIN_ORDER + " to " + MAX_ORDER
+                            + "), got " + values.size()));
+            return null;
+        }
+        double[] highestFirst = coefficients(errors, pointer, values, -1, MAX_ABS_COEFFICIENT);
+        if (highestFirst == null) {
+            return null;
+        }
+        return highestFirst;
+    }
+
+    /**
+     * The numerator, highest power first and right-aligned (1..n entries, default [1]: y = z_1), as the solver's
+     * c_0 .. c_{n-1}; null after an error or when the order is unknown.
+     */
+    private static double[] numerator(List<FieldError> errors, List<Double> values, int n) {
+        String pointer = "/plant/numerator";
+        if (values == null) {
+            return n > 0 ? CoefficientOrder.numeratorLowestFirst(new double[] {1}, n) : null;
+        }
+        if (values.isEmpty() || (n > 0 && values.size() > n)) {
+            errors.add(new FieldError(
+                    pointer,
+                    "needs 1 to " + (n > 0 ? n : "n") + " coefficients (the plant order), highest power first,"
+                            + " got " + values.size()));
+            return null;
+        }
+        double[] highestFirst = coefficients(errors, pointer, values, -1, MAX_ABS_COEFFICIENT);
+        if (highestFirst == null || n <= 0) {
+            return null;
+        }
+        int last = highestFirst.length - 1;
+        if (highestFirst[last] == 0) {
+            errors.add(new FieldError(
+                    pointer + "/" + last,
+                    "must be non-zero: a zero at s = 0 gives the loop no DC gain to scale the reference by"));
+            return null;
+        }
+        return CoefficientOrder.numeratorLowestFirst(highestFirst, n);
+    }
+
     /** A list of finite numbers within +-maxAbs, of the expected length (when known). */
     private static double[] coefficients(
             List<FieldError> errors, String pointer, List<Double> values, int length, double maxAbs) {
@@ -262,8 +307,8 @@ public final class HighOrderRequestValidator {
             errors.add(new FieldError(pointer, "required"));
             return null;
         }
-        if (values.size() > MAX_ORDER) {
-            errors.add(new FieldError(pointer, "at most " + MAX_ORDER + " entries"));
+        if (values.size() > MAX_ORDER + 1) {
+            errors.add(new FieldError(pointer, "at most " + (MAX_ORDER + 1) + " entries"));
             return null;
         }
         if (length >= 0 && values.size() != length) {

@@ -1,9 +1,19 @@
 package com.loopwright.api.highorder;
 
 import com.loopwright.api.design.Cautions;
-import com.loopwright.api.design.DesignResponse;
-import com.loopwright.solver.design.GammaBound;
-import com.loopwright.solver.design.GammaInterval;
+import com.loopwright.api.design.DesignNotes;
+import com.loopwright.api.result.Gain;
+import com.loopwright.api.result.GammaConditions;
+import com.loopwright.api.result.GammaInterval;
+import com.loopwright.api.result.IntervalEnd;
+import com.loopwright.api.result.Matrices;
+import com.loopwright.api.result.NumericRiccati;
+import com.loopwright.api.result.Pole;
+import com.loopwright.api.result.Riccati;
+import com.loopwright.api.result.Simulated;
+import com.loopwright.api.result.SpecCheck;
+import com.loopwright.api.result.Target;
+import com.loopwright.api.result.Verification;
 import com.loopwright.solver.design.HighOrderDesign;
 import com.loopwright.solver.design.HighOrderStep;
 import com.loopwright.solver.design.HighOrderVerification;
@@ -11,40 +21,51 @@ import com.loopwright.solver.design.SpecMatch;
 import com.loopwright.solver.pipeline.HighOrderPipeline;
 import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.spec.TargetDynamics;
+import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
-import org.ejml.data.DMatrixRMaj;
 
 /** Solver results of a high-order design to the response records. */
 public final class HighOrderResponseMapper {
 
-    /** Notes from the gamma search passed on (the response carries at most 16 notes in all). */
-    static final int MAX_DESIGN_NOTES = 12;
+    /**
+     * Notes from the gamma search passed on: with the at most five notes of the mapper the response carries at
+     * most 16 notes in all (the contract's maxItems).
+     */
+    static final int MAX_DESIGN_NOTES = 11;
+
+    /** Note code: P, gains and weights are in the request's companion coordinates (every order-n design). */
+    public static final String COMPANION_COORDINATES = "companionCoordinates";
+    /** Note code: the simulated step misses the specs; matchSpecs would adjust the dominant pair. */
+    public static final String SPECS_MISSED_TRY_MATCH_SPECS = "specsMissedTryMatchSpecs";
+    /** Note code: a note of the feasible-gamma search. */
+    public static final String GAMMA_SEARCH = "gammaSearch";
+    /** Note code: the state space was brought to companion form. */
+    public static final String STATE_SPACE_TRANSFORM = "stateSpaceTransform";
+    /** Note code: an ill-conditioned controllability matrix (the order-2 code for the same warning). */
+    public static final String PLANT_CONDITIONING = DesignNotes.PLANT_CONDITIONING;
+    /** Note code: an overshoot below 0.1 % (the order-2 code and text). */
+    public static final String OVERSHOOT_LOOKS_LIKE_FRACTION = DesignNotes.OVERSHOOT_LOOKS_LIKE_FRACTION;
 
     /** Formats the design, its verification and the spec check the solver computed (HighOrderPipeline). */
-    public HighOrderDesignResponse toResponse(HighOrderPipeline.Result result) {
+    public HighOrderDesignResponse toResponse(ValidatedHighOrderDesign request, HighOrderPipeline.Result result) {
         boolean fromStateSpace = result.fromStateSpace();
         SpecMatch match = result.match();
         HighOrderDesign design = result.design();
         HighOrderVerification verification = result.verification();
         TargetDynamics dominant = design.poles().dominant();
         int n = design.plant().order();
-        List<List<Double>> rows = rows(design.solution().p());
         Double controllabilityCondition = result.controllabilityCondition();
         HighOrderDesignResponse.Coordinates coordinates = new HighOrderDesignResponse.Coordinates(
                 fromStateSpace ? "stateSpace" : "companion",
-                boxed(design.plant().denominator()),
-                boxed(design.plant().numerator()),
+                CoefficientOrder.monicHighestFirst(design.plant().denominator()),
+                CoefficientOrder.numeratorHighestFirst(design.plant().numerator()),
                 design.plant().b(),
                 boxed(design.plant().disturbance()),
-                rows(result.toPlant()),
+                Matrices.rows(result.toPlant()),
                 boxed(result.plantGain()),
                 controllabilityCondition);
-        List<HighOrderDesignResponse.Bound> bounds = design.gammaBounds().stream()
-                .map(HighOrderResponseMapper::bound)
-                .toList();
         HighOrderStep step = verification.step();
         boolean specsMet = result.specCheck().met();
         HighOrderDesignResponse.SpecMatching matching = match == null
@@ -62,92 +83,139 @@ public final class HighOrderResponseMapper {
                         match.overshootResidualPoints(),
                         match.startingTarget().dampingRatio(),
                         match.startingTarget().naturalFrequencyRadPerSec());
+        double overshootPercent = 100 * request.spec().overshootFraction();
         List<String> notes = new ArrayList<>();
-        notes.add("P, the gains and the weights are in the companion coordinates of the request: z_1 is the state"
-                + " the output row weights first, z_n the state u drives.");
+        List<String> codes = new ArrayList<>();
+        note(
+                notes,
+                codes,
+                COMPANION_COORDINATES,
+                "P, the gains and the weights are in the companion coordinates of the request: z_1 is the state"
+                        + " the output row weights first, z_n the state u drives.");
         if (!specsMet && match == null) {
-            notes.add("the zeros and auxiliary poles move the simulated step away from the second-order formulas;"
-                    + " send matchSpecs: true to adjust the dominant pair until the simulated loop meets the specs.");
+            note(
+                    notes,
+                    codes,
+                    SPECS_MISSED_TRY_MATCH_SPECS,
+                    "the zeros and auxiliary poles move the simulated step away from the second-order formulas;"
+                            + " send matchSpecs: true to adjust the dominant pair until the simulated loop meets the"
+                            + " specs.");
         }
-        design.notes().stream().limit(MAX_DESIGN_NOTES).forEach(notes::add);
+        design.notes().stream().limit(MAX_DESIGN_NOTES).forEach(text -> note(notes, codes, GAMMA_SEARCH, text));
         if (fromStateSpace) {
-            notes.add("the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
-                    + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain on x.");
+            note(
+                    notes,
+                    codes,
+                    STATE_SPACE_TRANSFORM,
+                    "the state space was brought to companion form by x = T z (coordinates.toPlant); the weights"
+                            + " rho_i weight the companion states z = T^-1 x, and coordinates.plantGain is the gain"
+                            + " on x.");
             if (controllabilityCondition > TwoStateModel.CONDITION_NOTE_THRESHOLD) {
-                notes.add(String.format(
-                        Locale.US,
-                        "The controllability matrix [B2, A B2, ...] has condition number"
-                                + " %.3g (above %.0e): coordinates.plantGain and toPlant may have lost up to %.0f of their"
-                                + " about 16 significant digits. Rescale the states or check the model.",
-                        controllabilityCondition,
-                        TwoStateModel.CONDITION_NOTE_THRESHOLD,
-                        Math.ceil(Math.log10(controllabilityCondition))));
+                note(
+                        notes,
+                        codes,
+                        PLANT_CONDITIONING,
+                        String.format(
+                                Locale.US,
+                                "The controllability matrix [B2, A B2, ...] has condition number"
+                                        + " %.3g (above %.0e): coordinates.plantGain and toPlant may have lost up to"
+                                        + " %.0f of their about 16 significant digits. Rescale the states or check"
+                                        + " the model.",
+                                controllabilityCondition,
+                                TwoStateModel.CONDITION_NOTE_THRESHOLD,
+                                Math.ceil(Math.log10(controllabilityCondition))));
             }
         }
+        DesignNotes.overshootFractionNote(overshootPercent, dominant.dampingRatio())
+                .ifPresent(text -> note(notes, codes, OVERSHOOT_LOOKS_LIKE_FRACTION, text));
+        double wn = dominant.naturalFrequencyRadPerSec();
         return new HighOrderDesignResponse(
                 n,
                 coordinates,
-                new HighOrderDesignResponse.Target(
+                new Target(
                         dominant.dampingRatio(),
-                        dominant.naturalFrequencyRadPerSec(),
+                        wn,
                         poles(dominant.poles()),
                         poles(design.poles().auxiliary()),
-                        boxed(design.poles().coefficients())),
+                        CoefficientOrder.monicHighestFirst(design.poles().coefficients()),
+                        null,
+                        null),
                 matching,
-                new HighOrderDesignResponse.Riccati(
-                        rows,
+                new Riccati(
+                        Matrices.rows(design.solution().p()),
                         design.solution().relativeResidual(),
+                        new NumericRiccati(
+                                Matrices.rows(verification.numeric().p()),
+                                verification.numeric().relativeResidual(),
+                                verification.relativeDifference(),
+                                verification.numeric().iterations()),
                         design.solution().reciprocalCondition(),
                         design.solution().newtonSteps(),
-                        design.bisectionSteps(),
-                        verification.relativeDifference(),
-                        verification.numeric().relativeResidual(),
-                        verification.numeric().iterations()),
-                bounds,
+                        design.bisectionSteps()),
+                design.gammaBounds().stream().map(GammaConditions::toWire).toList(),
                 design.feasibleSet().stream()
                         .map(HighOrderResponseMapper::interval)
                         .toList(),
                 design.gammaMin(),
                 design.gamma(),
                 boxed(design.weights()),
-                new HighOrderDesignResponse.Gain(boxed(design.gain()), design.referenceGain()),
-                new HighOrderDesignResponse.Simulated(
+                new Gain(boxed(design.gain()), design.referenceGain(), "u = kr*r - sum(k_i*z_i)"),
+                new Simulated(
                         step.metrics().riseTimeSeconds(),
                         step.metrics().settlingTimeSeconds(),
                         step.metrics().overshootPercent(),
                         step.undershootPercent(),
+                        step.metrics().peakTimeSeconds(),
+                        step.metrics().steadyStateError(),
                         step.metrics().peakControl(),
+                        request.stepSize(),
+                        100 * request.bandFraction(),
                         step.horizonSeconds(),
                         step.samples()),
-                new HighOrderDesignResponse.Verification(
+                new Verification(
                         verification.norm().value(),
                         verification.norm().peakFrequencyRadPerSec(),
                         HighOrderPipeline.NORM_RELATIVE_TOLERANCE,
                         verification.certified(),
-                        specsMet),
+                        null,
+                        specsMet,
+                        specChecks(request, step, overshootPercent)),
                 notes,
+                codes,
                 Cautions.ALL);
     }
 
-    private static List<List<Double>> rows(DMatrixRMaj m) {
-        List<List<Double>> rows = new ArrayList<>(m.numRows);
-        for (int i = 0; i < m.numRows; i++) {
-            List<Double> row = new ArrayList<>(m.numCols);
-            for (int j = 0; j < m.numCols; j++) {
-                row.add(m.get(i, j));
-            }
-            rows.add(row);
-        }
-        return rows;
+    /**
+     * The three specs against the simulated step, with the tolerances the pipeline's spec check uses
+     * (HighOrderPipeline.specCheck): settling within ts (1 + SETTLING_TOLERANCE), overshoot within the spec plus
+     * OVERSHOOT_TOLERANCE_POINTS, undershoot within its cap.
+     */
+    static List<SpecCheck> specChecks(ValidatedHighOrderDesign request, HighOrderStep step, double overshootPercent) {
+        double ts = ((TimeSpec.SettlingTime) request.spec().timeSpec()).seconds();
+        double settling = step.metrics().settlingTimeSeconds();
+        double overshoot = step.metrics().overshootPercent();
+        return List.of(
+                new SpecCheck(
+                        "overshootPercent",
+                        overshootPercent,
+                        overshoot,
+                        overshoot <= overshootPercent + HighOrderPipeline.OVERSHOOT_TOLERANCE_POINTS),
+                new SpecCheck(
+                        "settlingTime", ts, settling, settling <= ts * (1 + HighOrderPipeline.SETTLING_TOLERANCE)),
+                new SpecCheck(
+                        "maxUndershootPercent",
+                        request.maxUndershootPercent(),
+                        step.undershootPercent(),
+                        step.undershootPercent() <= request.maxUndershootPercent()));
     }
 
-    private static HighOrderDesignResponse.Bound bound(GammaBound b) {
-        return new HighOrderDesignResponse.Bound(
-                b.condition().name().toLowerCase(), b.stateIndex(), b.meaning(), b.gammaLowerBound(), b.binding());
+    private static void note(List<String> notes, List<String> codes, String code, String text) {
+        notes.add(text);
+        codes.add(code);
     }
 
-    private static HighOrderDesignResponse.GammaInterval interval(GammaInterval i) {
-        return new HighOrderDesignResponse.GammaInterval(
+    private static GammaInterval interval(com.loopwright.solver.design.GammaInterval i) {
+        return new GammaInterval(
                 i.lowerGamma(),
                 i.unbounded() ? null : i.upperGamma(),
                 i.unbounded(),
@@ -155,18 +223,18 @@ public final class HighOrderResponseMapper {
                 i.unbounded() ? null : end(i.upperBinding()));
     }
 
-    private static HighOrderDesignResponse.IntervalEnd end(GammaInterval.GammaEnd end) {
-        return new HighOrderDesignResponse.IntervalEnd(
-                end.condition().name().toLowerCase(), end.stateIndex(), end.meaning());
+    private static IntervalEnd end(com.loopwright.solver.design.GammaInterval.GammaEnd end) {
+        return new IntervalEnd(
+                GammaConditions.wireName(end.condition()),
+                GammaConditions.state(end.condition(), end.stateIndex()),
+                end.meaning());
     }
 
-    private static List<DesignResponse.PoleView> poles(List<TargetDynamics.Pole> poles) {
-        return poles.stream()
-                .map(p -> new DesignResponse.PoleView(p.re(), p.im()))
-                .toList();
+    private static List<Pole> poles(List<TargetDynamics.Pole> poles) {
+        return poles.stream().map(p -> new Pole(p.re(), p.im())).toList();
     }
 
     private static List<Double> boxed(double[] values) {
-        return Arrays.stream(values).boxed().toList();
+        return Matrices.boxed(values);
     }
 }

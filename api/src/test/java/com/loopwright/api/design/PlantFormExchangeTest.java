@@ -32,15 +32,15 @@ class PlantFormExchangeTest {
             "/plant/a1",
             "/plant/b",
             "/plant/d",
-            "/gain/k1",
-            "/gain/k2",
+            "/gain/k/0",
+            "/gain/k/1",
             "/gain/referenceGain",
-            "/riccati/p11",
-            "/riccati/p12",
-            "/riccati/p22",
+            "/riccati/p/0/0",
+            "/riccati/p/0/1",
+            "/riccati/p/1/1",
             "/gamma",
-            "/weights/rho1",
-            "/weights/rho2"
+            "/weights/0",
+            "/weights/1"
         }) {
             double e = expected.at(pointer).asDouble();
             assertEquals(e, actual.at(pointer).asDouble(), 1e-12 * Math.max(1, Math.abs(e)), pointer);
@@ -61,7 +61,7 @@ class PlantFormExchangeTest {
         assertEquals("A", viaForm.at("/model/units/u").asText());
         assertEquals(0, viaForm.at("/model/physicalLaw/setpointFeedforward").asDouble());
         assertEquals(
-                viaForm.at("/gain/k1").asDouble(),
+                viaForm.at("/gain/k/0").asDouble(),
                 viaForm.at("/model/physicalLaw/positionGain").asDouble());
         assertEquals("canonical", viaCanonical.at("/model/form").asText());
     }
@@ -115,7 +115,7 @@ class PlantFormExchangeTest {
         assertTrue(view.get("riccatiResidual").asDouble() < 1e-10, view.toString());
         assertEquals(2, view.get("closedLoopPoles").size());
         assertEquals(
-                viaForm.at("/target/poles/0/re").asDouble(),
+                viaForm.at("/target/dominantPoles/0/re").asDouble(),
                 view.at("/closedLoopPoles/0/re").asDouble(),
                 1e-8 * viaForm.at("/target/naturalFrequency").asDouble());
     }

@@ -83,7 +83,7 @@ class HighOrderStateSpaceConditionTest {
 
     @Test
     void companionRequestHasNoCondition() {
-        String body = "{\"plant\":{\"denominator\":[0,96,200.48],\"numerator\":[1,0.0666667,0],\"b\":80000,"
+        String body = "{\"plant\":{\"denominator\":[1,200.48,96,0],\"numerator\":[0.0666667,1],\"b\":80000,"
                 + "\"disturbance\":[0,400,0]},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":1.5},"
                 + "\"auxiliaryPoles\":{\"poles\":[{\"re\":-250,\"im\":0}]}}";
         Answer outcome = Answer.highOrder(body.getBytes(StandardCharsets.UTF_8));

@@ -16,8 +16,8 @@ class HighOrderUndershootExchangeTest {
      */
     @Test
     void undershootIsRefinedBetweenSamples() {
-        String body = "{\"plant\":{\"denominator\":[0.009078623638924007,0.09303427763201173,0.41839321133113727,"
-                + "1.192578756140489],\"b\":0.04340825295325368,\"numerator\":[1.0,-0.5782773668692388,0,0],"
+        String body = "{\"plant\":{\"denominator\":[1,1.192578756140489,0.41839321133113727,0.09303427763201173,"
+                + "0.009078623638924007],\"b\":0.04340825295325368,\"numerator\":[-0.5782773668692388,1.0],"
                 + "\"disturbance\":[0,0,0,0.022057260905507935]},\"spec\":{\"settlingTime\":12.039949496201748,"
                 + "\"overshootPercent\":0.24565128665507857,\"settlingBandPercent\":5}}";
         Answer outcome = Answer.highOrder(body.getBytes(StandardCharsets.UTF_8));

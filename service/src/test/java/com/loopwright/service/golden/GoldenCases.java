@@ -299,11 +299,8 @@ final class GoldenCases {
                 roots[0] = 0;
             }
             double[] denominator = fromRoots(roots);
-            double[] numerator = new double[order];
-            numerator[0] = 1;
-            if (i % 3 == 1) {
-                numerator[1] = pick(0.25, -0.1, 0.5);
-            }
+            // highest power first, right-aligned: c_1 s + c_0 or just c_0 = 1
+            double[] numerator = i % 3 == 1 ? new double[] {pick(0.25, -0.1, 0.5), 1} : new double[] {1};
             double[] disturbance = new double[order];
             if (i % 4 == 2) {
                 for (int k = 0; k < order; k++) {
@@ -331,20 +328,20 @@ final class GoldenCases {
                             + ",\"disturbance\":" + array(disturbance) + "},\"spec\":" + spec + extra + "}");
         }
         String[] special = {
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-8,\"im\":0}]}}",
-            "{\"plant\":{\"denominator\":[24,50,35,10],\"b\":2,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-6,\"im\":2},{\"re\":-6,\"im\":-2}]}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-8,\"im\":0}]}}",
+            "{\"plant\":{\"denominator\":[1,10,35,50,24],\"b\":2,\"disturbance\":[0,0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2},\"auxiliaryPoles\":{\"poles\":[{\"re\":-6,\"im\":2},{\"re\":-6,\"im\":-2}]}}",
             "{\"plant\":{\"stateSpace\":{\"a\":[[0,1,0],[0,0,1],[-6,-11,-6]],\"b2\":[0,0,1],\"b1\":[0,0,1]}},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
             "{\"plant\":{\"stateSpace\":{\"a\":[[-1,0,0],[1,-2,0],[0,1,-3]],\"b2\":[1,0,0],\"b1\":[1,0,0],\"output\":[0,0,1]}},\"spec\":{\"settlingTime\":4,\"overshootPercent\":1}}",
             "{\"plant\":{\"stateSpace\":{\"a\":[[-1,0,0],[0,-2,0],[0,0,-3]],\"b2\":[1,0,0],\"b1\":[1,0,0]}},\"spec\":{\"settlingTime\":4,\"overshootPercent\":1}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":20}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2,\"gamma\":0.001}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":0,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
-            "{\"plant\":{\"denominator\":[1,2,3,4,5,6,7,8,9],\"b\":1,\"disturbance\":[0,0,0,0,0,0,0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"riseTime\":1,\"overshootPercent\":2}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2},\"auxiliaryPoles\":{\"realPartMultiple\":4,\"poles\":[{\"re\":-8,\"im\":0}]}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"disturbance\":[0,0,1],\"stateSpace\":{\"a\":[[0]],\"b2\":[1],\"b1\":[1]}},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
-            "{\"plant\":{\"denominator\":[6,11,6],\"b\":1,\"numerator\":[0,1,0],\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":20}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2,\"gamma\":0.001}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":0,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"disturbance\":[0,0]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
+            "{\"plant\":{\"denominator\":[1,9,8,7,6,5,4,3,2,1],\"b\":1,\"disturbance\":[0,0,0,0,0,0,0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"riseTime\":1,\"overshootPercent\":2}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2},\"auxiliaryPoles\":{\"realPartMultiple\":4,\"poles\":[{\"re\":-8,\"im\":0}]}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"disturbance\":[0,0,1],\"stateSpace\":{\"a\":[[0]],\"b2\":[1],\"b1\":[1]}},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
+            "{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1,\"numerator\":[1,0],\"disturbance\":[0,0,1]},\"spec\":{\"settlingTime\":3,\"overshootPercent\":2}}",
         };
         for (int i = 0; i < special.length; i++) {
             post(String.format(Locale.ROOT, "high-order-special-%02d", i), "/v1/designs/high-order", special[i]);
@@ -362,9 +359,12 @@ final class GoldenCases {
             }
             poly = next;
         }
-        double[] lowestFirst = new double[roots.length];
-        System.arraycopy(poly, 0, lowestFirst, 0, roots.length);
-        return lowestFirst;
+        // highest power first with the leading 1, as the request takes it
+        double[] highestFirst = new double[poly.length];
+        for (int k = 0; k < poly.length; k++) {
+            highestFirst[k] = poly[poly.length - 1 - k];
+        }
+        return highestFirst;
     }
 
     private static String array(double[] values) {
@@ -606,7 +606,7 @@ final class GoldenCases {
         post(
                 "high-order-extreme-00",
                 "/v1/designs/high-order",
-                "{\"plant\":{\"denominator\":[1e8,1e8,1e8,1e8,1e8,1e8,1e8,1e8],"
+                "{\"plant\":{\"denominator\":[1,1e8,1e8,1e8,1e8,1e8,1e8,1e8,1e8],"
                         + "\"b\":1e-6,\"disturbance\":[1e8,0,0,0,0,0,0,1e8]},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
     }
 

@@ -40,6 +40,10 @@ public final class HighOrderPipeline {
     public static final double DC_GAIN_TOLERANCE = 1e-12;
     /** Relative tolerance of the verified H-infinity norm (the norm iteration's stopping rule). */
     public static final double NORM_RELATIVE_TOLERANCE = HInfinityNormCalculator.RELATIVE_TOLERANCE;
+    /** The spec check's settling tolerance: simulated settling within ts (1 + this). */
+    public static final double SETTLING_TOLERANCE = SpecMatcher.SETTLING_TOLERANCE;
+    /** The spec check's overshoot tolerance: simulated overshoot within the spec plus this [percentage points]. */
+    public static final double OVERSHOOT_TOLERANCE_POINTS = SpecMatcher.OVERSHOOT_TOLERANCE_POINTS;
 
     private final SpecMatcher matcher = new SpecMatcher();
     private final HighOrderDesigner designer = new HighOrderDesigner();
