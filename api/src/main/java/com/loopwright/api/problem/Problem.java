@@ -29,6 +29,9 @@ public record Problem(
 
     public static final String MEDIA_TYPE = "application/problem+json";
 
+    /** A problem names at most this many field errors (openapi.yaml: Problem.errors maxItems). */
+    public static final int MAX_ERRORS = 32;
+
     public Problem {
         errors = errors == null ? List.of() : List.copyOf(errors);
         proposals = proposals == null ? List.of() : List.copyOf(proposals);
