@@ -119,7 +119,7 @@ public final class LoopwrightApp {
             RequestBodyGate bodies = new RequestBodyGate(
                     config.maxRequestBytes(),
                     config.http(),
-                    new CoreProblems(mapper),
+                    new CoreProblems(mapper, config.serviceVersion()),
                     access::admitsBody,
                     gateObserver(metrics, paths));
             metrics.observeBodyBudget(bodies::availableBodyBytes);
@@ -139,7 +139,7 @@ public final class LoopwrightApp {
                 GracefulHandler graceful = new GracefulHandler();
                 graceful.setHandler(bodies);
                 server.setHandler(graceful);
-                server.setErrorHandler(new ProblemErrorHandler(mapper, fatal));
+                server.setErrorHandler(new ProblemErrorHandler(mapper, fatal, config.serviceVersion()));
                 server.setStopTimeout(config.shutdownGraceMillis());
                 jetty.set(server);
             });
