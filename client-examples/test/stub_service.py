@@ -17,10 +17,10 @@ MAX_LIFETIME_SECONDS = 120
 MAX_BODY_BYTES = 1 << 20
 RETRY_AFTER_SECONDS = 1
 
-OVERLOADED = {"type": "urn:loopwright:problem:service-overloaded", "title": "Service overloaded", "status": 503,
+OVERLOADED = {"type": "tag:loopwright.dev,2026:problem/service-overloaded", "title": "Service overloaded", "status": 503,
               "detail": "every design worker is busy; retry after the Retry-After delay",
               "instance": "/requests/stub-overloaded"}
-INFEASIBLE = {"type": "urn:loopwright:problem:infeasible-spec", "title": "Infeasible spec", "status": 422,
+INFEASIBLE = {"type": "tag:loopwright.dev,2026:problem/infeasible-spec", "title": "Infeasible spec", "status": 422,
               "detail": "with damping ratio 0.3579 below 1/sqrt(2) (overshoot above about 4.3%) no natural "
                         "frequency can fix it",
               "instance": "/requests/stub-infeasible",

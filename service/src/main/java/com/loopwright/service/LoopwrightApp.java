@@ -161,7 +161,7 @@ public final class LoopwrightApp {
             RequestBodyGate bodies = new RequestBodyGate(
                     config.maxRequestBytes(),
                     config.http(),
-                    new CoreProblems(mapper),
+                    new CoreProblems(mapper, config.serviceVersion()),
                     access::admitsBody,
                     gateObserver(metrics, paths));
             metrics.observeBodyBudget(bodies::availableBodyBytes);
@@ -181,7 +181,7 @@ public final class LoopwrightApp {
                 GracefulHandler graceful = new GracefulHandler();
                 graceful.setHandler(bodies);
                 server.setHandler(graceful);
-                server.setErrorHandler(new ProblemErrorHandler(mapper, fatal));
+                server.setErrorHandler(new ProblemErrorHandler(mapper, fatal, config.serviceVersion()));
                 server.setStopTimeout(config.shutdownGraceMillis());
                 jetty.set(server);
             });
@@ -248,10 +248,11 @@ public final class LoopwrightApp {
                 LOG.error("unhandled failure on {} {}", ctx.method(), ctx.path(), e);
                 problems.write(ctx, ProblemType.INTERNAL_ERROR.problem(null));
             });
-            javalin.routes.error(
-                    404,
-                    ctx -> problems.write(
-                            ctx, ProblemType.NOT_FOUND.problem("no resource at this path; see GET /openapi.yaml")));
+            javalin.routes.error(404, ctx -> {
+                if (!ProblemResponses.written(ctx)) {
+                    problems.write(ctx, notFound());
+                }
+            });
             javalin.routes.error(405, ctx -> methodNotAllowed(ctx, table.methodsOn(paths.label(ctx.path())), problems));
             javalin.requestLogger.http((ctx, millis) -> finish(ctx, metrics, table, paths, keys));
         });
@@ -350,9 +351,14 @@ public final class LoopwrightApp {
                 : request.getServletContextResponse().getHttpOutput().getWritten();
     }
 
+    /** The 404 of a path no route serves. */
+    private static com.loopwright.api.problem.Problem notFound() {
+        return ProblemType.NOT_FOUND.problem("no resource at this path; see GET /openapi.yaml");
+    }
+
     private static com.loopwright.api.problem.Problem statusProblem(int status) {
         return switch (status) {
-            case 404 -> ProblemType.NOT_FOUND.problem(null);
+            case 404 -> notFound();
             case 405 -> ProblemType.METHOD_NOT_ALLOWED.problem(null);
             case 413 -> ProblemType.PAYLOAD_TOO_LARGE.problem("the body exceeds the request size cap");
             case 415 -> ProblemType.UNSUPPORTED_MEDIA_TYPE.problem(null);

@@ -81,7 +81,7 @@ class ComputeBudgetTest {
                     reply.status(),
                     reply.text().substring(0, Math.min(400, reply.text().length())));
             assertEquals(
-                    "urn:loopwright:problem:cap-exceeded",
+                    "tag:loopwright.dev,2026:problem/cap-exceeded",
                     reply.json().get("type").asText());
             assertEquals("/items", reply.json().at("/errors/0/pointer").asText());
             // Monte Carlo dominates: 2000 samples x 1000 items of about 4.3 million units.

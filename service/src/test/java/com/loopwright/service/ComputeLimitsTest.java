@@ -82,7 +82,7 @@ class ComputeLimitsTest {
             long millis = (System.nanoTime() - started) / 1_000_000;
             assertEquals(504, reply.status(), reply.text());
             assertEquals(
-                    "urn:loopwright:problem:deadline-exceeded",
+                    "tag:loopwright.dev,2026:problem/deadline-exceeded",
                     reply.json().get("type").asText());
             assertTrue(reply.json().get("detail").asText().contains("200 ms"), reply.text());
             assertTrue(millis >= 200 && millis < 5000, "answered at the deadline, not at the gate: " + millis);
@@ -115,7 +115,7 @@ class ComputeLimitsTest {
             var refused = server.post("/v1/designs", DesignClient.INDEXING_AXIS);
             assertEquals(503, refused.status(), refused.text());
             assertEquals(
-                    "urn:loopwright:problem:service-overloaded",
+                    "tag:loopwright.dev,2026:problem/service-overloaded",
                     refused.json().get("type").asText());
             assertEquals("1", refused.header("Retry-After"));
             var refusedBatch = server.post("/v1/designs/batch", "{\"items\":[" + DesignClient.INDEXING_AXIS + "]}");

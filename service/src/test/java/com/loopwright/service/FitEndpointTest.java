@@ -149,7 +149,8 @@ class FitEndpointTest extends LiveServerTest {
                 JSON.writeValueAsString(stepTest(0, 5, 0.3, 0, 1, 0.2, 4, 100, 0, 31, Double.POSITIVE_INFINITY)));
         assertEquals(422, flat.status(), flat.text());
         assertEquals(
-                "urn:loopwright:problem:fit-failed", flat.json().get("type").asText());
+                "tag:loopwright.dev,2026:problem/fit-failed",
+                flat.json().get("type").asText());
         assertEquals("/samples/output", flat.json().at("/errors/0/pointer").asText());
     }
 

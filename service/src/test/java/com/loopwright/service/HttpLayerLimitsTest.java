@@ -69,6 +69,11 @@ class HttpLayerLimitsTest {
         JsonNode problem = reply.json();
         assertEquals(status, problem.get("status").asInt(), reply.body());
         assertEquals(type.uri(), problem.get("type").asText(), reply.body());
+        // The HTTP layer states the build that answered, as the application does.
+        assertEquals(
+                com.loopwright.api.endpoint.ServiceVersion.fromBuild(),
+                reply.header(com.loopwright.api.endpoint.Trace.VERSION_HEADER),
+                reply.toString());
         // The HTTP layer names the occurrence too: the request id it answers in X-Request-Id.
         assertEquals(
                 "/requests/" + reply.header("X-Request-Id"),

@@ -49,7 +49,7 @@ class OperationsTest {
             var missing = server.post("/v1/designs", DesignClient.INDEXING_AXIS);
             assertEquals(401, missing.status());
             assertEquals(
-                    "urn:loopwright:problem:unauthorized",
+                    "tag:loopwright.dev,2026:problem/unauthorized",
                     missing.json().get("type").asText());
             assertTrue(missing.header("WWW-Authenticate").startsWith("Bearer"));
             var wrong = server.send(

@@ -129,6 +129,46 @@ class ParserTextTest extends LiveServerTest {
         assertEquals(HOSTS.size() * NESTED.size(), answers);
     }
 
+    /**
+     * An unknown member at the start of the request beside each hostile nested value: the decoder goes on past the
+     * unknown member (every field error in one answer), and on that path too no parser text reaches a client. A
+     * value of the wrong type is named together with the unknown member; a syntax error ends the reading, so only
+     * what was reported before it is named with it (a record's unknown members are reported when its object is
+     * complete).
+     */
+    @Test
+    void anUnknownMemberBesideEachHostileValueIsNamedWithItAndNoParserTextLeaks() {
+        int collected = 0;
+        for (Host host : HOSTS) {
+            boolean batch = host.path().endsWith("/batch");
+            // A batch item's problem points into the item.
+            String hostilePointer = batch ? host.pointer().substring("/items/0".length()) : host.pointer();
+            for (String nested : NESTED) {
+                String hostile = host.body(nested.replace("F", host.field()));
+                String body = batch
+                        ? hostile.replaceFirst("\\[\\{", "[{\"zzUnknown\":1,")
+                        : "{\"zzUnknown\":1," + hostile.substring(1);
+                JsonNode problem = assertWordedByUs(host, body);
+                if (batch && !problem.path("instance").asText().contains("#/items/")) {
+                    continue; // a syntax error of the envelope itself: answered before any item is decoded
+                }
+                List<String> pointers = new ArrayList<>();
+                problem.path("errors")
+                        .forEach(error -> pointers.add(error.path("pointer").asText()));
+                if (pointers.contains("/zzUnknown")) {
+                    assertTrue(
+                            // the hostile value's own error (or, for content after the document, the root's)
+                            pointers.stream()
+                                    .anyMatch(pointer -> pointer.isEmpty() || pointer.startsWith(hostilePointer)),
+                            body + " -> " + problem);
+                    collected++;
+                }
+            }
+        }
+        // At least the wrong types (a string, true, an object) and the too-large whole number, on every host.
+        assertTrue(collected >= 4 * HOSTS.size(), "collected " + collected);
+    }
+
     @Test
     void nestedDuplicateNanAndTrailingCommaAreNamedAtTheirOwnPointer() {
         // The fit's nested values are arrays of samples: its leaks are checked above, its pointers by FitEndpointTest.

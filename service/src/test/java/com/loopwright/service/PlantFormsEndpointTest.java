@@ -67,7 +67,7 @@ class PlantFormsEndpointTest extends LiveServerTest {
                  "spec":{"settlingTime":0.4,"overshootPercent":1}}""");
         assertEquals(422, negativeMass.status());
         assertEquals(
-                "urn:loopwright:problem:plant-model-unusable",
+                "tag:loopwright.dev,2026:problem/plant-model-unusable",
                 negativeMass.json().get("type").asText());
         assertEquals("/plant/mass", negativeMass.json().at("/errors/0/pointer").asText());
         var uncontrollable = server.post("/v1/designs", """

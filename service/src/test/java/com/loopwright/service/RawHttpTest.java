@@ -52,6 +52,12 @@ class RawHttpTest extends LiveServerTest {
         // 505 (an HTTP version Jetty does not speak) is the protocol's own answer, not a service failure.
         assertTrue(status >= 400 && status < 500 || status == 505, parts[0]);
         assertTrue(parts[0].toLowerCase().contains("content-type: application/problem+json"), parts[0]);
+        assertTrue(
+                parts[0].toLowerCase()
+                        .contains("loopwright-version: "
+                                + com.loopwright.api.endpoint.ServiceVersion.fromBuild()
+                                        .toLowerCase()),
+                parts[0]);
         JsonNode problem = new ObjectMapper().readTree(parts[1].trim());
         assertEquals(status, problem.get("status").asInt());
         String violations = contract.violations("/v1/designs", "post", 400, "application/problem+json", problem);

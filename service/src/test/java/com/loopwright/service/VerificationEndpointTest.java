@@ -166,7 +166,7 @@ class VerificationEndpointTest extends LiveServerTest {
         assertEquals(pointer, reply.json().at("/errors/0/pointer").asText(), reply.text());
         if (status == 422 && !name.startsWith("unstable")) {
             assertEquals(
-                    "urn:loopwright:problem:cap-exceeded",
+                    "tag:loopwright.dev,2026:problem/cap-exceeded",
                     reply.json().get("type").asText());
             assertTrue(reply.json().get("detail").asText().matches(".*\\d.*"), "the cap is stated");
         }

@@ -81,6 +81,11 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     }
 
     @Override
+    public List<FieldError> deferredErrors(Validated validated) {
+        return validated.verifyErrors();
+    }
+
+    @Override
     public Result compute(Validated validated) {
         ValidatedDesign design = validated.design();
         DesignReport report = designs.design(

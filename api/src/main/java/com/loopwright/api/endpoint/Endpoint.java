@@ -1,6 +1,8 @@
 package com.loopwright.api.endpoint;
 
+import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
+import java.util.List;
 
 /**
  * One endpoint's steps between the decoded request and the response body; {@link EndpointRunner} runs them.
@@ -20,6 +22,15 @@ public interface Endpoint<Q, V, R> {
 
     /** Checks the request: the validated form, or an InvalidRequestException with every field error. */
     V validate(Q request);
+
+    /**
+     * Field errors that validation found but the endpoint reports only after computing (the verify object's, once
+     * the spec is known to be feasible); a request that did not decode is never computed, and its answer names
+     * them at once with the decoding errors. None by default.
+     */
+    default List<FieldError> deferredErrors(V validated) {
+        return List.of();
+    }
 
     /** Runs the solver through its front door (solver.pipeline). */
     R compute(V validated);

@@ -3,18 +3,23 @@ package com.loopwright.api.endpoint;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.json.CollectingDecoder;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.json.FiniteNumbersModule;
 import com.loopwright.api.json.NonFiniteNumberException;
+import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.PlantParameterException;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
 
 /**
  * Runs an {@link Endpoint} from request bytes (or one parsed batch item) to a {@link Reply}, without HTTP:
- * decode strictly, validate, compute, respond, and write JSON through {@link FiniteNumbersModule}, the one
+ * decode strictly (a body that does not decode is answered with every field error at once: the decoding errors
+ * {@link CollectingDecoder} collects and the validation errors of the rest), validate, compute, respond, and write JSON through {@link FiniteNumbersModule}, the one
  * never-NaN guard, whose serializers refuse NaN and Infinity with the value's pointer. Every request or solver
  * failure becomes a problem through {@link FailureTable}; anything else (a defect, a cancellation) passes on.
  * Stateless and thread-safe.
@@ -24,6 +29,7 @@ public final class EndpointRunner {
     private final ObjectMapper reader;
     private final ObjectMapper writer;
     private final RequestDigest digests;
+    private final CollectingDecoder decoder;
     private final String serviceVersion;
 
     /** With the version this build was stamped with ({@link ServiceVersion#fromBuild}). */
@@ -39,6 +45,7 @@ public final class EndpointRunner {
         this.reader = strict;
         this.writer = FiniteNumbersModule.responseWriter(strict);
         this.digests = new RequestDigest(strict);
+        this.decoder = new CollectingDecoder(strict);
         this.serviceVersion = java.util.Objects.requireNonNull(serviceVersion, "serviceVersion");
     }
 
@@ -53,7 +60,7 @@ public final class EndpointRunner {
         try {
             request = reader.readValue(body, endpoint.requestType());
         } catch (JsonProcessingException e) {
-            return Reply.failure(DecodeFailures.toProblem(e));
+            return undecoded(endpoint, decoder.afterFailure(body, endpoint.requestType(), e));
         } catch (IOException e) {
             return Reply.failure(DecodeFailures.unreadable());
         }
@@ -66,9 +73,35 @@ public final class EndpointRunner {
         try {
             request = reader.treeToValue(item, endpoint.requestType());
         } catch (JsonProcessingException e) {
-            return Reply.failure(DecodeFailures.toProblem(e));
+            return undecoded(endpoint, decoder.afterFailure(item, endpoint.requestType(), e));
         }
         return run(endpoint, request);
+    }
+
+    /**
+     * A body that did not decode strictly: one 400 malformed-request problem with every decoding error and, when
+     * the rest decoded, every validation error of the rest (a 422 field error included: a body that is not the
+     * JSON the endpoint takes is malformed first, so 400 wins). Nothing is computed.
+     */
+    private <Q, V, R> Reply undecoded(Endpoint<Q, V, R> endpoint, CollectingDecoder.Outcome<Q> decoded) {
+        List<FieldError> errors = new ArrayList<>(decoded.errors());
+        if (decoded.request() != null) {
+            for (FieldError error : validationErrors(endpoint, decoded.request())) {
+                if (!decoded.repeats(error)) {
+                    errors.add(error);
+                }
+            }
+        }
+        return Reply.failure(DecodeFailures.malformed(errors));
+    }
+
+    /** Every field error validation finds in a decoded request, the deferred ones included. */
+    private static <Q, V, R> List<FieldError> validationErrors(Endpoint<Q, V, R> endpoint, Q request) {
+        try {
+            return endpoint.deferredErrors(endpoint.validate(request));
+        } catch (InvalidRequestException | PlantParameterException | SolverFailure e) {
+            return FailureTable.toProblem(e, endpoint.failureContext(null)).errors();
+        }
     }
 
     /**

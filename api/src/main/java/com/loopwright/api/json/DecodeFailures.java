@@ -60,6 +60,45 @@ public final class DecodeFailures {
         return ProblemType.MALFORMED_REQUEST.problem(detail, List.of(new FieldError("", detail)), List.of());
     }
 
+    /**
+     * Whether the failure is at one field (an unknown member, a value of the wrong type or out of a whole-number
+     * field's range) rather than in the JSON syntax or at the root: decoding can go on without that member
+     * ({@link CollectingDecoder}).
+     */
+    static boolean isFieldFailure(JsonProcessingException failure) {
+        if (causeOfType(failure, StreamConstraintsException.class) != null) {
+            return false;
+        }
+        StreamReadException parse = causeOfType(failure, StreamReadException.class);
+        if (parse != null) {
+            return parse instanceof InputCoercionException
+                    && parse.getProcessor() != null
+                    && !pointerOf(parse.getProcessor().getParsingContext()).isEmpty();
+        }
+        return failure instanceof JsonMappingException mapping
+                && !mapping.getPath().isEmpty();
+    }
+
+    /**
+     * The 400 problem of a body that is not the JSON this endpoint takes, naming every error found (decoding errors
+     * first, then the validation errors of what decoded); one error is worded as {@link #toProblem} words it.
+     */
+    public static Problem malformed(List<FieldError> errors) {
+        if (errors.isEmpty()) {
+            throw new IllegalArgumentException("a malformed request names at least one error");
+        }
+        List<FieldError> capped = errors.size() <= Problem.MAX_ERRORS ? errors : errors.subList(0, Problem.MAX_ERRORS);
+        String detail;
+        if (errors.size() == 1) {
+            FieldError only = errors.get(0);
+            detail = only.pointer().isEmpty() ? only.detail() : "field " + only.pointer() + ": " + only.detail();
+        } else {
+            detail = errors.size() + " fields are invalid; see errors"
+                    + (errors.size() > Problem.MAX_ERRORS ? " (the first " + Problem.MAX_ERRORS + ")" : "");
+        }
+        return ProblemType.MALFORMED_REQUEST.problem(detail, capped, List.of());
+    }
+
     private static Problem fieldProblem(String pointer, String detail) {
         if (pointer.isEmpty()) {
             String whole = "not valid JSON: " + detail;

@@ -4,8 +4,8 @@ import com.fasterxml.jackson.annotation.JsonInclude;
 import java.util.List;
 
 /**
- * RFC 9457 problem details, with two extension members: the offending fields and, for infeasible specs,
- * computed proposals.
+ * RFC 9457 problem details, with three extension members: the offending fields, for infeasible specs computed
+ * proposals, and for an unknown name in a path (a figure, a controller format) the names that path takes.
  *
  * <p>{@code instance} identifies the occurrence (RFC 9457 section 3.1.5: a URI reference identifying the specific
  * occurrence of the problem), not the resource: the service sets it to {@code /requests/<request-id>}, the id also
@@ -25,17 +25,39 @@ public record Problem(
         String detail,
         String instance,
         List<FieldError> errors,
-        List<Proposal> proposals) {
+        List<Proposal> proposals,
+        List<String> validNames) {
 
     public static final String MEDIA_TYPE = "application/problem+json";
+
+    /** A problem names at most this many field errors (openapi.yaml: Problem.errors maxItems). */
+    public static final int MAX_ERRORS = 32;
 
     public Problem {
         errors = errors == null ? List.of() : List.copyOf(errors);
         proposals = proposals == null ? List.of() : List.copyOf(proposals);
+        validNames = validNames == null ? List.of() : List.copyOf(validNames);
+    }
+
+    /** A problem without valid names (every problem but an unknown name in a path). */
+    public Problem(
+            String type,
+            String title,
+            int status,
+            String detail,
+            String instance,
+            List<FieldError> errors,
+            List<Proposal> proposals) {
+        this(type, title, status, detail, instance, errors, proposals, List.of());
     }
 
     /** The same problem, naming the occurrence {@code instance} (a URI reference, see the class comment). */
     public Problem withInstance(String instance) {
-        return new Problem(type, title, status, detail, instance, errors, proposals);
+        return new Problem(type, title, status, detail, instance, errors, proposals, validNames);
+    }
+
+    /** The same problem, listing the names a path segment takes (a 404 for an unknown figure or format). */
+    public Problem withValidNames(List<String> names) {
+        return new Problem(type, title, status, detail, instance, errors, proposals, names);
     }
 }

@@ -2,7 +2,13 @@ package com.loopwright.api.problem;
 
 import java.util.List;
 
-/** The problem types this service emits; {@code type} URIs are stable identifiers documented in openapi.yaml. */
+/**
+ * The problem types this service emits; {@code type} URIs are stable identifiers documented in openapi.yaml.
+ *
+ * <p>Each type is a tag URI (RFC 4151), {@code tag:loopwright.dev,2026:problem/<name>}: a globally unique
+ * identifier minted under a domain name and a date, needing no registration (unlike a URN namespace) and never
+ * dereferenced (RFC 9457 section 3.1.1 allows a non-resolvable URI; nothing is served at it).
+ */
 public enum ProblemType {
     MALFORMED_REQUEST(400, "Malformed request", "The body is not the JSON this endpoint takes."),
     INVALID_FIELD(400, "Invalid field", "A field is missing, of the wrong type or out of its documented range."),
@@ -50,9 +56,12 @@ public enum ProblemType {
         return status;
     }
 
-    /** Stable identifier, e.g. "urn:loopwright:problem:infeasible-spec". */
+    /** The tagging entity and date of every type URI (RFC 4151 section 2.1: authorityName "," date). */
+    public static final String URI_PREFIX = "tag:loopwright.dev,2026:problem/";
+
+    /** Stable identifier, e.g. "tag:loopwright.dev,2026:problem/infeasible-spec". */
     public String uri() {
-        return "urn:loopwright:problem:" + name().toLowerCase().replace('_', '-');
+        return URI_PREFIX + name().toLowerCase(java.util.Locale.ROOT).replace('_', '-');
     }
 
     public Problem problem(String detail) {

@@ -98,6 +98,11 @@ final class PlotEndpoint implements Endpoint<PlotRequest, PlotEndpoint.Validated
     }
 
     @Override
+    public List<FieldError> deferredErrors(Validated validated) {
+        return validated.bandErrors();
+    }
+
+    @Override
     public Result compute(Validated validated) {
         ValidatedDesign design = validated.design();
         DesignReport report = designs.design(

@@ -25,6 +25,10 @@ public final class Takeaways {
     /** Controller formats: the path segment of POST /v1/designs/controllers/{format}. */
     public static final List<String> FORMATS = List.of("structured-text", "c", "parameters");
 
+    /** Figures: the path segment of POST /v1/designs/plots/{figure}, in declaration order. */
+    public static final List<String> FIGURES =
+            Arrays.stream(Figure.values()).map(Figure::slug).toList();
+
     private final EndpointRunner runner;
     private final Map<String, PlotEndpoint> plots;
     private final Map<String, ControllerEndpoint> controllers;
@@ -41,8 +45,7 @@ public final class Takeaways {
     public Reply plot(String figureSlug, byte[] body) {
         PlotEndpoint endpoint = plots.get(figureSlug);
         if (endpoint == null) {
-            return Reply.failure(ProblemType.NOT_FOUND.problem("no figure '" + figureSlug + "'; figures are"
-                    + " step-response, control-effort, bode and uncertainty-band"));
+            return unknownName("figure", figureSlug, FIGURES);
         }
         return runner.run(endpoint, body);
     }
@@ -51,9 +54,15 @@ public final class Takeaways {
     public Reply controller(String format, byte[] body) {
         ControllerEndpoint endpoint = controllers.get(format);
         if (endpoint == null) {
-            return Reply.failure(ProblemType.NOT_FOUND.problem(
-                    "no controller format '" + format + "'; formats are " + String.join(", ", FORMATS)));
+            return unknownName("controller format", format, FORMATS);
         }
         return runner.run(endpoint, body);
+    }
+
+    /** 404 for a path segment that names nothing: the detail and {@code validNames} list the names it takes. */
+    private static Reply unknownName(String kind, String name, List<String> names) {
+        return Reply.failure(ProblemType.NOT_FOUND
+                .problem("no " + kind + " '" + name + "'; valid names: " + String.join(", ", names))
+                .withValidNames(names));
     }
 }

@@ -43,7 +43,7 @@ class PlantConversionRangeTest {
         Answer outcome = Answer.design(("{\"plant\":" + plant + "," + SPEC + "}").getBytes(StandardCharsets.UTF_8));
         assertEquals(422, outcome.status(), () -> outcome.body().toString());
         assertEquals(
-                "urn:loopwright:problem:plant-model-unusable",
+                "tag:loopwright.dev,2026:problem/plant-model-unusable",
                 outcome.body().get("type").asText());
         assertEquals(
                 pointer,

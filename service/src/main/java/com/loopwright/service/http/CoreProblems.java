@@ -2,6 +2,7 @@ package com.loopwright.service.http;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.observe.RequestIds;
@@ -17,9 +18,17 @@ import org.eclipse.jetty.util.Callback;
 public final class CoreProblems {
 
     private final ObjectMapper mapper;
+    private final String serviceVersion;
 
-    public CoreProblems(ObjectMapper mapper) {
+    /** @param serviceVersion stated in {@value Trace#VERSION_HEADER} on every answer, as the application states it */
+    public CoreProblems(ObjectMapper mapper, String serviceVersion) {
         this.mapper = mapper;
+        this.serviceVersion = java.util.Objects.requireNonNull(serviceVersion, "serviceVersion");
+    }
+
+    /** The version every answer states. */
+    public String serviceVersion() {
+        return serviceVersion;
     }
 
     /** The problem as bytes; a Problem is plain strings and numbers, the fallback only guards against the impossible. */
@@ -34,7 +43,7 @@ public final class CoreProblems {
     }
 
     /**
-     * Status, problem+json headers (plus {@code headers}) and the body, completing {@code callback}; the problem's
+     * Status, problem+json headers, the request id and the service version (plus {@code headers}) and the body, completing {@code callback}; the problem's
      * {@code instance} names this request by its id (answered in {@code X-Request-Id} too).
      */
     public void write(
@@ -46,6 +55,7 @@ public final class CoreProblems {
         problem = problem.withInstance(RequestIds.instance(requestId));
         response.setStatus(problem.status());
         response.getHeaders().put(RequestIds.HEADER, requestId);
+        response.getHeaders().put(Trace.VERSION_HEADER, serviceVersion);
         response.getHeaders().put(HttpHeader.CONTENT_TYPE, Problem.MEDIA_TYPE);
         response.getHeaders().put(HttpHeader.CACHE_CONTROL, "no-store");
         response.getHeaders().put("X-Content-Type-Options", "nosniff");

@@ -1,6 +1,7 @@
 package com.loopwright.service.http;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.FatalErrors;
@@ -26,8 +27,9 @@ public final class ProblemErrorHandler extends ErrorHandler {
     private final CoreProblems problems;
     private final FatalErrors fatal;
 
-    public ProblemErrorHandler(ObjectMapper mapper, FatalErrors fatal) {
-        this.problems = new CoreProblems(mapper);
+    /** @param serviceVersion stated in the version header of every answer, as the application states it */
+    public ProblemErrorHandler(ObjectMapper mapper, FatalErrors fatal, String serviceVersion) {
+        this.problems = new CoreProblems(mapper, serviceVersion);
         this.fatal = fatal;
         setShowStacks(false);
     }
@@ -81,6 +83,7 @@ public final class ProblemErrorHandler extends ErrorHandler {
         String requestId = RequestIds.accept(null);
         fields.put(new HttpField(HttpHeader.CONTENT_TYPE, Problem.MEDIA_TYPE));
         fields.put(new HttpField(RequestIds.HEADER, requestId));
+        fields.put(new HttpField(Trace.VERSION_HEADER, problems.serviceVersion()));
         return ByteBuffer.wrap(problems.bytes(problemFor(status).withInstance(RequestIds.instance(requestId))));
     }
 }

@@ -10,6 +10,9 @@ import java.nio.charset.StandardCharsets;
 /** Writes RFC 9457 problems as application/problem+json. */
 public final class ProblemResponses {
 
+    /** The context attribute set once a problem has been written. */
+    private static final String WRITTEN = "loopwright.problemWritten";
+
     private final ObjectMapper mapper;
 
     public ProblemResponses(ObjectMapper mapper) {
@@ -41,6 +44,15 @@ public final class ProblemResponses {
                             + located.status() + ",\"detail\":\"unavailable\"}")
                     .getBytes(StandardCharsets.UTF_8);
         }
+        ctx.attribute(WRITTEN, Boolean.TRUE);
         ctx.status(located.status()).contentType(Problem.MEDIA_TYPE).result(body);
+    }
+
+    /**
+     * Whether a handler already answered this request with a problem: a status error handler (404) then keeps that
+     * answer (e.g. the names an unknown figure could have been) instead of writing its generic one.
+     */
+    public static boolean written(Context ctx) {
+        return Boolean.TRUE.equals(ctx.attribute(WRITTEN));
     }
 }
