@@ -12,6 +12,7 @@ COPY api/pom.xml api/
 COPY service/pom.xml service/
 COPY client-examples/pom.xml client-examples/
 COPY bench/pom.xml bench/
+COPY generated-client/pom.xml generated-client/
 RUN mvn -B -q -pl service -am package -Dmaven.test.skip=true
 # Source layer: offline, only the service and the modules below it.
 COPY openapi.yaml ./

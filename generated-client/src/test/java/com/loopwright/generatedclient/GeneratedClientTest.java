@@ -64,7 +64,7 @@ class GeneratedClientTest {
             return new SpecInput().settlingTime(num(SETTLING_TIME_SECONDS)).overshootPercent(num(overshootPercent));
         }
 
-        static final String INVALID_FIELD = "urn:loopwright:problem:invalid-field";
+        static final String INVALID_FIELD = "tag:loopwright.dev,2026:problem/invalid-field";
         static final String OVERSHOOT_POINTER = "/spec/overshootPercent";
         static final String BATCH_MEDIA_TYPE = "application/x-ndjson";
         static final String BATCH_PATH = "/v1/designs/batch";
@@ -123,8 +123,8 @@ class GeneratedClientTest {
         PlantInput plant = Wire.indexingAxis();
         double k1 = (wn * wn - value(plant.getA0())) / value(plant.getB());
         double k2 = (2 * zeta * wn - value(plant.getA1())) / value(plant.getB());
-        assertEquals(k1, value(design.getGain().getK1()), Math.abs(k1) * 1e-6, "k1");
-        assertEquals(k2, value(design.getGain().getK2()), Math.abs(k2) * 1e-6, "k2");
+        assertEquals(k1, value(design.getGain().getK().get(0)), Math.abs(k1) * 1e-6, "k1");
+        assertEquals(k2, value(design.getGain().getK().get(1)), Math.abs(k2) * 1e-6, "k2");
         // kr = wn^2 / b: unit DC gain from r to x1 (final-value theorem on the closed loop).
         double referenceGain = wn * wn / value(plant.getB());
         assertEquals(referenceGain, value(design.getGain().getReferenceGain()), referenceGain * 1e-9, "kr");
@@ -137,8 +137,8 @@ class GeneratedClientTest {
         assertEquals(Wire.OVERSHOOT_PERCENT, value(design.getSimulated().getOvershootPercent()), 0.01);
         assertTrue(design.getVerification().getCertified(), "certified");
         assertTrue(
-                design.getVerification().getHinfNorm().compareTo(design.getGamma()) <= 0,
-                design.getVerification().getHinfNorm() + " <= " + design.getGamma());
+                design.getVerification().getPeakDisturbanceGain().compareTo(design.getGamma()) <= 0,
+                design.getVerification().getPeakDisturbanceGain() + " <= " + design.getGamma());
     }
 
     /**
@@ -185,8 +185,12 @@ class GeneratedClientTest {
         assertNull(designed.getProblem());
         // An item is computed exactly as POST /v1/designs computes it: same gains to the last bit.
         DesignResponse single = new DesignsApi(client).createDesign(indexingAxisDesign());
-        assertEquals(single.getGain().getK1(), designed.getDesign().getGain().getK1());
-        assertEquals(single.getGain().getK2(), designed.getDesign().getGain().getK2());
+        assertEquals(
+                single.getGain().getK().get(0),
+                designed.getDesign().getGain().getK().get(0));
+        assertEquals(
+                single.getGain().getK().get(1),
+                designed.getDesign().getGain().getK().get(1));
         assertTrue(designed.getDesign().getVerification().getCertified());
 
         BatchLine refused = lines.get(1);
@@ -243,16 +247,16 @@ class GeneratedClientTest {
         double commandLimit = 3.0;
         ControllerRequest request = new ControllerRequest()
                 .design(indexingAxisDesign())
-                .samplePeriodSeconds(num(samplePeriodSeconds))
-                .commandLimit(num(commandLimit));
+                .samplePeriod(num(samplePeriodSeconds))
+                .actuatorLimit(num(commandLimit));
         ControllersApi controllers = new ControllersApi(client);
 
         ControllerParameters parameters = controllers.exportControllerParameters(request);
-        assertEquals(value(design.getGain().getK1()), value(parameters.getPositionGain()), 0.0);
-        assertEquals(value(design.getGain().getK2()), value(parameters.getVelocityGain()), 0.0);
+        assertEquals(value(design.getGain().getK().get(0)), value(parameters.getPositionGain()), 0.0);
+        assertEquals(value(design.getGain().getK().get(1)), value(parameters.getVelocityGain()), 0.0);
         assertEquals(value(design.getGain().getReferenceGain()), value(parameters.getReferenceGain()), 0.0);
-        assertEquals(samplePeriodSeconds, value(parameters.getSamplePeriodSeconds()), 0.0);
-        assertEquals(commandLimit, value(parameters.getCommandLimit()), 0.0);
+        assertEquals(samplePeriodSeconds, value(parameters.getSamplePeriod()), 0.0);
+        assertEquals(commandLimit, value(parameters.getActuatorLimit()), 0.0);
         // Emulation of a loop with wn T well below 0.5: the sampled loop is stable.
         assertTrue(value(parameters.getSampledSpectralRadius()) < 1, "sampled spectral radius");
         assertEquals(

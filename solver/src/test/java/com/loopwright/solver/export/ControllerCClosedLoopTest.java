@@ -116,7 +116,7 @@ class ControllerCClosedLoopTest {
         double limit = 2.5;
         SampledLaw law = new SampledLawDesigner().emulate(report.design(), 1e-3, limit);
         DiscreteController d = DiscreteControllers.fromStateFeedback(
-                law.samplePeriodSeconds(), law.positionGain(), law.velocityGain(), law.referenceGain());
+                law.samplePeriod(), law.positionGain(), law.velocityGain(), law.referenceGain());
         ControllerStep step = new ControllerStep(d, ControllerSettings.symmetric(limit, 2));
         SplittableRandom random = new SplittableRandom(17);
         int clamped = 0;
