@@ -136,7 +136,7 @@ class EveryFieldErrorTest {
     @Test
     void everyEndpointCollects() {
         String design = "{\"plant\":" + PLANT + ",\"spec\":{\"settlingTime\":-1,\"overshootPercent\":1.5},\"foo\":1}";
-        Answer plot = Answer.plot("bode", bytes("{\"design\":" + design + ",\"commandLimit\":3}"));
+        Answer plot = Answer.plot("bode", bytes("{\"design\":" + design + ",\"actuatorLimit\":3}"));
         assertEquals(
                 List.of(
                         new FieldError("/design/foo", "unknown field 'foo'"),
