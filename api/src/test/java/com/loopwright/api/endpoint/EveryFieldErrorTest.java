@@ -143,7 +143,7 @@ class EveryFieldErrorTest {
                         new FieldError("/design/spec/settlingTime", SETTLING_RANGE)),
                 plot.problem().errors());
         Answer highOrder = Answer.highOrder(
-                bytes("{\"plant\":{\"denominator\":[2.64,8.08,6.1],\"b\":1.0,\"disturbance\":[0.0,0.0,5.0]},"
+                bytes("{\"plant\":{\"denominator\":[1.0,6.1,8.08,2.64],\"b\":1.0,\"disturbance\":[0.0,0.0,5.0]},"
                         + "\"spec\":{\"settlingTime\":-1,\"overshootPercent\":5.0},\"foo\":1}"));
         assertEquals(400, highOrder.status());
         assertEquals(2, highOrder.problem().errors().size(), highOrder.problem().toString());
