@@ -52,13 +52,8 @@ if [[ ! -f $jar || ${E2E_BUILD:-0} == 1 ]]; then
   mvn -B -q package -DskipTests -pl service -am
 fi
 
-work=$(mktemp -d)
-pid=
-cleanup() {
-  if [[ -n $pid ]]; then kill "$pid" 2>/dev/null || true; wait "$pid" 2>/dev/null || true; fi
-  rm -rf "$work"
-}
-trap cleanup EXIT
+source "$(dirname "$0")/service-jar.sh"
+service_workdir
 
 # Our own scenarios: the README's packaging-line indexing axis (and a slower and a rise-time variant of it), the
 # README batch's conveyor, a tank-level loop and a camera gimbal axis. Single designs cycle through them; the batch
@@ -115,14 +110,7 @@ LUA
   printf '%s\n' "$summary"
 } > "$work/design.lua"
 
-LOOPWRIGHT_PORT=$port java -Xmx"$heap" -jar "$jar" > "$work/service.log" 2>&1 &
-pid=$!
-for _ in $(seq 1 120); do
-  curl -fsS "$base/health" >/dev/null 2>&1 && break
-  kill -0 "$pid" 2>/dev/null || { echo "service exited:" >&2; cat "$work/service.log" >&2; exit 1; }
-  sleep 0.25
-done
-curl -fsS "$base/health" >/dev/null || { echo "service did not come up on $base" >&2; exit 1; }
+service_start_tries=120 service_start "$heap" "$base" LOOPWRIGHT_PORT="$port"
 
 # Correctness before speed: every scenario answers 200 with a certified design.
 for body in "${SCENARIOS[@]}"; do

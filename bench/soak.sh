@@ -23,22 +23,10 @@ command -v curl >/dev/null 2>&1 || { echo "curl is required" >&2; exit 2; }
 jar=service/target/loopwright.jar
 [[ -f $jar ]] || mvn -B -q package -DskipTests -pl service -am
 
-work=$(mktemp -d)
-pid=
-cleanup() {
-  if [[ -n $pid ]]; then kill "$pid" 2>/dev/null || true; wait "$pid" 2>/dev/null || true; fi
-  rm -rf "$work"
-}
-trap cleanup EXIT
+source "$(dirname "$0")/service-jar.sh"
+service_workdir
 
-LOOPWRIGHT_PORT=$port LOOPWRIGHT_LOG_LEVEL=WARN java -Xmx"$heap" -jar "$jar" > "$work/service.log" 2>&1 &
-pid=$!
-for _ in $(seq 1 40); do
-  curl -fsS "$base/health" >/dev/null 2>&1 && break
-  kill -0 "$pid" 2>/dev/null || { echo "service exited:" >&2; cat "$work/service.log" >&2; exit 1; }
-  sleep 0.25
-done
-curl -fsS "$base/health" >/dev/null || { echo "service did not come up on $base" >&2; exit 1; }
+service_start "$heap" "$base" LOOPWRIGHT_PORT="$port" LOOPWRIGHT_LOG_LEVEL=WARN
 echo "soak: service pid $pid, -Xmx$heap, VmRSS at start $(awk '/^VmRSS/ {print $2, $3}' "/proc/$pid/status")"
 
 # The reactor's compiled classes (test-compile is up to date after a build) and the one test; timeout is the
