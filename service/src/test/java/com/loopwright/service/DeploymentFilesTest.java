@@ -221,7 +221,14 @@ class DeploymentFilesTest {
                 text.contains("127.0.0.1") && !text.matches("(?s).*https?://(?!127\\.0\\.0\\.1)[a-z0-9].*"),
                 "targets loopback only");
         assertTrue(text.contains("timeout 160 mvn"), "the soak run is bounded in time");
-        assertTrue(text.contains("heap=${SOAK_HEAP:-256m}") && text.contains("-Xmx\"$heap\""), "under -Xmx256m");
+        // The jar is started by the shared bench/service-jar.sh, which passes the heap as -Xmx.
+        String starter = Files.readString(ROOT.resolve("bench").resolve("service-jar.sh"));
+        assertTrue(
+                text.contains("heap=${SOAK_HEAP:-256m}")
+                        && text.contains("service_start \"$heap\"")
+                        && starter.contains("local heap=$1")
+                        && starter.contains("java -Xmx\"$heap\""),
+                "under -Xmx256m");
         assertTrue(Files.readString(ROOT.resolve(".ci/run")).contains("bench/soak.sh"), ".ci/run starts it");
         assertTrue(SoakTest.ROUNDS >= SoakTest.COMPARED_ROUND && SoakTest.RSS_GROWTH_LIMIT <= 0.10);
         assertTrue(SoakTest.ROUND_BUDGET_MILLIS * SoakTest.ROUNDS <= 150_000, "rounds fit the time promise");
