@@ -83,7 +83,10 @@ try {
   assert.equal(await page.$$eval('img', (imgs) => imgs.length), 0, 'no image before the first design');
   assert.equal(await page.getAttribute('#status', 'aria-live'), 'polite');
   assert.deepEqual(await overflowing(), [], 'empty page at 390 px');
-  // Keyboard: the first Tab lands on the plant description with a visible focus ring.
+  // Keyboard: the first Tab shows the skip link, the second lands on the plant description with a visible focus ring.
+  await page.keyboard.press('Tab');
+  assert.equal(await page.evaluate(() => document.activeElement.className), 'skip');
+  assert.ok(await page.$eval('.skip', (a) => a.getBoundingClientRect().top >= 0), 'the skip link shows on focus');
   await page.keyboard.press('Tab');
   assert.equal(await page.evaluate(() => document.activeElement.id), 'plant-form');
   assert.notEqual(await page.evaluate(() => getComputedStyle(document.activeElement).outlineStyle), 'none',
@@ -273,6 +276,14 @@ try {
     const y = K * (1 - Math.exp(-zeta * wn * t) * (Math.cos(wd * t) + zeta / Math.sqrt(1 - zeta * zeta) * Math.sin(wd * t)));
     rows.push(`${t.toFixed(2)},${y.toPrecision(12)}`);
   }
+  // Dropped as a file on the samples box, then pasted over it (the textarea takes either).
+  await page.evaluate((text) => {
+    const transfer = new DataTransfer();
+    transfer.items.add(new File([text], 'step-test.csv', { type: 'text/csv' }));
+    document.getElementById('drop-zone').dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, bubbles: true,
+      cancelable: true }));
+  }, rows.slice(0, 20).join('\n'));
+  await page.waitForFunction(() => document.getElementById('csv').value.startsWith('time,output\n0.00,0'));
   await page.fill('#csv', rows.join('\n'));
   await page.click('#fit');
   await settle();
@@ -293,20 +304,20 @@ try {
   near(num(table['derived a0']), wn * wn, 1e-4, 'a0 = wn^2 from the fit');
   near(num(table['derived a1']), 2 * zeta * wn, 1e-4, 'a1 = 2 zeta wn from the fit');
   near(num(table['derived b']), K * wn * wn, 1e-4, 'b = K wn^2 from the fit');
-  passed.push('fit from pasted CSV');
+  passed.push('fit from a dropped and a pasted CSV');
 
   // 9. The uncertainty band appears with an uncertainty box; screenshots at 1400 and 390 px with nothing wider
   // than the viewport and no broken image.
   await page.fill('input[name=spreadB]', '20');
   await design();
   assert.equal(await page.$eval('#fig-uncertainty-band', (img) => img.naturalWidth > 0), true, 'uncertainty band');
-  for (const width of [1400, 390]) {
+  for (const width of [1920, 1400, 390, 360]) {
     await page.setViewportSize({ width, height: 1200 });
     assert.deepEqual(await overflowing(), [], `nothing wider than ${width} px`);
     assert.deepEqual(await brokenImages(), [], `no broken image at ${width} px`);
-    await page.screenshot({ path: `target/dashboard-${width}.png`, fullPage: true });
+    if (width === 1400 || width === 390) await page.screenshot({ path: `target/dashboard-${width}.png`, fullPage: true });
   }
-  passed.push('screenshots at 1400 and 390 px');
+  passed.push('layout at 1920, 1400, 390 and 360 px, screenshots at 1400 and 390 px');
 
   if (apiKey) {
     const sent = await Promise.all(v1Calls);
