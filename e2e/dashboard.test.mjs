@@ -149,6 +149,14 @@ try {
   const parameters = JSON.parse((await download('#dl-export-parameters')).text);
   near(parameters.positionGain, 1.57230, 1e-5, 'exported position gain');
   assert.equal(parameters.samplePeriod, 0.001);
+  // A task period too long for the loop: the export's 422 names the period field.
+  await page.fill('input[name=exportSamplePeriod]', '1');
+  await page.click('#dl-export-c');
+  await settle();
+  assert.match(await statusText(), /the export was not made/);
+  assert.equal(await page.getAttribute('input[name=exportSamplePeriod]', 'aria-invalid'), 'true');
+  assert.match(await page.textContent('#problem'), /field \/samplePeriod/);
+  await page.fill('input[name=exportSamplePeriod]', '0.001');
   const request = JSON.parse((await download('#dl-request')).text);
   assert.deepEqual(request.plant, { form: 'canonical', a0: 0, a1: 0.48, b: 400, d: 400 });
   assert.deepEqual(request.spec, { overshootPercent: 1.5, settlingTime: 0.15 });
@@ -218,7 +226,13 @@ try {
   await design();
   assert.match(await statusText(), /^Network failure/);
   await page.unroute('**/v1/designs');
-  passed.push('network failure');
+  // A field left empty is named before anything is sent.
+  await page.fill('input[name=a1]', '');
+  await design();
+  assert.match(await statusText(), /^Check the field "a1 \[1\/s\]": it needs a number\.$/);
+  assert.equal(await page.evaluate(() => document.activeElement.name), 'a1');
+  await page.fill('input[name=a1]', '0.48');
+  passed.push('network failure and an empty field');
 
   // 7. Every plant description. The derived canonical coefficients are checked against the conversions of the
   // plant equations written out here (rotary axis J q'' + c q' = N kt i + w: a1 = c/J, b = N kt/J, d = 1/J;
