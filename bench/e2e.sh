@@ -154,8 +154,10 @@ in_process() { # THREADS SCENARIOS NAME
     | grep '^RESULT' | sed "s/^RESULT/$3/"
 }
 one_core=$(in_process 1 readme in_process_one_core); echo "$one_core"
-# 2. The in-process limit of the batch: the six scenarios on two threads.
+# 2. The in-process limit of the batch: the six scenarios on two threads (and on one: the batch computes on at most
+# ceil(workers/2) design workers, ComputePool.batchShare, which is one worker on two cores).
 two_threads=$(in_process 2 all in_process_two_threads); echo "$two_threads"
+one_thread=$(in_process 1 all in_process_one_thread); echo "$one_thread"
 
 # 5 (before any server). Allocation per design.
 alloc_encode= alloc_solver=
@@ -256,6 +258,7 @@ awk -v h="$(field "$health" rps)" -v d="$(field "$single" rps)" -v e="$(field "$
     -v hc="$(field "$health" cpu_us_per_request)" -v dc="$(field "$single" cpu_us_per_request)" \
     -v ec="$(field "$floor" cpu_us_per_request)" -v bc="${batched:+$(field "$batched" cpu_us_per_request)}" \
     -v two="$(field "$two_threads" designs_per_s)" -v two_cpu="$(field "$two_threads" cpu_us_per_design)" \
+    -v one="$(field "$one_thread" designs_per_s)" \
     -v one_cpu="$(field "$one_core" cpu_us_per_design)" \
     -v s_cpu="${script:+$(field "$script" cpu_us_per_design)}" \
     -v s_ric="${script:+$(field "$script" riccati_cpu_us)}" -v s_step="${script:+$(field "$script" step_cpu_us)}" \
@@ -267,8 +270,10 @@ BEGIN {
   printf "design throughput / GET /health (the old floor): %.0f / %.0f req/s = %.1f%%\n", d, h, 100 * d / h
   if (b != "") printf "batch: %.0f designs/s (%d per request, p99 %.2f ms per request), service CPU %.1f us per design\n",
     b * items, items, bp99, bc / items
-  printf "in-process: two threads %.0f designs/s (%.1f us CPU per design); one core %.1f us CPU per README design\n",
-    two, two_cpu, one_cpu
+  printf "in-process: two threads %.0f designs/s (%.1f us CPU per design), one thread %.0f designs/s; one core %.1f us CPU per README design\n",
+    two, two_cpu, one, one_cpu
+  if (b != "") printf "batch / in-process on one thread (the batch share of the design workers on 2 cores): %.2f x\n",
+    b * items / one
   if (s_cpu != "") printf "reference script: %.0f us CPU per design (Riccati %.0f us, step and metrics %.0f us)\n",
     s_cpu, s_ric, s_step
   printf "resident memory after the run (VmRSS): %.1f MiB\n", rss / 1024
