@@ -3,6 +3,12 @@
 #   service_start HEAP BASE [VAR=value]  starts $jar with -Xmx HEAP and the given environment, log in
 #                                        $work/service.log, sets $pid, waits for BASE/health up to
 #                                        $service_start_tries x 0.25 s (default 40: 10 s)
+#   service_stop                         stops the process started last ($pid) and waits for it to end
+#   echo_floor_start HEAP BASE PORT RESPONSE...
+#                                        starts the echo floor of bench/e2e.sh (com.loopwright.bench.EchoFloor in
+#                                        $bench_jar, default bench/target/loopwright-bench.jar) on 127.0.0.1:PORT
+#                                        with -Xmx HEAP, answering POST /v1/designs with the RESPONSE files in turn;
+#                                        log in $work/echo.log, sets $pid, waits for BASE/health like service_start
 service_workdir() {
   work=$(mktemp -d)
   pid=
@@ -10,8 +16,13 @@ service_workdir() {
 }
 
 service_cleanup() {
-  if [[ -n $pid ]]; then kill "$pid" 2>/dev/null || true; wait "$pid" 2>/dev/null || true; fi
+  service_stop
   rm -rf "$work"
+}
+
+service_stop() {
+  if [[ -n $pid ]]; then kill "$pid" 2>/dev/null || true; wait "$pid" 2>/dev/null || true; fi
+  pid=
 }
 
 service_start() {
@@ -19,10 +30,24 @@ service_start() {
   shift 2
   env "$@" java -Xmx"$heap" -jar "$jar" > "$work/service.log" 2>&1 &
   pid=$!
+  service_wait "$base" "$work/service.log"
+}
+
+echo_floor_start() {
+  local heap=$1 base=$2 port=$3
+  shift 3
+  java -Xmx"$heap" -cp "${bench_jar:-bench/target/loopwright-bench.jar}" com.loopwright.bench.EchoFloor "$port" "$@" \
+    > "$work/echo.log" 2>&1 &
+  pid=$!
+  service_wait "$base" "$work/echo.log"
+}
+
+service_wait() { # BASE LOG: waits for BASE/health while the process $pid lives
+  local base=$1 log=$2
   for _ in $(seq 1 "${service_start_tries:-40}"); do
     curl -fsS "$base/health" >/dev/null 2>&1 && return 0
-    kill -0 "$pid" 2>/dev/null || { echo "service exited:" >&2; cat "$work/service.log" >&2; exit 1; }
+    kill -0 "$pid" 2>/dev/null || { echo "process exited:" >&2; cat "$log" >&2; exit 1; }
     sleep 0.25
   done
-  curl -fsS "$base/health" >/dev/null || { echo "service did not come up on $base" >&2; exit 1; }
+  curl -fsS "$base/health" >/dev/null || { echo "nothing came up on $base" >&2; exit 1; }
 }
