@@ -101,6 +101,16 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     @Override
     public Result compute(Validated validated) {
         ValidatedDesign design = validated.design();
+        // the loop that runs first: an infeasible augmented design is named with its own proposal
+        RealLoopReport loop = null;
+        if (design.loop() != null) {
+            loop = realLoops.design(RealLoopPipeline.Request.canonical(
+                    design.plant(),
+                    design.spec(),
+                    design.gammaChoice(),
+                    design.loop().structure(),
+                    design.loop().loadStepSize()));
+        }
         DesignReport report = designs.design(
                 design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
         if (!validated.verifyErrors().isEmpty()) {
@@ -122,15 +132,6 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
         }
         StateSpaceDesign callerCoordinates =
                 designs.callerCoordinates(design.resolvedPlant().source(), report.design());
-        RealLoopReport loop = null;
-        if (design.loop() != null) {
-            loop = realLoops.design(RealLoopPipeline.Request.canonical(
-                    design.plant(),
-                    design.spec(),
-                    design.gammaChoice(),
-                    design.loop().structure(),
-                    design.loop().loadStepSize()));
-        }
         return new Result(report, callerCoordinates, checked, loop);
     }
 

@@ -65,6 +65,15 @@ public final class LoopInputValidator {
                 loop.loadStepSize() == null ? DEFAULT_LOAD_STEP : loop.loadStepSize());
     }
 
+    /**
+     * The observer object alone (pointers under /observer), for POST /v1/verifications.
+     *
+     * @return the choice, or null when invalid (errors added)
+     */
+    public ObserverChoice observerChoice(ObserverInput input, List<FieldError> errors) {
+        return observer(input, errors);
+    }
+
     /** The observer choice; poles at the default multiple when the caller gives none. */
     private static ObserverChoice observer(ObserverInput input, List<FieldError> errors) {
         if (input == null) {

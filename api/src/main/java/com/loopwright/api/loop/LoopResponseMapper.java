@@ -9,6 +9,7 @@ import com.loopwright.solver.design.OutputFeedbackFigures;
 import com.loopwright.solver.design.PlantInputMargins;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.design.TrackingLaw;
+import com.loopwright.solver.pipeline.LoopCheckPipeline;
 import com.loopwright.solver.pipeline.RealLoopReport;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.ArrayList;
@@ -171,6 +172,57 @@ public final class LoopResponseMapper {
                 l.horizonSeconds(),
                 l.samples());
         return new Sections(wireLaw, observer, outputFeedback, loadStep, notes, codes);
+    }
+
+    /**
+     * The loop section of a verification.
+     *
+     * @param gamma             the bound to judge peakDisturbanceGain against, or null
+     * @param performanceOutput z of peakDisturbanceGain, in words
+     */
+    public LoopCheck toCheck(LoopCheckPipeline.Report report, Double gamma, String performanceOutput) {
+        TrackingLaw law = report.law();
+        boolean observed = report.observerGain() != null;
+        String state = observed ? "(k1*x1_hat + k2*x2_hat)" : "(k1*x1 + k2*x2)";
+        ObserverDesign o = report.observer();
+        LoadStepResponse l = report.loadStep();
+        return new LoopCheck(
+                "the loop as it runs, with the integral gain and/or the observer; the robustness section checks u = kr*r"
+                        + " - (k1*x1 + k2*x2) with every state measured",
+                law.integralAction() ? "u = kr*r + ki*xi - " + state + ", xi' = r - x1" : "u = kr*r - " + state,
+                law.integralGain(),
+                law.referenceGain(),
+                observed ? list(report.observerGain()) : null,
+                o == null
+                        ? null
+                        : new Observer(
+                                LoopLimits.KALMAN,
+                                list(o.gain()),
+                                poles(o.poles()),
+                                o.processIntensity(),
+                                o.measurementIntensity(),
+                                o.riccatiRelativeResidual(),
+                                null),
+                performanceOutput,
+                report.peakDisturbanceGain().value(),
+                report.peakDisturbanceGain().peakFrequencyRadPerSec(),
+                gamma,
+                gamma == null ? null : report.peakDisturbanceGain().value() > gamma,
+                observed ? report.noiseToCommandGain().value() : null,
+                observed ? report.noiseToCommandGain().peakFrequencyRadPerSec() : null,
+                margins(report.margins()),
+                step(report.step()),
+                new LoadStep(
+                        l.loadStepSize(),
+                        l.steadyOffset(),
+                        law.integralAction(),
+                        l.simulatedFinalOutput(),
+                        l.peakDeviation(),
+                        l.peakTimeSeconds(),
+                        l.recoveryTimeSeconds(),
+                        l.peakCommand(),
+                        l.horizonSeconds(),
+                        l.samples()));
     }
 
     private static void add(List<String> notes, List<String> codes, String code, String text) {
