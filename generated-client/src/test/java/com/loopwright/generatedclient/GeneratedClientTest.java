@@ -18,17 +18,16 @@ import com.loopwright.client.model.ControllerRequest;
 import com.loopwright.client.model.DesignRequest;
 import com.loopwright.client.model.DesignResponse;
 import com.loopwright.client.model.FitRequest;
-import com.loopwright.client.model.FitRequestSamples;
 import com.loopwright.client.model.FitResponse;
 import com.loopwright.client.model.PlantDescription;
 import com.loopwright.client.model.PlantInput;
 import com.loopwright.client.model.Problem;
 import com.loopwright.client.model.SpecInput;
+import com.loopwright.client.model.StepTestSamples;
 import com.loopwright.service.LoopwrightApp;
 import com.loopwright.service.ServiceConfig;
 import io.javalin.Javalin;
 import java.io.IOException;
-import java.math.BigDecimal;
 import java.net.URI;
 import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
@@ -75,13 +74,13 @@ class GeneratedClientTest {
     /** Samples of the synthetic step test (the fit takes 8 to 20000). */
     private static final int FIT_SAMPLE_COUNT = 400;
 
-    /** The generated models carry JSON numbers (`type: number`, no format) as BigDecimal. */
-    private static BigDecimal num(double value) {
-        return BigDecimal.valueOf(value);
+    /** The generated models carry JSON numbers (`type: number, format: double`) as Double. */
+    private static Double num(double value) {
+        return value;
     }
 
-    private static double value(BigDecimal number) {
-        return number.doubleValue();
+    private static double value(Double number) {
+        return number;
     }
 
     private static Javalin service;
@@ -212,7 +211,7 @@ class GeneratedClientTest {
         double zeta = 0.4;
         double stepTime = 0.5; // s
         double duration = 4.0; // s
-        FitRequestSamples samples = new FitRequestSamples();
+        StepTestSamples samples = new StepTestSamples();
         for (int i = 0; i < FIT_SAMPLE_COUNT; i++) {
             double t = duration * i / (FIT_SAMPLE_COUNT - 1);
             samples.addTimeItem(num(t));
