@@ -11,8 +11,8 @@ import com.loopwright.client.ApiException;
 import com.loopwright.client.api.ControllersApi;
 import com.loopwright.client.api.DesignsApi;
 import com.loopwright.client.api.ModelsApi;
-import com.loopwright.client.model.BatchLine;
 import com.loopwright.client.model.BatchRequest;
+import com.loopwright.client.model.BatchStreamLine;
 import com.loopwright.client.model.ControllerParameters;
 import com.loopwright.client.model.ControllerRequest;
 import com.loopwright.client.model.DesignRequest;
@@ -143,7 +143,7 @@ class GeneratedClientTest {
     /**
      * The generated createDesignBatch reads the body as ONE JSON value, so it cannot read an NDJSON stream of
      * several lines. The request therefore goes through the generated ApiClient's HttpClient, base URI, request
-     * interceptor and ObjectMapper, and each line is read into the generated BatchLine model.
+     * interceptor and ObjectMapper, and each line is read into the generated BatchStreamLine model (one class for every line of the stream).
      */
     @Test
     void batchStreamsOneTypedLinePerItemInOrder() throws Exception {
@@ -172,14 +172,15 @@ class GeneratedClientTest {
                         .split(";")[0]
                         .trim());
 
-        List<BatchLine> lines = new ArrayList<>();
+        List<BatchStreamLine> lines = new ArrayList<>();
         for (String line : response.body().split("\n")) {
-            lines.add(client.getObjectMapper().readValue(line, BatchLine.class));
+            lines.add(client.getObjectMapper().readValue(line, BatchStreamLine.class));
         }
         assertEquals(2, lines.size(), response.body());
 
-        BatchLine designed = lines.get(0);
+        BatchStreamLine designed = lines.get(0);
         assertEquals(0, designed.getIndex());
+        assertNull(designed.getResumeFromIndex(), "an item's line is no cut");
         assertEquals(200, designed.getStatus());
         assertNull(designed.getProblem());
         // An item is computed exactly as POST /v1/designs computes it: same gains to the last bit.
@@ -192,7 +193,7 @@ class GeneratedClientTest {
                 designed.getDesign().getGain().getK().get(1));
         assertTrue(designed.getDesign().getVerification().getCertified());
 
-        BatchLine refused = lines.get(1);
+        BatchStreamLine refused = lines.get(1);
         assertEquals(1, refused.getIndex());
         assertEquals(400, refused.getStatus());
         assertNull(refused.getDesign());

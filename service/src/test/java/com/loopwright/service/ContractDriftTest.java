@@ -449,9 +449,23 @@ class ContractDriftTest {
                         .at("/paths/~1v1~1designs~1batch/post"
                                 + "/responses/200/content/application~1x-ndjson/schema/$ref")
                         .asText());
-        JsonNode streamLine = contract.component("BatchStreamLine").get("oneOf");
-        assertEquals("#/components/schemas/BatchLine", streamLine.at("/0/$ref").asText());
-        assertEquals("#/components/schemas/BatchCut", streamLine.at("/1/$ref").asText());
+        // The stream line: one closed object with the members of both records, BatchCut when resumeFromIndex is
+        // present, else BatchLine.
+        JsonNode streamLine = contract.component("BatchStreamLine");
+        assertEquals("object", streamLine.path("type").asText(), "BatchStreamLine is one object schema");
+        assertEquals(false, streamLine.path("additionalProperties").asBoolean(true), "BatchStreamLine is closed");
+        Set<String> streamMembers = new TreeSet<>();
+        streamLine.get("properties").fieldNames().forEachRemaining(streamMembers::add);
+        Set<String> bothRecords = new TreeSet<>(components);
+        for (RecordComponent component : com.loopwright.service.routes.BatchCut.class.getRecordComponents()) {
+            bothRecords.add(component.getName());
+        }
+        assertEquals(bothRecords, streamMembers, "fields of BatchStreamLine");
+        assertEquals("resumeFromIndex", streamLine.at("/if/required/0").asText());
+        assertEquals(
+                "#/components/schemas/BatchCut", streamLine.at("/then/$ref").asText());
+        assertEquals(
+                "#/components/schemas/BatchLine", streamLine.at("/else/$ref").asText());
         JsonNode cut = contract.component("BatchCut");
         Set<String> cutComponents = new TreeSet<>();
         for (RecordComponent component : com.loopwright.service.routes.BatchCut.class.getRecordComponents()) {
