@@ -100,6 +100,27 @@ class LoopEndpointTest extends LiveServerTest {
         }
     }
 
+    /** The README's worked example (vertical axis, encoder only): the request as printed, the numbers it quotes. */
+    @Test
+    void readmeVerticalAxisExamplePrintsTheQuotedNumbers() throws Exception {
+        String readme = java.nio.file.Files.readString(java.nio.file.Path.of("..", "README.md"));
+        int section = readme.indexOf("## The loop as it runs");
+        java.util.regex.Matcher body =
+                java.util.regex.Pattern.compile("(?s)<<'JSON'\\n(.*?)\\nJSON").matcher(readme.substring(section));
+        assertTrue(body.find(), "the README section has its request");
+        JsonNode loop = design(body.group(1));
+        assertEquals(15219, loop.at("/law/stateGain/0").asDouble(), 0.5);
+        assertEquals(97209, loop.at("/law/integralGain").asDouble(), 0.5);
+        assertEquals(-37.45, loop.at("/law/integralPole").asDouble(), 0.005);
+        assertEquals(1.663, loop.at("/law/gamma").asDouble(), 0.0005);
+        assertEquals(1.367, loop.at("/outputFeedback/peakDisturbanceGain").asDouble(), 0.0005);
+        assertEquals(3.72e6, loop.at("/outputFeedback/noiseToCommandGain").asDouble(), 0.005e6);
+        assertEquals(0.00897, loop.at("/loadStep/peakDeviation").asDouble(), 0.000005);
+        assertEquals(0.425, loop.at("/loadStep/recoveryTime").asDouble(), 0.0005);
+        assertTrue(texts(loop.get("noteCodes")).contains("observerFasterThanSampling"));
+        assertTrue(readme.substring(section).contains("8.97 mm at 0.121 s, recovered at 0.425 s"));
+    }
+
     /**
      * Position-only sensing without integral action: the load leaves the offset of the final-value theorem. By hand
      * for the canonical plant (final-value theorem, Ogata, Modern Control Engineering, from memory): at rest the
