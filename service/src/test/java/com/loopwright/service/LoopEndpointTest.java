@@ -247,8 +247,8 @@ class LoopEndpointTest extends LiveServerTest {
     @Test
     void verificationOfTheDesignedLawReproducesTheDesignsLoopFigures() {
         String coefficients = "\"a0\":0,\"a1\":3.3333333333333335,\"b\":0.05555555555555555,\"d\":0.05555555555555555}";
-        // the verification's plant is always canonical and has no form field
-        String plant = "\"plant\":{" + coefficients;
+        // the verification's plant is always canonical, and names its form as every plant does
+        String plant = "\"plant\":{\"form\":\"canonical\"," + coefficients;
         JsonNode loop = design("{\"plant\":{\"form\":\"canonical\"," + coefficients + "," + SPEC
                 + ",\"integralAction\":true,\"measurement\":\"position\"," + "\"loadStepSize\":-100}");
         JsonNode law = loop.get("law");
@@ -295,7 +295,7 @@ class LoopEndpointTest extends LiveServerTest {
     void verificationDesignsAKalmanObserverWhenAsked() {
         LiveServer.Reply reply = server.post(
                 "/v1/verifications",
-                "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
                         + "\"referenceGain\":1.5},\"measurement\":\"position\",\"observer\":{\"method\":\"kalman\","
                         + "\"processNoise\":1,\"measurementNoise\":1e-8},\"performance\":{\"rho1\":1,\"rho2\":0,"
                         + "\"gamma\":2}}");
@@ -309,7 +309,7 @@ class LoopEndpointTest extends LiveServerTest {
         assertFalse(check.at("/loadStep/zeroSteadyOffset").asBoolean());
         LiveServer.Reply refused = server.post(
                 "/v1/verifications",
-                "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
                         + "\"referenceGain\":1.5},\"measurement\":\"position\",\"observer\":{\"method\":"
                         + "\"poleMultiple\"}}");
         assertEquals(400, refused.status(), refused.text());
