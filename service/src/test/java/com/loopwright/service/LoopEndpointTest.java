@@ -154,6 +154,12 @@ class LoopEndpointTest extends LiveServerTest {
                 java.util.regex.Pattern.compile("(?s)<<'JSON'\\n(.*?)\\nJSON").matcher(readme.substring(section));
         assertTrue(body.find(), "the README section has its request");
         JsonNode loop = design(body.group(1));
+        // the contract carries the same request as an example
+        JsonNode example = Contract.load()
+                .document()
+                .at("/paths/~1v1~1designs/post/requestBody/content/application~1json/examples"
+                        + "/verticalAxisEncoderOnly/value");
+        assertEquals(new com.fasterxml.jackson.databind.ObjectMapper().readTree(body.group(1)), example);
         assertEquals(15219, loop.at("/law/stateGain/0").asDouble(), 0.5);
         assertEquals(97209, loop.at("/law/integralGain").asDouble(), 0.5);
         assertEquals(-37.45, loop.at("/law/integralPole").asDouble(), 0.005);
