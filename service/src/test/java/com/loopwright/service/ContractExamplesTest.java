@@ -346,7 +346,7 @@ class ContractExamplesTest {
             for (Iterator<Map.Entry<String, JsonNode>> it = examples.fields(); it.hasNext(); ) {
                 Map.Entry<String, JsonNode> entry = it.next();
                 JsonNode example = entry.getValue().get("value");
-                if (!example.path("type").asText().startsWith("tag:loopwright.dev,2026:problem/")) {
+                if (!entry.getKey().endsWith("Problem")) {
                     continue;
                 }
                 seen.add(entry.getKey());
@@ -385,6 +385,7 @@ class ContractExamplesTest {
         assertEquals(
                 Set.of(
                         "InvalidFieldProblem",
+                        "InvalidSamplesProblem",
                         "PlantWithoutFormProblem",
                         "UnauthorizedProblem",
                         "NotFoundProblem",
@@ -427,6 +428,8 @@ class ContractExamplesTest {
                         "/v1/designs",
                         "{\"plant\":{\"form\":\"canonical\",\"a0\":0.5,\"a1\":0.48,\"b\":65,\"d\":6},"
                                 + "\"spec\":{\"settlingTime\":12,\"overshootPercent\":2.66}}");
+            case "InvalidSamplesProblem" ->
+                open.post("/v1/models/fit", "{\"samples\":{\"time\":[0,0.1,0.2],\"output\":[0,0.5,1]}}");
             case "FitFailedProblem" ->
                 open.post(
                         "/v1/models/fit",
