@@ -17,7 +17,7 @@ import java.util.List;
  * L2 gain bound from w to z = [rho1 x1, rho2 x2, u]. target, riccati, gammaBounds, gammaIntervals, weights, gain,
  * simulated and verification are the records every design result shares (package {@code api.result}); this
  * order-2 result adds plant and model. {@code robustness} is present only when the request asked
- * for it (verify). {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
+ * for it (verify), {@code robust} only for a robust design (robust). {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
  * strings; a client that acts on a note matches its code).
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
@@ -37,7 +37,8 @@ public record DesignResponse(
         List<String> noteCodes,
         List<String> cautions,
         Model model,
-        RobustnessResponse robustness) {
+        RobustnessResponse robustness,
+        RobustDesign robust) {
 
     public DesignResponse {
         gammaBounds = List.copyOf(gammaBounds);

@@ -46,6 +46,17 @@ public final class DesignResponseMapper {
             StateSpaceDesign callerCoordinates,
             com.loopwright.api.robustness.RobustnessResponse robustness,
             RobustnessOptions verifyOptions) {
+        return toResponse(request, report, callerCoordinates, robustness, verifyOptions, null);
+    }
+
+    /** As above, with the robust design's member (null unless the request asked for a robust design). */
+    public DesignResponse toResponse(
+            ValidatedDesign request,
+            DesignReport report,
+            StateSpaceDesign callerCoordinates,
+            com.loopwright.api.robustness.RobustnessResponse robustness,
+            RobustnessOptions verifyOptions,
+            RobustDesign robust) {
         ClosedFormDesign design = report.design();
         Verification verification = report.verification();
         TargetDynamics target = design.target();
@@ -124,7 +135,8 @@ public final class DesignResponseMapper {
                 notes.codes(),
                 Cautions.ALL,
                 ModelMapper.toModel(request.resolvedPlant(), design, callerCoordinates),
-                robustness);
+                robustness,
+                robust);
     }
 
     /**
