@@ -27,7 +27,8 @@ import java.util.function.Predicate;
  * overshoot limits, by {@value #BISECTIONS} bisections in log wn (a faster loop settles sooner on every case; where
  * a settling time jumps the bisection still ends on a frequency that meets the limits). The candidates are then
  * checked on every case in the order of their frequency: a candidate whose samples miss a limit is bisected again
- * on all cases, one that exceeds the actuator limit is dropped (a faster loop only needs more command).
+ * on all cases, one that exceeds the actuator limit is dropped (a faster loop only needs more command). The
+ * chosen damping ratio is then refined between its grid neighbours (golden section on the corners' frequency).
  *
  * <p>Selection rule, least bandwidth: the target with the smallest natural frequency whose every case meets the
  * limits. Its worst case sits on the binding limit, so it is the target closest to the requested spec, and it asks
@@ -49,6 +50,8 @@ public final class RobustTargetSearch {
     public static final double FREQUENCY_SPAN = 16;
     /** Bisections in log wn: the bracket of 256 shrinks to 256^(2^-18), a relative width of 2e-5. */
     static final int BISECTIONS = 18;
+    /** Golden-section steps refining the chosen damping ratio between its grid neighbours. */
+    static final int REFINEMENTS = 10;
     /** Cap on target evaluations (each over the corners or over every case). */
     public static final int MAX_EVALUATIONS = 1000;
     /** Cap on closed-form step metrics per search: about 1 s of CPU at 4 us each. */
@@ -151,9 +154,71 @@ public final class RobustTargetSearch {
             }
         }
         if (best != null) {
+            best = refined(best, zetaRequested, zetaHighest, lowest, highest, designable);
             return new Outcome(best, null, null, evaluations, caseEvaluations, everyCase.size());
         }
         return bestAllowed(zetaRequested, zetaHighest, lowest, highest);
+    }
+
+    /**
+     * The damping grid is coarse (a step of (zetaHighest / zetaRequested)^(1/11)): between the chosen damping
+     * ratio's neighbours, a golden-section search of {@value #REFINEMENTS} steps on the corners' smallest meeting
+     * frequency (infinite where the corners cannot be met), then the same checks on every case. The refined target
+     * replaces the grid's only if it passes them with a smaller natural frequency.
+     */
+    private TargetDynamics refined(
+            TargetDynamics best,
+            double zetaRequested,
+            double zetaHighest,
+            double lowest,
+            double highest,
+            Predicate<TargetDynamics> designable) {
+        double step = Math.pow(zetaHighest / zetaRequested, 1 / (DAMPING_CANDIDATES - 1.0));
+        double lo = Math.max(zetaRequested, best.dampingRatio() / step);
+        double hi = Math.min(zetaHighest, best.dampingRatio() * step);
+        double golden = (Math.sqrt(5) - 1) / 2;
+        double x1 = hi - golden * (hi - lo);
+        double x2 = lo + golden * (hi - lo);
+        double f1 = cornerFrequency(x1, lowest, highest);
+        double f2 = cornerFrequency(x2, lowest, highest);
+        for (int i = 0; i < REFINEMENTS; i++) {
+            Cancellation.checkpoint();
+            if (f1 <= f2) {
+                hi = x2;
+                x2 = x1;
+                f2 = f1;
+                x1 = hi - golden * (hi - lo);
+                f1 = cornerFrequency(x1, lowest, highest);
+            } else {
+                lo = x1;
+                x1 = x2;
+                f1 = f2;
+                x2 = lo + golden * (hi - lo);
+                f2 = cornerFrequency(x2, lowest, highest);
+            }
+        }
+        double zeta = f1 <= f2 ? x1 : x2;
+        double wn = Math.min(f1, f2);
+        if (!(wn < best.naturalFrequencyRadPerSec())) {
+            return best;
+        }
+        if (!meetsSpec(zeta, wn, everyCase)) {
+            if (!meetsSpec(zeta, best.naturalFrequencyRadPerSec(), everyCase)) {
+                return best;
+            }
+            wn = smallestMeeting(zeta, wn, best.naturalFrequencyRadPerSec(), everyCase);
+        }
+        TargetDynamics candidate = new TargetDynamics(zeta, wn);
+        boolean better =
+                wn < best.naturalFrequencyRadPerSec() && withinActuator(zeta, wn) && designable.test(candidate);
+        return better ? candidate : best;
+    }
+
+    /** The corners' smallest meeting frequency at this damping, or infinity when none in range meets them. */
+    private double cornerFrequency(double zeta, double lowest, double highest) {
+        return meetsSpec(zeta, highest, corners)
+                ? smallestMeeting(zeta, lowest, highest, corners)
+                : Double.POSITIVE_INFINITY;
     }
 
     /**
