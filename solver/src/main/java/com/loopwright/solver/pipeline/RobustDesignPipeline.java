@@ -80,6 +80,9 @@ public final class RobustDesignPipeline {
                     .search(requested, target -> designable(plant, target, gammaChoice));
         } catch (ComputationCancelledException e) {
             throw e;
+        } catch (RobustTargetSearch.SearchCapException e) {
+            throw SolverFailure.about(
+                    SolverFailure.Kind.CAP_EXCEEDED, SolverFailure.ROBUST_SEARCH, -1, e.getMessage(), e);
         } catch (RuntimeException e) {
             throw SolverFailure.of(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, e.getMessage(), e);
         }

@@ -325,7 +325,8 @@ public final class RobustTargetSearch {
 
     private FeedbackGains count(double zeta, double wn) {
         if (++evaluations > MAX_EVALUATIONS) {
-            throw new IllegalStateException("robust target search exceeded " + MAX_EVALUATIONS + " evaluations");
+            throw new SearchCapException(
+                    "the robust target search reached its cap of " + MAX_EVALUATIONS + " target evaluations");
         }
         return gains(nominal, new TargetDynamics(zeta, wn));
     }
@@ -333,8 +334,8 @@ public final class RobustTargetSearch {
     /** The closed-form metrics of one case, or null when the loop is unstable or not measurable. */
     private StepMetrics metrics(CanonicalPlant plant, FeedbackGains gains) {
         if (++caseEvaluations > MAX_CASE_EVALUATIONS) {
-            throw new IllegalStateException(
-                    "robust target search exceeded " + MAX_CASE_EVALUATIONS + " case evaluations (the cap)");
+            throw new SearchCapException("the robust target search reached its cap of " + MAX_CASE_EVALUATIONS
+                    + " closed-form case evaluations; use fewer Monte Carlo samples");
         }
         if (!LoopMatrices.stable(plant, gains)) {
             return null;
@@ -363,4 +364,11 @@ public final class RobustTargetSearch {
             int evaluations,
             long caseEvaluations,
             int caseCount) {}
+
+    /** The search reached one of its evaluation caps. */
+    public static final class SearchCapException extends RuntimeException {
+        SearchCapException(String message) {
+            super(message);
+        }
+    }
 }
