@@ -80,4 +80,13 @@ class RobustDesignEndpointTest extends LiveServerTest {
         assertEquals(400, reply.status(), reply.text());
         assertTrue(reply.text().contains("/robust/uncertainty"), reply.text());
     }
+
+    @Test
+    void aRobustDesignWithIntegralActionIsA400AtRobust() {
+        // the robust search covers the full-state loop only (its cases are two-state loops)
+        LiveServer.Reply reply = server.post(
+                "/v1/designs", "{" + AXIS + ",\"integralAction\":true,\"robust\":{\"uncertainty\":" + BOX + "}}");
+        assertEquals(400, reply.status(), reply.text());
+        assertTrue(reply.text().contains("\"/robust\""), reply.text());
+    }
 }
