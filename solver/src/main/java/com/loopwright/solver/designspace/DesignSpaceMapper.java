@@ -81,6 +81,36 @@ public final class DesignSpaceMapper {
         return new DesignSpaceMap(grid, cells, rows, conditions.boxCases().size());
     }
 
+    /**
+     * One spec judged as a cell of a map on this grid's time axis and band (the spec need not lie on the grid).
+     */
+    public DesignSpaceCell cell(
+            CanonicalPlant plant,
+            DesignSpaceGrid grid,
+            double timeSeconds,
+            double overshootPercent,
+            MapConditions conditions) {
+        DiscreteStateSpace sampled = conditions.samplePeriod() == null
+                ? null
+                : SampledLawDesigner.sampledPlant(plant, conditions.samplePeriod());
+        return judge(plant, grid, timeSeconds, overshootPercent, conditions, sampled);
+    }
+
+    private DesignSpaceCell judge(
+            CanonicalPlant plant,
+            DesignSpaceGrid grid,
+            double time,
+            double overshoot,
+            MapConditions conditions,
+            DiscreteStateSpace sampled) {
+        Nominal nominal = nominal(plant, grid, time, overshoot, conditions, sampled);
+        DesignSpaceBox box = nominal.limit() == null && !conditions.boxCases().isEmpty()
+                ? box(nominal.gains(), grid, time, overshoot, conditions)
+                : null;
+        return new DesignSpaceCell(
+                time, overshoot, nominal.limit(), nominal.condition(), nominal.gammaMin(), nominal.peakControl(), box);
+    }
+
     /** The verdict of one spec on the nominal plant. */
     Nominal nominal(
             CanonicalPlant plant,

@@ -1,6 +1,7 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.cancel.ComputationCancelledException;
+import com.loopwright.solver.design.DesignSpaceCell;
 import com.loopwright.solver.design.DesignSpaceGrid;
 import com.loopwright.solver.design.DesignSpaceMap;
 import com.loopwright.solver.designspace.BoxCases;
@@ -35,15 +36,7 @@ public final class DesignSpacePipeline {
     public DesignSpaceMap map(CanonicalPlant plant, DesignSpaceGrid grid, DesignSpaceOptions options) {
         requireCap(TIME_AXIS, grid.timeCount(), MAX_AXIS_POINTS, "time axis points");
         requireCap(OVERSHOOT_AXIS, grid.overshootCount(), MAX_AXIS_POINTS, "overshoot axis points");
-        requireCap(BOX_SAMPLES, options.boxSamples(), MAX_BOX_SAMPLES, "box samples");
-        List<CanonicalPlant> cases =
-                options.box() == null ? List.of() : BoxCases.of(options.box(), options.boxSamples(), options.seed());
-        MapConditions conditions = new MapConditions(
-                options.actuatorLimit(),
-                options.samplePeriod(),
-                options.stepSize(),
-                cases,
-                options.toleranceFraction());
+        MapConditions conditions = conditions(options);
         try {
             return mapper.map(plant, grid, conditions);
         } catch (ComputationCancelledException e) {
@@ -51,6 +44,45 @@ public final class DesignSpacePipeline {
         } catch (RuntimeException e) {
             throw SolverFailure.of(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, e.getMessage(), e);
         }
+    }
+
+    /**
+     * One spec judged as a cell of a map with this grid's time axis and band: the requested spec a map marks.
+     *
+     * @throws SolverFailure as {@link #map}
+     */
+    public DesignSpaceCell spec(
+            CanonicalPlant plant,
+            DesignSpaceGrid grid,
+            double timeSeconds,
+            double overshootPercent,
+            DesignSpaceOptions options) {
+        MapConditions conditions = conditions(options);
+        try {
+            return mapper.cell(plant, grid, timeSeconds, overshootPercent, conditions);
+        } catch (ComputationCancelledException e) {
+            throw e;
+        } catch (RuntimeException e) {
+            throw SolverFailure.of(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, e.getMessage(), e);
+        }
+    }
+
+    /** Case evaluations of a map: each cell on the nominal plant and on every case of the box. */
+    public static long caseEvaluations(int cells, int boxSamples, int varyingParameters) {
+        long cases = varyingParameters == 0 && boxSamples == 0 ? 0 : (1L << varyingParameters) + boxSamples;
+        return (long) cells * (1 + cases);
+    }
+
+    private static MapConditions conditions(DesignSpaceOptions options) {
+        requireCap(BOX_SAMPLES, options.boxSamples(), MAX_BOX_SAMPLES, "box samples");
+        List<CanonicalPlant> cases =
+                options.box() == null ? List.of() : BoxCases.of(options.box(), options.boxSamples(), options.seed());
+        return new MapConditions(
+                options.actuatorLimit(),
+                options.samplePeriod(),
+                options.stepSize(),
+                cases,
+                options.toleranceFraction());
     }
 
     private static void requireCap(String subject, int count, int cap, String what) {
