@@ -67,6 +67,10 @@ class ContractDriftTest {
         assertRecordMatchesSchema(DesignRequest.class, contract.component("DesignRequest"), "DesignRequest");
         assertRecordMatchesSchema(FitRequest.class, contract.component("FitRequest"), "FitRequest");
         assertRecordMatchesSchema(
+                com.loopwright.api.designspace.DesignSpaceRequest.class,
+                contract.component("DesignSpaceRequest"),
+                "DesignSpaceRequest");
+        assertRecordMatchesSchema(
                 VerificationRequest.class, contract.component("VerificationRequest"), "VerificationRequest");
     }
 
@@ -167,6 +171,27 @@ class ContractDriftTest {
         assertTracedResponseMatchesSchema(DesignResponse.class, contract.component("DesignResponse"), "DesignResponse");
         assertTracedResponseMatchesSchema(
                 VerificationResponse.class, contract.component("VerificationResponse"), "VerificationResponse");
+        assertTracedResponseMatchesSchema(
+                com.loopwright.api.designspace.DesignSpaceResponse.class,
+                contract.component("DesignSpaceResponse"),
+                "DesignSpaceResponse");
+    }
+
+    @Test
+    void documentedDesignSpaceCapsMatchTheCode() {
+        int axis = com.loopwright.solver.pipeline.DesignSpacePipeline.MAX_AXIS_POINTS;
+        int samples = com.loopwright.solver.pipeline.DesignSpacePipeline.MAX_BOX_SAMPLES;
+        assertDocumented("DesignSpaceResponse/properties/cells/maxItems", (double) axis * axis);
+        assertDocumented("DesignSpaceResponse/properties/fastest/maxItems", (double) axis);
+        assertTrue(contract.component("DesignSpaceAxis")
+                .at("/properties/count/description")
+                .asText()
+                .contains("cap " + axis));
+        String description = contract.document()
+                .at("/paths/~1v1~1design-spaces/post/description")
+                .asText();
+        assertTrue(description.contains(axis + " points per axis (at most " + axis + " x " + axis + " cells)"));
+        assertTrue(description.contains(samples + "\n") || description.contains(samples + " box samples"));
     }
 
     @Test

@@ -15,6 +15,7 @@ import com.loopwright.solver.design.PoleMatch;
 import com.loopwright.solver.export.SampledLawDesigner;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.DiscreteStateSpace;
+import com.loopwright.solver.simulation.TwoStateStepMetrics;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.SpecInverter;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -28,8 +29,8 @@ import java.util.List;
  * and the cell is feasible when p12, p22 &gt; 0, every gamma requirement can be met (the same checks, in the same
  * order, as the closed-form design), the peak command is within the actuator limit and the emulated sampled loop
  * passes the controller export's test (wn T &lt;= 0.5, spectral radius of Ad - Bd K below 1). A feasible cell's
- * gains are then judged on every parameter set of the box with the exact two-state step figures
- * ({@link TwoStateStep}). Stateless and thread-safe.
+ * gains are then judged on every parameter set of the box with the exact two-state step metrics
+ * ({@link TwoStateStepMetrics}, no simulation); the peak command is the same metric's. Stateless and thread-safe.
  */
 public final class DesignSpaceMapper {
 
@@ -128,7 +129,8 @@ public final class DesignSpaceMapper {
         PoleMatch match = PoleMatch.of(plant, target);
         FeedbackGains gains = new FeedbackGains(plant.b() * match.p12(), plant.b() * match.p22(), wn * wn / plant.b());
         // the closed loop has the target's poles, so it is stable whatever the plant
-        double peak = Math.abs(conditions.stepSize()) * PeakCommand.ofUnitStep(plant, gains);
+        double peak = TwoStateStepMetrics.measure(plant, gains, conditions.stepSize(), grid.bandFraction())
+                .peakControl();
         if (!(match.p12() > 0)) {
             return new Nominal(gains, peak, DesignSpaceLimit.STIFFNESS_ABOVE_PLANT, null, null);
         }
@@ -189,18 +191,16 @@ public final class DesignSpaceMapper {
                 unstable++;
                 continue;
             }
-            if (step.timeSeconds() == null || step.peakControl() == null) {
-                unmeasured = true;
-            } else {
-                worstTime = Math.max(worstTime, step.timeSeconds());
-                worstPeak = Math.max(worstPeak, step.peakControl());
+            if (step.timeSeconds() == null) {
+                unmeasured = true; // stable but not measurable: it never meets the limits
+                continue;
             }
+            worstTime = Math.max(worstTime, step.timeSeconds());
+            worstPeak = Math.max(worstPeak, step.peakControl());
             worstOvershoot = Math.max(worstOvershoot, step.overshootPercent());
-            boolean meets = step.timeSeconds() != null
-                    && step.timeSeconds() <= timeLimit
+            boolean meets = step.timeSeconds() <= timeLimit
                     && step.overshootPercent() <= overshootLimit
-                    && (conditions.actuatorLimit() == null
-                            || (step.peakControl() != null && step.peakControl() <= conditions.actuatorLimit()));
+                    && (conditions.actuatorLimit() == null || step.peakControl() <= conditions.actuatorLimit());
             if (meets) {
                 meeting++;
             }
@@ -211,7 +211,7 @@ public final class DesignSpaceMapper {
                 cases,
                 unstable,
                 anyStable && !unmeasured ? worstTime : null,
-                anyStable ? worstOvershoot : null,
+                anyStable && !unmeasured ? worstOvershoot : null,
                 anyStable && !unmeasured ? worstPeak : null,
                 (double) meeting / cases);
     }
