@@ -191,7 +191,11 @@ class ContractDriftTest {
                 .at("/paths/~1v1~1design-spaces/post/description")
                 .asText();
         assertTrue(description.contains(axis + " points per axis (at most " + axis + " x " + axis + " cells)"));
-        assertTrue(description.contains(samples + "\n") || description.contains(samples + " box samples"));
+        assertTrue(description.replace('\n', ' ').contains(samples + " box samples"), description);
+        // the cost model: the largest map the caps allow stays within the per-request budget
+        long largest = com.loopwright.api.design.ComputeBudget.designSpaceUnits((long) axis * axis, 16 + samples);
+        assertEquals(13_435, largest); // 4096 cells x (2 + 80) evaluations / 25, by hand
+        assertTrue(largest <= com.loopwright.api.design.ComputeBudget.MAX_REQUEST_WORK_UNITS);
     }
 
     @Test

@@ -149,7 +149,7 @@ class DesignSpaceEndpointTest extends LiveServerTest {
                 "/overshootPercent/count",
                 overshoot.json().at("/errors/0/pointer").asText());
         LiveServer.Reply samples = server.post(
-                "/v1/design-spaces", map("\"uncertainty\":{\"b\":{\"spreadPercent\":10},\"monteCarloSamples\":257}"));
+                "/v1/design-spaces", map("\"uncertainty\":{\"b\":{\"spreadPercent\":10},\"monteCarloSamples\":65}"));
         assertEquals(422, samples.status());
         assertEquals(
                 "/uncertainty/monteCarloSamples",

@@ -14,7 +14,7 @@ import com.loopwright.api.validation.SpecInput;
  * @param settlingBandPercent settling band of every cell [%], default 2
  * @param spec                optional: the spec to mark (settlingTime or riseTime, as the axis, and
  *                            overshootPercent)
- * @param uncertainty         optional parameter box, as verify.uncertainty (monteCarloSamples at most 256 here)
+ * @param uncertainty         optional parameter box, as verify.uncertainty (monteCarloSamples at most 64 here)
  * @param actuatorLimit       optional |u| limit, u units
  * @param samplePeriod        optional period of the sampled law [s]
  * @param stepSize            the reference step the peak command is computed for, default 1

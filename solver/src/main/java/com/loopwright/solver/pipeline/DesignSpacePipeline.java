@@ -20,7 +20,7 @@ public final class DesignSpacePipeline {
     /** Cap on the points of each axis (a map has at most 64 x 64 cells). */
     public static final int MAX_AXIS_POINTS = 64;
     /** Cap on the seeded samples of the box, besides its at most 16 corners. */
-    public static final int MAX_BOX_SAMPLES = 256;
+    public static final int MAX_BOX_SAMPLES = 64;
     /** Subjects of the cap-exceeded failures. */
     public static final String TIME_AXIS = "timeAxis";
 
