@@ -70,6 +70,35 @@ class DesignSpaceEndpointTest extends LiveServerTest {
     }
 
     @Test
+    void readmeExampleAnswersTheNumbersTheReadmePrints() {
+        // README section "What can this plant do? The design-space map": the request and the printed numbers
+        LiveServer.Reply reply = server.post(
+                "/v1/design-spaces",
+                map("\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5},"
+                        + "\"uncertainty\":{\"b\":{\"spreadPercent\":10},\"d\":{\"spreadPercent\":10}},"
+                        + "\"actuatorLimit\":3,\"samplePeriod\":0.001"));
+        JsonNode body = reply.json();
+        JsonNode box = body.at("/spec/box");
+        assertEquals(0.2365, box.get("settlingTime").asDouble(), 1e-4);
+        assertEquals(2.519, box.get("overshootPercent").asDouble(), 1e-3);
+        assertEquals(0.5, box.get("meetingFraction").asDouble(), 0);
+        int feasible = 0;
+        for (JsonNode cell : body.get("cells")) {
+            feasible += cell.get("feasible").asBoolean() ? 1 : 0;
+        }
+        assertEquals(132, feasible);
+        assertEquals("actuatorLimit", body.at("/conditions/0/condition").asText());
+        assertEquals(92, body.at("/conditions/0/cells").asInt());
+        assertEquals(336, body.at("/conditions/1/cells").asInt());
+        double[] fastest = {0.1238, 0.1147, 0.1086, 0.1040, 0.1622, 0.1670, 0.1697, 0.1714};
+        for (int row = 0; row < fastest.length; row++) {
+            assertEquals(
+                    fastest[row], body.at("/fastest/" + row + "/settlingTime").asDouble(), 1e-4, "row " + row);
+        }
+        assertFalse(body.at("/fastest/8").has("settlingTime"));
+    }
+
+    @Test
     void sampledCellsAgreeWithTheDesignEndpoint() {
         // POST /v1/designs is the reference: 200 for a feasible cell, 422 for an infeasible one
         String plants[] = {

@@ -39,7 +39,7 @@ final class DesignSpaceConditions {
             case DAMPING_ABOVE_PLANT ->
                 "the loop must be more damped than the plant: p22 = (2 zeta wn - a1)/b^2 > 0 (a faster time spec"
                         + " helps)";
-            case GAMMA_CONDITION -> "no gamma makes the " + condition.meaning();
+            case GAMMA_CONDITION -> "fails for every gamma: " + condition.meaning();
             case ACTUATOR_LIMIT -> "the peak command of the step exceeds actuatorLimit";
             case SAMPLE_PERIOD ->
                 "the law sampled at samplePeriod fails the controller export's test (wn T <= 0.5 and the sampled"

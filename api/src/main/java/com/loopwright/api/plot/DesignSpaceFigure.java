@@ -47,10 +47,8 @@ public final class DesignSpaceFigure {
         DesignSpaceGrid grid = map.grid();
         long feasible = map.cells().stream().filter(DesignSpaceCell::feasible).count();
         String timeName = grid.settlingAxis() ? "settling time" : "rise time";
-        String title = "Design space: " + timeName + " x overshoot (" + feasible + " of "
-                + map.cells().size()
-                + " cells feasible" + (map.boxCases() > 0 ? ", box of " + map.boxCases() + " parameter sets" : "")
-                + ")";
+        String title = "Design space: " + feasible + " of " + map.cells().size() + " cells feasible"
+                + (map.boxCases() > 0 ? " (box of " + map.boxCases() + " parameter sets)" : "");
         double height = TOP + PANEL_HEIGHT + BOTTOM + LEGEND_HEIGHT;
         StringBuilder svg = new StringBuilder(64 * 1024);
         svg.append(String.format(
@@ -143,7 +141,7 @@ public final class DesignSpaceFigure {
 
     private static String reason(DesignSpaceCell cell) {
         return switch (cell.limit()) {
-            case GAMMA_CONDITION -> "no gamma: " + cell.condition().meaning();
+            case GAMMA_CONDITION -> "fails for every gamma: " + cell.condition().meaning();
             case STIFFNESS_ABOVE_PLANT -> "not stiffer than the plant";
             case DAMPING_ABOVE_PLANT -> "not more damped than the plant";
             case ACTUATOR_LIMIT -> "peak command above the actuator limit";
