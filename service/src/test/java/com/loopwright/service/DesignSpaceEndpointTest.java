@@ -198,6 +198,75 @@ class DesignSpaceEndpointTest extends LiveServerTest {
     }
 
     @Test
+    void hostileBodiesAreProblemsAtTheirField() {
+        // each: a body, the status, the pointer of the first error (common practice: RFC 9457 with JSON pointers)
+        String overshoot = "\"overshootPercent\":{\"lowest\":0.5,\"highest\":10,\"count\":3}";
+        String settling = "\"settlingTime\":{\"lowest\":0.03,\"highest\":0.3,\"count\":3}";
+        String[][] cases = {
+            {
+                "{" + AXIS + ",\"settlingTime\":{\"lowest\":NaN,\"highest\":0.3,\"count\":3}," + overshoot + "}",
+                "400",
+                "/settlingTime/lowest"
+            },
+            {
+                "{" + AXIS + ",\"settlingTime\":{\"lowest\":0.03,\"highest\":0.3,\"count\":2.5}," + overshoot + "}",
+                "400",
+                "/settlingTime/count"
+            },
+            {
+                "{" + AXIS + ",\"settlingTime\":{\"lowest\":0.03,\"highest\":0.3,\"count\":2147483647}," + overshoot
+                        + "}",
+                "422",
+                "/settlingTime/count"
+            },
+            {
+                "{" + AXIS + ",\"settlingTime\":{\"lowest\":0.03,\"highest\":0.3,\"count\":-4}," + overshoot + "}",
+                "400",
+                "/settlingTime/count"
+            },
+            {
+                "{" + AXIS + ",\"settlingTime\":{\"lowest\":-1,\"highest\":0.3,\"count\":3}," + overshoot + "}",
+                "400",
+                "/settlingTime/lowest"
+            },
+            {
+                "{" + AXIS + "," + settling + ",\"overshootPercent\":{\"lowest\":1,\"highest\":100,\"count\":3}}",
+                "400",
+                "/overshootPercent/highest"
+            },
+            {"{" + AXIS + "," + settling + "}", "400", "/overshootPercent"},
+            {"{" + AXIS + "," + overshoot + "}", "400", "/settlingTime"},
+            {map("\"uncertainty\":{\"b\":{\"lowest\":-1,\"highest\":1}}"), "400", "/uncertainty/b"},
+            {map("\"actuatorLimit\":0"), "400", "/actuatorLimit"},
+            {map("\"samplePeriod\":0"), "400", "/samplePeriod"},
+            {map("\"stepSize\":0"), "400", "/stepSize"},
+            {map("\"tolerancePercent\":-5"), "400", "/tolerancePercent"},
+            {map("\"spec\":{\"riseTime\":0.1,\"overshootPercent\":1.5}"), "400", "/spec/settlingTime"},
+            {map("\"extra\":1"), "400", "/extra"},
+            {
+                "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}," + settling + "," + overshoot + "}",
+                "400",
+                "/plant/form"
+            },
+        };
+        for (String[] hostile : cases) {
+            LiveServer.Reply reply = server.post("/v1/design-spaces", hostile[0]);
+            assertEquals(Integer.parseInt(hostile[1]), reply.status(), hostile[0] + " -> " + reply.text());
+            assertEquals(hostile[2], reply.json().at("/errors/0/pointer").asText(), hostile[0] + " -> " + reply.text());
+            assertFalse(reply.text().contains("Exception") || reply.text().contains("com.loopwright"), reply.text());
+        }
+        // extreme but valid plants are answered (200) or refused in engineering words (422), never 500
+        for (String plant : new String[] {
+            "\"plant\":{\"form\":\"canonical\",\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8}",
+            "\"plant\":{\"form\":\"canonical\",\"a0\":-1e8,\"a1\":-1e4,\"b\":1e8,\"d\":0}"
+        }) {
+            LiveServer.Reply reply = server.post(
+                    "/v1/design-spaces", "{" + plant + "," + settling + "," + overshoot + ",\"actuatorLimit\":1}");
+            assertTrue(reply.status() == 200 || reply.status() == 422, reply.text());
+        }
+    }
+
+    @Test
     void figureIsWellFormedCleanSvgWithAxesContourAndSpec() throws Exception {
         LiveServer.Reply reply = server.post(
                 "/v1/design-spaces/figure",
