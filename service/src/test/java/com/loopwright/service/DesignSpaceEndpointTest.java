@@ -283,7 +283,9 @@ class DesignSpaceEndpointTest extends LiveServerTest {
         assertTrue(reply.text().contains("overshoot [%]"));
         assertTrue(reply.text().contains("spec 0.15 s, 1.5 %: feasible"));
         assertEquals(1, count(svg, "polyline", "limit"), "the actuator-limit contour");
-        assertEquals(1, count(svg, "polyline", "series"), "the fastest feasible time");
+        // the fastest feasible time: two pieces, broken where it jumps from 0.104 s at 2 % to 0.162 s at 2.5 %
+        // (README example: above the 2 % band the settling time is set after the first peak)
+        assertEquals(2, count(svg, "polyline", "series"), "the fastest feasible time");
         assertTrue(count(svg, "rect", "feasible") > 0 && count(svg, "rect", "gamma") > 0);
         assertEquals(0, svg.getElementsByTagName("script").getLength());
         assertFalse(reply.text().contains("href")

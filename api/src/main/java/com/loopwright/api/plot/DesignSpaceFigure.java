@@ -25,6 +25,8 @@ public final class DesignSpaceFigure {
     static final double TOP = 48;
     static final double BOTTOM = 56;
     static final double LEGEND_HEIGHT = 64;
+    /** A row-to-row change of the fastest time above this many grid columns breaks the fastest-time line. */
+    static final int JUMP_COLUMNS = 2;
 
     private static final String STYLE = "<style>"
             + "svg{background:#fbfaf7}text{font-family:sans-serif;font-size:12px;fill:#2b2d42}"
@@ -150,11 +152,25 @@ public final class DesignSpaceFigure {
         };
     }
 
-    /** The fastest feasible time of each overshoot, joined over the rows that have one. */
+    /**
+     * The fastest feasible time of each overshoot, joined over neighbouring rows that have one; where it jumps by
+     * more than {@value #JUMP_COLUMNS} columns between two rows (for example where the overshoot passes the settling
+     * band and the settling time is set after the first peak) the line is broken rather than drawn across the gap.
+     */
     private static void fastest(SvgPanel panel, DesignSpaceMap map) {
+        double column = (map.grid().timeHighestSeconds() - map.grid().timeLowestSeconds())
+                / (map.grid().timeCount() - 1);
         List<double[]> points = new ArrayList<>();
         for (DesignSpaceRow row : map.rows()) {
-            if (row.fastestSeconds() != null && row.limitedBy() != DesignSpaceLimit.GRID_EDGE) {
+            boolean drawn = row.fastestSeconds() != null && row.limitedBy() != DesignSpaceLimit.GRID_EDGE;
+            boolean jump = drawn
+                    && !points.isEmpty()
+                    && Math.abs(row.fastestSeconds() - points.get(points.size() - 1)[0]) > JUMP_COLUMNS * column;
+            if (!drawn || jump) {
+                line(panel, "series", points);
+                points = new ArrayList<>();
+            }
+            if (drawn) {
                 points.add(new double[] {row.fastestSeconds(), row.overshootPercent()});
             }
         }
