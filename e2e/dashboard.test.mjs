@@ -120,7 +120,7 @@ try {
   near(num(table['position gain k1']), 1.57230, 1e-5, 'k1');
   near(num(table['velocity gain k2']), 0.0992069, 1e-6, 'k2');
   near(num(table['simulated settling time']), 0.15, 1e-5, 'settling time');
-  for (const id of ['fig-step-response', 'fig-control-effort', 'fig-bode']) {
+  for (const id of ['fig-step-response', 'fig-control-effort', 'fig-bode', 'fig-design-space']) {
     assert.equal(await page.$eval('#' + id, (img) => img.naturalWidth), 720, `${id} rendered`);
   }
   assert.equal(await page.$('#fig-uncertainty-band'), null, 'no uncertainty band without an uncertainty box');
@@ -140,6 +140,11 @@ try {
 
   // 2. Downloads: the figures' SVG, every controller export, the JSON request and the curl line.
   const svg = await download('#dl-step-response');
+  // The design-space map of the same plant marks the README spec feasible (POST /v1/design-spaces/figure).
+  const map = await download('#dl-design-space');
+  assert.match(map.text, /^<svg[^>]*xmlns="http:\/\/www.w3.org\/2000\/svg"/);
+  assert.match(map.text, /spec 0\.15 s, 1\.5 %: feasible/);
+  assert.match(map.text, /settling time \[s\]/);
   assert.equal(svg.name, 'step-response.svg');
   assert.match(svg.text, /<svg[\s>]/);
   const st = await download('#dl-export-structured-text');

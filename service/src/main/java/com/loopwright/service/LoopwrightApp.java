@@ -4,6 +4,8 @@ import static io.javalin.http.HandlerType.GET;
 import static io.javalin.http.HandlerType.POST;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
+import com.loopwright.api.designspace.DesignSpaceEndpoint;
+import com.loopwright.api.designspace.DesignSpaceFigureEndpoint;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.EndpointRunner;
 import com.loopwright.api.endpoint.Trace;
@@ -72,6 +74,8 @@ public final class LoopwrightApp {
     private static final String FIT_PATH = "/v1/models/fit";
     private static final String HIGH_ORDER_PATH = "/v1/designs/high-order";
     private static final String VERIFICATIONS_PATH = "/v1/verifications";
+    private static final String DESIGN_SPACES_PATH = "/v1/design-spaces";
+    private static final String DESIGN_SPACE_FIGURE_PATH = "/v1/design-spaces/figure";
 
     private LoopwrightApp() {}
 
@@ -142,6 +146,11 @@ public final class LoopwrightApp {
                 Route.keyed(POST, FIT_PATH, json.apply(FIT_PATH, new FitEndpoint())),
                 Route.keyed(POST, HIGH_ORDER_PATH, json.apply(HIGH_ORDER_PATH, new HighOrderEndpoint())),
                 Route.keyed(POST, VERIFICATIONS_PATH, json.apply(VERIFICATIONS_PATH, new VerificationEndpoint())),
+                Route.keyed(POST, DESIGN_SPACES_PATH, json.apply(DESIGN_SPACES_PATH, new DesignSpaceEndpoint())),
+                Route.keyed(
+                        POST,
+                        DESIGN_SPACE_FIGURE_PATH,
+                        json.apply(DESIGN_SPACE_FIGURE_PATH, new DesignSpaceFigureEndpoint())),
                 Route.keyed(POST, TakeawayRoute.PLOTS_PATH, plots),
                 Route.keyed(POST, TakeawayRoute.CONTROLLERS_PATH, controllers),
                 Route.open(GET, ContractRoute.PATH, new ContractRoute()),
@@ -150,7 +159,14 @@ public final class LoopwrightApp {
                 Route.open(GET, ReadinessRoute.PATH, new ReadinessRoute(draining::get, problems)),
                 Route.open(GET, MetricsRoute.PATH, new MetricsRoute(metrics)),
                 Route.open(GET, DashboardRoute.PATH, dashboard)));
-        List.of(DESIGNS_PATH, BatchRoute.PATH, FIT_PATH, HIGH_ORDER_PATH, VERIFICATIONS_PATH)
+        List.of(
+                        DESIGNS_PATH,
+                        BatchRoute.PATH,
+                        FIT_PATH,
+                        HIGH_ORDER_PATH,
+                        VERIFICATIONS_PATH,
+                        DESIGN_SPACES_PATH,
+                        DESIGN_SPACE_FIGURE_PATH)
                 .forEach(metrics::declareComputingRoute);
         metrics.declareComputingRoute(TakeawayRoute.PLOTS_PATH);
         metrics.declareComputingRoute(TakeawayRoute.CONTROLLERS_PATH);

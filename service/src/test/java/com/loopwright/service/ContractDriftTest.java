@@ -70,6 +70,10 @@ class ContractDriftTest {
         assertRecordMatchesSchema(DesignRequest.class, contract.component("DesignRequest"), "DesignRequest");
         assertRecordMatchesSchema(FitRequest.class, contract.component("FitRequest"), "FitRequest");
         assertRecordMatchesSchema(
+                com.loopwright.api.designspace.DesignSpaceRequest.class,
+                contract.component("DesignSpaceRequest"),
+                "DesignSpaceRequest");
+        assertRecordMatchesSchema(
                 VerificationRequest.class, contract.component("VerificationRequest"), "VerificationRequest");
     }
 
@@ -195,6 +199,31 @@ class ContractDriftTest {
         assertTracedResponseMatchesSchema(DesignResponse.class, contract.component("DesignResponse"), "DesignResponse");
         assertTracedResponseMatchesSchema(
                 VerificationResponse.class, contract.component("VerificationResponse"), "VerificationResponse");
+        assertTracedResponseMatchesSchema(
+                com.loopwright.api.designspace.DesignSpaceResponse.class,
+                contract.component("DesignSpaceResponse"),
+                "DesignSpaceResponse");
+    }
+
+    @Test
+    void documentedDesignSpaceCapsMatchTheCode() {
+        int axis = com.loopwright.solver.pipeline.DesignSpacePipeline.MAX_AXIS_POINTS;
+        int samples = com.loopwright.solver.pipeline.DesignSpacePipeline.MAX_BOX_SAMPLES;
+        assertDocumented("DesignSpaceResponse/properties/cells/maxItems", (double) axis * axis);
+        assertDocumented("DesignSpaceResponse/properties/fastest/maxItems", (double) axis);
+        assertTrue(contract.component("DesignSpaceAxis")
+                .at("/properties/count/description")
+                .asText()
+                .contains("cap " + axis));
+        String description = contract.document()
+                .at("/paths/~1v1~1design-spaces/post/description")
+                .asText();
+        assertTrue(description.contains(axis + " points per axis (at most " + axis + " x " + axis + " cells)"));
+        assertTrue(description.replace('\n', ' ').contains(samples + " box samples"), description);
+        // the cost model: the largest map the caps allow stays within the per-request budget
+        long largest = com.loopwright.api.design.ComputeBudget.designSpaceUnits((long) axis * axis, 16 + samples);
+        assertEquals(13_435, largest); // 4096 cells x (2 + 80) evaluations / 25, by hand
+        assertTrue(largest <= com.loopwright.api.design.ComputeBudget.MAX_REQUEST_WORK_UNITS);
     }
 
     @Test

@@ -64,6 +64,12 @@ public final class ComputeBudget {
     public static final long ROBUST_UNITS_PER_SAMPLE = 5;
     /** Frequency-response and time-series points returned, per unit. */
     public static final long POINTS_PER_UNIT = 30;
+    /**
+     * A design-space map (POST /v1/design-spaces): one unit per this many cell evaluations, a cell's nominal
+     * verdict counting as two and each box case as one (about 8 us and 4 us of CPU, measured by
+     * bench DesignSpaceBenchmark).
+     */
+    public static final long DESIGN_SPACE_EVALUATIONS_PER_UNIT = 25;
     /** At most this many cost drivers are named in a refusal (Problem.errors holds at most 32). */
     private static final int MAX_DRIVERS = VerifyLimits.MAX_FIELD_ERRORS - 1;
 
@@ -130,6 +136,16 @@ public final class ComputeBudget {
             parts.put("/verify/frequencyPoints", (points + POINTS_PER_UNIT - 1) / POINTS_PER_UNIT);
         }
         return parts;
+    }
+
+    /**
+     * The estimated work of a design-space map of {@code cells} cells whose feasible cells are judged on
+     * {@code boxCases} parameter sets (corners plus samples; 0 without a box). The caps (64 x 64 cells, 16 corners
+     * plus 64 samples) keep the largest map at 13,435 units, within {@link #MAX_REQUEST_WORK_UNITS}.
+     */
+    public static long designSpaceUnits(long cells, long boxCases) {
+        long evaluations = cells * (2 + boxCases);
+        return (evaluations + DESIGN_SPACE_EVALUATIONS_PER_UNIT - 1) / DESIGN_SPACE_EVALUATIONS_PER_UNIT;
     }
 
     /** The estimated work of one design request. */

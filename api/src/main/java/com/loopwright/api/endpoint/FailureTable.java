@@ -9,6 +9,7 @@ import com.loopwright.api.validation.SpecInput;
 import com.loopwright.solver.design.Infeasibility;
 import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.pipeline.DesignSpacePipeline;
 import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.PlantParameterException;
 import java.util.LinkedHashMap;
@@ -106,6 +107,9 @@ public final class FailureTable {
             case "INPUT_DELAY" -> verify + "/inputDelay";
             case "DISTURBANCE_TIMING" -> verify + "/disturbances/" + failure.index();
             case SolverFailure.ROBUST_SEARCH -> context.prefix() + "/robust";
+            case DesignSpacePipeline.TIME_AXIS -> context.timeSpecPointer() + "/count";
+            case DesignSpacePipeline.OVERSHOOT_AXIS -> "/overshootPercent/count";
+            case DesignSpacePipeline.BOX_SAMPLES -> "/uncertainty/monteCarloSamples";
             default -> verify;
         };
     }

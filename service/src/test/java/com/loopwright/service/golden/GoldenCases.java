@@ -36,6 +36,7 @@ final class GoldenCases {
         g.plainResources();
         g.keyed();
         g.extremes();
+        g.designSpaces();
         return List.copyOf(g.cases);
     }
 
@@ -389,6 +390,28 @@ final class GoldenCases {
             out.append(i == 0 ? "" : ",").append(num(values[i] == 0 ? 0.0 : values[i]));
         }
         return out.append(']').toString();
+    }
+
+    /** Design-space maps: small grids (the answer lists every cell), good, capped and invalid. */
+    private void designSpaces() {
+        String plant = "\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
+        String grid = "\"settlingTime\":{\"lowest\":0.05,\"highest\":0.2,\"count\":4},"
+                + "\"overshootPercent\":{\"lowest\":1.5,\"highest\":10,\"count\":3}";
+        String[] bodies = {
+            "{" + plant + "," + grid + ",\"spec\":" + AXIS_SPEC + "}",
+            "{" + plant + "," + grid + ",\"actuatorLimit\":3,\"samplePeriod\":0.004,"
+                    + "\"uncertainty\":{\"b\":{\"spreadPercent\":10},\"monteCarloSamples\":5,\"seed\":2}}",
+            "{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":2.5,\"damping\":4,\"stiffness\":150},"
+                    + "\"riseTime\":{\"lowest\":0.05,\"highest\":1,\"count\":3},"
+                    + "\"overshootPercent\":{\"lowest\":1,\"highest\":20,\"count\":2}}",
+            "{" + plant + ",\"settlingTime\":{\"lowest\":0.05,\"highest\":0.2,\"count\":65},"
+                    + "\"overshootPercent\":{\"lowest\":1.5,\"highest\":10,\"count\":3}}",
+            "{" + plant + "," + grid + ",\"riseTime\":{\"lowest\":0.05,\"highest\":0.2,\"count\":2}}",
+        };
+        for (int i = 0; i < bodies.length; i++) {
+            post(String.format(Locale.ROOT, "design-space-%02d", i), "/v1/design-spaces", bodies[i]);
+        }
+        post("design-space-figure-00", "/v1/design-spaces/figure", bodies[0]);
     }
 
     private void verifications() {

@@ -84,7 +84,7 @@ public final class SampledLawDesigner {
     }
 
     /** max |z| over the roots of z^2 - t z + d with t = m11 + m22, d = m11 m22 - m12 m21. */
-    static double spectralRadius(double m11, double m12, double m21, double m22) {
+    public static double spectralRadius(double m11, double m12, double m21, double m22) {
         double t = m11 + m22;
         double d = m11 * m22 - m12 * m21;
         double discriminant = t * t / 4 - d;
