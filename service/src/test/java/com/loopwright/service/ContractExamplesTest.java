@@ -394,6 +394,7 @@ class ContractExamplesTest {
                         "InfeasibleSpecProblem",
                         "FitFailedProblem",
                         "UnstableLoopProblem",
+                        "GridCapExceededProblem",
                         "ServiceOverloadedProblem"),
                 seen);
     }
@@ -439,6 +440,11 @@ class ContractExamplesTest {
                 open.post(
                         "/v1/verifications",
                         "{\"plant\":" + AXIS_PLANT + ",\"gain\":{\"k1\":-1,\"k2\":0.1,\"referenceGain\":1}}");
+            case "GridCapExceededProblem" ->
+                open.post(
+                        "/v1/design-spaces",
+                        "{\"plant\":" + AXIS_PLANT + ",\"settlingTime\":{\"lowest\":0.03,\"highest\":0.3,"
+                                + "\"count\":65},\"overshootPercent\":{\"lowest\":0.5,\"highest\":10,\"count\":20}}");
             case "ServiceOverloadedProblem" -> null;
             default -> throw new AssertionError("no live request for the problem example " + name);
         };
