@@ -97,10 +97,11 @@ class FloorToolsTest {
     @Test
     void inProcessMeasurementCountsDesignsOnEveryThread() throws Exception {
         InProcessDesigns designs = new InProcessDesigns(InProcessDesigns.e2eScenarios());
-        InProcessDesigns.Measurement result = designs.measure(2, 0.05, 0.2);
+        // A window of 1 s (not 0.2 s): on a loaded machine a short window can close before the first design does.
+        InProcessDesigns.Measurement result = designs.measure(2, 0.2, 1.0);
         assertEquals(2, result.threads());
         assertTrue(result.designs() > 0, "designs " + result.designs());
-        assertTrue(result.wallSeconds() >= 0.2 && result.wallSeconds() < 5, "wall " + result.wallSeconds());
+        assertTrue(result.wallSeconds() >= 1.0 && result.wallSeconds() < 10, "wall " + result.wallSeconds());
         assertTrue(result.cpuSeconds() > 0, "cpu " + result.cpuSeconds());
         // Every counted design wrote a whole answer: between the smallest and the largest of the six.
         int smallest = Integer.MAX_VALUE;
