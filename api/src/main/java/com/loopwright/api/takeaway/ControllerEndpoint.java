@@ -2,6 +2,7 @@ package com.loopwright.api.takeaway;
 
 import com.loopwright.api.design.Cautions;
 import com.loopwright.api.design.ValidatedDesign;
+import com.loopwright.api.endpoint.Attachment;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.endpoint.FailureTable;
@@ -16,9 +17,12 @@ import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.design.SampledLaw;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.pipeline.ControllerExport;
+import com.loopwright.solver.pipeline.ControllerOptions;
+import com.loopwright.solver.pipeline.ControllerTexts;
 import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.ExportPipeline;
+import com.loopwright.solver.pipeline.ExportProvenance;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
@@ -28,24 +32,24 @@ import java.util.Locale;
 import java.util.Optional;
 
 /**
- * POST /v1/designs/controllers/{format}, one format: the design, its emulated sampled law and the sampled loop's
- * step from the solver, written as IEC 61131-3 Structured Text, C, or a JSON parameter set. Stateless.
+ * POST /v1/designs/controllers/{format}, one format: the design, its emulated sampled law checked at the task
+ * period and the sampled loop's step from the solver, written as IEC 61131-3 Structured Text, a C header or source,
+ * a PLCopen XML project or a JSON parameter set, each an attachment named after the prefix. Stateless.
  */
 final class ControllerEndpoint implements Endpoint<ControllerRequest, ControllerEndpoint.Validated, ControllerExport> {
 
-    static final String STRUCTURED_TEXT = "text/plain; charset=utf-8";
-    static final String C_SOURCE = "text/x-c; charset=utf-8";
     private static final String TITLE = "Loopwright state-feedback controller (generated; review before use)";
+    private static final String DOUBLE = "double";
+    private static final String SINGLE = "single";
 
-    private final String format;
+    private final ControllerFormat format;
     private final TakeawayDesign designRequests = new TakeawayDesign();
     private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
     private final ExportPipeline exports = new ExportPipeline();
 
-    record Validated(ValidatedDesign design, double samplePeriod, double actuatorLimit) {}
+    record Validated(ValidatedDesign design, ControllerOptions options) {}
 
-    /** @param format one of {@link Takeaways#FORMATS} */
-    ControllerEndpoint(String format) {
+    ControllerEndpoint(ControllerFormat format) {
         this.format = format;
     }
 
@@ -58,7 +62,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     public Validated validate(ControllerRequest request) {
         if (request == null) {
             throw new InvalidRequestException(
-                    List.of(new FieldError("", "a JSON object with design," + " samplePeriod and actuatorLimit")));
+                    List.of(new FieldError("", "a JSON object with design, samplePeriod and actuatorLimit")));
         }
         List<FieldError> errors = new ArrayList<>();
         Double period = request.samplePeriod();
@@ -70,14 +74,98 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                     "must be a finite number from " + TakeawayLimits.MIN_SAMPLE_PERIOD + " to "
                             + TakeawayLimits.MAX_SAMPLE_PERIOD));
         }
-        if (request.actuatorLimit() == null) {
-            errors.add(new FieldError("/actuatorLimit", "required"));
-        } else {
-            TakeawayDesign.optionalPositive(
-                    errors, "/actuatorLimit", request.actuatorLimit(), TakeawayLimits.MAX_ACTUATOR_LIMIT);
+        double[] range = commandRange(request, errors);
+        OperatingPoint point = request.operatingPoint();
+        double output = 0;
+        double command = 0;
+        if (point != null) {
+            output = bounded(errors, "/operatingPoint/output", point.output(), TakeawayLimits.MAX_OPERATING_OUTPUT);
+            command = bounded(errors, "/operatingPoint/command", point.command(), TakeawayLimits.MAX_ACTUATOR_RANGE);
+            if (range != null && point.command() != null && !(command >= range[0] && command <= range[1])) {
+                errors.add(new FieldError(
+                        "/operatingPoint/command",
+                        "the command at the operating point must lie within the actuator's range " + range[0] + " to "
+                                + range[1]));
+            }
+        }
+        String prefix = request.prefix() == null ? TakeawayLimits.DEFAULT_PREFIX : request.prefix();
+        ControllerOptions.prefixProblem(prefix).ifPresent(why -> errors.add(new FieldError("/prefix", why)));
+        String precision = request.precision() == null ? DOUBLE : request.precision();
+        if (!precision.equals(DOUBLE) && !precision.equals(SINGLE)) {
+            errors.add(new FieldError("/precision", "must be \"double\" (LREAL/double) or \"single\" (REAL/float)"));
+        }
+        Double tolerance = request.periodTolerancePercent();
+        if (tolerance != null && !(tolerance > 0 && tolerance <= TakeawayLimits.MAX_PERIOD_TOLERANCE_PERCENT)) {
+            errors.add(new FieldError(
+                    "/periodTolerancePercent",
+                    "must be a finite number above 0 and at most " + TakeawayLimits.MAX_PERIOD_TOLERANCE_PERCENT));
         }
         ValidatedDesign design = designRequests.validate(request.design(), errors);
-        return new Validated(design, period, request.actuatorLimit());
+        return new Validated(
+                design,
+                new ControllerOptions(
+                        period,
+                        range[0],
+                        range[1],
+                        output,
+                        command,
+                        (tolerance == null ? TakeawayLimits.DEFAULT_PERIOD_TOLERANCE_PERCENT : tolerance) / 100,
+                        prefix,
+                        precision.equals(SINGLE)));
+    }
+
+    /** [lowest, highest] from exactly one of actuatorLimit and actuatorRange, or null after an error. */
+    private static double[] commandRange(ControllerRequest request, List<FieldError> errors) {
+        Double limit = request.actuatorLimit();
+        ActuatorRange range = request.actuatorRange();
+        if (limit != null && range != null) {
+            errors.add(new FieldError(
+                    "/actuatorRange",
+                    "give either actuatorLimit (symmetric, -limit to limit) or actuatorRange (lowest to highest),"
+                            + " not both"));
+            return null;
+        }
+        if (limit == null && range == null) {
+            errors.add(new FieldError(
+                    "/actuatorLimit", "required: actuatorLimit, or actuatorRange for a range not symmetric about 0"));
+            return null;
+        }
+        if (limit != null) {
+            int before = errors.size();
+            TakeawayDesign.optionalPositive(errors, "/actuatorLimit", limit, TakeawayLimits.MAX_ACTUATOR_LIMIT);
+            return errors.size() == before ? new double[] {-limit, limit} : null;
+        }
+        int before = errors.size();
+        double lowest = required(errors, "/actuatorRange/lowest", range.lowest());
+        double highest = required(errors, "/actuatorRange/highest", range.highest());
+        if (errors.size() > before) {
+            return null;
+        }
+        if (!(lowest < highest)) {
+            errors.add(new FieldError("/actuatorRange/highest", "must be above lowest (" + lowest + ")"));
+            return null;
+        }
+        return new double[] {lowest, highest};
+    }
+
+    private static double required(List<FieldError> errors, String pointer, Double value) {
+        if (value == null) {
+            errors.add(new FieldError(pointer, "required"));
+            return 0;
+        }
+        return bounded(errors, pointer, value, TakeawayLimits.MAX_ACTUATOR_RANGE);
+    }
+
+    /** The value, or 0 when absent; an error when it is not finite within [-max, max]. */
+    private static double bounded(List<FieldError> errors, String pointer, Double value, double max) {
+        if (value == null) {
+            return 0;
+        }
+        if (!(value >= -max && value <= max)) {
+            errors.add(new FieldError(pointer, "must be a finite number from " + -max + " to " + max));
+            return 0;
+        }
+        return value;
     }
 
     @Override
@@ -85,7 +173,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
         ValidatedDesign design = validated.design();
         DesignReport report = designs.design(
                 design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
-        return exports.export(report, validated.samplePeriod(), validated.actuatorLimit());
+        return exports.export(report, validated.options());
     }
 
     @Override
@@ -96,14 +184,19 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     /** The code's header states the service version and the request digest first; the parameter set its trace. */
     @Override
     public Object respond(Validated validated, ControllerExport export, Trace trace) {
+        String prefix = validated.options().prefix();
+        if (format == ControllerFormat.PARAMETERS) {
+            return new Attachment(prefix + "_parameters.json", parameters(export));
+        }
+        ControllerTexts texts = exports.texts(export, provenance(validated, export, trace));
         return switch (format) {
-            case "structured-text" ->
-                new Text(
-                        STRUCTURED_TEXT,
-                        exports.structuredText(export, TITLE, headerLines(validated, export, trace), Cautions.ALL));
-            case "c" ->
-                new Text(C_SOURCE, exports.cSource(export, TITLE, headerLines(validated, export, trace), Cautions.ALL));
-            default -> parameters(export);
+            case STRUCTURED_TEXT ->
+                new Attachment(texts.structuredTextFileName(), new Text(format.mediaType(), texts.structuredText()));
+            case C_HEADER -> new Attachment(texts.cHeaderFileName(), new Text(format.mediaType(), texts.cHeader()));
+            case C_SOURCE -> new Attachment(texts.cSourceFileName(), new Text(format.mediaType(), texts.cSource()));
+            case PLCOPEN_XML ->
+                new Attachment(texts.plcOpenXmlFileName(), new Text(format.mediaType(), texts.plcOpenXml()));
+            case PARAMETERS -> throw new IllegalStateException("answered above");
         };
     }
 
@@ -125,16 +218,21 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     private static ControllerParameters parameters(ControllerExport export) {
         DesignReport report = export.design();
         SampledLaw law = export.law();
+        ControllerOptions options = export.options();
         StepMetrics continuous = report.stepMetrics();
         return new ControllerParameters(
-                "u = clamp(kr*r - (k1*x1 + k2*x2), -actuatorLimit, actuatorLimit), evaluated once per sample period"
-                        + " and held until the next",
+                "u = clamp(command + g*v, lowest, highest) with v = kr*(r - output) - (k1*(x1 - output) + k2*x2),"
+                        + " (output, command) the operating point, (lowest, highest) the actuator range and g the"
+                        + " code's gain scale (1 at full gain); evaluated once per sample period and held until the"
+                        + " next; u = 0 while disabled",
                 "emulation",
                 law.samplePeriod(),
                 law.positionGain(),
                 law.velocityGain(),
                 law.referenceGain(),
-                law.actuatorLimit(),
+                new ActuatorRange(law.commandMin(), law.commandMax()),
+                new OperatingPoint(options.outputBias(), options.commandBias()),
+                100 * options.periodToleranceFraction(),
                 law.sampledSpectralRadius(),
                 law.periodPerTimeConstant(),
                 report.design().gamma(),
@@ -150,8 +248,11 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                 Cautions.ALL);
     }
 
-    /** The header's lines: the build and request, the plant, the specs, the target, the continuous and sampled step. */
-    private static List<String> headerLines(Validated validated, ControllerExport export, Trace trace) {
+    /**
+     * The header: the build and request, the plant, the specs, the target, the continuous and sampled step, the
+     * sampled loop's check, the cautions (the pipeline adds gamma and the design period).
+     */
+    private static ExportProvenance provenance(Validated validated, ControllerExport export, Trace trace) {
         DesignReport report = export.design();
         SampledLaw law = export.law();
         Optional<GridMetrics> sampledStep = export.sampledStep();
@@ -164,10 +265,7 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                         Locale.ROOT,
                         "rise time (10-90%%) %.6g s",
                         ((TimeSpec.RiseTime) report.spec().timeSpec()).seconds());
-        List<String> lines = new ArrayList<>(trace == null ? List.of() : trace.headerLines());
-        lines.addAll(List.of(
-                "Plant: x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w with a0 = " + p.a0() + ", a1 = " + p.a1() + ", b = "
-                        + p.b() + ", d = " + p.d(),
+        List<String> specs = List.of(
                 String.format(
                         Locale.ROOT,
                         "Specs: %s, overshoot %.6g%%",
@@ -198,8 +296,20 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                                 m.peakControl()))
                         .orElse("Simulated (sampled): not simulated (the sampled loop diverges or the period is too"
                                 + " short to simulate over the horizon)"),
-                "Certified: " + report.verification().certified()));
-        return lines;
+                String.format(
+                        Locale.ROOT,
+                        "Sampled loop (emulation, gains unchanged): spectral radius %s, wn T = %s",
+                        law.sampledSpectralRadius(),
+                        law.periodPerTimeConstant()),
+                "Certified: " + report.verification().certified());
+        return new ExportProvenance(
+                TITLE,
+                trace == null ? "unknown" : trace.serviceVersion(),
+                trace == null ? "none" : trace.requestDigest(),
+                "x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w with a0 = " + p.a0() + ", a1 = " + p.a1() + ", b = " + p.b()
+                        + ", d = " + p.d(),
+                specs,
+                Cautions.ALL);
     }
 
     private static String seconds(Double value) {

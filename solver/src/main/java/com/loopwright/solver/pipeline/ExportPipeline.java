@@ -4,26 +4,26 @@ import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.GridMetrics;
 import com.loopwright.solver.design.SampledLaw;
+import com.loopwright.solver.discrete.ControllerSettings;
 import com.loopwright.solver.discrete.DiscreteController;
-import com.loopwright.solver.export.CSourceWriter;
+import com.loopwright.solver.discrete.DiscreteControllers;
+import com.loopwright.solver.export.BlockPrefix;
 import com.loopwright.solver.export.ControllerCWriter;
 import com.loopwright.solver.export.ControllerExportOptions;
 import com.loopwright.solver.export.ControllerStructuredTextWriter;
-import com.loopwright.solver.export.ControllerTexts;
-import com.loopwright.solver.export.ExportHeader;
 import com.loopwright.solver.export.PlcOpenXmlWriter;
+import com.loopwright.solver.export.Precision;
 import com.loopwright.solver.export.ProvenanceHeader;
 import com.loopwright.solver.export.SampledLawDesigner;
 import com.loopwright.solver.export.SampledLawException;
-import com.loopwright.solver.export.StructuredTextWriter;
 import com.loopwright.solver.robustness.SampledStepMetrics;
 import java.time.Instant;
-import java.util.List;
 import java.util.Optional;
 
 /**
- * The front door of the controller export: the emulated sampled law of a verified design and the step of the
- * sampled loop it makes. Every failure is a {@link SolverFailure}. Stateless and thread-safe.
+ * The front door of the controller export: the emulated sampled law of a verified design, the step of the
+ * sampled loop it makes, and the law as Structured Text, C and PLCopen XML. Every failure of the law is a
+ * {@link SolverFailure}. Stateless and thread-safe.
  */
 public final class ExportPipeline {
 
@@ -32,17 +32,27 @@ public final class ExportPipeline {
     /** The longest sample period a law is built for. */
     public static final double MAX_SAMPLE_PERIOD = SampledLawDesigner.MAX_SAMPLE_PERIOD;
 
+    /**
+     * The PLCopen fileHeader creationDateTime of every export: fixed, so one request always gives the same bytes
+     * (the request digest in the header says which design it is).
+     */
+    public static final Instant PLCOPEN_CREATED = Instant.parse("2000-01-01T00:00:00Z");
+
     private final SampledLawDesigner lawDesigner = new SampledLawDesigner();
     private final SampledStepMetrics sampledMetrics = new SampledStepMetrics();
 
     /**
+     * The sampled law at the options' period and command range, checked (wn T and the spectral radius of the
+     * sampled loop), and the sampled loop's own step.
+     *
      * @throws SolverFailure SAMPLED_LAW_INFEASIBLE with subject {@link SolverFailure#SAMPLE_PERIOD} or
      *                       {@link SolverFailure#ACTUATOR_LIMIT}
      */
-    public ControllerExport export(DesignReport report, double samplePeriod, double actuatorLimit) {
+    public ControllerExport export(DesignReport report, ControllerOptions options) {
         SampledLaw law;
         try {
-            law = lawDesigner.emulate(report.design(), samplePeriod, actuatorLimit);
+            law = lawDesigner.emulate(
+                    report.design(), options.samplePeriod(), options.commandMin(), options.commandMax());
         } catch (SampledLawException e) {
             throw SolverFailure.about(
                     SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE,
@@ -59,26 +69,44 @@ public final class ExportPipeline {
                 report.stepSize(),
                 law.samplePeriod(),
                 report.bandFraction());
-        return new ControllerExport(report, law, sampledStep);
+        return new ControllerExport(report, law, sampledStep, options);
     }
 
     /**
-     * The law as an IEC 61131-3 Structured Text function block, under a comment header.
+     * The exported law as Structured Text, a C header and source pair and a PLCopen XML project under one
+     * provenance header (the caller's, with the design's gamma and period): u = clamp(u0 + g v, uMin, uMax) with
+     * v = kr (r - y0) - (k1 (x1 - y0) + k2 x2), gain scale g, bumpless enable, status and period check.
      *
-     * @param specLines the header's lines (plant, specs, simulated steps), written as given
-     * @throws IllegalArgumentException when a number cannot be written as source
+     * @throws IllegalArgumentException when a constant cannot be written (non-finite, or beyond REAL's range)
      */
-    public String structuredText(ControllerExport export, String title, List<String> specLines, List<String> cautions) {
-        return new StructuredTextWriter().write(header(export, title, specLines, cautions), export.law());
-    }
-
-    /**
-     * The law as a C function, under a comment header.
-     *
-     * @throws IllegalArgumentException when a number cannot be written as source
-     */
-    public String cSource(ControllerExport export, String title, List<String> specLines, List<String> cautions) {
-        return new CSourceWriter().write(header(export, title, specLines, cautions), export.law());
+    public ControllerTexts texts(ControllerExport export, ExportProvenance provenance) {
+        SampledLaw law = export.law();
+        ControllerOptions o = export.options();
+        DiscreteController controller = DiscreteControllers.fromStateFeedback(
+                law.samplePeriod(), law.positionGain(), law.velocityGain(), law.referenceGain());
+        // the velocity's operating point is 0: the bias of the second measured channel is 0
+        ControllerSettings settings = new ControllerSettings(
+                law.commandMin(),
+                law.commandMax(),
+                o.commandBias(),
+                new double[] {o.outputBias(), 0},
+                o.periodToleranceFraction());
+        ProvenanceHeader header = new ProvenanceHeader(
+                provenance.title(),
+                provenance.serviceVersion(),
+                provenance.requestDigest(),
+                provenance.plant(),
+                provenance.specLines(),
+                export.design().design().gamma(),
+                provenance.cautions());
+        return controllerTexts(
+                controller,
+                header,
+                new ControllerExportOptions(
+                        new BlockPrefix(o.prefix()),
+                        o.singlePrecision() ? Precision.SINGLE : Precision.DOUBLE,
+                        settings),
+                PLCOPEN_CREATED);
     }
 
     /**
@@ -95,17 +123,15 @@ public final class ExportPipeline {
             ControllerExportOptions options,
             Instant createdAt) {
         ControllerCWriter.Pair c = new ControllerCWriter().write(header, controller, options);
+        String block = options.prefix().blockName();
         return new ControllerTexts(
+                block + ".st",
                 new ControllerStructuredTextWriter().write(header, controller, options),
                 c.headerFileName(),
                 c.header(),
                 c.sourceFileName(),
                 c.source(),
+                block + ".xml",
                 new PlcOpenXmlWriter().write(header, controller, options, createdAt));
-    }
-
-    private static ExportHeader header(
-            ControllerExport export, String title, List<String> specLines, List<String> cautions) {
-        return new ExportHeader(title, specLines, export.design().design().gamma(), cautions);
     }
 }
