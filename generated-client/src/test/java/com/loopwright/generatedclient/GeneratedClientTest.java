@@ -11,24 +11,23 @@ import com.loopwright.client.ApiException;
 import com.loopwright.client.api.ControllersApi;
 import com.loopwright.client.api.DesignsApi;
 import com.loopwright.client.api.ModelsApi;
-import com.loopwright.client.model.BatchLine;
 import com.loopwright.client.model.BatchRequest;
+import com.loopwright.client.model.BatchStreamLine;
 import com.loopwright.client.model.ControllerParameters;
 import com.loopwright.client.model.ControllerRequest;
 import com.loopwright.client.model.DesignRequest;
 import com.loopwright.client.model.DesignResponse;
 import com.loopwright.client.model.FitRequest;
-import com.loopwright.client.model.FitRequestSamples;
 import com.loopwright.client.model.FitResponse;
 import com.loopwright.client.model.PlantDescription;
 import com.loopwright.client.model.PlantInput;
 import com.loopwright.client.model.Problem;
 import com.loopwright.client.model.SpecInput;
+import com.loopwright.client.model.StepTestSamples;
 import com.loopwright.service.LoopwrightApp;
 import com.loopwright.service.ServiceConfig;
 import io.javalin.Javalin;
 import java.io.IOException;
-import java.math.BigDecimal;
 import java.net.URI;
 import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
@@ -76,13 +75,13 @@ class GeneratedClientTest {
     /** Samples of the synthetic step test (the fit takes 8 to 20000). */
     private static final int FIT_SAMPLE_COUNT = 400;
 
-    /** The generated models carry JSON numbers (`type: number`, no format) as BigDecimal. */
-    private static BigDecimal num(double value) {
-        return BigDecimal.valueOf(value);
+    /** The generated models carry JSON numbers (`type: number, format: double`) as Double. */
+    private static Double num(double value) {
+        return value;
     }
 
-    private static double value(BigDecimal number) {
-        return number.doubleValue();
+    private static double value(Double number) {
+        return number;
     }
 
     private static Javalin service;
@@ -145,7 +144,7 @@ class GeneratedClientTest {
     /**
      * The generated createDesignBatch reads the body as ONE JSON value, so it cannot read an NDJSON stream of
      * several lines. The request therefore goes through the generated ApiClient's HttpClient, base URI, request
-     * interceptor and ObjectMapper, and each line is read into the generated BatchLine model.
+     * interceptor and ObjectMapper, and each line is read into the generated BatchStreamLine model (one class for every line of the stream).
      */
     @Test
     void batchStreamsOneTypedLinePerItemInOrder() throws Exception {
@@ -174,14 +173,15 @@ class GeneratedClientTest {
                         .split(";")[0]
                         .trim());
 
-        List<BatchLine> lines = new ArrayList<>();
+        List<BatchStreamLine> lines = new ArrayList<>();
         for (String line : response.body().split("\n")) {
-            lines.add(client.getObjectMapper().readValue(line, BatchLine.class));
+            lines.add(client.getObjectMapper().readValue(line, BatchStreamLine.class));
         }
         assertEquals(2, lines.size(), response.body());
 
-        BatchLine designed = lines.get(0);
+        BatchStreamLine designed = lines.get(0);
         assertEquals(0, designed.getIndex());
+        assertNull(designed.getResumeFromIndex(), "an item's line is no cut");
         assertEquals(200, designed.getStatus());
         assertNull(designed.getProblem());
         // An item is computed exactly as POST /v1/designs computes it: same gains to the last bit.
@@ -194,7 +194,7 @@ class GeneratedClientTest {
                 designed.getDesign().getGain().getK().get(1));
         assertTrue(designed.getDesign().getVerification().getCertified());
 
-        BatchLine refused = lines.get(1);
+        BatchStreamLine refused = lines.get(1);
         assertEquals(1, refused.getIndex());
         assertEquals(400, refused.getStatus());
         assertNull(refused.getDesign());
@@ -213,7 +213,7 @@ class GeneratedClientTest {
         double zeta = 0.4;
         double stepTime = 0.5; // s
         double duration = 4.0; // s
-        FitRequestSamples samples = new FitRequestSamples();
+        StepTestSamples samples = new StepTestSamples();
         for (int i = 0; i < FIT_SAMPLE_COUNT; i++) {
             double t = duration * i / (FIT_SAMPLE_COUNT - 1);
             samples.addTimeItem(num(t));

@@ -50,6 +50,25 @@ final class Contract {
     }
 
     /**
+     * A node under components/schemas by a slash-separated path such as
+     * "FitRequest/properties/samples/properties/time/maxItems", following every $ref on the way, so the path names
+     * the place in the request or response and not the component that happens to hold it.
+     */
+    JsonNode schemaAt(String path) {
+        JsonNode node = document.at("/components/schemas");
+        for (String segment : path.split("/")) {
+            node = resolve(node).path(segment);
+        }
+        return node;
+    }
+
+    /** The component a {"$ref": "#/components/schemas/X"} schema names, or the schema itself. */
+    JsonNode resolve(JsonNode schema) {
+        JsonNode ref = schema.get("$ref");
+        return ref == null ? schema : document.at(ref.asText().substring(1));
+    }
+
+    /**
      * The schema declared for a response: paths[path][method].responses[status].content[mediaType].schema,
      * compiled with the whole document as its root so that internal $refs resolve.
      */
@@ -67,6 +86,16 @@ final class Contract {
                     "openapi.yaml declares no " + mediaType + " body for " + method + " " + path + " " + status);
         }
         return compiled.computeIfAbsent(pointer, p -> {
+            ObjectNode root = document.deepCopy();
+            root.put("$ref", "#" + p);
+            return schemas.getSchema(root);
+        });
+    }
+
+    /** A named component schema compiled with the whole document as its root, so that internal $refs resolve. */
+    JsonSchema componentSchema(String name) {
+        component(name);
+        return compiled.computeIfAbsent("/components/schemas/" + name, p -> {
             ObjectNode root = document.deepCopy();
             root.put("$ref", "#" + p);
             return schemas.getSchema(root);

@@ -105,8 +105,7 @@ class ContractDriftTest {
         }
         assertEquals(emitted, types, "Problem.type enum");
         Set<String> warnings = new TreeSet<>();
-        contract.component("FitResponse")
-                .at("/properties/warnings/items/properties/code/enum")
+        contract.schemaAt("FitResponse/properties/warnings/items/properties/code/enum")
                 .forEach(n -> warnings.add(n.asText()));
         assertEquals(FitWarning.Code.values().length, warnings.size(), "FitResponse warning codes");
     }
@@ -161,9 +160,7 @@ class ContractDriftTest {
                 Map.entry("RiccatiSolution/properties/newtonSteps/maximum", (double)
                         PoleMatchedRiccati.MAX_NEWTON_STEPS));
         expected.forEach((pointer, value) -> {
-            JsonNode node = contract.document().at("/components/schemas/" + pointer);
-            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
-            assertEquals(value, node.asDouble(), 0, pointer);
+            assertDocumented(pointer, value);
         });
     }
 
@@ -205,10 +202,7 @@ class ContractDriftTest {
                 Map.entry(
                         "RobustnessResponse/properties/disturbances/maxItems", (double) VerifyLimits.MAX_DISTURBANCES));
         expected.forEach((key, value) -> {
-            String pointer = key.replace("#solver", "");
-            JsonNode node = contract.document().at("/components/schemas/" + pointer);
-            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
-            assertEquals(value, node.asDouble(), 0, key);
+            assertDocumented(key.replace("#solver", ""), value);
         });
         // the caps that only the computation knows are stated in the operation description
         String description = contract.document()
@@ -218,6 +212,30 @@ class ContractDriftTest {
         assertTrue(description.contains("200000"), "sample interval cap");
         assertTrue(description.contains(fmt(RobustnessVerifier.MAX_DISTURBANCE_TIMING_HORIZONS) + " nominal horizons"));
         assertTrue(description.contains(fmt(RobustnessVerifier.MAX_DELAY_HORIZONS) + " nominal horizon"));
+    }
+
+    /**
+     * A documented number at a schema path (through $refs). A path ending in /default names a default the server
+     * applies: the contract states it in the field's description in words ("default 2"), never as a `default:`
+     * keyword (a generated client would otherwise send it as if the caller had).
+     */
+    private void assertDocumented(String pointer, double value) {
+        if (pointer.endsWith("/default")) {
+            String field = pointer.substring(0, pointer.length() - "/default".length());
+            String description = contract.resolve(contract.schemaAt(field))
+                    .path("description")
+                    .asText();
+            String number = value == Math.rint(value) ? fmt(value) : String.valueOf(value);
+            assertTrue(
+                    Pattern.compile("(?i)\\bdefault:? " + Pattern.quote(number) + "(?![0-9.]*[0-9])")
+                            .matcher(description)
+                            .find(),
+                    field + " states its default " + number + " in words: " + description);
+            return;
+        }
+        JsonNode node = contract.schemaAt(pointer);
+        assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
+        assertEquals(value, node.asDouble(), 0, pointer);
     }
 
     private static String fmt(double value) {
@@ -261,10 +279,101 @@ class ContractDriftTest {
                         "FitRequest/properties/samples/properties/time/items/maximum", FitLimits.MAX_ABS_TIME_SECONDS),
                 Map.entry("FitRequest/properties/samples/properties/output/items/maximum", FitLimits.MAX_ABS_SIGNAL));
         expected.forEach((pointer, value) -> {
-            JsonNode node = contract.document().at("/components/schemas/" + pointer);
-            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
-            assertEquals(value, node.asDouble(), 0, pointer);
+            assertDocumented(pointer, value);
         });
+    }
+
+    /**
+     * What a client generator needs (issue 15): every object schema below a component or an operation is a named
+     * component (a $ref), every number says `format: double` and every integer int32 or int64, and no schema
+     * carries a `default:` (a default the server applies is stated in the description; see assertDocumented).
+     */
+    @Test
+    void schemasAreGeneratorReady() {
+        java.util.List<String> findings = new java.util.ArrayList<>();
+        contract.document()
+                .at("/components/schemas")
+                .fields()
+                .forEachRemaining(component -> inspectSchema(component.getValue(), component.getKey(), true, findings));
+        contract.document()
+                .get("paths")
+                .fields()
+                .forEachRemaining(path -> path.getValue()
+                        .fields()
+                        .forEachRemaining(operation -> operation
+                                .getValue()
+                                .findParents("schema")
+                                .forEach(parent -> inspectSchema(
+                                        parent.get("schema"),
+                                        path.getKey() + " " + operation.getKey(),
+                                        false,
+                                        findings))));
+        assertEquals(java.util.List.of(), findings);
+    }
+
+    private static void inspectSchema(JsonNode schema, String where, boolean top, java.util.List<String> findings) {
+        if (!schema.isObject() || schema.has("$ref")) {
+            return;
+        }
+        String type = schema.path("type").asText("");
+        if (!top && type.equals("object")) {
+            findings.add(where + ": inline object schema (name it under components/schemas)");
+        }
+        if (type.equals("number") && !schema.path("format").asText().equals("double")) {
+            findings.add(where + ": number without format double");
+        }
+        if (type.equals("integer")
+                && !Set.of("int32", "int64").contains(schema.path("format").asText())) {
+            findings.add(where + ": integer without format int32/int64");
+        }
+        if (schema.has("default")) {
+            findings.add(where + ": default keyword (state the default in the description)");
+        }
+        schema.path("properties")
+                .fields()
+                .forEachRemaining(p -> inspectSchema(p.getValue(), where + "." + p.getKey(), false, findings));
+        for (String key : new String[] {"items", "additionalProperties", "if", "then", "else", "not"}) {
+            inspectSchema(schema.path(key), where + "/" + key, false, findings);
+        }
+        for (String key : new String[] {"oneOf", "anyOf", "allOf"}) {
+            for (JsonNode branch : schema.path(key)) {
+                // a branch of bare constraints (required, const) is no object schema of its own
+                inspectSchema(branch, where + "/" + key, !branch.has("properties"), findings);
+            }
+        }
+    }
+
+    /** SpecInput states "exactly one of settlingTime or riseTime" in the schema itself (JSON Schema 2020-12). */
+    @Test
+    void specSchemaRequiresExactlyOneTimeSpec() throws Exception {
+        ObjectMapper json = new ObjectMapper();
+        com.networknt.schema.JsonSchema spec = contract.componentSchema("SpecInput");
+        assertTrue(spec.validate(json.readTree("{\"settlingTime\": 0.15, \"overshootPercent\": 1.5}"))
+                .isEmpty());
+        assertTrue(spec.validate(json.readTree("{\"riseTime\": 0.05, \"overshootPercent\": 1.5}"))
+                .isEmpty());
+        assertFalse(spec.validate(json.readTree("{\"overshootPercent\": 1.5}")).isEmpty(), "neither");
+        assertFalse(
+                spec.validate(json.readTree("{\"settlingTime\": 0.15, \"riseTime\": 0.05, \"overshootPercent\": 1.5}"))
+                        .isEmpty(),
+                "both");
+        // and the service refuses the same two at the same field (400)
+        try (LiveServer server = LiveServer.start()) {
+            String plant = "{\"form\": \"canonical\", \"a0\": 0, \"a1\": 0.48, \"b\": 400, \"d\": 400}";
+            assertEquals(
+                    400,
+                    server.post("/v1/designs", "{\"plant\": " + plant + ", \"spec\": {\"overshootPercent\": 1.5}}")
+                            .status(),
+                    "neither");
+            assertEquals(
+                    400,
+                    server.post(
+                                    "/v1/designs",
+                                    "{\"plant\": " + plant
+                                            + ", \"spec\": {\"settlingTime\": 0.15, \"riseTime\": 0.05, \"overshootPercent\": 1.5}}")
+                            .status(),
+                    "both");
+        }
     }
 
     @Test
@@ -342,9 +451,23 @@ class ContractDriftTest {
                         .at("/paths/~1v1~1designs~1batch/post"
                                 + "/responses/200/content/application~1x-ndjson/schema/$ref")
                         .asText());
-        JsonNode streamLine = contract.component("BatchStreamLine").get("oneOf");
-        assertEquals("#/components/schemas/BatchLine", streamLine.at("/0/$ref").asText());
-        assertEquals("#/components/schemas/BatchCut", streamLine.at("/1/$ref").asText());
+        // The stream line: one closed object with the members of both records, BatchCut when resumeFromIndex is
+        // present, else BatchLine.
+        JsonNode streamLine = contract.component("BatchStreamLine");
+        assertEquals("object", streamLine.path("type").asText(), "BatchStreamLine is one object schema");
+        assertEquals(false, streamLine.path("additionalProperties").asBoolean(true), "BatchStreamLine is closed");
+        Set<String> streamMembers = new TreeSet<>();
+        streamLine.get("properties").fieldNames().forEachRemaining(streamMembers::add);
+        Set<String> bothRecords = new TreeSet<>(components);
+        for (RecordComponent component : com.loopwright.service.routes.BatchCut.class.getRecordComponents()) {
+            bothRecords.add(component.getName());
+        }
+        assertEquals(bothRecords, streamMembers, "fields of BatchStreamLine");
+        assertEquals("resumeFromIndex", streamLine.at("/if/required/0").asText());
+        assertEquals(
+                "#/components/schemas/BatchCut", streamLine.at("/then/$ref").asText());
+        assertEquals(
+                "#/components/schemas/BatchLine", streamLine.at("/else/$ref").asText());
         JsonNode cut = contract.component("BatchCut");
         Set<String> cutComponents = new TreeSet<>();
         for (RecordComponent component : com.loopwright.service.routes.BatchCut.class.getRecordComponents()) {
@@ -450,9 +573,7 @@ class ContractDriftTest {
                 Map.entry("OperatingPoint/properties/command/minimum", -TakeawayLimits.MAX_ACTUATOR_RANGE),
                 Map.entry("PlotRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT));
         expected.forEach((pointer, value) -> {
-            JsonNode node = contract.document().at("/components/schemas/" + pointer);
-            assertTrue(node.isNumber(), "openapi.yaml lacks " + pointer);
-            assertEquals(value, node.asDouble(), 0, pointer);
+            assertDocumented(pointer, value);
         });
         // One operation per controller format, at its fixed path, with the format's one media type.
         Map<String, String> mediaTypes = Map.of(

@@ -89,9 +89,25 @@ public final class LoopMatrices {
         for (Complex_F64 pole : poles(closedLoop(plant, gains))) {
             slowest = Math.min(slowest, Math.abs(pole.real));
         }
+        return window(slowest, closedLoopDamping(plant, gains), closedLoopStiffness(plant, gains));
+    }
+
+    /**
+     * The same window as {@link #horizonSeconds(CanonicalPlant, FeedbackGains)} for the stable loop
+     * s^2 + c1 s + c0, with the slowest decay rate in closed form: sigma = c1/2 for complex poles, and
+     * c0 / (sigma + sqrt(sigma^2 - c0)) (the smaller root, free of cancellation) for real ones.
+     */
+    public static double horizonSeconds(double damping, double stiffness) {
+        double sigma = 0.5 * damping;
+        double discriminant = sigma * sigma - stiffness;
+        double slowest = discriminant <= 0 ? sigma : stiffness / (sigma + Math.sqrt(discriminant));
+        return window(slowest, damping, stiffness);
+    }
+
+    private static double window(double slowest, double damping, double stiffness) {
         double base = HORIZON_PER_TIME_CONSTANT / slowest;
-        double sigma = 0.5 * closedLoopDamping(plant, gains);
-        double discriminant = sigma * sigma - closedLoopStiffness(plant, gains);
+        double sigma = 0.5 * damping;
+        double discriminant = sigma * sigma - stiffness;
         if (discriminant < 0 && sigma > 0) {
             double firstPeak = Math.PI / Math.sqrt(-discriminant);
             if (Math.exp(-sigma * firstPeak) > NEGLIGIBLE_EXTREMUM && PEAK_ROOM * firstPeak > base) {

@@ -4,11 +4,11 @@ import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.loop.LoopMatrices;
-import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.norm.TwoStatePeakGain;
 import com.loopwright.solver.plant.CanonicalPlant;
-import com.loopwright.solver.simulation.LinearLoop;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import com.loopwright.solver.simulation.StepSimulator;
+import com.loopwright.solver.simulation.TwoStateStepMetrics;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -17,9 +17,11 @@ import org.ejml.data.DMatrixRMaj;
 
 /**
  * Evaluates the nominal gains on every corner of a parameter box and on seeded uniform Monte Carlo samples inside
- * it. Each case gets the exact step metrics of {@link StepResponseMetrics} (horizon
- * {@value LoopMatrices#HORIZON_PER_TIME_CONSTANT} slowest time constants) and the H-infinity norm from w to the
- * performance output. The samples are those of {@link ParameterSampler} with the given seed, so the same request
+ * it. Each case gets the exact step metrics of the two-state loop in closed form ({@link TwoStateStepMetrics}: the
+ * metrics {@link StepResponseMetrics} measures over a window of {@value LoopMatrices#HORIZON_PER_TIME_CONSTANT}
+ * slowest time constants, without the time simulation) and the exact H-infinity norm from w to the performance
+ * output ({@link TwoStatePeakGain}), a few microseconds per case. Saturation, delay and sampling are not part of
+ * this check; their checks keep the simulation. The samples are those of {@link ParameterSampler} with the given seed, so the same request
  * gives the same samples bit for bit, and the same ones the uncertainty-band figure draws.
  */
 public final class UncertaintyAnalyzer {
@@ -29,8 +31,7 @@ public final class UncertaintyAnalyzer {
     /** Grid used to bracket the exact step events (the metrics do not depend on it). */
     static final int BASE_GRID = 2000;
 
-    private final StepResponseMetrics metrics = new StepResponseMetrics();
-    private final HInfinityNormCalculator norms = new HInfinityNormCalculator();
+    private final TwoStatePeakGain peakGains = new TwoStatePeakGain();
 
     /**
      * @param performanceOutput C_z with z = C_z x (p x 2)
@@ -112,15 +113,8 @@ public final class UncertaintyAnalyzer {
         }
         StepMetrics step = null;
         try {
-            double horizon = LoopMatrices.horizonSeconds(plant, gains);
-            double needed = Math.ceil(horizon
-                            * LoopMatrices.fastestOscillation(plant, gains)
-                            / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE)
-                    + 2;
-            if (needed <= StepSimulator.MAX_SAMPLES) {
-                LinearLoop loop = LinearLoop.ofStep(plant, gains);
-                step = metrics.measure(
-                        loop, stepSize, horizon, (int) Math.max(BASE_GRID, needed), limits.bandFraction());
+            if (measurable(plant, gains)) {
+                step = TwoStateStepMetrics.measure(plant, gains, stepSize, limits.bandFraction());
             }
         } catch (IllegalArgumentException e) {
             step = null; // not measurable in double precision (reported as a missing metric)
@@ -129,7 +123,8 @@ public final class UncertaintyAnalyzer {
         try {
             gain = plant.d() == 0
                     ? 0.0
-                    : norms.compute(
+                    : peakGains
+                            .compute(
                                     LoopMatrices.closedLoop(plant, gains),
                                     LoopMatrices.disturbanceInput(plant),
                                     performanceOutput)
@@ -151,6 +146,23 @@ public final class UncertaintyAnalyzer {
                 step.peakControl(),
                 gain,
                 meets);
+    }
+
+    /**
+     * The range the simulation measured before the closed form took over (a grid of at most
+     * {@link StepSimulator#MAX_SAMPLES} samples with {@link StepResponseMetrics#MAX_RADIANS_PER_SAMPLE} per sample
+     * over the window), kept so that an answer does not depend on the route: a loop with damping ratio below
+     * about 1e-4 stays unmeasured.
+     */
+    private static boolean measurable(CanonicalPlant plant, FeedbackGains gains) {
+        double damping = LoopMatrices.closedLoopDamping(plant, gains);
+        double stiffness = LoopMatrices.closedLoopStiffness(plant, gains);
+        double oscillation = Math.sqrt(Math.max(0, stiffness - 0.25 * damping * damping));
+        double needed = Math.ceil(LoopMatrices.horizonSeconds(damping, stiffness)
+                        * oscillation
+                        / StepResponseMetrics.MAX_RADIANS_PER_SAMPLE)
+                + 2;
+        return needed <= StepSimulator.MAX_SAMPLES;
     }
 
     /** Largest ratio metric / limit; unstable or unmeasured cases score infinity. */

@@ -7,6 +7,8 @@ package com.loopwright.solver.spec;
  *   zeta = 1:  y = 1 - exp(-tau)(1 + tau)
  *   zeta &gt; 1:  y = 1 - (r2 exp(-r1 tau) - r1 exp(-r2 tau))/(r2 - r1),   r1,2 = zeta -+ sqrt(zeta^2 - 1)
  * </pre>
+ * and its rate dy/dtau, the impulse response e^(-zeta tau) sin(s tau)/s, tau e^(-tau) and
+ * (exp(-r1 tau) - exp(-r2 tau))/(r2 - r1) (r1 r2 = 1) in the same three cases.
  */
 public final class NormalizedStepResponse {
 
@@ -55,6 +57,26 @@ public final class NormalizedStepResponse {
         double r1 = zeta - root;
         double r2 = zeta + root;
         return 1 - (r2 * Math.exp(-r1 * tau) - r1 * Math.exp(-r2 * tau)) / (r2 - r1);
+    }
+
+    /** True when zeta is within the critical tolerance of 1, where the critically damped formulas are used. */
+    public boolean criticallyDamped() {
+        return !underdamped() && dampingRatio <= 1 + CRITICAL_TOLERANCE;
+    }
+
+    /** dy/dtau for tau &gt;= 0 (the impulse response of the normalized loop). */
+    public double rate(double tau) {
+        double zeta = dampingRatio;
+        if (underdamped()) {
+            return Math.exp(-zeta * tau) / dampedRatio * Math.sin(dampedRatio * tau);
+        }
+        if (criticallyDamped()) {
+            return tau * Math.exp(-tau);
+        }
+        double root = Math.sqrt(zeta * zeta - 1);
+        double r1 = 1 / (zeta + root);
+        double r2 = zeta + root;
+        return (Math.exp(-r1 * tau) - Math.exp(-r2 * tau)) / (r2 - r1);
     }
 
     /** Normalized time of the k-th extremum (k &gt;= 1) of the underdamped response: tau_k = k pi / s. */
