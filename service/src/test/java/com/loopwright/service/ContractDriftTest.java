@@ -16,6 +16,8 @@ import com.loopwright.api.fit.FitResponse;
 import com.loopwright.api.highorder.HighOrderDesignRequest;
 import com.loopwright.api.highorder.HighOrderDesignResponse;
 import com.loopwright.api.highorder.HighOrderLimits;
+import com.loopwright.api.loop.LoopCheck;
+import com.loopwright.api.loop.LoopLimits;
 import com.loopwright.api.plant.PlantFormName;
 import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.plot.Figure;
@@ -45,6 +47,7 @@ import java.lang.reflect.Type;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Iterator;
+import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
@@ -118,6 +121,31 @@ class ContractDriftTest {
                 HighOrderDesignResponse.class,
                 contract.component("HighOrderDesignResponse"),
                 "HighOrderDesignResponse");
+    }
+
+    /** The loop fields (issue 16): one validator, the same ranges and defaults in both design requests. */
+    @Test
+    void loopFieldRangesMatchTheValidator() {
+        for (String request : List.of("DesignRequest/properties/", "HighOrderDesignRequest/properties/")) {
+            assertDocumented(request + "integralPoleMultiple/minimum", LoopLimits.MIN_INTEGRAL_POLE_MULTIPLE);
+            assertDocumented(request + "integralPoleMultiple/maximum", LoopLimits.MAX_INTEGRAL_POLE_MULTIPLE);
+            assertDocumented(request + "integralPoleMultiple/default", LoopLimits.DEFAULT_INTEGRAL_POLE_MULTIPLE);
+            assertDocumented(request + "loadStepSize/default", LoopLimits.DEFAULT_LOAD_STEP);
+        }
+        assertDocumented("VerificationRequest/properties/loadStepSize/default", LoopLimits.DEFAULT_LOAD_STEP);
+        String observer = "ObserverInput/properties/";
+        assertDocumented(observer + "multiple/minimum", LoopLimits.MIN_OBSERVER_MULTIPLE);
+        assertDocumented(observer + "multiple/maximum", LoopLimits.MAX_OBSERVER_MULTIPLE);
+        assertDocumented(observer + "multiple/default", LoopLimits.DEFAULT_OBSERVER_MULTIPLE);
+        assertDocumented(observer + "processNoise/minimum", LoopLimits.MIN_NOISE_INTENSITY);
+        assertDocumented(observer + "processNoise/maximum", LoopLimits.MAX_NOISE_INTENSITY);
+        assertDocumented(observer + "measurementNoise/minimum", LoopLimits.MIN_NOISE_INTENSITY);
+        assertDocumented(observer + "measurementNoise/maximum", LoopLimits.MAX_NOISE_INTENSITY);
+        assertDocumented(observer + "sensorResolution/minimum", LoopLimits.MIN_SENSOR_RESOLUTION);
+        assertDocumented(observer + "sensorResolution/maximum", LoopLimits.MAX_SENSOR_RESOLUTION);
+        assertDocumented(observer + "samplePeriod/minimum", LoopLimits.MIN_SAMPLE_PERIOD);
+        assertDocumented(observer + "samplePeriod/maximum", LoopLimits.MAX_SAMPLE_PERIOD);
+        assertRecordMatchesSchema(LoopCheck.class, contract.component("LoopCheck"), "LoopCheck");
     }
 
     @Test

@@ -27,6 +27,14 @@ public final class ComputeBudget {
     public static final long MAX_REQUEST_WORK_UNITS = 50_000;
     /** A design with its independent verification (numeric Riccati, norm, step simulation): about 0.8 ms. */
     public static final long DESIGN_UNITS = 10;
+    /**
+     * The loop with integral action or an observer (integralAction true or measurement position): the augmented
+     * design, the norms, the margins on the log grid and the 20000-sample load step; timed at about 39 ms (a busy
+     * 2-core machine, in process, after warm-up).
+     */
+    public static final long LOOP_UNITS = 400;
+    /** The observer on top (measurement position): its Riccati or pole placement and the full loop's figures, 65 ms. */
+    public static final long OBSERVER_UNITS = 300;
     /** A verify object: nominal step, norm and loop margins. */
     public static final long VERIFY_UNITS = 10;
     /** One uncertain case (a corner or a Monte Carlo sample): a step simulation on the 2000-point grid. */
@@ -55,6 +63,15 @@ public final class ComputeBudget {
     public Map<String, Long> designParts(JsonNode request) {
         Map<String, Long> parts = new LinkedHashMap<>();
         parts.put("", DESIGN_UNITS);
+        boolean integral = request != null && request.path("integralAction").asBoolean(false);
+        boolean position =
+                request != null && "position".equals(request.path("measurement").asText(""));
+        if (integral || position) {
+            parts.put(integral ? "/integralAction" : "/measurement", LOOP_UNITS);
+        }
+        if (position) {
+            parts.put("/observer", OBSERVER_UNITS);
+        }
         JsonNode verify = request == null ? null : request.get("verify");
         if (verify == null || !verify.isObject()) {
             return parts;

@@ -3,6 +3,7 @@ package com.loopwright.api.design;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureContext;
 import com.loopwright.api.endpoint.FailureTable;
+import com.loopwright.api.loop.LoopResponseMapper;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.robustness.RobustnessResponse;
@@ -17,6 +18,8 @@ import com.loopwright.solver.design.ClosedFormDesign;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
+import com.loopwright.solver.pipeline.RealLoopPipeline;
+import com.loopwright.solver.pipeline.RealLoopReport;
 import com.loopwright.solver.pipeline.RobustnessPipeline;
 import com.loopwright.solver.pipeline.StateSpaceDesign;
 import com.loopwright.solver.robustness.AcceptanceLimits;
@@ -36,11 +39,16 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
 
     private static final String VERIFY_POINTER = "/verify";
 
+    /** The law's coordinates: the canonical states (model.units names their units). */
+    private static final String CANONICAL_COORDINATES = "canonical x = [x1, x2] (see model.units)";
+
     private final DesignRequestValidator validator = new DesignRequestValidator();
     private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
     private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
     private final RobustnessPipeline robustness = new RobustnessPipeline();
     private final DesignResponseMapper responses = new DesignResponseMapper();
+    private final RealLoopPipeline realLoops = new RealLoopPipeline();
+    private final LoopResponseMapper loopResponses = new LoopResponseMapper();
     private final RobustnessResponseMapper robustnessResponses = new RobustnessResponseMapper();
 
     /**
@@ -61,8 +69,13 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
      * @param report            the design and its verification
      * @param callerCoordinates the design in the caller's state-space coordinates, or null
      * @param robustness        the robustness checks, or null
+     * @param loop              the loop with integral action and/or an observer, or null when not asked for
      */
-    public record Result(DesignReport report, StateSpaceDesign callerCoordinates, RobustnessReport robustness) {}
+    public record Result(
+            DesignReport report,
+            StateSpaceDesign callerCoordinates,
+            RobustnessReport robustness,
+            RealLoopReport loop) {}
 
     @Override
     public Class<DesignRequest> requestType() {
@@ -88,6 +101,16 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     @Override
     public Result compute(Validated validated) {
         ValidatedDesign design = validated.design();
+        // the loop that runs first: an infeasible augmented design is named with its own proposal
+        RealLoopReport loop = null;
+        if (design.loop() != null) {
+            loop = realLoops.design(RealLoopPipeline.Request.canonical(
+                    design.plant(),
+                    design.spec(),
+                    design.gammaChoice(),
+                    design.loop().structure(),
+                    design.loop().loadStepSize()));
+        }
         DesignReport report = designs.design(
                 design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
         if (!validated.verifyErrors().isEmpty()) {
@@ -109,7 +132,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
         }
         StateSpaceDesign callerCoordinates =
                 designs.callerCoordinates(design.resolvedPlant().source(), report.design());
-        return new Result(report, callerCoordinates, checked);
+        return new Result(report, callerCoordinates, checked, loop);
     }
 
     @Override
@@ -132,7 +155,10 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                 result.report(),
                 result.callerCoordinates(),
                 robustnessResponse,
-                validated.verify() == null ? null : validated.verify().options());
+                validated.verify() == null ? null : validated.verify().options(),
+                result.loop() == null
+                        ? null
+                        : loopResponses.toSections(result.loop(), CANONICAL_COORDINATES, lawFormula(result.loop())));
     }
 
     @Override
@@ -148,6 +174,11 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                 : FailureContext.ROOT
                         .withTimeSpec(validated.design().timeSpecPointer())
                         .withSentSpec(validated.sentSpec());
+    }
+
+    private static String lawFormula(RealLoopReport loop) {
+        String state = loop.observer() == null ? "(k1*x1 + k2*x2)" : "(k1*x1_hat + k2*x2_hat)";
+        return loop.law().integralAction() ? "u = kr*r + ki*xi - " + state + ", xi' = r - x1" : "u = kr*r - " + state;
     }
 
     private static FeedbackGains gains(ClosedFormDesign design) {

@@ -1,5 +1,7 @@
 package com.loopwright.api.design;
 
+import com.loopwright.api.loop.LoopInput;
+import com.loopwright.api.loop.ObserverInput;
 import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.robustness.VerifyInput;
 import com.loopwright.api.validation.SpecInput;
@@ -7,12 +9,36 @@ import com.loopwright.api.validation.SpecInput;
 /**
  * Body of POST /v1/designs.
  *
- * @param verify optional robustness checks of the designed loop; absent means the design response as before
+ * @param verify               optional robustness checks of the designed loop; absent means the design response as
+ *                             before
+ * @param integralAction       integrate the tracking error (see {@link LoopInput}); absent means false
+ * @param integralPoleMultiple the integral pole as a multiple of the dominant real part
+ * @param measurement          "fullState" (default) or "position"
+ * @param observer             how the unmeasured states are estimated (position only)
+ * @param loadStepSize         the load step of the recovery figures
  */
-public record DesignRequest(PlantInput plant, SpecInput spec, VerifyInput verify) {
+public record DesignRequest(
+        PlantInput plant,
+        SpecInput spec,
+        VerifyInput verify,
+        Boolean integralAction,
+        Double integralPoleMultiple,
+        String measurement,
+        ObserverInput observer,
+        Double loadStepSize) {
 
     /** A request without robustness checks. */
     public DesignRequest(PlantInput plant, SpecInput spec) {
         this(plant, spec, null);
+    }
+
+    /** A request of today's plain full-state loop. */
+    public DesignRequest(PlantInput plant, SpecInput spec, VerifyInput verify) {
+        this(plant, spec, verify, null, null, null, null, null);
+    }
+
+    /** The loop-structure fields together. */
+    public LoopInput loop() {
+        return new LoopInput(integralAction, integralPoleMultiple, measurement, observer, loadStepSize);
     }
 }

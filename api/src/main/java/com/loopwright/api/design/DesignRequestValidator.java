@@ -2,6 +2,8 @@ package com.loopwright.api.design;
 
 import static com.loopwright.api.validation.FieldLimits.*;
 
+import com.loopwright.api.loop.LoopInputValidator;
+import com.loopwright.api.loop.ValidatedLoop;
 import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.plant.PlantInputValidator;
 import com.loopwright.api.plant.ResolvedPlant;
@@ -21,6 +23,7 @@ import java.util.Locale;
 public final class DesignRequestValidator {
 
     private final PlantInputValidator plants = new PlantInputValidator();
+    private final LoopInputValidator loops = new LoopInputValidator();
 
     /**
      * @throws InvalidRequestException            for missing, malformed or out-of-range fields (400)
@@ -70,6 +73,13 @@ public final class DesignRequestValidator {
                     new FieldError("/spec/gammaMargin", "must be above 1 and at most " + Checks.fmt(MAX_GAMMA_MARGIN)));
         }
         Checks.magnitude(errors, "/spec/stepSize", spec.stepSize(), Double.MIN_NORMAL, MAX_ABS_STEP, false);
+        ValidatedLoop loop = loops.validate(request.loop(), errors);
+        if (loop != null && rise) {
+            errors.add(new FieldError(
+                    "/spec/riseTime",
+                    "integral action and position-only sensing are designed from settlingTime: give settlingTime"
+                            + " instead"));
+        }
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
@@ -88,7 +98,8 @@ public final class DesignRequestValidator {
                 spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(),
                 band,
                 settling ? "/spec/settlingTime" : "/spec/riseTime",
-                resolved);
+                resolved,
+                loop);
     }
 
     /**

@@ -1,6 +1,10 @@
 package com.loopwright.api.design;
 
 import com.fasterxml.jackson.annotation.JsonInclude;
+import com.loopwright.api.loop.Law;
+import com.loopwright.api.loop.LoadStep;
+import com.loopwright.api.loop.Observer;
+import com.loopwright.api.loop.OutputFeedback;
 import com.loopwright.api.result.Gain;
 import com.loopwright.api.result.GammaBound;
 import com.loopwright.api.result.GammaInterval;
@@ -17,7 +21,8 @@ import java.util.List;
  * L2 gain bound from w to z = [rho1 x1, rho2 x2, u]. target, riccati, gammaBounds, gammaIntervals, weights, gain,
  * simulated and verification are the records every design result shares (package {@code api.result}); this
  * order-2 result adds plant and model. {@code robustness} is present only when the request asked
- * for it (verify). {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
+ * for it (verify); law, observer, outputFeedback and loadStep only when it asked for integral action or position-only
+ * sensing (observer and outputFeedback only for the latter). {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
  * strings; a client that acts on a note matches its code).
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
@@ -37,7 +42,11 @@ public record DesignResponse(
         List<String> noteCodes,
         List<String> cautions,
         Model model,
-        RobustnessResponse robustness) {
+        RobustnessResponse robustness,
+        Law law,
+        Observer observer,
+        OutputFeedback outputFeedback,
+        LoadStep loadStep) {
 
     public DesignResponse {
         gammaBounds = List.copyOf(gammaBounds);

@@ -1,5 +1,6 @@
 package com.loopwright.api.design;
 
+import com.loopwright.api.loop.LoopResponseMapper;
 import com.loopwright.api.result.Gain;
 import com.loopwright.api.result.GammaConditions;
 import com.loopwright.api.result.GammaInterval;
@@ -46,6 +47,19 @@ public final class DesignResponseMapper {
             StateSpaceDesign callerCoordinates,
             com.loopwright.api.robustness.RobustnessResponse robustness,
             RobustnessOptions verifyOptions) {
+        return toResponse(request, report, callerCoordinates, robustness, verifyOptions, null);
+    }
+
+    /**
+     * @param loop the sections of the loop with integral action and/or an observer (null for the plain loop)
+     */
+    public DesignResponse toResponse(
+            ValidatedDesign request,
+            DesignReport report,
+            StateSpaceDesign callerCoordinates,
+            com.loopwright.api.robustness.RobustnessResponse robustness,
+            RobustnessOptions verifyOptions,
+            LoopResponseMapper.Sections loop) {
         ClosedFormDesign design = report.design();
         Verification verification = report.verification();
         TargetDynamics target = design.target();
@@ -120,11 +134,15 @@ public final class DesignResponseMapper {
                         verification.specChecks().stream()
                                 .map(c -> new SpecCheck(c.spec(), c.requested(), c.simulated(), c.met()))
                                 .toList()),
-                notes.texts(),
-                notes.codes(),
+                loop == null ? notes.texts() : loop.appendNotes(notes.texts()),
+                loop == null ? notes.codes() : loop.appendCodes(notes.codes()),
                 Cautions.ALL,
                 ModelMapper.toModel(request.resolvedPlant(), design, callerCoordinates),
-                robustness);
+                robustness,
+                loop == null ? null : loop.law(),
+                loop == null ? null : loop.observer(),
+                loop == null ? null : loop.outputFeedback(),
+                loop == null ? null : loop.loadStep());
     }
 
     /**

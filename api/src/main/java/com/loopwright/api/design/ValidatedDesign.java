@@ -1,5 +1,6 @@
 package com.loopwright.api.design;
 
+import com.loopwright.api.loop.ValidatedLoop;
 import com.loopwright.api.plant.ResolvedPlant;
 import com.loopwright.solver.design.GammaChoice;
 import com.loopwright.solver.plant.CanonicalPlant;
@@ -15,6 +16,7 @@ import com.loopwright.solver.spec.DesignSpec;
  * @param bandFraction     settling band used for the simulated settling time
  * @param timeSpecPointer  JSON pointer of the time spec the caller gave (settlingTime or riseTime)
  * @param resolvedPlant    the caller's plant description and its conversion (canonical when not given)
+ * @param loop             integral action and/or position-only sensing, or null for today's plain full-state loop
  */
 public record ValidatedDesign(
         CanonicalPlant plant,
@@ -23,12 +25,25 @@ public record ValidatedDesign(
         double stepSize,
         double bandFraction,
         String timeSpecPointer,
-        ResolvedPlant resolvedPlant) {
+        ResolvedPlant resolvedPlant,
+        ValidatedLoop loop) {
 
     public ValidatedDesign {
         if (resolvedPlant == null) {
             resolvedPlant = ResolvedPlant.canonical(plant);
         }
+    }
+
+    /** A design of today's plain full-state loop. */
+    public ValidatedDesign(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction,
+            String timeSpecPointer,
+            ResolvedPlant resolvedPlant) {
+        this(plant, spec, gammaChoice, stepSize, bandFraction, timeSpecPointer, resolvedPlant, null);
     }
 
     /** A design of the canonical coefficients, without another plant description. */
@@ -39,6 +54,6 @@ public record ValidatedDesign(
             double stepSize,
             double bandFraction,
             String timeSpecPointer) {
-        this(plant, spec, gammaChoice, stepSize, bandFraction, timeSpecPointer, null);
+        this(plant, spec, gammaChoice, stepSize, bandFraction, timeSpecPointer, null, null);
     }
 }

@@ -1,5 +1,7 @@
 package com.loopwright.api.highorder;
 
+import com.loopwright.api.loop.LoopInput;
+import com.loopwright.api.loop.ObserverInput;
 import java.util.List;
 
 /**
@@ -9,9 +11,27 @@ import java.util.List;
  * @param spec           overshoot, settling time and design options
  * @param auxiliaryPoles where the n - 2 poles beyond the dominant pair go (default: real, 4 x its real part)
  * @param matchSpecs     true to adjust the dominant pair until the simulated loop meets the specs
+ * @param integralAction       integrate the tracking error (see {@link LoopInput}); absent means false
+ * @param integralPoleMultiple the integral pole as a multiple of the dominant real part
+ * @param measurement          "fullState" (default) or "position" (the output row numerator is what is measured)
+ * @param observer             how the unmeasured states are estimated (position only)
+ * @param loadStepSize         the load step of the recovery figures
  */
 public record HighOrderDesignRequest(
-        HighOrderPlantInput plant, HighOrderSpecInput spec, AuxiliaryPolesInput auxiliaryPoles, Boolean matchSpecs) {
+        HighOrderPlantInput plant,
+        HighOrderSpecInput spec,
+        AuxiliaryPolesInput auxiliaryPoles,
+        Boolean matchSpecs,
+        Boolean integralAction,
+        Double integralPoleMultiple,
+        String measurement,
+        ObserverInput observer,
+        Double loadStepSize) {
+
+    /** The loop-structure fields together. */
+    public LoopInput loop() {
+        return new LoopInput(integralAction, integralPoleMultiple, measurement, observer, loadStepSize);
+    }
 
     /**
      * The plant in controllable canonical form, lowest power first.

@@ -1,6 +1,10 @@
 package com.loopwright.api.highorder;
 
 import com.fasterxml.jackson.annotation.JsonInclude;
+import com.loopwright.api.loop.Law;
+import com.loopwright.api.loop.LoadStep;
+import com.loopwright.api.loop.Observer;
+import com.loopwright.api.loop.OutputFeedback;
 import com.loopwright.api.result.Gain;
 import com.loopwright.api.result.GammaBound;
 import com.loopwright.api.result.GammaInterval;
@@ -15,7 +19,8 @@ import java.util.List;
  * the request (z_1 the output-side state, z_n the state u drives); gamma bounds the L2 gain from w to
  * z_perf = [rho_1 z_1, ..., rho_n z_n, u]. target, riccati, gammaBounds, gammaIntervals, weights, gain, simulated
  * and verification are the records every design result shares (package {@code api.result}); this order-n result
- * adds order, coordinates and specMatching. Polynomial coefficients are highest power first.
+ * adds order, coordinates and specMatching. law, observer, outputFeedback and loadStep are present only when the
+ * request asked for integral action or position-only sensing (observer and outputFeedback only for the latter). Polynomial coefficients are highest power first.
  */
 public record HighOrderDesignResponse(
         int order,
@@ -33,7 +38,11 @@ public record HighOrderDesignResponse(
         Verification verification,
         List<String> notes,
         List<String> noteCodes,
-        List<String> cautions) {
+        List<String> cautions,
+        @JsonInclude(JsonInclude.Include.NON_NULL) Law law,
+        @JsonInclude(JsonInclude.Include.NON_NULL) Observer observer,
+        @JsonInclude(JsonInclude.Include.NON_NULL) OutputFeedback outputFeedback,
+        @JsonInclude(JsonInclude.Include.NON_NULL) LoadStep loadStep) {
 
     public HighOrderDesignResponse {
         gammaBounds = List.copyOf(gammaBounds);

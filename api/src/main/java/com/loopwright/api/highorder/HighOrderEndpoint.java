@@ -2,16 +2,30 @@ package com.loopwright.api.highorder;
 
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureTable;
+import com.loopwright.api.loop.LoopResponseMapper;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.solver.pipeline.HighOrderPipeline;
+import com.loopwright.solver.pipeline.RealLoopPipeline;
+import com.loopwright.solver.pipeline.RealLoopReport;
 
 /** POST /v1/designs/high-order: the order-n design of a companion plant or a state space. Stateless. */
 public final class HighOrderEndpoint
-        implements Endpoint<HighOrderDesignRequest, ValidatedHighOrderDesign, HighOrderPipeline.Result> {
+        implements Endpoint<HighOrderDesignRequest, ValidatedHighOrderDesign, HighOrderEndpoint.Result> {
+
+    /** The law's coordinates: the companion states of the request. */
+    private static final String COMPANION_COORDINATES = "companion z = [z1 .. zn] of the request";
 
     private final HighOrderRequestValidator validator = new HighOrderRequestValidator();
     private final HighOrderPipeline pipeline = new HighOrderPipeline();
+    private final RealLoopPipeline realLoops = new RealLoopPipeline();
     private final HighOrderResponseMapper responses = new HighOrderResponseMapper();
+    private final LoopResponseMapper loopResponses = new LoopResponseMapper();
+
+    /**
+     * @param design the plain order-n design
+     * @param loop   the loop with integral action and/or an observer, or null when not asked for
+     */
+    public record Result(HighOrderPipeline.Result design, RealLoopReport loop) {}
 
     @Override
     public Class<HighOrderDesignRequest> requestType() {
@@ -24,9 +38,9 @@ public final class HighOrderEndpoint
     }
 
     @Override
-    public HighOrderPipeline.Result compute(ValidatedHighOrderDesign input) {
+    public Result compute(ValidatedHighOrderDesign input) {
         ValidatedHighOrderDesign.StateSpace ss = input.stateSpace();
-        return pipeline.design(new HighOrderPipeline.Request(
+        HighOrderPipeline.Result design = pipeline.design(new HighOrderPipeline.Request(
                 input.plant(),
                 ss == null ? null : new HighOrderPipeline.StateSpace(ss.a(), ss.b2(), ss.b1(), ss.output()),
                 input.spec(),
@@ -36,16 +50,38 @@ public final class HighOrderEndpoint
                 input.stepSize(),
                 input.bandFraction(),
                 input.maxUndershootPercent()));
+        RealLoopReport loop = null;
+        if (input.loop() != null) {
+            loop = realLoops.design(new RealLoopPipeline.Request(
+                    input.plant(),
+                    input.spec(),
+                    input.auxiliary(),
+                    input.gammaChoice(),
+                    input.loop().structure(),
+                    input.loop().loadStepSize(),
+                    input.maxUndershootPercent()));
+        }
+        return new Result(design, loop);
     }
 
     @Override
-    public Object respond(ValidatedHighOrderDesign input, HighOrderPipeline.Result result) {
-        return responses.toResponse(input, result);
+    public Object respond(ValidatedHighOrderDesign input, Result result) {
+        return responses.toResponse(
+                input,
+                result.design(),
+                result.loop() == null
+                        ? null
+                        : loopResponses.toSections(result.loop(), COMPANION_COORDINATES, lawFormula(result.loop())));
     }
 
     @Override
     public Problem nonFinite(String pointer) {
         return FailureTable.unverifiable(
                 "the design's " + (pointer.isEmpty() ? "result" : pointer) + " is outside double precision");
+    }
+
+    private static String lawFormula(RealLoopReport loop) {
+        String state = loop.observer() == null ? "sum(k_i*z_i)" : "sum(k_i*z_i_hat)";
+        return loop.law().integralAction() ? "u = kr*r + ki*xi - " + state + ", xi' = r - y" : "u = kr*r - " + state;
     }
 }

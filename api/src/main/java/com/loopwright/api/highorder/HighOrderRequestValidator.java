@@ -8,6 +8,8 @@ import com.loopwright.api.highorder.HighOrderDesignRequest.AuxiliaryPolesInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.HighOrderPlantInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.HighOrderSpecInput;
 import com.loopwright.api.highorder.HighOrderDesignRequest.PoleInput;
+import com.loopwright.api.loop.LoopInputValidator;
+import com.loopwright.api.loop.ValidatedLoop;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.validation.Checks;
 import com.loopwright.api.validation.InvalidRequestException;
@@ -24,6 +26,8 @@ import java.util.List;
 
 /** Checks a high-order request; reports every offending field with its JSON pointer. */
 public final class HighOrderRequestValidator {
+
+    private final LoopInputValidator loops = new LoopInputValidator();
 
     public ValidatedHighOrderDesign validate(HighOrderDesignRequest request) {
         if (request == null) {
@@ -107,6 +111,13 @@ public final class HighOrderRequestValidator {
                 MAX_UNDERSHOOT_PERCENT,
                 false);
         AuxiliaryPlacement auxiliary = auxiliary(errors, request.auxiliaryPoles(), n);
+        ValidatedLoop loop = loops.validate(request.loop(), errors);
+        if (loop != null && stateSpace != null) {
+            errors.add(new FieldError(
+                    "/plant/stateSpace",
+                    "integral action and position-only sensing take the companion form (denominator, numerator, b,"
+                            + " disturbance): the numerator says what is measured"));
+        }
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
@@ -138,7 +149,8 @@ public final class HighOrderRequestValidator {
                 spec.stepSize() == null ? DEFAULT_STEP : spec.stepSize(),
                 band,
                 spec.maxUndershootPercent() == null ? DEFAULT_MAX_UNDERSHOOT_PERCENT : spec.maxUndershootPercent(),
-                stateSpace);
+                stateSpace,
+                loop);
     }
 
     private static AuxiliaryPlacement auxiliary(List<FieldError> errors, AuxiliaryPolesInput input, int n) {

@@ -2,6 +2,7 @@ package com.loopwright.api.highorder;
 
 import com.loopwright.api.design.Cautions;
 import com.loopwright.api.design.DesignNotes;
+import com.loopwright.api.loop.LoopResponseMapper;
 import com.loopwright.api.result.Gain;
 import com.loopwright.api.result.GammaConditions;
 import com.loopwright.api.result.GammaInterval;
@@ -50,6 +51,12 @@ public final class HighOrderResponseMapper {
 
     /** Formats the design, its verification and the spec check the solver computed (HighOrderPipeline). */
     public HighOrderDesignResponse toResponse(ValidatedHighOrderDesign request, HighOrderPipeline.Result result) {
+        return toResponse(request, result, null);
+    }
+
+    /** @param loop the sections of the loop with integral action and/or an observer (null for the plain loop) */
+    public HighOrderDesignResponse toResponse(
+            ValidatedHighOrderDesign request, HighOrderPipeline.Result result, LoopResponseMapper.Sections loop) {
         boolean fromStateSpace = result.fromStateSpace();
         SpecMatch match = result.match();
         HighOrderDesign design = result.design();
@@ -180,9 +187,13 @@ public final class HighOrderResponseMapper {
                         null,
                         specsMet,
                         specChecks(request, step, overshootPercent)),
-                notes,
-                codes,
-                Cautions.ALL);
+                loop == null ? notes : loop.appendNotes(notes),
+                loop == null ? codes : loop.appendCodes(codes),
+                Cautions.ALL,
+                loop == null ? null : loop.law(),
+                loop == null ? null : loop.observer(),
+                loop == null ? null : loop.outputFeedback(),
+                loop == null ? null : loop.loadStep());
     }
 
     /**

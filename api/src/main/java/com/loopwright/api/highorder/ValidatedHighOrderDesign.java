@@ -5,7 +5,10 @@ import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
 
-/** A high-order request that passed validation, in solver types. */
+/**
+ * A high-order request that passed validation, in solver types; {@code loop} is null for today's plain full-state
+ * loop.
+ */
 public record ValidatedHighOrderDesign(
         CompanionPlant plant,
         DesignSpec spec,
@@ -15,7 +18,8 @@ public record ValidatedHighOrderDesign(
         double stepSize,
         double bandFraction,
         double maxUndershootPercent,
-        StateSpace stateSpace) {
+        StateSpace stateSpace,
+        com.loopwright.api.loop.ValidatedLoop loop) {
 
     /** The state space as sent (null for a companion-form request), to be transformed. */
     public record StateSpace(

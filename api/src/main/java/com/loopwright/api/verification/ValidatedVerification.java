@@ -2,6 +2,7 @@ package com.loopwright.api.verification;
 
 import com.loopwright.api.robustness.ValidatedVerify;
 import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.pipeline.LoopCheckPipeline;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 
@@ -16,6 +17,7 @@ import com.loopwright.solver.robustness.AcceptanceLimits;
  * @param rho2        velocity weight of z, or null
  * @param gamma       bound to check the disturbance gain against, or null
  * @param verify      the checks
+ * @param loop        the loop section's check of the caller's law as it runs, or null when not asked for
  */
 public record ValidatedVerification(
         CanonicalPlant plant,
@@ -25,4 +27,5 @@ public record ValidatedVerification(
         Double rho1,
         Double rho2,
         Double gamma,
-        ValidatedVerify verify) {}
+        ValidatedVerify verify,
+        LoopCheckPipeline.Request loop) {}

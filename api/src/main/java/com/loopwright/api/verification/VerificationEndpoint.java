@@ -3,15 +3,23 @@ package com.loopwright.api.verification;
 import com.loopwright.api.design.Cautions;
 import com.loopwright.api.endpoint.Endpoint;
 import com.loopwright.api.endpoint.FailureTable;
+import com.loopwright.api.loop.LoopResponseMapper;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.robustness.RobustnessResponse;
 import com.loopwright.api.robustness.RobustnessResponseMapper;
+import com.loopwright.solver.pipeline.LoopCheckPipeline;
 import com.loopwright.solver.pipeline.RobustnessPipeline;
 import com.loopwright.solver.robustness.RobustnessReport;
 
 /** POST /v1/verifications: the robustness checks of a loop with the caller's gains. Stateless and thread-safe. */
 public final class VerificationEndpoint
-        implements Endpoint<VerificationRequest, ValidatedVerification, RobustnessReport> {
+        implements Endpoint<VerificationRequest, ValidatedVerification, VerificationEndpoint.Result> {
+
+    /**
+     * @param robustness the checks of u = kr r - K x
+     * @param loop       the law as it runs, or null when not asked for
+     */
+    public record Result(RobustnessReport robustness, LoopCheckPipeline.Report loop) {}
 
     private static final String POSITION_OUTPUT = "x1";
     private static final String WEIGHTED_OUTPUT = "z = [rho1 x1, rho2 x2, u]";
@@ -19,6 +27,8 @@ public final class VerificationEndpoint
     private final VerificationRequestValidator validator = new VerificationRequestValidator();
     private final RobustnessPipeline robustness = new RobustnessPipeline();
     private final RobustnessResponseMapper responses = new RobustnessResponseMapper();
+    private final LoopCheckPipeline loops = new LoopCheckPipeline();
+    private final LoopResponseMapper loopResponses = new LoopResponseMapper();
 
     @Override
     public Class<VerificationRequest> requestType() {
@@ -31,8 +41,8 @@ public final class VerificationEndpoint
     }
 
     @Override
-    public RobustnessReport compute(ValidatedVerification v) {
-        return robustness.check(
+    public Result compute(ValidatedVerification v) {
+        RobustnessReport checked = robustness.check(
                 v.plant(),
                 v.gains(),
                 v.stepSize(),
@@ -42,16 +52,18 @@ public final class VerificationEndpoint
                 v.gamma(),
                 v.verify().options(),
                 v.verify().toleranceFraction());
+        return new Result(checked, v.loop() == null ? null : loops.check(v.loop()));
     }
 
     @Override
-    public Object respond(ValidatedVerification v, RobustnessReport report) {
+    public Object respond(ValidatedVerification v, Result result) {
+        String performanceOutput = v.rho1() == null ? POSITION_OUTPUT : WEIGHTED_OUTPUT;
         RobustnessResponse checks = responses.toResponse(
-                report,
+                result.robustness(),
                 v.limits(),
                 100 * v.verify().toleranceFraction(),
                 v.stepSize(),
-                v.rho1() == null ? POSITION_OUTPUT : WEIGHTED_OUTPUT,
+                performanceOutput,
                 v.gamma(),
                 v.verify().options().seriesPoints());
         return new VerificationResponse(
@@ -62,7 +74,8 @@ public final class VerificationEndpoint
                         v.gains().velocityGain(),
                         v.gains().referenceGain()),
                 checks,
-                Cautions.ALL);
+                Cautions.ALL,
+                result.loop() == null ? null : loopResponses.toCheck(result.loop(), v.gamma(), performanceOutput));
     }
 
     @Override

@@ -18,6 +18,8 @@ import static com.loopwright.api.validation.FieldLimits.MIN_BAND_PERCENT;
 import static com.loopwright.api.validation.FieldLimits.MIN_OVERSHOOT_PERCENT;
 import static com.loopwright.api.validation.FieldLimits.MIN_TIME_SECONDS;
 
+import com.loopwright.api.loop.LoopInputValidator;
+import com.loopwright.api.loop.LoopLimits;
 import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.robustness.ValidatedVerify;
@@ -28,6 +30,8 @@ import com.loopwright.api.validation.Checks;
 import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.api.validation.SpecInput;
 import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.pipeline.LoopCheckPipeline;
+import com.loopwright.solver.pipeline.ObserverChoice;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 import java.util.ArrayList;
@@ -37,6 +41,7 @@ import java.util.List;
 public final class VerificationRequestValidator {
 
     private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
+    private final LoopInputValidator loops = new LoopInputValidator();
 
     public ValidatedVerification validate(VerificationRequest request) {
         if (request == null) {
@@ -59,7 +64,9 @@ public final class VerificationRequestValidator {
             Checks.magnitude(errors, "/gain/k1", gain.k1(), 0, MAX_ABS_GAIN, true);
             Checks.magnitude(errors, "/gain/k2", gain.k2(), 0, MAX_ABS_GAIN, true);
             Checks.magnitude(errors, "/gain/referenceGain", gain.referenceGain(), 0, MAX_ABS_GAIN, true);
+            Checks.magnitude(errors, "/gain/integralGain", gain.integralGain(), 0, MAX_ABS_GAIN, false);
         }
+        ObserverChoice.Kalman kalman = loopFields(request, errors);
         SpecInput spec = request.spec();
         Double settling = null;
         Double rise = null;
@@ -122,7 +129,85 @@ public final class VerificationRequestValidator {
                 performance == null ? null : performance.rho1(),
                 performance == null ? null : performance.rho2(),
                 performance == null ? null : performance.gamma(),
-                verify);
+                verify,
+                request.asksForLoop()
+                        ? new LoopCheckPipeline.Request(
+                                canonical,
+                                new double[] {gain.k1(), gain.k2()},
+                                gain.integralGain() == null ? 0 : gain.integralGain(),
+                                gain.referenceGain(),
+                                request.observerGain() == null
+                                        ? null
+                                        : request.observerGain().stream()
+                                                .mapToDouble(Double::doubleValue)
+                                                .toArray(),
+                                kalman,
+                                performance == null ? null : performance.rho1(),
+                                performance == null ? null : performance.rho2(),
+                                request.loadStepSize() == null ? LoopLimits.DEFAULT_LOAD_STEP : request.loadStepSize(),
+                                band,
+                                settling)
+                        : null);
+    }
+
+    /**
+     * measurement, observerGain, observer and loadStepSize: the observer gain is the caller's or a kalman observer
+     * designed for it, only with position sensing.
+     *
+     * @return the kalman observer asked for, or null
+     */
+    private ObserverChoice.Kalman loopFields(VerificationRequest request, List<FieldError> errors) {
+        String measurement = request.measurement() == null ? LoopLimits.FULL_STATE : request.measurement();
+        boolean position = LoopLimits.POSITION.equals(measurement);
+        if (!position && !LoopLimits.FULL_STATE.equals(measurement)) {
+            errors.add(new FieldError(
+                    "/measurement", "must be \"" + LoopLimits.FULL_STATE + "\" or \"" + LoopLimits.POSITION + "\""));
+            return null;
+        }
+        Checks.magnitude(
+                errors,
+                "/loadStepSize",
+                request.loadStepSize(),
+                LoopLimits.MIN_ABS_LOAD_STEP,
+                LoopLimits.MAX_ABS_LOAD_STEP,
+                false);
+        List<Double> observerGain = request.observerGain();
+        if (!position) {
+            if (observerGain != null) {
+                errors.add(new FieldError("/observerGain", "only with measurement \"position\""));
+            }
+            if (request.observer() != null) {
+                errors.add(new FieldError("/observer", "only with measurement \"position\""));
+            }
+            return null;
+        }
+        if (observerGain != null && request.observer() != null) {
+            errors.add(new FieldError("/observer", "give either observerGain or observer, not both"));
+            return null;
+        }
+        if (observerGain != null) {
+            if (observerGain.size() != 2) {
+                errors.add(new FieldError("/observerGain", "needs two entries [l1, l2], got " + observerGain.size()));
+                return null;
+            }
+            for (int i = 0; i < 2; i++) {
+                Checks.magnitude(errors, "/observerGain/" + i, observerGain.get(i), 0, MAX_ABS_GAIN, true);
+            }
+            return null;
+        }
+        if (request.observer() == null) {
+            errors.add(new FieldError(
+                    "/observerGain", "required with measurement \"position\" (or ask for a kalman observer)"));
+            return null;
+        }
+        if (!LoopLimits.KALMAN.equals(request.observer().method())) {
+            errors.add(new FieldError(
+                    "/observer/method",
+                    "must be \"kalman\" here: the poleMultiple observer multiplies designed poles; for your own gains"
+                            + " give observerGain or ask for a kalman observer"));
+            return null;
+        }
+        return (ObserverChoice.Kalman) loops.observerChoice(request.observer(), errors);
     }
 
     private static void range(List<FieldError> errors, String pointer, Double value, double min, double max) {

@@ -322,7 +322,7 @@ public final class RealLoopPipeline {
         return margins.margins(open.a(), open.input(), open.command(), closed.a());
     }
 
-    private static StepMetrics step(LoopSystem loop, TrackingLaw law, double horizon, double band) {
+    static StepMetrics step(LoopSystem loop, TrackingLaw law, double horizon, double band) {
         LinearLoop linear = linear(loop, law);
         return new StepResponseMetrics().measure(linear, 1, horizon, samples(loop.a(), horizon), band);
     }
