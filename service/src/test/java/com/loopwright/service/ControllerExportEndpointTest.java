@@ -270,6 +270,61 @@ class ControllerExportEndpointTest extends LiveServerTest {
         }
     }
 
+    /**
+     * The vertical axis of the loop tests: an 18 kg carriage, encoder only, integral action against its weight; the
+     * observer poles at 5 x the controller's.
+     */
+    private static final String VERTICAL_AXIS = "{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":18,\"damping\":60,"
+            + "\"stiffness\":0},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},\"integralAction\":true,"
+            + "\"measurement\":\"position\",\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5}}";
+    /** The same axis with a steady-state Kalman observer for a 1 um encoder: observer poles near 3900 (1 +- j) 1/s. */
+    private static final String VERTICAL_AXIS_KALMAN = VERTICAL_AXIS.replace(
+            "{\"method\":\"poleMultiple\",\"multiple\":5}",
+            "{\"method\":\"kalman\",\"processNoise\":25,\"sensorResolution\":1e-6,\"samplePeriod\":1e-3}");
+
+    /**
+     * Integral action with position-only sensing: every format exports the loop's controller (integrator and
+     * observer discretized exactly), the parameter set names its gains and the sampled loop's radius (below
+     * 0.999), the PLCopen body is the ST body, and a period at which the slowest mode barely decays is the 422.
+     */
+    @Test
+    void aLoopWithIntegralActionAndAnObserverIsExported() throws Exception {
+        String body = "{\"design\":" + VERTICAL_AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":400,"
+                + "\"prefix\":\"Lift\"}";
+        JsonNode design = server.post("/v1/designs", VERTICAL_AXIS).json();
+        LiveServer.Reply parameters = server.post(PATH + "parameters", body);
+        assertEquals(200, parameters.status(), parameters.text());
+        JsonNode p = parameters.json();
+        assertEquals("zeroOrderHold", p.get("discretization").asText());
+        assertEquals(
+                design.at("/law/integralGain").asDouble(), p.get("integralGain").asDouble(), 0, p.toString());
+        assertEquals(2, p.get("observerGain").size());
+        assertTrue(p.get("sampledSpectralRadius").asDouble() < 0.999);
+        assertFalse(p.has("sampledStep"));
+        String st = server.post(PATH + "structured-text", body).text();
+        assertTrue(st.contains("Integrator Q3 of r - y1; anti-windup by conditional integration"), st);
+        assertTrue(st.contains("Bumpless enable"), st);
+        assertTrue(st.contains("Loop: integral action (ki = "), st);
+        assertFalse(st.contains("Y2 :"), "position only");
+        String xml = server.post(PATH + "plcopen-xml", body).text();
+        String xmlBody = parse(xml).getElementsByTagNameNS("*", "ST").item(0).getTextContent();
+        assertEquals(
+                st.substring(st.lastIndexOf("END_VAR\n") + "END_VAR\n".length(), st.indexOf("END_FUNCTION_BLOCK")),
+                xmlBody);
+        assertTrue(server.post(PATH + "c-header", body).text().contains("#define LIFT_STATE_COUNT 3"));
+        LiveServer.Reply tooShort = server.post(
+                PATH + "c-source",
+                body.replace("\"samplePeriod\":0.001,\"actuatorLimit", "\"samplePeriod\":1e-5,\"actuatorLimit"));
+        assertEquals(422, tooShort.status(), tooShort.text());
+        assertEquals("/samplePeriod", tooShort.json().at("/errors/0/pointer").asText());
+        assertTrue(tooShort.json().get("detail").asText().contains("lengthen the period"), tooShort.text());
+        // observer poles with |s| T near 5.5: the sampled loop is unstable at 1 ms (a 422 the period explains)
+        LiveServer.Reply tooFast = server.post(PATH + "c-source", body.replace(VERTICAL_AXIS, VERTICAL_AXIS_KALMAN));
+        assertEquals(422, tooFast.status(), tooFast.text());
+        assertEquals("/samplePeriod", tooFast.json().at("/errors/0/pointer").asText());
+        assertTrue(tooFast.json().get("detail").asText().contains("unstable; shorten"), tooFast.text());
+    }
+
     private static void collect(Pattern pattern, String text, Set<String> into) {
         Matcher m = pattern.matcher(text);
         while (m.find()) {

@@ -23,10 +23,14 @@ import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.ExportPipeline;
 import com.loopwright.solver.pipeline.ExportProvenance;
+import com.loopwright.solver.pipeline.LoopExport;
+import com.loopwright.solver.pipeline.RealLoopPipeline;
+import com.loopwright.solver.pipeline.RealLoopReport;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
@@ -41,11 +45,14 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     private static final String TITLE = "Loopwright state-feedback controller (generated; review before use)";
     private static final String DOUBLE = "double";
     private static final String SINGLE = "single";
+    private static final String EMULATION = "emulation";
+    private static final String ZERO_ORDER_HOLD = "zeroOrderHold";
 
     private final ControllerFormat format;
     private final TakeawayDesign designRequests = new TakeawayDesign();
     private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
     private final ExportPipeline exports = new ExportPipeline();
+    private final RealLoopPipeline realLoops = new RealLoopPipeline();
 
     record Validated(ValidatedDesign design, ControllerOptions options) {}
 
@@ -171,9 +178,20 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     @Override
     public ControllerExport compute(Validated validated) {
         ValidatedDesign design = validated.design();
+        // the loop that runs first: an infeasible augmented design is named with its own proposal
+        RealLoopReport loop = design.loop() == null
+                ? null
+                : realLoops.design(RealLoopPipeline.Request.canonical(
+                        design.plant(),
+                        design.spec(),
+                        design.gammaChoice(),
+                        design.loop().structure(),
+                        design.loop().loadStepSize()));
         DesignReport report = designs.design(
                 design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
-        return exports.export(report, validated.options());
+        return loop == null
+                ? exports.export(report, validated.options())
+                : exports.export(report, loop, validated.options());
     }
 
     @Override
@@ -216,36 +234,81 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
     }
 
     private static ControllerParameters parameters(ControllerExport export) {
+        return export.loop().map(loop -> loopParameters(export, loop)).orElseGet(() -> plainParameters(export));
+    }
+
+    private static ControllerParameters plainParameters(ControllerExport export) {
         DesignReport report = export.design();
         SampledLaw law = export.law();
-        ControllerOptions options = export.options();
         StepMetrics continuous = report.stepMetrics();
         return new ControllerParameters(
                 "u = clamp(command + g*v, lowest, highest) with v = kr*(r - output) - (k1*(x1 - output) + k2*x2),"
                         + " (output, command) the operating point, (lowest, highest) the actuator range and g the"
                         + " code's gain scale (1 at full gain); evaluated once per sample period and held until the"
                         + " next; u = 0 while disabled",
-                "emulation",
+                EMULATION,
                 law.samplePeriod(),
                 law.positionGain(),
                 law.velocityGain(),
                 law.referenceGain(),
+                null,
+                null,
                 new ActuatorRange(law.commandMin(), law.commandMax()),
-                new OperatingPoint(options.outputBias(), options.commandBias()),
-                100 * options.periodToleranceFraction(),
+                operatingPoint(export),
+                100 * export.options().periodToleranceFraction(),
                 law.sampledSpectralRadius(),
                 law.periodPerTimeConstant(),
                 report.design().gamma(),
-                new RobustnessResponse.Metrics(
-                        continuous.riseTimeSeconds(),
-                        continuous.settlingTimeSeconds(),
-                        continuous.overshootPercent(),
-                        continuous.peakControl()),
+                metrics(continuous),
                 export.sampledStep()
                         .map(m -> new RobustnessResponse.Metrics(
                                 m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(), m.peakControl()))
                         .orElse(null),
                 Cautions.ALL);
+    }
+
+    /** The loop with integral action and/or an observer: its gains, the exact discretization, its own step. */
+    private static ControllerParameters loopParameters(ControllerExport export, LoopExport loop) {
+        SampledLaw law = export.law();
+        RealLoopReport report = loop.report();
+        double[] k = report.law().stateGain();
+        StepMetrics running = report.outputFeedback() == null
+                ? report.stateFeedbackStep()
+                : report.outputFeedback().step();
+        return new ControllerParameters(
+                "u = clamp(command + g*v, lowest, highest) with v = kr*(r - output) - (k1*xh1 + k2*xh2) + ki*xi,"
+                        + " xi the integral of r - x1 (held while disabled or when it would drive the clamp further),"
+                        + " (xh1, xh2) the measured state or, with position-only sensing, the observer's estimate"
+                        + " (observer driven by the applied command); the controller's states discretized exactly"
+                        + " for the sample period (zero-order hold); u = 0 while disabled",
+                ZERO_ORDER_HOLD,
+                law.samplePeriod(),
+                k[0],
+                k[1],
+                report.law().referenceGain(),
+                report.law().integralAction() ? report.law().integralGain() : null,
+                report.observer() == null
+                        ? null
+                        : Arrays.stream(report.observer().gain()).boxed().toList(),
+                new ActuatorRange(law.commandMin(), law.commandMax()),
+                operatingPoint(export),
+                100 * export.options().periodToleranceFraction(),
+                loop.sampledSpectralRadius(),
+                law.periodPerTimeConstant(),
+                report.design().gamma(),
+                metrics(running),
+                null,
+                Cautions.ALL);
+    }
+
+    private static OperatingPoint operatingPoint(ControllerExport export) {
+        return new OperatingPoint(
+                export.options().outputBias(), export.options().commandBias());
+    }
+
+    private static RobustnessResponse.Metrics metrics(StepMetrics m) {
+        return new RobustnessResponse.Metrics(
+                m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(), m.peakControl());
     }
 
     /**
@@ -265,43 +328,53 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                         Locale.ROOT,
                         "rise time (10-90%%) %.6g s",
                         ((TimeSpec.RiseTime) report.spec().timeSpec()).seconds());
-        List<String> specs = List.of(
-                String.format(
-                        Locale.ROOT,
-                        "Specs: %s, overshoot %.6g%%",
-                        time,
-                        100 * report.spec().overshootFraction()),
-                String.format(
-                        Locale.ROOT,
-                        "Target: damping ratio %.6g, natural frequency %.6g rad/s",
-                        target.dampingRatio(),
-                        target.naturalFrequencyRadPerSec()),
-                String.format(
-                        Locale.ROOT,
-                        "Simulated (continuous, unclamped): rise %.5g s, settling %.5g s,"
-                                + " overshoot %.5g%%, peak |u| %.5g",
-                        metrics.riseTimeSeconds(),
-                        metrics.settlingTimeSeconds(),
-                        metrics.overshootPercent(),
-                        metrics.peakControl()),
-                sampledStep
-                        .map(m -> String.format(
-                                Locale.ROOT,
-                                "Simulated (sampled at T = %s s, zero-order hold,"
-                                        + " unclamped, between samples): rise %s, settling %s, overshoot %.5g%%, peak |u| %.5g",
-                                law.samplePeriod(),
-                                seconds(m.riseTimeSeconds()),
-                                seconds(m.settlingTimeSeconds()),
-                                m.overshootPercent(),
-                                m.peakControl()))
-                        .orElse("Simulated (sampled): not simulated (the sampled loop diverges or the period is too"
-                                + " short to simulate over the horizon)"),
-                String.format(
-                        Locale.ROOT,
-                        "Sampled loop (emulation, gains unchanged): spectral radius %s, wn T = %s",
-                        law.sampledSpectralRadius(),
-                        law.periodPerTimeConstant()),
-                "Certified: " + report.verification().certified());
+        // a loop export quotes the step of the loop that runs (with its observer); the plain law's sampled step
+        // belongs to the plain law only
+        StepMetrics running = export.loop()
+                .map(loop -> loop.report().outputFeedback() == null
+                        ? loop.report().stateFeedbackStep()
+                        : loop.report().outputFeedback().step())
+                .orElse(metrics);
+        List<String> specs = new ArrayList<>();
+        specs.add(String.format(
+                Locale.ROOT,
+                "Specs: %s, overshoot %.6g%%",
+                time,
+                100 * report.spec().overshootFraction()));
+        specs.add(String.format(
+                Locale.ROOT,
+                "Target: damping ratio %.6g, natural frequency %.6g rad/s",
+                target.dampingRatio(),
+                target.naturalFrequencyRadPerSec()));
+        specs.add(String.format(
+                Locale.ROOT,
+                "Simulated (continuous, unclamped): rise %.5g s, settling %.5g s, overshoot %.5g%%, peak |u| %.5g",
+                running.riseTimeSeconds(),
+                running.settlingTimeSeconds(),
+                running.overshootPercent(),
+                running.peakControl()));
+        if (export.loop().isPresent()) {
+            specs.add(loopLine(export.loop().get()));
+        } else {
+            specs.add(sampledStep
+                    .map(m -> String.format(
+                            Locale.ROOT,
+                            "Simulated (sampled at T = %s s, zero-order hold,"
+                                    + " unclamped, between samples): rise %s, settling %s, overshoot %.5g%%, peak |u| %.5g",
+                            law.samplePeriod(),
+                            seconds(m.riseTimeSeconds()),
+                            seconds(m.settlingTimeSeconds()),
+                            m.overshootPercent(),
+                            m.peakControl()))
+                    .orElse("Simulated (sampled): not simulated (the sampled loop diverges or the period is too"
+                            + " short to simulate over the horizon)"));
+            specs.add(String.format(
+                    Locale.ROOT,
+                    "Sampled loop (emulation, gains unchanged): spectral radius %s, wn T = %s",
+                    law.sampledSpectralRadius(),
+                    law.periodPerTimeConstant()));
+        }
+        specs.add("Certified: " + report.verification().certified());
         return new ExportProvenance(
                 TITLE,
                 trace == null ? "unknown" : trace.serviceVersion(),
@@ -310,6 +383,29 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                         + ", d = " + p.d(),
                 specs,
                 Cautions.ALL);
+    }
+
+    /** The exported loop in one line: integrator, observer, the exact discretization and its check. */
+    private static String loopLine(LoopExport loop) {
+        RealLoopReport report = loop.report();
+        List<String> parts = new ArrayList<>();
+        if (report.law().integralAction()) {
+            parts.add(String.format(
+                    Locale.ROOT,
+                    "integral action (ki = %s, integral pole %.6g rad/s)",
+                    report.law().integralGain(),
+                    report.law().integralPoleRadPerSec()));
+        }
+        if (report.observer() != null) {
+            parts.add("position-only sensing with an observer (L = "
+                    + Arrays.toString(report.observer().gain()) + ", gamma "
+                    + report.design().gamma() + " certifies the state-feedback loop)");
+        }
+        return "Loop: " + String.join(", ", parts) + "; k = "
+                + Arrays.toString(report.law().stateGain())
+                + ", kr = " + report.law().referenceGain()
+                + "; discretized exactly for T (zero-order hold); sampled loop spectral radius "
+                + loop.sampledSpectralRadius();
     }
 
     private static String seconds(Double value) {

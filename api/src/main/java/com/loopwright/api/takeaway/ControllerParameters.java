@@ -8,11 +8,14 @@ import java.util.List;
  * The sampled controller as a parameter set (POST /v1/designs/controllers/parameters).
  *
  * @param law                    the law in words
- * @param discretization         how the continuous gains were carried to the sampled law ("emulation")
+ * @param discretization         how the continuous design was carried to the sampled controller: "emulation" (the
+ *                               plain law, gains unchanged) or "zeroOrderHold" (the loop's controller states)
  * @param samplePeriod           task period [s]
  * @param positionGain           k1
  * @param velocityGain           k2
  * @param referenceGain          kr (setpoint feedforward)
+ * @param integralGain           ki on the integral of r - x1, with integral action; else null
+ * @param observerGain           L of the observer, with position-only sensing; else null
  * @param actuatorRange          the command range the law clamps to (from actuatorLimit: -limit..limit)
  * @param operatingPoint         the operating point (output y0, command u0)
  * @param periodTolerancePercent the measured-period check's tolerance [% of samplePeriod]
@@ -32,6 +35,8 @@ public record ControllerParameters(
         double positionGain,
         double velocityGain,
         double referenceGain,
+        Double integralGain,
+        List<Double> observerGain,
         ActuatorRange actuatorRange,
         OperatingPoint operatingPoint,
         double periodTolerancePercent,
@@ -44,5 +49,6 @@ public record ControllerParameters(
 
     public ControllerParameters {
         cautions = List.copyOf(cautions);
+        observerGain = observerGain == null ? null : List.copyOf(observerGain);
     }
 }

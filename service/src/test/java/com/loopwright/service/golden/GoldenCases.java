@@ -564,6 +564,20 @@ final class GoldenCases {
                 "controller-limit-and-range",
                 "/v1/designs/controllers/parameters",
                 options.replace("\"samplePeriod\":0.001,", "\"samplePeriod\":0.001,\"actuatorLimit\":3,"));
+        // issue 17 part 2: the vertical axis with integral action and position-only sensing, exported as its loop
+        String lift = "{\"design\":{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":18,\"damping\":60,"
+                + "\"stiffness\":0},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},\"integralAction\":true,"
+                + "\"measurement\":\"position\",\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5}},"
+                + "\"samplePeriod\":0.001,\"actuatorRange\":{\"lowest\":-400,\"highest\":800},\"prefix\":\"Lift\"}";
+        for (String format : formats) {
+            post("controller-loop-" + format, "/v1/designs/controllers/" + format, lift);
+        }
+        post(
+                "controller-loop-observer-too-fast",
+                "/v1/designs/controllers/c-source",
+                lift.replace(
+                        "{\"method\":\"poleMultiple\",\"multiple\":5}",
+                        "{\"method\":\"kalman\",\"processNoise\":25,\"sensorResolution\":1e-6,\"samplePeriod\":1e-3}"));
         post(
                 "controller-retired-c-format",
                 "/v1/designs/controllers/c",
