@@ -33,7 +33,7 @@ done
 curl -fsS "http://$HOST:$PORT/health/ready" >/dev/null
 
 cat > "$work/design.json" <<'JSON'
-{"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}
+{"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}
 JSON
 
 # Warm up the JIT on both paths (bounded: 3 s each) before measuring.

@@ -21,10 +21,10 @@ import java.util.concurrent.atomic.AtomicInteger;
 public final class FairnessLoad {
 
     /** The README's indexing axis: the single design. */
-    static final String SINGLE = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    static final String SINGLE = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
     /** One item of 2036 work units: every coefficient +-10 % and 2000 Monte Carlo samples. */
-    static final String HEAVY_ITEM = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    static final String HEAVY_ITEM = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5},\"verify\":{\"uncertainty\":{"
             + "\"a0\":{\"spreadPercent\":10},\"a1\":{\"spreadPercent\":10},\"b\":{\"spreadPercent\":10},"
             + "\"d\":{\"spreadPercent\":10},\"monteCarloSamples\":2000}}}";

@@ -7,7 +7,7 @@
 # Fails (non-zero exit) unless the service answers 200 with a certified design.
 set -euo pipefail
 base="${1:-${LOOPWRIGHT_URL:-http://localhost:8080}}"
-request='{"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}'
+request='{"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}'
 max_attempts=3
 max_wait_seconds=10
 work=$(mktemp -d)

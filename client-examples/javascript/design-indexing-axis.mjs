@@ -9,7 +9,7 @@ const apiKey = (process.env.LOOPWRIGHT_API_KEY ?? '').trim();
 const MAX_ATTEMPTS = 3;
 const MAX_WAIT_SECONDS = 10;
 const design = {
-  plant: { a0: 0, a1: 0.48, b: 400, d: 400 },
+  plant: { form: 'canonical', a0: 0, a1: 0.48, b: 400, d: 400 },
   spec: { settlingTime: 0.15, overshootPercent: 1.5 },
 };
 

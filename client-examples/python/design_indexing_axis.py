@@ -14,7 +14,7 @@ import time
 import urllib.error
 import urllib.request
 
-DESIGN = {"plant": {"a0": 0, "a1": 0.48, "b": 400, "d": 400},
+DESIGN = {"plant": {"form": "canonical", "a0": 0, "a1": 0.48, "b": 400, "d": 400},
           "spec": {"settlingTime": 0.15, "overshootPercent": 1.5}}
 
 

@@ -33,7 +33,7 @@ class ExtremeInputsTest {
                             for (double os : overshoot) {
                                 String body = String.format(
                                         java.util.Locale.ROOT,
-                                        "{\"plant\":{\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s},"
+                                        "{\"plant\":{\"form\":\"canonical\",\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s},"
                                                 + "\"spec\":{\"settlingTime\":%s,\"overshootPercent\":%s}}",
                                         x0,
                                         x1,

@@ -26,7 +26,7 @@ public final class DesignClient {
 
     /** The README's scenario: an indexing axis, 0.15 s settling to 2%, at most 1.5% overshoot. */
     public static final String INDEXING_AXIS = """
-            {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}""";
+            {"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5}}""";
     /** Attempts in all when the service answers 503 (overloaded). */
     public static final int MAX_ATTEMPTS = 3;
     /** The longest wait between two attempts, whatever Retry-After says. */

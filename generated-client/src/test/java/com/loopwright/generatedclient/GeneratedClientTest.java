@@ -22,6 +22,7 @@ import com.loopwright.client.model.FitResponse;
 import com.loopwright.client.model.PlantDescription;
 import com.loopwright.client.model.PlantInput;
 import com.loopwright.client.model.Problem;
+import com.loopwright.client.model.RotaryAxisPlant;
 import com.loopwright.client.model.SpecInput;
 import com.loopwright.client.model.StepTestSamples;
 import com.loopwright.service.LoopwrightApp;
@@ -54,7 +55,12 @@ class GeneratedClientTest {
     private static final class Wire {
         /** Packaging-line indexing axis, the README's example: x2' = -0.48 x2 + 400 u + 400 w. */
         static PlantInput indexingAxis() {
-            return new PlantInput().a0(num(0)).a1(num(0.48)).b(num(400)).d(num(400));
+            return new PlantInput()
+                    .form(PlantInput.FormEnum.CANONICAL)
+                    .a0(num(0))
+                    .a1(num(0.48))
+                    .b(num(400))
+                    .d(num(400));
         }
 
         static final double SETTLING_TIME_SECONDS = 0.15;
@@ -277,6 +283,34 @@ class GeneratedClientTest {
         assertTrue(source.contains("#include \"Axis1.h\""), source);
         String project = Files.readString(controllers.exportPlcOpenXml(request).toPath());
         assertTrue(project.contains("<pou name=\"Axis1_Controller\" pouType=\"functionBlock\">"), project);
+    }
+
+    /**
+     * The plant's `form` is the discriminator of PlantDescription: the generated client sends it and reads a plant
+     * back into the class its form names. Scenario: the README's pick-and-place wrist, J = 0.004 kg m^2,
+     * c = 0.002 N m s/rad, kt = 0.12 N m/A, N = 10; J q'' + c q' = N kt i + w divided by J (Newton's second law for
+     * rotation, textbook) gives a1 = c/J and b = N kt/J.
+     */
+    @Test
+    void thePlantFormSelectsTheGeneratedPlantClass() throws Exception {
+        RotaryAxisPlant wrist = new RotaryAxisPlant()
+                .form(RotaryAxisPlant.FormEnum.ROTARY_AXIS)
+                .inertia(0.004)
+                .viscousFriction(0.002)
+                .torqueConstant(0.12)
+                .gearRatio(10.0);
+        DesignResponse design = new DesignsApi(client)
+                .createDesign(
+                        new DesignRequest().plant(new PlantDescription(wrist)).spec(Wire.spec(1.0)));
+        assertEquals("rotaryAxis", design.getModel().getForm().getValue());
+        assertEquals(0.002 / 0.004, value(design.getPlant().getA1()), 1e-12);
+        assertEquals(10 * 0.12 / 0.004, value(design.getPlant().getB()), 1e-9);
+
+        PlantDescription read = client.getObjectMapper()
+                .readValue(
+                        client.getObjectMapper().writeValueAsString(new PlantDescription(wrist)),
+                        PlantDescription.class);
+        assertEquals(wrist, read.getActualInstance());
     }
 
     @Test

@@ -22,7 +22,7 @@ class ClientExampleTest {
     private static final String KEY = "client-example-key-0001";
     /** Overshoot far above what a plant without stiffness can take with this method (the dashboard's example). */
     private static final String INFEASIBLE = """
-            {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":30}}""";
+            {"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":30}}""";
 
     @Test
     void sendsItsKeyAndPrintsEveryPartOfAProblem() throws Exception {

@@ -30,7 +30,7 @@ class ComputeBudgetTest {
 
     /** One design with every check at its cap (the item of the issue's 918 KB batch). */
     static final String EVERY_CHECK = """
-            {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5},
+            {"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":1.5},
              "verify":{"uncertainty":{"a0":{"spreadPercent":10},"a1":{"spreadPercent":10},
                "b":{"spreadPercent":10},"d":{"spreadPercent":10},"monteCarloSamples":2000,"seed":7},
               "disturbances":[{"shape":"step","amplitude":1},{"shape":"pulse","amplitude":1,"duration":0.05},

@@ -35,14 +35,17 @@ class ConcurrencyTest {
             new Call("POST", "/v1/designs", DesignClient.INDEXING_AXIS),
             // Camera gimbal axis, tank-level loop by rise time, conveyor without a disturbance channel.
             new Call("POST", "/v1/designs", """
-                    {"plant":{"a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}"""),
+                    {"plant":{"form":"canonical","a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}"""),
             new Call("POST", "/v1/designs", """
-                    {"plant":{"a0":0.04,"a1":0.5,"b":0.02,"d":0.05},
+                    {"plant":{"form":"canonical","a0":0.04,"a1":0.5,"b":0.02,"d":0.05},
                      "spec":{"riseTime":3,"overshootPercent":2,"settlingBandPercent":5}}"""),
             new Call("POST", "/v1/designs", """
-                    {"plant":{"a0":1,"a1":0.1,"b":3,"d":0},"spec":{"settlingTime":2,"overshootPercent":0.5}}"""),
+                    {"plant":{"form":"canonical","a0":1,"a1":0.1,"b":3,"d":0},"spec":{"settlingTime":2,"overshootPercent":0.5}}"""),
             new Call("POST", "/v1/designs", DesignClient.INDEXING_AXIS.replace("1.5}", "10}")),
-            new Call("POST", "/v1/designs", "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":{}}"),
+            new Call(
+                    "POST",
+                    "/v1/designs",
+                    "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":{}}"),
             new Call("POST", "/v1/designs", "{\"plant\":"),
             new Call(
                     "POST",

@@ -49,7 +49,7 @@ class DesignEndpointTest extends LiveServerTest {
     @Test
     void riseTimeSpecIsMetExactly() {
         var reply = server.post("/v1/designs", """
-                {"plant":{"a0":0.04,"a1":0.5,"b":0.02,"d":0.05},
+                {"plant":{"form":"canonical","a0":0.04,"a1":0.5,"b":0.02,"d":0.05},
                  "spec":{"riseTime":3,"overshootPercent":2,"settlingBandPercent":5}}""");
         assertEquals(200, reply.status(), reply.text());
         JsonNode design = reply.json();
@@ -63,10 +63,10 @@ class DesignEndpointTest extends LiveServerTest {
     @Test
     void fixedGammaAndStepSizeAreHonoured() {
         var first = server.post("/v1/designs", """
-                {"plant":{"a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""");
+                {"plant":{"form":"canonical","a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""");
         double gamma = 3 * first.json().get("gammaMin").asDouble();
         var reply = server.post("/v1/designs", """
-                {"plant":{"a0":0,"a1":2,"b":150,"d":60},
+                {"plant":{"form":"canonical","a0":0,"a1":2,"b":150,"d":60},
                  "spec":{"settlingTime":0.3,"overshootPercent":1,"gamma":%s,"stepSize":10}}""".formatted(gamma));
         assertEquals(200, reply.status(), reply.text());
         assertEquals(gamma, reply.json().get("gamma").asDouble(), 1e-12 * gamma);
@@ -81,7 +81,7 @@ class DesignEndpointTest extends LiveServerTest {
     @Test
     void noDisturbanceChannelGivesAFreeGamma() {
         var reply = server.post("/v1/designs", """
-                {"plant":{"a0":1,"a1":0.1,"b":3,"d":0},"spec":{"settlingTime":2,"overshootPercent":0.5}}""");
+                {"plant":{"form":"canonical","a0":1,"a1":0.1,"b":3,"d":0},"spec":{"settlingTime":2,"overshootPercent":0.5}}""");
         assertEquals(200, reply.status(), reply.text());
         assertEquals(0, reply.json().get("gammaMin").asDouble());
         assertEquals(0, reply.json().at("/verification/peakDisturbanceGain").asDouble());

@@ -40,7 +40,7 @@ class HighOrderEndpointTest extends LiveServerTest {
     void secondOrderAgreesWithTheClosedFormEndpoint() {
         JsonNode closed = server.post(
                         "/v1/designs",
-                        "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                                 + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}")
                 .json();
         JsonNode high = server.post(

@@ -11,7 +11,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 class HostileInputTest extends LiveServerTest {
 
     private static final String SPEC = "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}";
-    private static final String PLANT = "\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
+    private static final String PLANT = "\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
 
     private static void assertProblem(LiveServer.Reply reply, int status, String pointer) {
         assertEquals(status, reply.status(), reply.text());
@@ -39,30 +39,30 @@ class HostileInputTest extends LiveServerTest {
                 "null body                | null                                                                  | 400 | ``",
                 "unknown top-level field  | {" + PLANT + "," + SPEC
                         + ",\"extra\":1}                             | 400 | /extra",
-                "unknown plant field      | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"mass\":1}," + SPEC
-                        + "} | 400 | /plant/mass",
-                "string for a number      | {\"plant\":{\"a0\":\"0\",\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
-                "boolean for a number     | {\"plant\":{\"a0\":true,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
-                "object for a number      | {\"plant\":{\"a0\":{},\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
-                "NaN token                | {\"plant\":{\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
-                "Infinity token           | {\"plant\":{\"a0\":Infinity,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
-                "overflowing number       | {\"plant\":{\"a0\":1e400,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
-                "duplicate key            | {\"plant\":{\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
+                "unknown plant field      | {\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"mass\":1},"
+                        + SPEC + "} | 400 | /plant/mass",
+                "string for a number      | {\"plant\":{\"form\":\"canonical\",\"a0\":\"0\",\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
+                "boolean for a number     | {\"plant\":{\"form\":\"canonical\",\"a0\":true,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
+                "object for a number      | {\"plant\":{\"form\":\"canonical\",\"a0\":{},\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
+                "NaN token                | {\"plant\":{\"form\":\"canonical\",\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
+                "Infinity token           | {\"plant\":{\"form\":\"canonical\",\"a0\":Infinity,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
+                "overflowing number       | {\"plant\":{\"form\":\"canonical\",\"a0\":1e400,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
+                "duplicate key            | {\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
                 "missing plant            | {" + SPEC
                         + "}                                                        | 400 | /plant",
                 "missing spec             | {" + PLANT
                         + "}                                                       | 400 | /spec",
-                "missing b                | {\"plant\":{\"a0\":0,\"a1\":0.48,\"d\":400}," + SPEC
+                "missing b                | {\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"d\":400}," + SPEC
                         + "}             | 400 | /plant/b",
-                "zero b                   | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400}," + SPEC
-                        + "}     | 400 | /plant/b",
+                "zero b                   | {\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},"
+                        + SPEC + "}     | 400 | /plant/b",
                 "no time spec             | {" + PLANT
                         + ",\"spec\":{\"overshootPercent\":1.5}}                  | 400 | /spec/settlingTime",
                 "two time specs           | {" + PLANT
@@ -79,8 +79,8 @@ class HostileInputTest extends LiveServerTest {
                         + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"gamma\":5,\"gammaMargin\":2}} | 400 | /spec/gammaMargin",
                 "zero step                | {" + PLANT
                         + ",\"spec\":{\"settlingTime\":1,\"overshootPercent\":1,\"stepSize\":0}} | 400 | /spec/stepSize",
-                "huge a0                  | {\"plant\":{\"a0\":1e300,\"a1\":0.48,\"b\":400,\"d\":400}," + SPEC
-                        + "} | 400 | /plant/a0",
+                "huge a0                  | {\"plant\":{\"form\":\"canonical\",\"a0\":1e300,\"a1\":0.48,\"b\":400,\"d\":400},"
+                        + SPEC + "} | 400 | /plant/a0",
             })
     void malformedOrOutOfRangeBodiesAreRejected(String name, String body, int status, String pointer) {
         assertProblem(server.post("/v1/designs", body), status, pointer.isEmpty() ? null : pointer);
@@ -133,7 +133,7 @@ class HostileInputTest extends LiveServerTest {
     void everyInvalidFieldIsListed() {
         var reply = server.post(
                 "/v1/designs",
-                "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":{\"settlingTime\":-1,\"overshootPercent\":200}}");
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":{\"settlingTime\":-1,\"overshootPercent\":200}}");
         assertProblem(reply, 400, null);
         assertEquals(3, reply.json().get("errors").size(), reply.text());
     }

@@ -22,7 +22,7 @@ class InfeasibleSpecTest extends LiveServerTest {
     @Test
     void tooMuchOvershootForAnIndexingAxis() {
         var reply = server.post("/v1/designs", """
-                {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":10}}""");
+                {"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":10}}""");
         assertEquals(422, reply.status(), reply.text());
         assertEquals(
                 "/spec/overshootPercent", reply.json().at("/errors/0/pointer").asText());
@@ -31,7 +31,7 @@ class InfeasibleSpecTest extends LiveServerTest {
                 proposal(reply.json(), "/spec/overshootPercent").get("value").asDouble();
         assertTrue(proposed < 4.33 && proposed > 3.5, "proposal " + proposed);
         var retry = server.post("/v1/designs", """
-                {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":%s}}""".formatted(proposed));
+                {"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},"spec":{"settlingTime":0.15,"overshootPercent":%s}}""".formatted(proposed));
         assertEquals(200, retry.status(), retry.text());
     }
 
@@ -39,7 +39,7 @@ class InfeasibleSpecTest extends LiveServerTest {
     @Test
     void specSlowerThanThePlantProposesAShorterTime() {
         String body = """
-                {"plant":{"a0":0,"a1":4,"b":2,"d":1},"spec":{"settlingTime":10,"overshootPercent":1}}""";
+                {"plant":{"form":"canonical","a0":0,"a1":4,"b":2,"d":1},"spec":{"settlingTime":10,"overshootPercent":1}}""";
         var reply = server.post("/v1/designs", body);
         assertEquals(422, reply.status(), reply.text());
         assertEquals("/spec/settlingTime", reply.json().at("/errors/0/pointer").asText());
@@ -53,7 +53,7 @@ class InfeasibleSpecTest extends LiveServerTest {
     @Test
     void gammaBelowItsBoundIsRejected() {
         var reply = server.post("/v1/designs", """
-                {"plant":{"a0":0,"a1":0.48,"b":400,"d":400},
+                {"plant":{"form":"canonical","a0":0,"a1":0.48,"b":400,"d":400},
                  "spec":{"settlingTime":0.15,"overshootPercent":1.5,"gamma":1e-6}}""");
         assertEquals(422, reply.status(), reply.text());
         assertEquals("/spec/gamma", reply.json().at("/errors/0/pointer").asText());

@@ -13,7 +13,7 @@ import org.junit.jupiter.params.provider.CsvSource;
  */
 class IntegerFieldsTest extends LiveServerTest {
 
-    private static final String HEAD = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    private static final String HEAD = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5},\"verify\":";
 
     // The reproductions of the issue: monteCarloSamples 2.9, seed 7.9, timeSeriesPoints 10.7.

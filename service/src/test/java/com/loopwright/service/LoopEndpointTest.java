@@ -100,6 +100,27 @@ class LoopEndpointTest extends LiveServerTest {
         }
     }
 
+    /** The README's worked example (vertical axis, encoder only): the request as printed, the numbers it quotes. */
+    @Test
+    void readmeVerticalAxisExamplePrintsTheQuotedNumbers() throws Exception {
+        String readme = java.nio.file.Files.readString(java.nio.file.Path.of("..", "README.md"));
+        int section = readme.indexOf("## The loop as it runs");
+        java.util.regex.Matcher body =
+                java.util.regex.Pattern.compile("(?s)<<'JSON'\\n(.*?)\\nJSON").matcher(readme.substring(section));
+        assertTrue(body.find(), "the README section has its request");
+        JsonNode loop = design(body.group(1));
+        assertEquals(15219, loop.at("/law/stateGain/0").asDouble(), 0.5);
+        assertEquals(97209, loop.at("/law/integralGain").asDouble(), 0.5);
+        assertEquals(-37.45, loop.at("/law/integralPole").asDouble(), 0.005);
+        assertEquals(1.663, loop.at("/law/gamma").asDouble(), 0.0005);
+        assertEquals(1.367, loop.at("/outputFeedback/peakDisturbanceGain").asDouble(), 0.0005);
+        assertEquals(3.72e6, loop.at("/outputFeedback/noiseToCommandGain").asDouble(), 0.005e6);
+        assertEquals(0.00897, loop.at("/loadStep/peakDeviation").asDouble(), 0.000005);
+        assertEquals(0.425, loop.at("/loadStep/recoveryTime").asDouble(), 0.0005);
+        assertTrue(texts(loop.get("noteCodes")).contains("observerFasterThanSampling"));
+        assertTrue(readme.substring(section).contains("8.97 mm at 0.121 s, recovered at 0.425 s"));
+    }
+
     /**
      * Position-only sensing without integral action: the load leaves the offset of the final-value theorem. By hand
      * for the canonical plant (final-value theorem, Ogata, Modern Control Engineering, from memory): at rest the
@@ -226,8 +247,8 @@ class LoopEndpointTest extends LiveServerTest {
     @Test
     void verificationOfTheDesignedLawReproducesTheDesignsLoopFigures() {
         String coefficients = "\"a0\":0,\"a1\":3.3333333333333335,\"b\":0.05555555555555555,\"d\":0.05555555555555555}";
-        // the verification's plant is always canonical and has no form field
-        String plant = "\"plant\":{" + coefficients;
+        // the verification's plant is always canonical, and names its form as every plant does
+        String plant = "\"plant\":{\"form\":\"canonical\"," + coefficients;
         JsonNode loop = design("{\"plant\":{\"form\":\"canonical\"," + coefficients + "," + SPEC
                 + ",\"integralAction\":true,\"measurement\":\"position\"," + "\"loadStepSize\":-100}");
         JsonNode law = loop.get("law");
@@ -274,7 +295,7 @@ class LoopEndpointTest extends LiveServerTest {
     void verificationDesignsAKalmanObserverWhenAsked() {
         LiveServer.Reply reply = server.post(
                 "/v1/verifications",
-                "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
                         + "\"referenceGain\":1.5},\"measurement\":\"position\",\"observer\":{\"method\":\"kalman\","
                         + "\"processNoise\":1,\"measurementNoise\":1e-8},\"performance\":{\"rho1\":1,\"rho2\":0,"
                         + "\"gamma\":2}}");
@@ -288,7 +309,7 @@ class LoopEndpointTest extends LiveServerTest {
         assertFalse(check.at("/loadStep/zeroSteadyOffset").asBoolean());
         LiveServer.Reply refused = server.post(
                 "/v1/verifications",
-                "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":1.5,\"k2\":0.05,"
                         + "\"referenceGain\":1.5},\"measurement\":\"position\",\"observer\":{\"method\":"
                         + "\"poleMultiple\"}}");
         assertEquals(400, refused.status(), refused.text());

@@ -20,7 +20,7 @@ class OperationsTest {
     private static final String KEY = "indexing-axis-key-0001";
     private static final String OTHER_KEY = "gimbal-dashboard-key-0002";
     private static final String GIMBAL = """
-            {"plant":{"a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""";
+            {"plant":{"form":"canonical","a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""";
 
     private static ServiceConfig config(Map<String, String> environment) {
         Map<String, String> env = new java.util.HashMap<>(environment);

@@ -20,7 +20,7 @@ class ParserTextTest extends LiveServerTest {
     private static final List<String> PARSER_TEXT =
             List.of("Source:", "line:", "column:", "java.", "com.fasterxml", "Unrecognized");
 
-    private static final String PLANT = "{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
+    private static final String PLANT = "{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
     private static final String SPEC_REST = "\"overshootPercent\":1.5";
 
     /**

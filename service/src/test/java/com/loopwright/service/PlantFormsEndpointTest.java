@@ -53,7 +53,7 @@ class PlantFormsEndpointTest extends LiveServerTest {
         assertEquals(design.at("/gain/k/0").asDouble(), view.at("/gain/0").asDouble(), 1e-12);
         assertTrue(view.get("riccatiResidual").asDouble() < 1e-10);
         var canonical = server.post("/v1/designs", """
-                {"plant":{"a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""");
+                {"plant":{"form":"canonical","a0":0,"a1":2,"b":150,"d":60},"spec":{"settlingTime":0.3,"overshootPercent":1}}""");
         assertEquals(
                 canonical.json().at("/gain/k/1").asDouble(),
                 design.at("/gain/k/1").asDouble(),

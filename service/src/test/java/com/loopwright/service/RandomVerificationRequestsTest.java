@@ -31,7 +31,7 @@ class RandomVerificationRequestsTest {
                         * Math.signum(b);
                 String body = String.format(
                         Locale.ROOT,
-                        "{\"plant\":{\"a0\":%.6g,\"a1\":%.6g,\"b\":%.6g,\"d\":%.6g},"
+                        "{\"plant\":{\"form\":\"canonical\",\"a0\":%.6g,\"a1\":%.6g,\"b\":%.6g,\"d\":%.6g},"
                                 + "\"gain\":{\"k1\":%.6g,\"k2\":%.6g,\"referenceGain\":%.6g},"
                                 + "\"spec\":{\"settlingTime\":%.6g,\"overshootPercent\":%.6g},"
                                 + "\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":%.3g},\"monteCarloSamples\":5},"

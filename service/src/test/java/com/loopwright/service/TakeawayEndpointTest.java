@@ -20,7 +20,7 @@ import org.w3c.dom.NodeList;
 /** Plots, the controller export's shared wrapper errors and the dashboard on the live server. */
 class TakeawayEndpointTest extends LiveServerTest {
 
-    private static final String DESIGN = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    private static final String DESIGN = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
     private static final Pattern NUMBER = Pattern.compile("-?[0-9]+(\\.[0-9]+)?([eE][-+]?[0-9]+)?");
 
@@ -89,7 +89,7 @@ class TakeawayEndpointTest extends LiveServerTest {
     void negativeStepKeepsTheBandAndTheRiseSpec() throws Exception {
         LiveServer.Reply reply = server.post(
                 "/v1/designs/plots/step-response",
-                "{\"design\":{\"plant\":{\"a0\":-4,"
+                "{\"design\":{\"plant\":{\"form\":\"canonical\",\"a0\":-4,"
                         + "\"a1\":0,\"b\":2,\"d\":0},\"spec\":{\"riseTime\":0.5,\"overshootPercent\":1,\"stepSize\":-2}}}");
         assertEquals(200, reply.status());
         Document svg = parseSafely(reply.text());
@@ -138,7 +138,7 @@ class TakeawayEndpointTest extends LiveServerTest {
         assertEquals("/actuatorLimit", missing.json().at("/errors/1/pointer").asText());
         LiveServer.Reply badSpec = server.post(
                 "/v1/designs/plots/bode",
-                "{\"design\":{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                "{\"design\":{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                         + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":120}}}");
         assertEquals(400, badSpec.status());
         assertEquals(
@@ -152,7 +152,7 @@ class TakeawayEndpointTest extends LiveServerTest {
         assertTrue(tooSlow.json().get("detail").asText().contains("too long"));
         LiveServer.Reply infeasible = server.post(
                 "/v1/designs/plots/step-response",
-                "{\"design\":{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                "{\"design\":{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                         + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":30}}}");
         assertEquals(422, infeasible.status());
         assertTrue(infeasible.json().at("/errors/0/pointer").asText().startsWith("/design/spec/"));

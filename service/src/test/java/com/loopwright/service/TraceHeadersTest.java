@@ -23,10 +23,10 @@ import org.junit.jupiter.api.Test;
 class TraceHeadersTest {
 
     private static final String DESIGN =
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
     /** The same request, members in another order, other spacing and number spelling. */
     private static final String DESIGN_RESPELLED =
-            "{\"spec\": {\"overshootPercent\": 1.50, \"settlingTime\": 0.15},\n \"plant\": {\"d\": 4e2, \"b\": 400.0,"
+            "{\"spec\": {\"overshootPercent\": 1.50, \"settlingTime\": 0.15},\n \"plant\": {\"form\": \"canonical\", \"d\": 4e2, \"b\": 400.0,"
                     + " \"a1\": 0.48, \"a0\": 0}}";
 
     private static final ObjectMapper JSON = new ObjectMapper();

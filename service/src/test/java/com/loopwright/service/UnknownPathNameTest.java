@@ -17,7 +17,7 @@ import org.junit.jupiter.api.Test;
 class UnknownPathNameTest extends LiveServerTest {
 
     private static final String DESIGN =
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
 
     @Test
     void anUnknownFigureListsTheFigures() {

@@ -16,9 +16,9 @@ import org.junit.jupiter.params.provider.CsvSource;
  */
 class VerificationEndpointTest extends LiveServerTest {
 
-    private static final String AXIS = "\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    private static final String AXIS = "\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}";
-    private static final String GAINS = "\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    private static final String GAINS = "\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"gain\":{\"k1\":1.5723,\"k2\":0.0992069,\"referenceGain\":1.5723}";
 
     @Test
@@ -99,7 +99,7 @@ class VerificationEndpointTest extends LiveServerTest {
 
         LiveServer.Reply finite = server.post(
                 "/v1/verifications",
-                "{\"plant\":{\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},"
                         + "\"gain\":{\"k1\":1,\"k2\":-1,\"referenceGain\":2}}");
         assertEquals(200, finite.status(), finite.text());
         JsonNode margins = finite.json().at("/robustness/margins");
@@ -151,14 +151,14 @@ class VerificationEndpointTest extends LiveServerTest {
                         + ",\"verify\":{\"horizonOverride\":3}}                     | 400 | /verify/horizonOverride",
                 "gamma in spec            | {" + GAINS
                         + ",\"spec\":{\"gamma\":3}}                                 | 400 | /spec/gamma",
-                "missing gain             | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}}                   | 400 | /gain",
+                "missing gain             | {\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}}                   | 400 | /gain",
                 "sample period over cap   | {" + GAINS
                         + ",\"verify\":{\"sampling\":{\"samplePeriod\":1e-7}}}        | 422 | /verify/sampling/samplePeriod",
                 "delay over cap           | {" + GAINS
                         + ",\"verify\":{\"inputDelay\":100}}                        | 422 | /verify/inputDelay",
                 "late disturbance         | {" + GAINS
                         + ",\"verify\":{\"disturbances\":[{\"shape\":\"step\",\"amplitude\":1,\"start\":1000}]}} | 422 | /verify/disturbances/0",
-                "unstable gains           | {\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":-1,\"k2\":0.1,\"referenceGain\":1}} | 422 | /gain",
+                "unstable gains           | {\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"gain\":{\"k1\":-1,\"k2\":0.1,\"referenceGain\":1}} | 422 | /gain",
             })
     void capsAndBadOptionsAreProblems(String name, String body, int status, String pointer) {
         LiveServer.Reply reply = server.post("/v1/verifications", body);

@@ -24,7 +24,7 @@ class VersionOnEveryAnswerTest {
     private static final String KEY = "version-test-key-0123456789abcdef";
     private static final int MAX_REQUEST_BYTES = 4096;
     private static final String DESIGN =
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
 
     private static LiveServer server;
 

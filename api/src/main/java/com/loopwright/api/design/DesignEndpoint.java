@@ -158,7 +158,11 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                 validated.verify() == null ? null : validated.verify().options(),
                 result.loop() == null
                         ? null
-                        : loopResponses.toSections(result.loop(), CANONICAL_COORDINATES, lawFormula(result.loop())));
+                        : loopResponses.toSections(
+                                result.loop(),
+                                CANONICAL_COORDINATES,
+                                lawFormula(result.loop()),
+                                validated.design().loop().samplePeriod()));
     }
 
     @Override

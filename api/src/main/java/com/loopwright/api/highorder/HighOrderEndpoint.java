@@ -71,7 +71,11 @@ public final class HighOrderEndpoint
                 result.design(),
                 result.loop() == null
                         ? null
-                        : loopResponses.toSections(result.loop(), COMPANION_COORDINATES, lawFormula(result.loop())));
+                        : loopResponses.toSections(
+                                result.loop(),
+                                COMPANION_COORDINATES,
+                                lawFormula(result.loop()),
+                                input.loop().samplePeriod()));
     }
 
     @Override

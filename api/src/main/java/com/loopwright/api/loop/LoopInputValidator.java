@@ -62,7 +62,8 @@ public final class LoopInputValidator {
                                 : loop.integralPoleMultiple(),
                         position ? LoopStructure.Measurement.POSITION : LoopStructure.Measurement.FULL_STATE,
                         observer),
-                loop.loadStepSize() == null ? DEFAULT_LOAD_STEP : loop.loadStepSize());
+                loop.loadStepSize() == null ? DEFAULT_LOAD_STEP : loop.loadStepSize(),
+                position && loop.observer() != null ? loop.observer().samplePeriod() : null);
     }
 
     /**

@@ -27,6 +27,7 @@ public final class LoopResponseMapper {
     public static final String OBSERVER_NORM_EXCEEDS_GAMMA = "observerNormExceedsGamma";
     public static final String OBSERVER_NORM_NOT_CERTIFIED = "observerNormNotCertified";
     public static final String LAW_SUPERSEDES_GAIN = "lawSupersedesGain";
+    public static final String OBSERVER_FASTER_THAN_SAMPLING = "observerFasterThanSampling";
 
     /** Relative slack of the certificate check, the norm's own tolerance (as the solver checks it). */
     private static final double CERTIFICATE_SLACK = 1e-9;
@@ -68,8 +69,9 @@ public final class LoopResponseMapper {
      * @param report      the real loop
      * @param coordinates what the state gain's coordinates are, e.g. "canonical x = [x1, x2]"
      * @param lawFormula  the law written in those coordinates
+     * @param samplePeriod the sensor's sample period when the caller gave it, else null
      */
-    public Sections toSections(RealLoopReport report, String coordinates, String lawFormula) {
+    public Sections toSections(RealLoopReport report, String coordinates, String lawFormula, Double samplePeriod) {
         HighOrderDesign design = report.design();
         TrackingLaw law = report.law();
         HInfinityNorm norm = report.stateFeedbackNorm();
@@ -118,6 +120,24 @@ public final class LoopResponseMapper {
                                     Locale.US,
                                     "observer: poles at %s x the controller poles",
                                     com.loopwright.api.validation.Checks.fmt(o.poleMultiple())));
+            double fastest = o.poles().stream()
+                    .mapToDouble(p -> Math.hypot(p.re(), p.im()))
+                    .max()
+                    .orElse(0);
+            if (samplePeriod != null && fastest > Math.PI / samplePeriod) {
+                add(
+                        notes,
+                        codes,
+                        OBSERVER_FASTER_THAN_SAMPLING,
+                        String.format(
+                                Locale.US,
+                                "the fastest observer pole, %.4g rad/s, is above the Nyquist rate pi/T = %.4g rad/s of"
+                                        + " the %.3g s sample period: a sampled observer cannot realize it; choose a"
+                                        + " slower observer (poleMultiple, or more measurement noise)",
+                                fastest,
+                                Math.PI / samplePeriod,
+                                samplePeriod));
+            }
             OutputFeedbackFigures f = report.outputFeedback();
             outputFeedback = new OutputFeedback(
                     f.disturbanceToPerformanceNorm().value(),

@@ -14,10 +14,9 @@ import com.loopwright.solver.plant.CanonicalPlant;
 import java.util.List;
 
 /**
- * Canonical plant coefficients of x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w: the plant form without a
- * {@code form} (or {@code "form": "canonical"}), and the whole plant of endpoints that take gains the caller
- * already has (those gains act on exactly these states, so no other plant form is accepted there). Named directly
- * as a field type it decodes as a plain record, where "form" is an unknown field.
+ * Canonical plant coefficients of x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w: the plant {@code "form":
+ * "canonical"}. Named directly as a field type it decodes as a plain record, where "form" is an unknown field
+ * (POST /v1/verifications reads its plant as api.verification.VerificationPlantInput, which names the form).
  */
 @JsonDeserialize(using = JsonDeserializer.None.class)
 public record CanonicalPlantInput(Double a0, Double a1, Double b, Double d) implements PlantInput {

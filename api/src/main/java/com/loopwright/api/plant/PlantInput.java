@@ -7,11 +7,11 @@ import java.util.List;
 
 /**
  * The plant as sent by the caller, one record per description chosen by {@code form} (fields nullable until
- * validated). Without {@code form} (or with {@code "form": "canonical"}) it is {@link CanonicalPlantInput}, the
+ * validated); {@code form} is required. {@code "form": "canonical"} is {@link CanonicalPlantInput}, the
  * coefficients of x1' = x2, x2' = -a0 x1 - a1 x2 + b u + d w; the other forms are {@link RotaryAxisInput},
  * {@link MassSpringDamperInput}, {@link SecondOrderTransferFunctionInput} and {@link StateSpaceInput}. Each form
  * declares its fields once, as its record components ({@link PlantFormName} derives the field lists from them).
- * A plant object that makes no one form (an unknown form name, fields of another form beside the chosen one's)
+ * A plant object that makes no one form (no form, an unknown form name, fields of another form beside the chosen one's)
  * decodes to {@link UnmatchedPlant}, which validation reports with the request's other field errors.
  */
 @JsonDeserialize(using = PlantInputDeserializer.class)

@@ -23,8 +23,8 @@ import java.util.Optional;
  * Decodes a plant object into the record of its form, field by field in document order, with the strict rules of
  * every other request object: each field is read as its record component's type (a wrong type names the field's
  * pointer), unknown fields are refused after the object has been read (the first one is named), a field that
- * cannot be tokenized fails the whole plant. The form is chosen once every field has been read: absent or null
- * means canonical; an unknown form name or fields of other forms make an {@link UnmatchedPlant} for validation.
+ * cannot be tokenized fails the whole plant. The form is chosen once every field has been read: an absent (or
+ * null) form, an unknown form name or fields of other forms make an {@link UnmatchedPlant} for validation.
  */
 final class PlantInputDeserializer extends StdDeserializer<PlantInput> implements ContextualDeserializer {
 
@@ -104,8 +104,7 @@ final class PlantInputDeserializer extends StdDeserializer<PlantInput> implement
     /** The record of the chosen form, or an {@link UnmatchedPlant} when the fields make no one form. */
     private static PlantInput choose(Map<String, Object> values) {
         String formName = (String) values.get(PlantFormName.FORM_FIELD);
-        Optional<PlantFormName> named =
-                formName == null ? Optional.of(PlantFormName.CANONICAL) : PlantFormName.ofWireName(formName);
+        Optional<PlantFormName> named = formName == null ? Optional.empty() : PlantFormName.ofWireName(formName);
         if (named.isEmpty()) {
             return new UnmatchedPlant(formName, List.of());
         }

@@ -8,8 +8,7 @@ import java.lang.reflect.InvocationTargetException;
 import java.lang.reflect.RecordComponent;
 
 /**
- * Writes a plant form as the caller sends it: {@code form} (left out for the canonical form), then the record's
- * non-null components. An {@link UnmatchedPlant} is not a form and cannot be written.
+ * Writes a plant form as the caller sends it: {@code form}, then the record's non-null components. An {@link UnmatchedPlant} is not a form and cannot be written.
  */
 final class PlantInputSerializer extends StdSerializer<PlantInput> {
 
@@ -25,9 +24,7 @@ final class PlantInputSerializer extends StdSerializer<PlantInput> {
             return;
         }
         gen.writeStartObject(plant);
-        if (form != PlantFormName.CANONICAL) {
-            gen.writeStringField(PlantFormName.FORM_FIELD, form.wireName());
-        }
+        gen.writeStringField(PlantFormName.FORM_FIELD, form.wireName());
         for (RecordComponent component : form.record().getRecordComponents()) {
             Object value;
             try {

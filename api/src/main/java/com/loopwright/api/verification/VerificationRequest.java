@@ -1,13 +1,12 @@
 package com.loopwright.api.verification;
 
 import com.loopwright.api.loop.ObserverInput;
-import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.robustness.VerifyInput;
 import com.loopwright.api.validation.SpecInput;
 import java.util.List;
 
 /**
- * Body of POST /v1/verifications: a plant, gains the caller already has, optional specs to judge pass/fail
+ * Body of POST /v1/verifications: a plant (the canonical form, named), gains the caller already has, optional specs to judge pass/fail
  * (overshootPercent, settlingTime or riseTime, settlingBandPercent, stepSize), optional performance weights, and the
  * checks to run. gain.integralGain, measurement, observerGain, observer or loadStepSize ask for the loop section.
  *
@@ -17,7 +16,7 @@ import java.util.List;
  * @param loadStepSize the load step of the loop section
  */
 public record VerificationRequest(
-        CanonicalPlantInput plant,
+        VerificationPlantInput plant,
         GainInput gain,
         SpecInput spec,
         PerformanceInput performance,
@@ -29,7 +28,7 @@ public record VerificationRequest(
 
     /** A request without the loop section. */
     public VerificationRequest(
-            CanonicalPlantInput plant,
+            VerificationPlantInput plant,
             GainInput gain,
             SpecInput spec,
             PerformanceInput performance,

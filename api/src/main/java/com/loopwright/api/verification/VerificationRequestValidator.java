@@ -20,7 +20,6 @@ import static com.loopwright.api.validation.FieldLimits.MIN_TIME_SECONDS;
 
 import com.loopwright.api.loop.LoopInputValidator;
 import com.loopwright.api.loop.LoopLimits;
-import com.loopwright.api.plant.CanonicalPlantInput;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.robustness.ValidatedVerify;
 import com.loopwright.api.robustness.VerifyInput;
@@ -48,10 +47,17 @@ public final class VerificationRequestValidator {
             throw new InvalidRequestException(List.of(new FieldError("", "a JSON object with plant and gain")));
         }
         List<FieldError> errors = new ArrayList<>();
-        CanonicalPlantInput plant = request.plant();
+        VerificationPlantInput plant = request.plant();
         if (plant == null) {
             errors.add(new FieldError("/plant", "required"));
         } else {
+            if (!VerificationPlantInput.CANONICAL_FORM.equals(plant.form())) {
+                errors.add(new FieldError(
+                        "/plant/form",
+                        (plant.form() == null ? "required: " : "not taken here: ")
+                                + "\"canonical\", the only form /v1/verifications takes (the gains act on the"
+                                + " canonical states x1, x2)"));
+            }
             Checks.magnitude(errors, "/plant/a0", plant.a0(), 0, MAX_ABS_A0, true);
             Checks.magnitude(errors, "/plant/a1", plant.a1(), 0, MAX_ABS_A1, true);
             Checks.magnitude(errors, "/plant/b", plant.b(), MIN_ABS_B, MAX_ABS_B, true);

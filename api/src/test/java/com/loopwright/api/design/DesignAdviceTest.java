@@ -24,6 +24,7 @@ class DesignAdviceTest {
     private ObjectNode request(double a0, double a1, double overshootPercent, double settlingTime) {
         ObjectNode root = mapper.createObjectNode();
         ObjectNode plant = root.putObject("plant");
+        plant.put("form", "canonical");
         plant.put("a0", a0);
         plant.put("a1", a1);
         plant.put("b", 1.0);

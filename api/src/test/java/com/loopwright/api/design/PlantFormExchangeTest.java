@@ -54,8 +54,8 @@ class PlantFormExchangeTest {
     void rotaryAxisDesignsLikeItsCanonicalCoefficients() {
         JsonNode viaForm = ok("{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,"
                 + "\"torqueConstant\":0.12,\"gearRatio\":10}");
-        JsonNode viaCanonical =
-                ok("{\"a0\":0,\"a1\":%s,\"b\":%s,\"d\":%s}".formatted(0.002 / 0.004, 10 * 0.12 / 0.004, 1 / 0.004));
+        JsonNode viaCanonical = ok("{\"form\":\"canonical\",\"a0\":0,\"a1\":%s,\"b\":%s,\"d\":%s}"
+                .formatted(0.002 / 0.004, 10 * 0.12 / 0.004, 1 / 0.004));
         assertSameDesign(viaCanonical, viaForm);
         assertEquals("rotaryAxis", viaForm.at("/model/form").asText());
         assertEquals("A", viaForm.at("/model/units/u").asText());
@@ -70,8 +70,8 @@ class PlantFormExchangeTest {
     @Test
     void massSpringDamperDesignsLikeItsCanonicalCoefficientsAndHoldsTheSpring() {
         JsonNode viaForm = ok("{\"form\":\"massSpringDamper\",\"mass\":2.5,\"damping\":4,\"stiffness\":150}");
-        JsonNode viaCanonical =
-                ok("{\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s}".formatted(150 / 2.5, 4 / 2.5, 1 / 2.5, 1 / 2.5));
+        JsonNode viaCanonical = ok("{\"form\":\"canonical\",\"a0\":%s,\"a1\":%s,\"b\":%s,\"d\":%s}"
+                .formatted(150 / 2.5, 4 / 2.5, 1 / 2.5, 1 / 2.5));
         assertSameDesign(viaCanonical, viaForm);
         // kr = k1 + a0/b, and a0/b = k: the feedforward is the spring force per metre of setpoint.
         JsonNode law = viaForm.at("/model/physicalLaw");
@@ -90,7 +90,7 @@ class PlantFormExchangeTest {
                 + "\"dampingRatio\":0.9}");
         JsonNode viaCoefficients =
                 ok("{\"form\":\"secondOrderTransferFunction\",\"numerator\":[0.4]," + "\"denominator\":[2,1.8,0.5]}");
-        JsonNode viaCanonical = ok("{\"a0\":0.25,\"a1\":0.9,\"b\":0.2,\"d\":0.2}");
+        JsonNode viaCanonical = ok("{\"form\":\"canonical\",\"a0\":0.25,\"a1\":0.9,\"b\":0.2,\"d\":0.2}");
         assertSameDesign(viaCanonical, viaGain);
         assertSameDesign(viaCanonical, viaCoefficients);
     }
@@ -108,7 +108,7 @@ class PlantFormExchangeTest {
         // The tracked output is z1 of the original canonical form, the first row of S^-1 = [3/7, -1/7], scaled so
         // its largest entry is 1: z1 = (7/3) z1_original, so b = d = 400 * 7/3 (B1 = B2).
         double b = 400 * 7 / 3.0;
-        JsonNode viaCanonical = ok("{\"a0\":0,\"a1\":0.48,\"b\":%s,\"d\":%s}".formatted(b, b));
+        JsonNode viaCanonical = ok("{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":%s,\"d\":%s}".formatted(b, b));
         assertEquals(0, viaForm.at("/plant/a0").asDouble(), 1e-12);
         assertSameDesign(viaCanonical, viaForm);
         JsonNode view = viaForm.at("/model/stateSpace");
@@ -144,7 +144,10 @@ class PlantFormExchangeTest {
                         + "\"torqueConstant\":1}"),
                 400,
                 "/plant/mass");
-        assertProblem(post("{\"a0\":0,\"a1\":1,\"b\":1,\"d\":1,\"inertia\":2}"), 400, "/plant/inertia");
+        assertProblem(
+                post("{\"form\":\"canonical\",\"a0\":0,\"a1\":1,\"b\":1,\"d\":1,\"inertia\":2}"),
+                400,
+                "/plant/inertia");
         assertProblem(post("{\"form\":\"flywheel\"}"), 400, "/plant/form");
         assertProblem(post("{\"form\":\"stateSpace\",\"a\":[[0,1],[0]],\"b2\":[0,1]}"), 400, "/plant/a/1");
         assertProblem(post("{\"form\":\"stateSpace\",\"a\":[[0,1],[0,1]],\"b2\":[0,null]}"), 400, "/plant/b2/1");

@@ -33,6 +33,7 @@ class ProposalRoundTripTest {
     private ObjectNode request(Random random) {
         ObjectNode root = mapper.createObjectNode();
         ObjectNode plant = root.putObject("plant");
+        plant.put("form", "canonical");
         plant.put("a0", random.nextInt(4) == 0 ? 0 : (random.nextBoolean() ? 1 : -1) * logUniform(random, 1e-2, 1e4));
         plant.put("a1", random.nextInt(4) == 0 ? 0 : (random.nextBoolean() ? 1 : -0.2) * logUniform(random, 1e-2, 1e3));
         plant.put("b", (random.nextBoolean() ? 1 : -1) * logUniform(random, 1e-2, 1e3));
@@ -94,9 +95,10 @@ class ProposalRoundTripTest {
     // (overshootPercent from 0.001 to 95) and the design itself accepting the edited request.
     @Test
     void overshootProposalBelowTheMinimumIsMovedIntoTheRange() throws Exception {
-        ObjectNode request = (ObjectNode) mapper.readTree("{\"plant\":{\"a0\":-0.3215830787603754,"
-                + "\"a1\":681.1098617399875,\"b\":-0.07548091132732491,\"d\":77.13998041142767},"
-                + "\"spec\":{\"overshootPercent\":0.1640388282719001,\"riseTime\":0.006285737570700606}}");
+        ObjectNode request =
+                (ObjectNode) mapper.readTree("{\"plant\":{\"form\":\"canonical\",\"a0\":-0.3215830787603754,"
+                        + "\"a1\":681.1098617399875,\"b\":-0.07548091132732491,\"d\":77.13998041142767},"
+                        + "\"spec\":{\"overshootPercent\":0.1640388282719001,\"riseTime\":0.006285737570700606}}");
         Answer outcome = Answer.design(request);
         assertEquals(422, outcome.status());
         boolean overshootProposed = false;

@@ -24,7 +24,7 @@ import org.junit.jupiter.api.Test;
 class EveryFieldErrorTest {
 
     private static final ObjectMapper STRICT = StrictJson.newMapper();
-    private static final String PLANT = "{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
+    private static final String PLANT = "{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
     private static final String SPEC = "{\"settlingTime\":0.15,\"overshootPercent\":1.5}";
     private static final String SETTLING_RANGE = "must be a finite number from 1.0E-4 to 10000";
 
@@ -45,7 +45,7 @@ class EveryFieldErrorTest {
 
     @Test
     void unknownMembersAndWrongTypesAtEveryDepthAreAllNamed() {
-        String body = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"bar\":2},"
+        String body = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"bar\":2},"
                 + "\"spec\":{\"settlingTime\":\"0.15\",\"overshootPercent\":1.5},\"foo\":1}";
         assertEquals(
                 List.of(
@@ -75,7 +75,7 @@ class EveryFieldErrorTest {
             {"\"x\":1,\"x\":2", "duplicate key"}, {"\"x\":NaN", "NaN and Infinity"}, {"\"x\":1,", "trailing comma"}
         };
         for (String[] c : cases) {
-            String body = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"bar\":2},"
+            String body = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"bar\":2},"
                     + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"verify\":{" + c[0] + "}}}";
             List<FieldError> errors = design(body).errors();
             assertEquals(2, errors.size(), body + " " + errors);
@@ -116,7 +116,7 @@ class EveryFieldErrorTest {
 
     @Test
     void aBatchItemIsAnsweredAsTheSameBodyAndIsNotChanged() throws Exception {
-        String body = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"bar\":2},"
+        String body = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"bar\":2},"
                 + "\"spec\":{\"settlingTime\":-1,\"overshootPercent\":1.5},\"foo\":1}";
         JsonNode item = STRICT.readTree(body);
         JsonNode copy = item.deepCopy();

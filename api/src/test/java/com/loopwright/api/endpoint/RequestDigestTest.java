@@ -18,9 +18,9 @@ class RequestDigestTest {
     private static final ObjectMapper MAPPER = StrictJson.newMapper();
     private static final RequestDigest DIGESTS = new RequestDigest(MAPPER);
     private static final String DESIGN =
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
     private static final String DESIGN_REORDERED = "{ \"spec\" : {\"overshootPercent\": 1.5 ,\n \"settlingTime\":0.15},"
-            + "\n\t\"plant\": {\"d\":400.0, \"b\":4e2, \"a1\":0.48, \"a0\":0} }";
+            + "\n\t\"plant\": {\"form\": \"canonical\", \"d\":400.0, \"b\":4e2, \"a1\":0.48, \"a0\":0} }";
 
     private static String digestOfTree(String json) throws Exception {
         return DIGESTS.of(MAPPER.readTree(json));

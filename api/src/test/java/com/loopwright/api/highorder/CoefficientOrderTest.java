@@ -87,7 +87,8 @@ class CoefficientOrderTest {
             Answer high = Answer.highOrder(
                     ("{\"plant\":{\"denominator\":[1,6,11,6],\"b\":1," + "\"disturbance\":[0,0,1]}," + spec + "}")
                             .getBytes(StandardCharsets.UTF_8));
-            Answer two = Answer.design("{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}," + spec + "}");
+            Answer two = Answer.design(
+                    "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}," + spec + "}");
             assertEquals(two.status(), high.status());
             String advice = detail(two);
             assertTrue(advice.contains(overshoot.equals("0") ? "critically damped" : "fraction"), advice);

@@ -157,7 +157,7 @@ class FiniteNumbersModuleTest {
     void aDesignWrittenAsBytesIsTheDesignTreeNumberForNumber() throws Exception {
         EndpointRunner runner = new EndpointRunner(StrictJson.newMapper());
         DesignEndpoint endpoint = new DesignEndpoint();
-        byte[] request = ("{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+        byte[] request = ("{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                         + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}")
                 .getBytes(StandardCharsets.UTF_8);
         Reply bytes = runner.run(endpoint, request);

@@ -41,10 +41,8 @@ class PlantInputDecodingTest {
             JsonNode tree = STRICT.readTree(json);
             assertEquals(plant, STRICT.treeToValue(tree, PlantInput.class), json);
             PlantFormName form = PlantFormName.of(plant).orElseThrow();
-            // the canonical form is written without a form, as /v1/verifications takes it
-            assertEquals(
-                    form == PlantFormName.CANONICAL ? null : form.wireName(),
-                    tree.path("form").textValue());
+            // every form is written with its form, the canonical one included (the form is required)
+            assertEquals(form.wireName(), tree.path("form").textValue());
         }
     }
 
@@ -74,11 +72,15 @@ class PlantInputDecodingTest {
                 STRICT.readValue(
                         "{\"form\":\"stateSpace\",\"a\":[[0,1],[0,-2]]," + "\"b2\":[0,150],\"b1\":[0,60]}",
                         PlantInput.class));
-        // absent, null and "canonical" all choose the canonical coefficients
+        // "canonical" chooses the canonical coefficients; an absent or null form chooses none (a 400 at /plant/form)
         CanonicalPlantInput axis = new CanonicalPlantInput(0.0, 0.48, 400.0, 400.0);
-        for (String form : List.of("", "\"form\":null,", "\"form\":\"canonical\",")) {
+        assertEquals(
+                axis,
+                STRICT.readValue(
+                        "{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}", PlantInput.class));
+        for (String form : List.of("", "\"form\":null,")) {
             assertEquals(
-                    axis,
+                    new UnmatchedPlant(null, List.of()),
                     STRICT.readValue("{" + form + "\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}", PlantInput.class),
                     form);
         }
@@ -111,14 +113,26 @@ class PlantInputDecodingTest {
                         new FieldError("/plant/a0", "not a field of the rotaryAxis" + fields),
                         new FieldError("/plant/mass", "not a field of the rotaryAxis" + fields)),
                 errors);
-        // without a form the plant is canonical, and a physical field is not one of its fields
+        // the canonical form named, a physical field is not one of its fields
         List<FieldError> canonical = new ArrayList<>();
-        assertNull(STRICT.readValue("{\"a0\":0,\"a1\":1,\"b\":1,\"d\":1,\"mass\":1}", PlantInput.class)
+        assertNull(STRICT.readValue(
+                        "{\"form\":\"canonical\",\"a0\":0,\"a1\":1,\"b\":1,\"d\":1,\"mass\":1}", PlantInput.class)
                 .resolve(canonical));
         assertEquals(
                 List.of(new FieldError(
                         "/plant/mass", "not a field of the canonical form (its fields: [a0, a1," + " b, d])")),
                 canonical);
+        // source: openapi.yaml PlantDescription (issue 15): the form is required; without it the answer is one error
+        // at /plant/form naming every form, whatever the other fields are
+        List<FieldError> unnamed = new ArrayList<>();
+        assertNull(STRICT.readValue("{\"a0\":0,\"a1\":1,\"b\":1,\"d\":1}", PlantInput.class)
+                .resolve(unnamed));
+        assertEquals(
+                List.of(new FieldError(
+                        "/plant/form",
+                        "required: the plant names its form, one of [canonical, rotaryAxis, massSpringDamper,"
+                                + " secondOrderTransferFunction, stateSpace]")),
+                unnamed);
         // a null field is absent, as before
         assertFalse(
                 STRICT.readValue("{\"form\":\"massSpringDamper\",\"mass\":1,\"a0\":null}", PlantInput.class)
@@ -142,11 +156,13 @@ class PlantInputDecodingTest {
         assertProblem("{\"plant\":[1,2]}", "/plant", "wrong type: expected a JSON object");
         // Parser failures inside the plant are named at their own member, with their cause (issue 15).
         assertProblem(
-                "{\"plant\":{\"a0\":0,\"a0\":1}}",
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a0\":1}}",
                 "/plant/a0",
                 "duplicate key: this member appears more than once in its object; send it once");
         assertProblem(
-                "{\"plant\":{\"a0\":NaN}}", "/plant/a0", "NaN and Infinity are not JSON numbers; send a finite number");
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":NaN}}",
+                "/plant/a0",
+                "NaN and Infinity are not JSON numbers; send a finite number");
     }
 
     @Test

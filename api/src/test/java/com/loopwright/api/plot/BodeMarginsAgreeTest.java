@@ -18,7 +18,7 @@ class BodeMarginsAgreeTest {
     // delay margin 0.3681 s.
     @Test
     void figureAndVerificationReportTheSameMargins() {
-        String design = "{\"plant\":{\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},"
+        String design = "{\"plant\":{\"form\":\"canonical\",\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},"
                 + "\"spec\":{\"overshootPercent\":0.2,\"settlingTime\":1.35},"
                 + "\"verify\":{\"sampling\":{\"samplePeriod\":0.001},\"inputDelay\":0.2}}";
         Answer outcome = Answer.design(design.getBytes(StandardCharsets.UTF_8));

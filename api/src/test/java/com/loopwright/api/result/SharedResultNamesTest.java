@@ -17,8 +17,9 @@ import org.junit.jupiter.api.Test;
 class SharedResultNamesTest {
 
     /** The pick-and-place axis of the README, order 2. */
-    private static final String ORDER_TWO = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
-            + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+    private static final String ORDER_TWO =
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                    + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
 
     /** The same axis behind a current loop, order 3, highest power first. */
     private static final String ORDER_THREE = "{\"plant\":{\"denominator\":[1,200.48,96,0],"

@@ -19,7 +19,7 @@ import org.junit.jupiter.api.Test;
  */
 class ExportedStepMetricsTest {
 
-    private static final String DESIGN = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    private static final String DESIGN = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}";
     /** wn T = 0.15 for this design (wn = 25.08 rad/s). */
     private static final double PERIOD = 0.006;
@@ -70,7 +70,7 @@ class ExportedStepMetricsTest {
     // cap) is not simulated: the parameter set leaves sampledStep out and the header says why.
     @Test
     void aPeriodTooShortToSimulateIsSaidSo() throws Exception {
-        String slow = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+        String slow = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                 + "\"spec\":{\"settlingTime\":1.5,\"overshootPercent\":1.5}}";
         for (String format : new String[] {"parameters", "c-source"}) {
             Answer exported = Answer.controller(

@@ -14,7 +14,7 @@ import org.junit.jupiter.api.Test;
 class SamplePeriodAdviceTest {
 
     /** The README axis. */
-    private static final String DESIGN = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+    private static final String DESIGN = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
             + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
 
     private static final Pattern ADVICE = Pattern.compile("at most ([0-9.eE+-]+) s");

@@ -14,9 +14,10 @@ class LatePeakVerificationTest {
     // sigma = (a1 + b k2) / 2 and wd = sqrt(a0 + b k1 - sigma^2) (any control textbook): 1.2240e-4 %.
     @Test
     void lateOvershootPeakIsReported() {
-        String body = "{\"plant\":{\"a0\":158.26763769334335,\"a1\":10.807564793416091,\"b\":-8.24527590299888,"
-                + "\"d\":0.4354674102081221},\"gain\":{\"k1\":-26.698820246411938,\"k2\":-3.286906667311671,"
-                + "\"referenceGain\":-45.8937676993868}}";
+        String body =
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":158.26763769334335,\"a1\":10.807564793416091,\"b\":-8.24527590299888,"
+                        + "\"d\":0.4354674102081221},\"gain\":{\"k1\":-26.698820246411938,\"k2\":-3.286906667311671,"
+                        + "\"referenceGain\":-45.8937676993868}}";
         Answer outcome = Answer.verification(body.getBytes(StandardCharsets.UTF_8));
         assertEquals(200, outcome.status(), () -> outcome.body().toString());
         double a0 = 158.26763769334335;

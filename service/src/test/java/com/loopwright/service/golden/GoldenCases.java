@@ -39,7 +39,7 @@ final class GoldenCases {
         return List.copyOf(g.cases);
     }
 
-    private static final String AXIS_PLANT = "{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
+    private static final String AXIS_PLANT = "{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}";
     private static final String AXIS_SPEC = "{\"settlingTime\":0.15,\"overshootPercent\":1.5}";
     private static final String AXIS = "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + "}";
 
@@ -74,8 +74,8 @@ final class GoldenCases {
                     + num(overshoot) + "}";
             design(
                     String.format(Locale.ROOT, "canonical-%02d", i),
-                    "{\"plant\":{\"a0\":" + num(a0) + ",\"a1\":" + num(a1) + ",\"b\":" + num(b) + ",\"d\":" + num(d)
-                            + "},\"spec\":" + spec + "}");
+                    "{\"plant\":{\"form\":\"canonical\",\"a0\":" + num(a0) + ",\"a1\":" + num(a1) + ",\"b\":" + num(b)
+                            + ",\"d\":" + num(d) + "},\"spec\":" + spec + "}");
         }
     }
 
@@ -186,7 +186,7 @@ final class GoldenCases {
         }
         design(
                 "verify-tank-level",
-                "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":"
                         + "60,\"overshootPercent\":2},\"verify\":{\"uncertainty\":{\"a0\":{\"spreadPercent\":30},"
                         + "\"monteCarloSamples\":20},\"actuatorLimit\":100,\"sampling\":{\"samplePeriod\":0.5}}}");
     }
@@ -203,18 +203,26 @@ final class GoldenCases {
             "{\"plant\":}",
             "{\"plant\":" + AXIS_PLANT + ",}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + "} trailing",
-            "{\"plant\":{\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":Infinity,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":1e400,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":\"0\",\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + ",\"colour\":\"red\"}",
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"e\":1},\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400},\"spec\":" + AXIS_SPEC + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a0\":1,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":"
+                    + AXIS_SPEC + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":NaN,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC
+                    + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":Infinity,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC
+                    + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":1e400,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC
+                    + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":\"0\",\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC
+                    + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC
+                    + ",\"colour\":\"red\"}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400,\"e\":1},\"spec\":" + AXIS_SPEC
+                    + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400},\"spec\":" + AXIS_SPEC + "}",
             "{\"spec\":" + AXIS_SPEC + "}",
             "{\"plant\":" + AXIS_PLANT + "}",
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":2e8,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":0,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":2e8,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC
+                    + "}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"settlingTime\":0.15}}",
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"overshootPercent\":1.5}}",
             "{\"plant\":" + AXIS_PLANT
@@ -230,8 +238,10 @@ final class GoldenCases {
             "{\"plant\":" + AXIS_PLANT
                     + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5,\"settlingBandPercent\":30}}",
             "{\"plant\":[1,2],\"spec\":" + AXIS_SPEC + "}",
-            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":true,\"overshootPercent\":1.5}}",
-            "{\"plant\":{\"a0\":0,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":95}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":true,\"overshootPercent\":1.5}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":95}}",
+            // a plant without form: 400 at /plant/form naming the five forms (issue 15)
+            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC + "}",
         };
         for (int i = 0; i < bodies.length; i++) {
             design(String.format(Locale.ROOT, "invalid-%02d", i), bodies[i]);
@@ -257,6 +267,12 @@ final class GoldenCases {
         post("batch-no-items", "/v1/designs/batch", "{}");
         post("batch-unknown-field", "/v1/designs/batch", "{\"items\":[" + AXIS + "],\"mode\":\"fast\"}");
         post("batch-malformed", "/v1/designs/batch", "{\"items\":[" + AXIS);
+        // an item whose plant has no form: 400 at /items/1/plant/form, the other item designed
+        post(
+                "batch-no-form",
+                "/v1/designs/batch",
+                "{\"items\":[" + AXIS + ",{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":" + AXIS_SPEC
+                        + "}]}");
         StringBuilder mixed = new StringBuilder("{\"items\":[");
         for (int i = 0; i < 24; i++) {
             double overshoot = 0.5 + i * 0.4;
@@ -394,10 +410,10 @@ final class GoldenCases {
             "{\"plant\":" + AXIS_PLANT + ",\"gain\":{\"k1\":-1,\"k2\":0.1,\"referenceGain\":1}}",
             "{\"plant\":" + AXIS_PLANT + ",\"gain\":{\"k1\":1,\"k2\":0.1}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"spec\":{\"gamma\":3}}",
-            "{\"plant\":{\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},\"gain\":{\"k1\":0.5,\"k2\":0.08,\"referenceGain\":0.63}}",
-            "{\"plant\":{\"a0\":150,\"a1\":-1,\"b\":65,\"d\":6},\"gain\":{\"k1\":4,\"k2\":0.3,\"referenceGain\":6.3},\"verify\":{\"frequencyPoints\":8}}",
-            "{\"plant\":{\"a0\":-20,\"a1\":0,\"b\":5,\"d\":1},\"gain\":{\"k1\":20,\"k2\":2,\"referenceGain\":16},\"spec\":{\"settlingTime\":2,\"overshootPercent\":5}}",
-            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"gain\":{\"k1\":2,\"k2\":3,\"referenceGain\":2.4},\"verify\":{\"uncertainty\":{\"b\":{\"spreadPercent\":25}}}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":10,\"a1\":2,\"b\":75,\"d\":6},\"gain\":{\"k1\":0.5,\"k2\":0.08,\"referenceGain\":0.63}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":150,\"a1\":-1,\"b\":65,\"d\":6},\"gain\":{\"k1\":4,\"k2\":0.3,\"referenceGain\":6.3},\"verify\":{\"frequencyPoints\":8}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":-20,\"a1\":0,\"b\":5,\"d\":1},\"gain\":{\"k1\":20,\"k2\":2,\"referenceGain\":16},\"spec\":{\"settlingTime\":2,\"overshootPercent\":5}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"gain\":{\"k1\":2,\"k2\":3,\"referenceGain\":2.4},\"verify\":{\"uncertainty\":{\"b\":{\"spreadPercent\":25}}}}",
             "{\"plant\":" + AXIS_PLANT + "," + gains + ",\"verify\":{\"timeSeriesPoints\":6}}",
             "{\"plant\":" + AXIS_PLANT + "}",
             "{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":1,\"viscousFriction\":0,\"torqueConstant\":1}," + gains
@@ -405,7 +421,9 @@ final class GoldenCases {
             "{\"plant\":" + AXIS_PLANT + "," + gains
                     + ",\"verify\":{\"sampling\":{\"samplePeriod\":0.004,\"findLongest\":true}}}",
             // a finite gain margin (3, by hand: L(2j) = -1/3): velocity fed back with the wrong sign
-            "{\"plant\":{\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},\"gain\":{\"k1\":1,\"k2\":-1,\"referenceGain\":2}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":1,\"a1\":3,\"b\":1,\"d\":1},\"gain\":{\"k1\":1,\"k2\":-1,\"referenceGain\":2}}",
+            // a plant without form: 400 at /plant/form (verifications take the canonical form, named)
+            "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400}," + gains + "}",
         };
         for (int i = 0; i < bodies.length; i++) {
             post(String.format(Locale.ROOT, "verification-%02d", i), "/v1/verifications", bodies[i]);
@@ -520,7 +538,7 @@ final class GoldenCases {
         String[] designs = {
             AXIS,
             "{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":12,\"damping\":40,\"stiffness\":3000},\"spec\":{\"settlingTime\":0.5,\"overshootPercent\":2}}",
-            "{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"riseTime\":20,\"overshootPercent\":1},\"verify\":{\"uncertainty\":{\"a0\":{\"spreadPercent\":30},\"monteCarloSamples\":12,\"seed\":5}}}",
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"riseTime\":20,\"overshootPercent\":1},\"verify\":{\"uncertainty\":{\"a0\":{\"spreadPercent\":30},\"monteCarloSamples\":12,\"seed\":5}}}",
         };
         for (String figure : figures) {
             for (int i = 0; i < designs.length; i++) {
@@ -545,7 +563,7 @@ final class GoldenCases {
         String[] bodies = {
             "{\"design\":" + AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}",
             "{\"design\":{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,\"overshootPercent\":1}},\"samplePeriod\":0.0005,\"actuatorLimit\":8}",
-            "{\"design\":{\"plant\":{\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":60,\"overshootPercent\":2}},\"samplePeriod\":0.5,\"actuatorLimit\":100}",
+            "{\"design\":{\"plant\":{\"form\":\"canonical\",\"a0\":0.02,\"a1\":0.3,\"b\":0.05,\"d\":0.05},\"spec\":{\"settlingTime\":60,\"overshootPercent\":2}},\"samplePeriod\":0.5,\"actuatorLimit\":100}",
         };
         for (String format : formats) {
             for (int i = 0; i < bodies.length; i++) {
@@ -613,25 +631,25 @@ final class GoldenCases {
     private void extremes() {
         design(
                 "extreme-00",
-                "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
         design(
                 "extreme-01",
-                "{\"plant\":{\"a0\":-1e8,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":1}}");
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":-1e8,\"a1\":-1e4,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":1}}");
         design(
                 "extreme-02",
-                "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0,\"b\":1e-6,\"d\":1e8},\"spec\":{\"settlingTime\":1e-4,\"overshootPercent\":0.001}}");
         design(
                 "extreme-03",
-                "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e-8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":0.001}}");
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e-8},\"spec\":{\"settlingTime\":1e4,\"overshootPercent\":0.001}}");
         post(
                 "verification-extreme-00",
                 "/v1/verifications",
-                "{\"plant\":{\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e8},"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0,\"b\":1e8,\"d\":1e8},"
                         + "\"gain\":{\"k1\":1e12,\"k2\":1e12,\"referenceGain\":1e12}}");
         post(
                 "verification-extreme-01",
                 "/v1/verifications",
-                "{\"plant\":{\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},"
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":1e8,\"a1\":1e4,\"b\":1e-6,\"d\":1e8},"
                         + "\"gain\":{\"k1\":1e-12,\"k2\":1e-12,\"referenceGain\":1e12}}");
         post(
                 "high-order-extreme-00",

@@ -60,8 +60,9 @@ class BatchEnvelopeTest {
 
     @Test
     void objectItemsAreReadBackExactlyAndTheCapIsCountedWhileStreaming() throws Exception {
-        String one = "{\"plant\":{\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,"
-                + "\"overshootPercent\":1.5}}";
+        String one =
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":{\"settlingTime\":0.15,"
+                        + "\"overshootPercent\":1.5}}";
         byte[] body = ("{\"items\":[" + one + ", \"text\" ,[1,2], 7," + one + "]}").getBytes(StandardCharsets.UTF_8);
         BatchEnvelope envelope = BatchEnvelope.read(mapper, body, 5);
         assertEquals(5, envelope.size());
