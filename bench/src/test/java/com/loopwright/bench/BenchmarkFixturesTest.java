@@ -90,4 +90,15 @@ class BenchmarkFixturesTest {
         assertTrue(body.at("/verification/certified").asBoolean(), body.toString());
         assertTrue(outcome.body().length > 1000);
     }
+
+    @Test
+    void issue18WorkloadsDesignAndTheMonteCarloCoversTheBox() {
+        // the benchmark times real work only if the requests design (a 422 would be a cheap early exit)
+        RobustnessBenchmark benchmark = new RobustnessBenchmark();
+        assertTrue(benchmark.robustDesignJson().ok());
+        assertTrue(benchmark.order8SpecMatchedJson().ok());
+        assertEquals(16, benchmark.monteCarlo2000().cornerCount());
+        assertEquals(2000, benchmark.monteCarlo2000().sampleCount());
+        assertEquals(1.0, benchmark.robustDesign200().uncertainty().meetingFraction());
+    }
 }

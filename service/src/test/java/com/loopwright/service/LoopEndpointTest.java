@@ -100,6 +100,51 @@ class LoopEndpointTest extends LiveServerTest {
         }
     }
 
+    /**
+     * The gains against the poles they claim, by the characteristic polynomials of the companion forms (textbook
+     * state-space algebra, from memory): with z = [-xi, x1, x2] and r = 0 the state-feedback loop has
+     * s^3 + (a1 + b k2) s^2 + (a0 + b k1) s + b ki; the estimation error e' = (A - L C) e has s^2 + (a1 + l1) s +
+     * (a0 + a1 l1 + l2).
+     */
+    @Test
+    void lawAndObserverGainsPlaceThePolesTheyReport() {
+        JsonNode loop = design("{" + VERTICAL_AXIS + "," + SPEC + ",\"integralAction\":true," + ENCODER_ONLY + "}");
+        double a0 = loop.at("/plant/a0").asDouble();
+        double a1 = loop.at("/plant/a1").asDouble();
+        double b = loop.at("/plant/b").asDouble();
+        double k1 = loop.at("/law/stateGain/0").asDouble();
+        double k2 = loop.at("/law/stateGain/1").asDouble();
+        double ki = loop.at("/law/integralGain").asDouble();
+        double[] law = monic(loop.at("/law/closedLoopPoles"));
+        assertEquals(a1 + b * k2, law[1], 1e-9 * law[1]);
+        assertEquals(a0 + b * k1, law[2], 1e-9 * law[2]);
+        assertEquals(b * ki, law[3], 1e-9 * law[3]);
+        double l1 = loop.at("/observer/gain/0").asDouble();
+        double l2 = loop.at("/observer/gain/1").asDouble();
+        double[] observer = monic(loop.at("/observer/poles"));
+        assertEquals(a1 + l1, observer[1], 1e-9 * observer[1]);
+        assertEquals(a0 + a1 * l1 + l2, observer[2], 1e-9 * observer[2]);
+    }
+
+    /** Coefficients of prod (s - p_i), highest power first, from poles given as re/im (conjugates included). */
+    private static double[] monic(JsonNode poles) {
+        double[] re = new double[poles.size() + 1];
+        double[] im = new double[poles.size() + 1];
+        re[0] = 1;
+        for (int k = 0; k < poles.size(); k++) {
+            double pr = poles.get(k).get("re").asDouble();
+            double pi = poles.get(k).get("im").asDouble();
+            for (int j = k + 1; j >= 1; j--) {
+                // c_j <- c_j - p c_{j-1}
+                double nr = re[j] - (pr * re[j - 1] - pi * im[j - 1]);
+                double ni = im[j] - (pr * im[j - 1] + pi * re[j - 1]);
+                re[j] = nr;
+                im[j] = ni;
+            }
+        }
+        return re;
+    }
+
     /** The README's worked example (vertical axis, encoder only): the request as printed, the numbers it quotes. */
     @Test
     void readmeVerticalAxisExamplePrintsTheQuotedNumbers() throws Exception {
@@ -109,6 +154,12 @@ class LoopEndpointTest extends LiveServerTest {
                 java.util.regex.Pattern.compile("(?s)<<'JSON'\\n(.*?)\\nJSON").matcher(readme.substring(section));
         assertTrue(body.find(), "the README section has its request");
         JsonNode loop = design(body.group(1));
+        // the contract carries the same request as an example
+        JsonNode example = Contract.load()
+                .document()
+                .at("/paths/~1v1~1designs/post/requestBody/content/application~1json/examples"
+                        + "/verticalAxisEncoderOnly/value");
+        assertEquals(new com.fasterxml.jackson.databind.ObjectMapper().readTree(body.group(1)), example);
         assertEquals(15219, loop.at("/law/stateGain/0").asDouble(), 0.5);
         assertEquals(97209, loop.at("/law/integralGain").asDouble(), 0.5);
         assertEquals(-37.45, loop.at("/law/integralPole").asDouble(), 0.005);

@@ -51,6 +51,17 @@ public final class ComputeBudget {
     public static final long LONGEST_PERIOD_UNITS = 500;
     /** The input-delay simulation at the interval cap. */
     public static final long DELAY_UNITS = 700;
+    /**
+     * A robust design's target search over the corners (12 damping ratios, 20 evaluations each, 16 corners, a few
+     * microseconds per closed-form case) and the certified corner norms.
+     */
+    public static final long ROBUST_SEARCH_UNITS = 200;
+    /**
+     * A robust design, per Monte Carlo sample: the search's checks over every case, charged at its cap of case
+     * evaluations (RobustTargetSearch.MAX_CASE_EVALUATIONS over 2,016 cases is about 125 evaluations per case at
+     * 4 us each, 0.5 ms = 5 units); typical searches use a tenth of it.
+     */
+    public static final long ROBUST_UNITS_PER_SAMPLE = 5;
     /** Frequency-response and time-series points returned, per unit. */
     public static final long POINTS_PER_UNIT = 30;
     /** At most this many cost drivers are named in a refusal (Problem.errors holds at most 32). */
@@ -71,6 +82,15 @@ public final class ComputeBudget {
         }
         if (position) {
             parts.put("/observer", OBSERVER_UNITS);
+        }
+        JsonNode robust = request == null ? null : request.get("robust");
+        if (robust != null && robust.isObject()) {
+            parts.put("/robust", ROBUST_SEARCH_UNITS);
+            JsonNode box = robust.get("uncertainty");
+            long samples = box == null ? 0 : count(box.get("monteCarloSamples"), VerifyLimits.MAX_MONTE_CARLO_SAMPLES);
+            if (samples > 0) {
+                parts.put("/robust/uncertainty/monteCarloSamples", samples * ROBUST_UNITS_PER_SAMPLE);
+            }
         }
         JsonNode verify = request == null ? null : request.get("verify");
         if (verify == null || !verify.isObject()) {

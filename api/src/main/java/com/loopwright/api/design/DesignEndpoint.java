@@ -9,6 +9,7 @@ import com.loopwright.api.problem.Problem;
 import com.loopwright.api.robustness.RobustnessResponse;
 import com.loopwright.api.robustness.RobustnessResponseMapper;
 import com.loopwright.api.robustness.ValidatedVerify;
+import com.loopwright.api.robustness.VerifyInput;
 import com.loopwright.api.robustness.VerifyInputValidator;
 import com.loopwright.api.robustness.VerifyLimits;
 import com.loopwright.api.validation.FieldLimits;
@@ -20,9 +21,12 @@ import com.loopwright.solver.pipeline.DesignPipeline;
 import com.loopwright.solver.pipeline.DesignReport;
 import com.loopwright.solver.pipeline.RealLoopPipeline;
 import com.loopwright.solver.pipeline.RealLoopReport;
+import com.loopwright.solver.pipeline.RobustDesignPipeline;
+import com.loopwright.solver.pipeline.RobustDesignReport;
 import com.loopwright.solver.pipeline.RobustnessPipeline;
 import com.loopwright.solver.pipeline.StateSpaceDesign;
 import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.robustness.RobustnessOptions;
 import com.loopwright.solver.robustness.RobustnessReport;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
@@ -39,6 +43,8 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
 
     private static final String VERIFY_POINTER = "/verify";
 
+    private static final String ROBUST_POINTER = "/robust";
+
     /** The law's coordinates: the canonical states (model.units names their units). */
     private static final String CANONICAL_COORDINATES = "canonical x = [x1, x2] (see model.units)";
 
@@ -46,6 +52,8 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
     private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
     private final RobustnessPipeline robustness = new RobustnessPipeline();
+    private final RobustDesignPipeline robustDesigns = new RobustDesignPipeline();
+    private final RobustDesignMapper robustDesignResponses = new RobustDesignMapper();
     private final DesignResponseMapper responses = new DesignResponseMapper();
     private final RealLoopPipeline realLoops = new RealLoopPipeline();
     private final LoopResponseMapper loopResponses = new LoopResponseMapper();
@@ -59,9 +67,18 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
      * @param sentSpec     the spec object as sent (the proposals of an infeasible spec return it amended)
      */
     public record Validated(
-            ValidatedDesign design, ValidatedVerify verify, List<FieldError> verifyErrors, SpecInput sentSpec) {
+            ValidatedDesign design,
+            ValidatedVerify verify,
+            List<FieldError> verifyErrors,
+            SpecInput sentSpec,
+            ValidatedVerify robust) {
         public Validated {
             verifyErrors = List.copyOf(verifyErrors);
+        }
+
+        public Validated(
+                ValidatedDesign design, ValidatedVerify verify, List<FieldError> verifyErrors, SpecInput sentSpec) {
+            this(design, verify, verifyErrors, sentSpec, null);
         }
     }
 
@@ -75,7 +92,17 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
             DesignReport report,
             StateSpaceDesign callerCoordinates,
             RobustnessReport robustness,
-            RealLoopReport loop) {}
+            RealLoopReport loop,
+            RobustDesignReport robustDesign) {
+
+        public Result(
+                DesignReport report,
+                StateSpaceDesign callerCoordinates,
+                RobustnessReport robustness,
+                RealLoopReport loop) {
+            this(report, callerCoordinates, robustness, loop, null);
+        }
+    }
 
     @Override
     public Class<DesignRequest> requestType() {
@@ -85,12 +112,42 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     @Override
     public Validated validate(DesignRequest request) {
         ValidatedDesign design = validator.validate(request);
+        ValidatedVerify robust = request.robust() == null ? null : validateRobust(request.robust(), design);
         if (request.verify() == null) {
-            return new Validated(design, null, List.of(), request.spec());
+            return new Validated(design, null, List.of(), request.spec(), robust);
         }
         List<FieldError> errors = new ArrayList<>();
         ValidatedVerify verify = verifyValidator.validate(request.verify(), design.plant(), VERIFY_POINTER, errors);
-        return new Validated(design, verify, verify == null ? VerifyLimits.capped(errors) : List.of(), request.spec());
+        return new Validated(
+                design, verify, verify == null ? VerifyLimits.capped(errors) : List.of(), request.spec(), robust);
+    }
+
+    /**
+     * The robust member: its box and actuator limit are checked by the verify validator (the same wire types,
+     * ranges and caps), under /robust. The design depends on them, so their errors are a 400 at once.
+     */
+    private ValidatedVerify validateRobust(RobustInput robust, ValidatedDesign design) {
+        List<FieldError> errors = new ArrayList<>();
+        if (design.loop() != null) {
+            errors.add(new FieldError(
+                    ROBUST_POINTER,
+                    "a robust design is for the full-state loop without integral action; leave out integralAction"
+                            + " and measurement, or robust"));
+            throw new InvalidRequestException(errors);
+        }
+        if (robust.uncertainty() == null) {
+            errors.add(new FieldError(ROBUST_POINTER + "/uncertainty", "required: the parameter box to design for"));
+            throw new InvalidRequestException(errors);
+        }
+        ValidatedVerify validated = verifyValidator.validate(
+                new VerifyInput(robust.uncertainty(), null, robust.actuatorLimit(), null, null, null, null, null),
+                design.plant(),
+                ROBUST_POINTER,
+                errors);
+        if (validated == null) {
+            throw new InvalidRequestException(VerifyLimits.capped(errors));
+        }
+        return validated;
     }
 
     @Override
@@ -111,8 +168,25 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                     design.loop().structure(),
                     design.loop().loadStepSize()));
         }
-        DesignReport report = designs.design(
-                design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
+        RobustDesignReport robustDesign = null;
+        DesignReport report;
+        if (validated.robust() != null) {
+            RobustnessOptions box = validated.robust().options();
+            robustDesign = robustDesigns.design(
+                    design.plant(),
+                    design.spec(),
+                    design.gammaChoice(),
+                    design.stepSize(),
+                    design.bandFraction(),
+                    box.parameterBox(),
+                    box.monteCarloSamples(),
+                    box.seed(),
+                    box.actuatorLimit());
+            report = robustDesign.report();
+        } else {
+            report = designs.design(
+                    design.plant(), design.spec(), design.gammaChoice(), design.stepSize(), design.bandFraction());
+        }
         if (!validated.verifyErrors().isEmpty()) {
             throw new InvalidRequestException(validated.verifyErrors());
         }
@@ -132,7 +206,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
         }
         StateSpaceDesign callerCoordinates =
                 designs.callerCoordinates(design.resolvedPlant().source(), report.design());
-        return new Result(report, callerCoordinates, checked, loop);
+        return new Result(report, callerCoordinates, checked, loop, robustDesign);
     }
 
     @Override
@@ -162,7 +236,8 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                                 result.loop(),
                                 CANONICAL_COORDINATES,
                                 lawFormula(result.loop()),
-                                validated.design().loop().samplePeriod()));
+                                validated.design().loop().samplePeriod()),
+                result.robustDesign() == null ? null : robustDesignResponses.toResponse(result.robustDesign()));
     }
 
     @Override

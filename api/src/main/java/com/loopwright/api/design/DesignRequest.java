@@ -16,6 +16,8 @@ import com.loopwright.api.validation.SpecInput;
  * @param measurement          "fullState" (default) or "position"
  * @param observer             how the unmeasured states are estimated (position only)
  * @param loadStepSize         the load step of the recovery figures
+ * @param robust               optional robust design: the target is searched so that every case of the box meets
+ *                             the spec
  */
 public record DesignRequest(
         PlantInput plant,
@@ -25,7 +27,8 @@ public record DesignRequest(
         Double integralPoleMultiple,
         String measurement,
         ObserverInput observer,
-        Double loadStepSize) {
+        Double loadStepSize,
+        RobustInput robust) {
 
     /** A request without robustness checks. */
     public DesignRequest(PlantInput plant, SpecInput spec) {
@@ -34,7 +37,20 @@ public record DesignRequest(
 
     /** A request of today's plain full-state loop. */
     public DesignRequest(PlantInput plant, SpecInput spec, VerifyInput verify) {
-        this(plant, spec, verify, null, null, null, null, null);
+        this(plant, spec, verify, null, null, null, null, null, null);
+    }
+
+    /** A request with the loop-structure fields and without a robust design. */
+    public DesignRequest(
+            PlantInput plant,
+            SpecInput spec,
+            VerifyInput verify,
+            Boolean integralAction,
+            Double integralPoleMultiple,
+            String measurement,
+            ObserverInput observer,
+            Double loadStepSize) {
+        this(plant, spec, verify, integralAction, integralPoleMultiple, measurement, observer, loadStepSize, null);
     }
 
     /** The loop-structure fields together. */

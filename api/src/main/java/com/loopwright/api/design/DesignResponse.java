@@ -22,7 +22,8 @@ import java.util.List;
  * simulated and verification are the records every design result shares (package {@code api.result}); this
  * order-2 result adds plant and model. {@code robustness} is present only when the request asked
  * for it (verify); law, observer, outputFeedback and loadStep only when it asked for integral action or position-only
- * sensing (observer and outputFeedback only for the latter). {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
+ * sensing (observer and outputFeedback only for the latter); {@code robust} only for a robust design (robust).
+ * {@code noteCodes} holds the stable code of each note, index for index (notes stay plain
  * strings; a client that acts on a note matches its code).
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
@@ -46,7 +47,8 @@ public record DesignResponse(
         Law law,
         Observer observer,
         OutputFeedback outputFeedback,
-        LoadStep loadStep) {
+        LoadStep loadStep,
+        RobustDesign robust) {
 
     public DesignResponse {
         gammaBounds = List.copyOf(gammaBounds);

@@ -60,6 +60,21 @@ public final class DesignResponseMapper {
             com.loopwright.api.robustness.RobustnessResponse robustness,
             RobustnessOptions verifyOptions,
             LoopResponseMapper.Sections loop) {
+        return toResponse(request, report, callerCoordinates, robustness, verifyOptions, loop, null);
+    }
+
+    /**
+     * @param loop   the sections of the loop with integral action and/or an observer (null for the plain loop)
+     * @param robust the robust design's member (null unless the request asked for a robust design)
+     */
+    public DesignResponse toResponse(
+            ValidatedDesign request,
+            DesignReport report,
+            StateSpaceDesign callerCoordinates,
+            com.loopwright.api.robustness.RobustnessResponse robustness,
+            RobustnessOptions verifyOptions,
+            LoopResponseMapper.Sections loop,
+            RobustDesign robust) {
         ClosedFormDesign design = report.design();
         Verification verification = report.verification();
         TargetDynamics target = design.target();
@@ -142,7 +157,8 @@ public final class DesignResponseMapper {
                 loop == null ? null : loop.law(),
                 loop == null ? null : loop.observer(),
                 loop == null ? null : loop.outputFeedback(),
-                loop == null ? null : loop.loadStep());
+                loop == null ? null : loop.loadStep(),
+                robust);
     }
 
     /**

@@ -105,6 +105,7 @@ public final class FailureTable {
             case "SAMPLE_PERIOD" -> verify + "/sampling/samplePeriod";
             case "INPUT_DELAY" -> verify + "/inputDelay";
             case "DISTURBANCE_TIMING" -> verify + "/disturbances/" + failure.index();
+            case SolverFailure.ROBUST_SEARCH -> context.prefix() + "/robust";
             default -> verify;
         };
     }

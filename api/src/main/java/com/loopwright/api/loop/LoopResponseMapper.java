@@ -94,8 +94,8 @@ public final class LoopResponseMapper {
                 notes,
                 codes,
                 LAW_SUPERSEDES_GAIN,
-                "the law that runs is in law (its gamma, weights and certificate); gain, riccati, gammaBounds and"
-                        + " simulated describe the plain full-state design of the same specs");
+                "the law that runs is in law (its gamma, weights and certificate); gain, riccati, gammaBounds,"
+                        + " simulated and robustness describe the plain full-state design of the same specs");
         Observer observer = null;
         OutputFeedback outputFeedback = null;
         if (report.observer() != null) {

@@ -78,6 +78,24 @@ public final class LoopDesigner {
             String reason = obstacle.get().reason() + missing(proposals);
             throw new InfeasibleDesignException(new Infeasibility(blamed, reason, proposals));
         }
+        return designed(plant, spec, inversion, gammaChoice, stepSize, bandFraction);
+    }
+
+    /**
+     * The design of a given target (the robust search's), verified against the spec as requested: the same
+     * closed-form design, horizon and independent verification as {@link #design}.
+     *
+     * @param inversion the target with its handbook estimate
+     * @throws InfeasibleDesignException when no gamma completes the design (a fixed gamma below gamma_min)
+     */
+    DesignReport designed(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            SpecInversion inversion,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction) {
+        TargetDynamics target = inversion.target();
         ClosedFormDesign design;
         try {
             design = designer.design(plant, target, gammaChoice);

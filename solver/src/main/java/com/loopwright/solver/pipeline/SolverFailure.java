@@ -44,6 +44,8 @@ public final class SolverFailure extends RuntimeException {
     public static final String SAMPLE_PERIOD = "samplePeriod";
 
     public static final String ACTUATOR_LIMIT = "actuatorLimit";
+    /** Subject of a CAP_EXCEEDED failure of the robust design's target search (its evaluation caps). */
+    public static final String ROBUST_SEARCH = "ROBUST_SEARCH";
 
     private final Kind kind;
     private final String subject;

@@ -1,6 +1,8 @@
 package com.loopwright.solver.robustness;
 
 import com.loopwright.solver.plant.CanonicalPlant;
+import java.util.ArrayList;
+import java.util.List;
 
 /**
  * Closed intervals for the plant parameters a0, a1, b, d (lo == hi for a fixed parameter). A b interval must not
@@ -49,6 +51,28 @@ public record ParameterBox(
             }
         }
         return count;
+    }
+
+    /** The corners, in binary order over (a0, a1, b, d) low/high of the varying parameters (1 when none varies). */
+    List<CanonicalPlant> corners() {
+        double[] lo = lows();
+        double[] hi = highs();
+        List<Integer> varying = new ArrayList<>();
+        for (int i = 0; i < 4; i++) {
+            if (lo[i] < hi[i]) {
+                varying.add(i);
+            }
+        }
+        List<CanonicalPlant> corners = new ArrayList<>();
+        for (int mask = 0; mask < (1 << varying.size()); mask++) {
+            double[] p = lo.clone();
+            for (int bit = 0; bit < varying.size(); bit++) {
+                int index = varying.get(bit);
+                p[index] = (mask >> bit & 1) == 1 ? hi[index] : lo[index];
+            }
+            corners.add(plant(p));
+        }
+        return corners;
     }
 
     static CanonicalPlant plant(double[] p) {

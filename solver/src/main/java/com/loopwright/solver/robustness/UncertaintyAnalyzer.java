@@ -47,22 +47,9 @@ public final class UncertaintyAnalyzer {
         if (samples < 0 || samples > MAX_SAMPLES) {
             throw new IllegalArgumentException("samples must be 0 to " + MAX_SAMPLES);
         }
-        double[] lo = box.lows();
-        double[] hi = box.highs();
-        List<Integer> varying = new ArrayList<>();
-        for (int i = 0; i < 4; i++) {
-            if (lo[i] < hi[i]) {
-                varying.add(i);
-            }
-        }
         List<UncertainCase> corners = new ArrayList<>();
-        for (int mask = 0; mask < (1 << varying.size()); mask++) {
-            double[] p = lo.clone();
-            for (int bit = 0; bit < varying.size(); bit++) {
-                int index = varying.get(bit);
-                p[index] = (mask >> bit & 1) == 1 ? hi[index] : lo[index];
-            }
-            corners.add(evaluate(ParameterBox.plant(p), true, gains, stepSize, limits, performanceOutput));
+        for (CanonicalPlant corner : box.corners()) {
+            corners.add(evaluate(corner, true, gains, stepSize, limits, performanceOutput));
         }
         List<UncertainCase> all = new ArrayList<>(corners);
         ParameterSampler sampler = new ParameterSampler(box, seed);

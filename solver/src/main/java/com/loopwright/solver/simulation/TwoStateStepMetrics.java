@@ -72,8 +72,10 @@ public final class TwoStateStepMetrics {
         }
         NormalizedStepResponse response = new NormalizedStepResponse(zeta);
         double horizon = LoopMatrices.horizonSeconds(damping, stiffness);
-        double rise = NormalizedRiseTime.of(zeta) / wn;
-        double settling = NormalizedSettlingTime.of(zeta, settlingBandFraction) / wn;
+        // one response for every root finding: its acos zeta (a slow library call) is computed once
+        double rise = NormalizedRiseTime.of(response) / wn;
+        double settling =
+                NormalizedSettlingTime.analyse(response, settlingBandFraction).normalizedTime() / wn;
         double overshootPercent = 0;
         double peakTime = horizon;
         if (response.underdamped()) {

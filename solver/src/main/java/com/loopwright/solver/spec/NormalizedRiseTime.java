@@ -12,7 +12,11 @@ public final class NormalizedRiseTime {
     private NormalizedRiseTime() {}
 
     public static double of(double dampingRatio) {
-        NormalizedStepResponse response = new NormalizedStepResponse(dampingRatio);
+        return of(new NormalizedStepResponse(dampingRatio));
+    }
+
+    /** {@link #of(double)} of a response already built. */
+    public static double of(NormalizedStepResponse response) {
         return MonotoneRise.crossing(response, HIGH_LEVEL) - MonotoneRise.crossing(response, LOW_LEVEL);
     }
 }

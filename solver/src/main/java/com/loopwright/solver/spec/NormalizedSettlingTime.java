@@ -24,10 +24,15 @@ public final class NormalizedSettlingTime {
      * @param bandFraction settling band as a fraction of the final value, in (0, 1)
      */
     public static SettlingAnalysis analyse(double dampingRatio, double bandFraction) {
+        return analyse(new NormalizedStepResponse(dampingRatio), bandFraction);
+    }
+
+    /** {@link #analyse(double, double)} of a response already built (its acos zeta is computed once). */
+    public static SettlingAnalysis analyse(NormalizedStepResponse response, double bandFraction) {
         if (!(bandFraction > 0 && bandFraction < 1)) {
             throw new IllegalArgumentException("settling band must lie in (0, 1): " + bandFraction);
         }
-        NormalizedStepResponse response = new NormalizedStepResponse(dampingRatio);
+        double dampingRatio = response.dampingRatio();
         if (!response.underdamped()) {
             double tau = MonotoneRise.crossing(response, 1 - bandFraction);
             return new SettlingAnalysis(tau, 0, 0);
@@ -51,7 +56,7 @@ public final class NormalizedSettlingTime {
         }
         double s = response.dampedFrequencyRatio();
         double lo = response.extremumTime(peaksOutside);
-        double zeroOfError = ((peaksOutside + 1) * Math.PI - Math.acos(dampingRatio)) / s;
+        double zeroOfError = ((peaksOutside + 1) * Math.PI - response.phase()) / s;
         double tau = BracketedRoot.bisection(t -> Math.abs(response.at(t) - 1) - bandFraction, lo, zeroOfError);
         return new SettlingAnalysis(tau, peaksOutside, proximity);
     }

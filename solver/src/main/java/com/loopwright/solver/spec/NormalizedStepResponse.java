@@ -59,6 +59,11 @@ public final class NormalizedStepResponse {
         return 1 - (r2 * Math.exp(-r1 * tau) - r1 * Math.exp(-r2 * tau)) / (r2 - r1);
     }
 
+    /** acos zeta, the phase of the underdamped response (0 otherwise), computed once. */
+    public double phase() {
+        return phase;
+    }
+
     /** True when zeta is within the critical tolerance of 1, where the critically damped formulas are used. */
     public boolean criticallyDamped() {
         return !underdamped() && dampingRatio <= 1 + CRITICAL_TOLERANCE;

@@ -1,0 +1,97 @@
+package com.loopwright.api.design;
+
+import com.loopwright.api.robustness.RobustnessResponse;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.pipeline.RobustDesignReport;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.robustness.MetricSummary;
+import com.loopwright.solver.robustness.UncertainCase;
+import com.loopwright.solver.robustness.UncertaintyReport;
+import com.loopwright.solver.spec.TargetDynamics;
+
+/** The robust design's solver report to the wire record of the design response's robust member. */
+final class RobustDesignMapper {
+
+    /** The one selection rule (RobustTargetSearch): the smallest natural frequency meeting every case. */
+    static final String SELECTION_RULE = "leastBandwidth";
+
+    RobustDesign toResponse(RobustDesignReport robust) {
+        UncertaintyReport box = robust.uncertainty();
+        RobustDesignReport.Binding binding = robust.binding();
+        StepMetrics worst = robust.worstMetrics();
+        AcceptanceLimits limits = robust.limits();
+        StepMetrics nominal = robust.report().stepMetrics();
+        TargetDynamics target = robust.report().design().target();
+        return new RobustDesign(
+                SELECTION_RULE,
+                point(target),
+                point(robust.requestedTarget()),
+                box.cornerCount(),
+                box.sampleCount(),
+                box.seed(),
+                robust.search().evaluations(),
+                robust.search().caseEvaluations(),
+                box.meetingFraction() != null && box.meetingFraction() == 1.0 && withinActuator(robust),
+                worst == null
+                        ? null
+                        : new RobustDesign.WorstCase(
+                                plant(binding.at()), binding.metric(), binding.ratio(), metrics(worst)),
+                new RobustDesign.Price(
+                        new RobustnessResponse.Acceptance(
+                                limits.settlingTimeSeconds(),
+                                limits.riseTimeSeconds(),
+                                limits.overshootPercent(),
+                                100 * limits.bandFraction(),
+                                0,
+                                robust.report().stepSize()),
+                        metrics(nominal),
+                        new RobustnessResponse.Metrics(
+                                max(box.riseTime()),
+                                max(box.settlingTime()),
+                                box.overshootPercent() == null
+                                        ? 0
+                                        : box.overshootPercent().max(),
+                                box.peakControl() == null
+                                        ? 0
+                                        : box.peakControl().max()),
+                        target.naturalFrequencyRadPerSec()
+                                / robust.requestedTarget().naturalFrequencyRadPerSec()),
+                robust.actuatorLimit(),
+                robust.report().design().gamma(),
+                robust.cornerNorms().stream()
+                        .map(c -> new RobustDesign.Corner(
+                                plant(c.plant()), metrics(c.metrics()), c.hInfinityNorm(), c.withinGamma()))
+                        .toList());
+    }
+
+    private static boolean withinActuator(RobustDesignReport robust) {
+        MetricSummary control = robust.uncertainty().peakControl();
+        return robust.actuatorLimit() == null || (control != null && control.max() <= robust.actuatorLimit());
+    }
+
+    private static Double max(MetricSummary summary) {
+        return summary == null ? null : summary.max();
+    }
+
+    private static RobustDesign.TargetPoint point(TargetDynamics target) {
+        return new RobustDesign.TargetPoint(target.dampingRatio(), target.naturalFrequencyRadPerSec());
+    }
+
+    private static RobustnessResponse.PlantView plant(CanonicalPlant plant) {
+        return new RobustnessResponse.PlantView(plant.a0(), plant.a1(), plant.b(), plant.d());
+    }
+
+    private static RobustnessResponse.Metrics metrics(StepMetrics m) {
+        return new RobustnessResponse.Metrics(
+                m.riseTimeSeconds(), m.settlingTimeSeconds(), m.overshootPercent(), m.peakControl());
+    }
+
+    private static RobustnessResponse.Metrics metrics(UncertainCase c) {
+        return new RobustnessResponse.Metrics(
+                c.riseTimeSeconds(),
+                c.settlingTimeSeconds(),
+                c.overshootPercent() == null ? 0 : c.overshootPercent(),
+                c.peakControl() == null ? 0 : c.peakControl());
+    }
+}

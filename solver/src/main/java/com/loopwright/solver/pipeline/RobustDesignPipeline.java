@@ -1,0 +1,196 @@
+package com.loopwright.solver.pipeline;
+
+import com.loopwright.solver.cancel.ComputationCancelledException;
+import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.ClosedFormDesigner;
+import com.loopwright.solver.design.FeedbackGains;
+import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.design.Infeasibility;
+import com.loopwright.solver.design.InfeasibleDesignException;
+import com.loopwright.solver.design.SpecProposal;
+import com.loopwright.solver.design.SpecQuantity;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.norm.HInfinityNormCalculator;
+import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.robustness.ParameterBox;
+import com.loopwright.solver.robustness.RobustTargetSearch;
+import com.loopwright.solver.robustness.UncertainCase;
+import com.loopwright.solver.robustness.UncertaintyAnalyzer;
+import com.loopwright.solver.robustness.UncertaintyReport;
+import com.loopwright.solver.simulation.TwoStateStepMetrics;
+import com.loopwright.solver.spec.DesignSpec;
+import com.loopwright.solver.spec.NormalizedRiseTime;
+import com.loopwright.solver.spec.NormalizedSettlingTime;
+import com.loopwright.solver.spec.SpecInversion;
+import com.loopwright.solver.spec.SpecInverter;
+import com.loopwright.solver.spec.TargetDynamics;
+import com.loopwright.solver.spec.TimeSpec;
+import com.loopwright.solver.verify.VerificationFailedException;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import org.ejml.data.DMatrixRMaj;
+
+/**
+ * The front door of the robust design: the nominal target whose gains meet the spec on every corner and seeded
+ * Monte Carlo sample of a parameter box ({@link RobustTargetSearch}, rule: least bandwidth), its closed-form design
+ * verified as any design, the gains over the box, and each corner's certified H-infinity norm. Every failure is a
+ * {@link SolverFailure}; a box no target meets is INFEASIBLE_SPEC with the best spec the box allows. Stateless and
+ * thread-safe.
+ */
+public final class RobustDesignPipeline {
+
+    /** A proposed time or overshoot is rounded up by this fraction so that the search meets it when sent. */
+    static final double PROPOSAL_ROOM = 1e-3;
+
+    private final SpecInverter inverter = new SpecInverter();
+    private final ClosedFormDesigner designer = new ClosedFormDesigner();
+    private final LoopDesigner loops = new LoopDesigner();
+    private final UncertaintyAnalyzer analyzer = new UncertaintyAnalyzer();
+    private final HInfinityNormCalculator norms = new HInfinityNormCalculator();
+
+    /**
+     * @param box           the parameter box (the nominal plant need not be a corner)
+     * @param samples       Monte Carlo samples, 0 to {@value UncertaintyAnalyzer#MAX_SAMPLES}
+     * @param actuatorLimit bound on max |u| of every case, or null
+     * @throws SolverFailure INFEASIBLE_SPEC with the best spec the box allows, or UNVERIFIABLE
+     */
+    public RobustDesignReport design(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction,
+            ParameterBox box,
+            int samples,
+            long seed,
+            Double actuatorLimit) {
+        TimeSpec timeSpec = spec.timeSpec();
+        AcceptanceLimits limits = new AcceptanceLimits(
+                timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
+                timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
+                100 * spec.overshootFraction(),
+                bandFraction);
+        TargetDynamics requested = inverter.invert(spec).target();
+        RobustTargetSearch.Outcome outcome;
+        try {
+            outcome = new RobustTargetSearch(plant, box, samples, seed, limits, actuatorLimit, stepSize)
+                    .search(requested, target -> designable(plant, target, gammaChoice));
+        } catch (ComputationCancelledException e) {
+            throw e;
+        } catch (RobustTargetSearch.SearchCapException e) {
+            throw SolverFailure.about(
+                    SolverFailure.Kind.CAP_EXCEEDED, SolverFailure.ROBUST_SEARCH, -1, e.getMessage(), e);
+        } catch (RuntimeException e) {
+            throw SolverFailure.of(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, e.getMessage(), e);
+        }
+        if (outcome.target() == null) {
+            throw SolverFailure.infeasible(infeasibility(limits, actuatorLimit, outcome), null);
+        }
+        TargetDynamics target = outcome.target();
+        DesignReport report;
+        try {
+            report = loops.designed(
+                    plant,
+                    spec,
+                    new SpecInversion(target, handbook(target, timeSpec, bandFraction), 0),
+                    gammaChoice,
+                    stepSize,
+                    bandFraction);
+        } catch (InfeasibleDesignException e) {
+            throw SolverFailure.infeasible(e.infeasibility(), e);
+        } catch (VerificationFailedException e) {
+            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
+        }
+        ClosedFormDesign design = report.design();
+        FeedbackGains gains = new FeedbackGains(design.positionGain(), design.velocityGain(), design.referenceGain());
+        DMatrixRMaj output = new DMatrixRMaj(
+                new double[][] {{design.rho1(), 0}, {0, design.rho2()}, {-gains.positionGain(), -gains.velocityGain()}
+                });
+        UncertaintyReport uncertainty = analyzer.analyze(box, gains, stepSize, limits, output, samples, seed);
+        List<RobustDesignReport.CornerNorm> corners = new ArrayList<>();
+        for (UncertainCase corner : uncertainty.cases()) {
+            double norm = cornerNorm(corner.plant(), gains, output);
+            corners.add(new RobustDesignReport.CornerNorm(corner.plant(), corner, norm, norm <= design.gamma()));
+        }
+        RobustDesignReport partial =
+                new RobustDesignReport(report, requested, limits, actuatorLimit, outcome, uncertainty, corners, null);
+        CanonicalPlant worstAt = partial.binding().at();
+        StepMetrics worst =
+                worstAt == null ? null : TwoStateStepMetrics.measure(worstAt, gains, stepSize, bandFraction);
+        return new RobustDesignReport(report, requested, limits, actuatorLimit, outcome, uncertainty, corners, worst);
+    }
+
+    /** The certified norm from w to z (the Hamiltonian test, as the design's own certificate); 0 when d = 0. */
+    private double cornerNorm(CanonicalPlant corner, FeedbackGains gains, DMatrixRMaj output) {
+        if (corner.d() == 0) {
+            return 0;
+        }
+        if (!LoopMatrices.stable(corner, gains)) {
+            throw SolverFailure.of(
+                    SolverFailure.Kind.CHECK_NOT_COMPUTABLE, "a corner of the box is unstable with the gains", null);
+        }
+        return norms.compute(LoopMatrices.closedLoop(corner, gains), LoopMatrices.disturbanceInput(corner), output)
+                .value();
+    }
+
+    private boolean designable(CanonicalPlant plant, TargetDynamics target, GammaChoice gammaChoice) {
+        if (designer.obstacle(plant, target).isPresent()) {
+            return false;
+        }
+        try {
+            designer.design(plant, target, gammaChoice);
+            return true;
+        } catch (InfeasibleDesignException e) {
+            return false;
+        }
+    }
+
+    /** The handbook estimate for the target's own nominal time: ln(1/band)/(zeta ts) or 1.8/tr (common practice). */
+    private static double handbook(TargetDynamics target, TimeSpec timeSpec, double bandFraction) {
+        double zeta = target.dampingRatio();
+        double wn = target.naturalFrequencyRadPerSec();
+        if (timeSpec instanceof TimeSpec.RiseTime) {
+            return 1.8 / (NormalizedRiseTime.of(zeta) / wn);
+        }
+        double settling = NormalizedSettlingTime.of(zeta, bandFraction) / wn;
+        return Math.log(1 / bandFraction) / (zeta * settling);
+    }
+
+    private static Infeasibility infeasibility(
+            AcceptanceLimits limits, Double actuatorLimit, RobustTargetSearch.Outcome outcome) {
+        String box = String.format(
+                Locale.US,
+                "no nominal target within a factor %.0f of the requested natural frequency meets the spec on all %d"
+                        + " cases of the box (%d targets evaluated)",
+                RobustTargetSearch.FREQUENCY_SPAN,
+                outcome.caseCount(),
+                outcome.evaluations());
+        String limit = actuatorLimit == null
+                ? ""
+                : String.format(Locale.US, " with max |u| <= actuatorLimit %.6g", actuatorLimit);
+        List<SpecProposal> proposals = new ArrayList<>();
+        if (outcome.proposedTimeSeconds() != null) {
+            double time = outcome.proposedTimeSeconds() * (1 + PROPOSAL_ROOM);
+            proposals.add(new SpecProposal(
+                    SpecQuantity.TIME_SPEC,
+                    time,
+                    String.format(
+                            Locale.US,
+                            "the shortest %s every case of the box meets%s, overshoot kept",
+                            limits.riseTimeSeconds() != null ? "rise time" : "settling time",
+                            limit)));
+            return new Infeasibility(SpecQuantity.TIME_SPEC, box + limit, proposals);
+        }
+        if (outcome.proposedOvershootPercent() != null) {
+            proposals.add(new SpecProposal(
+                    SpecQuantity.OVERSHOOT_PERCENT,
+                    outcome.proposedOvershootPercent() * (1 + PROPOSAL_ROOM),
+                    "the smallest worst-case overshoot over the box" + limit
+                            + "; the time spec may need loosening too"));
+        }
+        return new Infeasibility(SpecQuantity.OVERSHOOT_PERCENT, box + limit, proposals);
+    }
+}
