@@ -148,15 +148,22 @@ try {
   assert.equal(svg.name, 'step-response.svg');
   assert.match(svg.text, /<svg[\s>]/);
   const st = await download('#dl-export-structured-text');
-  assert.match(st.text, /FUNCTION_BLOCK/);
-  const c = await download('#dl-export-c');
-  assert.match(c.text, /#define LW_K_POSITION \(1\.5722/);
+  assert.equal(st.name, 'LW_Controller.st');
+  assert.match(st.text, /FUNCTION_BLOCK LW_Controller/);
+  const header = await download('#dl-export-c-header');
+  assert.equal(header.name, 'LW.h');
+  assert.match(header.text, /#define LW_KY_1 \(1\.5722/);
+  const source = await download('#dl-export-c-source');
+  assert.match(source.text, /#include "LW\.h"/);
+  const project = await download('#dl-export-plcopen-xml');
+  assert.equal(project.name, 'LW_Controller.xml');
+  assert.match(project.text, /pouType="functionBlock"/);
   const parameters = JSON.parse((await download('#dl-export-parameters')).text);
   near(parameters.positionGain, 1.57230, 1e-5, 'exported position gain');
   assert.equal(parameters.samplePeriod, 0.001);
   // A task period too long for the loop: the export's 422 names the period field.
   await page.fill('input[name=exportSamplePeriod]', '1');
-  await page.click('#dl-export-c');
+  await page.click('#dl-export-c-source');
   await settle();
   assert.match(await statusText(), /the export was not made/);
   assert.equal(await page.getAttribute('input[name=exportSamplePeriod]', 'aria-invalid'), 'true');

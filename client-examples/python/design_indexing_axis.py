@@ -89,10 +89,10 @@ def main():
         fail_with_problem(status, st)
     if media != "text/plain" or "END_FUNCTION_BLOCK" not in st:
         sys.exit("controller export failed: HTTP %d %s" % (status, st[:200]))
-    if ("K_POSITION : LREAL := %r;" % gain["k"][0]) not in st:
+    if ("KY_1 : LREAL := %r;" % gain["k"][0]) not in st:
         sys.exit("the exported block does not carry k1 = %r" % gain["k"][0])
-    print("Structured Text: %d lines, first constant line: %s"
-          % (st.count("\n"), next(line.strip() for line in st.splitlines() if "K_POSITION" in line)))
+    print("Structured Text: %d lines, position gain line: %s"
+          % (st.count("\n"), next(line.strip() for line in st.splitlines() if "KY_1 :" in line)))
 
 
 if __name__ == "__main__":

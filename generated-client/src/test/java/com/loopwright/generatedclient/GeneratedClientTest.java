@@ -32,6 +32,7 @@ import java.io.IOException;
 import java.net.URI;
 import java.net.http.HttpRequest;
 import java.net.http.HttpResponse;
+import java.nio.file.Files;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
@@ -247,14 +248,15 @@ class GeneratedClientTest {
     }
 
     @Test
-    void controllerExportsCarryTheDesignGains() throws ApiException {
+    void controllerExportsCarryTheDesignGains() throws ApiException, IOException {
         DesignResponse design = new DesignsApi(client).createDesign(indexingAxisDesign());
         double samplePeriodSeconds = 0.001;
         double commandLimit = 3.0;
         ControllerRequest request = new ControllerRequest()
                 .design(indexingAxisDesign())
                 .samplePeriod(num(samplePeriodSeconds))
-                .actuatorLimit(num(commandLimit));
+                .actuatorLimit(num(commandLimit))
+                .prefix("Axis1");
         ControllersApi controllers = new ControllersApi(client);
 
         ControllerParameters parameters = controllers.exportControllerParameters(request);
@@ -262,7 +264,8 @@ class GeneratedClientTest {
         assertEquals(value(design.getGain().getK().get(1)), value(parameters.getVelocityGain()), 0.0);
         assertEquals(value(design.getGain().getReferenceGain()), value(parameters.getReferenceGain()), 0.0);
         assertEquals(samplePeriodSeconds, value(parameters.getSamplePeriod()), 0.0);
-        assertEquals(commandLimit, value(parameters.getActuatorLimit()), 0.0);
+        assertEquals(-commandLimit, value(parameters.getActuatorRange().getLowest()), 0.0);
+        assertEquals(commandLimit, value(parameters.getActuatorRange().getHighest()), 0.0);
         // Emulation of a loop with wn T well below 0.5: the sampled loop is stable.
         assertTrue(value(parameters.getSampledSpectralRadius()) < 1, "sampled spectral radius");
         assertEquals(
@@ -270,9 +273,16 @@ class GeneratedClientTest {
                 value(parameters.getPeriodPerTimeConstant()),
                 RELATIVE_TOLERANCE);
 
-        String structuredText = controllers.exportController("structured-text", request);
-        assertTrue(structuredText.contains("FUNCTION_BLOCK"), structuredText);
+        String structuredText = controllers.exportStructuredText(request);
+        assertTrue(structuredText.contains("FUNCTION_BLOCK Axis1_Controller"), structuredText);
         assertTrue(structuredText.contains("END_FUNCTION_BLOCK"), structuredText);
+        // The C pair and the PLCopen project are files to the generated client (type string, format binary).
+        String header = Files.readString(controllers.exportCHeader(request).toPath());
+        assertTrue(header.contains("double Axis1_step(Axis1_state *s,"), header);
+        String source = Files.readString(controllers.exportCSource(request).toPath());
+        assertTrue(source.contains("#include \"Axis1.h\""), source);
+        String project = Files.readString(controllers.exportPlcOpenXml(request).toPath());
+        assertTrue(project.contains("<pou name=\"Axis1_Controller\" pouType=\"functionBlock\">"), project);
     }
 
     /**

@@ -57,7 +57,7 @@ class AccessRulesTest {
             /v1/designs/high-order
             /v1/verifications
             /v1/designs/plots/bode
-            /v1/designs/controllers/c
+            /v1/designs/controllers/c-source
             """;
 
     private static LiveServer keyed(boolean cors) {

@@ -23,8 +23,10 @@ import com.loopwright.api.plant.PlantInput;
 import com.loopwright.api.plot.Figure;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.api.robustness.VerifyLimits;
+import com.loopwright.api.takeaway.ActuatorRange;
 import com.loopwright.api.takeaway.ControllerParameters;
 import com.loopwright.api.takeaway.ControllerRequest;
+import com.loopwright.api.takeaway.OperatingPoint;
 import com.loopwright.api.takeaway.PlotRequest;
 import com.loopwright.api.takeaway.TakeawayLimits;
 import com.loopwright.api.takeaway.Takeaways;
@@ -612,26 +614,43 @@ class ContractDriftTest {
                 ControllerRequest.class, contract.component("ControllerRequest"), "ControllerRequest");
         assertTracedResponseMatchesSchema(
                 ControllerParameters.class, contract.component("ControllerParameters"), "ControllerParameters");
-        Map<String, Double> expected = Map.of(
-                "ControllerRequest/properties/samplePeriod/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD,
-                "ControllerRequest/properties/samplePeriod/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD,
-                "ControllerRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT,
-                "PlotRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT);
+        assertRecordMatchesSchema(ActuatorRange.class, contract.component("ActuatorRange"), "ActuatorRange");
+        assertRecordMatchesSchema(OperatingPoint.class, contract.component("OperatingPoint"), "OperatingPoint");
+        Map<String, Double> expected = Map.ofEntries(
+                Map.entry("ControllerRequest/properties/samplePeriod/minimum", TakeawayLimits.MIN_SAMPLE_PERIOD),
+                Map.entry("ControllerRequest/properties/samplePeriod/maximum", TakeawayLimits.MAX_SAMPLE_PERIOD),
+                Map.entry("ControllerRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT),
+                Map.entry(
+                        "ControllerRequest/properties/periodTolerancePercent/maximum",
+                        TakeawayLimits.MAX_PERIOD_TOLERANCE_PERCENT),
+                Map.entry("ControllerRequest/properties/prefix/maxLength", (double) TakeawayLimits.MAX_PREFIX_LENGTH),
+                Map.entry("ActuatorRange/properties/lowest/maximum", TakeawayLimits.MAX_ACTUATOR_RANGE),
+                Map.entry("ActuatorRange/properties/highest/minimum", -TakeawayLimits.MAX_ACTUATOR_RANGE),
+                Map.entry("OperatingPoint/properties/output/maximum", TakeawayLimits.MAX_OPERATING_OUTPUT),
+                Map.entry("OperatingPoint/properties/command/minimum", -TakeawayLimits.MAX_ACTUATOR_RANGE),
+                Map.entry("PlotRequest/properties/actuatorLimit/maximum", TakeawayLimits.MAX_ACTUATOR_LIMIT));
         expected.forEach((pointer, value) -> {
             assertDocumented(pointer, value);
         });
-        assertEquals(
-                Takeaways.FORMATS.size(),
-                contract.document()
-                        .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum")
-                        .size());
-        for (int i = 0; i < Takeaways.FORMATS.size(); i++) {
-            assertEquals(
-                    Takeaways.FORMATS.get(i),
-                    contract.document()
-                            .at("/paths/~1v1~1designs~1controllers~1{format}/post/parameters/0/schema/enum/" + i)
-                            .asText());
+        // One operation per controller format, at its fixed path, with the format's one media type.
+        Map<String, String> mediaTypes = Map.of(
+                "structured-text", Takeaways.STRUCTURED_TEXT,
+                "c-header", Takeaways.C_HEADER,
+                "c-source", Takeaways.C_SOURCE,
+                "plcopen-xml", Takeaways.PLCOPEN_XML,
+                "parameters", Takeaways.JSON);
+        assertEquals(mediaTypes.keySet(), Set.copyOf(Takeaways.FORMATS));
+        for (String format : Takeaways.FORMATS) {
+            JsonNode content = contract.document()
+                    .at("/paths/~1v1~1designs~1controllers~1" + format + "/post/responses/200/content");
+            assertEquals(1, content.size(), format + ": one media type");
+            assertTrue(content.has(mediaTypes.get(format).split(";")[0]), format + ": " + content);
         }
+        assertTrue(
+                contract.document()
+                        .at("/paths/~1v1~1designs~1controllers~1{format}")
+                        .isMissingNode(),
+                "no template operation beside the formats' own");
         JsonNode figures =
                 contract.document().at("/paths/~1v1~1designs~1plots~1{figure}/post/parameters/0/schema/enum");
         assertEquals(Figure.values().length, figures.size());

@@ -29,7 +29,7 @@ class MethodNotAllowedTest {
                 {"GET", "/v1/designs", "POST"},
                 {"DELETE", "/v1/designs/batch", "POST"},
                 {"PUT", "/v1/designs/plots/bode", "POST"},
-                {"GET", "/v1/designs/controllers/c", "POST"},
+                {"GET", "/v1/designs/controllers/c-source", "POST"},
                 {"POST", "/health", "GET"},
                 {"PUT", "/openapi.yaml", "GET"},
             };

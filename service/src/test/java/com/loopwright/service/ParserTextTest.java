@@ -61,7 +61,7 @@ class ParserTextTest extends LiveServerTest {
                     "0.15",
                     SPEC_REST),
             new Host(
-                    "/v1/designs/controllers/c",
+                    "/v1/designs/controllers/c-source",
                     "{\"design\":{\"plant\":" + PLANT + ",\"spec\":@},\"samplePeriod\":0.001,\"actuatorLimit\":3}",
                     "/design/spec",
                     "settlingTime",

@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import com.fasterxml.jackson.databind.JsonNode;
 import java.io.ByteArrayInputStream;
 import java.nio.charset.StandardCharsets;
 import java.util.regex.Matcher;
@@ -18,7 +17,7 @@ import org.w3c.dom.Element;
 import org.w3c.dom.NamedNodeMap;
 import org.w3c.dom.NodeList;
 
-/** Plots, controller export and the dashboard on the live server. */
+/** Plots, the controller export's shared wrapper errors and the dashboard on the live server. */
 class TakeawayEndpointTest extends LiveServerTest {
 
     private static final String DESIGN = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
@@ -130,53 +129,10 @@ class TakeawayEndpointTest extends LiveServerTest {
     }
 
     @Test
-    void parametersMatchTheDesignAndTheContract() {
-        JsonNode design = server.post("/v1/designs", DESIGN).json();
-        LiveServer.Reply reply = server.post(
-                "/v1/designs/controllers/parameters",
-                "{\"design\":" + DESIGN + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}");
-        assertEquals(200, reply.status());
-        String violations =
-                contract.violations("/v1/designs/controllers/{format}", "post", 200, "application/json", reply.json());
-        assertTrue(violations.isEmpty(), violations);
-        assertEquals(
-                design.at("/gain/k/0").asDouble(),
-                reply.json().get("positionGain").asDouble(),
-                0);
-        assertEquals(
-                design.at("/gain/k/1").asDouble(),
-                reply.json().get("velocityGain").asDouble(),
-                0);
-        assertEquals(
-                design.at("/gain/referenceGain").asDouble(),
-                reply.json().get("referenceGain").asDouble(),
-                0);
-        assertEquals(design.get("gamma").asDouble(), reply.json().get("gamma").asDouble(), 0);
-        assertTrue(reply.json().get("sampledSpectralRadius").asDouble() < 1);
-        assertEquals(4, reply.json().get("cautions").size());
-    }
-
-    @Test
-    void structuredTextAndCCarryGainsAndCautions() {
-        String body = "{\"design\":" + DESIGN + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}";
-        LiveServer.Reply st = server.post("/v1/designs/controllers/structured-text", body);
-        assertEquals(200, st.status());
-        assertEquals("text/plain", st.contentType());
-        assertTrue(st.text().contains("FUNCTION_BLOCK LW_StateFeedback"));
-        assertTrue(st.text().contains("END_FUNCTION_BLOCK"));
-        assertTrue(st.text().contains("CAUTIONS:"));
-        LiveServer.Reply c = server.post("/v1/designs/controllers/c", body);
-        assertEquals(200, c.status());
-        assertEquals("text/x-c", c.contentType());
-        assertTrue(c.text().contains("double lw_state_feedback_command("));
-        assertTrue(c.text().contains("#define LW_ACTUATOR_LIMIT (3.0)"));
-    }
-
-    @Test
     void badRequestsAreProblemsWithPointersIntoTheWrapper() {
         LiveServer.Reply unknown = server.post("/v1/designs/plots/nyquist", "{\"design\":" + DESIGN + "}");
         assertEquals(404, unknown.status());
-        LiveServer.Reply missing = server.post("/v1/designs/controllers/c", "{\"design\":" + DESIGN + "}");
+        LiveServer.Reply missing = server.post("/v1/designs/controllers/c-source", "{\"design\":" + DESIGN + "}");
         assertEquals(400, missing.status());
         assertEquals("/samplePeriod", missing.json().at("/errors/0/pointer").asText());
         assertEquals("/actuatorLimit", missing.json().at("/errors/1/pointer").asText());

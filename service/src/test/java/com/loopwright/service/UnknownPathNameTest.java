@@ -32,11 +32,20 @@ class UnknownPathNameTest extends LiveServerTest {
     void anUnknownControllerFormatListsTheFormats() {
         JsonNode problem = notFound(
                 "/v1/designs/controllers/ladder",
-                "{\"design\":" + DESIGN + ",\"samplePeriodSeconds\":0.001,\"commandLimit\":3}");
+                "{\"design\":" + DESIGN + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}");
         assertEquals(
-                "no controller format 'ladder'; valid names: structured-text, c, parameters",
+                "no controller format 'ladder'; valid names: structured-text, c-header, c-source, plcopen-xml,"
+                        + " parameters",
                 problem.path("detail").asText());
-        assertEquals(List.of("structured-text", "c", "parameters"), names(problem));
+        assertEquals(List.of("structured-text", "c-header", "c-source", "plcopen-xml", "parameters"), names(problem));
+    }
+
+    /** The format `c` of the first release is gone (docs/migration-v1.md): its 404 names the header and source. */
+    @Test
+    void theRetiredCFormatNamesItsSuccessors() {
+        JsonNode problem = notFound(
+                "/v1/designs/controllers/c", "{\"design\":" + DESIGN + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}");
+        assertTrue(names(problem).containsAll(List.of("c-header", "c-source")), problem.toString());
     }
 
     @Test

@@ -35,7 +35,10 @@ public interface Endpoint<Q, V, R> {
     /** Runs the solver through its front door (solver.pipeline). */
     R compute(V validated);
 
-    /** The response: a record written as JSON through the finite-number guard, or a {@link Text} body. */
+    /**
+     * The response: a record written as JSON through the finite-number guard, or a {@link Text} body, either of
+     * them possibly an {@link Attachment} (saved under a file name).
+     */
     Object respond(V validated, R result);
 
     /**

@@ -135,6 +135,10 @@ public final class EndpointRunner {
     }
 
     private Reply write(Endpoint<?, ?, ?> endpoint, Object response, Trace trace) {
+        if (response instanceof Attachment attachment) {
+            Reply written = write(endpoint, attachment.body(), trace);
+            return written.ok() ? written.attached(attachment.fileName()) : written;
+        }
         if (response instanceof Text text) {
             return Reply.owning(text.mediaType(), text.content().getBytes(StandardCharsets.UTF_8));
         }

@@ -26,13 +26,15 @@ public final class Reply {
     private final byte[] body;
     private final Problem problem;
     private final String requestDigest;
+    private final String fileName;
 
-    private Reply(int status, String mediaType, byte[] body, Problem problem, String requestDigest) {
+    private Reply(int status, String mediaType, byte[] body, Problem problem, String requestDigest, String fileName) {
         this.status = status;
         this.mediaType = mediaType;
         this.body = body;
         this.problem = problem;
         this.requestDigest = requestDigest;
+        this.fileName = fileName;
     }
 
     /** A 200 body (copied). */
@@ -43,16 +45,38 @@ public final class Reply {
     /** A 200 body the runner has just written and nobody else holds. */
     static Reply owning(String mediaType, byte[] body) {
         return new Reply(
-                200, Objects.requireNonNull(mediaType, "mediaType"), Objects.requireNonNull(body, "body"), null, null);
+                200,
+                Objects.requireNonNull(mediaType, "mediaType"),
+                Objects.requireNonNull(body, "body"),
+                null,
+                null,
+                null);
     }
 
     public static Reply failure(Problem problem) {
-        return new Reply(problem.status(), Problem.MEDIA_TYPE, null, Objects.requireNonNull(problem, "problem"), null);
+        return new Reply(
+                problem.status(), Problem.MEDIA_TYPE, null, Objects.requireNonNull(problem, "problem"), null, null);
     }
 
     /** The same reply, stating the digest of the request it answers ({@link RequestDigest}). */
     public Reply traced(String digest) {
-        return new Reply(status, mediaType, body, problem, Objects.requireNonNull(digest, "digest"));
+        return new Reply(status, mediaType, body, problem, Objects.requireNonNull(digest, "digest"), fileName);
+    }
+
+    /** The same 200 reply, to be saved under {@code name} ({@link Attachment}). */
+    Reply attached(String name) {
+        if (problem != null) {
+            throw new IllegalStateException("a problem is not an attachment");
+        }
+        return new Reply(status, mediaType, body, problem, requestDigest, Objects.requireNonNull(name, "name"));
+    }
+
+    /**
+     * The file name a 200 body is saved under ({@code Content-Disposition: attachment; filename="..."}), or null
+     * when the body is shown rather than saved.
+     */
+    public String fileName() {
+        return fileName;
     }
 
     /** {@link RequestDigest} of the decoded request, or null when the request did not decode. */
@@ -113,17 +137,18 @@ public final class Reply {
                 && Objects.equals(mediaType, o.mediaType)
                 && Arrays.equals(body, o.body)
                 && Objects.equals(problem, o.problem)
-                && Objects.equals(requestDigest, o.requestDigest);
+                && Objects.equals(requestDigest, o.requestDigest)
+                && Objects.equals(fileName, o.fileName);
     }
 
     @Override
     public int hashCode() {
-        return Objects.hash(status, mediaType, Arrays.hashCode(body), problem, requestDigest);
+        return Objects.hash(status, mediaType, Arrays.hashCode(body), problem, requestDigest, fileName);
     }
 
     @Override
     public String toString() {
         return "Reply[status=" + status + ", mediaType=" + mediaType + ", bytes=" + (body == null ? 0 : body.length)
-                + ", problem=" + problem + ", requestDigest=" + requestDigest + "]";
+                + ", problem=" + problem + ", requestDigest=" + requestDigest + ", fileName=" + fileName + "]";
     }
 }

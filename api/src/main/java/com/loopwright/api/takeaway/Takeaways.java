@@ -7,7 +7,6 @@ import com.loopwright.api.problem.ProblemType;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Map;
-import java.util.function.Function;
 import java.util.stream.Collectors;
 
 /**
@@ -18,12 +17,14 @@ import java.util.stream.Collectors;
 public final class Takeaways {
 
     public static final String SVG = PlotEndpoint.SVG;
-    public static final String STRUCTURED_TEXT = ControllerEndpoint.STRUCTURED_TEXT;
-    public static final String C_SOURCE = ControllerEndpoint.C_SOURCE;
+    public static final String STRUCTURED_TEXT = ControllerFormat.STRUCTURED_TEXT.mediaType();
+    public static final String C_HEADER = ControllerFormat.C_HEADER.mediaType();
+    public static final String C_SOURCE = ControllerFormat.C_SOURCE.mediaType();
+    public static final String PLCOPEN_XML = ControllerFormat.PLCOPEN_XML.mediaType();
     public static final String JSON = Reply.JSON;
 
-    /** Controller formats: the path segment of POST /v1/designs/controllers/{format}. */
-    public static final List<String> FORMATS = List.of("structured-text", "c", "parameters");
+    /** Controller formats: the path segment of POST /v1/designs/controllers/{format}, one operation each. */
+    public static final List<String> FORMATS = ControllerFormat.SLUGS;
 
     /** Figures: the path segment of POST /v1/designs/plots/{figure}, in declaration order. */
     public static final List<String> FIGURES =
@@ -37,8 +38,8 @@ public final class Takeaways {
         this.runner = runner;
         this.plots =
                 Arrays.stream(Figure.values()).collect(Collectors.toUnmodifiableMap(Figure::slug, PlotEndpoint::new));
-        this.controllers =
-                FORMATS.stream().collect(Collectors.toUnmodifiableMap(Function.identity(), ControllerEndpoint::new));
+        this.controllers = Arrays.stream(ControllerFormat.values())
+                .collect(Collectors.toUnmodifiableMap(ControllerFormat::slug, ControllerEndpoint::new));
     }
 
     /** POST /v1/designs/plots/{figure}. */

@@ -58,7 +58,7 @@ class ExportedStepMetricsTest {
 
         String line = String.format(
                 Locale.ROOT, "overshoot %.5g%%", sampled.get("overshootPercent").asDouble());
-        for (String format : new String[] {"structured-text", "c"}) {
+        for (String format : new String[] {"structured-text", "c-header", "c-source", "plcopen-xml"}) {
             String code = export(format).text();
             assertTrue(code.contains("Simulated (sampled at T = " + PERIOD + " s"), format);
             assertTrue(code.contains(line), format + " quotes " + line);
@@ -72,7 +72,7 @@ class ExportedStepMetricsTest {
     void aPeriodTooShortToSimulateIsSaidSo() throws Exception {
         String slow = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
                 + "\"spec\":{\"settlingTime\":1.5,\"overshootPercent\":1.5}}";
-        for (String format : new String[] {"parameters", "c"}) {
+        for (String format : new String[] {"parameters", "c-source"}) {
             Answer exported = Answer.controller(
                     format,
                     ("{\"design\":" + slow + ",\"samplePeriod\":1e-5,\"actuatorLimit\":10}")

@@ -13,7 +13,8 @@ import java.util.function.Consumer;
 
 /**
  * POST /v1/designs/plots/{figure} and /v1/designs/controllers/{format}: a JSON body and one path parameter in,
- * a text artifact (SVG, Structured Text, C, JSON) or a problem out, computed on the bounded pool.
+ * a text artifact (SVG, Structured Text, C, PLCopen XML, JSON; a controller export as an attachment with its file
+ * name) or a problem out, computed on the bounded pool.
  */
 public final class TakeawayRoute implements Handler {
 
@@ -73,6 +74,10 @@ public final class TakeawayRoute implements Handler {
             }
             problems.write(ctx, takeaway.problem());
             return;
+        }
+        if (takeaway.fileName() != null) {
+            // the api allows only [A-Za-z0-9_.-] in a file name: quoted as is, nothing to escape
+            ctx.header("Content-Disposition", "attachment; filename=\"" + takeaway.fileName() + "\"");
         }
         ctx.status(200).contentType(takeaway.mediaType()).result(takeaway.body());
     }

@@ -14,7 +14,7 @@ public final class Cors {
 
     static final String ALLOWED_METHODS = "GET, POST, OPTIONS";
     static final String ALLOWED_HEADERS = "Content-Type, Authorization, X-Api-Key, X-Request-Id";
-    static final String EXPOSED_HEADERS = "X-Request-Id, Retry-After";
+    static final String EXPOSED_HEADERS = "X-Request-Id, Retry-After, Content-Disposition";
     static final int PREFLIGHT_MAX_AGE_SECONDS = 600;
 
     private final Set<String> origins;

@@ -582,7 +582,7 @@ final class GoldenCases {
     }
 
     private void controllers() {
-        String[] formats = {"structured-text", "c", "parameters"};
+        String[] formats = {"structured-text", "c-header", "c-source", "plcopen-xml", "parameters"};
         String[] bodies = {
             "{\"design\":" + AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}",
             "{\"design\":{\"plant\":{\"form\":\"rotaryAxis\",\"inertia\":0.004,\"viscousFriction\":0.002,\"torqueConstant\":0.12,\"gearRatio\":10},\"spec\":{\"settlingTime\":0.25,\"overshootPercent\":1}},\"samplePeriod\":0.0005,\"actuatorLimit\":8}",
@@ -593,9 +593,39 @@ final class GoldenCases {
                 post("controller-" + format + "-" + i, "/v1/designs/controllers/" + format, bodies[i]);
             }
         }
+        String options = "{\"design\":{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}},\"samplePeriod\":0.001,"
+                + "\"actuatorRange\":{\"lowest\":4,\"highest\":20},\"operatingPoint\":{\"output\":0.25,\"command\":12},"
+                + "\"prefix\":\"Valve7\",\"precision\":\"single\",\"periodTolerancePercent\":5}";
+        for (String format : formats) {
+            post("controller-options-" + format, "/v1/designs/controllers/" + format, options);
+        }
+        post("controller-bad-prefix", "/v1/designs/controllers/c-header", options.replace("\"Valve7\"", "\"7Valve\""));
+        post(
+                "controller-limit-and-range",
+                "/v1/designs/controllers/parameters",
+                options.replace("\"samplePeriod\":0.001,", "\"samplePeriod\":0.001,\"actuatorLimit\":3,"));
+        // issue 17 part 2: the vertical axis with integral action and position-only sensing, exported as its loop
+        String lift = "{\"design\":{\"plant\":{\"form\":\"massSpringDamper\",\"mass\":18,\"damping\":60,"
+                + "\"stiffness\":0},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},\"integralAction\":true,"
+                + "\"measurement\":\"position\",\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5}},"
+                + "\"samplePeriod\":0.001,\"actuatorRange\":{\"lowest\":-400,\"highest\":800},\"prefix\":\"Lift\"}";
+        for (String format : formats) {
+            post("controller-loop-" + format, "/v1/designs/controllers/" + format, lift);
+        }
+        post(
+                "controller-loop-observer-too-fast",
+                "/v1/designs/controllers/c-source",
+                lift.replace(
+                        "{\"method\":\"poleMultiple\",\"multiple\":5}",
+                        "{\"method\":\"kalman\",\"processNoise\":25,\"sensorResolution\":1e-6,\"samplePeriod\":1e-3}"));
+        post(
+                "controller-retired-c-format",
+                "/v1/designs/controllers/c",
+                "{\"design\":" + AXIS + ",\"samplePeriod\":0.001,\"actuatorLimit\":3}");
         post(
                 "controller-period-too-long",
-                "/v1/designs/controllers/c",
+                "/v1/designs/controllers/c-source",
                 "{\"design\":" + AXIS + ",\"samplePeriod\":0.05,\"actuatorLimit\":3}");
         post(
                 "controller-unknown-format",

@@ -1,6 +1,5 @@
 package com.loopwright.solver.export;
 
-import com.loopwright.solver.design.SampledLaw;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -46,28 +45,6 @@ final class Literals {
             line.append(word);
         }
         lines.add(line.toString());
-        return lines;
-    }
-
-    /** The shared header text lines (without comment markers). */
-    static List<String> header(ExportHeader header, SampledLaw law) {
-        List<String> lines = new ArrayList<>();
-        lines.addAll(commentLines(header.title()));
-        lines.add("");
-        lines.addAll(commentLines("u = clamp(kr*r - (k1*x1 + k2*x2), -limit, +limit), run once every "
-                + real(law.samplePeriod())
-                + " s with the command held between samples (emulation of the continuous law: gains unchanged)."));
-        lines.add("Sampled loop: spectral radius " + real(law.sampledSpectralRadius()) + ", wn*T = "
-                + real(law.periodPerTimeConstant()));
-        for (String spec : header.specLines()) {
-            lines.addAll(commentLines(spec));
-        }
-        lines.add("gamma (H-infinity level, disturbance to performance output) = " + real(header.gamma()));
-        lines.add("");
-        lines.add("CAUTIONS:");
-        for (String caution : header.cautions()) {
-            lines.addAll(commentLines("- " + caution));
-        }
         return lines;
     }
 }

@@ -28,16 +28,18 @@ public final class SampledLawDesigner {
     static final int ADVICE_DIGITS = 4;
 
     /**
-     * @throws SampledLawException when the period or limit is out of range, or the sampled loop is not stable
+     * @param commandMin the lowest command the actuator takes [u units]
+     * @param commandMax the highest command the actuator takes [u units]
+     * @throws SampledLawException when the period or limits are out of range, or the sampled loop is not stable
      *     with margin (wn T above {@value #MAX_PERIOD_PER_TIME_CONSTANT} or spectral radius &gt;= 1)
      */
-    public SampledLaw emulate(ClosedFormDesign design, double samplePeriod, double actuatorLimit) {
+    public SampledLaw emulate(ClosedFormDesign design, double samplePeriod, double commandMin, double commandMax) {
         if (!(samplePeriod >= MIN_SAMPLE_PERIOD && samplePeriod <= MAX_SAMPLE_PERIOD)) {
             throw new SampledLawException(
                     "the sample period must lie in [" + MIN_SAMPLE_PERIOD + ", " + MAX_SAMPLE_PERIOD + "] s", true);
         }
-        if (!(actuatorLimit > 0) || !Double.isFinite(actuatorLimit)) {
-            throw new SampledLawException("the actuator limit must be finite and positive", false);
+        if (!Double.isFinite(commandMin) || !Double.isFinite(commandMax) || !(commandMin < commandMax)) {
+            throw new SampledLawException("the command limits must be finite with the lowest below the highest", false);
         }
         double wn = design.target().naturalFrequencyRadPerSec();
         double periodPerTimeConstant = wn * samplePeriod;
@@ -73,7 +75,7 @@ public final class SampledLawDesigner {
                     true);
         }
         return new SampledLaw(
-                samplePeriod, k1, k2, design.referenceGain(), actuatorLimit, radius, periodPerTimeConstant);
+                samplePeriod, k1, k2, design.referenceGain(), commandMin, commandMax, radius, periodPerTimeConstant);
     }
 
     /** The canonical plant sampled exactly under zero-order hold. */

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.loopwright.solver.pipeline.ControllerTexts;
 import java.time.Instant;
 import org.junit.jupiter.api.Test;
 

@@ -28,7 +28,19 @@ final class CClosedLoop {
 
     private CClosedLoop() {}
 
+    /**
+     * Whether gcc runs here; .ci/run installs gcc and sets LOOPWRIGHT_REQUIRE_GCC=1, which turns a missing gcc into
+     * a failure instead of a skipped test.
+     */
     static boolean gccPresent() {
+        boolean present = gccRuns();
+        if (!present && "1".equals(System.getenv("LOOPWRIGHT_REQUIRE_GCC"))) {
+            throw new AssertionError("gcc is required (LOOPWRIGHT_REQUIRE_GCC=1) but missing");
+        }
+        return present;
+    }
+
+    private static boolean gccRuns() {
         try {
             Process p = new ProcessBuilder("gcc", "--version")
                     .redirectErrorStream(true)

@@ -114,7 +114,7 @@ class ControllerCClosedLoopTest {
     void plainLawIsTodaysEmulatedLaw() {
         DesignReport report = IndexingAxis.report();
         double limit = 2.5;
-        SampledLaw law = new SampledLawDesigner().emulate(report.design(), 1e-3, limit);
+        SampledLaw law = new SampledLawDesigner().emulate(report.design(), 1e-3, -limit, limit);
         DiscreteController d = DiscreteControllers.fromStateFeedback(
                 law.samplePeriod(), law.positionGain(), law.velocityGain(), law.referenceGain());
         ControllerStep step = new ControllerStep(d, ControllerSettings.symmetric(limit, 2));

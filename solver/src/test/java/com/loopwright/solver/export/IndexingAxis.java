@@ -6,7 +6,6 @@ import com.loopwright.solver.pipeline.LoopDesigner;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.TimeSpec;
-import java.util.List;
 
 /** The README's packaging-line indexing axis, designed once for the export tests. */
 final class IndexingAxis {
@@ -23,13 +22,5 @@ final class IndexingAxis {
                         new GammaChoice.MarginOverMinimum(1.2),
                         1,
                         0.02);
-    }
-
-    static ExportHeader header(DesignReport report) {
-        return new ExportHeader(
-                "Packaging-line indexing axis: current command from position and velocity",
-                List.of("settling time 0.15 s (2% band), overshoot 1.5%"),
-                report.design().gamma(),
-                List.of("Commission with reduced gains first; this design provides no safety function (*/ *) test)."));
     }
 }

@@ -44,7 +44,7 @@ class SampledLawDesignerTest {
     void shortPeriodKeepsTheContinuousPoles() {
         ClosedFormDesign design = IndexingAxis.report().design();
         double period = 1e-4;
-        SampledLaw law = designer.emulate(design, period, 10);
+        SampledLaw law = designer.emulate(design, period, -10, 10);
         double zeta = design.target().dampingRatio();
         double wn = design.target().naturalFrequencyRadPerSec();
         assertEquals(Math.exp(-zeta * wn * period), law.sampledSpectralRadius(), 2e-5);
@@ -60,7 +60,7 @@ class SampledLawDesignerTest {
         DesignReport report = IndexingAxis.report();
         ClosedFormDesign d = report.design();
         double period = 1e-4;
-        SampledLaw law = designer.emulate(d, period, 1e6);
+        SampledLaw law = designer.emulate(d, period, -1e6, 1e6);
         int steps = 3000;
         double[][] sampled = new SampledLawSimulator().run(IndexingAxis.PLANT, law, 1, steps);
         double b = IndexingAxis.PLANT.b();
@@ -81,7 +81,7 @@ class SampledLawDesignerTest {
 
     @Test
     void clampHoldsTheActuatorLimit() {
-        SampledLaw law = designer.emulate(IndexingAxis.report().design(), 1e-3, 0.5);
+        SampledLaw law = designer.emulate(IndexingAxis.report().design(), 1e-3, -0.5, 0.5);
         double[][] rows = new SampledLawSimulator().run(IndexingAxis.PLANT, law, 1, 500);
         for (double[] row : rows) {
             assertTrue(Math.abs(row[2]) <= 0.5);
@@ -92,11 +92,12 @@ class SampledLawDesignerTest {
     @Test
     void tooLongOrBadPeriodsAndLimitsAreRejected() {
         ClosedFormDesign design = IndexingAxis.report().design();
-        SampledLawException tooLong = assertThrows(SampledLawException.class, () -> designer.emulate(design, 0.05, 1));
+        SampledLawException tooLong =
+                assertThrows(SampledLawException.class, () -> designer.emulate(design, 0.05, -1, 1));
         assertTrue(tooLong.aboutSamplePeriod());
-        assertThrows(SampledLawException.class, () -> designer.emulate(design, 0, 1));
-        assertThrows(SampledLawException.class, () -> designer.emulate(design, Double.NaN, 1));
-        SampledLawException limit = assertThrows(SampledLawException.class, () -> designer.emulate(design, 1e-3, 0));
+        assertThrows(SampledLawException.class, () -> designer.emulate(design, 0, -1, 1));
+        assertThrows(SampledLawException.class, () -> designer.emulate(design, Double.NaN, -1, 1));
+        SampledLawException limit = assertThrows(SampledLawException.class, () -> designer.emulate(design, 1e-3, 0, 0));
         assertTrue(!limit.aboutSamplePeriod());
     }
 }
