@@ -46,6 +46,7 @@ import java.lang.reflect.RecordComponent;
 import java.lang.reflect.Type;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
 import java.util.Map;
@@ -65,6 +66,45 @@ class ContractDriftTest {
         SwaggerParseResult result = new OpenAPIV3Parser().readContents(Files.readString(Contract.FILE));
         assertTrue(result.getMessages() == null || result.getMessages().isEmpty(), "parser: " + result.getMessages());
         assertEquals("3.1.0", result.getOpenAPI().getOpenapi());
+    }
+
+    /**
+     * One name for one quantity (common practice for a public contract): no schema property anywhere in the contract
+     * uses a synonym of a name the contract already gives that quantity. Each pair is (synonym, the contract's name).
+     */
+    @Test
+    void everyQuantityHasOneNameAcrossTheContract() {
+        Map<String, String> synonyms = Map.of(
+                "peakCommand", "peakControl",
+                "stateGain", "k",
+                "commandLimit", "actuatorLimit",
+                "samplePeriodSeconds", "samplePeriod",
+                "hinfNorm", "peakDisturbanceGain",
+                "peakFrequency", "peakDisturbanceGainFrequency",
+                "gammaLowerBoundValue", "gammaLowerBound");
+        List<String> found = new ArrayList<>();
+        collectPropertyNames(contract.document(), "", synonyms, found);
+        assertEquals(List.of(), found, "synonyms of names the contract already uses");
+    }
+
+    private static void collectPropertyNames(
+            JsonNode node, String at, Map<String, String> synonyms, List<String> found) {
+        if (node.isObject()) {
+            JsonNode properties = node.get("properties");
+            if (properties != null && properties.isObject()) {
+                properties.fieldNames().forEachRemaining(name -> {
+                    if (synonyms.containsKey(name)) {
+                        found.add(at + "/properties/" + name + " (use " + synonyms.get(name) + ")");
+                    }
+                });
+            }
+            node.fields()
+                    .forEachRemaining(e -> collectPropertyNames(e.getValue(), at + "/" + e.getKey(), synonyms, found));
+        } else if (node.isArray()) {
+            for (int i = 0; i < node.size(); i++) {
+                collectPropertyNames(node.get(i), at + "/" + i, synonyms, found);
+            }
+        }
     }
 
     @Test

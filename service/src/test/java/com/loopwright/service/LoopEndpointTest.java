@@ -112,8 +112,8 @@ class LoopEndpointTest extends LiveServerTest {
         double a0 = loop.at("/plant/a0").asDouble();
         double a1 = loop.at("/plant/a1").asDouble();
         double b = loop.at("/plant/b").asDouble();
-        double k1 = loop.at("/law/stateGain/0").asDouble();
-        double k2 = loop.at("/law/stateGain/1").asDouble();
+        double k1 = loop.at("/law/k/0").asDouble();
+        double k2 = loop.at("/law/k/1").asDouble();
         double ki = loop.at("/law/integralGain").asDouble();
         double[] law = monic(loop.at("/law/closedLoopPoles"));
         assertEquals(a1 + b * k2, law[1], 1e-9 * law[1]);
@@ -160,7 +160,7 @@ class LoopEndpointTest extends LiveServerTest {
                 .at("/paths/~1v1~1designs/post/requestBody/content/application~1json/examples"
                         + "/verticalAxisEncoderOnly/value");
         assertEquals(new com.fasterxml.jackson.databind.ObjectMapper().readTree(body.group(1)), example);
-        assertEquals(15219, loop.at("/law/stateGain/0").asDouble(), 0.5);
+        assertEquals(15219, loop.at("/law/k/0").asDouble(), 0.5);
         assertEquals(97209, loop.at("/law/integralGain").asDouble(), 0.5);
         assertEquals(-37.45, loop.at("/law/integralPole").asDouble(), 0.005);
         assertEquals(1.663, loop.at("/law/gamma").asDouble(), 0.0005);
@@ -184,8 +184,8 @@ class LoopEndpointTest extends LiveServerTest {
                 + "\"spec\":{\"settlingTime\":0.8,\"overshootPercent\":3},\"measurement\":\"position\","
                 + "\"observer\":{\"method\":\"poleMultiple\",\"multiple\":6},\"loadStepSize\":2}");
         double a0 = 4, a1 = 2.5, b = 3, d = 0.5, w0 = 2;
-        double k1 = loop.at("/law/stateGain/0").asDouble();
-        double k2 = loop.at("/law/stateGain/1").asDouble();
+        double k1 = loop.at("/law/k/0").asDouble();
+        double k2 = loop.at("/law/k/1").asDouble();
         double l1 = loop.at("/observer/gain/0").asDouble();
         double l2 = loop.at("/observer/gain/1").asDouble();
         double det = l1 * a1 + a0 + l2;
@@ -239,7 +239,7 @@ class LoopEndpointTest extends LiveServerTest {
         JsonNode loop = reply.json();
         assertSameStep(plain, loop.at("/law/step"), "order 3, integral action");
         assertSameStep(plain, loop.at("/outputFeedback/step"), "order 3, with the observer");
-        assertEquals(3, loop.at("/law/stateGain").size());
+        assertEquals(3, loop.at("/law/k").size());
         assertEquals(3, loop.at("/observer/gain").size());
         assertTrue(loop.at("/loadStep/zeroSteadyOffset").asBoolean());
     }
@@ -303,7 +303,7 @@ class LoopEndpointTest extends LiveServerTest {
         JsonNode loop = design("{\"plant\":{\"form\":\"canonical\"," + coefficients + "," + SPEC
                 + ",\"integralAction\":true,\"measurement\":\"position\"," + "\"loadStepSize\":-100}");
         JsonNode law = loop.get("law");
-        String body = "{" + plant + ",\"gain\":{\"k1\":" + law.at("/stateGain/0") + ",\"k2\":" + law.at("/stateGain/1")
+        String body = "{" + plant + ",\"gain\":{\"k1\":" + law.at("/k/0") + ",\"k2\":" + law.at("/k/1")
                 + ",\"referenceGain\":" + law.get("referenceGain") + ",\"integralGain\":" + law.get("integralGain")
                 + "},\"spec\":{\"settlingTime\":0.3,\"overshootPercent\":2},\"measurement\":\"position\","
                 + "\"observerGain\":" + loop.at("/observer/gain") + ",\"loadStepSize\":-100}";
@@ -336,7 +336,7 @@ class LoopEndpointTest extends LiveServerTest {
         // a request without the loop fields has no loop section
         LiveServer.Reply plainCheck = server.post(
                 "/v1/verifications",
-                "{" + plant + ",\"gain\":{\"k1\":" + law.at("/stateGain/0") + ",\"k2\":" + law.at("/stateGain/1")
+                "{" + plant + ",\"gain\":{\"k1\":" + law.at("/k/0") + ",\"k2\":" + law.at("/k/1")
                         + ",\"referenceGain\":1}}");
         assertEquals(200, plainCheck.status(), plainCheck.text());
         assertNull(plainCheck.json().get("loop"));

@@ -11,8 +11,8 @@ import java.util.List;
  * of the specs.
  *
  * @param law                          the law as a formula
- * @param coordinates                  the coordinates of stateGain
- * @param stateGain                    K, one entry per plant state
+ * @param coordinates                  the coordinates of k
+ * @param k                            K, one entry per plant state (the name of gain.k)
  * @param integralGain                 ki (integral action only)
  * @param referenceGain                kr, the feedforward of the reference
  * @param integralPole                 p_i [1/s], negative (integral action only)
@@ -31,7 +31,7 @@ import java.util.List;
 public record Law(
         String law,
         String coordinates,
-        List<Double> stateGain,
+        List<Double> k,
         Double integralGain,
         double referenceGain,
         Double integralPole,
@@ -46,7 +46,7 @@ public record Law(
         InputMargins margins) {
 
     public Law {
-        stateGain = List.copyOf(stateGain);
+        k = List.copyOf(k);
         weights = List.copyOf(weights);
         closedLoopPoles = List.copyOf(closedLoopPoles);
     }

@@ -12,7 +12,7 @@ package com.loopwright.api.loop;
  * @param peakDeviation        max |y| over the window
  * @param peakTime             where [s]
  * @param recoveryTime         last time |y - y(inf)| exceeds 2 % of its peak [s]
- * @param peakCommand          max |u| over the window
+ * @param peakControl          max |u| over the window (the name of simulated.peakControl)
  * @param horizon              simulated window [s]
  * @param samples              samples on it
  */
@@ -24,6 +24,6 @@ public record LoadStep(
         double peakDeviation,
         double peakTime,
         double recoveryTime,
-        double peakCommand,
+        double peakControl,
         double horizon,
         int samples) {}
