@@ -17,8 +17,9 @@ import java.nio.charset.StandardCharsets;
 public final class Scenarios {
 
     /** The README request body, byte for byte the one the service receives. */
-    public static final String INDEXING_AXIS_REQUEST = "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
-            + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
+    public static final String INDEXING_AXIS_REQUEST =
+            "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},"
+                    + "\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}";
 
     /** Settling time of the indexing axis spec [s]. */
     public static final double SETTLING_TIME_SECONDS = 0.15;
