@@ -173,6 +173,24 @@ class RobustDesignEndpointTest extends LiveServerTest {
                 again.json().at("/robust/priceOfRobustness/worst/peakControl").asDouble() <= 2);
     }
 
+    /** Position-only sensing: the observer as designed for the nominal plant runs on every perturbed case. */
+    @Test
+    void robustDesignWithAnObserverJudgesTheOutputFeedbackLoop() {
+        LiveServer.Reply reply = server.post(
+                "/v1/designs",
+                "{" + AXIS + ",\"integralAction\":true,\"measurement\":\"position\","
+                        + "\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5},\"robust\":{\"uncertainty\":"
+                        + EXPLICIT_BOX + "}}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode robust = reply.json().get("robust");
+        assertEquals("integralActionPositionObserver", robust.get("judgedLoop").asText());
+        assertTrue(robust.get("meetsEverywhere").asBoolean(), robust.toString());
+        // the limits as sent (common practice: a worst case on the limit, not past it)
+        assertTrue(robust.at("/priceOfRobustness/worst/settlingTime").asDouble() <= 0.15);
+        assertTrue(robust.at("/priceOfRobustness/worst/overshootPercent").asDouble() <= 1.5);
+        assertTrue(reply.json().has("observer"), "the loop's sections are those of the chosen target");
+    }
+
     @Test
     void aRobustLoopDesignWithTooManySamplesIsA400AtTheSampleCount() {
         LiveServer.Reply reply = server.post(
