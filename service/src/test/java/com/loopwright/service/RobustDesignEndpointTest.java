@@ -4,6 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.robustness.ParameterBox;
+import com.loopwright.solver.robustness.ParameterSampler;
+import com.loopwright.solver.simulation.LinearLoop;
+import com.loopwright.solver.simulation.StepResponseMetrics;
+import org.ejml.data.DMatrixRMaj;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -81,12 +87,117 @@ class RobustDesignEndpointTest extends LiveServerTest {
         assertTrue(reply.text().contains("/robust/uncertainty"), reply.text());
     }
 
+    /**
+     * The spec as sent, with the agreement of two exact step simulations on different grids (1e-6 relative, from
+     * memory of the event refinement's accuracy): the search's binding case sits on the limit.
+     */
+    private static final double SETTLING_LIMIT = 0.15 * (1 + 1e-6);
+
+    private static final double OVERSHOOT_LIMIT = 1.5 + 1e-6;
+
+    /** The README axis's box with every range as explicit bounds (the test draws the same samples). */
+    private static final String EXPLICIT_BOX = "{\"a1\":{\"lowest\":0.384,\"highest\":0.576},"
+            + "\"b\":{\"lowest\":266.7,\"highest\":500},\"d\":{\"lowest\":266.7,\"highest\":500},"
+            + "\"monteCarloSamples\":40,\"seed\":7}";
+
+    /**
+     * Robust design with integral action: every corner is checked by POST /v1/verifications (its loop section
+     * assembles and simulates the caller's law on the corner plant) and every sample by a step simulated here on
+     * a loop matrix written out by hand (x1' = x2, x2' = -a0 x1 - a1 x2 + b u, xi' = r - x1,
+     * u = kr r + ki xi - k1 x1 - k2 x2; the integral law as the README states it). Limits: the spec as sent.
+     */
     @Test
-    void aRobustDesignWithIntegralActionIsA400AtRobust() {
-        // the robust search covers the full-state loop only (its cases are two-state loops)
+    void robustDesignWithIntegralActionMeetsTheSpecAtEveryCornerAndSampleCheckedIndependently() {
         LiveServer.Reply reply = server.post(
-                "/v1/designs", "{" + AXIS + ",\"integralAction\":true,\"robust\":{\"uncertainty\":" + BOX + "}}");
+                "/v1/designs",
+                "{" + AXIS + ",\"integralAction\":true,\"robust\":{\"uncertainty\":" + EXPLICIT_BOX + "}}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode body = reply.json();
+        JsonNode robust = body.get("robust");
+        assertEquals("integralAction", robust.get("judgedLoop").asText());
+        assertTrue(robust.get("meetsEverywhere").asBoolean(), robust.toString());
+        assertEquals(8, robust.get("corners").size());
+        JsonNode law = body.at("/law");
+        double k1 = law.at("/k/0").asDouble();
+        double k2 = law.at("/k/1").asDouble();
+        double kr = law.get("referenceGain").asDouble();
+        double ki = law.get("integralGain").asDouble();
+        String gain = "\"gain\":{\"k1\":" + k1 + ",\"k2\":" + k2 + ",\"referenceGain\":" + kr + ",\"integralGain\":"
+                + ki + "}";
+        for (JsonNode corner : robust.get("corners")) {
+            JsonNode p = corner.get("plant");
+            LiveServer.Reply check = server.post(
+                    "/v1/verifications",
+                    "{\"plant\":{\"form\":\"canonical\",\"a0\":" + p.get("a0") + ",\"a1\":" + p.get("a1")
+                            + ",\"b\":" + p.get("b") + ",\"d\":" + p.get("d") + "}," + gain
+                            + ",\"spec\":{\"settlingTime\":0.15,\"overshootPercent\":1.5}}");
+            assertEquals(200, check.status(), check.text());
+            JsonNode step = check.json().at("/loop/step");
+            assertTrue(step.get("settlingTime").asDouble() <= SETTLING_LIMIT, corner + " " + step);
+            assertTrue(step.get("overshootPercent").asDouble() <= OVERSHOOT_LIMIT, corner + " " + step);
+        }
+        // the same seeded samples (ParameterSampler, one definition for every consumer), simulated here
+        ParameterSampler sampler =
+                new ParameterSampler(new ParameterBox(0, 0, 0.384, 0.576, 266.7, 500, 266.7, 500), 7);
+        for (int s = 0; s < 40; s++) {
+            double[] p = sampler.next();
+            double b = p[2];
+            DMatrixRMaj a =
+                    new DMatrixRMaj(new double[][] {{0, 1, 0}, {-p[0] - b * k1, -p[1] - b * k2, b * ki}, {-1, 0, 0}});
+            LinearLoop loop = new LinearLoop(
+                    a,
+                    new DMatrixRMaj(new double[][] {{0}, {b * kr}, {1}}),
+                    new DMatrixRMaj(new double[][] {{1, 0, 0}}),
+                    new DMatrixRMaj(new double[][] {{-k1, -k2, ki}}),
+                    kr);
+            StepMetrics m = new StepResponseMetrics().measure(loop, 1, 3, 30_000, 0.02);
+            assertTrue(m.settlingTimeSeconds() <= SETTLING_LIMIT, "sample " + s + ": " + m);
+            assertTrue(m.overshootPercent() <= OVERSHOOT_LIMIT, "sample " + s + ": " + m);
+        }
+    }
+
+    @Test
+    void aRobustIntegralDesignTheActuatorCannotMeetIsInfeasibleWithAReadyToSendProposal() {
+        String loop = ",\"integralAction\":true,\"robust\":{\"uncertainty\":" + EXPLICIT_BOX + ",\"actuatorLimit\":2}}";
+        LiveServer.Reply reply = server.post("/v1/designs", "{" + AXIS + loop);
+        assertEquals(422, reply.status(), reply.text());
+        JsonNode proposal = reply.json().at("/proposals/0");
+        assertEquals("/spec/settlingTime", proposal.get("pointer").asText(), proposal.toString());
+        assertTrue(proposal.at("/spec/settlingTime").asDouble() > 0.15);
+        LiveServer.Reply again = server.post(
+                "/v1/designs",
+                "{\"plant\":{\"form\":\"canonical\",\"a0\":0,\"a1\":0.48,\"b\":400,\"d\":400},\"spec\":"
+                        + proposal.get("spec") + loop);
+        assertEquals(200, again.status(), again.text());
+        assertTrue(
+                again.json().at("/robust/priceOfRobustness/worst/peakControl").asDouble() <= 2);
+    }
+
+    /** Position-only sensing: the observer as designed for the nominal plant runs on every perturbed case. */
+    @Test
+    void robustDesignWithAnObserverJudgesTheOutputFeedbackLoop() {
+        LiveServer.Reply reply = server.post(
+                "/v1/designs",
+                "{" + AXIS + ",\"integralAction\":true,\"measurement\":\"position\","
+                        + "\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5},\"robust\":{\"uncertainty\":"
+                        + EXPLICIT_BOX + "}}");
+        assertEquals(200, reply.status(), reply.text());
+        JsonNode robust = reply.json().get("robust");
+        assertEquals("integralActionPositionObserver", robust.get("judgedLoop").asText());
+        assertTrue(robust.get("meetsEverywhere").asBoolean(), robust.toString());
+        // the limits as sent (common practice: a worst case on the limit, not past it)
+        assertTrue(robust.at("/priceOfRobustness/worst/settlingTime").asDouble() <= 0.15);
+        assertTrue(robust.at("/priceOfRobustness/worst/overshootPercent").asDouble() <= 1.5);
+        assertTrue(reply.json().has("observer"), "the loop's sections are those of the chosen target");
+    }
+
+    @Test
+    void aRobustLoopDesignWithTooManySamplesIsA400AtTheSampleCount() {
+        LiveServer.Reply reply = server.post(
+                "/v1/designs",
+                "{" + AXIS + ",\"integralAction\":true,\"robust\":{\"uncertainty\":{\"b\":{\"spreadPercent\":10},"
+                        + "\"monteCarloSamples\":201}}}");
         assertEquals(400, reply.status(), reply.text());
-        assertTrue(reply.text().contains("\"/robust\""), reply.text());
+        assertTrue(reply.text().contains("/robust/uncertainty/monteCarloSamples"), reply.text());
     }
 }

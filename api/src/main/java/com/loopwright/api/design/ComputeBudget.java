@@ -62,6 +62,14 @@ public final class ComputeBudget {
      * 4 us each, 0.5 ms = 5 units); typical searches use a tenth of it.
      */
     public static final long ROBUST_UNITS_PER_SAMPLE = 5;
+    /**
+     * A robust design of the loop with integral action or an observer (integralAction or measurement position with
+     * robust): every case of the search is a simulated step of the perturbed loop and every target a loop design.
+     * The search over the corners, charged at a typical search (measured: see docs/limits-and-budgets.md).
+     */
+    public static final long ROBUST_LOOP_SEARCH_UNITS = 2_000;
+    /** The same search, per Monte Carlo sample (each sample simulated at each target that reaches every case). */
+    public static final long ROBUST_LOOP_UNITS_PER_SAMPLE = 20;
     /** Frequency-response and time-series points returned, per unit. */
     public static final long POINTS_PER_UNIT = 30;
     /**
@@ -91,11 +99,14 @@ public final class ComputeBudget {
         }
         JsonNode robust = request == null ? null : request.get("robust");
         if (robust != null && robust.isObject()) {
-            parts.put("/robust", ROBUST_SEARCH_UNITS);
+            boolean simulated = integral || position;
+            parts.put("/robust", simulated ? ROBUST_LOOP_SEARCH_UNITS : ROBUST_SEARCH_UNITS);
             JsonNode box = robust.get("uncertainty");
             long samples = box == null ? 0 : count(box.get("monteCarloSamples"), VerifyLimits.MAX_MONTE_CARLO_SAMPLES);
             if (samples > 0) {
-                parts.put("/robust/uncertainty/monteCarloSamples", samples * ROBUST_UNITS_PER_SAMPLE);
+                parts.put(
+                        "/robust/uncertainty/monteCarloSamples",
+                        samples * (simulated ? ROBUST_LOOP_UNITS_PER_SAMPLE : ROBUST_UNITS_PER_SAMPLE));
             }
         }
         JsonNode verify = request == null ? null : request.get("verify");

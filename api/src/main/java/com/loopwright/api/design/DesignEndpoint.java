@@ -128,13 +128,6 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
      */
     private ValidatedVerify validateRobust(RobustInput robust, ValidatedDesign design) {
         List<FieldError> errors = new ArrayList<>();
-        if (design.loop() != null) {
-            errors.add(new FieldError(
-                    ROBUST_POINTER,
-                    "a robust design is for the full-state loop without integral action; leave out integralAction"
-                            + " and measurement, or robust"));
-            throw new InvalidRequestException(errors);
-        }
         if (robust.uncertainty() == null) {
             errors.add(new FieldError(ROBUST_POINTER + "/uncertainty", "required: the parameter box to design for"));
             throw new InvalidRequestException(errors);
@@ -146,6 +139,12 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                 errors);
         if (validated == null) {
             throw new InvalidRequestException(VerifyLimits.capped(errors));
+        }
+        if (design.loop() != null && validated.options().monteCarloSamples() > RobustDesignPipeline.MAX_LOOP_SAMPLES) {
+            throw new InvalidRequestException(List.of(new FieldError(
+                    ROBUST_POINTER + "/uncertainty/monteCarloSamples",
+                    "at most " + RobustDesignPipeline.MAX_LOOP_SAMPLES + " samples for a robust design with integral"
+                            + " action or position-only sensing (each case is a simulated step)")));
         }
         return validated;
     }
@@ -160,7 +159,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
         ValidatedDesign design = validated.design();
         // the loop that runs first: an infeasible augmented design is named with its own proposal
         RealLoopReport loop = null;
-        if (design.loop() != null) {
+        if (design.loop() != null && validated.robust() == null) {
             loop = realLoops.design(RealLoopPipeline.Request.canonical(
                     design.plant(),
                     design.spec(),
@@ -170,7 +169,23 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
         }
         RobustDesignReport robustDesign = null;
         DesignReport report;
-        if (validated.robust() != null) {
+        if (validated.robust() != null && design.loop() != null) {
+            RobustnessOptions box = validated.robust().options();
+            robustDesign = robustDesigns.designLoop(
+                    design.plant(),
+                    design.spec(),
+                    design.gammaChoice(),
+                    design.loop().structure(),
+                    design.loop().loadStepSize(),
+                    design.stepSize(),
+                    design.bandFraction(),
+                    box.parameterBox(),
+                    box.monteCarloSamples(),
+                    box.seed(),
+                    box.actuatorLimit());
+            loop = robustDesign.loop();
+            report = robustDesign.report();
+        } else if (validated.robust() != null) {
             RobustnessOptions box = validated.robust().options();
             robustDesign = robustDesigns.design(
                     design.plant(),

@@ -22,6 +22,9 @@ import java.util.List;
  * @param actuatorLimit     the bound every case's max |u| meets, or absent
  * @param gamma             the design's gamma, the bound each corner's norm is compared with
  * @param corners           each corner's metrics and certified H-infinity norm from w to z
+ * @param judgedLoop        the loop judged over the box when integral action or position-only sensing was asked
+ *                          (integralAction, positionObserver or integralActionPositionObserver: every case a
+ *                          simulated step of that loop); absent for the full-state loop, judged in closed form
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 public record RobustDesign(
@@ -38,7 +41,8 @@ public record RobustDesign(
         Price priceOfRobustness,
         Double actuatorLimit,
         double gamma,
-        List<Corner> corners) {
+        List<Corner> corners,
+        String judgedLoop) {
 
     public RobustDesign {
         corners = List.copyOf(corners);

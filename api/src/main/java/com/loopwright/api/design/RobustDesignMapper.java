@@ -2,6 +2,8 @@ package com.loopwright.api.design;
 
 import com.loopwright.api.robustness.RobustnessResponse;
 import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.pipeline.LoopStructure;
+import com.loopwright.solver.pipeline.RealLoopReport;
 import com.loopwright.solver.pipeline.RobustDesignReport;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
@@ -21,8 +23,11 @@ final class RobustDesignMapper {
         RobustDesignReport.Binding binding = robust.binding();
         StepMetrics worst = robust.worstMetrics();
         AcceptanceLimits limits = robust.limits();
-        StepMetrics nominal = robust.report().stepMetrics();
-        TargetDynamics target = robust.report().design().target();
+        RealLoopReport loop = robust.loop();
+        StepMetrics nominal = loop == null ? robust.report().stepMetrics() : runningStep(loop);
+        TargetDynamics target = loop == null ? robust.report().design().target() : loop.target();
+        double gamma =
+                loop == null ? robust.report().design().gamma() : loop.design().gamma();
         return new RobustDesign(
                 SELECTION_RULE,
                 point(target),
@@ -58,11 +63,28 @@ final class RobustDesignMapper {
                         target.naturalFrequencyRadPerSec()
                                 / robust.requestedTarget().naturalFrequencyRadPerSec()),
                 robust.actuatorLimit(),
-                robust.report().design().gamma(),
+                gamma,
                 robust.cornerNorms().stream()
                         .map(c -> new RobustDesign.Corner(
                                 plant(c.plant()), metrics(c.metrics()), c.hInfinityNorm(), c.withinGamma()))
-                        .toList());
+                        .toList(),
+                loop == null ? null : judgedLoop(loop.structure()));
+    }
+
+    /** The loop that runs: the full output-feedback loop with an observer, else the state-feedback loop. */
+    private static StepMetrics runningStep(RealLoopReport loop) {
+        return loop.outputFeedback() == null
+                ? loop.stateFeedbackStep()
+                : loop.outputFeedback().step();
+    }
+
+    /** The judged loop's name on the wire. */
+    static String judgedLoop(LoopStructure structure) {
+        boolean observer = structure.measurement() == LoopStructure.Measurement.POSITION;
+        if (structure.integralAction()) {
+            return observer ? "integralActionPositionObserver" : "integralAction";
+        }
+        return "positionObserver";
     }
 
     private static boolean withinActuator(RobustDesignReport robust) {

@@ -82,6 +82,45 @@ public final class OutputFeedbackLoop {
                 a, reference, disturbance, noise, output, command, performance(layout, plant, weights, command));
     }
 
+    /**
+     * The loop of a law (and observer) designed for {@code model} running on {@code actual} (a perturbed plant of
+     * the same order and output row): the plant rows and the integrator row (x' and xi' = r - y) are those of the
+     * actual plant, the observer rows those of the model (the controller computes with the model's A and b). The
+     * command, noise and performance rows are the design's.
+     */
+    public static LoopSystem closedOn(
+            CompanionPlant actual,
+            CompanionPlant model,
+            double[] measuredRow,
+            TrackingLaw law,
+            double[] observerGain,
+            double[] weights) {
+        if (actual.order() != model.order()) {
+            throw new IllegalArgumentException("the actual plant and the model must have the same order");
+        }
+        LoopSystem designed = closed(model, measuredRow, law, observerGain, weights);
+        LoopSystem real = closed(actual, measuredRow, law, observerGain, weights);
+        int plantRows = actual.order() + (law.integralAction() ? 1 : 0);
+        DMatrixRMaj a = designed.a();
+        DMatrixRMaj reference = designed.reference();
+        DMatrixRMaj realA = real.a();
+        DMatrixRMaj realReference = real.reference();
+        for (int i = 0; i < plantRows; i++) {
+            for (int j = 0; j < a.numCols; j++) {
+                a.set(i, j, realA.get(i, j));
+            }
+            reference.set(i, 0, realReference.get(i, 0));
+        }
+        return new LoopSystem(
+                a,
+                reference,
+                real.disturbance(),
+                designed.noise(),
+                real.output(),
+                designed.command(),
+                designed.performance());
+    }
+
     /** The same loop broken at the plant input (the plant's own input column cut from the command). */
     public static OpenLoopAtInput atPlantInput(
             CompanionPlant plant, double[] measuredRow, TrackingLaw law, double[] observerGain) {

@@ -150,9 +150,58 @@ public final class RealLoopPipeline {
      *                       INFEASIBLE_SPEC (with a proposal when one is found), UNVERIFIABLE, LOOP_NOT_SIMULABLE
      */
     public RealLoopReport design(Request request) {
+        checkStructure(request);
+        return assembled(request, designOrFail(request));
+    }
+
+    /**
+     * The loop designed for a given dominant pair instead of the inversion of the spec (order 2; the robust search
+     * chooses the pair); the spec is still what the step is checked against.
+     *
+     * @throws SolverFailure as {@link #design(Request)}
+     */
+    RealLoopReport designAt(Request request, TargetDynamics target) {
+        checkStructure(request);
+        return assembled(request, designedAtOrFail(request, target));
+    }
+
+    /** The designed law, observer and weights for a dominant pair, without the loop's figures (the search's step). */
+    LoopParts partsAt(Request request, TargetDynamics target) {
+        Designed designed = designWith(
+                request, request.auxiliary().place(target, request.plant().order()));
+        ObserverDesign observer = request.structure().measurement() == LoopStructure.Measurement.POSITION
+                ? observer(
+                        request.plant(),
+                        request.plant().outputRow(),
+                        designed.poles(),
+                        request.structure().observer())
+                : null;
+        return new LoopParts(
+                designed.law(),
+                observer == null ? null : observer.gain(),
+                designed.design().weights());
+    }
+
+    /**
+     * A designed law, its observer gain (null with full-state sensing) and its performance weights.
+     */
+    record LoopParts(TrackingLaw law, double[] observerGain, double[] weights) {}
+
+    private Designed designedAtOrFail(Request request, TargetDynamics target) {
+        try {
+            return designWith(
+                    request, request.auxiliary().place(target, request.plant().order()));
+        } catch (InfeasibleDesignException e) {
+            throw SolverFailure.infeasible(e.infeasibility(), e);
+        } catch (PoleMatchedRiccati.SystemFailure e) {
+            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
+        }
+    }
+
+    private static void checkStructure(Request request) {
         CompanionPlant plant = request.plant();
         LoopStructure structure = request.structure();
-        if (!(request.spec().timeSpec() instanceof TimeSpec.SettlingTime settling)) {
+        if (!(request.spec().timeSpec() instanceof TimeSpec.SettlingTime)) {
             throw new IllegalArgumentException("this loop is designed from a settling-time spec");
         }
         if (structure.integralAction()) {
@@ -170,8 +219,13 @@ public final class RealLoopPipeline {
                         null);
             }
         }
+    }
+
+    private RealLoopReport assembled(Request request, Designed designed) {
+        CompanionPlant plant = request.plant();
+        LoopStructure structure = request.structure();
+        TimeSpec.SettlingTime settling = (TimeSpec.SettlingTime) request.spec().timeSpec();
         List<String> notes = new ArrayList<>();
-        Designed designed = designOrFail(request);
         TargetDynamics target = designed.poles().dominant();
         DesiredPoles plantPoles = designed.poles();
         if (plant.order() > 2) {
@@ -272,7 +326,11 @@ public final class RealLoopPipeline {
                 ? new SpecInverter().invert(spec).target()
                 : matcher.match(plant, spec, request.auxiliary(), 1, request.maxUndershootPercent())
                         .target();
-        DesiredPoles plantPoles = request.auxiliary().place(target, plant.order());
+        return designWith(request, request.auxiliary().place(target, plant.order()));
+    }
+
+    private Designed designWith(Request request, DesiredPoles plantPoles) {
+        CompanionPlant plant = request.plant();
         if (request.structure().integralAction()) {
             IntegralDesigner.IntegralDesign d = integralDesigner.design(
                     plant, plantPoles, request.structure().integralPoleMultiple(), request.gammaChoice());
@@ -327,7 +385,7 @@ public final class RealLoopPipeline {
         return new StepResponseMetrics().measure(linear, 1, horizon, samples(loop.a(), horizon), band);
     }
 
-    private static LinearLoop linear(LoopSystem loop, TrackingLaw law) {
+    static LinearLoop linear(LoopSystem loop, TrackingLaw law) {
         return new LinearLoop(loop.a(), loop.reference(), loop.output(), loop.command(), law.referenceGain());
     }
 

@@ -38,7 +38,8 @@ import org.ejml.data.DMatrixRMaj;
  * Monte Carlo sample of a parameter box ({@link RobustTargetSearch}, rule: least bandwidth), its closed-form design
  * verified as any design, the gains over the box, and each corner's certified H-infinity norm. Every failure is a
  * {@link SolverFailure}; a box no target meets is INFEASIBLE_SPEC with the best spec the box allows. Stateless and
- * thread-safe.
+ * thread-safe. The loop with integral action or an observer has no closed form over the box: {@link #designLoop}
+ * judges it by simulation ({@link RobustLoopSearch}).
  */
 public final class RobustDesignPipeline {
 
@@ -50,6 +51,10 @@ public final class RobustDesignPipeline {
     private final LoopDesigner loops = new LoopDesigner();
     private final UncertaintyAnalyzer analyzer = new UncertaintyAnalyzer();
     private final HInfinityNormCalculator norms = new HInfinityNormCalculator();
+    private final RealLoopPipeline realLoops = new RealLoopPipeline();
+
+    /** Monte Carlo samples of a robust design of the loop with integral action or an observer (each simulated). */
+    public static final int MAX_LOOP_SAMPLES = 200;
 
     /**
      * @param box           the parameter box (the nominal plant need not be a corner)
@@ -123,6 +128,99 @@ public final class RobustDesignPipeline {
         return new RobustDesignReport(report, requested, limits, actuatorLimit, outcome, uncertainty, corners, worst);
     }
 
+    /**
+     * The robust design of the loop with integral action and/or position-only sensing ({@link RobustLoopSearch}:
+     * every case simulated, the law and observer designed for the nominal plant), then that loop designed as
+     * {@link RealLoopPipeline} designs it, at the chosen target, and judged over every corner and sample. The design
+     * report is the two-state design of the same target (the response's gains section).
+     *
+     * @param samples Monte Carlo samples, 0 to {@value #MAX_LOOP_SAMPLES}
+     * @throws SolverFailure as {@link #design} and {@link RealLoopPipeline#design}
+     */
+    public RobustDesignReport designLoop(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            GammaChoice gammaChoice,
+            LoopStructure structure,
+            double loadStepSize,
+            double stepSize,
+            double bandFraction,
+            ParameterBox box,
+            int samples,
+            long seed,
+            Double actuatorLimit) {
+        if (samples < 0 || samples > MAX_LOOP_SAMPLES) {
+            throw new IllegalArgumentException("samples must be 0 to " + MAX_LOOP_SAMPLES);
+        }
+        if (!(spec.timeSpec() instanceof TimeSpec.SettlingTime)) {
+            throw new IllegalArgumentException("this loop is designed from a settling-time spec");
+        }
+        RealLoopPipeline.Request request =
+                RealLoopPipeline.Request.canonical(plant, spec, gammaChoice, structure, loadStepSize);
+        AcceptanceLimits limits =
+                new AcceptanceLimits(spec.timeSpec().seconds(), null, 100 * spec.overshootFraction(), bandFraction);
+        TargetDynamics requested = inverter.invert(spec).target();
+        RobustLoopSearch search =
+                new RobustLoopSearch(realLoops, request, plant, box, samples, seed, limits, actuatorLimit, stepSize);
+        RobustTargetSearch.Outcome outcome;
+        try {
+            outcome = search.search(requested);
+        } catch (ComputationCancelledException e) {
+            throw e;
+        } catch (RobustTargetSearch.SearchCapException e) {
+            throw SolverFailure.about(
+                    SolverFailure.Kind.CAP_EXCEEDED, SolverFailure.ROBUST_SEARCH, -1, e.getMessage(), e);
+        } catch (RuntimeException e) {
+            throw SolverFailure.of(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, e.getMessage(), e);
+        }
+        if (outcome.target() == null) {
+            throw SolverFailure.infeasible(infeasibility(limits, actuatorLimit, outcome), null);
+        }
+        TargetDynamics target = outcome.target();
+        RealLoopReport loop = realLoops.designAt(request, target);
+        DesignReport report;
+        try {
+            report = loops.designed(
+                    plant,
+                    spec,
+                    new SpecInversion(target, handbook(target, spec.timeSpec(), bandFraction), 0),
+                    gammaChoice,
+                    stepSize,
+                    bandFraction);
+        } catch (InfeasibleDesignException e) {
+            throw SolverFailure.infeasible(e.infeasibility(), e);
+        } catch (VerificationFailedException e) {
+            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
+        }
+        RealLoopPipeline.LoopParts parts = realLoops.partsAt(request, target);
+        List<UncertainCase> corners = new ArrayList<>();
+        List<UncertainCase> all = new ArrayList<>();
+        List<CanonicalPlant> cases = search.everyCase();
+        for (int i = 0; i < cases.size(); i++) {
+            UncertainCase judged =
+                    search.judged(parts, cases.get(i), i < search.corners().size());
+            (judged.corner() ? corners : all).add(judged);
+        }
+        all.addAll(0, corners);
+        UncertaintyReport uncertainty = analyzer.summarize(corners, all, samples, seed, limits);
+        double gamma = loop.design().gamma();
+        List<RobustDesignReport.CornerNorm> norms = new ArrayList<>();
+        for (UncertainCase corner : corners) {
+            if (corner.disturbanceGain() == null) {
+                throw SolverFailure.of(
+                        SolverFailure.Kind.UNVERIFIABLE, "a corner's norm from w to z could not be computed", null);
+            }
+            double norm = corner.disturbanceGain();
+            norms.add(new RobustDesignReport.CornerNorm(corner.plant(), corner, norm, norm <= gamma));
+        }
+        RobustDesignReport partial = new RobustDesignReport(
+                report, requested, limits, actuatorLimit, outcome, uncertainty, norms, null, loop);
+        CanonicalPlant worstAt = partial.binding().at();
+        StepMetrics worst = worstAt == null ? null : search.metrics(parts, worstAt);
+        return new RobustDesignReport(
+                report, requested, limits, actuatorLimit, outcome, uncertainty, norms, worst, loop);
+    }
+
     /** The certified norm from w to z (the Hamiltonian test, as the design's own certificate); 0 when d = 0. */
     private double cornerNorm(CanonicalPlant corner, FeedbackGains gains, DMatrixRMaj output) {
         if (corner.d() == 0) {
@@ -159,7 +257,7 @@ public final class RobustDesignPipeline {
         return Math.log(1 / bandFraction) / (zeta * settling);
     }
 
-    private static Infeasibility infeasibility(
+    static Infeasibility infeasibility(
             AcceptanceLimits limits, Double actuatorLimit, RobustTargetSearch.Outcome outcome) {
         String box = String.format(
                 Locale.US,

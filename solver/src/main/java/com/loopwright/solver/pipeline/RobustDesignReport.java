@@ -21,6 +21,8 @@ import java.util.List;
  * @param uncertainty     the designed gains over the corners and samples (closed-form step metrics)
  * @param cornerNorms     each corner's certified H-infinity norm from w to z against the design's gamma
  * @param worstMetrics    the step metrics at the parameters of {@link #binding()} (null when nothing binds)
+ * @param loop            the loop with integral action and/or an observer that was judged over the box (its cases
+ *                        simulated), or null for the two-state full-state loop (judged in closed form)
  */
 public record RobustDesignReport(
         DesignReport report,
@@ -30,10 +32,24 @@ public record RobustDesignReport(
         RobustTargetSearch.Outcome search,
         UncertaintyReport uncertainty,
         List<CornerNorm> cornerNorms,
-        StepMetrics worstMetrics) {
+        StepMetrics worstMetrics,
+        RealLoopReport loop) {
 
     public RobustDesignReport {
         cornerNorms = List.copyOf(cornerNorms);
+    }
+
+    /** The two-state full-state loop's robust design. */
+    public RobustDesignReport(
+            DesignReport report,
+            TargetDynamics requestedTarget,
+            AcceptanceLimits limits,
+            Double actuatorLimit,
+            RobustTargetSearch.Outcome search,
+            UncertaintyReport uncertainty,
+            List<CornerNorm> cornerNorms,
+            StepMetrics worstMetrics) {
+        this(report, requestedTarget, limits, actuatorLimit, search, uncertainty, cornerNorms, worstMetrics, null);
     }
 
     /**

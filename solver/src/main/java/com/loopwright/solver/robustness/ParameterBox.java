@@ -54,7 +54,7 @@ public record ParameterBox(
     }
 
     /** The corners, in binary order over (a0, a1, b, d) low/high of the varying parameters (1 when none varies). */
-    List<CanonicalPlant> corners() {
+    public List<CanonicalPlant> corners() {
         double[] lo = lows();
         double[] hi = highs();
         List<Integer> varying = new ArrayList<>();
@@ -75,7 +75,7 @@ public record ParameterBox(
         return corners;
     }
 
-    static CanonicalPlant plant(double[] p) {
+    public static CanonicalPlant plant(double[] p) {
         return new CanonicalPlant(p[0], p[1], p[2], p[3]);
     }
 }

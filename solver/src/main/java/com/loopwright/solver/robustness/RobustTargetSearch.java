@@ -367,7 +367,7 @@ public final class RobustTargetSearch {
 
     /** The search reached one of its evaluation caps. */
     public static final class SearchCapException extends RuntimeException {
-        SearchCapException(String message) {
+        public SearchCapException(String message) {
             super(message);
         }
     }

@@ -58,6 +58,18 @@ public final class UncertaintyAnalyzer {
             double[] p = sampler.next();
             all.add(evaluate(ParameterBox.plant(p), false, gains, stepSize, limits, performanceOutput));
         }
+        return summarize(corners, all, samples, seed, limits);
+    }
+
+    /**
+     * The report of cases evaluated elsewhere (the robust loop search simulates them): the meeting fraction, the
+     * distributions and the worst case, as {@link #analyze} reports its own.
+     *
+     * @param corners the corners, in the box's order
+     * @param all     the corners followed by the samples
+     */
+    public UncertaintyReport summarize(
+            List<UncertainCase> corners, List<UncertainCase> all, int samples, long seed, AcceptanceLimits limits) {
         int unstable = (int) all.stream().filter(c -> !c.stable()).count();
         Double fraction = limits.judges()
                 ? (double) all.stream().filter(UncertainCase::meetsSpec).count() / all.size()
