@@ -215,6 +215,20 @@ try {
   await page.fill('input[name=actuatorLimit]', '3');
   passed.push('actuator limit warning');
 
+  // 4b. The loop as it runs: integral action with position-only sensing keeps the step of the specs (the reference
+  // drives plant and observer alike) and leaves no steady offset after a load step (final-value theorem).
+  await page.check('input[name=integralAction]');
+  await page.selectOption('select[name=measurement]', 'position');
+  await design();
+  table = await results();
+  assert.ok(Number.isFinite(num(table['integral gain ki'])), 'the integral gain is shown');
+  assert.ok(Math.abs(num(table['load step steady offset'])) < 1e-9, 'no steady offset with integral action');
+  assert.ok(['yes', 'no'].includes(table['observer loop exceeds gamma'].v), 'the observer loop is judged against gamma');
+  assert.ok(num(table['sensor noise to command gain']) > 0, 'the noise-to-command gain is shown');
+  await page.uncheck('input[name=integralAction]');
+  await page.selectOption('select[name=measurement]', '');
+  passed.push('integral action and position-only sensing');
+
   // 5. An infeasible spec: one message, the field highlighted, the proposal as a button that applies it.
   await page.fill('input[name=overshootPercent]', '30');
   await design();
