@@ -1,0 +1,239 @@
+package com.loopwright.solver.pipeline;
+
+import com.loopwright.solver.cancel.Cancellation;
+import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.robustness.RobustTargetSearch;
+import com.loopwright.solver.spec.TargetDynamics;
+
+/**
+ * The robust target search for a loop judged by simulation, case by case (no closed form over the box): the loop
+ * with integral action or an observer, a sampled loop, a loop of order n. What a design is and how one case is
+ * judged is the {@link CaseJudge}'s; the cases are numbered, the corners first.
+ *
+ * <p>Search: {@value #DAMPING_CANDIDATES} damping ratios on a geometric grid from the requested one to
+ * max(2.5 zeta, 1.6); for each, the smallest natural frequency in [wn_req / 16, 16 wn_req] at which the corners
+ * meet the limits, by {@value #BISECTIONS} bisections in log wn (a relative width of 256^(2^-10), about 0.5%); then
+ * every case at that frequency, bisected again on every case when a sample misses; a target whose cases exceed the
+ * actuator limit is dropped. Selection rule, as the two-state search: least bandwidth.
+ *
+ * <p>Capped: {@value #MAX_EVALUATIONS} target designs, {@value #MAX_SIMULATED_CASES} simulated cases. One instance
+ * serves one search (it counts them).
+ *
+ * @param <D> the design at one target (gains, observer, sampled law...)
+ */
+final class SimulatedTargetSearch<D> {
+
+    /** Damping ratios tried. */
+    static final int DAMPING_CANDIDATES = 4;
+    /** Bisections in log wn over the bracket of 256. */
+    static final int BISECTIONS = 10;
+    /** Cap on target designs per search. */
+    static final int MAX_EVALUATIONS = 150;
+    /** Cap on simulated cases per search. */
+    static final long MAX_SIMULATED_CASES = 8_000;
+
+    /** A proposed settling time is lengthened by this fraction (the bisection's width is about 0.5%). */
+    static final double PROPOSAL_ROOM = 0.02;
+
+    /** How a candidate target is designed and one case of the box judged. */
+    interface CaseJudge<D> {
+
+        /** The design at the target (on the nominal plant), or null when none exists there. */
+        D designAt(TargetDynamics target);
+
+        /** The step metrics of case {@code index} with the design, or null when unstable or not measurable. */
+        StepMetrics metrics(D design, int index);
+    }
+
+    private final CaseJudge<D> judge;
+    private final int cornerCount;
+    private final int caseCount;
+    private final AcceptanceLimits limits;
+    private final Double actuatorLimit;
+    private int evaluations;
+    private long simulated;
+
+    /**
+     * @param cornerCount   cases 0 .. cornerCount - 1 are the corners
+     * @param caseCount     corners and samples
+     * @param actuatorLimit bound on every case's max |u|, or null
+     */
+    SimulatedTargetSearch(
+            CaseJudge<D> judge, int cornerCount, int caseCount, AcceptanceLimits limits, Double actuatorLimit) {
+        if (limits.settlingTimeSeconds() == null) {
+            throw new IllegalArgumentException("a simulated loop is judged against a settling-time limit");
+        }
+        if (cornerCount < 1 || caseCount < cornerCount) {
+            throw new IllegalArgumentException("at least one corner, and the corners among the cases");
+        }
+        this.judge = judge;
+        this.cornerCount = cornerCount;
+        this.caseCount = caseCount;
+        this.limits = limits;
+        this.actuatorLimit = actuatorLimit;
+    }
+
+    RobustTargetSearch.Outcome search(TargetDynamics requested) {
+        double zetaRequested = requested.dampingRatio();
+        double zetaHighest = Math.max(2.5 * zetaRequested, 1.6);
+        double lowest = requested.naturalFrequencyRadPerSec() / RobustTargetSearch.FREQUENCY_SPAN;
+        double highest = requested.naturalFrequencyRadPerSec() * RobustTargetSearch.FREQUENCY_SPAN;
+        TargetDynamics best = null;
+        for (int k = 0; k < DAMPING_CANDIDATES; k++) {
+            Cancellation.checkpoint();
+            double zeta = zeta(zetaRequested, zetaHighest, k);
+            if (!meets(zeta, highest, cornerCount)) {
+                continue;
+            }
+            double wn = smallestMeeting(zeta, lowest, highest, cornerCount);
+            if (best != null && wn >= best.naturalFrequencyRadPerSec()) {
+                continue; // every case needs at least the corners' frequency
+            }
+            if (!meets(zeta, wn, caseCount)) {
+                if (!meets(zeta, highest, caseCount)) {
+                    continue;
+                }
+                wn = smallestMeeting(zeta, wn, highest, caseCount);
+            }
+            if ((best == null || wn < best.naturalFrequencyRadPerSec()) && withinActuator(zeta, wn)) {
+                best = new TargetDynamics(zeta, wn);
+            }
+        }
+        if (best != null) {
+            return new RobustTargetSearch.Outcome(best, null, null, evaluations, simulated, caseCount);
+        }
+        return bestAllowed(zetaRequested, zetaHighest, lowest, highest);
+    }
+
+    /**
+     * No target meets the limits: the shortest worst-case settling time over the damping grid with the overshoot
+     * kept, at the fastest frequency the actuator allows; else the smallest worst-case overshoot.
+     */
+    private RobustTargetSearch.Outcome bestAllowed(
+            double zetaRequested, double zetaHighest, double lowest, double highest) {
+        double bestTime = Double.POSITIVE_INFINITY;
+        double bestOvershoot = Double.POSITIVE_INFINITY;
+        for (int k = 0; k < DAMPING_CANDIDATES; k++) {
+            Cancellation.checkpoint();
+            double zeta = zeta(zetaRequested, zetaHighest, k);
+            double wn = highest;
+            if (actuatorLimit != null && !withinActuator(zeta, highest)) {
+                if (!withinActuator(zeta, lowest)) {
+                    continue;
+                }
+                wn = largestWithinActuator(zeta, lowest, highest);
+            }
+            double[] worst = worstMetrics(zeta, wn);
+            if (limits.overshootPercent() == null || worst[1] <= limits.overshootPercent()) {
+                bestTime = Math.min(bestTime, worst[0]);
+            }
+            bestOvershoot = Math.min(bestOvershoot, worst[1]);
+        }
+        // the room covers the bisection's width (about 0.5% in wn, so in the settling time) when it is sent back
+        Double time = Double.isFinite(bestTime) ? bestTime * (1 + PROPOSAL_ROOM) : null;
+        Double overshoot = time == null && Double.isFinite(bestOvershoot) ? bestOvershoot : null;
+        return new RobustTargetSearch.Outcome(null, time, overshoot, evaluations, simulated, caseCount);
+    }
+
+    private static double zeta(double zetaRequested, double zetaHighest, int k) {
+        return zetaRequested * Math.pow(zetaHighest / zetaRequested, k / (DAMPING_CANDIDATES - 1.0));
+    }
+
+    private double smallestMeeting(double zeta, double lo, double hi, int cases) {
+        if (meets(zeta, lo, cases)) {
+            return lo;
+        }
+        for (int i = 0; i < BISECTIONS; i++) {
+            double mid = Math.sqrt(lo * hi);
+            if (meets(zeta, mid, cases)) {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        return hi;
+    }
+
+    private double largestWithinActuator(double zeta, double lo, double hi) {
+        for (int i = 0; i < BISECTIONS; i++) {
+            double mid = Math.sqrt(lo * hi);
+            if (withinActuator(zeta, mid)) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+
+    /** Designable, and the first {@code cases} cases stable, measured and inside the limits (stops at a miss). */
+    private boolean meets(double zeta, double wn, int cases) {
+        D design = designAt(zeta, wn);
+        if (design == null) {
+            return false;
+        }
+        for (int i = 0; i < cases; i++) {
+            StepMetrics m = counted(design, i);
+            if (m == null || !limits.met(m.settlingTimeSeconds(), m.riseTimeSeconds(), m.overshootPercent())) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private boolean withinActuator(double zeta, double wn) {
+        if (actuatorLimit == null) {
+            return true;
+        }
+        D design = designAt(zeta, wn);
+        if (design == null) {
+            return false;
+        }
+        for (int i = 0; i < caseCount; i++) {
+            StepMetrics m = counted(design, i);
+            if (m == null || m.peakControl() > actuatorLimit) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** {worst settling time, worst overshoot} over every case; infinite when one fails or no design exists. */
+    private double[] worstMetrics(double zeta, double wn) {
+        double[] failed = {Double.POSITIVE_INFINITY, Double.POSITIVE_INFINITY};
+        D design = designAt(zeta, wn);
+        if (design == null) {
+            return failed;
+        }
+        double[] worst = {0, 0};
+        for (int i = 0; i < caseCount; i++) {
+            StepMetrics m = counted(design, i);
+            if (m == null) {
+                return failed;
+            }
+            worst[0] = Math.max(worst[0], m.settlingTimeSeconds());
+            worst[1] = Math.max(worst[1], m.overshootPercent());
+        }
+        return worst;
+    }
+
+    /** The judge's design, counted against the cap of target designs. */
+    private D designAt(double zeta, double wn) {
+        if (++evaluations > MAX_EVALUATIONS) {
+            throw new RobustTargetSearch.SearchCapException(
+                    "the robust loop search reached its cap of " + MAX_EVALUATIONS + " loop designs");
+        }
+        return judge.designAt(new TargetDynamics(zeta, wn));
+    }
+
+    /** The judge's metrics of one case, counted against the cap of simulated cases. */
+    private StepMetrics counted(D design, int index) {
+        if (++simulated > MAX_SIMULATED_CASES) {
+            throw new RobustTargetSearch.SearchCapException("the robust loop search reached its cap of "
+                    + MAX_SIMULATED_CASES + " simulated cases; use fewer Monte Carlo samples");
+        }
+        Cancellation.checkpoint();
+        return judge.metrics(design, index);
+    }
+}
