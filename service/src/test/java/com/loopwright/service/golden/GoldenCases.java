@@ -37,6 +37,7 @@ final class GoldenCases {
         g.keyed();
         g.extremes();
         g.designSpaces();
+        g.robustDesigns();
         return List.copyOf(g.cases);
     }
 
@@ -412,6 +413,31 @@ final class GoldenCases {
             post(String.format(Locale.ROOT, "design-space-%02d", i), "/v1/design-spaces", bodies[i]);
         }
         post("design-space-figure-00", "/v1/design-spaces/figure", bodies[0]);
+    }
+
+    /**
+     * Robust designs: the two-state search (settling and rise time, an actuator limit, a box no target meets) and
+     * the loop judged by simulation (integral action; integral action with a pole-multiple observer).
+     */
+    private void robustDesigns() {
+        String box = "{\"a1\":{\"spreadPercent\":20},\"b\":{\"lowest\":266.7,\"highest\":500},"
+                + "\"d\":{\"lowest\":266.7,\"highest\":500},\"monteCarloSamples\":20,\"seed\":7}";
+        String riseSpec = "{\"riseTime\":0.05,\"overshootPercent\":4}";
+        String[] bodies = {
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"robust\":{\"uncertainty\":" + box + "}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + riseSpec + ",\"robust\":{\"uncertainty\":" + box
+                    + ",\"actuatorLimit\":3}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"robust\":{\"uncertainty\":" + box
+                    + ",\"actuatorLimit\":0.01}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"integralAction\":true,"
+                    + "\"robust\":{\"uncertainty\":" + box + "}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"integralAction\":true,"
+                    + "\"measurement\":\"position\",\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5},"
+                    + "\"robust\":{\"uncertainty\":" + box + "}}",
+        };
+        for (int i = 0; i < bodies.length; i++) {
+            design(String.format(Locale.ROOT, "robust-%02d", i), bodies[i]);
+        }
     }
 
     private void verifications() {
