@@ -251,8 +251,8 @@ public final class HighOrderRequestValidator {
         }
         double[] bRange = VerifyInputValidator.range(errors, UNCERTAINTY + "/b", box.b(), b);
         if (bRange != null && bRange[0] <= 0 && bRange[1] >= 0) {
-            errors.add(new FieldError(
-                    UNCERTAINTY + "/b", "the range must not contain 0 (the input gain keeps its sign)"));
+            errors.add(
+                    new FieldError(UNCERTAINTY + "/b", "the range must not contain 0 (the input gain keeps its sign)"));
             return null;
         }
         if (errors.size() > before) {
