@@ -174,6 +174,31 @@ class HighOrderRobustEndpointTest extends LiveServerTest {
                 again.json().at("/robust/priceOfRobustness/worst/peakControl").asDouble() <= limit);
     }
 
+    @Test
+    void theGimbalsProposalIsMeasuredAboveTheSlowestPairWithADesignAndMeetsTheLimitWhenSentBack() {
+        // the gimbal has no order-n design below a natural frequency of about 14 rad/s (its nominal pair has none),
+        // so the proposal comes from the fastest pair the actuator allows above the slowest pair with a design
+        String robust = "{\"uncertainty\":{\"b\":{\"lowest\":350,\"highest\":550}},\"actuatorLimit\":20}";
+        LiveServer.Reply reply = server.post(PATH, request(SETTLING, robust));
+        assertEquals(422, reply.status(), reply.text());
+        JsonNode proposal = reply.json().at("/proposals/0");
+        assertEquals("/spec/settlingTime", proposal.get("pointer").asText(), reply.text());
+        double settling = proposal.get("value").asDouble();
+        assertTrue(settling > SETTLING);
+        LiveServer.Reply again = server.post(PATH, request(settling, robust));
+        assertEquals(200, again.status(), again.text());
+        JsonNode body = again.json();
+        assertTrue(body.at("/robust/meetsEverywhere").asBoolean());
+        assertTrue(body.at("/robust/priceOfRobustness/worst/peakControl").asDouble() <= 20);
+        // the two corners by the independent integration, against the proposed settling time
+        double[] k = doubles(body.at("/gain/k"));
+        double kr = body.at("/gain/referenceGain").asDouble();
+        for (double b : new double[] {350, 550}) {
+            double[] metrics = simulate(new double[] {52, 100, 0, b}, k, kr, settling);
+            assertTrue(metrics[0] <= settling * (1 + 1e-3) && metrics[1] <= OVERSHOOT + 1e-3, "b = " + b);
+        }
+    }
+
     @ParameterizedTest(name = "{0}")
     @CsvSource(
             delimiter = '|',

@@ -15,7 +15,9 @@ import com.loopwright.solver.spec.TargetDynamics;
  * max(2.5 zeta, 1.6); for each, the smallest natural frequency in [wn_req / 16, 16 wn_req] at which the corners
  * meet the limits, by {@value #BISECTIONS} bisections in log wn (a relative width of 256^(2^-10), about 0.5%); then
  * every case at that frequency, bisected again on every case when a sample misses; a target whose cases exceed the
- * actuator limit is dropped. Selection rule, as the two-state search: least bandwidth.
+ * actuator limit is dropped. Selection rule, as the two-state search: least bandwidth. When no target meets the
+ * limits, the proposal is measured at the fastest frequency the actuator allows, searched down to the slowest
+ * frequency that has a design (a loop of order n has none below some frequency).
  *
  * <p>Capped: {@value #MAX_EVALUATIONS} target designs, {@value #MAX_SIMULATED_CASES} simulated cases. One instance
  * serves one search (it counts them).
@@ -119,10 +121,15 @@ final class SimulatedTargetSearch<D> {
             double zeta = zeta(zetaRequested, zetaHighest, k);
             double wn = highest;
             if (actuatorLimit != null && !withinActuator(zeta, highest)) {
-                if (!withinActuator(zeta, lowest)) {
-                    continue;
+                double floor = lowest;
+                if (!withinActuator(zeta, floor)) {
+                    // a loop of order n has no design below some frequency: start from the slowest that has one
+                    floor = designAt(zeta, floor) == null ? slowestDesignable(zeta, lowest, highest) : Double.NaN;
+                    if (!(floor < highest) || !withinActuator(zeta, floor)) {
+                        continue;
+                    }
                 }
-                wn = largestWithinActuator(zeta, lowest, highest);
+                wn = largestWithinActuator(zeta, floor, highest);
             }
             double[] worst = worstMetrics(zeta, wn);
             if (limits.overshootPercent() == null || worst[1] <= limits.overshootPercent()) {
@@ -147,6 +154,25 @@ final class SimulatedTargetSearch<D> {
         for (int i = 0; i < BISECTIONS; i++) {
             double mid = Math.sqrt(lo * hi);
             if (meets(zeta, mid, cases)) {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        return hi;
+    }
+
+    /**
+     * The slowest frequency in (lo, hi] with a design, by {@value #BISECTIONS} bisections in log wn (the design is
+     * taken to exist above some frequency); NaN when there is none at hi.
+     */
+    private double slowestDesignable(double zeta, double lo, double hi) {
+        if (designAt(zeta, hi) == null) {
+            return Double.NaN;
+        }
+        for (int i = 0; i < BISECTIONS; i++) {
+            double mid = Math.sqrt(lo * hi);
+            if (designAt(zeta, mid) != null) {
                 hi = mid;
             } else {
                 lo = mid;
