@@ -227,8 +227,8 @@ public final class HighOrderRequestValidator {
         if (ranges != null && ranges.size() != n + 1) {
             errors.add(new FieldError(
                     UNCERTAINTY + "/denominator",
-                    "needs one entry per coefficient of plant.denominator (" + (n + 1) + ", highest power first,"
-                            + " null for a fixed one), got " + ranges.size()));
+                    "needs one entry per coefficient of plant.denominator (" + (n + 1) + ", highest power first;"
+                            + " spreadPercent 0 or null for a fixed one), got " + ranges.size()));
             return null;
         }
         double[] lows = new double[n];
@@ -236,14 +236,14 @@ public final class HighOrderRequestValidator {
         for (int i = 0; i <= n; i++) {
             ParameterRangeInput range = ranges == null ? null : ranges.get(i);
             String pointer = UNCERTAINTY + "/denominator/" + i;
-            if (i == 0) {
-                if (range != null) {
-                    errors.add(new FieldError(pointer, "must be null: the leading coefficient is 1 (monic)"));
-                }
-                continue;
-            }
             double[] r = VerifyInputValidator.range(errors, pointer, range, denominator[i]);
-            if (r != null) {
+            if (i == 0) {
+                if (r != null && r[0] < r[1]) {
+                    errors.add(new FieldError(
+                            pointer,
+                            "must keep the leading 1 fixed (null or spreadPercent 0): the denominator is monic"));
+                }
+            } else if (r != null) {
                 // wire index i is a_{n-i}
                 lows[n - i] = r[0];
                 highs[n - i] = r[1];

@@ -16,7 +16,7 @@ public record HighOrderRobustInput(HighOrderUncertaintyInput uncertainty, Double
      * Ranges of the companion plant's coefficients (absent or null: fixed at nominal), Monte Carlo count and seed.
      *
      * @param denominator       one range per coefficient of plant.denominator, in its order (highest power first,
-     *                          the same length); the leading 1 has none (null)
+     *                          the same length); spreadPercent 0 or null keeps one fixed, the leading 1 always
      * @param b                 the range of the input gain
      * @param monteCarloSamples seeded samples inside the box besides the corners
      * @param seed              their generator's seed
