@@ -222,6 +222,29 @@ class HighOrderRobustEndpointTest extends LiveServerTest {
                 "samples above cap | {\"uncertainty\":{\"monteCarloSamples\":201}}"
                         + " | /robust/uncertainty/monteCarloSamples",
                 "no box | {\"actuatorLimit\":1} | /robust/uncertainty",
+                "NaN token | {\"uncertainty\":{\"b\":{\"spreadPercent\":NaN}}} | /robust/uncertainty/b/spreadPercent",
+                "Infinity bound | {\"uncertainty\":{\"b\":{\"lowest\":1,\"highest\":Infinity}}}"
+                        + " | /robust/uncertainty/b/highest",
+                // decodes to Infinity: the shared range check names the range (as verify.uncertainty on order 2)
+                "overflowing bound | {\"uncertainty\":{\"b\":{\"lowest\":1,\"highest\":1e400}}}"
+                        + " | /robust/uncertainty/b",
+                "string samples | {\"uncertainty\":{\"monteCarloSamples\":\"200\"}}"
+                        + " | /robust/uncertainty/monteCarloSamples",
+                "fraction samples | {\"uncertainty\":{\"monteCarloSamples\":2.5}}"
+                        + " | /robust/uncertainty/monteCarloSamples",
+                "negative samples | {\"uncertainty\":{\"monteCarloSamples\":-1}}"
+                        + " | /robust/uncertainty/monteCarloSamples",
+                "array for the box | {\"uncertainty\":[]} | /robust/uncertainty",
+                "number for a range | {\"uncertainty\":{\"denominator\":[null,5,null,null]}}"
+                        + " | /robust/uncertainty/denominator/1",
+                "too many entries | {\"uncertainty\":{\"denominator\":[null,null,null,null,null,null,null,null,null,"
+                        + "null]}} | /robust/uncertainty/denominator",
+                "lowest above highest | {\"uncertainty\":{\"b\":{\"lowest\":600,\"highest\":400}}}"
+                        + " | /robust/uncertainty/b/lowest",
+                "spread and bounds | {\"uncertainty\":{\"b\":{\"spreadPercent\":5,\"lowest\":400,\"highest\":600}}}"
+                        + " | /robust/uncertainty/b",
+                "negative actuator limit | {\"uncertainty\":{\"b\":{\"spreadPercent\":5}},\"actuatorLimit\":-1}"
+                        + " | /robust/actuatorLimit",
                 "unknown member | {\"uncertainty\":{\"a0\":{\"spreadPercent\":5}}} | /robust/uncertainty/a0",
             })
     void hostileRobustMembersAre400AtTheirPointer(String name, String robust, String pointer) {
