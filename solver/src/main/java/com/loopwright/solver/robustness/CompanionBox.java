@@ -3,7 +3,6 @@ package com.loopwright.solver.robustness;
 import com.loopwright.solver.plant.CompanionPlant;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.SplittableRandom;
 
 /**
  * Closed intervals for the coefficients of a companion plant of order n: a_0 .. a_{n-1} of its monic denominator
@@ -13,8 +12,9 @@ import java.util.SplittableRandom;
  *
  * <p>Parameter order (corners and samples): the wire's, a_{n-1} .. a_0 (highest power first), then b. Corner k
  * takes the highest value of the j-th ranged parameter when bit j of k is set (binary order over the ranged
- * parameters, the first one in the lowest bit). Sample s draws one uniform u from {@link SplittableRandom}
- * (seeded with the caller's seed) for every parameter in that order, ranged or not: p = lo + (hi - lo) u.
+ * parameters, the first one in the lowest bit). Sample s draws one uniform u for every parameter in that order,
+ * ranged or not: p = lo + (hi - lo) u, from the one {@link ParameterSampler} (SplittableRandom with the caller's
+ * seed).
  *
  * @param denominatorLows  a_0 .. a_{n-1} lower ends
  * @param denominatorHighs a_0 .. a_{n-1} upper ends
@@ -86,14 +86,10 @@ public record CompanionBox(double[] denominatorLows, double[] denominatorHighs, 
     public List<CompanionPlant> samples(CompanionPlant nominal, int count, long seed) {
         double[] lo = lows();
         double[] hi = highs();
-        SplittableRandom random = new SplittableRandom(seed);
+        ParameterSampler sampler = new ParameterSampler(lo, hi, seed);
         List<CompanionPlant> samples = new ArrayList<>(count);
         for (int s = 0; s < count; s++) {
-            double[] p = new double[lo.length];
-            for (int i = 0; i < p.length; i++) {
-                p[i] = lo[i] + (hi[i] - lo[i]) * random.nextDouble();
-            }
-            samples.add(plant(p, nominal));
+            samples.add(plant(sampler.next(), nominal));
         }
         return samples;
     }
