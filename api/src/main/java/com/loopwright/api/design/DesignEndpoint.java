@@ -48,6 +48,10 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
     /** The law's coordinates: the canonical states (model.units names their units). */
     private static final String CANONICAL_COORDINATES = "canonical x = [x1, x2] (see model.units)";
 
+    /** A state-space plant: the law is stated in canonical coordinates here and in the caller's in the model. */
+    private static final String CANONICAL_NOT_CALLER = "canonical z = [z1, z2] (x = T z, model.stateSpace.transform);"
+            + " this law in your coordinates x is model.stateSpace.loopLaw";
+
     private final DesignRequestValidator validator = new DesignRequestValidator();
     private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
     private final DesignPipeline designs = new DesignPipeline(FieldLimits.SPEC_RANGES);
@@ -220,7 +224,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                     validated.verify().toleranceFraction());
         }
         StateSpaceDesign callerCoordinates =
-                designs.callerCoordinates(design.resolvedPlant().source(), report.design());
+                designs.callerCoordinates(design.resolvedPlant().source(), report.design(), loop);
         return new Result(report, callerCoordinates, checked, loop, robustDesign);
     }
 
@@ -249,7 +253,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                         ? null
                         : loopResponses.toSections(
                                 result.loop(),
-                                CANONICAL_COORDINATES,
+                                result.callerCoordinates() == null ? CANONICAL_COORDINATES : CANONICAL_NOT_CALLER,
                                 lawFormula(result.loop()),
                                 validated.design().loop().samplePeriod()),
                 result.robustDesign() == null ? null : robustDesignResponses.toResponse(result.robustDesign()));

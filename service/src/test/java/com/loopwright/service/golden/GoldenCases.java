@@ -38,6 +38,7 @@ final class GoldenCases {
         g.extremes();
         g.designSpaces();
         g.robustDesigns();
+        g.stateSpaceLoops();
         return List.copyOf(g.cases);
     }
 
@@ -438,6 +439,16 @@ final class GoldenCases {
         for (int i = 0; i < bodies.length; i++) {
             design(String.format(Locale.ROOT, "robust-%02d", i), bodies[i]);
         }
+    }
+
+    /** A state-space plant with integral action, with and without position-only sensing (model.stateSpace.loopLaw). */
+    private void stateSpaceLoops() {
+        String plant = "{\"form\":\"stateSpace\",\"a\":[[0,50],[0,-2]],\"b2\":[0,3],\"b1\":[0,1]}";
+        String spec = "{\"settlingTime\":0.3,\"overshootPercent\":1}";
+        design("state-space-loop-00", "{\"plant\":" + plant + ",\"spec\":" + spec + ",\"integralAction\":true}");
+        design(
+                "state-space-loop-01",
+                "{\"plant\":" + plant + ",\"spec\":" + spec + ",\"integralAction\":true,\"measurement\":\"position\"}");
     }
 
     private void verifications() {
