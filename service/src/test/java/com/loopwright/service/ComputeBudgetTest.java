@@ -214,7 +214,7 @@ class ComputeBudgetTest {
         // with integral action the loop's 400 units come on top: 10 + 400 + 2000 + 100 x 40
         assertEquals(
                 10 + 400 + 2000 + 100 * 40,
-                budget.designUnits(mapper.readTree(
-                        "{\"integralAction\":true,\"robust\":{" + box + ",\"samplePeriod\":0.004}}")));
+                budget.designUnits(
+                        mapper.readTree("{\"integralAction\":true,\"robust\":{" + box + ",\"samplePeriod\":0.004}}")));
     }
 }

@@ -2,7 +2,6 @@ package com.loopwright.service;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
-import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
@@ -33,8 +32,11 @@ class RobustSampledDesignEndpointTest extends LiveServerTest {
     private static final int SAMPLES = 40;
     private static final long SEED = 7;
 
-    /** A period the continuous robust design's gains fail at (checked below), so the search must move. */
-    private static final double LONG_PERIOD = 0.008;
+    /**
+     * A period at which the continuous robust design's law cannot be exported (its wn T exceeds 0.5), so the sampled
+     * search must move to a slower target that still meets the spec sampled.
+     */
+    private static final double LONG_PERIOD = 0.0123;
 
     @Test
     void sampledRobustDesignsMeetTheSpecAtEveryCornerAndSampleByTheVerificationRoute() {
@@ -48,7 +50,7 @@ class RobustSampledDesignEndpointTest extends LiveServerTest {
             assertEquals("sampledStateFeedback", robust.get("judgedLoop").asText());
             assertEquals(period, robust.get("samplePeriod").asDouble(), 0);
             assertTrue(robust.get("meetsEverywhere").asBoolean(), robust.toString());
-            // the exported law exists at this period: wn T <= 0.5 (SampledLawDesigner's rule)
+            // the exported law exists at this period: wn T <= 0.5 (the controller exports' rule, openapi.yaml)
             assertTrue(body.at("/target/naturalFrequency").asDouble() * period <= 0.5);
             for (JsonNode check : verifyEveryCase(body, period)) {
                 JsonNode sampled = check.at("/robustness/sampled");
@@ -62,22 +64,19 @@ class RobustSampledDesignEndpointTest extends LiveServerTest {
     }
 
     @Test
-    void theContinuousRobustDesignFailsSomeCaseAtTheLongPeriodSoTheSampledSearchMoves() {
+    void atTheLongPeriodTheContinuousRobustTargetCannotBeExportedSoTheSampledSearchMoves() {
         JsonNode continuous = server.post("/v1/designs", "{" + AXIS + ",\"robust\":{\"uncertainty\":" + BOX + "}}")
                 .json();
         JsonNode sampled = server.post(
                         "/v1/designs",
                         "{" + AXIS + ",\"robust\":{\"uncertainty\":" + BOX + ",\"samplePeriod\":" + LONG_PERIOD + "}}")
                 .json();
-        boolean anyFails = false;
-        for (JsonNode check : verifyEveryCase(continuous, LONG_PERIOD)) {
-            anyFails |= !check.at("/robustness/sampled/emulatedMeetsSpec").asBoolean();
-        }
-        // the verification route judges the continuous design's gains at the period: some case misses the spec
-        assertTrue(anyFails, "the continuous robust design meets the spec sampled at " + LONG_PERIOD);
-        assertNotEquals(
-                continuous.at("/target/naturalFrequency").asDouble(),
-                sampled.at("/target/naturalFrequency").asDouble());
+        double continuousFrequency = continuous.at("/target/naturalFrequency").asDouble();
+        double sampledFrequency = sampled.at("/target/naturalFrequency").asDouble();
+        // the controller exports refuse a law with wn T above 0.5 (openapi.yaml, the export operations)
+        assertTrue(continuousFrequency * LONG_PERIOD > 0.5, "continuous wn T = " + continuousFrequency * LONG_PERIOD);
+        assertTrue(sampledFrequency * LONG_PERIOD <= 0.5, "sampled wn T = " + sampledFrequency * LONG_PERIOD);
+        assertTrue(sampled.at("/robust/meetsEverywhere").asBoolean());
         assertFalse(continuous.get("robust").has("samplePeriod"));
         assertFalse(continuous.get("robust").has("judgedLoop"));
     }
@@ -144,7 +143,7 @@ class RobustSampledDesignEndpointTest extends LiveServerTest {
 
     @Test
     void aPeriodTheBoxCannotMeetTheSpecAtProposesTheBestSpecAtThatPeriodReadyToSend() {
-        String robust = ",\"robust\":{\"uncertainty\":" + BOX + ",\"samplePeriod\":0.012}}";
+        String robust = ",\"robust\":{\"uncertainty\":" + BOX + ",\"samplePeriod\":0.014}}";
         LiveServer.Reply reply = server.post("/v1/designs", "{" + AXIS + robust);
         assertEquals(422, reply.status(), reply.text());
         JsonNode proposal = reply.json().at("/proposals/0");

@@ -251,7 +251,8 @@ public final class RobustDesignPipeline {
                             search.everyCase().size(),
                             limits,
                             actuatorLimit,
-                            SampledLawJudge.frequencyCeiling(samplePeriod))
+                            SampledLawJudge.frequencyCeiling(samplePeriod),
+                            Double.NaN)
                     .search(requested));
             if (outcome.target() == null) {
                 throw sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
@@ -365,13 +366,18 @@ public final class RobustDesignPipeline {
         }
         SampledLawJudge judge = new SampledLawJudge(
                 plant, cases, samplePeriod, stepSize, bandFraction, t -> designable(plant, t, gammaChoice));
+        // the continuous robust design's damping ratio (refined on a finer grid, closed form: milliseconds) is tried
+        // after the coarse grid's: where sampling changes little, the sampled search finds that target's neighbour
+        double continuousDamping =
+                continuousDamping(plant, requested, box, samples, seed, limits, actuatorLimit, stepSize, gammaChoice);
         RobustTargetSearch.Outcome outcome = searched(() -> new SimulatedTargetSearch<>(
                         judge,
                         cornerPlants.size(),
                         cases.size(),
                         limits,
                         actuatorLimit,
-                        SampledLawJudge.frequencyCeiling(samplePeriod))
+                        SampledLawJudge.frequencyCeiling(samplePeriod),
+                        continuousDamping)
                 .search(requested));
         if (outcome.target() == null) {
             throw sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
@@ -428,6 +434,29 @@ public final class RobustDesignPipeline {
                 worst,
                 null,
                 new RobustDesignReport.SampledJudging(samplePeriod, nominalSampled));
+    }
+
+    /** The damping ratio of the continuous robust search's target, or NaN when it finds none or fails. */
+    private double continuousDamping(
+            CanonicalPlant plant,
+            TargetDynamics requested,
+            ParameterBox box,
+            int samples,
+            long seed,
+            AcceptanceLimits limits,
+            Double actuatorLimit,
+            double stepSize,
+            GammaChoice gammaChoice) {
+        try {
+            RobustTargetSearch.Outcome continuous = new RobustTargetSearch(
+                            plant, box, samples, seed, limits, actuatorLimit, stepSize)
+                    .search(requested, target -> designable(plant, target, gammaChoice));
+            return continuous.target() == null
+                    ? Double.NaN
+                    : continuous.target().dampingRatio();
+        } catch (RobustTargetSearch.SearchCapException e) {
+            return Double.NaN;
+        }
     }
 
     /** A search run with its failures as {@link SolverFailure}s. */

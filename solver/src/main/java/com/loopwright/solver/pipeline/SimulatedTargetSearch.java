@@ -62,6 +62,7 @@ final class SimulatedTargetSearch<D> {
     private final AcceptanceLimits limits;
     private final Double actuatorLimit;
     private final double frequencyCeiling;
+    private final double extraDamping;
     private int evaluations;
     private long simulated;
 
@@ -72,12 +73,14 @@ final class SimulatedTargetSearch<D> {
      */
     SimulatedTargetSearch(
             CaseJudge<D> judge, int cornerCount, int caseCount, AcceptanceLimits limits, Double actuatorLimit) {
-        this(judge, cornerCount, caseCount, limits, actuatorLimit, Double.POSITIVE_INFINITY);
+        this(judge, cornerCount, caseCount, limits, actuatorLimit, Double.POSITIVE_INFINITY, Double.NaN);
     }
 
     /**
      * @param frequencyCeiling the largest natural frequency at which the judge designs [rad/s] (infinite: none);
      *                         the search's bracket ends there
+     * @param extraDamping     a damping ratio tried after the grid's (a target known to be good elsewhere, such as
+     *                         the continuous robust design's), or NaN
      */
     SimulatedTargetSearch(
             CaseJudge<D> judge,
@@ -85,7 +88,12 @@ final class SimulatedTargetSearch<D> {
             int caseCount,
             AcceptanceLimits limits,
             Double actuatorLimit,
-            double frequencyCeiling) {
+            double frequencyCeiling,
+            double extraDamping) {
+        if (!Double.isNaN(extraDamping) && !(extraDamping > 0 && Double.isFinite(extraDamping))) {
+            throw new IllegalArgumentException("the extra damping ratio must be positive and finite, or NaN");
+        }
+        this.extraDamping = extraDamping;
         if (limits.settlingTimeSeconds() == null && limits.riseTimeSeconds() == null) {
             throw new IllegalArgumentException("a simulated loop is judged against a settling-time or rise-time limit");
         }
@@ -113,7 +121,7 @@ final class SimulatedTargetSearch<D> {
             return new RobustTargetSearch.Outcome(null, null, null, evaluations, simulated, caseCount);
         }
         TargetDynamics best = null;
-        for (int k = 0; k < DAMPING_CANDIDATES; k++) {
+        for (int k = 0; k < dampingCount(); k++) {
             Cancellation.checkpoint();
             double zeta = zeta(zetaRequested, zetaHighest, k);
             double top = top(zeta, lowest, highest);
@@ -148,7 +156,7 @@ final class SimulatedTargetSearch<D> {
             double zetaRequested, double zetaHighest, double lowest, double highest) {
         double bestTime = Double.POSITIVE_INFINITY;
         double bestOvershoot = Double.POSITIVE_INFINITY;
-        for (int k = 0; k < DAMPING_CANDIDATES; k++) {
+        for (int k = 0; k < dampingCount(); k++) {
             Cancellation.checkpoint();
             double zeta = zeta(zetaRequested, zetaHighest, k);
             for (int step = 0; step < ladderSteps(); step++) {
@@ -199,7 +207,14 @@ final class SimulatedTargetSearch<D> {
         return Double.isInfinite(frequencyCeiling) ? 1 : LADDER_STEPS;
     }
 
-    private static double zeta(double zetaRequested, double zetaHighest, int k) {
+    private int dampingCount() {
+        return DAMPING_CANDIDATES + (Double.isNaN(extraDamping) ? 0 : 1);
+    }
+
+    private double zeta(double zetaRequested, double zetaHighest, int k) {
+        if (k == DAMPING_CANDIDATES) {
+            return extraDamping;
+        }
         return zetaRequested * Math.pow(zetaHighest / zetaRequested, k / (DAMPING_CANDIDATES - 1.0));
     }
 
