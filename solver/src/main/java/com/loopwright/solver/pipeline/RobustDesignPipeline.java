@@ -521,11 +521,13 @@ public final class RobustDesignPipeline {
                 String.format(
                         Locale.US,
                         "the sample period %.6g s is too long for this spec: %s; the exported law needs wn T <= %.2g,"
-                                + " so no loop slower than wn = %.6g rad/s (a sixteenth of the requested natural"
-                                + " frequency) can run at it; a period above %.4g s cannot work for this spec",
+                                + " so wn <= %.6g rad/s, below the slowest target the search tries (%.6g rad/s, a"
+                                + " sixteenth of the requested natural frequency); a period above %.4g s cannot work"
+                                + " for this spec",
                         samplePeriod,
                         periods(limits, samplePeriod),
                         SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT,
+                        SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT / samplePeriod,
                         lowest,
                         SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT / lowest),
                 null);
@@ -571,7 +573,7 @@ public final class RobustDesignPipeline {
                 .map(p -> new SpecProposal(
                         p.quantity(),
                         p.value(),
-                        p.note() + String.format(Locale.US, " at samplePeriod %.6g s", samplePeriod)))
+                        p.note() + String.format(Locale.US, ", at samplePeriod %.6g s", samplePeriod)))
                 .toList();
         return SolverFailure.infeasible(new Infeasibility(box.quantity(), box.reason() + atPeriod, proposals), null);
     }
