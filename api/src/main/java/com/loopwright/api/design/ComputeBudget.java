@@ -74,16 +74,17 @@ public final class ComputeBudget {
      * A robust design judged sampled (robust.samplePeriod), the full-state law or the loop with integral action or an
      * observer (whose own units are charged apart): every case of the search is a sampled step of the exported
      * controller on the perturbed plant (about 20,000 observation points, 1.2-1.5 ms of CPU each), the corners tried
-     * at up to four frequencies and ten bisections per damping ratio. Measured for the README axis at 2-8 ms periods
-     * without samples: 60-120 ms; an infeasible box with 40 samples 330 ms (see docs/limits-and-budgets.md).
+     * at up to four frequencies and ten bisections for each of five damping ratios. Measured for the README axis at
+     * 2-12 ms periods without samples: 60-150 ms; a box infeasible at the period with 40 samples 330 ms (see
+     * docs/limits-and-budgets.md).
      */
     public static final long ROBUST_SAMPLED_SEARCH_UNITS = 2_000;
     /**
-     * A sampled robust design, per Monte Carlo sample: measured 1.3 ms per sample when a target is found (each
-     * sample simulated about twice) and 6.5 ms when none is (the best spec the box allows simulates every case at
-     * up to 16 targets); charged between the two.
+     * A sampled robust design, per Monte Carlo sample: measured 1.3-2.8 ms per sample when a target is found (each
+     * sample simulated two to three times) and up to 10 ms when none is (the best spec the box allows simulates
+     * every case at up to 20 targets); charged between the two.
      */
-    public static final long ROBUST_SAMPLED_UNITS_PER_SAMPLE = 40;
+    public static final long ROBUST_SAMPLED_UNITS_PER_SAMPLE = 50;
     /** Frequency-response and time-series points returned, per unit. */
     public static final long POINTS_PER_UNIT = 30;
     /**
