@@ -199,4 +199,22 @@ class ComputeBudgetTest {
             assertTrue(budget.designUnits(mapper.readTree(request)) <= 10 + 10 + 16 + 2000, request);
         }
     }
+
+    @Test
+    void aSampledRobustDesignIsChargedItsSimulatedSearchInsteadOfTheClosedFormOne() throws Exception {
+        var budget = new com.loopwright.api.design.ComputeBudget();
+        var mapper = StrictJson.newMapper();
+        String box = "\"uncertainty\":{\"b\":{\"spreadPercent\":10},\"monteCarloSamples\":100}";
+        // source: the cost model of docs/limits-and-budgets.md, summed by hand: 10 design + 2000 + 100 x 50
+        assertEquals(
+                10 + 2000 + 100 * 50,
+                budget.designUnits(mapper.readTree("{\"robust\":{" + box + ",\"samplePeriod\":0.004}}")));
+        // the same box in continuous time: 10 + 200 + 100 x 5 (closed-form search)
+        assertEquals(10 + 200 + 100 * 5, budget.designUnits(mapper.readTree("{\"robust\":{" + box + "}}")));
+        // with integral action the loop's 400 units come on top: 10 + 400 + 2000 + 100 x 50
+        assertEquals(
+                10 + 400 + 2000 + 100 * 50,
+                budget.designUnits(
+                        mapper.readTree("{\"integralAction\":true,\"robust\":{" + box + ",\"samplePeriod\":0.004}}")));
+    }
 }

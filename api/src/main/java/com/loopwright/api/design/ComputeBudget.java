@@ -70,6 +70,21 @@ public final class ComputeBudget {
     public static final long ROBUST_LOOP_SEARCH_UNITS = 2_000;
     /** The same search, per Monte Carlo sample (each sample simulated at each target that reaches every case). */
     public static final long ROBUST_LOOP_UNITS_PER_SAMPLE = 20;
+    /**
+     * A robust design judged sampled (robust.samplePeriod), the full-state law or the loop with integral action or an
+     * observer (whose own units are charged apart): every case of the search is a sampled step of the exported
+     * controller on the perturbed plant (about 20,000 observation points, 1.2-1.5 ms of CPU each), the corners tried
+     * at up to four frequencies and ten bisections for each of five damping ratios. Measured for the README axis at
+     * 2-12 ms periods without samples: 60-150 ms; a box infeasible at the period with 40 samples 330 ms (see
+     * docs/limits-and-budgets.md).
+     */
+    public static final long ROBUST_SAMPLED_SEARCH_UNITS = 2_000;
+    /**
+     * A sampled robust design, per Monte Carlo sample: measured 1.3-2.8 ms per sample when a target is found (each
+     * sample simulated two to three times) and up to 10 ms when none is (the best spec the box allows simulates
+     * every case at up to 20 targets); charged between the two.
+     */
+    public static final long ROBUST_SAMPLED_UNITS_PER_SAMPLE = 50;
     /** Frequency-response and time-series points returned, per unit. */
     public static final long POINTS_PER_UNIT = 30;
     /**
@@ -100,13 +115,21 @@ public final class ComputeBudget {
         JsonNode robust = request == null ? null : request.get("robust");
         if (robust != null && robust.isObject()) {
             boolean simulated = integral || position;
-            parts.put("/robust", simulated ? ROBUST_LOOP_SEARCH_UNITS : ROBUST_SEARCH_UNITS);
+            boolean sampled = present(robust.get("samplePeriod"));
             JsonNode box = robust.get("uncertainty");
             long samples = box == null ? 0 : count(box.get("monteCarloSamples"), VerifyLimits.MAX_MONTE_CARLO_SAMPLES);
-            if (samples > 0) {
-                parts.put(
-                        "/robust/uncertainty/monteCarloSamples",
-                        samples * (simulated ? ROBUST_LOOP_UNITS_PER_SAMPLE : ROBUST_UNITS_PER_SAMPLE));
+            if (sampled) {
+                parts.put("/robust/samplePeriod", ROBUST_SAMPLED_SEARCH_UNITS);
+                if (samples > 0) {
+                    parts.put("/robust/uncertainty/monteCarloSamples", samples * ROBUST_SAMPLED_UNITS_PER_SAMPLE);
+                }
+            } else {
+                parts.put("/robust", simulated ? ROBUST_LOOP_SEARCH_UNITS : ROBUST_SEARCH_UNITS);
+                if (samples > 0) {
+                    parts.put(
+                            "/robust/uncertainty/monteCarloSamples",
+                            samples * (simulated ? ROBUST_LOOP_UNITS_PER_SAMPLE : ROBUST_UNITS_PER_SAMPLE));
+                }
             }
         }
         JsonNode verify = request == null ? null : request.get("verify");

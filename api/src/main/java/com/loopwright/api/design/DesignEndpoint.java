@@ -8,6 +8,7 @@ import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.robustness.RobustnessResponse;
 import com.loopwright.api.robustness.RobustnessResponseMapper;
+import com.loopwright.api.robustness.SamplingInput;
 import com.loopwright.api.robustness.ValidatedVerify;
 import com.loopwright.api.robustness.VerifyInput;
 import com.loopwright.api.robustness.VerifyInputValidator;
@@ -47,6 +48,10 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
 
     /** The law's coordinates: the canonical states (model.units names their units). */
     private static final String CANONICAL_COORDINATES = "canonical x = [x1, x2] (see model.units)";
+
+    /** A state-space plant: the law is stated in canonical coordinates here and in the caller's in the model. */
+    private static final String CANONICAL_NOT_CALLER = "canonical z = [z1, z2] (x = T z, model.stateSpace.transform);"
+            + " this law in your coordinates x is model.stateSpace.loopLaw";
 
     private final DesignRequestValidator validator = new DesignRequestValidator();
     private final VerifyInputValidator verifyValidator = new VerifyInputValidator();
@@ -132,19 +137,31 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
             errors.add(new FieldError(ROBUST_POINTER + "/uncertainty", "required: the parameter box to design for"));
             throw new InvalidRequestException(errors);
         }
+        Double samplePeriod = robust.samplePeriod();
+        if (samplePeriod != null
+                && !(samplePeriod >= VerifyLimits.MIN_SAMPLE_PERIOD && samplePeriod <= VerifyLimits.MAX_TIME_SECONDS)) {
+            errors.add(new FieldError(
+                    ROBUST_POINTER + "/samplePeriod",
+                    "must be from " + VerifyLimits.MIN_SAMPLE_PERIOD + " to " + (long) VerifyLimits.MAX_TIME_SECONDS
+                            + " s (the range of verify.sampling.samplePeriod)"));
+        }
+        // the period rides in the options' sampling slot (already checked here, with the robust pointer)
+        SamplingInput sampling =
+                samplePeriod == null || !errors.isEmpty() ? null : new SamplingInput(samplePeriod, null);
         ValidatedVerify validated = verifyValidator.validate(
-                new VerifyInput(robust.uncertainty(), null, robust.actuatorLimit(), null, null, null, null, null),
+                new VerifyInput(robust.uncertainty(), null, robust.actuatorLimit(), sampling, null, null, null, null),
                 design.plant(),
                 ROBUST_POINTER,
                 errors);
-        if (validated == null) {
+        if (validated == null || !errors.isEmpty()) {
             throw new InvalidRequestException(VerifyLimits.capped(errors));
         }
-        if (design.loop() != null && validated.options().monteCarloSamples() > RobustDesignPipeline.MAX_LOOP_SAMPLES) {
+        if ((design.loop() != null || samplePeriod != null)
+                && validated.options().monteCarloSamples() > RobustDesignPipeline.MAX_LOOP_SAMPLES) {
             throw new InvalidRequestException(List.of(new FieldError(
                     ROBUST_POINTER + "/uncertainty/monteCarloSamples",
                     "at most " + RobustDesignPipeline.MAX_LOOP_SAMPLES + " samples for a robust design with integral"
-                            + " action or position-only sensing (each case is a simulated step)")));
+                            + " action, position-only sensing or a samplePeriod (each case is a simulated step)")));
         }
         return validated;
     }
@@ -182,7 +199,8 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                     box.parameterBox(),
                     box.monteCarloSamples(),
                     box.seed(),
-                    box.actuatorLimit());
+                    box.actuatorLimit(),
+                    box.samplePeriod());
             loop = robustDesign.loop();
             report = robustDesign.report();
         } else if (validated.robust() != null) {
@@ -196,7 +214,8 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                     box.parameterBox(),
                     box.monteCarloSamples(),
                     box.seed(),
-                    box.actuatorLimit());
+                    box.actuatorLimit(),
+                    box.samplePeriod());
             report = robustDesign.report();
         } else {
             report = designs.design(
@@ -220,7 +239,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                     validated.verify().toleranceFraction());
         }
         StateSpaceDesign callerCoordinates =
-                designs.callerCoordinates(design.resolvedPlant().source(), report.design());
+                designs.callerCoordinates(design.resolvedPlant().source(), report.design(), loop);
         return new Result(report, callerCoordinates, checked, loop, robustDesign);
     }
 
@@ -249,7 +268,7 @@ public final class DesignEndpoint implements Endpoint<DesignRequest, DesignEndpo
                         ? null
                         : loopResponses.toSections(
                                 result.loop(),
-                                CANONICAL_COORDINATES,
+                                result.callerCoordinates() == null ? CANONICAL_COORDINATES : CANONICAL_NOT_CALLER,
                                 lawFormula(result.loop()),
                                 validated.design().loop().samplePeriod()),
                 result.robustDesign() == null ? null : robustDesignResponses.toResponse(result.robustDesign()));

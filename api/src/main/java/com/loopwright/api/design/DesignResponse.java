@@ -120,6 +120,7 @@ public record DesignResponse(
      * @param riccatiResidual relative residual of P_x in the Riccati equation of the caller's A, B1, B2
      * @param closedLoopPoles eigenvalues of A - B2 K_x
      */
+    @JsonInclude(JsonInclude.Include.NON_NULL)
     public record StateSpaceView(
             String coordinates,
             List<List<Double>> transform,
@@ -131,7 +132,8 @@ public record DesignResponse(
             double riccatiResidual,
             List<Pole> closedLoopPoles,
             String law,
-            double controllabilityCondition) {
+            double controllabilityCondition,
+            LoopLawView loopLaw) {
         public StateSpaceView {
             transform = List.copyOf(transform);
             p = List.copyOf(p);
@@ -139,6 +141,24 @@ public record DesignResponse(
             stateWeight = List.copyOf(stateWeight);
             trackedOutput = List.copyOf(trackedOutput);
             closedLoopPoles = List.copyOf(closedLoopPoles);
+        }
+    }
+
+    /**
+     * The law of the loop with integral action and/or an observer in the caller's coordinates (stateSpace only).
+     *
+     * @param k             K_x on the caller's states
+     * @param integralGain  ki, absent without integral action
+     * @param referenceGain kr
+     * @param observerGain  L_x, absent with full-state sensing
+     * @param law           the law written out with these numbers
+     */
+    @JsonInclude(JsonInclude.Include.NON_NULL)
+    public record LoopLawView(
+            List<Double> k, Double integralGain, double referenceGain, List<Double> observerGain, String law) {
+        public LoopLawView {
+            k = List.copyOf(k);
+            observerGain = observerGain == null ? null : List.copyOf(observerGain);
         }
     }
 }

@@ -3,6 +3,7 @@ package com.loopwright.api.design;
 import com.loopwright.api.plant.PlantNotation;
 import com.loopwright.api.plant.ResolvedPlant;
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.pipeline.CallerLoopLaw;
 import com.loopwright.solver.pipeline.StateSpaceDesign;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.TwoStateModel;
@@ -128,7 +129,36 @@ final class ModelMapper {
                         .map(p -> new com.loopwright.api.result.Pole(p.re(), p.im()))
                         .toList(),
                 law,
-                view.controllabilityCondition());
+                view.controllabilityCondition(),
+                view.loopLaw() == null ? null : loopLaw(view.loopLaw()));
+    }
+
+    /** The loop's law in the caller's coordinates, written out. */
+    private static DesignResponse.LoopLawView loopLaw(CallerLoopLaw law) {
+        DMatrixRMaj k = law.stateGain();
+        DMatrixRMaj c = law.trackedOutput();
+        DMatrixRMaj l = law.observerGain();
+        String state = l == null ? "x" : "x_hat";
+        StringBuilder text = new StringBuilder(String.format(Locale.US, "u = %.6g*r", law.referenceGain()));
+        if (law.integralGain() != null) {
+            text.append(String.format(Locale.US, " + %.6g*xi", law.integralGain()));
+        }
+        text.append(String.format(Locale.US, " - (%.6g*%s1 + (%.6g)*%s2)", k.get(0), state, k.get(1), state));
+        if (law.integralGain() != null) {
+            text.append(", xi' = r - y");
+        }
+        text.append(String.format(Locale.US, ", y = %.6g*x1 + (%.6g)*x2", c.get(0), c.get(1)));
+        if (l != null) {
+            text.append(String.format(
+                    Locale.US,
+                    ", x_hat' = A x_hat + B2 u + [%.6g, %.6g]' (y - (%.6g*x_hat1 + (%.6g)*x_hat2))",
+                    l.get(0),
+                    l.get(1),
+                    c.get(0),
+                    c.get(1)));
+        }
+        return new DesignResponse.LoopLawView(
+                row(k), law.integralGain(), law.referenceGain(), l == null ? null : entries(l), text.toString());
     }
 
     private static List<List<Double>> rows(DMatrixRMaj m) {
@@ -145,5 +175,14 @@ final class ModelMapper {
 
     private static List<Double> row(DMatrixRMaj m) {
         return rows(m).get(0);
+    }
+
+    /** Every entry of a vector, row or column. */
+    private static List<Double> entries(DMatrixRMaj m) {
+        List<Double> entries = new ArrayList<>();
+        for (int i = 0; i < m.getNumElements(); i++) {
+            entries.add(m.get(i));
+        }
+        return entries;
     }
 }

@@ -21,10 +21,14 @@ import java.util.List;
  * @param priceOfRobustness the nominal loop against the spec requested, and the worst case
  * @param actuatorLimit     the bound every case's max |u| meets, or absent
  * @param gamma             the design's gamma, the bound each corner's norm is compared with
- * @param corners           each corner's metrics and certified H-infinity norm from w to z
- * @param judgedLoop        the loop judged over the box when integral action or position-only sensing was asked
- *                          (integralAction, positionObserver or integralActionPositionObserver: every case a
- *                          simulated step of that loop); absent for the full-state loop, judged in closed form
+ * @param corners           each corner's metrics and certified H-infinity norm from w to z (the continuous loop's
+ *                          norm, also when the cases are judged sampled)
+ * @param judgedLoop        the loop judged over the box when integral action, position-only sensing or a sample
+ *                          period was asked (integralAction, positionObserver or integralActionPositionObserver:
+ *                          every case a simulated step of that loop; with samplePeriod the same names prefixed
+ *                          sampled, and sampledStateFeedback for the full-state law: every case the sampled loop
+ *                          of the exported controller); absent for the full-state loop, judged in closed form
+ * @param samplePeriod      the period every case was judged at [s] (the request's robust.samplePeriod), or absent
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 public record RobustDesign(
@@ -42,7 +46,8 @@ public record RobustDesign(
         Double actuatorLimit,
         double gamma,
         List<Corner> corners,
-        String judgedLoop) {
+        String judgedLoop,
+        Double samplePeriod) {
 
     public RobustDesign {
         corners = List.copyOf(corners);

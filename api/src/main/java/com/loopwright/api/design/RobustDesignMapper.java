@@ -24,7 +24,10 @@ final class RobustDesignMapper {
         StepMetrics worst = robust.worstMetrics();
         AcceptanceLimits limits = robust.limits();
         RealLoopReport loop = robust.loop();
-        StepMetrics nominal = loop == null ? robust.report().stepMetrics() : runningStep(loop);
+        RobustDesignReport.SampledJudging sampled = robust.sampled();
+        StepMetrics nominal = sampled != null
+                ? sampled.nominalMetrics()
+                : loop == null ? robust.report().stepMetrics() : runningStep(loop);
         TargetDynamics target = loop == null ? robust.report().design().target() : loop.target();
         double gamma =
                 loop == null ? robust.report().design().gamma() : loop.design().gamma();
@@ -68,7 +71,8 @@ final class RobustDesignMapper {
                         .map(c -> new RobustDesign.Corner(
                                 plant(c.plant()), metrics(c.metrics()), c.hInfinityNorm(), c.withinGamma()))
                         .toList(),
-                loop == null ? null : judgedLoop(loop.structure()));
+                judgedLoop(loop, sampled),
+                sampled == null ? null : sampled.samplePeriodSeconds());
     }
 
     /** The loop that runs: the full output-feedback loop with an observer, else the state-feedback loop. */
@@ -78,7 +82,22 @@ final class RobustDesignMapper {
                 : loop.outputFeedback().step();
     }
 
-    /** The judged loop's name on the wire. */
+    /**
+     * The judged loop's name on the wire: null for the full-state loop in continuous time (closed form), the loop's
+     * structure, prefixed "sampled" when the cases were judged at a sample period.
+     */
+    static String judgedLoop(RealLoopReport loop, RobustDesignReport.SampledJudging sampled) {
+        if (sampled == null) {
+            return loop == null ? null : judgedLoop(loop.structure());
+        }
+        if (loop == null) {
+            return "sampledStateFeedback";
+        }
+        String name = judgedLoop(loop.structure());
+        return "sampled" + Character.toUpperCase(name.charAt(0)) + name.substring(1);
+    }
+
+    /** The judged loop's name on the wire, in continuous time. */
     static String judgedLoop(LoopStructure structure) {
         boolean observer = structure.measurement() == LoopStructure.Measurement.POSITION;
         if (structure.integralAction()) {

@@ -8,5 +8,7 @@ import com.loopwright.api.robustness.UncertaintyInput;
  *
  * @param uncertainty   the parameter box, in the same shape as verify.uncertainty (required)
  * @param actuatorLimit every case's max |u| must stay at or below this, u units (optional)
+ * @param samplePeriod  the controller's task period [s]: every case is judged by the sampled loop the exported
+ *                      controller makes at it (optional; absent: judged in continuous time)
  */
-public record RobustInput(UncertaintyInput uncertainty, Double actuatorLimit) {}
+public record RobustInput(UncertaintyInput uncertainty, Double actuatorLimit, Double samplePeriod) {}

@@ -27,6 +27,7 @@ public final class FailureTable {
     private static final String NO_DC_GAIN_POINTER = "/plant/stateSpace/output";
     private static final String FIT_POINTER = "/samples/output";
     private static final String SAMPLE_PERIOD_POINTER = "/samplePeriod";
+    private static final String ROBUST_SAMPLE_PERIOD_POINTER = "/robust/samplePeriod";
     private static final String ACTUATOR_LIMIT_POINTER = "/actuatorLimit";
     private static final String SPEC_PREFIX = "/spec/";
 
@@ -85,12 +86,16 @@ public final class FailureTable {
             case UNSTABLE_LOOP -> at(ProblemType.UNSTABLE_LOOP, context.unstableLoopPointer(), message);
             case FIT_FAILED -> at(ProblemType.FIT_FAILED, FIT_POINTER, message);
             case SAMPLED_LAW_INFEASIBLE ->
-                at(
-                        ProblemType.INFEASIBLE_SPEC,
-                        SolverFailure.SAMPLE_PERIOD.equals(failure.subject())
-                                ? SAMPLE_PERIOD_POINTER
-                                : ACTUATOR_LIMIT_POINTER,
-                        message);
+                at(ProblemType.INFEASIBLE_SPEC, sampledLawPointer(failure, context), message);
+        };
+    }
+
+    /** The input a sampled law cannot be built for: the export's period or limit, or a robust design's period. */
+    private static String sampledLawPointer(SolverFailure failure, FailureContext context) {
+        return switch (failure.subject()) {
+            case SolverFailure.SAMPLE_PERIOD -> SAMPLE_PERIOD_POINTER;
+            case SolverFailure.ROBUST_SAMPLE_PERIOD -> context.prefix() + ROBUST_SAMPLE_PERIOD_POINTER;
+            default -> ACTUATOR_LIMIT_POINTER;
         };
     }
 

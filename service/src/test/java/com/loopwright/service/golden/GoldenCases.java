@@ -38,6 +38,7 @@ final class GoldenCases {
         g.extremes();
         g.designSpaces();
         g.robustDesigns();
+        g.stateSpaceLoops();
         g.highOrderRobustDesigns();
         return List.copyOf(g.cases);
     }
@@ -418,7 +419,9 @@ final class GoldenCases {
 
     /**
      * Robust designs: the two-state search (settling and rise time, an actuator limit, a box no target meets) and
-     * the loop judged by simulation (integral action; integral action with a pole-multiple observer).
+     * the loop judged by simulation (integral action; integral action with a pole-multiple observer), and the same
+     * judged sampled at robust.samplePeriod (the full-state law, settling and rise time; the loops; a period too
+     * long, one the box cannot meet the spec at, one out of range).
      */
     private void robustDesigns() {
         String box = "{\"a1\":{\"spreadPercent\":20},\"b\":{\"lowest\":266.7,\"highest\":500},"
@@ -435,6 +438,24 @@ final class GoldenCases {
             "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"integralAction\":true,"
                     + "\"measurement\":\"position\",\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5},"
                     + "\"robust\":{\"uncertainty\":" + box + "}}",
+            // judged sampled: the exported law (settling, rise time), the discrete controllers of the loops
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"robust\":{\"uncertainty\":" + box
+                    + ",\"samplePeriod\":0.004}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":{\"riseTime\":0.08,\"overshootPercent\":1.5},"
+                    + "\"robust\":{\"uncertainty\":" + box + ",\"samplePeriod\":0.004}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"integralAction\":true,"
+                    + "\"robust\":{\"uncertainty\":" + box + ",\"samplePeriod\":0.002}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"integralAction\":true,"
+                    + "\"measurement\":\"position\",\"observer\":{\"method\":\"poleMultiple\",\"multiple\":5},"
+                    + "\"robust\":{\"uncertainty\":" + box + ",\"samplePeriod\":0.002}}",
+            // a period too long for the spec (422 at /robust/samplePeriod), one the box cannot meet the spec at
+            // (422 with the best spec at that period), and a period out of range (400)
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"robust\":{\"uncertainty\":" + box
+                    + ",\"samplePeriod\":5}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"robust\":{\"uncertainty\":" + box
+                    + ",\"samplePeriod\":0.014}}",
+            "{\"plant\":" + AXIS_PLANT + ",\"spec\":" + AXIS_SPEC + ",\"robust\":{\"uncertainty\":" + box
+                    + ",\"samplePeriod\":0}}",
         };
         for (int i = 0; i < bodies.length; i++) {
             design(String.format(Locale.ROOT, "robust-%02d", i), bodies[i]);
@@ -470,6 +491,16 @@ final class GoldenCases {
         for (int i = 0; i < bodies.length; i++) {
             post(String.format(Locale.ROOT, "high-order-robust-%02d", i), "/v1/designs/high-order", bodies[i]);
         }
+    }
+
+    /** A state-space plant with integral action, with and without position-only sensing (model.stateSpace.loopLaw). */
+    private void stateSpaceLoops() {
+        String plant = "{\"form\":\"stateSpace\",\"a\":[[0,50],[0,-2]],\"b2\":[0,3],\"b1\":[0,1]}";
+        String spec = "{\"settlingTime\":0.3,\"overshootPercent\":1}";
+        design("state-space-loop-00", "{\"plant\":" + plant + ",\"spec\":" + spec + ",\"integralAction\":true}");
+        design(
+                "state-space-loop-01",
+                "{\"plant\":" + plant + ",\"spec\":" + spec + ",\"integralAction\":true,\"measurement\":\"position\"}");
     }
 
     private void verifications() {

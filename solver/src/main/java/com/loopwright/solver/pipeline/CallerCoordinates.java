@@ -1,6 +1,9 @@
 package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.design.ClosedFormDesign;
+import com.loopwright.solver.design.ObserverDesign;
+import com.loopwright.solver.design.TrackingLaw;
+import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.riccati.RiccatiResidual;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -29,12 +32,7 @@ public final class CallerCoordinates {
         DMatrixRMaj kz = new DMatrixRMaj(1, 2, true, design.positionGain(), design.velocityGain());
         DMatrixRMaj px = congruence(tInv, pz);
         DMatrixRMaj qx = congruence(tInv, qz);
-        // K_x = K_z T^-1 = (K_z C_z) C_x^-1: an LU solve with C_x, no explicit inverse
-        double b = design.plant().b();
-        double a1 = design.plant().a1();
-        DMatrixRMaj kzCz = new DMatrixRMaj(
-                1, 2, true, design.velocityGain() * b, design.positionGain() * b - a1 * b * design.velocityGain());
-        DMatrixRMaj kx = TwoStateModel.solveTransposed(model.controllabilityMatrix(), kzCz);
+        DMatrixRMaj kx = callerRow(model, design.plant(), design.positionGain(), design.velocityGain());
         DMatrixRMaj trackedOutput = new DMatrixRMaj(1, 2, true, tInv.get(0, 0) + 0.0, tInv.get(0, 1) + 0.0);
 
         // R = B1 B1'/gamma^2 - B2 B2' from the caller's own B1 and B2.
@@ -64,7 +62,42 @@ public final class CallerCoordinates {
             }
         }
         return new StateSpaceDesign(
-                t, px, kx, qx, trackedOutput, referenceGain, residual, poles, model.controllabilityCondition());
+                t, px, kx, qx, trackedOutput, referenceGain, residual, poles, model.controllabilityCondition(), null);
+    }
+
+    /**
+     * The loop's law in the caller's coordinates: K_x = K_z T^-1 (as the plain gain), L_x = T L_z; ki and kr as
+     * designed.
+     *
+     * @param plant    the canonical plant the law was designed for
+     * @param law      u = kr r + ki xi - K_z z_hat
+     * @param observer the observer of z, or null with full-state sensing
+     */
+    public static CallerLoopLaw loopLaw(
+            TwoStateModel model, CanonicalPlant plant, TrackingLaw law, ObserverDesign observer) {
+        double[] k = law.stateGain();
+        DMatrixRMaj kx = callerRow(model, plant, k[0], k[1]);
+        DMatrixRMaj lx = null;
+        if (observer != null) {
+            double[] l = observer.gain();
+            lx = new DMatrixRMaj(2, 1);
+            CommonOps_DDRM.mult(model.transform(), new DMatrixRMaj(2, 1, true, l[0], l[1]), lx);
+        }
+        DMatrixRMaj tInv = model.inverseTransform();
+        DMatrixRMaj trackedOutput = new DMatrixRMaj(1, 2, true, tInv.get(0, 0) + 0.0, tInv.get(0, 1) + 0.0);
+        Double integralGain = law.integralAction() ? law.integralGain() : null;
+        return new CallerLoopLaw(kx, integralGain, law.referenceGain(), lx, trackedOutput);
+    }
+
+    /**
+     * K_x = K_z T^-1 = (K_z C_z) C_x^-1 for K_z = [k1, k2]: an LU solve with the caller's controllability matrix
+     * C_x, no explicit inverse (C_z = [B_z, A_z B_z] = [[0, b], [b, -a1 b]]).
+     */
+    private static DMatrixRMaj callerRow(TwoStateModel model, CanonicalPlant plant, double k1, double k2) {
+        double b = plant.b();
+        double a1 = plant.a1();
+        DMatrixRMaj kzCz = new DMatrixRMaj(1, 2, true, k2 * b, k1 * b - a1 * b * k2);
+        return TwoStateModel.solveTransposed(model.controllabilityMatrix(), kzCz);
     }
 
     /**

@@ -55,4 +55,17 @@ public final class DesignPipeline {
     public StateSpaceDesign callerCoordinates(Object plantSource, ClosedFormDesign design) {
         return plantSource instanceof TwoStateModel model ? CallerCoordinates.of(model, design) : null;
     }
+
+    /**
+     * As {@link #callerCoordinates(Object, ClosedFormDesign)}, with the law of the loop with integral action and/or
+     * an observer in the caller's coordinates too (when loop is not null).
+     */
+    public StateSpaceDesign callerCoordinates(Object plantSource, ClosedFormDesign design, RealLoopReport loop) {
+        StateSpaceDesign view = callerCoordinates(plantSource, design);
+        if (view == null || loop == null) {
+            return view;
+        }
+        return view.withLoopLaw(
+                CallerCoordinates.loopLaw((TwoStateModel) plantSource, design.plant(), loop.law(), loop.observer()));
+    }
 }

@@ -10,11 +10,13 @@ import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
 import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.export.SampledLawDesigner;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 import com.loopwright.solver.robustness.ParameterBox;
+import com.loopwright.solver.robustness.ParameterSampler;
 import com.loopwright.solver.robustness.RobustTargetSearch;
 import com.loopwright.solver.robustness.UncertainCase;
 import com.loopwright.solver.robustness.UncertaintyAnalyzer;
@@ -72,6 +74,33 @@ public final class RobustDesignPipeline {
             int samples,
             long seed,
             Double actuatorLimit) {
+        return design(plant, spec, gammaChoice, stepSize, bandFraction, box, samples, seed, actuatorLimit, null);
+    }
+
+    /**
+     * As {@link #design}, with every case judged by the sampled law the exports emit at {@code samplePeriod} when it
+     * is given ({@link SampledLawJudge}, searched by {@link SimulatedTargetSearch}; samples 0 to
+     * {@value #MAX_LOOP_SAMPLES}). The corner norms stay those of the continuous loop.
+     *
+     * @param samplePeriod T [s], or null to judge in continuous time
+     * @throws SolverFailure as {@link #design}, and SAMPLED_LAW_INFEASIBLE about
+     *     {@link SolverFailure#ROBUST_SAMPLE_PERIOD} when the period cannot work for the spec or cannot be simulated
+     */
+    public RobustDesignReport design(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction,
+            ParameterBox box,
+            int samples,
+            long seed,
+            Double actuatorLimit,
+            Double samplePeriod) {
+        if (samplePeriod != null) {
+            return designSampledLaw(
+                    plant, spec, gammaChoice, stepSize, bandFraction, box, samples, seed, actuatorLimit, samplePeriod);
+        }
         TimeSpec timeSpec = spec.timeSpec();
         AcceptanceLimits limits = new AcceptanceLimits(
                 timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
@@ -149,6 +178,43 @@ public final class RobustDesignPipeline {
             int samples,
             long seed,
             Double actuatorLimit) {
+        return designLoop(
+                plant,
+                spec,
+                gammaChoice,
+                structure,
+                loadStepSize,
+                stepSize,
+                bandFraction,
+                box,
+                samples,
+                seed,
+                actuatorLimit,
+                null);
+    }
+
+    /**
+     * As {@link #designLoop}, with every case judged by the discrete controller the loop exports emit at
+     * {@code samplePeriod} on the zero-order-hold perturbed plant when it is given ({@link SampledLoopJudge}). The
+     * corner norms stay those of the continuous loop.
+     *
+     * @param samplePeriod T [s], or null to judge in continuous time
+     * @throws SolverFailure as {@link #designLoop}, and SAMPLED_LAW_INFEASIBLE about
+     *     {@link SolverFailure#ROBUST_SAMPLE_PERIOD} when the period cannot work for the spec or cannot be simulated
+     */
+    public RobustDesignReport designLoop(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            GammaChoice gammaChoice,
+            LoopStructure structure,
+            double loadStepSize,
+            double stepSize,
+            double bandFraction,
+            ParameterBox box,
+            int samples,
+            long seed,
+            Double actuatorLimit,
+            Double samplePeriod) {
         if (samples < 0 || samples > MAX_LOOP_SAMPLES) {
             throw new IllegalArgumentException("samples must be 0 to " + MAX_LOOP_SAMPLES);
         }
@@ -162,19 +228,35 @@ public final class RobustDesignPipeline {
         TargetDynamics requested = inverter.invert(spec).target();
         RobustLoopSearch search =
                 new RobustLoopSearch(realLoops, request, plant, box, samples, seed, limits, actuatorLimit, stepSize);
+        SampledLoopJudge sampledJudge = null;
         RobustTargetSearch.Outcome outcome;
-        try {
-            outcome = search.search(requested);
-        } catch (ComputationCancelledException e) {
-            throw e;
-        } catch (RobustTargetSearch.SearchCapException e) {
-            throw SolverFailure.about(
-                    SolverFailure.Kind.CAP_EXCEEDED, SolverFailure.ROBUST_SEARCH, -1, e.getMessage(), e);
-        } catch (RuntimeException e) {
-            throw SolverFailure.of(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, e.getMessage(), e);
-        }
-        if (outcome.target() == null) {
-            throw SolverFailure.infeasible(infeasibility(limits, actuatorLimit, outcome), null);
+        if (samplePeriod == null) {
+            outcome = searched(() -> search.search(requested));
+            if (outcome.target() == null) {
+                throw SolverFailure.infeasible(infeasibility(limits, actuatorLimit, outcome), null);
+            }
+        } else {
+            requireReachable(requested, samplePeriod, limits);
+            SampledLoopJudge judge = new SampledLoopJudge(
+                    search,
+                    plant,
+                    samplePeriod,
+                    stepSize,
+                    limits,
+                    structure.measurement() == LoopStructure.Measurement.POSITION);
+            sampledJudge = judge;
+            outcome = searched(() -> new SimulatedTargetSearch<>(
+                            judge,
+                            search.corners().size(),
+                            search.everyCase().size(),
+                            limits,
+                            actuatorLimit,
+                            SampledLawJudge.frequencyCeiling(samplePeriod),
+                            Double.NaN)
+                    .search(requested));
+            if (outcome.target() == null) {
+                throw sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
+            }
         }
         TargetDynamics target = outcome.target();
         RealLoopReport loop = realLoops.designAt(request, target);
@@ -193,13 +275,24 @@ public final class RobustDesignPipeline {
             throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
         }
         RealLoopPipeline.LoopParts parts = realLoops.partsAt(request, target);
+        SampledLoopJudge.Design sampledDesign = sampledJudge == null ? null : sampledJudge.designAt(target);
+        if (sampledJudge != null && sampledDesign == null) {
+            throw SolverFailure.of(
+                    SolverFailure.Kind.UNVERIFIABLE, "the chosen target's sampled controller could not be built", null);
+        }
         List<UncertainCase> corners = new ArrayList<>();
         List<UncertainCase> all = new ArrayList<>();
         List<CanonicalPlant> cases = search.everyCase();
-        for (int i = 0; i < cases.size(); i++) {
-            UncertainCase judged =
-                    search.judged(parts, cases.get(i), i < search.corners().size());
-            (judged.corner() ? corners : all).add(judged);
+        try {
+            for (int i = 0; i < cases.size(); i++) {
+                boolean corner = i < search.corners().size();
+                UncertainCase judged = sampledJudge == null
+                        ? search.judged(parts, cases.get(i), corner)
+                        : sampledJudge.judged(sampledDesign, cases.get(i), corner);
+                (judged.corner() ? corners : all).add(judged);
+            }
+        } catch (SamplePeriodException e) {
+            throw samplePeriodFailure(e.getMessage(), e);
         }
         all.addAll(0, corners);
         UncertaintyReport uncertainty = analyzer.summarize(corners, all, samples, seed, limits);
@@ -216,9 +309,273 @@ public final class RobustDesignPipeline {
         RobustDesignReport partial = new RobustDesignReport(
                 report, requested, limits, actuatorLimit, outcome, uncertainty, norms, null, loop);
         CanonicalPlant worstAt = partial.binding().at();
-        StepMetrics worst = worstAt == null ? null : search.metrics(parts, worstAt);
+        if (sampledJudge == null) {
+            StepMetrics worst = worstAt == null ? null : search.metrics(parts, worstAt);
+            return new RobustDesignReport(
+                    report, requested, limits, actuatorLimit, outcome, uncertainty, norms, worst, loop);
+        }
+        SampledLoopJudge.Design chosen = sampledDesign;
+        SampledLoopJudge judge = sampledJudge;
+        StepMetrics worst = worstAt == null ? null : sampledMetrics(() -> judge.metrics(chosen, worstAt));
+        StepMetrics nominalSampled = requireNominal(sampledMetrics(() -> judge.metrics(chosen, plant)));
         return new RobustDesignReport(
-                report, requested, limits, actuatorLimit, outcome, uncertainty, norms, worst, loop);
+                report,
+                requested,
+                limits,
+                actuatorLimit,
+                outcome,
+                uncertainty,
+                norms,
+                worst,
+                loop,
+                new RobustDesignReport.SampledJudging(samplePeriod, nominalSampled));
+    }
+
+    /**
+     * The robust design of the full-state law run sampled: {@link SampledLawJudge} in {@link SimulatedTargetSearch}
+     * (frequency ceiling wn T &lt;= 0.5), the chosen target designed and verified as any design, every case judged
+     * again with the designed gains, the corner norms of the continuous loop.
+     */
+    private RobustDesignReport designSampledLaw(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction,
+            ParameterBox box,
+            int samples,
+            long seed,
+            Double actuatorLimit,
+            double samplePeriod) {
+        if (samples < 0 || samples > MAX_LOOP_SAMPLES) {
+            throw new IllegalArgumentException("samples must be 0 to " + MAX_LOOP_SAMPLES);
+        }
+        TimeSpec timeSpec = spec.timeSpec();
+        AcceptanceLimits limits = new AcceptanceLimits(
+                timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
+                timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
+                100 * spec.overshootFraction(),
+                bandFraction);
+        TargetDynamics requested = inverter.invert(spec).target();
+        requireReachable(requested, samplePeriod, limits);
+        List<CanonicalPlant> cornerPlants = box.corners();
+        List<CanonicalPlant> cases = new ArrayList<>(cornerPlants);
+        ParameterSampler sampler = new ParameterSampler(box, seed);
+        for (int s = 0; s < samples; s++) {
+            cases.add(ParameterBox.plant(sampler.next()));
+        }
+        SampledLawJudge judge = new SampledLawJudge(
+                plant, cases, samplePeriod, stepSize, bandFraction, t -> designable(plant, t, gammaChoice));
+        // the continuous robust design's damping ratio (refined on a finer grid, closed form: milliseconds) is tried
+        // after the coarse grid's: where sampling changes little, the sampled search finds that target's neighbour
+        double continuousDamping =
+                continuousDamping(plant, requested, box, samples, seed, limits, actuatorLimit, stepSize, gammaChoice);
+        RobustTargetSearch.Outcome outcome = searched(() -> new SimulatedTargetSearch<>(
+                        judge,
+                        cornerPlants.size(),
+                        cases.size(),
+                        limits,
+                        actuatorLimit,
+                        SampledLawJudge.frequencyCeiling(samplePeriod),
+                        continuousDamping)
+                .search(requested));
+        if (outcome.target() == null) {
+            throw sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
+        }
+        TargetDynamics target = outcome.target();
+        DesignReport report;
+        try {
+            report = loops.designed(
+                    plant,
+                    spec,
+                    new SpecInversion(target, handbook(target, timeSpec, bandFraction), 0),
+                    gammaChoice,
+                    stepSize,
+                    bandFraction);
+        } catch (InfeasibleDesignException e) {
+            throw SolverFailure.infeasible(e.infeasibility(), e);
+        } catch (VerificationFailedException e) {
+            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
+        }
+        ClosedFormDesign design = report.design();
+        // the exported law's gains: those of the verified design
+        FeedbackGains gains = new FeedbackGains(design.positionGain(), design.velocityGain(), design.referenceGain());
+        DMatrixRMaj output = new DMatrixRMaj(
+                new double[][] {{design.rho1(), 0}, {0, design.rho2()}, {-gains.positionGain(), -gains.velocityGain()}
+                });
+        List<UncertainCase> corners = new ArrayList<>();
+        List<UncertainCase> all = new ArrayList<>();
+        for (int i = 0; i < cases.size(); i++) {
+            boolean corner = i < cornerPlants.size();
+            CanonicalPlant casePlant = cases.get(i);
+            UncertainCase judged = sampledCase(() -> judge.judged(gains, casePlant, corner, limits));
+            (corner ? corners : all).add(judged);
+        }
+        all.addAll(0, corners);
+        UncertaintyReport uncertainty = analyzer.summarize(corners, all, samples, seed, limits);
+        List<RobustDesignReport.CornerNorm> norms = new ArrayList<>();
+        for (UncertainCase corner : corners) {
+            double norm = cornerNorm(corner.plant(), gains, output);
+            norms.add(new RobustDesignReport.CornerNorm(corner.plant(), corner, norm, norm <= design.gamma()));
+        }
+        RobustDesignReport partial =
+                new RobustDesignReport(report, requested, limits, actuatorLimit, outcome, uncertainty, norms, null);
+        CanonicalPlant worstAt = partial.binding().at();
+        StepMetrics worst = worstAt == null ? null : sampledMetrics(() -> judge.metrics(gains, worstAt));
+        StepMetrics nominalSampled = requireNominal(sampledMetrics(() -> judge.metrics(gains, plant)));
+        return new RobustDesignReport(
+                report,
+                requested,
+                limits,
+                actuatorLimit,
+                outcome,
+                uncertainty,
+                norms,
+                worst,
+                null,
+                new RobustDesignReport.SampledJudging(samplePeriod, nominalSampled));
+    }
+
+    /** The damping ratio of the continuous robust search's target, or NaN when it finds none or fails. */
+    private double continuousDamping(
+            CanonicalPlant plant,
+            TargetDynamics requested,
+            ParameterBox box,
+            int samples,
+            long seed,
+            AcceptanceLimits limits,
+            Double actuatorLimit,
+            double stepSize,
+            GammaChoice gammaChoice) {
+        try {
+            RobustTargetSearch.Outcome continuous = new RobustTargetSearch(
+                            plant, box, samples, seed, limits, actuatorLimit, stepSize)
+                    .search(requested, target -> designable(plant, target, gammaChoice));
+            return continuous.target() == null
+                    ? Double.NaN
+                    : continuous.target().dampingRatio();
+        } catch (RobustTargetSearch.SearchCapException e) {
+            return Double.NaN;
+        }
+    }
+
+    /** A search run with its failures as {@link SolverFailure}s. */
+    private static RobustTargetSearch.Outcome searched(java.util.function.Supplier<RobustTargetSearch.Outcome> run) {
+        try {
+            return run.get();
+        } catch (ComputationCancelledException e) {
+            throw e;
+        } catch (SamplePeriodException e) {
+            throw samplePeriodFailure(e.getMessage(), e);
+        } catch (RobustTargetSearch.SearchCapException e) {
+            throw SolverFailure.about(
+                    SolverFailure.Kind.CAP_EXCEEDED, SolverFailure.ROBUST_SEARCH, -1, e.getMessage(), e);
+        } catch (SolverFailure e) {
+            throw e;
+        } catch (RuntimeException e) {
+            throw SolverFailure.of(SolverFailure.Kind.CHECK_NOT_COMPUTABLE, e.getMessage(), e);
+        }
+    }
+
+    /** The chosen design's sampled metrics (null when not measurable), its period failure as a SolverFailure. */
+    private static StepMetrics sampledMetrics(java.util.function.Supplier<StepMetrics> run) {
+        try {
+            return run.get();
+        } catch (SamplePeriodException e) {
+            throw samplePeriodFailure(e.getMessage(), e);
+        }
+    }
+
+    private static StepMetrics requireNominal(StepMetrics nominal) {
+        if (nominal == null) {
+            throw SolverFailure.of(
+                    SolverFailure.Kind.UNVERIFIABLE, "the nominal sampled loop's step could not be measured", null);
+        }
+        return nominal;
+    }
+
+    private static UncertainCase sampledCase(java.util.function.Supplier<UncertainCase> run) {
+        try {
+            return run.get();
+        } catch (SamplePeriodException e) {
+            throw samplePeriodFailure(e.getMessage(), e);
+        }
+    }
+
+    private static SolverFailure samplePeriodFailure(String message, Throwable cause) {
+        return SolverFailure.about(
+                SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE, SolverFailure.ROBUST_SAMPLE_PERIOD, -1, message, cause);
+    }
+
+    /**
+     * The period leaves the search a bracket: the exported law needs wn T &lt;= 0.5, so no target above 0.5 / T; the
+     * search starts at wn_req / {@value RobustTargetSearch#FREQUENCY_SPAN}. A period above
+     * 0.5 {@value RobustTargetSearch#FREQUENCY_SPAN} / wn_req therefore cannot work for the spec.
+     */
+    private static void requireReachable(TargetDynamics requested, double samplePeriod, AcceptanceLimits limits) {
+        double lowest = requested.naturalFrequencyRadPerSec() / RobustTargetSearch.FREQUENCY_SPAN;
+        if (SampledLawJudge.frequencyCeiling(samplePeriod) > lowest) {
+            return;
+        }
+        throw samplePeriodFailure(
+                String.format(
+                        Locale.US,
+                        "the sample period %.6g s is too long for this spec: %s; the exported law needs wn T <= %.2g,"
+                                + " so wn <= %.6g rad/s, below the slowest target the search tries (%.6g rad/s, a"
+                                + " sixteenth of the requested natural frequency); a period above %.4g s cannot work"
+                                + " for this spec",
+                        samplePeriod,
+                        periods(limits, samplePeriod),
+                        SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT,
+                        SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT / samplePeriod,
+                        lowest,
+                        SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT / lowest),
+                null);
+    }
+
+    /** "the settling time 0.12 s is 1.2 sample periods" (or the rise time). */
+    private static String periods(AcceptanceLimits limits, double samplePeriod) {
+        boolean rise = limits.settlingTimeSeconds() == null;
+        double time = rise ? limits.riseTimeSeconds() : limits.settlingTimeSeconds();
+        return String.format(
+                Locale.US,
+                "the %s %.6g s is %.3g sample periods",
+                rise ? "rise time" : "settling time",
+                time,
+                time / samplePeriod);
+    }
+
+    /**
+     * No target meets the spec at the period: the infeasible-spec answer with the best spec the box allows at this
+     * period when one was found; else the period is the obstacle (422 at robust.samplePeriod).
+     */
+    private static SolverFailure sampledInfeasible(
+            AcceptanceLimits limits, Double actuatorLimit, RobustTargetSearch.Outcome outcome, double samplePeriod) {
+        String atPeriod = String.format(
+                Locale.US,
+                " judged sampled at samplePeriod %.6g s (%s; the exported controller needs wn T <= %.2g and every"
+                        + " case's sampled loop stable)",
+                samplePeriod,
+                periods(limits, samplePeriod),
+                SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT);
+        if (outcome.proposedTimeSeconds() == null && outcome.proposedOvershootPercent() == null) {
+            return samplePeriodFailure(
+                    String.format(
+                            Locale.US,
+                            "no nominal target meets the spec on all %d cases of the box%s, and no slower spec was"
+                                    + " found that they meet; shorten the sample period",
+                            outcome.caseCount(),
+                            atPeriod),
+                    null);
+        }
+        Infeasibility box = infeasibility(limits, actuatorLimit, outcome);
+        List<SpecProposal> proposals = box.proposals().stream()
+                .map(p -> new SpecProposal(
+                        p.quantity(),
+                        p.value(),
+                        p.note() + String.format(Locale.US, ", at samplePeriod %.6g s", samplePeriod)))
+                .toList();
+        return SolverFailure.infeasible(new Infeasibility(box.quantity(), box.reason() + atPeriod, proposals), null);
     }
 
     /** The certified norm from w to z (the Hamiltonian test, as the design's own certificate); 0 when d = 0. */

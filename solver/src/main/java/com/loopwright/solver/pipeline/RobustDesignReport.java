@@ -23,6 +23,8 @@ import java.util.List;
  * @param worstMetrics    the step metrics at the parameters of {@link #binding()} (null when nothing binds)
  * @param loop            the loop with integral action and/or an observer that was judged over the box (its cases
  *                        simulated), or null for the two-state full-state loop (judged in closed form)
+ * @param sampled         the sample period every case was judged at and the nominal sampled step, or null when the
+ *                        cases were judged in continuous time
  */
 public record RobustDesignReport(
         DesignReport report,
@@ -33,11 +35,44 @@ public record RobustDesignReport(
         UncertaintyReport uncertainty,
         List<CornerNorm> cornerNorms,
         StepMetrics worstMetrics,
-        RealLoopReport loop) {
+        RealLoopReport loop,
+        SampledJudging sampled) {
 
     public RobustDesignReport {
         cornerNorms = List.copyOf(cornerNorms);
     }
+
+    /** A robust design judged in continuous time. */
+    public RobustDesignReport(
+            DesignReport report,
+            TargetDynamics requestedTarget,
+            AcceptanceLimits limits,
+            Double actuatorLimit,
+            RobustTargetSearch.Outcome search,
+            UncertaintyReport uncertainty,
+            List<CornerNorm> cornerNorms,
+            StepMetrics worstMetrics,
+            RealLoopReport loop) {
+        this(
+                report,
+                requestedTarget,
+                limits,
+                actuatorLimit,
+                search,
+                uncertainty,
+                cornerNorms,
+                worstMetrics,
+                loop,
+                null);
+    }
+
+    /**
+     * The cases judged by the sampled loop as the exported controller runs it.
+     *
+     * @param samplePeriodSeconds T [s]
+     * @param nominalMetrics      the nominal plant's sampled step with the designed controller
+     */
+    public record SampledJudging(double samplePeriodSeconds, StepMetrics nominalMetrics) {}
 
     /** The two-state full-state loop's robust design. */
     public RobustDesignReport(

@@ -124,14 +124,7 @@ final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoop
         StepMetrics m = metrics(parts, plant);
         Double gain = null;
         if (corner && m != null) {
-            try {
-                LoopSystem loop = perturbed(parts, plant);
-                gain = Math.abs(plant.d() / nominal.d())
-                        * norms.compute(loop.a(), loop.disturbance(), loop.performance())
-                                .value();
-            } catch (RuntimeException e) {
-                gain = null;
-            }
+            gain = cornerNorm(parts, plant);
         }
         if (m == null) {
             return new UncertainCase(plant, corner, false, null, null, null, null, gain, false);
@@ -147,6 +140,21 @@ final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoop
                 m.peakControl(),
                 gain,
                 meets);
+    }
+
+    /**
+     * The norm from w to z of the continuous perturbed loop (the disturbance column is [0, d]: the norm scales with
+     * |d| / |d_nominal|, so it is computed with the nominal d and scaled), or null when it cannot be computed.
+     */
+    Double cornerNorm(RealLoopPipeline.LoopParts parts, CanonicalPlant plant) {
+        try {
+            LoopSystem loop = perturbed(parts, plant);
+            return Math.abs(plant.d() / nominal.d())
+                    * norms.compute(loop.a(), loop.disturbance(), loop.performance())
+                            .value();
+        } catch (RuntimeException e) {
+            return null;
+        }
     }
 
     /** The perturbed loop; the step does not depend on d, so the case is built with the nominal d (d may be 0). */

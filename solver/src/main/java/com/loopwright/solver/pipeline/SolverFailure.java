@@ -44,6 +44,8 @@ public final class SolverFailure extends RuntimeException {
     public static final String SAMPLE_PERIOD = "samplePeriod";
 
     public static final String ACTUATOR_LIMIT = "actuatorLimit";
+    /** The sample period of a robust design (the request's robust.samplePeriod). */
+    public static final String ROBUST_SAMPLE_PERIOD = "robustSamplePeriod";
     /** Subject of a CAP_EXCEEDED failure of the robust design's target search (its evaluation caps). */
     public static final String ROBUST_SEARCH = "ROBUST_SEARCH";
 

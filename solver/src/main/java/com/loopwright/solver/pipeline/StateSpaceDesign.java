@@ -22,6 +22,8 @@ import org.ejml.data.DMatrixRMaj;
  * @param closedLoopPoles      eigenvalues of A - B2 K_x
  * @param controllabilityCondition cond_2 of C_x = [B2, A B2]; the caller-coordinate results may lose up to
  *                             log10 of it in digits ({@link com.loopwright.solver.plant.TwoStateModel#CONDITION_NOTE_THRESHOLD})
+ * @param loopLaw              the law of the loop with integral action and/or an observer in these coordinates, null
+ *                             when the design has no such loop
  */
 public record StateSpaceDesign(
         DMatrixRMaj transform,
@@ -32,7 +34,8 @@ public record StateSpaceDesign(
         double referenceGain,
         double relativeResidual,
         List<TargetDynamics.Pole> closedLoopPoles,
-        double controllabilityCondition) {
+        double controllabilityCondition,
+        CallerLoopLaw loopLaw) {
 
     public StateSpaceDesign {
         transform = transform.copy();
@@ -66,5 +69,20 @@ public record StateSpaceDesign(
     @Override
     public DMatrixRMaj trackedOutput() {
         return trackedOutput.copy();
+    }
+
+    /** The same design with the loop's law in these coordinates. */
+    public StateSpaceDesign withLoopLaw(CallerLoopLaw law) {
+        return new StateSpaceDesign(
+                transform,
+                p,
+                gain,
+                stateWeight,
+                trackedOutput,
+                referenceGain,
+                relativeResidual,
+                closedLoopPoles,
+                controllabilityCondition,
+                law);
     }
 }

@@ -26,19 +26,32 @@ public final class SampledStepMetrics {
      */
     public Optional<GridMetrics> measure(
             CanonicalPlant plant, FeedbackGains gains, double stepSize, double samplePeriod, double bandFraction) {
+        return trajectory(plant, gains, stepSize, samplePeriod)
+                .map(t -> GridMetrics.of(t, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize, bandFraction));
+    }
+
+    /**
+     * The sampled step itself (x1 observed at and between the samples, the held command) over the slow horizon, or
+     * empty in the cases {@link #measure} lists.
+     */
+    public Optional<DenseTrajectory> trajectory(
+            CanonicalPlant plant, FeedbackGains gains, double stepSize, double samplePeriod) {
         if (!LoopMatrices.stable(plant, gains)) {
             return Optional.empty();
         }
-        double horizon = RobustnessVerifier.SLOW_HORIZON_FACTOR * LoopMatrices.horizonSeconds(plant, gains);
+        double horizon = horizonSeconds(plant, gains);
         if (!(Math.ceil(horizon / samplePeriod) <= DelayedSampledStepSimulator.MAX_SAMPLE_INTERVALS)) {
             return Optional.empty();
         }
         try {
-            DenseTrajectory trajectory = simulator.simulate(plant, gains, stepSize, samplePeriod, 0, horizon);
-            return Optional.of(
-                    GridMetrics.of(trajectory, LoopMatrices.unitStepFinalValue(plant, gains) * stepSize, bandFraction));
+            return Optional.of(simulator.simulate(plant, gains, stepSize, samplePeriod, 0, horizon));
         } catch (IllegalArgumentException e) {
             return Optional.empty(); // the state overflowed: the sampled loop diverges
         }
+    }
+
+    /** The slow horizon the sampled step is observed over [s]: that of a verification (stable loop only). */
+    public static double horizonSeconds(CanonicalPlant plant, FeedbackGains gains) {
+        return RobustnessVerifier.SLOW_HORIZON_FACTOR * LoopMatrices.horizonSeconds(plant, gains);
     }
 }
