@@ -9,6 +9,7 @@ import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.compute.BatchItem;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.List;
@@ -60,6 +61,14 @@ final class BatchEnvelope {
             // The range was read once already by the same parser; it cannot fail now.
             throw new UncheckedIOException("a batch item could not be read again", e);
         }
+    }
+
+    /**
+     * Item {@code index} as its bytes, to be decoded without a tree, or null for an item that is not an object
+     * (given by {@link #item} instead).
+     */
+    BatchItem object(int index) {
+        return starts[index] < 0 ? null : new BatchItem(mapper, body, starts[index], ends[index] - starts[index]);
     }
 
     /**
