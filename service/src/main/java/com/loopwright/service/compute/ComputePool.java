@@ -29,8 +29,13 @@ import org.slf4j.MDC;
  * The bounded pool every design computation runs on: a fixed number of worker threads and a bounded queue.
  * A computation that cannot be queued is refused at once (503, back-pressure); one that does not finish by its
  * deadline is answered with 504 and cancelled: its worker is interrupted, and the solver's long loops stop at their
- * next cancellation checkpoint. Batch items share at most {@link #batchShare()} workers (ceil(workers/2)) across
- * all batches at any time, so that single requests always find the other workers.
+ * next cancellation checkpoint.
+ *
+ * <p>Batch items hold at most {@link #batchShare()} workers (ceil(workers/2)) across all batches at any time, so
+ * that single requests always find the other workers. Beyond that share, a short batch item (the caller says which)
+ * may borrow a worker, but only one that is idle while nothing waits in the queue: it starts at once, it never
+ * queues ahead of a single request, and a single request arriving later waits at most for one short item to end.
+ * The pool counts its claims (computations queued or running) itself, so that the borrow rule is one atomic step.
  */
 public final class ComputePool implements AutoCloseable {
 
@@ -45,6 +50,9 @@ public final class ComputePool implements AutoCloseable {
     private final int batchShare;
 
     private final Semaphore batchSlots;
+    /** Computations queued or running: counted from submission until they end or are cancelled unstarted. */
+    private final AtomicInteger claims = new AtomicInteger();
+
     private final Timings timings;
 
     /**
@@ -101,25 +109,36 @@ public final class ComputePool implements AutoCloseable {
      * resolved to the overloaded problem.
      */
     public <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem) {
-        return submit(computation, onProblem, deadlineFromNow(), () -> {});
+        claims.incrementAndGet();
+        return submit(computation, onProblem, deadlineFromNow(), once(claims::decrementAndGet));
     }
 
     /**
      * Queues one item of a batch under the batch's deadline (one deadline covers all its items) on one of the
-     * {@link #batchShare()} workers batches may hold. Without a free batch slot it returns null at once, or, with
-     * {@code waitForSlot}, waits for one up to the deadline. Past the deadline the item is not computed: the result
-     * is the deadline problem at once.
+     * {@link #batchShare()} workers batches may hold; without a free batch slot, a {@code shortItem} borrows an
+     * idle worker when one is idle and nothing is queued ({@link #borrowIdleWorker}). Otherwise it returns null at
+     * once, or, with {@code waitForSlot}, waits for a slot up to the deadline. Past the deadline the item is not
+     * computed: the result is the deadline problem at once.
      *
      * @param deadlineNanos the batch's deadline as a {@link System#nanoTime()} instant
+     * @param shortItem     true for an item whose estimate allows it to borrow a worker beyond the batch share
      */
     public <T> Pending<T> submitBatchItem(
-            Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos, boolean waitForSlot) {
+            Supplier<T> computation,
+            Function<Problem, T> onProblem,
+            long deadlineNanos,
+            boolean waitForSlot,
+            boolean shortItem) {
+        boolean slot = batchSlots.tryAcquire();
+        if (!slot && shortItem && borrowIdleWorker()) {
+            return submit(computation, onProblem, deadlineNanos, once(claims::decrementAndGet));
+        }
         long remainingNanos = deadlineNanos - System.nanoTime();
-        boolean slot;
         try {
-            slot = waitForSlot
-                    ? remainingNanos > 0 && batchSlots.tryAcquire(remainingNanos, TimeUnit.NANOSECONDS)
-                    : batchSlots.tryAcquire();
+            slot = slot
+                    || (waitForSlot
+                            && remainingNanos > 0
+                            && batchSlots.tryAcquire(remainingNanos, TimeUnit.NANOSECONDS));
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             return new Pending<>(
@@ -134,12 +153,36 @@ public final class ComputePool implements AutoCloseable {
             }
             return null;
         }
-        AtomicBoolean held = new AtomicBoolean(true);
-        return submit(computation, onProblem, deadlineNanos, () -> {
-            if (held.compareAndSet(true, false)) {
-                batchSlots.release();
+        claims.incrementAndGet();
+        return submit(computation, onProblem, deadlineNanos, once(() -> {
+            claims.decrementAndGet();
+            batchSlots.release();
+        }));
+    }
+
+    /**
+     * Claims a worker for a batch item beyond the batch share when fewer computations than workers are queued or
+     * running, that is when a worker is idle and no computation (single request or batch item) is queued; one
+     * atomic step, so two batches never borrow the same idle worker.
+     */
+    private boolean borrowIdleWorker() {
+        int workers = executor.getMaximumPoolSize();
+        for (int claimed = claims.get(); claimed < workers; claimed = claims.get()) {
+            if (claims.compareAndSet(claimed, claimed + 1)) {
+                return true;
             }
-        });
+        }
+        return false;
+    }
+
+    /** Runs {@code release} the first time only (a task cancelled as it starts may reach both release points). */
+    private static Runnable once(Runnable release) {
+        AtomicBoolean pending = new AtomicBoolean(true);
+        return () -> {
+            if (pending.compareAndSet(true, false)) {
+                release.run();
+            }
+        };
     }
 
     /**
