@@ -11,6 +11,7 @@ import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
 import com.loopwright.service.compute.BatchItem;
+import com.loopwright.service.compute.BatchLane;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.compute.Designs;
 import com.loopwright.service.http.JsonBodies;
@@ -35,7 +36,8 @@ import java.util.function.Supplier;
  * batch: items not finished by then are 504 lines and their computations are cancelled. Items are computed on the
  * bounded pool, on the {@link ComputePool#batchShare()} workers all batches share (so that single requests keep
  * the other workers) and, for an item estimated at most {@link #BORROW_MAX_WORK_UNITS}, on any worker that is idle
- * while no request waits; they are written in order;
+ * while no request waits; a worker the batch holds takes the batch's next item from its {@link BatchLane} while no
+ * request waits (no hand-off between items). Lines are written in order;
  * when the next line is not ready within {@value #FLUSH_DELAY_MILLIS} ms the stream is flushed, so no finished line
  * waits longer than that for a later design (and a batch of fast designs goes out in full buffers, not one write per
  * line). The envelope is read as a stream ({@link BatchEnvelope}); each item becomes a tree once, one at a time,
@@ -48,8 +50,9 @@ public final class BatchRoute implements Handler {
     public static final String PATH = "/v1/designs/batch";
     public static final String MEDIA_TYPE = "application/x-ndjson";
     /**
-     * Items of one batch computing at the same time: at most one per design worker, and at most this many. Bounds
-     * the memory of a batch to this many responses in flight besides the request body.
+     * Items of one batch in flight (computing, or waiting in its lane): {@link #ITEMS_IN_FLIGHT_PER_WORKER} per
+     * design worker, and at most this many. Bounds the memory of a batch to this many responses in flight besides
+     * the request body.
      */
     public static final int MAX_ITEMS_IN_FLIGHT = 16;
     /**
@@ -58,6 +61,12 @@ public final class BatchRoute implements Handler {
      * at most for one such item.
      */
     public static final long BORROW_MAX_WORK_UNITS = ComputeBudget.DESIGN_UNITS + ComputeBudget.VERIFY_UNITS;
+
+    /**
+     * Items of one batch in flight (computing, or waiting in its lane for a worker it holds) per design worker, so
+     * that a worker finishing an item finds the next one without waiting for the stream's writer.
+     */
+    public static final int ITEMS_IN_FLIGHT_PER_WORKER = 2;
 
     /** Longest a finished line waits in the buffer for the next design before the stream is flushed [ms]. */
     public static final int FLUSH_DELAY_MILLIS = 2;
@@ -140,32 +149,32 @@ public final class BatchRoute implements Handler {
         ctx.status(200).contentType(MEDIA_TYPE);
         // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
         OutputStream out = ctx.res().getOutputStream();
-        int window = Math.min(pool.workerThreads(), MAX_ITEMS_IN_FLIGHT);
+        int window = Math.min(ITEMS_IN_FLIGHT_PER_WORKER * pool.workerThreads(), MAX_ITEMS_IN_FLIGHT);
         Deque<ComputePool.Pending<Reply>> inFlight = new ArrayDeque<>(window);
+        BatchLane<Reply> lane = pool.batchLane(Reply::failure, deadlineNanos);
         int next = 0;
         StreamCuts.Stream stream = cuts.open();
         try {
             for (int index = 0; index < count; index++) {
-                // Keep up to `window` items of this batch on the pool, each on a free batch slot or, for a short
-                // item, on a worker it borrows while the worker is idle and no request waits (ComputePool).
+                // Keep up to `window` items of this batch in its lane; the workers the batch holds (slots of the
+                // batch share, and for short items idle workers borrowed while no request waits) compute them
+                // one after another without waiting for this thread (BatchLane).
                 while (next < count && inFlight.size() < window) {
-                    ComputePool.Pending<Reply> pending = pool.submitBatchItem(
-                            computation(items, next),
-                            Reply::failure,
-                            deadlineNanos,
-                            inFlight.isEmpty(),
-                            itemUnits[next] <= BORROW_MAX_WORK_UNITS);
-                    if (pending == null
-                            || (pending.refused() && !inFlight.isEmpty() && deadlineNanos - System.nanoTime() > 0)) {
-                        break; // no slot or a full pool: submit this item again once our oldest one is written
-                    }
-                    inFlight.addLast(pending);
+                    inFlight.addLast(lane.add(computation(items, next), itemUnits[next] <= BORROW_MAX_WORK_UNITS));
                     next++;
                 }
                 ComputePool.Pending<Reply> oldest = inFlight.removeFirst();
                 stream.waitingFor(oldest::cancel); // a shutdown cut cancels it, so the wait ends in time
+                lane.serve(0);
                 if (!oldest.awaitDone(FLUSH_DELAY_NANOS)) {
                     out.flush(); // never wait longer than the flush delay with finished lines unsent
+                    // Until it is done, keep the lane served: a worker given back for a queued request is asked
+                    // for again, and with none held the lane waits for a slot of the share, a flush delay at a time.
+                    do {
+                        lane.serve(FLUSH_DELAY_NANOS);
+                    } while (!oldest.awaitDone(FLUSH_DELAY_NANOS)
+                            && deadlineNanos - System.nanoTime() > 0
+                            && !Thread.currentThread().isInterrupted());
                 }
                 Reply outcome = oldest.await();
                 if (stream.isCut()) {

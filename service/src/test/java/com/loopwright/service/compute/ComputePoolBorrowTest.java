@@ -1,9 +1,6 @@
 package com.loopwright.service.compute;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertFalse;
-import static org.junit.jupiter.api.Assertions.assertNotNull;
-import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.api.problem.Problem;
@@ -14,9 +11,11 @@ import java.util.function.Supplier;
 import org.junit.jupiter.api.Test;
 
 /**
- * The batch share and the borrow rule of {@link ComputePool} (the rule as documented in openapi.yaml: batches hold
- * at most ceil(workers/2) workers; a short item may take a worker beyond that only while the worker is idle and no
- * request waits). Every computation is held at its own latch, so the order of events is fixed without timing.
+ * The batch share and the borrow rule of {@link ComputePool} with {@link BatchLane} (the rule as documented in
+ * openapi.yaml: batches hold ceil(workers/2) workers; a short item may take a worker beyond that only while the
+ * worker is idle and no request waits, and a worker a batch holds goes on with the batch's next item only while
+ * nothing is queued). Every computation is held at its own latch, so the order of events is fixed without timing:
+ * a computation that has not started while both workers are held cannot have started.
  */
 class ComputePoolBorrowTest {
 
@@ -40,6 +39,7 @@ class ComputePoolBorrowTest {
                 release.await(WAIT_SECONDS, TimeUnit.SECONDS);
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
+                return name + " interrupted";
             }
             return name;
         }
@@ -47,58 +47,67 @@ class ComputePoolBorrowTest {
         boolean hasStarted() throws InterruptedException {
             return started.await(WAIT_SECONDS, TimeUnit.SECONDS);
         }
-    }
 
-    private static long deadline(ComputePool pool) {
-        return pool.deadlineFromNow();
+        boolean notStarted() {
+            return started.getCount() == 1;
+        }
     }
 
     @Test
-    void aLoneBatchOfShortItemsComputesOnEveryWorker() throws Exception {
+    void aLoneBatchOfShortItemsComputesOnEveryWorkerAndChainsItsItems() throws Exception {
         try (ComputePool pool = new ComputePool(2, 4, 30_000)) {
             assertEquals(1, pool.batchShare(), "ceil(2/2)");
-            long deadline = deadline(pool);
+            BatchLane<String> lane = pool.batchLane(PROBLEM, pool.deadlineFromNow());
             Held first = new Held("first");
             Held second = new Held("second");
-            var onShare = pool.submitBatchItem(first, PROBLEM, deadline, true, true);
+            Held third = new Held("third");
+            var firstReply = lane.add(first, true);
+            var secondReply = lane.add(second, true);
+            var thirdReply = lane.add(third, true);
+            lane.serve(0);
+            assertEquals(2, lane.workersHeld(), "a slot of the share and the idle second worker, borrowed");
+            // Both items are computing at once: each started while the other is still held.
             assertTrue(first.hasStarted());
-            var borrowed = pool.submitBatchItem(second, PROBLEM, deadline, false, true);
-            assertNotNull(borrowed, "the idle second worker is borrowed");
-            // Both items are computing at once: the second started while the first is still held.
             assertTrue(second.hasStarted());
-            assertEquals(1, first.release.getCount(), "the first item is still computing");
-            assertNull(
-                    pool.submitBatchItem(new Held("third"), PROBLEM, deadline, false, true),
-                    "no slot and no idle worker: the third item waits for the batch's own oldest");
+            assertTrue(third.notStarted(), "both workers are held: the third item waits in the lane");
+            // The worker that ends the first item goes on with the third itself (nothing is queued).
             first.release.countDown();
+            assertEquals("first", firstReply.await());
+            assertTrue(third.hasStarted(), "the third item was taken by a worker the batch holds");
+            assertEquals(0, pool.queuedDesigns());
             second.release.countDown();
-            assertEquals("first", onShare.await());
-            assertEquals("second", borrowed.await());
+            third.release.countDown();
+            assertEquals("second", secondReply.await());
+            assertEquals("third", thirdReply.await());
         }
     }
 
     @Test
     void anItemThatIsNotShortNeverBorrows() throws Exception {
         try (ComputePool pool = new ComputePool(2, 4, 30_000)) {
-            long deadline = deadline(pool);
+            BatchLane<String> lane = pool.batchLane(PROBLEM, pool.deadlineFromNow());
             Held first = new Held("first");
-            var onShare = pool.submitBatchItem(first, PROBLEM, deadline, true, false);
+            Held second = new Held("long");
+            var firstReply = lane.add(first, false);
+            var secondReply = lane.add(second, false);
+            lane.serve(0);
             assertTrue(first.hasStarted());
-            assertNull(
-                    pool.submitBatchItem(new Held("long"), PROBLEM, deadline, false, false),
-                    "a worker is idle, but an item that is not short keeps to the batch share");
+            assertEquals(1, lane.workersHeld(), "a worker is idle, but an item that is not short keeps to the share");
+            assertTrue(second.notStarted());
             first.release.countDown();
-            assertEquals("first", onShare.await());
+            second.release.countDown();
+            assertEquals("first", firstReply.await());
+            assertEquals("long", secondReply.await(), "computed after the first, on the share");
         }
     }
 
     @Test
     void aSingleRequestGetsAWorkerWhileABatchRuns() throws Exception {
         try (ComputePool pool = new ComputePool(2, 4, 30_000)) {
-            long deadline = deadline(pool);
-            // The batch holds its share.
+            BatchLane<String> lane = pool.batchLane(PROBLEM, pool.deadlineFromNow());
             Held batchItem = new Held("batch");
-            var onShare = pool.submitBatchItem(batchItem, PROBLEM, deadline, true, true);
+            var batchReply = lane.add(batchItem, false);
+            lane.serve(0);
             assertTrue(batchItem.hasStarted());
             // A single request finds the other worker at once.
             Held single = new Held("single");
@@ -108,84 +117,83 @@ class ComputePoolBorrowTest {
             single.release.countDown();
             batchItem.release.countDown();
             assertEquals("single", singleReply.await());
-            assertEquals("batch", onShare.await());
+            assertEquals("batch", batchReply.await());
         }
     }
 
     @Test
-    void aWaitingSingleRequestGoesBeforeAnyBorrow() throws Exception {
+    void aWaitingSingleRequestGoesBeforeTheBatchsNextItem() throws Exception {
         try (ComputePool pool = new ComputePool(2, 4, 30_000)) {
-            long deadline = deadline(pool);
-            // A lone batch holds both workers: one on its share, one borrowed while it was idle.
-            Held onShare = new Held("share");
-            Held borrowed = new Held("borrowed");
-            var shareReply = pool.submitBatchItem(onShare, PROBLEM, deadline, true, true);
-            assertTrue(onShare.hasStarted());
-            var borrowedReply = pool.submitBatchItem(borrowed, PROBLEM, deadline, false, true);
-            assertNotNull(borrowedReply);
-            assertTrue(borrowed.hasStarted());
-            // A single request arrives: it is queued, and while it waits no batch item may borrow.
+            // A lone batch holds both workers (one on its share, one borrowed while it was idle).
+            BatchLane<String> lane = pool.batchLane(PROBLEM, pool.deadlineFromNow());
+            Held a = new Held("a");
+            Held b = new Held("b");
+            Held next = new Held("next");
+            var aReply = lane.add(a, true);
+            var bReply = lane.add(b, true);
+            var nextReply = lane.add(next, true);
+            lane.serve(0);
+            assertTrue(a.hasStarted());
+            assertTrue(b.hasStarted());
+            // A single request arrives: it is queued.
             Held single = new Held("single");
             var singleReply = pool.submit(single, PROBLEM);
             assertEquals(1, pool.queuedDesigns(), "the single request waits in the queue");
-            assertNull(
-                    pool.submitBatchItem(new Held("next"), PROBLEM, deadline, false, true),
-                    "no borrow while a request waits");
-            // The borrowed worker frees: it takes the single request, not a batch item.
-            borrowed.release.countDown();
-            assertEquals("borrowed", borrowedReply.await());
+            // One of the batch's workers ends its item: the single request gets that worker, not the batch's next
+            // item (were it the other way round, the single request would not start while `a` is held).
+            b.release.countDown();
+            assertEquals("b", bReply.await());
             assertTrue(single.hasStarted(), "the single request got the freed worker");
-            assertEquals(1, onShare.release.getCount(), "while the batch's share item still computes");
-            assertNull(
-                    pool.submitBatchItem(new Held("next"), PROBLEM, deadline, false, true),
-                    "both workers busy: still no borrow");
+            lane.serve(0);
+            assertTrue(next.notStarted(), "the batch's next item waits: both workers are held");
+            assertEquals(1, a.release.getCount());
+            // The single request ends: the batch's next item gets a worker (its share, or the idle worker).
             single.release.countDown();
-            onShare.release.countDown();
             assertEquals("single", singleReply.await());
-            assertEquals("share", shareReply.await());
-            // Everything ended: the claims are back to zero, so a short item may borrow again.
-            Held again = new Held("again");
-            var share = pool.submitBatchItem(again, PROBLEM, deadline, true, true);
-            Held beyond = new Held("beyond");
-            var borrowedAgain = pool.submitBatchItem(beyond, PROBLEM, deadline, false, true);
-            assertNotNull(borrowedAgain, "every claim was given back");
-            assertTrue(beyond.hasStarted());
-            again.release.countDown();
-            beyond.release.countDown();
-            assertEquals("again", share.await());
-            assertEquals("beyond", borrowedAgain.await());
+            for (int i = 0; i < 1000 && next.notStarted(); i++) {
+                lane.serve(0); // the single request's claim is given back as its worker ends it
+                Thread.sleep(1);
+            }
+            assertTrue(next.hasStarted(), "the batch's next item got a worker once no request waited");
+            assertEquals(1, a.release.getCount(), "while `a` still computes");
+            a.release.countDown();
+            next.release.countDown();
+            assertEquals("a", aReply.await());
+            assertEquals("next", nextReply.await());
         }
     }
 
     @Test
-    void aBorrowedItemCancelledAtItsDeadlineGivesItsWorkerBack() throws Exception {
+    void itemsPastTheDeadlineAreCancelledAndTheWorkersGivenBack() throws Exception {
         try (ComputePool pool = new ComputePool(2, 4, 30_000)) {
-            Held onShare = new Held("share");
-            var shareReply = pool.submitBatchItem(onShare, PROBLEM, deadline(pool), true, true);
-            assertTrue(onShare.hasStarted());
-            Held late = new Held("late");
-            var borrowed = pool.submitBatchItem(late, PROBLEM, System.nanoTime() + 50_000_000L, false, true);
-            assertNotNull(borrowed);
-            assertTrue(late.hasStarted());
-            String reply = borrowed.await(); // past its deadline: cancelled, the worker interrupted
-            assertTrue(reply.startsWith("problem:"), reply);
-            // The cancelled item gave its claim back once its worker stopped: the idle worker may be borrowed.
-            Held next = new Held("next");
-            ComputePool.Pending<String> again = null;
-            for (int i = 0; i < 1000 && again == null; i++) {
-                again = pool.submitBatchItem(next, PROBLEM, deadline(pool), false, true);
-                if (again == null) {
-                    Thread.onSpinWait();
-                    Thread.sleep(1);
-                }
+            BatchLane<String> lane = pool.batchLane(PROBLEM, System.nanoTime() + 100_000_000L);
+            Held running = new Held("running");
+            Held waiting = new Held("waiting");
+            Held other = new Held("other");
+            var runningReply = lane.add(running, false);
+            var waitingReply = lane.add(waiting, false);
+            lane.serve(0);
+            assertTrue(running.hasStarted());
+            // Past the deadline: the running item is interrupted, the waiting one never starts.
+            assertTrue(runningReply.await().startsWith("problem:"));
+            assertTrue(waitingReply.await().startsWith("problem:"));
+            assertTrue(waiting.notStarted());
+            // Every claim was given back: a new batch gets both workers again.
+            BatchLane<String> again = pool.batchLane(PROBLEM, pool.deadlineFromNow());
+            Held first = new Held("first");
+            var firstReply = again.add(first, true);
+            var otherReply = again.add(other, true);
+            for (int i = 0; i < 1000 && again.workersHeld() < 2; i++) {
+                again.serve(0); // the cancelled item's worker is given back once it has stopped
+                Thread.sleep(1);
             }
-            assertNotNull(again, "the claim of the cancelled item was released");
-            assertTrue(next.hasStarted());
-            assertFalse(next.release.getCount() == 0);
-            next.release.countDown();
-            onShare.release.countDown();
-            assertEquals("next", again.await());
-            assertEquals("share", shareReply.await());
+            assertEquals(2, again.workersHeld());
+            assertTrue(first.hasStarted());
+            assertTrue(other.hasStarted());
+            first.release.countDown();
+            other.release.countDown();
+            assertEquals("first", firstReply.await());
+            assertEquals("other", otherReply.await());
         }
     }
 }
