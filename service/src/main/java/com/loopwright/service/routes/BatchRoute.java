@@ -50,9 +50,9 @@ public final class BatchRoute implements Handler {
     public static final String PATH = "/v1/designs/batch";
     public static final String MEDIA_TYPE = "application/x-ndjson";
     /**
-     * Items of one batch in flight (computing, or waiting in its lane): {@link #ITEMS_IN_FLIGHT_PER_WORKER} per
-     * design worker, and at most this many. Bounds the memory of a batch to this many responses in flight besides
-     * the request body.
+     * Items of one batch in flight (computing, or waiting in its lane for a worker the batch holds), so that a
+     * worker finishing an item finds the next one without waiting for the stream's writer. Bounds the memory of a
+     * batch to this many responses in flight besides the request body.
      */
     public static final int MAX_ITEMS_IN_FLIGHT = 16;
     /**
@@ -61,12 +61,6 @@ public final class BatchRoute implements Handler {
      * at most for one such item.
      */
     public static final long BORROW_MAX_WORK_UNITS = ComputeBudget.DESIGN_UNITS + ComputeBudget.VERIFY_UNITS;
-
-    /**
-     * Items of one batch in flight (computing, or waiting in its lane for a worker it holds) per design worker, so
-     * that a worker finishing an item finds the next one without waiting for the stream's writer.
-     */
-    public static final int ITEMS_IN_FLIGHT_PER_WORKER = 2;
 
     /** Longest a finished line waits in the buffer for the next design before the stream is flushed [ms]. */
     public static final int FLUSH_DELAY_MILLIS = 2;
@@ -149,7 +143,7 @@ public final class BatchRoute implements Handler {
         ctx.status(200).contentType(MEDIA_TYPE);
         // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
         OutputStream out = ctx.res().getOutputStream();
-        int window = Math.min(ITEMS_IN_FLIGHT_PER_WORKER * pool.workerThreads(), MAX_ITEMS_IN_FLIGHT);
+        int window = MAX_ITEMS_IN_FLIGHT;
         Deque<ComputePool.Pending<Reply>> inFlight = new ArrayDeque<>(window);
         BatchLane<Reply> lane = pool.batchLane(Reply::failure, deadlineNanos);
         int next = 0;
