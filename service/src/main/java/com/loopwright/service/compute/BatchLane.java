@@ -2,6 +2,7 @@ package com.loopwright.service.compute;
 
 import com.loopwright.api.problem.Problem;
 import java.util.ArrayDeque;
+import java.util.concurrent.TimeUnit;
 import java.util.function.Function;
 import java.util.function.Supplier;
 
@@ -16,6 +17,9 @@ import java.util.function.Supplier;
  */
 public final class BatchLane<T> {
 
+    /** Longest wait for a slot of the share before the awaited item is looked at again [ns]. */
+    private static final long SLOT_WAIT_STEP_NANOS = 50_000_000L;
+
     private final ComputePool pool;
     private final Function<Problem, T> onProblem;
     private final long deadlineNanos;
@@ -26,6 +30,8 @@ public final class BatchLane<T> {
     private int workers;
     /** Of those, workers started that have not yet taken their first item. Guarded by this. */
     private int starting;
+    /** The item the writer is waiting for, if it is waiting. Guarded by this. */
+    private java.util.concurrent.Future<?> awaited;
 
     private record Item<T>(ComputePool.Task<T> task, boolean shortItem) {}
 
@@ -45,7 +51,8 @@ public final class BatchLane<T> {
         if (deadlineNanos - System.nanoTime() <= 0) {
             return pool.new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(pool.deadlineProblem()));
         }
-        ComputePool.Task<T> task = pool.task(computation, () -> {}); // the worker's claim is the lane's to give back
+        // The worker's claim is the lane's to give back; the writer waiting for this item is woken when it ends.
+        ComputePool.Task<T> task = pool.task(computation, () -> {}, this::ended);
         synchronized (this) {
             waiting.addLast(new Item<>(task, shortItem));
         }
@@ -93,6 +100,52 @@ public final class BatchLane<T> {
         }
     }
 
+    /**
+     * Waits up to {@code nanos} (never past the deadline) for {@code item}, an item of this lane, to end; returns
+     * whether it has. Woken when the item ends (computed, failed, cancelled by a cut or refused) and when the lane
+     * has items waiting but its last worker was given back: it then asks for a worker ({@link #serve}), waiting for
+     * a slot of the share within the same time.
+     */
+    public boolean awaitDone(ComputePool.Pending<T> item, long nanos) {
+        long endNanos = System.nanoTime() + Math.min(nanos, deadlineNanos - System.nanoTime());
+        while (true) {
+            synchronized (this) {
+                awaited = item.future();
+                try {
+                    while (!item.isDone() && (workers > 0 || waiting.isEmpty())) {
+                        long leftNanos = endNanos - System.nanoTime();
+                        if (leftNanos <= 0) {
+                            return false;
+                        }
+                        TimeUnit.NANOSECONDS.timedWait(this, leftNanos);
+                    }
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    return item.isDone();
+                } finally {
+                    awaited = null;
+                }
+                if (item.isDone()) {
+                    return true;
+                }
+            }
+            long leftNanos = endNanos - System.nanoTime();
+            if (leftNanos <= 0) {
+                return false;
+            }
+            // Items wait and the batch holds no worker: ask for one, waiting for a slot of the share at most a
+            // step at a time so that an item cancelled meanwhile (a shutdown cut) ends this wait soon.
+            serve(Math.min(leftNanos, SLOT_WAIT_STEP_NANOS));
+        }
+    }
+
+    /** A task of this lane has ended: wake the writer if it waits for that one. */
+    private synchronized void ended(java.util.concurrent.Future<?> task) {
+        if (task == awaited) {
+            notifyAll();
+        }
+    }
+
     /** Workers this batch holds now (for tests). */
     synchronized int workersHeld() {
         return workers;
@@ -131,7 +184,7 @@ public final class BatchLane<T> {
         } finally {
             if (holding) {
                 synchronized (this) {
-                    workers--;
+                    givenBack();
                 }
             }
             pool.release(grant);
@@ -147,7 +200,7 @@ public final class BatchLane<T> {
                 && deadlineNanos - System.nanoTime() > 0) {
             return waiting.pollFirst();
         }
-        workers--;
+        givenBack();
         return null;
     }
 
@@ -157,7 +210,15 @@ public final class BatchLane<T> {
         if (head != null && pool.mayContinue(grant, head.shortItem(), deadlineNanos)) {
             return waiting.pollFirst();
         }
-        workers--;
+        givenBack();
         return null;
+    }
+
+    /** A worker is given back; with none left while items wait, the writer must ask for one again. */
+    private void givenBack() {
+        workers--;
+        if (workers == 0 && !waiting.isEmpty() && awaited != null) {
+            notifyAll();
+        }
     }
 }

@@ -18,6 +18,7 @@ import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.Consumer;
 import java.util.function.Function;
 import java.util.function.LongConsumer;
 import java.util.function.Supplier;
@@ -203,7 +204,7 @@ public final class ComputePool implements AutoCloseable {
             release.run();
             return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(deadlineProblem()));
         }
-        Task<T> task = task(computation, release);
+        Task<T> task = task(computation, release, ended -> {});
         if (execute(task)) {
             return new Pending<>(task, deadlineNanos, onProblem, null);
         }
@@ -216,8 +217,9 @@ public final class ComputePool implements AutoCloseable {
      * worker and reports its timings.
      *
      * @param release runs once the computation has ended or was cancelled before it started
+     * @param ended   sees the task once its result is set (computed, failed, cancelled or refused)
      */
-    <T> Task<T> task(Supplier<T> computation, Runnable release) {
+    <T> Task<T> task(Supplier<T> computation, Runnable release, Consumer<Future<?>> ended) {
         // The request id follows the computation onto the worker thread (the only diagnostic context the service
         // sets; carrying one string avoids copying the whole context map per computation).
         String requestId = MDC.get(RequestIds.MDC_KEY);
@@ -243,6 +245,7 @@ public final class ComputePool implements AutoCloseable {
                 if (!started.get()) {
                     release.run(); // cancelled while queued: the computation never runs
                 }
+                ended.accept(this);
             }
         };
     }
@@ -282,6 +285,16 @@ public final class ComputePool implements AutoCloseable {
             this.deadlineNanos = deadlineNanos;
             this.onProblem = onProblem;
             this.refused = refused;
+        }
+
+        /** True once {@link #await} returns without waiting. */
+        boolean isDone() {
+            return future == null || future.isDone();
+        }
+
+        /** The computation's future (null when it was never queued). */
+        Future<T> future() {
+            return future;
         }
 
         /**

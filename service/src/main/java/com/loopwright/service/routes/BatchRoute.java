@@ -160,15 +160,11 @@ public final class BatchRoute implements Handler {
                 ComputePool.Pending<Reply> oldest = inFlight.removeFirst();
                 stream.waitingFor(oldest::cancel); // a shutdown cut cancels it, so the wait ends in time
                 lane.serve(0);
-                if (!oldest.awaitDone(FLUSH_DELAY_NANOS)) {
+                if (!lane.awaitDone(oldest, FLUSH_DELAY_NANOS)) {
                     out.flush(); // never wait longer than the flush delay with finished lines unsent
-                    // Until it is done, keep the lane served: a worker given back for a queued request is asked
-                    // for again, and with none held the lane waits for a slot of the share, a flush delay at a time.
-                    do {
-                        lane.serve(FLUSH_DELAY_NANOS);
-                    } while (!oldest.awaitDone(FLUSH_DELAY_NANOS)
-                            && deadlineNanos - System.nanoTime() > 0
-                            && !Thread.currentThread().isInterrupted());
+                    // Until it is done or the deadline: the lane wakes this thread when the item ends, and asks for
+                    // a worker again when the batch's last one was given back for a queued request.
+                    lane.awaitDone(oldest, deadlineNanos - System.nanoTime());
                 }
                 Reply outcome = oldest.await();
                 if (stream.isCut()) {

@@ -164,6 +164,37 @@ class ComputePoolBorrowTest {
     }
 
     @Test
+    void aWriterWaitingForItsItemGetsAWorkerBackAfterAQueuedRequest() throws Exception {
+        try (ComputePool pool = new ComputePool(1, 4, 30_000)) {
+            BatchLane<String> lane = pool.batchLane(PROBLEM, pool.deadlineFromNow());
+            Held a = new Held("a");
+            Held b = new Held("b");
+            var aReply = lane.add(a, true);
+            var bReply = lane.add(b, true);
+            lane.serve(0);
+            assertTrue(a.hasStarted());
+            Held single = new Held("single");
+            var singleReply = pool.submit(single, PROBLEM);
+            // The stream's writer waits for `b` (as BatchRoute does, on the lane).
+            var writer =
+                    java.util.concurrent.CompletableFuture.supplyAsync(() -> lane.awaitDone(bReply, 30_000_000_000L));
+            // `a` ends: its worker goes to the queued single request, and the lane holds no worker any more.
+            a.release.countDown();
+            assertTrue(single.hasStarted(), "the queued single request went first");
+            assertTrue(b.notStarted());
+            // The single request ends: the waiting writer, woken when its lane's last worker was given back, has
+            // asked for a slot of the share again, so `b` is computed without any other call.
+            single.release.countDown();
+            assertTrue(b.hasStarted(), "the writer got the batch a worker again");
+            b.release.countDown();
+            assertTrue(writer.get(WAIT_SECONDS, TimeUnit.SECONDS));
+            assertEquals("a", aReply.await());
+            assertEquals("single", singleReply.await());
+            assertEquals("b", bReply.await());
+        }
+    }
+
+    @Test
     void itemsPastTheDeadlineAreCancelledAndTheWorkersGivenBack() throws Exception {
         try (ComputePool pool = new ComputePool(2, 4, 30_000)) {
             BatchLane<String> lane = pool.batchLane(PROBLEM, System.nanoTime() + 100_000_000L);
