@@ -2,6 +2,7 @@ package com.loopwright.service.compute;
 
 import com.loopwright.api.problem.Problem;
 import java.util.ArrayDeque;
+import java.util.concurrent.Future;
 import java.util.concurrent.TimeUnit;
 import java.util.function.Function;
 import java.util.function.Supplier;
@@ -31,7 +32,7 @@ public final class BatchLane<T> {
     /** Of those, workers started that have not yet taken their first item. Guarded by this. */
     private int starting;
     /** The item the writer is waiting for, if it is waiting. Guarded by this. */
-    private java.util.concurrent.Future<?> awaited;
+    private Future<?> awaited;
 
     private record Item<T>(ComputePool.Task<T> task, boolean shortItem) {}
 
@@ -140,7 +141,7 @@ public final class BatchLane<T> {
     }
 
     /** A task of this lane has ended: wake the writer if it waits for that one. */
-    private synchronized void ended(java.util.concurrent.Future<?> task) {
+    private synchronized void ended(Future<?> task) {
         if (task == awaited) {
             notifyAll();
         }

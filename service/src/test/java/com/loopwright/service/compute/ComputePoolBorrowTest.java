@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.loopwright.api.problem.Problem;
+import java.util.concurrent.CompletableFuture;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import java.util.function.Function;
@@ -176,8 +177,7 @@ class ComputePoolBorrowTest {
             Held single = new Held("single");
             var singleReply = pool.submit(single, PROBLEM);
             // The stream's writer waits for `b` (as BatchRoute does, on the lane).
-            var writer =
-                    java.util.concurrent.CompletableFuture.supplyAsync(() -> lane.awaitDone(bReply, 30_000_000_000L));
+            var writer = CompletableFuture.supplyAsync(() -> lane.awaitDone(bReply, 30_000_000_000L));
             // `a` ends: its worker goes to the queued single request, and the lane holds no worker any more.
             a.release.countDown();
             assertTrue(single.hasStarted(), "the queued single request went first");
