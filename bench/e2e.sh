@@ -154,8 +154,9 @@ in_process() { # THREADS SCENARIOS NAME
     | grep '^RESULT' | sed "s/^RESULT/$3/"
 }
 one_core=$(in_process 1 readme in_process_one_core); echo "$one_core"
-# 2. The in-process limit of the batch: the six scenarios on two threads (and on one: the batch computes on at most
-# ceil(workers/2) design workers, ComputePool.batchShare, which is one worker on two cores).
+# 2. The in-process limit of the batch: the six scenarios on two threads (and on one, for comparison: batches share
+# ceil(workers/2) design workers, ComputePool.batchShare, one on two cores; short items such as these six designs may
+# also borrow a worker that is idle while no request waits, so a lone batch can use both).
 two_threads=$(in_process 2 all in_process_two_threads); echo "$two_threads"
 one_thread=$(in_process 1 all in_process_one_thread); echo "$one_thread"
 
@@ -276,7 +277,7 @@ BEGIN {
     b * items, items, bp99, bc / items
   printf "in-process: two threads %.0f designs/s (%.1f us CPU per design), one thread %.0f designs/s; one core %.1f us CPU per README design\n",
     two, two_cpu, one, one_cpu
-  if (b != "") printf "batch / in-process on one thread (the batch share of the design workers on 2 cores): %.2f x\n",
+  if (b != "") printf "batch / in-process on one thread (the batch share of the design workers on 2 cores, before borrowing): %.2f x\n",
     b * items / one
   if (s_cpu != "") printf "reference script: %.0f us CPU per design (Riccati %.0f us, step and metrics %.0f us)\n",
     s_cpu, s_ric, s_step

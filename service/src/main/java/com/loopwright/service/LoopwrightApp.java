@@ -406,5 +406,15 @@ public final class LoopwrightApp {
                 throw e;
             }
         }
+
+        @Override
+        public com.loopwright.api.endpoint.Reply design(com.loopwright.service.compute.BatchItem item) {
+            try {
+                return designs.design(item);
+            } catch (OutOfMemoryError e) {
+                fatal.check(e);
+                throw e;
+            }
+        }
     }
 }

@@ -20,6 +20,15 @@ class BatchWindowContractTest {
     }
 
     @Test
+    void theDocumentedBorrowLimitIsTheCodes() throws Exception {
+        String borrow = "estimated at most " + BatchRoute.BORROW_MAX_WORK_UNITS + " work units";
+        for (String file : new String[] {"openapi.yaml", "README.md", "docs/limits-and-budgets.md"}) {
+            String text = Files.readString(Path.of("..", file)).replaceAll("\\s+", " ");
+            assertTrue(text.contains(borrow), file + " must state which batch items may borrow a worker: " + borrow);
+        }
+    }
+
+    @Test
     void theDocumentedWorkCapAndCostModelAreTheCodes() throws Exception {
         String contract = Files.readString(Path.of("..", "openapi.yaml")).replaceAll("\\s+", " ");
         String limits =

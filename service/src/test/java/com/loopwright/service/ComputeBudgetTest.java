@@ -139,7 +139,12 @@ class ComputeBudgetTest {
             for (int i = 0; i < 200 && designs.interrupted.get() == 0; i++) {
                 Thread.sleep(10);
             }
-            assertEquals(1, designs.interrupted.get(), "the item running at the deadline was interrupted");
+            // Short items of a lone batch run on both workers (one on the batch share, one borrowed), so one or
+            // two items are running at the deadline; each of them is interrupted, no other.
+            int interrupted = designs.interrupted.get();
+            assertTrue(
+                    interrupted >= 1 && interrupted <= 2,
+                    "the items running at the deadline were interrupted: " + interrupted);
         }
     }
 
@@ -191,6 +196,12 @@ class ComputeBudgetTest {
                 10 + 10 + 16 + 2000 + 200 + 40 + 700 + 500 + 700 + 50,
                 budget.designUnits(mapper.readTree(EVERY_CHECK)));
         assertEquals(10, budget.designUnits(mapper.readTree(DesignClient.INDEXING_AXIS)));
+        // The batch estimate hands each item's own estimate back (the batch route's borrow rule reads it).
+        List<JsonNode> batch = List.of(mapper.readTree(DesignClient.INDEXING_AXIS), mapper.readTree(EVERY_CHECK));
+        long[] itemUnits = new long[2];
+        assertEquals(null, budget.refuseBatch(2, batch::get, itemUnits), "4236 units are within the cap");
+        assertEquals(10, itemUnits[0]);
+        assertEquals(10 + 10 + 16 + 2000 + 200 + 40 + 700 + 500 + 700 + 50, itemUnits[1]);
         List<String> hostile = new ArrayList<>(List.of(
                 "{\"verify\":{\"uncertainty\":{\"monteCarloSamples\":1e300}}}",
                 "{\"verify\":{\"uncertainty\":{\"monteCarloSamples\":\"many\"}}}",

@@ -190,12 +190,23 @@ class ComputeLimitsTest {
         assertEquals(200, held.get(30, TimeUnit.SECONDS).status(), "the in-flight design still completed");
     }
 
+    /**
+     * The indexing axis with a verify object and an uncertainty box: 10 + 10 + 16 = 36 work units, more than
+     * BatchRoute.BORROW_MAX_WORK_UNITS, so such items never borrow a worker beyond the batch share.
+     */
+    private static final String LONG_ITEM =
+            DesignClient.INDEXING_AXIS.substring(0, DesignClient.INDEXING_AXIS.length() - 1)
+                    + ",\"verify\":{\"uncertainty\":{\"a1\":{\"spreadPercent\":10}}}}";
+
     @Test
-    void batchesHoldAtMostHalfTheWorkersSoSingleDesignsStillRun() throws Exception {
+    void batchesOfLongItemsHoldAtMostHalfTheWorkersSoSingleDesignsStillRun() throws Exception {
         GatedDesigns designs = new GatedDesigns();
+        assertTrue(new com.loopwright.api.design.ComputeBudget()
+                        .designUnits(StrictJson.newMapper().readTree(LONG_ITEM))
+                > com.loopwright.service.routes.BatchRoute.BORROW_MAX_WORK_UNITS);
         // Four workers: all batches together hold at most ceil(4/2) = 2; a single design takes a third.
         try (LiveServer server = LiveServer.start(config("4", "8", "30000"), designs)) {
-            String items = String.join(",", java.util.Collections.nCopies(5, DesignClient.INDEXING_AXIS));
+            String items = String.join(",", java.util.Collections.nCopies(5, LONG_ITEM));
             List<CompletableFuture<LiveServer.Reply>> batches = new ArrayList<>();
             for (int i = 0; i < 2; i++) {
                 batches.add(CompletableFuture.supplyAsync(
@@ -212,6 +223,20 @@ class ComputeLimitsTest {
             for (CompletableFuture<LiveServer.Reply> batch : batches) {
                 assertInOrderAndDesigned(batch.get(30, TimeUnit.SECONDS), 5);
             }
+        }
+    }
+
+    @Test
+    void aLoneBatchOfShortDesignsComputesOnEveryWorker() throws Exception {
+        GatedDesigns designs = new GatedDesigns();
+        // Two workers, a share of ceil(2/2) = 1: the second item borrows the idle worker (no request waits).
+        try (LiveServer server = LiveServer.start(config("2", "4", "30000"), designs)) {
+            String items = String.join(",", java.util.Collections.nCopies(4, DesignClient.INDEXING_AXIS));
+            CompletableFuture<LiveServer.Reply> batch = CompletableFuture.supplyAsync(
+                    () -> server.post("/v1/designs/batch", "{\"items\":[" + items + "]}"));
+            awaitEntered(designs, 2); // both workers hold one of the batch's items at the gate
+            designs.gate.countDown();
+            assertInOrderAndDesigned(batch.get(30, TimeUnit.SECONDS), 4);
         }
     }
 

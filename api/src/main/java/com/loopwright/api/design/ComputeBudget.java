@@ -201,17 +201,28 @@ public final class ComputeBudget {
      * only while it is estimated).
      */
     public Problem refuseBatch(int count, IntFunction<JsonNode> item) {
+        return refuseBatch(count, item, new long[count]);
+    }
+
+    /**
+     * As {@link #refuseBatch(int, IntFunction)}, also giving each item's estimate in {@code itemUnits} (at least
+     * {@code count} long), whether or not the batch is refused.
+     */
+    public Problem refuseBatch(int count, IntFunction<JsonNode> item, long[] itemUnits) {
         Map<String, Long> byField = new LinkedHashMap<>();
         Map<String, Integer> firstItem = new LinkedHashMap<>();
         Map<String, Integer> itemsAsking = new LinkedHashMap<>();
         long total = 0;
         for (int i = 0; i < count; i++) {
+            long units = 0;
             for (Map.Entry<String, Long> part : designParts(item.apply(i)).entrySet()) {
                 byField.merge(part.getKey(), part.getValue(), Long::sum);
                 firstItem.putIfAbsent(part.getKey(), i);
                 itemsAsking.merge(part.getKey(), 1, Integer::sum);
-                total += part.getValue();
+                units += part.getValue();
             }
+            itemUnits[i] = units;
+            total += units;
         }
         if (total <= MAX_REQUEST_WORK_UNITS) {
             return null;

@@ -55,18 +55,59 @@ public final class RequestDigest {
      * tree of the whole envelope is built.
      */
     public String ofItems(int count, IntFunction<JsonNode> item) {
-        return digest(out -> {
-            try (JsonGenerator generator = mapper.getFactory().createGenerator(out)) {
+        Envelope envelope = envelope();
+        for (int index = 0; index < count; index++) { // count is capped by the batch cap
+            envelope.add(item.apply(index));
+        }
+        return envelope.digest();
+    }
+
+    /**
+     * The digest of an envelope {"items": [...]} fed one item at a time ({@link Envelope#add}), so that a caller
+     * reading the items for another purpose too (a batch's cost estimate) builds each item's tree once.
+     */
+    public Envelope envelope() {
+        return new Envelope();
+    }
+
+    /** An envelope digest in progress: items in request order, then {@link #digest()} once. Not thread-safe. */
+    public final class Envelope {
+        private final MessageDigest sha256 = sha256();
+        private final JsonGenerator generator;
+
+        private Envelope() {
+            try {
+                generator = mapper.getFactory()
+                        .createGenerator(new DigestOutputStream(OutputStream.nullOutputStream(), sha256));
                 generator.writeStartObject();
                 generator.writeFieldName("items");
                 generator.writeStartArray();
-                for (int index = 0; index < count; index++) { // count is capped by the batch cap
-                    canonical(generator, item.apply(index));
-                }
+            } catch (IOException e) {
+                throw new UncheckedIOException(e);
+            }
+        }
+
+        /** Adds the next item (in its canonical form) and returns it, so a reading loop can pass it on. */
+        public JsonNode add(JsonNode item) {
+            try {
+                canonical(generator, item);
+            } catch (IOException e) {
+                throw new UncheckedIOException(e);
+            }
+            return item;
+        }
+
+        /** Closes the envelope and gives its digest. */
+        public String digest() {
+            try {
                 generator.writeEndArray();
                 generator.writeEndObject();
+                generator.close();
+            } catch (IOException e) {
+                throw new UncheckedIOException(e);
             }
-        });
+            return PREFIX + HexFormat.of().formatHex(sha256.digest());
+        }
     }
 
     /** The canonical bytes of a tree (for tests and for documentation). */
@@ -122,13 +163,16 @@ public final class RequestDigest {
         void to(OutputStream out) throws IOException;
     }
 
-    private static String digest(Writing writing) {
-        MessageDigest sha256;
+    private static MessageDigest sha256() {
         try {
-            sha256 = MessageDigest.getInstance("SHA-256");
+            return MessageDigest.getInstance("SHA-256");
         } catch (NoSuchAlgorithmException e) {
             throw new IllegalStateException("every Java platform provides SHA-256", e);
         }
+    }
+
+    private static String digest(Writing writing) {
+        MessageDigest sha256 = sha256();
         try (DigestOutputStream out = new DigestOutputStream(OutputStream.nullOutputStream(), sha256)) {
             writing.to(out);
         } catch (IOException e) {

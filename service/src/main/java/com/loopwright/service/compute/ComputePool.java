@@ -18,6 +18,7 @@ import java.util.concurrent.TimeUnit;
 import java.util.concurrent.TimeoutException;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.Consumer;
 import java.util.function.Function;
 import java.util.function.LongConsumer;
 import java.util.function.Supplier;
@@ -29,8 +30,15 @@ import org.slf4j.MDC;
  * The bounded pool every design computation runs on: a fixed number of worker threads and a bounded queue.
  * A computation that cannot be queued is refused at once (503, back-pressure); one that does not finish by its
  * deadline is answered with 504 and cancelled: its worker is interrupted, and the solver's long loops stop at their
- * next cancellation checkpoint. Batch items share at most {@link #batchShare()} workers (ceil(workers/2)) across
- * all batches at any time, so that single requests always find the other workers.
+ * next cancellation checkpoint.
+ *
+ * <p>Batches ({@link BatchLane}) hold at most {@link #batchShare()} workers (ceil(workers/2)) across all batches
+ * at any time, so that single requests always find the other workers. Beyond that share, a batch may borrow a worker
+ * for a short item (the caller says which), but only one that is idle while nothing waits in the queue: it starts at
+ * once and never queues ahead of a single request. A worker a batch holds goes on with the batch's next item only
+ * while nothing is queued, so a single request arriving later waits at most for one item to end on a borrowed
+ * worker (a short one). The pool counts its claims (computations queued or running, a worker a batch holds as
+ * one) itself, so that the borrow rule is one atomic step.
  */
 public final class ComputePool implements AutoCloseable {
 
@@ -45,6 +53,9 @@ public final class ComputePool implements AutoCloseable {
     private final int batchShare;
 
     private final Semaphore batchSlots;
+    /** Computations queued or running: counted from submission until they end or are cancelled unstarted. */
+    private final AtomicInteger claims = new AtomicInteger();
+
     private final Timings timings;
 
     /**
@@ -101,45 +112,87 @@ public final class ComputePool implements AutoCloseable {
      * resolved to the overloaded problem.
      */
     public <T> Pending<T> submit(Supplier<T> computation, Function<Problem, T> onProblem) {
-        return submit(computation, onProblem, deadlineFromNow(), () -> {});
+        claims.incrementAndGet();
+        return submit(computation, onProblem, deadlineFromNow(), once(claims::decrementAndGet));
+    }
+
+    /** A new batch's items, computed under its deadline (one deadline covers all its items): {@link BatchLane}. */
+    public <T> BatchLane<T> batchLane(Function<Problem, T> onProblem, long deadlineNanos) {
+        return new BatchLane<>(this, onProblem, deadlineNanos);
+    }
+
+    /** How a batch holds a worker: on the batch share, or borrowed beyond it while the worker was idle. */
+    enum Grant {
+        SHARE,
+        BORROWED
     }
 
     /**
-     * Queues one item of a batch under the batch's deadline (one deadline covers all its items) on one of the
-     * {@link #batchShare()} workers batches may hold. Without a free batch slot it returns null at once, or, with
-     * {@code waitForSlot}, waits for one up to the deadline. Past the deadline the item is not computed: the result
-     * is the deadline problem at once.
-     *
-     * @param deadlineNanos the batch's deadline as a {@link System#nanoTime()} instant
+     * A worker for a batch without waiting: a free slot of the {@link #batchShare()}, else, for a short item, an
+     * idle worker borrowed when fewer computations than workers are queued or running (a worker is idle and
+     * nothing is queued; one atomic step, so two batches never borrow the same worker); else null.
      */
-    public <T> Pending<T> submitBatchItem(
-            Supplier<T> computation, Function<Problem, T> onProblem, long deadlineNanos, boolean waitForSlot) {
-        long remainingNanos = deadlineNanos - System.nanoTime();
-        boolean slot;
-        try {
-            slot = waitForSlot
-                    ? remainingNanos > 0 && batchSlots.tryAcquire(remainingNanos, TimeUnit.NANOSECONDS)
-                    : batchSlots.tryAcquire();
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            return new Pending<>(
-                    null,
-                    deadlineNanos,
-                    onProblem,
-                    onProblem.apply(ProblemType.NOT_READY.problem("the request was interrupted by a shutdown")));
+    Grant claim(boolean shortItem) {
+        if (batchSlots.tryAcquire()) {
+            claims.incrementAndGet();
+            return Grant.SHARE;
         }
-        if (!slot) {
-            if (waitForSlot || deadlineNanos - System.nanoTime() <= 0) {
-                return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(deadlineProblem()));
+        int workers = executor.getMaximumPoolSize();
+        for (int claimed = claims.get(); shortItem && claimed < workers; claimed = claims.get()) {
+            if (claims.compareAndSet(claimed, claimed + 1)) {
+                return Grant.BORROWED;
             }
+        }
+        return null;
+    }
+
+    /** A slot of the batch share, waiting at most {@code nanos}; null when none came free. */
+    Grant claimShare(long nanos) throws InterruptedException {
+        if (nanos <= 0 || !batchSlots.tryAcquire(nanos, TimeUnit.NANOSECONDS)) {
             return null;
         }
-        AtomicBoolean held = new AtomicBoolean(true);
-        return submit(computation, onProblem, deadlineNanos, () -> {
-            if (held.compareAndSet(true, false)) {
-                batchSlots.release();
+        claims.incrementAndGet();
+        return Grant.SHARE;
+    }
+
+    /** Gives a worker held by a batch back. */
+    void release(Grant grant) {
+        claims.decrementAndGet();
+        if (grant == Grant.SHARE) {
+            batchSlots.release();
+        }
+    }
+
+    /**
+     * Whether a worker a batch holds may go on with the batch's next item without giving the worker back: only while
+     * no computation is queued (single requests keep priority), before the deadline, with the pool running, and,
+     * on a borrowed worker, only for a short item.
+     */
+    boolean mayContinue(Grant grant, boolean shortItem, long deadlineNanos) {
+        return (grant == Grant.SHARE || shortItem)
+                && claims.get() <= executor.getMaximumPoolSize()
+                && deadlineNanos - System.nanoTime() > 0
+                && !executor.isShutdown();
+    }
+
+    /** Runs {@code work} on a worker; false when the pool refuses it (every worker busy and the queue full). */
+    boolean execute(Runnable work) {
+        try {
+            executor.execute(work);
+            return true;
+        } catch (RejectedExecutionException e) {
+            return false;
+        }
+    }
+
+    /** Runs {@code release} the first time only (a task cancelled as it starts may reach both release points). */
+    private static Runnable once(Runnable release) {
+        AtomicBoolean pending = new AtomicBoolean(true);
+        return () -> {
+            if (pending.compareAndSet(true, false)) {
+                release.run();
             }
-        });
+        };
     }
 
     /**
@@ -151,50 +204,71 @@ public final class ComputePool implements AutoCloseable {
             release.run();
             return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(deadlineProblem()));
         }
+        Task<T> task = task(computation, release, ended -> {});
+        if (execute(task)) {
+            return new Pending<>(task, deadlineNanos, onProblem, null);
+        }
+        release.run();
+        return new Pending<>(null, deadlineNanos, onProblem, onProblem.apply(overloadedProblem()));
+    }
+
+    /**
+     * One computation to run (by the executor, or by a worker a batch holds): it carries the request id onto the
+     * worker and reports its timings.
+     *
+     * @param release runs once the computation has ended or was cancelled before it started
+     * @param ended   sees the task once its result is set (computed, failed, cancelled or refused)
+     */
+    <T> Task<T> task(Supplier<T> computation, Runnable release, Consumer<Future<?>> ended) {
         // The request id follows the computation onto the worker thread (the only diagnostic context the service
         // sets; carrying one string avoids copying the whole context map per computation).
         String requestId = MDC.get(RequestIds.MDC_KEY);
         AtomicBoolean started = new AtomicBoolean();
         long queuedNanos = System.nanoTime();
-        FutureTask<T> task =
-                new FutureTask<>(() -> {
-                    started.set(true);
-                    long startedNanos = System.nanoTime();
-                    timings.queueWaitNanos().accept(startedNanos - queuedNanos);
-                    if (requestId != null) {
-                        MDC.put(RequestIds.MDC_KEY, requestId);
-                    }
-                    try {
-                        return computation.get();
-                    } finally {
-                        timings.computeNanos().accept(System.nanoTime() - startedNanos);
-                        MDC.remove(RequestIds.MDC_KEY);
-                        release.run();
-                    }
-                }) {
-                    @Override
-                    protected void done() {
-                        if (!started.get()) {
-                            release.run(); // cancelled while queued: the computation never runs
-                        }
-                    }
-                };
-        try {
-            executor.execute(task);
-            return new Pending<>(task, deadlineNanos, onProblem, null);
-        } catch (RejectedExecutionException e) {
-            release.run();
-            return new Pending<>(
-                    null,
-                    deadlineNanos,
-                    onProblem,
-                    onProblem.apply(ProblemType.SERVICE_OVERLOADED.problem(
-                            "all " + executor.getMaximumPoolSize() + " design workers are busy and " + queueCapacity()
-                                    + " designs are queued; retry after " + RETRY_AFTER_SECONDS + " s")));
+        return new Task<T>(() -> {
+            started.set(true);
+            long startedNanos = System.nanoTime();
+            timings.queueWaitNanos().accept(startedNanos - queuedNanos);
+            if (requestId != null) {
+                MDC.put(RequestIds.MDC_KEY, requestId);
+            }
+            try {
+                return computation.get();
+            } finally {
+                timings.computeNanos().accept(System.nanoTime() - startedNanos);
+                MDC.remove(RequestIds.MDC_KEY);
+                release.run();
+            }
+        }) {
+            @Override
+            protected void done() {
+                if (!started.get()) {
+                    release.run(); // cancelled while queued: the computation never runs
+                }
+                ended.accept(this);
+            }
+        };
+    }
+
+    /** A computation's future, which a batch may also resolve to a refusal without running it. */
+    static class Task<T> extends FutureTask<T> {
+        Task(java.util.concurrent.Callable<T> computation) {
+            super(computation);
+        }
+
+        /** Resolves a computation that will not run (refused by a full pool) to {@code refusal}. */
+        void refuse(T refusal) {
+            set(refusal);
         }
     }
 
-    private Problem deadlineProblem() {
+    Problem overloadedProblem() {
+        return ProblemType.SERVICE_OVERLOADED.problem("all " + executor.getMaximumPoolSize()
+                + " design workers are busy and " + queueCapacity() + " designs are queued; retry after "
+                + RETRY_AFTER_SECONDS + " s");
+    }
+
+    Problem deadlineProblem() {
         return ProblemType.DEADLINE_EXCEEDED.problem("the computation did not finish within the compute deadline of "
                 + deadlineMillis + " ms (one deadline covers every item of a batch)");
     }
@@ -206,21 +280,21 @@ public final class ComputePool implements AutoCloseable {
         private final Function<Problem, T> onProblem;
         private final T refused;
 
-        private Pending(Future<T> future, long deadlineNanos, Function<Problem, T> onProblem, T refused) {
+        Pending(Future<T> future, long deadlineNanos, Function<Problem, T> onProblem, T refused) {
             this.future = future;
             this.deadlineNanos = deadlineNanos;
             this.onProblem = onProblem;
             this.refused = refused;
         }
 
-        /** True when the computation was not queued (refused by a full pool, or past its deadline). */
-        public boolean refused() {
-            return future == null;
+        /** True once {@link #await} returns without waiting. */
+        boolean isDone() {
+            return future == null || future.isDone();
         }
 
-        /** True when {@link #await} would return without waiting. */
-        public boolean isDone() {
-            return future == null || future.isDone();
+        /** The computation's future (null when it was never queued). */
+        Future<T> future() {
+            return future;
         }
 
         /**

@@ -9,6 +9,11 @@ public interface Designs {
     /** One raw request body. */
     Reply design(byte[] body);
 
-    /** One already parsed batch item. */
+    /** One already parsed batch item (an item that is not an object). */
     Reply design(JsonNode item);
+
+    /** One object item of a batch, decoded from its bytes; by default through its tree. */
+    default Reply design(BatchItem item) {
+        return design(item.tree());
+    }
 }

@@ -31,4 +31,9 @@ public final class ExchangeDesigns implements Designs {
     public Reply design(JsonNode item) {
         return runner.run(endpoint, item);
     }
+
+    @Override
+    public Reply design(BatchItem item) {
+        return runner.run(endpoint, item.body(), item.offset(), item.length());
+    }
 }

@@ -9,6 +9,7 @@ import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.loopwright.api.problem.FieldError;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.compute.BatchItem;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.List;
@@ -16,8 +17,9 @@ import java.util.List;
 /**
  * The envelope {"items": [...]} of a batch, read as a stream of tokens so that its memory stays a small multiple of
  * the body: the items are located (byte ranges of the body) and counted while reading, the cap is checked on the
- * count, and no tree of the whole body is built. An item becomes a tree only when it is submitted for design
- * ({@link #item}), so a batch holds at most its window of items in flight as trees. The whole body is still checked
+ * count, and no tree of the whole body is built. An item becomes a tree only when it is read ({@link #item}): the
+ * batch route reads each once, one at a time, for its cost estimate and digest, and a design decodes its item
+ * straight from the bytes ({@link #object}). The whole body is still checked
  * for JSON syntax, duplicate keys, trailing content and every StreamReadConstraints cap (strings too: they are
  * decoded while skipped) by the same strict parser, so a malformed body is refused before any item is designed.
  */
@@ -60,6 +62,14 @@ final class BatchEnvelope {
             // The range was read once already by the same parser; it cannot fail now.
             throw new UncheckedIOException("a batch item could not be read again", e);
         }
+    }
+
+    /**
+     * Item {@code index} as its bytes, to be decoded without a tree, or null for an item that is not an object
+     * (given by {@link #item} instead).
+     */
+    BatchItem object(int index) {
+        return starts[index] < 0 ? null : new BatchItem(mapper, body, starts[index], ends[index] - starts[index]);
     }
 
     /**

@@ -10,6 +10,8 @@ import com.loopwright.api.endpoint.Trace;
 import com.loopwright.api.json.DecodeFailures;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.compute.BatchItem;
+import com.loopwright.service.compute.BatchLane;
 import com.loopwright.service.compute.ComputePool;
 import com.loopwright.service.compute.Designs;
 import com.loopwright.service.http.JsonBodies;
@@ -24,6 +26,7 @@ import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayDeque;
 import java.util.Deque;
+import java.util.function.Supplier;
 
 /**
  * POST /v1/designs/batch: {"items": [DesignRequest, ...]} in, NDJSON out, one line per item in request order:
@@ -31,11 +34,14 @@ import java.util.Deque;
  * fails the batch; only a malformed envelope is a 400 problem, and a batch whose estimated work exceeds the cap of
  * {@link ComputeBudget} is a 422 problem naming the fields that drive the cost. One compute deadline covers the whole
  * batch: items not finished by then are 504 lines and their computations are cancelled. Items are computed on the
- * bounded pool on at most {@link ComputePool#batchShare()} workers (shared by all batches, so that single requests
- * keep the other workers), and written in order;
+ * bounded pool, on the {@link ComputePool#batchShare()} workers all batches share (so that single requests keep
+ * the other workers) and, for an item estimated at most {@link #BORROW_MAX_WORK_UNITS}, on any worker that is idle
+ * while no request waits; a worker the batch holds takes the batch's next item from its {@link BatchLane} while no
+ * request waits (no hand-off between items). Lines are written in order;
  * when the next line is not ready within {@value #FLUSH_DELAY_MILLIS} ms the stream is flushed, so no finished line
  * waits longer than that for a later design (and a batch of fast designs goes out in full buffers, not one write per
- * line). The envelope is read as a stream ({@link BatchEnvelope}); an item becomes a tree only while it is in flight. When a
+ * line). The envelope is read as a stream ({@link BatchEnvelope}); each item becomes a tree once, one at a time,
+ * for the cost estimate and the envelope digest together, and is designed from its bytes. When a
  * shutdown's grace period is about to end, the stream ends with a {@link BatchCut} line naming the first item
  * without a line.
  */
@@ -44,10 +50,18 @@ public final class BatchRoute implements Handler {
     public static final String PATH = "/v1/designs/batch";
     public static final String MEDIA_TYPE = "application/x-ndjson";
     /**
-     * Items of one batch computing at the same time: one per design worker, at most this many. Bounds the memory
-     * of a batch to this many responses in flight besides the parsed request.
+     * Items of one batch in flight (computing, or waiting in its lane for a worker the batch holds), so that a
+     * worker finishing an item finds the next one without waiting for the stream's writer. Bounds the memory of a
+     * batch to this many responses in flight besides the request body.
      */
     public static final int MAX_ITEMS_IN_FLIGHT = 16;
+    /**
+     * The largest estimate of an item that may borrow a worker beyond the batch share [work units, about 0.1 ms of
+     * CPU each]: a design with a plain verify object. A single request arriving while every worker is busy waits
+     * at most for one such item.
+     */
+    public static final long BORROW_MAX_WORK_UNITS = ComputeBudget.DESIGN_UNITS + ComputeBudget.VERIFY_UNITS;
+
     /** Longest a finished line waits in the buffer for the next design before the stream is flushed [ms]. */
     public static final int FLUSH_DELAY_MILLIS = 2;
 
@@ -106,7 +120,11 @@ public final class BatchRoute implements Handler {
             problems.write(ctx, DecodeFailures.unreadable());
             return;
         }
-        Problem overBudget = budget.refuseBatch(items.size(), items::item);
+        // One pass builds each item's tree once, for the cost estimate and for the envelope's digest together.
+        int count = items.size();
+        long[] itemUnits = new long[count];
+        RequestDigest.Envelope envelope = digests.envelope();
+        Problem overBudget = budget.refuseBatch(count, index -> envelope.add(items.item(index)), itemUnits);
         if (overBudget != null) {
             problems.write(ctx, overBudget);
             return;
@@ -121,33 +139,32 @@ public final class BatchRoute implements Handler {
             return;
         }
         // The envelope's digest (each item's own digest is in its line's design trace).
-        ctx.header(Trace.DIGEST_HEADER, digests.ofItems(items.size(), items::item));
+        ctx.header(Trace.DIGEST_HEADER, envelope.digest());
         ctx.status(200).contentType(MEDIA_TYPE);
         // The servlet stream itself: each flush sends a chunk (the framework stream would buffer the batch).
         OutputStream out = ctx.res().getOutputStream();
-        int count = items.size();
-        int window = Math.min(pool.batchShare(), MAX_ITEMS_IN_FLIGHT);
+        int window = MAX_ITEMS_IN_FLIGHT;
         Deque<ComputePool.Pending<Reply>> inFlight = new ArrayDeque<>(window);
+        BatchLane<Reply> lane = pool.batchLane(Reply::failure, deadlineNanos);
         int next = 0;
         StreamCuts.Stream stream = cuts.open();
         try {
             for (int index = 0; index < count; index++) {
-                // Keep up to `window` items of this batch on the pool, each on a free batch slot.
+                // Keep up to `window` items of this batch in its lane; the workers the batch holds (slots of the
+                // batch share, and for short items idle workers borrowed while no request waits) compute them
+                // one after another without waiting for this thread (BatchLane).
                 while (next < count && inFlight.size() < window) {
-                    JsonNode item = items.item(next); // a tree only while in flight: at most `window` per batch
-                    ComputePool.Pending<Reply> pending = pool.submitBatchItem(
-                            () -> designs.design(item), Reply::failure, deadlineNanos, inFlight.isEmpty());
-                    if (pending == null
-                            || (pending.refused() && !inFlight.isEmpty() && deadlineNanos - System.nanoTime() > 0)) {
-                        break; // no slot or a full pool: submit this item again once our oldest one is written
-                    }
-                    inFlight.addLast(pending);
+                    inFlight.addLast(lane.add(computation(items, next), itemUnits[next] <= BORROW_MAX_WORK_UNITS));
                     next++;
                 }
                 ComputePool.Pending<Reply> oldest = inFlight.removeFirst();
                 stream.waitingFor(oldest::cancel); // a shutdown cut cancels it, so the wait ends in time
-                if (!oldest.awaitDone(FLUSH_DELAY_NANOS)) {
+                lane.serve(0);
+                if (!lane.awaitDone(oldest, FLUSH_DELAY_NANOS)) {
                     out.flush(); // never wait longer than the flush delay with finished lines unsent
+                    // Until it is done or the deadline: the lane wakes this thread when the item ends, and asks for
+                    // a worker again when the batch's last one was given back for a queued request.
+                    lane.awaitDone(oldest, deadlineNanos - System.nanoTime());
                 }
                 Reply outcome = oldest.await();
                 if (stream.isCut()) {
@@ -163,6 +180,16 @@ public final class BatchRoute implements Handler {
             inFlight.forEach(ComputePool.Pending::cancel);
             stream.close();
         }
+    }
+
+    /** Item {@code index}'s design: an object straight from its bytes, anything else through its tree. */
+    private Supplier<Reply> computation(BatchEnvelope items, int index) {
+        BatchItem object = items.object(index);
+        if (object != null) {
+            return () -> designs.design(object);
+        }
+        JsonNode other = items.item(index);
+        return () -> designs.design(other);
     }
 
     /** The final line of a stream cut by a shutdown: items from {@code index} on have no line (BatchCut). */
