@@ -229,8 +229,18 @@ class ContractDriftTest {
                         -HighOrderLimits.MAX_POLE_MAGNITUDE),
                 Map.entry("HighOrderDesignResponse/properties/specMatching/properties/iterations/maximum", (double)
                         SpecMatcher.MAX_ITERATIONS),
-                Map.entry("RiccatiSolution/properties/newtonSteps/maximum", (double)
-                        PoleMatchedRiccati.MAX_NEWTON_STEPS));
+                Map.entry(
+                        "RiccatiSolution/properties/newtonSteps/maximum", (double) PoleMatchedRiccati.MAX_NEWTON_STEPS),
+                Map.entry("HighOrderUncertaintyInput/properties/monteCarloSamples/maximum", (double)
+                        com.loopwright.solver.pipeline.HighOrderRobustPipeline.MAX_SAMPLES),
+                Map.entry(
+                        "HighOrderUncertaintyInput/properties/denominator/maxItems",
+                        (double) HighOrderLimits.MAX_ORDER + 1),
+                Map.entry("HighOrderRobustDesign/properties/corners/maxItems", (double)
+                        (1 << com.loopwright.solver.robustness.CompanionBox.MAX_RANGED)),
+                Map.entry(
+                        "HighOrderRobustDesignInput/properties/actuatorLimit/maximum",
+                        com.loopwright.api.robustness.VerifyLimits.MAX_ACTUATOR_LIMIT));
         expected.forEach((pointer, value) -> {
             assertDocumented(pointer, value);
         });

@@ -16,6 +16,7 @@ import java.util.List;
  * @param measurement          "fullState" (default) or "position" (the output row numerator is what is measured)
  * @param observer             how the unmeasured states are estimated (position only)
  * @param loadStepSize         the load step of the recovery figures
+ * @param robust               the companion box the law must meet the spec over (null: the nominal design)
  */
 public record HighOrderDesignRequest(
         HighOrderPlantInput plant,
@@ -26,7 +27,8 @@ public record HighOrderDesignRequest(
         Double integralPoleMultiple,
         String measurement,
         ObserverInput observer,
-        Double loadStepSize) {
+        Double loadStepSize,
+        HighOrderRobustInput robust) {
 
     /** The loop-structure fields together. */
     public LoopInput loop() {

@@ -20,7 +20,8 @@ import java.util.List;
  * z_perf = [rho_1 z_1, ..., rho_n z_n, u]. target, riccati, gammaBounds, gammaIntervals, weights, gain, simulated
  * and verification are the records every design result shares (package {@code api.result}); this order-n result
  * adds order, coordinates and specMatching. law, observer, outputFeedback and loadStep are present only when the
- * request asked for integral action or position-only sensing (observer and outputFeedback only for the latter). Polynomial coefficients are highest power first.
+ * request asked for integral action or position-only sensing (observer and outputFeedback only for the latter);
+ * robust only when the request had a box. Polynomial coefficients are highest power first.
  */
 public record HighOrderDesignResponse(
         int order,
@@ -42,7 +43,8 @@ public record HighOrderDesignResponse(
         @JsonInclude(JsonInclude.Include.NON_NULL) Law law,
         @JsonInclude(JsonInclude.Include.NON_NULL) Observer observer,
         @JsonInclude(JsonInclude.Include.NON_NULL) OutputFeedback outputFeedback,
-        @JsonInclude(JsonInclude.Include.NON_NULL) LoadStep loadStep) {
+        @JsonInclude(JsonInclude.Include.NON_NULL) LoadStep loadStep,
+        @JsonInclude(JsonInclude.Include.NON_NULL) HighOrderRobustDesign robust) {
 
     public HighOrderDesignResponse {
         gammaBounds = List.copyOf(gammaBounds);

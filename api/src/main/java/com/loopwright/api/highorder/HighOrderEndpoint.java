@@ -5,6 +5,8 @@ import com.loopwright.api.endpoint.FailureTable;
 import com.loopwright.api.loop.LoopResponseMapper;
 import com.loopwright.api.problem.Problem;
 import com.loopwright.solver.pipeline.HighOrderPipeline;
+import com.loopwright.solver.pipeline.HighOrderRobustPipeline;
+import com.loopwright.solver.pipeline.HighOrderRobustReport;
 import com.loopwright.solver.pipeline.RealLoopPipeline;
 import com.loopwright.solver.pipeline.RealLoopReport;
 
@@ -20,12 +22,15 @@ public final class HighOrderEndpoint
     private final RealLoopPipeline realLoops = new RealLoopPipeline();
     private final HighOrderResponseMapper responses = new HighOrderResponseMapper();
     private final LoopResponseMapper loopResponses = new LoopResponseMapper();
+    private final HighOrderRobustPipeline robustPipeline = new HighOrderRobustPipeline();
+    private final HighOrderRobustMapper robustResponses = new HighOrderRobustMapper();
 
     /**
      * @param design the plain order-n design
      * @param loop   the loop with integral action and/or an observer, or null when not asked for
+     * @param robust the robust design over the companion box (its design is {@code design}), or null
      */
-    public record Result(HighOrderPipeline.Result design, RealLoopReport loop) {}
+    public record Result(HighOrderPipeline.Result design, RealLoopReport loop, HighOrderRobustReport robust) {}
 
     @Override
     public Class<HighOrderDesignRequest> requestType() {
@@ -40,7 +45,7 @@ public final class HighOrderEndpoint
     @Override
     public Result compute(ValidatedHighOrderDesign input) {
         ValidatedHighOrderDesign.StateSpace ss = input.stateSpace();
-        HighOrderPipeline.Result design = pipeline.design(new HighOrderPipeline.Request(
+        HighOrderPipeline.Request request = new HighOrderPipeline.Request(
                 input.plant(),
                 ss == null ? null : new HighOrderPipeline.StateSpace(ss.a(), ss.b2(), ss.b1(), ss.output()),
                 input.spec(),
@@ -49,7 +54,14 @@ public final class HighOrderEndpoint
                 input.gammaChoice(),
                 input.stepSize(),
                 input.bandFraction(),
-                input.maxUndershootPercent()));
+                input.maxUndershootPercent());
+        ValidatedHighOrderRobust robust = input.robust();
+        if (robust != null) {
+            HighOrderRobustReport report = robustPipeline.design(
+                    request, robust.box(), robust.samples(), robust.seed(), robust.actuatorLimit());
+            return new Result(report.design(), null, report);
+        }
+        HighOrderPipeline.Result design = pipeline.design(request);
         RealLoopReport loop = null;
         if (input.loop() != null) {
             loop = realLoops.design(new RealLoopPipeline.Request(
@@ -61,11 +73,15 @@ public final class HighOrderEndpoint
                     input.loop().loadStepSize(),
                     input.maxUndershootPercent()));
         }
-        return new Result(design, loop);
+        return new Result(design, loop, null);
     }
 
     @Override
     public Object respond(ValidatedHighOrderDesign input, Result result) {
+        if (result.robust() != null) {
+            return responses.toResponse(
+                    input, result.design(), null, robustResponses.toResponse(result.robust(), input.stepSize()));
+        }
         return responses.toResponse(
                 input,
                 result.design(),

@@ -11,11 +11,16 @@ import com.loopwright.api.highorder.HighOrderDesignRequest.PoleInput;
 import com.loopwright.api.loop.LoopInputValidator;
 import com.loopwright.api.loop.ValidatedLoop;
 import com.loopwright.api.problem.FieldError;
+import com.loopwright.api.robustness.ParameterRangeInput;
+import com.loopwright.api.robustness.VerifyInputValidator;
+import com.loopwright.api.robustness.VerifyLimits;
 import com.loopwright.api.validation.Checks;
 import com.loopwright.api.validation.InvalidRequestException;
 import com.loopwright.solver.design.GammaChoice;
+import com.loopwright.solver.pipeline.HighOrderRobustPipeline;
 import com.loopwright.solver.pipeline.SolverFailure;
 import com.loopwright.solver.plant.CompanionPlant;
+import com.loopwright.solver.robustness.CompanionBox;
 import com.loopwright.solver.spec.AuxiliaryPlacement;
 import com.loopwright.solver.spec.DesignSpec;
 import com.loopwright.solver.spec.DesiredPoles;
@@ -26,6 +31,9 @@ import java.util.List;
 
 /** Checks a high-order request; reports every offending field with its JSON pointer. */
 public final class HighOrderRequestValidator {
+
+    private static final String ROBUST = "/robust";
+    private static final String UNCERTAINTY = ROBUST + "/uncertainty";
 
     private final LoopInputValidator loops = new LoopInputValidator();
 
@@ -118,6 +126,10 @@ public final class HighOrderRequestValidator {
                     "integral action and position-only sensing take the companion form (denominator, numerator, b,"
                             + " disturbance): the numerator says what is measured"));
         }
+        ValidatedHighOrderRobust robust = null;
+        if (request.robust() != null) {
+            robust = robust(errors, request, denominator, plant == null ? null : plant.b(), loop);
+        }
         if (!errors.isEmpty()) {
             throw new InvalidRequestException(errors);
         }
@@ -150,7 +162,117 @@ public final class HighOrderRequestValidator {
                 band,
                 spec.maxUndershootPercent() == null ? DEFAULT_MAX_UNDERSHOOT_PERCENT : spec.maxUndershootPercent(),
                 stateSpace,
-                loop);
+                loop,
+                robust);
+    }
+
+    /**
+     * The robust member: a box over the companion coefficients (the denominator's ranges in its wire order, the
+     * leading 1 fixed, and b), at most {@value CompanionBox#MAX_RANGED} ranged; null after an error. It takes the
+     * companion form, without matchSpecs, integral action or position-only sensing.
+     */
+    private static ValidatedHighOrderRobust robust(
+            List<FieldError> errors,
+            HighOrderDesignRequest request,
+            double[] denominator,
+            Double b,
+            ValidatedLoop loop) {
+        HighOrderRobustInput input = request.robust();
+        int before = errors.size();
+        if (request.plant() != null && request.plant().stateSpace() != null) {
+            errors.add(new FieldError(
+                    ROBUST,
+                    "a robust order-n design takes the companion form (denominator, numerator, b, disturbance):"
+                            + " its box ranges those coefficients; send the companion form (a plain design's"
+                            + " coordinates give it)"));
+        }
+        if (Boolean.TRUE.equals(request.matchSpecs())) {
+            errors.add(new FieldError(
+                    "/matchSpecs",
+                    "not with robust: the robust search chooses the dominant pair itself, by simulating every case"
+                            + " of the box; drop matchSpecs"));
+        }
+        if (loop != null) {
+            errors.add(new FieldError(
+                    ROBUST,
+                    "a robust order-n design judges the full-state loop; integral action and position-only sensing"
+                            + " with a box are taken by POST /v1/designs (order 2)"));
+        }
+        if (input.actuatorLimit() != null
+                && !(input.actuatorLimit() > 0 && input.actuatorLimit() <= VerifyLimits.MAX_ACTUATOR_LIMIT)) {
+            errors.add(new FieldError(
+                    ROBUST + "/actuatorLimit", "must be positive and at most " + VerifyLimits.MAX_ACTUATOR_LIMIT));
+        }
+        HighOrderRobustInput.HighOrderUncertaintyInput box = input.uncertainty();
+        if (box == null) {
+            errors.add(new FieldError(UNCERTAINTY, "required"));
+            return null;
+        }
+        int samples = box.monteCarloSamples() == null ? 0 : box.monteCarloSamples();
+        if (samples < 0 || samples > HighOrderRobustPipeline.MAX_SAMPLES) {
+            errors.add(new FieldError(
+                    UNCERTAINTY + "/monteCarloSamples",
+                    "must be from 0 to " + HighOrderRobustPipeline.MAX_SAMPLES
+                            + " (each sample is simulated at every target the search tries)"));
+        }
+        List<ParameterRangeInput> ranges = box.denominator();
+        if (ranges != null && ranges.size() > MAX_ORDER + 1) {
+            errors.add(new FieldError(UNCERTAINTY + "/denominator", "at most " + (MAX_ORDER + 1) + " entries"));
+            return null;
+        }
+        if (denominator == null || b == null || !errors.isEmpty()) {
+            return null; // the nominal plant is needed for the ranges
+        }
+        int n = denominator.length - 1;
+        if (ranges != null && ranges.size() != n + 1) {
+            errors.add(new FieldError(
+                    UNCERTAINTY + "/denominator",
+                    "needs one entry per coefficient of plant.denominator (" + (n + 1) + ", highest power first;"
+                            + " spreadPercent 0 or null for a fixed one), got " + ranges.size()));
+            return null;
+        }
+        double[] lows = new double[n];
+        double[] highs = new double[n];
+        for (int i = 0; i <= n; i++) {
+            ParameterRangeInput range = ranges == null ? null : ranges.get(i);
+            String pointer = UNCERTAINTY + "/denominator/" + i;
+            double[] r = VerifyInputValidator.range(errors, pointer, range, denominator[i]);
+            if (i == 0) {
+                if (r != null && r[0] < r[1]) {
+                    errors.add(new FieldError(
+                            pointer,
+                            "must keep the leading 1 fixed (null or spreadPercent 0): the denominator is monic"));
+                }
+            } else if (r != null) {
+                // wire index i is a_{n-i}
+                lows[n - i] = r[0];
+                highs[n - i] = r[1];
+            }
+        }
+        double[] bRange = VerifyInputValidator.range(errors, UNCERTAINTY + "/b", box.b(), b);
+        if (bRange != null && bRange[0] <= 0 && bRange[1] >= 0) {
+            errors.add(
+                    new FieldError(UNCERTAINTY + "/b", "the range must not contain 0 (the input gain keeps its sign)"));
+            return null;
+        }
+        if (errors.size() > before) {
+            return null;
+        }
+        int ranged = bRange[0] < bRange[1] ? 1 : 0;
+        for (int j = 0; j < n; j++) {
+            ranged += lows[j] < highs[j] ? 1 : 0;
+        }
+        if (ranged > CompanionBox.MAX_RANGED) {
+            errors.add(new FieldError(
+                    UNCERTAINTY,
+                    "at most " + CompanionBox.MAX_RANGED + " ranged parameters (16 corners), got " + ranged));
+            return null;
+        }
+        return new ValidatedHighOrderRobust(
+                new CompanionBox(lows, highs, bRange[0], bRange[1]),
+                samples,
+                box.seed() == null ? VerifyLimits.DEFAULT_SEED : box.seed(),
+                input.actuatorLimit());
     }
 
     private static AuxiliaryPlacement auxiliary(List<FieldError> errors, AuxiliaryPolesInput input, int n) {

@@ -57,6 +57,19 @@ public final class HighOrderResponseMapper {
     /** @param loop the sections of the loop with integral action and/or an observer (null for the plain loop) */
     public HighOrderDesignResponse toResponse(
             ValidatedHighOrderDesign request, HighOrderPipeline.Result result, LoopResponseMapper.Sections loop) {
+        return toResponse(request, result, loop, null);
+    }
+
+    /**
+     * @param loop   the sections of the loop with integral action and/or an observer (null for the plain loop)
+     * @param robust the robust member (null without a box); the design is then the one of its chosen target, and
+     *               no note suggests matchSpecs (the box search chose the dominant pair)
+     */
+    HighOrderDesignResponse toResponse(
+            ValidatedHighOrderDesign request,
+            HighOrderPipeline.Result result,
+            LoopResponseMapper.Sections loop,
+            HighOrderRobustDesign robust) {
         boolean fromStateSpace = result.fromStateSpace();
         SpecMatch match = result.match();
         HighOrderDesign design = result.design();
@@ -99,7 +112,7 @@ public final class HighOrderResponseMapper {
                 COMPANION_COORDINATES,
                 "P, the gains and the weights are in the companion coordinates of the request: z_1 is the state"
                         + " the output row weights first, z_n the state u drives.");
-        if (!specsMet && match == null) {
+        if (!specsMet && match == null && robust == null) {
             note(
                     notes,
                     codes,
@@ -193,7 +206,8 @@ public final class HighOrderResponseMapper {
                 loop == null ? null : loop.law(),
                 loop == null ? null : loop.observer(),
                 loop == null ? null : loop.outputFeedback(),
-                loop == null ? null : loop.loadStep());
+                loop == null ? null : loop.loadStep(),
+                robust);
     }
 
     /**

@@ -7,7 +7,7 @@ import com.loopwright.solver.spec.DesignSpec;
 
 /**
  * A high-order request that passed validation, in solver types; {@code loop} is null for today's plain full-state
- * loop.
+ * loop; {@code robust} is null without a box.
  */
 public record ValidatedHighOrderDesign(
         CompanionPlant plant,
@@ -19,7 +19,8 @@ public record ValidatedHighOrderDesign(
         double bandFraction,
         double maxUndershootPercent,
         StateSpace stateSpace,
-        com.loopwright.api.loop.ValidatedLoop loop) {
+        com.loopwright.api.loop.ValidatedLoop loop,
+        ValidatedHighOrderRobust robust) {
 
     /** The state space as sent (null for a companion-form request), to be transformed. */
     public record StateSpace(

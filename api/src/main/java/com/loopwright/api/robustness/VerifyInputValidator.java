@@ -123,7 +123,7 @@ public final class VerifyInputValidator {
     }
 
     /** {lowest, highest} of one parameter, or null with an error. Absent: fixed at nominal. */
-    private static double[] range(List<FieldError> errors, String pointer, ParameterRangeInput input, double nominal) {
+    public static double[] range(List<FieldError> errors, String pointer, ParameterRangeInput input, double nominal) {
         if (input == null) {
             return new double[] {nominal, nominal};
         }

@@ -39,6 +39,7 @@ final class GoldenCases {
         g.designSpaces();
         g.robustDesigns();
         g.stateSpaceLoops();
+        g.highOrderRobustDesigns();
         return List.copyOf(g.cases);
     }
 
@@ -458,6 +459,37 @@ final class GoldenCases {
         };
         for (int i = 0; i < bodies.length; i++) {
             design(String.format(Locale.ROOT, "robust-%02d", i), bodies[i]);
+        }
+    }
+
+    /**
+     * Order-n robust designs (issue 18): a tank-level loop (tank, valve lag 5 s, sensor lag 2 s) over a box on
+     * the valve lag and gain, with samples; with an actuator limit no pair meets (422 with a proposal); the camera
+     * gimbal whose nominal pair has no design, and with an actuator limit it cannot keep at the spec (the proposal
+     * measured above the slowest pair with a design); a b range through 0 and a state space (400 at their pointers).
+     */
+    private void highOrderRobustDesigns() {
+        String tank = "\"plant\":{\"denominator\":[1,0.7,0.1,0],\"b\":0.05,\"disturbance\":[0,0,1]},"
+                + "\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}";
+        String box = "{\"denominator\":[null,{\"spreadPercent\":10},null,null],\"b\":{\"spreadPercent\":20},"
+                + "\"monteCarloSamples\":20,\"seed\":5}";
+        String[] bodies = {
+            "{" + tank + ",\"robust\":{\"uncertainty\":" + box + "}}",
+            "{" + tank + ",\"robust\":{\"uncertainty\":" + box + ",\"actuatorLimit\":2}}",
+            "{\"plant\":{\"denominator\":[1,52,100,0],\"b\":500,\"disturbance\":[0,0,1]},"
+                    + "\"spec\":{\"settlingTime\":0.4,\"overshootPercent\":2},\"robust\":{\"uncertainty\":"
+                    + "{\"denominator\":[null,{\"spreadPercent\":10},{\"spreadPercent\":30},null],"
+                    + "\"b\":{\"lowest\":350,\"highest\":550}}}}",
+            "{\"plant\":{\"denominator\":[1,52,100,0],\"b\":500,\"disturbance\":[0,0,1]},"
+                    + "\"spec\":{\"settlingTime\":0.4,\"overshootPercent\":2},\"robust\":{\"uncertainty\":"
+                    + "{\"b\":{\"lowest\":350,\"highest\":550}},\"actuatorLimit\":20}}",
+            "{" + tank + ",\"robust\":{\"uncertainty\":{\"b\":{\"lowest\":-1,\"highest\":1}}}}",
+            "{\"plant\":{\"stateSpace\":{\"a\":[[0,1],[0,-2]],\"b2\":[0,3],\"b1\":[0,1]}},"
+                    + "\"spec\":{\"settlingTime\":2,\"overshootPercent\":5},"
+                    + "\"robust\":{\"uncertainty\":{\"b\":{\"spreadPercent\":5}}}}",
+        };
+        for (int i = 0; i < bodies.length; i++) {
+            post(String.format(Locale.ROOT, "high-order-robust-%02d", i), "/v1/designs/high-order", bodies[i]);
         }
     }
 

@@ -127,6 +127,16 @@ public final class HighOrderPipeline {
      *                       or LOOP_NOT_SIMULABLE
      */
     public Result design(Request request) {
+        return design(request, null);
+    }
+
+    /**
+     * The design at a given dominant pair (the robust search's choice): neither matched nor inverted from the
+     * specs, the auxiliary poles placed as requested; the spec check still judges the simulated step.
+     *
+     * @param target the dominant pair, or null to take it from the specs as {@link #design(Request)} does
+     */
+    public Result design(Request request, TargetDynamics target) {
         CompanionTransform.Result transform = null;
         CompanionPlant plant = request.plant();
         if (request.stateSpace() != null) {
@@ -147,12 +157,11 @@ public final class HighOrderPipeline {
         Partial result;
         try {
             SpecMatch match = null;
-            TargetDynamics target;
-            if (request.matchSpecs()) {
+            if (target == null && request.matchSpecs()) {
                 match = matcher.match(
                         plant, request.spec(), request.auxiliary(), request.stepSize(), request.maxUndershootPercent());
                 target = match.target();
-            } else {
+            } else if (target == null) {
                 target = new SpecInverter().invert(request.spec()).target();
             }
             DesiredPoles poles = request.auxiliary().place(target, plant.order());

@@ -20,7 +20,9 @@ import com.loopwright.solver.spec.TargetDynamics;
  * and its top is the highest of a short ladder of frequencies below the ceiling at which the corners meet (a sampled
  * loop too fast for its period fails where a slower one meets).
  * The time limit judged is the settling time, or the rise time when the limits have no settling time (the judge's
- * horizon must then come from the loop's poles, not from a settling limit).
+ * horizon must then come from the loop's poles, not from a settling limit). When no target meets the limits, the
+ * proposal is measured at the fastest frequency the actuator allows, searched down to the slowest frequency that
+ * has a design (a loop of order n has none below some frequency).
  *
  * <p>Capped: {@value #MAX_EVALUATIONS} target designs, {@value #MAX_SIMULATED_CASES} simulated cases. One instance
  * serves one search (it counts them).
@@ -166,10 +168,15 @@ final class SimulatedTargetSearch<D> {
                 }
                 double wn = fastest;
                 if (actuatorLimit != null && !withinActuator(zeta, fastest)) {
-                    if (!withinActuator(zeta, lowest)) {
-                        continue;
+                    double floor = lowest;
+                    if (!withinActuator(zeta, floor)) {
+                        // a loop of order n has no design below some frequency: start from the slowest that has one
+                        floor = designAt(zeta, floor) == null ? slowestDesignable(zeta, lowest, fastest) : Double.NaN;
+                        if (!(floor < fastest) || !withinActuator(zeta, floor)) {
+                            continue;
+                        }
                     }
-                    wn = largestWithinActuator(zeta, lowest, fastest);
+                    wn = largestWithinActuator(zeta, floor, fastest);
                 }
                 double[] worst = worstMetrics(zeta, wn);
                 if (limits.overshootPercent() == null || worst[1] <= limits.overshootPercent()) {
@@ -225,6 +232,25 @@ final class SimulatedTargetSearch<D> {
         for (int i = 0; i < BISECTIONS; i++) {
             double mid = Math.sqrt(lo * hi);
             if (meets(zeta, mid, cases)) {
+                hi = mid;
+            } else {
+                lo = mid;
+            }
+        }
+        return hi;
+    }
+
+    /**
+     * The slowest frequency in (lo, hi] with a design, by {@value #BISECTIONS} bisections in log wn (the design is
+     * taken to exist above some frequency); NaN when there is none at hi.
+     */
+    private double slowestDesignable(double zeta, double lo, double hi) {
+        if (designAt(zeta, hi) == null) {
+            return Double.NaN;
+        }
+        for (int i = 0; i < BISECTIONS; i++) {
+            double mid = Math.sqrt(lo * hi);
+            if (designAt(zeta, mid) != null) {
                 hi = mid;
             } else {
                 lo = mid;

@@ -15,15 +15,26 @@ public final class ParameterSampler {
     private final SplittableRandom random;
 
     public ParameterSampler(ParameterBox box, long seed) {
-        this.lows = box.lows();
-        this.highs = box.highs();
+        this(box.lows(), box.highs(), seed);
+    }
+
+    /**
+     * Samples of any box given as its lower and upper ends (the order-n {@link CompanionBox}: one parameter per
+     * entry, in the caller's order, drawn in that order).
+     */
+    ParameterSampler(double[] lows, double[] highs, long seed) {
+        if (lows.length != highs.length) {
+            throw new IllegalArgumentException("one upper end per lower end");
+        }
+        this.lows = lows.clone();
+        this.highs = highs.clone();
         this.random = new SplittableRandom(seed);
     }
 
-    /** The next sample as {a0, a1, b, d}. */
+    /** The next sample, one value per parameter ({a0, a1, b, d} for a {@link ParameterBox}). */
     public double[] next() {
-        double[] p = new double[4];
-        for (int i = 0; i < 4; i++) {
+        double[] p = new double[lows.length];
+        for (int i = 0; i < p.length; i++) {
             p[i] = lows[i] + (highs[i] - lows[i]) * random.nextDouble();
         }
         return p;
