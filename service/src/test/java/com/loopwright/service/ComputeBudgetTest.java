@@ -100,6 +100,13 @@ class ComputeBudgetTest {
     }
 
     /** Each item sleeps 150 ms unless interrupted; counts calls and interruptions. */
+    /**
+     * Each stub item sleeps this long; the batch deadline falls in the middle of the third round of items (rounds
+     * start at 0, 300 and 600 ms on two workers, the deadline at 750 ms), so scheduling jitter of up to 150 ms on a
+     * loaded machine moves no item across the deadline.
+     */
+    private static final long ITEM_MILLIS = 300;
+
     private static final class SleepingDesigns implements Designs {
         final AtomicInteger calls = new AtomicInteger();
         final AtomicInteger interrupted = new AtomicInteger();
@@ -108,7 +115,7 @@ class ComputeBudgetTest {
         public Reply design(byte[] body) {
             calls.incrementAndGet();
             try {
-                Thread.sleep(150);
+                Thread.sleep(ITEM_MILLIS);
             } catch (InterruptedException e) {
                 interrupted.incrementAndGet();
                 Thread.currentThread().interrupt();
@@ -126,7 +133,7 @@ class ComputeBudgetTest {
     @Test
     void oneDeadlineCoversEveryItemOfABatch() throws Exception {
         SleepingDesigns designs = new SleepingDesigns();
-        try (LiveServer server = LiveServer.start(config("2", "400"), designs)) {
+        try (LiveServer server = LiveServer.start(config("2", "750"), designs)) {
             String items = String.join(",", Collections.nCopies(10, DesignClient.INDEXING_AXIS));
             var reply = server.post("/v1/designs/batch", "{\"items\":[" + items + "]}");
             assertEquals(200, reply.status());
