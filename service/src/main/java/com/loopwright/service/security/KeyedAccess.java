@@ -1,9 +1,12 @@
 package com.loopwright.service.security;
 
+import com.loopwright.api.problem.ProblemType;
+import com.loopwright.service.http.ProblemException;
 import com.loopwright.service.http.RequestBodyGate;
 import com.loopwright.service.routes.RouteTable;
 import io.javalin.http.Context;
 import io.javalin.http.HandlerType;
+import java.util.Map;
 import org.eclipse.jetty.http.HttpHeader;
 import org.eclipse.jetty.server.Request;
 
@@ -13,6 +16,9 @@ import org.eclipse.jetty.server.Request;
  * answers 401 or 403. OPTIONS preflights never need a key.
  */
 public final class KeyedAccess {
+
+    /** Retry-After of a request caught by a key rotation between the body gate and the application. */
+    static final int RETRY_AFTER_SECONDS = 1;
 
     private final ApiKeys keys;
     private final RouteTable.Matcher paths;
@@ -43,9 +49,25 @@ public final class KeyedAccess {
      * so that no handler ever sees a request without its body.
      */
     public void refuseWithheld(Context ctx) {
-        if (Boolean.TRUE.equals(ctx.attribute(RequestBodyGate.WITHHELD))) {
-            keys.check(ctx.header(HttpHeader.AUTHORIZATION.asString()), ctx.header(ApiKeys.HEADER));
-            throw new IllegalStateException("a body was withheld from a request whose key is accepted");
+        refuseWithheld(
+                Boolean.TRUE.equals(ctx.attribute(RequestBodyGate.WITHHELD)),
+                ctx.header(HttpHeader.AUTHORIZATION.asString()),
+                ctx.header(ApiKeys.HEADER));
+    }
+
+    /**
+     * A withheld body is refused with 401/403 by the keys in force now. When they accept the key (the keys were
+     * rotated between the gate's test and this one), the request still has no body: 503 with Retry-After, to be
+     * sent again, never a handler without its body.
+     */
+    void refuseWithheld(boolean withheld, String authorization, String apiKeyHeader) {
+        if (withheld) {
+            keys.check(authorization, apiKeyHeader);
+            throw new ProblemException(
+                    ProblemType.SERVICE_OVERLOADED.problem("the API keys in force changed while this request arrived:"
+                            + " its key was not accepted when its body came and is now; send it again after "
+                            + RETRY_AFTER_SECONDS + " s"),
+                    Map.of("Retry-After", String.valueOf(RETRY_AFTER_SECONDS)));
         }
     }
 }
