@@ -1,6 +1,6 @@
 # Sourced by the bench scripts: a scratch directory and a service jar started on loopback, both cleaned up on exit.
 #   service_workdir                      sets $work (removed on exit, with the service stopped first)
-#   service_start HEAP BASE [VAR=value]  starts $jar with -Xmx HEAP and the given environment, log in
+#   service_start HEAP BASE [VAR=value]  starts $jar with -Xmx HEAP (and $SERVICE_JAVA_OPTS) and the given environment, log in
 #                                        $work/service.log, sets $pid, waits for BASE/health up to
 #                                        $service_start_tries x 0.25 s (default 40: 10 s)
 #   service_stop                         stops the process started last ($pid) and waits for it to end
@@ -28,7 +28,8 @@ service_stop() {
 service_start() {
   local heap=$1 base=$2
   shift 2
-  env "$@" java -Xmx"$heap" -jar "$jar" > "$work/service.log" 2>&1 &
+  # shellcheck disable=SC2086 # SERVICE_JAVA_OPTS is a list of JVM options
+  env "$@" java -Xmx"$heap" ${SERVICE_JAVA_OPTS:-} -jar "$jar" > "$work/service.log" 2>&1 &
   pid=$!
   service_wait "$base" "$work/service.log"
 }

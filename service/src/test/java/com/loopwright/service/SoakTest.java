@@ -28,7 +28,8 @@ import org.junit.jupiter.api.condition.EnabledIfSystemProperty;
  * few rounds of mixed load replayed from the golden corpus (designs, batches, order-n designs, fits,
  * verifications with Monte Carlo, plots and controller exports), each request's status equal to the recorded
  * one, no 5xx, every JSON and NDJSON body valid against openapi.yaml, and the resident memory after round
- * {@link #COMPARED_ROUND} within {@link #RSS_GROWTH_LIMIT} of round 1 (read from /proc/PID/status, VmRSS).
+ * {@link #COMPARED_ROUND} within {@link #RSS_GROWTH_LIMIT} of round 1 (read from /proc/PID/status, VmRSS; the script
+ * pre-touches the heap, so this is the growth outside it).
  * Runs only when {@code loopwright.soak.url} is set; loopback only; bounded in count and time.
  */
 @EnabledIfSystemProperty(named = "loopwright.soak.url", matches = "http://127\\.0\\.0\\.1:[0-9]+")
