@@ -37,7 +37,8 @@ service_start() {
 echo_floor_start() {
   local heap=$1 base=$2 port=$3
   shift 3
-  java -Xmx"$heap" -cp "${bench_jar:-bench/target/loopwright-bench.jar}" com.loopwright.bench.EchoFloor "$port" "$@" \
+  # shellcheck disable=SC2086 # SERVICE_JAVA_OPTS is a list of JVM options
+  java -Xmx"$heap" ${SERVICE_JAVA_OPTS:-} -cp "${bench_jar:-bench/target/loopwright-bench.jar}" com.loopwright.bench.EchoFloor "$port" "$@" \
     > "$work/echo.log" 2>&1 &
   pid=$!
   service_wait "$base" "$work/echo.log"
