@@ -13,7 +13,7 @@ import com.loopwright.solver.robustness.UncertaintyReport;
 import com.loopwright.solver.spec.TargetDynamics;
 
 /** The robust design's solver report to the wire record of the design response's robust member. */
-final class RobustDesignMapper {
+public final class RobustDesignMapper {
 
     /** The one selection rule (RobustTargetSearch): the smallest natural frequency meeting every case. */
     static final String SELECTION_RULE = "leastBandwidth";
@@ -97,8 +97,8 @@ final class RobustDesignMapper {
         return "sampled" + Character.toUpperCase(name.charAt(0)) + name.substring(1);
     }
 
-    /** The judged loop's name on the wire, in continuous time. */
-    static String judgedLoop(LoopStructure structure) {
+    /** The judged loop's name on the wire, in continuous time (the order-n robust member names it so too). */
+    public static String judgedLoop(LoopStructure structure) {
         boolean observer = structure.measurement() == LoopStructure.Measurement.POSITION;
         if (structure.integralAction()) {
             return observer ? "integralActionPositionObserver" : "integralAction";

@@ -56,32 +56,36 @@ public final class HighOrderEndpoint
                 input.bandFraction(),
                 input.maxUndershootPercent());
         ValidatedHighOrderRobust robust = input.robust();
+        RealLoopPipeline.Request loopRequest = input.loop() == null
+                ? null
+                : new RealLoopPipeline.Request(
+                        input.plant(),
+                        input.spec(),
+                        input.auxiliary(),
+                        input.gammaChoice(),
+                        input.loop().structure(),
+                        input.loop().loadStepSize(),
+                        input.maxUndershootPercent());
         if (robust != null) {
-            HighOrderRobustReport report = robustPipeline.design(
-                    request, robust.box(), robust.samples(), robust.seed(), robust.actuatorLimit());
-            return new Result(report.design(), null, report);
+            HighOrderRobustReport report = loopRequest == null
+                    ? robustPipeline.design(
+                            request, robust.box(), robust.samples(), robust.seed(), robust.actuatorLimit())
+                    : robustPipeline.designLoop(
+                            request,
+                            loopRequest,
+                            robust.box(),
+                            robust.samples(),
+                            robust.seed(),
+                            robust.actuatorLimit());
+            return new Result(report.design(), report.judgedLoop(), report);
         }
         HighOrderPipeline.Result design = pipeline.design(request);
-        RealLoopReport loop = null;
-        if (input.loop() != null) {
-            loop = realLoops.design(new RealLoopPipeline.Request(
-                    input.plant(),
-                    input.spec(),
-                    input.auxiliary(),
-                    input.gammaChoice(),
-                    input.loop().structure(),
-                    input.loop().loadStepSize(),
-                    input.maxUndershootPercent()));
-        }
+        RealLoopReport loop = loopRequest == null ? null : realLoops.design(loopRequest);
         return new Result(design, loop, null);
     }
 
     @Override
     public Object respond(ValidatedHighOrderDesign input, Result result) {
-        if (result.robust() != null) {
-            return responses.toResponse(
-                    input, result.design(), null, robustResponses.toResponse(result.robust(), input.stepSize()));
-        }
         return responses.toResponse(
                 input,
                 result.design(),
@@ -91,7 +95,8 @@ public final class HighOrderEndpoint
                                 result.loop(),
                                 COMPANION_COORDINATES,
                                 lawFormula(result.loop()),
-                                input.loop().samplePeriod()));
+                                input.loop().samplePeriod()),
+                result.robust() == null ? null : robustResponses.toResponse(result.robust(), input.stepSize()));
     }
 
     @Override

@@ -169,7 +169,8 @@ public final class HighOrderRequestValidator {
     /**
      * The robust member: a box over the companion coefficients (the denominator's ranges in its wire order, the
      * leading 1 fixed, and b), at most {@value CompanionBox#MAX_RANGED} ranged; null after an error. It takes the
-     * companion form, without matchSpecs, integral action or position-only sensing.
+     * companion form, without matchSpecs; with integral action and/or position-only sensing the loop that runs is
+     * judged.
      */
     private static ValidatedHighOrderRobust robust(
             List<FieldError> errors,
@@ -191,12 +192,6 @@ public final class HighOrderRequestValidator {
                     "/matchSpecs",
                     "not with robust: the robust search chooses the dominant pair itself, by simulating every case"
                             + " of the box; drop matchSpecs"));
-        }
-        if (loop != null) {
-            errors.add(new FieldError(
-                    ROBUST,
-                    "a robust order-n design judges the full-state loop; integral action and position-only sensing"
-                            + " with a box are taken by POST /v1/designs (order 2)"));
         }
         if (input.actuatorLimit() != null
                 && !(input.actuatorLimit() > 0 && input.actuatorLimit() <= VerifyLimits.MAX_ACTUATOR_LIMIT)) {

@@ -22,8 +22,12 @@ import java.util.List;
  * @param worstCase         the case and metric closest to its limit (absent when no case is measured)
  * @param priceOfRobustness the nominal loop against the spec requested, and the worst case
  * @param actuatorLimit     the bound every case's max |u| meets, or absent
- * @param gamma             the design's gamma, the bound each corner's norm is compared with
+ * @param gamma             the bound each corner's norm is compared with: the design's gamma, the augmented
+ *                          design's with integral action
  * @param corners           each corner's metrics and certified H-infinity norm from w to z
+ * @param judgedLoop        integralAction, positionObserver or integralActionPositionObserver: the loop judged over
+ *                          the box (the nominal law and observer on each perturbed plant), absent for the full-state
+ *                          law
  */
 @JsonInclude(JsonInclude.Include.NON_NULL)
 public record HighOrderRobustDesign(
@@ -40,7 +44,8 @@ public record HighOrderRobustDesign(
         RobustDesign.Price priceOfRobustness,
         Double actuatorLimit,
         double gamma,
-        List<Corner> corners) {
+        List<Corner> corners,
+        String judgedLoop) {
 
     public HighOrderRobustDesign {
         corners = List.copyOf(corners);

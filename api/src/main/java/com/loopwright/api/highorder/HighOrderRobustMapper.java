@@ -1,9 +1,11 @@
 package com.loopwright.api.highorder;
 
 import com.loopwright.api.design.RobustDesign;
+import com.loopwright.api.design.RobustDesignMapper;
 import com.loopwright.api.robustness.RobustnessResponse;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.pipeline.HighOrderRobustReport;
+import com.loopwright.solver.pipeline.RealLoopReport;
 import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -18,7 +20,12 @@ final class HighOrderRobustMapper {
         HighOrderRobustReport.Binding binding = robust.binding();
         AcceptanceLimits limits = robust.limits();
         TargetDynamics target = robust.design().design().poles().dominant();
-        StepMetrics nominal = robust.design().verification().step().metrics();
+        RealLoopReport loop = robust.judgedLoop();
+        StepMetrics nominal = loop == null
+                ? robust.design().verification().step().metrics()
+                : loop.outputFeedback() == null
+                        ? loop.stateFeedbackStep()
+                        : loop.outputFeedback().step();
         return new HighOrderRobustDesign(
                 SELECTION_RULE,
                 point(target),
@@ -60,7 +67,8 @@ final class HighOrderRobustMapper {
                                 c.metrics() == null ? null : metrics(c.metrics()),
                                 c.hInfinityNorm(),
                                 c.hInfinityNorm() <= robust.gamma()))
-                        .toList());
+                        .toList(),
+                loop == null ? null : RobustDesignMapper.judgedLoop(loop.structure()));
     }
 
     private static RobustDesign.TargetPoint point(TargetDynamics target) {

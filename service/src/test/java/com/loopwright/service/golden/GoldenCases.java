@@ -473,6 +473,10 @@ final class GoldenCases {
                 + "\"spec\":{\"settlingTime\":1,\"overshootPercent\":2}";
         String box = "{\"denominator\":[null,{\"spreadPercent\":10},null,null],\"b\":{\"spreadPercent\":20},"
                 + "\"monteCarloSamples\":20,\"seed\":5}";
+        String gimbal = "\"plant\":{\"denominator\":[1,52,100,0],\"b\":500,\"disturbance\":[0,0,1]},"
+                + "\"spec\":{\"settlingTime\":0.6,\"overshootPercent\":2}";
+        String gimbalBox = "{\"denominator\":[null,{\"spreadPercent\":10},{\"spreadPercent\":30},null],"
+                + "\"b\":{\"lowest\":400,\"highest\":600},\"monteCarloSamples\":10,\"seed\":11}";
         String[] bodies = {
             "{" + tank + ",\"robust\":{\"uncertainty\":" + box + "}}",
             "{" + tank + ",\"robust\":{\"uncertainty\":" + box + ",\"actuatorLimit\":2}}",
@@ -487,6 +491,15 @@ final class GoldenCases {
             "{\"plant\":{\"stateSpace\":{\"a\":[[0,1],[0,-2]],\"b2\":[0,3],\"b1\":[0,1]}},"
                     + "\"spec\":{\"settlingTime\":2,\"overshootPercent\":5},"
                     + "\"robust\":{\"uncertainty\":{\"b\":{\"spreadPercent\":5}}}}",
+            // the loop that runs judged over the box: integral action, encoder only, both, and a box too wide
+            "{" + gimbal + ",\"integralAction\":true,\"measurement\":\"position\","
+                    + "\"observer\":{\"method\":\"poleMultiple\",\"multiple\":4},\"robust\":{\"uncertainty\":"
+                    + gimbalBox + "}}",
+            "{" + gimbal + ",\"integralAction\":true,\"robust\":{\"uncertainty\":" + gimbalBox + "}}",
+            "{" + gimbal + ",\"measurement\":\"position\",\"robust\":{\"uncertainty\":" + gimbalBox
+                    + ",\"actuatorLimit\":40}}",
+            "{" + gimbal + ",\"integralAction\":true,\"robust\":{\"uncertainty\":{\"b\":{\"lowest\":5,"
+                    + "\"highest\":5000}}}}",
         };
         for (int i = 0; i < bodies.length; i++) {
             post(String.format(Locale.ROOT, "high-order-robust-%02d", i), "/v1/designs/high-order", bodies[i]);

@@ -20,6 +20,8 @@ import java.util.function.Function;
  * @param sampleCount     Monte Carlo samples
  * @param seed            their seed
  * @param cases           every case judged, the corners first
+ * @param judgedLoop      the loop with integral action and/or an observer judged over the box (designed at the
+ *                        chosen pair), or null when the full-state law is judged
  */
 public record HighOrderRobustReport(
         HighOrderPipeline.Result design,
@@ -29,7 +31,8 @@ public record HighOrderRobustReport(
         RobustTargetSearch.Outcome search,
         int sampleCount,
         long seed,
-        List<Case> cases) {
+        List<Case> cases,
+        RealLoopReport judgedLoop) {
 
     public HighOrderRobustReport {
         cases = List.copyOf(cases);
@@ -50,9 +53,11 @@ public record HighOrderRobustReport(
     /** The metric closest to its limit over every case, as metric / limit, and the case it occurs at. */
     public record Binding(String metric, double ratio, Case at) {}
 
-    /** The design's gamma, the bound each corner norm is compared with. */
+    /** The gamma each corner norm is compared with: the judged loop's (augmented with integral action), else the design's. */
     public double gamma() {
-        return design.design().gamma();
+        return judgedLoop != null
+                ? judgedLoop.design().gamma()
+                : design.design().gamma();
     }
 
     /** The corners, in {@link com.loopwright.solver.robustness.CompanionBox} order. */

@@ -151,7 +151,7 @@ public final class RealLoopPipeline {
      */
     public RealLoopReport design(Request request) {
         checkStructure(request);
-        return assembled(request, designOrFail(request));
+        return assembled(request, designOrFail(request), true);
     }
 
     /**
@@ -162,7 +162,7 @@ public final class RealLoopPipeline {
      */
     RealLoopReport designAt(Request request, TargetDynamics target) {
         checkStructure(request);
-        return assembled(request, designedAtOrFail(request, target));
+        return assembled(request, designedAtOrFail(request, target), false);
     }
 
     /** The designed law, observer and weights for a dominant pair, without the loop's figures (the search's step). */
@@ -198,7 +198,7 @@ public final class RealLoopPipeline {
         }
     }
 
-    private static void checkStructure(Request request) {
+    static void checkStructure(Request request) {
         CompanionPlant plant = request.plant();
         LoopStructure structure = request.structure();
         if (!(request.spec().timeSpec() instanceof TimeSpec.SettlingTime)) {
@@ -221,14 +221,18 @@ public final class RealLoopPipeline {
         }
     }
 
-    private RealLoopReport assembled(Request request, Designed designed) {
+    /** @param matched the dominant pair was matched to the spec (else given, by the robust search) */
+    private RealLoopReport assembled(Request request, Designed designed, boolean matched) {
         CompanionPlant plant = request.plant();
         LoopStructure structure = request.structure();
         TimeSpec.SettlingTime settling = (TimeSpec.SettlingTime) request.spec().timeSpec();
         List<String> notes = new ArrayList<>();
         TargetDynamics target = designed.poles().dominant();
         DesiredPoles plantPoles = designed.poles();
-        if (plant.order() > 2) {
+        if (plant.order() > 2 && !matched) {
+            notes.add("order " + plant.order() + ": the dominant pair is the robust search's; the integral pole is"
+                    + " cancelled, so the same pair serves the augmented loop");
+        } else if (plant.order() > 2) {
             notes.add("order " + plant.order() + ": the dominant pair is matched by simulating the plain loop with its"
                     + " auxiliary poles; the integral pole is cancelled, so the same pair serves the augmented loop");
         }

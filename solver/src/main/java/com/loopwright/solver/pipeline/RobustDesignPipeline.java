@@ -226,8 +226,8 @@ public final class RobustDesignPipeline {
         AcceptanceLimits limits =
                 new AcceptanceLimits(spec.timeSpec().seconds(), null, 100 * spec.overshootFraction(), bandFraction);
         TargetDynamics requested = inverter.invert(spec).target();
-        RobustLoopSearch search =
-                new RobustLoopSearch(realLoops, request, plant, box, samples, seed, limits, actuatorLimit, stepSize);
+        RobustLoopSearch<CanonicalPlant> search = RobustLoopSearch.canonical(
+                realLoops, request, plant, box, samples, seed, limits, actuatorLimit, stepSize);
         SampledLoopJudge sampledJudge = null;
         RobustTargetSearch.Outcome outcome;
         if (samplePeriod == null) {
@@ -287,7 +287,7 @@ public final class RobustDesignPipeline {
             for (int i = 0; i < cases.size(); i++) {
                 boolean corner = i < search.corners().size();
                 UncertainCase judged = sampledJudge == null
-                        ? search.judged(parts, cases.get(i), corner)
+                        ? judged(search, parts, cases.get(i), corner)
                         : sampledJudge.judged(sampledDesign, cases.get(i), corner);
                 (judged.corner() ? corners : all).add(judged);
             }
@@ -329,6 +329,36 @@ public final class RobustDesignPipeline {
                 worst,
                 loop,
                 new RobustDesignReport.SampledJudging(samplePeriod, nominalSampled));
+    }
+
+    /**
+     * One case judged for the report: its step metrics and, at a corner, the norm from w to z of the perturbed loop
+     * (the disturbance column is [0, d]: the norm scales with |d| / |d_nominal|, so it is computed with the nominal
+     * d and scaled).
+     */
+    private static UncertainCase judged(
+            RobustLoopSearch<CanonicalPlant> search,
+            RealLoopPipeline.LoopParts parts,
+            CanonicalPlant plant,
+            boolean corner) {
+        StepMetrics m = search.metrics(parts, plant);
+        Double gain = null;
+        if (corner && m != null) {
+            gain = search.cornerNorm(parts, plant);
+        }
+        if (m == null) {
+            return new UncertainCase(plant, corner, false, null, null, null, null, gain, false);
+        }
+        return new UncertainCase(
+                plant,
+                corner,
+                true,
+                m.settlingTimeSeconds(),
+                m.riseTimeSeconds(),
+                m.overshootPercent(),
+                m.peakControl(),
+                gain,
+                search.limits().met(m.settlingTimeSeconds(), m.riseTimeSeconds(), m.overshootPercent()));
     }
 
     /**

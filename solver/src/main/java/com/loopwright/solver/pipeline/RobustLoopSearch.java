@@ -9,37 +9,83 @@ import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.observer.LoopSystem;
 import com.loopwright.solver.observer.OutputFeedbackLoop;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.CompanionPlant;
 import com.loopwright.solver.riccati.NoStabilizingSolutionException;
 import com.loopwright.solver.robustness.AcceptanceLimits;
+import com.loopwright.solver.robustness.CompanionBox;
 import com.loopwright.solver.robustness.ParameterBox;
 import com.loopwright.solver.robustness.ParameterSampler;
 import com.loopwright.solver.robustness.RobustTargetSearch;
-import com.loopwright.solver.robustness.UncertainCase;
 import com.loopwright.solver.simulation.StepResponseMetrics;
 import com.loopwright.solver.spec.TargetDynamics;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.Predicate;
 
 /**
- * The robust target search for the loop with integral action and/or position-only sensing. There is no closed form
- * for these loops over the box: for each candidate target the loop is designed on the nominal plant (the same
- * machinery as {@link RealLoopPipeline}), and each case of the box is judged by the exact zero-order-hold step of
- * the perturbed loop (the plant perturbed, the law and observer as designed; {@link OutputFeedbackLoop#closedOn}).
+ * The robust target search for the loop with integral action and/or position-only sensing, for any plant form. There
+ * is no closed form for these loops over the box: for each candidate target the loop is designed on the nominal
+ * plant (the same machinery as {@link RealLoopPipeline}), and each case of the box is judged by the exact
+ * zero-order-hold step of the perturbed loop (the plant perturbed, the law and observer as designed;
+ * {@link OutputFeedbackLoop#closedOn}). A case P is a canonical plant (order 2, {@link #canonical}) or a perturbed
+ * companion plant (order n, {@link #companion}); {@link CaseForm} turns it into the companion plant that is judged.
  * The search itself, its grid, rule and caps, is {@link SimulatedTargetSearch}'s. One instance serves one search.
+ *
+ * @param <P> the plant of one case as the report names it
  */
-final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoopPipeline.LoopParts> {
+final class RobustLoopSearch<P> implements SimulatedTargetSearch.CaseJudge<RealLoopPipeline.LoopParts> {
+
+    /** How a case becomes the judged companion plant, and how its norm from w to z scales. */
+    interface CaseForm<P> {
+        /** The companion plant the loop runs on in this case, with the nominal disturbance column. */
+        CompanionPlant judged(P plant);
+
+        /**
+         * The factor of the norm from w to z of the case over that of {@link #judged} (the disturbance column
+         * enters the norm linearly).
+         */
+        double normScale(P plant);
+    }
 
     private final RealLoopPipeline loops;
     private final RealLoopPipeline.Request request;
-    private final CanonicalPlant nominal;
+    private final CaseForm<P> form;
+    private final Predicate<TargetDynamics> alsoDesigned;
     private final AcceptanceLimits limits;
     private final double stepSize;
-    private final List<CanonicalPlant> corners;
-    private final List<CanonicalPlant> everyCase;
+    private final List<P> corners;
+    private final List<P> everyCase;
     private final SimulatedTargetSearch<RealLoopPipeline.LoopParts> search;
     private final HInfinityNormCalculator norms = new HInfinityNormCalculator();
 
-    RobustLoopSearch(
+    private RobustLoopSearch(
+            RealLoopPipeline loops,
+            RealLoopPipeline.Request request,
+            CaseForm<P> form,
+            Predicate<TargetDynamics> alsoDesigned,
+            List<P> corners,
+            List<P> samples,
+            AcceptanceLimits limits,
+            Double actuatorLimit,
+            double stepSize) {
+        this.loops = loops;
+        this.request = request;
+        this.form = form;
+        this.alsoDesigned = alsoDesigned;
+        this.limits = limits;
+        this.stepSize = stepSize;
+        this.corners = List.copyOf(corners);
+        List<P> all = new ArrayList<>(corners);
+        all.addAll(samples);
+        this.everyCase = List.copyOf(all);
+        this.search = new SimulatedTargetSearch<>(this, corners.size(), everyCase.size(), limits, actuatorLimit);
+    }
+
+    /**
+     * Order 2: the cases of a parameter box over the canonical plant, each judged as the companion plant of the
+     * case with the nominal d (the step does not depend on d, and d may be 0) and its norm scaled by |d / d_nominal|.
+     */
+    static RobustLoopSearch<CanonicalPlant> canonical(
             RealLoopPipeline loops,
             RealLoopPipeline.Request request,
             CanonicalPlant nominal,
@@ -49,26 +95,76 @@ final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoop
             AcceptanceLimits limits,
             Double actuatorLimit,
             double stepSize) {
-        this.loops = loops;
-        this.request = request;
-        this.nominal = nominal;
-        this.limits = limits;
-        this.stepSize = stepSize;
-        this.corners = box.corners();
-        List<CanonicalPlant> all = new ArrayList<>(corners);
+        List<CanonicalPlant> drawn = new ArrayList<>();
         ParameterSampler sampler = new ParameterSampler(box, seed);
         for (int s = 0; s < samples; s++) {
-            all.add(ParameterBox.plant(sampler.next()));
+            drawn.add(ParameterBox.plant(sampler.next()));
         }
-        this.everyCase = List.copyOf(all);
-        this.search = new SimulatedTargetSearch<>(this, corners.size(), everyCase.size(), limits, actuatorLimit);
+        CaseForm<CanonicalPlant> form = new CaseForm<>() {
+            @Override
+            public CompanionPlant judged(CanonicalPlant plant) {
+                return IntegralAugmentation.companionOf(
+                        new CanonicalPlant(plant.a0(), plant.a1(), plant.b(), nominal.d()));
+            }
+
+            @Override
+            public double normScale(CanonicalPlant plant) {
+                return Math.abs(plant.d() / nominal.d());
+            }
+        };
+        return new RobustLoopSearch<>(
+                loops, request, form, target -> true, box.corners(), drawn, limits, actuatorLimit, stepSize);
     }
 
-    List<CanonicalPlant> corners() {
+    /**
+     * Order n: the cases of a companion box (the nominal numerator and disturbance kept, so each case is judged as
+     * it is and its norm is not scaled).
+     *
+     * @param alsoDesigned a target counts only when this holds there too (the plain order-n design exists)
+     */
+    static RobustLoopSearch<CompanionPlant> companion(
+            RealLoopPipeline loops,
+            RealLoopPipeline.Request request,
+            Predicate<TargetDynamics> alsoDesigned,
+            CompanionBox box,
+            int samples,
+            long seed,
+            AcceptanceLimits limits,
+            Double actuatorLimit,
+            double stepSize) {
+        CaseForm<CompanionPlant> form = new CaseForm<>() {
+            @Override
+            public CompanionPlant judged(CompanionPlant plant) {
+                return plant;
+            }
+
+            @Override
+            public double normScale(CompanionPlant plant) {
+                return 1;
+            }
+        };
+        CompanionPlant nominal = request.plant();
+        return new RobustLoopSearch<>(
+                loops,
+                request,
+                form,
+                alsoDesigned,
+                box.corners(nominal),
+                box.samples(nominal, samples, seed),
+                limits,
+                actuatorLimit,
+                stepSize);
+    }
+
+    AcceptanceLimits limits() {
+        return limits;
+    }
+
+    List<P> corners() {
         return corners;
     }
 
-    List<CanonicalPlant> everyCase() {
+    List<P> everyCase() {
         return everyCase;
     }
 
@@ -80,7 +176,8 @@ final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoop
     @Override
     public RealLoopPipeline.LoopParts designAt(TargetDynamics target) {
         try {
-            return loops.partsAt(request, target);
+            RealLoopPipeline.LoopParts parts = loops.partsAt(request, target);
+            return alsoDesigned.test(target) ? parts : null;
         } catch (InfeasibleDesignException
                 | PoleMatchedRiccati.SystemFailure
                 | NoStabilizingSolutionException
@@ -98,7 +195,7 @@ final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoop
      * The exact zero-order-hold step metrics of the designed loop on one case (step of size r), or null when the
      * perturbed loop is unstable or its step is not measurable.
      */
-    StepMetrics metrics(RealLoopPipeline.LoopParts parts, CanonicalPlant plant) {
+    StepMetrics metrics(RealLoopPipeline.LoopParts parts, P plant) {
         Cancellation.checkpoint();
         try {
             LoopSystem loop = perturbed(parts, plant);
@@ -116,40 +213,13 @@ final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoop
     }
 
     /**
-     * One case judged for the report: its step metrics and, at a corner, the norm from w to z of the perturbed loop
-     * (the disturbance column is [0, d]: the norm scales with |d| / |d_nominal|, so it is computed with the nominal
-     * d and scaled).
+     * The norm from w to z of the continuous perturbed loop (scaled by {@link CaseForm#normScale}), or null when it
+     * cannot be computed.
      */
-    UncertainCase judged(RealLoopPipeline.LoopParts parts, CanonicalPlant plant, boolean corner) {
-        StepMetrics m = metrics(parts, plant);
-        Double gain = null;
-        if (corner && m != null) {
-            gain = cornerNorm(parts, plant);
-        }
-        if (m == null) {
-            return new UncertainCase(plant, corner, false, null, null, null, null, gain, false);
-        }
-        boolean meets = limits.met(m.settlingTimeSeconds(), m.riseTimeSeconds(), m.overshootPercent());
-        return new UncertainCase(
-                plant,
-                corner,
-                true,
-                m.settlingTimeSeconds(),
-                m.riseTimeSeconds(),
-                m.overshootPercent(),
-                m.peakControl(),
-                gain,
-                meets);
-    }
-
-    /**
-     * The norm from w to z of the continuous perturbed loop (the disturbance column is [0, d]: the norm scales with
-     * |d| / |d_nominal|, so it is computed with the nominal d and scaled), or null when it cannot be computed.
-     */
-    Double cornerNorm(RealLoopPipeline.LoopParts parts, CanonicalPlant plant) {
+    Double cornerNorm(RealLoopPipeline.LoopParts parts, P plant) {
         try {
             LoopSystem loop = perturbed(parts, plant);
-            return Math.abs(plant.d() / nominal.d())
+            return form.normScale(plant)
                     * norms.compute(loop.a(), loop.disturbance(), loop.performance())
                             .value();
         } catch (RuntimeException e) {
@@ -157,11 +227,10 @@ final class RobustLoopSearch implements SimulatedTargetSearch.CaseJudge<RealLoop
         }
     }
 
-    /** The perturbed loop; the step does not depend on d, so the case is built with the nominal d (d may be 0). */
-    private LoopSystem perturbed(RealLoopPipeline.LoopParts parts, CanonicalPlant plant) {
-        CanonicalPlant actual = new CanonicalPlant(plant.a0(), plant.a1(), plant.b(), nominal.d());
+    /** The perturbed loop: the case's plant with the nominal law and observer. */
+    private LoopSystem perturbed(RealLoopPipeline.LoopParts parts, P plant) {
         return OutputFeedbackLoop.closedOn(
-                IntegralAugmentation.companionOf(actual),
+                form.judged(plant),
                 request.plant(),
                 request.plant().outputRow().data,
                 parts.law(),

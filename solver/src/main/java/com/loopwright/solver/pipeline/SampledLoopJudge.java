@@ -37,7 +37,7 @@ final class SampledLoopJudge implements SimulatedTargetSearch.CaseJudge<SampledL
     /** A loop at one target: its continuous parts and the discrete controller the export emits. */
     record Design(RealLoopPipeline.LoopParts parts, DiscreteController controller) {}
 
-    private final RobustLoopSearch loops;
+    private final RobustLoopSearch<CanonicalPlant> loops;
     private final CanonicalPlant nominal;
     private final double samplePeriod;
     private final double stepSize;
@@ -50,7 +50,7 @@ final class SampledLoopJudge implements SimulatedTargetSearch.CaseJudge<SampledL
      * @param observer position-only sensing (the controller measures x1 only)
      */
     SampledLoopJudge(
-            RobustLoopSearch loops,
+            RobustLoopSearch<CanonicalPlant> loops,
             CanonicalPlant nominal,
             double samplePeriod,
             double stepSize,
