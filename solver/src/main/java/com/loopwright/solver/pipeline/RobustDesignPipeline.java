@@ -10,7 +10,6 @@ import com.loopwright.solver.design.InfeasibleDesignException;
 import com.loopwright.solver.design.SpecProposal;
 import com.loopwright.solver.design.SpecQuantity;
 import com.loopwright.solver.design.StepMetrics;
-import com.loopwright.solver.export.SampledLawDesigner;
 import com.loopwright.solver.loop.LoopMatrices;
 import com.loopwright.solver.norm.HInfinityNormCalculator;
 import com.loopwright.solver.plant.CanonicalPlant;
@@ -101,12 +100,7 @@ public final class RobustDesignPipeline {
             return designSampledLaw(
                     plant, spec, gammaChoice, stepSize, bandFraction, box, samples, seed, actuatorLimit, samplePeriod);
         }
-        TimeSpec timeSpec = spec.timeSpec();
-        AcceptanceLimits limits = new AcceptanceLimits(
-                timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
-                timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
-                100 * spec.overshootFraction(),
-                bandFraction);
+        AcceptanceLimits limits = limits(spec, bandFraction);
         TargetDynamics requested = inverter.invert(spec).target();
         RobustTargetSearch.Outcome outcome;
         try {
@@ -124,20 +118,7 @@ public final class RobustDesignPipeline {
             throw SolverFailure.infeasible(infeasibility(limits, actuatorLimit, outcome), null);
         }
         TargetDynamics target = outcome.target();
-        DesignReport report;
-        try {
-            report = loops.designed(
-                    plant,
-                    spec,
-                    new SpecInversion(target, handbook(target, timeSpec, bandFraction), 0),
-                    gammaChoice,
-                    stepSize,
-                    bandFraction);
-        } catch (InfeasibleDesignException e) {
-            throw SolverFailure.infeasible(e.infeasibility(), e);
-        } catch (VerificationFailedException e) {
-            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
-        }
+        DesignReport report = verifiedAt(plant, spec, target, gammaChoice, stepSize, bandFraction);
         ClosedFormDesign design = report.design();
         FeedbackGains gains = new FeedbackGains(design.positionGain(), design.velocityGain(), design.referenceGain());
         DMatrixRMaj output = new DMatrixRMaj(
@@ -236,7 +217,7 @@ public final class RobustDesignPipeline {
                 throw SolverFailure.infeasible(infeasibility(limits, actuatorLimit, outcome), null);
             }
         } else {
-            requireReachable(requested, samplePeriod, limits);
+            SampledRobustRules.requireReachable(requested, samplePeriod, limits);
             SampledLoopJudge judge = new SampledLoopJudge(
                     search,
                     plant,
@@ -255,25 +236,12 @@ public final class RobustDesignPipeline {
                             Double.NaN)
                     .search(requested));
             if (outcome.target() == null) {
-                throw sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
+                throw SampledRobustRules.sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
             }
         }
         TargetDynamics target = outcome.target();
         RealLoopReport loop = realLoops.designAt(request, target);
-        DesignReport report;
-        try {
-            report = loops.designed(
-                    plant,
-                    spec,
-                    new SpecInversion(target, handbook(target, spec.timeSpec(), bandFraction), 0),
-                    gammaChoice,
-                    stepSize,
-                    bandFraction);
-        } catch (InfeasibleDesignException e) {
-            throw SolverFailure.infeasible(e.infeasibility(), e);
-        } catch (VerificationFailedException e) {
-            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
-        }
+        DesignReport report = verifiedAt(plant, spec, target, gammaChoice, stepSize, bandFraction);
         RealLoopPipeline.LoopParts parts = realLoops.partsAt(request, target);
         SampledLoopJudge.Design sampledDesign = sampledJudge == null ? null : sampledJudge.designAt(target);
         if (sampledJudge != null && sampledDesign == null) {
@@ -292,7 +260,7 @@ public final class RobustDesignPipeline {
                 (judged.corner() ? corners : all).add(judged);
             }
         } catch (SamplePeriodException e) {
-            throw samplePeriodFailure(e.getMessage(), e);
+            throw SampledRobustRules.samplePeriodFailure(e.getMessage(), e);
         }
         all.addAll(0, corners);
         UncertaintyReport uncertainty = analyzer.summarize(corners, all, samples, seed, limits);
@@ -316,8 +284,10 @@ public final class RobustDesignPipeline {
         }
         SampledLoopJudge.Design chosen = sampledDesign;
         SampledLoopJudge judge = sampledJudge;
-        StepMetrics worst = worstAt == null ? null : sampledMetrics(() -> judge.metrics(chosen, worstAt));
-        StepMetrics nominalSampled = requireNominal(sampledMetrics(() -> judge.metrics(chosen, plant)));
+        StepMetrics worst =
+                worstAt == null ? null : SampledRobustRules.sampledMetrics(() -> judge.metrics(chosen, worstAt));
+        StepMetrics nominalSampled = SampledRobustRules.requireNominal(
+                SampledRobustRules.sampledMetrics(() -> judge.metrics(chosen, plant)));
         return new RobustDesignReport(
                 report,
                 requested,
@@ -380,14 +350,9 @@ public final class RobustDesignPipeline {
         if (samples < 0 || samples > MAX_LOOP_SAMPLES) {
             throw new IllegalArgumentException("samples must be 0 to " + MAX_LOOP_SAMPLES);
         }
-        TimeSpec timeSpec = spec.timeSpec();
-        AcceptanceLimits limits = new AcceptanceLimits(
-                timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
-                timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
-                100 * spec.overshootFraction(),
-                bandFraction);
+        AcceptanceLimits limits = limits(spec, bandFraction);
         TargetDynamics requested = inverter.invert(spec).target();
-        requireReachable(requested, samplePeriod, limits);
+        SampledRobustRules.requireReachable(requested, samplePeriod, limits);
         List<CanonicalPlant> cornerPlants = box.corners();
         List<CanonicalPlant> cases = new ArrayList<>(cornerPlants);
         ParameterSampler sampler = new ParameterSampler(box, seed);
@@ -410,23 +375,10 @@ public final class RobustDesignPipeline {
                         continuousDamping)
                 .search(requested));
         if (outcome.target() == null) {
-            throw sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
+            throw SampledRobustRules.sampledInfeasible(limits, actuatorLimit, outcome, samplePeriod);
         }
         TargetDynamics target = outcome.target();
-        DesignReport report;
-        try {
-            report = loops.designed(
-                    plant,
-                    spec,
-                    new SpecInversion(target, handbook(target, timeSpec, bandFraction), 0),
-                    gammaChoice,
-                    stepSize,
-                    bandFraction);
-        } catch (InfeasibleDesignException e) {
-            throw SolverFailure.infeasible(e.infeasibility(), e);
-        } catch (VerificationFailedException e) {
-            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
-        }
+        DesignReport report = verifiedAt(plant, spec, target, gammaChoice, stepSize, bandFraction);
         ClosedFormDesign design = report.design();
         // the exported law's gains: those of the verified design
         FeedbackGains gains = new FeedbackGains(design.positionGain(), design.velocityGain(), design.referenceGain());
@@ -438,7 +390,7 @@ public final class RobustDesignPipeline {
         for (int i = 0; i < cases.size(); i++) {
             boolean corner = i < cornerPlants.size();
             CanonicalPlant casePlant = cases.get(i);
-            UncertainCase judged = sampledCase(() -> judge.judged(gains, casePlant, corner, limits));
+            UncertainCase judged = SampledRobustRules.sampledCase(() -> judge.judged(gains, casePlant, corner, limits));
             (corner ? corners : all).add(judged);
         }
         all.addAll(0, corners);
@@ -451,8 +403,10 @@ public final class RobustDesignPipeline {
         RobustDesignReport partial =
                 new RobustDesignReport(report, requested, limits, actuatorLimit, outcome, uncertainty, norms, null);
         CanonicalPlant worstAt = partial.binding().at();
-        StepMetrics worst = worstAt == null ? null : sampledMetrics(() -> judge.metrics(gains, worstAt));
-        StepMetrics nominalSampled = requireNominal(sampledMetrics(() -> judge.metrics(gains, plant)));
+        StepMetrics worst =
+                worstAt == null ? null : SampledRobustRules.sampledMetrics(() -> judge.metrics(gains, worstAt));
+        StepMetrics nominalSampled =
+                SampledRobustRules.requireNominal(SampledRobustRules.sampledMetrics(() -> judge.metrics(gains, plant)));
         return new RobustDesignReport(
                 report,
                 requested,
@@ -496,7 +450,7 @@ public final class RobustDesignPipeline {
         } catch (ComputationCancelledException e) {
             throw e;
         } catch (SamplePeriodException e) {
-            throw samplePeriodFailure(e.getMessage(), e);
+            throw SampledRobustRules.samplePeriodFailure(e.getMessage(), e);
         } catch (RobustTargetSearch.SearchCapException e) {
             throw SolverFailure.about(
                     SolverFailure.Kind.CAP_EXCEEDED, SolverFailure.ROBUST_SEARCH, -1, e.getMessage(), e);
@@ -507,105 +461,37 @@ public final class RobustDesignPipeline {
         }
     }
 
-    /** The chosen design's sampled metrics (null when not measurable), its period failure as a SolverFailure. */
-    private static StepMetrics sampledMetrics(java.util.function.Supplier<StepMetrics> run) {
+    /** The spec as sent, not widened: the limits every case of a robust design must meet. */
+    private static AcceptanceLimits limits(DesignSpec spec, double bandFraction) {
+        TimeSpec timeSpec = spec.timeSpec();
+        return new AcceptanceLimits(
+                timeSpec instanceof TimeSpec.SettlingTime ? timeSpec.seconds() : null,
+                timeSpec instanceof TimeSpec.RiseTime ? timeSpec.seconds() : null,
+                100 * spec.overshootFraction(),
+                bandFraction);
+    }
+
+    /** The closed-form design of the chosen target, verified as any design (its failures as SolverFailures). */
+    private DesignReport verifiedAt(
+            CanonicalPlant plant,
+            DesignSpec spec,
+            TargetDynamics target,
+            GammaChoice gammaChoice,
+            double stepSize,
+            double bandFraction) {
         try {
-            return run.get();
-        } catch (SamplePeriodException e) {
-            throw samplePeriodFailure(e.getMessage(), e);
+            return loops.designed(
+                    plant,
+                    spec,
+                    new SpecInversion(target, handbook(target, spec.timeSpec(), bandFraction), 0),
+                    gammaChoice,
+                    stepSize,
+                    bandFraction);
+        } catch (InfeasibleDesignException e) {
+            throw SolverFailure.infeasible(e.infeasibility(), e);
+        } catch (VerificationFailedException e) {
+            throw SolverFailure.of(SolverFailure.Kind.UNVERIFIABLE, e.getMessage(), e);
         }
-    }
-
-    private static StepMetrics requireNominal(StepMetrics nominal) {
-        if (nominal == null) {
-            throw SolverFailure.of(
-                    SolverFailure.Kind.UNVERIFIABLE, "the nominal sampled loop's step could not be measured", null);
-        }
-        return nominal;
-    }
-
-    private static UncertainCase sampledCase(java.util.function.Supplier<UncertainCase> run) {
-        try {
-            return run.get();
-        } catch (SamplePeriodException e) {
-            throw samplePeriodFailure(e.getMessage(), e);
-        }
-    }
-
-    private static SolverFailure samplePeriodFailure(String message, Throwable cause) {
-        return SolverFailure.about(
-                SolverFailure.Kind.SAMPLED_LAW_INFEASIBLE, SolverFailure.ROBUST_SAMPLE_PERIOD, -1, message, cause);
-    }
-
-    /**
-     * The period leaves the search a bracket: the exported law needs wn T &lt;= 0.5, so no target above 0.5 / T; the
-     * search starts at wn_req / {@value RobustTargetSearch#FREQUENCY_SPAN}. A period above
-     * 0.5 {@value RobustTargetSearch#FREQUENCY_SPAN} / wn_req therefore cannot work for the spec.
-     */
-    private static void requireReachable(TargetDynamics requested, double samplePeriod, AcceptanceLimits limits) {
-        double lowest = requested.naturalFrequencyRadPerSec() / RobustTargetSearch.FREQUENCY_SPAN;
-        if (SampledLawJudge.frequencyCeiling(samplePeriod) > lowest) {
-            return;
-        }
-        throw samplePeriodFailure(
-                String.format(
-                        Locale.US,
-                        "the sample period %.6g s is too long for this spec: %s; the exported law needs wn T <= %.2g,"
-                                + " so wn <= %.6g rad/s, below the slowest target the search tries (%.6g rad/s, a"
-                                + " sixteenth of the requested natural frequency); a period above %.4g s cannot work"
-                                + " for this spec",
-                        samplePeriod,
-                        periods(limits, samplePeriod),
-                        SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT,
-                        SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT / samplePeriod,
-                        lowest,
-                        SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT / lowest),
-                null);
-    }
-
-    /** "the settling time 0.12 s is 1.2 sample periods" (or the rise time). */
-    private static String periods(AcceptanceLimits limits, double samplePeriod) {
-        boolean rise = limits.settlingTimeSeconds() == null;
-        double time = rise ? limits.riseTimeSeconds() : limits.settlingTimeSeconds();
-        return String.format(
-                Locale.US,
-                "the %s %.6g s is %.3g sample periods",
-                rise ? "rise time" : "settling time",
-                time,
-                time / samplePeriod);
-    }
-
-    /**
-     * No target meets the spec at the period: the infeasible-spec answer with the best spec the box allows at this
-     * period when one was found; else the period is the obstacle (422 at robust.samplePeriod).
-     */
-    private static SolverFailure sampledInfeasible(
-            AcceptanceLimits limits, Double actuatorLimit, RobustTargetSearch.Outcome outcome, double samplePeriod) {
-        String atPeriod = String.format(
-                Locale.US,
-                " judged sampled at samplePeriod %.6g s (%s; the exported controller needs wn T <= %.2g and every"
-                        + " case's sampled loop stable)",
-                samplePeriod,
-                periods(limits, samplePeriod),
-                SampledLawDesigner.MAX_PERIOD_PER_TIME_CONSTANT);
-        if (outcome.proposedTimeSeconds() == null && outcome.proposedOvershootPercent() == null) {
-            return samplePeriodFailure(
-                    String.format(
-                            Locale.US,
-                            "no nominal target meets the spec on all %d cases of the box%s, and no slower spec was"
-                                    + " found that they meet; shorten the sample period",
-                            outcome.caseCount(),
-                            atPeriod),
-                    null);
-        }
-        Infeasibility box = infeasibility(limits, actuatorLimit, outcome);
-        List<SpecProposal> proposals = box.proposals().stream()
-                .map(p -> new SpecProposal(
-                        p.quantity(),
-                        p.value(),
-                        p.note() + String.format(Locale.US, ", at samplePeriod %.6g s", samplePeriod)))
-                .toList();
-        return SolverFailure.infeasible(new Infeasibility(box.quantity(), box.reason() + atPeriod, proposals), null);
     }
 
     /** The certified norm from w to z (the Hamiltonian test, as the design's own certificate); 0 when d = 0. */
