@@ -12,6 +12,7 @@ import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.Function;
 import java.util.function.Supplier;
 
 /**
@@ -58,22 +59,13 @@ public final class HighOrderRobustPipeline {
         RobustTargetSearch.Outcome outcome = searched(() -> search.search(requested), limits, actuatorLimit);
         HighOrderPipeline.Result result = highOrder.design(request, outcome.target());
         HighOrderDesign design = result.design();
-        List<HighOrderRobustReport.Case> cases = new ArrayList<>();
-        List<CompanionPlant> all = search.everyCase();
-        for (int i = 0; i < all.size(); i++) {
-            boolean corner = i < search.corners().size();
-            CompanionPlant casePlant = all.get(i);
-            StepMetrics m = search.metrics(design, casePlant);
-            Double norm = null;
-            if (corner) {
-                norm = search.norm(design, casePlant);
-                if (norm == null) {
-                    throw SolverFailure.of(
-                            SolverFailure.Kind.UNVERIFIABLE, "a corner's norm from w to z could not be computed", null);
-                }
-            }
-            cases.add(new HighOrderRobustReport.Case(casePlant, corner, m, norm, meets(m, limits, actuatorLimit)));
-        }
+        List<HighOrderRobustReport.Case> cases = judgedCases(
+                search.everyCase(),
+                search.corners().size(),
+                p -> search.metrics(design, p),
+                p -> search.norm(design, p),
+                limits,
+                actuatorLimit);
         return new HighOrderRobustReport(result, requested, limits, actuatorLimit, outcome, samples, seed, cases, null);
     }
 
@@ -128,15 +120,35 @@ public final class HighOrderRobustPipeline {
         HighOrderPipeline.Result result = highOrder.design(request, target);
         RealLoopReport loop = realLoops.designAt(loopRequest, target);
         RealLoopPipeline.LoopParts parts = realLoops.partsAt(loopRequest, target);
+        List<HighOrderRobustReport.Case> cases = judgedCases(
+                search.everyCase(),
+                search.corners().size(),
+                p -> search.metrics(parts, p),
+                p -> search.cornerNorm(parts, p),
+                limits,
+                actuatorLimit);
+        return new HighOrderRobustReport(result, requested, limits, actuatorLimit, outcome, samples, seed, cases, loop);
+    }
+
+    /**
+     * Every case judged with the chosen design: its step metrics, and at a corner its norm from w to z (a corner whose
+     * norm cannot be computed leaves the design unverifiable).
+     */
+    private static List<HighOrderRobustReport.Case> judgedCases(
+            List<CompanionPlant> all,
+            int cornerCount,
+            Function<CompanionPlant, StepMetrics> metrics,
+            Function<CompanionPlant, Double> cornerNorm,
+            AcceptanceLimits limits,
+            Double actuatorLimit) {
         List<HighOrderRobustReport.Case> cases = new ArrayList<>();
-        List<CompanionPlant> all = search.everyCase();
         for (int i = 0; i < all.size(); i++) {
-            boolean corner = i < search.corners().size();
+            boolean corner = i < cornerCount;
             CompanionPlant casePlant = all.get(i);
-            StepMetrics m = search.metrics(parts, casePlant);
+            StepMetrics m = metrics.apply(casePlant);
             Double norm = null;
             if (corner) {
-                norm = search.cornerNorm(parts, casePlant);
+                norm = cornerNorm.apply(casePlant);
                 if (norm == null) {
                     throw SolverFailure.of(
                             SolverFailure.Kind.UNVERIFIABLE, "a corner's norm from w to z could not be computed", null);
@@ -144,7 +156,7 @@ public final class HighOrderRobustPipeline {
             }
             cases.add(new HighOrderRobustReport.Case(casePlant, corner, m, norm, meets(m, limits, actuatorLimit)));
         }
-        return new HighOrderRobustReport(result, requested, limits, actuatorLimit, outcome, samples, seed, cases, loop);
+        return cases;
     }
 
     /** The limits of the request's spec, after the checks every robust order-n design shares. */
