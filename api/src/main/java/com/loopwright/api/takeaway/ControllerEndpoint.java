@@ -27,6 +27,7 @@ import com.loopwright.solver.pipeline.LoopExport;
 import com.loopwright.solver.pipeline.RealLoopPipeline;
 import com.loopwright.solver.pipeline.RealLoopReport;
 import com.loopwright.solver.plant.CanonicalPlant;
+import com.loopwright.solver.plant.TwoStateModel;
 import com.loopwright.solver.spec.TargetDynamics;
 import com.loopwright.solver.spec.TimeSpec;
 import java.util.ArrayList;
@@ -34,6 +35,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import org.ejml.data.DMatrixRMaj;
 
 /**
  * POST /v1/designs/controllers/{format}, one format: the design, its emulated sampled law checked at the task
@@ -336,6 +338,9 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                         : loop.report().outputFeedback().step())
                 .orElse(metrics);
         List<String> specs = new ArrayList<>();
+        if (validated.design().resolvedPlant().source() instanceof TwoStateModel model) {
+            specs.add(callerCoordinatesLine(model));
+        }
         specs.add(String.format(
                 Locale.ROOT,
                 "Specs: %s, overshoot %.6g%%",
@@ -383,6 +388,28 @@ final class ControllerEndpoint implements Endpoint<ControllerRequest, Controller
                         + ", d = " + p.d(),
                 specs,
                 Cautions.ALL);
+    }
+
+    /**
+     * A state-space plant: the block's inputs are the canonical states z = T^-1 x, not the caller's x (z1 the tracked
+     * output, z2 its derivative); the design response's model.stateSpace states the gains on x.
+     */
+    private static String callerCoordinatesLine(TwoStateModel model) {
+        DMatrixRMaj tInv = model.inverseTransform();
+        return String.format(
+                Locale.ROOT,
+                "State-space plant: the inputs are the canonical states z = T^-1 x of your model, not your x:"
+                        + " Y1 = z1 = %.6g x1 + (%.6g) x2 (the tracked output), Y2 = z2 = dz1/dt = %.6g x1 + (%.6g) x2"
+                        + " (T^-1 = [[%.6g, %.6g], [%.6g, %.6g]]); the design response's model.stateSpace gives the"
+                        + " gains on your x",
+                tInv.get(0, 0),
+                tInv.get(0, 1),
+                tInv.get(1, 0),
+                tInv.get(1, 1),
+                tInv.get(0, 0),
+                tInv.get(0, 1),
+                tInv.get(1, 0),
+                tInv.get(1, 1));
     }
 
     /** The exported loop in one line: integrator, observer, the exact discretization and its check. */
