@@ -2,6 +2,7 @@ package com.loopwright.solver.pipeline;
 
 import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.design.StepMetrics;
+import com.loopwright.solver.numeric.GeometricBisection;
 import com.loopwright.solver.robustness.AcceptanceLimits;
 import com.loopwright.solver.robustness.RobustTargetSearch;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -229,15 +230,7 @@ final class SimulatedTargetSearch<D> {
         if (meets(zeta, lo, cases)) {
             return lo;
         }
-        for (int i = 0; i < BISECTIONS; i++) {
-            double mid = Math.sqrt(lo * hi);
-            if (meets(zeta, mid, cases)) {
-                hi = mid;
-            } else {
-                lo = mid;
-            }
-        }
-        return hi;
+        return GeometricBisection.lowestTrue(lo, hi, BISECTIONS, wn -> meets(zeta, wn, cases));
     }
 
     /**
@@ -248,27 +241,11 @@ final class SimulatedTargetSearch<D> {
         if (designAt(zeta, hi) == null) {
             return Double.NaN;
         }
-        for (int i = 0; i < BISECTIONS; i++) {
-            double mid = Math.sqrt(lo * hi);
-            if (designAt(zeta, mid) != null) {
-                hi = mid;
-            } else {
-                lo = mid;
-            }
-        }
-        return hi;
+        return GeometricBisection.lowestTrue(lo, hi, BISECTIONS, wn -> designAt(zeta, wn) != null);
     }
 
     private double largestWithinActuator(double zeta, double lo, double hi) {
-        for (int i = 0; i < BISECTIONS; i++) {
-            double mid = Math.sqrt(lo * hi);
-            if (withinActuator(zeta, mid)) {
-                lo = mid;
-            } else {
-                hi = mid;
-            }
-        }
-        return lo;
+        return GeometricBisection.highestTrue(lo, hi, BISECTIONS, wn -> withinActuator(zeta, wn));
     }
 
     /** Designable, and the first {@code cases} cases stable, measured and inside the limits (stops at a miss). */

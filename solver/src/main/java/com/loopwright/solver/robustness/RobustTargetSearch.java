@@ -4,6 +4,7 @@ import com.loopwright.solver.cancel.Cancellation;
 import com.loopwright.solver.design.FeedbackGains;
 import com.loopwright.solver.design.StepMetrics;
 import com.loopwright.solver.loop.LoopMatrices;
+import com.loopwright.solver.numeric.GeometricBisection;
 import com.loopwright.solver.plant.CanonicalPlant;
 import com.loopwright.solver.simulation.TwoStateStepMetrics;
 import com.loopwright.solver.spec.TargetDynamics;
@@ -255,28 +256,12 @@ public final class RobustTargetSearch {
         if (meetsSpec(zeta, lo, cases)) {
             return lo;
         }
-        for (int i = 0; i < BISECTIONS; i++) {
-            double mid = Math.sqrt(lo * hi);
-            if (meetsSpec(zeta, mid, cases)) {
-                hi = mid;
-            } else {
-                lo = mid;
-            }
-        }
-        return hi;
+        return GeometricBisection.lowestTrue(lo, hi, BISECTIONS, wn -> meetsSpec(zeta, wn, cases));
     }
 
     /** The largest wn in [lo, hi) within the actuator limit on every case, given that lo is. */
     private double largestWithinActuator(double zeta, double lo, double hi) {
-        for (int i = 0; i < BISECTIONS; i++) {
-            double mid = Math.sqrt(lo * hi);
-            if (withinActuator(zeta, mid)) {
-                lo = mid;
-            } else {
-                hi = mid;
-            }
-        }
-        return lo;
+        return GeometricBisection.highestTrue(lo, hi, BISECTIONS, wn -> withinActuator(zeta, wn));
     }
 
     /** Every case stable, measurable and inside the time and overshoot limits (stops at the first miss). */
