@@ -341,29 +341,7 @@ class HighOrderRobustEndpointTest extends LiveServerTest {
      * golden-section search around its best point (common practice).
      */
     private static double sweptNorm(double[] plant, double[] k, double[] rho) {
-        double best = 0;
-        double bestW = 0;
-        for (int i = 0; i <= 4000; i++) {
-            double w = Math.pow(10, -3 + 7.0 * i / 4000);
-            double g = gain(plant, k, rho, w);
-            if (g > best) {
-                best = g;
-                bestW = w;
-            }
-        }
-        double lo = bestW / Math.pow(10, 7.0 / 4000);
-        double hi = bestW * Math.pow(10, 7.0 / 4000);
-        double ratio = (Math.sqrt(5) - 1) / 2;
-        for (int i = 0; i < 80; i++) {
-            double m1 = hi - ratio * (hi - lo);
-            double m2 = lo + ratio * (hi - lo);
-            if (gain(plant, k, rho, m1) > gain(plant, k, rho, m2)) {
-                hi = m2;
-            } else {
-                lo = m1;
-            }
-        }
-        return Math.max(best, gain(plant, k, rho, (lo + hi) / 2));
+        return FrequencySweep.peak(w -> gain(plant, k, rho, w));
     }
 
     /**

@@ -276,29 +276,7 @@ class HighOrderRobustLoopEndpointTest extends LiveServerTest {
             c[4][4 + i] = -k[i];
         }
         c[4][3] = ki;
-        double best = 0;
-        double bestW = 0;
-        for (int i = 0; i <= 4000; i++) {
-            double w = Math.pow(10, -3 + 7.0 * i / 4000);
-            double g = gain(a, e, c, w);
-            if (g > best) {
-                best = g;
-                bestW = w;
-            }
-        }
-        double lo = bestW / Math.pow(10, 7.0 / 4000);
-        double hi = bestW * Math.pow(10, 7.0 / 4000);
-        double ratio = (Math.sqrt(5) - 1) / 2;
-        for (int i = 0; i < 80; i++) {
-            double m1 = hi - ratio * (hi - lo);
-            double m2 = lo + ratio * (hi - lo);
-            if (gain(a, e, c, m1) > gain(a, e, c, m2)) {
-                hi = m2;
-            } else {
-                lo = m1;
-            }
-        }
-        return Math.max(best, gain(a, e, c, (lo + hi) / 2));
+        return FrequencySweep.peak(w -> gain(a, e, c, w));
     }
 
     /**
